@@ -1,0 +1,17 @@
+import { AppShell } from '@/components/shell/AppShell';
+import { requirePage } from '@/lib/page-guard';
+import { navFor } from '@/lib/navigation';
+import { listMyWorkspaces } from '@/lib/workspaces/queries';
+
+export const dynamic = 'force-dynamic';
+
+/** Every signed-in page sits in here. The layout checks the session; each page checks its own permission. */
+export default async function LabLayout({ children }: { children: React.ReactNode }) {
+  const actor = await requirePage('account.self');
+  const workspaces = await listMyWorkspaces(actor.userId);
+  return (
+    <AppShell actor={actor} nav={navFor(actor.role)} workspaces={workspaces}>
+      {children}
+    </AppShell>
+  );
+}

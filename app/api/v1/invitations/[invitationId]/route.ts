@@ -1,0 +1,9 @@
+import { apiRoute, json, uuidParam } from '@/lib/api/route';
+import { revokeInvitation } from '@/lib/members/mutations';
+
+export const dynamic = 'force-dynamic';
+
+export const DELETE = apiRoute<{ invitationId: string }>('members.manage', async ({ actor, params }) => {
+  await revokeInvitation(actor, params.invitationId);
+  return json({ ok: true });
+});

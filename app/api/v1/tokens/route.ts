@@ -1,0 +1,11 @@
+import { apiRoute, json } from '@/lib/api/route';
+import { createToken, listMyTokens } from '@/lib/api-tokens/mutations';
+import { createTokenSchema } from '@/lib/api-tokens/schema';
+
+export const dynamic = 'force-dynamic';
+
+export const GET = apiRoute('tokens.manage', async ({ actor }) => json({ tokens: await listMyTokens(actor) }));
+
+export const POST = apiRoute('tokens.manage', async ({ actor, body }) =>
+  json({ token: await createToken(actor, await body(createTokenSchema)) }, 201),
+);

@@ -1,0 +1,45 @@
+'use client';
+
+import Link from 'next/link';
+import { usePathname } from 'next/navigation';
+import type { NavItem } from '@/lib/navigation';
+
+export function NavLinks({ items, onNavigate }: { items: NavItem[]; onNavigate?: () => void }) {
+  const path = usePathname();
+  const groups: Array<{ key: NavItem['group']; label: string }> = [
+    { key: 'work', label: 'Work' },
+    { key: 'settings', label: 'Workspace' },
+  ];
+  return (
+    <nav aria-label="Main" data-testid="main-nav">
+      {groups.map((g) => {
+        const inGroup = items.filter((i) => i.group === g.key);
+        if (!inGroup.length) return null;
+        return (
+          <div key={g.key} className="mb-6">
+            <p className="mb-2 px-3 text-xs font-semibold uppercase tracking-wider text-rind-400">{g.label}</p>
+            <ul className="space-y-1">
+              {inGroup.map((item) => {
+                const active = path === item.href || path.startsWith(item.href + '/');
+                return (
+                  <li key={item.href}>
+                    <Link
+                      href={item.href}
+                      onClick={onNavigate}
+                      aria-current={active ? 'page' : undefined}
+                      className={`block rounded-lg px-3 py-2 text-sm font-medium ${
+                        active ? 'bg-damson-700 text-pith-50' : 'text-rind-700 hover:bg-damson-50 hover:text-damson-900'
+                      }`}
+                    >
+                      {item.label}
+                    </Link>
+                  </li>
+                );
+              })}
+            </ul>
+          </div>
+        );
+      })}
+    </nav>
+  );
+}

@@ -1,0 +1,13 @@
+/** Every entity, listed explicitly: Turbopack minifies class names, so discovery by name is not an option. */
+import { Workspace } from './Workspace';
+import { User } from './User';
+import { Membership } from './Membership';
+import { Invitation } from './Invitation';
+import { PasswordReset } from './PasswordReset';
+import { ApiToken } from './ApiToken';
+import { RateLimitBucket } from './RateLimitBucket';
+
+export { Workspace, User, Membership, Invitation, PasswordReset, ApiToken, RateLimitBucket };
+export { ROLES } from './Membership';
+
+export const allEntities = [Workspace, User, Membership, Invitation, PasswordReset, ApiToken, RateLimitBucket];

@@ -1,0 +1,24 @@
+'use server';
+
+import { runAction, runPublicAction, formToObject, type ActionResult } from '@/lib/actions';
+import { revalidatePath } from 'next/cache';
+import { acceptInvitationSchema, preferencesSchema, requestResetSchema, resetPasswordSchema } from './schema';
+import { acceptInvitation, requestPasswordReset, resetPassword, updatePreferences } from './mutations';
+
+export async function acceptInvitationAction(_prev: ActionResult<{ email: string }> | null, form: FormData) {
+  return runPublicAction(acceptInvitationSchema, formToObject(form), acceptInvitation);
+}
+
+export async function requestPasswordResetAction(_prev: ActionResult<void> | null, form: FormData) {
+  return runPublicAction(requestResetSchema, formToObject(form), (d) => requestPasswordReset(d.email));
+}
+
+export async function resetPasswordAction(_prev: ActionResult<void> | null, form: FormData) {
+  return runPublicAction(resetPasswordSchema, formToObject(form), resetPassword);
+}
+
+export async function updatePreferencesAction(_prev: ActionResult<void> | null, form: FormData) {
+  const result = await runAction('account.self', preferencesSchema, formToObject(form), updatePreferences);
+  if (result.ok) revalidatePath('/', 'layout');
+  return result;
+}

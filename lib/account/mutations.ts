@@ -1,0 +1,119 @@
+/** Signed-out account flows and the user's own preferences. */
+import { getEm } from '@/lib/db';
+import { Invitation, Membership, PasswordReset, User, Workspace } from '@/entities';
+import { hashPassword } from '@/lib/passwords';
+import { hashSecret, newSecret } from '@/lib/secrets';
+import { sendMail, escapeHtml } from '@/lib/mail';
+import { env } from '@/lib/env';
+import { ValidationFailed } from '@/lib/api/errors';
+import type { Actor } from '@/lib/permissions';
+import type { AcceptInvitationInput, PreferencesInput, ResetPasswordInput } from './schema';
+
+export const RESET_LIFETIME_MINUTES = 60;
+
+const linkInvalid = () =>
+  new ValidationFailed('This link has expired or was already used. Ask for a new one.', { token: ['This link has expired or was already used.'] });
+
+export interface InvitationPreview {
+  email: string;
+  workspaceName: string;
+  role: string;
+  hasAccount: boolean;
+}
+
+/** What the accept page shows before the invitee commits. Null when the link is not usable. */
+export async function previewInvitation(token: string): Promise<InvitationPreview | null> {
+  const em = await getEm();
+  const inv = await em.findOne(
+    Invitation,
+    { tokenHash: hashSecret(token), acceptedAt: null, revokedAt: null, expiresAt: { $gt: new Date() } },
+    { populate: ['workspace'] },
+  );
+  if (!inv) return null;
+  const user = await em.findOne(User, { email: inv.email });
+  return { email: inv.email, workspaceName: (inv.workspace as unknown as { name: string }).name, role: inv.role, hasAccount: !!user?.passwordHash };
+}
+
+/**
+ * Uses the invitation exactly once: the conditional UPDATE claims it, so two tabs
+ * submitting the same link cannot both succeed. An existing account keeps its password.
+ */
+export async function acceptInvitation(input: AcceptInvitationInput): Promise<{ email: string }> {
+  const em = await getEm();
+  const passwordHash = await hashPassword(input.password);
+  return em.transactional(async (tx) => {
+    const claimed = await tx.nativeUpdate(
+      Invitation,
+      { tokenHash: hashSecret(input.token), acceptedAt: null, revokedAt: null, expiresAt: { $gt: new Date() } },
+      { acceptedAt: new Date() },
+    );
+    if (claimed !== 1) throw linkInvalid();
+    const inv = await tx.findOneOrFail(Invitation, { tokenHash: hashSecret(input.token) });
+    const workspaceId = (inv.workspace as unknown as { id: string }).id;
+    let user = await tx.findOne(User, { email: inv.email });
+    if (!user) {
+      user = tx.create(User, { email: inv.email, name: input.name, passwordHash } as never);
+    } else if (!user.passwordHash) {
+      user.passwordHash = passwordHash;
+      user.name = input.name;
+    }
+    const existing = await tx.findOne(Membership, { workspace: workspaceId, user: user.id });
+    if (existing) {
+      existing.active = true;
+      existing.role = inv.role;
+    } else {
+      tx.create(Membership, { workspace: workspaceId, user, role: inv.role } as never);
+    }
+    await tx.flush();
+    await tx.findOneOrFail(Workspace, { id: workspaceId });
+    return { email: inv.email };
+  });
+}
+
+/** Always succeeds from the caller's view, so the form does not reveal which e-mails have accounts. */
+export async function requestPasswordReset(email: string): Promise<void> {
+  const em = await getEm();
+  const user = await em.findOne(User, { email });
+  if (!user?.passwordHash) return;
+  const token = newSecret();
+  em.create(PasswordReset, {
+    user,
+    tokenHash: hashSecret(token),
+    expiresAt: new Date(Date.now() + RESET_LIFETIME_MINUTES * 60_000),
+  } as never);
+  await em.flush();
+  const link = `${env().APP_URL}/reset-password/${token}`;
+  await sendMail({
+    to: user.email,
+    subject: 'Reset your Setwell password',
+    text: [
+      'Someone asked to reset the password of your Setwell account.',
+      '',
+      `Choose a new password here (the link works once and expires in ${RESET_LIFETIME_MINUTES} minutes):`,
+      link,
+      '',
+      'If it was not you, ignore this message: your password stays as it is.',
+    ].join('\n'),
+    html: `<p>Someone asked to reset the password of your Setwell account.</p><p><a href="${escapeHtml(link)}">Choose a new password</a> (works once, expires in ${RESET_LIFETIME_MINUTES} minutes).</p><p>If it was not you, ignore this message.</p>`,
+  });
+}
+
+export async function resetPassword(input: ResetPasswordInput): Promise<void> {
+  const em = await getEm();
+  const passwordHash = await hashPassword(input.password);
+  await em.transactional(async (tx) => {
+    const claimed = await tx.nativeUpdate(
+      PasswordReset,
+      { tokenHash: hashSecret(input.token), usedAt: null, expiresAt: { $gt: new Date() } },
+      { usedAt: new Date() },
+    );
+    if (claimed !== 1) throw linkInvalid();
+    const reset = await tx.findOneOrFail(PasswordReset, { tokenHash: hashSecret(input.token) });
+    await tx.nativeUpdate(User, { id: (reset.user as unknown as { id: string }).id }, { passwordHash });
+  });
+}
+
+export async function updatePreferences(actor: Actor, input: PreferencesInput): Promise<void> {
+  const em = await getEm();
+  await em.nativeUpdate(User, { id: actor.userId }, input);
+}

@@ -1,0 +1,31 @@
+import { z } from 'zod';
+import { passwordSchema } from '@/lib/passwords';
+
+const tokenSchema = z.string().min(20, 'This link is not valid.').max(200, 'This link is not valid.');
+
+export const acceptInvitationSchema = z
+  .object({
+    token: tokenSchema,
+    name: z.string().trim().min(1, 'Enter your name.').max(120, 'Use at most 120 characters.'),
+    password: passwordSchema,
+    confirm: z.string(),
+  })
+  .refine((v) => v.password === v.confirm, { path: ['confirm'], message: 'The two passwords differ.' });
+
+export const requestResetSchema = z.object({
+  email: z.email('Enter a valid e-mail address.').transform((s) => s.trim().toLowerCase()),
+});
+
+export const resetPasswordSchema = z
+  .object({ token: tokenSchema, password: passwordSchema, confirm: z.string() })
+  .refine((v) => v.password === v.confirm, { path: ['confirm'], message: 'The two passwords differ.' });
+
+export const preferencesSchema = z.object({
+  name: z.string().trim().min(1, 'Enter your name.').max(120),
+  massUnits: z.enum(['metric', 'imperial']),
+  temperatureUnit: z.enum(['C', 'F']),
+});
+
+export type AcceptInvitationInput = z.infer<typeof acceptInvitationSchema>;
+export type ResetPasswordInput = z.infer<typeof resetPasswordSchema>;
+export type PreferencesInput = z.infer<typeof preferencesSchema>;

@@ -1,0 +1,66 @@
+/**
+ * The one way a server action runs: resolve the actor, authorise, validate with the
+ * feature's zod schema, call the feature function, and turn failures into a typed result
+ * that forms show inline. Nothing is written when validation or authorisation fails.
+ */
+import type { z } from 'zod';
+import { currentActor } from '@/lib/auth';
+import { authorize, AccessDenied, type Actor, type Permission } from '@/lib/permissions';
+import { describeError, type FieldErrors } from '@/lib/api/errors';
+import { logger } from '@/lib/log';
+
+export type ActionResult<T = undefined> =
+  | { ok: true; data: T; message?: string }
+  | { ok: false; status: number; error: string; fields?: FieldErrors };
+
+function failure(err: unknown): ActionResult<never> {
+  const { status, body } = describeError(err);
+  if (status >= 500) logger.error({ err }, 'server action failed');
+  return { ok: false, status, error: body.error.message, ...(body.error.fields ? { fields: body.error.fields } : {}) };
+}
+
+/** For signed-in work: the permission is checked before the input is even parsed. */
+export async function runAction<S extends z.ZodType, T>(
+  permission: Permission,
+  schema: S,
+  input: unknown,
+  fn: (actor: Actor, data: z.infer<S>) => Promise<T>,
+): Promise<ActionResult<T>> {
+  try {
+    const actor = authorize(await currentActor(), permission);
+    const parsed = schema.safeParse(input);
+    if (!parsed.success) throw parsed.error;
+    return { ok: true, data: await fn(actor, parsed.data) };
+  } catch (err) {
+    return failure(err);
+  }
+}
+
+/** For the signed-out flows (accept an invitation, reset a password): validation only. */
+export async function runPublicAction<S extends z.ZodType, T>(
+  schema: S,
+  input: unknown,
+  fn: (data: z.infer<S>) => Promise<T>,
+): Promise<ActionResult<T>> {
+  try {
+    const parsed = schema.safeParse(input);
+    if (!parsed.success) throw parsed.error;
+    return { ok: true, data: await fn(parsed.data) };
+  } catch (err) {
+    return failure(err);
+  }
+}
+
+/** FormData to a plain object (repeated keys become arrays) for schema parsing. */
+export function formToObject(form: FormData): Record<string, unknown> {
+  const out: Record<string, unknown> = {};
+  for (const [key, value] of form.entries()) {
+    if (key.startsWith('$ACTION')) continue;
+    const v = typeof value === 'string' ? value : value;
+    if (key in out) out[key] = ([] as unknown[]).concat(out[key], v);
+    else out[key] = v;
+  }
+  return out;
+}
+
+export { AccessDenied };

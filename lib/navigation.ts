@@ -1,0 +1,24 @@
+/** The staff navigation. Each entry names the permission that shows it; later features add entries here. */
+import { can, type Permission, type Role } from '@/lib/permissions';
+
+export interface NavItem {
+  href: string;
+  label: string;
+  permission: Permission;
+  group: 'work' | 'settings';
+}
+
+export const NAV_ITEMS: NavItem[] = [
+  { href: '/home', label: 'Overview', permission: 'account.self', group: 'work' },
+  { href: '/formulas', label: 'Formulas', permission: 'formulas.read', group: 'work' },
+  { href: '/ingredients', label: 'Ingredients', permission: 'ingredients.read', group: 'work' },
+  { href: '/tastings', label: 'My tastings', permission: 'tastings.own', group: 'work' },
+  { href: '/settings/members', label: 'Members', permission: 'members.manage', group: 'settings' },
+  { href: '/settings/tokens', label: 'API tokens', permission: 'tokens.manage', group: 'settings' },
+  { href: '/settings/outbox', label: 'Mail outbox', permission: 'outbox.read', group: 'settings' },
+  { href: '/settings/profile', label: 'Profile & units', permission: 'account.self', group: 'settings' },
+];
+
+export function navFor(role: Role): NavItem[] {
+  return NAV_ITEMS.filter((item) => can(role, item.permission));
+}

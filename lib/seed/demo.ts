@@ -1,0 +1,52 @@
+/**
+ * The invented demo scenario. Hollowmere Preserves is a fictional small jam kitchen;
+ * Brackenfold Kitchen is a second fictional producer that exists to prove isolation.
+ * Every person here is made up. Later features extend this file with their own demo data.
+ */
+import type { EntityManager } from '@mikro-orm/postgresql';
+import { Membership, User, Workspace } from '@/entities';
+import { hashPassword } from '@/lib/passwords';
+import type { Role } from '@/lib/permissions';
+
+export const DEMO_PASSWORD = 'setwell-demo-2026';
+
+export const DEMO_WORKSPACE = { name: 'Hollowmere Preserves', slug: 'hollowmere' };
+export const OTHER_WORKSPACE = { name: 'Brackenfold Kitchen', slug: 'brackenfold' };
+
+export const DEMO_USERS: Array<{ email: string; name: string; role: Role; alsoIn?: Role }> = [
+  { email: 'ines.admin@hollowmere.example', name: 'Ines Calloway', role: 'admin' },
+  { email: 'tomas.dev@hollowmere.example', name: 'Tomas Verrall', role: 'developer', alsoIn: 'taster' },
+  { email: 'maren.head@hollowmere.example', name: 'Maren Ostwick', role: 'head_of_product' },
+  { email: 'jory.kitchen@hollowmere.example', name: 'Jory Penhallow', role: 'production' },
+  { email: 'sol.taster@hollowmere.example', name: 'Sol Ambry', role: 'taster' },
+];
+
+export const OTHER_ADMIN = { email: 'wren.admin@brackenfold.example', name: 'Wren Hatherley', role: 'admin' as Role };
+
+export interface SeedReport {
+  created: boolean;
+  workspaceId: string;
+  otherWorkspaceId: string;
+}
+
+/** Idempotent: a second run finds the demo workspace and changes nothing. */
+export async function seedDemo(em: EntityManager): Promise<SeedReport> {
+  const existing = await em.findOne(Workspace, { slug: DEMO_WORKSPACE.slug });
+  const other = await em.findOne(Workspace, { slug: OTHER_WORKSPACE.slug });
+  if (existing && other) return { created: false, workspaceId: existing.id, otherWorkspaceId: other.id };
+
+  const passwordHash = await hashPassword(DEMO_PASSWORD);
+  return em.transactional(async (tx) => {
+    const demo = tx.create(Workspace, DEMO_WORKSPACE);
+    const brackenfold = tx.create(Workspace, OTHER_WORKSPACE);
+    for (const u of DEMO_USERS) {
+      const user = tx.create(User, { email: u.email, name: u.name, passwordHash } as never);
+      tx.create(Membership, { workspace: demo, user, role: u.role } as never);
+      if (u.alsoIn) tx.create(Membership, { workspace: brackenfold, user, role: u.alsoIn } as never);
+    }
+    const otherAdmin = tx.create(User, { email: OTHER_ADMIN.email, name: OTHER_ADMIN.name, passwordHash } as never);
+    tx.create(Membership, { workspace: brackenfold, user: otherAdmin, role: 'admin' } as never);
+    await tx.flush();
+    return { created: true, workspaceId: demo.id, otherWorkspaceId: brackenfold.id };
+  });
+}

@@ -1,0 +1,19 @@
+import { getEm } from '@/lib/db';
+import { Membership } from '@/entities';
+import type { Role } from '@/lib/permissions';
+
+export interface WorkspaceChoice {
+  workspaceId: string;
+  name: string;
+  role: Role;
+}
+
+/** The workspaces a user can switch between: their active memberships only. */
+export async function listMyWorkspaces(userId: string): Promise<WorkspaceChoice[]> {
+  const em = await getEm();
+  const rows = (await em.find(Membership, { user: userId, active: true }, { populate: ['workspace'], orderBy: { createdAt: 'asc' } })) as unknown as Array<{
+    role: Role;
+    workspace: { id: string; name: string };
+  }>;
+  return rows.map((r) => ({ workspaceId: r.workspace.id, name: r.workspace.name, role: r.role }));
+}

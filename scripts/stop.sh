@@ -1,0 +1,8 @@
+#!/usr/bin/env bash
+# Stops what the run command started in the background: the mail fake and PostgreSQL.
+source "$(dirname "$0")/lib.sh"
+export SETWELL_PROFILE=demo
+source "$(dirname "$0")/env.sh"
+stop_background "$SETWELL_RUN/mail-fake.pid"
+pg_cluster_stop "$SETWELL_PG_DATA"
+log "stopped"
