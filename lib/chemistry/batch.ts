@@ -1,0 +1,34 @@
+import { checkCompliance } from './compliance';
+import { estimateEndPoint } from './end-point';
+import { buildGuidance } from './guidance';
+import { computeMassBalance } from './mass-balance';
+import { estimateBatchWaterActivity } from './water-activity';
+import type { ComplianceReport } from './compliance';
+import type { EndPointEstimate } from './end-point';
+import type { Caution } from './guidance';
+import type { MassBalance } from './mass-balance';
+import type { FormulaLineInput, FormulaSettings } from './types';
+import type { WaterActivityEstimate } from './water-activity';
+
+/** One plain, JSON-serialisable result: masses in g, temperatures in °C (°F copies are labelled). */
+export interface BatchComputation {
+  settings: FormulaSettings;
+  massBalance: MassBalance;
+  endPoint: EndPointEstimate;
+  waterActivity: WaterActivityEstimate;
+  compliance: ComplianceReport;
+  cautions: Caution[];
+}
+
+export function computeBatch(lines: FormulaLineInput[], settings: FormulaSettings): BatchComputation {
+  const massBalance = computeMassBalance(lines, settings);
+  const endPoint = estimateEndPoint({
+    targetSolidsPct: settings.targetSolidsPct,
+    altitudeM: settings.altitudeM,
+    measuredWaterBoilingC: settings.measuredWaterBoilingC,
+  });
+  const waterActivity = estimateBatchWaterActivity(massBalance.lines, massBalance.finishedMassG);
+  const compliance = checkCompliance(massBalance, settings);
+  const cautions = buildGuidance({ massBalance, settings, aw: waterActivity.aw });
+  return { settings: { ...settings }, massBalance, endPoint, waterActivity, compliance, cautions };
+}

@@ -1,0 +1,22 @@
+/** Public API of the pure batch-chemistry module. */
+export * from './types';
+export { ChemistryInputError } from './errors';
+export * from './units';
+export * from './mass-balance';
+export * from './end-point';
+export * from './water-activity';
+export * from './refractometer';
+export * from './scaling';
+export * from './rule-sets';
+export {
+  checkCompliance,
+  ruleEditionLabel,
+  type ComplianceBatchInput,
+  type ComplianceReport,
+  type OverallComplianceStatus,
+  type RuleCheckResult,
+  type RuleStatus,
+} from './compliance';
+export * from './guidance';
+export * from './batch';
+export * from './typical-ingredients';

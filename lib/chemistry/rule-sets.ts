@@ -1,0 +1,263 @@
+/**
+ * Market composition rules, as data. Each rule names the legal text it comes from. Dates are ISO;
+ * `validFrom` is inclusive and `validUntil` exclusive. Where a value was not checked against the
+ * legal text it says "(memory)" in `note`.
+ */
+import type { EuFruitGroup, MarketRuleSetId, ProductClass, UsFruitGroup } from './types';
+
+export type RuleMetric =
+  | 'fruit_per_1000g_finished'
+  | 'soluble_solids_pct'
+  | 'fruit_parts_per_55_sweetener';
+
+export interface ComplianceRule {
+  id: string;
+  ruleSet: MarketRuleSetId;
+  title: string;
+  productClasses: readonly ProductClass[];
+  metric: RuleMetric;
+  /** Plain minimum when it does not depend on the fruit. */
+  minimum?: number;
+  /** EU Annex I minimums by fruit group, g per 1000 g finished product. */
+  minimumByEuGroup?: Partial<Record<EuFruitGroup, number>>;
+  /** US minimums by 21 CFR 150.160 fruit group, parts fruit per 55 parts sweetener. */
+  minimumByUsGroup?: Partial<Record<UsFruitGroup, number>>;
+  unit: string;
+  validFrom?: string;
+  validUntil?: string;
+  /** Exact legal text name and article / annex. */
+  source: string;
+  quote: string;
+  note?: string;
+}
+
+/** Date from which the Directive (EU) 2024/1438 minimums apply. */
+export const EU_2024_AMENDMENT_FROM = '2026-06-14';
+
+const EU_2001 = 'Council Directive 2001/113/EC, Annex I';
+const EU_2024 = 'Council Directive 2001/113/EC, Annex I, as amended by Directive (EU) 2024/1438';
+const TRANSITION_NOTE = 'Products made and labelled under these rules before 14 June 2026 may be sold until stocks run out (Directive (EU) 2024/1438).';
+
+export const RULES: readonly ComplianceRule[] = [
+  // --- EU, before 14 June 2026 ---
+  {
+    id: 'eu.2001.jam.fruit',
+    ruleSet: 'eu',
+    title: 'Jam: minimum fruit',
+    productClasses: ['jam'],
+    metric: 'fruit_per_1000g_finished',
+    minimumByEuGroup: { general: 350, reduced_minimum_fruits: 250, ginger: 150, cashew_apple: 160, passion_fruit: 60 },
+    unit: 'g fruit per 1000 g',
+    validUntil: EU_2024_AMENDMENT_FROM,
+    source: `${EU_2001}, Part I ('Jam')`,
+    quote: 'Pulp and/or purée per 1000 g of finished product not less than 350 g as a general rule; 250 g for redcurrants, rowanberries, sea-buckthorns, blackcurrants, rosehips and quinces; 150 g ginger; 160 g cashew apples; 60 g passion fruit.',
+    note: TRANSITION_NOTE,
+  },
+  {
+    id: 'eu.2001.extra_jam.fruit',
+    ruleSet: 'eu',
+    title: 'Extra jam: minimum fruit',
+    productClasses: ['extra_jam'],
+    metric: 'fruit_per_1000g_finished',
+    minimumByEuGroup: { general: 450, reduced_minimum_fruits: 350, ginger: 250, cashew_apple: 230, passion_fruit: 80 },
+    unit: 'g fruit per 1000 g',
+    validUntil: EU_2024_AMENDMENT_FROM,
+    source: `${EU_2001}, Part I ('Extra jam')`,
+    quote: 'Unconcentrated pulp per 1000 g of finished product not less than 450 g as a general rule; 350 g for redcurrants, rowanberries, sea-buckthorns, blackcurrants, rosehips and quinces; 250 g ginger; 230 g cashew apples; 80 g passion fruit.',
+    note: TRANSITION_NOTE,
+  },
+  {
+    id: 'eu.2001.jelly.fruit',
+    ruleSet: 'eu',
+    title: 'Jelly: minimum fruit juice or extract',
+    productClasses: ['jelly'],
+    metric: 'fruit_per_1000g_finished',
+    minimumByEuGroup: { general: 350, reduced_minimum_fruits: 250, ginger: 150, cashew_apple: 160, passion_fruit: 60 },
+    unit: 'g juice/extract per 1000 g',
+    validUntil: EU_2024_AMENDMENT_FROM,
+    source: `${EU_2001}, Part I ('Jelly')`,
+    quote: 'Juice and/or aqueous extracts per 1000 g of finished product not less than that laid down for the manufacture of jam, calculated after deduction of the water used in preparing the extracts.',
+    note: 'Fruit lines are taken as juice or extract already net of added extraction water.',
+  },
+  // --- EU, from 14 June 2026 ---
+  {
+    id: 'eu.2024.jam.fruit',
+    ruleSet: 'eu',
+    title: 'Jam: minimum fruit (raised)',
+    productClasses: ['jam'],
+    metric: 'fruit_per_1000g_finished',
+    minimumByEuGroup: { general: 450, reduced_minimum_fruits: 250, ginger: 150, cashew_apple: 160, passion_fruit: 60 },
+    unit: 'g fruit per 1000 g',
+    validFrom: EU_2024_AMENDMENT_FROM,
+    source: `${EU_2024}, Part I ('Jam')`,
+    quote: 'The general minimum for jam rises from 350 g to 450 g of fruit per 1000 g of finished product.',
+    note: 'Exception minimums kept as in 2001/113/EC: the published summaries of the amendment describe only the general minimums rising; not verified against the consolidated text.',
+  },
+  {
+    id: 'eu.2024.extra_jam.fruit',
+    ruleSet: 'eu',
+    title: 'Extra jam: minimum fruit (raised)',
+    productClasses: ['extra_jam'],
+    metric: 'fruit_per_1000g_finished',
+    minimumByEuGroup: { general: 500, reduced_minimum_fruits: 350, ginger: 250, cashew_apple: 230, passion_fruit: 80 },
+    unit: 'g fruit per 1000 g',
+    validFrom: EU_2024_AMENDMENT_FROM,
+    source: `${EU_2024}, Part I ('Extra jam')`,
+    quote: 'The general minimum for extra jam rises from 450 g to 500 g of fruit per 1000 g of finished product.',
+    note: 'Exception minimums kept as in 2001/113/EC: not verified against the consolidated text.',
+  },
+  {
+    id: 'eu.2024.jelly.fruit',
+    ruleSet: 'eu',
+    title: 'Jelly: minimum fruit juice or extract (raised)',
+    productClasses: ['jelly'],
+    metric: 'fruit_per_1000g_finished',
+    minimumByEuGroup: { general: 450, reduced_minimum_fruits: 250, ginger: 150, cashew_apple: 160, passion_fruit: 60 },
+    unit: 'g juice/extract per 1000 g',
+    validFrom: EU_2024_AMENDMENT_FROM,
+    source: `${EU_2024}, Part I ('Jelly')`,
+    quote: 'Jelly follows the jam minimums, so its general minimum rises with jam to 450 g.',
+    note: 'Assumes jelly still refers to the jam minimums after the amendment; exception minimums not verified.',
+  },
+  {
+    id: 'eu.marmalade.citrus',
+    ruleSet: 'eu',
+    title: 'Marmalade: minimum citrus fruit',
+    productClasses: ['marmalade'],
+    metric: 'fruit_per_1000g_finished',
+    minimum: 200,
+    unit: 'g citrus per 1000 g',
+    source: `${EU_2001}, Part I ('Marmalade')`,
+    quote: 'Citrus fruit per 1000 g of finished product not less than 200 g, of which at least 75 g from the endocarp.',
+    note: '(memory) Value recalled, not checked against the text; the 75 g endocarp share is not computed.',
+  },
+  {
+    id: 'eu.soluble_dry_matter',
+    ruleSet: 'eu',
+    title: 'Soluble dry matter',
+    productClasses: ['jam', 'extra_jam', 'jelly', 'marmalade'],
+    metric: 'soluble_solids_pct',
+    minimum: 60,
+    unit: '% (refractometer)',
+    source: `${EU_2001} (soluble dry matter content)`,
+    quote: 'The products defined must have a soluble dry matter content of 60 % or more as determined by refractometer, except where sugars have been wholly or partially replaced by sweeteners.',
+    note: 'Reduced-sugar spreads fall under national rules, not these reserved names.',
+  },
+  // --- US ---
+  {
+    id: 'us.150_160.soluble_solids',
+    ruleSet: 'us',
+    title: 'Preserves and jams: soluble solids',
+    productClasses: ['jam', 'extra_jam'],
+    metric: 'soluble_solids_pct',
+    minimum: 65,
+    unit: '% soluble solids',
+    source: '21 CFR 150.160 (Fruit preserves and jams), paragraph (d)',
+    quote: 'The soluble solids content of the finished food is not less than 65 percent.',
+    note: 'The US standard has no separate "extra jam"; extra jam is checked as preserves/jams.',
+  },
+  {
+    id: 'us.150_160.fruit_ratio',
+    ruleSet: 'us',
+    title: 'Preserves and jams: fruit to sweetener',
+    productClasses: ['jam', 'extra_jam'],
+    metric: 'fruit_parts_per_55_sweetener',
+    minimumByUsGroup: { '1': 47, '2': 45 },
+    unit: 'parts fruit per 55 parts sweetener',
+    source: '21 CFR 150.160 (Fruit preserves and jams), paragraphs (b) and (d)',
+    quote: 'Not less than 45 parts by weight of certain specified fruits, and 47 parts of other designated fruits, to each 55 parts by weight of sugar or other nutritive carbohydrate sweetener (FDA guidance wording).',
+    note: 'Group lists per 21 CFR 150.160(b)(1). (memory) Which ratio belongs to which group (47 for Group I, 45 for Group II) was not verified against the regulation text. Mixed groups are weighted by fruit mass.',
+  },
+  {
+    id: 'us.150_140.soluble_solids',
+    ruleSet: 'us',
+    title: 'Fruit jelly: soluble solids',
+    productClasses: ['jelly'],
+    metric: 'soluble_solids_pct',
+    minimum: 65,
+    unit: '% soluble solids',
+    source: '21 CFR 150.140 (Fruit jelly), paragraph (d)',
+    quote: 'The soluble solids content of the finished jelly is not less than 65 percent.',
+  },
+  {
+    id: 'us.150_140.juice_ratio',
+    ruleSet: 'us',
+    title: 'Fruit jelly: juice to sweetener',
+    productClasses: ['jelly'],
+    metric: 'fruit_parts_per_55_sweetener',
+    minimum: 45,
+    unit: 'parts juice per 55 parts sweetener',
+    source: '21 CFR 150.140 (Fruit jelly), paragraph (d)',
+    quote: 'Not less than 45 parts by weight of fruit juice (47 for some designated fruits) to each 55 parts by weight of sweetener.',
+    note: '(memory) Checked at the lower 45-part ratio for every juice, so a juice that needs 47 parts can pass here wrongly.',
+  },
+  // --- Codex ---
+  {
+    id: 'codex.296.soluble_solids',
+    ruleSet: 'codex',
+    title: 'Soluble solids',
+    productClasses: ['jam', 'extra_jam', 'jelly', 'marmalade'],
+    metric: 'soluble_solids_pct',
+    minimum: 60,
+    unit: '% soluble solids',
+    source: 'Codex Standard for Jams, Jellies and Marmalades (CXS 296-2009), section 3 (composition)',
+    quote: 'Soluble solids content of the finished product between 60 and 65 % or greater.',
+    note: '(memory) Lower bound of 60 % recalled, not checked against the standard.',
+  },
+];
+
+/** Product classes a rule set leaves out of scope, with the reason shown to the user. */
+export const OUT_OF_SCOPE: readonly { ruleSet: MarketRuleSetId; productClass: ProductClass; source: string; reason: string }[] = [
+  {
+    ruleSet: 'codex',
+    productClass: 'reduced_sugar_spread',
+    source: 'Codex Standard for Jams, Jellies and Marmalades (CXS 296-2009), section 1.1(c)',
+    reason: 'The standard does not apply to reduced sugar products or those with a very low sugar content.',
+  },
+  {
+    ruleSet: 'eu',
+    productClass: 'reduced_sugar_spread',
+    source: 'Council Directive 2001/113/EC, Annex I',
+    reason: 'Reduced-sugar spreads are not among the reserved descriptions at 60 % soluble dry matter; national rules apply.',
+  },
+  {
+    ruleSet: 'us',
+    productClass: 'reduced_sugar_spread',
+    source: '21 CFR 150.160 / 150.140',
+    reason: 'Below 65 % soluble solids the food cannot bear the standardized names "jam", "preserves" or "jelly"; artificially sweetened versions are covered by 21 CFR 150.141 / 150.161.',
+  },
+  {
+    ruleSet: 'us',
+    productClass: 'marmalade',
+    source: '21 CFR Part 150; FDA/CFSAN Q&A on fruit jams, jellies, fruit butters and marmalades',
+    reason: 'There is no formal standard of identity for marmalade. FDA guidance: sweet orange marmalade at least 30 lb fruit (peel and juice) per 70 lb sweetener; bitter (Seville) orange, lemon and lime marmalade at least 25 lb per 75 lb.',
+  },
+];
+
+export function isRuleInForce(rule: ComplianceRule, isoDate: string): boolean {
+  const day = isoDate.slice(0, 10);
+  if (rule.validFrom && day < rule.validFrom) return false;
+  if (rule.validUntil && day >= rule.validUntil) return false;
+  return true;
+}
+
+export function rulesInForce(ruleSet: MarketRuleSetId, isoDate: string): ComplianceRule[] {
+  return RULES.filter((rule) => rule.ruleSet === ruleSet && isRuleInForce(rule, isoDate));
+}
+
+/**
+ * Fruit groups of 21 CFR 150.160(b)(1), as printed in the Code of Federal Regulations.
+ * A fruit in neither list (apple, blackcurrant…) is not a standardized preserve fruit.
+ */
+export const US_FRUIT_GROUPS: Readonly<Record<UsFruitGroup, readonly string[]>> = {
+  '1': [
+    'Blackberry (other than dewberry)', 'Black raspberry', 'Blueberry', 'Boysenberry', 'Cherry', 'Crabapple',
+    'Dewberry (other than boysenberry, loganberry, and youngberry)', 'Elderberry', 'Grape', 'Grapefruit', 'Huckleberry',
+    'Loganberry', 'Orange', 'Pineapple', 'Raspberry, red raspberry', 'Rhubarb', 'Strawberry', 'Tangerine', 'Tomato',
+    'Yellow tomato', 'Youngberry',
+  ],
+  '2': [
+    'Apricot', 'Cranberry', 'Damson, damson plum', 'Fig', 'Gooseberry', 'Greengage, greengage plum', 'Guava', 'Nectarine',
+    'Peach', 'Pear', 'Plum (other than greengage plum and damson plum)', 'Quince', 'Red currant, currant (other than black currant)',
+  ],
+};
