@@ -10,7 +10,6 @@ export default defineConfig({
     include: ['tests/unit/**/*.test.{ts,tsx}', 'tests/integration/**/*.test.{ts,tsx}'],
     // Integration tests share one database, so files run one at a time.
     fileParallelism: false,
-    globalSetup: ['tests/setup/global-setup.ts'],
     testTimeout: 30_000,
     hookTimeout: 60_000,
   },

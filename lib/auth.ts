@@ -78,11 +78,12 @@ export function readCookie(cookieHeader: string | null | undefined, name: string
 }
 
 async function userIdFromSessionCookies(cookieHeader: string | null | undefined): Promise<string | null> {
+  const secret = env().NEXTAUTH_SECRET;
   for (const name of SESSION_COOKIES) {
     const raw = readCookie(cookieHeader, name);
     if (!raw) continue;
     try {
-      const token = await decode({ token: raw, secret: env().NEXTAUTH_SECRET });
+      const token = await decode({ token: raw, secret });
       if (token?.sub) return token.sub;
     } catch {
       return null;

@@ -1,0 +1,128 @@
+/**
+ * The authorisation table: every route handler and server action, who may use it, and how
+ * to build a call against a record of workspace A. authorization.test.ts fails when a route
+ * or action exists that is not listed here. Extend it with every new route or action.
+ */
+import { getEm } from '@/lib/db';
+import { Invitation, ApiToken } from '@/entities';
+import { hashSecret, newSecret } from '@/lib/secrets';
+import { API_TOKEN_PREFIX } from '@/lib/auth';
+import type { Role } from '@/lib/permissions';
+import type { Person, WorkspaceFixture } from './harness';
+
+export type CallSpec = { params?: Record<string, string>; body?: unknown };
+
+export interface RouteCase {
+  /** "METHOD /app/path/[param]" as the file system names it. */
+  route: string;
+  /** 'public' routes need no sign-in. */
+  allowed: Role[] | 'public';
+  /**
+   * What a member of another workspace (an admin there) gets: 404 for a record of
+   * workspace A, 'own-data' where the route only ever shows the caller's own workspace.
+   */
+  otherWorkspace: 404 | 'own-data' | 'public';
+  /** Builds the call for a caller (null for the outsider) against workspace A's records. */
+  prepare?: (a: WorkspaceFixture, caller: Person | null) => Promise<CallSpec> | CallSpec;
+}
+
+const STAFF: Role[] = ['admin', 'developer', 'head_of_product', 'production'];
+const ALL: Role[] = [...STAFF, 'taster'];
+
+async function openInvitation(a: WorkspaceFixture): Promise<string> {
+  const em = await getEm();
+  const inv = em.create(Invitation, {
+    workspace: a.workspaceId,
+    email: `invitee.${Math.random().toString(36).slice(2)}@test.example`,
+    role: 'taster',
+    tokenHash: hashSecret(newSecret()),
+    invitedBy: a.people.admin.userId,
+    expiresAt: new Date(Date.now() + 3600_000),
+  } as never) as unknown as { id: string };
+  await em.flush();
+  return inv.id;
+}
+
+async function tokenOf(a: WorkspaceFixture, owner: Person): Promise<string> {
+  const em = await getEm();
+  const secret = newSecret(API_TOKEN_PREFIX);
+  const t = em.create(ApiToken, { workspace: a.workspaceId, user: owner.userId, label: 'matrix', displayPrefix: secret.slice(0, 10), tokenHash: hashSecret(secret) } as never) as unknown as { id: string };
+  await em.flush();
+  return t.id;
+}
+
+async function membershipIdOf(a: WorkspaceFixture, role: Role): Promise<string> {
+  const em = await getEm();
+  const { Membership } = await import('@/entities');
+  const m = await em.findOneOrFail(Membership, { workspace: a.workspaceId, user: a.people[role].userId });
+  return m.id;
+}
+
+export const ROUTE_CASES: RouteCase[] = [
+  { route: 'GET /api/health', allowed: 'public', otherWorkspace: 'public' },
+  { route: 'GET /api/v1/openapi.json', allowed: 'public', otherWorkspace: 'public' },
+  { route: 'GET /api/v1/me', allowed: ALL, otherWorkspace: 'own-data' },
+  { route: 'GET /api/v1/members', allowed: ['admin'], otherWorkspace: 'own-data' },
+  {
+    route: 'POST /api/v1/members',
+    allowed: ['admin'],
+    otherWorkspace: 'own-data',
+    prepare: () => ({ body: { email: `matrix.${Math.random().toString(36).slice(2)}@test.example`, role: 'taster' } }),
+  },
+  {
+    route: 'PATCH /api/v1/members/[membershipId]',
+    allowed: ['admin'],
+    otherWorkspace: 404,
+    // Setting the developer's role to what it already is: allowed callers change nothing.
+    prepare: async (a) => ({ params: { membershipId: await membershipIdOf(a, 'developer') }, body: { role: 'developer' } }),
+  },
+  {
+    route: 'DELETE /api/v1/invitations/[invitationId]',
+    allowed: ['admin'],
+    otherWorkspace: 404,
+    prepare: async (a) => ({ params: { invitationId: await openInvitation(a) } }),
+  },
+  { route: 'GET /api/v1/tokens', allowed: STAFF, otherWorkspace: 'own-data' },
+  { route: 'POST /api/v1/tokens', allowed: STAFF, otherWorkspace: 'own-data', prepare: () => ({ body: { label: 'matrix token' } }) },
+  {
+    route: 'DELETE /api/v1/tokens/[tokenId]',
+    allowed: STAFF,
+    otherWorkspace: 404,
+    // Allowed callers revoke a token of their own; everyone else aims at the developer's.
+    prepare: async (a, caller) => ({
+      params: { tokenId: await tokenOf(a, caller && caller.role !== 'taster' ? caller : a.people.developer) },
+    }),
+  },
+];
+
+/** next-auth's own endpoints: public by nature, and tested through sign-in. */
+export const EXEMPT_ROUTES = ['GET /api/auth/[...nextauth]', 'POST /api/auth/[...nextauth]'];
+
+export interface ActionCase {
+  /** "lib/<feature>/actions.ts#exportName" */
+  action: string;
+  allowed: Role[] | 'public';
+  otherWorkspace: 404 | 'own-data' | 'public';
+  /** Arguments for a call against workspace A. */
+  args: (a: WorkspaceFixture) => unknown[];
+}
+
+function form(fields: Record<string, string>): FormData {
+  const f = new FormData();
+  for (const [k, v] of Object.entries(fields)) f.set(k, v);
+  return f;
+}
+
+export const ACTION_CASES: ActionCase[] = [
+  // The signed-out flows are public: the single-use token in the link is their authorisation.
+  { action: 'lib/account/actions.ts#acceptInvitationAction', allowed: 'public', otherWorkspace: 'public', args: () => [null, form({ token: 'x'.repeat(43), name: 'A', password: 'no', confirm: 'no' })] },
+  { action: 'lib/account/actions.ts#requestPasswordResetAction', allowed: 'public', otherWorkspace: 'public', args: () => [null, form({ email: 'not-an-email' })] },
+  { action: 'lib/account/actions.ts#resetPasswordAction', allowed: 'public', otherWorkspace: 'public', args: () => [null, form({ token: 'x'.repeat(43), password: 'no', confirm: 'no' })] },
+  {
+    action: 'lib/account/actions.ts#updatePreferencesAction',
+    allowed: ALL,
+    otherWorkspace: 'own-data',
+    args: () => [null, form({ name: 'Same Name', massUnits: 'metric', temperatureUnit: 'C' })],
+  },
+  { action: 'lib/workspaces/actions.ts#switchWorkspaceAction', allowed: ALL, otherWorkspace: 404, args: (a) => [a.workspaceId] },
+];

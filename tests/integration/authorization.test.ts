@@ -1,0 +1,177 @@
+/**
+ * The authorisation matrix: every route handler and every server action, tried as an
+ * outsider, as each role of workspace A, and as an admin of workspace B.
+ * Expected: outsider 401; a role without the permission 403; workspace B 404 on A's records.
+ */
+import { describe, it, expect, beforeAll } from 'vitest';
+import fs from 'node:fs';
+import path from 'node:path';
+import { createWorkspace, callRoute, asCaller, type WorkspaceFixture, type Caller, type Person } from './harness';
+import { ROUTE_CASES, EXEMPT_ROUTES, ACTION_CASES, type RouteCase } from './access-table';
+import { API_OPERATIONS } from '@/lib/api/openapi';
+import { ROLES } from '@/lib/permissions';
+
+const ROOT = path.resolve(__dirname, '../..');
+const METHODS = ['GET', 'POST', 'PUT', 'PATCH', 'DELETE'] as const;
+
+function walk(dir: string, match: (f: string) => boolean, out: string[] = []): string[] {
+  for (const entry of fs.readdirSync(dir, { withFileTypes: true })) {
+    const full = path.join(dir, entry.name);
+    if (entry.isDirectory()) walk(full, match, out);
+    else if (match(full)) out.push(full);
+  }
+  return out;
+}
+
+const routeFiles = walk(path.join(ROOT, 'app'), (f) => f.endsWith(`${path.sep}route.ts`));
+const routeKey = (file: string, method: string) =>
+  `${method} /${path.relative(path.join(ROOT, 'app'), path.dirname(file)).split(path.sep).filter((s) => !s.startsWith('(')).join('/')}`;
+
+async function discoverRoutes() {
+  const found = new Map<string, (req: Request, ctx: any) => Promise<Response>>();
+  for (const file of routeFiles) {
+    const mod = await import(file);
+    for (const m of METHODS) if (typeof mod[m] === 'function') found.set(routeKey(file, m), mod[m]);
+  }
+  return found;
+}
+
+const actionFiles = walk(path.join(ROOT, 'lib'), (f) => f.endsWith(`${path.sep}actions.ts`) && fs.readFileSync(f, 'utf8').startsWith("'use server'"));
+
+async function discoverActions() {
+  const found = new Map<string, (...args: unknown[]) => Promise<any>>();
+  for (const file of actionFiles) {
+    const mod = await import(file);
+    for (const [name, fn] of Object.entries(mod)) {
+      if (typeof fn === 'function') found.set(`${path.relative(ROOT, file).split(path.sep).join('/')}#${name}`, fn as never);
+    }
+  }
+  return found;
+}
+
+let a: WorkspaceFixture;
+let b: WorkspaceFixture;
+let routes: Awaited<ReturnType<typeof discoverRoutes>>;
+let actions: Awaited<ReturnType<typeof discoverActions>>;
+
+beforeAll(async () => {
+  a = await createWorkspace('Matrix A');
+  b = await createWorkspace('Matrix B');
+  routes = await discoverRoutes();
+  actions = await discoverActions();
+});
+
+describe('the table covers everything that exists', () => {
+  it('lists every route handler', () => {
+    const listed = new Set([...ROUTE_CASES.map((c) => c.route), ...EXEMPT_ROUTES]);
+    const missing = [...routes.keys()].filter((k) => !listed.has(k));
+    const stale = [...listed].filter((k) => !routes.has(k));
+    expect(missing, 'routes missing from tests/integration/access-table.ts').toEqual([]);
+    expect(stale, 'table rows for routes that no longer exist').toEqual([]);
+    expect(routes.size).toBeGreaterThanOrEqual(ROUTE_CASES.length);
+  });
+
+  it('lists every server action', () => {
+    const listed = new Set(ACTION_CASES.map((c) => c.action));
+    const missing = [...actions.keys()].filter((k) => !listed.has(k));
+    const stale = [...listed].filter((k) => !actions.has(k));
+    expect(missing, 'server actions missing from the table').toEqual([]);
+    expect(stale).toEqual([]);
+  });
+
+  it('describes every /api/v1 route in the OpenAPI document', () => {
+    const documented = new Set(API_OPERATIONS.map((o) => `${o.method.toUpperCase()} ${o.path.replace(/\{(\w+)\}/g, '[$1]')}`));
+    const undocumented = [...routes.keys()].filter((k) => k.includes('/api/v1/') && !documented.has(k));
+    expect(undocumented).toEqual([]);
+  });
+});
+
+async function call(c: RouteCase, caller: Caller, callerPerson: Person | null) {
+  const [method, route] = c.route.split(' ');
+  const spec = (await c.prepare?.(a, callerPerson)) ?? {};
+  let p = route;
+  for (const [k, v] of Object.entries(spec.params ?? {})) p = p.replace(`[${k}]`, v);
+  return callRoute(routes.get(c.route)!, { method, path: p, caller, params: spec.params, body: spec.body });
+}
+
+describe.each(ROUTE_CASES)('$route', (c) => {
+  it('answers an outsider with 401 (or serves a public route)', async () => {
+    const res = await call(c, { kind: 'outsider' }, null);
+    if (c.allowed === 'public') expect(res.status).toBe(200);
+    else {
+      expect(res.status).toBe(401);
+      expect(res.body.error.code).toBe('unauthenticated');
+    }
+  });
+
+  it.each([...ROLES])('as %s: allowed, or 403', async (role) => {
+    if (c.allowed === 'public') return;
+    const person = a.people[role];
+    const res = await call(c, { kind: 'session', person }, person);
+    if (c.allowed.includes(role)) {
+      expect(res.status, JSON.stringify(res.body)).toBeGreaterThanOrEqual(200);
+      expect(res.status, JSON.stringify(res.body)).toBeLessThan(300);
+    } else {
+      expect(res.status).toBe(403);
+      expect(res.body.error.code).toBe('forbidden');
+    }
+  });
+
+  it("as an admin of another workspace: 404 for workspace A's records", async () => {
+    if (c.otherWorkspace === 'public') return;
+    const other = b.people.admin;
+    const res = await call(c, { kind: 'session', person: other }, other);
+    if (c.otherWorkspace === 404) expect(res.status).toBe(404);
+    else if ((c.allowed as string[]).includes('admin')) expect(res.status).toBeLessThan(300);
+    else expect(res.status).toBe(403);
+  });
+
+  it('treats an API token like the session of its owner', async () => {
+    if (c.allowed === 'public') return;
+    const role = c.allowed[0];
+    const person = a.people[role];
+    const res = await call(c, { kind: 'token', person }, person);
+    expect(res.status, JSON.stringify(res.body)).toBeLessThan(300);
+  });
+});
+
+describe.each(ACTION_CASES)('$action', (c) => {
+  const run = (caller: Caller) => asCaller(caller, () => actions.get(c.action)!(...c.args(a)));
+
+  it('refuses an outsider with 401 unless it is a signed-out flow', async () => {
+    const res = await run({ kind: 'outsider' });
+    if (c.allowed === 'public') {
+      // Public flows still validate: the deliberately bad input is refused with field errors.
+      expect(res.ok).toBe(false);
+      expect(res.status).toBe(422);
+    } else expect(res).toMatchObject({ ok: false, status: 401 });
+  });
+
+  it.each([...ROLES])('as %s: allowed, or 403', async (role) => {
+    if (c.allowed === 'public') return;
+    const res = await run({ kind: 'session', person: a.people[role] });
+    if (c.allowed.includes(role)) expect(res.ok, JSON.stringify(res)).toBe(true);
+    else expect(res).toMatchObject({ ok: false, status: 403 });
+  });
+
+  it('as a member of another workspace: 404 on workspace A', async () => {
+    if (c.otherWorkspace !== 404) return;
+    const res = await run({ kind: 'session', person: b.people.admin });
+    expect(res).toMatchObject({ ok: false, status: 404 });
+  });
+});
+
+describe('cookie-authenticated writes', () => {
+  it('refuse a request from another origin', async () => {
+    const create = routes.get('POST /api/v1/tokens')!;
+    const res = await callRoute(create, {
+      method: 'POST',
+      path: '/api/v1/tokens',
+      caller: { kind: 'session', person: a.people.developer },
+      body: { label: 'cross-site' },
+      headers: { origin: 'https://evil.example' },
+    });
+    expect(res.status).toBe(403);
+    expect(res.body.error.code).toBe('bad_origin');
+  });
+});

@@ -1,0 +1,145 @@
+/**
+ * Shared set-up for integration tests: real PostgreSQL (the test cluster started by
+ * scripts/test.sh), real route handlers called with real Request objects, and server
+ * actions called with the request headers a browser would send.
+ */
+import { afterAll, vi } from 'vitest';
+import { randomUUID } from 'node:crypto';
+import { encode } from 'next-auth/jwt';
+import { getEm, closeOrm } from '@/lib/db';
+import { Membership, User, Workspace, ApiToken } from '@/entities';
+import { hashPassword } from '@/lib/passwords';
+import { hashSecret, newSecret } from '@/lib/secrets';
+import { API_TOKEN_PREFIX } from '@/lib/auth';
+import { ROLES, type Role } from '@/lib/permissions';
+
+// Server actions read the request through next/headers; tests set it per call.
+const requestState = vi.hoisted(() => ({ headers: new Headers(), setCookies: [] as Array<{ name: string; value: string }> }));
+vi.mock('next/headers', () => ({
+  headers: async () => requestState.headers,
+  cookies: async () => ({
+    get: (name: string) => undefined as unknown,
+    set: (name: string, value: string) => requestState.setCookies.push({ name, value }),
+    delete: () => undefined,
+  }),
+}));
+vi.mock('next/cache', () => ({ revalidatePath: () => undefined, revalidateTag: () => undefined }));
+
+afterAll(async () => {
+  await closeOrm();
+});
+
+export const APP_ORIGIN = process.env.APP_URL ?? 'http://localhost:3100';
+export const TEST_PASSWORD = 'integration-pass-42';
+
+export interface Person {
+  userId: string;
+  email: string;
+  role: Role;
+  sessionCookie: string;
+  token: string;
+}
+
+export interface WorkspaceFixture {
+  workspaceId: string;
+  name: string;
+  people: Record<Role, Person>;
+}
+
+export async function sessionCookieFor(userId: string): Promise<string> {
+  const jwt = await encode({ token: { sub: userId }, secret: process.env.NEXTAUTH_SECRET! });
+  return `next-auth.session-token=${jwt}`;
+}
+
+/** A workspace with one person in each role, each with a session cookie and an API token. */
+export async function createWorkspace(label = 'Test kitchen'): Promise<WorkspaceFixture> {
+  const em = await getEm();
+  const tag = randomUUID().slice(0, 8);
+  const workspace = em.create(Workspace, { name: `${label} ${tag}`, slug: `t-${tag}` });
+  const passwordHash = await hashPassword(TEST_PASSWORD);
+  const created = ROLES.map((role) => {
+    const email = `${role}.${tag}@test.example`;
+    const user = em.create(User, { email, name: `${role} ${tag}`, passwordHash } as never) as unknown as { id: string };
+    em.create(Membership, { workspace, user, role } as never);
+    const token = newSecret(API_TOKEN_PREFIX);
+    em.create(ApiToken, { workspace, user, label: 'test', displayPrefix: token.slice(0, 10), tokenHash: hashSecret(token) } as never);
+    return { role, email, user, token };
+  });
+  // Ids are assigned on flush.
+  await em.flush();
+  const people = {} as Record<Role, Person>;
+  for (const c of created) {
+    people[c.role] = { userId: c.user.id, email: c.email, role: c.role, token: c.token, sessionCookie: await sessionCookieFor(c.user.id) };
+  }
+  return { workspaceId: workspace.id, name: workspace.name, people };
+}
+
+export type Caller = { kind: 'outsider' } | { kind: 'session'; person: Person } | { kind: 'token'; person: Person };
+
+export function authHeaders(caller: Caller, write = false): Headers {
+  const h = new Headers();
+  if (caller.kind === 'session') {
+    h.set('cookie', caller.person.sessionCookie);
+    if (write) h.set('origin', APP_ORIGIN);
+  }
+  if (caller.kind === 'token') h.set('authorization', `Bearer ${caller.person.token}`);
+  return h;
+}
+
+type Handler = (req: Request, ctx: { params: Promise<Record<string, string>> }) => Promise<Response>;
+
+/** Calls a route handler the way Next.js does, and returns status + parsed JSON. */
+export async function callRoute(
+  handler: Handler,
+  opts: { method: string; path: string; caller: Caller; params?: Record<string, string>; body?: unknown; headers?: Record<string, string> },
+): Promise<{ status: number; body: any }> {
+  const write = opts.method !== 'GET';
+  const headers = authHeaders(opts.caller, write);
+  if (opts.body !== undefined) headers.set('content-type', 'application/json');
+  for (const [k, v] of Object.entries(opts.headers ?? {})) headers.set(k, v);
+  const req = new Request(`${APP_ORIGIN}${opts.path}`, {
+    method: opts.method,
+    headers,
+    body: opts.body === undefined ? undefined : typeof opts.body === 'string' ? opts.body : JSON.stringify(opts.body),
+  });
+  const res = await handler(req, { params: Promise.resolve(opts.params ?? {}) });
+  const text = await res.text();
+  let body: unknown = text;
+  try {
+    body = text ? JSON.parse(text) : null;
+  } catch {
+    /* not JSON */
+  }
+  return { status: res.status, body };
+}
+
+/** Runs a server action as the given caller (session cookie, as a browser would send). */
+export async function asCaller<T>(caller: Caller, fn: () => Promise<T>): Promise<T> {
+  requestState.headers = authHeaders(caller, true);
+  requestState.setCookies = [];
+  try {
+    return await fn();
+  } finally {
+    requestState.headers = new Headers();
+  }
+}
+
+export function lastSetCookies() {
+  return requestState.setCookies;
+}
+
+/** The local SMTP fake's received messages (newest first). */
+export async function outbox(): Promise<Array<{ id: string; to: string[]; subject: string; text: string; html: string }>> {
+  const res = await fetch(`${process.env.MAIL_OUTBOX_URL}/messages`);
+  return res.json();
+}
+
+export async function waitForMail(to: string, timeoutMs = 5000) {
+  const until = Date.now() + timeoutMs;
+  while (Date.now() < until) {
+    const found = (await outbox()).find((m) => m.to.includes(to));
+    if (found) return found;
+    await new Promise((r) => setTimeout(r, 100));
+  }
+  throw new Error(`no mail to ${to} within ${timeoutMs} ms`);
+}

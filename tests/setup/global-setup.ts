@@ -1,2 +1,0 @@
-/** Placeholder replaced once the database harness lands: unit tests need nothing. */
-export default async function setup() {}

@@ -1,0 +1,14 @@
+import { defineConfig } from 'vitest/config';
+import { fileURLToPath } from 'node:url';
+
+/** Browser tests: playwright-core drives Debian's chromium against the built app on $PORT. */
+export default defineConfig({
+  resolve: { alias: { '@': fileURLToPath(new URL('./', import.meta.url)) } },
+  test: {
+    environment: 'node',
+    include: ['tests/e2e/**/*.test.ts'],
+    fileParallelism: false,
+    testTimeout: 60_000,
+    hookTimeout: 60_000,
+  },
+});
