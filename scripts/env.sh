@@ -38,5 +38,5 @@ export DATABASE_URL="${DATABASE_URL:-postgresql://setwell:$SETWELL_DB_PASSWORD@1
 export SMTP_URL="${SMTP_URL:-smtp://127.0.0.1:$MAIL_FAKE_SMTP_PORT}"
 export MAIL_FROM="${MAIL_FROM:-Setwell <no-reply@setwell.local>}"
 export MAIL_OUTBOX_URL="${MAIL_OUTBOX_URL:-http://127.0.0.1:$MAIL_FAKE_HTTP_PORT}"
-export APP_URL="${APP_URL:-http://localhost:$PORT}"
+if [ "${SETWELL_PROFILE:-demo}" = test ]; then export APP_URL="${APP_URL:-http://127.0.0.1:$PORT}"; else export APP_URL="${APP_URL:-http://localhost:$PORT}"; fi
 export NEXTAUTH_URL="${NEXTAUTH_URL:-$APP_URL}"

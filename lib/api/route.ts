@@ -27,14 +27,22 @@ export function json(data: unknown, status = 200): Response {
   return Response.json(data, { status, headers: { 'cache-control': 'no-store' } });
 }
 
-/** Cookie-authenticated writes must come from our own origin (CSRF defence beyond SameSite). */
+/**
+ * Cookie-authenticated writes must come from our own origin (CSRF defence beyond SameSite):
+ * the Origin header must match APP_URL or the host the request was addressed to, as Next.js
+ * itself checks for server actions.
+ */
 export function assertSameOrigin(req: Request): void {
   const origin = req.headers.get('origin');
-  const allowed = new URL(env().APP_URL).origin;
-  const selfOrigin = new URL(req.url).origin;
-  if (!origin || (origin !== allowed && origin !== selfOrigin)) {
-    throw new ApiError(403, 'bad_origin', 'This request did not come from the Setwell app.');
+  const host = req.headers.get('x-forwarded-host') ?? req.headers.get('host');
+  let originHost: string | undefined;
+  try {
+    originHost = origin ? new URL(origin).host : undefined;
+  } catch {
+    originHost = undefined;
   }
+  const allowed = originHost !== undefined && (origin === new URL(env().APP_URL).origin || originHost === host);
+  if (!allowed) throw new ApiError(403, 'bad_origin', 'This request did not come from the Setwell app.');
 }
 
 export function apiRoute<P = Record<string, never>>(

@@ -48,7 +48,9 @@ interface Evaluation {
 
 /**
  * EU minimum for a fruit mix: each fruit's group minimum weighted by its share of the fruit.
- * (memory) Annex I reduces the minimums in proportion to the fruits used in a mixture.
+ * Council Directive 2001/113/EC, Annex I, Part III: "Where fruits are mixed together, the minimum
+ * contents laid down in part I for different kinds of fruit must be reduced in proportion to the
+ * percentages used."
  * A fruit without a group key is treated as 'general', the strictest case.
  */
 function evaluateEuFruit(rule: ComplianceRule, batch: ComplianceBatchInput): Evaluation {
@@ -75,7 +77,7 @@ function evaluateEuFruit(rule: ComplianceRule, batch: ComplianceBatchInput): Eva
     weighted += (line.massG / fruitG) * min;
   }
   const notes: string[] = [];
-  if (fruitLines.length > 1) notes.push('Minimum for a mixture weighted by each fruit\'s share (memory: proportional reduction per Annex I).');
+  if (fruitLines.length > 1) notes.push('Minimum for a mixture weighted by each fruit\'s share (Directive 2001/113/EC, Annex I, Part III: minimums reduced in proportion to the percentages used).');
   if (unknownGroup) notes.push('A fruit without an EU group key was checked against the general minimum.');
   return {
     actualValue: (fruitG / batch.finishedMassG) * 1000,
@@ -103,7 +105,11 @@ function evaluateUsRatio(rule: ComplianceRule, batch: ComplianceBatchInput): Eva
     }
     weighted += (line.massG / fruitG) * min;
   }
-  return { actualValue, requiredValue: weighted };
+  const groups = new Set(fruitLines.map((l) => l.ingredient.usFruitGroup));
+  const note = groups.size > 1
+    ? 'Group I and Group II fruits mixed: the required parts are weighted by fruit mass (memory: the mixed-group clause of 21 CFR 150.160(d)(1) was not read).'
+    : undefined;
+  return { actualValue, requiredValue: weighted, note };
 }
 
 function evaluate(rule: ComplianceRule, batch: ComplianceBatchInput): Evaluation {

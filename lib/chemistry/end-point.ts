@@ -6,8 +6,9 @@ export const STANDARD_PRESSURE_PA = 101325;
 const PA_PER_MMHG = 101325 / 760;
 
 /**
- * Antoine constants for water, log10(P / mmHg) = A − B / (C + T/°C), valid about 1–100 °C
- * (the widely tabulated set; values recalled, (memory)). At 760 mmHg they give 100.0 °C.
+ * Antoine constants for water, log10(P / mmHg) = A − B / (C + T/°C), for 1–100 °C.
+ * Source: piping-designer.com, "Antoine Constant" (water, 1 °C to 100 °C: A 8.07131, B 1730.63,
+ * C 233.426, P in mmHg). At 760 mmHg they give 100.0 °C.
  */
 export const WATER_ANTOINE = { a: 8.07131, b: 1730.63, c: 233.426 } as const;
 
@@ -66,22 +67,25 @@ export interface SucroseBoilingPoint {
  * jam strengths.
  * 60 % and 70 %: Lowe, Experimental Cookery (boiling points of sugar solutions, p. 49, from Browne).
  * 65 %: Cruess & McNair, quoted by Lowe ("65° Brix boils at sea level at 103.9 °C").
- * 10–50 % and 80 %: the same Browne table, values recalled (memory); they agree with a published
- * spline of Browne (1912) to 0.1 °C.
- * Note the 65 % point comes from a second author and makes the curve bend between 60 and 70 %;
- * we keep it because it is the published jelly-strength value.
+ * 10, 20, 40, 50 and 80 %: Browne (1912) as tabulated (cubic spline of Browne's points) in
+ * vk1od.net, "Endpoint to boiling a sugar solution", Table 1 (0.4, 0.6, 1.5, 2.0 and 12.0 °C
+ * elevation). The same table gives 70 % → 6.5 °C, as Lowe does. 30 % (1.0 °C) fell outside the
+ * part of that table that was read (memory; its neighbour 32 % is 1.1 °C).
+ * Note the 65 % point comes from a second author and makes the curve bend between 60 and 70 %
+ * (the Browne spline gives 4.0 °C at 64 % and 4.8 °C at 66 %); we keep it because it is the
+ * published jelly-strength value.
  */
 export const SUCROSE_BOILING_TABLE: readonly SucroseBoilingPoint[] = [
   { solidsPct: 0, boilingPointSeaLevelC: 100.0, source: 'pure water' },
-  { solidsPct: 10, boilingPointSeaLevelC: 100.4, source: 'Browne table via Lowe, Experimental Cookery (memory)' },
-  { solidsPct: 20, boilingPointSeaLevelC: 100.6, source: 'Browne table via Lowe, Experimental Cookery (memory)' },
-  { solidsPct: 30, boilingPointSeaLevelC: 101.0, source: 'Browne table via Lowe, Experimental Cookery (memory)' },
-  { solidsPct: 40, boilingPointSeaLevelC: 101.5, source: 'Browne table via Lowe, Experimental Cookery (memory)' },
-  { solidsPct: 50, boilingPointSeaLevelC: 102.0, source: 'Browne table via Lowe, Experimental Cookery (memory)' },
+  { solidsPct: 10, boilingPointSeaLevelC: 100.4, source: 'Browne (1912), tabulated in vk1od.net "Endpoint to boiling a sugar solution", Table 1' },
+  { solidsPct: 20, boilingPointSeaLevelC: 100.6, source: 'Browne (1912), tabulated in vk1od.net "Endpoint to boiling a sugar solution", Table 1' },
+  { solidsPct: 30, boilingPointSeaLevelC: 101.0, source: 'Browne (1912) spline; the 30 % row was not read, the 32 % row is +1.1 °C (memory)' },
+  { solidsPct: 40, boilingPointSeaLevelC: 101.5, source: 'Browne (1912), tabulated in vk1od.net "Endpoint to boiling a sugar solution", Table 1' },
+  { solidsPct: 50, boilingPointSeaLevelC: 102.0, source: 'Browne (1912), tabulated in vk1od.net "Endpoint to boiling a sugar solution", Table 1' },
   { solidsPct: 60, boilingPointSeaLevelC: 103.0, source: 'Lowe, Experimental Cookery' },
   { solidsPct: 65, boilingPointSeaLevelC: 103.9, source: 'Cruess & McNair, quoted in Lowe, Experimental Cookery' },
   { solidsPct: 70, boilingPointSeaLevelC: 106.5, source: 'Lowe, Experimental Cookery' },
-  { solidsPct: 80, boilingPointSeaLevelC: 112.0, source: 'Browne table via Lowe, Experimental Cookery (memory)' },
+  { solidsPct: 80, boilingPointSeaLevelC: 112.0, source: 'Browne (1912), tabulated in vk1od.net "Endpoint to boiling a sugar solution", Table 1' },
 ];
 
 export const SUCROSE_TABLE_MAX_SOLIDS_PCT = SUCROSE_BOILING_TABLE[SUCROSE_BOILING_TABLE.length - 1].solidsPct;

@@ -162,10 +162,12 @@ export function computeMassBalance(lines: FormulaLineInput[], settings: FormulaS
     .filter((l) => l.ingredient.kind === 'pectin' && l.ingredient.pectinGrade !== undefined)
     .reduce((t, l) => t + l.massG * (l.ingredient.pectinGrade ?? 0), 0);
 
-  // 21 CFR 150.160 states the ratio as parts by weight of fruit to 55 parts by weight of the
-  // saccharine (sweetener) ingredient. We count the sweetener as its solids, not as weighed:
-  // our reading of the regulation is that a syrup or honey counts by its sugar solids, so that
-  // the water in a syrup does not inflate the sweetener side. Sucrose is the same either way.
+  // 21 CFR 150.160(d)(1) states the ratio as parts by weight of fruit to 55 parts by weight of the
+  // saccharine (sweetener) ingredient. We count the sweetener as its solids, not as weighed, so the
+  // water in a syrup or honey does not inflate the sweetener side; sucrose is the same either way.
+  // 21 CFR 150.140 (jelly) says the weight of an optional saccharine ingredient means the weight of
+  // its solids (as summarised from the GPO text by law.foodmate.net); the matching clause of
+  // 150.160 was not read, so applying it to jams is our reading (memory).
   // The fruit side is the fruit as weighed (single strength); concentrated fruit would need the
   // regulation's own adjustment, which this module does not make.
   const fruitPartsPer55SweetenerParts = sweetenerSolidsG > 0 ? (fruitMassG / sweetenerSolidsG) * 55 : null;

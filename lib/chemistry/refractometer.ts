@@ -4,8 +4,11 @@ import { ChemistryInputError, requireFiniteNumber } from './errors';
  * Temperature corrections for sucrose refractometer readings (°Brix to add to the reading).
  * Source: OIV Compendium of International Methods of Analysis, method OIV-MA-AS2-02
  * ("Evaluation by refractometry of the sugar concentration in grape musts…"), Table I.
- * Rows 10–17 °C were read from the published table. Rows 18, 19 and 21–25 °C are recalled
- * (memory) and flagged in every result that uses them. Row 20 °C is zero by definition.
+ * Rows 10–17 °C were read from the published table (OIV Compendium of International Methods of
+ * Wine and Must Analysis, "Evaluation of Sugar by Refractometry", Table I, as reproduced on
+ * yumpu.com, document 12038601, p. 49). Rows 18, 19 and 21–25 °C fell outside the part that was
+ * read: they are recalled (memory) and flagged in every result that uses them. Row 20 °C is zero
+ * by definition. The published table also has a 75 % column, not used here.
  */
 export const BRIX_COLUMNS_PCT: readonly number[] = [10, 15, 20, 25, 30, 35, 40, 45, 50, 55, 60, 65, 70];
 

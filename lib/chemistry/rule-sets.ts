@@ -36,6 +36,10 @@ export const EU_2024_AMENDMENT_FROM = '2026-06-14';
 
 const EU_2001 = 'Council Directive 2001/113/EC, Annex I';
 const EU_2024 = 'Council Directive 2001/113/EC, Annex I, as amended by Directive (EU) 2024/1438';
+/** Where the 2024 general minimums were read: the amending text itself was not reachable. */
+const EU_2024_SUMMARIES = 'General minimums per the Food Safety Authority of Ireland summary of Directive (EU) 2024/1438 (jam 350 → 450 g; extra jam and extra jelly 450 → 500 g) and the Eurofins summary of the same amendment.';
+/** The exception minimums after 2024 are carried over from 2001 without having been read in the amending text. */
+const EU_2024_EXCEPTIONS_NOTE = '(memory) Exception-fruit minimums kept as in 2001/113/EC: the FSAI and Eurofins summaries name only the general minimums, and a Polish press summary of the national transposition says the lower thresholds for currants, sea buckthorn, quince and the other exception fruits are kept; not checked against the amending text.';
 const TRANSITION_NOTE = 'Products made and labelled under these rules before 14 June 2026 may be sold until stocks run out (Directive (EU) 2024/1438).';
 
 export const RULES: readonly ComplianceRule[] = [
@@ -91,7 +95,7 @@ export const RULES: readonly ComplianceRule[] = [
     validFrom: EU_2024_AMENDMENT_FROM,
     source: `${EU_2024}, Part I ('Jam')`,
     quote: 'The general minimum for jam rises from 350 g to 450 g of fruit per 1000 g of finished product.',
-    note: 'Exception minimums kept as in 2001/113/EC: the published summaries of the amendment describe only the general minimums rising; not verified against the consolidated text.',
+    note: `${EU_2024_SUMMARIES} ${EU_2024_EXCEPTIONS_NOTE}`,
   },
   {
     id: 'eu.2024.extra_jam.fruit',
@@ -104,7 +108,7 @@ export const RULES: readonly ComplianceRule[] = [
     validFrom: EU_2024_AMENDMENT_FROM,
     source: `${EU_2024}, Part I ('Extra jam')`,
     quote: 'The general minimum for extra jam rises from 450 g to 500 g of fruit per 1000 g of finished product.',
-    note: 'Exception minimums kept as in 2001/113/EC: not verified against the consolidated text.',
+    note: `${EU_2024_SUMMARIES} ${EU_2024_EXCEPTIONS_NOTE}`,
   },
   {
     id: 'eu.2024.jelly.fruit',
@@ -116,8 +120,8 @@ export const RULES: readonly ComplianceRule[] = [
     unit: 'g juice/extract per 1000 g',
     validFrom: EU_2024_AMENDMENT_FROM,
     source: `${EU_2024}, Part I ('Jelly')`,
-    quote: 'Jelly follows the jam minimums, so its general minimum rises with jam to 450 g.',
-    note: 'Assumes jelly still refers to the jam minimums after the amendment; exception minimums not verified.',
+    quote: 'Juice and/or aqueous extracts per 1000 g of finished product not less than that laid down for the manufacture of jam, so the general minimum rises with jam to 450 g.',
+    note: `Jelly refers to the jam minimums in Annex I, Part I ('Jelly'); the FSAI summary lists no separate change for jelly. ${EU_2024_EXCEPTIONS_NOTE}`,
   },
   {
     id: 'eu.marmalade.citrus',
@@ -128,8 +132,8 @@ export const RULES: readonly ComplianceRule[] = [
     minimum: 200,
     unit: 'g citrus per 1000 g',
     source: `${EU_2001}, Part I ('Marmalade')`,
-    quote: 'Citrus fruit per 1000 g of finished product not less than 200 g, of which at least 75 g from the endocarp.',
-    note: '(memory) Value recalled, not checked against the text; the 75 g endocarp share is not computed.',
+    quote: 'The quantity of citrus fruit used in the manufacture of 1 000 g of finished product must not be less than 200 g of which at least 75 g must be obtained from the endocarp.',
+    note: 'Text as reproduced in the EFSA FoodEx2 description of "Marmalade" (term A01NJ) and in the Jam and Similar Products (England) Regulations 2003. Directive (EU) 2024/1438 renames the product "citrus marmalade"; the FSAI and Eurofins summaries list no change to this minimum. The 75 g endocarp share is not computed.',
   },
   {
     id: 'eu.soluble_dry_matter',
@@ -139,7 +143,7 @@ export const RULES: readonly ComplianceRule[] = [
     metric: 'soluble_solids_pct',
     minimum: 60,
     unit: '% (refractometer)',
-    source: `${EU_2001} (soluble dry matter content)`,
+    source: `${EU_2001}, Part II (soluble dry matter content)`,
     quote: 'The products defined must have a soluble dry matter content of 60 % or more as determined by refractometer, except where sugars have been wholly or partially replaced by sweeteners.',
     note: 'Reduced-sugar spreads fall under national rules, not these reserved names.',
   },
@@ -164,9 +168,9 @@ export const RULES: readonly ComplianceRule[] = [
     metric: 'fruit_parts_per_55_sweetener',
     minimumByUsGroup: { '1': 47, '2': 45 },
     unit: 'parts fruit per 55 parts sweetener',
-    source: '21 CFR 150.160 (Fruit preserves and jams), paragraphs (b) and (d)',
-    quote: 'Not less than 45 parts by weight of certain specified fruits, and 47 parts of other designated fruits, to each 55 parts by weight of sugar or other nutritive carbohydrate sweetener (FDA guidance wording).',
-    note: 'Group lists per 21 CFR 150.160(b)(1). (memory) Which ratio belongs to which group (47 for Group I, 45 for Group II) was not verified against the regulation text. Mixed groups are weighted by fruit mass.',
+    source: '21 CFR 150.160 (Fruit preserves and jams), paragraphs (b)(1) and (d)(1)',
+    quote: 'In the case of a fruit ingredient consisting of a Group I fruit or a permitted combination exclusively of Group I fruits, 47 parts by weight of the fruit ingredient to each 55 parts by weight of the saccharine ingredient; Group II fruits, 45 parts.',
+    note: 'Group I at 47 parts: the text of 150.160(d)(1)(i) as quoted in an IFSQN forum thread (Feb 2025). Group II at 45 parts: Colorado State University, Colorado Farm to Market, "Jams and Jellies" (berry group 47:55, pome group 45:55). (memory) A mix of Group I and Group II fruits is weighted by fruit mass; the regulation clause for mixed groups was not read.',
   },
   {
     id: 'us.150_140.soluble_solids',
@@ -188,8 +192,8 @@ export const RULES: readonly ComplianceRule[] = [
     minimum: 45,
     unit: 'parts juice per 55 parts sweetener',
     source: '21 CFR 150.140 (Fruit jelly), paragraph (d)',
-    quote: 'Not less than 45 parts by weight of fruit juice (47 for some designated fruits) to each 55 parts by weight of sweetener.',
-    note: '(memory) Checked at the lower 45-part ratio for every juice, so a juice that needs 47 parts can pass here wrongly.',
+    quote: 'The fruit juice is not less than 45 parts by weight and the saccharine ingredients no more than 55 parts by weight.',
+    note: 'One 45-part ratio for every juice, with no fruit groups: FDA Compliance Policy Guide Sec. 550.475 (Jellies, Nonstandardized), Finding 1 of the 1940 jelly standard; Colorado State University, Colorado Farm to Market, "Jams and Jellies" (jellies 45:55). The juice is counted as single strength.',
   },
   // --- Codex ---
   {
@@ -202,7 +206,7 @@ export const RULES: readonly ComplianceRule[] = [
     unit: '% soluble solids',
     source: 'Codex Standard for Jams, Jellies and Marmalades (CXS 296-2009), section 3 (composition)',
     quote: 'Soluble solids content of the finished product between 60 and 65 % or greater.',
-    note: '(memory) Lower bound of 60 % recalled, not checked against the standard.',
+    note: '(memory) Lower bound of 60 % recalled; the composition clause of CXS 296-2009 was not read (its scope clause 1.1 was).',
   },
 ];
 
@@ -211,13 +215,13 @@ export const OUT_OF_SCOPE: readonly { ruleSet: MarketRuleSetId; productClass: Pr
   {
     ruleSet: 'codex',
     productClass: 'reduced_sugar_spread',
-    source: 'Codex Standard for Jams, Jellies and Marmalades (CXS 296-2009), section 1.1(c)',
+    source: 'Codex Standard for Jams, Jellies and Marmalades (CXS 296-2009, amended 2017), section 1.1(c)',
     reason: 'The standard does not apply to reduced sugar products or those with a very low sugar content.',
   },
   {
     ruleSet: 'eu',
     productClass: 'reduced_sugar_spread',
-    source: 'Council Directive 2001/113/EC, Annex I',
+    source: 'Council Directive 2001/113/EC, Annex I, Part II',
     reason: 'Reduced-sugar spreads are not among the reserved descriptions at 60 % soluble dry matter; national rules apply.',
   },
   {
@@ -246,7 +250,10 @@ export function rulesInForce(ruleSet: MarketRuleSetId, isoDate: string): Complia
 }
 
 /**
- * Fruit groups of 21 CFR 150.160(b)(1), as printed in the Code of Federal Regulations.
+ * Fruit groups of 21 CFR 150.160(b)(1), as printed in the Code of Federal Regulations (GPO text,
+ * revised April 1, 2006, and the CFR as printed in Google Books). Group I and Group II up to "Plum"
+ * were read; "Quince" and "Red currant, currant (other than black currant)" at the end of Group II
+ * fell outside the passages read (memory).
  * A fruit in neither list (apple, blackcurrant…) is not a standardized preserve fruit.
  */
 export const US_FRUIT_GROUPS: Readonly<Record<UsFruitGroup, readonly string[]>> = {

@@ -32,7 +32,7 @@ export const TYPICAL_INGREDIENTS: readonly TypicalIngredient[] = [
   { key: 'blackberry', kind: 'fruit', name: 'Blackberry', solidsPct: 10.0, phMin: 3.85, phMax: 4.5, pectinLevel: 'high', euFruitGroup: 'general', usFruitGroup: '1',
     source: `Brix: ${BRIX_TABLE}; pectin: ${NCHFP} (sour blackberries); pH: ${FDA_PH}; US group: 21 CFR 150.160(b)(1) Group I` },
   { key: 'bitter_orange', kind: 'fruit', name: 'Bitter orange (Seville type)', solidsPct: 10.0, pectinLevel: 'high', euFruitGroup: 'citrus', usFruitGroup: '1',
-    source: '(memory) Brix about 10; citrus peel and pith are pectin-rich; US group as orange (memory)' },
+    source: '(memory) Brix about 10; citrus peel and pith are pectin-rich. US group: "Orange" is in 21 CFR 150.160(b)(1) Group I; counting a bitter orange as "Orange" is our reading (memory)' },
   { key: 'lemon_juice', kind: 'acid', name: 'Lemon juice', solidsPct: 4.5, phMin: 2.0, phMax: 2.6, acidPct: 5.0, acidType: 'lemon_juice',
     source: `Brix: ${BRIX_TABLE}; pH: ${FDA_PH}; acidity about 5 % as citric (memory)` },
   { key: 'sucrose', kind: 'sweetener', name: 'Sucrose (white sugar)', solidsPct: 100, sweetenerType: 'sucrose',

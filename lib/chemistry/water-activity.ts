@@ -13,7 +13,8 @@ export const SOLUTE_MOLAR_MASS: Record<ModelledSolute, number> = {
 
 /**
  * Norrish constants K. Sucrose 6.47 (Chirife et al. 1980, memory). Glucose and fructose 2.25
- * (same source, memory: not re-checked against the paper).
+ * (same source, memory). The K table of Chirife et al. was searched for but not found, so these
+ * stay recalled; the 65 % sucrose result is checked against Beuchat's measured aw instead.
  */
 export const NORRISH_K: Record<ModelledSolute, number> = {
   sucrose: 6.47,

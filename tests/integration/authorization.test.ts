@@ -12,6 +12,8 @@ import { API_OPERATIONS } from '@/lib/api/openapi';
 import { ROLES } from '@/lib/permissions';
 
 const ROOT = path.resolve(__dirname, '../..');
+type RouteHandler = (req: Request, ctx: { params: Promise<Record<string, string>> }) => Promise<Response>;
+type ServerAction = (...args: unknown[]) => Promise<{ ok: boolean; status?: number }>;
 const METHODS = ['GET', 'POST', 'PUT', 'PATCH', 'DELETE'] as const;
 
 function walk(dir: string, match: (f: string) => boolean, out: string[] = []): string[] {
@@ -28,7 +30,7 @@ const routeKey = (file: string, method: string) =>
   `${method} /${path.relative(path.join(ROOT, 'app'), path.dirname(file)).split(path.sep).filter((s) => !s.startsWith('(')).join('/')}`;
 
 async function discoverRoutes() {
-  const found = new Map<string, (req: Request, ctx: any) => Promise<Response>>();
+  const found = new Map<string, RouteHandler>();
   for (const file of routeFiles) {
     const mod = await import(file);
     for (const m of METHODS) if (typeof mod[m] === 'function') found.set(routeKey(file, m), mod[m]);
@@ -39,7 +41,7 @@ async function discoverRoutes() {
 const actionFiles = walk(path.join(ROOT, 'lib'), (f) => f.endsWith(`${path.sep}actions.ts`) && fs.readFileSync(f, 'utf8').startsWith("'use server'"));
 
 async function discoverActions() {
-  const found = new Map<string, (...args: unknown[]) => Promise<any>>();
+  const found = new Map<string, ServerAction>();
   for (const file of actionFiles) {
     const mod = await import(file);
     for (const [name, fn] of Object.entries(mod)) {

@@ -18,7 +18,7 @@ const requestState = vi.hoisted(() => ({ headers: new Headers(), setCookies: [] 
 vi.mock('next/headers', () => ({
   headers: async () => requestState.headers,
   cookies: async () => ({
-    get: (name: string) => undefined as unknown,
+    get: () => undefined,
     set: (name: string, value: string) => requestState.setCookies.push({ name, value }),
     delete: () => undefined,
   }),
@@ -86,12 +86,14 @@ export function authHeaders(caller: Caller, write = false): Headers {
   return h;
 }
 
-type Handler = (req: Request, ctx: { params: Promise<Record<string, string>> }) => Promise<Response>;
+// eslint-disable-next-line @typescript-eslint/no-explicit-any -- each route declares its own params type
+type Handler = (req: Request, ctx: { params: Promise<any> }) => Promise<Response>;
 
 /** Calls a route handler the way Next.js does, and returns status + parsed JSON. */
 export async function callRoute(
   handler: Handler,
   opts: { method: string; path: string; caller: Caller; params?: Record<string, string>; body?: unknown; headers?: Record<string, string> },
+// eslint-disable-next-line @typescript-eslint/no-explicit-any -- tests read arbitrary JSON shapes
 ): Promise<{ status: number; body: any }> {
   const write = opts.method !== 'GET';
   const headers = authHeaders(opts.caller, write);

@@ -68,6 +68,14 @@ describe('EU fruit minimums from 14 June 2026', () => {
     expect(fruitRule('jam', FROM, 400, 'general').passed).toBe(false);
   });
 
+  it('raises the jelly minimum with jam to 450 g', () => {
+    // Source: EU Directive 2001/113/EC, Annex I ('Jelly': juice not less than that laid down for jam) with the jam minimum raised to 450 g
+    // by Directive (EU) 2024/1438 (FSAI summary of the amendment)
+    expect(fruitRule('jelly', FROM, 449, 'general').passed).toBe(false);
+    expect(fruitRule('jelly', FROM, 450, 'general').passed).toBe(true);
+    expect(fruitRule('jelly', BEFORE, 350, 'general').passed).toBe(true);
+  });
+
   it('raises the general extra-jam minimum to 500 g', () => {
     // Source: Directive (EU) 2024/1438 amending 2001/113/EC — extra jam general minimum 500 g from 14 June 2026
     expect(fruitRule('extra_jam', FROM, 499, 'general').passed).toBe(false);
@@ -75,7 +83,8 @@ describe('EU fruit minimums from 14 June 2026', () => {
   });
 
   it('keeps the exception fruits at their 2001 minimums', () => {
-    // Source: EU Directive 2001/113/EC, Annex I exception minimums; kept unchanged after Directive (EU) 2024/1438 (memory: not verified against the consolidated text)
+    // Source: EU Directive 2001/113/EC, Annex I exception minimums. (memory) Kept unchanged after Directive (EU) 2024/1438: the FSAI and
+    // Eurofins summaries name only the general minimums and a Polish press summary says the lower thresholds stay; the amending text was not read.
     expect(fruitRule('jam', FROM, 250, 'reduced_minimum_fruits').passed).toBe(true);
     expect(fruitRule('jam', FROM, 249, 'reduced_minimum_fruits').passed).toBe(false);
     expect(fruitRule('extra_jam', FROM, 80, 'passion_fruit').passed).toBe(true);
@@ -104,7 +113,8 @@ describe('EU soluble dry matter and mixtures', () => {
   });
 
   it('weights the minimum of a fruit mix by each fruit share', () => {
-    // (memory) EU Directive 2001/113/EC, Annex I: minimums reduced in proportion for fruit mixtures.
+    // Source: EU Directive 2001/113/EC, Annex I, Part III: "Where fruits are mixed together, the minimum contents ... must be reduced in proportion to the percentages used"
+    // 150 g general fruit (350 g) + 150 g redcurrant (250 g): half of each → 300 g.
     const batch: ComplianceBatchInput = {
       lines: [
         { index: 0, ingredient: fruit(10, { euFruitGroup: 'general' }), massG: 150, solidsG: 15 },
@@ -149,11 +159,56 @@ describe('US standards of identity', () => {
   });
 
   it('checks the parts of fruit per 55 parts of sweetener', () => {
-    // Source: 21 CFR 150.160 — 47 or 45 parts fruit to 55 parts sweetener by fruit group (memory: which ratio for which group)
+    // Source: 21 CFR 150.160(d)(1)(i): Group I fruit, 47 parts by weight of fruit to each 55 parts of saccharine ingredient (text quoted in IFSQN forum, 2025)
     const ratio = usReport(65).results.find((r) => r.ruleId === 'us.150_160.fruit_ratio');
     expect(ratio?.actualValue).toBeCloseTo(47, 9);
     expect(ratio?.requiredValue).toBe(47);
     expect(ratio?.passed).toBe(true);
+  });
+
+  /** Ratio rule for one fruit line of `fruitG` against 550 g sugar, i.e. fruitG / 10 parts per 55. */
+  function ratioRule(fruitG: number, usFruitGroup: '1' | '2', productClass: ProductClass = 'jam') {
+    const lines = [
+      { ingredient: fruit(10, { usFruitGroup }), quantity: fruitG, unit: 'g' as const },
+      { ingredient: SUGAR, quantity: 550, unit: 'g' as const },
+    ];
+    const s = settings({ ruleSet: 'us', productClass, targetSolidsPct: 65 });
+    const id = productClass === 'jelly' ? 'us.150_140.juice_ratio' : 'us.150_160.fruit_ratio';
+    const rule = checkCompliance(computeMassBalance(lines, s), s).results.find((r) => r.ruleId === id);
+    if (!rule) throw new Error(`no rule ${id}`);
+    return rule;
+  }
+
+  it('requires 47 parts for Group I and 45 parts for Group II fruit', () => {
+    // Source: 21 CFR 150.160(d)(1)(i) (Group I, 47 parts); Colorado State University, Colorado Farm to Market, "Jams and Jellies"
+    // (berry group 47:55, pome group 45:55)
+    expect(ratioRule(460, '1').passed).toBe(false);
+    expect(ratioRule(470, '1').passed).toBe(true);
+    expect(ratioRule(450, '2').requiredValue).toBe(45);
+    expect(ratioRule(450, '2').passed).toBe(true);
+    expect(ratioRule(449, '2').passed).toBe(false);
+  });
+
+  it('weights a Group I and Group II mix by fruit mass and says the rule is unverified', () => {
+    // (memory) Mixed-group weighting: the mixed-group clause of 21 CFR 150.160(d)(1) was not read.
+    const lines = [
+      { ingredient: fruit(10, { usFruitGroup: '1' }), quantity: 230, unit: 'g' as const },
+      { ingredient: fruit(10, { usFruitGroup: '2' }), quantity: 230, unit: 'g' as const },
+      { ingredient: SUGAR, quantity: 550, unit: 'g' as const },
+    ];
+    const s = settings({ ruleSet: 'us', targetSolidsPct: 65 });
+    const rule = checkCompliance(computeMassBalance(lines, s), s).results.find((r) => r.ruleId === 'us.150_160.fruit_ratio');
+    expect(rule?.requiredValue).toBeCloseTo(46, 9);
+    expect(rule?.passed).toBe(true);
+    expect(rule?.note).toMatch(/memory/);
+  });
+
+  it('requires 45 parts of juice for jelly whatever the fruit group', () => {
+    // Source: FDA Compliance Policy Guide Sec. 550.475 (Jellies, Nonstandardized), Finding 1: fruit juice not less than 45 parts by weight,
+    // saccharine ingredients no more than 55 parts; Colorado State University, Colorado Farm to Market, "Jams and Jellies" (jellies 45:55)
+    expect(ratioRule(450, '1', 'jelly').requiredValue).toBe(45);
+    expect(ratioRule(450, '1', 'jelly').passed).toBe(true);
+    expect(ratioRule(449, '2', 'jelly').passed).toBe(false);
   });
 
   it('cannot evaluate the ratio when a fruit has no US group', () => {
@@ -165,6 +220,18 @@ describe('US standards of identity', () => {
     const report = checkCompliance(computeMassBalance(lines, s), s);
     expect(report.results.find((r) => r.ruleId === 'us.150_160.fruit_ratio')?.status).toBe('not_evaluable');
     expect(report.overall).toBe('incomplete');
+  });
+});
+
+describe('EU marmalade', () => {
+  it('requires 200 g of citrus fruit per 1000 g', () => {
+    // Source: EU Directive 2001/113/EC, Annex I ('Marmalade'): not less than 200 g citrus fruit per 1 000 g, at least 75 g from the endocarp
+    // (text as reproduced in EFSA FoodEx2 term A01NJ)
+    const check = (citrusG: number) => checkCompliance(batchWithFruit(citrusG, 'citrus'), settings({ productClass: 'marmalade' }))
+      .results.find((r) => r.ruleId === 'eu.marmalade.citrus');
+    expect(check(200)?.passed).toBe(true);
+    expect(check(199)?.passed).toBe(false);
+    expect(check(200)?.requiredValue).toBe(200);
   });
 });
 

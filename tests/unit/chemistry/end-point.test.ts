@@ -11,7 +11,8 @@ describe('boiling point of water', () => {
   });
 
   it('is about 96.7 °C at 1000 m', () => {
-    // Source: International Standard Atmosphere with the Antoine equation for water: 96.7 °C at 1000 m
+    // Source: International Standard Atmosphere with the Antoine equation for water (A 8.07131, B 1730.63, C 233.426, mmHg, 1–100 °C:
+    // piping-designer.com "Antoine Constant"): 96.7 °C at 1000 m
     expect(standardAtmospherePressurePa(1000)).toBeCloseTo(89875, -1);
     expect(waterBoilingPointAtAltitudeC(1000)).toBeCloseTo(96.7, 1);
   });
@@ -40,6 +41,15 @@ describe('boiling points of sucrose solutions (measured table)', () => {
     // Source: Lowe, Experimental Cookery (Cruess & McNair: add the elevation to the local boiling point of water)
     expect(sucroseBoilingElevationC(62.5)).toBeCloseTo((3.0 + 3.9) / 2, 6);
     expect(syrupBoilingPointC(65, 96.7)).toBeCloseTo(100.6, 6);
+  });
+
+  it('follows the Browne (1912) table at 10, 20, 40, 50 and 80 %', () => {
+    // Source: Browne (1912) boiling-point elevations as tabulated in vk1od.net "Endpoint to boiling a sugar solution", Table 1:
+    // 10 % → 0.4 °C, 20 % → 0.6 °C, 40 % → 1.5 °C, 50 % → 2.0 °C, 70 % → 6.5 °C, 80 % → 12.0 °C
+    const cases: [number, number][] = [[10, 0.4], [20, 0.6], [40, 1.5], [50, 2.0], [70, 6.5], [80, 12.0]];
+    for (const [solidsPct, elevationC] of cases) {
+      expect(sucroseBoilingElevationC(solidsPct)).toBeCloseTo(elevationC, 6);
+    }
   });
 
   it('rejects solids outside the table', () => {

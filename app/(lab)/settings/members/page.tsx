@@ -9,7 +9,7 @@ export default async function MembersPage() {
   const actor = await requirePage('members.manage');
   return (
     <>
-      <PageHeader title="Members" lead="Invite people by e-mail and give each one role. A workspace always keeps at least one active administrator." />
+      <PageHeader title="Members" lead="Invite people by e-mail and give each person a role. A workspace always keeps at least one active administrator." />
       <MembersTable currentUserId={actor.userId} />
     </>
   );

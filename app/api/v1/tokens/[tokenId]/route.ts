@@ -4,6 +4,6 @@ import { revokeToken } from '@/lib/api-tokens/mutations';
 export const dynamic = 'force-dynamic';
 
 export const DELETE = apiRoute<{ tokenId: string }>('tokens.manage', async ({ actor, params }) => {
-  await revokeToken(actor, params.tokenId);
+  await revokeToken(actor, uuidParam(params.tokenId, 'token'));
   return json({ ok: true });
 });

@@ -1,0 +1,117 @@
+/** Sign-in per role, the invitation round trip through the mail fake, wrong passwords and the rate limit. */
+import { describe, it, expect, beforeAll, afterAll } from 'vitest';
+import type { Browser } from 'playwright-core';
+import { launch, newContext, signIn, mailTo, screenshot, DEMO_PASSWORD } from './browser';
+import { DEMO_USERS, OTHER_ADMIN } from '@/lib/seed/demo';
+import { navFor } from '@/lib/navigation';
+
+let browser: Browser;
+beforeAll(async () => {
+  browser = await launch();
+});
+afterAll(async () => {
+  await browser?.close();
+});
+
+describe('each demo role signs in and sees its own navigation', () => {
+  it.each(DEMO_USERS.map((u) => [u.role, u] as const))('%s', async (_role, user) => {
+    const ctx = await newContext(browser);
+    const page = await ctx.newPage();
+    await signIn(page, user.email);
+    const nav = page.getByTestId('main-nav').first();
+    const labels = (await nav.getByRole('link').allTextContents()).map((s) => s.trim());
+    expect(labels).toEqual(navFor(user.role).map((n) => n.label));
+    await expect(page.getByTestId('actor-name').first().textContent()).resolves.toBe(user.name);
+    if (user.role === 'admin') await screenshot(page, 'home-admin');
+    await ctx.close();
+  });
+
+  it('a taster who opens a staff page gets the 403 page', async () => {
+    const ctx = await newContext(browser);
+    const page = await ctx.newPage();
+    await signIn(page, DEMO_USERS.find((u) => u.role === 'taster')!.email);
+    const res = await page.goto('/settings/members');
+    expect(res?.status()).toBe(403);
+    await expect(page.getByRole('heading', { level: 1 }).textContent()).resolves.toContain('not open to your role');
+    await ctx.close();
+  });
+
+  it('a signed-out visitor is sent to sign in', async () => {
+    const ctx = await newContext(browser);
+    const page = await ctx.newPage();
+    await page.goto('/settings/members');
+    expect(new URL(page.url()).pathname).toBe('/sign-in');
+    await ctx.close();
+  });
+});
+
+describe('invitations', () => {
+  it('an admin invites from the members table; the invitee accepts through the mailed link and signs in', async () => {
+    const ctx = await newContext(browser);
+    const page = await ctx.newPage();
+    await signIn(page, DEMO_USERS[0].email);
+    await page.goto('/settings/members');
+    await page.getByTestId('members-table').getByText(DEMO_USERS[1].email).waitFor();
+    const invitee = `e2e.invitee.${Date.now()}@hollowmere.example`;
+    await page.getByLabel('E-mail to invite').fill(invitee);
+    await page.getByLabel('Role', { exact: true }).selectOption('production');
+    await page.getByRole('button', { name: 'Send invitation' }).click();
+    await page.getByText(`Invitation sent to ${invitee}.`).waitFor();
+    await page.getByTestId('members-table').getByText(invitee).waitFor();
+    await screenshot(page, 'members');
+
+    const mail = await mailTo(invitee);
+    const link = mail.text.match(/https?:\/\/\S+\/accept-invite\/\S+/)?.[0];
+    expect(link).toBeTruthy();
+    const path = new URL(link!).pathname;
+
+    const guest = await newContext(browser);
+    const gp = await guest.newPage();
+    await gp.goto(path);
+    await gp.getByRole('heading', { name: /Join Hollowmere Preserves/ }).waitFor();
+    await gp.getByLabel('Your name').fill('Pia Newcomb');
+    await gp.getByLabel('New password').fill('gooseberry-fool-9');
+    await gp.getByLabel('Repeat the password').fill('gooseberry-fool-9');
+    await gp.getByRole('button', { name: 'Accept and join' }).click();
+    await gp.getByText('You have joined').waitFor();
+    await signIn(gp, invitee, 'gooseberry-fool-9');
+    await expect(gp.getByTestId('actor-role').first().textContent()).resolves.toBe('Production lead');
+
+    // The link is single-use.
+    await gp.goto(path);
+    await gp.getByRole('heading', { name: 'This invitation cannot be used' }).waitFor();
+    await guest.close();
+    await ctx.close();
+  });
+});
+
+describe('wrong passwords', () => {
+  it('shows a clear error and stays on the sign-in page', async () => {
+    const ctx = await newContext(browser);
+    const page = await ctx.newPage();
+    await page.goto('/sign-in');
+    await page.getByLabel('E-mail').fill(DEMO_USERS[2].email);
+    await page.getByLabel('Password').fill('not-the-password');
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.getByText('That e-mail and password do not match an account.').waitFor();
+    expect(new URL(page.url()).pathname).toBe('/sign-in');
+    await ctx.close();
+  });
+
+  it('the rate limit kicks in after repeated failures, even for the right password', async () => {
+    const ctx = await newContext(browser);
+    const page = await ctx.newPage();
+    await page.goto('/sign-in');
+    for (let i = 0; i < 5; i++) {
+      await page.getByLabel('E-mail').fill(OTHER_ADMIN.email);
+      await page.getByLabel('Password').fill(`wrong-${i}`);
+      await page.getByRole('button', { name: 'Sign in' }).click();
+      await page.getByText('That e-mail and password do not match an account.').waitFor();
+    }
+    await page.getByLabel('Password').fill(DEMO_PASSWORD);
+    await page.getByRole('button', { name: 'Sign in' }).click();
+    await page.getByText(/Too many sign-in attempts\. Wait \d+ minutes? and try again\./).waitFor();
+    expect(new URL(page.url()).pathname).toBe('/sign-in');
+    await ctx.close();
+  });
+});

@@ -1,0 +1,184 @@
+/** Members admin, invitations, password resets and sign-in throttling against the real database and mail fake. */
+import { describe, it, expect, beforeAll } from 'vitest';
+import { createWorkspace, callRoute, waitForMail, type WorkspaceFixture } from './harness';
+import * as membersRoute from '@/app/api/v1/members/route';
+import * as memberRoute from '@/app/api/v1/members/[membershipId]/route';
+import { acceptInvitationAction, requestPasswordResetAction, resetPasswordAction } from '@/lib/account/actions';
+import { getEm } from '@/lib/db';
+import { Invitation, Membership, User } from '@/entities';
+import { verifyPassword } from '@/lib/passwords';
+import { checkSignInAllowed, recordSignInFailure, recordSignInSuccess, RateLimited, SIGN_IN_LIMITS } from '@/lib/rate-limit';
+
+let a: WorkspaceFixture;
+beforeAll(async () => {
+  a = await createWorkspace('Members');
+});
+
+const admin = () => ({ kind: 'session' as const, person: a.people.admin });
+
+function form(fields: Record<string, string>) {
+  const f = new FormData();
+  for (const [k, v] of Object.entries(fields)) f.set(k, v);
+  return f;
+}
+
+function linkToken(text: string, path: string): string {
+  const m = text.match(new RegExp(`${path}/([A-Za-z0-9_-]+)`));
+  if (!m) throw new Error(`no ${path} link in: ${text}`);
+  return m[1];
+}
+
+describe('invitations', () => {
+  it('sends a mail with a plain-text part, and the link can be used exactly once', async () => {
+    const email = `new.dev.${Date.now()}@test.example`;
+    const res = await callRoute(membersRoute.POST, { method: 'POST', path: '/api/v1/members', caller: admin(), body: { email, role: 'developer' } });
+    expect(res.status).toBe(201);
+
+    const mail = await waitForMail(email);
+    expect(mail.subject).toContain(a.name);
+    expect(mail.text).toContain('/accept-invite/');
+    const token = linkToken(mail.text, 'accept-invite');
+
+    // Only the hash is stored.
+    const em = await getEm();
+    const stored = await em.findOneOrFail(Invitation, { email });
+    expect(stored.tokenHash).not.toContain(token);
+    expect(stored.tokenHash).toMatch(/^[0-9a-f]{64}$/);
+
+    const accepted = await acceptInvitationAction(null, form({ token, name: 'New Developer', password: 'quince-jelly-77', confirm: 'quince-jelly-77' }));
+    expect(accepted).toMatchObject({ ok: true, data: { email } });
+
+    const user = await em.fork().findOneOrFail(User, { email });
+    expect(await verifyPassword('quince-jelly-77', user.passwordHash)).toBe(true);
+    const membership = await em.fork().findOneOrFail(Membership, { user: user.id, workspace: a.workspaceId });
+    expect(membership.role).toBe('developer');
+
+    const again = await acceptInvitationAction(null, form({ token, name: 'Second Try', password: 'quince-jelly-88', confirm: 'quince-jelly-88' }));
+    expect(again).toMatchObject({ ok: false, status: 422 });
+    const unchanged = await em.fork().findOneOrFail(User, { email });
+    expect(await verifyPassword('quince-jelly-77', unchanged.passwordHash)).toBe(true);
+  });
+
+  it('refuses an expired invitation', async () => {
+    const email = `late.${Date.now()}@test.example`;
+    await callRoute(membersRoute.POST, { method: 'POST', path: '/api/v1/members', caller: admin(), body: { email, role: 'taster' } });
+    const token = linkToken((await waitForMail(email)).text, 'accept-invite');
+    const em = await getEm();
+    await em.nativeUpdate(Invitation, { email }, { expiresAt: new Date(Date.now() - 1000) });
+    const res = await acceptInvitationAction(null, form({ token, name: 'Late', password: 'quince-jelly-77', confirm: 'quince-jelly-77' }));
+    expect(res).toMatchObject({ ok: false, status: 422 });
+    expect(await em.fork().findOne(User, { email })).toBeNull();
+  });
+
+  it('rejects bad input with field errors and writes nothing', async () => {
+    const em = await getEm();
+    const before = await em.count(Invitation, { workspace: a.workspaceId });
+    const res = await callRoute(membersRoute.POST, { method: 'POST', path: '/api/v1/members', caller: admin(), body: { email: 'not-an-address', role: 'chef' } });
+    expect(res.status).toBe(422);
+    expect(Object.keys(res.body.error.fields).sort()).toEqual(['email', 'role']);
+    const unknownField = await callRoute(membersRoute.POST, { method: 'POST', path: '/api/v1/members', caller: admin(), body: { email: 'x@test.example', role: 'taster', isAdmin: true } });
+    expect(unknownField.status).toBe(422);
+    const badJson = await callRoute(membersRoute.POST, { method: 'POST', path: '/api/v1/members', caller: admin(), body: '{"email":' });
+    expect(badJson.status).toBe(400);
+    expect(await em.fork().count(Invitation, { workspace: a.workspaceId })).toBe(before);
+  });
+
+  it('refuses to invite an existing member (409)', async () => {
+    const res = await callRoute(membersRoute.POST, { method: 'POST', path: '/api/v1/members', caller: admin(), body: { email: a.people.taster.email, role: 'taster' } });
+    expect(res.status).toBe(409);
+  });
+});
+
+describe('the last administrator', () => {
+  it('cannot be demoted or deactivated, but can once another admin exists', async () => {
+    const ws = await createWorkspace('Admins');
+    const em = await getEm();
+    const adminMembership = await em.findOneOrFail(Membership, { workspace: ws.workspaceId, user: ws.people.admin.userId });
+    const caller = { kind: 'session' as const, person: ws.people.admin };
+    const path = `/api/v1/members/${adminMembership.id}`;
+    const params = { membershipId: adminMembership.id };
+
+    const demote = await callRoute(memberRoute.PATCH, { method: 'PATCH', path, caller, params, body: { role: 'developer' } });
+    expect(demote.status).toBe(409);
+    const deactivate = await callRoute(memberRoute.PATCH, { method: 'PATCH', path, caller, params, body: { active: false } });
+    expect(deactivate.status).toBe(409);
+    expect((await em.fork().findOneOrFail(Membership, { id: adminMembership.id })).role).toBe('admin');
+
+    const devMembership = await em.findOneOrFail(Membership, { workspace: ws.workspaceId, user: ws.people.developer.userId });
+    const promote = await callRoute(memberRoute.PATCH, {
+      method: 'PATCH', path: `/api/v1/members/${devMembership.id}`, caller, params: { membershipId: devMembership.id }, body: { role: 'admin' },
+    });
+    expect(promote.status).toBe(200);
+    const nowDemote = await callRoute(memberRoute.PATCH, { method: 'PATCH', path, caller, params, body: { role: 'developer' } });
+    expect(nowDemote.status).toBe(200);
+  });
+
+  it('a deactivated member loses access at once', async () => {
+    const ws = await createWorkspace('Deactivate');
+    const em = await getEm();
+    const m = await em.findOneOrFail(Membership, { workspace: ws.workspaceId, user: ws.people.production.userId });
+    const off = await callRoute(memberRoute.PATCH, {
+      method: 'PATCH', path: `/api/v1/members/${m.id}`, caller: { kind: 'session', person: ws.people.admin }, params: { membershipId: m.id }, body: { active: false },
+    });
+    expect(off.status).toBe(200);
+    const me = await import('@/app/api/v1/me/route');
+    const res = await callRoute(me.GET, { method: 'GET', path: '/api/v1/me', caller: { kind: 'session', person: ws.people.production } });
+    expect(res.status).toBe(401);
+  });
+});
+
+describe('password reset', () => {
+  it('mails a single-use link and changes the password', async () => {
+    const person = a.people.head_of_product;
+    const asked = await requestPasswordResetAction(null, form({ email: person.email.toUpperCase() }));
+    expect(asked.ok).toBe(true);
+    const token = linkToken((await waitForMail(person.email)).text, 'reset-password');
+
+    const weak = await resetPasswordAction(null, form({ token, password: 'short', confirm: 'short' }));
+    expect(weak).toMatchObject({ ok: false, status: 422 });
+    expect(weak.ok === false && weak.fields?.password?.length).toBeTruthy();
+
+    const done = await resetPasswordAction(null, form({ token, password: 'marmalade-2027', confirm: 'marmalade-2027' }));
+    expect(done.ok).toBe(true);
+    const user = await (await getEm()).findOneOrFail(User, { email: person.email });
+    expect(await verifyPassword('marmalade-2027', user.passwordHash)).toBe(true);
+
+    const reuse = await resetPasswordAction(null, form({ token, password: 'marmalade-2028', confirm: 'marmalade-2028' }));
+    expect(reuse).toMatchObject({ ok: false, status: 422 });
+  });
+
+  it('answers the same for an unknown address and sends nothing', async () => {
+    const res = await requestPasswordResetAction(null, form({ email: 'nobody.here@test.example' }));
+    expect(res.ok).toBe(true);
+    await expect(waitForMail('nobody.here@test.example', 500)).rejects.toThrow();
+  });
+});
+
+describe('sign-in throttling', () => {
+  it(`blocks an account after ${SIGN_IN_LIMITS.perAccount.points} failures, with a wait time in the message`, async () => {
+    const email = `throttle.${Date.now()}@test.example`;
+    for (let i = 0; i < SIGN_IN_LIMITS.perAccount.points; i++) {
+      await expect(checkSignInAllowed(email, '203.0.113.7')).resolves.toBeUndefined();
+      await recordSignInFailure(email, '203.0.113.7');
+    }
+    const blocked = await checkSignInAllowed(email, '203.0.113.7').catch((e) => e);
+    expect(blocked).toBeInstanceOf(RateLimited);
+    expect(blocked.message).toMatch(/Wait \d+ minutes?/);
+    // Another account from another address is unaffected.
+    await expect(checkSignInAllowed(`other.${email}`, '203.0.113.8')).resolves.toBeUndefined();
+  });
+
+  it(`blocks an address after ${SIGN_IN_LIMITS.perIp.points} failures across accounts`, async () => {
+    const ip = '198.51.100.23';
+    for (let i = 0; i < SIGN_IN_LIMITS.perIp.points; i++) await recordSignInFailure(`spray${i}.${Date.now()}@test.example`, ip);
+    await expect(checkSignInAllowed('fresh@test.example', ip)).rejects.toBeInstanceOf(RateLimited);
+  });
+
+  it('a success clears the account counter', async () => {
+    const email = `recover.${Date.now()}@test.example`;
+    for (let i = 0; i < SIGN_IN_LIMITS.perAccount.points - 1; i++) await recordSignInFailure(email, '192.0.2.50');
+    await recordSignInSuccess(email);
+    await recordSignInFailure(email, '192.0.2.51');
+    await expect(checkSignInAllowed(email, '192.0.2.52')).resolves.toBeUndefined();
+  });
+});
