@@ -6,8 +6,14 @@ import { Invitation } from './Invitation';
 import { PasswordReset } from './PasswordReset';
 import { ApiToken } from './ApiToken';
 import { RateLimitBucket } from './RateLimitBucket';
+import { Ingredient } from './Ingredient';
+import { Formula } from './Formula';
+import { FormulaRevision } from './FormulaRevision';
 
-export { Workspace, User, Membership, Invitation, PasswordReset, ApiToken, RateLimitBucket };
+export { Workspace, User, Membership, Invitation, PasswordReset, ApiToken, RateLimitBucket, Ingredient, Formula, FormulaRevision };
 export { ROLES } from './Membership';
 
-export const allEntities = [Workspace, User, Membership, Invitation, PasswordReset, ApiToken, RateLimitBucket];
+export const allEntities = [
+  Workspace, User, Membership, Invitation, PasswordReset, ApiToken, RateLimitBucket,
+  Ingredient, Formula, FormulaRevision,
+];

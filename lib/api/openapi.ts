@@ -7,6 +7,8 @@ import { z } from 'zod';
 import { rolesWith, type Permission } from '@/lib/permissions';
 import { inviteMemberSchema, updateMemberSchema } from '@/lib/members/schema';
 import { createTokenSchema } from '@/lib/api-tokens/schema';
+import { ingredientInputSchema } from '@/lib/ingredients/schema';
+import { calcBatchSchema, createFormulaSchema, reviseFormulaSchema } from '@/lib/formulas/schema';
 
 export interface ApiOperation {
   method: 'get' | 'post' | 'patch' | 'put' | 'delete';
@@ -29,6 +31,19 @@ export const API_OPERATIONS: ApiOperation[] = [
   { method: 'get', path: '/api/v1/tokens', summary: "The caller's personal API tokens in this workspace (never the secrets)", tag: 'Account', permission: 'tokens.manage' },
   { method: 'post', path: '/api/v1/tokens', summary: 'Create a personal API token; the secret is in this response only', tag: 'Account', permission: 'tokens.manage', request: createTokenSchema, okStatus: 201 },
   { method: 'delete', path: '/api/v1/tokens/{tokenId}', summary: 'Revoke one of your tokens', tag: 'Account', permission: 'tokens.manage' },
+  { method: 'get', path: '/api/v1/ingredients', summary: 'The ingredient library (query: q, kind, sort, dir, archived=include|only)', tag: 'Ingredients', permission: 'ingredients.read' },
+  { method: 'post', path: '/api/v1/ingredients', summary: 'Add an ingredient of your own', tag: 'Ingredients', permission: 'ingredients.write', request: ingredientInputSchema, okStatus: 201 },
+  { method: 'get', path: '/api/v1/ingredients/export', summary: 'The ingredient library as CSV (same query as the list)', tag: 'Ingredients', permission: 'ingredients.read' },
+  { method: 'get', path: '/api/v1/ingredients/{ingredientId}', summary: 'One ingredient', tag: 'Ingredients', permission: 'ingredients.read' },
+  { method: 'patch', path: '/api/v1/ingredients/{ingredientId}', summary: "Replace an ingredient's values (a typical value becomes the workspace's edited value)", tag: 'Ingredients', permission: 'ingredients.write', request: ingredientInputSchema },
+  { method: 'delete', path: '/api/v1/ingredients/{ingredientId}', summary: 'Archive an ingredient (old revisions keep their snapshot)', tag: 'Ingredients', permission: 'ingredients.write' },
+  { method: 'get', path: '/api/v1/formulas', summary: 'Formulas with the headline results of their latest revision (query: q)', tag: 'Formulas', permission: 'formulas.read' },
+  { method: 'post', path: '/api/v1/formulas', summary: 'Create a formula (revision 1); lines may be in g, kg, lb, oz or % of fruit and are stored in grams', tag: 'Formulas', permission: 'formulas.write', request: createFormulaSchema, okStatus: 201 },
+  { method: 'get', path: '/api/v1/formulas/{formulaId}', summary: 'A formula at its latest revision, with the full computation', tag: 'Formulas', permission: 'formulas.read' },
+  { method: 'get', path: '/api/v1/formulas/{formulaId}/revisions', summary: 'Revision history, newest first', tag: 'Formulas', permission: 'formulas.read' },
+  { method: 'post', path: '/api/v1/formulas/{formulaId}/revisions', summary: 'Save a new revision; 409 when baseRevision is no longer the latest (unless force)', tag: 'Formulas', permission: 'formulas.write', request: reviseFormulaSchema, okStatus: 201 },
+  { method: 'get', path: '/api/v1/formulas/{formulaId}/revisions/{number}', summary: 'One revision', tag: 'Formulas', permission: 'formulas.read' },
+  { method: 'post', path: '/api/v1/calc/batch', summary: 'Compute a posted formula (mass balance, end point, water activity, compliance, cautions); stores nothing', tag: 'Formulas', permission: 'calc.run', request: calcBatchSchema },
   { method: 'get', path: '/api/v1/openapi.json', summary: 'This description', tag: 'Meta', permission: null },
 ];
 
@@ -59,7 +74,7 @@ export function buildOpenApiDocument(serverUrl: string) {
       name: m[1],
       in: 'path',
       required: true,
-      schema: { type: 'string', format: 'uuid' },
+      schema: m[1] === 'number' ? { type: 'integer', minimum: 1 } : { type: 'string', format: 'uuid' },
     }));
     const errorRef = { description: 'Error', content: { 'application/json': { schema: { $ref: '#/components/schemas/Error' } } } };
     paths[op.path] ??= {};

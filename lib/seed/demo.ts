@@ -6,7 +6,9 @@
 import type { EntityManager } from '@mikro-orm/postgresql';
 import { Membership, User, Workspace } from '@/entities';
 import { hashPassword } from '@/lib/passwords';
-import type { Role } from '@/lib/permissions';
+import type { Actor, Role } from '@/lib/permissions';
+import { addStarterLibrary } from '@/lib/ingredients/mutations';
+import { seedDemoFormulas } from './formulas';
 
 export const DEMO_PASSWORD = 'setwell-demo-2026';
 
@@ -36,7 +38,7 @@ export async function seedDemo(em: EntityManager): Promise<SeedReport> {
   if (existing && other) return { created: false, workspaceId: existing.id, otherWorkspaceId: other.id };
 
   const passwordHash = await hashPassword(DEMO_PASSWORD);
-  return em.transactional(async (tx) => {
+  const report = await em.transactional(async (tx) => {
     const demo = tx.create(Workspace, DEMO_WORKSPACE);
     const brackenfold = tx.create(Workspace, OTHER_WORKSPACE);
     for (const u of DEMO_USERS) {
@@ -47,6 +49,18 @@ export async function seedDemo(em: EntityManager): Promise<SeedReport> {
     const otherAdmin = tx.create(User, { email: OTHER_ADMIN.email, name: OTHER_ADMIN.name, passwordHash } as never);
     tx.create(Membership, { workspace: brackenfold, user: otherAdmin, role: 'admin' } as never);
     await tx.flush();
+    await addStarterLibrary(tx, demo.id);
+    await addStarterLibrary(tx, brackenfold.id);
     return { created: true, workspaceId: demo.id, otherWorkspaceId: brackenfold.id };
   });
+  const developer = await em.fork().findOneOrFail(User, { email: DEMO_USERS[1].email });
+  await seedDemoFormulas(em.fork(), demoActor(developer, report.workspaceId, 'developer'));
+  return report;
+}
+
+function demoActor(user: { id: string; email: string; name: string }, workspaceId: string, role: Role): Actor {
+  return {
+    userId: user.id, email: user.email, name: user.name, workspaceId, workspaceName: DEMO_WORKSPACE.name,
+    role, via: 'session', massUnits: 'metric', temperatureUnit: 'C',
+  };
 }

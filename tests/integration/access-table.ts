@@ -9,6 +9,7 @@ import { hashSecret, newSecret } from '@/lib/secrets';
 import { API_TOKEN_PREFIX } from '@/lib/auth';
 import type { Role } from '@/lib/permissions';
 import type { Person, WorkspaceFixture } from './harness';
+import { createFixtureFormula, starterIds, strawberryJamInput } from './fixtures';
 
 export type CallSpec = { params?: Record<string, string>; body?: unknown };
 
@@ -19,9 +20,11 @@ export interface RouteCase {
   allowed: Role[] | 'public';
   /**
    * What a member of another workspace (an admin there) gets: 404 for a record of
-   * workspace A, 'own-data' where the route only ever shows the caller's own workspace.
+   * workspace A, 422 when the body names workspace A's records (they match nothing, with
+   * the same message as an unknown id), 'own-data' where the route only ever shows the
+   * caller's own workspace.
    */
-  otherWorkspace: 404 | 'own-data' | 'public';
+  otherWorkspace: 404 | 422 | 'own-data' | 'public';
   /** Builds the call for a caller (null for the outsider) against workspace A's records. */
   prepare?: (a: WorkspaceFixture, caller: Person | null) => Promise<CallSpec> | CallSpec;
 }
@@ -95,6 +98,65 @@ export const ROUTE_CASES: RouteCase[] = [
   },
 ];
 
+const READ_FORMULAS: Role[] = ['admin', 'developer', 'head_of_product'];
+const WRITE_FORMULAS: Role[] = ['admin', 'developer'];
+const CUSTOM_INGREDIENT = { name: 'Matrix rhubarb', kind: 'fruit', solidsPct: 5, pectinLevel: 'low', euFruitGroup: 'general' };
+
+async function ingredientIdOf(a: WorkspaceFixture): Promise<string> {
+  return (await starterIds(a)).strawberry;
+}
+
+ROUTE_CASES.push(
+  { route: 'GET /api/v1/ingredients', allowed: READ_FORMULAS, otherWorkspace: 'own-data' },
+  { route: 'POST /api/v1/ingredients', allowed: WRITE_FORMULAS, otherWorkspace: 'own-data', prepare: () => ({ body: CUSTOM_INGREDIENT }) },
+  { route: 'GET /api/v1/ingredients/export', allowed: READ_FORMULAS, otherWorkspace: 'own-data' },
+  { route: 'GET /api/v1/ingredients/[ingredientId]', allowed: READ_FORMULAS, otherWorkspace: 404, prepare: async (a) => ({ params: { ingredientId: await ingredientIdOf(a) } }) },
+  {
+    route: 'PATCH /api/v1/ingredients/[ingredientId]',
+    allowed: WRITE_FORMULAS,
+    otherWorkspace: 404,
+    prepare: async (a) => {
+      const ids = await starterIds(a);
+      return { params: { ingredientId: ids.water }, body: { name: 'Water', kind: 'water', solidsPct: 0 } };
+    },
+  },
+  {
+    route: 'DELETE /api/v1/ingredients/[ingredientId]',
+    allowed: WRITE_FORMULAS,
+    otherWorkspace: 404,
+    prepare: async (a) => ({ params: { ingredientId: (await starterIds(a)).honey } }),
+  },
+  { route: 'GET /api/v1/formulas', allowed: READ_FORMULAS, otherWorkspace: 'own-data' },
+  { route: 'POST /api/v1/formulas', allowed: WRITE_FORMULAS, otherWorkspace: 422, prepare: async (a) => ({ body: await strawberryJamInput(a) }) },
+  { route: 'GET /api/v1/formulas/[formulaId]', allowed: READ_FORMULAS, otherWorkspace: 404, prepare: async (a) => ({ params: { formulaId: await createFixtureFormula(a) } }) },
+  { route: 'GET /api/v1/formulas/[formulaId]/revisions', allowed: READ_FORMULAS, otherWorkspace: 404, prepare: async (a) => ({ params: { formulaId: await createFixtureFormula(a) } }) },
+  {
+    route: 'POST /api/v1/formulas/[formulaId]/revisions',
+    allowed: WRITE_FORMULAS,
+    otherWorkspace: 404,
+    prepare: async (a) => {
+      const input = await strawberryJamInput(a);
+      return { params: { formulaId: await createFixtureFormula(a) }, body: { baseRevision: 1, settings: input.settings, lines: input.lines, note: 'matrix' } };
+    },
+  },
+  {
+    route: 'GET /api/v1/formulas/[formulaId]/revisions/[number]',
+    allowed: READ_FORMULAS,
+    otherWorkspace: 404,
+    prepare: async (a) => ({ params: { formulaId: await createFixtureFormula(a), number: '1' } }),
+  },
+  {
+    route: 'POST /api/v1/calc/batch',
+    allowed: STAFF,
+    // Workspace A's ingredient ids mean nothing elsewhere: 422 naming the line, never A's data.
+    otherWorkspace: 422,
+    prepare: async (a) => {
+      const input = await strawberryJamInput(a);
+      return { body: { settings: input.settings, lines: input.lines } };
+    },
+  },
+);
+
 /** next-auth's own endpoints: public by nature, and tested through sign-in. */
 export const EXEMPT_ROUTES = ['GET /api/auth/[...nextauth]', 'POST /api/auth/[...nextauth]'];
 
@@ -102,9 +164,11 @@ export interface ActionCase {
   /** "lib/<feature>/actions.ts#exportName" */
   action: string;
   allowed: Role[] | 'public';
-  otherWorkspace: 404 | 'own-data' | 'public';
+  otherWorkspace: 404 | 422 | 'own-data' | 'public';
   /** Arguments for a call against workspace A. */
-  args: (a: WorkspaceFixture) => unknown[];
+  args?: (a: WorkspaceFixture) => unknown[];
+  /** The same, when building them needs the database. */
+  argsAsync?: (a: WorkspaceFixture) => Promise<unknown[]>;
 }
 
 function form(fields: Record<string, string>): FormData {
@@ -126,3 +190,23 @@ export const ACTION_CASES: ActionCase[] = [
   },
   { action: 'lib/workspaces/actions.ts#switchWorkspaceAction', allowed: ALL, otherWorkspace: 404, args: (a) => [a.workspaceId] },
 ];
+
+ACTION_CASES.push(
+  { action: 'lib/ingredients/actions.ts#saveIngredientAction', allowed: WRITE_FORMULAS, otherWorkspace: 'own-data', args: () => [null, CUSTOM_INGREDIENT] },
+  {
+    action: 'lib/ingredients/actions.ts#archiveIngredientAction',
+    allowed: WRITE_FORMULAS,
+    otherWorkspace: 404,
+    argsAsync: async (a) => [(await starterIds(a)).invert_syrup, true],
+  },
+  { action: 'lib/formulas/actions.ts#createFormulaAction', allowed: WRITE_FORMULAS, otherWorkspace: 422, argsAsync: async (a) => [await strawberryJamInput(a)] },
+  {
+    action: 'lib/formulas/actions.ts#reviseFormulaAction',
+    allowed: WRITE_FORMULAS,
+    otherWorkspace: 404,
+    argsAsync: async (a) => {
+      const input = await strawberryJamInput(a);
+      return [await createFixtureFormula(a), { baseRevision: 1, settings: input.settings, lines: input.lines }];
+    },
+  },
+);

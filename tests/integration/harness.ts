@@ -11,7 +11,8 @@ import { Membership, User, Workspace, ApiToken } from '@/entities';
 import { hashPassword } from '@/lib/passwords';
 import { hashSecret, newSecret } from '@/lib/secrets';
 import { API_TOKEN_PREFIX } from '@/lib/auth';
-import { ROLES, type Role } from '@/lib/permissions';
+import { ROLES, type Actor, type Role } from '@/lib/permissions';
+import { addStarterLibrary } from '@/lib/ingredients/mutations';
 
 // Server actions read the request through next/headers; tests set it per call.
 const requestState = vi.hoisted(() => ({ headers: new Headers(), setCookies: [] as Array<{ name: string; value: string }> }));
@@ -67,6 +68,7 @@ export async function createWorkspace(label = 'Test kitchen'): Promise<Workspace
   });
   // Ids are assigned on flush.
   await em.flush();
+  await addStarterLibrary(em, workspace.id);
   const people = {} as Record<Role, Person>;
   for (const c of created) {
     people[c.role] = { userId: c.user.id, email: c.email, role: c.role, token: c.token, sessionCookie: await sessionCookieFor(c.user.id) };
@@ -144,4 +146,13 @@ export async function waitForMail(to: string, timeoutMs = 5000) {
     await new Promise((r) => setTimeout(r, 100));
   }
   throw new Error(`no mail to ${to} within ${timeoutMs} ms`);
+}
+
+/** The actor a feature function would receive for this person (for setting up records directly). */
+export function actorOf(fx: WorkspaceFixture, role: Role): Actor {
+  const p = fx.people[role];
+  return {
+    userId: p.userId, email: p.email, name: `${role} person`, workspaceId: fx.workspaceId, workspaceName: fx.name,
+    role, via: 'session', massUnits: 'metric', temperatureUnit: 'C',
+  };
 }

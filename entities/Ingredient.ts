@@ -1,0 +1,44 @@
+import { defineEntity, type InferEntity } from '@mikro-orm/core';
+import { randomUUID } from 'node:crypto';
+import { Workspace } from './Workspace';
+import { User } from './User';
+import {
+  ACID_TYPES, EU_FRUIT_GROUPS, INGREDIENT_KINDS, PECTIN_LEVELS, PECTIN_TYPES, SWEETENER_TYPES, US_FRUIT_GROUPS,
+} from '../lib/ingredients/schema';
+
+/**
+ * One entry of a workspace's ingredient library. Starter entries carry a handbook value
+ * (`typicalKey` + `source`); once a user edits one it is marked edited and the source is cleared.
+ */
+export const Ingredient = defineEntity({
+  name: 'Ingredient',
+  tableName: 'ingredients',
+  properties: (p) => ({
+    id: p.uuid().primary().onCreate(() => randomUUID()),
+    workspace: p.manyToOne(Workspace),
+    name: p.string().length(120),
+    kind: p.enum([...INGREDIENT_KINDS]),
+    solidsPct: p.double().$type<number>(),
+    phMin: p.double().$type<number>().nullable(),
+    phMax: p.double().$type<number>().nullable(),
+    acidPct: p.double().$type<number>().nullable(),
+    pectinLevel: p.enum([...PECTIN_LEVELS]).nullable(),
+    euFruitGroup: p.enum([...EU_FRUIT_GROUPS]).nullable(),
+    usFruitGroup: p.enum([...US_FRUIT_GROUPS]).nullable(),
+    pectinType: p.enum([...PECTIN_TYPES]).nullable(),
+    pectinGrade: p.double().$type<number>().nullable(),
+    sweetenerType: p.enum([...SWEETENER_TYPES]).nullable(),
+    acidType: p.enum([...ACID_TYPES]).nullable(),
+    calciumSource: p.boolean().default(false),
+    notes: p.text().nullable(),
+    origin: p.enum(['typical', 'edited', 'custom']),
+    typicalKey: p.string().length(60).nullable(),
+    source: p.text().nullable(),
+    archivedAt: p.datetime().nullable(),
+    updatedBy: p.manyToOne(User).nullable(),
+    createdAt: p.datetime().onCreate(() => new Date()),
+    updatedAt: p.datetime().onCreate(() => new Date()).onUpdate(() => new Date()),
+  }),
+  indexes: [{ properties: ['workspace', 'name'] }],
+});
+export type IngredientEntity = InferEntity<typeof Ingredient>;

@@ -1,0 +1,27 @@
+/** The stateless batch calculator behind POST /api/v1/calc/batch. */
+import { ValidationFailed, type FieldErrors } from '@/lib/api/errors';
+import type { BatchComputation, IngredientComposition } from '@/lib/chemistry';
+import { ingredientsByIds } from '@/lib/ingredients/queries';
+import type { Actor } from '@/lib/permissions';
+import { chemistryFieldPath, computeFormula, normaliseQuantity } from './compute';
+import type { CalcBatchInput } from './schema';
+
+export async function calculateBatch(actor: Actor, input: CalcBatchInput): Promise<{ computation: BatchComputation }> {
+  const library = await ingredientsByIds(actor, input.lines.flatMap((l) => (l.ingredientId ? [l.ingredientId] : [])));
+  const fields: FieldErrors = {};
+  const lines = input.lines.map((l, i) => {
+    let ingredient: IngredientComposition | undefined;
+    if (l.ingredientId) {
+      ingredient = library.get(l.ingredientId);
+      if (!ingredient) fields[`lines.${i}.ingredientId`] = ['No such ingredient in this workspace’s library.'];
+    } else {
+      const { notes: _notes, ...composition } = l.ingredient!;
+      ingredient = Object.fromEntries(Object.entries(composition).filter(([, v]) => v != null)) as unknown as IngredientComposition;
+    }
+    return { ingredient: ingredient!, ...normaliseQuantity(l.quantity, l.unit) };
+  });
+  if (Object.keys(fields).length) throw new ValidationFailed('Some lines are not valid.', fields);
+  const outcome = computeFormula(input.settings, lines);
+  if (!outcome.ok) throw new ValidationFailed(outcome.message, { [chemistryFieldPath(outcome.field)]: [outcome.message] });
+  return { computation: outcome.computation };
+}

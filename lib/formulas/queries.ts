@@ -1,0 +1,92 @@
+import { getEm } from '@/lib/db';
+import { Formula, FormulaRevision } from '@/entities';
+import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
+import { computeFormula } from './compute';
+import type { FormulaDetail, FormulaRevisionView, FormulaSummary, FormulaSettingsInput, RevisionLine, RevisionSummary } from './schema';
+
+type RevisionRow = {
+  number: number; name: string; settings: FormulaSettingsInput; lines: RevisionLine[]; note?: string | null;
+  createdAt: Date; createdBy: { id: string; name: string }; formula: { id: string };
+  summary: RevisionSummary;
+};
+type FormulaRow = { id: string; name: string; description?: string | null; latestRevision: number; updatedAt: Date; updatedBy: { name: string } };
+
+export function toRevisionView(r: RevisionRow): FormulaRevisionView {
+  return {
+    formulaId: r.formula.id,
+    number: r.number,
+    name: r.name,
+    settings: r.settings,
+    lines: r.lines,
+    note: r.note ?? null,
+    createdAt: r.createdAt.toISOString(),
+    createdBy: { id: r.createdBy.id, name: r.createdBy.name },
+  };
+}
+
+export async function listFormulas(actor: Actor, opts: { q?: string } = {}): Promise<FormulaSummary[]> {
+  const em = await getEm();
+  const where: Record<string, unknown> = { ...inWorkspace(actor), archivedAt: null };
+  if (opts.q?.trim()) where.name = { $ilike: `%${opts.q.trim().replace(/[%_\\]/g, (c) => `\\${c}`)}%` };
+  const formulas = (await em.find(Formula, where, { populate: ['updatedBy'], orderBy: { updatedAt: 'desc' }, limit: 500 })) as unknown as FormulaRow[];
+  if (!formulas.length) return [];
+  const revisions = (await em.find(FormulaRevision, {
+    ...inWorkspace(actor),
+    $or: formulas.map((f) => ({ formula: f.id, number: f.latestRevision })),
+  })) as unknown as RevisionRow[];
+  const byFormula = new Map(revisions.map((r) => [r.formula.id, r]));
+  return formulas.flatMap((f) => {
+    const r = byFormula.get(f.id);
+    if (!r) return [];
+    return [{
+      id: f.id,
+      name: f.name,
+      productClass: r.settings.productClass,
+      ruleSet: r.settings.ruleSet,
+      revision: f.latestRevision,
+      updatedAt: f.updatedAt.toISOString(),
+      updatedByName: f.updatedBy.name,
+      complianceOverall: r.summary.complianceOverall,
+      dangerCount: r.summary.dangerCount,
+      warningCount: r.summary.warningCount,
+      finishedMassG: r.summary.finishedMassG,
+    }];
+  });
+}
+
+async function loadFormula(actor: Actor, formulaId: string): Promise<FormulaRow> {
+  const em = await getEm();
+  const f = await em.findOne(Formula, { ...inWorkspace(actor), id: formulaId, archivedAt: null }, { populate: ['updatedBy'] });
+  if (!f) throw notFound('formula');
+  return f as unknown as FormulaRow;
+}
+
+export async function getRevision(actor: Actor, formulaId: string, number: number): Promise<FormulaRevisionView> {
+  const em = await getEm();
+  const r = await em.findOne(FormulaRevision, { ...inWorkspace(actor), formula: formulaId, number }, { populate: ['createdBy'] });
+  if (!r) throw notFound('revision');
+  return toRevisionView(r as unknown as RevisionRow);
+}
+
+/** The formula at its latest revision, with the full computation redone from the stored snapshot. */
+export async function getFormula(actor: Actor, formulaId: string): Promise<FormulaDetail> {
+  const f = await loadFormula(actor, formulaId);
+  const current = await getRevision(actor, formulaId, f.latestRevision);
+  const outcome = computeFormula(current.settings, current.lines);
+  return {
+    id: f.id,
+    name: f.name,
+    description: f.description ?? null,
+    current,
+    computation: outcome.ok ? outcome.computation : null,
+    computationError: outcome.ok ? null : outcome.message,
+  };
+}
+
+/** Newest first. */
+export async function listRevisions(actor: Actor, formulaId: string): Promise<FormulaRevisionView[]> {
+  await loadFormula(actor, formulaId);
+  const em = await getEm();
+  const rows = await em.find(FormulaRevision, { ...inWorkspace(actor), formula: formulaId }, { populate: ['createdBy'], orderBy: { number: 'desc' } });
+  return (rows as unknown as RevisionRow[]).map(toRevisionView);
+}

@@ -1,0 +1,150 @@
+/** Formulas and their revisions: zod schemas shared by the editor, the server actions and the API. */
+import { z } from 'zod';
+import type { BatchComputation, IngredientComposition } from '@/lib/chemistry';
+import { ingredientInputSchema } from '@/lib/ingredients/schema';
+
+export const PRODUCT_CLASSES = ['jam', 'extra_jam', 'jelly', 'marmalade', 'reduced_sugar_spread'] as const;
+export const RULE_SETS = ['eu', 'us', 'codex'] as const;
+/** Units a line may be entered in. Storage keeps grams ('g') or percent of fruit ('pct_fruit'). */
+export const LINE_UNITS = ['g', 'kg', 'lb', 'oz', 'pct_fruit'] as const;
+
+export const PRODUCT_CLASS_LABELS: Record<(typeof PRODUCT_CLASSES)[number], string> = {
+  jam: 'Jam',
+  extra_jam: 'Extra jam',
+  jelly: 'Jelly',
+  marmalade: 'Marmalade',
+  reduced_sugar_spread: 'Reduced-sugar spread',
+};
+export const RULE_SET_LABELS: Record<(typeof RULE_SETS)[number], string> = {
+  eu: 'EU (Directive 2001/113/EC, as amended)',
+  us: 'US (21 CFR 150)',
+  codex: 'Codex (CXS 296-2009)',
+};
+
+const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'Use a date like 2026-06-14.').refine((s) => !Number.isNaN(Date.parse(s)), 'Not a real date.');
+
+export const formulaSettingsSchema = z
+  .object({
+    productClass: z.enum(PRODUCT_CLASSES, { error: 'Choose a product class.' }),
+    ruleSet: z.enum(RULE_SETS, { error: 'Choose a market rule set.' }),
+    ruleDate: isoDate,
+    targetSolidsPct: z.number({ error: 'Target solids must be a number.' }).gt(0, 'Target solids must be above 0 %.').lt(100, 'Target solids must be below 100 %.'),
+    jarNetFillG: z.number({ error: 'Jar fill must be a number.' }).positive('Jar fill must be more than 0 g.').max(50_000, 'Jar fill must be at most 50 kg.'),
+    altitudeM: z.number({ error: 'Altitude must be a number.' }).min(-500, 'Altitude must be at least −500 m.').max(5000, 'Altitude must be at most 5000 m.').nullable().optional(),
+    measuredWaterBoilingC: z.number({ error: 'Boiling point must be a number.' }).min(60, 'A water boiling point below 60 °C is not plausible.').max(105, 'A water boiling point above 105 °C is not plausible.').nullable().optional(),
+    plannedPh: z.number({ error: 'pH must be a number.' }).min(1, 'pH must be at least 1.').max(8, 'pH must be at most 8.').nullable().optional(),
+  })
+  .strict();
+
+export const formulaLineSchema = z
+  .object({
+    ingredientId: z.uuid('Choose an ingredient from the library.'),
+    quantity: z.number({ error: 'Quantity must be a number.' }).positive('Quantity must be more than 0.').max(10_000_000, 'Quantity is implausibly large.'),
+    unit: z.enum(LINE_UNITS, { error: 'Use g, kg, lb, oz or % of fruit.' }),
+  })
+  .strict();
+
+const linesSchema = z.array(formulaLineSchema).min(1, 'Add at least one line.').max(60, 'A formula has at most 60 lines.');
+const nameSchema = z.string().trim().min(1, 'Give the formula a name.').max(120, 'Use at most 120 characters.');
+const noteSchema = z.string().trim().max(500, 'Use at most 500 characters.');
+
+export const createFormulaSchema = z
+  .object({
+    name: nameSchema,
+    description: z.string().trim().max(2000).optional(),
+    settings: formulaSettingsSchema,
+    lines: linesSchema,
+    note: noteSchema.optional(),
+  })
+  .strict();
+
+export const reviseFormulaSchema = z
+  .object({
+    /** The revision the editor started from; a newer one on the server means someone else saved (409). */
+    baseRevision: z.number().int().positive(),
+    /** Save on top of a newer revision anyway; the other person's revision stays in the history. */
+    force: z.boolean().optional(),
+    name: nameSchema.optional(),
+    settings: formulaSettingsSchema,
+    lines: linesSchema,
+    note: noteSchema.optional(),
+  })
+  .strict();
+
+/** The stateless calculator takes library ingredients by id or a composition inline. */
+export const calcBatchSchema = z
+  .object({
+    settings: formulaSettingsSchema,
+    lines: z
+      .array(
+        z
+          .object({
+            ingredientId: z.uuid().optional(),
+            ingredient: ingredientInputSchema.optional(),
+            quantity: formulaLineSchema.shape.quantity,
+            unit: formulaLineSchema.shape.unit,
+          })
+          .strict()
+          .refine((l) => (l.ingredientId ? 1 : 0) + (l.ingredient ? 1 : 0) === 1, 'Give either ingredientId or ingredient, not both.'),
+      )
+      .min(1, 'Add at least one line.')
+      .max(60),
+  })
+  .strict();
+
+export type FormulaSettingsInput = z.infer<typeof formulaSettingsSchema>;
+export type FormulaLineInputData = z.infer<typeof formulaLineSchema>;
+export type CreateFormulaInput = z.infer<typeof createFormulaSchema>;
+export type ReviseFormulaInput = z.infer<typeof reviseFormulaSchema>;
+export type CalcBatchInput = z.infer<typeof calcBatchSchema>;
+
+/** A stored line: the ingredient as it was when the revision was saved, so history never shifts. */
+export interface RevisionLine {
+  ingredientId: string;
+  ingredient: IngredientComposition;
+  quantity: number;
+  unit: 'g' | 'pct_fruit';
+}
+
+/** Headline results stored with each revision so lists need not recompute. */
+export interface RevisionSummary {
+  complianceOverall: string | null;
+  dangerCount: number;
+  warningCount: number;
+  finishedMassG: number | null;
+}
+
+export interface FormulaRevisionView {
+  formulaId: string;
+  number: number;
+  name: string;
+  settings: FormulaSettingsInput;
+  lines: RevisionLine[];
+  note: string | null;
+  createdAt: string;
+  createdBy: { id: string; name: string };
+}
+
+export interface FormulaSummary {
+  id: string;
+  name: string;
+  productClass: (typeof PRODUCT_CLASSES)[number];
+  ruleSet: (typeof RULE_SETS)[number];
+  revision: number;
+  updatedAt: string;
+  updatedByName: string;
+  /** From the current revision's computation; null when it cannot be computed. */
+  complianceOverall: string | null;
+  dangerCount: number;
+  warningCount: number;
+  finishedMassG: number | null;
+}
+
+export interface FormulaDetail {
+  id: string;
+  name: string;
+  description: string | null;
+  current: FormulaRevisionView;
+  computation: BatchComputation | null;
+  computationError: string | null;
+}

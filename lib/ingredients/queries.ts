@@ -1,0 +1,65 @@
+import { getEm } from '@/lib/db';
+import { Ingredient } from '@/entities';
+import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
+import type { IngredientComposition } from '@/lib/chemistry';
+import type { IngredientListQuery, IngredientView } from './schema';
+
+type Row = Record<string, unknown> & {
+  id: string; name: string; kind: IngredientView['kind']; solidsPct: number; origin: IngredientView['origin'];
+  updatedAt: Date; archivedAt?: Date | null; updatedBy?: { name: string } | null;
+};
+
+const OPTIONAL_KEYS = ['phMin', 'phMax', 'acidPct', 'pectinLevel', 'euFruitGroup', 'usFruitGroup', 'pectinType', 'pectinGrade', 'sweetenerType', 'acidType'] as const;
+
+/** The composition the chemistry module reads, without database nulls. */
+export function compositionOf(row: Row): IngredientComposition {
+  const c: Record<string, unknown> = { kind: row.kind, name: row.name, solidsPct: row.solidsPct };
+  for (const key of OPTIONAL_KEYS) if (row[key] != null) c[key] = row[key];
+  if (row.calciumSource) c.calciumSource = true;
+  return c as unknown as IngredientComposition;
+}
+
+export function toIngredientView(row: Row): IngredientView {
+  return {
+    ...compositionOf(row),
+    id: row.id,
+    origin: row.origin,
+    source: (row.source as string | null) ?? null,
+    notes: (row.notes as string | null) ?? null,
+    archived: !!row.archivedAt,
+    updatedAt: row.updatedAt.toISOString(),
+    updatedByName: row.updatedBy?.name ?? null,
+  };
+}
+
+export async function listIngredients(actor: Actor, query: IngredientListQuery = {}): Promise<IngredientView[]> {
+  const em = await getEm();
+  const where: Record<string, unknown> = { ...inWorkspace(actor) };
+  if (query.archived === 'only') where.archivedAt = { $ne: null };
+  else if (query.archived !== 'include') where.archivedAt = null;
+  if (query.kind) where.kind = query.kind;
+  if (query.q?.trim()) where.name = { $ilike: `%${query.q.trim().replace(/[%_\\]/g, (c) => `\\${c}`)}%` };
+  const sort = query.sort ?? 'name';
+  const dir = query.dir ?? (sort === 'updatedAt' ? 'desc' : 'asc');
+  const rows = await em.find(Ingredient, where, {
+    populate: ['updatedBy'],
+    orderBy: sort === 'name' ? { name: dir } : { [sort]: dir, name: 'asc' },
+    limit: 1000,
+  });
+  return (rows as unknown as Row[]).map(toIngredientView);
+}
+
+export async function getIngredient(actor: Actor, id: string): Promise<IngredientView> {
+  const em = await getEm();
+  const row = await em.findOne(Ingredient, { ...inWorkspace(actor), id }, { populate: ['updatedBy'] });
+  if (!row) throw notFound('ingredient');
+  return toIngredientView(row as unknown as Row);
+}
+
+/** Loads the named ingredients of the actor's workspace; ids of other workspaces simply do not match. */
+export async function ingredientsByIds(actor: Actor, ids: string[]): Promise<Map<string, IngredientView>> {
+  if (!ids.length) return new Map();
+  const em = await getEm();
+  const rows = await em.find(Ingredient, { ...inWorkspace(actor), id: { $in: [...new Set(ids)] } });
+  return new Map((rows as unknown as Row[]).map((r) => [r.id, toIngredientView(r)]));
+}
