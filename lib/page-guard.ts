@@ -4,6 +4,7 @@
  */
 import { redirect, forbidden, notFound } from 'next/navigation';
 import { currentActor } from '@/lib/auth';
+import { isUuid } from '@/lib/ids';
 import { authorize, AccessDenied, type Actor, type Permission } from '@/lib/permissions';
 
 export async function requirePage(permission: Permission): Promise<Actor> {
@@ -27,4 +28,10 @@ export async function orNotFound<T>(load: Promise<T>): Promise<T> {
     if (err instanceof AccessDenied && err.status === 404) notFound();
     throw err;
   }
+}
+
+/** A path id that is not a UUID is simply not found. */
+export function pageId(value: string): string {
+  if (!isUuid(value)) notFound();
+  return value;
 }

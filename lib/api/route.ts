@@ -7,6 +7,7 @@ import type { z } from 'zod';
 import { actorFromHeaders } from '@/lib/auth';
 import { authorize, notFound, type Actor, type Permission } from '@/lib/permissions';
 import { env } from '@/lib/env';
+import { isUuid } from '@/lib/ids';
 import { logger } from '@/lib/log';
 import { ApiError, describeError } from '@/lib/api/errors';
 
@@ -78,10 +79,8 @@ async function readBody<S extends z.ZodType>(req: Request, schema: S): Promise<z
   return parsed.data;
 }
 
-const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
-
 /** A malformed id in the path can match nothing, so it is a plain 404 like any unknown id. */
 export function uuidParam(value: string | undefined, what: string): string {
-  if (!value || !UUID.test(value)) throw notFound(what);
+  if (!isUuid(value)) throw notFound(what);
   return value;
 }

@@ -1,7 +1,7 @@
 /** The stateless batch calculator behind POST /api/v1/calc/batch. */
 import { ValidationFailed, type FieldErrors } from '@/lib/api/errors';
 import type { BatchComputation, IngredientComposition } from '@/lib/chemistry';
-import { ingredientsByIds } from '@/lib/ingredients/queries';
+import { compositionOf, ingredientsByIds } from '@/lib/ingredients/queries';
 import type { Actor } from '@/lib/permissions';
 import { chemistryFieldPath, computeFormula, normaliseQuantity } from './compute';
 import type { CalcBatchInput } from './schema';
@@ -12,11 +12,11 @@ export async function calculateBatch(actor: Actor, input: CalcBatchInput): Promi
   const lines = input.lines.map((l, i) => {
     let ingredient: IngredientComposition | undefined;
     if (l.ingredientId) {
-      ingredient = library.get(l.ingredientId);
+      const found = library.get(l.ingredientId);
+      ingredient = found && compositionOf(found);
       if (!ingredient) fields[`lines.${i}.ingredientId`] = ['No such ingredient in this workspace’s library.'];
     } else {
-      const { notes: _notes, ...composition } = l.ingredient!;
-      ingredient = Object.fromEntries(Object.entries(composition).filter(([, v]) => v != null)) as unknown as IngredientComposition;
+      ingredient = compositionOf(l.ingredient!);
     }
     return { ingredient: ingredient!, ...normaliseQuantity(l.quantity, l.unit) };
   });

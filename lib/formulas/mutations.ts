@@ -4,7 +4,7 @@ import { getEm } from '@/lib/db';
 import { Formula, FormulaRevision, User } from '@/entities';
 import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
 import { Conflict, ValidationFailed, type FieldErrors } from '@/lib/api/errors';
-import { ingredientsByIds } from '@/lib/ingredients/queries';
+import { compositionOf, ingredientsByIds } from '@/lib/ingredients/queries';
 import { chemistryFieldPath, computeFormula, normaliseQuantity } from './compute';
 import type { CreateFormulaInput, FormulaLineInputData, FormulaSettingsInput, ReviseFormulaInput, RevisionLine } from './schema';
 
@@ -22,10 +22,9 @@ export async function prepareRevision(actor: Actor, settings: FormulaSettingsInp
     } else if (ingredient.archived) {
       fields[`lines.${i}.ingredientId`] = [`${ingredient.name} is archived; restore it or pick another ingredient.`];
     }
-    const { id: _id, origin: _o, source: _s, notes: _n, archived: _a, updatedAt: _u, updatedByName: _b, ...composition } = ingredient ?? ({} as never);
     return {
       ingredientId: line.ingredientId,
-      ingredient: composition,
+      ingredient: ingredient ? compositionOf(ingredient) : ({} as never),
       ...normaliseQuantity(line.quantity, line.unit),
     };
   });

@@ -11,10 +11,11 @@ type Row = Record<string, unknown> & {
 
 const OPTIONAL_KEYS = ['phMin', 'phMax', 'acidPct', 'pectinLevel', 'euFruitGroup', 'usFruitGroup', 'pectinType', 'pectinGrade', 'sweetenerType', 'acidType'] as const;
 
-/** The composition the chemistry module reads, without database nulls. */
-export function compositionOf(row: Row): IngredientComposition {
+/** The composition the chemistry module reads, without nulls or library bookkeeping. */
+export function compositionOf(row: { kind: string; name: string; solidsPct: number; calciumSource?: boolean | null }): IngredientComposition {
+  const source = row as Record<string, unknown>;
   const c: Record<string, unknown> = { kind: row.kind, name: row.name, solidsPct: row.solidsPct };
-  for (const key of OPTIONAL_KEYS) if (row[key] != null) c[key] = row[key];
+  for (const key of OPTIONAL_KEYS) if (source[key] != null) c[key] = source[key];
   if (row.calciumSource) c.calciumSource = true;
   return c as unknown as IngredientComposition;
 }

@@ -88,14 +88,12 @@ export function authHeaders(caller: Caller, write = false): Headers {
   return h;
 }
 
-// eslint-disable-next-line @typescript-eslint/no-explicit-any -- each route declares its own params type
 type Handler = (req: Request, ctx: { params: Promise<any> }) => Promise<Response>;
 
 /** Calls a route handler the way Next.js does, and returns status + parsed JSON. */
 export async function callRoute(
   handler: Handler,
   opts: { method: string; path: string; caller: Caller; params?: Record<string, string>; body?: unknown; headers?: Record<string, string> },
-// eslint-disable-next-line @typescript-eslint/no-explicit-any -- tests read arbitrary JSON shapes
 ): Promise<{ status: number; body: any }> {
   const write = opts.method !== 'GET';
   const headers = authHeaders(opts.caller, write);

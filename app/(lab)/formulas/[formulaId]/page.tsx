@@ -1,0 +1,53 @@
+import { requirePage, orNotFound, pageId } from '@/lib/page-guard';
+import { can } from '@/lib/permissions';
+import { getFormula } from '@/lib/formulas/queries';
+import { computeFormula } from '@/lib/formulas/compute';
+import { listIngredients } from '@/lib/ingredients/queries';
+import { FormulaEditor } from '@/components/formulas/FormulaEditor';
+import { FormulaHeader } from '@/components/formulas/FormulaHeader';
+import { ResultsPanel } from '@/components/formulas/ResultsPanel';
+import { FormulaPrintSheet } from '@/components/formulas/FormulaPrintSheet';
+
+export const dynamic = 'force-dynamic';
+export const metadata = { title: 'Formula' };
+
+export default async function FormulaPage({ params }: { params: Promise<{ formulaId: string }> }) {
+  const actor = await requirePage('formulas.read');
+  const formula = await orNotFound(getFormula(actor, pageId((await params).formulaId)));
+  const c = formula.current;
+
+  if (!can(actor.role, 'formulas.write')) {
+    // Reviewers read the formula and its results; they cannot save revisions.
+    return (
+      <>
+        <FormulaHeader formula={formula} active="editor" />
+        <div className="grid gap-6 xl:grid-cols-[1fr_26rem]">
+          <FormulaPrintSheet formula={formula} massUnits={actor.massUnits} temperatureUnit={actor.temperatureUnit} printedAt={new Date().toISOString()} />
+          <ResultsPanel outcome={computeFormula(c.settings, c.lines)} massUnits={actor.massUnits} temperatureUnit={actor.temperatureUnit} />
+        </div>
+      </>
+    );
+  }
+
+  // Archived ingredients appear only where a current line still uses them (the server refuses them on save).
+  const used = new Set(c.lines.map((l) => l.ingredientId));
+  const library = (await listIngredients(actor, { archived: 'include' })).filter((i) => !i.archived || used.has(i.id));
+  return (
+    <>
+      <FormulaHeader formula={formula} active="editor" />
+      <FormulaEditor
+        mode="revise"
+        initial={{
+          formulaId: formula.id,
+          name: formula.name,
+          revision: c.number,
+          settings: c.settings,
+          lines: c.lines.map((l) => ({ ingredientId: l.ingredientId, quantity: l.quantity, unit: l.unit })),
+        }}
+        ingredients={library}
+        massUnits={actor.massUnits}
+        temperatureUnit={actor.temperatureUnit}
+      />
+    </>
+  );
+}

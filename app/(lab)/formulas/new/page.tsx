@@ -1,0 +1,24 @@
+import { requirePage } from '@/lib/page-guard';
+import { listIngredients } from '@/lib/ingredients/queries';
+import { FormulaEditor } from '@/components/formulas/FormulaEditor';
+import { PageHeader } from '@/components/ui/Card';
+
+export const dynamic = 'force-dynamic';
+export const metadata = { title: 'New formula' };
+
+export default async function NewFormulaPage() {
+  const actor = await requirePage('formulas.write');
+  const ingredients = await listIngredients(actor);
+  return (
+    <>
+      <PageHeader title="New formula" lead="Pick ingredients from your library; the results update as you type. Saving creates revision 1." />
+      <FormulaEditor
+        mode="create"
+        ingredients={ingredients}
+        massUnits={actor.massUnits}
+        temperatureUnit={actor.temperatureUnit}
+        defaults={{ ruleDate: new Date().toISOString().slice(0, 10), targetSolidsPct: 65, jarNetFillG: 340 }}
+      />
+    </>
+  );
+}

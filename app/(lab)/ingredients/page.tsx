@@ -1,0 +1,31 @@
+import Link from 'next/link';
+import { requirePage } from '@/lib/page-guard';
+import { can } from '@/lib/permissions';
+import { listIngredients } from '@/lib/ingredients/queries';
+import { ingredientListQuerySchema } from '@/lib/ingredients/schema';
+import { IngredientTable } from '@/components/ingredients/IngredientTable';
+import { PageHeader } from '@/components/ui/Card';
+import { buttonClass } from '@/components/ui/Button';
+
+export const dynamic = 'force-dynamic';
+export const metadata = { title: 'Ingredients' };
+
+export default async function IngredientsPage({ searchParams }: { searchParams: Promise<Record<string, string | undefined>> }) {
+  const actor = await requirePage('ingredients.read');
+  const raw = await searchParams;
+  // An unusable sort or filter in the URL falls back to the default list rather than an error page.
+  const parsed = ingredientListQuerySchema.safeParse(raw);
+  const query = parsed.success ? parsed.data : { q: typeof raw.q === 'string' ? raw.q.slice(0, 100) : undefined };
+  const rows = await listIngredients(actor, query);
+  const canEdit = can(actor.role, 'ingredients.write');
+  return (
+    <>
+      <PageHeader
+        title="Ingredients"
+        lead="Your workspace’s library. Handbook typical values are marked with their source; measure your own lots and make the values yours."
+        actions={canEdit ? <Link href="/ingredients/new" className={buttonClass('primary')}>Add an ingredient</Link> : null}
+      />
+      <IngredientTable rows={rows} query={query} canEdit={canEdit} massUnits={actor.massUnits} />
+    </>
+  );
+}

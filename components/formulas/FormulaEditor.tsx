@@ -1,0 +1,510 @@
+'use client';
+
+import { useEffect, useMemo, useRef, useState } from 'react';
+import { useRouter } from 'next/navigation';
+import type { UnitPreference } from '@/lib/chemistry';
+import { createFormulaAction, reviseFormulaAction } from '@/lib/formulas/actions';
+import {
+  createFormulaSchema,
+  PRODUCT_CLASS_LABELS,
+  PRODUCT_CLASSES,
+  reviseFormulaSchema,
+  RULE_SET_LABELS,
+  RULE_SETS,
+  type FormulaSettingsInput,
+} from '@/lib/formulas/schema';
+import type { IngredientView } from '@/lib/ingredients/schema';
+import { Button } from '@/components/ui/Button';
+import { Card } from '@/components/ui/Card';
+import { Field, FieldErrorText, SelectField } from '@/components/ui/Field';
+import { Notice } from '@/components/ui/Notice';
+import { BrixHelper } from './BrixHelper';
+import { ResultsPanel } from './ResultsPanel';
+import { ScalePanel } from './ScalePanel';
+import { LineRow } from './editor/LineRow';
+import { UnitToggle } from './editor/UnitToggle';
+import {
+  altitudeScale,
+  computeEditor,
+  convertLineForSystem,
+  convertSettingsForSystem,
+  convertSettingsForTemperature,
+  draftFromText,
+  EMPTY_FIELD_ERRORS,
+  ingredientIndex,
+  initialSettingsDraft,
+  issuesToFieldErrors,
+  jarFillScale,
+  lineDraftFromStored,
+  linesForSave,
+  mapFieldErrors,
+  moveItem,
+  newLineDraft,
+  settingsFromDraft,
+  settingsTextToDraft,
+  showMass,
+  temperatureScale,
+  type LineDraft,
+  type MappedFieldErrors,
+  type MeasuredDraft,
+  type SettingsDraft,
+  type TemperatureUnit,
+} from './editor-state';
+
+export interface FormulaEditorProps {
+  mode: 'create' | 'revise';
+  initial?: {
+    formulaId: string;
+    name: string;
+    revision: number;
+    settings: FormulaSettingsInput;
+    lines: Array<{ ingredientId: string; quantity: number; unit: 'g' | 'pct_fruit' }>;
+  };
+  /** Workspace library, not archived. */
+  ingredients: IngredientView[];
+  massUnits: UnitPreference;
+  temperatureUnit: TemperatureUnit;
+  /** Settings for a new formula. */
+  defaults?: Partial<FormulaSettingsInput>;
+}
+
+type SaveStatus =
+  | { kind: 'idle' }
+  | { kind: 'saving' }
+  | { kind: 'saved'; revision: number }
+  | { kind: 'error'; message: string }
+  | { kind: 'conflict'; message: string };
+
+const SYSTEM_OPTIONS = [
+  { value: 'metric', label: 'Metric' },
+  { value: 'imperial', label: 'Imperial' },
+] as const;
+const TEMPERATURE_OPTIONS = [
+  { value: 'C', label: '°C' },
+  { value: 'F', label: '°F' },
+] as const;
+
+const productClassOptions = PRODUCT_CLASSES.map((c) => ({ value: c, label: PRODUCT_CLASS_LABELS[c] }));
+const ruleSetOptions = RULE_SETS.map((r) => ({ value: r, label: RULE_SET_LABELS[r] }));
+
+/** Local complaint for a number box that holds something unreadable. */
+function numberProblem(draft: MeasuredDraft): string[] {
+  return draft.base !== null && Number.isNaN(draft.base) ? ['Enter a number.'] : [];
+}
+
+/** The formula editor: settings, lines and live results; saves a new formula or a new revision. */
+export function FormulaEditor({ mode, initial, ingredients, massUnits, temperatureUnit, defaults }: FormulaEditorProps) {
+  const router = useRouter();
+  const nextKey = useRef(initial?.lines.length ?? 0);
+  const makeKey = () => `l${nextKey.current++}`;
+
+  const [system, setSystem] = useState<UnitPreference>(massUnits);
+  const [tempUnit, setTempUnit] = useState<TemperatureUnit>(temperatureUnit);
+  const [name, setName] = useState(initial?.name ?? '');
+  const [note, setNote] = useState('');
+  const [settings, setSettings] = useState<SettingsDraft>(() =>
+    initialSettingsDraft({ settings: initial?.settings ?? defaults, system: massUnits, temperatureUnit }),
+  );
+  const [lines, setLines] = useState<LineDraft[]>(() => (initial?.lines ?? []).map((l, i) => lineDraftFromStored(`l${i}`, l, massUnits)));
+  const [lastRemoved, setLastRemoved] = useState<{ line: LineDraft; index: number } | null>(null);
+  const [errors, setErrors] = useState<MappedFieldErrors>(EMPTY_FIELD_ERRORS);
+  const [status, setStatus] = useState<SaveStatus>({ kind: 'idle' });
+  const [baseRevision, setBaseRevision] = useState(initial?.revision ?? 0);
+  const [dirty, setDirty] = useState(false);
+
+  const ingredientsById = useMemo(() => ingredientIndex(ingredients), [ingredients]);
+  const computed = useMemo(() => computeEditor(settings, lines, ingredientsById), [settings, lines, ingredientsById]);
+  const settingsInput = useMemo(() => settingsFromDraft(settings), [settings]);
+
+  useEffect(() => {
+    if (!dirty) return;
+    const warn = (event: BeforeUnloadEvent) => {
+      event.preventDefault();
+      // Older browsers need returnValue set to show the prompt.
+      event.returnValue = '';
+    };
+    window.addEventListener('beforeunload', warn);
+    return () => window.removeEventListener('beforeunload', warn);
+  }, [dirty]);
+
+  const touched = () => {
+    setDirty(true);
+    if (status.kind === 'saved') setStatus({ kind: 'idle' });
+  };
+
+  const clearFieldError = (key: string) => {
+    if (!errors.fields[key]) return;
+    const fields = { ...errors.fields };
+    delete fields[key];
+    setErrors({ ...errors, fields });
+  };
+
+  function updateSettings(patch: Partial<SettingsDraft>, errorKey?: string) {
+    setSettings((s) => ({ ...s, ...patch }));
+    if (errorKey) clearFieldError(errorKey);
+    touched();
+  }
+
+  function updateLine(index: number, line: LineDraft) {
+    setLines((ls) => ls.map((l, i) => (i === index ? line : l)));
+    if (errors.lines[line.key]) {
+      const rest = { ...errors.lines };
+      delete rest[line.key];
+      setErrors({ ...errors, lines: rest });
+    }
+    touched();
+  }
+
+  function addLine() {
+    setLines((ls) => [...ls, newLineDraft(makeKey(), system)]);
+    clearFieldError('lines');
+    touched();
+  }
+
+  function removeLine(index: number) {
+    setLastRemoved({ line: lines[index], index });
+    setLines((ls) => ls.filter((_, i) => i !== index));
+    touched();
+  }
+
+  function undoRemove() {
+    if (!lastRemoved) return;
+    const { line, index } = lastRemoved;
+    // The line comes back in the unit system now on screen.
+    const restored = convertLineForSystem(line, system);
+    setLines((ls) => [...ls.slice(0, index), restored, ...ls.slice(index)]);
+    setLastRemoved(null);
+    touched();
+  }
+
+  function moveLine(index: number, offset: -1 | 1) {
+    setLines((ls) => moveItem(ls, index, offset));
+    touched();
+  }
+
+  function switchSystem(next: UnitPreference) {
+    setSystem(next);
+    setLines((ls) => ls.map((l) => convertLineForSystem(l, next)));
+    setSettings((s) => convertSettingsForSystem(s, next));
+  }
+
+  function switchTemperature(next: TemperatureUnit) {
+    setTempUnit(next);
+    setSettings((s) => convertSettingsForTemperature(s, next));
+  }
+
+  async function save(force = false) {
+    const sentKeys = lines.map((l) => l.key);
+    const trimmedNote = note.trim();
+    const common = { name, settings: settingsInput, lines: linesForSave(lines), ...(trimmedNote ? { note: trimmedNote } : {}) };
+    if (mode === 'revise' && !initial) {
+      setStatus({ kind: 'error', message: 'There is no saved formula to revise.' });
+      return;
+    }
+    const body = mode === 'create' ? common : { baseRevision, ...common, ...(force ? { force: true } : {}) };
+
+    // The shared schema catches what the server would refuse, before a round trip.
+    const check = (mode === 'create' ? createFormulaSchema : reviseFormulaSchema).safeParse(body);
+    if (!check.success) {
+      setErrors(mapFieldErrors(issuesToFieldErrors(check.error.issues), sentKeys));
+      setStatus({ kind: 'error', message: 'Some fields need attention; they are marked below.' });
+      return;
+    }
+
+    setStatus({ kind: 'saving' });
+    try {
+      const result = mode === 'create' || !initial ? await createFormulaAction(body) : await reviseFormulaAction(initial.formulaId, body);
+      if (result.ok) {
+        setErrors(EMPTY_FIELD_ERRORS);
+        setDirty(false);
+        setBaseRevision(result.data.revision);
+        setStatus({ kind: 'saved', revision: result.data.revision });
+        router.push(`/formulas/${result.data.formulaId}`);
+        router.refresh();
+        return;
+      }
+      if (result.status === 409 && mode === 'revise') {
+        setStatus({ kind: 'conflict', message: result.error });
+        return;
+      }
+      if (result.status === 422) setErrors(mapFieldErrors(result.fields, sentKeys));
+      setStatus({ kind: 'error', message: result.error });
+    } catch {
+      setStatus({ kind: 'error', message: 'The formula was not saved: the server could not be reached. Everything you typed is still here.' });
+    }
+  }
+
+  const outcome = computed.outcome;
+  const massByLineKey = new Map<string, number>();
+  if (outcome?.ok) computed.lineKeys.forEach((key, i) => massByLineKey.set(key, outcome.computation.massBalance.lines[i].massG));
+  const skipped = computed.skippedLineKeys.length;
+  const resultsNotice =
+    skipped > 0 ? `${skipped} incomplete line${skipped === 1 ? ' is' : 's are'} left out until it has an ingredient and a quantity.` : undefined;
+
+  const jarScale = jarFillScale(system);
+  const altScale = altitudeScale(system);
+  const bpScale = temperatureScale(tempUnit);
+  const fieldErrors = (key: string, draft?: MeasuredDraft) => {
+    const list = [...(draft ? numberProblem(draft) : []), ...(errors.fields[key] ?? [])];
+    return list.length ? list : undefined;
+  };
+  const saving = status.kind === 'saving';
+
+  return (
+    <div className="space-y-6">
+      <div className="flex flex-wrap items-center gap-3">
+        <UnitToggle label="Mass units" value={system} options={SYSTEM_OPTIONS} onChange={switchSystem} />
+        <UnitToggle label="Temperature unit" value={tempUnit} options={TEMPERATURE_OPTIONS} onChange={switchTemperature} />
+        <p className="text-xs text-rind-500">Setwell keeps grams and °C; these only change what you see and type.</p>
+      </div>
+
+      <div className="grid gap-6 lg:grid-cols-[minmax(0,1fr)_minmax(20rem,26rem)]">
+        <form
+          className="space-y-6"
+          noValidate
+          aria-label={mode === 'create' ? 'New formula' : 'Revise formula'}
+          onSubmit={(e) => {
+            e.preventDefault();
+            void save(false);
+          }}
+        >
+          <Card title="Formula">
+            <Field
+              label="Name"
+              name="name"
+              id="formula-name"
+              value={name}
+              maxLength={120}
+              onChange={(e) => {
+                setName(e.target.value);
+                clearFieldError('name');
+                touched();
+              }}
+              errors={errors.fields.name}
+            />
+          </Card>
+
+          <Card title="Settings">
+            <div className="grid gap-4 sm:grid-cols-2">
+              <SelectField
+                label="Product class"
+                name="settings.productClass"
+                id="setting-productClass"
+                value={settings.productClass}
+                options={productClassOptions}
+                onChange={(e) => updateSettings({ productClass: e.target.value as SettingsDraft['productClass'] }, 'settings.productClass')}
+                errors={errors.fields['settings.productClass']}
+              />
+              <SelectField
+                label="Market rule set"
+                name="settings.ruleSet"
+                id="setting-ruleSet"
+                value={settings.ruleSet}
+                options={ruleSetOptions}
+                onChange={(e) => updateSettings({ ruleSet: e.target.value as SettingsDraft['ruleSet'] }, 'settings.ruleSet')}
+                errors={errors.fields['settings.ruleSet']}
+              />
+              <Field
+                label="Rule date (production or labelling)"
+                name="settings.ruleDate"
+                id="setting-ruleDate"
+                type="date"
+                value={settings.ruleDate}
+                onChange={(e) => updateSettings({ ruleDate: e.target.value }, 'settings.ruleDate')}
+                errors={errors.fields['settings.ruleDate']}
+                hint="Selects the edition of the rules, e.g. the EU minimums that change on 14 June 2026."
+              />
+              <Field
+                label="Target final soluble solids (%)"
+                name="settings.targetSolidsPct"
+                id="setting-targetSolidsPct"
+                inputMode="decimal"
+                value={settings.targetSolids.text}
+                onChange={(e) => updateSettings({ targetSolids: settingsTextToDraft(e.target.value) }, 'settings.targetSolidsPct')}
+                errors={fieldErrors('settings.targetSolidsPct', settings.targetSolids)}
+              />
+              <Field
+                label={`Jar net fill (${jarScale.unitLabel})`}
+                name="settings.jarNetFillG"
+                id="setting-jarNetFill"
+                inputMode="decimal"
+                value={settings.jarFill.text}
+                onChange={(e) => updateSettings({ jarFill: draftFromText(e.target.value, jarScale) }, 'settings.jarNetFillG')}
+                errors={fieldErrors('settings.jarNetFillG', settings.jarFill)}
+              />
+              <Field
+                label="Planned pH (optional)"
+                name="settings.plannedPh"
+                id="setting-plannedPh"
+                inputMode="decimal"
+                value={settings.plannedPh.text}
+                onChange={(e) => updateSettings({ plannedPh: settingsTextToDraft(e.target.value) }, 'settings.plannedPh')}
+                errors={fieldErrors('settings.plannedPh', settings.plannedPh)}
+              />
+              <fieldset className="sm:col-span-2">
+                <legend className="mb-1 text-sm font-medium text-rind-700">Where does water boil in your kitchen?</legend>
+                <div className="flex flex-wrap gap-x-6 gap-y-1">
+                  <label className="inline-flex min-h-10 items-center gap-2 text-sm">
+                    <input
+                      type="radio"
+                      name="boilingReference"
+                      value="altitude"
+                      checked={settings.boilingReference === 'altitude'}
+                      onChange={() => updateSettings({ boilingReference: 'altitude' }, 'settings.measuredWaterBoilingC')}
+                    />
+                    From the kitchen altitude
+                  </label>
+                  <label className="inline-flex min-h-10 items-center gap-2 text-sm">
+                    <input
+                      type="radio"
+                      name="boilingReference"
+                      value="measured"
+                      checked={settings.boilingReference === 'measured'}
+                      onChange={() => updateSettings({ boilingReference: 'measured' }, 'settings.altitudeM')}
+                    />
+                    I measured it
+                  </label>
+                </div>
+                <div className="mt-2 max-w-xs">
+                  {settings.boilingReference === 'altitude' ? (
+                    <Field
+                      label={`Kitchen altitude (${altScale.unitLabel})`}
+                      name="settings.altitudeM"
+                      id="setting-altitude"
+                      inputMode="decimal"
+                      value={settings.altitude.text}
+                      onChange={(e) => updateSettings({ altitude: draftFromText(e.target.value, altScale) }, 'settings.altitudeM')}
+                      errors={fieldErrors('settings.altitudeM', settings.altitude)}
+                      hint="Leave empty for sea level."
+                    />
+                  ) : (
+                    <Field
+                      label={`Measured water boiling point (${bpScale.unitLabel})`}
+                      name="settings.measuredWaterBoilingC"
+                      id="setting-measuredBoiling"
+                      inputMode="decimal"
+                      value={settings.measuredBoiling.text}
+                      onChange={(e) => updateSettings({ measuredBoiling: draftFromText(e.target.value, bpScale) }, 'settings.measuredWaterBoilingC')}
+                      errors={fieldErrors('settings.measuredWaterBoilingC', settings.measuredBoiling)}
+                      hint="Boil plain water in your pan and read the thermometer; it captures the day's weather too."
+                    />
+                  )}
+                </div>
+              </fieldset>
+            </div>
+          </Card>
+
+          <Card
+            title="Lines"
+            actions={
+              <Button tone="secondary" type="button" onClick={addLine}>
+                Add line
+              </Button>
+            }
+          >
+            {ingredients.length === 0 ? (
+              <Notice tone="warning">The ingredient library is empty. Add ingredients to the library first.</Notice>
+            ) : null}
+            {lines.length === 0 ? <p className="text-sm text-rind-600">No lines yet. Add a line for each ingredient, starting with the fruit.</p> : null}
+            <ol className="space-y-3" aria-label="Formula lines">
+              {lines.map((line, index) => {
+                const massG = massByLineKey.get(line.key);
+                return (
+                  <LineRow
+                    key={line.key}
+                    line={line}
+                    index={index}
+                    count={lines.length}
+                    ingredients={ingredients}
+                    ingredient={ingredientsById.get(line.ingredientId)}
+                    errors={errors.lines[line.key]}
+                    massHint={line.unit === 'pct_fruit' && massG !== undefined ? `= ${showMass(massG, system)}` : undefined}
+                    onChange={(l) => updateLine(index, l)}
+                    onRemove={() => removeLine(index)}
+                    onMove={(offset) => moveLine(index, offset)}
+                  />
+                );
+              })}
+            </ol>
+            <FieldErrorText id="lines-err" errors={errors.fields.lines} />
+            {lastRemoved ? (
+              <div className="mt-3 flex flex-wrap items-center gap-3 text-sm text-rind-600">
+                <span>
+                  Removed line {lastRemoved.index + 1}
+                  {ingredientsById.get(lastRemoved.line.ingredientId) ? ` (${ingredientsById.get(lastRemoved.line.ingredientId)?.name})` : ''}.
+                </span>
+                <Button tone="ghost" type="button" onClick={undoRemove}>
+                  Undo remove
+                </Button>
+              </div>
+            ) : null}
+          </Card>
+
+          <Card title="Save">
+            <div className="space-y-4">
+              <Field
+                label={mode === 'create' ? 'Note (optional)' : 'What changed (short note)'}
+                name="note"
+                id="formula-note"
+                value={note}
+                maxLength={500}
+                onChange={(e) => {
+                  setNote(e.target.value);
+                  clearFieldError('note');
+                  touched();
+                }}
+                errors={errors.fields.note}
+              />
+              {status.kind === 'saved' ? <Notice tone="success">Saved as revision {status.revision}.</Notice> : null}
+              {status.kind === 'error' ? (
+                <Notice tone="danger" title="Not saved">
+                  <p>{status.message}</p>
+                  {errors.unplaced.length ? (
+                    <ul className="mt-1 list-disc pl-5">
+                      {errors.unplaced.map((m, i) => (
+                        <li key={i}>{m}</li>
+                      ))}
+                    </ul>
+                  ) : null}
+                </Notice>
+              ) : null}
+              {status.kind === 'conflict' ? (
+                <Notice tone="warning" title="Someone saved a newer revision">
+                  <p>{status.message}</p>
+                  <p className="mt-1">Everything you typed is still here. Saving yours on top keeps both revisions in the history.</p>
+                  <div className="mt-3">
+                    <Button type="button" tone="secondary" disabled={saving} onClick={() => void save(true)}>
+                      Save mine on top anyway
+                    </Button>
+                  </div>
+                </Notice>
+              ) : null}
+              <Button type="submit" disabled={saving}>
+                {saving ? 'Saving…' : mode === 'create' ? 'Save formula' : 'Save new revision'}
+              </Button>
+            </div>
+          </Card>
+        </form>
+
+        <aside className="self-start lg:sticky lg:top-4">
+          <Card>
+            <ResultsPanel outcome={outcome} massUnits={system} temperatureUnit={tempUnit} notice={resultsNotice} />
+          </Card>
+        </aside>
+      </div>
+
+      <div className="grid gap-6 xl:grid-cols-2">
+        <Card>
+          {outcome?.ok ? (
+            <ScalePanel lines={computed.lines} settings={settingsInput} massUnits={system} />
+          ) : (
+            <p className="text-sm text-rind-600">Scaling opens once the formula has results.</p>
+          )}
+        </Card>
+        <Card>
+          <BrixHelper temperatureUnit={tempUnit} />
+        </Card>
+      </div>
+    </div>
+  );
+}

@@ -1,0 +1,461 @@
+/**
+ * Pure helpers of the formula editor: entered text ↔ stored values (grams, metres, °C), unit
+ * toggles without drift, the live computation and the mapping of server field errors.
+ * No React or Next imports, so every rule here is unit-testable on its own.
+ */
+import {
+  celsiusToFahrenheit,
+  fahrenheitToCelsius,
+  formatMass,
+  fromGrams,
+  isMassUnit,
+  METRES_PER_FOOT,
+  SUCROSE_BOILING_TABLE,
+  toGrams,
+  type LineUnit,
+  type MassUnit,
+  type UnitPreference,
+} from '@/lib/chemistry';
+import { computeFormula, type ComputableLine, type ComputeOutcome } from '@/lib/formulas/compute';
+import type { FormulaSettingsInput } from '@/lib/formulas/schema';
+import type { IngredientView } from '@/lib/ingredients/schema';
+
+export type TemperatureUnit = 'C' | 'F';
+export type ProductClassId = FormulaSettingsInput['productClass'];
+export type RuleSetId = FormulaSettingsInput['ruleSet'];
+
+/* ---------- numbers as typed ---------- */
+
+/** Parses a typed decimal ("1,5" allowed). null = empty, NaN = not a number. */
+export function parseDecimal(text: string): number | null {
+  const trimmed = text.trim();
+  if (trimmed === '') return null;
+  const normalised = trimmed.includes('.') ? trimmed : trimmed.replace(',', '.');
+  if (!/^[+-]?(\d+\.?\d*|\.\d+)(e[+-]?\d+)?$/i.test(normalised)) return Number.NaN;
+  const value = Number(normalised);
+  return Number.isFinite(value) ? value : Number.NaN;
+}
+
+/** A number for an input box: at most `maxDecimals`, no trailing zeros ("17.64", "500"). */
+export function formatEntryNumber(value: number, maxDecimals: number): string {
+  if (!Number.isFinite(value)) return '';
+  const fixed = value.toFixed(maxDecimals);
+  const trimmed = fixed.includes('.') ? fixed.replace(/\.?0+$/, '') : fixed;
+  return trimmed === '-0' ? '0' : trimmed;
+}
+
+/** Decimals shown in an entry box, per unit: enough for a kitchen scale, not float noise. */
+export const ENTRY_DECIMALS: Record<LineUnit, number> = { g: 2, kg: 4, lb: 3, oz: 2, pct_fruit: 3 };
+
+/** Finite number or a dash: nothing on screen may read NaN or undefined. */
+export function showNumber(value: number | null | undefined, decimals: number, suffix = ''): string {
+  if (value === null || value === undefined || !Number.isFinite(value)) return '—';
+  return `${formatSigned(value, decimals, false)}${suffix}`;
+}
+
+/** Signed display with a true minus sign (U+2212); `plus` adds "+" to positive values. */
+export function formatSigned(value: number, decimals: number, plus = true): string {
+  if (!Number.isFinite(value)) return '—';
+  const rounded = Number(value.toFixed(decimals));
+  const body = Math.abs(rounded).toFixed(decimals);
+  if (rounded < 0) return `−${body}`;
+  if (rounded > 0 && plus) return `+${body}`;
+  return body;
+}
+
+/** Mass for the results: kg/lb to the gram or so, small masses to a tenth. */
+export function showMass(massG: number | null | undefined, system: UnitPreference): string {
+  if (massG === null || massG === undefined || !Number.isFinite(massG)) return '—';
+  const magnitude = Math.abs(massG);
+  if (system === 'metric') return formatMass(massG, 'metric', magnitude < 1000 ? 1 : 3);
+  return formatMass(massG, 'imperial', magnitude < 16 * 28.349523125 ? 2 : 3);
+}
+
+/** A mass difference with its sign, in g or oz. */
+export function showMassDelta(deltaG: number, system: UnitPreference): string {
+  if (!Number.isFinite(deltaG)) return '—';
+  if (system === 'metric') return `${formatSigned(deltaG, 1)} g`;
+  return `${formatSigned(fromGrams(deltaG, 'oz'), 3)} oz`;
+}
+
+export function showTemperature(tempC: number | null | undefined, unit: TemperatureUnit): string {
+  if (tempC === null || tempC === undefined || !Number.isFinite(tempC)) return '—';
+  return unit === 'C' ? `${tempC.toFixed(1)} °C` : `${celsiusToFahrenheit(tempC).toFixed(1)} °F`;
+}
+
+/* ---------- a value kept in storage units, shown in display units ---------- */
+
+/** `base` is in storage units (g, m, °C): null when empty, NaN when the text is not a number. */
+export interface MeasuredDraft {
+  text: string;
+  base: number | null;
+}
+
+export interface DisplayScale {
+  toDisplay: (base: number) => number;
+  toBase: (display: number) => number;
+  decimals: number;
+  unitLabel: string;
+}
+
+export function jarFillScale(system: UnitPreference): DisplayScale {
+  return system === 'metric'
+    ? { toDisplay: (g) => g, toBase: (g) => g, decimals: 1, unitLabel: 'g' }
+    : { toDisplay: (g) => fromGrams(g, 'oz'), toBase: (oz) => toGrams(oz, 'oz'), decimals: 2, unitLabel: 'oz' };
+}
+
+export function altitudeScale(system: UnitPreference): DisplayScale {
+  return system === 'metric'
+    ? { toDisplay: (m) => m, toBase: (m) => m, decimals: 1, unitLabel: 'm' }
+    : { toDisplay: (m) => m / METRES_PER_FOOT, toBase: (ft) => ft * METRES_PER_FOOT, decimals: 1, unitLabel: 'ft' };
+}
+
+export function temperatureScale(unit: TemperatureUnit): DisplayScale {
+  return unit === 'C'
+    ? { toDisplay: (c) => c, toBase: (c) => c, decimals: 2, unitLabel: '°C' }
+    : { toDisplay: celsiusToFahrenheit, toBase: fahrenheitToCelsius, decimals: 2, unitLabel: '°F' };
+}
+
+export function draftFromBase(base: number | null | undefined, scale: DisplayScale): MeasuredDraft {
+  if (base === null || base === undefined || !Number.isFinite(base)) return { text: '', base: null };
+  return { text: formatEntryNumber(scale.toDisplay(base), scale.decimals), base };
+}
+
+export function draftFromText(text: string, scale: DisplayScale): MeasuredDraft {
+  const parsed = parseDecimal(text);
+  if (parsed === null) return { text, base: null };
+  return { text, base: Number.isNaN(parsed) ? Number.NaN : scale.toBase(parsed) };
+}
+
+/** Re-shows a draft in another unit from its stored value, so toggling back and forth never drifts. */
+export function redisplayDraft(draft: MeasuredDraft, scale: DisplayScale): MeasuredDraft {
+  if (draft.base === null || !Number.isFinite(draft.base)) return draft;
+  return { text: formatEntryNumber(scale.toDisplay(draft.base), scale.decimals), base: draft.base };
+}
+
+/* ---------- lines ---------- */
+
+/** `base` is grams for mass units and percent of fruit for `pct_fruit`; null empty, NaN invalid. */
+export interface LineDraft {
+  key: string;
+  ingredientId: string;
+  unit: LineUnit;
+  text: string;
+  base: number | null;
+}
+
+export const LINE_UNIT_LABELS: Record<LineUnit, string> = { g: 'g', kg: 'kg', lb: 'lb', oz: 'oz', pct_fruit: '% of fruit' };
+
+export function defaultLineUnit(system: UnitPreference): MassUnit {
+  return system === 'metric' ? 'g' : 'oz';
+}
+
+function baseFromText(text: string, unit: LineUnit): number | null {
+  const parsed = parseDecimal(text);
+  if (parsed === null || Number.isNaN(parsed)) return parsed;
+  return unit === 'pct_fruit' ? parsed : toGrams(parsed, unit);
+}
+
+export function newLineDraft(key: string, system: UnitPreference, ingredientId = ''): LineDraft {
+  return { key, ingredientId, unit: defaultLineUnit(system), text: '', base: null };
+}
+
+/** A stored line (grams or % of fruit) as the editor shows it in the chosen unit system. */
+export function lineDraftFromStored(
+  key: string,
+  stored: { ingredientId: string; quantity: number; unit: 'g' | 'pct_fruit' },
+  system: UnitPreference,
+): LineDraft {
+  if (stored.unit === 'pct_fruit') {
+    return { key, ingredientId: stored.ingredientId, unit: 'pct_fruit', text: formatEntryNumber(stored.quantity, ENTRY_DECIMALS.pct_fruit), base: stored.quantity };
+  }
+  const inGrams: LineDraft = { key, ingredientId: stored.ingredientId, unit: 'g', text: formatEntryNumber(stored.quantity, ENTRY_DECIMALS.g), base: stored.quantity };
+  return convertLineForSystem(inGrams, system);
+}
+
+export function setLineText(line: LineDraft, text: string): LineDraft {
+  return { ...line, text, base: baseFromText(text, line.unit) };
+}
+
+/** Changing a line's unit keeps the typed number: the user is saying which unit it was in. */
+export function setLineUnit(line: LineDraft, unit: LineUnit): LineDraft {
+  return { ...line, unit, base: baseFromText(line.text, unit) };
+}
+
+/** g ↔ oz and kg ↔ lb; % of fruit stays. */
+export function counterpartUnit(unit: LineUnit, system: UnitPreference): LineUnit {
+  if (system === 'imperial') return unit === 'g' ? 'oz' : unit === 'kg' ? 'lb' : unit;
+  return unit === 'oz' ? 'g' : unit === 'lb' ? 'kg' : unit;
+}
+
+/** Converts a line in place for a unit system, from the stored grams (no drift). */
+export function convertLineForSystem(line: LineDraft, system: UnitPreference): LineDraft {
+  const unit = counterpartUnit(line.unit, system);
+  if (unit === line.unit) return line;
+  if (line.base === null || !Number.isFinite(line.base) || !isMassUnit(unit)) return { ...line, unit, base: baseFromText(line.text, unit) };
+  return { ...line, unit, text: formatEntryNumber(fromGrams(line.base, unit), ENTRY_DECIMALS[unit]), base: line.base };
+}
+
+/** Quantity to send, in the line's own unit at full precision; NaN when empty or invalid. */
+export function lineQuantityForSave(line: LineDraft): number {
+  if (line.base === null || !Number.isFinite(line.base)) return Number.NaN;
+  return line.unit === 'pct_fruit' ? line.base : fromGrams(line.base, line.unit);
+}
+
+export function linesForSave(lines: LineDraft[]): Array<{ ingredientId: string; quantity: number; unit: LineUnit }> {
+  return lines.map((l) => ({ ingredientId: l.ingredientId, quantity: lineQuantityForSave(l), unit: l.unit }));
+}
+
+/** Moves the item at `index` by `offset` (−1 up, +1 down); out-of-range moves return the same array. */
+export function moveItem<T>(items: T[], index: number, offset: -1 | 1): T[] {
+  const target = index + offset;
+  if (index < 0 || index >= items.length || target < 0 || target >= items.length) return items;
+  const next = items.slice();
+  [next[index], next[target]] = [next[target], next[index]];
+  return next;
+}
+
+/* ---------- settings ---------- */
+
+export type BoilingReference = 'altitude' | 'measured';
+
+export interface SettingsDraft {
+  productClass: ProductClassId;
+  ruleSet: RuleSetId;
+  ruleDate: string;
+  targetSolids: MeasuredDraft;
+  jarFill: MeasuredDraft;
+  boilingReference: BoilingReference;
+  altitude: MeasuredDraft;
+  measuredBoiling: MeasuredDraft;
+  plannedPh: MeasuredDraft;
+}
+
+const IDENTITY_SCALE: DisplayScale = { toDisplay: (v) => v, toBase: (v) => v, decimals: 3, unitLabel: '' };
+
+/** Local calendar date as YYYY-MM-DD (the rule date is a production/labelling day, not an instant). */
+export function todayIso(now: Date = new Date()): string {
+  const pad = (n: number) => String(n).padStart(2, '0');
+  return `${now.getFullYear()}-${pad(now.getMonth() + 1)}-${pad(now.getDate())}`;
+}
+
+/** A 12 oz jar for imperial users and 340 g for metric ones (common practice, no published source). */
+export const DEFAULT_JAR_FILL_G: Record<UnitPreference, number> = { metric: 340, imperial: toGrams(12, 'oz') };
+export const DEFAULT_TARGET_SOLIDS_PCT = 65;
+
+export function initialSettingsDraft(options: {
+  settings?: Partial<FormulaSettingsInput>;
+  system: UnitPreference;
+  temperatureUnit: TemperatureUnit;
+  today?: string;
+}): SettingsDraft {
+  const s = options.settings ?? {};
+  return {
+    productClass: s.productClass ?? 'jam',
+    ruleSet: s.ruleSet ?? 'eu',
+    ruleDate: s.ruleDate ?? options.today ?? todayIso(),
+    targetSolids: draftFromBase(s.targetSolidsPct ?? DEFAULT_TARGET_SOLIDS_PCT, IDENTITY_SCALE),
+    jarFill: draftFromBase(s.jarNetFillG ?? DEFAULT_JAR_FILL_G[options.system], jarFillScale(options.system)),
+    boilingReference: s.measuredWaterBoilingC != null && s.altitudeM == null ? 'measured' : 'altitude',
+    altitude: draftFromBase(s.altitudeM, altitudeScale(options.system)),
+    measuredBoiling: draftFromBase(s.measuredWaterBoilingC, temperatureScale(options.temperatureUnit)),
+    plannedPh: draftFromBase(s.plannedPh, IDENTITY_SCALE),
+  };
+}
+
+export function settingsTextToDraft(text: string): MeasuredDraft {
+  return draftFromText(text, IDENTITY_SCALE);
+}
+
+export function convertSettingsForSystem(draft: SettingsDraft, system: UnitPreference): SettingsDraft {
+  return { ...draft, jarFill: redisplayDraft(draft.jarFill, jarFillScale(system)), altitude: redisplayDraft(draft.altitude, altitudeScale(system)) };
+}
+
+export function convertSettingsForTemperature(draft: SettingsDraft, unit: TemperatureUnit): SettingsDraft {
+  return { ...draft, measuredBoiling: redisplayDraft(draft.measuredBoiling, temperatureScale(unit)) };
+}
+
+/** NaN marks a required number that is missing or unreadable, so validation names the field. */
+function requiredNumber(draft: MeasuredDraft): number {
+  return draft.base === null ? Number.NaN : draft.base;
+}
+
+/** The settings as the schema and the chemistry want them: g, m, °C; only the chosen boiling reference. */
+export function settingsFromDraft(draft: SettingsDraft): FormulaSettingsInput {
+  const useAltitude = draft.boilingReference === 'altitude';
+  return {
+    productClass: draft.productClass,
+    ruleSet: draft.ruleSet,
+    ruleDate: draft.ruleDate,
+    targetSolidsPct: requiredNumber(draft.targetSolids),
+    jarNetFillG: requiredNumber(draft.jarFill),
+    altitudeM: useAltitude ? draft.altitude.base : null,
+    measuredWaterBoilingC: useAltitude ? null : draft.measuredBoiling.base,
+    plannedPh: draft.plannedPh.base,
+  };
+}
+
+/* ---------- live computation ---------- */
+
+export interface EditorComputation {
+  /** null = no usable line yet (the "add your first ingredient" state). */
+  outcome: ComputeOutcome | null;
+  /** The lines that went into the computation (grams or % of fruit). */
+  lines: ComputableLine[];
+  /** Editor line keys in the order of the computed lines (massBalance.lines[i] ↔ lineKeys[i]). */
+  lineKeys: string[];
+  /** Lines left out because they lack an ingredient or a readable quantity. */
+  skippedLineKeys: string[];
+}
+
+const SETTING_LABELS: Record<string, string> = {
+  'settings.targetSolidsPct': 'Target final soluble solids',
+  'settings.jarNetFillG': 'Jar net fill',
+  'settings.altitudeM': 'Kitchen altitude',
+  'settings.measuredWaterBoilingC': 'Measured water boiling point',
+  'settings.plannedPh': 'Planned pH',
+  'settings.ruleDate': 'Rule date',
+  lines: 'Lines',
+};
+
+/** Rewrites "lines[2].quantity: …" as "Line 3 (Sugar): …" using the editor's own numbering. */
+export function friendlyComputeMessage(field: string, message: string, lineLabels: string[]): string {
+  const detail = message.startsWith(`${field}: `) ? message.slice(field.length + 2) : message;
+  const lineMatch = /^lines\[(\d+)\]/.exec(field);
+  if (lineMatch) {
+    const label = lineLabels[Number(lineMatch[1])];
+    return `${label ?? `Line ${Number(lineMatch[1]) + 1}`}: ${detail}`;
+  }
+  const label = SETTING_LABELS[field];
+  return label ? `${label}: ${detail}` : detail.charAt(0).toUpperCase() + detail.slice(1);
+}
+
+export function ingredientIndex(ingredients: IngredientView[]): Map<string, IngredientView> {
+  return new Map(ingredients.map((i) => [i.id, i]));
+}
+
+/** Runs computeFormula on the lines that are complete enough; incomplete ones are reported, not guessed. */
+export function computeEditor(settings: SettingsDraft, lines: LineDraft[], ingredientsById: Map<string, IngredientView>): EditorComputation {
+  const computable: ComputableLine[] = [];
+  const lineKeys: string[] = [];
+  const lineLabels: string[] = [];
+  const skippedLineKeys: string[] = [];
+  lines.forEach((line, index) => {
+    const ingredient = ingredientsById.get(line.ingredientId);
+    if (!ingredient || line.base === null || !Number.isFinite(line.base)) {
+      skippedLineKeys.push(line.key);
+      return;
+    }
+    computable.push({
+      ingredient,
+      quantity: line.base,
+      unit: line.unit === 'pct_fruit' ? 'pct_fruit' : 'g',
+    });
+    lineKeys.push(line.key);
+    lineLabels.push(`Line ${index + 1} (${ingredient.name})`);
+  });
+  if (computable.length === 0) return { outcome: null, lines: computable, lineKeys, skippedLineKeys };
+  if (!computable.some((l) => l.ingredient.kind === 'fruit')) {
+    return { outcome: { ok: false, field: 'lines', message: 'Add a fruit line to see results.' }, lines: computable, lineKeys, skippedLineKeys };
+  }
+  const outcome = computeFormula(settingsFromDraft(settings), computable);
+  if (outcome.ok) return { outcome, lines: computable, lineKeys, skippedLineKeys };
+  return { outcome: { ...outcome, message: friendlyComputeMessage(outcome.field, outcome.message, lineLabels) }, lines: computable, lineKeys, skippedLineKeys };
+}
+
+/* ---------- field errors from the server (or the shared schema) ---------- */
+
+export type LineField = 'ingredientId' | 'quantity' | 'unit';
+
+export interface MappedFieldErrors {
+  /** name, note, settings.* and lines (the array itself). */
+  fields: Record<string, string[]>;
+  /** By editor line key. */
+  lines: Record<string, Partial<Record<LineField, string[]>>>;
+  /** Anything that matches no input, shown in the summary. */
+  unplaced: string[];
+}
+
+/** Input names the editor can place an error next to. */
+export const PLACEABLE_FIELDS: readonly string[] = [
+  'name',
+  'note',
+  'lines',
+  'settings.productClass',
+  'settings.ruleSet',
+  'settings.ruleDate',
+  'settings.targetSolidsPct',
+  'settings.jarNetFillG',
+  'settings.altitudeM',
+  'settings.measuredWaterBoilingC',
+  'settings.plannedPh',
+];
+
+/** reviseFormulaAction wraps its input as `change`, other callers as `data`. */
+export function stripFieldPrefix(key: string): string {
+  return key.replace(/^(change|data)\./, '');
+}
+
+/** Maps dotted zod paths to inputs; `lines.N.*` goes to the line that was N-th when it was sent. */
+export function mapFieldErrors(fields: Record<string, string[]> | undefined, sentLineKeys: string[]): MappedFieldErrors {
+  const mapped: MappedFieldErrors = { fields: {}, lines: {}, unplaced: [] };
+  for (const [rawKey, messages] of Object.entries(fields ?? {})) {
+    const key = stripFieldPrefix(rawKey);
+    const lineMatch = /^lines\.(\d+)\.(ingredientId|quantity|unit)$/.exec(key);
+    if (lineMatch) {
+      const lineKey = sentLineKeys[Number(lineMatch[1])];
+      if (lineKey !== undefined) {
+        const field = lineMatch[2] as LineField;
+        const entry = (mapped.lines[lineKey] ??= {});
+        entry[field] = [...(entry[field] ?? []), ...messages];
+        continue;
+      }
+    }
+    if (/^lines\.\d+$/.test(key)) {
+      const lineKey = sentLineKeys[Number(key.split('.')[1])];
+      if (lineKey !== undefined) {
+        const entry = (mapped.lines[lineKey] ??= {});
+        entry.ingredientId = [...(entry.ingredientId ?? []), ...messages];
+        continue;
+      }
+    }
+    if (PLACEABLE_FIELDS.includes(key)) {
+      mapped.fields[key] = [...(mapped.fields[key] ?? []), ...messages];
+      continue;
+    }
+    mapped.unplaced.push(...messages);
+  }
+  return mapped;
+}
+
+/** Dotted-path field errors from schema issues, the same shape the server sends. */
+export function issuesToFieldErrors(issues: ReadonlyArray<{ path: ReadonlyArray<PropertyKey>; message: string }>): Record<string, string[]> {
+  const fields: Record<string, string[]> = {};
+  for (const issue of issues) {
+    const key = issue.path.length ? issue.path.map(String).join('.') : '_';
+    (fields[key] ??= []).push(issue.message);
+  }
+  return fields;
+}
+
+export function hasAnyFieldError(errors: MappedFieldErrors): boolean {
+  return Object.keys(errors.fields).length > 0 || Object.keys(errors.lines).length > 0 || errors.unplaced.length > 0;
+}
+
+export const EMPTY_FIELD_ERRORS: MappedFieldErrors = { fields: {}, lines: {}, unplaced: [] };
+
+/* ---------- sources of the sucrose boiling table rows used ---------- */
+
+/** The published rows the syrup boiling point was interpolated from (their own source texts). */
+export function sucroseTableSourcesFor(targetSolidsPct: number): string[] {
+  if (!Number.isFinite(targetSolidsPct)) return [];
+  const rows = SUCROSE_BOILING_TABLE;
+  const exact = rows.find((r) => r.solidsPct === targetSolidsPct);
+  const picked = exact ? [exact] : rows.filter((r, i) => {
+    const next = rows[i + 1];
+    const previous = rows[i - 1];
+    return (next && r.solidsPct < targetSolidsPct && next.solidsPct > targetSolidsPct) ||
+      (previous && previous.solidsPct < targetSolidsPct && r.solidsPct > targetSolidsPct);
+  });
+  return [...new Set(picked.map((r) => `${r.solidsPct} %: ${r.source}`))];
+}
