@@ -60,11 +60,17 @@ export function authOptions(): NextAuthOptions {
   };
 }
 
+/**
+ * The address for the per-address sign-in limit: the right-most X-Forwarded-For entry, i.e.
+ * the one our own load balancer appended. A client can forge entries to its left, not that one.
+ * Without a proxy in front, Next.js passes a client's header through, so the per-account limit
+ * is the one that always holds (see the README's operations notes).
+ */
 function clientIp(headers: Record<string, unknown> | Headers): string {
   const get = (name: string) =>
     headers instanceof Headers ? headers.get(name) : (headers[name] as string | undefined);
-  const forwarded = get('x-forwarded-for');
-  return (forwarded?.split(',')[0] ?? get('x-real-ip') ?? 'unknown').trim() || 'unknown';
+  const forwarded = get('x-forwarded-for')?.split(',').map((s) => s.trim()).filter(Boolean);
+  return forwarded?.at(-1) ?? get('x-real-ip')?.trim() ?? 'unknown';
 }
 
 /** Reads a cookie value out of a Cookie header. */
