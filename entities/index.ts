@@ -9,11 +9,22 @@ import { RateLimitBucket } from './RateLimitBucket';
 import { Ingredient } from './Ingredient';
 import { Formula } from './Formula';
 import { FormulaRevision } from './FormulaRevision';
+import { Trial } from './Trial';
+import { TrialStatusChange } from './TrialStatusChange';
+import { Variant } from './Variant';
+import { Measurement } from './Measurement';
+import { Upload } from './Upload';
+import { NotebookEntry } from './NotebookEntry';
+import { NotebookConflict } from './NotebookConflict';
 
-export { Workspace, User, Membership, Invitation, PasswordReset, ApiToken, RateLimitBucket, Ingredient, Formula, FormulaRevision };
+export {
+  Workspace, User, Membership, Invitation, PasswordReset, ApiToken, RateLimitBucket, Ingredient, Formula, FormulaRevision,
+  Trial, TrialStatusChange, Variant, Measurement, Upload, NotebookEntry, NotebookConflict,
+};
 export { ROLES } from './Membership';
 
 export const allEntities = [
   Workspace, User, Membership, Invitation, PasswordReset, ApiToken, RateLimitBucket,
   Ingredient, Formula, FormulaRevision,
+  Trial, TrialStatusChange, Variant, Measurement, Upload, NotebookEntry, NotebookConflict,
 ];

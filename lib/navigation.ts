@@ -11,6 +11,7 @@ export interface NavItem {
 export const NAV_ITEMS: NavItem[] = [
   { href: '/home', label: 'Overview', permission: 'account.self', group: 'work' },
   { href: '/formulas', label: 'Formulas', permission: 'formulas.read', group: 'work' },
+  { href: '/trials', label: 'Trials', permission: 'trials.read', group: 'work' },
   { href: '/ingredients', label: 'Ingredients', permission: 'ingredients.read', group: 'work' },
   { href: '/tastings', label: 'My tastings', permission: 'tastings.own', group: 'work' },
   { href: '/settings/members', label: 'Members', permission: 'members.manage', group: 'settings' },

@@ -31,6 +31,8 @@ const GRANTS = {
   'formulas.read': ['admin', 'developer', 'head_of_product'],
   'formulas.write': ['admin', 'developer'],
   'calc.run': STAFF,
+  'trials.read': ['admin', 'developer', 'head_of_product'],
+  'trials.write': ['admin', 'developer'],
 } satisfies Record<string, Role[]>;
 
 export type Permission = keyof typeof GRANTS;

@@ -32,3 +32,22 @@ export async function createFixtureFormula(fx: WorkspaceFixture): Promise<string
   const { formulaId } = await createFormula(actorOf(fx, 'developer'), await strawberryJamInput(fx));
   return formulaId;
 }
+
+/** A trial on the fixture formula, inserted directly (for features that hang records on a trial). */
+export async function createFixtureTrial(fx: WorkspaceFixture): Promise<{ trialId: string; formulaId: string }> {
+  const formulaId = await createFixtureFormula(fx);
+  const em = await getEm();
+  const { Trial } = await import('@/entities');
+  const max = (await em.find(Trial, { workspace: fx.workspaceId }, { orderBy: { number: 'desc' }, limit: 1 }))[0]?.number ?? 0;
+  const trial = em.create(Trial, {
+    workspace: fx.workspaceId,
+    number: max + 1,
+    title: 'Fixture trial',
+    question: 'Does less sugar still set?',
+    owner: fx.people.developer.userId,
+    baseFormula: formulaId,
+    baseRevision: 1,
+  } as never) as unknown as { id: string };
+  await em.flush();
+  return { trialId: trial.id, formulaId };
+}
