@@ -15,6 +15,7 @@ case "${SETWELL_PROFILE:-demo}" in
     export PORT="${PORT:-3000}"
     export MAIL_FAKE_SMTP_PORT="${MAIL_FAKE_SMTP_PORT:-2525}"
     export MAIL_FAKE_HTTP_PORT="${MAIL_FAKE_HTTP_PORT:-8025}"
+    export S3_FAKE_PORT="${S3_FAKE_PORT:-4569}"
     ;;
   test)
     export SETWELL_HOME="${SETWELL_TEST_HOME:-/var/tmp/setwell-test}"
@@ -25,6 +26,7 @@ case "${SETWELL_PROFILE:-demo}" in
     export PORT="${SETWELL_TEST_APP_PORT:-3100}"
     export MAIL_FAKE_SMTP_PORT="${SETWELL_TEST_SMTP_PORT:-2526}"
     export MAIL_FAKE_HTTP_PORT="${SETWELL_TEST_MAIL_HTTP_PORT:-8026}"
+    export S3_FAKE_PORT="${SETWELL_TEST_S3_PORT:-4579}"
     ;;
 esac
 
@@ -38,5 +40,17 @@ export DATABASE_URL="${DATABASE_URL:-postgresql://setwell:$SETWELL_DB_PASSWORD@1
 export SMTP_URL="${SMTP_URL:-smtp://127.0.0.1:$MAIL_FAKE_SMTP_PORT}"
 export MAIL_FROM="${MAIL_FROM:-Setwell <no-reply@setwell.local>}"
 export MAIL_OUTBOX_URL="${MAIL_OUTBOX_URL:-http://127.0.0.1:$MAIL_FAKE_HTTP_PORT}"
+# Object storage: the S3 fake unless S3_ENDPOINT is set (set it empty for AWS S3 itself).
+# The fake's keys and path-style addressing apply only when the endpoint is the fake.
+export S3_FAKE_ENDPOINT="http://127.0.0.1:$S3_FAKE_PORT"
+export S3_ENDPOINT="${S3_ENDPOINT-$S3_FAKE_ENDPOINT}"
+export S3_BUCKET="${S3_BUCKET:-setwell}"
+if [ "$S3_ENDPOINT" = "$S3_FAKE_ENDPOINT" ]; then
+  export S3_ACCESS_KEY_ID="${S3_ACCESS_KEY_ID:-S3RVER}"
+  export S3_SECRET_ACCESS_KEY="${S3_SECRET_ACCESS_KEY:-S3RVER}"
+  export S3_FORCE_PATH_STYLE="${S3_FORCE_PATH_STYLE:-true}"
+fi
+[ -n "$S3_ENDPOINT" ] || unset S3_ENDPOINT
 if [ "${SETWELL_PROFILE:-demo}" = test ]; then export APP_URL="${APP_URL:-http://127.0.0.1:$PORT}"; else export APP_URL="${APP_URL:-http://localhost:$PORT}"; fi
 export NEXTAUTH_URL="${NEXTAUTH_URL:-$APP_URL}"
+export AWS_SDK_JS_NODE_VERSION_SUPPORT_WARNING_DISABLED=true

@@ -105,14 +105,17 @@ export function RevisionDiff({
   after,
   massUnits,
   temperatureUnit = 'C',
+  title,
 }: {
   before: FormulaRevisionView;
   after: FormulaRevisionView;
   massUnits: UnitPreference;
   temperatureUnit?: 'C' | 'F';
+  /** Overrides the "Revision 1 → revision 2" heading, e.g. when comparing trial variants. */
+  title?: string;
 }) {
   const diff = diffRevisions(before, after);
-  const heading = `Revision ${diff.beforeRevision} → revision ${diff.afterRevision}`;
+  const heading = title ?? `Revision ${diff.beforeRevision} → revision ${diff.afterRevision}`;
 
   if (diff.identical) {
     return (

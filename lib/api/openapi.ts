@@ -9,6 +9,9 @@ import { inviteMemberSchema, updateMemberSchema } from '@/lib/members/schema';
 import { createTokenSchema } from '@/lib/api-tokens/schema';
 import { ingredientInputSchema } from '@/lib/ingredients/schema';
 import { calcBatchSchema, createFormulaSchema, reviseFormulaSchema } from '@/lib/formulas/schema';
+import { FILE_MAX_BYTES, PHOTO_MAX_BYTES, THUMBNAIL_MAX_PX, UPLOAD_SUBJECTS } from '@/lib/uploads/schema';
+import { createTrialSchema, manualVariantSchema, measurementSchema, planSchema, transitionSchema } from '@/lib/trials/schema';
+import { saveNotebookBodySchema } from '@/lib/notebook/schema';
 
 export interface ApiOperation {
   method: 'get' | 'post' | 'patch' | 'put' | 'delete';
@@ -19,8 +22,22 @@ export interface ApiOperation {
   /** null for public operations. */
   permission: Permission | null;
   request?: z.ZodType;
+  /** A multipart/form-data body instead of JSON: the form fields as a JSON Schema object. */
+  multipart?: { required: string[]; properties: Record<string, Record<string, unknown>> };
+  /** Media types of a success response that is not JSON (downloads). */
+  okMediaTypes?: string[];
   okStatus?: number;
 }
+
+const UPLOAD_FORM: NonNullable<ApiOperation['multipart']> = {
+  required: ['file'],
+  properties: {
+    file: { type: 'string', format: 'binary', description: `JPEG, PNG or WebP photo (${PHOTO_MAX_BYTES / 2 ** 20} MB at most), or PDF or CSV file (${FILE_MAX_BYTES / 2 ** 20} MB); the type is read from the bytes` },
+    variantId: { type: 'string', format: 'uuid', description: 'the variant it documents' },
+    measurementId: { type: 'string', format: 'uuid', description: 'the cook it documents' },
+    subject: { type: 'string', enum: [...UPLOAD_SUBJECTS], description: 'what a photo shows' },
+  },
+};
 
 export const API_OPERATIONS: ApiOperation[] = [
   { method: 'get', path: '/api/v1/me', summary: 'The caller, their current workspace and role, and the workspaces they can switch to', tag: 'Account', permission: 'account.self' },
@@ -44,6 +61,26 @@ export const API_OPERATIONS: ApiOperation[] = [
   { method: 'post', path: '/api/v1/formulas/{formulaId}/revisions', summary: 'Save a new revision; 409 when baseRevision is no longer the latest (unless force)', tag: 'Formulas', permission: 'formulas.write', request: reviseFormulaSchema, okStatus: 201 },
   { method: 'get', path: '/api/v1/formulas/{formulaId}/revisions/{number}', summary: 'One revision', tag: 'Formulas', permission: 'formulas.read' },
   { method: 'post', path: '/api/v1/calc/batch', summary: 'Compute a posted formula (mass balance, end point, water activity, compliance, cautions); stores nothing', tag: 'Formulas', permission: 'calc.run', request: calcBatchSchema },
+  { method: 'get', path: '/api/v1/trials/{trialId}/notebook', summary: "A trial's notebook entry, or a variant's (query: variantId), with its version and unresolved conflicts", tag: 'Notebook', permission: 'trials.read' },
+  { method: 'put', path: '/api/v1/trials/{trialId}/notebook', summary: 'Save a notebook entry from baseVersion; 409 when someone saved meanwhile (the incoming document is kept as a conflict, error.conflict describes both)', tag: 'Notebook', permission: 'trials.write', request: saveNotebookBodySchema },
+  { method: 'get', path: '/api/v1/trials', summary: 'Trials (query: status, owner, product, from, to, q); shelved trials only with status=archived', tag: 'Trials', permission: 'trials.read' },
+  { method: 'post', path: '/api/v1/trials', summary: 'Start a trial on a formula revision; variant A is the base', tag: 'Trials', permission: 'trials.write', request: createTrialSchema, okStatus: 201 },
+  { method: 'get', path: '/api/v1/trials/{trialId}', summary: 'The trial with its variants (predicted chemistry), cooks (measured against predicted) and status history', tag: 'Trials', permission: 'trials.read' },
+  { method: 'post', path: '/api/v1/trials/{trialId}/status', summary: 'Move the trial to another status (409 when not allowed from the current one)', tag: 'Trials', permission: 'trials.write', request: transitionSchema },
+  { method: 'post', path: '/api/v1/trials/{trialId}/plan', summary: 'Generate variants: one factor at a time or a full 2^k factorial, optionally with a centre point', tag: 'Trials', permission: 'trials.write', request: planSchema, okStatus: 201 },
+  { method: 'get', path: '/api/v1/trials/{trialId}/variants', summary: 'Variants with their factor levels and predicted chemistry', tag: 'Trials', permission: 'trials.read' },
+  { method: 'post', path: '/api/v1/trials/{trialId}/variants', summary: 'Add a hand-made variant (any lines)', tag: 'Trials', permission: 'trials.write', request: manualVariantSchema, okStatus: 201 },
+  { method: 'delete', path: '/api/v1/trials/{trialId}/variants/{variantId}', summary: 'Remove a variant (kept on record; the base stays)', tag: 'Trials', permission: 'trials.write' },
+  { method: 'get', path: '/api/v1/trials/{trialId}/measurements', summary: 'Every cook, each beside its prediction', tag: 'Trials', permission: 'trials.read' },
+  { method: 'post', path: '/api/v1/trials/{trialId}/measurements', summary: 'Record a cook of a variant (refractometer reading stored raw with its sample temperature)', tag: 'Trials', permission: 'trials.write', request: measurementSchema, okStatus: 201 },
+  { method: 'delete', path: '/api/v1/trials/{trialId}/measurements/{measurementId}', summary: 'Delete a cook record', tag: 'Trials', permission: 'trials.write' },
+  { method: 'post', path: '/api/v1/trials/{trialId}/measurements/import', summary: 'Import cooks from CSV text ({ "csv": "…" }); all-or-nothing, errors by row and column', tag: 'Trials', permission: 'trials.write', okStatus: 201 },
+  { method: 'get', path: '/api/v1/trials/{trialId}/export', summary: 'Variants and cooks as CSV, one row per cook', tag: 'Trials', permission: 'trials.read' },
+  { method: 'get', path: '/api/v1/trials/{trialId}/uploads', summary: "A trial's photos and files, oldest first (query: variantId, measurementId)", tag: 'Uploads', permission: 'trials.read' },
+  { method: 'post', path: '/api/v1/trials/{trialId}/uploads', summary: 'Upload a photo or file (multipart/form-data); 413 too large, 415 not a type Setwell keeps, 422 empty', tag: 'Uploads', permission: 'trials.write', multipart: UPLOAD_FORM, okStatus: 201 },
+  { method: 'get', path: '/api/v1/uploads/{uploadId}', summary: 'The original bytes, with the type read from them (inline for images and PDF, attachment for CSV)', tag: 'Uploads', permission: 'trials.read', okMediaTypes: ['image/jpeg', 'image/png', 'image/webp', 'application/pdf', 'text/csv'] },
+  { method: 'get', path: '/api/v1/uploads/{uploadId}/thumbnail', summary: `A photo's WebP thumbnail, ${THUMBNAIL_MAX_PX} px at most, without metadata (404 for files)`, tag: 'Uploads', permission: 'trials.read', okMediaTypes: ['image/webp'] },
+  { method: 'delete', path: '/api/v1/uploads/{uploadId}', summary: 'Delete a photo or file (the stored object and its record)', tag: 'Uploads', permission: 'trials.write' },
   { method: 'get', path: '/api/v1/openapi.json', summary: 'This description', tag: 'Meta', permission: null },
 ];
 
@@ -86,11 +123,18 @@ export function buildOpenApiDocument(serverUrl: string) {
         : { security: [] }),
       ...(params.length ? { parameters: params } : {}),
       ...(op.request ? { requestBody: { required: true, content: { 'application/json': { schema: schemaOf(op.request) } } } } : {}),
+      ...(op.multipart ? { requestBody: { required: true, content: { 'multipart/form-data': { schema: { type: 'object', ...op.multipart } } } } } : {}),
       responses: {
-        [String(op.okStatus ?? 200)]: { description: 'Success', content: { 'application/json': { schema: { type: 'object' } } } },
+        [String(op.okStatus ?? 200)]: {
+          description: 'Success',
+          content: op.okMediaTypes
+            ? Object.fromEntries(op.okMediaTypes.map((t) => [t, { schema: { type: 'string', format: 'binary' } }]))
+            : { 'application/json': { schema: { type: 'object' } } },
+        },
         ...(op.permission ? { 401: errorRef, 403: errorRef } : {}),
         ...(params.length ? { 404: errorRef } : {}),
-        ...(op.request ? { 400: errorRef, 422: errorRef } : {}),
+        ...(op.request || op.multipart ? { 400: errorRef, 422: errorRef } : {}),
+        ...(op.multipart ? { 413: errorRef, 415: errorRef } : {}),
         ...(op.method !== 'get' ? { 409: errorRef } : {}),
       },
     };

@@ -9,6 +9,7 @@ import { hashPassword } from '@/lib/passwords';
 import type { Actor, Role } from '@/lib/permissions';
 import { addStarterLibrary } from '@/lib/ingredients/mutations';
 import { seedDemoFormulas } from './formulas';
+import { seedDemoTrials } from './trials';
 
 export const DEMO_PASSWORD = 'setwell-demo-2026';
 
@@ -54,7 +55,9 @@ export async function seedDemo(em: EntityManager): Promise<SeedReport> {
     return { created: true, workspaceId: demo.id, otherWorkspaceId: brackenfold.id };
   });
   const developer = await em.fork().findOneOrFail(User, { email: DEMO_USERS[1].email });
-  await seedDemoFormulas(em.fork(), demoActor(developer, report.workspaceId, 'developer'));
+  const actor = demoActor(developer, report.workspaceId, 'developer');
+  await seedDemoFormulas(em.fork(), actor);
+  await seedDemoTrials(em.fork(), actor);
   return report;
 }
 

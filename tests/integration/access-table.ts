@@ -214,5 +214,6 @@ ACTION_CASES.push(
 // Feature files keep their own rows; they are merged here so the matrix sees one table.
 import { UPLOADS_ROUTE_CASES, UPLOADS_ACTION_CASES } from './access-uploads';
 import { NOTEBOOK_ROUTE_CASES, NOTEBOOK_ACTION_CASES } from './access-notebook';
-ROUTE_CASES.push(...UPLOADS_ROUTE_CASES, ...NOTEBOOK_ROUTE_CASES);
-ACTION_CASES.push(...UPLOADS_ACTION_CASES, ...NOTEBOOK_ACTION_CASES);
+import { TRIALS_ROUTE_CASES, TRIALS_ACTION_CASES } from './access-trials';
+ROUTE_CASES.push(...UPLOADS_ROUTE_CASES, ...NOTEBOOK_ROUTE_CASES, ...TRIALS_ROUTE_CASES);
+ACTION_CASES.push(...UPLOADS_ACTION_CASES, ...NOTEBOOK_ACTION_CASES, ...TRIALS_ACTION_CASES);

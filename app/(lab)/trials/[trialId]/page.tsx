@@ -1,0 +1,86 @@
+import Link from 'next/link';
+import { requirePage, orNotFound, pageId } from '@/lib/page-guard';
+import { can } from '@/lib/permissions';
+import { getTrialOverview } from '@/lib/trials/queries';
+import { measureFactor, type MassLine } from '@/lib/trials/plan';
+import { TRIAL_FACTORS, TRIAL_STATUS_LABELS, type TrialFactor } from '@/lib/trials/vocabulary';
+import { resolveLines } from '@/lib/chemistry';
+import { getEntry } from '@/lib/notebook/queries';
+import { listUploads } from '@/lib/uploads/queries';
+import { TrialHeader } from '@/components/trials/TrialHeader';
+import { StatusControls } from '@/components/trials/StatusControls';
+import { VariantsTable } from '@/components/trials/VariantsTable';
+import { PlanHelper } from '@/components/trials/PlanHelper';
+import { CsvImport } from '@/components/trials/CsvImport';
+import { Attachments } from '@/components/trials/Attachments';
+import { NotebookEditor } from '@/components/notebook/NotebookEditor';
+import { buttonClass } from '@/components/ui/Button';
+
+export const dynamic = 'force-dynamic';
+export const metadata = { title: 'Trial' };
+
+function baseLevelsOf(lines: MassLine[]): Record<TrialFactor, number | null> {
+  return Object.fromEntries(
+    TRIAL_FACTORS.map((f) => {
+      try {
+        const v = measureFactor(lines, f);
+        return [f, v > 0 || f === 'sugar_ratio' ? v : null];
+      } catch {
+        return [f, null];
+      }
+    }),
+  ) as Record<TrialFactor, number | null>;
+}
+
+export default async function TrialPage({ params }: { params: Promise<{ trialId: string }> }) {
+  const actor = await requirePage('trials.read');
+  const trialId = pageId((await params).trialId);
+  const trial = await orNotFound(getTrialOverview(actor, trialId));
+  const [notebook, uploads] = await Promise.all([getEntry(actor, trialId, null), listUploads(actor, trialId)]);
+  const canEdit = can(actor.role, 'trials.write');
+  const editable = canEdit && (trial.status === 'planning' || trial.status === 'cooking');
+  const base = trial.variants.find((v) => v.isBase)!;
+  const baseMass = resolveLines(base.lines.map((l) => ({ ingredient: l.ingredient, quantity: l.quantity, unit: l.unit }))).map((r) => ({ ingredient: r.ingredient, massG: r.massG }));
+
+  return (
+    <>
+      <TrialHeader trial={trial}>
+        <div className="flex flex-wrap items-center gap-3">
+          {canEdit ? <StatusControls trialId={trial.id} status={trial.status} /> : null}
+          <a href={`/api/v1/trials/${trial.id}/export`} className={buttonClass('ghost')}>Download CSV</a>
+          <Link href={`/trials/${trial.id}/print`} className={buttonClass('ghost')}>Print view</Link>
+        </div>
+      </TrialHeader>
+
+      <div className="grid gap-6 2xl:grid-cols-[minmax(0,1fr)_28rem]">
+        <div className="min-w-0 space-y-6">
+          <section aria-labelledby="variants-title">
+            <h2 id="variants-title" className="mb-3 text-xl font-semibold">Variants</h2>
+            <VariantsTable trialId={trial.id} variants={trial.variants} massUnits={actor.massUnits} temperatureUnit={actor.temperatureUnit} />
+            <p className="mt-2 text-xs text-rind-500">Measured values are coloured against their prediction: green within tolerance, amber worth a look, red out of window; a red block means a food-safety limit.</p>
+          </section>
+          {editable ? <PlanHelper trialId={trial.id} baseLevels={baseLevelsOf(baseMass)} /> : canEdit ? (
+            <p className="text-sm text-rind-600">Variants are fixed while the trial is “{TRIAL_STATUS_LABELS[trial.status]}”. Move it back to “{TRIAL_STATUS_LABELS.cooking}” to change them.</p>
+          ) : null}
+          {canEdit ? <CsvImport trialId={trial.id} /> : null}
+          <Attachments trialId={trial.id} uploads={uploads} canEdit={canEdit} />
+          <section aria-labelledby="history-title">
+            <h2 id="history-title" className="mb-2 text-lg font-semibold">Status history</h2>
+            <ol className="space-y-1 text-sm text-rind-700">
+              {trial.history.map((h, i) => (
+                <li key={i}>
+                  {new Date(h.at).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short' })} — {h.from ? `${TRIAL_STATUS_LABELS[h.from]} → ` : ''}
+                  {TRIAL_STATUS_LABELS[h.to]} by {h.byName}
+                  {h.note ? ` (“${h.note}”)` : ''}
+                </li>
+              ))}
+            </ol>
+          </section>
+        </div>
+        <aside aria-label="Trial notebook" className="min-w-0">
+          <NotebookEditor trialId={trial.id} variantId={null} initial={notebook} canEdit={canEdit} title="Trial notebook" />
+        </aside>
+      </div>
+    </>
+  );
+}

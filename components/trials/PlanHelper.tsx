@@ -1,0 +1,113 @@
+'use client';
+
+import { useState } from 'react';
+import { useRouter } from 'next/navigation';
+import { Button } from '@/components/ui/Button';
+import { Notice } from '@/components/ui/Notice';
+import { inputClass } from '@/components/ui/Field';
+import { planRuns, PlanError, type DesignKind, type FactorSpec } from '@/lib/trials/plan';
+import { FACTOR_LABELS, TRIAL_FACTORS, type TrialFactor } from '@/lib/trials/vocabulary';
+import { planVariantsAction } from '@/lib/trials/actions';
+
+type Draft = Record<TrialFactor, { on: boolean; low: string; high: string }>;
+
+function suggest(base: number | null, factor: TrialFactor): { low: string; high: string } {
+  if (base === null || base <= 0) return { low: '', high: '' };
+  const d = factor === 'sugar_ratio' ? 2 : 1;
+  return { low: (base * 0.8).toFixed(d), high: (base * 1.2).toFixed(d) };
+}
+
+/**
+ * Lays out the variants before they are made: the same planRuns the server uses runs here,
+ * so the preview is exactly what will be created.
+ */
+export function PlanHelper({ trialId, baseLevels }: { trialId: string; baseLevels: Record<TrialFactor, number | null> }) {
+  const router = useRouter();
+  const [kind, setKind] = useState<DesignKind>('full_factorial');
+  const [centre, setCentre] = useState(false);
+  const [draft, setDraft] = useState<Draft>(() =>
+    Object.fromEntries(TRIAL_FACTORS.map((f) => [f, { on: f === 'sugar_ratio', ...suggest(baseLevels[f], f) }])) as Draft,
+  );
+  const [busy, setBusy] = useState(false);
+  const [result, setResult] = useState<{ tone: 'success' | 'danger'; text: string }>();
+
+  const specs: FactorSpec[] = TRIAL_FACTORS.filter((f) => draft[f].on).map((f) => ({ factor: f, low: Number(draft[f].low.replace(',', '.')), high: Number(draft[f].high.replace(',', '.')) }));
+  // Cheap to compute (at most nine runs), so it is simply recomputed on every render.
+  const preview = (() => {
+    try {
+      const runs = planRuns(kind, specs, { centrePoint: centre, baseLevels: Object.fromEntries(Object.entries(baseLevels).filter(([, v]) => v !== null)) as Partial<Record<TrialFactor, number>> });
+      return { ok: true as const, runs };
+    } catch (err) {
+      if (err instanceof PlanError) return { ok: false as const, message: err.message };
+      throw err;
+    }
+  })();
+
+  async function generate() {
+    setBusy(true);
+    setResult(undefined);
+    const res = await planVariantsAction(trialId, { kind, factors: specs, centrePoint: centre });
+    setBusy(false);
+    if (res.ok) {
+      setResult({ tone: 'success', text: `Added variants ${res.data.created.join(', ')}.` });
+      router.refresh();
+    } else setResult({ tone: 'danger', text: res.fields ? Object.values(res.fields).flat().join(' ') : res.error });
+  }
+
+  return (
+    <section aria-labelledby="plan-title" className="rounded-card bg-pith-50 p-5 ring-1 ring-pith-300">
+      <h2 id="plan-title" className="text-lg font-semibold">Plan helper</h2>
+      <p className="mt-1 text-sm text-rind-600">Choose the factors and their levels; the variants are the base formula with only those lines scaled.</p>
+      <fieldset className="mt-4">
+        <legend className="text-sm font-medium text-rind-700">Design</legend>
+        <div className="mt-2 flex flex-wrap gap-4 text-sm">
+          <label className="flex min-h-10 items-center gap-2"><input type="radio" name="design" checked={kind === 'full_factorial'} onChange={() => setKind('full_factorial')} /> Full factorial (2<sup>k</sup>)</label>
+          <label className="flex min-h-10 items-center gap-2"><input type="radio" name="design" checked={kind === 'one_factor_at_a_time'} onChange={() => setKind('one_factor_at_a_time')} /> One factor at a time</label>
+          <label className="flex min-h-10 items-center gap-2"><input type="checkbox" checked={centre} onChange={(e) => setCentre(e.target.checked)} /> Add a centre point</label>
+        </div>
+      </fieldset>
+      <div className="mt-4 space-y-3">
+        {TRIAL_FACTORS.map((f) => (
+          <div key={f} className="grid items-end gap-3 rounded-lg bg-white p-3 ring-1 ring-pith-300 sm:grid-cols-[1fr_7rem_7rem]">
+            <label className="flex min-h-10 items-center gap-2 text-sm">
+              <input type="checkbox" checked={draft[f].on} onChange={(e) => setDraft({ ...draft, [f]: { ...draft[f], on: e.target.checked } })} />
+              <span>
+                <span className="font-medium">{FACTOR_LABELS[f].name}</span> <span className="text-rind-500">({FACTOR_LABELS[f].unit})</span>
+                <span className="block text-xs text-rind-500">Base: {baseLevels[f] === null ? 'no such line in the base' : baseLevels[f]!.toFixed(f === 'sugar_ratio' ? 2 : 1)}</span>
+              </span>
+            </label>
+            {(['low', 'high'] as const).map((side) => (
+              <label key={side} className="text-xs text-rind-600">
+                {side === 'low' ? 'Low level' : 'High level'}
+                <input
+                  aria-label={`${FACTOR_LABELS[f].name} ${side} level`}
+                  inputMode="decimal"
+                  disabled={!draft[f].on}
+                  value={draft[f][side]}
+                  onChange={(e) => setDraft({ ...draft, [f]: { ...draft[f], [side]: e.target.value } })}
+                  className={`${inputClass} mt-1 disabled:bg-pith-100`}
+                />
+              </label>
+            ))}
+          </div>
+        ))}
+      </div>
+      <div className="mt-4" aria-live="polite">
+        {preview.ok ? (
+          <>
+            <p className="text-sm font-medium">{preview.runs.length} variant{preview.runs.length === 1 ? '' : 's'} will be added:</p>
+            <ol className="mt-1 list-decimal pl-6 text-sm text-rind-700" data-testid="plan-preview">
+              {preview.runs.map((r, i) => <li key={i}>{r.description}</li>)}
+            </ol>
+          </>
+        ) : (
+          <Notice tone="warning">{preview.message}</Notice>
+        )}
+      </div>
+      {result ? <div className="mt-3"><Notice tone={result.tone}>{result.text}</Notice></div> : null}
+      <Button className="mt-4" type="button" disabled={!preview.ok || busy} onClick={generate}>
+        {busy ? 'Adding…' : 'Add these variants'}
+      </Button>
+    </section>
+  );
+}

@@ -1,0 +1,64 @@
+'use server';
+
+import { revalidatePath } from 'next/cache';
+import { z } from 'zod';
+import { runAction } from '@/lib/actions';
+import { createTrialSchema, manualVariantSchema, measurementSchema, planSchema, transitionSchema } from './schema';
+import { addVariant, createTrial, deleteMeasurement, planVariants, recordMeasurement, removeVariant, transitionTrial } from './mutations';
+import { importMeasurementsCsv } from './csv';
+
+const trialId = z.uuid('Unknown trial.');
+const refresh = (id: unknown) => revalidatePath(`/trials/${String(id)}`, 'layout');
+
+export async function createTrialAction(input: unknown) {
+  const result = await runAction('trials.write', createTrialSchema, input, createTrial);
+  if (result.ok) revalidatePath('/trials');
+  return result;
+}
+
+export async function transitionTrialAction(id: unknown, input: unknown) {
+  const result = await runAction('trials.write', z.object({ id: trialId, change: transitionSchema }), { id, change: input }, (actor, d) =>
+    transitionTrial(actor, d.id, d.change.to, d.change.note),
+  );
+  if (result.ok) refresh(id);
+  return result;
+}
+
+export async function planVariantsAction(id: unknown, input: unknown) {
+  const result = await runAction('trials.write', z.object({ id: trialId, plan: planSchema }), { id, plan: input }, (actor, d) => planVariants(actor, d.id, d.plan));
+  if (result.ok) refresh(id);
+  return result;
+}
+
+export async function addVariantAction(id: unknown, input: unknown) {
+  const result = await runAction('trials.write', z.object({ id: trialId, variant: manualVariantSchema }), { id, variant: input }, (actor, d) => addVariant(actor, d.id, d.variant));
+  if (result.ok) refresh(id);
+  return result;
+}
+
+export async function removeVariantAction(id: unknown, variantId: unknown) {
+  const result = await runAction('trials.write', z.object({ id: trialId, variantId: z.uuid('Unknown variant.') }), { id, variantId }, (actor, d) => removeVariant(actor, d.id, d.variantId));
+  if (result.ok) refresh(id);
+  return result;
+}
+
+export async function recordMeasurementAction(id: unknown, input: unknown) {
+  const result = await runAction('trials.write', z.object({ id: trialId, cook: measurementSchema }), { id, cook: input }, (actor, d) => recordMeasurement(actor, d.id, d.cook));
+  if (result.ok) refresh(id);
+  return result;
+}
+
+export async function deleteMeasurementAction(id: unknown, measurementId: unknown) {
+  const result = await runAction('trials.write', z.object({ id: trialId, measurementId: z.uuid('Unknown cook.') }), { id, measurementId }, (actor, d) =>
+    deleteMeasurement(actor, d.id, d.measurementId),
+  );
+  if (result.ok) refresh(id);
+  return result;
+}
+
+export async function importMeasurementsAction(id: unknown, csv: unknown) {
+  const schema = z.object({ id: trialId, csv: z.string().min(1, 'Choose a CSV file.').max(2_000_000, 'The file is too large (2 MB at most).') });
+  const result = await runAction('trials.write', schema, { id, csv }, (actor, d) => importMeasurementsCsv(actor, d.id, d.csv));
+  if (result.ok) refresh(id);
+  return result;
+}

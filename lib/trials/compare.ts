@@ -1,0 +1,100 @@
+/**
+ * A cook's measurements beside the formula's predictions. Pure. Tolerances are kitchen rules
+ * of thumb (common practice, no published source); the pH limits are published (see guidance).
+ */
+import { correctBrixTo20C, ChemistryInputError, type BatchComputation } from '@/lib/chemistry';
+import { ACID_FOOD_MAX_PH, SET_PH_MAX, SET_PH_MIN } from '@/lib/chemistry';
+
+export type ComparisonFlag = 'ok' | 'watch' | 'out' | 'danger' | 'unknown';
+
+export interface ComparisonRow {
+  key: 'finished_mass' | 'jars' | 'solids' | 'end_point' | 'ph';
+  label: string;
+  unit: 'g' | 'jars' | '°Brix' | '°C' | 'pH';
+  predicted: number | null;
+  measured: number | null;
+  difference: number | null;
+  flag: ComparisonFlag;
+  note: string;
+}
+
+export interface CookComparison {
+  /** Predicted figures are scaled to this cook's batch size (the charge) when it is given. */
+  scale: number;
+  correctedBrix: number | null;
+  brixNote: string | null;
+  rows: ComparisonRow[];
+}
+
+export interface CookReadings {
+  batchSizeG?: number | null;
+  brixReading?: number | null;
+  brixSampleTempC?: number | null;
+  ph?: number | null;
+  endPointTempC?: number | null;
+  yieldJars?: number | null;
+  yieldG?: number | null;
+}
+
+/** Common practice, no published source: how far a measurement may sit from its prediction. */
+export const TOLERANCES = { massPct: 5, solidsBrix: 1, endPointC: 1 } as const;
+
+function row(key: ComparisonRow['key'], label: string, unit: ComparisonRow['unit'], predicted: number | null, measured: number | null, flag: ComparisonFlag, note: string): ComparisonRow {
+  return { key, label, unit, predicted, measured, difference: predicted !== null && measured !== null ? measured - predicted : null, flag, note };
+}
+
+export function compareCook(computation: BatchComputation | null, cook: CookReadings, plannedPh?: number | null): CookComparison {
+  const mb = computation?.massBalance;
+  const scale = mb && cook.batchSizeG ? cook.batchSizeG / mb.totalChargeG : 1;
+
+  let correctedBrix: number | null = null;
+  let brixNote: string | null = null;
+  if (cook.brixReading != null && cook.brixSampleTempC != null) {
+    try {
+      const c = correctBrixTo20C(cook.brixReading, cook.brixSampleTempC);
+      correctedBrix = c.correctedBrix20C;
+      brixNote = `Corrected to 20 °C from ${cook.brixReading} °Brix at ${cook.brixSampleTempC} °C (${c.source})${c.usedRecalledValues ? '; the table rows used are from memory' : ''}.`;
+    } catch (err) {
+      if (!(err instanceof ChemistryInputError)) throw err;
+      brixNote = `Not corrected: ${err.message}. Raw reading shown.`;
+      correctedBrix = null;
+    }
+  }
+
+  const rows: ComparisonRow[] = [];
+  if (mb) {
+    const predictedMass = mb.finishedMassG * scale;
+    const mass = cook.yieldG ?? null;
+    const massOff = mass !== null && Math.abs(mass - predictedMass) > (TOLERANCES.massPct / 100) * predictedMass;
+    rows.push(row('finished_mass', 'Finished mass', 'g', predictedMass, mass, mass === null ? 'unknown' : massOff ? 'watch' : 'ok',
+      massOff ? (mass! > predictedMass ? 'More than predicted: the batch may be under-boiled (solids below target).' : 'Less than predicted: over-boiled, or losses in the pan and filling.') : `Within ±${TOLERANCES.massPct} % of the prediction (common practice).`));
+    const predictedJars = Math.floor((mb.finishedMassG * scale) / (computation!.settings.jarNetFillG || 1));
+    rows.push(row('jars', 'Jars filled', 'jars', predictedJars, cook.yieldJars ?? null, cook.yieldJars == null ? 'unknown' : cook.yieldJars < predictedJars - 1 ? 'watch' : 'ok', 'Predicted from the finished mass and the jar net fill.'));
+  }
+  const targetSolids = computation?.settings.targetSolidsPct ?? null;
+  const measuredSolids = correctedBrix ?? cook.brixReading ?? null;
+  const solidsOff = targetSolids !== null && measuredSolids !== null && Math.abs(measuredSolids - targetSolids) > TOLERANCES.solidsBrix;
+  rows.push(row('solids', 'Soluble solids', '°Brix', targetSolids, measuredSolids, measuredSolids === null ? 'unknown' : solidsOff ? 'out' : 'ok',
+    brixNote ?? (solidsOff ? 'Off the target by more than 1 °Brix (common practice).' : 'Refractometer reading against the target solids.')));
+  const endPoint = computation?.endPoint.endPointC ?? null;
+  const epOff = endPoint !== null && cook.endPointTempC != null && Math.abs(cook.endPointTempC - endPoint) > TOLERANCES.endPointC;
+  rows.push(row('end_point', 'End-point temperature', '°C', endPoint, cook.endPointTempC ?? null, cook.endPointTempC == null ? 'unknown' : epOff ? 'watch' : 'ok',
+    epOff ? 'More than 1 °C from the predicted end point (common practice): check the thermometer and the water boiling point.' : 'Against the predicted end point for this kitchen.'));
+  const ph = cook.ph ?? null;
+  let phFlag: ComparisonFlag = 'unknown';
+  let phNote = 'No pH measured.';
+  if (ph !== null) {
+    if (ph > ACID_FOOD_MAX_PH) {
+      phFlag = 'danger';
+      phNote = 'Above pH 4.6: not an acid food (21 CFR 114.3). Do not sell or store this batch without a validated process. Local food-safety codes and licensed practice govern.';
+    } else if (ph < SET_PH_MIN || ph > SET_PH_MAX) {
+      phFlag = 'out';
+      phNote = `Outside pH ${SET_PH_MIN}–${SET_PH_MAX}, where high-methoxyl pectin sets (McGee, On Food and Cooking).`;
+    } else {
+      phFlag = 'ok';
+      phNote = `Within pH ${SET_PH_MIN}–${SET_PH_MAX}.`;
+    }
+  }
+  rows.push(row('ph', 'pH', 'pH', plannedPh ?? null, ph, phFlag, phNote));
+  return { scale, correctedBrix, brixNote, rows };
+}

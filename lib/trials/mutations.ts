@@ -1,0 +1,231 @@
+/** Trial writes, shared by the server actions and the API. */
+import type { EntityManager } from '@mikro-orm/postgresql';
+import { LockMode } from '@mikro-orm/core';
+import { getEm } from '@/lib/db';
+import { Formula, FormulaRevision, Measurement, Trial, TrialStatusChange, Variant } from '@/entities';
+import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
+import { Conflict, ValidationFailed } from '@/lib/api/errors';
+import { resolveLines } from '@/lib/chemistry';
+import { prepareRevision } from '@/lib/formulas/mutations';
+import type { RevisionLine, RevisionSummary, FormulaSettingsInput } from '@/lib/formulas/schema';
+import { computeFormula } from '@/lib/formulas/compute';
+import { applyFactorLevels, measureFactor, planRuns, PlanError, type FactorLevel, type MassLine } from './plan';
+import { TRIAL_STATUS_LABELS, TRIAL_TRANSITIONS, type TrialStatus } from './vocabulary';
+import type { CreateTrialInput, ManualVariantInput, MeasurementInput, PlanInput } from './schema';
+
+/** A, B, … Z, AA, AB, … in creation order; A is always the base. */
+export function variantLabel(index: number): string {
+  let n = index;
+  let label = '';
+  do {
+    label = String.fromCharCode(65 + (n % 26)) + label;
+    n = Math.floor(n / 26) - 1;
+  } while (n >= 0);
+  return label;
+}
+
+function summarise(settings: FormulaSettingsInput, lines: RevisionLine[]): RevisionSummary {
+  const outcome = computeFormula(settings, lines);
+  if (!outcome.ok) return { complianceOverall: null, dangerCount: 0, warningCount: 0, finishedMassG: null };
+  const c = outcome.computation;
+  return {
+    complianceOverall: c.compliance.overall,
+    dangerCount: c.cautions.filter((x) => x.severity === 'danger').length,
+    warningCount: c.cautions.filter((x) => x.severity === 'warning').length,
+    finishedMassG: c.massBalance.finishedMassG,
+  };
+}
+
+async function loadTrialForUpdate(tx: EntityManager, actor: Actor, trialId: string) {
+  const trial = await tx.findOne(Trial, { ...inWorkspace(actor), id: trialId }, { lockMode: LockMode.PESSIMISTIC_WRITE });
+  if (!trial) throw notFound('trial');
+  return trial;
+}
+
+export async function createTrial(actor: Actor, input: CreateTrialInput): Promise<{ trialId: string; code: string }> {
+  const em = await getEm();
+  const formula = await em.findOne(Formula, { ...inWorkspace(actor), id: input.formulaId, archivedAt: null });
+  if (!formula) throw new ValidationFailed('Choose a base formula of this workspace.', { formulaId: ['Choose a base formula of this workspace.'] });
+  const number = input.baseRevision ?? formula.latestRevision;
+  const revision = await em.findOne(FormulaRevision, { ...inWorkspace(actor), formula: formula.id, number });
+  if (!revision) throw new ValidationFailed('That revision does not exist.', { baseRevision: [`Formula “${formula.name}” has revisions 1 to ${formula.latestRevision}.`] });
+
+  return em.transactional(async (tx) => {
+    // Serialise numbering per workspace; the unique (workspace, number) index is the backstop.
+    await tx.getConnection().execute('select pg_advisory_xact_lock(hashtext(?))', [`trial-number:${actor.workspaceId}`]);
+    const last = await tx.findOne(Trial, inWorkspace(actor), { orderBy: { number: 'desc' } });
+    const trial = tx.create(Trial, {
+      workspace: actor.workspaceId,
+      number: (last?.number ?? 0) + 1,
+      title: input.title,
+      question: input.question,
+      owner: actor.userId,
+      baseFormula: formula.id,
+      baseRevision: number,
+    } as never) as unknown as { id: string; number: number };
+    tx.create(Variant, {
+      workspace: actor.workspaceId,
+      trial,
+      label: variantLabel(0),
+      isBase: true,
+      description: `Base: ${formula.name}, revision ${number}`,
+      factorLevels: [],
+      settings: revision.settings,
+      lines: revision.lines,
+      summary: revision.summary,
+      position: 0,
+      createdBy: actor.userId,
+    } as never);
+    tx.create(TrialStatusChange, { workspace: actor.workspaceId, trial, fromStatus: null, toStatus: 'planning', changedBy: actor.userId } as never);
+    await tx.flush();
+    return { trialId: trial.id, code: `T-${String(trial.number).padStart(3, '0')}` };
+  });
+}
+
+export async function transitionTrial(actor: Actor, trialId: string, to: TrialStatus, note?: string): Promise<void> {
+  const em = await getEm();
+  await em.transactional(async (tx) => {
+    const trial = await loadTrialForUpdate(tx, actor, trialId);
+    const from = trial.status as TrialStatus;
+    if (!TRIAL_TRANSITIONS[from].includes(to)) {
+      throw new Conflict(`A trial that is “${TRIAL_STATUS_LABELS[from]}” cannot move to “${TRIAL_STATUS_LABELS[to]}”.`);
+    }
+    tx.create(TrialStatusChange, { workspace: actor.workspaceId, trial, fromStatus: trial.status, toStatus: to, note: note || null, changedBy: actor.userId } as never);
+    trial.status = to;
+    trial.updatedAt = new Date();
+    await tx.flush();
+  });
+}
+
+function assertEditable(status: TrialStatus) {
+  if (status !== 'planning' && status !== 'cooking') {
+    throw new Conflict(`Variants can be changed while the trial is “${TRIAL_STATUS_LABELS.planning}” or “${TRIAL_STATUS_LABELS.cooking}”.`);
+  }
+}
+
+function massLinesOf(lines: RevisionLine[]): MassLine[] {
+  const resolved = resolveLines(lines.map((l) => ({ ingredient: l.ingredient, quantity: l.quantity, unit: l.unit })));
+  return resolved.map((r) => ({ ingredient: r.ingredient, massG: r.massG }));
+}
+
+/** Generates the planned variants from the base variant; the base gets its own factor levels recorded. */
+export async function planVariants(actor: Actor, trialId: string, plan: PlanInput): Promise<{ created: string[] }> {
+  const em = await getEm();
+  return em.transactional(async (tx) => {
+    const trial = await loadTrialForUpdate(tx, actor, trialId);
+    assertEditable(trial.status as TrialStatus);
+    const base = await tx.findOneOrFail(Variant, { ...inWorkspace(actor), trial: trialId, isBase: true });
+    const existing = await tx.count(Variant, { trial: trialId });
+    let runs;
+    let baseMass: MassLine[];
+    try {
+      baseMass = massLinesOf(base.lines);
+      const baseLevels = Object.fromEntries(plan.factors.map((f) => [f.factor, measureFactor(baseMass, f.factor)]));
+      runs = planRuns(plan.kind, plan.factors, { centrePoint: plan.centrePoint, baseLevels });
+      base.factorLevels = plan.factors.map((f) => {
+        const half = (f.high - f.low) / 2;
+        return { factor: f.factor, value: baseLevels[f.factor], coded: (baseLevels[f.factor] - (f.low + f.high) / 2) / half };
+      });
+    } catch (err) {
+      if (err instanceof PlanError) throw new ValidationFailed(err.message, { [err.field]: [err.message] });
+      throw err;
+    }
+    const created: string[] = [];
+    runs.forEach((run, i) => {
+      let scaled: MassLine[];
+      try {
+        scaled = applyFactorLevels(baseMass, run.levels);
+      } catch (err) {
+        if (err instanceof PlanError) throw new ValidationFailed(err.message, { [err.field]: [err.message] });
+        throw err;
+      }
+      const lines: RevisionLine[] = base.lines.map((l, j) => ({ ...l, quantity: scaled[j].massG, unit: 'g' }));
+      const label = variantLabel(existing + i);
+      tx.create(Variant, {
+        workspace: actor.workspaceId,
+        trial,
+        label,
+        isBase: false,
+        description: run.description,
+        factorLevels: run.levels as FactorLevel[],
+        settings: base.settings,
+        lines,
+        summary: summarise(base.settings, lines),
+        position: existing + i,
+        createdBy: actor.userId,
+      } as never);
+      created.push(label);
+    });
+    trial.updatedAt = new Date();
+    await tx.flush();
+    return { created };
+  });
+}
+
+/** A hand-made variant: any lines, checked and snapshotted exactly like a formula revision. */
+export async function addVariant(actor: Actor, trialId: string, input: ManualVariantInput): Promise<{ variantId: string; label: string }> {
+  const em = await getEm();
+  const trialCheck = await em.findOne(Trial, { ...inWorkspace(actor), id: trialId });
+  if (!trialCheck) throw notFound('trial');
+  const base = await em.findOneOrFail(Variant, { ...inWorkspace(actor), trial: trialId, isBase: true });
+  const settings = input.settings ?? base.settings;
+  const { stored, summary } = await prepareRevision(actor, settings, input.lines);
+  return em.transactional(async (tx) => {
+    const trial = await loadTrialForUpdate(tx, actor, trialId);
+    assertEditable(trial.status as TrialStatus);
+    const position = await tx.count(Variant, { trial: trialId });
+    const label = variantLabel(position);
+    const v = tx.create(Variant, {
+      workspace: actor.workspaceId, trial, label, isBase: false, description: input.description, factorLevels: [],
+      settings, lines: stored, summary, position, createdBy: actor.userId,
+    } as never) as unknown as { id: string };
+    trial.updatedAt = new Date();
+    await tx.flush();
+    return { variantId: v.id, label };
+  });
+}
+
+/** Removing keeps the row (and its cooks) for the record; the base cannot be removed. */
+export async function removeVariant(actor: Actor, trialId: string, variantId: string): Promise<void> {
+  const em = await getEm();
+  await em.transactional(async (tx) => {
+    const trial = await loadTrialForUpdate(tx, actor, trialId);
+    const v = await tx.findOne(Variant, { ...inWorkspace(actor), trial: trialId, id: variantId, removedAt: null });
+    if (!v) throw notFound('variant');
+    if (v.isBase) throw new Conflict('The base variant stays: it is what the others are compared with.');
+    assertEditable(trial.status as TrialStatus);
+    v.removedAt = new Date();
+    await tx.flush();
+  });
+}
+
+export function measurementColumns(m: Omit<MeasurementInput, 'variantId'>) {
+  return {
+    cookDate: m.cookDate,
+    batchSizeG: m.batchSizeG ?? null, brixReading: m.brixReading ?? null, brixSampleTempC: m.brixSampleTempC ?? null,
+    ph: m.ph ?? null, endPointTempC: m.endPointTempC ?? null, boilTimeMin: m.boilTimeMin ?? null,
+    setTestScore: m.setTestScore ?? null, setTestMethod: m.setTestMethod ?? null, syneresis: m.syneresis ?? null,
+    colourNotes: m.colourNotes ?? null, yieldJars: m.yieldJars ?? null, yieldG: m.yieldG ?? null, notes: m.notes ?? null,
+  };
+}
+
+export async function recordMeasurement(actor: Actor, trialId: string, input: MeasurementInput): Promise<{ measurementId: string }> {
+  const em = await getEm();
+  const trial = await em.findOne(Trial, { ...inWorkspace(actor), id: trialId });
+  if (!trial) throw notFound('trial');
+  const variant = await em.findOne(Variant, { ...inWorkspace(actor), trial: trialId, id: input.variantId, removedAt: null });
+  if (!variant) throw new ValidationFailed('Choose a variant of this trial.', { variantId: ['Choose a variant of this trial.'] });
+  const { variantId: _ignored, ...rest } = input;
+  void _ignored;
+  const m = em.create(Measurement, { workspace: actor.workspaceId, variant, recordedBy: actor.userId, ...measurementColumns(rest) } as never) as unknown as { id: string };
+  trial.updatedAt = new Date();
+  await em.flush();
+  return { measurementId: m.id };
+}
+
+export async function deleteMeasurement(actor: Actor, trialId: string, measurementId: string): Promise<void> {
+  const em = await getEm();
+  const m = await em.findOne(Measurement, { ...inWorkspace(actor), id: measurementId, variant: { trial: trialId } });
+  if (!m) throw notFound('measurement');
+  await em.remove(m).flush();
+}

@@ -1,0 +1,135 @@
+import { getEm } from '@/lib/db';
+import { Formula, FormulaRevision, Measurement, Trial, TrialStatusChange, Variant } from '@/entities';
+import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
+import { computeFormula } from '@/lib/formulas/compute';
+import { compareCook } from './compare';
+import { trialCode } from './access';
+import type { MeasurementView, StatusChangeView, TrialListQuery, TrialOverview, TrialSummary, VariantView } from './schema';
+
+type TrialRow = {
+  id: string; number: number; title: string; question: string; status: TrialOverview['status'];
+  owner: { id: string; name: string }; baseFormula: { id: string; name: string }; baseRevision: number;
+  createdAt: Date; updatedAt: Date;
+};
+
+export async function listTrials(actor: Actor, query: TrialListQuery = {}): Promise<TrialSummary[]> {
+  const em = await getEm();
+  const where: Record<string, unknown> = { ...inWorkspace(actor) };
+  if (query.status) where.status = query.status;
+  else where.status = { $ne: 'archived' };
+  if (query.owner) where.owner = query.owner;
+  if (query.from || query.to) {
+    where.createdAt = {
+      ...(query.from ? { $gte: new Date(`${query.from}T00:00:00Z`) } : {}),
+      ...(query.to ? { $lt: new Date(new Date(`${query.to}T00:00:00Z`).getTime() + 86_400_000) } : {}),
+    };
+  }
+  if (query.q?.trim()) where.title = { $ilike: `%${query.q.trim().replace(/[%_\\]/g, (c) => `\\${c}`)}%` };
+  const trials = (await em.find(Trial, where, { populate: ['owner', 'baseFormula'], orderBy: { updatedAt: 'desc' }, limit: 500 })) as unknown as TrialRow[];
+  if (!trials.length) return [];
+  const variants = await em.find(Variant, { ...inWorkspace(actor), trial: { $in: trials.map((t) => t.id) }, removedAt: null }, { fields: ['trial', 'settings', 'isBase'] });
+  const counts = new Map<string, number>();
+  const productOf = new Map<string, TrialSummary['productClass']>();
+  for (const v of variants as unknown as Array<{ trial: { id: string }; settings: { productClass: TrialSummary['productClass'] }; isBase: boolean }>) {
+    counts.set(v.trial.id, (counts.get(v.trial.id) ?? 0) + 1);
+    if (v.isBase) productOf.set(v.trial.id, v.settings.productClass);
+  }
+  return trials
+    .map((t) => ({
+      id: t.id,
+      code: trialCode(t.number),
+      title: t.title,
+      status: t.status,
+      ownerId: t.owner.id,
+      ownerName: t.owner.name,
+      baseFormulaName: t.baseFormula.name,
+      productClass: productOf.get(t.id) ?? 'jam',
+      variantCount: counts.get(t.id) ?? 0,
+      createdAt: t.createdAt.toISOString(),
+      updatedAt: t.updatedAt.toISOString(),
+    }))
+    .filter((t) => !query.product || t.productClass === query.product);
+}
+
+type VariantRow = Omit<VariantView, 'computation' | 'computationError' | 'measurements'> & { trial: { id: string } };
+type MeasurementRow = MeasurementView & { variant: { id: string }; recordedBy: { name: string }; createdAt: Date; cookDate: string };
+
+function toMeasurementView(m: MeasurementRow, v: VariantView): MeasurementView {
+  const readings = {
+    batchSizeG: m.batchSizeG ?? null, brixReading: m.brixReading ?? null, brixSampleTempC: m.brixSampleTempC ?? null, ph: m.ph ?? null,
+    endPointTempC: m.endPointTempC ?? null, boilTimeMin: m.boilTimeMin ?? null, setTestScore: m.setTestScore ?? null,
+    setTestMethod: m.setTestMethod ?? null, syneresis: m.syneresis ?? null, colourNotes: m.colourNotes ?? null,
+    yieldJars: m.yieldJars ?? null, yieldG: m.yieldG ?? null, notes: m.notes ?? null,
+  };
+  return {
+    id: m.id,
+    variantId: m.variant.id,
+    cookDate: m.cookDate,
+    ...readings,
+    recordedByName: m.recordedBy.name,
+    createdAt: m.createdAt.toISOString(),
+    comparison: compareCook(v.computation, readings, v.settings.plannedPh),
+  };
+}
+
+/** Variants with their recomputed chemistry and every cook beside its prediction. */
+export async function listVariants(actor: Actor, trialId: string): Promise<VariantView[]> {
+  const em = await getEm();
+  const rows = (await em.find(Variant, { ...inWorkspace(actor), trial: trialId, removedAt: null }, { orderBy: { position: 'asc' } })) as unknown as VariantRow[];
+  const measurements = (await em.find(
+    Measurement,
+    { ...inWorkspace(actor), variant: { $in: rows.map((r) => r.id) } },
+    { populate: ['recordedBy'], orderBy: { cookDate: 'asc', createdAt: 'asc' } },
+  )) as unknown as MeasurementRow[];
+  return rows.map((r) => {
+    const outcome = computeFormula(r.settings, r.lines);
+    const view: VariantView = {
+      id: r.id,
+      label: r.label,
+      isBase: r.isBase,
+      description: r.description,
+      factorLevels: r.factorLevels,
+      settings: r.settings,
+      lines: r.lines,
+      summary: r.summary,
+      computation: outcome.ok ? outcome.computation : null,
+      computationError: outcome.ok ? null : outcome.message,
+      measurements: [],
+    };
+    view.measurements = measurements.filter((m) => m.variant.id === r.id).map((m) => toMeasurementView(m, view));
+    return view;
+  });
+}
+
+export async function getTrialOverview(actor: Actor, trialId: string): Promise<TrialOverview> {
+  const em = await getEm();
+  const t = (await em.findOne(Trial, { ...inWorkspace(actor), id: trialId }, { populate: ['owner', 'baseFormula'] })) as unknown as TrialRow | null;
+  if (!t) throw notFound('trial');
+  const history = (await em.find(TrialStatusChange, { ...inWorkspace(actor), trial: trialId }, { populate: ['changedBy'], orderBy: { changedAt: 'asc' } })) as unknown as Array<{
+    fromStatus?: StatusChangeView['from']; toStatus: StatusChangeView['to']; note?: string | null; changedBy: { name: string }; changedAt: Date;
+  }>;
+  return {
+    id: t.id,
+    code: trialCode(t.number),
+    title: t.title,
+    question: t.question,
+    status: t.status,
+    owner: { id: t.owner.id, name: t.owner.name },
+    baseFormula: { id: t.baseFormula.id, name: t.baseFormula.name, revision: t.baseRevision },
+    createdAt: t.createdAt.toISOString(),
+    variants: await listVariants(actor, trialId),
+    history: history.map((h) => ({ from: h.fromStatus ?? null, to: h.toStatus, note: h.note ?? null, byName: h.changedBy.name, at: h.changedAt.toISOString() })),
+  };
+}
+
+/** Formulas to start a trial from, with their latest revision. */
+export async function listTrialBases(actor: Actor): Promise<Array<{ formulaId: string; name: string; latestRevision: number }>> {
+  const em = await getEm();
+  const rows = await em.find(Formula, { ...inWorkspace(actor), archivedAt: null }, { orderBy: { name: 'asc' } });
+  return rows.map((f) => ({ formulaId: f.id, name: f.name, latestRevision: f.latestRevision }));
+}
+
+export async function revisionExists(actor: Actor, formulaId: string, number: number): Promise<boolean> {
+  const em = await getEm();
+  return (await em.count(FormulaRevision, { ...inWorkspace(actor), formula: formulaId, number })) > 0;
+}

@@ -1,0 +1,144 @@
+/** Trials, variants and cooks: zod schemas shared by forms, actions and the API, and the plain views. */
+import { z } from 'zod';
+import { formulaLineSchema, formulaSettingsSchema, PRODUCT_CLASSES, type FormulaSettingsInput, type RevisionLine, type RevisionSummary } from '@/lib/formulas/schema';
+import { SET_TEST_METHODS, SYNERESIS_LEVELS, TRIAL_FACTORS, TRIAL_STATUSES, type TrialStatus } from './vocabulary';
+import type { FactorLevel } from './plan';
+import type { BatchComputation } from '@/lib/chemistry';
+import type { CookComparison } from './compare';
+
+const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'Use a date like 2026-11-20.').refine((s) => !Number.isNaN(Date.parse(s)), 'Not a real date.');
+const opt = (schema: z.ZodNumber) => schema.nullable().optional();
+const num = (what: string) => z.number({ error: `${what} must be a number.` });
+
+export const createTrialSchema = z
+  .object({
+    title: z.string().trim().min(1, 'Give the trial a title.').max(160, 'Use at most 160 characters.'),
+    question: z.string().trim().min(1, 'Say what the trial should find out.').max(4000, 'Use at most 4000 characters.'),
+    formulaId: z.uuid('Choose a base formula.'),
+    /** Defaults to the formula's latest revision. */
+    baseRevision: z.number().int().positive().optional(),
+  })
+  .strict();
+
+export const transitionSchema = z.object({ to: z.enum(TRIAL_STATUSES, { error: 'Unknown status.' }), note: z.string().trim().max(500).optional() }).strict();
+
+export const planSchema = z
+  .object({
+    kind: z.enum(['one_factor_at_a_time', 'full_factorial'], { error: 'Choose a design.' }),
+    factors: z
+      .array(
+        z.object({
+          factor: z.enum(TRIAL_FACTORS, { error: 'Unknown factor.' }),
+          low: num('The low level').min(0, 'Levels cannot be negative.').max(10_000),
+          high: num('The high level').min(0, 'Levels cannot be negative.').max(10_000),
+        }).strict(),
+      )
+      .min(1, 'Choose at least one factor.')
+      .max(3, 'At most three factors.'),
+    centrePoint: z.boolean().default(false),
+  })
+  .strict();
+
+export const manualVariantSchema = z
+  .object({
+    description: z.string().trim().min(1, 'Say what this variant changes.').max(200),
+    settings: formulaSettingsSchema.optional(),
+    lines: z.array(formulaLineSchema).min(1, 'Add at least one line.').max(60),
+  })
+  .strict();
+
+export const measurementSchema = z
+  .object({
+    variantId: z.uuid('Choose the variant that was cooked.'),
+    cookDate: isoDate,
+    batchSizeG: opt(num('Batch size').positive('Batch size must be more than 0.').max(5_000_000)),
+    brixReading: opt(num('The refractometer reading').min(0, 'A Brix reading cannot be negative.').max(95, 'A Brix reading above 95 is not plausible.')),
+    brixSampleTempC: opt(num('The sample temperature').min(0, 'Sample temperature must be at least 0 °C.').max(60, 'Sample temperature must be at most 60 °C.')),
+    ph: opt(num('pH').min(0, 'pH runs from 0 to 14.').max(14, 'pH runs from 0 to 14.')),
+    endPointTempC: opt(num('The end-point temperature').min(60, 'An end point below 60 °C is not plausible.').max(130, 'An end point above 130 °C is not plausible.')),
+    boilTimeMin: opt(num('Boil time').min(0, 'Boil time cannot be negative.').max(600, 'Boil time must be at most 600 minutes.')),
+    setTestScore: z.number().int('Use a whole score.').min(1, 'Score from 1 to 5.').max(5, 'Score from 1 to 5.').nullable().optional(),
+    setTestMethod: z.enum(SET_TEST_METHODS, { error: 'Use cold_plate, spoon or flake.' }).nullable().optional(),
+    syneresis: z.enum(SYNERESIS_LEVELS, { error: 'Use none, slight or marked.' }).nullable().optional(),
+    colourNotes: z.string().trim().max(500).nullable().optional(),
+    yieldJars: z.number().int('Jars are counted whole.').min(0, 'Jars cannot be negative.').max(100_000).nullable().optional(),
+    yieldG: opt(num('Yield').min(0, 'Yield cannot be negative.').max(5_000_000)),
+    notes: z.string().trim().max(2000).nullable().optional(),
+  })
+  .strict()
+  .refine((m) => (m.brixReading == null) === (m.brixSampleTempC == null), {
+    path: ['brixSampleTempC'],
+    message: 'Give the sample temperature with the refractometer reading (it is corrected to 20 °C).',
+  });
+
+export const trialListQuerySchema = z.object({
+  status: z.enum(TRIAL_STATUSES).optional(),
+  owner: z.uuid().optional(),
+  product: z.enum(PRODUCT_CLASSES).optional(),
+  from: isoDate.optional(),
+  to: isoDate.optional(),
+  q: z.string().max(100).optional(),
+});
+
+export type CreateTrialInput = z.infer<typeof createTrialSchema>;
+export type PlanInput = z.infer<typeof planSchema>;
+export type ManualVariantInput = z.infer<typeof manualVariantSchema>;
+export type MeasurementInput = z.infer<typeof measurementSchema>;
+export type TrialListQuery = z.infer<typeof trialListQuerySchema>;
+
+export interface TrialSummary {
+  id: string;
+  code: string;
+  title: string;
+  status: TrialStatus;
+  ownerId: string;
+  ownerName: string;
+  baseFormulaName: string;
+  productClass: (typeof PRODUCT_CLASSES)[number];
+  variantCount: number;
+  createdAt: string;
+  updatedAt: string;
+}
+
+export interface MeasurementView extends Omit<MeasurementInput, 'variantId'> {
+  id: string;
+  variantId: string;
+  recordedByName: string;
+  createdAt: string;
+  comparison: CookComparison;
+}
+
+export interface VariantView {
+  id: string;
+  label: string;
+  isBase: boolean;
+  description: string;
+  factorLevels: FactorLevel[];
+  settings: FormulaSettingsInput;
+  lines: RevisionLine[];
+  summary: RevisionSummary;
+  computation: BatchComputation | null;
+  computationError: string | null;
+  measurements: MeasurementView[];
+}
+
+export interface StatusChangeView {
+  from: TrialStatus | null;
+  to: TrialStatus;
+  note: string | null;
+  byName: string;
+  at: string;
+}
+
+export interface TrialOverview {
+  id: string;
+  code: string;
+  title: string;
+  question: string;
+  status: TrialStatus;
+  owner: { id: string; name: string };
+  baseFormula: { id: string; name: string; revision: number };
+  createdAt: string;
+  variants: VariantView[];
+  history: StatusChangeView[];
+}

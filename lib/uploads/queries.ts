@@ -1,0 +1,99 @@
+/** Upload reads, scoped to the actor's workspace; another workspace's upload is a plain 404. */
+import { getEm } from '@/lib/db';
+import { Upload } from '@/entities';
+import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
+import { isUuid } from '@/lib/ids';
+import { loadTrial } from '@/lib/trials/access';
+import { getObject } from '@/lib/storage';
+import { contentDisposition } from './content';
+import { thumbnailUrl, uploadUrl, uploadListQuerySchema, type UploadKind, type UploadListQuery, type UploadSubject, type UploadView } from './schema';
+
+export interface UploadRow {
+  id: string;
+  kind: UploadKind;
+  subject?: string | null;
+  variantId?: string | null;
+  measurementId?: string | null;
+  originalName: string;
+  contentType: string;
+  sizeBytes: number;
+  storageKey: string;
+  thumbnailKey?: string | null;
+  width?: number | null;
+  height?: number | null;
+  createdAt: Date;
+  uploadedBy?: { name?: string } | null;
+}
+
+export function toUploadView(row: UploadRow, uploadedByName?: string): UploadView {
+  return {
+    id: row.id,
+    kind: row.kind,
+    subject: (row.subject as UploadSubject | null | undefined) ?? null,
+    variantId: row.variantId ?? null,
+    measurementId: row.measurementId ?? null,
+    originalName: row.originalName,
+    contentType: row.contentType,
+    sizeBytes: row.sizeBytes,
+    width: row.width ?? null,
+    height: row.height ?? null,
+    createdAt: row.createdAt.toISOString(),
+    uploadedByName: uploadedByName ?? row.uploadedBy?.name ?? null,
+    url: uploadUrl(row.id),
+    thumbnailUrl: row.thumbnailKey ? thumbnailUrl(row.id) : null,
+  };
+}
+
+/** A trial's uploads in the order they were taken (oldest first), optionally for one variant or cook. */
+export async function listUploads(actor: Actor, trialId: string, query: UploadListQuery = {}): Promise<UploadView[]> {
+  await loadTrial(actor, trialId);
+  const filter = uploadListQuerySchema.parse(query);
+  const em = await getEm();
+  const where: Record<string, unknown> = { ...inWorkspace(actor), trial: trialId };
+  if (filter.variantId) where.variantId = filter.variantId;
+  if (filter.measurementId) where.measurementId = filter.measurementId;
+  const rows = await em.find(Upload, where, { populate: ['uploadedBy'], orderBy: { createdAt: 'asc', id: 'asc' }, limit: 1000 });
+  return (rows as unknown as UploadRow[]).map((r) => toUploadView(r));
+}
+
+/** The row itself (storage keys included), for the download and delete paths only. */
+export async function findUploadRow(actor: Actor, uploadId: string): Promise<UploadRow> {
+  if (!isUuid(uploadId)) throw notFound('upload');
+  const em = await getEm();
+  const row = await em.findOne(Upload, { ...inWorkspace(actor), id: uploadId }, { populate: ['uploadedBy'] });
+  if (!row) throw notFound('upload');
+  return row as unknown as UploadRow;
+}
+
+export async function getUpload(actor: Actor, uploadId: string): Promise<UploadView> {
+  return toUploadView(await findUploadRow(actor, uploadId));
+}
+
+export interface UploadDownload {
+  body: ReadableStream<Uint8Array>;
+  headers: Record<string, string>;
+}
+
+/**
+ * The original or the thumbnail with the headers a download needs: the sniffed type (never the
+ * client's), nosniff so browsers do not second-guess it, inline only for images and PDF.
+ */
+export async function openUpload(actor: Actor, uploadId: string, which: 'original' | 'thumbnail'): Promise<UploadDownload> {
+  const row = await findUploadRow(actor, uploadId);
+  const key = which === 'original' ? row.storageKey : row.thumbnailKey;
+  if (!key) throw notFound('thumbnail');
+  const object = await getObject(key);
+  if (!object) throw notFound(which === 'original' ? 'upload' : 'thumbnail');
+
+  const contentType = which === 'thumbnail' ? 'image/webp' : row.contentType === 'text/csv' ? 'text/csv; charset=utf-8' : row.contentType;
+  const inline = which === 'thumbnail' || row.contentType.startsWith('image/') || row.contentType === 'application/pdf';
+  const fileName = which === 'thumbnail' ? `${row.originalName.replace(/\.[^.]*$/, '')}-thumbnail.webp` : row.originalName;
+  const headers: Record<string, string> = {
+    'content-type': contentType,
+    'content-disposition': contentDisposition(inline ? 'inline' : 'attachment', fileName),
+    'x-content-type-options': 'nosniff',
+    'cache-control': 'private, max-age=300',
+  };
+  if (object.contentLength !== undefined) headers['content-length'] = String(object.contentLength);
+  return { body: object.body, headers };
+}

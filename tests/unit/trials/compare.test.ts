@@ -1,0 +1,55 @@
+import { describe, it, expect } from 'vitest';
+import { computeBatch } from '@/lib/chemistry';
+import { compareCook, TOLERANCES } from '@/lib/trials/compare';
+
+// Source: Practical Action technical brief "Jams, jellies and marmalade" — 20.115 kg charge,
+// 11.115 kg solids, 16.35 kg of jam at 68 % solids.
+const computation = computeBatch(
+  [
+    { ingredient: { kind: 'fruit', name: 'Fruit', solidsPct: 10 }, quantity: 10, unit: 'kg' },
+    { ingredient: { kind: 'sweetener', name: 'Sugar', solidsPct: 100, sweetenerType: 'sucrose' }, quantity: 10, unit: 'kg' },
+    { ingredient: { kind: 'pectin', name: 'Pectin', solidsPct: 100, pectinType: 'hm_rapid_set' }, quantity: 60, unit: 'g' },
+    { ingredient: { kind: 'acid', name: 'Citric acid', solidsPct: 100, acidType: 'citric' }, quantity: 55, unit: 'g' },
+  ],
+  { productClass: 'jam', ruleSet: 'eu', ruleDate: '2026-01-10', targetSolidsPct: 68, jarNetFillG: 454 },
+);
+
+describe('a cook beside its prediction', () => {
+  it('scales the predicted yield to the batch that was actually cooked', () => {
+    const c = compareCook(computation, { batchSizeG: 20115 / 2, yieldG: 8200 });
+    const mass = c.rows.find((r) => r.key === 'finished_mass')!;
+    expect(c.scale).toBeCloseTo(0.5, 12);
+    expect(mass.predicted! / 1000).toBeCloseTo(16.35 / 2, 2);
+    expect(mass.flag).toBe('ok');
+    expect(mass.difference).toBeCloseTo(8200 - mass.predicted!, 9);
+  });
+
+  it(`flags a yield more than ${TOLERANCES.massPct} % off (common practice, no published source)`, () => {
+    const c = compareCook(computation, { yieldG: 18000 });
+    expect(c.rows.find((r) => r.key === 'finished_mass')!.flag).toBe('watch');
+  });
+
+  it('corrects the refractometer reading to 20 °C before comparing with the target', () => {
+    // Source: OIV-MA-AS2-02, Table I: 65 % at 15 °C → −0.38.
+    const c = compareCook(computation, { brixReading: 65, brixSampleTempC: 15 });
+    expect(c.correctedBrix).toBeCloseTo(64.62, 2);
+    const solids = c.rows.find((r) => r.key === 'solids')!;
+    expect(solids.predicted).toBe(68);
+    expect(solids.flag).toBe('out');
+  });
+
+  it('pH: inside 2.8–3.5 ok, outside out, above 4.6 danger', () => {
+    // Sources: McGee, On Food and Cooking (HM pectin sets at pH 2.8–3.5); 21 CFR 114.3 (acid foods ≤ 4.6).
+    const flag = (ph: number) => compareCook(computation, { ph }).rows.find((r) => r.key === 'ph')!.flag;
+    expect(flag(3.1)).toBe('ok');
+    expect(flag(3.8)).toBe('out');
+    expect(flag(4.6)).toBe('out');
+    expect(flag(4.61)).toBe('danger');
+  });
+
+  it('without readings everything is unknown, never NaN', () => {
+    const c = compareCook(computation, {});
+    expect(c.rows.every((r) => r.flag === 'unknown')).toBe(true);
+    expect(JSON.stringify(c)).not.toContain('NaN');
+  });
+});
