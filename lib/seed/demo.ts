@@ -10,6 +10,7 @@ import type { Actor, Role } from '@/lib/permissions';
 import { addStarterLibrary } from '@/lib/ingredients/mutations';
 import { seedDemoFormulas } from './formulas';
 import { seedDemoTrials } from './trials';
+import { seedDemoNotebooks } from './notebook';
 
 export const DEMO_PASSWORD = 'setwell-demo-2026';
 
@@ -57,7 +58,8 @@ export async function seedDemo(em: EntityManager): Promise<SeedReport> {
   const developer = await em.fork().findOneOrFail(User, { email: DEMO_USERS[1].email });
   const actor = demoActor(developer, report.workspaceId, 'developer');
   await seedDemoFormulas(em.fork(), actor);
-  await seedDemoTrials(em.fork(), actor);
+  const trials = await seedDemoTrials(em.fork(), actor);
+  await seedDemoNotebooks(actor, trials);
   return report;
 }
 
