@@ -21,7 +21,8 @@ export const RULE_SET_LABELS: Record<(typeof RULE_SETS)[number], string> = {
   codex: 'Codex (CXS 296-2009)',
 };
 
-const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'Use a date like 2026-06-14.').refine((s) => !Number.isNaN(Date.parse(s)), 'Not a real date.');
+/** A calendar date as YYYY-MM-DD that is also a real date. Shared by every feature's schemas. */
+export const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'Use a date like 2026-06-14.').refine((s) => !Number.isNaN(Date.parse(s)), 'Not a real date.');
 
 export const formulaSettingsSchema = z
   .object({

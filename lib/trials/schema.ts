@@ -1,12 +1,11 @@
 /** Trials, variants and cooks: zod schemas shared by forms, actions and the API, and the plain views. */
 import { z } from 'zod';
-import { formulaLineSchema, formulaSettingsSchema, PRODUCT_CLASSES, type FormulaSettingsInput, type RevisionLine, type RevisionSummary } from '@/lib/formulas/schema';
+import { formulaLineSchema, formulaSettingsSchema, isoDate, PRODUCT_CLASSES, type FormulaSettingsInput, type RevisionLine, type RevisionSummary } from '@/lib/formulas/schema';
 import { SET_TEST_METHODS, SYNERESIS_LEVELS, TRIAL_FACTORS, TRIAL_STATUSES, type TrialStatus } from './vocabulary';
 import type { FactorLevel } from './plan';
 import type { BatchComputation } from '@/lib/chemistry';
 import type { CookComparison } from './compare';
 
-const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'Use a date like 2026-11-20.').refine((s) => !Number.isNaN(Date.parse(s)), 'Not a real date.');
 const opt = (schema: z.ZodNumber) => schema.nullable().optional();
 const num = (what: string) => z.number({ error: `${what} must be a number.` });
 
