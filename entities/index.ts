@@ -16,10 +16,16 @@ import { Measurement } from './Measurement';
 import { Upload } from './Upload';
 import { NotebookEntry } from './NotebookEntry';
 import { NotebookConflict } from './NotebookConflict';
+import { SensoryAttributeDef } from './SensoryAttributeDef';
+import { PanelSession } from './PanelSession';
+import { PanelSample } from './PanelSample';
+import { PanelSeat } from './PanelSeat';
+import { PanelAnswer } from './PanelAnswer';
 
 export {
   Workspace, User, Membership, Invitation, PasswordReset, ApiToken, RateLimitBucket, Ingredient, Formula, FormulaRevision,
   Trial, TrialStatusChange, Variant, Measurement, Upload, NotebookEntry, NotebookConflict,
+  SensoryAttributeDef, PanelSession, PanelSample, PanelSeat, PanelAnswer,
 };
 export { ROLES } from './Membership';
 
@@ -27,4 +33,5 @@ export const allEntities = [
   Workspace, User, Membership, Invitation, PasswordReset, ApiToken, RateLimitBucket,
   Ingredient, Formula, FormulaRevision,
   Trial, TrialStatusChange, Variant, Measurement, Upload, NotebookEntry, NotebookConflict,
+  SensoryAttributeDef, PanelSession, PanelSample, PanelSeat, PanelAnswer,
 ];

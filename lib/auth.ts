@@ -66,7 +66,7 @@ export function authOptions(): NextAuthOptions {
  * Without a proxy in front, Next.js passes a client's header through, so the per-account limit
  * is the one that always holds (see the README's operations notes).
  */
-function clientIp(headers: Record<string, unknown> | Headers): string {
+export function clientIp(headers: Record<string, unknown> | Headers): string {
   const get = (name: string) =>
     headers instanceof Headers ? headers.get(name) : (headers[name] as string | undefined);
   const forwarded = get('x-forwarded-for')?.split(',').map((s) => s.trim()).filter(Boolean);

@@ -33,6 +33,8 @@ const GRANTS = {
   'calc.run': STAFF,
   'trials.read': ['admin', 'developer', 'head_of_product'],
   'trials.write': ['admin', 'developer'],
+  'panels.read': ['admin', 'developer', 'head_of_product'],
+  'panels.run': ['admin', 'developer'],
 } satisfies Record<string, Role[]>;
 
 export type Permission = keyof typeof GRANTS;

@@ -61,6 +61,7 @@ export function describeError(err: unknown): { status: number; body: { error: { 
   }
   if (err instanceof ValidationFailed) return { status: 422, body: { error: { code: 'invalid', message: err.message, fields: err.fields } } };
   if (err instanceof Conflict) return { status: 409, body: { error: { code: 'conflict', message: err.message } } };
+  if (err instanceof Error && err.name === 'RateLimited') return { status: 429, body: { error: { code: 'rate_limited', message: err.message } } };
   if (isUniqueViolation(err)) return { status: 409, body: { error: { code: 'conflict', message: 'That already exists.' } } };
   return { status: 500, body: { error: { code: 'internal', message: 'Something went wrong on our side. Nothing was changed.' } } };
 }

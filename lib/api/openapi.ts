@@ -10,6 +10,7 @@ import { createTokenSchema } from '@/lib/api-tokens/schema';
 import { ingredientInputSchema } from '@/lib/ingredients/schema';
 import { calcBatchSchema, createFormulaSchema, reviseFormulaSchema } from '@/lib/formulas/schema';
 import { FILE_MAX_BYTES, PHOTO_MAX_BYTES, THUMBNAIL_MAX_PX, UPLOAD_SUBJECTS } from '@/lib/uploads/schema';
+import { answerSchema, createPanelSchema, inviteTastersSchema, joinSchema } from '@/lib/panels/schema';
 import { createTrialSchema, manualVariantSchema, measurementSchema, planSchema, transitionSchema } from '@/lib/trials/schema';
 import { saveNotebookBodySchema } from '@/lib/notebook/schema';
 
@@ -81,6 +82,19 @@ export const API_OPERATIONS: ApiOperation[] = [
   { method: 'get', path: '/api/v1/uploads/{uploadId}', summary: 'The original bytes, with the type read from them (inline for images and PDF, attachment for CSV)', tag: 'Uploads', permission: 'trials.read', okMediaTypes: ['image/jpeg', 'image/png', 'image/webp', 'application/pdf', 'text/csv'] },
   { method: 'get', path: '/api/v1/uploads/{uploadId}/thumbnail', summary: `A photo's WebP thumbnail, ${THUMBNAIL_MAX_PX} px at most, without metadata (404 for files)`, tag: 'Uploads', permission: 'trials.read', okMediaTypes: ['image/webp'] },
   { method: 'delete', path: '/api/v1/uploads/{uploadId}', summary: 'Delete a photo or file (the stored object and its record)', tag: 'Uploads', permission: 'trials.write' },
+  { method: 'get', path: '/api/v1/attributes', summary: 'The attribute library (what tasters rate, on which scale)', tag: 'Panels', permission: 'panels.read' },
+  { method: 'get', path: '/api/v1/trials/{trialId}/panels', summary: 'Tasting sessions of a trial', tag: 'Panels', permission: 'panels.read' },
+  { method: 'post', path: '/api/v1/trials/{trialId}/panels', summary: 'Create a tasting session (draft): samples get three-digit codes, serving orders are balanced', tag: 'Panels', permission: 'panels.run', request: createPanelSchema, okStatus: 201 },
+  { method: 'get', path: '/api/v1/panels/{sessionId}', summary: 'A session with live progress per seat (poll it)', tag: 'Panels', permission: 'panels.read' },
+  { method: 'post', path: '/api/v1/panels/{sessionId}/open', summary: 'Open for answers; returns the join code', tag: 'Panels', permission: 'panels.run' },
+  { method: 'post', path: '/api/v1/panels/{sessionId}/close', summary: 'Close and lock the answers', tag: 'Panels', permission: 'panels.run' },
+  { method: 'post', path: '/api/v1/panels/{sessionId}/invitations', summary: 'Seat staff tasters and e-mail each their own link', tag: 'Panels', permission: 'panels.run', request: inviteTastersSchema, okStatus: 201 },
+  { method: 'get', path: '/api/v1/panels/{sessionId}/serving-sheet', summary: 'The kitchen serving sheet: codes per seat and which variant each is', tag: 'Panels', permission: 'panels.run' },
+  { method: 'post', path: '/api/v1/tasting/join', summary: 'A guest joins with the short code (rate-limited per address); returns the seat token', tag: 'Tasting', permission: null, request: joinSchema, okStatus: 201 },
+  { method: 'get', path: '/api/v1/tasting/{seatToken}', summary: "The taster's view: codes in serving order, scales, own answers — nothing that maps to a variant", tag: 'Tasting', permission: null },
+  { method: 'post', path: '/api/v1/tasting/{seatToken}/consent', summary: 'Accept the allergen and consent notice', tag: 'Tasting', permission: null },
+  { method: 'put', path: '/api/v1/tasting/{seatToken}/answers', summary: 'Save one answer with an idempotency key (stored once; 409 after closing)', tag: 'Tasting', permission: null, request: answerSchema },
+  { method: 'post', path: '/api/v1/tasting/{seatToken}/submit', summary: 'Finish the tasting', tag: 'Tasting', permission: null },
   { method: 'get', path: '/api/v1/openapi.json', summary: 'This description', tag: 'Meta', permission: null },
 ];
 
@@ -111,7 +125,7 @@ export function buildOpenApiDocument(serverUrl: string) {
       name: m[1],
       in: 'path',
       required: true,
-      schema: m[1] === 'number' ? { type: 'integer', minimum: 1 } : { type: 'string', format: 'uuid' },
+      schema: m[1] === 'number' ? { type: 'integer', minimum: 1 } : m[1] === 'seatToken' ? { type: 'string', description: 'The seat token from the taster link' } : { type: 'string', format: 'uuid' },
     }));
     const errorRef = { description: 'Error', content: { 'application/json': { schema: { $ref: '#/components/schemas/Error' } } } };
     paths[op.path] ??= {};

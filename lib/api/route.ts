@@ -65,6 +65,23 @@ export function apiRoute<P = Record<string, never>>(
   };
 }
 
+/**
+ * For routes whose authorisation is not a staff session: the phone's seat token in the path,
+ * or none at all (joining with a code). Same body parsing and error shape as apiRoute.
+ */
+export function publicRoute<P = Record<string, never>>(handler: (ctx: Omit<ApiContext<P>, 'actor'>) => Promise<Response>) {
+  return async (req: Request, routeContext?: RouteContext<P>): Promise<Response> => {
+    try {
+      const params = (routeContext ? await routeContext.params : {}) as P;
+      return await handler({ req, params, body: (schema) => readBody(req, schema) });
+    } catch (err) {
+      const { status, body } = describeError(err);
+      if (status >= 500) logger.error({ err, path: new URL(req.url).pathname, method: req.method }, 'api handler failed');
+      return json(body, status);
+    }
+  };
+}
+
 async function readBody<S extends z.ZodType>(req: Request, schema: S): Promise<z.infer<S>> {
   const text = await req.text();
   if (text.length > MAX_BODY_BYTES) throw new ApiError(413, 'too_large', 'The request body is too large.');

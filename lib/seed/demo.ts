@@ -8,6 +8,7 @@ import { Membership, User, Workspace } from '@/entities';
 import { hashPassword } from '@/lib/passwords';
 import type { Actor, Role } from '@/lib/permissions';
 import { addStarterLibrary } from '@/lib/ingredients/mutations';
+import { addDefaultAttributes } from '@/lib/panels/mutations';
 import { seedDemoFormulas } from './formulas';
 import { seedDemoTrials } from './trials';
 import { seedDemoNotebooks } from './notebook';
@@ -53,6 +54,8 @@ export async function seedDemo(em: EntityManager): Promise<SeedReport> {
     await tx.flush();
     await addStarterLibrary(tx, demo.id);
     await addStarterLibrary(tx, brackenfold.id);
+    await addDefaultAttributes(tx, demo.id);
+    await addDefaultAttributes(tx, brackenfold.id);
     return { created: true, workspaceId: demo.id, otherWorkspaceId: brackenfold.id };
   });
   const developer = await em.fork().findOneOrFail(User, { email: DEMO_USERS[1].email });

@@ -13,6 +13,7 @@ import { hashSecret, newSecret } from '@/lib/secrets';
 import { API_TOKEN_PREFIX } from '@/lib/auth';
 import { ROLES, type Actor, type Role } from '@/lib/permissions';
 import { addStarterLibrary } from '@/lib/ingredients/mutations';
+import { addDefaultAttributes } from '@/lib/panels/mutations';
 
 // Server actions read the request through next/headers; tests set it per call.
 const requestState = vi.hoisted(() => ({ headers: new Headers(), setCookies: [] as Array<{ name: string; value: string }> }));
@@ -69,6 +70,7 @@ export async function createWorkspace(label = 'Test kitchen'): Promise<Workspace
   // Ids are assigned on flush.
   await em.flush();
   await addStarterLibrary(em, workspace.id);
+  await addDefaultAttributes(em, workspace.id);
   const people = {} as Record<Role, Person>;
   for (const c of created) {
     people[c.role] = { userId: c.user.id, email: c.email, role: c.role, token: c.token, sessionCookie: await sessionCookieFor(c.user.id) };

@@ -1,0 +1,38 @@
+import { defineEntity, type InferEntity } from '@mikro-orm/core';
+import { randomUUID } from 'node:crypto';
+import { Workspace } from './Workspace';
+import { PanelSession } from './PanelSession';
+import { PanelSeat } from './PanelSeat';
+
+/**
+ * One answer. (seat, item, attribute) is unique in the database: item is the sample code
+ * for ratings and '*' for a ranking or a triangle choice; attribute is '*' for triangles.
+ * A retry with the same idempotency key changes nothing.
+ */
+export const PanelAnswer = defineEntity({
+  name: 'PanelAnswer',
+  tableName: 'panel_answers',
+  properties: (p) => ({
+    id: p.uuid().primary().onCreate(() => randomUUID()),
+    workspace: p.manyToOne(Workspace),
+    session: p.manyToOne(PanelSession),
+    seat: p.manyToOne(PanelSeat),
+    kind: p.enum(['rating', 'ranking', 'triangle']),
+    item: p.string().length(3),
+    attribute: p.string().length(36),
+    /** The sample behind the code (ratings), for analysis; never sent to tasters. */
+    sampleId: p.uuid().nullable(),
+    value: p.double().$type<number>().nullable(),
+    ranking: p.json<string[]>().nullable(),
+    oddCode: p.string().length(3).nullable(),
+    correct: p.boolean().nullable(),
+    confidence: p.integer().nullable(),
+    comment: p.text().nullable(),
+    idempotencyKey: p.uuid(),
+    createdAt: p.datetime().onCreate(() => new Date()),
+    updatedAt: p.datetime().onCreate(() => new Date()),
+  }),
+  uniques: [{ properties: ['seat', 'item', 'attribute'] }],
+  indexes: [{ properties: ['workspace', 'session'] }],
+});
+export type PanelAnswerEntity = InferEntity<typeof PanelAnswer>;

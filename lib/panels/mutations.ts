@@ -1,0 +1,177 @@
+/** Panel sessions from the organiser's side: create, open, invite, close. */
+import type { EntityManager } from '@mikro-orm/postgresql';
+import { randomInt } from 'node:crypto';
+import { getEm } from '@/lib/db';
+import { LockMode } from '@mikro-orm/core';
+import { Membership, PanelSample, PanelSeat, PanelSession, SensoryAttributeDef, Trial, Variant } from '@/entities';
+import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
+import { Conflict, ValidationFailed } from '@/lib/api/errors';
+import { hashSecret, newSecret } from '@/lib/secrets';
+import { sendMail, escapeHtml } from '@/lib/mail';
+import { env } from '@/lib/env';
+import { createDefaultAttributeLibrary, drawBlindingCodes, servingOrderForSeat, shuffled, treatmentLetter, TRIANGLE_ORDERS } from '@/lib/sensory';
+import type { CreatePanelInput } from './schema';
+import type { ServedCup } from './vocabulary';
+
+export const SEAT_TOKEN_PREFIX = 'sws_';
+/** Letters and digits that cannot be misread for each other (no 0/O, 1/I/L). */
+const JOIN_ALPHABET = 'ABCDEFGHJKMNPQRSTUVWXYZ23456789';
+
+export async function addDefaultAttributes(em: EntityManager, workspaceId: string): Promise<void> {
+  for (const a of createDefaultAttributeLibrary()) {
+    em.create(SensoryAttributeDef, {
+      workspace: workspaceId, libraryKey: a.id, name: a.name, instruction: a.tasterInstruction, modality: a.modality, scale: a.scale,
+      formulationCaution: a.formulationCaution ?? null,
+    } as never);
+  }
+  await em.flush();
+}
+
+export async function createPanelSession(actor: Actor, trialId: string, input: CreatePanelInput): Promise<{ sessionId: string }> {
+  const em = await getEm();
+  const trial = await em.findOne(Trial, { ...inWorkspace(actor), id: trialId });
+  if (!trial) throw notFound('trial');
+  const variants = await em.find(Variant, { ...inWorkspace(actor), trial: trialId, id: { $in: input.variantIds }, removedAt: null });
+  if (variants.length !== input.variantIds.length) throw new ValidationFailed('Choose variants of this trial.', { variantIds: ['Choose variants of this trial.'] });
+  const attributeIds = [...input.attributeIds, ...(input.rankingAttributeId ? [input.rankingAttributeId] : [])];
+  if (attributeIds.length) {
+    const found = await em.count(SensoryAttributeDef, { ...inWorkspace(actor), id: { $in: attributeIds } });
+    if (found !== new Set(attributeIds).size) throw new ValidationFailed('Choose attributes from this workspace’s library.', { attributeIds: ['Choose attributes from this workspace’s library.'] });
+  }
+  return em.transactional(async (tx) => {
+    const session = tx.create(PanelSession, {
+      workspace: actor.workspaceId, trial, title: input.title, place: input.place ?? null, startsAt: input.startsAt ? new Date(input.startsAt) : null,
+      method: input.method, notice: input.notice, attributeIds: input.method === 'rated' ? input.attributeIds : [],
+      rankingAttributeId: input.method === 'ranking' ? input.rankingAttributeId ?? null : null, design: {}, createdBy: actor.userId,
+    } as never) as unknown as { id: string; design: Record<string, unknown> };
+    // Rated and ranking samples carry one code each; triangle cups are coded per seat.
+    const codes = input.method === 'triangle' ? [] : drawBlindingCodes(input.variantIds.length);
+    const samples = input.variantIds.map((variantId, i) =>
+      tx.create(PanelSample, { workspace: actor.workspaceId, session, variant: variantId, code: codes[i] ?? null, position: i } as never) as unknown as { id: string },
+    );
+    await tx.flush();
+    // Letters are assigned at random, so no variant is always served first in the design.
+    const order = shuffled(samples.map((s) => s.id));
+    session.design =
+      input.method === 'triangle'
+        ? { treatments: [{ letter: 'A', sampleId: order[0] }, { letter: 'B', sampleId: order[1] }], triangleCycle: shuffled([...TRIANGLE_ORDERS]) }
+        : { treatments: order.map((sampleId, i) => ({ letter: treatmentLetter(i), sampleId })) };
+    await tx.flush();
+    return { sessionId: session.id };
+  });
+}
+
+async function loadSession(em: EntityManager, actor: Actor, sessionId: string) {
+  const s = await em.findOne(PanelSession, { ...inWorkspace(actor), id: sessionId });
+  if (!s) throw notFound('tasting');
+  return s;
+}
+
+function newJoinCode(): string {
+  return Array.from({ length: 6 }, () => JOIN_ALPHABET[randomInt(JOIN_ALPHABET.length)]).join('');
+}
+
+export async function openPanelSession(actor: Actor, sessionId: string): Promise<{ joinCode: string }> {
+  const em = await getEm();
+  const s = await loadSession(em, actor, sessionId);
+  if (s.state !== 'draft') throw new Conflict(s.state === 'open' ? 'This tasting is already taking answers.' : 'A closed tasting cannot be reopened: its answers are locked.');
+  for (let attempt = 0; attempt < 5; attempt++) {
+    try {
+      s.joinCode = newJoinCode();
+      s.state = 'open';
+      s.openedAt = new Date();
+      await em.flush();
+      return { joinCode: s.joinCode };
+    } catch (err) {
+      if ((err as { code?: string }).code !== '23505') throw err;
+      em.clear();
+    }
+  }
+  throw new Conflict('Could not find a free join code; try again.');
+}
+
+/** Closing locks the answers; seats that did not submit stay, marked as partial. */
+export async function closePanelSession(actor: Actor, sessionId: string): Promise<{ openSeats: number }> {
+  const em = await getEm();
+  const s = await loadSession(em, actor, sessionId);
+  if (s.state === 'closed') throw new Conflict('This tasting is already closed.');
+  if (s.state === 'draft') throw new Conflict('Open the tasting before closing it.');
+  const openSeats = await em.count(PanelSeat, { session: s.id, submittedAt: null });
+  s.state = 'closed';
+  s.closedAt = new Date();
+  s.joinCode = null;
+  await em.flush();
+  return { openSeats };
+}
+
+/**
+ * Adds a seat in a transaction that locks the session, so seat numbers (and with them the
+ * balanced serving orders and the triangle codes) never collide.
+ */
+export async function addSeat(tx: EntityManager, sessionId: string, seat: { kind: 'staff' | 'guest'; userId?: string; displayName: string }): Promise<{ token: string; seatId: string }> {
+  const session = await tx.findOneOrFail(PanelSession, { id: sessionId }, { lockMode: LockMode.PESSIMISTIC_WRITE });
+  if (session.state !== 'open') throw new Conflict('This tasting is not taking answers.');
+  const seatIndex = await tx.count(PanelSeat, { session: sessionId });
+  const samples = await tx.find(PanelSample, { session: sessionId }, { orderBy: { position: 'asc' } });
+  const byId = new Map(samples.map((s) => [s.id, s]));
+  const treatments = session.design.treatments ?? [];
+  let servingOrder: ServedCup[];
+  let designRow: string;
+  if (session.method === 'triangle') {
+    const cycle = session.design.triangleCycle ?? [...TRIANGLE_ORDERS];
+    designRow = cycle[seatIndex % cycle.length];
+    const seats = await tx.find(PanelSeat, { session: sessionId }, { fields: ['servingOrder'] });
+    const used = seats.flatMap((s) => s.servingOrder.map((c) => c.code));
+    const codes = drawBlindingCodes(3, { exclude: used });
+    const sampleFor = (letter: string) => treatments.find((t) => t.letter === letter)!.sampleId;
+    servingOrder = [...designRow].map((letter, i) => ({ code: codes[i], sampleId: sampleFor(letter) }));
+  } else {
+    const rows = servingOrderForSeat(seatIndex, treatments.length);
+    designRow = rows.map((i) => treatments[i].letter).join('');
+    servingOrder = rows.map((i) => {
+      const sample = byId.get(treatments[i].sampleId)!;
+      return { code: sample.code!, sampleId: sample.id };
+    });
+  }
+  const token = newSecret(SEAT_TOKEN_PREFIX);
+  const row = tx.create(PanelSeat, {
+    workspace: (session.workspace as unknown as { id: string }).id, session, seatIndex, kind: seat.kind, user: seat.userId ?? null,
+    displayName: seat.displayName, tokenHash: hashSecret(token), servingOrder, designRow,
+  } as never) as unknown as { id: string };
+  await tx.flush();
+  return { token, seatId: row.id };
+}
+
+/** Staff tasters of this workspace get a seat each and an e-mail with their own link. */
+export async function inviteStaffTasters(actor: Actor, sessionId: string, userIds: string[]): Promise<{ invited: number }> {
+  const em = await getEm();
+  const session = await loadSession(em, actor, sessionId);
+  const members = await em.find(Membership, { ...inWorkspace(actor), user: { $in: userIds }, active: true }, { populate: ['user'] });
+  if (members.length !== new Set(userIds).size) throw new ValidationFailed('Invite members of this workspace.', { userIds: ['Invite active members of this workspace.'] });
+  const already = await em.find(PanelSeat, { session: sessionId, user: { $in: userIds } });
+  const skip = new Set(already.map((s) => (s.user as unknown as { id: string }).id));
+  let invited = 0;
+  for (const m of members) {
+    const user = m.user as unknown as { id: string; name: string; email: string };
+    if (skip.has(user.id)) continue;
+    const { token } = await em.transactional((tx) => addSeat(tx, sessionId, { kind: 'staff', userId: user.id, displayName: user.name }));
+    const link = `${env().APP_URL}/t/${token}`;
+    await sendMail({
+      to: user.email,
+      subject: `Tasting: ${session.title}`,
+      text: [`You are seated at the tasting “${session.title}”${session.place ? ` in ${session.place}` : ''}.`, '', 'Open this link on your phone when the samples arrive (it is yours alone; do not forward it):', link].join('\n'),
+      html: `<p>You are seated at the tasting “${escapeHtml(session.title)}”.</p><p><a href="${escapeHtml(link)}">Open your tasting</a> on your phone when the samples arrive. The link is yours alone.</p>`,
+    });
+    invited++;
+  }
+  return { invited };
+}
+
+/** Guests join with the short code shown on the organiser's screen; they get an identity for this session only. */
+export async function joinAsGuest(input: { joinCode: string; displayName: string }): Promise<{ seatToken: string }> {
+  const em = await getEm();
+  const session = await em.findOne(PanelSession, { joinCode: input.joinCode, state: 'open' });
+  if (!session) throw notFound('tasting with that code');
+  const { token } = await em.transactional((tx) => addSeat(tx, session.id, { kind: 'guest', displayName: input.displayName }));
+  return { seatToken: token };
+}

@@ -1,0 +1,120 @@
+/** The organiser's reads: sessions, live progress and the kitchen serving sheet (staff only). */
+import { getEm } from '@/lib/db';
+import { PanelAnswer, PanelSample, PanelSeat, PanelSession, SensoryAttributeDef, Variant } from '@/entities';
+import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
+import type { PanelMethod, PanelState } from './vocabulary';
+
+export interface SeatProgress {
+  seatIndex: number;
+  displayName: string;
+  kind: 'staff' | 'guest';
+  answered: number;
+  expected: number;
+  consented: boolean;
+  status: 'joined' | 'answering' | 'submitted' | 'partial';
+  lastSeenAt: string | null;
+}
+
+export interface PanelSessionView {
+  id: string;
+  trialId: string;
+  title: string;
+  place: string | null;
+  startsAt: string | null;
+  method: PanelMethod;
+  state: PanelState;
+  notice: string;
+  joinCode: string | null;
+  samples: Array<{ sampleId: string; variantId: string; variantLabel: string; variantDescription: string; code: string | null }>;
+  attributes: Array<{ id: string; name: string }>;
+  seats: SeatProgress[];
+  createdAt: string;
+  openedAt: string | null;
+  closedAt: string | null;
+}
+
+type SessionRow = {
+  id: string; trial: { id: string }; title: string; place?: string | null; startsAt?: Date | null; method: PanelMethod; state: PanelState; notice: string;
+  joinCode?: string | null; attributeIds: string[]; rankingAttributeId?: string | null; createdAt: Date; openedAt?: Date | null; closedAt?: Date | null;
+};
+
+export async function listAttributes(actor: Actor) {
+  const em = await getEm();
+  const rows = await em.find(SensoryAttributeDef, inWorkspace(actor), { orderBy: { createdAt: 'asc' } });
+  return rows.map((r) => ({ id: r.id, name: r.name, instruction: r.instruction, modality: r.modality, scaleName: r.scale.name, libraryKey: r.libraryKey ?? null }));
+}
+
+export async function listPanelSessions(actor: Actor, trialId?: string) {
+  const em = await getEm();
+  const rows = (await em.find(PanelSession, { ...inWorkspace(actor), ...(trialId ? { trial: trialId } : {}) }, { orderBy: { createdAt: 'desc' } })) as unknown as SessionRow[];
+  const seats = rows.length ? await em.find(PanelSeat, { session: { $in: rows.map((r) => r.id) } }, { fields: ['session', 'submittedAt'] }) : [];
+  return rows.map((r) => {
+    const mine = seats.filter((s) => (s.session as unknown as { id: string }).id === r.id);
+    return { id: r.id, trialId: r.trial.id, title: r.title, method: r.method, state: r.state, seats: mine.length, submitted: mine.filter((s) => s.submittedAt).length, createdAt: r.createdAt.toISOString() };
+  });
+}
+
+export async function getPanelSession(actor: Actor, sessionId: string): Promise<PanelSessionView> {
+  const em = await getEm();
+  const s = (await em.findOne(PanelSession, { ...inWorkspace(actor), id: sessionId })) as unknown as SessionRow | null;
+  if (!s) throw notFound('tasting');
+  const samples = await em.find(PanelSample, { session: s.id }, { orderBy: { position: 'asc' } });
+  const variants = await em.find(Variant, { id: { $in: samples.map((x) => (x.variant as unknown as { id: string }).id) } });
+  const vById = new Map(variants.map((v) => [v.id, v]));
+  const attrIds = [...s.attributeIds, ...(s.rankingAttributeId ? [s.rankingAttributeId] : [])];
+  const attrs = attrIds.length ? await em.find(SensoryAttributeDef, { id: { $in: attrIds } }) : [];
+  const seats = await em.find(PanelSeat, { session: s.id }, { orderBy: { seatIndex: 'asc' } });
+  const answers = await em.find(PanelAnswer, { session: s.id }, { fields: ['seat'] });
+  const countBySeat = new Map<string, number>();
+  for (const a of answers) {
+    const id = (a.seat as unknown as { id: string }).id;
+    countBySeat.set(id, (countBySeat.get(id) ?? 0) + 1);
+  }
+  const expectedFor = (cups: number) => (s.method === 'rated' ? cups * s.attributeIds.length : 1);
+  return {
+    id: s.id,
+    trialId: s.trial.id,
+    title: s.title,
+    place: s.place ?? null,
+    startsAt: s.startsAt ? s.startsAt.toISOString() : null,
+    method: s.method,
+    state: s.state,
+    notice: s.notice,
+    joinCode: s.joinCode ?? null,
+    samples: samples.map((x) => {
+      const v = vById.get((x.variant as unknown as { id: string }).id)!;
+      return { sampleId: x.id, variantId: v.id, variantLabel: v.label, variantDescription: v.description, code: x.code ?? null };
+    }),
+    attributes: attrIds.map((id) => attrs.find((a) => a.id === id)).filter((a): a is NonNullable<typeof a> => !!a).map((a) => ({ id: a.id, name: a.name })),
+    seats: seats.map((seat) => {
+      const answered = countBySeat.get(seat.id) ?? 0;
+      const expected = expectedFor(seat.servingOrder.length);
+      const status: SeatProgress['status'] = seat.submittedAt ? 'submitted' : s.state === 'closed' ? 'partial' : answered > 0 ? 'answering' : 'joined';
+      return {
+        seatIndex: seat.seatIndex, displayName: seat.displayName, kind: seat.kind, answered, expected, consented: !!seat.consentedAt, status,
+        lastSeenAt: seat.lastSeenAt ? seat.lastSeenAt.toISOString() : null,
+      };
+    }),
+    createdAt: s.createdAt.toISOString(),
+    openedAt: s.openedAt ? s.openedAt.toISOString() : null,
+    closedAt: s.closedAt ? s.closedAt.toISOString() : null,
+  };
+}
+
+/** Seat by seat: the codes in serving order and which variant each is. For the kitchen only. */
+export async function getServingSheet(actor: Actor, sessionId: string) {
+  const view = await getPanelSession(actor, sessionId);
+  const em = await getEm();
+  const seats = await em.find(PanelSeat, { session: sessionId }, { orderBy: { seatIndex: 'asc' } });
+  const bySample = new Map(view.samples.map((x) => [x.sampleId, x]));
+  return {
+    session: { id: view.id, title: view.title, method: view.method, place: view.place, startsAt: view.startsAt },
+    samples: view.samples,
+    seats: seats.map((seat) => ({
+      seatNumber: seat.seatIndex + 1,
+      displayName: seat.displayName,
+      designRow: seat.designRow,
+      cups: seat.servingOrder.map((c, i) => ({ position: i + 1, code: c.code, variantLabel: bySample.get(c.sampleId)?.variantLabel ?? '?' })),
+    })),
+  };
+}

@@ -1,0 +1,58 @@
+/** Panel sessions and taster answers: zod schemas shared by the API, actions and the phone flow. */
+import { z } from 'zod';
+import { PANEL_METHODS } from './vocabulary';
+
+const code = z.string().regex(/^\d{3}$/, 'A sample code has three digits.');
+
+export const createPanelSchema = z
+  .object({
+    title: z.string().trim().min(1, 'Give the tasting a title tasters may see (no variant names).').max(120),
+    place: z.string().trim().max(120).optional(),
+    startsAt: z.iso.datetime({ offset: true, error: 'Use a date and time.' }).optional(),
+    method: z.enum(PANEL_METHODS, { error: 'Choose a method.' }),
+    variantIds: z.array(z.uuid('Unknown variant.')).min(2, 'Choose at least two samples.').max(12, 'At most twelve samples.'),
+    attributeIds: z.array(z.uuid('Unknown attribute.')).max(12, 'At most twelve attributes.').default([]),
+    rankingAttributeId: z.uuid().optional(),
+    notice: z.string().trim().min(1, 'Write the allergen and consent notice tasters must accept.').max(3000),
+  })
+  .strict()
+  .superRefine((v, ctx) => {
+    if (new Set(v.variantIds).size !== v.variantIds.length) ctx.addIssue({ code: 'custom', path: ['variantIds'], message: 'Each variant once.' });
+    if (v.method === 'rated' && v.attributeIds.length === 0) ctx.addIssue({ code: 'custom', path: ['attributeIds'], message: 'Choose the attributes tasters rate.' });
+    if (v.method === 'triangle' && v.variantIds.length !== 2) ctx.addIssue({ code: 'custom', path: ['variantIds'], message: 'A triangle test compares exactly two variants.' });
+  });
+
+export const joinSchema = z
+  .object({
+    joinCode: z.string().trim().toUpperCase().regex(/^[A-Z0-9]{6}$/, 'The code has six letters and digits.'),
+    displayName: z.string().trim().min(1, 'Tell us what to call you.').max(40, 'Use at most 40 characters.'),
+  })
+  .strict();
+
+const key = z.uuid('idempotencyKey must be a UUID.');
+
+export const answerSchema = z.union([
+  z.object({ idempotencyKey: key, code, attributeId: z.uuid(), value: z.number({ error: 'The value must be a number.' }).finite() }).strict(),
+  z.object({ idempotencyKey: key, attributeId: z.uuid().optional(), ranking: z.array(code).min(2).max(12) }).strict(),
+  z.object({ idempotencyKey: key, oddCode: code, confidence: z.union([z.literal(1), z.literal(2), z.literal(3)]).optional(), comment: z.string().trim().max(500).optional() }).strict(),
+]);
+
+export const inviteTastersSchema = z.object({ userIds: z.array(z.uuid()).min(1, 'Choose at least one taster.').max(200) }).strict();
+
+export type CreatePanelInput = z.infer<typeof createPanelSchema>;
+export type JoinInput = z.infer<typeof joinSchema>;
+export type AnswerInput = z.infer<typeof answerSchema>;
+
+/** What the phone receives. Only codes, attribute ids and the seat's own answers: nothing that maps to a variant. */
+export interface TasterView {
+  session: { title: string; notice: string; method: (typeof PANEL_METHODS)[number]; state: 'open' | 'closed'; place: string | null; startsAt: string | null };
+  seat: { displayName: string; consented: boolean; submitted: boolean };
+  samples: Array<{ code: string; position: number }>;
+  attributes: Array<{ id: string; name: string; instruction: string; scale: TasterScale }>;
+  ranking?: { attributeId: string | null; instruction: string };
+  answers: Array<{ code?: string; attributeId?: string; value?: number; ranking?: string[]; oddCode?: string; confidence?: number; comment?: string }>;
+}
+
+export type TasterScale =
+  | { kind: 'category'; points: Array<{ value: number; label: string }> }
+  | { kind: 'line'; min: number; max: number; step: number; lowAnchor: string; highAnchor: string };

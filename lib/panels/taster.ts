@@ -1,0 +1,147 @@
+/**
+ * The taster's side, reached only through the seat token. Everything returned here is
+ * limited to codes, attribute ids and the seat's own answers: no variant, formula or
+ * sample id ever leaves this module toward a phone.
+ */
+import { getEm } from '@/lib/db';
+import { PanelAnswer, PanelSeat, PanelSession, SensoryAttributeDef } from '@/entities';
+import { notFound } from '@/lib/permissions';
+import { ApiError, ValidationFailed } from '@/lib/api/errors';
+import { hashSecret } from '@/lib/secrets';
+import { isValidScaleValue, type SensoryScale } from '@/lib/sensory';
+import { SEAT_TOKEN_PREFIX } from './mutations';
+import type { AnswerInput, TasterScale, TasterView } from './schema';
+
+type SeatRow = { id: string; workspace: { id: string }; session: { id: string }; servingOrder: Array<{ code: string; sampleId: string }>; displayName: string; consentedAt?: Date | null; submittedAt?: Date | null };
+type SessionRow = { id: string; title: string; notice: string; method: TasterView['session']['method']; state: 'draft' | 'open' | 'closed'; place?: string | null; startsAt?: Date | null; attributeIds: string[]; rankingAttributeId?: string | null };
+
+const closed = () => new ApiError(409, 'closed', 'This tasting has closed, so answers are no longer accepted. Thank you for taking part.');
+
+async function seatFor(token: string): Promise<{ seat: SeatRow; session: SessionRow }> {
+  if (!token.startsWith(SEAT_TOKEN_PREFIX) || token.length > 100) throw notFound('tasting');
+  const em = await getEm();
+  const seat = (await em.findOne(PanelSeat, { tokenHash: hashSecret(token) })) as unknown as SeatRow | null;
+  if (!seat) throw notFound('tasting');
+  const session = (await em.findOneOrFail(PanelSession, { id: seat.session.id })) as unknown as SessionRow;
+  if (session.state === 'draft') throw notFound('tasting');
+  return { seat, session };
+}
+
+function tasterScale(scale: SensoryScale): TasterScale {
+  return scale.kind === 'category'
+    ? { kind: 'category', points: scale.points.map((p) => ({ value: p.value, label: p.label })) }
+    : { kind: 'line', min: scale.minValue, max: scale.maxValue, step: scale.resolution, lowAnchor: scale.lowAnchor, highAnchor: scale.highAnchor };
+}
+
+async function attributesOf(session: SessionRow) {
+  const ids = [...session.attributeIds, ...(session.rankingAttributeId ? [session.rankingAttributeId] : [])];
+  if (!ids.length) return new Map<string, { id: string; name: string; instruction: string; scale: SensoryScale }>();
+  const em = await getEm();
+  const rows = await em.find(SensoryAttributeDef, { id: { $in: ids } });
+  return new Map(rows.map((r) => [r.id, { id: r.id, name: r.name, instruction: r.instruction, scale: r.scale }]));
+}
+
+export async function tasterView(token: string): Promise<TasterView> {
+  const { seat, session } = await seatFor(token);
+  const em = await getEm();
+  await em.nativeUpdate(PanelSeat, { id: seat.id }, { lastSeenAt: new Date() });
+  const attrs = await attributesOf(session);
+  const answers = await em.find(PanelAnswer, { seat: seat.id }, { orderBy: { createdAt: 'asc' } });
+  return {
+    session: {
+      title: session.title, notice: session.notice, method: session.method, state: session.state === 'open' ? 'open' : 'closed',
+      place: session.place ?? null, startsAt: session.startsAt ? session.startsAt.toISOString() : null,
+    },
+    seat: { displayName: seat.displayName, consented: !!seat.consentedAt, submitted: !!seat.submittedAt },
+    samples: seat.servingOrder.map((c, i) => ({ code: c.code, position: i + 1 })),
+    attributes: session.attributeIds.map((id) => attrs.get(id)!).filter(Boolean).map((a) => ({ id: a.id, name: a.name, instruction: a.instruction, scale: tasterScale(a.scale) })),
+    ...(session.method === 'ranking'
+      ? {
+          ranking: {
+            attributeId: session.rankingAttributeId ?? null,
+            instruction: session.rankingAttributeId
+              ? `Put the samples in order of ${attrs.get(session.rankingAttributeId)?.name.toLowerCase() ?? 'the attribute'}, most first.`
+              : 'Put the samples in order of preference, the one you like most first.',
+          },
+        }
+      : {}),
+    answers: answers.map((a) =>
+      a.kind === 'rating'
+        ? { code: a.item, attributeId: a.attribute, value: a.value ?? undefined }
+        : a.kind === 'ranking'
+          ? { ranking: a.ranking ?? [], ...(a.attribute !== '*' ? { attributeId: a.attribute } : {}) }
+          : { oddCode: a.oddCode ?? undefined, confidence: a.confidence ?? undefined, comment: a.comment ?? undefined },
+    ),
+  };
+}
+
+export async function recordConsent(token: string): Promise<void> {
+  const { seat, session } = await seatFor(token);
+  if (session.state !== 'open') throw closed();
+  const em = await getEm();
+  await em.nativeUpdate(PanelSeat, { id: seat.id, consentedAt: null }, { consentedAt: new Date() });
+}
+
+/**
+ * Stores one answer exactly once. A single upsert keyed on (seat, item, attribute) keeps the
+ * hot path to one statement; a retry with the same idempotency key changes nothing, and a
+ * later change of mind (a new key) replaces the earlier value while the session is open.
+ */
+export async function recordAnswer(token: string, input: AnswerInput): Promise<{ stored: true; duplicate: boolean }> {
+  const { seat, session } = await seatFor(token);
+  if (session.state !== 'open') throw closed();
+  if (!seat.consentedAt) throw new ApiError(409, 'no_consent', 'Read and accept the notice before the first sample.');
+  const codes = seat.servingOrder.map((c) => c.code);
+  let row: { kind: 'rating' | 'ranking' | 'triangle'; item: string; attribute: string; sampleId: string | null; value: number | null; ranking: string[] | null; oddCode: string | null; correct: boolean | null; confidence: number | null; comment: string | null };
+
+  if ('value' in input) {
+    if (session.method !== 'rated') throw new ValidationFailed('This tasting does not take ratings.', { value: ['This tasting does not take ratings.'] });
+    const cup = seat.servingOrder.find((c) => c.code === input.code);
+    if (!cup) throw new ValidationFailed('That is not one of your samples.', { code: ['That is not one of your samples.'] });
+    if (!session.attributeIds.includes(input.attributeId)) throw new ValidationFailed('That attribute is not part of this tasting.', { attributeId: ['That attribute is not part of this tasting.'] });
+    const attr = (await attributesOf(session)).get(input.attributeId)!;
+    if (!isValidScaleValue(attr.scale, input.value)) throw new ValidationFailed('That value is not on the scale.', { value: ['That value is not on the scale.'] });
+    row = { kind: 'rating', item: input.code, attribute: input.attributeId, sampleId: cup.sampleId, value: input.value, ranking: null, oddCode: null, correct: null, confidence: null, comment: null };
+  } else if ('ranking' in input) {
+    if (session.method !== 'ranking') throw new ValidationFailed('This tasting does not take a ranking.', { ranking: ['This tasting does not take a ranking.'] });
+    if (input.ranking.length !== codes.length || new Set(input.ranking).size !== codes.length || !input.ranking.every((c) => codes.includes(c))) {
+      throw new ValidationFailed('Rank each of your samples exactly once.', { ranking: ['Rank each of your samples exactly once.'] });
+    }
+    row = { kind: 'ranking', item: '*', attribute: session.rankingAttributeId ?? '*', sampleId: null, value: null, ranking: input.ranking, oddCode: null, correct: null, confidence: null, comment: null };
+  } else {
+    if (session.method !== 'triangle') throw new ValidationFailed('This tasting is not a triangle test.', { oddCode: ['This tasting is not a triangle test.'] });
+    const cup = seat.servingOrder.find((c) => c.code === input.oddCode);
+    if (!cup) throw new ValidationFailed('That is not one of your samples.', { oddCode: ['That is not one of your samples.'] });
+    const isOdd = seat.servingOrder.filter((c) => c.sampleId === cup.sampleId).length === 1;
+    row = { kind: 'triangle', item: '*', attribute: '*', sampleId: null, value: null, ranking: null, oddCode: input.oddCode, correct: isOdd, confidence: input.confidence ?? null, comment: input.comment ?? null };
+  }
+
+  const em = await getEm();
+  const conn = em.getConnection();
+  const result = await conn.execute(
+    `insert into panel_answers (id, workspace_id, session_id, seat_id, kind, item, attribute, sample_id, value, ranking, odd_code, correct, confidence, comment, idempotency_key, created_at, updated_at)
+     values (gen_random_uuid(), ?, ?, ?, ?, ?, ?, ?, ?, ?::jsonb, ?, ?, ?, ?, ?, now(), now())
+     on conflict (seat_id, item, attribute) do update set
+       value = excluded.value, ranking = excluded.ranking, odd_code = excluded.odd_code, correct = excluded.correct,
+       confidence = excluded.confidence, comment = excluded.comment, idempotency_key = excluded.idempotency_key, updated_at = now()
+     where panel_answers.idempotency_key <> excluded.idempotency_key
+       and exists (select 1 from panel_sessions s where s.id = panel_answers.session_id and s.state = 'open')
+     returning (xmax = 0) as inserted`,
+    [seat.workspace.id, seat.session.id, seat.id, row.kind, row.item, row.attribute, row.sampleId, row.value, row.ranking ? JSON.stringify(row.ranking) : null, row.oddCode, row.correct, row.confidence, row.comment, input.idempotencyKey],
+    'all',
+  );
+  // No row back: the same idempotency key was already stored (a retry), or the session closed meanwhile.
+  if ((result as unknown[]).length === 0) {
+    const still = await em.fork().findOneOrFail(PanelSession, { id: seat.session.id });
+    if (still.state !== 'open') throw closed();
+    return { stored: true, duplicate: true };
+  }
+  return { stored: true, duplicate: false };
+}
+
+export async function submitSeat(token: string): Promise<void> {
+  const { seat, session } = await seatFor(token);
+  if (session.state !== 'open') throw closed();
+  const em = await getEm();
+  await em.nativeUpdate(PanelSeat, { id: seat.id, submittedAt: null }, { submittedAt: new Date() });
+}

@@ -1,0 +1,76 @@
+/** Authorisation-table rows for panels and the taster endpoints (merged into access-table.ts). */
+import type { ActionCase, RouteCase } from './access-table';
+import { trialWithVariants } from './access-trials';
+import { actorOf, type WorkspaceFixture } from './harness';
+import { createPanelSession, openPanelSession } from '@/lib/panels/mutations';
+import { listAttributes } from '@/lib/panels/queries';
+import { joinAsGuest } from '@/lib/panels/mutations';
+import { recordConsent } from '@/lib/panels/taster';
+import { randomUUID } from 'node:crypto';
+import type { Role } from '@/lib/permissions';
+
+const READ: Role[] = ['admin', 'developer', 'head_of_product'];
+const RUN: Role[] = ['admin', 'developer'];
+
+export async function panelFixture(a: WorkspaceFixture, open = true): Promise<{ trialId: string; sessionId: string; joinCode: string | null; attributeId: string; variantIds: string[] }> {
+  const t = await trialWithVariants(a);
+  const actor = actorOf(a, 'developer');
+  const attrs = await listAttributes(actor);
+  const liking = attrs.find((x) => x.libraryKey === 'overall-liking') ?? attrs[0];
+  const { sessionId } = await createPanelSession(actor, t.trialId, {
+    title: 'Thursday tasting', method: 'rated', variantIds: [t.baseId, t.otherId], attributeIds: [liking.id],
+    notice: 'Contains fruit and sugar. Tell us about any allergy before you taste.',
+  });
+  const joinCode = open ? (await openPanelSession(actor, sessionId)).joinCode : null;
+  return { trialId: t.trialId, sessionId, joinCode, attributeId: liking.id, variantIds: [t.baseId, t.otherId] };
+}
+
+export async function seatFixture(a: WorkspaceFixture) {
+  const p = await panelFixture(a);
+  const { seatToken } = await joinAsGuest({ joinCode: p.joinCode!, displayName: 'Guest taster' });
+  return { ...p, seatToken };
+}
+
+export const PANELS_ROUTE_CASES: RouteCase[] = [
+  { route: 'GET /api/v1/attributes', allowed: READ, otherWorkspace: 'own-data' },
+  { route: 'GET /api/v1/trials/[trialId]/panels', allowed: READ, otherWorkspace: 404, prepare: async (a) => ({ params: { trialId: (await trialWithVariants(a)).trialId } }) },
+  {
+    route: 'POST /api/v1/trials/[trialId]/panels',
+    allowed: RUN,
+    otherWorkspace: 404,
+    prepare: async (a) => {
+      const t = await trialWithVariants(a);
+      const attrs = await listAttributes(actorOf(a, 'developer'));
+      return { params: { trialId: t.trialId }, body: { title: 'Matrix tasting', method: 'rated', variantIds: [t.baseId, t.otherId], attributeIds: [attrs[0].id], notice: 'Fruit, sugar.' } };
+    },
+  },
+  { route: 'GET /api/v1/panels/[sessionId]', allowed: READ, otherWorkspace: 404, prepare: async (a) => ({ params: { sessionId: (await panelFixture(a)).sessionId } }) },
+  { route: 'POST /api/v1/panels/[sessionId]/open', allowed: RUN, otherWorkspace: 404, prepare: async (a) => ({ params: { sessionId: (await panelFixture(a, false)).sessionId } }) },
+  { route: 'POST /api/v1/panels/[sessionId]/close', allowed: RUN, otherWorkspace: 404, prepare: async (a) => ({ params: { sessionId: (await panelFixture(a)).sessionId } }) },
+  {
+    route: 'POST /api/v1/panels/[sessionId]/invitations',
+    allowed: RUN,
+    otherWorkspace: 404,
+    prepare: async (a) => ({ params: { sessionId: (await panelFixture(a)).sessionId }, body: { userIds: [a.people.taster.userId] } }),
+  },
+  { route: 'GET /api/v1/panels/[sessionId]/serving-sheet', allowed: RUN, otherWorkspace: 404, prepare: async (a) => ({ params: { sessionId: (await panelFixture(a)).sessionId } }) },
+  // The taster endpoints take no staff sign-in: the seat token in the path is the identity.
+  { route: 'POST /api/v1/tasting/join', allowed: 'public', otherWorkspace: 'public', prepare: async (a) => ({ body: { joinCode: (await panelFixture(a)).joinCode, displayName: 'Matrix guest' } }) },
+  { route: 'GET /api/v1/tasting/[seatToken]', allowed: 'public', otherWorkspace: 'public', prepare: async (a) => ({ params: { seatToken: (await seatFixture(a)).seatToken } }) },
+  { route: 'POST /api/v1/tasting/[seatToken]/consent', allowed: 'public', otherWorkspace: 'public', prepare: async (a) => ({ params: { seatToken: (await seatFixture(a)).seatToken } }) },
+  {
+    route: 'PUT /api/v1/tasting/[seatToken]/answers',
+    allowed: 'public',
+    otherWorkspace: 'public',
+    prepare: async (a) => {
+      const s = await seatFixture(a);
+      await recordConsent(s.seatToken);
+      const { tasterView } = await import('@/lib/panels/taster');
+      const view = await tasterView(s.seatToken);
+      return { params: { seatToken: s.seatToken }, body: { idempotencyKey: randomUUID(), code: view.samples[0].code, attributeId: s.attributeId, value: 7 } };
+    },
+  },
+  { route: 'POST /api/v1/tasting/[seatToken]/submit', allowed: 'public', otherWorkspace: 'public', prepare: async (a) => ({ params: { seatToken: (await seatFixture(a)).seatToken } }) },
+];
+
+export const PANELS_ACTION_CASES: ActionCase[] = [];
