@@ -15,6 +15,7 @@ export const NAV_ITEMS: NavItem[] = [
   { href: '/ingredients', label: 'Ingredients', permission: 'ingredients.read', group: 'work' },
   { href: '/tastings', label: 'My tastings', permission: 'tastings.own', group: 'work' },
   { href: '/settings/members', label: 'Members', permission: 'members.manage', group: 'settings' },
+  { href: '/settings/attributes', label: 'Tasting attributes', permission: 'panels.read', group: 'settings' },
   { href: '/settings/tokens', label: 'API tokens', permission: 'tokens.manage', group: 'settings' },
   { href: '/settings/outbox', label: 'Mail outbox', permission: 'outbox.read', group: 'settings' },
   { href: '/settings/profile', label: 'Profile & units', permission: 'account.self', group: 'settings' },

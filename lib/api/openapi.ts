@@ -10,7 +10,7 @@ import { createTokenSchema } from '@/lib/api-tokens/schema';
 import { ingredientInputSchema } from '@/lib/ingredients/schema';
 import { calcBatchSchema, createFormulaSchema, reviseFormulaSchema } from '@/lib/formulas/schema';
 import { FILE_MAX_BYTES, PHOTO_MAX_BYTES, THUMBNAIL_MAX_PX, UPLOAD_SUBJECTS } from '@/lib/uploads/schema';
-import { answerSchema, createPanelSchema, inviteTastersSchema, joinSchema } from '@/lib/panels/schema';
+import { answerSchema, createAttributeSchema, createPanelSchema, inviteTastersSchema, joinSchema } from '@/lib/panels/schema';
 import { createTrialSchema, manualVariantSchema, measurementSchema, planSchema, transitionSchema } from '@/lib/trials/schema';
 import { saveNotebookBodySchema } from '@/lib/notebook/schema';
 
@@ -83,6 +83,7 @@ export const API_OPERATIONS: ApiOperation[] = [
   { method: 'get', path: '/api/v1/uploads/{uploadId}/thumbnail', summary: `A photo's WebP thumbnail, ${THUMBNAIL_MAX_PX} px at most, without metadata (404 for files)`, tag: 'Uploads', permission: 'trials.read', okMediaTypes: ['image/webp'] },
   { method: 'delete', path: '/api/v1/uploads/{uploadId}', summary: 'Delete a photo or file (the stored object and its record)', tag: 'Uploads', permission: 'trials.write' },
   { method: 'get', path: '/api/v1/attributes', summary: 'The attribute library (what tasters rate, on which scale)', tag: 'Panels', permission: 'panels.read' },
+  { method: 'post', path: '/api/v1/attributes', summary: 'Add an attribute of your own (intensity line, hedonic or just-about-right)', tag: 'Panels', permission: 'panels.run', request: createAttributeSchema, okStatus: 201 },
   { method: 'get', path: '/api/v1/trials/{trialId}/panels', summary: 'Tasting sessions of a trial', tag: 'Panels', permission: 'panels.read' },
   { method: 'post', path: '/api/v1/trials/{trialId}/panels', summary: 'Create a tasting session (draft): samples get three-digit codes, serving orders are balanced', tag: 'Panels', permission: 'panels.run', request: createPanelSchema, okStatus: 201 },
   { method: 'get', path: '/api/v1/panels/{sessionId}', summary: 'A session with live progress per seat (poll it)', tag: 'Panels', permission: 'panels.read' },

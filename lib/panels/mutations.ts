@@ -9,8 +9,8 @@ import { Conflict, ValidationFailed } from '@/lib/api/errors';
 import { hashSecret, newSecret } from '@/lib/secrets';
 import { sendMail, escapeHtml } from '@/lib/mail';
 import { env } from '@/lib/env';
-import { createDefaultAttributeLibrary, drawBlindingCodes, servingOrderForSeat, shuffled, treatmentLetter, TRIANGLE_ORDERS } from '@/lib/sensory';
-import type { CreatePanelInput } from './schema';
+import { createDefaultAttributeLibrary, HEDONIC_9_POINT, makeIntensityLine, makeJustAboutRightScale, drawBlindingCodes, servingOrderForSeat, shuffled, treatmentLetter, TRIANGLE_ORDERS } from '@/lib/sensory';
+import type { CreateAttributeInput, CreatePanelInput } from './schema';
 import type { ServedCup } from './vocabulary';
 
 export const SEAT_TOKEN_PREFIX = 'sws_';
@@ -174,4 +174,18 @@ export async function joinAsGuest(input: { joinCode: string; displayName: string
   if (!session) throw notFound('tasting with that code');
   const { token } = await em.transactional((tx) => addSeat(tx, session.id, { kind: 'guest', displayName: input.displayName }));
   return { seatToken: token };
+}
+
+/** A workspace's own attribute, on one of the three scales the phone flow knows. */
+export async function createAttribute(actor: Actor, input: CreateAttributeInput): Promise<{ attributeId: string }> {
+  const em = await getEm();
+  const id = `own-${input.name.toLowerCase().replace(/[^a-z0-9]+/g, '-').slice(0, 40)}`;
+  const scale =
+    input.scale === 'hedonic' ? HEDONIC_9_POINT : input.scale === 'jar' ? makeJustAboutRightScale(id, input.name) : makeIntensityLine(id, input.name, input.lowAnchor!, input.highAnchor!);
+  const row = em.create(SensoryAttributeDef, {
+    workspace: actor.workspaceId, libraryKey: null, name: input.name, instruction: input.instruction,
+    modality: input.scale === 'hedonic' ? 'liking' : input.scale === 'jar' ? 'just-about-right' : 'intensity', scale,
+  } as never) as unknown as { id: string };
+  await em.flush();
+  return { attributeId: row.id };
 }

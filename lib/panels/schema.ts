@@ -39,6 +39,22 @@ export const answerSchema = z.union([
 
 export const inviteTastersSchema = z.object({ userIds: z.array(z.uuid()).min(1, 'Choose at least one taster.').max(200) }).strict();
 
+export const createAttributeSchema = z
+  .object({
+    name: z.string().trim().min(1, 'Name the attribute.').max(80),
+    instruction: z.string().trim().min(1, 'Tell tasters what to do and attend to.').max(600),
+    scale: z.enum(['intensity', 'hedonic', 'jar'], { error: 'Choose a scale.' }),
+    lowAnchor: z.string().trim().max(40).optional(),
+    highAnchor: z.string().trim().max(40).optional(),
+  })
+  .strict()
+  .superRefine((v, ctx) => {
+    if (v.scale === 'intensity' && (!v.lowAnchor || !v.highAnchor)) {
+      ctx.addIssue({ code: 'custom', path: [!v.lowAnchor ? 'lowAnchor' : 'highAnchor'], message: 'An intensity line needs words for both ends.' });
+    }
+  });
+
+export type CreateAttributeInput = z.infer<typeof createAttributeSchema>;
 export type CreatePanelInput = z.infer<typeof createPanelSchema>;
 export type JoinInput = z.infer<typeof joinSchema>;
 export type AnswerInput = z.infer<typeof answerSchema>;

@@ -12,6 +12,7 @@ import { addDefaultAttributes } from '@/lib/panels/mutations';
 import { seedDemoFormulas } from './formulas';
 import { seedDemoTrials } from './trials';
 import { seedDemoNotebooks } from './notebook';
+import { seedDemoPanels } from './panels';
 
 export const DEMO_PASSWORD = 'setwell-demo-2026';
 
@@ -63,6 +64,7 @@ export async function seedDemo(em: EntityManager): Promise<SeedReport> {
   await seedDemoFormulas(em.fork(), actor);
   const trials = await seedDemoTrials(em.fork(), actor);
   await seedDemoNotebooks(actor, trials);
+  await seedDemoPanels(actor, trials);
   return report;
 }
 

@@ -33,6 +33,7 @@ export async function seatFixture(a: WorkspaceFixture) {
 
 export const PANELS_ROUTE_CASES: RouteCase[] = [
   { route: 'GET /api/v1/attributes', allowed: READ, otherWorkspace: 'own-data' },
+  { route: 'POST /api/v1/attributes', allowed: RUN, otherWorkspace: 'own-data', prepare: () => ({ body: { name: 'Peel chewiness', instruction: 'Chew the peel.', scale: 'intensity', lowAnchor: 'Tender', highAnchor: 'Chewy' } }) },
   { route: 'GET /api/v1/trials/[trialId]/panels', allowed: READ, otherWorkspace: 404, prepare: async (a) => ({ params: { trialId: (await trialWithVariants(a)).trialId } }) },
   {
     route: 'POST /api/v1/trials/[trialId]/panels',

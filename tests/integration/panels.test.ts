@@ -181,6 +181,26 @@ describe('who tastes', () => {
   });
 });
 
+describe('seat tokens', () => {
+  it('a made-up token, or a staff session without a token, reaches no seat', async () => {
+    const s = await ratedSession(2);
+    await seat(s.joinCode);
+    const fake = await callRoute(viewRoute.GET, { method: 'GET', path: '', caller: { kind: 'outsider' }, params: { seatToken: 'sws_' + 'x'.repeat(43) } });
+    expect(fake.status).toBe(404);
+    const staff = await callRoute(viewRoute.GET, { method: 'GET', path: '', caller: { kind: 'session', person: a.people.admin }, params: { seatToken: 'not-a-token' } });
+    expect(staff.status).toBe(404);
+  });
+
+  it('own attributes need words for both ends of an intensity line', async () => {
+    const { createAttribute } = await import('@/lib/panels/mutations');
+    const { createAttributeSchema } = await import('@/lib/panels/schema');
+    expect(createAttributeSchema.safeParse({ name: 'Peel', instruction: 'Chew', scale: 'intensity', lowAnchor: 'Soft' }).success).toBe(false);
+    const { attributeId } = await createAttribute(actorOf(a, 'developer'), createAttributeSchema.parse({ name: 'Peel chewiness', instruction: 'Chew', scale: 'intensity', lowAnchor: 'Tender', highAnchor: 'Chewy' }));
+    const mine = (await listAttributes(actorOf(a, 'developer'))).find((x) => x.id === attributeId)!;
+    expect(mine.libraryKey).toBeNull();
+  });
+});
+
 describe('nothing unblinds a sample', () => {
   it('no taster response carries a variant name, description, id, formula name or sample id', async () => {
     const s = await ratedSession(3);

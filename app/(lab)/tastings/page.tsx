@@ -9,8 +9,9 @@ export default async function MyTastingsPage() {
   return (
     <>
       <PageHeader title="My tastings" lead="Blind tastings you are seated at. You will only ever see three-digit sample codes." />
-      <EmptyState title="No tastings yet">
-        When an organiser invites you to a panel, it appears here with a link that opens on your phone.
+      <EmptyState title="Your invitations come by e-mail">
+        When an organiser seats you at a tasting, you get an e-mail with a link of your own: open it on your phone when the
+        samples arrive. At a public tasting, open <strong>/join</strong> and type the code on the organiser’s screen.
       </EmptyState>
     </>
   );

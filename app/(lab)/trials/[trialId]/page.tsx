@@ -14,6 +14,8 @@ import { PlanHelper } from '@/components/trials/PlanHelper';
 import { CsvImport } from '@/components/trials/CsvImport';
 import { Attachments } from '@/components/trials/Attachments';
 import { NotebookEditor } from '@/components/notebook/NotebookEditor';
+import { listPanelSessions } from '@/lib/panels/queries';
+import { PANEL_METHOD_LABELS, PANEL_STATE_LABELS } from '@/lib/panels/vocabulary';
 import { buttonClass } from '@/components/ui/Button';
 
 export const dynamic = 'force-dynamic';
@@ -36,7 +38,7 @@ export default async function TrialPage({ params }: { params: Promise<{ trialId:
   const actor = await requirePage('trials.read');
   const trialId = pageId((await params).trialId);
   const trial = await orNotFound(getTrialOverview(actor, trialId));
-  const [notebook, uploads] = await Promise.all([getEntry(actor, trialId, null), listUploads(actor, trialId)]);
+  const [notebook, uploads, panels] = await Promise.all([getEntry(actor, trialId, null), listUploads(actor, trialId), can(actor.role, 'panels.read') ? listPanelSessions(actor, trialId) : Promise.resolve([])]);
   const canEdit = can(actor.role, 'trials.write');
   const editable = canEdit && (trial.status === 'planning' || trial.status === 'cooking');
   const base = trial.variants.find((v) => v.isBase)!;
@@ -62,6 +64,24 @@ export default async function TrialPage({ params }: { params: Promise<{ trialId:
           {editable ? <PlanHelper trialId={trial.id} baseLevels={baseLevelsOf(baseMass)} /> : canEdit ? (
             <p className="text-sm text-rind-600">Variants are fixed while the trial is “{TRIAL_STATUS_LABELS[trial.status]}”. Move it back to “{TRIAL_STATUS_LABELS.cooking}” to change them.</p>
           ) : null}
+          <section aria-labelledby="panels-title" className="rounded-card bg-pith-50 p-5 ring-1 ring-pith-300">
+            <div className="flex flex-wrap items-center justify-between gap-2">
+              <h2 id="panels-title" className="text-lg font-semibold">Tastings</h2>
+              {can(actor.role, 'panels.run') ? <Link href={`/trials/${trial.id}/panels/new`} className={buttonClass('secondary')}>New tasting</Link> : null}
+            </div>
+            {panels.length === 0 ? (
+              <p className="mt-2 text-sm text-rind-600">No tasting yet. When the variants are cooked, set up a blind tasting: codes and serving orders are drawn for you.</p>
+            ) : (
+              <ul className="mt-3 divide-y divide-pith-200 text-sm" data-testid="panel-list">
+                {panels.map((p) => (
+                  <li key={p.id} className="flex flex-wrap items-center justify-between gap-2 py-2">
+                    <Link href={`/panels/${p.id}`} className="font-medium text-damson-800 underline-offset-2 hover:underline">{p.title}</Link>
+                    <span className="text-rind-600">{PANEL_METHOD_LABELS[p.method]} · {PANEL_STATE_LABELS[p.state]} · {p.submitted} of {p.seats} seats submitted</span>
+                  </li>
+                ))}
+              </ul>
+            )}
+          </section>
           {canEdit ? <CsvImport trialId={trial.id} /> : null}
           <Attachments trialId={trial.id} uploads={uploads} canEdit={canEdit} />
           <section aria-labelledby="history-title">

@@ -1,0 +1,20 @@
+import { requirePage, orNotFound, pageId } from '@/lib/page-guard';
+import { getTrialOverview } from '@/lib/trials/queries';
+import { listAttributes } from '@/lib/panels/queries';
+import { NewPanelForm } from '@/components/panels/NewPanelForm';
+import { PageHeader } from '@/components/ui/Card';
+
+export const dynamic = 'force-dynamic';
+export const metadata = { title: 'New tasting' };
+
+export default async function NewPanelPage({ params }: { params: Promise<{ trialId: string }> }) {
+  const actor = await requirePage('panels.run');
+  const trial = await orNotFound(getTrialOverview(actor, pageId((await params).trialId)));
+  const attributes = await listAttributes(actor);
+  return (
+    <>
+      <PageHeader title={`New tasting for ${trial.code}`} lead={`${trial.title}. Samples get random three-digit codes and balanced serving orders.`} />
+      <NewPanelForm trialId={trial.id} variants={trial.variants.map((v) => ({ id: v.id, label: v.label, description: v.description }))} attributes={attributes} />
+    </>
+  );
+}

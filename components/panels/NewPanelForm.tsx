@@ -1,0 +1,114 @@
+'use client';
+
+import { useState } from 'react';
+import { useRouter } from 'next/navigation';
+import { apiFetch, ApiClientError } from '@/components/api/client';
+import { Button } from '@/components/ui/Button';
+import { Field, FieldErrorText, inputClass } from '@/components/ui/Field';
+import { Notice } from '@/components/ui/Notice';
+import { PANEL_METHODS, PANEL_METHOD_LABELS, type PanelMethod } from '@/lib/panels/vocabulary';
+
+const DEFAULT_NOTICE =
+  'These samples are fruit preserves made in our development kitchen. They contain fruit and sugar and may contain traces of nuts, gluten (crackers) and sulphites. Do not taste if you have an allergy or intolerance to any of these. Taking part is voluntary; your answers are stored under the name you give and used only to improve our products. You may stop at any time.';
+
+export function NewPanelForm({ trialId, variants, attributes }: { trialId: string; variants: Array<{ id: string; label: string; description: string }>; attributes: Array<{ id: string; name: string; scaleName: string }> }) {
+  const router = useRouter();
+  const [method, setMethod] = useState<PanelMethod>('rated');
+  const [chosen, setChosen] = useState<string[]>(variants.slice(0, 4).map((v) => v.id));
+  const [attrs, setAttrs] = useState<string[]>(attributes.map((a) => a.id));
+  const [fields, setFields] = useState<Record<string, string[]>>({});
+  const [error, setError] = useState<string>();
+  const [busy, setBusy] = useState(false);
+  const toggle = (list: string[], id: string) => (list.includes(id) ? list.filter((x) => x !== id) : [...list, id]);
+
+  async function submit(e: React.FormEvent<HTMLFormElement>) {
+    e.preventDefault();
+    const form = new FormData(e.currentTarget);
+    setBusy(true);
+    setFields({});
+    setError(undefined);
+    const startsAt = String(form.get('startsAt') ?? '');
+    try {
+      const res = await apiFetch<{ sessionId: string }>(`/api/v1/trials/${trialId}/panels`, {
+        method: 'POST',
+        body: JSON.stringify({
+          title: form.get('title'),
+          place: String(form.get('place') ?? '') || undefined,
+          startsAt: startsAt ? new Date(startsAt).toISOString() : undefined,
+          method,
+          variantIds: chosen,
+          attributeIds: method === 'rated' ? attrs : [],
+          rankingAttributeId: method === 'ranking' ? String(form.get('rankingAttributeId') ?? '') || undefined : undefined,
+          notice: form.get('notice'),
+        }),
+      });
+      router.push(`/panels/${res.sessionId}`);
+    } catch (err) {
+      if (err instanceof ApiClientError && err.fields) setFields(err.fields);
+      setError(err instanceof Error ? err.message : 'The tasting was not created.');
+      setBusy(false);
+    }
+  }
+
+  return (
+    <form onSubmit={submit} className="max-w-3xl space-y-5" noValidate>
+      {error ? <Notice tone="danger">{error}</Notice> : null}
+      <Field label="Title tasters see" name="title" required errors={fields.title} hint="Never a variant or recipe name: tasters must not learn what they taste." placeholder="e.g. Thursday tasting" />
+      <div className="grid gap-4 sm:grid-cols-2">
+        <Field label="Place" name="place" errors={fields.place} placeholder="e.g. Tasting room" />
+        <Field label="Date and time" name="startsAt" type="datetime-local" errors={fields.startsAt} />
+      </div>
+      <fieldset>
+        <legend className="text-sm font-medium text-rind-700">Method</legend>
+        <div className="mt-2 flex flex-wrap gap-4 text-sm">
+          {PANEL_METHODS.map((m) => (
+            <label key={m} className="flex min-h-10 items-center gap-2">
+              <input type="radio" name="method" checked={method === m} onChange={() => setMethod(m)} /> {PANEL_METHOD_LABELS[m]}
+            </label>
+          ))}
+        </div>
+      </fieldset>
+      <fieldset>
+        <legend className="text-sm font-medium text-rind-700">Samples {method === 'triangle' ? '(exactly two)' : '(two or more)'}</legend>
+        <div className="mt-2 grid gap-2 sm:grid-cols-2">
+          {variants.map((v) => (
+            <label key={v.id} className="flex min-h-10 items-start gap-2 rounded-lg bg-white p-2 text-sm ring-1 ring-pith-300">
+              <input type="checkbox" className="mt-1" checked={chosen.includes(v.id)} onChange={() => setChosen(toggle(chosen, v.id))} />
+              <span><strong>{v.label}</strong> — {v.description}</span>
+            </label>
+          ))}
+        </div>
+        <FieldErrorText id="variantIds-err" errors={fields.variantIds} />
+      </fieldset>
+      {method === 'rated' ? (
+        <fieldset>
+          <legend className="text-sm font-medium text-rind-700">Attributes to rate</legend>
+          <div className="mt-2 grid gap-2 sm:grid-cols-2">
+            {attributes.map((a) => (
+              <label key={a.id} className="flex min-h-10 items-center gap-2 text-sm">
+                <input type="checkbox" checked={attrs.includes(a.id)} onChange={() => setAttrs(toggle(attrs, a.id))} /> {a.name} <span className="text-xs text-rind-500">({a.scaleName})</span>
+              </label>
+            ))}
+          </div>
+          <FieldErrorText id="attributeIds-err" errors={fields.attributeIds} />
+        </fieldset>
+      ) : null}
+      {method === 'ranking' ? (
+        <label className="block text-sm">
+          <span className="mb-1 block font-medium text-rind-700">Rank by</span>
+          <select name="rankingAttributeId" className={inputClass}>
+            <option value="">Preference (which they like most)</option>
+            {attributes.map((a) => <option key={a.id} value={a.id}>{a.name}</option>)}
+          </select>
+        </label>
+      ) : null}
+      <div>
+        <label htmlFor="f-notice" className="mb-1 block text-sm font-medium text-rind-700">Allergen and consent notice</label>
+        <textarea id="f-notice" name="notice" rows={5} defaultValue={DEFAULT_NOTICE} className={inputClass} />
+        <FieldErrorText id="notice-err" errors={fields.notice} />
+        <p className="mt-1 text-xs text-rind-500">Tasters read and accept this before the first sample. Check it against what is really in the samples; local rules on allergen information govern.</p>
+      </div>
+      <Button type="submit" disabled={busy}>{busy ? 'Creating…' : 'Create the tasting'}</Button>
+    </form>
+  );
+}

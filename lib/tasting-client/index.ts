@@ -1,0 +1,7 @@
+export * from './types';
+export * from './idempotency';
+export * from './answer-queue';
+export * from './seat-view';
+export * from './flow';
+export * from './debounce';
+export * from './join';
