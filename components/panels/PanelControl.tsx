@@ -55,6 +55,7 @@ export function PanelControl({ initial, qrDataUrl, joinUrl, members, canRun }: {
         {canRun && s.state === 'draft' ? <Button type="button" disabled={busy} onClick={() => call(`/api/v1/panels/${s.id}/open`)}>Open for tasters</Button> : null}
         {canRun && s.state === 'open' ? <Button type="button" tone="danger" disabled={busy} onClick={() => setConfirmClose(true)}>Close the tasting</Button> : null}
         {canRun ? <Link href={`/panels/${s.id}/sheet`} className={buttonClass('ghost')}>Kitchen serving sheet</Link> : null}
+        {s.seats.length ? <Link href={`/panels/${s.id}/results`} className={buttonClass('ghost')}>Results</Link> : null}
       </div>
       {message ? <Notice tone={message.tone}>{message.text}</Notice> : null}
 

@@ -49,9 +49,10 @@ export async function seedDemoPanels(developer: Actor, trials: SeededTrial[]): P
     await recordConsent(seatToken);
     const view = await tasterView(seatToken);
     const bias = noise(t + 1) * 0.8; // some tasters score everything higher
-    for (const [i, s] of view.samples.entries()) {
+    for (const s of view.samples) {
       const l = sheetLabels.get(s.code)!;
-      const n = (k: number) => noise(t * 31 + i * 7 + k);
+      // Keyed on the variant, not the serving position, so the demo is the same on every seed.
+      const n = (k: number) => noise(t * 31 + l.charCodeAt(0) * 7 + k);
       await recordAnswer(seatToken, { idempotencyKey: randomUUID(), code: s.code, attributeId: liking, value: Math.round(clamp(likingBy[l] + bias + n(1) * 1.2, 1, 9)) });
       await recordAnswer(seatToken, { idempotencyKey: randomUUID(), code: s.code, attributeId: firmness, value: Math.round(clamp(firmBy[l] + n(2) * 1.3, 0, 10) * 10) / 10 });
       await recordAnswer(seatToken, { idempotencyKey: randomUUID(), code: s.code, attributeId: sweetness, value: Math.round(clamp(sweetBy[l] + n(3) * 0.9, 1, 5)) });

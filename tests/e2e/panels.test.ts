@@ -75,3 +75,29 @@ describe('a tasting on phones', () => {
     await desk.close();
   });
 });
+
+describe('the results of a closed tasting', () => {
+  it('shows a verdict and a chart for the demo panel, and exports the raw answers', async () => {
+    const ctx = await newContext(browser);
+    const page = await ctx.newPage();
+    await signIn(page, developer.email);
+    await page.goto('/trials');
+    await page.getByRole('link', { name: /Apricot spread: how low can the sugar go\?/ }).click();
+    await page.getByTestId('panel-list').getByRole('link', { name: 'Spread tasting, 19 November' }).click();
+    await page.getByRole('link', { name: 'Results' }).click();
+    const verdicts = page.getByTestId('verdict');
+    await verdicts.first().waitFor();
+    expect(await verdicts.count()).toBe(3);
+    await expect(verdicts.first().textContent()).resolves.toMatch(/p [=<] 0\.\d{3}/);
+    // chart.js draws into a canvas: it rendered when the canvas has a size.
+    const box = await page.getByTestId('means-chart').first().locator('canvas').boundingBox();
+    expect(box!.width).toBeGreaterThan(100);
+    await page.getByTestId('jar-chart').first().locator('canvas').waitFor();
+    const csv = await page.request.get(page.url().replace(/\/panels\/([^/]+)\/results$/, '/api/v1/panels/$1/answers.csv'));
+    const lines = (await csv.text()).trim().split(/\r?\n/);
+    expect(lines[0]).toBe('session,seat,code,variant,attribute,value');
+    expect(lines.length - 1).toBe(24 * 5 * 3);
+    await screenshot(page, 'panel-results');
+    await ctx.close();
+  });
+});

@@ -55,6 +55,9 @@ export const PANELS_ROUTE_CASES: RouteCase[] = [
     prepare: async (a) => ({ params: { sessionId: (await panelFixture(a)).sessionId }, body: { userIds: [a.people.taster.userId] } }),
   },
   { route: 'GET /api/v1/panels/[sessionId]/serving-sheet', allowed: RUN, otherWorkspace: 404, prepare: async (a) => ({ params: { sessionId: (await panelFixture(a)).sessionId } }) },
+  { route: 'GET /api/v1/panels/[sessionId]/results', allowed: READ, otherWorkspace: 404, prepare: async (a) => ({ params: { sessionId: (await panelFixture(a)).sessionId } }) },
+  { route: 'GET /api/v1/panels/[sessionId]/answers.csv', allowed: READ, otherWorkspace: 404, prepare: async (a) => ({ params: { sessionId: (await panelFixture(a)).sessionId } }) },
+  { route: 'GET /api/v1/panels/[sessionId]/summary.csv', allowed: READ, otherWorkspace: 404, prepare: async (a) => ({ params: { sessionId: (await panelFixture(a)).sessionId } }) },
   // The taster endpoints take no staff sign-in: the seat token in the path is the identity.
   { route: 'POST /api/v1/tasting/join', allowed: 'public', otherWorkspace: 'public', prepare: async (a) => ({ body: { joinCode: (await panelFixture(a)).joinCode, displayName: 'Matrix guest' } }) },
   { route: 'GET /api/v1/tasting/[seatToken]', allowed: 'public', otherWorkspace: 'public', prepare: async (a) => ({ params: { seatToken: (await seatFixture(a)).seatToken } }) },

@@ -1,0 +1,43 @@
+import Link from 'next/link';
+import { requirePage, orNotFound, pageId } from '@/lib/page-guard';
+import { getPanelResults } from '@/lib/results/queries';
+import { PANEL_STATE_LABELS } from '@/lib/panels/vocabulary';
+import { PageHeader } from '@/components/ui/Card';
+import { Notice } from '@/components/ui/Notice';
+import { buttonClass } from '@/components/ui/Button';
+import { ResultsView } from '@/components/results/ResultsView';
+
+export const dynamic = 'force-dynamic';
+export const metadata = { title: 'Tasting results' };
+
+/** Results unblind the samples: staff only (panels.read), never reachable from a seat token. */
+export default async function PanelResultsPage({ params }: { params: Promise<{ sessionId: string }> }) {
+  const actor = await requirePage('panels.read');
+  const id = pageId((await params).sessionId);
+  const { session, analysis, data } = await orNotFound(getPanelResults(actor, id));
+  const partial = data.seatCount - data.submittedSeats;
+  return (
+    <>
+      <p className="text-sm text-rind-500"><Link href={`/panels/${id}`} className="underline-offset-2 hover:underline">Back to the tasting</Link></p>
+      <PageHeader
+        title={`Results: ${session.title}`}
+        lead={`${PANEL_STATE_LABELS[session.state]} · ${data.seatCount} seats, ${data.submittedSeats} submitted`}
+        actions={
+          <div className="flex gap-2">
+            <a href={`/api/v1/panels/${id}/answers.csv`} className={buttonClass('secondary')}>Raw answers (CSV)</a>
+            <a href={`/api/v1/panels/${id}/summary.csv`} className={buttonClass('ghost')}>Summary (CSV)</a>
+          </div>
+        }
+      />
+      <section className="mb-6 rounded-card bg-pith-50 p-4 text-sm ring-1 ring-pith-300" aria-label="Samples">
+        <p className="font-medium">Samples (unblinded)</p>
+        <ul className="mt-1 grid gap-1 sm:grid-cols-2">
+          {session.samples.map((s) => <li key={s.sampleId}><strong>{s.variantLabel}</strong>{s.code ? ` (code ${s.code})` : ''} — {s.variantDescription}</li>)}
+        </ul>
+      </section>
+      {session.state !== 'closed' ? <div className="mb-4"><Notice tone="warning">The tasting is still taking answers: these results will change.</Notice></div> : null}
+      {partial > 0 ? <div className="mb-4"><Notice tone="info">{partial} seat{partial === 1 ? '' : 's'} did not submit; their answers so far are included, and the analysis adjusts for the missing cells.</Notice></div> : null}
+      <ResultsView analysis={analysis} />
+    </>
+  );
+}

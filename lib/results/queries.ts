@@ -1,0 +1,89 @@
+/** Loads a session's answers for analysis and export. Staff only: this is where samples are unblinded. */
+import { getEm } from '@/lib/db';
+import { PanelAnswer, PanelSeat, PanelSession, SensoryAttributeDef } from '@/entities';
+import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
+import { getPanelSession } from '@/lib/panels/queries';
+import { toCsv } from '@/lib/csv';
+import { analysePanel, type PanelAnalysis, type PanelData } from './analysis';
+
+export async function loadPanelData(actor: Actor, sessionId: string): Promise<{ data: PanelData; session: Awaited<ReturnType<typeof getPanelSession>> }> {
+  const session = await getPanelSession(actor, sessionId);
+  const em = await getEm();
+  const s = await em.findOne(PanelSession, { ...inWorkspace(actor), id: sessionId });
+  if (!s) throw notFound('tasting');
+  const attrIds = [...s.attributeIds, ...(s.rankingAttributeId ? [s.rankingAttributeId] : [])];
+  const attrs = attrIds.length ? await em.find(SensoryAttributeDef, { id: { $in: attrIds } }) : [];
+  const seats = await em.find(PanelSeat, { session: sessionId });
+  const seatIndex = new Map(seats.map((x) => [x.id, x.seatIndex]));
+  const codeToSample = new Map<string, string>(seats.flatMap((x) => x.servingOrder.map((c) => [`${x.id}|${c.code}`, c.sampleId] as [string, string])));
+  const answers = await em.find(PanelAnswer, { ...inWorkspace(actor), session: sessionId });
+  return {
+    session,
+    data: {
+      method: s.method,
+      samples: session.samples.map((x) => ({ sampleId: x.sampleId, label: x.variantLabel, description: x.variantDescription })),
+      attributes: s.attributeIds.map((id) => attrs.find((a) => a.id === id)).filter((a): a is NonNullable<typeof a> => !!a).map((a) => ({
+        id: a.id,
+        name: a.name,
+        purpose: a.scale.purpose === 'liking' ? 'liking' : a.scale.purpose === 'just-about-right' ? 'just-about-right' : 'intensity',
+        highAnchor: a.scale.kind === 'line' ? a.scale.highAnchor : undefined,
+      })),
+      answers: answers.map((a) => {
+        const seatId = (a.seat as unknown as { id: string }).id;
+        return {
+          seatIndex: seatIndex.get(seatId) ?? -1,
+          kind: a.kind,
+          attribute: a.attribute,
+          sampleId: a.sampleId ?? null,
+          value: a.value ?? null,
+          rankingSampleIds: a.ranking ? a.ranking.map((code) => codeToSample.get(`${seatId}|${code}`) ?? code) : null,
+          correct: a.correct ?? null,
+        };
+      }),
+      seatCount: seats.length,
+      submittedSeats: seats.filter((x) => x.submittedAt).length,
+    },
+  };
+}
+
+export async function getPanelResults(actor: Actor, sessionId: string): Promise<{ session: Awaited<ReturnType<typeof getPanelSession>>; analysis: PanelAnalysis; data: PanelData }> {
+  const { data, session } = await loadPanelData(actor, sessionId);
+  return { session, data, analysis: analysePanel(data) };
+}
+
+/** Raw answers, one row per answer: session, seat, code, variant, attribute, value. */
+export async function answersCsv(actor: Actor, sessionId: string): Promise<string> {
+  const { data, session } = await loadPanelData(actor, sessionId);
+  const em = await getEm();
+  const seats = await em.find(PanelSeat, { session: sessionId });
+  const codeOf = new Map(seats.flatMap((x) => x.servingOrder.map((c) => [`${x.seatIndex}|${c.sampleId}`, c.code] as const)));
+  const label = new Map(data.samples.map((x) => [x.sampleId, x.label]));
+  const attrName = new Map(data.attributes.map((a) => [a.id, a.name]));
+  return toCsv(data.answers, [
+    { header: 'session', value: () => session.title },
+    { header: 'seat', value: (a) => a.seatIndex + 1 },
+    { header: 'code', value: (a) => (a.sampleId ? codeOf.get(`${a.seatIndex}|${a.sampleId}`) : '') },
+    { header: 'variant', value: (a) => (a.sampleId ? label.get(a.sampleId) : '') },
+    { header: 'attribute', value: (a) => (a.kind === 'rating' ? attrName.get(a.attribute) : a.kind) },
+    { header: 'value', value: (a) => (a.kind === 'rating' ? a.value : a.kind === 'ranking' ? (a.rankingSampleIds ?? []).map((id) => label.get(id) ?? id).join('>') : a.correct ? 'correct' : 'wrong') },
+  ]);
+}
+
+/** Means, intervals and letters per sample and attribute. */
+export async function summaryCsv(actor: Actor, sessionId: string): Promise<string> {
+  const { analysis } = await getPanelResults(actor, sessionId);
+  const rows = analysis.attributes.flatMap((a) => a.descriptive.map((d) => ({ a, d })));
+  const p = (x: (typeof rows)[number]) => x.a.anova.rows.find((r) => r.source === 'treatments')?.p ?? '';
+  return toCsv(rows, [
+    { header: 'attribute', value: (x) => x.a.attribute.name },
+    { header: 'variant', value: (x) => x.d.label },
+    { header: 'n', value: (x) => x.d.n },
+    { header: 'mean', value: (x) => x.d.mean ?? '' },
+    { header: 'sd', value: (x) => x.d.standardDeviation ?? '' },
+    { header: 'ci95_lower', value: (x) => x.d.confidenceInterval?.lower ?? '' },
+    { header: 'ci95_upper', value: (x) => x.d.confidenceInterval?.upper ?? '' },
+    { header: 'adjusted_mean', value: (x) => x.a.anova.treatments.find((t) => t.label === x.d.label)?.adjustedMean ?? '' },
+    { header: 'tukey_letters', value: (x) => x.a.comparison.letters[x.d.label] ?? '' },
+    { header: 'anova_p', value: p },
+  ]);
+}

@@ -1,0 +1,84 @@
+import { describe, it, expect } from 'vitest';
+import { analysePanel, formatP, type PanelData } from '@/lib/results/analysis';
+
+// Source: Montgomery, Design and Analysis of Experiments, Example 4.1 (vascular graft, RCBD):
+// four treatments × six blocks; treatments F = 8.10708, p = 0.0019163. Here the treatments are
+// samples and the blocks are assessors, which is the same model.
+const MONTGOMERY = {
+  A: [90.3, 89.2, 98.2, 93.9, 87.4, 97.9],
+  B: [92.5, 89.5, 90.6, 94.7, 87.0, 95.8],
+  C: [85.5, 90.8, 89.6, 86.2, 88.0, 93.4],
+  D: [82.5, 89.5, 85.6, 87.4, 78.9, 90.7],
+};
+
+function ratedData(): PanelData {
+  const samples = Object.keys(MONTGOMERY).map((l) => ({ sampleId: `s-${l}`, label: l, description: '' }));
+  const answers = Object.entries(MONTGOMERY).flatMap(([l, values]) =>
+    values.map((value, seatIndex) => ({ seatIndex, kind: 'rating' as const, attribute: 'firm', sampleId: `s-${l}`, value, rankingSampleIds: null, correct: null })),
+  );
+  return { method: 'rated', samples, attributes: [{ id: 'firm', name: 'Set firmness', purpose: 'intensity', highAnchor: 'Very firm' }], answers, seatCount: 6, submittedSeats: 6 };
+}
+
+describe('rated panels', () => {
+  it('runs the blocked ANOVA and words a verdict with the p-value', () => {
+    const a = analysePanel(ratedData()).attributes[0];
+    const treat = a.anova.rows.find((r) => r.source === 'treatments')!;
+    expect(treat.f).toBeCloseTo(8.10708, 4);
+    expect(treat.p).toBeCloseTo(0.0019163, 6);
+    expect(a.verdict.differs).toBe(true);
+    expect(a.verdict.headline).toMatch(/^Samples? .* rated higher for set firmness .* than .*D.*unlikely to be chance, p = 0\.002\.$/);
+    // Six assessors is a small panel: the verdict says so.
+    expect(a.verdict.cautions.join(' ')).toMatch(/Only 6 assessors/);
+    expect(a.comparison.letters.A).toContain('a');
+  });
+
+  it('says "no clear difference" when there is none, and never prints NaN', () => {
+    const data = ratedData();
+    data.answers = data.answers.map((x) => ({ ...x, value: 5 + (x.seatIndex % 3) }));
+    const a = analysePanel(data).attributes[0];
+    expect(JSON.stringify(a)).not.toContain('NaN');
+    expect(a.verdict.differs).not.toBe(true);
+  });
+
+  it('counts JAR groups and runs the penalty analysis against liking', () => {
+    const samples = [{ sampleId: 'x', label: 'A', description: '' }];
+    // Hand computation: JAR scores 3,3,3,1,5 with liking 8,8,8,5,6 → JAR mean 8;
+    // too little: 1 of 5 (20 %), drop 3, weighted 0.6; too much: 1 of 5, drop 2, weighted 0.4.
+    const jar = [3, 3, 3, 1, 5];
+    const like = [8, 8, 8, 5, 6];
+    const answers = jar.flatMap((v, i) => [
+      { seatIndex: i, kind: 'rating' as const, attribute: 'sweet', sampleId: 'x', value: v, rankingSampleIds: null, correct: null },
+      { seatIndex: i, kind: 'rating' as const, attribute: 'like', sampleId: 'x', value: like[i], rankingSampleIds: null, correct: null },
+    ]);
+    const r = analysePanel({
+      method: 'rated', samples, answers, seatCount: 5, submittedSeats: 5,
+      attributes: [{ id: 'like', name: 'Overall liking', purpose: 'liking' }, { id: 'sweet', name: 'Sweetness', purpose: 'just-about-right' }],
+    });
+    expect(r.jarShares).toEqual([{ attributeId: 'sweet', label: 'A', n: 5, tooLittle: 1, justAboutRight: 3, tooMuch: 1 }]);
+    const p = r.attributes[1].penalty!;
+    expect(p.groups.tooLittle.meanDrop).toBeCloseTo(3, 12);
+    expect(p.groups.tooLittle.weightedPenalty).toBeCloseTo(0.6, 12);
+    expect(p.groups.tooMuch.weightedPenalty).toBeCloseTo(0.4, 12);
+  });
+});
+
+describe('triangle panels', () => {
+  it('13 of 24 correct shows a difference', () => {
+    // Source: ISO 4120 / FAO docrep V7180E Appendix A: n = 24 needs 13 at α = 0.05;
+    // P(X ≥ 13 | n = 24, p = 1/3) = 0.0284411281.
+    const answers = Array.from({ length: 24 }, (_, i) => ({ seatIndex: i, kind: 'triangle' as const, attribute: '*', sampleId: null, value: null, rankingSampleIds: null, correct: i < 13 }));
+    const r = analysePanel({ method: 'triangle', samples: [], attributes: [], answers, seatCount: 24, submittedSeats: 24 });
+    expect(r.triangle!.result.pValue).toBeCloseTo(0.0284411281, 9);
+    expect(r.triangle!.verdict.headline).toBe('13 of 24 tasters picked the odd sample: a perceptible difference, p = 0.028 (at least 13 were needed).');
+    const twelve = analysePanel({ method: 'triangle', samples: [], attributes: [], answers: answers.map((x, i) => ({ ...x, correct: i < 12 })), seatCount: 24, submittedSeats: 24 });
+    expect(twelve.triangle!.verdict.differs).toBe(false);
+  });
+});
+
+describe('p-value wording', () => {
+  it('rounds to three places and floors at 0.001', () => {
+    expect(formatP(0.0019163)).toBe('p = 0.002');
+    expect(formatP(0.00001)).toBe('p < 0.001');
+    expect(formatP(null)).toBe('p not available');
+  });
+});
