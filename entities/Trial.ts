@@ -20,6 +20,11 @@ export const Trial = defineEntity({
     baseFormula: p.manyToOne(Formula),
     baseRevision: p.integer(),
     status: p.enum([...TRIAL_STATUSES]).default('planning'),
+    /** The product developer's pick for promotion, with the reasons. */
+    recommendedVariantId: p.uuid().nullable(),
+    recommendationRationale: p.text().nullable(),
+    recommendedBy: p.manyToOne(User).nullable(),
+    recommendedAt: p.datetime().nullable(),
     createdAt: p.datetime().onCreate(() => new Date()),
     updatedAt: p.datetime().onCreate(() => new Date()),
   }),

@@ -10,6 +10,7 @@ import { createTokenSchema } from '@/lib/api-tokens/schema';
 import { ingredientInputSchema } from '@/lib/ingredients/schema';
 import { calcBatchSchema, createFormulaSchema, reviseFormulaSchema } from '@/lib/formulas/schema';
 import { FILE_MAX_BYTES, PHOTO_MAX_BYTES, THUMBNAIL_MAX_PX, UPLOAD_SUBJECTS } from '@/lib/uploads/schema';
+import { recommendationSchema } from '@/lib/results/schema';
 import { answerSchema, createAttributeSchema, createPanelSchema, inviteTastersSchema, joinSchema } from '@/lib/panels/schema';
 import { createTrialSchema, manualVariantSchema, measurementSchema, planSchema, transitionSchema } from '@/lib/trials/schema';
 import { saveNotebookBodySchema } from '@/lib/notebook/schema';
@@ -94,6 +95,8 @@ export const API_OPERATIONS: ApiOperation[] = [
   { method: 'get', path: '/api/v1/panels/{sessionId}/results', summary: 'The analysis of a session: means with 95 % CIs, blocked ANOVA, Tukey letters, penalty analysis, triangle or Friedman test, and verdicts', tag: 'Results', permission: 'panels.read' },
   { method: 'get', path: '/api/v1/panels/{sessionId}/answers.csv', summary: 'Raw answers in long format (session, seat, code, variant, attribute, value) as CSV', tag: 'Results', permission: 'panels.read', okMediaTypes: ['text/csv'] },
   { method: 'get', path: '/api/v1/panels/{sessionId}/summary.csv', summary: 'The summary table (mean, SD, CI, adjusted mean, letters, ANOVA p) as CSV', tag: 'Results', permission: 'panels.read', okMediaTypes: ['text/csv'] },
+  { method: 'get', path: '/api/v1/trials/{trialId}/comparison', summary: 'Variants side by side: factor levels, predicted chemistry, lab values, tasting verdicts, factor effects and lab–sensory correlations', tag: 'Results', permission: 'panels.read' },
+  { method: 'put', path: '/api/v1/trials/{trialId}/recommendation', summary: 'Mark the recommended variant with a rationale (feeds promotion)', tag: 'Results', permission: 'trials.write', request: recommendationSchema },
   { method: 'post', path: '/api/v1/tasting/join', summary: 'A guest joins with the short code (rate-limited per address); returns the seat token', tag: 'Tasting', permission: null, request: joinSchema, okStatus: 201 },
   { method: 'get', path: '/api/v1/tasting/{seatToken}', summary: "The taster's view: codes in serving order, scales, own answers — nothing that maps to a variant", tag: 'Tasting', permission: null },
   { method: 'post', path: '/api/v1/tasting/{seatToken}/consent', summary: 'Accept the allergen and consent notice', tag: 'Tasting', permission: null },

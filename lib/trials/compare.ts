@@ -36,6 +36,9 @@ export interface CookReadings {
   yieldG?: number | null;
 }
 
+/** Low end of the low-methoxyl setting range (references: LM pectin gels with calcium at pH 2.5–6.5). */
+export const LM_SET_PH_MIN = 2.5;
+
 /** Common practice, no published source: how far a measurement may sit from its prediction. */
 export const TOLERANCES = { massPct: 5, solidsBrix: 1, endPointC: 1 } as const;
 
@@ -81,18 +84,24 @@ export function compareCook(computation: BatchComputation | null, cook: CookRead
   rows.push(row('end_point', 'End-point temperature', '°C', endPoint, cook.endPointTempC ?? null, cook.endPointTempC == null ? 'unknown' : epOff ? 'watch' : 'ok',
     epOff ? 'More than 1 °C from the predicted end point (common practice): check the thermometer and the water boiling point.' : 'Against the predicted end point for this kitchen.'));
   const ph = cook.ph ?? null;
+  // The setting window depends on the pectin: high-methoxyl needs acid, low-methoxyl sets with calcium.
+  const pectins = mb?.lines.filter((l) => l.ingredient.kind === 'pectin').map((l) => l.ingredient.pectinType ?? '') ?? [];
+  const lowMethoxylOnly = pectins.length > 0 && pectins.every((t) => t.startsWith('lm'));
+  const window = lowMethoxylOnly
+    ? { min: LM_SET_PH_MIN, max: ACID_FOOD_MAX_PH, why: `low-methoxyl pectin sets with calcium across pH ${LM_SET_PH_MIN}–6.5, and ${ACID_FOOD_MAX_PH} is the acid-food limit (21 CFR 114.3)` }
+    : { min: SET_PH_MIN, max: SET_PH_MAX, why: 'where high-methoxyl pectin sets (McGee, On Food and Cooking)' };
   let phFlag: ComparisonFlag = 'unknown';
   let phNote = 'No pH measured.';
   if (ph !== null) {
     if (ph > ACID_FOOD_MAX_PH) {
       phFlag = 'danger';
       phNote = 'Above pH 4.6: not an acid food (21 CFR 114.3). Do not sell or store this batch without a validated process. Local food-safety codes and licensed practice govern.';
-    } else if (ph < SET_PH_MIN || ph > SET_PH_MAX) {
+    } else if (ph < window.min || ph > window.max) {
       phFlag = 'out';
-      phNote = `Outside pH ${SET_PH_MIN}–${SET_PH_MAX}, where high-methoxyl pectin sets (McGee, On Food and Cooking).`;
+      phNote = `Outside pH ${window.min}–${window.max}, ${window.why}.`;
     } else {
       phFlag = 'ok';
-      phNote = `Within pH ${SET_PH_MIN}–${SET_PH_MAX}.`;
+      phNote = `Within pH ${window.min}–${window.max}, ${window.why}.`;
     }
   }
   rows.push(row('ph', 'pH', 'pH', plannedPh ?? null, ph, phFlag, phNote));

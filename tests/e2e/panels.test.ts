@@ -98,6 +98,18 @@ describe('the results of a closed tasting', () => {
     expect(lines[0]).toBe('session,seat,code,variant,attribute,value');
     expect(lines.length - 1).toBe(24 * 5 * 3);
     await screenshot(page, 'panel-results');
+
+    // The comparison page gathers the evidence; the developer marks a recommendation.
+    await page.goto('/trials');
+    await page.getByRole('link', { name: /Apricot spread: how low can the sugar go\?/ }).click();
+    await page.getByRole('link', { name: 'Compare variants' }).click();
+    await page.getByTestId('comparison-verdicts').first().waitFor();
+    await page.getByTestId('sensory-means').waitFor();
+    await page.getByLabel('Variant', { exact: true }).selectOption({ label: 'E — sugar ratio high, pectin dose high' });
+    await page.getByLabel('Why').fill('Firmest set and best liked; keeps the sugar ratio at 0.5, so no extra preservation step.');
+    await page.getByRole('button', { name: 'Recommend' }).click();
+    await page.getByText('Recommended: variant E').waitFor();
+    await screenshot(page, 'trial-compare');
     await ctx.close();
   });
 });

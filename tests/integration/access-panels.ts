@@ -58,6 +58,16 @@ export const PANELS_ROUTE_CASES: RouteCase[] = [
   { route: 'GET /api/v1/panels/[sessionId]/results', allowed: READ, otherWorkspace: 404, prepare: async (a) => ({ params: { sessionId: (await panelFixture(a)).sessionId } }) },
   { route: 'GET /api/v1/panels/[sessionId]/answers.csv', allowed: READ, otherWorkspace: 404, prepare: async (a) => ({ params: { sessionId: (await panelFixture(a)).sessionId } }) },
   { route: 'GET /api/v1/panels/[sessionId]/summary.csv', allowed: READ, otherWorkspace: 404, prepare: async (a) => ({ params: { sessionId: (await panelFixture(a)).sessionId } }) },
+  { route: 'GET /api/v1/trials/[trialId]/comparison', allowed: READ, otherWorkspace: 404, prepare: async (a) => ({ params: { trialId: (await panelFixture(a)).trialId } }) },
+  {
+    route: 'PUT /api/v1/trials/[trialId]/recommendation',
+    allowed: RUN,
+    otherWorkspace: 404,
+    prepare: async (a) => {
+      const p = await panelFixture(a);
+      return { params: { trialId: p.trialId }, body: { variantId: p.variantIds[1], rationale: 'Liked as much as the base with less sugar.' } };
+    },
+  },
   // The taster endpoints take no staff sign-in: the seat token in the path is the identity.
   { route: 'POST /api/v1/tasting/join', allowed: 'public', otherWorkspace: 'public', prepare: async (a) => ({ body: { joinCode: (await panelFixture(a)).joinCode, displayName: 'Matrix guest' } }) },
   { route: 'GET /api/v1/tasting/[seatToken]', allowed: 'public', otherWorkspace: 'public', prepare: async (a) => ({ params: { seatToken: (await seatFixture(a)).seatToken } }) },
@@ -77,4 +87,14 @@ export const PANELS_ROUTE_CASES: RouteCase[] = [
   { route: 'POST /api/v1/tasting/[seatToken]/submit', allowed: 'public', otherWorkspace: 'public', prepare: async (a) => ({ params: { seatToken: (await seatFixture(a)).seatToken } }) },
 ];
 
-export const PANELS_ACTION_CASES: ActionCase[] = [];
+export const PANELS_ACTION_CASES: ActionCase[] = [
+  {
+    action: 'lib/results/actions.ts#recommendVariantAction',
+    allowed: RUN,
+    otherWorkspace: 404,
+    argsAsync: async (a) => {
+      const p = await panelFixture(a);
+      return [p.trialId, { variantId: p.variantIds[1], rationale: 'Liked as much as the base with less sugar.' }];
+    },
+  },
+];

@@ -53,3 +53,21 @@ describe('a cook beside its prediction', () => {
     expect(JSON.stringify(c)).not.toContain('NaN');
   });
 });
+
+describe('the pH window follows the pectin', () => {
+  it('a low-methoxyl set at pH 3.7 is inside its window; above 4.6 is still a danger', () => {
+    // Source: the LM pectin range (gels with calcium at pH 2.5–6.5) in shared references; 21 CFR 114.3 for 4.6.
+    const lm = computeBatch(
+      [
+        { ingredient: { kind: 'fruit', name: 'Apricot', solidsPct: 11.7 }, quantity: 1000, unit: 'g' },
+        { ingredient: { kind: 'sweetener', name: 'Sugar', solidsPct: 100, sweetenerType: 'sucrose' }, quantity: 420, unit: 'g' },
+        { ingredient: { kind: 'pectin', name: 'LM pectin', solidsPct: 100, pectinType: 'lm_amidated' }, quantity: 10, unit: 'g' },
+      ],
+      { productClass: 'reduced_sugar_spread', ruleSet: 'eu', ruleDate: '2026-11-01', targetSolidsPct: 45, jarNetFillG: 250 },
+    );
+    const flag = (ph: number) => compareCook(lm, { ph }).rows.find((r) => r.key === 'ph')!.flag;
+    expect(flag(3.7)).toBe('ok');
+    expect(flag(2.4)).toBe('out');
+    expect(flag(4.7)).toBe('danger');
+  });
+});

@@ -51,6 +51,7 @@ export default async function TrialPage({ params }: { params: Promise<{ trialId:
           {canEdit ? <StatusControls trialId={trial.id} status={trial.status} /> : null}
           <a href={`/api/v1/trials/${trial.id}/export`} className={buttonClass('ghost')}>Download CSV</a>
           <Link href={`/trials/${trial.id}/print`} className={buttonClass('ghost')}>Print view</Link>
+          {can(actor.role, 'panels.read') ? <Link href={`/trials/${trial.id}/compare`} className={buttonClass('ghost')}>Compare variants</Link> : null}
         </div>
       </TrialHeader>
 

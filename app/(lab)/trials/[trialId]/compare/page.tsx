@@ -1,0 +1,86 @@
+import Link from 'next/link';
+import { requirePage, orNotFound, pageId } from '@/lib/page-guard';
+import { can } from '@/lib/permissions';
+import { getTrialComparison } from '@/lib/results/trial-comparison';
+import { LAB_MEASURE_LABELS } from '@/lib/results/comparison';
+import { formatP } from '@/lib/results/analysis';
+import { FACTOR_LABELS, type TrialFactor } from '@/lib/trials/vocabulary';
+import { TrialHeader } from '@/components/trials/TrialHeader';
+import { VariantsTable } from '@/components/trials/VariantsTable';
+import { RecommendForm } from '@/components/results/RecommendForm';
+import { CountChart } from '@/components/results/Charts';
+import { Notice } from '@/components/ui/Notice';
+
+export const dynamic = 'force-dynamic';
+export const metadata = { title: 'Compare variants' };
+
+const n2 = (x: number | null | undefined, d = 2) => (x === null || x === undefined || !Number.isFinite(x) ? '—' : x.toFixed(d));
+
+export default async function ComparePage({ params }: { params: Promise<{ trialId: string }> }) {
+  const actor = await requirePage('panels.read');
+  const c = await orNotFound(getTrialComparison(actor, pageId((await params).trialId)));
+  const attributes = [...new Set(c.means.map((m) => m.attribute))];
+  const labels = c.trial.variants.map((v) => v.label);
+  return (
+    <>
+      <TrialHeader trial={c.trial} />
+      <p className="-mt-3 mb-6 text-sm"><Link href={`/trials/${c.trial.id}`} className="text-damson-700 underline">Back to the trial</Link></p>
+      {c.recommendation ? (
+        <div className="mb-6"><Notice tone="success" title={`Recommended: variant ${c.recommendation.label}`}>{c.recommendation.rationale} — {c.recommendation.byName}, {new Date(c.recommendation.at).toLocaleDateString('en-GB')}</Notice></div>
+      ) : null}
+      <section className="mb-6">
+        <h2 className="mb-2 text-xl font-semibold">Predicted and measured</h2>
+        <VariantsTable trialId={c.trial.id} variants={c.trial.variants} massUnits={actor.massUnits} temperatureUnit={actor.temperatureUnit} />
+      </section>
+      <section className="mb-6" aria-labelledby="sensory-title">
+        <h2 id="sensory-title" className="mb-2 text-xl font-semibold">What tasters said</h2>
+        {c.sessions.length === 0 ? <p className="text-sm text-rind-600">No tasting with answers yet.</p> : null}
+        {c.sessions.map((s) => (
+          <div key={s.id} className="mb-3 rounded-card bg-pith-50 p-4 ring-1 ring-pith-300">
+            <p className="font-medium"><Link href={`/panels/${s.id}/results`} className="underline">{s.title}</Link></p>
+            <ul className="mt-1 space-y-1 text-sm" data-testid="comparison-verdicts">
+              {s.verdicts.map((v) => <li key={v.attribute}><strong>{v.attribute}:</strong> {v.verdict.headline}{v.verdict.cautions.length ? <span className="text-amberline-700"> ⚠ {v.verdict.cautions.join(' ')}</span> : null}</li>)}
+            </ul>
+          </div>
+        ))}
+        {attributes.length ? (
+          <table className="mt-3 text-sm" data-testid="sensory-means">
+            <thead className="text-left text-xs uppercase tracking-wider text-rind-500"><tr><th scope="col" className="pr-4">Attribute</th>{labels.map((l) => <th key={l} scope="col" className="px-2">{l}</th>)}</tr></thead>
+            <tbody>{attributes.map((a) => <tr key={a}><th scope="row" className="pr-4 text-left font-normal">{a}</th>{labels.map((l) => <td key={l} className="px-2 tabular-nums">{n2(c.means.find((m) => m.attribute === a && m.label === l)?.mean)}</td>)}</tr>)}</tbody>
+          </table>
+        ) : null}
+      </section>
+      {c.effects.length ? (
+        <section className="mb-6" aria-labelledby="effects-title">
+          <h2 id="effects-title" className="mb-2 text-xl font-semibold">Factor effects</h2>
+          <p className="mb-3 text-sm text-rind-600">Least-squares main effects on the variants’ mean scores: the change from the lowest to the highest level tried.</p>
+          <div className="grid gap-4 lg:grid-cols-2">
+            {c.effects.map((e) => (
+              <div key={e.attribute} className="rounded-card bg-pith-50 p-4 ring-1 ring-pith-300">
+                <p className="font-medium">{e.attribute}</p>
+                <CountChart label="Effect over the range" labels={e.result.effects.map((x) => FACTOR_LABELS[x.factor as TrialFactor]?.name ?? x.factor)} values={e.result.effects.map((x) => x.effectOverRange ?? 0)} ariaLabel={`Factor effects on ${e.attribute}`} />
+                <ul className="mt-2 text-xs text-rind-600">
+                  {e.result.effects.map((x) => <li key={x.factor}>{FACTOR_LABELS[x.factor as TrialFactor]?.name ?? x.factor}: {n2(x.effectOverRange)} ± {n2(x.standardErrorOverRange)} {x.p !== null ? `(${formatP(x.p)})` : ''}</li>)}
+                </ul>
+                {e.result.message ? <p className="mt-1 text-xs text-amberline-700">{e.result.message}</p> : null}
+              </div>
+            ))}
+          </div>
+        </section>
+      ) : null}
+      {c.correlations.length ? (
+        <section className="mb-6" aria-labelledby="corr-title">
+          <h2 id="corr-title" className="mb-2 text-xl font-semibold">Lab measurements against sensory means</h2>
+          <table className="text-sm">
+            <thead className="text-left text-xs uppercase tracking-wider text-rind-500"><tr><th scope="col" className="pr-4">Attribute</th><th scope="col" className="pr-4">Measure</th><th scope="col" className="pr-4">r</th><th scope="col" className="pr-4">n</th><th scope="col">p</th></tr></thead>
+            <tbody>{c.correlations.map((x) => <tr key={`${x.attribute}-${x.measure}`}><td className="pr-4">{x.attribute}</td><td className="pr-4">{LAB_MEASURE_LABELS[x.measure]}</td><td className="pr-4 tabular-nums">{n2(x.result.r)}</td><td className="pr-4">{x.result.n}</td><td>{formatP(x.result.p)}</td></tr>)}</tbody>
+          </table>
+          <p className="mt-1 text-xs text-rind-500">Pearson correlation across variants; with this few variants, read it as a hint, not proof.</p>
+        </section>
+      ) : null}
+      {can(actor.role, 'trials.write') ? (
+        <RecommendForm trialId={c.trial.id} variants={c.trial.variants.map((v) => ({ id: v.id, label: v.label, description: v.description }))} current={c.recommendation ? { variantId: c.recommendation.variantId, rationale: c.recommendation.rationale } : null} />
+      ) : null}
+    </>
+  );
+}
