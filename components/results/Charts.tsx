@@ -86,3 +86,29 @@ export function CountChart({ label, labels, values, ariaLabel }: { label: string
     </div>
   );
 }
+
+const SERIES = [DAMSON, QUINCE, LEAF, EMBER, '#9f6389', '#6f665e', '#b98a1c', '#245f34', '#3b3632', '#d9bccf', '#e8c153', '#8c2616'];
+
+/** All attributes at once, one bar group per attribute and one colour per sample. */
+export function ProfileChart({ attributes, samples, means }: { attributes: string[]; samples: string[]; means: Record<string, Record<string, number | null>> }) {
+  return (
+    <div className="h-72" role="img" aria-label="Attribute profile: mean score of each sample on each attribute" data-testid="profile-chart">
+      <Bar
+        data={{ labels: attributes, datasets: samples.map((s, i) => ({ label: `Sample ${s}`, data: attributes.map((a) => means[a]?.[s] ?? null), backgroundColor: SERIES[i % SERIES.length] })) }}
+        options={{ maintainAspectRatio: false, scales: { y: { min: 0, title: { display: true, text: 'Mean score (each on its own scale)' } } } }}
+      />
+    </div>
+  );
+}
+
+/** Weighted penalties of the too-little and too-much groups; the larger the bar, the more liking that side costs. */
+export function PenaltyChart({ title, tooLittle, tooMuch }: { title: string; tooLittle: number | null; tooMuch: number | null }) {
+  return (
+    <div className="h-40" role="img" aria-label={`${title}: weighted penalties`} data-testid="penalty-chart">
+      <Bar
+        data={{ labels: ['Too little', 'Too much'], datasets: [{ label: 'Weighted penalty', data: [tooLittle ?? 0, tooMuch ?? 0], backgroundColor: [QUINCE, EMBER] }] }}
+        options={{ indexAxis: 'y', maintainAspectRatio: false, plugins: { legend: { display: false } }, scales: { x: { title: { display: true, text: 'Share × mean drop in liking' } } } }}
+      />
+    </div>
+  );
+}

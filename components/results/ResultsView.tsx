@@ -1,7 +1,7 @@
 import type { PanelAnalysis } from '@/lib/results/analysis';
 import { formatP } from '@/lib/results/analysis';
 import { Notice } from '@/components/ui/Notice';
-import { MeansChart, JarChart, CountChart } from './Charts';
+import { MeansChart, JarChart, CountChart, ProfileChart, PenaltyChart } from './Charts';
 
 const SOURCE_LABEL = { treatments: 'Samples', blocks: 'Assessors', error: 'Error', total: 'Total' } as const;
 const n2 = (x: number | null | undefined, d = 2) => (x === null || x === undefined || !Number.isFinite(x) ? '—' : x.toFixed(d));
@@ -19,6 +19,16 @@ function VerdictBox({ verdict }: { verdict: { headline: string; differs: boolean
 export function ResultsView({ analysis }: { analysis: PanelAnalysis }) {
   return (
     <div className="space-y-8">
+      {analysis.attributes.length > 1 ? (
+        <section className="rounded-card bg-pith-50 p-5 ring-1 ring-pith-300" aria-label="Attribute profile">
+          <h2 className="text-xl font-semibold">Profile</h2>
+          <ProfileChart
+            attributes={analysis.attributes.map((a) => a.attribute.name)}
+            samples={analysis.attributes[0].descriptive.map((d) => d.label)}
+            means={Object.fromEntries(analysis.attributes.map((a) => [a.attribute.name, Object.fromEntries(a.descriptive.map((d) => [d.label, d.mean]))]))}
+          />
+        </section>
+      ) : null}
       {analysis.attributes.map((a) => {
         const labels = a.descriptive.map((d) => d.label);
         const scaleMax = a.attribute.purpose === 'liking' ? 9 : a.attribute.purpose === 'just-about-right' ? 5 : 10;
@@ -72,6 +82,7 @@ export function ResultsView({ analysis }: { analysis: PanelAnalysis }) {
               <div className="mt-4">
                 <h3 className="font-semibold">Just-about-right and its penalties</h3>
                 <JarChart title={a.attribute.name} rows={analysis.jarShares.filter((r) => r.attributeId === a.attribute.id)} />
+                <PenaltyChart title={a.attribute.name} tooLittle={a.penalty.groups.tooLittle.weightedPenalty} tooMuch={a.penalty.groups.tooMuch.weightedPenalty} />
                 <table className="mt-2 text-sm">
                   <thead className="text-left text-xs uppercase tracking-wider text-rind-500"><tr><th scope="col">Group</th><th scope="col">Share</th><th scope="col">Mean liking</th><th scope="col">Mean drop</th><th scope="col">Weighted penalty</th></tr></thead>
                   <tbody>
