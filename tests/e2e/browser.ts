@@ -1,4 +1,5 @@
 /** playwright-core driving Debian's chromium (never a downloaded browser) against the app on $PORT. */
+import { beforeAll, afterAll } from 'vitest';
 import { chromium, type Browser, type BrowserContext, type Page } from 'playwright-core';
 import fs from 'node:fs';
 import path from 'node:path';
@@ -51,4 +52,16 @@ export async function screenshot(page: Page, name: string) {
   const dir = path.resolve('test-results');
   fs.mkdirSync(dir, { recursive: true });
   await page.screenshot({ path: path.join(dir, `${name}.png`), fullPage: true });
+}
+
+/** One chromium per test file, started before the first test and closed after the last. */
+export function sharedBrowser(): () => Browser {
+  let browser: Browser | undefined;
+  beforeAll(async () => {
+    browser = await launch();
+  });
+  afterAll(async () => {
+    await browser?.close();
+  });
+  return () => browser!;
 }

@@ -2,18 +2,12 @@
  * A product developer builds a formula from scratch in the browser, watches the results
  * change, switches to imperial units, saves, revises and compares the two revisions.
  */
-import { describe, it, expect, beforeAll, afterAll } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
-import { launch, newContext, signIn, screenshot } from './browser';
+import { describe, it, expect } from 'vitest';
+import type { Page } from 'playwright-core';
+import { sharedBrowser, newContext, signIn, screenshot } from './browser';
 import { DEMO_USERS } from '@/lib/seed/demo';
 
-let browser: Browser;
-beforeAll(async () => {
-  browser = await launch();
-});
-afterAll(async () => {
-  await browser?.close();
-});
+const browser = sharedBrowser();
 
 const developer = DEMO_USERS.find((u) => u.role === 'developer')!;
 
@@ -27,7 +21,7 @@ async function setLine(page: Page, n: number, ingredient: string, quantity: stri
 
 describe('the formula editor', () => {
   it('builds, saves, revises and compares a formula', async () => {
-    const ctx = await newContext(browser);
+    const ctx = await newContext(browser());
     const page = await ctx.newPage();
     await signIn(page, developer.email);
 
@@ -85,7 +79,7 @@ describe('the formula editor', () => {
   });
 
   it('shows the seeded failing formula and the safety cautions of the reduced-sugar spread', async () => {
-    const ctx = await newContext(browser);
+    const ctx = await newContext(browser());
     const page = await ctx.newPage();
     await signIn(page, developer.email);
     await page.goto('/formulas');
@@ -99,7 +93,7 @@ describe('the formula editor', () => {
   });
 
   it('the ingredient library can be searched and exported', async () => {
-    const ctx = await newContext(browser);
+    const ctx = await newContext(browser());
     const page = await ctx.newPage();
     await signIn(page, developer.email);
     await page.goto('/ingredients?q=pectin');

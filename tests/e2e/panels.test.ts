@@ -2,18 +2,12 @@
  * A guest tastes on a phone-sized screen — join with the code, answer every sample, reload in
  * the middle, finish — while the organiser watches the progress and closes the session.
  */
-import { describe, it, expect, beforeAll, afterAll } from 'vitest';
-import type { Browser, Page } from 'playwright-core';
-import { launch, newContext, signIn, screenshot } from './browser';
+import { describe, it, expect } from 'vitest';
+import type { Page } from 'playwright-core';
+import { sharedBrowser, newContext, signIn, screenshot } from './browser';
 import { DEMO_USERS } from '@/lib/seed/demo';
 
-let browser: Browser;
-beforeAll(async () => {
-  browser = await launch();
-});
-afterAll(async () => {
-  await browser?.close();
-});
+const browser = sharedBrowser();
 
 const developer = DEMO_USERS.find((u) => u.role === 'developer')!;
 
@@ -24,7 +18,7 @@ async function answerSample(phone: Page) {
 
 describe('a tasting on phones', () => {
   it('joins, answers, survives a reload, submits; the organiser sees it and closes', async () => {
-    const desk = await newContext(browser);
+    const desk = await newContext(browser());
     const organiser = await desk.newPage();
     await signIn(organiser, developer.email);
     await organiser.goto('/trials');
@@ -33,7 +27,7 @@ describe('a tasting on phones', () => {
     const joinCode = (await organiser.getByTestId('join-code').textContent())!.trim();
     expect(joinCode).toMatch(/^[A-Z0-9]{6}$/);
 
-    const phoneCtx = await newContext(browser, { width: 360, height: 740 });
+    const phoneCtx = await newContext(browser(), { width: 360, height: 740 });
     const phone = await phoneCtx.newPage();
     await phone.goto('/join');
     await phone.getByLabel('Tasting code').fill(joinCode.toLowerCase());
@@ -78,7 +72,7 @@ describe('a tasting on phones', () => {
 
 describe('the results of a closed tasting', () => {
   it('shows a verdict and a chart for the demo panel, and exports the raw answers', async () => {
-    const ctx = await newContext(browser);
+    const ctx = await newContext(browser());
     const page = await ctx.newPage();
     await signIn(page, developer.email);
     await page.goto('/trials');

@@ -1,21 +1,14 @@
 /** Sign-in per role, the invitation round trip through the mail fake, wrong passwords and the rate limit. */
-import { describe, it, expect, beforeAll, afterAll } from 'vitest';
-import type { Browser } from 'playwright-core';
-import { launch, newContext, signIn, mailTo, screenshot, DEMO_PASSWORD } from './browser';
+import { describe, it, expect } from 'vitest';
+import { sharedBrowser, newContext, signIn, mailTo, screenshot, DEMO_PASSWORD } from './browser';
 import { DEMO_USERS, OTHER_ADMIN } from '@/lib/seed/demo';
 import { navFor } from '@/lib/navigation';
 
-let browser: Browser;
-beforeAll(async () => {
-  browser = await launch();
-});
-afterAll(async () => {
-  await browser?.close();
-});
+const browser = sharedBrowser();
 
 describe('each demo role signs in and sees its own navigation', () => {
   it.each(DEMO_USERS.map((u) => [u.role, u] as const))('%s', async (_role, user) => {
-    const ctx = await newContext(browser);
+    const ctx = await newContext(browser());
     const page = await ctx.newPage();
     await signIn(page, user.email);
     const nav = page.getByTestId('main-nav').first();
@@ -27,7 +20,7 @@ describe('each demo role signs in and sees its own navigation', () => {
   });
 
   it('a taster who opens a staff page gets the 403 page', async () => {
-    const ctx = await newContext(browser);
+    const ctx = await newContext(browser());
     const page = await ctx.newPage();
     await signIn(page, DEMO_USERS.find((u) => u.role === 'taster')!.email);
     const res = await page.goto('/settings/members');
@@ -37,7 +30,7 @@ describe('each demo role signs in and sees its own navigation', () => {
   });
 
   it('a signed-out visitor is sent to sign in', async () => {
-    const ctx = await newContext(browser);
+    const ctx = await newContext(browser());
     const page = await ctx.newPage();
     await page.goto('/settings/members');
     expect(new URL(page.url()).pathname).toBe('/sign-in');
@@ -47,7 +40,7 @@ describe('each demo role signs in and sees its own navigation', () => {
 
 describe('invitations', () => {
   it('an admin invites from the members table; the invitee accepts through the mailed link and signs in', async () => {
-    const ctx = await newContext(browser);
+    const ctx = await newContext(browser());
     const page = await ctx.newPage();
     await signIn(page, DEMO_USERS[0].email);
     await page.goto('/settings/members');
@@ -65,7 +58,7 @@ describe('invitations', () => {
     expect(link).toBeTruthy();
     const path = new URL(link!).pathname;
 
-    const guest = await newContext(browser);
+    const guest = await newContext(browser());
     const gp = await guest.newPage();
     await gp.goto(path);
     await gp.getByRole('heading', { name: /Join Hollowmere Preserves/ }).waitFor();
@@ -87,7 +80,7 @@ describe('invitations', () => {
 
 describe('wrong passwords', () => {
   it('shows a clear error and stays on the sign-in page', async () => {
-    const ctx = await newContext(browser);
+    const ctx = await newContext(browser());
     const page = await ctx.newPage();
     await page.goto('/sign-in');
     await page.getByLabel('E-mail').fill(DEMO_USERS[2].email);
@@ -99,7 +92,7 @@ describe('wrong passwords', () => {
   });
 
   it('the rate limit kicks in after repeated failures, even for the right password', async () => {
-    const ctx = await newContext(browser);
+    const ctx = await newContext(browser());
     const page = await ctx.newPage();
     await page.goto('/sign-in');
     for (let i = 0; i < 5; i++) {

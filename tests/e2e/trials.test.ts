@@ -2,39 +2,33 @@
  * A product developer runs a trial without paper: starts it from a formula, lays out a
  * factorial, writes the notebook with a photo, records a cook and reads it beside the prediction.
  */
-import { describe, it, expect, beforeAll, afterAll, onTestFailed } from 'vitest';
-import type { Browser } from 'playwright-core';
+import { describe, it, expect, beforeAll, onTestFailed } from 'vitest';
 import sharp from 'sharp';
 import fs from 'node:fs';
 import os from 'node:os';
 import path from 'node:path';
-import { launch, newContext, signIn, screenshot } from './browser';
+import { sharedBrowser, newContext, signIn, screenshot } from './browser';
 import { DEMO_USERS } from '@/lib/seed/demo';
 
-let browser: Browser;
+const browser = sharedBrowser();
 let photoPath: string;
 beforeAll(async () => {
-  browser = await launch();
   // An invented picture made here, not a photo from anywhere.
   const svg = `<svg xmlns="http://www.w3.org/2000/svg" width="320" height="240"><rect width="320" height="240" fill="#f3ecdd"/><rect x="110" y="40" width="100" height="160" rx="14" fill="#9f6389"/><text x="160" y="225" font-size="18" text-anchor="middle">test jar</text></svg>`;
   photoPath = path.join(fs.mkdtempSync(path.join(os.tmpdir(), 'setwell-e2e-')), 'jar.png');
   fs.writeFileSync(photoPath, await sharp(Buffer.from(svg)).png().toBuffer());
-});
-afterAll(async () => {
-  await browser?.close();
 });
 
 const developer = DEMO_USERS.find((u) => u.role === 'developer')!;
 
 describe('a whole trial in the browser', () => {
   it('plans a factorial, writes the notebook with a photo, records a cook and compares it', async () => {
-    const ctx = await newContext(browser);
+    const ctx = await newContext(browser());
     const page = await ctx.newPage();
     onTestFailed(async () => {
       await screenshot(page, 'trials-failure');
     });
     await signIn(page, developer.email);
-    if (process.env.E2E_DEBUG) page.on('response', async (r) => { if (r.request().method() === 'POST' && r.request().headers()['next-action']) console.log('ACTION', r.request().postData()?.slice(0, 1500), (await r.text()).slice(0, 1500)); });
 
     await page.goto('/trials');
     await page.getByTestId('trial-list').getByText('Apricot spread: how low can the sugar go?').waitFor();

@@ -127,7 +127,7 @@ describe('live computation', () => {
     expect(result.skippedLineKeys).toEqual(['c']);
     expect(result.lineKeys).toEqual(['a', 'b']);
     expect(result.outcome?.ok).toBe(true);
-    // Mass balance (references.md): finished mass = solids ÷ target fraction = (1000 + 10000) g / 0.68.
+    // Mass balance (Practical Action technical brief "Jams, jellies and marmalade"): finished mass = solids ÷ target fraction = (1000 + 10000) g / 0.68.
     if (result.outcome?.ok) expect(result.outcome.computation.massBalance.finishedMassG).toBeCloseTo(11000 / 0.68, 6);
   });
 

@@ -16,7 +16,7 @@ function expectNoNaN(value: unknown): void {
 describe('randomised complete block ANOVA', () => {
   it('reproduces Montgomery Example 4.1 (vascular graft)', () => {
     const result = blockedAnova(vascularGraftObservations());
-    // Source: Montgomery, Design and Analysis of Experiments, Example 4.1 (values in /work/shared/references.md)
+    // Source: Montgomery, Design and Analysis of Experiments, Example 4.1
     expect(result.method).toBe('closed-form');
     expect(result.incomplete).toBe(false);
     expect(rowOf(result, 'treatments').sumOfSquares).toBeCloseTo(178.17125, 5);

@@ -10,7 +10,7 @@ import { collectNonFiniteNumbers } from './fixtures';
 
 describe('triangle test for difference (p0 = 1/3)', () => {
   it('reproduces the ISO 4120 table of minimum correct answers', () => {
-    // Source: ISO 4120; FAO docrep V7180E, Appendix A (values in /work/shared/references.md)
+    // Source: ISO 4120; FAO docrep V7180E, Appendix A
     expect(minimumCorrectForDifference(12, 1 / 3, 0.05)).toBe(8);
     expect(minimumCorrectForDifference(12, 1 / 3, 0.01)).toBe(9);
     expect(minimumCorrectForDifference(24, 1 / 3, 0.05)).toBe(13);
@@ -36,7 +36,7 @@ describe('triangle test for difference (p0 = 1/3)', () => {
   });
 
   it('exact p-value P(X ≥ 13 | n = 24, p = 1/3) = 0.0284411281', () => {
-    // Source: /work/shared/references.md, triangle test (ISO 4120)
+    // Source: ISO 4120 (triangle test)
     const result = analyseDiscriminationTest({ method: 'triangle', correct: 13, total: 24 });
     expect(result.pValue).toBeCloseTo(0.0284411281, 10);
     expect(result.differenceShown).toBe(true);

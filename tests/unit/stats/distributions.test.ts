@@ -13,17 +13,17 @@ import {
 
 describe('jstat spot checks', () => {
   it('F cdf(3.5; 4, 20)', () => {
-    // Source: /work/shared/references.md, jstat distributions (reference implementations agree to 1e-9)
+    // Source: reference statistical implementations of these distributions, which agree to 1e-9 (values from the team reference notes)
     expect(jStat.centralF.cdf(3.5, 4, 20)).toBeCloseTo(0.9746147691, 7);
     expect(1 - fUpperTail(3.5, 4, 20)).toBeCloseTo(0.9746147691, 9);
   });
   it('studentized range cdf(3.5; 3, 20)', () => {
-    // Source: /work/shared/references.md, jstat distributions
+    // Source: reference statistical implementations (values from the team reference notes)
     expect(jStat.tukey.cdf(3.5, 3, 20)).toBeCloseTo(0.9441081509, 7);
     expect(studentizedRangeCdf(3.5, 3, 20)).toBeCloseTo(0.9441081509, 7);
   });
   it('chi-square cdf(7.8; 3)', () => {
-    // Source: /work/shared/references.md, jstat distributions
+    // Source: reference statistical implementations (values from the team reference notes)
     expect(jStat.chisquare.cdf(7.8, 3)).toBeCloseTo(0.9496689021, 7);
     expect(1 - chiSquareUpperTail(7.8, 3)).toBeCloseTo(0.9496689021, 9);
   });
@@ -31,7 +31,7 @@ describe('jstat spot checks', () => {
 
 describe('upper tails and quantiles', () => {
   it('binomial upper tail P(X ≥ 13 | n = 24, p = 1/3)', () => {
-    // Source: ISO 4120 triangle test; value from /work/shared/references.md
+    // Source: ISO 4120 triangle test (exact binomial tail)
     expect(binomialUpperTail(13, 24, 1 / 3)).toBeCloseTo(0.0284411281, 10);
   });
   it('F upper tail of Montgomery Example 4.1 treatments', () => {

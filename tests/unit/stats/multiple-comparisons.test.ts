@@ -6,7 +6,7 @@ describe('Tukey HSD and Fisher LSD after a blocked ANOVA', () => {
   const anova = blockedAnova(vascularGraftObservations());
 
   it('reproduces the HSD and LSD of Montgomery Example 4.1', () => {
-    // Source: Montgomery, Design and Analysis of Experiments, Example 4.1 (values in /work/shared/references.md)
+    // Source: Montgomery, Design and Analysis of Experiments, Example 4.1
     expect(compareTreatmentMeans(anova, { method: 'tukey-hsd' }).criticalDifference).toBeCloseTo(4.5038, 4);
     expect(compareTreatmentMeans(anova, { method: 'fisher-lsd' }).criticalDifference).toBeCloseTo(3.3307, 4);
   });
