@@ -69,9 +69,59 @@ export async function answersCsv(actor: Actor, sessionId: string): Promise<strin
   ]);
 }
 
-/** Means, intervals and letters per sample and attribute. */
-export async function summaryCsv(actor: Actor, sessionId: string): Promise<string> {
+export const SUMMARY_TABLES = ['means', 'anova', 'penalty', 'triangle', 'ranking'] as const;
+export type SummaryTable = (typeof SUMMARY_TABLES)[number];
+
+/** Every summary table of the results page as CSV: means (default), anova, penalty, triangle, ranking. */
+export async function summaryCsv(actor: Actor, sessionId: string, table: SummaryTable = 'means'): Promise<string> {
   const { analysis } = await getPanelResults(actor, sessionId);
+  if (table === 'anova') {
+    const rows = analysis.attributes.flatMap((a) => a.anova.rows.map((r) => ({ a, r })));
+    return toCsv(rows, [
+      { header: 'attribute', value: (x) => x.a.attribute.name },
+      { header: 'source', value: (x) => x.r.source },
+      { header: 'sum_of_squares', value: (x) => x.r.sumOfSquares },
+      { header: 'df', value: (x) => x.r.df },
+      { header: 'mean_square', value: (x) => x.r.meanSquare ?? '' },
+      { header: 'f', value: (x) => x.r.f ?? '' },
+      { header: 'p', value: (x) => x.r.p ?? '' },
+    ]);
+  }
+  if (table === 'penalty') {
+    const rows = analysis.attributes.flatMap((a) => (a.penalty ? (['tooLittle', 'justAboutRight', 'tooMuch'] as const).map((g) => ({ a, g, x: a.penalty!.groups[g] })) : []));
+    return toCsv(rows, [
+      { header: 'attribute', value: (r) => r.a.attribute.name },
+      { header: 'group', value: (r) => r.g },
+      { header: 'count', value: (r) => r.x.count },
+      { header: 'share', value: (r) => r.x.share },
+      { header: 'mean_liking', value: (r) => r.x.meanLiking ?? '' },
+      { header: 'mean_drop', value: (r) => r.x.meanDrop ?? '' },
+      { header: 'weighted_penalty', value: (r) => r.x.weightedPenalty ?? '' },
+      { header: 'share_at_least_20pct', value: (r) => (r.x.largeEnoughToInterpret ? 'yes' : 'no') },
+    ]);
+  }
+  if (table === 'triangle') {
+    const t = analysis.triangle?.result;
+    return toCsv(t ? [t] : [], [
+      { header: 'correct', value: (r) => r.correct },
+      { header: 'total', value: (r) => r.total },
+      { header: 'p_value', value: (r) => r.pValue ?? '' },
+      { header: 'minimum_correct_alpha_0_05', value: (r) => r.minimumCorrectForDifference ?? '' },
+      { header: 'discriminators_estimate', value: (r) => r.discriminators?.estimate ?? '' },
+      { header: 'discriminators_upper_limit', value: (r) => r.discriminators?.upperConfidenceLimit ?? '' },
+    ]);
+  }
+  if (table === 'ranking') {
+    const f = analysis.ranking?.friedman;
+    return toCsv(f ? f.treatments.map((t) => ({ t, f })) : [], [
+      { header: 'variant', value: (r) => r.t },
+      { header: 'rank_sum', value: (r) => r.f.rankSums[r.t] },
+      { header: 'mean_rank', value: (r) => r.f.meanRanks[r.t] },
+      { header: 'letters', value: (r) => r.f.letters[r.t] ?? '' },
+      { header: 'friedman_statistic', value: (r) => r.f.statistic ?? '' },
+      { header: 'p', value: (r) => r.f.p ?? '' },
+    ]);
+  }
   const rows = analysis.attributes.flatMap((a) => a.descriptive.map((d) => ({ a, d })));
   const p = (x: (typeof rows)[number]) => x.a.anova.rows.find((r) => r.source === 'treatments')?.p ?? '';
   return toCsv(rows, [

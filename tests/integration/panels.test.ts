@@ -12,6 +12,8 @@ import { recordAnswer, recordConsent, tasterView, submitSeat } from '@/lib/panel
 import * as joinRoute from '@/app/api/v1/tasting/join/route';
 import * as viewRoute from '@/app/api/v1/tasting/[seatToken]/route';
 import * as answersRoute from '@/app/api/v1/tasting/[seatToken]/answers/route';
+import * as summaryRoute from '@/app/api/v1/panels/[sessionId]/summary.csv/route';
+import * as rawRoute from '@/app/api/v1/panels/[sessionId]/answers.csv/route';
 import { getEm } from '@/lib/db';
 import { PanelAnswer, Variant, Formula } from '@/entities';
 import { isAllowedBlindingCode } from '@/lib/sensory';
@@ -178,6 +180,33 @@ describe('who tastes', () => {
       last = res.status;
     }
     expect(last).toBe(429);
+  });
+});
+
+describe('exports', () => {
+  it('raw answers in long format and each summary table as CSV; an unknown table is a 422', async () => {
+    const s = await ratedSession(2);
+    for (const name of ['One', 'Two', 'Three']) {
+      const token = await seat(s.joinCode, name);
+      const v = await tasterView(token);
+      for (const [i, x] of v.samples.entries()) {
+        await recordAnswer(token, { idempotencyKey: randomUUID(), code: x.code, attributeId: s.liking.id, value: 5 + i + name.length % 2 });
+        await recordAnswer(token, { idempotencyKey: randomUUID(), code: x.code, attributeId: s.firmness.id, value: 4 + i });
+      }
+    }
+    const get = async (route: typeof summaryRoute | typeof rawRoute, query = '') => {
+      const res = await route.GET(new Request(`http://127.0.0.1/x${query}`, { headers: { cookie: a.people.developer.sessionCookie } }), { params: Promise.resolve({ sessionId: s.sessionId }) });
+      return { status: res.status, lines: (await res.text()).trim().split(/\r?\n/) };
+    };
+    const raw = await get(rawRoute);
+    expect(raw.lines[0]).toBe('session,seat,code,variant,attribute,value');
+    expect(raw.lines).toHaveLength(1 + 3 * 2 * 2);
+    const anova = await get(summaryRoute, '?table=anova');
+    expect(anova.lines[0]).toBe('attribute,source,sum_of_squares,df,mean_square,f,p');
+    expect(anova.lines.filter((l) => l.includes(',treatments,'))).toHaveLength(2);
+    const means = await get(summaryRoute);
+    expect(means.lines[0]).toContain('tukey_letters');
+    expect((await get(summaryRoute, '?table=bogus')).status).toBe(422);
   });
 });
 

@@ -23,9 +23,13 @@ export default async function PanelResultsPage({ params }: { params: Promise<{ s
         title={`Results: ${session.title}`}
         lead={`${PANEL_STATE_LABELS[session.state]} · ${data.seatCount} seats, ${data.submittedSeats} submitted`}
         actions={
-          <div className="flex gap-2">
+          <div className="flex flex-wrap gap-2">
             <a href={`/api/v1/panels/${id}/answers.csv`} className={buttonClass('secondary')}>Raw answers (CSV)</a>
-            <a href={`/api/v1/panels/${id}/summary.csv`} className={buttonClass('ghost')}>Summary (CSV)</a>
+            <a href={`/api/v1/panels/${id}/summary.csv`} className={buttonClass('ghost')}>Means (CSV)</a>
+            <a href={`/api/v1/panels/${id}/summary.csv?table=anova`} className={buttonClass('ghost')}>ANOVA (CSV)</a>
+            {analysis.attributes.some((a) => a.penalty) ? <a href={`/api/v1/panels/${id}/summary.csv?table=penalty`} className={buttonClass('ghost')}>Penalties (CSV)</a> : null}
+            {analysis.triangle ? <a href={`/api/v1/panels/${id}/summary.csv?table=triangle`} className={buttonClass('ghost')}>Triangle (CSV)</a> : null}
+            {analysis.ranking ? <a href={`/api/v1/panels/${id}/summary.csv?table=ranking`} className={buttonClass('ghost')}>Ranking (CSV)</a> : null}
           </div>
         }
       />

@@ -1,9 +1,14 @@
 import { apiRoute, uuidParam } from '@/lib/api/route';
-import { summaryCsv } from '@/lib/results/queries';
+import { summaryCsv, SUMMARY_TABLES, type SummaryTable } from '@/lib/results/queries';
+import { ApiError } from '@/lib/api/errors';
 import { csvResponse } from '@/lib/csv';
 
 export const dynamic = 'force-dynamic';
 
-export const GET = apiRoute<{ sessionId: string }>('panels.read', async ({ actor, params }) =>
-  csvResponse(await summaryCsv(actor, uuidParam(params.sessionId, 'tasting')), 'summary.csv'),
-);
+/** ?table=means (default) | anova | penalty | triangle | ranking */
+export const GET = apiRoute<{ sessionId: string }>('panels.read', async ({ actor, params, req }) => {
+  const id = uuidParam(params.sessionId, 'tasting');
+  const table = (new URL(req.url).searchParams.get('table') ?? 'means') as SummaryTable;
+  if (!SUMMARY_TABLES.includes(table)) throw new ApiError(422, 'invalid', `table must be one of: ${SUMMARY_TABLES.join(', ')}.`, { table: ['Unknown table.'] });
+  return csvResponse(await summaryCsv(actor, id, table), `${table}.csv`);
+});
