@@ -108,3 +108,22 @@ describe('wrong passwords', () => {
     await ctx.close();
   });
 });
+
+describe('baseline security headers', () => {
+  it('every page forbids framing and sniffing and keeps referrers to our origin', async () => {
+    // Sources: W3C CSP Level 3 (frame-ancestors, base-uri, form-action, object-src); WHATWG Fetch (nosniff);
+    // W3C Referrer Policy (strict-origin-when-cross-origin).
+    const ctx = await newContext(browser());
+    for (const path of ['/sign-in', '/join', '/api/health']) {
+      const res = await ctx.request.get(path);
+      const h = res.headers();
+      expect(h['content-security-policy']).toContain("frame-ancestors 'none'");
+      expect(h['content-security-policy']).toContain("object-src 'none'");
+      expect(h['x-frame-options']).toBe('DENY');
+      expect(h['x-content-type-options']).toBe('nosniff');
+      expect(h['referrer-policy']).toBe('strict-origin-when-cross-origin');
+      expect(h['x-powered-by']).toBeUndefined();
+    }
+    await ctx.close();
+  });
+});
