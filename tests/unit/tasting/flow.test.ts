@@ -1,4 +1,5 @@
 import { describe, expect, it } from 'vitest';
+import { HEDONIC_9_LABELS } from './fixtures';
 import {
   applyAnswer,
   checkJoinInput,
@@ -18,18 +19,8 @@ import {
   type SeatView,
 } from '@/lib/tasting-client';
 
-// Source: Peryam & Pilgrim (1957), Hedonic scale method of measuring food preferences — the nine anchors, 9 down to 1.
-const HEDONIC_9 = [
-  'Like extremely',
-  'Like very much',
-  'Like moderately',
-  'Like slightly',
-  'Neither like nor dislike',
-  'Dislike slightly',
-  'Dislike moderately',
-  'Dislike very much',
-  'Dislike extremely',
-].map((label, i) => ({ value: 9 - i, label }));
+// Source: Peryam & Pilgrim (1957) — the nine anchors, 9 down to 1 (listed once, in fixtures.ts).
+const HEDONIC_9 = HEDONIC_9_LABELS.map((label, i) => ({ value: 9 - i, label }));
 
 function ratedView(overrides: Partial<SeatView> = {}): SeatView {
   return {
