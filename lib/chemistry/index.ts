@@ -20,3 +20,4 @@ export {
 export * from './guidance';
 export * from './batch';
 export * from './typical-ingredients';
+export * from './qc';
