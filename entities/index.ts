@@ -21,11 +21,17 @@ import { PanelSession } from './PanelSession';
 import { PanelSample } from './PanelSample';
 import { PanelSeat } from './PanelSeat';
 import { PanelAnswer } from './PanelAnswer';
+import { Product } from './Product';
+import { PromotionRequest } from './PromotionRequest';
+import { ProductionFormula } from './ProductionFormula';
+import { BatchRecord } from './BatchRecord';
+import { AuditEvent } from './AuditEvent';
 
 export {
   Workspace, User, Membership, Invitation, PasswordReset, ApiToken, RateLimitBucket, Ingredient, Formula, FormulaRevision,
   Trial, TrialStatusChange, Variant, Measurement, Upload, NotebookEntry, NotebookConflict,
   SensoryAttributeDef, PanelSession, PanelSample, PanelSeat, PanelAnswer,
+  Product, PromotionRequest, ProductionFormula, BatchRecord, AuditEvent,
 };
 export { ROLES } from './Membership';
 
@@ -34,4 +40,5 @@ export const allEntities = [
   Ingredient, Formula, FormulaRevision,
   Trial, TrialStatusChange, Variant, Measurement, Upload, NotebookEntry, NotebookConflict,
   SensoryAttributeDef, PanelSession, PanelSample, PanelSeat, PanelAnswer,
+  Product, PromotionRequest, ProductionFormula, BatchRecord, AuditEvent,
 ];

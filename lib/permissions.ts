@@ -35,6 +35,12 @@ const GRANTS = {
   'trials.write': ['admin', 'developer'],
   'panels.read': ['admin', 'developer', 'head_of_product'],
   'panels.run': ['admin', 'developer'],
+  'promotion.read': ['admin', 'developer', 'head_of_product'],
+  'promotion.request': ['admin', 'developer'],
+  'promotion.decide': ['head_of_product'],
+  'production.read': STAFF,
+  'batches.record': ['production'],
+  'audit.read': ['admin', 'head_of_product'],
 } satisfies Record<string, Role[]>;
 
 export type Permission = keyof typeof GRANTS;
@@ -77,6 +83,18 @@ export function authorize(actor: Actor | null, permission: Permission): Actor {
     throw new AccessDenied(403, `Your role (${ROLE_LABELS[actor.role]}) does not allow this.`);
   }
   return actor;
+}
+
+/**
+ * The four-eyes rule of promotion: only the head of product decides, and never on a request they
+ * made themselves (an admin who also holds the role is no exception).
+ */
+export function authorizeDecision(actor: Actor | null, request: { requestedById: string }): Actor {
+  const decider = authorize(actor, 'promotion.decide');
+  if (request.requestedById === decider.userId) {
+    throw new AccessDenied(403, 'Nobody approves their own request: another head of product must decide it.');
+  }
+  return decider;
 }
 
 /** The where-clause fragment every query starts from: nothing is read across workspaces. */

@@ -63,7 +63,13 @@ export function describeError(err: unknown): { status: number; body: { error: { 
   if (err instanceof Conflict) return { status: 409, body: { error: { code: 'conflict', message: err.message } } };
   if (err instanceof Error && err.name === 'RateLimited') return { status: 429, body: { error: { code: 'rate_limited', message: err.message } } };
   if (isUniqueViolation(err)) return { status: 409, body: { error: { code: 'conflict', message: 'That already exists.' } } };
+  // Raised by the database triggers that keep production versions, batch records and the audit trail unchanged.
+  if (isImmutableRecordViolation(err)) return { status: 409, body: { error: { code: 'immutable', message: 'This record cannot be changed.' } } };
   return { status: 500, body: { error: { code: 'internal', message: 'Something went wrong on our side. Nothing was changed.' } } };
+}
+
+function isImmutableRecordViolation(err: unknown): boolean {
+  return typeof err === 'object' && err !== null && (err as { code?: string }).code === 'P0001';
 }
 
 function isUniqueViolation(err: unknown): boolean {

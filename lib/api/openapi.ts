@@ -14,6 +14,7 @@ import { recommendationSchema } from '@/lib/results/schema';
 import { answerSchema, createAttributeSchema, createPanelSchema, inviteTastersSchema, joinSchema } from '@/lib/panels/schema';
 import { createTrialSchema, manualVariantSchema, measurementSchema, planSchema, transitionSchema } from '@/lib/trials/schema';
 import { saveNotebookBodySchema } from '@/lib/notebook/schema';
+import { batchRecordSchema, decisionSchema, requestPromotionSchema, withdrawSchema } from '@/lib/production/schema';
 
 export interface ApiOperation {
   method: 'get' | 'post' | 'patch' | 'put' | 'delete';
@@ -102,6 +103,22 @@ export const API_OPERATIONS: ApiOperation[] = [
   { method: 'post', path: '/api/v1/tasting/{seatToken}/consent', summary: 'Accept the allergen and consent notice', tag: 'Tasting', permission: null },
   { method: 'put', path: '/api/v1/tasting/{seatToken}/answers', summary: 'Save one answer with an idempotency key (stored once; 409 after closing)', tag: 'Tasting', permission: null, request: answerSchema },
   { method: 'post', path: '/api/v1/tasting/{seatToken}/submit', summary: 'Finish the tasting', tag: 'Tasting', permission: null },
+  { method: 'get', path: '/api/v1/promotions', summary: 'Promotion requests, newest first (query: status=pending|approved|sent_back|withdrawn)', tag: 'Production', permission: 'promotion.read' },
+  { method: 'post', path: '/api/v1/promotions', summary: 'Request promotion of a trial variant with rationale, process and QC spec; the evidence is captured automatically and the head of product is e-mailed', tag: 'Production', permission: 'promotion.request', request: requestPromotionSchema, okStatus: 201 },
+  { method: 'get', path: '/api/v1/promotions/{requestId}', summary: 'One request with its evidence, decision, history of the trial\'s other requests and audit trail', tag: 'Production', permission: 'promotion.read' },
+  { method: 'post', path: '/api/v1/promotions/{requestId}/decision', summary: 'Approve (creates the production version, superseding the previous one) or send back with a comment; never on your own request (403); 409 once decided', tag: 'Production', permission: 'promotion.decide', request: decisionSchema },
+  { method: 'post', path: '/api/v1/promotions/{requestId}/withdraw', summary: 'The requester withdraws a request still awaiting review', tag: 'Production', permission: 'promotion.request', request: withdrawSchema },
+  { method: 'get', path: '/api/v1/products', summary: 'Products in production with their current version and batch counts', tag: 'Production', permission: 'production.read' },
+  { method: 'get', path: '/api/v1/products/{productId}', summary: 'A product: every version (current and superseded) and its batch records', tag: 'Production', permission: 'production.read' },
+  { method: 'get', path: '/api/v1/products/{productId}/batches.csv', summary: 'The product\'s batch records with readings, spec limits and check results as CSV', tag: 'Production', permission: 'production.read', okMediaTypes: ['text/csv'] },
+  { method: 'get', path: '/api/v1/production-versions/{versionId}', summary: 'One immutable production version: lines, process, compliance, QC spec, audit trail and batches', tag: 'Production', permission: 'production.read' },
+  { method: 'patch', path: '/api/v1/production-versions/{versionId}', summary: 'Always 409: an approved version cannot be edited; promote a new version', tag: 'Production', permission: 'production.read' },
+  { method: 'put', path: '/api/v1/production-versions/{versionId}', summary: 'Always 409: an approved version cannot be replaced', tag: 'Production', permission: 'production.read' },
+  { method: 'delete', path: '/api/v1/production-versions/{versionId}', summary: 'Always 409: an approved version cannot be deleted', tag: 'Production', permission: 'production.read' },
+  { method: 'get', path: '/api/v1/production-versions/{versionId}/batch-sheet', summary: 'The batch sheet scaled to a kettle or jar count (query: target=total_charge|finished_mass|jar_count, amount, unit, step, stepUnit, altitudeM) with rounding effect, end point for the altitude and QC targets', tag: 'Production', permission: 'production.read' },
+  { method: 'get', path: '/api/v1/production-versions/{versionId}/batches', summary: 'Batch records made to this version', tag: 'Production', permission: 'production.read' },
+  { method: 'post', path: '/api/v1/production-versions/{versionId}/batches', summary: 'Record a production batch; every reading is checked against the spec; a failed batch needs a disposition and comment (422 without)', tag: 'Production', permission: 'batches.record', request: batchRecordSchema, okStatus: 201 },
+  { method: 'get', path: '/api/v1/audit', summary: 'The workspace audit trail, newest first (read-only)', tag: 'Production', permission: 'audit.read' },
   { method: 'get', path: '/api/v1/openapi.json', summary: 'This description', tag: 'Meta', permission: null },
 ];
 

@@ -1,0 +1,45 @@
+import { defineEntity, type InferEntity } from '@mikro-orm/core';
+import { randomUUID } from 'node:crypto';
+import { Workspace } from './Workspace';
+import { User } from './User';
+import { Trial } from './Trial';
+import { Product } from './Product';
+import { PROMOTION_STATUSES } from '../lib/production/vocabulary';
+import type { PromotionEvidence, ProductionProcess } from '../lib/production/schema';
+import type { QcSpec } from '../lib/chemistry/qc';
+
+/**
+ * A developer's request to put a trial variant into production, with the evidence captured when it
+ * was made. A request that is sent back stays as it was; the developer files a new one.
+ */
+export const PromotionRequest = defineEntity({
+  name: 'PromotionRequest',
+  tableName: 'promotion_requests',
+  properties: (p) => ({
+    id: p.uuid().primary().onCreate(() => randomUUID()),
+    workspace: p.manyToOne(Workspace),
+    /** Sequential per workspace: shown as PR-001. */
+    number: p.integer(),
+    trial: p.manyToOne(Trial),
+    variantId: p.uuid(),
+    variantLabel: p.string().length(8),
+    /** An existing product gets a new version; otherwise the product is created on approval. */
+    product: p.manyToOne(Product).nullable(),
+    newProductName: p.string().length(120).nullable(),
+    newProductCode: p.string().length(5).nullable(),
+    rationale: p.text(),
+    process: p.json<ProductionProcess>(),
+    spec: p.json<QcSpec>(),
+    evidence: p.json<PromotionEvidence>(),
+    status: p.enum([...PROMOTION_STATUSES]).default('pending'),
+    requestedBy: p.manyToOne(User),
+    requestedAt: p.datetime().onCreate(() => new Date()),
+    decidedBy: p.manyToOne(User).nullable(),
+    decidedAt: p.datetime().nullable(),
+    decisionComment: p.text().nullable(),
+    productionFormulaId: p.uuid().nullable(),
+  }),
+  uniques: [{ properties: ['workspace', 'number'] }],
+  indexes: [{ properties: ['workspace', 'status'] }],
+});
+export type PromotionRequestEntity = InferEntity<typeof PromotionRequest>;

@@ -1,0 +1,278 @@
+/**
+ * Production writes: promotion requests and decisions, the versions they create, and batch records.
+ * Every step writes an audit event in the same transaction, so the trail and the change stand or
+ * fall together.
+ */
+import type { EntityManager } from '@mikro-orm/postgresql';
+import { LockMode } from '@mikro-orm/core';
+import { getEm } from '@/lib/db';
+import { AuditEvent, BatchRecord, Membership, Product, ProductionFormula, PromotionRequest, Trial, Variant } from '@/entities';
+import { authorizeDecision, inWorkspace, notFound, AccessDenied, type Actor } from '@/lib/permissions';
+import { Conflict, ValidationFailed } from '@/lib/api/errors';
+import { computeFormula } from '@/lib/formulas/compute';
+import { checkBatchAgainstSpec, type QcSpec } from '@/lib/chemistry';
+import { getTrialComparison } from '@/lib/results/trial-comparison';
+import { trialCode } from '@/lib/trials/access';
+import { sendMail, escapeHtml } from '@/lib/mail';
+import { env } from '@/lib/env';
+import { logger } from '@/lib/log';
+import type { FormulaSettingsInput, RevisionLine } from '@/lib/formulas/schema';
+import type { BatchRecordInput, DecisionInput, PromotionEvidence, RequestPromotionInput } from './schema';
+import { AUDIT_ACTIONS, dayOfYear, promotionCode, type AuditAction } from './vocabulary';
+
+async function audit(
+  tx: EntityManager, actor: Actor, action: AuditAction,
+  subject: { type: 'promotion_request' | 'production_formula' | 'batch_record'; id: string },
+  promotionRequestId: string | null, summary: string,
+): Promise<void> {
+  tx.create(AuditEvent, {
+    workspace: actor.workspaceId, actor: actor.userId, actorName: actor.name, actorRole: actor.role,
+    action, subjectType: subject.type, subjectId: subject.id, promotionRequestId, summary: `${AUDIT_ACTIONS[action]}: ${summary}`,
+  } as never);
+}
+
+/** Mail is a courtesy: the in-app queue is the record, so a mail failure never undoes the step. */
+async function notify(to: string[], subject: string, lines: string[], link: string): Promise<void> {
+  const url = `${env().APP_URL}${link}`;
+  for (const address of to) {
+    try {
+      await sendMail({
+        to: address, subject,
+        text: `${lines.join('\n\n')}\n\n${url}\n`,
+        html: `${lines.map((l) => `<p>${escapeHtml(l)}</p>`).join('')}<p><a href="${escapeHtml(url)}">${escapeHtml(url)}</a></p>`,
+      });
+    } catch (err) {
+      logger.warn({ err, subject }, 'notification mail failed');
+    }
+  }
+}
+
+function buildEvidence(comparison: Awaited<ReturnType<typeof getTrialComparison>>, variantId: string): { evidence: PromotionEvidence; computation: NonNullable<ReturnType<typeof computeOk>> } | null {
+  const variant = comparison.trial.variants.find((v) => v.id === variantId);
+  if (!variant) return null;
+  const computation = computeOk(variant.settings, variant.lines);
+  if (!computation) return null;
+  return {
+    computation,
+    evidence: {
+      trial: { code: comparison.trial.code, title: comparison.trial.title, question: comparison.trial.question },
+      variant: { label: variant.label, description: variant.description, factorLevels: variant.factorLevels.map((l) => ({ factor: l.factor, value: l.value })) },
+      recommendation: comparison.recommendation && comparison.recommendation.variantId === variantId
+        ? { rationale: comparison.recommendation.rationale, byName: comparison.recommendation.byName, at: comparison.recommendation.at }
+        : null,
+      means: comparison.means,
+      verdicts: comparison.sessions.flatMap((s) => s.verdicts.map((v) => ({ session: s.title, method: s.method, attribute: v.attribute, verdict: v.verdict.headline }))),
+      lab: comparison.trial.variants.flatMap((v) => v.measurements.map((m) => ({
+        label: v.label, cookDate: m.cookDate, ph: m.ph ?? null, brix20: m.comparison.correctedBrix ?? m.brixReading ?? null, endPointTempC: m.endPointTempC ?? null, setTestScore: m.setTestScore ?? null,
+      }))),
+      compliance: {
+        overall: computation.compliance.overall,
+        edition: computation.compliance.edition,
+        failing: computation.compliance.results.filter((r) => r.status === 'fail').map((r) => `${r.title}: ${r.actual ?? '—'} (needs ${r.requirement})`),
+      },
+      cautions: computation.cautions.map((c) => ({ code: c.code, severity: c.severity, title: c.title })),
+      predicted: {
+        targetSolidsPct: computation.settings.targetSolidsPct,
+        plannedPh: computation.settings.plannedPh ?? null,
+        endPointC: computation.endPoint.endPointC,
+        finishedMassG: computation.massBalance.finishedMassG,
+        aw: computation.waterActivity.aw,
+      },
+    },
+  };
+}
+
+function computeOk(settings: FormulaSettingsInput, lines: RevisionLine[]) {
+  const outcome = computeFormula(settings, lines);
+  return outcome.ok ? outcome.computation : null;
+}
+
+async function headsOfProduct(em: EntityManager, actor: Actor): Promise<string[]> {
+  const members = (await em.find(Membership, { ...inWorkspace(actor), role: 'head_of_product' }, { populate: ['user'] })) as unknown as Array<{ user: { id: string; email: string } }>;
+  return members.filter((m) => m.user.id !== actor.userId).map((m) => m.user.email);
+}
+
+export async function requestPromotion(actor: Actor, input: RequestPromotionInput): Promise<{ requestId: string; code: string }> {
+  const em = await getEm();
+  const trial = await em.findOne(Trial, { ...inWorkspace(actor), id: input.trialId });
+  if (!trial) throw notFound('trial');
+  const variant = await em.findOne(Variant, { ...inWorkspace(actor), trial: trial.id, id: input.variantId, removedAt: null });
+  if (!variant) throw new ValidationFailed('Choose a variant of this trial.', { variantId: ['Choose a variant of this trial.'] });
+  if (input.productId) {
+    const product = await em.findOne(Product, { ...inWorkspace(actor), id: input.productId });
+    if (!product) throw new ValidationFailed('Choose a product of this workspace.', { productId: ['Choose a product of this workspace.'] });
+  } else if (await em.count(Product, { ...inWorkspace(actor), code: input.newProductCode! })) {
+    throw new ValidationFailed('That product code is taken.', { newProductCode: ['That product code is taken: choose the existing product or another code.'] });
+  }
+  const built = buildEvidence(await getTrialComparison(actor, trial.id), variant.id);
+  if (!built) throw new ValidationFailed('This variant’s chemistry cannot be computed; fix the formula first.', { variantId: ['This variant’s chemistry cannot be computed.'] });
+  if (built.computation.compliance.overall === 'non_compliant') {
+    throw new ValidationFailed('This variant fails the market rules it is set to; it cannot go to production as it stands.', {
+      variantId: built.evidence.compliance.failing.length ? built.evidence.compliance.failing : ['Fails the market rules.'],
+    });
+  }
+
+  const result = await em.transactional(async (tx) => {
+    await tx.getConnection().execute('select pg_advisory_xact_lock(hashtext(?))', [`promotion-number:${actor.workspaceId}`]);
+    if (await tx.count(PromotionRequest, { ...inWorkspace(actor), trial: trial.id, status: 'pending' })) {
+      throw new Conflict('This trial already has a promotion request awaiting review: withdraw it or wait for the decision.');
+    }
+    const last = await tx.findOne(PromotionRequest, inWorkspace(actor), { orderBy: { number: 'desc' } });
+    const request = tx.create(PromotionRequest, {
+      workspace: actor.workspaceId, number: (last?.number ?? 0) + 1, trial: trial.id, variantId: variant.id, variantLabel: variant.label,
+      product: input.productId ?? null, newProductName: input.productId ? null : input.newProductName, newProductCode: input.productId ? null : input.newProductCode,
+      rationale: input.rationale, process: input.process, spec: input.spec, evidence: built.evidence, status: 'pending', requestedBy: actor.userId,
+    } as never) as unknown as { id: string; number: number };
+    await tx.flush();
+    await audit(tx, actor, 'promotion.requested', { type: 'promotion_request', id: request.id }, request.id,
+      `${promotionCode(request.number)} for ${trialCode(trial.number)} variant ${variant.label}`);
+    await tx.flush();
+    return { requestId: request.id, code: promotionCode(request.number) };
+  });
+
+  await notify(await headsOfProduct(em, actor), `Promotion ${result.code} awaits your review`, [
+    `${actor.name} asks to put variant ${variant.label} of ${trialCode(trial.number)} “${trial.title}” into production.`,
+    `Reason given: ${input.rationale}`,
+  ], `/production/reviews/${result.requestId}`);
+  return result;
+}
+
+export async function decidePromotion(actor: Actor, requestId: string, input: DecisionInput): Promise<{ status: 'approved' | 'sent_back'; productionFormulaId: string | null }> {
+  const em = await getEm();
+  const outcome = await em.transactional(async (tx) => {
+    const request = await tx.findOne(PromotionRequest, { ...inWorkspace(actor), id: requestId }, { lockMode: LockMode.PESSIMISTIC_WRITE });
+    if (!request) throw notFound('promotion request');
+    const requestedById = (request.requestedBy as unknown as { id: string }).id;
+    authorizeDecision(actor, { requestedById });
+    if (request.status !== 'pending') throw new Conflict(`This request was already decided (${request.status.replace('_', ' ')}).`);
+    const code = promotionCode(request.number);
+    request.decidedBy = actor.userId as never;
+    request.decidedAt = new Date();
+    request.decisionComment = input.comment || null;
+
+    if (input.decision === 'send_back') {
+      request.status = 'sent_back';
+      await tx.flush();
+      await audit(tx, actor, 'promotion.sent_back', { type: 'promotion_request', id: request.id }, request.id, `${code}: ${input.comment}`);
+      await tx.flush();
+      return { status: 'sent_back' as const, productionFormulaId: null, code, requestedById };
+    }
+
+    const variant = await tx.findOne(Variant, { ...inWorkspace(actor), id: request.variantId });
+    if (!variant || variant.removedAt) throw new Conflict('The variant of this request was removed from the trial; send the request back.');
+    const computation = computeOk(variant.settings, variant.lines);
+    if (!computation) throw new Conflict('The variant’s chemistry can no longer be computed; send the request back.');
+
+    let productId = (request.product as unknown as { id: string } | null)?.id ?? null;
+    if (!productId) {
+      if (await tx.count(Product, { ...inWorkspace(actor), code: request.newProductCode! })) {
+        throw new Conflict(`The product code ${request.newProductCode} was taken since the request was made; send it back so a new code can be chosen.`);
+      }
+      const product = tx.create(Product, { workspace: actor.workspaceId, code: request.newProductCode!, name: request.newProductName!, createdBy: requestedById } as never) as unknown as { id: string };
+      await tx.flush();
+      productId = product.id;
+      request.product = productId as never;
+    }
+    // Serialise versioning per product; the one-current index is the backstop.
+    await tx.getConnection().execute('select pg_advisory_xact_lock(hashtext(?))', [`product-version:${productId}`]);
+    const current = await tx.findOne(ProductionFormula, { ...inWorkspace(actor), product: productId, status: 'current' });
+    const latest = await tx.findOne(ProductionFormula, { ...inWorkspace(actor), product: productId }, { orderBy: { version: 'desc' } });
+    const version = (latest?.version ?? 0) + 1;
+    if (current) {
+      current.status = 'superseded';
+      current.supersededAt = new Date();
+      current.supersededByVersion = version;
+      await tx.flush();
+      await audit(tx, actor, 'version.superseded', { type: 'production_formula', id: current.id }, request.id, `v${current.version} superseded by v${version} (${code})`);
+    }
+    const created = tx.create(ProductionFormula, {
+      workspace: actor.workspaceId, product: productId, version, status: 'current',
+      settings: variant.settings, lines: variant.lines, process: request.process, compliance: computation.compliance, spec: request.spec as QcSpec,
+      sourceTrial: (request.trial as unknown as { id: string }).id, sourceVariantId: variant.id, sourceVariantLabel: variant.label,
+      promotionRequestId: request.id, approvedBy: actor.userId,
+    } as never) as unknown as { id: string };
+    await tx.flush();
+    request.status = 'approved';
+    request.productionFormulaId = created.id;
+    await tx.flush();
+    await audit(tx, actor, 'promotion.approved', { type: 'promotion_request', id: request.id }, request.id, `${code}${input.comment ? `: ${input.comment}` : ''}`);
+    await audit(tx, actor, 'version.created', { type: 'production_formula', id: created.id }, request.id, `v${version} from variant ${variant.label} (${code})`);
+    await tx.flush();
+    return { status: 'approved' as const, productionFormulaId: created.id, code, requestedById };
+  });
+
+  const requester = await em.fork().findOne(Membership, { ...inWorkspace(actor), user: outcome.requestedById }, { populate: ['user'] }) as unknown as { user: { email: string } } | null;
+  if (requester) {
+    await notify([requester.user.email],
+      outcome.status === 'approved' ? `Promotion ${outcome.code} approved` : `Promotion ${outcome.code} sent back`,
+      [outcome.status === 'approved'
+        ? `${actor.name} approved ${outcome.code}; it is now the production version.`
+        : `${actor.name} sent ${outcome.code} back: ${input.comment}`],
+      outcome.productionFormulaId ? `/production/versions/${outcome.productionFormulaId}` : `/production/reviews/${requestId}`);
+  }
+  return { status: outcome.status, productionFormulaId: outcome.productionFormulaId };
+}
+
+/** The requester takes back a request that is still waiting. */
+export async function withdrawPromotion(actor: Actor, requestId: string, comment: string): Promise<void> {
+  const em = await getEm();
+  await em.transactional(async (tx) => {
+    const request = await tx.findOne(PromotionRequest, { ...inWorkspace(actor), id: requestId }, { lockMode: LockMode.PESSIMISTIC_WRITE });
+    if (!request) throw notFound('promotion request');
+    if ((request.requestedBy as unknown as { id: string }).id !== actor.userId) throw new AccessDenied(403, 'Only the person who made the request can withdraw it.');
+    if (request.status !== 'pending') throw new Conflict('Only a request awaiting review can be withdrawn.');
+    request.status = 'withdrawn';
+    request.decidedBy = actor.userId as never;
+    request.decidedAt = new Date();
+    request.decisionComment = comment || null;
+    await tx.flush();
+    await audit(tx, actor, 'promotion.withdrawn', { type: 'promotion_request', id: request.id }, request.id, `${promotionCode(request.number)}${comment ? `: ${comment}` : ''}`);
+    await tx.flush();
+  });
+}
+
+export async function recordBatch(actor: Actor, versionId: string, input: BatchRecordInput): Promise<{ batchId: string; outcome: 'pass' | 'fail' }> {
+  const em = await getEm();
+  const version = (await em.findOne(ProductionFormula, { ...inWorkspace(actor), id: versionId }, { populate: ['product'] })) as unknown as
+    | { id: string; version: number; status: string; spec: QcSpec; promotionRequestId: string; product: { id: string; code: string } } | null;
+  if (!version) throw notFound('production version');
+  if (version.status !== 'current') throw new Conflict(`v${version.version} is superseded: record batches against the version in production.`);
+
+  const [prefix, dateSegment] = input.lotCode.split('-');
+  const expectedSegment = `${input.batchDate.slice(2, 4)}${String(dayOfYear(input.batchDate)).padStart(3, '0')}`;
+  const lotProblems: string[] = [];
+  if (prefix !== version.product.code) lotProblems.push(`A lot of this product starts with ${version.product.code}.`);
+  if (dateSegment !== expectedSegment) lotProblems.push(`For ${input.batchDate} the date part is ${expectedSegment} (year and day of the year).`);
+  if (lotProblems.length) throw new ValidationFailed('The lot code does not match the product or the date.', { lotCode: lotProblems });
+
+  const result = checkBatchAgainstSpec(version.spec, input);
+  if (result.outcome === 'fail') {
+    const fields: Record<string, string[]> = {};
+    if (!input.disposition) fields.disposition = ['This batch failed a check: choose rework, hold or discard.'];
+    if (!input.dispositionComment || input.dispositionComment.trim().length < 5) fields.dispositionComment = ['Say what was done or decided about the failed batch.'];
+    if (Object.keys(fields).length) throw new ValidationFailed('A failed batch needs a disposition with a comment.', fields);
+  } else if (input.disposition) {
+    throw new ValidationFailed('This batch passed every check; it needs no disposition.', { disposition: ['A passed batch needs no disposition.'] });
+  }
+  if (await em.count(BatchRecord, { ...inWorkspace(actor), lotCode: input.lotCode })) {
+    throw new ValidationFailed('That lot code is already recorded.', { lotCode: ['That lot code is already recorded: use the next batch number of the day.'] });
+  }
+
+  return em.transactional(async (tx) => {
+    const batch = tx.create(BatchRecord, {
+      workspace: actor.workspaceId, product: version.product.id, productionFormula: version.id, lotCode: input.lotCode, batchDate: input.batchDate,
+      batchSizeG: input.batchSizeG, brixReading: input.brixReading, brixSampleTempC: input.brixSampleTempC, brix20: result.correctedBrix20C,
+      ph: input.ph, fillTempC: input.fillTempC, netFillMeanG: input.netFillMeanG ?? null, netFillMinG: input.netFillMinG ?? null,
+      setTestScore: input.setTestScore ?? null, jarsFilled: input.jarsFilled, jarsRejected: input.jarsRejected, notes: input.notes ?? null,
+      checks: result.checks, outcome: result.outcome,
+      disposition: result.outcome === 'fail' ? input.disposition : null, dispositionComment: result.outcome === 'fail' ? input.dispositionComment : null,
+      recordedBy: actor.userId,
+    } as never) as unknown as { id: string };
+    await tx.flush();
+    const failed = result.checks.filter((c) => c.status === 'fail').map((c) => c.label.toLowerCase());
+    await audit(tx, actor, result.outcome === 'fail' ? 'batch.failed' : 'batch.recorded', { type: 'batch_record', id: batch.id }, version.promotionRequestId,
+      result.outcome === 'fail' ? `${input.lotCode} failed ${failed.join(', ')}; ${input.disposition}: ${input.dispositionComment}` : `${input.lotCode} passed`);
+    await tx.flush();
+    return { batchId: batch.id, outcome: result.outcome };
+  });
+}

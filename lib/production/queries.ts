@@ -1,0 +1,376 @@
+/** Production reads: the review queue, products and their versions, batch records, the audit trail. */
+import { getEm } from '@/lib/db';
+import { AuditEvent, BatchRecord, Product, ProductionFormula, PromotionRequest, Trial } from '@/entities';
+import { can, inWorkspace, notFound, type Actor } from '@/lib/permissions';
+import { trialCode } from '@/lib/trials/access';
+import { toCsv } from '@/lib/csv';
+import { defaultQcSpec, estimateEndPoint, qcSpecCautions, type Caution, type ComplianceReport, type QcCheck, type QcSpec } from '@/lib/chemistry';
+import { getTrialOverview } from '@/lib/trials/queries';
+import type { FormulaSettingsInput, RevisionLine } from '@/lib/formulas/schema';
+import type { ProductionProcess, PromotionEvidence, BatchSheetQuery } from './schema';
+import { buildBatchSheet, type BatchSheet } from './sheet';
+import { promotionCode, type Disposition, type PromotionStatus, type VersionStatus } from './vocabulary';
+
+type Ref = { id: string };
+
+/** A few degrees above the hot-fill minimum, so the last jars of a batch still fill hot. Common practice, no published source. */
+export const DEFAULT_FILL_TEMP_C = 88;
+type Named = { id: string; name: string };
+
+export interface PromotionSummary {
+  id: string;
+  code: string;
+  status: PromotionStatus;
+  trial: { id: string; code: string; title: string };
+  variantLabel: string;
+  productLabel: string;
+  requestedBy: string;
+  requestedAt: string;
+  decidedAt: string | null;
+}
+
+export interface PromotionView extends PromotionSummary {
+  variantId: string;
+  product: { id: string; code: string; name: string } | null;
+  newProduct: { name: string; code: string } | null;
+  rationale: string;
+  process: ProductionProcess;
+  spec: QcSpec;
+  evidence: PromotionEvidence;
+  requestedById: string;
+  decidedBy: string | null;
+  decisionComment: string | null;
+  productionFormulaId: string | null;
+  /** The permissions module decides; the page only shows what it allows. */
+  canDecide: boolean;
+  canWithdraw: boolean;
+  history: PromotionSummary[];
+  audit: AuditView[];
+}
+
+export interface AuditView {
+  id: string;
+  at: string;
+  actorName: string;
+  actorRole: string;
+  action: string;
+  summary: string;
+  subjectType: string;
+  subjectId: string;
+  promotionRequestId: string | null;
+}
+
+type RequestRow = {
+  id: string; number: number; status: PromotionStatus; trial: { id: string; number: number; title: string }; variantId: string; variantLabel: string;
+  product: { id: string; code: string; name: string } | null; newProductName: string | null; newProductCode: string | null; rationale: string;
+  process: ProductionProcess; spec: QcSpec; evidence: PromotionEvidence; requestedBy: Named; requestedAt: Date; decidedBy: Named | null;
+  decidedAt: Date | null; decisionComment: string | null; productionFormulaId: string | null;
+};
+
+function summary(r: RequestRow): PromotionSummary {
+  return {
+    id: r.id, code: promotionCode(r.number), status: r.status,
+    trial: { id: r.trial.id, code: trialCode(r.trial.number), title: r.trial.title },
+    variantLabel: r.variantLabel,
+    productLabel: r.product ? `${r.product.name} (${r.product.code})` : `${r.newProductName} (${r.newProductCode}, new)`,
+    requestedBy: r.requestedBy.name, requestedAt: r.requestedAt.toISOString(), decidedAt: r.decidedAt?.toISOString() ?? null,
+  };
+}
+
+const REQUEST_POPULATE = ['trial', 'product', 'requestedBy', 'decidedBy'] as const;
+
+export async function listPromotionRequests(actor: Actor, filter: { status?: PromotionStatus } = {}): Promise<PromotionSummary[]> {
+  const em = await getEm();
+  const rows = (await em.find(PromotionRequest, { ...inWorkspace(actor), ...(filter.status ? { status: filter.status } : {}) }, {
+    populate: REQUEST_POPULATE, orderBy: { requestedAt: 'desc' }, limit: 500,
+  })) as unknown as RequestRow[];
+  return rows.map(summary);
+}
+
+function toAuditView(e: { id: string; at: Date; actorName: string; actorRole: string; action: string; summary: string; subjectType: string; subjectId: string; promotionRequestId?: string | null }): AuditView {
+  return {
+    id: e.id, at: e.at.toISOString(), actorName: e.actorName, actorRole: e.actorRole, action: e.action, summary: e.summary,
+    subjectType: e.subjectType, subjectId: e.subjectId, promotionRequestId: e.promotionRequestId ?? null,
+  };
+}
+
+export async function getPromotionRequest(actor: Actor, requestId: string): Promise<PromotionView> {
+  const em = await getEm();
+  const r = (await em.findOne(PromotionRequest, { ...inWorkspace(actor), id: requestId }, { populate: REQUEST_POPULATE })) as unknown as RequestRow | null;
+  if (!r) throw notFound('promotion request');
+  const history = (await em.find(PromotionRequest, { ...inWorkspace(actor), trial: r.trial.id, id: { $ne: r.id } }, { populate: REQUEST_POPULATE, orderBy: { number: 'asc' } })) as unknown as RequestRow[];
+  const events = await em.find(AuditEvent, { ...inWorkspace(actor), promotionRequestId: r.id }, { orderBy: { at: 'asc' } });
+  const pending = r.status === 'pending';
+  return {
+    ...summary(r),
+    variantId: r.variantId,
+    product: r.product ? { id: r.product.id, code: r.product.code, name: r.product.name } : null,
+    newProduct: r.product ? null : { name: r.newProductName ?? '', code: r.newProductCode ?? '' },
+    rationale: r.rationale, process: r.process, spec: r.spec, evidence: r.evidence,
+    requestedById: r.requestedBy.id,
+    decidedBy: r.decidedBy?.name ?? null, decisionComment: r.decisionComment ?? null, productionFormulaId: r.productionFormulaId ?? null,
+    canDecide: pending && can(actor.role, 'promotion.decide') && r.requestedBy.id !== actor.userId,
+    canWithdraw: pending && r.requestedBy.id === actor.userId,
+    history: history.map(summary),
+    audit: events.map(toAuditView),
+  };
+}
+
+/** Open requests for the head of product's queue, oldest first; those they made themselves are marked. */
+export async function reviewQueue(actor: Actor): Promise<Array<PromotionSummary & { ownRequest: boolean }>> {
+  const em = await getEm();
+  const rows = (await em.find(PromotionRequest, { ...inWorkspace(actor), status: 'pending' }, { populate: REQUEST_POPULATE, orderBy: { requestedAt: 'asc' } })) as unknown as RequestRow[];
+  return rows.map((r) => ({ ...summary(r), ownRequest: r.requestedBy.id === actor.userId }));
+}
+
+export interface ProductSummary {
+  id: string;
+  code: string;
+  name: string;
+  current: { id: string; version: number; approvedAt: string } | null;
+  versionCount: number;
+  batchCount: number;
+  failedCount: number;
+  lastBatchDate: string | null;
+}
+
+type VersionRow = {
+  id: string; product: { id: string; code: string; name: string }; version: number; status: VersionStatus; settings: FormulaSettingsInput; lines: RevisionLine[];
+  process: ProductionProcess; compliance: ComplianceReport; spec: QcSpec; sourceTrial: { id: string; number: number; title: string }; sourceVariantId: string;
+  sourceVariantLabel: string; promotionRequestId: string; approvedBy: Named; approvedAt: Date; supersededAt: Date | null; supersededByVersion: number | null;
+};
+
+type BatchRow = {
+  id: string; product: Ref; productionFormula: { id: string; version: number; spec: QcSpec }; lotCode: string; batchDate: string; batchSizeG: number;
+  brixReading: number; brixSampleTempC: number; brix20: number; ph: number; fillTempC: number; netFillMeanG: number | null; netFillMinG: number | null;
+  setTestScore: number | null; jarsFilled: number; jarsRejected: number; notes: string | null; checks: QcCheck[]; outcome: 'pass' | 'fail';
+  disposition: Disposition | null; dispositionComment: string | null; recordedBy: Named; createdAt: Date;
+};
+
+export async function listProducts(actor: Actor): Promise<ProductSummary[]> {
+  const em = await getEm();
+  const products = await em.find(Product, inWorkspace(actor), { orderBy: { name: 'asc' } });
+  if (!products.length) return [];
+  const ids = products.map((p) => p.id);
+  const versions = (await em.find(ProductionFormula, { ...inWorkspace(actor), product: { $in: ids } }, { fields: ['product', 'version', 'status', 'approvedAt'] })) as unknown as Array<{ id: string; product: Ref; version: number; status: VersionStatus; approvedAt: Date }>;
+  const batches = (await em.find(BatchRecord, { ...inWorkspace(actor), product: { $in: ids } }, { fields: ['product', 'outcome', 'batchDate'] })) as unknown as Array<{ product: Ref; outcome: string; batchDate: string }>;
+  return products.map((p) => {
+    const mine = versions.filter((v) => v.product.id === p.id);
+    const current = mine.find((v) => v.status === 'current');
+    const own = batches.filter((b) => b.product.id === p.id);
+    return {
+      id: p.id, code: p.code, name: p.name,
+      current: current ? { id: current.id, version: current.version, approvedAt: current.approvedAt.toISOString() } : null,
+      versionCount: mine.length, batchCount: own.length, failedCount: own.filter((b) => b.outcome === 'fail').length,
+      lastBatchDate: own.map((b) => b.batchDate).sort().at(-1) ?? null,
+    };
+  });
+}
+
+export interface VersionSummary {
+  id: string;
+  version: number;
+  status: VersionStatus;
+  approvedAt: string;
+  approvedBy: string;
+  supersededAt: string | null;
+  supersededByVersion: number | null;
+  source: { trialId: string; trialCode: string; variantLabel: string };
+  promotionRequestId: string;
+}
+
+export interface VersionView extends VersionSummary {
+  product: { id: string; code: string; name: string };
+  settings: FormulaSettingsInput;
+  lines: RevisionLine[];
+  process: ProductionProcess;
+  compliance: ComplianceReport;
+  spec: QcSpec;
+  trialTitle: string;
+  audit: AuditView[];
+  batches: BatchView[];
+}
+
+export interface BatchView {
+  id: string;
+  lotCode: string;
+  batchDate: string;
+  version: number;
+  versionId: string;
+  batchSizeG: number;
+  brixReading: number;
+  brixSampleTempC: number;
+  brix20: number;
+  ph: number;
+  fillTempC: number;
+  netFillMeanG: number | null;
+  netFillMinG: number | null;
+  setTestScore: number | null;
+  jarsFilled: number;
+  jarsRejected: number;
+  notes: string | null;
+  checks: QcCheck[];
+  outcome: 'pass' | 'fail';
+  disposition: Disposition | null;
+  dispositionComment: string | null;
+  recordedBy: string;
+  /** The spec this batch was checked against, for the trend chart's limits. */
+  limits: { solidsMin: number; solidsMax: number; phMin: number; phMax: number };
+}
+
+function versionSummary(v: VersionRow): VersionSummary {
+  return {
+    id: v.id, version: v.version, status: v.status, approvedAt: v.approvedAt.toISOString(), approvedBy: v.approvedBy.name,
+    supersededAt: v.supersededAt?.toISOString() ?? null, supersededByVersion: v.supersededByVersion ?? null,
+    source: { trialId: v.sourceTrial.id, trialCode: trialCode(v.sourceTrial.number), variantLabel: v.sourceVariantLabel },
+    promotionRequestId: v.promotionRequestId,
+  };
+}
+
+function batchView(b: BatchRow): BatchView {
+  const s = b.productionFormula.spec;
+  return {
+    id: b.id, lotCode: b.lotCode, batchDate: b.batchDate, version: b.productionFormula.version, versionId: b.productionFormula.id, batchSizeG: b.batchSizeG,
+    brixReading: b.brixReading, brixSampleTempC: b.brixSampleTempC, brix20: b.brix20, ph: b.ph, fillTempC: b.fillTempC,
+    netFillMeanG: b.netFillMeanG ?? null, netFillMinG: b.netFillMinG ?? null, setTestScore: b.setTestScore ?? null, jarsFilled: b.jarsFilled, jarsRejected: b.jarsRejected,
+    notes: b.notes ?? null, checks: b.checks, outcome: b.outcome, disposition: b.disposition ?? null, dispositionComment: b.dispositionComment ?? null,
+    recordedBy: b.recordedBy.name,
+    limits: { solidsMin: s.solidsMinBrix, solidsMax: s.solidsMaxBrix, phMin: s.phMin, phMax: s.phMax },
+  };
+}
+
+const VERSION_POPULATE = ['product', 'sourceTrial', 'approvedBy'] as const;
+const BATCH_POPULATE = ['productionFormula', 'recordedBy'] as const;
+
+export async function getProduct(actor: Actor, productId: string): Promise<{ product: { id: string; code: string; name: string }; versions: VersionSummary[]; batches: BatchView[] }> {
+  const em = await getEm();
+  const p = await em.findOne(Product, { ...inWorkspace(actor), id: productId });
+  if (!p) throw notFound('product');
+  const versions = (await em.find(ProductionFormula, { ...inWorkspace(actor), product: p.id }, { populate: VERSION_POPULATE, orderBy: { version: 'desc' } })) as unknown as VersionRow[];
+  return { product: { id: p.id, code: p.code, name: p.name }, versions: versions.map(versionSummary), batches: await listBatches(actor, { productId: p.id }) };
+}
+
+export async function listBatches(actor: Actor, filter: { productId?: string; versionId?: string }): Promise<BatchView[]> {
+  const em = await getEm();
+  const rows = (await em.find(BatchRecord, {
+    ...inWorkspace(actor), ...(filter.productId ? { product: filter.productId } : {}), ...(filter.versionId ? { productionFormula: filter.versionId } : {}),
+  }, { populate: BATCH_POPULATE, orderBy: { batchDate: 'asc', createdAt: 'asc' }, limit: 5000 })) as unknown as BatchRow[];
+  return rows.map(batchView);
+}
+
+export async function getProductionVersion(actor: Actor, versionId: string): Promise<VersionView> {
+  const em = await getEm();
+  const v = (await em.findOne(ProductionFormula, { ...inWorkspace(actor), id: versionId }, { populate: VERSION_POPULATE })) as unknown as VersionRow | null;
+  if (!v) throw notFound('production version');
+  const events = await em.find(AuditEvent, { ...inWorkspace(actor), $or: [{ subjectId: v.id }, { promotionRequestId: v.promotionRequestId }] }, { orderBy: { at: 'asc' } });
+  return {
+    ...versionSummary(v),
+    product: { id: v.product.id, code: v.product.code, name: v.product.name },
+    settings: v.settings, lines: v.lines, process: v.process, compliance: v.compliance, spec: v.spec, trialTitle: v.sourceTrial.title,
+    audit: events.map(toAuditView),
+    batches: await listBatches(actor, { versionId: v.id }),
+  };
+}
+
+export async function getBatchSheet(actor: Actor, versionId: string, query: BatchSheetQuery): Promise<{ version: VersionView; sheet: BatchSheet }> {
+  const version = await getProductionVersion(actor, versionId);
+  const sheet = buildBatchSheet({
+    productName: version.product.name, productCode: version.product.code, version: version.version,
+    settings: version.settings, lines: version.lines, process: version.process, spec: version.spec,
+  }, query);
+  return { version, sheet };
+}
+
+export async function listAuditEvents(actor: Actor, options: { limit?: number } = {}): Promise<AuditView[]> {
+  const em = await getEm();
+  const rows = await em.find(AuditEvent, inWorkspace(actor), { orderBy: { at: 'desc' }, limit: Math.min(options.limit ?? 500, 2000) });
+  return rows.map(toAuditView);
+}
+
+/** Products with a version in production, to promote a new version of. */
+export async function listPromotableProducts(actor: Actor): Promise<Array<{ id: string; code: string; name: string }>> {
+  const em = await getEm();
+  const rows = await em.find(Product, inWorkspace(actor), { orderBy: { name: 'asc' } });
+  return rows.map((p) => ({ id: p.id, code: p.code, name: p.name }));
+}
+
+export async function batchesCsv(actor: Actor, productId: string): Promise<{ csv: string; filename: string }> {
+  const { product, batches } = await getProduct(actor, productId);
+  const check = (b: BatchView, key: string) => b.checks.find((c) => c.key === key)?.status ?? '';
+  const csv = toCsv(batches, [
+    { header: 'lot_code', value: (b) => b.lotCode },
+    { header: 'batch_date', value: (b) => b.batchDate },
+    { header: 'version', value: (b) => b.version },
+    { header: 'batch_size_g', value: (b) => b.batchSizeG },
+    { header: 'brix_reading', value: (b) => b.brixReading },
+    { header: 'brix_sample_temp_c', value: (b) => b.brixSampleTempC },
+    { header: 'brix_20c', value: (b) => b.brix20 },
+    { header: 'solids_min', value: (b) => b.limits.solidsMin },
+    { header: 'solids_max', value: (b) => b.limits.solidsMax },
+    { header: 'ph', value: (b) => b.ph },
+    { header: 'ph_min', value: (b) => b.limits.phMin },
+    { header: 'ph_max', value: (b) => b.limits.phMax },
+    { header: 'fill_temp_c', value: (b) => b.fillTempC },
+    { header: 'net_fill_mean_g', value: (b) => b.netFillMeanG },
+    { header: 'net_fill_min_g', value: (b) => b.netFillMinG },
+    { header: 'set_test_score', value: (b) => b.setTestScore },
+    { header: 'jars_filled', value: (b) => b.jarsFilled },
+    { header: 'jars_rejected', value: (b) => b.jarsRejected },
+    { header: 'solids_check', value: (b) => check(b, 'solids') },
+    { header: 'ph_check', value: (b) => check(b, 'ph') },
+    { header: 'fill_check', value: (b) => check(b, 'fill_temperature') },
+    { header: 'net_fill_check', value: (b) => check(b, 'net_fill') },
+    { header: 'set_check', value: (b) => check(b, 'set') },
+    { header: 'outcome', value: (b) => b.outcome },
+    { header: 'disposition', value: (b) => b.disposition },
+    { header: 'disposition_comment', value: (b) => b.dispositionComment },
+    { header: 'recorded_by', value: (b) => b.recordedBy },
+    { header: 'notes', value: (b) => b.notes },
+  ]);
+  return { csv, filename: `${product.code}-batches.csv` };
+}
+
+export interface PromotionDraftVariant {
+  id: string;
+  label: string;
+  description: string;
+  complianceOverall: string | null;
+  /** Null when the variant's chemistry cannot be computed. */
+  defaults: { spec: QcSpec; process: ProductionProcess; cautions: Caution[] } | null;
+}
+
+/** What the request form starts from: each variant's default spec and process, and the recommendation. */
+export async function getPromotionDraft(actor: Actor, trialId: string): Promise<{
+  trial: { id: string; code: string; title: string };
+  variants: PromotionDraftVariant[];
+  recommendedVariantId: string | null;
+  recommendationRationale: string | null;
+  products: Array<{ id: string; code: string; name: string }>;
+  pending: PromotionSummary | null;
+}> {
+  const trial = await getTrialOverview(actor, trialId);
+  const em = await getEm();
+  const row = await em.findOne(Trial, { ...inWorkspace(actor), id: trialId });
+  const variants = trial.variants.map((v): PromotionDraftVariant => {
+    const c = v.computation;
+    if (!c) return { id: v.id, label: v.label, description: v.description, complianceOverall: null, defaults: null };
+    const spec = defaultQcSpec(c);
+    return {
+      id: v.id, label: v.label, description: v.description, complianceOverall: c.compliance.overall,
+      defaults: {
+        spec,
+        process: { endPointSeaLevelC: Math.round(estimateEndPoint({ targetSolidsPct: c.settings.targetSolidsPct }).endPointC * 10) / 10, fillTempC: DEFAULT_FILL_TEMP_C, cookNotes: '' },
+        cautions: qcSpecCautions(spec, c.settings.productClass),
+      },
+    };
+  });
+  const pending = (await listPromotionRequests(actor, { status: 'pending' })).find((p) => p.trial.id === trialId) ?? null;
+  return {
+    trial: { id: trial.id, code: trial.code, title: trial.title },
+    variants,
+    recommendedVariantId: row?.recommendedVariantId ?? null,
+    recommendationRationale: row?.recommendationRationale ?? null,
+    products: await listPromotableProducts(actor),
+    pending,
+  };
+}

@@ -1,0 +1,72 @@
+/**
+ * The batch sheet of a production version: the formula scaled to the kettle, weights rounded to
+ * the scale, the end point for the kitchen's altitude, and the QC targets. Pure.
+ */
+import {
+  qcSpecCautions, resolveWaterBoilingPoint, scaleFormula, STANDARD_PRESSURE_PA, waterBoilingPointAtPressureC,
+  type Caution, type QcSpec, type ScaledFormula, type ScaleTarget,
+} from '@/lib/chemistry';
+import { toChemistrySettings } from '@/lib/formulas/compute';
+import type { FormulaSettingsInput, RevisionLine } from '@/lib/formulas/schema';
+import type { ProductionProcess, BatchSheetQuery } from './schema';
+
+export interface SheetSource {
+  productName: string;
+  productCode: string;
+  version: number;
+  settings: FormulaSettingsInput;
+  lines: RevisionLine[];
+  process: ProductionProcess;
+  spec: QcSpec;
+}
+
+export interface BatchSheet {
+  title: string;
+  scaled: ScaledFormula;
+  /** The developer's sea-level end point moved by the kitchen's drop in the boiling point of water. */
+  endPoint: { seaLevelC: number; kitchenC: number; waterBoilingC: number; altitudeM: number | null };
+  fillTempC: number;
+  cookNotes: string;
+  spec: QcSpec;
+  cautions: Caution[];
+  steps: string[];
+}
+
+export function buildBatchSheet(source: SheetSource, query: BatchSheetQuery): BatchSheet {
+  const target: ScaleTarget =
+    query.target === 'jar_count'
+      ? { kind: 'jar_count', jars: Math.round(query.amount) }
+      : { kind: query.target, mass: query.amount, unit: query.unit };
+  const settings = toChemistrySettings(source.settings);
+  const scaled = scaleFormula(source.lines, settings, target, { step: query.step, unit: query.stepUnit });
+  const altitudeM = query.altitudeM ?? source.settings.altitudeM ?? null;
+  const water = resolveWaterBoilingPoint(altitudeM === null ? {} : { altitudeM });
+  const seaLevelWaterC = waterBoilingPointAtPressureC(STANDARD_PRESSURE_PA);
+  const kitchenC = source.process.endPointSeaLevelC - (seaLevelWaterC - water.waterBoilingC);
+  const sugarLines = scaled.lines.filter((_, i) => source.lines[i]?.ingredient.kind === 'sweetener').map((l) => l.name);
+  const pectinLines = scaled.lines.filter((_, i) => source.lines[i]?.ingredient.kind === 'pectin').map((l) => l.name);
+  const acidLines = scaled.lines.filter((_, i) => source.lines[i]?.ingredient.kind === 'acid').map((l) => l.name);
+  const steps = [
+    'Check the scale reads zero and weigh every line; tick each as it goes in.',
+    ...(pectinLines.length ? [`Dry-blend the ${pectinLines.join(', ')} with about five times its weight of the sugar so it does not clump.`] : []),
+    'Heat the fruit to a rolling boil.',
+    ...(pectinLines.length ? ['Add the pectin–sugar blend while stirring hard, then boil for a minute.'] : []),
+    ...(sugarLines.length ? [`Add the remaining ${sugarLines.join(', ')} and bring back to the boil.`] : []),
+    `Boil to ${kitchenC.toFixed(1)} °C, then check a cooled sample on the refractometer: ${source.spec.solidsMinBrix.toFixed(1)}–${source.spec.solidsMaxBrix.toFixed(1)} °Brix at 20 °C.`,
+    ...(acidLines.length ? [`Add the ${acidLines.join(', ')} at the end of the boil (acid added early breaks the pectin down).`] : []),
+    `Check the pH of a cooled sample: ${source.spec.phMin.toFixed(2)}–${source.spec.phMax.toFixed(2)}.`,
+    `Fill hot, at ${source.spec.minFillTempC.toFixed(0)} °C or above, into clean, hot jars; cap at once.`,
+    `Check-weigh jars against ${source.spec.netFillG.toFixed(0)} g net (tolerance ${source.spec.netFillToleranceG.toFixed(1)} g).`,
+    'Record the readings against the lot code.',
+  ];
+  return {
+    title: `${source.productName} — ${source.productCode} v${source.version}`,
+    scaled,
+    endPoint: { seaLevelC: source.process.endPointSeaLevelC, kitchenC, waterBoilingC: water.waterBoilingC, altitudeM },
+    fillTempC: source.process.fillTempC,
+    cookNotes: source.process.cookNotes,
+    spec: source.spec,
+    cautions: qcSpecCautions(source.spec, source.settings.productClass),
+    steps,
+  };
+}

@@ -1,0 +1,65 @@
+/** Production vocabulary shared by entities, schemas and screens. Pure data. */
+
+export const PROMOTION_STATUSES = ['pending', 'approved', 'sent_back', 'withdrawn'] as const;
+export type PromotionStatus = (typeof PROMOTION_STATUSES)[number];
+export const PROMOTION_STATUS_LABELS: Record<PromotionStatus, string> = {
+  pending: 'Awaiting review',
+  approved: 'Approved',
+  sent_back: 'Sent back',
+  withdrawn: 'Withdrawn',
+};
+
+export const VERSION_STATUSES = ['current', 'superseded'] as const;
+export type VersionStatus = (typeof VERSION_STATUSES)[number];
+export const VERSION_STATUS_LABELS: Record<VersionStatus, string> = { current: 'In production', superseded: 'Superseded' };
+
+export const BATCH_OUTCOMES = ['pass', 'fail'] as const;
+export type BatchOutcome = (typeof BATCH_OUTCOMES)[number];
+
+/** What happens to a batch that failed a check. */
+export const DISPOSITIONS = ['rework', 'hold', 'discard'] as const;
+export type Disposition = (typeof DISPOSITIONS)[number];
+export const DISPOSITION_LABELS: Record<Disposition, string> = {
+  rework: 'Rework (re-boil or blend, then re-test)',
+  hold: 'Hold (quarantine pending a decision)',
+  discard: 'Discard',
+};
+
+/** Audit actions, in the words the trail shows. */
+export const AUDIT_ACTIONS = {
+  'promotion.requested': 'Requested promotion',
+  'promotion.approved': 'Approved promotion',
+  'promotion.sent_back': 'Sent back promotion',
+  'promotion.withdrawn': 'Withdrew promotion',
+  'version.created': 'Created production version',
+  'version.superseded': 'Superseded production version',
+  'batch.recorded': 'Recorded batch',
+  'batch.failed': 'Recorded failed batch',
+} as const;
+export type AuditAction = keyof typeof AUDIT_ACTIONS;
+
+/**
+ * Our lot-code scheme: product code, the two-digit year and day of the year, then the batch of
+ * that day, e.g. QMJ-26336-2 for the second batch of quince jam on 2 December 2026.
+ */
+export const LOT_CODE_PATTERN = /^[A-Z]{2,5}-\d{5}-\d{1,2}$/;
+export const PRODUCT_CODE_PATTERN = /^[A-Z]{2,5}$/;
+
+export function dayOfYear(isoDate: string): number {
+  const d = new Date(`${isoDate}T00:00:00Z`);
+  const start = Date.UTC(d.getUTCFullYear(), 0, 1);
+  return Math.floor((d.getTime() - start) / 86_400_000) + 1;
+}
+
+export function lotCodeFor(productCode: string, isoDate: string, batchOfDay: number): string {
+  const yy = isoDate.slice(2, 4);
+  return `${productCode}-${yy}${String(dayOfYear(isoDate)).padStart(3, '0')}-${batchOfDay}`;
+}
+
+export function promotionCode(number: number): string {
+  return `PR-${String(number).padStart(3, '0')}`;
+}
+
+export function versionCode(productCode: string, version: number): string {
+  return `${productCode} v${version}`;
+}

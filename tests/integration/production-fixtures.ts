@@ -1,0 +1,49 @@
+/** Production records the promotion tests and the authorisation matrix build on. */
+import { createTrial } from '@/lib/trials/mutations';
+import { listVariants } from '@/lib/trials/queries';
+import { getPromotionDraft, getProductionVersion } from '@/lib/production/queries';
+import { decidePromotion, requestPromotion } from '@/lib/production/mutations';
+import type { RequestPromotionInput } from '@/lib/production/schema';
+import { actorOf, type WorkspaceFixture } from './harness';
+import { createFixtureFormula } from './fixtures';
+
+/** A trial on the fixture strawberry jam; its base variant A is computable and compliant (EU jam). */
+export async function createPromotableTrial(fx: WorkspaceFixture): Promise<{ trialId: string; variantId: string }> {
+  const dev = actorOf(fx, 'developer');
+  const formulaId = await createFixtureFormula(fx);
+  const { trialId } = await createTrial(dev, { title: 'Fixture promotion trial', question: 'Which variant goes to production?', formulaId });
+  const [base] = await listVariants(dev, trialId);
+  return { trialId, variantId: base.id };
+}
+
+let codeCounter = 0;
+/** A fresh product code per call: A–Z letters only, as the scheme wants. */
+export function freshProductCode(): string {
+  codeCounter += 1;
+  const n = Date.now() % 17576 + codeCounter * 7;
+  return `Q${String.fromCharCode(65 + (n % 26))}${String.fromCharCode(65 + (Math.floor(n / 26) % 26))}${String.fromCharCode(65 + (Math.floor(n / 676) % 26))}`;
+}
+
+/** The request the form would send with its defaults, for a new product or a new version of one. */
+export async function promotionInput(fx: WorkspaceFixture, trialId: string, variantId: string, product: { productId: string } | { code: string; name?: string }): Promise<RequestPromotionInput> {
+  const draft = await getPromotionDraft(actorOf(fx, 'developer'), trialId);
+  const v = draft.variants.find((x) => x.id === variantId)!;
+  return {
+    trialId, variantId,
+    ...('productId' in product ? { productId: product.productId } : { newProductName: product.name ?? 'Fixture strawberry jam', newProductCode: product.code }),
+    rationale: 'Variant A set cleanly and scored best on overall liking.',
+    process: { ...v.defaults!.process, cookNotes: 'Rolling boil; skim before filling.' },
+    spec: v.defaults!.spec,
+  };
+}
+
+/** Developer requests, head of product approves: returns the new production version. */
+export async function createApprovedVersion(fx: WorkspaceFixture, product?: { productId: string }): Promise<{ versionId: string; requestId: string; productCode: string; trialId: string }> {
+  const { trialId, variantId } = await createPromotableTrial(fx);
+  const code = freshProductCode();
+  const input = await promotionInput(fx, trialId, variantId, product ?? { code });
+  const { requestId } = await requestPromotion(actorOf(fx, 'developer'), input);
+  const { productionFormulaId } = await decidePromotion(actorOf(fx, 'head_of_product'), requestId, { decision: 'approve', comment: '' });
+  const version = await getProductionVersion(actorOf(fx, 'production'), productionFormulaId!);
+  return { versionId: version.id, requestId, productCode: version.product.code, trialId };
+}
