@@ -125,7 +125,8 @@ export type BatchRecordInput = z.infer<typeof batchRecordSchema>;
 export const batchSheetQuerySchema = z
   .object({
     target: z.enum(['finished_mass', 'total_charge', 'jar_count'], { error: 'Scale by kettle charge, finished mass or jar count.' }).default('total_charge'),
-    amount: z.coerce.number({ error: 'Give the amount as a number.' }).positive('The amount must be more than 0.').max(5_000_000, 'The amount is implausibly large.'),
+    /** Absent: the formula at its developed size. */
+    amount: z.coerce.number({ error: 'Give the amount as a number.' }).positive('The amount must be more than 0.').max(5_000_000, 'The amount is implausibly large.').optional(),
     unit: z.enum(['g', 'kg', 'lb', 'oz'], { error: 'Use g, kg, lb or oz.' }).default('kg'),
     step: z.coerce.number({ error: 'Give the scale resolution as a number.' }).positive('The scale resolution must be more than 0.').max(10_000, 'The scale resolution is implausibly coarse.').default(5),
     stepUnit: z.enum(['g', 'kg', 'lb', 'oz'], { error: 'Use g, kg, lb or oz.' }).default('g'),

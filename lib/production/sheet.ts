@@ -3,7 +3,7 @@
  * the scale, the end point for the kitchen's altitude, and the QC targets. Pure.
  */
 import {
-  qcSpecCautions, resolveWaterBoilingPoint, scaleFormula, STANDARD_PRESSURE_PA, waterBoilingPointAtPressureC,
+  computeMassBalance, qcSpecCautions, resolveWaterBoilingPoint, scaleFormula, STANDARD_PRESSURE_PA, waterBoilingPointAtPressureC,
   type Caution, type QcSpec, type ScaledFormula, type ScaleTarget,
 } from '@/lib/chemistry';
 import { toChemistrySettings } from '@/lib/formulas/compute';
@@ -33,11 +33,13 @@ export interface BatchSheet {
 }
 
 export function buildBatchSheet(source: SheetSource, query: BatchSheetQuery): BatchSheet {
-  const target: ScaleTarget =
-    query.target === 'jar_count'
-      ? { kind: 'jar_count', jars: Math.round(query.amount) }
-      : { kind: query.target, mass: query.amount, unit: query.unit };
   const settings = toChemistrySettings(source.settings);
+  const target: ScaleTarget =
+    query.amount === undefined
+      ? { kind: 'total_charge', mass: computeMassBalance(source.lines, settings).totalChargeG, unit: 'g' }
+      : query.target === 'jar_count'
+        ? { kind: 'jar_count', jars: Math.round(query.amount) }
+        : { kind: query.target, mass: query.amount, unit: query.unit };
   const scaled = scaleFormula(source.lines, settings, target, { step: query.step, unit: query.stepUnit });
   const altitudeM = query.altitudeM ?? source.settings.altitudeM ?? null;
   const water = resolveWaterBoilingPoint(altitudeM === null ? {} : { altitudeM });

@@ -25,6 +25,10 @@ export interface RouteCase {
    * caller's own workspace.
    */
   otherWorkspace: 404 | 422 | 'own-data' | 'public';
+  /** The role the member of the other workspace holds there (default admin), for routes admin may not use. */
+  otherWorkspaceRole?: Role;
+  /** What an allowed caller gets when it is not a 2xx: the version routes answer every change with 409. */
+  allowedStatus?: number;
   /** Builds the call for a caller (null for the outsider) against workspace A's records. */
   prepare?: (a: WorkspaceFixture, caller: Person | null) => Promise<CallSpec> | CallSpec;
 }
@@ -165,6 +169,7 @@ export interface ActionCase {
   action: string;
   allowed: Role[] | 'public';
   otherWorkspace: 404 | 422 | 'own-data' | 'public';
+  otherWorkspaceRole?: Role;
   /** Arguments for a call against workspace A. */
   args?: (a: WorkspaceFixture) => unknown[];
   /** The same, when building them needs the database. */
@@ -216,5 +221,6 @@ import { UPLOADS_ROUTE_CASES, UPLOADS_ACTION_CASES } from './access-uploads';
 import { NOTEBOOK_ROUTE_CASES, NOTEBOOK_ACTION_CASES } from './access-notebook';
 import { TRIALS_ROUTE_CASES, TRIALS_ACTION_CASES } from './access-trials';
 import { PANELS_ROUTE_CASES, PANELS_ACTION_CASES } from './access-panels';
-ROUTE_CASES.push(...UPLOADS_ROUTE_CASES, ...NOTEBOOK_ROUTE_CASES, ...TRIALS_ROUTE_CASES, ...PANELS_ROUTE_CASES);
-ACTION_CASES.push(...UPLOADS_ACTION_CASES, ...NOTEBOOK_ACTION_CASES, ...TRIALS_ACTION_CASES, ...PANELS_ACTION_CASES);
+import { PRODUCTION_ROUTE_CASES, PRODUCTION_ACTION_CASES } from './access-production';
+ROUTE_CASES.push(...UPLOADS_ROUTE_CASES, ...NOTEBOOK_ROUTE_CASES, ...TRIALS_ROUTE_CASES, ...PANELS_ROUTE_CASES, ...PRODUCTION_ROUTE_CASES);
+ACTION_CASES.push(...UPLOADS_ACTION_CASES, ...NOTEBOOK_ACTION_CASES, ...TRIALS_ACTION_CASES, ...PANELS_ACTION_CASES, ...PRODUCTION_ACTION_CASES);
