@@ -13,6 +13,8 @@ export const NAV_ITEMS: NavItem[] = [
   { href: '/formulas', label: 'Formulas', permission: 'formulas.read', group: 'work' },
   { href: '/trials', label: 'Trials', permission: 'trials.read', group: 'work' },
   { href: '/ingredients', label: 'Ingredients', permission: 'ingredients.read', group: 'work' },
+  { href: '/production/reviews', label: 'Promotion reviews', permission: 'promotion.read', group: 'work' },
+  { href: '/production', label: 'Production', permission: 'production.read', group: 'work' },
   { href: '/tastings', label: 'My tastings', permission: 'tastings.own', group: 'work' },
   { href: '/settings/members', label: 'Members', permission: 'members.manage', group: 'settings' },
   { href: '/settings/attributes', label: 'Tasting attributes', permission: 'panels.read', group: 'settings' },

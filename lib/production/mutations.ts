@@ -72,6 +72,7 @@ function buildEvidence(comparison: Awaited<ReturnType<typeof getTrialComparison>
       },
       cautions: computation.cautions.map((c) => ({ code: c.code, severity: c.severity, title: c.title })),
       predicted: {
+        productClass: computation.settings.productClass,
         targetSolidsPct: computation.settings.targetSolidsPct,
         plannedPh: computation.settings.plannedPh ?? null,
         endPointC: computation.endPoint.endPointC,

@@ -335,6 +335,7 @@ export interface PromotionDraftVariant {
   label: string;
   description: string;
   complianceOverall: string | null;
+  productClass: string;
   /** Null when the variant's chemistry cannot be computed. */
   defaults: { spec: QcSpec; process: ProductionProcess; cautions: Caution[] } | null;
 }
@@ -353,10 +354,10 @@ export async function getPromotionDraft(actor: Actor, trialId: string): Promise<
   const row = await em.findOne(Trial, { ...inWorkspace(actor), id: trialId });
   const variants = trial.variants.map((v): PromotionDraftVariant => {
     const c = v.computation;
-    if (!c) return { id: v.id, label: v.label, description: v.description, complianceOverall: null, defaults: null };
+    if (!c) return { id: v.id, label: v.label, description: v.description, complianceOverall: null, productClass: v.settings.productClass, defaults: null };
     const spec = defaultQcSpec(c);
     return {
-      id: v.id, label: v.label, description: v.description, complianceOverall: c.compliance.overall,
+      id: v.id, label: v.label, description: v.description, complianceOverall: c.compliance.overall, productClass: c.settings.productClass,
       defaults: {
         spec,
         process: { endPointSeaLevelC: Math.round(estimateEndPoint({ targetSolidsPct: c.settings.targetSolidsPct }).endPointC * 10) / 10, fillTempC: DEFAULT_FILL_TEMP_C, cookNotes: '' },

@@ -23,7 +23,7 @@ export interface PromotionEvidence {
   lab: Array<{ label: string; cookDate: string; ph: number | null; brix20: number | null; endPointTempC: number | null; setTestScore: number | null }>;
   compliance: { overall: string; edition: string; failing: string[] };
   cautions: Array<{ code: string; severity: string; title: string }>;
-  predicted: { targetSolidsPct: number; plannedPh: number | null; endPointC: number; finishedMassG: number; aw: number };
+  predicted: { productClass: string; targetSolidsPct: number; plannedPh: number | null; endPointC: number; finishedMassG: number; aw: number };
 }
 
 const num = (what: string) => z.number({ error: `${what} must be a number.` }).refine(Number.isFinite, `${what} must be a finite number.`);

@@ -10,8 +10,8 @@ export const metadata = { title: 'Overview' };
 const ROLE_LEADS: Record<Role, string> = {
   admin: 'Invite your team, give each person a role, and keep the workspace tidy.',
   developer: 'Build formulas from the ingredient library and see the batch, the set and the rules while you type.',
-  head_of_product: 'Review formulas and the evidence behind them before anything reaches the kitchen.',
-  production: 'Production formulas, batch sheets and QC records will appear here once a formula is promoted.',
+  head_of_product: 'Review the evidence behind each promotion request and decide what reaches the kitchen.',
+  production: 'Print the batch sheet for your kettle, record each batch, and see it checked against its spec.',
   taster: 'When an organiser seats you at a tasting, it appears under My tastings.',
 };
 

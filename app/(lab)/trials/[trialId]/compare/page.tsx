@@ -81,6 +81,9 @@ export default async function ComparePage({ params }: { params: Promise<{ trialI
       {can(actor.role, 'trials.write') ? (
         <RecommendForm trialId={c.trial.id} variants={c.trial.variants.map((v) => ({ id: v.id, label: v.label, description: v.description }))} current={c.recommendation ? { variantId: c.recommendation.variantId, rationale: c.recommendation.rationale } : null} />
       ) : null}
+      {can(actor.role, 'promotion.request') ? (
+        <p className="mt-4 text-sm"><Link href={`/trials/${c.trial.id}/promote`} className="font-medium text-damson-700 underline">Request promotion to production</Link> — the evidence on this page goes with it.</p>
+      ) : null}
     </>
   );
 }

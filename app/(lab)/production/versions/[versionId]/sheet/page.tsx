@@ -1,0 +1,46 @@
+import Link from 'next/link';
+import { requirePage, orNotFound, pageId } from '@/lib/page-guard';
+import { getBatchSheet, getProductionVersion } from '@/lib/production/queries';
+import { batchSheetQuerySchema } from '@/lib/production/schema';
+import { zodFieldErrors } from '@/lib/api/errors';
+import { ChemistryInputError } from '@/lib/chemistry';
+import { Notice } from '@/components/ui/Notice';
+import { PrintButton } from '@/components/ui/PrintButton';
+import { BatchSheetView } from '@/components/production/BatchSheetView';
+import { SheetScaleForm } from '@/components/production/SheetScaleForm';
+
+export const dynamic = 'force-dynamic';
+export const metadata = { title: 'Batch sheet' };
+
+export default async function BatchSheetPage({ params, searchParams }: { params: Promise<{ versionId: string }>; searchParams: Promise<Record<string, string | string[] | undefined>> }) {
+  const actor = await requirePage('production.read');
+  const versionId = pageId((await params).versionId);
+  const raw = Object.fromEntries(Object.entries(await searchParams).filter(([k, v]) => k !== 'paper' && typeof v === 'string' && v !== '')) as Record<string, string>;
+  const paper = (await searchParams).paper === 'letter' ? 'letter' : 'a4';
+  const parsed = batchSheetQuerySchema.safeParse(raw);
+  const errors = parsed.success ? {} : zodFieldErrors(parsed.error);
+  let sheet = null;
+  let problem: string | null = null;
+  if (parsed.success) {
+    try {
+      sheet = await orNotFound(getBatchSheet(actor, versionId, parsed.data));
+    } catch (err) {
+      if (!(err instanceof ChemistryInputError)) throw err;
+      problem = err.message;
+    }
+  }
+  const version = sheet?.version ?? (await orNotFound(getProductionVersion(actor, versionId)));
+  return (
+    <>
+      <div className="no-print mb-4 space-y-4">
+        <p className="text-sm"><Link href={`/production/versions/${version.id}`} className="text-damson-700 underline">Back to {version.product.name} v{version.version}</Link></p>
+        <SheetScaleForm values={{ ...raw, paper }} errors={errors} massUnits={actor.massUnits} defaultAltitudeM={version.settings.altitudeM ?? null} />
+        {Object.keys(errors).length ? <Notice tone="danger">Some values are not valid; the sheet below is not scaled until they are.</Notice> : null}
+        {problem ? <Notice tone="danger">{problem}</Notice> : null}
+        {version.status === 'superseded' ? <Notice tone="warning" title="Superseded version">This sheet is for reference only: make batches to the version in production.</Notice> : null}
+        <div className="flex items-center gap-3"><PrintButton label="Print the batch sheet" /><p className="text-sm text-rind-500">Prints on {paper === 'letter' ? 'US Letter' : 'A4'} without the navigation. Use the browser’s “Save as PDF” for a file.</p></div>
+      </div>
+      {sheet ? <BatchSheetView sheet={sheet.sheet} paper={paper} massUnits={actor.massUnits} temperatures={actor.temperatureUnit === 'C' ? 'metric' : 'imperial'} superseded={version.status === 'superseded'} /> : null}
+    </>
+  );
+}

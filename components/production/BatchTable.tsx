@@ -1,0 +1,50 @@
+import type { BatchView } from '@/lib/production/queries';
+import { DISPOSITION_LABELS } from '@/lib/production/vocabulary';
+import { formatMass, formatTemperature, type UnitPreference } from '@/lib/chemistry';
+import { StatusBadge } from './StatusBadge';
+
+export function BatchTable({ batches, units, temperatures }: { batches: BatchView[]; units: UnitPreference; temperatures: UnitPreference }) {
+  if (!batches.length) return <p className="text-sm text-rind-600">No batches recorded yet.</p>;
+  return (
+    <div className="overflow-x-auto">
+      <table className="w-full text-sm" data-testid="batch-table">
+        <thead>
+          <tr className="border-b border-pith-300 text-left text-rind-600">
+            <th className="py-2 pr-3 font-medium">Lot</th>
+            <th className="py-2 pr-3 font-medium">Date</th>
+            <th className="py-2 pr-3 font-medium">Version</th>
+            <th className="py-2 pr-3 font-medium">Size</th>
+            <th className="py-2 pr-3 font-medium">°Brix at 20 °C</th>
+            <th className="py-2 pr-3 font-medium">pH</th>
+            <th className="py-2 pr-3 font-medium">Fill</th>
+            <th className="py-2 pr-3 font-medium">Jars (rejected)</th>
+            <th className="py-2 font-medium">Result</th>
+          </tr>
+        </thead>
+        <tbody>
+          {batches.map((b) => (
+            <tr key={b.id} className="border-b border-pith-200 align-top">
+              <td className="py-2 pr-3 font-mono">{b.lotCode}</td>
+              <td className="py-2 pr-3 tabular-nums">{b.batchDate}</td>
+              <td className="py-2 pr-3">v{b.version}</td>
+              <td className="py-2 pr-3">{formatMass(b.batchSizeG, units)}</td>
+              <td className="py-2 pr-3 tabular-nums">{b.brix20.toFixed(1)}</td>
+              <td className="py-2 pr-3 tabular-nums">{b.ph.toFixed(2)}</td>
+              <td className="py-2 pr-3">{formatTemperature(b.fillTempC, temperatures)}</td>
+              <td className="py-2 pr-3 tabular-nums">{b.jarsFilled} ({b.jarsRejected})</td>
+              <td className="py-2">
+                <StatusBadge status={b.outcome} />
+                {b.outcome === 'fail' ? (
+                  <div className="mt-1 max-w-xs text-xs text-rind-600">
+                    {b.checks.filter((c) => c.status === 'fail').map((c) => <p key={c.key}>{c.reason}</p>)}
+                    {b.disposition ? <p className="mt-1 font-medium text-ember-700">{DISPOSITION_LABELS[b.disposition]}: {b.dispositionComment}</p> : null}
+                  </div>
+                ) : null}
+              </td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </div>
+  );
+}
