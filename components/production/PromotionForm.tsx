@@ -118,7 +118,7 @@ export function PromotionForm({ trialId, variants, products, recommendedVariantI
           options={promotable.map((v) => ({ value: v.id, label: `${v.label} — ${v.description}${v.id === recommendedVariantId ? ' (recommended)' : ''}${v.complianceOverall === 'non_compliant' ? ' — fails its market rules' : ''}` }))}
         />
         <fieldset className="space-y-2">
-          <legend className="mb-1 text-sm font-medium text-rind-700">Product</legend>
+          <legend className="mb-1 text-sm font-medium text-rind-700">Which product</legend>
           <div className="flex flex-wrap gap-4 text-sm">
             <label className="flex items-center gap-2"><input type="radio" name="mode" checked={mode === 'existing'} disabled={!products.length} onChange={() => setMode('existing')} /> New version of a product</label>
             <label className="flex items-center gap-2"><input type="radio" name="mode" checked={mode === 'new'} onChange={() => setMode('new')} /> A new product</label>

@@ -270,7 +270,7 @@ export async function recordBatch(actor: Actor, versionId: string, input: BatchR
       recordedBy: actor.userId,
     } as never) as unknown as { id: string };
     await tx.flush();
-    const failed = result.checks.filter((c) => c.status === 'fail').map((c) => c.label.toLowerCase());
+    const failed = result.checks.filter((c) => c.status === "fail").map((c) => c.label);
     await audit(tx, actor, result.outcome === 'fail' ? 'batch.failed' : 'batch.recorded', { type: 'batch_record', id: batch.id }, version.promotionRequestId,
       result.outcome === 'fail' ? `${input.lotCode} failed ${failed.join(', ')}; ${input.disposition}: ${input.dispositionComment}` : `${input.lotCode} passed`);
     await tx.flush();

@@ -13,6 +13,7 @@ import { seedDemoFormulas } from './formulas';
 import { seedDemoTrials } from './trials';
 import { seedDemoNotebooks } from './notebook';
 import { seedDemoPanels } from './panels';
+import { seedDemoProduction } from './production';
 
 export const DEMO_PASSWORD = 'setwell-demo-2026';
 
@@ -65,6 +66,8 @@ export async function seedDemo(em: EntityManager): Promise<SeedReport> {
   const trials = await seedDemoTrials(em.fork(), actor);
   await seedDemoNotebooks(actor, trials);
   await seedDemoPanels(actor, trials);
+  const person = async (index: number, role: Role) => demoActor(await em.fork().findOneOrFail(User, { email: DEMO_USERS[index].email }), report.workspaceId, role);
+  await seedDemoProduction({ developer: actor, head: await person(2, 'head_of_product'), production: await person(3, 'production') }, trials);
   return report;
 }
 
