@@ -1,0 +1,69 @@
+import { describe, it, expect } from 'vitest';
+import { buildBatchSheet, type SheetSource } from '@/lib/production/sheet';
+import { batchSheetQuerySchema } from '@/lib/production/schema';
+import { GRAMS_PER_POUND, defaultQcSpec, computeBatch } from '@/lib/chemistry';
+import { toChemistrySettings } from '@/lib/formulas/compute';
+import type { RevisionLine } from '@/lib/formulas/schema';
+import { PRACTICAL_ACTION_LINES, settings } from '../chemistry/fixtures';
+
+// The Practical Action technical brief's worked batch (10 kg fruit, 10 kg sugar, 60 g pectin, 55 g citric acid), stored as a revision stores it.
+const lines: RevisionLine[] = PRACTICAL_ACTION_LINES.map((l, i) => ({ ingredientId: `00000000-0000-4000-8000-00000000000${i}`, ingredient: l.ingredient, quantity: l.quantity * 1000, unit: 'g' }));
+const formulaSettings = { ...settings(), ruleDate: '2026-01-15' };
+const spec = defaultQcSpec(computeBatch(lines, toChemistrySettings(formulaSettings)));
+const source: SheetSource = {
+  productName: 'Worked example jam', productCode: 'WEJ', version: 3, settings: formulaSettings, lines, spec,
+  process: { endPointSeaLevelC: 104.5, fillTempC: 88, cookNotes: '' },
+};
+const query = (q: Record<string, string>) => batchSheetQuerySchema.parse(q);
+
+describe('the batch sheet', () => {
+  it('without an amount it is the formula at its developed size', () => {
+    const sheet = buildBatchSheet(source, query({ step: '1' }));
+    expect(sheet.scaled.scaleFactor).toBeCloseTo(1, 12);
+    // Source: Practical Action brief — 20.115 kg charge.
+    expect(sheet.scaled.exact.totalChargeG).toBeCloseTo(20115, 6);
+  });
+
+  it('scales to a kettle in pounds and rounds to a 0.05 lb scale', () => {
+    const sheet = buildBatchSheet(source, query({ target: 'total_charge', amount: '100', unit: 'lb', step: '0.05', stepUnit: 'lb' }));
+    expect(sheet.scaled.exact.totalChargeG).toBeCloseTo(100 * GRAMS_PER_POUND, 6);
+    for (const l of sheet.scaled.lines) {
+      const steps = l.roundedInResolutionUnit / 0.05;
+      expect(Math.abs(steps - Math.round(steps))).toBeLessThan(1e-6);
+      expect(Math.abs(l.roundingErrorG)).toBeLessThanOrEqual((0.05 * GRAMS_PER_POUND) / 2 + 1e-9);
+    }
+    // Rounding the sugar and fruit to 0.05 lb moves the solids by less than 0.1 point at this size.
+    expect(Math.abs(sheet.scaled.effectOfRounding.solidsPctDeltaIfPlannedEvaporation)).toBeLessThan(0.1);
+  });
+
+  it('scales to a jar count so that at least that many jars fill', () => {
+    const sheet = buildBatchSheet(source, query({ target: 'jar_count', amount: '240', step: '5', stepUnit: 'g' }));
+    expect(sheet.scaled.exact.finishedMassG).toBeCloseTo(240 * 340, 6);
+    expect(sheet.scaled.exact.jarsFilled).toBe(240);
+  });
+
+  it('lowers the end point by the drop in the boiling point of water at the kitchen’s altitude', () => {
+    // Source: ISA pressure + Antoine constants (piping-designer.com): water boils at about 96.7 °C at 1000 m.
+    const sheet = buildBatchSheet(source, query({ altitudeM: '1000' }));
+    expect(sheet.endPoint.waterBoilingC).toBeCloseTo(96.7, 1);
+    expect(sheet.endPoint.kitchenC).toBeCloseTo(104.5 - (100 - 96.7), 1);
+    expect(buildBatchSheet(source, query({})).endPoint.kitchenC).toBeCloseTo(104.5, 1);
+  });
+
+  it('puts the QC targets and the kitchen end point into the method, and carries the spec cautions', () => {
+    const sheet = buildBatchSheet(source, query({ altitudeM: '1000' }));
+    const method = sheet.steps.join(' ');
+    expect(method).toContain(`Boil to ${sheet.endPoint.kitchenC.toFixed(1)} °C`);
+    expect(method).toContain(`${spec.solidsMinBrix.toFixed(1)}–${spec.solidsMaxBrix.toFixed(1)} °Brix`);
+    expect(method).toMatch(/Dry-blend the HM pectin/);
+    expect(sheet.cautions.map((c) => c.code)).toContain('SPEC_PH_LIMIT');
+  });
+
+  it('refuses a nonsense query before anything is computed', () => {
+    expect(batchSheetQuerySchema.safeParse({ amount: '0' }).success).toBe(false);
+    expect(batchSheetQuerySchema.safeParse({ amount: 'lots' }).success).toBe(false);
+    expect(batchSheetQuerySchema.safeParse({ step: '-1' }).success).toBe(false);
+    expect(batchSheetQuerySchema.safeParse({ altitudeM: '9000' }).success).toBe(false);
+    expect(batchSheetQuerySchema.safeParse({ colour: 'red' }).success).toBe(false);
+  });
+});
