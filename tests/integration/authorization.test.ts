@@ -1,7 +1,8 @@
 /**
  * The authorisation matrix: every route handler and every server action, tried as an
- * outsider, as each role of workspace A, and as an admin of workspace B.
- * Expected: outsider 401; a role without the permission 403; workspace B 404 on A's records.
+ * outsider, as a guest taster (a seat token and no session), as each role of workspace A, and as a
+ * member of workspace B. Expected: outsider and guest 401; a role without the permission 403;
+ * workspace B 404 on A's records.
  */
 import { describe, it, expect, beforeAll } from 'vitest';
 import fs from 'node:fs';
@@ -10,6 +11,7 @@ import { createWorkspace, callRoute, asCaller, type WorkspaceFixture, type Calle
 import { ROUTE_CASES, EXEMPT_ROUTES, ACTION_CASES, type RouteCase } from './access-table';
 import { API_OPERATIONS } from '@/lib/api/openapi';
 import { ROLES } from '@/lib/permissions';
+import { seatFixture } from './access-panels';
 
 const ROOT = path.resolve(__dirname, '../..');
 type RouteHandler = (req: Request, ctx: { params: Promise<Record<string, string>> }) => Promise<Response>;
@@ -55,12 +57,15 @@ let a: WorkspaceFixture;
 let b: WorkspaceFixture;
 let routes: Awaited<ReturnType<typeof discoverRoutes>>;
 let actions: Awaited<ReturnType<typeof discoverActions>>;
+/** A guest taster's seat token: it opens the phone flow of one seat and nothing else. */
+let guestSeatToken: string;
 
 beforeAll(async () => {
   a = await createWorkspace('Matrix A');
   b = await createWorkspace('Matrix B');
   routes = await discoverRoutes();
   actions = await discoverActions();
+  guestSeatToken = (await seatFixture(a)).seatToken;
 });
 
 describe('the table covers everything that exists', () => {
@@ -88,12 +93,12 @@ describe('the table covers everything that exists', () => {
   });
 });
 
-async function call(c: RouteCase, caller: Caller, callerPerson: Person | null) {
+async function call(c: RouteCase, caller: Caller, callerPerson: Person | null, headers?: Record<string, string>) {
   const [method, route] = c.route.split(' ');
   const spec = (await c.prepare?.(a, callerPerson)) ?? {};
   let p = route;
   for (const [k, v] of Object.entries(spec.params ?? {})) p = p.replace(`[${k}]`, v);
-  return callRoute(routes.get(c.route)!, { method, path: p, caller, params: spec.params, body: spec.body });
+  return callRoute(routes.get(c.route)!, { method, path: p, caller, params: spec.params, body: spec.body, headers });
 }
 
 describe.each(ROUTE_CASES)('$route', (c) => {
@@ -104,6 +109,13 @@ describe.each(ROUTE_CASES)('$route', (c) => {
       expect(res.status).toBe(401);
       expect(res.body.error.code).toBe('unauthenticated');
     }
+  });
+
+  it('answers a guest taster who presents their seat token as a bearer token with 401', async () => {
+    if (c.allowed === 'public') return;
+    const res = await call(c, { kind: 'outsider' }, null, { authorization: `Bearer ${guestSeatToken}` });
+    expect(res.status).toBe(401);
+    expect(res.body.error.code).toBe('unauthenticated');
   });
 
   it.each([...ROLES])('as %s: allowed, or 403', async (role) => {
