@@ -28,7 +28,7 @@ export function BatchSheetView({ sheet, paper, massUnits, temperatures, supersed
 
       <section className="mb-4 break-inside-avoid">
         <h2 className="mb-1 text-lg font-semibold">Ingredients</h2>
-        <table className="w-full">
+        <table className="w-full" data-testid="sheet-ingredients">
           <thead><tr className="border-b border-rind-500 text-left"><th className="w-8 py-1">✓</th><th className="py-1">Ingredient</th><th className="py-1 text-right">Weigh out</th><th className="py-1 text-right text-rind-500">Exact</th><th className="py-1 pl-4">Weighed (actual)</th></tr></thead>
           <tbody>
             {s.lines.map((l) => (

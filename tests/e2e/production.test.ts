@@ -35,6 +35,7 @@ async function asRole(role: string, name: string): Promise<Page> {
 
 describe('promotion to production, three roles', () => {
   let reviewUrl = '';
+  let requestCode = '';
   let versionUrl = '';
 
   it('the developer requests promotion of a variant with its evidence', async () => {
@@ -44,8 +45,9 @@ describe('promotion to production, three roles', () => {
     await page.getByRole('link', { name: /Compare/ }).first().click();
     await page.getByRole('link', { name: 'Request promotion to production' }).click();
     await page.getByRole('heading', { level: 1, name: /Promote from T-\d{3}/ }).waitFor();
-    const options = await page.getByLabel('Variant').locator('option').allTextContents();
-    await page.getByLabel('Variant').selectOption({ label: options.find((o) => o.startsWith('C — '))! });
+    const variant = page.getByLabel('Variant', { exact: true });
+    const options = await variant.locator('option').allTextContents();
+    await variant.selectOption({ label: options.find((o) => o.startsWith('C — '))! });
     // A new version of the blackcurrant jam already in production.
     await expect.poll(() => page.getByLabel('Product', { exact: true }).inputValue()).not.toBe('');
     await page.getByLabel('Why this variant').fill('Variant C set as firmly as the base with the higher sugar ratio, and tasters preferred it.');
@@ -53,6 +55,7 @@ describe('promotion to production, three roles', () => {
     await page.getByRole('button', { name: 'Request promotion' }).click();
     await page.waitForURL(/\/production\/reviews\/[0-9a-f-]{36}$/);
     reviewUrl = page.url();
+    requestCode = (await page.getByRole('heading', { level: 1 }).textContent())!.match(/PR-\d{3}/)![0];
     await page.getByText('Awaiting review').first().waitFor();
     await page.getByRole('button', { name: 'Withdraw the request' }).waitFor();
     // The developer cannot decide.
@@ -62,11 +65,11 @@ describe('promotion to production, three roles', () => {
 
   it('the head of product gets the e-mail, reviews the evidence and approves', async () => {
     const head = person('head_of_product');
-    const mail = await mailWithSubject(head.email, /^Promotion PR-\d{3} awaits your review$/);
+    const mail = await mailWithSubject(head.email, new RegExp(`^Promotion ${requestCode} awaits your review$`));
     expect(mail.text).toContain(new URL(reviewUrl).pathname);
     const page = await asRole('head_of_product', 'head');
     await page.goto('/production/reviews');
-    await page.getByTestId('review-queue').getByRole('link', { name: /variant C/ }).click();
+    await page.getByTestId('review-queue').getByRole('link', { name: new RegExp(`^${requestCode}:`) }).click();
     await page.getByRole('heading', { name: 'Compliance and predicted chemistry' }).waitFor();
     await page.getByRole('heading', { name: 'Proposed QC specification' }).waitFor();
     await page.getByRole('button', { name: 'Approve for production' }).click();
@@ -90,7 +93,10 @@ describe('promotion to production, three roles', () => {
     const sheet = page.getByTestId('batch-sheet');
     await sheet.waitFor();
     await expect.poll(() => sheet.getByTestId('rounding-effect').textContent()).toMatch(/Effect of rounding/);
-    expect(await sheet.locator('tbody tr').first().textContent()).toMatch(/\d+ g/);
+    // 50 kg on a scale reading to 10 g: every weight is a whole number of 10 g.
+    const weights = await sheet.getByTestId('sheet-ingredients').locator('tbody tr td:nth-child(3)').allTextContents();
+    expect(weights.filter(Boolean).length).toBeGreaterThanOrEqual(4);
+    for (const w of weights.filter((x) => / g$/.test(x))) expect(Number(w.replace(/[^\d.]/g, '')) % 10).toBe(0);
     // Print view: the navigation and the scale form are left off the paper.
     await page.emulateMedia({ media: 'print' });
     expect(await page.getByRole('form', { name: 'Scale the batch sheet' }).isVisible()).toBe(false);
@@ -122,7 +128,9 @@ describe('promotion to production, three roles', () => {
     expect(await row.textContent()).toMatch(/Hold/);
 
     await page.getByRole('link', { name: 'All versions and trends' }).click();
-    expect(await page.getByTestId('trend-chart').count()).toBe(2);
+    await page.waitForURL(/\/production\/products\/[0-9a-f-]{36}$/);
+    await page.getByTestId('versions').waitFor();
+    await expect.poll(() => page.getByTestId('trend-chart').count()).toBe(2);
     expect(await page.getByTestId('trend-chart').first().locator('canvas').count()).toBe(1);
     const versions = await page.getByTestId('versions').textContent();
     expect(versions).toMatch(/v2.*In production/s);
