@@ -6,6 +6,9 @@ import type { NavItem } from '@/lib/navigation';
 
 export function NavLinks({ items, onNavigate }: { items: NavItem[]; onNavigate?: () => void }) {
   const path = usePathname();
+  // The most specific entry wins: /production/reviews lights "Promotion reviews", not "Production" too.
+  const matches = (href: string) => path === href || path.startsWith(href + '/');
+  const activeHref = items.filter((i) => matches(i.href)).sort((x, y) => y.href.length - x.href.length)[0]?.href;
   const groups: Array<{ key: NavItem['group']; label: string }> = [
     { key: 'work', label: 'Work' },
     { key: 'settings', label: 'Workspace' },
@@ -20,7 +23,7 @@ export function NavLinks({ items, onNavigate }: { items: NavItem[]; onNavigate?:
             <p className="mb-2 px-3 text-xs font-semibold uppercase tracking-wider text-rind-400">{g.label}</p>
             <ul className="space-y-1">
               {inGroup.map((item) => {
-                const active = path === item.href || path.startsWith(item.href + '/');
+                const active = item.href === activeHref;
                 return (
                   <li key={item.href}>
                     <Link
