@@ -53,7 +53,7 @@ export function BatchSheetView({ sheet, paper, massUnits, temperatures, supersed
       <section className="mb-4 grid gap-4 break-inside-avoid sm:grid-cols-2 print:grid-cols-2">
         <div>
           <h2 className="mb-1 text-lg font-semibold">Method</h2>
-          <ol className="list-decimal space-y-1 pl-5">{sheet.steps.map((step, i) => <li key={i}>{step}</li>)}</ol>
+          <ol className="list-decimal space-y-1 pl-6">{sheet.steps.map((step, i) => <li key={i}>{step}</li>)}</ol>
           {sheet.cookNotes ? <p className="mt-2 whitespace-pre-line">{sheet.cookNotes}</p> : null}
         </div>
         <div>

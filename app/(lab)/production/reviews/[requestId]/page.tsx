@@ -104,9 +104,9 @@ export default async function PromotionRequestPage({ params }: { params: Promise
               <ul className="space-y-1 text-sm">{r.history.map((h) => <li key={h.id}><Link href={`/production/reviews/${h.id}`} className="text-damson-700 underline">{h.code}</Link> variant {h.variantLabel} — <StatusBadge status={h.status} /></li>)}</ul>
             </Card>
           ) : null}
-          <Card title="Audit trail"><AuditTrail events={r.audit} /></Card>
         </div>
       </div>
+      <div className="mt-6"><Card title="Audit trail"><AuditTrail events={r.audit} /></Card></div>
     </>
   );
 }
