@@ -1,5 +1,6 @@
 import { MikroORM, type EntityManager } from '@mikro-orm/postgresql';
 import config from '@/mikro-orm.config';
+import { closeSqlPool } from '@/lib/sql';
 
 /**
  * One ORM per process, cached on globalThis so dev-server reloads do not open a new pool
@@ -20,6 +21,7 @@ export async function getEm(): Promise<EntityManager> {
 }
 
 export async function closeOrm(): Promise<void> {
+  await closeSqlPool();
   if (!cache.setwellOrm) return;
   const orm = await cache.setwellOrm;
   cache.setwellOrm = undefined;

@@ -1,14 +1,24 @@
 #!/usr/bin/env bash
 # `npm run bench`: measurements, not tests. Starts its own throw-away PostgreSQL (bench profile),
-# migrates, and prints each figure beside its target. Results land in bench-results/ (git-ignored).
-# So far it holds the statistics benchmark; the load figures come with the load-testing work.
+# migrates, builds the production app, starts two servers on loopback with the bench-only floor
+# route switched on, and prints each figure beside its target. Results land in bench-results/
+# (git-ignored): stats.json, load.json and bench.json (all figures).
+# App ports: SETWELL_BENCH_APP_PORT (default 3200) and the next one up.
 source "$(dirname "$0")/lib.sh"
 export SETWELL_PROFILE=test SETWELL_TEST_HOME="${SETWELL_BENCH_HOME:-/var/tmp/setwell-bench}" SETWELL_TEST_PG_PORT="${SETWELL_BENCH_PG_PORT:-54349}"
 source "$(dirname "$0")/env.sh"
 cd "$REPO_ROOT"
 ensure_node_modules
 ensure_postgres_installed
-cleanup() { pg_cluster_stop "$SETWELL_PG_DATA"; }
+APP_A="${SETWELL_BENCH_APP_PORT:-3200}"
+APP_B=$((APP_A + 1))
+PIDS=()
+cleanup() {
+  set +e
+  # Each server runs in its own process group (setsid): next start forks its worker, and both must go.
+  for pid in "${PIDS[@]}"; do kill -- "-$pid" 2>/dev/null; wait "$pid" 2>/dev/null; done
+  pg_cluster_stop "$SETWELL_PG_DATA"
+}
 trap cleanup EXIT
 pg_cluster_stop "$SETWELL_PG_DATA" 2>/dev/null || true
 rm -rf "$SETWELL_HOME"
@@ -18,3 +28,25 @@ export NEXTAUTH_SECRET=bench-only-secret-bench-only-secret-0000 LOG_LEVEL=silent
 npm run --silent db:migrate >/dev/null
 log "statistics: 60 tasters × 12 samples × 8 attributes, then twice the tasters (median of 5 runs)"
 node --import tsx scripts/bench-stats.ts
+
+mkdir -p "$SETWELL_LOGS"
+log "load: building the production app"
+NODE_ENV=production node node_modules/next/dist/bin/next build >"$SETWELL_LOGS/bench-build.log" 2>&1 || { tail -40 "$SETWELL_LOGS/bench-build.log"; exit 1; }
+node --import tsx scripts/bench-setup.ts "$SETWELL_HOME/seats.json"
+for port in "$APP_A" "$APP_B"; do
+  APP_URL="http://127.0.0.1:$port" NEXTAUTH_URL="http://127.0.0.1:$port" SETWELL_BENCH_FLOOR=1 NODE_ENV=production \
+    setsid node node_modules/next/dist/bin/next start -p "$port" -H 127.0.0.1 >"$SETWELL_LOGS/bench-app-$port.log" 2>&1 &
+  PIDS+=($!)
+done
+wait_for_port 127.0.0.1 "$APP_A" 60
+wait_for_port 127.0.0.1 "$APP_B" 60
+log "load: $(nproc) cores, load average $(cut -d' ' -f1-3 /proc/loadavg) before the run"
+log "load: 100 connections, floor and taster alternating (2 × 10 s each), then two processes; then the phone page's JS"
+node --import tsx scripts/bench-load.ts "$SETWELL_HOME/seats.json" "http://127.0.0.1:$APP_A" "http://127.0.0.1:$APP_B"
+node -e '
+  const fs = require("fs");
+  const stats = JSON.parse(fs.readFileSync("bench-results/stats.json", "utf8"));
+  const load = JSON.parse(fs.readFileSync("bench-results/load.json", "utf8"));
+  fs.writeFileSync("bench-results/bench.json", JSON.stringify({ measuredAt: new Date().toISOString(), figures: [...stats.figures, ...load.figures] }, null, 2));
+'
+log "all figures in bench-results/bench.json"

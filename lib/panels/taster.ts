@@ -4,6 +4,7 @@
  * sample id ever leaves this module toward a phone.
  */
 import { getEm } from '@/lib/db';
+import { sql } from '@/lib/sql';
 import { PanelAnswer, PanelSeat, PanelSession, SensoryAttributeDef } from '@/entities';
 import { notFound } from '@/lib/permissions';
 import { ApiError, ValidationFailed } from '@/lib/api/errors';
@@ -87,8 +88,34 @@ export async function recordConsent(token: string): Promise<void> {
  * hot path to one statement; a retry with the same idempotency key changes nothing, and a
  * later change of mind (a new key) replaces the earlier value while the session is open.
  */
+type AnswerContext = { seat: SeatRow; session: SessionRow; scales: Map<string, SensoryScale> };
+
+/**
+ * The hot path's read: seat, session and the session's attribute scales in one round trip (an
+ * answer is the request a full tasting room sends most). Same checks as seatFor.
+ */
+async function answerContext(token: string): Promise<AnswerContext> {
+  if (!token.startsWith(SEAT_TOKEN_PREFIX) || token.length > 100) throw notFound('tasting');
+  const rows = await sql<{
+    id: string; workspace_id: string; session_id: string; serving_order: SeatRow['servingOrder']; consented_at: Date | null; method: SessionRow['method'];
+    state: SessionRow['state']; attribute_ids: string[]; ranking_attribute_id: string | null; scales: Record<string, SensoryScale>;
+  }>(
+    `select st.id, st.workspace_id, st.session_id, st.serving_order, st.consented_at, s.method, s.state, s.attribute_ids, s.ranking_attribute_id,
+            (select coalesce(jsonb_object_agg(a.id, a.scale), '{}'::jsonb) from sensory_attributes a
+              where a.workspace_id = st.workspace_id and a.id::text in (select jsonb_array_elements_text(s.attribute_ids))) as scales
+       from panel_seats st join panel_sessions s on s.id = st.session_id
+      where st.token_hash = $1`,
+    [hashSecret(token)],
+  );
+  const r = rows[0];
+  if (!r || r.state === 'draft') throw notFound('tasting');
+  const seat = { id: r.id, workspace: { id: r.workspace_id }, session: { id: r.session_id }, servingOrder: r.serving_order, displayName: '', consentedAt: r.consented_at } as SeatRow;
+  const session = { id: r.session_id, method: r.method, state: r.state, attributeIds: r.attribute_ids, rankingAttributeId: r.ranking_attribute_id } as SessionRow;
+  return { seat, session, scales: new Map(Object.entries(r.scales)) };
+}
+
 export async function recordAnswer(token: string, input: AnswerInput): Promise<{ stored: true; duplicate: boolean }> {
-  const { seat, session } = await seatFor(token);
+  const { seat, session, scales } = await answerContext(token);
   if (session.state !== 'open') throw closed();
   if (!seat.consentedAt) throw new ApiError(409, 'no_consent', 'Read and accept the notice before the first sample.');
   const codes = seat.servingOrder.map((c) => c.code);
@@ -99,8 +126,8 @@ export async function recordAnswer(token: string, input: AnswerInput): Promise<{
     const cup = seat.servingOrder.find((c) => c.code === input.code);
     if (!cup) throw new ValidationFailed('That is not one of your samples.', { code: ['That is not one of your samples.'] });
     if (!session.attributeIds.includes(input.attributeId)) throw new ValidationFailed('That attribute is not part of this tasting.', { attributeId: ['That attribute is not part of this tasting.'] });
-    const attr = (await attributesOf(session)).get(input.attributeId)!;
-    if (!isValidScaleValue(attr.scale, input.value)) throw new ValidationFailed('That value is not on the scale.', { value: ['That value is not on the scale.'] });
+    const scale = scales.get(input.attributeId);
+    if (!scale || !isValidScaleValue(scale, input.value)) throw new ValidationFailed('That value is not on the scale.', { value: ['That value is not on the scale.'] });
     row = { kind: 'rating', item: input.code, attribute: input.attributeId, sampleId: cup.sampleId, value: input.value, ranking: null, oddCode: null, correct: null, confidence: null, comment: null };
   } else if ('ranking' in input) {
     if (session.method !== 'ranking') throw new ValidationFailed('This tasting does not take a ranking.', { ranking: ['This tasting does not take a ranking.'] });
@@ -116,11 +143,9 @@ export async function recordAnswer(token: string, input: AnswerInput): Promise<{
     row = { kind: 'triangle', item: '*', attribute: '*', sampleId: null, value: null, ranking: null, oddCode: input.oddCode, correct: isOdd, confidence: input.confidence ?? null, comment: input.comment ?? null };
   }
 
-  const em = await getEm();
-  const conn = em.getConnection();
-  const result = await conn.execute(
+  const result = await sql(
     `insert into panel_answers (id, workspace_id, session_id, seat_id, kind, item, attribute, sample_id, value, ranking, odd_code, correct, confidence, comment, idempotency_key, created_at, updated_at)
-     values (gen_random_uuid(), ?, ?, ?, ?, ?, ?, ?, ?, ?::jsonb, ?, ?, ?, ?, ?, now(), now())
+     values (gen_random_uuid(), $1, $2, $3, $4, $5, $6, $7, $8, $9::jsonb, $10, $11, $12, $13, $14, now(), now())
      on conflict (seat_id, item, attribute) do update set
        value = excluded.value, ranking = excluded.ranking, odd_code = excluded.odd_code, correct = excluded.correct,
        confidence = excluded.confidence, comment = excluded.comment, idempotency_key = excluded.idempotency_key, updated_at = now()
@@ -128,11 +153,10 @@ export async function recordAnswer(token: string, input: AnswerInput): Promise<{
        and exists (select 1 from panel_sessions s where s.id = panel_answers.session_id and s.state = 'open')
      returning (xmax = 0) as inserted`,
     [seat.workspace.id, seat.session.id, seat.id, row.kind, row.item, row.attribute, row.sampleId, row.value, row.ranking ? JSON.stringify(row.ranking) : null, row.oddCode, row.correct, row.confidence, row.comment, input.idempotencyKey],
-    'all',
   );
   // No row back: the same idempotency key was already stored (a retry), or the session closed meanwhile.
-  if ((result as unknown[]).length === 0) {
-    const still = await em.fork().findOneOrFail(PanelSession, { id: seat.session.id });
+  if (result.length === 0) {
+    const still = await (await getEm()).findOneOrFail(PanelSession, { id: seat.session.id });
     if (still.state !== 'open') throw closed();
     return { stored: true, duplicate: true };
   }

@@ -164,6 +164,9 @@ ROUTE_CASES.push(
 /** next-auth's own endpoints: public by nature, and tested through sign-in. */
 export const EXEMPT_ROUTES = ['GET /api/auth/[...nextauth]', 'POST /api/auth/[...nextauth]'];
 
+/** Routes that exist only on a benchmark server (SETWELL_BENCH_FLOOR=1); everywhere else they are 404 for everyone. */
+export const BENCH_ONLY_ROUTES = ['POST /api/bench/floor'];
+
 export interface ActionCase {
   /** "lib/<feature>/actions.ts#exportName" */
   action: string;

@@ -8,7 +8,7 @@ import { describe, it, expect, beforeAll } from 'vitest';
 import fs from 'node:fs';
 import path from 'node:path';
 import { createWorkspace, callRoute, asCaller, type WorkspaceFixture, type Caller, type Person } from './harness';
-import { ROUTE_CASES, EXEMPT_ROUTES, ACTION_CASES, type RouteCase } from './access-table';
+import { ROUTE_CASES, EXEMPT_ROUTES, BENCH_ONLY_ROUTES, ACTION_CASES, type RouteCase } from './access-table';
 import { API_OPERATIONS } from '@/lib/api/openapi';
 import { ROLES } from '@/lib/permissions';
 import { seatFixture } from './access-panels';
@@ -70,7 +70,7 @@ beforeAll(async () => {
 
 describe('the table covers everything that exists', () => {
   it('lists every route handler', () => {
-    const listed = new Set([...ROUTE_CASES.map((c) => c.route), ...EXEMPT_ROUTES]);
+    const listed = new Set([...ROUTE_CASES.map((c) => c.route), ...EXEMPT_ROUTES, ...BENCH_ONLY_ROUTES]);
     const missing = [...routes.keys()].filter((k) => !listed.has(k));
     const stale = [...listed].filter((k) => !routes.has(k));
     expect(missing, 'routes missing from tests/integration/access-table.ts').toEqual([]);
@@ -151,6 +151,17 @@ describe.each(ROUTE_CASES)('$route', (c) => {
     const res = await call(c, { kind: 'token', person }, person);
     if (c.allowedStatus) expect(res.status, JSON.stringify(res.body)).toBe(c.allowedStatus);
     else expect(res.status, JSON.stringify(res.body)).toBeLessThan(300);
+  });
+});
+
+describe.each(BENCH_ONLY_ROUTES)('%s (benchmark only)', (route) => {
+  it('does not exist without the benchmark flag: 404 for an outsider and for an admin', async () => {
+    expect(process.env.SETWELL_BENCH_FLOOR).not.toBe('1');
+    const [method, p] = route.split(' ');
+    for (const caller of [{ kind: 'outsider' } as const, { kind: 'session', person: a.people.admin } as const]) {
+      const res = await callRoute(routes.get(route)!, { method, path: p, caller, body: { seat: 'x' } });
+      expect(res.status).toBe(404);
+    }
   });
 });
 

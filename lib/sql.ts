@@ -1,0 +1,29 @@
+/**
+ * A plain `pg` pool for the few hot statements where the ORM's per-query work shows under load
+ * (a full tasting room's answers). Everything else goes through MikroORM. Same database, same
+ * pool size setting; a dead connection (say, after a PostgreSQL restart) is dropped by pg itself.
+ */
+import { Pool, type QueryResultRow } from 'pg';
+import { env } from '@/lib/env';
+
+const cache = globalThis as unknown as { setwellSqlPool?: Pool };
+
+function pool(): Pool {
+  if (!cache.setwellSqlPool) {
+    const p = new Pool({ connectionString: env().DATABASE_URL, max: Number(process.env.DB_POOL_MAX ?? 10) });
+    // An idle client's error (the server went away) must not crash the process; the pool discards it.
+    p.on('error', () => undefined);
+    cache.setwellSqlPool = p;
+  }
+  return cache.setwellSqlPool;
+}
+
+export async function sql<T extends QueryResultRow>(text: string, values: unknown[]): Promise<T[]> {
+  return (await pool().query<T>(text, values)).rows;
+}
+
+export async function closeSqlPool(): Promise<void> {
+  const p = cache.setwellSqlPool;
+  cache.setwellSqlPool = undefined;
+  await p?.end();
+}
