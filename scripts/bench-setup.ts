@@ -15,7 +15,7 @@ import { recordConsent, tasterView } from '../lib/panels/taster';
 import { createFormula } from '../lib/formulas/mutations';
 import { createTrial, planVariants } from '../lib/trials/mutations';
 import { listVariants } from '../lib/trials/queries';
-import { starterLineIds } from './bench-fixtures';
+import { starterIdsByKey } from '../lib/ingredients/queries';
 import type { Actor } from '../lib/permissions';
 
 const SEATS = Number(process.env.BENCH_SEATS ?? 100);
@@ -32,7 +32,7 @@ async function main() {
   await addStarterLibrary(em, ws.id);
   await addDefaultAttributes(em, ws.id);
   const actor: Actor = { userId: user.id, email: '', name: 'Bench developer', workspaceId: ws.id, workspaceName: ws.name, role: 'developer', via: 'session', massUnits: 'metric', temperatureUnit: 'C' };
-  const ids = await starterLineIds(em, ws.id);
+  const ids = await starterIdsByKey(em, ws.id);
   const { formulaId } = await createFormula(actor, {
     name: 'Bench jam', settings: { productClass: 'jam', ruleSet: 'eu', ruleDate: '2026-03-01', targetSolidsPct: 65, jarNetFillG: 340 },
     lines: [{ ingredientId: ids.strawberry, quantity: 1000, unit: 'g' }, { ingredientId: ids.sucrose, quantity: 1000, unit: 'g' }, { ingredientId: ids.pectin_hm_rapid_150, quantity: 6, unit: 'g' }],

@@ -1,3 +1,4 @@
+import type { EntityManager } from '@mikro-orm/postgresql';
 import { getEm } from '@/lib/db';
 import { Ingredient } from '@/entities';
 import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
@@ -63,4 +64,10 @@ export async function ingredientsByIds(actor: Actor, ids: string[]): Promise<Map
   const em = await getEm();
   const rows = await em.find(Ingredient, { ...inWorkspace(actor), id: { $in: [...new Set(ids)] } });
   return new Map((rows as unknown as Row[]).map((r) => [r.id, toIngredientView(r)]));
+}
+
+/** The workspace's starter-library ingredient ids by their handbook key (strawberry, sucrose, …). */
+export async function starterIdsByKey(em: EntityManager, workspaceId: string): Promise<Record<string, string>> {
+  const rows = await em.find(Ingredient, { workspace: workspaceId, typicalKey: { $ne: null } });
+  return Object.fromEntries(rows.map((r) => [r.typicalKey!, r.id]));
 }

@@ -37,15 +37,16 @@ export async function signIn(page: Page, email: string, password = DEMO_PASSWORD
   await page.waitForURL('**/home');
 }
 
-export async function mailTo(address: string, timeoutMs = 10_000) {
+/** The newest mail to the address (and, when given, whose subject matches). */
+export async function mailTo(address: string, timeoutMs = 10_000, subject?: RegExp) {
   const until = Date.now() + timeoutMs;
   while (Date.now() < until) {
     const messages = (await (await fetch(`${MAIL_URL}/messages`)).json()) as Array<{ to: string[]; subject: string; text: string }>;
-    const found = messages.find((m) => m.to.includes(address));
+    const found = messages.find((m) => m.to.includes(address) && (!subject || subject.test(m.subject)));
     if (found) return found;
     await new Promise((r) => setTimeout(r, 200));
   }
-  throw new Error(`no mail to ${address}`);
+  throw new Error(`no mail to ${address}${subject ? ` matching ${subject}` : ''}`);
 }
 
 export async function screenshot(page: Page, name: string) {

@@ -5,23 +5,12 @@
  */
 import { describe, it, expect, onTestFailed } from 'vitest';
 import type { Page } from 'playwright-core';
-import { sharedBrowser, newContext, signIn, screenshot, MAIL_URL } from './browser';
+import { sharedBrowser, newContext, signIn, screenshot, mailTo } from './browser';
 import { DEMO_USERS } from '@/lib/seed/demo';
 import { lotCodeFor } from '@/lib/production/vocabulary';
 
 const browser = sharedBrowser();
 const person = (role: string) => DEMO_USERS.find((u) => u.role === role)!;
-
-async function mailWithSubject(to: string, pattern: RegExp, timeoutMs = 10_000) {
-  const until = Date.now() + timeoutMs;
-  while (Date.now() < until) {
-    const messages = (await (await fetch(`${MAIL_URL}/messages`)).json()) as Array<{ to: string[]; subject: string; text: string }>;
-    const found = messages.find((m) => m.to.includes(to) && pattern.test(m.subject));
-    if (found) return found;
-    await new Promise((r) => setTimeout(r, 200));
-  }
-  throw new Error(`no mail matching ${pattern} to ${to}`);
-}
 
 async function asRole(role: string, name: string): Promise<Page> {
   const ctx = await newContext(browser());
@@ -65,7 +54,7 @@ describe('promotion to production, three roles', () => {
 
   it('the head of product gets the e-mail, reviews the evidence and approves', async () => {
     const head = person('head_of_product');
-    const mail = await mailWithSubject(head.email, new RegExp(`^Promotion ${requestCode} awaits your review$`));
+    const mail = await mailTo(head.email, 10_000, new RegExp(`^Promotion ${requestCode} awaits your review$`));
     expect(mail.text).toContain(new URL(reviewUrl).pathname);
     const page = await asRole('head_of_product', 'head');
     await page.goto('/production/reviews');

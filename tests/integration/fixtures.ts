@@ -1,15 +1,13 @@
 /** Records that several integration tests build on. */
 import { getEm } from '@/lib/db';
-import { Ingredient } from '@/entities';
+import { starterIdsByKey } from '@/lib/ingredients/queries';
 import { createFormula } from '@/lib/formulas/mutations';
 import type { CreateFormulaInput } from '@/lib/formulas/schema';
 import { actorOf, type WorkspaceFixture } from './harness';
 
 /** The workspace's starter-library ids by their handbook key (strawberry, sucrose, …). */
 export async function starterIds(fx: WorkspaceFixture): Promise<Record<string, string>> {
-  const em = await getEm();
-  const rows = await em.find(Ingredient, { workspace: fx.workspaceId, typicalKey: { $ne: null } });
-  return Object.fromEntries(rows.map((r) => [r.typicalKey!, r.id]));
+  return starterIdsByKey(await getEm(), fx.workspaceId);
 }
 
 /** A plain strawberry jam: 1000 g fruit, 1000 g sugar, 6 g pectin, 5.5 g citric acid. */

@@ -139,10 +139,10 @@ export async function outbox(): Promise<Array<{ id: string; to: string[]; subjec
   return res.json();
 }
 
-export async function waitForMail(to: string, timeoutMs = 5000) {
+export async function waitForMail(to: string, timeoutMs = 5000, subject?: string) {
   const until = Date.now() + timeoutMs;
   while (Date.now() < until) {
-    const found = (await outbox()).find((m) => m.to.includes(to));
+    const found = (await outbox()).find((m) => m.to.includes(to) && (subject === undefined || m.subject === subject));
     if (found) return found;
     await new Promise((r) => setTimeout(r, 100));
   }

@@ -1,6 +1,6 @@
 /** Promotion to production through the real handlers: the four-eyes rule, immutable versions, superseding, batch checks, the audit trail. */
 import { describe, it, expect, beforeAll } from 'vitest';
-import { createWorkspace, callRoute, actorOf, outbox, waitForMail, type WorkspaceFixture, type Caller } from './harness';
+import { createWorkspace, callRoute, actorOf, waitForMail, type WorkspaceFixture, type Caller } from './harness';
 import { strawberryJamInput } from './fixtures';
 import { createApprovedVersion, createPromotableTrial, freshProductCode, promotionInput } from './production-fixtures';
 import * as promotionsRoute from '@/app/api/v1/promotions/route';
@@ -43,15 +43,6 @@ async function newRequest() {
 
 const decide = (caller: Caller, requestId: string, body: unknown) =>
   callRoute(decisionRoute.POST, { method: 'POST', path: '', caller, params: { requestId }, body });
-async function waitForSubject(to: string, subject: string, timeoutMs = 5000) {
-  const until = Date.now() + timeoutMs;
-  while (Date.now() < until) {
-    const found = (await outbox()).find((m) => m.to.includes(to) && m.subject === subject);
-    if (found) return found;
-    await new Promise((r) => setTimeout(r, 100));
-  }
-  throw new Error(`no mail "${subject}" to ${to} within ${timeoutMs} ms`);
-}
 const sql = async (query: string, params: unknown[] = []) => (await getEm()).getConnection().execute(query, params);
 
 describe('requesting promotion', () => {
@@ -150,7 +141,7 @@ describe('who may decide', () => {
     const view = (await callRoute(promotionRoute.GET, { method: 'GET', path: '', caller: as('head_of_product'), params: { requestId: second.body.requestId } })).body.promotion;
     expect(view.history.map((h: any) => [h.id, h.status])).toEqual([[requestId, 'sent_back']]);
     const code = (await (await getEm()).fork().findOneOrFail(PromotionRequest, { id: requestId })).number;
-    const sentBackMail = await waitForSubject(a.people.developer.email, `Promotion PR-${String(code).padStart(3, '0')} sent back`);
+    const sentBackMail = await waitForMail(a.people.developer.email, 5000, `Promotion PR-${String(code).padStart(3, '0')} sent back`);
     expect(sentBackMail.text).toContain('Tighten the pH window');
   });
 
@@ -180,7 +171,7 @@ describe('approval and the production version', () => {
     expect(v.lines).toEqual(variant.lines);
     expect(v.audit.map((e: any) => e.action)).toEqual(['promotion.requested', 'promotion.approved', 'version.created']);
     const number = (await (await getEm()).fork().findOneOrFail(PromotionRequest, { id: requestId })).number;
-    const approvedMail = await waitForSubject(a.people.developer.email, `Promotion PR-${String(number).padStart(3, '0')} approved`);
+    const approvedMail = await waitForMail(a.people.developer.email, 5000, `Promotion PR-${String(number).padStart(3, '0')} approved`);
     expect(approvedMail.text).toContain(`/production/versions/${versionId}`);
   });
 

@@ -1,5 +1,6 @@
 import Link from 'next/link';
 import { requirePage, orNotFound, pageId } from '@/lib/page-guard';
+import { can } from '@/lib/permissions';
 import { getPromotionRequest } from '@/lib/production/queries';
 import { formatMass, formatTemperature, qcSpecCautions } from '@/lib/chemistry';
 import { FACTOR_LABELS, type TrialFactor } from '@/lib/trials/vocabulary';
@@ -87,7 +88,7 @@ export default async function PromotionRequestPage({ params }: { params: Promise
         </div>
         <div className="space-y-6">
           {r.canDecide ? <DecisionForm requestId={r.id} code={r.code} productLabel={r.productLabel} /> : null}
-          {r.status === 'pending' && !r.canDecide && r.requestedById === actor.userId && actor.role === 'head_of_product' ? (
+          {r.status === 'pending' && !r.canDecide && r.requestedById === actor.userId && can(actor.role, 'promotion.decide') ? (
             <Notice tone="info">You made this request: another head of product must decide it.</Notice>
           ) : null}
           {r.canWithdraw ? <WithdrawButton requestId={r.id} code={r.code} /> : null}
