@@ -107,7 +107,10 @@ const counts = {
   refused: 0,
   gaveUp: 0,
 };
-const failureKinds = new Map<string, number>();
+/** Per kind of failure: how many, and when (ms after the load began) the first and last came. */
+const failureKinds = new Map<string, { n: number; first: number; last: number }>();
+const answerLatencies: number[] = [];
+let loadStartedAt = 0;
 let inFlight = 0;
 /** From the restart's start until 10 s after pg_ctl returned, a failure counts as caused by it. */
 const restart = { startedAt: 0, endedAt: 0, inFlightAtStart: 0, tookMs: 0, healthyAfterMs: -1, done: false };
@@ -117,7 +120,9 @@ function failureDuringRestart(now: number): boolean {
 }
 
 function noteFailure(kind: string) {
-  failureKinds.set(kind, (failureKinds.get(kind) ?? 0) + 1);
+  const t = Date.now() - loadStartedAt;
+  const k = failureKinds.get(kind) ?? { n: 0, first: t, last: t };
+  failureKinds.set(kind, { n: k.n + 1, first: Math.min(k.first, t), last: Math.max(k.last, t) });
   if (failureDuringRestart(Date.now())) counts.failuresDuringRestart++;
   else counts.failuresOutsideRestart++;
 }
@@ -132,6 +137,7 @@ async function call<T>(method: 'GET' | 'POST' | 'PUT', url: string, body?: unkno
     counts.requestsSent++;
     inFlight++;
     let kind: string;
+    const sentAt = Date.now();
     try {
       const res = await fetch(`${APP}${url}`, {
         method,
@@ -140,7 +146,10 @@ async function call<T>(method: 'GET' | 'POST' | 'PUT', url: string, body?: unkno
         signal: AbortSignal.timeout(REQUEST_TIMEOUT_MS),
       });
       const text = await res.text();
-      if (res.ok) return JSON.parse(text) as T;
+      if (res.ok) {
+        if (method === 'PUT') answerLatencies.push(Date.now() - sentAt);
+        return JSON.parse(text) as T;
+      }
       if (res.status < 500) {
         counts.refused++;
         throw Object.assign(new Error(`${method} ${url.replace(/sws_[\w-]+/, 'sws_…')} → ${res.status} ${text.slice(0, 200)}`), { final: true });
@@ -285,6 +294,7 @@ async function main() {
 
   let finished = false;
   const load = Date.now();
+  loadStartedAt = load;
   const restarter = restartPostgresWhenDue(total, () => finished);
   const results = await Promise.allSettled(seats.map((s, i) => taster(s, pick, i * perTaster)));
   finished = true;
@@ -294,7 +304,10 @@ async function main() {
 
   const db = await checkDatabase(sessionId);
   const logScan = scanAppLog(seats);
-  const kinds = [...failureKinds].map(([k, n]) => `${k} ×${n}`).join(', ') || 'none';
+  const kinds = [...failureKinds].map(([k, f]) => `${k} ×${f.n}`).join(', ') || 'none';
+  const when = [...failureKinds].map(([k, f]) => `${k} from +${(f.first / 1000).toFixed(1)} s to +${(f.last / 1000).toFixed(1)} s`).join(', ');
+  const sorted = [...answerLatencies].sort((x, y) => x - y);
+  const pct = (q: number) => sorted[Math.min(sorted.length - 1, Math.floor(q * sorted.length))] ?? 0;
   console.log(
     `soak: requests sent ${counts.requestsSent}, duplicates sent ${counts.duplicatesSent}, retries ${counts.retries}, ` +
       `failures seen during the restart ${counts.failuresDuringRestart} (outside it ${counts.failuresOutsideRestart}; ${kinds}), ` +
@@ -306,6 +319,10 @@ async function main() {
     restart.done
       ? `soak: PostgreSQL restart took ${(restart.tookMs / 1000).toFixed(1)} s with ${restart.inFlightAtStart} requests in flight; /api/health ok again ${restart.healthyAfterMs < 0 ? 'never' : `after ${(restart.healthyAfterMs / 1000).toFixed(1)} s`}`
       : 'soak: PostgreSQL was NOT restarted (the load ended first)',
+  );
+  console.log(
+    `soak: timeline: ${restart.startedAt ? `restart began at +${((restart.startedAt - load) / 1000).toFixed(1)} s` : 'no restart'}${when ? `; failures: ${when}` : ''}; ` +
+      `answer replies (2xx) took median ${pct(0.5)} ms, 95th percentile ${pct(0.95)} ms, longest ${sorted.at(-1) ?? 0} ms`,
   );
   console.log(`soak: app log ${logScan.lines} lines, ${logScan.errors} errors logged; ${logScan.leaks.length ? `LEAKED: ${logScan.leaks.join(', ')}` : 'no seat token, token hash or idempotency key in it'}`);
   console.log(`soak: load ran ${loadSeconds.toFixed(1)} s, whole soak ${((Date.now() - started) / 1000).toFixed(1)} s`);
