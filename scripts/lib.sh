@@ -156,3 +156,27 @@ stop_background() {
     rm -f "$pidfile"
   fi
 }
+
+# The database name in a postgresql:// URL, and the same URL pointing at another database.
+url_db_name() { local u="${1%%\?*}"; printf '%s' "${u##*/}"; }
+url_with_db() {
+  local u="$1" db="$2" q=""
+  [[ "$u" == *\?* ]] && q="?${u#*\?}"
+  u="${u%%\?*}"
+  printf '%s/%s%s' "${u%/*}" "$db" "$q"
+}
+
+# For the backup and restore scripts: without an explicit DATABASE_URL they work on the demo
+# database, starting its cluster for the duration when it is not running. Source env.sh first.
+# Sets DEMO_CLUSTER_STARTED=1 when it started the cluster (stop it again with pg_cluster_stop).
+DEMO_CLUSTER_STARTED=0
+ensure_demo_cluster_for() {
+  local explicit_url="$1"
+  [ -n "$explicit_url" ] && return 0
+  ensure_postgres_installed
+  if ! as_pg "$(pg_bindir)/pg_ctl" -D "$SETWELL_PG_DATA" status >/dev/null 2>&1; then
+    [ -f "$SETWELL_PG_DATA/PG_VERSION" ] || { log "no demo database in $SETWELL_PG_DATA yet (run npm start once, or set DATABASE_URL)"; return 1; }
+    pg_cluster_start "$SETWELL_PG_DATA" "$SETWELL_PG_PORT" "$SETWELL_PG_DURABLE"
+    DEMO_CLUSTER_STARTED=1
+  fi
+}

@@ -1,6 +1,6 @@
 #!/usr/bin/env bash
 # The README's test command (`npm test`): every test, on a fresh machine too.
-#   npm test                 → types, lint, unit + integration (vitest), then browser tests
+#   npm test                 → types, lint, unit + integration (vitest), browser tests, short soak
 #   npm test -- <paths…>     → only the vitest files given (the test services still start)
 # It starts its own throw-away PostgreSQL cluster (fsync off), mail fake and S3 fake on test ports,
 # never touching the demo data, and stops them at the end.
@@ -66,13 +66,26 @@ APP_PID=$!
 wait_for_port 127.0.0.1 "$PORT" 60
 DATABASE_URL="$E2E_DATABASE_URL" npx vitest run -c vitest.e2e.config.ts --reporter=default --reporter=json --outputFile.json="$SETWELL_HOME/vitest-e2e.json"
 
+# The short soak: tasters over HTTP through a PostgreSQL restart. The browser tests are done, so
+# their server stops and the soak takes the test cluster (a fresh setwell_soak database) and port;
+# no other step uses the cluster now. It reuses the build above.
+kill -- "-$APP_PID" 2>/dev/null || true
+wait "$APP_PID" 2>/dev/null || true
+APP_PID=
+log "short soak: tasters answer through a PostgreSQL restart"
+soak_status=0
+SETWELL_SOAK_REUSE_CLUSTER=1 bash scripts/soak.sh --short || soak_status=$?
+
 node -e '
   const fs = require("fs");
   let passed = 0, failed = 0, skipped = 0;
-  for (const f of process.argv.slice(1)) {
+  for (const f of process.argv.slice(2)) {
     const r = JSON.parse(fs.readFileSync(f, "utf8"));
     passed += r.numPassedTests; failed += r.numFailedTests; skipped += r.numPendingTests + (r.numTodoTests || 0);
   }
+  // The soak counts as one test.
+  if (process.argv[1] === "0") passed++; else failed++;
   console.log(`setwell: ${passed} passed, ${failed} failed, ${skipped} skipped`);
-' "$SETWELL_HOME/vitest.json" "$SETWELL_HOME/vitest-e2e.json"
+' "$soak_status" "$SETWELL_HOME/vitest.json" "$SETWELL_HOME/vitest-e2e.json"
+if [ "$soak_status" -ne 0 ]; then log "the short soak failed (its counts are above)"; exit 1; fi
 log "all tests passed in $(( $(date +%s) - started ))s"

@@ -8,7 +8,7 @@ import { actorFromHeaders } from '@/lib/auth';
 import { authorize, notFound, type Actor, type Permission } from '@/lib/permissions';
 import { env } from '@/lib/env';
 import { isUuid } from '@/lib/ids';
-import { logger } from '@/lib/log';
+import { logger, pathForLog } from '@/lib/log';
 import { ApiError, describeError } from '@/lib/api/errors';
 
 type RouteContext<P> = { params: Promise<P> };
@@ -59,7 +59,7 @@ export function apiRoute<P = Record<string, never>>(
       return await handler({ req, actor: actor!, params, body: (schema) => readBody(req, schema) });
     } catch (err) {
       const { status, body } = describeError(err);
-      if (status >= 500) logger.error({ err, path: new URL(req.url).pathname, method: req.method }, 'api handler failed');
+      if (status >= 500) logger.error({ err, path: pathForLog(req.url), method: req.method }, 'api handler failed');
       return json(body, status);
     }
   };
@@ -76,7 +76,7 @@ export function publicRoute<P = Record<string, never>>(handler: (ctx: Omit<ApiCo
       return await handler({ req, params, body: (schema) => readBody(req, schema) });
     } catch (err) {
       const { status, body } = describeError(err);
-      if (status >= 500) logger.error({ err, path: new URL(req.url).pathname, method: req.method }, 'api handler failed');
+      if (status >= 500) logger.error({ err, path: pathForLog(req.url), method: req.method }, 'api handler failed');
       return json(body, status);
     }
   };

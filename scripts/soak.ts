@@ -1,0 +1,354 @@
+/**
+ * The taster soak (run by scripts/soak.sh, which starts the cluster and `next start`).
+ *
+ * 1. Sets up one open rated tasting with guest seats through lib/panels (the organiser's side).
+ * 2. Every simulated taster, concurrently, does what the phone does over HTTP: reads its seat,
+ *    consents, answers every sample × attribute with random pauses (PUT …/answers with an
+ *    idempotency key), then submits. 10 % of answers are sent twice with the same key, half as a
+ *    double tap (both at once) and half as a resend after the first reply.
+ * 3. PostgreSQL is restarted once (pg_ctl restart -m fast) while requests are in flight. Clients
+ *    retry a 5xx, a connection error or a timeout with backoff, as the phone's queue does; an
+ *    answer counts as acknowledged only on a 2xx.
+ * 4. The database must hold every acknowledged answer exactly once with its value and key, and
+ *    nothing else; the app log must hold no seat token, token hash or idempotency key.
+ * Prints the counts and exits non-zero on any loss, duplicate, stray row or leak.
+ */
+import fs from 'node:fs';
+import path from 'node:path';
+import { execFile } from 'node:child_process';
+import { promisify } from 'node:util';
+import { randomUUID, randomInt } from 'node:crypto';
+import { Pool } from 'pg';
+import { getEm, closeOrm } from '../lib/db';
+import { Membership, User, Variant, Workspace, Ingredient } from '../entities';
+import { addStarterLibrary } from '../lib/ingredients/mutations';
+import { addDefaultAttributes, createPanelSession, openPanelSession, joinAsGuest } from '../lib/panels/mutations';
+import { listAttributes } from '../lib/panels/queries';
+import { createFormula } from '../lib/formulas/mutations';
+import { createTrial, planVariants } from '../lib/trials/mutations';
+import { hashSecret } from '../lib/secrets';
+import type { Actor } from '../lib/permissions';
+import type { TasterView } from '../lib/panels/schema';
+
+const SHORT = process.argv.includes('--short');
+const PLAN = SHORT
+  ? { tasters: 20, samples: 4, attributes: 3, pauseMs: [150, 900] as const }
+  : { tasters: 200, samples: 6, attributes: 4, pauseMs: [50, 700] as const };
+const DUPLICATE_SHARE = 0.1;
+/** The restart starts once this share of answers is acknowledged. */
+const RESTART_AT = 0.4;
+const MAX_ATTEMPTS = 12;
+const REQUEST_TIMEOUT_MS = 15_000;
+
+const APP = process.env.SOAK_APP_URL!;
+const PG_DATA = process.env.SETWELL_PG_DATA!;
+const PG_BIN = process.env.SETWELL_PG_BIN!;
+const APP_LOG = process.env.SOAK_APP_LOG;
+
+const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
+const pause = () => sleep(randomInt(PLAN.pauseMs[0], PLAN.pauseMs[1]));
+
+// ---- 1. the session, set up through the organiser's code paths ----
+
+async function setUpSession(): Promise<{ sessionId: string; seats: Array<{ token: string; seatId: string }> }> {
+  const em = await getEm();
+  const tag = randomUUID().slice(0, 8);
+  const workspace = em.create(Workspace, { name: `Soak kitchen ${tag}`, slug: `soak-${tag}` });
+  const user = em.create(User, { email: `organiser.${tag}@soak.example`, name: 'Soak organiser' } as never) as unknown as { id: string; email: string };
+  em.create(Membership, { workspace, user, role: 'developer' } as never);
+  await em.flush();
+  await addStarterLibrary(em, workspace.id);
+  await addDefaultAttributes(em, workspace.id);
+  const actor: Actor = {
+    userId: user.id, email: user.email, name: 'Soak organiser', workspaceId: workspace.id, workspaceName: workspace.name,
+    role: 'developer', via: 'session', massUnits: 'metric', temperatureUnit: 'C',
+  };
+  const ids = Object.fromEntries((await em.find(Ingredient, { workspace: workspace.id, typicalKey: { $ne: null } })).map((r) => [r.typicalKey!, r.id]));
+  const { formulaId } = await createFormula(actor, {
+    name: 'Soak strawberry jam',
+    settings: { productClass: 'jam', ruleSet: 'eu', ruleDate: '2026-03-01', targetSolidsPct: 65, jarNetFillG: 340 },
+    lines: [
+      { ingredientId: ids.strawberry, quantity: 1000, unit: 'g' },
+      { ingredientId: ids.sucrose, quantity: 1000, unit: 'g' },
+      { ingredientId: ids.pectin_hm_rapid_150, quantity: 6, unit: 'g' },
+      { ingredientId: ids.citric_acid_anhydrous, quantity: 5.5, unit: 'g' },
+    ],
+  });
+  const { trialId } = await createTrial(actor, { title: 'Soak trial', question: 'Do answers survive a database restart?', formulaId });
+  await planVariants(actor, trialId, {
+    kind: 'full_factorial', centrePoint: false,
+    factors: [{ factor: 'sugar_ratio', low: 0.8, high: 1.2 }, { factor: 'acid_dose', low: 3, high: 7 }, { factor: 'pectin_dose', low: 4, high: 8 }],
+  });
+  const variants = await em.fork().find(Variant, { trial: trialId }, { orderBy: { position: 'asc' } });
+  const attributes = (await listAttributes(actor)).slice(0, PLAN.attributes);
+  const { sessionId } = await createPanelSession(actor, trialId, {
+    title: 'Soak tasting', method: 'rated', notice: 'Simulated tasters only.',
+    variantIds: variants.slice(0, PLAN.samples).map((v) => v.id), attributeIds: attributes.map((a) => a.id),
+  });
+  const { joinCode } = await openPanelSession(actor, sessionId);
+  // Joining through lib skips the per-address join limit, which 200 phones behind one address would hit.
+  const tokens: string[] = [];
+  for (let i = 0; i < PLAN.tasters; i++) tokens.push((await joinAsGuest({ joinCode, displayName: `Taster ${i + 1}` })).seatToken);
+  const rows = await em.getConnection().execute<Array<{ id: string; token_hash: string }>>('select id, token_hash from panel_seats where session_id = ?', [sessionId]);
+  const byHash = new Map(rows.map((r) => [r.token_hash, r.id]));
+  return { sessionId, seats: tokens.map((token) => ({ token, seatId: byHash.get(hashSecret(token))! })) };
+}
+
+// ---- 2./3. the tasters and the restart ----
+
+const counts = {
+  requestsSent: 0,
+  duplicatesSent: 0,
+  retries: 0,
+  failuresDuringRestart: 0,
+  failuresOutsideRestart: 0,
+  acknowledgedAnswers: 0,
+  acknowledgedRequests: 0,
+  refused: 0,
+  gaveUp: 0,
+};
+/** Per kind of failure: how many, and when (ms after the load began) the first and last came. */
+const failureKinds = new Map<string, { n: number; first: number; last: number }>();
+const answerLatencies: number[] = [];
+let loadStartedAt = 0;
+let inFlight = 0;
+/** From the restart's start until 10 s after pg_ctl returned, a failure counts as caused by it. */
+const restart = { startedAt: 0, endedAt: 0, inFlightAtStart: 0, tookMs: 0, healthyAfterMs: -1, done: false };
+
+function failureDuringRestart(now: number): boolean {
+  return restart.startedAt > 0 && now >= restart.startedAt && (restart.endedAt === 0 || now <= restart.endedAt + 10_000);
+}
+
+function noteFailure(kind: string) {
+  const t = Date.now() - loadStartedAt;
+  const k = failureKinds.get(kind) ?? { n: 0, first: t, last: t };
+  failureKinds.set(kind, { n: k.n + 1, first: Math.min(k.first, t), last: Math.max(k.last, t) });
+  if (failureDuringRestart(Date.now())) counts.failuresDuringRestart++;
+  else counts.failuresOutsideRestart++;
+}
+
+/**
+ * One request with the phone's retry policy: 5xx, connection errors and timeouts are retried
+ * with exponential backoff and jitter; anything else below 500 that is not 2xx is refused.
+ */
+async function call<T>(method: 'GET' | 'POST' | 'PUT', url: string, body?: unknown): Promise<T> {
+  for (let attempt = 1; ; attempt++) {
+    if (attempt > 1) counts.retries++;
+    counts.requestsSent++;
+    inFlight++;
+    let kind: string;
+    const sentAt = Date.now();
+    try {
+      const res = await fetch(`${APP}${url}`, {
+        method,
+        headers: body === undefined ? {} : { 'content-type': 'application/json' },
+        body: body === undefined ? undefined : JSON.stringify(body),
+        signal: AbortSignal.timeout(REQUEST_TIMEOUT_MS),
+      });
+      const text = await res.text();
+      if (res.ok) {
+        if (method === 'PUT') answerLatencies.push(Date.now() - sentAt);
+        return JSON.parse(text) as T;
+      }
+      if (res.status < 500) {
+        counts.refused++;
+        throw Object.assign(new Error(`${method} ${url.replace(/sws_[\w-]+/, 'sws_…')} → ${res.status} ${text.slice(0, 200)}`), { final: true });
+      }
+      kind = `HTTP ${res.status}`;
+    } catch (err) {
+      if ((err as { final?: boolean }).final) throw err;
+      kind = (err as Error).name === 'TimeoutError' ? 'timeout' : `connection (${((err as { cause?: { code?: string } }).cause?.code) ?? (err as Error).message})`;
+    } finally {
+      inFlight--;
+    }
+    noteFailure(kind);
+    if (attempt >= MAX_ATTEMPTS) {
+      counts.gaveUp++;
+      throw new Error(`${method} ${url.replace(/sws_[\w-]+/, 'sws_…')}: gave up after ${attempt} attempts (last: ${kind})`);
+    }
+    await sleep(Math.min(3000, 100 * 2 ** (attempt - 1)) * (0.5 + Math.random()));
+  }
+}
+
+interface Acknowledged { seatId: string; code: string; attributeId: string; value: number; key: string }
+const acknowledged = new Map<string, Acknowledged>();
+const allKeys: string[] = [];
+
+function randomValueOn(scale: TasterView['attributes'][number]['scale']): number {
+  if (scale.kind === 'category') return scale.points[randomInt(scale.points.length)].value;
+  const steps = Math.round((scale.max - scale.min) / scale.step);
+  return Number((scale.min + randomInt(steps + 1) * scale.step).toFixed(6));
+}
+
+async function taster(seat: { token: string; seatId: string }, doubled: Set<number>, firstIndex: number): Promise<void> {
+  const base = `/api/v1/tasting/${seat.token}`;
+  await pause();
+  const view = await call<TasterView>('GET', base);
+  await call('POST', `${base}/consent`);
+  let index = firstIndex;
+  for (const sample of view.samples) {
+    for (const attribute of view.attributes) {
+      await pause();
+      const answer = { idempotencyKey: randomUUID(), code: sample.code, attributeId: attribute.id, value: randomValueOn(attribute.scale) };
+      allKeys.push(answer.idempotencyKey);
+      const send = () => call<{ stored: boolean }>('PUT', `${base}/answers`, answer);
+      const twice = doubled.has(index++);
+      if (twice) counts.duplicatesSent++;
+      if (twice && index % 2 === 0) {
+        await Promise.all([send(), send()]); // a double tap
+      } else {
+        await send();
+        if (twice) {
+          await sleep(randomInt(20, 300));
+          await send(); // the reply was lost, so the phone sends it again
+        }
+      }
+      counts.acknowledgedRequests += twice ? 2 : 1;
+      counts.acknowledgedAnswers++;
+      acknowledged.set(`${seat.seatId}|${sample.code}|${attribute.id}`, { seatId: seat.seatId, code: sample.code, attributeId: attribute.id, value: answer.value, key: answer.idempotencyKey });
+    }
+  }
+  await pause();
+  await call('POST', `${base}/submit`);
+}
+
+const execFileAsync = promisify(execFile);
+
+async function restartPostgresWhenDue(total: number, stop: () => boolean): Promise<void> {
+  while (!stop()) {
+    if (counts.acknowledgedAnswers >= total * RESTART_AT && inFlight > 0) break;
+    await sleep(5);
+  }
+  if (stop()) return;
+  restart.startedAt = Date.now();
+  restart.inFlightAtStart = inFlight;
+  const args = ['-D', PG_DATA, '-m', 'fast', '-w', '-t', '60', 'restart', '-l', path.join(path.dirname(PG_DATA), 'log', 'postgres.log')];
+  const root = process.getuid?.() === 0;
+  await execFileAsync(root ? 'runuser' : `${PG_BIN}/pg_ctl`, root ? ['-u', 'postgres', '--', `${PG_BIN}/pg_ctl`, ...args] : args);
+  restart.endedAt = Date.now();
+  restart.tookMs = restart.endedAt - restart.startedAt;
+  restart.done = true;
+  // The load balancer's view: how soon /api/health says ok again.
+  for (let i = 0; i < 300; i++) {
+    const ok = await fetch(`${APP}/api/health`, { signal: AbortSignal.timeout(5000) }).then((r) => r.ok, () => false);
+    if (ok) {
+      restart.healthyAfterMs = Date.now() - restart.startedAt;
+      return;
+    }
+    await sleep(100);
+  }
+}
+
+// ---- 4. the checks ----
+
+async function checkDatabase(sessionId: string) {
+  const pool = new Pool({ connectionString: process.env.DATABASE_URL, max: 1 });
+  try {
+    const { rows } = await pool.query<{ seat_id: string; item: string; attribute: string; value: number | null; idempotency_key: string; copies: number }>(
+      `select seat_id, item, attribute, value::float8 as value, idempotency_key,
+              count(*) over (partition by seat_id, item, attribute)::int as copies
+         from panel_answers where session_id = $1`,
+      [sessionId],
+    );
+    const seats = await pool.query<{ submitted: number }>('select count(*) filter (where submitted_at is not null)::int as submitted from panel_seats where session_id = $1', [sessionId]);
+    let missing = 0;
+    let wrongValue = 0;
+    const stored = new Map<string, (typeof rows)[number]>();
+    for (const r of rows) stored.set(`${r.seat_id}|${r.item}|${r.attribute}`, r);
+    for (const [k, a] of acknowledged) {
+      const r = stored.get(k);
+      if (!r) missing++;
+      else if (r.value !== a.value || r.idempotency_key !== a.key) wrongValue++;
+    }
+    const duplicated = rows.filter((r) => r.copies > 1).length;
+    const extra = [...stored.keys()].filter((k) => !acknowledged.has(k)).length;
+    return { rowsStored: rows.length, missing, duplicated, wrongValue, extra, submitted: seats.rows[0].submitted };
+  } finally {
+    await pool.end();
+  }
+}
+
+function scanAppLog(seats: Array<{ token: string }>) {
+  if (!APP_LOG || !fs.existsSync(APP_LOG)) return { lines: 0, errors: 0, leaks: ['the app log is missing'] };
+  const text = fs.readFileSync(APP_LOG, 'utf8');
+  const lines = text.split('\n').filter(Boolean);
+  const errors = lines.filter((l) => l.includes('"level":50')).length;
+  const leaks: string[] = [];
+  for (const s of seats) {
+    if (text.includes(s.token.slice(4))) leaks.push('a seat token');
+    if (text.includes(hashSecret(s.token))) leaks.push('a seat token hash');
+  }
+  if (allKeys.some((k) => text.includes(k))) leaks.push('an idempotency key (so the answer with it)');
+  return { lines: lines.length, errors, leaks: [...new Set(leaks)] };
+}
+
+async function main() {
+  const started = Date.now();
+  const { sessionId, seats } = await setUpSession();
+  await closeOrm();
+  const perTaster = PLAN.samples * PLAN.attributes;
+  const total = PLAN.tasters * perTaster;
+  const pick = new Set<number>();
+  while (pick.size < Math.round(total * DUPLICATE_SHARE)) pick.add(randomInt(total));
+  console.log(`soak: ${PLAN.tasters} tasters × ${PLAN.samples} samples × ${PLAN.attributes} attributes = ${total} answers${SHORT ? ' (short)' : ''}`);
+
+  let finished = false;
+  const load = Date.now();
+  loadStartedAt = load;
+  const restarter = restartPostgresWhenDue(total, () => finished);
+  const results = await Promise.allSettled(seats.map((s, i) => taster(s, pick, i * perTaster)));
+  finished = true;
+  await restarter;
+  const loadSeconds = (Date.now() - load) / 1000;
+  const problems = results.flatMap((r) => (r.status === 'rejected' ? [String((r.reason as Error).message)] : []));
+
+  const db = await checkDatabase(sessionId);
+  const logScan = scanAppLog(seats);
+  const kinds = [...failureKinds].map(([k, f]) => `${k} ×${f.n}`).join(', ') || 'none';
+  const when = [...failureKinds].map(([k, f]) => `${k} from +${(f.first / 1000).toFixed(1)} s to +${(f.last / 1000).toFixed(1)} s`).join(', ');
+  const sorted = [...answerLatencies].sort((x, y) => x - y);
+  const pct = (q: number) => sorted[Math.min(sorted.length - 1, Math.floor(q * sorted.length))] ?? 0;
+  console.log(
+    `soak: requests sent ${counts.requestsSent}, duplicates sent ${counts.duplicatesSent}, retries ${counts.retries}, ` +
+      `failures seen during the restart ${counts.failuresDuringRestart} (outside it ${counts.failuresOutsideRestart}; ${kinds}), ` +
+      `acknowledged ${counts.acknowledgedAnswers} answers (${counts.acknowledgedRequests} answer requests), ` +
+      `rows stored ${db.rowsStored}, missing ${db.missing}, duplicated ${db.duplicated}, wrong value ${db.wrongValue}, extra ${db.extra}, ` +
+      `seats submitted ${db.submitted}/${PLAN.tasters}`,
+  );
+  console.log(
+    restart.done
+      ? `soak: PostgreSQL restart took ${(restart.tookMs / 1000).toFixed(1)} s with ${restart.inFlightAtStart} requests in flight; /api/health ok again ${restart.healthyAfterMs < 0 ? 'never' : `after ${(restart.healthyAfterMs / 1000).toFixed(1)} s`}`
+      : 'soak: PostgreSQL was NOT restarted (the load ended first)',
+  );
+  console.log(
+    `soak: timeline: ${restart.startedAt ? `restart began at +${((restart.startedAt - load) / 1000).toFixed(1)} s` : 'no restart'}${when ? `; failures: ${when}` : ''}; ` +
+      `answer replies (2xx) took median ${pct(0.5)} ms, 95th percentile ${pct(0.95)} ms, longest ${sorted.at(-1) ?? 0} ms`,
+  );
+  console.log(`soak: app log ${logScan.lines} lines, ${logScan.errors} errors logged; ${logScan.leaks.length ? `LEAKED: ${logScan.leaks.join(', ')}` : 'no seat token, token hash or idempotency key in it'}`);
+  console.log(`soak: load ran ${loadSeconds.toFixed(1)} s, whole soak ${((Date.now() - started) / 1000).toFixed(1)} s`);
+
+  const failed = [
+    ...problems.slice(0, 5),
+    ...(problems.length > 5 ? [`… and ${problems.length - 5} more tasters failed`] : []),
+    ...(counts.acknowledgedAnswers !== total ? [`only ${counts.acknowledgedAnswers} of ${total} answers were acknowledged`] : []),
+    ...(db.missing ? [`${db.missing} acknowledged answers are missing`] : []),
+    ...(db.duplicated ? [`${db.duplicated} rows are duplicates`] : []),
+    ...(db.wrongValue ? [`${db.wrongValue} rows hold another value or key than acknowledged`] : []),
+    ...(db.extra ? [`${db.extra} rows were never acknowledged`] : []),
+    ...(db.rowsStored !== counts.acknowledgedAnswers ? [`${db.rowsStored} rows for ${counts.acknowledgedAnswers} acknowledged answers`] : []),
+    ...(db.submitted !== PLAN.tasters ? [`${PLAN.tasters - db.submitted} seats are not submitted`] : []),
+    ...(!restart.done ? ['the restart did not happen under load'] : []),
+    ...(restart.done && restart.healthyAfterMs < 0 ? ['the app never reported healthy after the restart'] : []),
+    ...logScan.leaks.map((l) => `the app log holds ${l}`),
+  ];
+  if (failed.length) {
+    console.log(`soak: FAIL\n  - ${failed.join('\n  - ')}`);
+    process.exit(1);
+  }
+  console.log('soak: PASS');
+}
+
+main().catch((err) => {
+  console.error(err);
+  process.exit(1);
+});
