@@ -4,7 +4,7 @@
 # for every acknowledged answer, stored exactly once (scripts/soak.ts does the work and the checks).
 #
 # Its own throw-away cluster (durable, like production) and app server, by default in
-# /var/tmp/setwell-soak, PostgreSQL on 54359 and the app on 3200; override with SETWELL_SOAK_HOME,
+# /var/tmp/setwell-soak, PostgreSQL on 54359 and the app on 3210; override with SETWELL_SOAK_HOME,
 # SETWELL_SOAK_PG_PORT, SETWELL_SOAK_APP_PORT. The build in .next is reused unless it is missing,
 # older than a source file, or --rebuild is given.
 #
@@ -32,7 +32,7 @@ else
   export SETWELL_PROFILE=test
   export SETWELL_TEST_HOME="${SETWELL_SOAK_HOME:-/var/tmp/setwell-soak}"
   export SETWELL_TEST_PG_PORT="${SETWELL_SOAK_PG_PORT:-54359}"
-  export SETWELL_TEST_APP_PORT="${SETWELL_SOAK_APP_PORT:-3200}"
+  export SETWELL_TEST_APP_PORT="${SETWELL_SOAK_APP_PORT:-3210}"
   source "$(dirname "$0")/env.sh"
   export SETWELL_PG_DURABLE=yes
   own_cluster=1
