@@ -95,17 +95,30 @@ type Handler = (req: Request, ctx: { params: Promise<any> }) => Promise<Response
 /** Calls a route handler the way Next.js does, and returns status + parsed JSON. A FormData body is sent as multipart (its own content-type). */
 export async function callRoute(
   handler: Handler,
-  opts: { method: string; path: string; caller: Caller; params?: Record<string, string>; body?: unknown; headers?: Record<string, string> },
+  opts: {
+    method: string;
+    path: string;
+    caller: Caller;
+    params?: Record<string, string>;
+    body?: unknown;
+    headers?: Record<string, string>;
+    /** Exact body bytes with exactly this content-type (null: no content-type header at all). */
+    raw?: { text: string; contentType: string | null };
+  },
 ): Promise<{ status: number; body: any }> {
   const write = opts.method !== 'GET';
   const headers = authHeaders(opts.caller, write);
   const multipart = opts.body instanceof FormData;
   if (opts.body !== undefined && !multipart) headers.set('content-type', 'application/json');
+  if (opts.raw?.contentType) headers.set('content-type', opts.raw.contentType);
   for (const [k, v] of Object.entries(opts.headers ?? {})) headers.set(k, v);
   const req = new Request(`${APP_ORIGIN}${opts.path}`, {
     method: opts.method,
     headers,
-    body: opts.body === undefined ? undefined : multipart ? (opts.body as FormData) : typeof opts.body === 'string' ? opts.body : JSON.stringify(opts.body),
+    // Bytes, not a string, so that Request adds no text/plain content-type of its own.
+    body: opts.raw
+      ? new TextEncoder().encode(opts.raw.text)
+      : opts.body === undefined ? undefined : multipart ? (opts.body as FormData) : typeof opts.body === 'string' ? opts.body : JSON.stringify(opts.body),
   });
   const res = await handler(req, { params: Promise.resolve(opts.params ?? {}) });
   const text = await res.text();
