@@ -34,9 +34,9 @@ export function json(data: unknown, status = 200): Response {
  * the Origin header must match APP_URL or the host the request was addressed to, as Next.js
  * itself checks for server actions.
  */
-export function assertSameOrigin(req: Request): void {
-  const origin = req.headers.get('origin');
-  const host = req.headers.get('x-forwarded-host') ?? req.headers.get('host');
+export function assertSameOrigin(headers: Headers): void {
+  const origin = headers.get('origin');
+  const host = headers.get('x-forwarded-host') ?? headers.get('host');
   let originHost: string | undefined;
   try {
     originHost = origin ? new URL(origin).host : undefined;
@@ -54,7 +54,7 @@ export function apiRoute<P = Record<string, never>>(
   return async (req: Request, routeContext?: RouteContext<P>): Promise<Response> => {
     try {
       const actor = await actorFromHeaders(req.headers);
-      if (actor && actor.via === 'session' && WRITE_METHODS.has(req.method)) assertSameOrigin(req);
+      if (actor && actor.via === 'session' && WRITE_METHODS.has(req.method)) assertSameOrigin(req.headers);
       authorize(actor, permission);
       const params = (routeContext ? await routeContext.params : {}) as P;
       return await handler({ req, actor: actor!, params, body: (schema) => readBody(req, schema) });
