@@ -14,19 +14,22 @@ const nextConfig = {
   poweredByHeader: false,
   experimental: { authInterrupts: true },
   typedRoutes: false,
-  // Baseline headers on every response. The script policy is left to a later, nonce-based CSP;
-  // these parts cannot break the app: no framing, no plugins, forms and base URL stay on our origin.
+  // Baseline headers on every response. Pages get their full Content-Security-Policy (with a
+  // per-request script nonce) from proxy.ts; the API and downloads keep the baseline policy.
   async headers() {
     return [
       {
         source: '/:path*',
         headers: [
-          { key: 'Content-Security-Policy', value: "frame-ancestors 'none'; base-uri 'self'; form-action 'self'; object-src 'none'" },
           { key: 'X-Frame-Options', value: 'DENY' },
           { key: 'X-Content-Type-Options', value: 'nosniff' },
           { key: 'Referrer-Policy', value: 'strict-origin-when-cross-origin' },
           { key: 'Permissions-Policy', value: 'camera=(self), microphone=(), geolocation=(), payment=()' },
         ],
+      },
+      {
+        source: '/api/:path*',
+        headers: [{ key: 'Content-Security-Policy', value: "frame-ancestors 'none'; base-uri 'self'; form-action 'self'; object-src 'none'" }],
       },
     ];
   },

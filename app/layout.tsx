@@ -1,4 +1,5 @@
 import type { Metadata, Viewport } from 'next';
+import { connection } from 'next/server';
 import { displayFont, textFont } from './fonts';
 import './globals.css';
 
@@ -10,7 +11,12 @@ export const metadata: Metadata = {
 
 export const viewport: Viewport = { width: 'device-width', initialScale: 1, themeColor: '#43213a' };
 
-export default function RootLayout({ children }: { children: React.ReactNode }) {
+/**
+ * Every page renders per request: Next.js can only put the Content-Security-Policy nonce from
+ * proxy.ts on its script tags at request time, and a prerendered page's scripts would be blocked.
+ */
+export default async function RootLayout({ children }: { children: React.ReactNode }) {
+  await connection();
   return (
     <html lang="en" className={`${displayFont.variable} ${textFont.variable}`}>
       <body className="min-h-screen">{children}</body>

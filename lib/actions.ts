@@ -4,7 +4,8 @@
  * that forms show inline. Nothing is written when validation or authorisation fails.
  */
 import type { z } from 'zod';
-import { currentActor } from '@/lib/auth';
+import { actorFromHeaders } from '@/lib/auth';
+import { assertSameOrigin } from '@/lib/api/route';
 import { authorize, AccessDenied, type Actor, type Permission } from '@/lib/permissions';
 import { describeError, type FieldErrors } from '@/lib/api/errors';
 import { logger } from '@/lib/log';
@@ -27,10 +28,15 @@ export async function runAction<S extends z.ZodType, T>(
   fn: (actor: Actor, data: z.infer<S>) => Promise<T>,
 ): Promise<ActionResult<T>> {
   try {
-    const actor = authorize(await currentActor(), permission);
+    const { headers } = await import('next/headers');
+    const requestHeaders = new Headers(await headers());
+    const actor = await actorFromHeaders(requestHeaders);
+    // The session cookie rides along on any cross-site post; Next.js checks action origins too, this does not rely on it.
+    if (actor?.via === 'session') assertSameOrigin(requestHeaders);
+    const allowed = authorize(actor, permission);
     const parsed = schema.safeParse(input);
     if (!parsed.success) throw parsed.error;
-    return { ok: true, data: await fn(actor, parsed.data) };
+    return { ok: true, data: await fn(allowed, parsed.data) };
   } catch (err) {
     return failure(err);
   }

@@ -18,9 +18,11 @@ export const WORKSPACE_COOKIE = 'setwell-workspace';
 export const API_TOKEN_PREFIX = 'swt_';
 const SESSION_COOKIES = ['__Secure-next-auth.session-token', 'next-auth.session-token'];
 
-export function authOptions(): NextAuthOptions {
+/** appUrl decides the cookie flags: Secure (and the __Secure- name) exactly when the app is served over https. */
+export function authOptions(appUrl: string = env().APP_URL): NextAuthOptions {
   return {
     secret: env().NEXTAUTH_SECRET,
+    useSecureCookies: appUrl.startsWith('https://'),
     session: { strategy: 'jwt', maxAge: 12 * 60 * 60 },
     pages: { signIn: '/sign-in', error: '/sign-in' },
     providers: [

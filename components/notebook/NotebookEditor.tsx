@@ -100,6 +100,8 @@ function EditableNotebook({ trialId, variantId, initial, title }: Omit<NotebookE
     content: initial.doc,
     editable: initial.conflicts.length === 0,
     immediatelyRender: false,
+    // The Content-Security-Policy refuses <style> tags without a nonce; Tiptap's core rules are in app/globals.css.
+    injectCSS: false,
     editorProps: { attributes: { class: `${NOTEBOOK_PROSE_CLASS} min-h-48 px-4 py-3 focus:outline-none`, 'aria-label': title ? `${title}: notebook text` : 'Notebook text', role: 'textbox', 'aria-multiline': 'true' } },
     onUpdate: () => {
       if (lockedRef.current) return;

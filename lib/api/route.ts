@@ -22,7 +22,8 @@ export interface ApiContext<P> {
 }
 
 const WRITE_METHODS = new Set(['POST', 'PUT', 'PATCH', 'DELETE']);
-const MAX_BODY_BYTES = 1_000_000;
+/** The largest JSON body any handler reads (bytes). */
+export const MAX_BODY_BYTES = 1_000_000;
 
 export function json(data: unknown, status = 200): Response {
   return Response.json(data, { status, headers: { 'cache-control': 'no-store' } });
@@ -33,9 +34,9 @@ export function json(data: unknown, status = 200): Response {
  * the Origin header must match APP_URL or the host the request was addressed to, as Next.js
  * itself checks for server actions.
  */
-export function assertSameOrigin(req: Request): void {
-  const origin = req.headers.get('origin');
-  const host = req.headers.get('x-forwarded-host') ?? req.headers.get('host');
+export function assertSameOrigin(headers: Headers): void {
+  const origin = headers.get('origin');
+  const host = headers.get('x-forwarded-host') ?? headers.get('host');
   let originHost: string | undefined;
   try {
     originHost = origin ? new URL(origin).host : undefined;
@@ -53,7 +54,7 @@ export function apiRoute<P = Record<string, never>>(
   return async (req: Request, routeContext?: RouteContext<P>): Promise<Response> => {
     try {
       const actor = await actorFromHeaders(req.headers);
-      if (actor && actor.via === 'session' && WRITE_METHODS.has(req.method)) assertSameOrigin(req);
+      if (actor && actor.via === 'session' && WRITE_METHODS.has(req.method)) assertSameOrigin(req.headers);
       authorize(actor, permission);
       const params = (routeContext ? await routeContext.params : {}) as P;
       return await handler({ req, actor: actor!, params, body: (schema) => readBody(req, schema) });
@@ -82,12 +83,50 @@ export function publicRoute<P = Record<string, never>>(handler: (ctx: Omit<ApiCo
   };
 }
 
+/** JSON bodies only: application/json or a +json type, with or without parameters. */
+function isJsonContentType(value: string | null): boolean {
+  const type = value?.split(';')[0].trim().toLowerCase() ?? '';
+  return type === 'application/json' || (type.startsWith('application/') && type.endsWith('+json'));
+}
+
+/**
+ * Reads at most MAX_BODY_BYTES bytes and stops there, so an oversized body is refused without
+ * being buffered whole. A body with another content type is refused (415) before it is read:
+ * a form or text/plain post never reaches a schema.
+ */
+async function readLimitedText(req: Request): Promise<string> {
+  const declared = Number(req.headers.get('content-length'));
+  if (Number.isFinite(declared) && declared > MAX_BODY_BYTES) throw new ApiError(413, 'too_large', 'The request body is too large.');
+  if (!req.body) return '';
+  const reader = req.body.getReader();
+  const chunks: Uint8Array[] = [];
+  let size = 0;
+  for (;;) {
+    const { done, value } = await reader.read();
+    if (done) break;
+    size += value.byteLength;
+    if (size > MAX_BODY_BYTES) {
+      await reader.cancel();
+      throw new ApiError(413, 'too_large', 'The request body is too large.');
+    }
+    chunks.push(value);
+  }
+  try {
+    return new TextDecoder('utf-8', { fatal: true }).decode(Buffer.concat(chunks));
+  } catch {
+    throw new ApiError(400, 'bad_json', 'The request body is not valid UTF-8 JSON.');
+  }
+}
+
 async function readBody<S extends z.ZodType>(req: Request, schema: S): Promise<z.infer<S>> {
-  const text = await req.text();
-  if (text.length > MAX_BODY_BYTES) throw new ApiError(413, 'too_large', 'The request body is too large.');
+  const hasBody = req.body !== null && req.headers.get('content-length') !== '0';
+  if (hasBody && !isJsonContentType(req.headers.get('content-type'))) {
+    throw new ApiError(415, 'unsupported_media_type', 'Send the request body as JSON (content-type: application/json).');
+  }
+  const text = await readLimitedText(req);
   let data: unknown;
   try {
-    data = text.length ? JSON.parse(text) : {};
+    data = text.trim().length ? JSON.parse(text) : {};
   } catch {
     throw new ApiError(400, 'bad_json', 'The request body is not valid JSON.');
   }

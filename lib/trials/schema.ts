@@ -70,6 +70,9 @@ export const measurementSchema = z
     message: 'Give the sample temperature with the refractometer reading (it is corrected to 20 °C).',
   });
 
+/** POST /api/v1/trials/{trialId}/measurements/import: the CSV as text (the API's 1 MB body limit is the tighter bound). */
+export const importMeasurementsSchema = z.object({ csv: z.string().min(1, 'Send the CSV text.').max(2_000_000, 'At most 2 MB.') }).strict();
+
 export const trialListQuerySchema = z.object({
   status: z.enum(TRIAL_STATUSES).optional(),
   owner: z.uuid().optional(),

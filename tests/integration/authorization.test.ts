@@ -9,36 +9,12 @@ import fs from 'node:fs';
 import path from 'node:path';
 import { createWorkspace, callRoute, asCaller, type WorkspaceFixture, type Caller, type Person } from './harness';
 import { ROUTE_CASES, EXEMPT_ROUTES, BENCH_ONLY_ROUTES, ACTION_CASES, type RouteCase } from './access-table';
+import { ROOT, walk, discoverRoutes, operationKey } from './routes';
 import { API_OPERATIONS } from '@/lib/api/openapi';
 import { ROLES } from '@/lib/permissions';
 import { seatFixture } from './access-panels';
 
-const ROOT = path.resolve(__dirname, '../..');
-type RouteHandler = (req: Request, ctx: { params: Promise<Record<string, string>> }) => Promise<Response>;
 type ServerAction = (...args: unknown[]) => Promise<{ ok: boolean; status?: number }>;
-const METHODS = ['GET', 'POST', 'PUT', 'PATCH', 'DELETE'] as const;
-
-function walk(dir: string, match: (f: string) => boolean, out: string[] = []): string[] {
-  for (const entry of fs.readdirSync(dir, { withFileTypes: true })) {
-    const full = path.join(dir, entry.name);
-    if (entry.isDirectory()) walk(full, match, out);
-    else if (match(full)) out.push(full);
-  }
-  return out;
-}
-
-const routeFiles = walk(path.join(ROOT, 'app'), (f) => f.endsWith(`${path.sep}route.ts`));
-const routeKey = (file: string, method: string) =>
-  `${method} /${path.relative(path.join(ROOT, 'app'), path.dirname(file)).split(path.sep).filter((s) => !s.startsWith('(')).join('/')}`;
-
-async function discoverRoutes() {
-  const found = new Map<string, RouteHandler>();
-  for (const file of routeFiles) {
-    const mod = await import(file);
-    for (const m of METHODS) if (typeof mod[m] === 'function') found.set(routeKey(file, m), mod[m]);
-  }
-  return found;
-}
 
 const actionFiles = walk(path.join(ROOT, 'lib'), (f) => f.endsWith(`${path.sep}actions.ts`) && fs.readFileSync(f, 'utf8').startsWith("'use server'"));
 
@@ -87,7 +63,7 @@ describe('the table covers everything that exists', () => {
   });
 
   it('describes every /api/v1 route in the OpenAPI document', () => {
-    const documented = new Set(API_OPERATIONS.map((o) => `${o.method.toUpperCase()} ${o.path.replace(/\{(\w+)\}/g, '[$1]')}`));
+    const documented = new Set(API_OPERATIONS.map(operationKey));
     const undocumented = [...routes.keys()].filter((k) => k.includes('/api/v1/') && !documented.has(k));
     expect(undocumented).toEqual([]);
   });

@@ -16,12 +16,12 @@ import { addStarterLibrary } from '@/lib/ingredients/mutations';
 import { addDefaultAttributes } from '@/lib/panels/mutations';
 
 // Server actions read the request through next/headers; tests set it per call.
-const requestState = vi.hoisted(() => ({ headers: new Headers(), setCookies: [] as Array<{ name: string; value: string }> }));
+const requestState = vi.hoisted(() => ({ headers: new Headers(), setCookies: [] as Array<{ name: string; value: string; options?: Record<string, unknown> }> }));
 vi.mock('next/headers', () => ({
   headers: async () => requestState.headers,
   cookies: async () => ({
     get: () => undefined,
-    set: (name: string, value: string) => requestState.setCookies.push({ name, value }),
+    set: (name: string, value: string, options?: Record<string, unknown>) => requestState.setCookies.push({ name, value, options }),
     delete: () => undefined,
   }),
 }));
@@ -95,17 +95,34 @@ type Handler = (req: Request, ctx: { params: Promise<any> }) => Promise<Response
 /** Calls a route handler the way Next.js does, and returns status + parsed JSON. A FormData body is sent as multipart (its own content-type). */
 export async function callRoute(
   handler: Handler,
-  opts: { method: string; path: string; caller: Caller; params?: Record<string, string>; body?: unknown; headers?: Record<string, string> },
+  opts: {
+    method: string;
+    path: string;
+    caller: Caller;
+    params?: Record<string, string>;
+    body?: unknown;
+    /** Extra headers; null removes one the caller would send (e.g. origin). */
+    headers?: Record<string, string | null>;
+    /** Exact body bytes with exactly this content-type (null: no content-type header at all). */
+    raw?: { text: string; contentType: string | null };
+  },
 ): Promise<{ status: number; body: any }> {
   const write = opts.method !== 'GET';
   const headers = authHeaders(opts.caller, write);
   const multipart = opts.body instanceof FormData;
   if (opts.body !== undefined && !multipart) headers.set('content-type', 'application/json');
-  for (const [k, v] of Object.entries(opts.headers ?? {})) headers.set(k, v);
+  if (opts.raw?.contentType) headers.set('content-type', opts.raw.contentType);
+  for (const [k, v] of Object.entries(opts.headers ?? {})) {
+    if (v === null) headers.delete(k);
+    else headers.set(k, v);
+  }
   const req = new Request(`${APP_ORIGIN}${opts.path}`, {
     method: opts.method,
     headers,
-    body: opts.body === undefined ? undefined : multipart ? (opts.body as FormData) : typeof opts.body === 'string' ? opts.body : JSON.stringify(opts.body),
+    // Bytes, not a string, so that Request adds no text/plain content-type of its own.
+    body: opts.raw
+      ? new TextEncoder().encode(opts.raw.text)
+      : opts.body === undefined ? undefined : multipart ? (opts.body as FormData) : typeof opts.body === 'string' ? opts.body : JSON.stringify(opts.body),
   });
   const res = await handler(req, { params: Promise.resolve(opts.params ?? {}) });
   const text = await res.text();
@@ -119,8 +136,12 @@ export async function callRoute(
 }
 
 /** Runs a server action as the given caller (session cookie, as a browser would send). */
-export async function asCaller<T>(caller: Caller, fn: () => Promise<T>): Promise<T> {
+export async function asCaller<T>(caller: Caller, fn: () => Promise<T>, extra: Record<string, string | null> = {}): Promise<T> {
   requestState.headers = authHeaders(caller, true);
+  for (const [k, v] of Object.entries(extra)) {
+    if (v === null) requestState.headers.delete(k);
+    else requestState.headers.set(k, v);
+  }
   requestState.setCookies = [];
   try {
     return await fn();

@@ -1,0 +1,31 @@
+/**
+ * Per-request Content Security Policy for pages: a fresh nonce in the request's CSP header, from
+ * which Next.js takes the nonce for its own script and style tags, and the same policy on the
+ * response. This is not authorisation: every layout, page, action and handler checks for itself.
+ */
+import { NextResponse, type NextRequest } from 'next/server';
+import { contentSecurityPolicy, newNonce } from '@/lib/csp';
+
+export function proxy(request: NextRequest) {
+  const nonce = newNonce();
+  const policy = contentSecurityPolicy({ nonce, development: process.env.NODE_ENV === 'development' });
+  const requestHeaders = new Headers(request.headers);
+  requestHeaders.set('x-nonce', nonce);
+  requestHeaders.set('content-security-policy', policy);
+  const response = NextResponse.next({ request: { headers: requestHeaders } });
+  response.headers.set('content-security-policy', policy);
+  return response;
+}
+
+export const config = {
+  matcher: [
+    {
+      // Pages only: the API and static files get the fixed policy from next.config.mjs.
+      source: '/((?!api/|_next/static|_next/image|favicon.ico).*)',
+      missing: [
+        { type: 'header', key: 'next-router-prefetch' },
+        { type: 'header', key: 'purpose', value: 'prefetch' },
+      ],
+    },
+  ],
+};
