@@ -10,17 +10,53 @@
 import fs from 'node:fs';
 import path from 'node:path';
 import zlib from 'node:zlib';
+import os from 'node:os';
 import { randomUUID } from 'node:crypto';
 import autocannon from 'autocannon';
 
 interface Setup { attributeIds: string[]; values: Record<string, number[]>; seats: Array<{ token: string; codes: string[] }> }
-interface LoadResult { requests: number; seconds: number; rps: number; p95Ms: number; non2xx: number; errors: number }
+interface LoadResult { requests: number; seconds: number; rps: number; p95Ms: number; non2xx: number; errors: number; cpu: CpuUse }
+/** Cores kept busy during a run (CPU seconds per wall second), by who used them. */
+interface CpuUse { appA: number; appB: number; postgres: number; generator: number; machine: number }
 
 const [seatsFile, urlA, urlB] = process.argv.slice(2);
 const setup = JSON.parse(fs.readFileSync(seatsFile, 'utf8')) as Setup;
 const CONNECTIONS = Number(process.env.BENCH_CONNECTIONS ?? 100);
 const SECONDS = Number(process.env.BENCH_SECONDS ?? 10);
 const WARMUP_SECONDS = 3;
+
+// Where the CPU goes: the two servers are process groups (bench.sh starts each with setsid and
+// passes their ids), PostgreSQL is the postmaster and its children, the generator is this process.
+const APP_GROUPS = (process.env.BENCH_APP_PGIDS ?? '').split(',').filter(Boolean).map(Number);
+const POSTMASTER = Number(fs.existsSync(process.env.BENCH_PG_PID_FILE ?? '') ? fs.readFileSync(process.env.BENCH_PG_PID_FILE!, 'utf8').split('\n')[0] : NaN);
+const TICKS_PER_SECOND = 100; // USER_HZ on Linux (getconf CLK_TCK)
+
+interface CpuTicks { appA: number; appB: number; postgres: number; generator: number; machine: number }
+
+function cpuTicks(): CpuTicks {
+  const out: CpuTicks = { appA: 0, appB: 0, postgres: 0, generator: 0, machine: 0 };
+  for (const entry of fs.readdirSync('/proc')) {
+    if (!/^\d+$/.test(entry)) continue;
+    let stat: string;
+    try { stat = fs.readFileSync(`/proc/${entry}/stat`, 'utf8'); } catch { continue; } // gone meanwhile
+    // Fields after "(comm)": state ppid pgrp … utime(14) stime(15), counted from 1 over the whole line.
+    const f = stat.slice(stat.lastIndexOf(')') + 2).split(' ');
+    const pid = Number(entry), ppid = Number(f[1]), pgrp = Number(f[2]);
+    const ticks = Number(f[11]) + Number(f[12]);
+    if (pgrp === APP_GROUPS[0]) out.appA += ticks;
+    else if (pgrp === APP_GROUPS[1]) out.appB += ticks;
+    else if (pid === POSTMASTER || ppid === POSTMASTER) out.postgres += ticks;
+    else if (pid === process.pid) out.generator += ticks;
+  }
+  const cpu = fs.readFileSync('/proc/stat', 'utf8').split('\n')[0].trim().split(/\s+/).slice(1).map(Number);
+  out.machine = cpu.slice(0, 8).reduce((a, b) => a + b, 0) - cpu[3] - cpu[4]; // all but idle and iowait
+  return out;
+}
+
+function cpuUse(before: CpuTicks, after: CpuTicks, seconds: number): CpuUse {
+  const cores = (k: keyof CpuTicks) => (after[k] - before[k]) / TICKS_PER_SECOND / seconds;
+  return { appA: cores('appA'), appB: cores('appB'), postgres: cores('postgres'), generator: cores('generator'), machine: cores('machine') };
+}
 
 let counter = 0;
 function tasterRequest(seats: Setup['seats']) {
@@ -56,6 +92,9 @@ async function load(kind: 'taster' | 'floor', urls: string[], seconds: number): 
   let errors = 0;
   let requests = 0;
   const perUrl = Math.floor(CONNECTIONS / urls.length);
+  // Backends that exit during the run drop out of the sum; with the pools kept open there are none.
+  const ticksBefore = cpuTicks();
+  const startedAt = process.hrtime.bigint();
   const runs = urls.map((url, i) => {
     const seats = setup.seats.slice(i * perUrl, (i + 1) * perUrl);
     const setupRequest = kind === 'taster' ? tasterRequest(seats) : floorRequest(seats);
@@ -73,12 +112,18 @@ async function load(kind: 'taster' | 'floor', urls: string[], seconds: number): 
     });
   });
   await Promise.all(runs);
+  const cpu = cpuUse(ticksBefore, cpuTicks(), Number(process.hrtime.bigint() - startedAt) / 1e9);
   latencies.sort((a, b) => a - b);
-  return { requests, seconds, rps: requests / seconds, p95Ms: percentile(latencies, 95), non2xx, errors };
+  return { requests, seconds, rps: requests / seconds, p95Ms: percentile(latencies, 95), non2xx, errors, cpu };
 }
 
 function merge(a: LoadResult, b: LoadResult): LoadResult {
-  return { requests: a.requests + b.requests, seconds: a.seconds + b.seconds, rps: (a.requests + b.requests) / (a.seconds + b.seconds), p95Ms: (a.p95Ms + b.p95Ms) / 2, non2xx: a.non2xx + b.non2xx, errors: a.errors + b.errors };
+  const mean = (k: keyof CpuUse) => (a.cpu[k] + b.cpu[k]) / 2;
+  return {
+    requests: a.requests + b.requests, seconds: a.seconds + b.seconds, rps: (a.requests + b.requests) / (a.seconds + b.seconds),
+    p95Ms: (a.p95Ms + b.p95Ms) / 2, non2xx: a.non2xx + b.non2xx, errors: a.errors + b.errors,
+    cpu: { appA: mean('appA'), appB: mean('appB'), postgres: mean('postgres'), generator: mean('generator'), machine: mean('machine') },
+  };
 }
 
 /** Every script the page's HTML loads, fetched and gzip-compressed (default level), summed. */
@@ -126,6 +171,13 @@ async function main() {
   line('submission.p95_ratio', taster.p95Ms / floor.p95Ms, '<= 1.5');
   line('scaleout.two_processes_req_per_s', two.rps, '(reference)', 0);
   line('scaleout.throughput_ratio', two.rps / taster.rps, '> 1.0 (well above)');
+  // Why the scale-out ratio is what it is: which processes kept the cores busy in each run.
+  for (const [label, run] of [['one_process', taster], ['two_processes', two]] as const) {
+    line(`cpu.${label}.app_cores`, run.cpu.appA + run.cpu.appB, '(reference)');
+    line(`cpu.${label}.postgres_cores`, run.cpu.postgres, '(reference)');
+    line(`cpu.${label}.load_generator_cores`, run.cpu.generator, '(reference)');
+    line(`cpu.${label}.machine_busy_cores`, run.cpu.machine, `(of ${os.cpus().length})`);
+  }
   const failures = floor.non2xx + floor.errors + taster.non2xx + taster.errors + two.non2xx + two.errors;
   line('load.non_2xx_or_errors', failures, '0', 0);
 

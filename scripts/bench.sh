@@ -42,7 +42,8 @@ wait_for_port 127.0.0.1 "$APP_A" 60
 wait_for_port 127.0.0.1 "$APP_B" 60
 log "load: $(nproc) cores, load average $(cut -d' ' -f1-3 /proc/loadavg) before the run"
 log "load: 100 connections, floor and taster alternating (2 × 10 s each), then two processes; then the phone page's JS"
-node --import tsx scripts/bench-load.ts "$SETWELL_HOME/seats.json" "http://127.0.0.1:$APP_A" "http://127.0.0.1:$APP_B"
+BENCH_APP_PGIDS="$(IFS=,; echo "${PIDS[*]}")" BENCH_PG_PID_FILE="$SETWELL_PG_DATA/postmaster.pid" \
+  node --import tsx scripts/bench-load.ts "$SETWELL_HOME/seats.json" "http://127.0.0.1:$APP_A" "http://127.0.0.1:$APP_B"
 node -e '
   const fs = require("fs");
   const stats = JSON.parse(fs.readFileSync("bench-results/stats.json", "utf8"));

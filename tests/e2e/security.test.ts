@@ -107,7 +107,8 @@ describe('Content Security Policy', () => {
     await page.getByTestId('products').getByRole('link', { name: 'Blackcurrant jam' }).first().click();
     await expect.poll(() => page.getByTestId('trend-chart').locator('canvas').count()).toBeGreaterThan(0);
     await page.goto('/production');
-    await page.getByTestId('products').getByRole('link', { name: 'Batch sheet' }).first().click();
+    await page.getByTestId('products').locator('li', { hasText: 'Blackcurrant jam' }).getByRole('link', { name: /^v\d+$/ }).click();
+    await page.getByRole('link', { name: 'Batch sheet' }).click();
     await page.getByTestId('sheet-ingredients').waitFor();
 
     expect(violations).toEqual([]);
