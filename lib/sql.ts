@@ -18,8 +18,13 @@ function pool(): Pool {
   return cache.setwellSqlPool;
 }
 
-export async function sql<T extends QueryResultRow>(text: string, values: unknown[]): Promise<T[]> {
-  return (await pool().query<T>(text, values)).rows;
+/**
+ * Runs one statement. A `name` makes it a prepared statement: each pooled connection parses and
+ * plans it once and reuses the plan, which matters on the hot path. A connection opened after a
+ * PostgreSQL restart simply prepares it again.
+ */
+export async function sql<T extends QueryResultRow>(text: string, values: unknown[], name?: string): Promise<T[]> {
+  return (await pool().query<T>(name ? { name, text, values } : { text, values })).rows;
 }
 
 export async function closeSqlPool(): Promise<void> {

@@ -106,6 +106,7 @@ async function answerContext(token: string): Promise<AnswerContext> {
        from panel_seats st join panel_sessions s on s.id = st.session_id
       where st.token_hash = $1`,
     [hashSecret(token)],
+    'setwell_answer_context',
   );
   const r = rows[0];
   if (!r || r.state === 'draft') throw notFound('tasting');
@@ -153,6 +154,7 @@ export async function recordAnswer(token: string, input: AnswerInput): Promise<{
        and exists (select 1 from panel_sessions s where s.id = panel_answers.session_id and s.state = 'open')
      returning (xmax = 0) as inserted`,
     [seat.workspace.id, seat.session.id, seat.id, row.kind, row.item, row.attribute, row.sampleId, row.value, row.ranking ? JSON.stringify(row.ranking) : null, row.oddCode, row.correct, row.confidence, row.comment, input.idempotencyKey],
+    'setwell_store_answer',
   );
   // No row back: the same idempotency key was already stored (a retry), or the session closed meanwhile.
   if (result.length === 0) {
