@@ -4,13 +4,13 @@
 # for every acknowledged answer, stored exactly once (scripts/soak.ts does the work and the checks).
 #
 # Its own throw-away cluster (durable, like production) and app server, by default in
-# /var/tmp/setwell-soak, PostgreSQL on 54359 and the app on 3210; override with SETWELL_SOAK_HOME,
+# /var/tmp/setwell-soak, PostgreSQL on 54359 and two app processes on 3210 and 3211; override with SETWELL_SOAK_HOME,
 # SETWELL_SOAK_PG_PORT, SETWELL_SOAK_APP_PORT. The build in .next is reused unless it is missing,
 # older than a source file, or --rebuild is given.
 #
 # scripts/test.sh runs the short version after its other steps with SETWELL_SOAK_REUSE_CLUSTER=1:
 # then the already running test cluster (no other step uses it at that point) gets a fresh
-# setwell_soak database, the app takes the test app port, and the cluster is left running.
+# setwell_soak database, the apps take the test app port and the next one, and the cluster is left running.
 source "$(dirname "$0")/lib.sh"
 
 soak_args=()
@@ -48,10 +48,11 @@ export SETWELL_PG_BIN="$(pg_bindir)"
 SOAK_LOGS="$SETWELL_HOME/soak"
 mkdir -p "$SOAK_LOGS"
 
+SOAK_APP_PIDS=()
 cleanup() {
   set +e
   # next start forks a worker; both are in the process group setsid created.
-  if [ -n "${SOAK_APP_PID:-}" ]; then kill -- "-$SOAK_APP_PID" 2>/dev/null; wait "$SOAK_APP_PID" 2>/dev/null; fi
+  for pid in "${SOAK_APP_PIDS[@]}"; do kill -- "-$pid" 2>/dev/null; wait "$pid" 2>/dev/null; done
   [ "$own_cluster" = 1 ] && pg_cluster_stop "$SETWELL_PG_DATA"
 }
 trap cleanup EXIT
@@ -79,11 +80,20 @@ else
   log "soak: reusing the build in .next (pass --rebuild to build again)"
 fi
 
-# The app logs at info so the soak can check what a failure logs.
+# Two app processes on PORT and PORT+1 against the one database, as behind a load balancer; they
+# share NEXTAUTH_SECRET and APP_URL as the README asks. The app logs at info so the soak can check
+# what a failure logs.
 export NEXTAUTH_SECRET="$(head -c 48 /dev/urandom | base64 | tr -d '\n')"
-NODE_ENV=production LOG_LEVEL=info setsid node node_modules/next/dist/bin/next start -p "$PORT" -H 127.0.0.1 >"$SOAK_LOGS/app.log" 2>&1 &
-SOAK_APP_PID=$!
+app_urls=()
+app_logs=()
+for port in "$PORT" "$((PORT + 1))"; do
+  NODE_ENV=production LOG_LEVEL=info setsid node node_modules/next/dist/bin/next start -p "$port" -H 127.0.0.1 >"$SOAK_LOGS/app-$port.log" 2>&1 &
+  SOAK_APP_PIDS+=($!)
+  app_urls+=("http://127.0.0.1:$port")
+  app_logs+=("$SOAK_LOGS/app-$port.log")
+done
 wait_for_port 127.0.0.1 "$PORT" 60
+wait_for_port 127.0.0.1 "$((PORT + 1))" 60
 
-SOAK_APP_URL="http://127.0.0.1:$PORT" SOAK_APP_LOG="$SOAK_LOGS/app.log" NODE_ENV=production \
+SOAK_APP_URLS="$(IFS=,; echo "${app_urls[*]}")" SOAK_APP_LOGS="$(IFS=,; echo "${app_logs[*]}")" NODE_ENV=production \
   node --import tsx scripts/soak.ts "${soak_args[@]}"

@@ -6,6 +6,9 @@
  *    consents, answers every sample × attribute with random pauses (PUT …/answers with an
  *    idempotency key), then submits. 10 % of answers are sent twice with the same key, half as a
  *    double tap (both at once) and half as a resend after the first reply.
+ *    Two app processes serve the one database, as behind a load balancer: tasters are spread over
+ *    them, and every second copy and every retry goes to the other process, so a process that
+ *    kept anything of its own would show here as a duplicate or a refusal.
  * 3. PostgreSQL is restarted once (pg_ctl restart -m fast) while requests are in flight. Clients
  *    retry a 5xx, a connection error or a timeout with backoff, as the phone's queue does; an
  *    answer counts as acknowledged only on a 2xx.
@@ -40,10 +43,10 @@ const RESTART_AT = 0.4;
 const MAX_ATTEMPTS = 12;
 const REQUEST_TIMEOUT_MS = 15_000;
 
-const APP = process.env.SOAK_APP_URL!;
+const APPS = process.env.SOAK_APP_URLS!.split(',');
 const PG_DATA = process.env.SETWELL_PG_DATA!;
 const PG_BIN = process.env.SETWELL_PG_BIN!;
-const APP_LOG = process.env.SOAK_APP_LOG;
+const APP_LOGS = (process.env.SOAK_APP_LOGS ?? '').split(',').filter(Boolean);
 
 const sleep = (ms: number) => new Promise((r) => setTimeout(r, ms));
 const pause = () => sleep(randomInt(PLAN.pauseMs[0], PLAN.pauseMs[1]));
@@ -107,6 +110,8 @@ const counts = {
   refused: 0,
   gaveUp: 0,
 };
+/** Requests each app process answered (any status), to show both took their share. */
+const answeredBy = APPS.map(() => 0);
 /** Per kind of failure: how many, and when (ms after the load began) the first and last came. */
 const failureKinds = new Map<string, { n: number; first: number; last: number }>();
 const answerLatencies: number[] = [];
@@ -130,22 +135,25 @@ function noteFailure(kind: string) {
 /**
  * One request with the phone's retry policy: 5xx, connection errors and timeouts are retried
  * with exponential backoff and jitter; anything else below 500 that is not 2xx is refused.
+ * The first attempt goes to app process `home`; each retry moves on to the next process.
  */
-async function call<T>(method: 'GET' | 'POST' | 'PUT', url: string, body?: unknown): Promise<T> {
+async function call<T>(home: number, method: 'GET' | 'POST' | 'PUT', url: string, body?: unknown): Promise<T> {
   for (let attempt = 1; ; attempt++) {
     if (attempt > 1) counts.retries++;
     counts.requestsSent++;
     inFlight++;
     let kind: string;
     const sentAt = Date.now();
+    const app = (home + attempt - 1) % APPS.length;
     try {
-      const res = await fetch(`${APP}${url}`, {
+      const res = await fetch(`${APPS[app]}${url}`, {
         method,
         headers: body === undefined ? {} : { 'content-type': 'application/json' },
         body: body === undefined ? undefined : JSON.stringify(body),
         signal: AbortSignal.timeout(REQUEST_TIMEOUT_MS),
       });
       const text = await res.text();
+      answeredBy[app]++;
       if (res.ok) {
         if (method === 'PUT') answerLatencies.push(Date.now() - sentAt);
         return JSON.parse(text) as T;
@@ -180,27 +188,28 @@ function randomValueOn(scale: TasterView['attributes'][number]['scale']): number
   return Number((scale.min + randomInt(steps + 1) * scale.step).toFixed(6));
 }
 
-async function taster(seat: { token: string; seatId: string }, doubled: Set<number>, firstIndex: number): Promise<void> {
+async function taster(seat: { token: string; seatId: string }, home: number, doubled: Set<number>, firstIndex: number): Promise<void> {
   const base = `/api/v1/tasting/${seat.token}`;
+  const other = home + 1;
   await pause();
-  const view = await call<TasterView>('GET', base);
-  await call('POST', `${base}/consent`);
+  const view = await call<TasterView>(home, 'GET', base);
+  await call(other, 'POST', `${base}/consent`);
   let index = firstIndex;
   for (const sample of view.samples) {
     for (const attribute of view.attributes) {
       await pause();
       const answer = { idempotencyKey: randomUUID(), code: sample.code, attributeId: attribute.id, value: randomValueOn(attribute.scale) };
       allKeys.push(answer.idempotencyKey);
-      const send = () => call<{ stored: boolean }>('PUT', `${base}/answers`, answer);
+      const send = (app: number) => call<{ stored: boolean }>(app, 'PUT', `${base}/answers`, answer);
       const twice = doubled.has(index++);
       if (twice) counts.duplicatesSent++;
       if (twice && index % 2 === 0) {
-        await Promise.all([send(), send()]); // a double tap
+        await Promise.all([send(home), send(other)]); // a double tap, one copy to each process
       } else {
-        await send();
+        await send(home);
         if (twice) {
           await sleep(randomInt(20, 300));
-          await send(); // the reply was lost, so the phone sends it again
+          await send(other); // the reply was lost, so the phone sends it again, reaching the other process
         }
       }
       counts.acknowledgedRequests += twice ? 2 : 1;
@@ -209,7 +218,7 @@ async function taster(seat: { token: string; seatId: string }, doubled: Set<numb
     }
   }
   await pause();
-  await call('POST', `${base}/submit`);
+  await call(other, 'POST', `${base}/submit`);
 }
 
 const execFileAsync = promisify(execFile);
@@ -228,10 +237,10 @@ async function restartPostgresWhenDue(total: number, stop: () => boolean): Promi
   restart.endedAt = Date.now();
   restart.tookMs = restart.endedAt - restart.startedAt;
   restart.done = true;
-  // The load balancer's view: how soon /api/health says ok again.
+  // The load balancer's view: how soon /api/health says ok again on every process.
   for (let i = 0; i < 300; i++) {
-    const ok = await fetch(`${APP}/api/health`, { signal: AbortSignal.timeout(5000) }).then((r) => r.ok, () => false);
-    if (ok) {
+    const healthy = await Promise.all(APPS.map((app) => fetch(`${app}/api/health`, { signal: AbortSignal.timeout(5000) }).then((r) => r.ok, () => false)));
+    if (healthy.every(Boolean)) {
       restart.healthyAfterMs = Date.now() - restart.startedAt;
       return;
     }
@@ -268,9 +277,9 @@ async function checkDatabase(sessionId: string) {
   }
 }
 
-function scanAppLog(seats: Array<{ token: string }>) {
-  if (!APP_LOG || !fs.existsSync(APP_LOG)) return { lines: 0, errors: 0, leaks: ['the app log is missing'] };
-  const text = fs.readFileSync(APP_LOG, 'utf8');
+function scanAppLogs(seats: Array<{ token: string }>) {
+  if (APP_LOGS.length !== APPS.length || !APP_LOGS.every((f) => fs.existsSync(f))) return { lines: 0, errors: 0, missing: true, leaks: [] as string[] };
+  const text = APP_LOGS.map((f) => fs.readFileSync(f, 'utf8')).join('\n');
   const lines = text.split('\n').filter(Boolean);
   const errors = lines.filter((l) => l.includes('"level":50')).length;
   const leaks: string[] = [];
@@ -279,7 +288,7 @@ function scanAppLog(seats: Array<{ token: string }>) {
     if (text.includes(hashSecret(s.token))) leaks.push('a seat token hash');
   }
   if (allKeys.some((k) => text.includes(k))) leaks.push('an idempotency key (so the answer with it)');
-  return { lines: lines.length, errors, leaks: [...new Set(leaks)] };
+  return { lines: lines.length, errors, missing: false, leaks: [...new Set(leaks)] };
 }
 
 async function main() {
@@ -290,20 +299,20 @@ async function main() {
   const total = PLAN.tasters * perTaster;
   const pick = new Set<number>();
   while (pick.size < Math.round(total * DUPLICATE_SHARE)) pick.add(randomInt(total));
-  console.log(`soak: ${PLAN.tasters} tasters × ${PLAN.samples} samples × ${PLAN.attributes} attributes = ${total} answers${SHORT ? ' (short)' : ''}`);
+  console.log(`soak: ${PLAN.tasters} tasters × ${PLAN.samples} samples × ${PLAN.attributes} attributes = ${total} answers${SHORT ? ' (short)' : ''}, over ${APPS.length} app processes`);
 
   let finished = false;
   const load = Date.now();
   loadStartedAt = load;
   const restarter = restartPostgresWhenDue(total, () => finished);
-  const results = await Promise.allSettled(seats.map((s, i) => taster(s, pick, i * perTaster)));
+  const results = await Promise.allSettled(seats.map((s, i) => taster(s, i % APPS.length, pick, i * perTaster)));
   finished = true;
   await restarter;
   const loadSeconds = (Date.now() - load) / 1000;
   const problems = results.flatMap((r) => (r.status === 'rejected' ? [String((r.reason as Error).message)] : []));
 
   const db = await checkDatabase(sessionId);
-  const logScan = scanAppLog(seats);
+  const logScan = scanAppLogs(seats);
   const kinds = [...failureKinds].map(([k, f]) => `${k} ×${f.n}`).join(', ') || 'none';
   const when = [...failureKinds].map(([k, f]) => `${k} from +${(f.first / 1000).toFixed(1)} s to +${(f.last / 1000).toFixed(1)} s`).join(', ');
   const sorted = [...answerLatencies].sort((x, y) => x - y);
@@ -324,7 +333,8 @@ async function main() {
     `soak: timeline: ${restart.startedAt ? `restart began at +${((restart.startedAt - load) / 1000).toFixed(1)} s` : 'no restart'}${when ? `; failures: ${when}` : ''}; ` +
       `answer replies (2xx) took median ${pct(0.5)} ms, 95th percentile ${pct(0.95)} ms, longest ${sorted.at(-1) ?? 0} ms`,
   );
-  console.log(`soak: app log ${logScan.lines} lines, ${logScan.errors} errors logged; ${logScan.leaks.length ? `LEAKED: ${logScan.leaks.join(', ')}` : 'no seat token, token hash or idempotency key in it'}`);
+  console.log(`soak: replies per app process ${answeredBy.join(' / ')}`);
+  console.log(`soak: app logs ${logScan.lines} lines, ${logScan.errors} errors logged; ${logScan.leaks.length ? `LEAKED: ${logScan.leaks.join(', ')}` : 'no seat token, token hash or idempotency key in it'}`);
   console.log(`soak: load ran ${loadSeconds.toFixed(1)} s, whole soak ${((Date.now() - started) / 1000).toFixed(1)} s`);
 
   const failed = [
@@ -339,7 +349,9 @@ async function main() {
     ...(db.submitted !== PLAN.tasters ? [`${PLAN.tasters - db.submitted} seats are not submitted`] : []),
     ...(!restart.done ? ['the restart did not happen under load'] : []),
     ...(restart.done && restart.healthyAfterMs < 0 ? ['the app never reported healthy after the restart'] : []),
+    ...(logScan.missing ? ['an app log is missing, so it could not be checked for leaks'] : []),
     ...logScan.leaks.map((l) => `the app log holds ${l}`),
+    ...answeredBy.flatMap((n, i) => (n === 0 ? [`app process ${i + 1} answered nothing`] : [])),
   ];
   if (failed.length) {
     console.log(`soak: FAIL\n  - ${failed.join('\n  - ')}`);
