@@ -9,7 +9,7 @@ import { useCallback, useEffect, useId, useRef, useState, useSyncExternalStore, 
 import { Extension } from '@tiptap/core';
 import { EditorContent, useEditor, useEditorState, type Editor } from '@tiptap/react';
 import { resolveNotebookConflictAction, saveNotebookAction } from '@/lib/notebook/actions';
-import { isAllowedLinkHref, type NotebookConflictView, type TiptapDoc } from '@/lib/notebook/schema';
+import { isAllowedLinkHref, sanitizeDoc, type NotebookConflictView, type TiptapDoc } from '@/lib/notebook/schema';
 import { AUTOSAVE_DELAY_MS, clockTime, hasUnsavedWork, normaliseLinkInput, retryDelayMs, saveStateLabel, type SaveState } from '@/lib/notebook/autosave';
 import { ConfirmDialog } from '@/components/ui/ConfirmDialog';
 import { notebookExtensions } from './extensions';
@@ -97,7 +97,8 @@ function EditableNotebook({ trialId, variantId, initial, title }: Omit<NotebookE
   ]);
   const editor = useEditor({
     extensions,
-    content: initial.doc,
+    // Cleaned like the read-only view: a stored row from before a limit existed cannot hang the browser.
+    content: sanitizeDoc(initial.doc),
     editable: initial.conflicts.length === 0,
     immediatelyRender: false,
     // The Content-Security-Policy refuses <style> tags without a nonce; Tiptap's core rules are in app/globals.css.
@@ -242,7 +243,7 @@ function EditableNotebook({ trialId, variantId, initial, title }: Omit<NotebookE
         return;
       }
       const entry = result.data.entry;
-      editor.commands.setContent(entry.doc, { emitUpdate: false });
+      editor.commands.setContent(sanitizeDoc(entry.doc), { emitUpdate: false });
       versionRef.current = entry.version;
       dirtyRef.current = false;
       setCurrent({ doc: entry.doc, updatedAt: entry.updatedAt, updatedByName: entry.updatedByName });

@@ -7,7 +7,7 @@
 import type { ReactNode } from 'react';
 import { renderToReactElement } from '@tiptap/static-renderer/pm/react';
 import { notebookExtensions } from './extensions';
-import { sanitizeDoc, type TiptapDoc } from '@/lib/notebook/schema';
+import { linkPresentation, sanitizeDoc, type TiptapDoc } from '@/lib/notebook/schema';
 
 /** Our own prose styles, applied to the plain elements the renderer produces. */
 export const NOTEBOOK_PROSE_CLASS = [
@@ -64,9 +64,8 @@ export function renderNotebookDoc(doc: unknown): ReactNode {
       markMapping: {
         link: ({ mark, children }: { mark: RenderedNode; children?: ReactNode }) => {
           const href = String(mark.attrs.href);
-          const external = !href.startsWith('/');
           return (
-            <a href={href} {...(external ? { target: '_blank', rel: 'noopener noreferrer nofollow' } : {})}>
+            <a href={href} {...linkPresentation(href)}>
               {children}
             </a>
           );

@@ -5,11 +5,39 @@
  */
 import { z } from 'zod';
 
+/**
+ * Every number and size that drives rendering has a ceiling (project limits with room for a lab
+ * notebook; no published source). A stored document within them renders on the server and in the
+ * editor in well under a second (`npm run bench`, notebook.* lines); the test building the largest
+ * accepted document is tests/unit/notebook/bounds.test.tsx.
+ */
 export const NOTEBOOK_LIMITS = {
   /** Nesting levels of nodes, the doc itself counting as 1. */
   maxDepth: 30,
   /** Size of the document as UTF-8 JSON, in bytes (200 kB). */
   maxDocBytes: 200_000,
+  /** Nodes of every kind (text runs, paragraphs, cells …), the doc included. */
+  maxNodes: 5_000,
+  /** Characters in one text run. */
+  maxTextChars: 50_000,
+  /** Photos in one entry. */
+  maxImages: 100,
+  /** Rows of one table. */
+  maxTableRows: 200,
+  /** Columns of one table: the colspans of any row add up to at most this; one cell spans at most this many. */
+  maxTableColumns: 30,
+  /** A cell spans at most this many rows (a whole table). */
+  maxRowspan: 200,
+  /** One column's width, and a photo's width or height, in CSS pixels. */
+  maxLengthPx: 10_000,
+  /** An ordered list starts at 1 … this. */
+  maxListStart: 100_000,
+  /** Characters in a short attribute (alt text, titles, a code block's language, link rel/target). */
+  maxAttrChars: 1_000,
+  /** Characters in a link address. */
+  maxHrefChars: 2_000,
+  /** The highest stored version: the column is a PostgreSQL integer. */
+  maxVersion: 2_147_483_647,
   headingLevels: [1, 2, 3] as readonly number[],
 } as const;
 
@@ -59,41 +87,66 @@ export const NOTEBOOK_NODE_TYPES = Object.keys(CHILDREN);
 export const NOTEBOOK_MARK_TYPES = ['bold', 'italic', 'underline', 'strike', 'code', 'link'] as const;
 
 type AttrCheck = (value: unknown) => string | null;
-const nullableString: AttrCheck = (v) => (v === null || typeof v === 'string' ? null : 'must be text');
-const nullablePositiveInt: AttrCheck = (v) => (v === null || (Number.isInteger(v) && (v as number) > 0) ? null : 'must be a whole number above 0');
-const positiveInt: AttrCheck = (v) => (Number.isInteger(v) && (v as number) > 0 ? null : 'must be a whole number above 0');
+const L = NOTEBOOK_LIMITS;
+const isWhole = (v: unknown, min: number, max: number): boolean => Number.isInteger(v) && (v as number) >= min && (v as number) <= max;
+const wholeInRange =
+  (min: number, max: number): AttrCheck =>
+  (v) =>
+    isWhole(v, min, max) ? null : `must be a whole number from ${min} to ${max}`;
+const nullable =
+  (check: AttrCheck): AttrCheck =>
+  (v) =>
+    v === null ? null : check(v);
+const shortText =
+  (max: number): AttrCheck =>
+  (v) =>
+    typeof v === 'string' && v.length <= max ? null : `must be text of at most ${max} characters`;
+const oneOf =
+  (values: readonly unknown[], message: string): AttrCheck =>
+  (v) =>
+    values.includes(v) ? null : message;
 
 const TABLE_CELL_ATTRS: Record<string, AttrCheck> = {
-  colspan: positiveInt,
-  rowspan: positiveInt,
-  colwidth: (v) => (v === null || (Array.isArray(v) && v.every((n) => n === null || Number.isFinite(n))) ? null : 'must be a list of widths'),
-  align: (v) => (v === null || v === 'left' || v === 'center' || v === 'right' ? null : 'align must be left, center or right'),
+  colspan: wholeInRange(1, L.maxTableColumns),
+  rowspan: wholeInRange(1, L.maxRowspan),
+  // One width (or null) per spanned column, as the table extension stores them.
+  colwidth: nullable((v) =>
+    Array.isArray(v) && v.length <= L.maxTableColumns && v.every((n) => n === null || isWhole(n, 1, L.maxLengthPx))
+      ? null
+      : `must be a list of at most ${L.maxTableColumns} widths of 1 to ${L.maxLengthPx} pixels`,
+  ),
+  align: nullable(oneOf(['left', 'center', 'right'], 'must be left, center or right')),
 };
 
 /** The attributes each node may carry; any other attribute is refused. */
 const NODE_ATTRS: Record<string, Record<string, AttrCheck>> = {
-  heading: { level: (v) => (NOTEBOOK_LIMITS.headingLevels.includes(v as number) ? null : 'heading level must be 1, 2 or 3') },
-  orderedList: { start: positiveInt, type: nullableString },
-  taskItem: { checked: (v) => (typeof v === 'boolean' ? null : 'checked must be true or false') },
-  codeBlock: { language: nullableString },
+  heading: { level: oneOf(L.headingLevels, 'must be 1, 2 or 3') },
+  // HTML's list numbering types (WHATWG HTML, the ol element's type attribute).
+  orderedList: { start: wholeInRange(1, L.maxListStart), type: nullable(oneOf(['1', 'a', 'A', 'i', 'I'], 'must be 1, a, A, i or I')) },
+  taskItem: { checked: (v) => (typeof v === 'boolean' ? null : 'must be true or false') },
+  codeBlock: { language: nullable((v) => (typeof v === 'string' && /^[A-Za-z0-9_+#.-]{1,40}$/.test(v) ? null : 'must be a short name such as "text"')) },
   tableCell: TABLE_CELL_ATTRS,
   tableHeader: TABLE_CELL_ATTRS,
   image: {
-    src: (v) => (typeof v === 'string' && isOwnUploadSrc(v) ? null : 'images must come from this app’s uploads (/api/v1/uploads/…)'),
-    alt: nullableString,
-    title: nullableString,
-    width: nullablePositiveInt,
-    height: nullablePositiveInt,
+    src: (v) => (typeof v === 'string' && isOwnUploadSrc(v) ? null : 'must be one of this app’s uploads (/api/v1/uploads/…): images from elsewhere are not kept'),
+    alt: nullable(shortText(L.maxAttrChars)),
+    title: nullable(shortText(L.maxAttrChars)),
+    width: nullable(wholeInRange(1, L.maxLengthPx)),
+    height: nullable(wholeInRange(1, L.maxLengthPx)),
   },
 };
 
+/**
+ * A link's target, rel and class are ours (see linkPresentation): accepted as plain text so the
+ * editor's own output passes, and dropped before the document is stored.
+ */
+const LINK_PRESENTATION_ATTRS = ['target', 'rel', 'class'] as const;
+
 const MARK_ATTRS: Record<string, Record<string, AttrCheck>> = {
   link: {
-    href: (v) => (typeof v === 'string' && isAllowedLinkHref(v) ? null : 'links may only use http:, https:, mailto: or a path on this site (/…)'),
-    target: (v) => (v === null || v === '_blank' ? null : 'target may only be _blank'),
-    rel: nullableString,
-    class: (v) => (v === null ? null : 'links carry no class'),
-    title: nullableString,
+    href: (v) => (typeof v === 'string' && isAllowedLinkHref(v) ? null : 'may only use http:, https:, mailto: or a path on this site (/…)'),
+    title: nullable(shortText(L.maxAttrChars)),
+    ...Object.fromEntries(LINK_PRESENTATION_ATTRS.map((name) => [name, nullable(shortText(L.maxAttrChars))])),
   },
 };
 
@@ -112,7 +165,7 @@ export function isOwnUploadSrc(src: string): boolean {
  * browsers read them as another host.
  */
 export function isAllowedLinkHref(href: string): boolean {
-  if (href.length === 0 || href.length > 2000) return false;
+  if (href.length === 0 || href.length > L.maxHrefChars) return false;
   // Control characters and spaces are how "java\tscript:" tricks get past naive checks.
   if (/[\u0000-\u0020\u007f]/.test(href)) return false;
   if (href.startsWith('/')) return !(href.startsWith('//') || href.startsWith('/\\'));
@@ -125,6 +178,15 @@ export function isAllowedLinkHref(href: string): boolean {
   return url.protocol === 'http:' || url.protocol === 'https:' || url.protocol === 'mailto:';
 }
 
+/**
+ * How every link is rendered, whatever the document says: addresses elsewhere open in a new tab
+ * without access to this page (noopener) or our address (noreferrer), and pass on no ranking
+ * (nofollow); same-site paths open in place.
+ */
+export function linkPresentation(href: string): { target?: '_blank'; rel?: 'noopener noreferrer nofollow' } {
+  return href.startsWith('/') ? {} : { target: '_blank', rel: 'noopener noreferrer nofollow' };
+}
+
 export interface DocProblem {
   path: Array<string | number>;
   message: string;
@@ -133,6 +195,20 @@ export interface DocProblem {
 function isRecord(v: unknown): v is Record<string, unknown> {
   return typeof v === 'object' && v !== null && !Array.isArray(v);
 }
+
+/** Own keys only: "constructor", "__proto__" or "valueOf" must never find Object.prototype's. */
+function own<T>(table: Record<string, T> | undefined, key: string): T | undefined {
+  return table && Object.hasOwn(table, key) ? table[key] : undefined;
+}
+
+/** What a walk over a document has seen so far. */
+interface Walk {
+  problems: DocProblem[];
+  nodes: number;
+  images: number;
+}
+
+const MAX_PROBLEMS = 50;
 
 function checkAttrs(
   attrs: unknown,
@@ -151,32 +227,58 @@ function checkAttrs(
     return;
   }
   for (const key of required ?? []) {
-    if (!(key in attrs)) problems.push({ path: [...path, 'attrs', key], message: `${what} needs ${key}.` });
+    if (!Object.hasOwn(attrs, key)) problems.push({ path: [...path, 'attrs', key], message: `${what} needs ${key}.` });
   }
   for (const [key, value] of Object.entries(attrs)) {
-    const check = allowed?.[key];
+    const check = own(allowed, key);
     if (!check) {
-      problems.push({ path: [...path, 'attrs', key], message: `${what} has no attribute "${key}".` });
+      problems.push({ path: [...path, 'attrs', key], message: `${what} has no attribute "${key.slice(0, 40)}".` });
       continue;
     }
     const why = check(value);
-    if (why) problems.push({ path: [...path, 'attrs', key], message: `${what}: ${why}.` });
+    if (why) problems.push({ path: [...path, 'attrs', key], message: `${what} ${key} ${why}.` });
   }
 }
 
-function checkNode(node: unknown, parentType: string | null, depth: number, path: Array<string | number>, problems: DocProblem[]): void {
-  if (problems.length >= 50) return;
-  if (depth > NOTEBOOK_LIMITS.maxDepth) {
-    problems.push({ path, message: `The document is nested more than ${NOTEBOOK_LIMITS.maxDepth} levels deep.` });
+/** A table's rows, and the columns of each row (its cells' colspans added up). */
+function checkTableShape(node: Record<string, unknown>, path: Array<string | number>, problems: DocProblem[]) {
+  const rows = Array.isArray(node.content) ? node.content : [];
+  if (rows.length > L.maxTableRows) {
+    problems.push({ path: [...path, 'content'], message: `A table has at most ${L.maxTableRows} rows; this one has ${rows.length}. Split it or attach it as a CSV file.` });
     return;
   }
+  rows.forEach((row, r) => {
+    const cells = isRecord(row) && Array.isArray(row.content) ? row.content : [];
+    let columns = 0;
+    for (const cell of cells) {
+      const span = isRecord(cell) && isRecord(cell.attrs) ? cell.attrs.colspan : undefined;
+      columns += isWhole(span, 1, L.maxTableColumns) ? (span as number) : 1;
+    }
+    if (columns > L.maxTableColumns) {
+      problems.push({ path: [...path, 'content', r], message: `A table has at most ${L.maxTableColumns} columns; row ${r + 1} has ${columns}. Split it or attach it as a CSV file.` });
+    }
+  });
+}
+
+function checkNode(node: unknown, parentType: string | null, depth: number, path: Array<string | number>, walk: Walk): void {
+  const { problems } = walk;
+  if (problems.length >= MAX_PROBLEMS) return;
+  if (depth > L.maxDepth) {
+    problems.push({ path, message: `The document is nested more than ${L.maxDepth} levels deep.` });
+    return;
+  }
+  walk.nodes += 1;
+  if (walk.nodes === L.maxNodes + 1) {
+    problems.push({ path, message: `An entry holds at most ${L.maxNodes} pieces (paragraphs, cells, text runs …). Split it into several entries.` });
+  }
+  if (walk.nodes > L.maxNodes) return;
   if (!isRecord(node)) {
     problems.push({ path, message: 'Each node must be an object.' });
     return;
   }
   const type = node.type;
-  if (typeof type !== 'string' || !(type in CHILDREN) || (type === 'doc') !== (parentType === null)) {
-    problems.push({ path: [...path, 'type'], message: `"${String(type)}" is not a node the notebook accepts.` });
+  if (typeof type !== 'string' || !own(CHILDREN, type) || (type === 'doc') !== (parentType === null)) {
+    problems.push({ path: [...path, 'type'], message: `"${String(type).slice(0, 40)}" is not a node the notebook accepts.` });
     return;
   }
   if (parentType !== null && !CHILDREN[parentType].includes(type)) {
@@ -184,12 +286,18 @@ function checkNode(node: unknown, parentType: string | null, depth: number, path
     return;
   }
   for (const key of Object.keys(node)) {
-    if (!['type', 'attrs', 'content', 'marks', 'text'].includes(key)) problems.push({ path: [...path, key], message: `Nodes have no "${key}" field.` });
+    if (!['type', 'attrs', 'content', 'marks', 'text'].includes(key)) problems.push({ path: [...path, key], message: `Nodes have no "${key.slice(0, 40)}" field.` });
   }
-  checkAttrs(node.attrs, NODE_ATTRS[type], REQUIRED_ATTRS[type], type, path, problems);
+  checkAttrs(node.attrs, own(NODE_ATTRS, type), own(REQUIRED_ATTRS, type), type, path, problems);
+  if (type === 'image') {
+    walk.images += 1;
+    if (walk.images === L.maxImages + 1) problems.push({ path, message: `An entry holds at most ${L.maxImages} photos. Put the rest in another entry.` });
+  }
+  if (type === 'table') checkTableShape(node, path, problems);
 
   if (type === 'text') {
     if (typeof node.text !== 'string' || node.text.length === 0) problems.push({ path: [...path, 'text'], message: 'A text node needs non-empty text.' });
+    else if (node.text.length > L.maxTextChars) problems.push({ path: [...path, 'text'], message: `One run of text holds at most ${L.maxTextChars} characters; this one has ${node.text.length}.` });
   } else if (node.text !== undefined) {
     problems.push({ path: [...path, 'text'], message: `A ${type} carries no text of its own.` });
   }
@@ -197,17 +305,22 @@ function checkNode(node: unknown, parentType: string | null, depth: number, path
   if (node.marks !== undefined) {
     if (type !== 'text' || !Array.isArray(node.marks)) {
       problems.push({ path: [...path, 'marks'], message: 'Only text carries marks, as a list.' });
+    } else if (node.marks.length > NOTEBOOK_MARK_TYPES.length) {
+      problems.push({ path: [...path, 'marks'], message: `Text carries at most ${NOTEBOOK_MARK_TYPES.length} marks, each once.` });
     } else {
+      const seen = new Set<string>();
       node.marks.forEach((mark, i) => {
         const markPath = [...path, 'marks', i];
         if (!isRecord(mark) || typeof mark.type !== 'string' || !(NOTEBOOK_MARK_TYPES as readonly string[]).includes(mark.type)) {
-          problems.push({ path: [...markPath, 'type'], message: `"${isRecord(mark) ? String(mark.type) : String(mark)}" is not a mark the notebook accepts.` });
+          problems.push({ path: [...markPath, 'type'], message: `"${(isRecord(mark) ? String(mark.type) : String(mark)).slice(0, 40)}" is not a mark the notebook accepts.` });
           return;
         }
+        if (seen.has(mark.type)) problems.push({ path: [...markPath, 'type'], message: `Text carries each mark once; "${mark.type}" is repeated.` });
+        seen.add(mark.type);
         for (const key of Object.keys(mark)) {
-          if (key !== 'type' && key !== 'attrs') problems.push({ path: [...markPath, key], message: `Marks have no "${key}" field.` });
+          if (key !== 'type' && key !== 'attrs') problems.push({ path: [...markPath, key], message: `Marks have no "${key.slice(0, 40)}" field.` });
         }
-        checkAttrs(mark.attrs, MARK_ATTRS[mark.type], REQUIRED_MARK_ATTRS[mark.type], mark.type, markPath, problems);
+        checkAttrs(mark.attrs, own(MARK_ATTRS, mark.type), own(REQUIRED_MARK_ATTRS, mark.type), mark.type, markPath, problems);
       });
     }
   }
@@ -218,26 +331,47 @@ function checkNode(node: unknown, parentType: string | null, depth: number, path
     } else if (node.content.length && CHILDREN[type].length === 0) {
       problems.push({ path: [...path, 'content'], message: `A ${type} holds no content.` });
     } else {
-      node.content.forEach((child, i) => checkNode(child, type, depth + 1, [...path, 'content', i], problems));
+      for (let i = 0; i < node.content.length && walk.nodes <= L.maxNodes && problems.length < MAX_PROBLEMS; i += 1) {
+        checkNode(node.content[i], type, depth + 1, [...path, 'content', i], walk);
+      }
     }
   }
 }
 
 /** Every reason the value is not an acceptable notebook document (empty when it is). */
 export function findDocProblems(value: unknown): DocProblem[] {
-  const problems: DocProblem[] = [];
-  checkNode(value, null, 1, [], problems);
+  const walk: Walk = { problems: [], nodes: 0, images: 0 };
+  checkNode(value, null, 1, [], walk);
+  const { problems } = walk;
   if (problems.length) return problems;
   const bytes = new TextEncoder().encode(JSON.stringify(value)).length;
-  if (bytes > NOTEBOOK_LIMITS.maxDocBytes) {
-    problems.push({ path: [], message: `The entry is ${Math.ceil(bytes / 1000)} kB; the limit is ${NOTEBOOK_LIMITS.maxDocBytes / 1000} kB. Split it or move long tables to a file.` });
+  if (bytes > L.maxDocBytes) {
+    problems.push({ path: [], message: `The entry is ${Math.ceil(bytes / 1000)} kB; the limit is ${L.maxDocBytes / 1000} kB. Split it or move long tables to a file.` });
   }
   return problems;
 }
 
-export const notebookDocSchema = z.unknown().superRefine((value, ctx) => {
-  for (const p of findDocProblems(value)) ctx.addIssue({ code: 'custom', path: p.path, message: p.message });
-}) as unknown as z.ZodType<TiptapDoc, unknown>;
+/** The document as stored: links lose the target, rel and class that rendering sets itself. */
+function withoutLinkPresentation(node: TiptapNode): TiptapNode {
+  const out: TiptapNode = { ...node };
+  if (node.marks) {
+    out.marks = node.marks.map((m) => {
+      if (m.type !== 'link' || !m.attrs) return m;
+      const attrs = Object.fromEntries(Object.entries(m.attrs).filter(([k]) => !(LINK_PRESENTATION_ATTRS as readonly string[]).includes(k)));
+      return { ...m, attrs };
+    });
+  }
+  if (node.content) out.content = node.content.map(withoutLinkPresentation);
+  return out;
+}
+
+/** A notebook document: refused with every problem's path, or accepted as it will be stored. */
+export const notebookDocSchema = z
+  .unknown()
+  .superRefine((value, ctx) => {
+    for (const p of findDocProblems(value)) ctx.addIssue({ code: 'custom', path: p.path, message: p.message });
+  })
+  .transform((value) => withoutLinkPresentation(value as TiptapDoc)) as unknown as z.ZodType<TiptapDoc, unknown>;
 
 /** The body of PUT /api/v1/trials/{trialId}/notebook. */
 export const saveNotebookBodySchema = z
@@ -245,7 +379,11 @@ export const saveNotebookBodySchema = z
     /** Null (or absent) for the trial's own entry. */
     variantId: z.uuid('Unknown variant.').nullable().default(null),
     /** The version the writer started from; an older one than the stored version is kept as a conflict. */
-    baseVersion: z.number({ error: 'baseVersion must be a number.' }).int('baseVersion must be a whole number.').min(0, 'baseVersion cannot be negative.'),
+    baseVersion: z
+      .number({ error: 'baseVersion must be a number.' })
+      .int('baseVersion must be a whole number.')
+      .min(0, 'baseVersion cannot be negative.')
+      .max(L.maxVersion, `baseVersion is at most ${L.maxVersion}.`),
     doc: notebookDocSchema,
   })
   .strict();
@@ -312,32 +450,37 @@ export function mergeKeepingBoth(current: TiptapDoc, parallel: TiptapDoc, parall
 
 /**
  * A copy of a stored document with anything the save check would refuse taken out (unknown
- * nodes and marks, unsafe links and image sources). Read-only views use it so that even a
- * row written before the check existed renders safely.
+ * nodes, marks and attributes, numbers past their limits, unsafe links and image sources).
+ * The read-only views and the editor load through it, so even a row written before a check
+ * existed renders safely and in bounded time; a valid document comes out as it went in.
  */
 export function sanitizeDoc(doc: unknown): TiptapDoc {
+  const cleanAttrs = (attrs: unknown, allowed: Record<string, AttrCheck> | undefined): Record<string, unknown> | undefined => {
+    if (!isRecord(attrs) || !allowed) return undefined;
+    const kept = Object.entries(attrs).filter(([k, v]) => own(allowed, k)?.(v) === null);
+    return kept.length ? Object.fromEntries(kept) : undefined;
+  };
   const clean = (node: unknown, parentType: string | null, depth: number): TiptapNode | null => {
-    if (!isRecord(node) || typeof node.type !== 'string' || !(node.type in CHILDREN) || depth > NOTEBOOK_LIMITS.maxDepth) return null;
+    if (!isRecord(node) || typeof node.type !== 'string' || !own(CHILDREN, node.type) || depth > L.maxDepth) return null;
     const type = node.type;
     if (parentType === null ? type !== 'doc' : !CHILDREN[parentType].includes(type)) return null;
     if (type === 'image' && !(isRecord(node.attrs) && typeof node.attrs.src === 'string' && isOwnUploadSrc(node.attrs.src))) return null;
     const out: TiptapNode = { type };
-    if (isRecord(node.attrs)) {
-      const allowed = NODE_ATTRS[type] ?? {};
-      const attrs = Object.fromEntries(Object.entries(node.attrs).filter(([k, v]) => allowed[k] && allowed[k](v) === null));
-      if (Object.keys(attrs).length) out.attrs = attrs;
-    }
+    const attrs = cleanAttrs(node.attrs, own(NODE_ATTRS, type));
+    if (attrs) out.attrs = attrs;
     if (type === 'heading' && !out.attrs?.level) out.attrs = { ...out.attrs, level: 2 };
     if (type === 'taskItem' && typeof out.attrs?.checked !== 'boolean') out.attrs = { ...out.attrs, checked: false };
     if (type === 'text') {
       if (typeof node.text !== 'string' || !node.text) return null;
       out.text = node.text;
       if (Array.isArray(node.marks)) {
+        const seen = new Set<string>();
         const marks = node.marks.flatMap((m): TiptapMark[] => {
-          if (!isRecord(m) || typeof m.type !== 'string' || !(NOTEBOOK_MARK_TYPES as readonly string[]).includes(m.type)) return [];
+          if (!isRecord(m) || typeof m.type !== 'string' || !(NOTEBOOK_MARK_TYPES as readonly string[]).includes(m.type) || seen.has(m.type)) return [];
+          seen.add(m.type);
           if (m.type !== 'link') return [{ type: m.type }];
-          const href = isRecord(m.attrs) ? m.attrs.href : undefined;
-          return typeof href === 'string' && isAllowedLinkHref(href) ? [{ type: 'link', attrs: { href } }] : [];
+          const linkAttrs = cleanAttrs(m.attrs, { href: MARK_ATTRS.link.href, title: MARK_ATTRS.link.title });
+          return linkAttrs?.href ? [{ type: 'link', attrs: linkAttrs }] : [];
         });
         if (marks.length) out.marks = marks;
       }
