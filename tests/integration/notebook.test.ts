@@ -220,3 +220,64 @@ describe('workspace isolation', () => {
     expect(after.conflicts[0].resolvedAt).toBeNull();
   });
 });
+
+describe('bounded documents', () => {
+  const table = (attrs: Record<string, unknown>) =>
+    doc({ type: 'table', content: [{ type: 'tableRow', content: [{ type: 'tableCell', attrs: { colspan: 1, rowspan: 1, colwidth: null, ...attrs }, content: [para('Brix')] }] }] });
+
+  it.each([
+    ['a colspan of a billion', { variantId: null, baseVersion: 0, doc: table({ colspan: 1_000_000_000 }) }, 'doc.content.0.content.0.content.0.attrs.colspan'],
+    ['a rowspan past the table limit', { variantId: null, baseVersion: 0, doc: table({ rowspan: 201 }) }, 'doc.content.0.content.0.content.0.attrs.rowspan'],
+    ['a list starting past the limit', { variantId: null, baseVersion: 0, doc: doc({ type: 'orderedList', attrs: { start: 2 ** 31, type: null }, content: [{ type: 'listItem', content: [para('x')] }] }) }, 'doc.content.0.attrs.start'],
+    // Source: PostgreSQL documentation, Numeric Types — integer ranges up to +2147483647.
+    ['a base version of 2^31', { variantId: null, baseVersion: 2 ** 31, doc: doc(para('x')) }, 'baseVersion'],
+    ['a base version past 2^53', { variantId: null, baseVersion: 2 ** 53 + 2, doc: doc(para('x')) }, 'baseVersion'],
+  ])('refuses %s with 422 through the API and the action, and stores nothing', async (_what, body, path) => {
+    const { trialId } = await createFixtureTrial(a);
+    const res = await put(trialId, a.people.developer, body);
+    expect(res.status, JSON.stringify(res.body)).toBe(422);
+    expect(Object.keys(res.body.error.fields)).toContain(path);
+    const viaAction = await asCaller({ kind: 'session', person: a.people.developer }, () => saveNotebookAction({ trialId, ...body }));
+    expect(viaAction).toMatchObject({ ok: false, status: 422 });
+    expect((await rows(trialId)).entries).toHaveLength(0);
+  });
+
+  it.each(['__proto__', 'constructor', 'valueOf', 'hasOwnProperty'])('refuses "%s" as an attribute, a node or a mark with 422, never 500, and stores nothing', async (name) => {
+    const { trialId } = await createFixtureTrial(a);
+    const bodies = [
+      `{"variantId":null,"baseVersion":0,"doc":{"type":"doc","content":[{"type":"heading","attrs":{"level":2,"${name}":{"level":9}},"content":[{"type":"text","text":"x"}]}]}}`,
+      `{"variantId":null,"baseVersion":0,"doc":{"type":"doc","content":[{"type":"${name}"}]}}`,
+      `{"variantId":null,"baseVersion":0,"doc":{"type":"doc","content":[{"type":"paragraph","content":[{"type":"text","text":"x","marks":[{"type":"link","attrs":{"href":"/x","${name}":1}},{"type":"${name}"}]}]}]}}`,
+      `{"variantId":null,"baseVersion":0,"${name}":{"baseVersion":1},"doc":{"type":"doc"}}`,
+    ];
+    for (const text of bodies) {
+      const res = await callRoute(PUT, { method: 'PUT', path: `/api/v1/trials/${trialId}/notebook`, caller: { kind: 'session', person: a.people.developer }, params: { trialId }, raw: { text, contentType: 'application/json' } });
+      expect(res.status, `${text} → ${JSON.stringify(res.body)}`).toBe(422);
+      const viaAction = await asCaller({ kind: 'session', person: a.people.developer }, () => saveNotebookAction({ trialId, ...JSON.parse(text) }));
+      expect(viaAction, text).toMatchObject({ ok: false, status: 422 });
+    }
+    expect((await rows(trialId)).entries).toHaveLength(0);
+  });
+
+  it('stores links without the rel, target and class sent with them', async () => {
+    const { trialId } = await createFixtureTrial(a);
+    const linked = doc({ type: 'paragraph', content: [{ type: 'text', text: 'method', marks: [{ type: 'link', attrs: { href: 'https://example.org/m', target: '_self', rel: 'opener', class: 'x', title: 'Method' } }] }] });
+    const res = await put(trialId, a.people.developer, { variantId: null, baseVersion: 0, doc: linked });
+    expect(res.status, JSON.stringify(res.body)).toBe(200);
+    const stored = (await rows(trialId)).entries[0].doc as TiptapDoc;
+    expect(stored.content![0].content![0].marks).toEqual([{ type: 'link', attrs: { href: 'https://example.org/m', title: 'Method' } }]);
+  });
+
+  it('still loads a row stored before the limits, and the next save from it must fit them', async () => {
+    const { trialId } = await createFixtureTrial(a);
+    expect((await put(trialId, a.people.developer, { variantId: null, baseVersion: 0, doc: doc(para('first')) })).status).toBe(200);
+    const em = await getEm();
+    // As an old row would be: written before the check bounded colspan.
+    await em.getConnection().execute(`update notebook_entries set doc = ?::jsonb where trial_id = ?`, [JSON.stringify(table({ colspan: 1_000_000_000 })), trialId]);
+    const loaded = await get(trialId, a.people.developer);
+    expect(loaded.status).toBe(200);
+    expect(loaded.body.entry.version).toBe(1);
+    expect(loaded.body.entry.doc.content[0].content[0].content[0].attrs.colspan).toBe(1_000_000_000);
+    expect((await put(trialId, a.people.developer, { variantId: null, baseVersion: 1, doc: table({ colspan: 2 }) })).status).toBe(200);
+  });
+});
