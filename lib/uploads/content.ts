@@ -21,7 +21,8 @@ export interface InspectedUpload {
 
 const ACCEPTED_HINT = 'Setwell keeps photos as JPEG, PNG or WebP, and files as PDF or CSV.';
 
-const PHOTO_TYPES = new Set(['image/jpeg', 'image/png', 'image/webp']);
+/** The photo types kept; the only uploads served inline. */
+export const PHOTO_CONTENT_TYPES: ReadonlySet<string> = new Set(['image/jpeg', 'image/png', 'image/webp']);
 const HEIC_TYPES = new Set(['image/heic', 'image/heic-sequence', 'image/heif', 'image/heif-sequence']);
 
 /** Plain words for the types people most often send by mistake. */
@@ -54,6 +55,18 @@ function tooLarge(what: string, sizeBytes: number, maxBytes: number): ApiError {
   return new ApiError(413, 'too_large', `${what} can be at most ${megabytes(maxBytes)}; this one is ${megabytes(sizeBytes)}.`);
 }
 
+function megapixels(pixels: number): string {
+  return String(Math.round(pixels / 1e5) / 10);
+}
+
+function overPixelBudget(width: number, height: number, maxPixels: number): ApiError {
+  return new ApiError(
+    413,
+    'too_large',
+    `The photo is ${width} × ${height} pixels (${megapixels(width * height)} megapixels); Setwell keeps photos up to ${megapixels(maxPixels)} megapixels. Export it smaller (for example with the long side at 4000 pixels) and try again.`,
+  );
+}
+
 function unsupported(message: string): ApiError {
   return new ApiError(415, 'unsupported_type', message);
 }
@@ -83,9 +96,11 @@ async function inspectPhoto(bytes: Uint8Array, contentType: string, limits: Uplo
   let height: number;
   let thumbnail: Uint8Array;
   try {
-    const meta = await sharp(bytes, input).metadata();
+    // The header only: the size is known before a single pixel is decoded.
+    const meta = await sharp(bytes, { ...input, limitInputPixels: false }).metadata();
     width = meta.autoOrient?.width ?? meta.width;
     height = meta.autoOrient?.height ?? meta.height;
+    if (width * height > limits.maxPixels) throw overPixelBudget(width, height, limits.maxPixels);
     // Turned upright first, because the orientation tag goes with the rest of the metadata.
     const webp = await sharp(bytes, input)
       .autoOrient()
@@ -94,9 +109,10 @@ async function inspectPhoto(bytes: Uint8Array, contentType: string, limits: Uplo
       .toBuffer();
     thumbnail = new Uint8Array(webp);
   } catch (err) {
+    if (err instanceof ApiError) throw err;
     const reason = err instanceof Error ? err.message : '';
     if (/pixel limit/i.test(reason)) {
-      throw new ApiError(413, 'too_large', `The photo is larger than ${Math.round(limits.maxPixels / 1e6)} megapixels once opened. Export it smaller and try again.`);
+      throw new ApiError(413, 'too_large', `The photo is larger than ${megapixels(limits.maxPixels)} megapixels once opened. Export it smaller and try again.`);
     }
     if (HEIC_TYPES.has(contentType)) {
       throw unsupported(
@@ -119,7 +135,7 @@ export async function inspectUpload(name: string, bytes: Uint8Array, limits: Upl
 
   const detected = await fileTypeFromBuffer(bytes);
 
-  if (detected && (PHOTO_TYPES.has(detected.mime) || HEIC_TYPES.has(detected.mime))) {
+  if (detected && (PHOTO_CONTENT_TYPES.has(detected.mime) || HEIC_TYPES.has(detected.mime))) {
     if (bytes.byteLength > limits.photoMaxBytes) throw tooLarge('A photo', bytes.byteLength, limits.photoMaxBytes);
     return inspectPhoto(bytes, detected.mime, limits);
   }
@@ -143,13 +159,38 @@ export async function inspectUpload(name: string, bytes: Uint8Array, limits: Upl
 }
 
 /**
- * The name as shown and offered for download: no folders (some browsers send a path), no
- * control characters, at most 255 characters.
+ * Characters a file name never keeps: C0 and C1 controls and DEL; the bidirectional embeddings,
+ * overrides, isolates and marks that make "gpj.exe" read as "exe.jpg" (Unicode Standard Annex #9,
+ * explicit directional formatting characters, and the implicit marks LRM, RLM, ALM); zero-width
+ * characters, the byte-order mark and the line/paragraph separators; lone UTF-16 surrogates.
+ */
+const UNSAFE_IN_NAMES =
+  /[\u0000-\u001f\u007f-\u009f\u061c\u200b-\u200f\u2028-\u202e\u2060-\u2069\ufeff]|[\ud800-\udbff](?![\udc00-\udfff])|(?<![\ud800-\udbff])[\udc00-\udfff]/g;
+
+/** Longest kept file name, in characters (code points); the extension survives the cut. */
+export const FILE_NAME_MAX_CHARS = 200;
+/** The name given when nothing usable is left. */
+export const FALLBACK_FILE_NAME = 'upload';
+
+/**
+ * The name as shown and offered for download: no folders (some browsers send a path), none of the
+ * characters above, spaces collapsed, at most FILE_NAME_MAX_CHARS characters with the extension
+ * kept; "upload" when nothing is left.
  */
 export function cleanFileName(name: string): string {
   const base = name.split(/[\\/]/).pop() ?? '';
-  const clean = base.replace(/[\u0000-\u001f\u007f]/g, '').trim();
-  return (clean || 'upload').slice(0, 255);
+  const clean = base.replace(UNSAFE_IN_NAMES, '').normalize('NFC').replace(/\s+/g, ' ').trim();
+  const chars = Array.from(clean);
+  if (chars.length <= FILE_NAME_MAX_CHARS) return clean || FALLBACK_FILE_NAME;
+  const ext = /\.[A-Za-z0-9]{1,10}$/.exec(clean)?.[0] ?? '';
+  return chars.slice(0, FILE_NAME_MAX_CHARS - ext.length).join('').trimEnd() + ext;
+}
+
+const EXTENSIONS: Record<string, string> = { 'image/jpeg': '.jpg', 'image/png': '.png', 'image/webp': '.webp', 'application/pdf': '.pdf', 'text/csv': '.csv' };
+
+/** "upload.pdf" rather than a bare "upload" when the name had nothing usable in it. */
+export function nameForStorage(cleanName: string, contentType: string): string {
+  return cleanName === FALLBACK_FILE_NAME ? `${FALLBACK_FILE_NAME}${EXTENSIONS[contentType] ?? ''}` : cleanName;
 }
 
 /** RFC 6266 Content-Disposition with an ASCII fallback and the UTF-8 name (RFC 8187). */

@@ -7,7 +7,7 @@ import { isUuid } from '@/lib/ids';
 import { logger } from '@/lib/log';
 import { assertVariantOfTrial, loadTrial } from '@/lib/trials/access';
 import { deleteObject, originalKey, putObject, thumbnailKey } from '@/lib/storage';
-import { cleanFileName, inspectUpload } from './content';
+import { cleanFileName, inspectUpload, nameForStorage } from './content';
 import { findUploadRow, toUploadView } from './queries';
 import { UPLOAD_LIMITS, uploadFieldsSchema, type CreateUploadInput, type UploadLimits, type UploadView } from './schema';
 
@@ -36,8 +36,9 @@ export async function createUpload(actor: Actor, input: CreateUploadInput, limit
   if (fields.variantId) await assertVariantOfTrial(actor, input.trialId, fields.variantId);
   if (fields.measurementId) await assertMeasurementOfTrial(actor, input.trialId, fields.measurementId, fields.variantId);
 
-  const originalName = cleanFileName(input.file.name);
-  const inspected = await inspectUpload(originalName, input.file.bytes, limits);
+  const cleanName = cleanFileName(input.file.name);
+  const inspected = await inspectUpload(cleanName, input.file.bytes, limits);
+  const originalName = nameForStorage(cleanName, inspected.contentType);
 
   const id = randomUUID();
   const storageKey = originalKey(actor.workspaceId, input.trialId, id);

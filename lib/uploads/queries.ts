@@ -5,7 +5,7 @@ import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
 import { isUuid } from '@/lib/ids';
 import { loadTrial } from '@/lib/trials/access';
 import { getObject } from '@/lib/storage';
-import { contentDisposition } from './content';
+import { cleanFileName, contentDisposition, PHOTO_CONTENT_TYPES } from './content';
 import { thumbnailUrl, uploadUrl, uploadListQuerySchema, type UploadKind, type UploadListQuery, type UploadSubject, type UploadView } from './schema';
 
 export interface UploadRow {
@@ -32,7 +32,8 @@ export function toUploadView(row: UploadRow, uploadedByName?: string): UploadVie
     subject: (row.subject as UploadSubject | null | undefined) ?? null,
     variantId: row.variantId ?? null,
     measurementId: row.measurementId ?? null,
-    originalName: row.originalName,
+    // Cleaned again on the way out: rows stored before the name rules are shown safely too.
+    originalName: cleanFileName(row.originalName),
     contentType: row.contentType,
     sizeBytes: row.sizeBytes,
     width: row.width ?? null,
@@ -76,7 +77,7 @@ export interface UploadDownload {
 
 /**
  * The original or the thumbnail with the headers a download needs: the sniffed type (never the
- * client's), nosniff so browsers do not second-guess it, inline only for images and PDF.
+ * client's), nosniff so browsers do not second-guess it, inline only for photos.
  */
 export async function openUpload(actor: Actor, uploadId: string, which: 'original' | 'thumbnail'): Promise<UploadDownload> {
   const row = await findUploadRow(actor, uploadId);
@@ -86,7 +87,8 @@ export async function openUpload(actor: Actor, uploadId: string, which: 'origina
   if (!object) throw notFound(which === 'original' ? 'upload' : 'thumbnail');
 
   const contentType = which === 'thumbnail' ? 'image/webp' : row.contentType === 'text/csv' ? 'text/csv; charset=utf-8' : row.contentType;
-  const inline = which === 'thumbnail' || row.contentType.startsWith('image/') || row.contentType === 'application/pdf';
+  // Only pictures open in the browser; a PDF (which can carry actions that run on opening) or a CSV is saved.
+  const inline = which === 'thumbnail' || PHOTO_CONTENT_TYPES.has(row.contentType);
   const fileName = which === 'thumbnail' ? `${row.originalName.replace(/\.[^.]*$/, '')}-thumbnail.webp` : row.originalName;
   const headers: Record<string, string> = {
     'content-type': contentType,

@@ -12,10 +12,11 @@ export const UPLOAD_REQUEST_MAX_BYTES = FILE_MAX_BYTES + 256 * 1024;
 /** Thumbnails fit inside this square, in pixels, and are never enlarged. */
 export const THUMBNAIL_MAX_PX = 480;
 /**
- * Decoded size ceiling for a photo, in pixels (80 megapixels). A small compressed file can
- * expand to gigabytes when decoded; this stops that before memory runs out.
+ * Pixel budget of a photo (50 megapixels), read from the file's header before anything is
+ * decoded: a small compressed file can expand to gigabytes once opened (a 50-megapixel photo
+ * is about 200 MB as RGBA). 48- and 50-megapixel phone photos fit; larger ones are refused (413).
  */
-export const PHOTO_MAX_PIXELS = 80_000_000;
+export const PHOTO_MAX_PIXELS = 50_000_000;
 
 export interface UploadLimits {
   photoMaxBytes: number;

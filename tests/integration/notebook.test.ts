@@ -264,7 +264,7 @@ describe('bounded documents', () => {
     const linked = doc({ type: 'paragraph', content: [{ type: 'text', text: 'method', marks: [{ type: 'link', attrs: { href: 'https://example.org/m', target: '_self', rel: 'opener', class: 'x', title: 'Method' } }] }] });
     const res = await put(trialId, a.people.developer, { variantId: null, baseVersion: 0, doc: linked });
     expect(res.status, JSON.stringify(res.body)).toBe(200);
-    const stored = (await rows(trialId)).entries[0].doc as TiptapDoc;
+    const stored = (await rows(trialId)).entries[0].doc as unknown as TiptapDoc;
     expect(stored.content![0].content![0].marks).toEqual([{ type: 'link', attrs: { href: 'https://example.org/m', title: 'Method' } }]);
   });
 

@@ -3,6 +3,7 @@
  * S3 fake (s3rver) that scripts/test.sh starts. Every picture is generated here with sharp.
  */
 import { describe, it, expect, beforeAll } from 'vitest';
+import { deflateSync } from 'node:zlib';
 import sharp from 'sharp';
 import { createWorkspace, callRoute, actorOf, APP_ORIGIN, authHeaders, type WorkspaceFixture, type Caller } from './harness';
 import { createFixtureTrial } from './fixtures';
@@ -11,8 +12,8 @@ import { getEm } from '@/lib/db';
 import { Upload } from '@/entities';
 import { ensureBucket, getObjectBytes, listObjectKeys } from '@/lib/storage';
 import { createUpload } from '@/lib/uploads/mutations';
-import { contentDisposition, csvProblem } from '@/lib/uploads/content';
-import { FILE_MAX_BYTES, PHOTO_MAX_BYTES, THUMBNAIL_MAX_PX, UPLOAD_LIMITS } from '@/lib/uploads/schema';
+import { cleanFileName, contentDisposition, csvProblem, FILE_NAME_MAX_CHARS } from '@/lib/uploads/content';
+import { FILE_MAX_BYTES, PHOTO_MAX_BYTES, PHOTO_MAX_PIXELS, THUMBNAIL_MAX_PX, UPLOAD_LIMITS } from '@/lib/uploads/schema';
 import * as trialUploads from '@/app/api/v1/trials/[trialId]/uploads/route';
 import * as oneUpload from '@/app/api/v1/uploads/[uploadId]/route';
 import * as thumbnailRoute from '@/app/api/v1/uploads/[uploadId]/thumbnail/route';
@@ -61,9 +62,9 @@ function zipHeader(): Uint8Array {
   return new Uint8Array([0x50, 0x4b, 0x03, 0x04, 20, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 0, 1, 0, 0, 0, 1, 0, 0, 0, 1, 0, 0, 0, 0x61, 0x61]);
 }
 
-function minimalPdf(): Uint8Array {
+function minimalPdf(catalogExtra = ''): Uint8Array {
   const objects = [
-    '1 0 obj << /Type /Catalog /Pages 2 0 R >> endobj\n',
+    `1 0 obj << /Type /Catalog /Pages 2 0 R${catalogExtra} >> endobj\n`,
     '2 0 obj << /Type /Pages /Kids [3 0 R] /Count 1 >> endobj\n',
     '3 0 obj << /Type /Page /Parent 2 0 R /MediaBox [0 0 200 200] >> endobj\n',
   ];
@@ -77,6 +78,38 @@ function minimalPdf(): Uint8Array {
   body += `xref\n0 4\n0000000000 65535 f \n${offsets.map((n) => `${String(n).padStart(10, '0')} 00000 n \n`).join('')}`;
   body += `trailer << /Size 4 /Root 1 0 R >>\nstartxref\n${xref}\n%%EOF\n`;
   return new TextEncoder().encode(body);
+}
+
+/**
+ * A valid greyscale PNG of any size, 1 bit per pixel, built by hand (signature, IHDR, one IDAT
+ * of zero rows, IEND): a 79-megapixel picture in about 10 kB.
+ * Source: W3C Portable Network Graphics (PNG) Specification (Third Edition), §5 and §11.2 (memory).
+ */
+function bilevelPng(width: number, height: number): Uint8Array {
+  const crcTable = Array.from({ length: 256 }, (_, n) => {
+    let c = n;
+    for (let k = 0; k < 8; k++) c = c & 1 ? 0xedb88320 ^ (c >>> 1) : c >>> 1;
+    return c >>> 0;
+  });
+  const crc = (bytes: Buffer) => {
+    let c = 0xffffffff;
+    for (const b of bytes) c = crcTable[(c ^ b) & 0xff] ^ (c >>> 8);
+    return (c ^ 0xffffffff) >>> 0;
+  };
+  const chunk = (type: string, data: Buffer) => {
+    const body = Buffer.concat([Buffer.from(type, 'latin1'), data]);
+    const out = Buffer.alloc(8 + data.length + 4);
+    out.writeUInt32BE(data.length, 0);
+    body.copy(out, 4);
+    out.writeUInt32BE(crc(body), 8 + data.length);
+    return out;
+  };
+  const ihdr = Buffer.alloc(13);
+  ihdr.writeUInt32BE(width, 0);
+  ihdr.writeUInt32BE(height, 4);
+  ihdr.set([1, 0, 0, 0, 0], 8); // bit depth 1, greyscale, deflate, adaptive filtering, no interlace
+  const rows = Buffer.alloc((1 + Math.ceil(width / 8)) * height); // filter byte 0 + all-black pixels per row
+  return new Uint8Array(Buffer.concat([Buffer.from([0x89, 0x50, 0x4e, 0x47, 0x0d, 0x0a, 0x1a, 0x0a]), chunk('IHDR', ihdr), chunk('IDAT', deflateSync(rows)), chunk('IEND', Buffer.alloc(0))]));
 }
 
 /** Whether EXIF data (as sharp returns it, starting "Exif\0\0") has a GPS IFD pointer in IFD0. */
@@ -309,7 +342,7 @@ describe('size limits', () => {
 });
 
 describe('files', () => {
-  it('accepts a minimal PDF as a file, without a thumbnail, served inline', async () => {
+  it('accepts a minimal PDF as a file, without a thumbnail, served as an attachment', async () => {
     const { trialId } = await createFixtureTrial(a);
     const pdf = minimalPdf();
     // Source: ISO 32000-1:2008 §7.5.2, file header "%PDF-1.n" on the first line (memory).
@@ -319,7 +352,7 @@ describe('files', () => {
     expect(res.body.upload).toMatchObject({ kind: 'file', contentType: 'application/pdf', width: null, height: null, thumbnailUrl: null });
     const file = await download(oneUpload.GET, res.body.upload.id);
     expect(same(file.bytes, pdf)).toBe(true);
-    expect(file.headers.get('content-disposition')).toMatch(/^inline;/);
+    expect(file.headers.get('content-disposition')).toMatch(/^attachment;/);
     expect((await download(thumbnailRoute.GET, res.body.upload.id, '/thumbnail')).status).toBe(404);
   });
 
@@ -360,6 +393,79 @@ describe('files', () => {
     const header = contentDisposition('attachment', 'C:\\fakepath\\jar "B"\r\nSet-Cookie: x=1;.csv');
     expect(header).not.toMatch(/[\r\n]/);
     expect(header.startsWith('attachment; filename="jar _B_Set-Cookie: x=1_.csv"; ')).toBe(true);
+  });
+});
+
+describe('file names', () => {
+  it('file names: strips bidi overrides and other control characters, NUL and lone surrogates; bounds the length, keeps the extension', () => {
+    // Source: Unicode Standard Annex #9, explicit directional formatting characters (U+202A–U+202E, U+2066–U+2069) and marks (U+200E, U+200F, U+061C).
+    expect(cleanFileName('invoice\u202Egpj.exe')).toBe('invoicegpj.exe');
+    expect(cleanFileName('\u2067jar\u2069 \u200Eb\u200F\u061C.png')).toBe('jar b.png');
+    expect(cleanFileName('set\u0000test\u0085\u009b.jpg')).toBe('settest.jpg');
+    expect(cleanFileName('zero\u200Bwidth\uFEFF\u2028line.csv')).toBe('zerowidthline.csv');
+    expect(cleanFileName('lone\uD800 \uDC00surrogates.png')).toBe('lone surrogates.png');
+    expect(cleanFileName('jar \uD83C\uDF53 strawberry.jpg')).toBe('jar \uD83C\uDF53 strawberry.jpg');
+    expect(cleanFileName('\u202E\u202D\u0000 ')).toBe('upload');
+    const long = cleanFileName(`${'Aprikose '.repeat(60)}.jpg`);
+    expect(Array.from(long)).toHaveLength(FILE_NAME_MAX_CHARS);
+    expect(long.endsWith('.jpg')).toBe(true);
+    expect(Array.from(cleanFileName(`${'\uD83C\uDF53'.repeat(300)}`))).toHaveLength(FILE_NAME_MAX_CHARS);
+    // Cut between characters, never inside a surrogate pair.
+    expect(cleanFileName(`${'\uD83C\uDF53'.repeat(300)}`)).toBe('\uD83C\uDF53'.repeat(FILE_NAME_MAX_CHARS));
+  });
+
+  it('file names: an upload named with a right-to-left override is stored and served without it', async () => {
+    const { trialId } = await createFixtureTrial(a);
+    const res = await post(trialId, form('jar\u202Egnp.exe', await generatedPng(40, 30)));
+    expect(res.status, JSON.stringify(res.body)).toBe(201);
+    expect(res.body.upload.originalName).toBe('jargnp.exe');
+    const file = await download(oneUpload.GET, res.body.upload.id);
+    expect(file.headers.get('content-disposition')).toBe(`inline; filename="jargnp.exe"; filename*=UTF-8''jargnp.exe`);
+    const nameless = await post(trialId, form('\u202E\u2066', await generatedPng(40, 30)));
+    expect(nameless.body.upload.originalName).toBe('upload.png');
+  });
+});
+
+describe('downloads', () => {
+  it('downloads: a PDF with an auto-run action is served as an attachment with nosniff; photos stay inline', async () => {
+    const { trialId } = await createFixtureTrial(a);
+    // Source: ISO 32000-1:2008 §12.3.2 and §12.6.4.16, a catalog /OpenAction running JavaScript when the document opens (memory).
+    const pdf = minimalPdf(' /OpenAction << /S /JavaScript /JS (app.alert\\(1\\)) >>');
+    const res = await post(trialId, form('recall-notice.pdf', pdf));
+    expect(res.status, JSON.stringify(res.body)).toBe(201);
+    const file = await download(oneUpload.GET, res.body.upload.id);
+    expect(file.headers.get('content-type')).toBe('application/pdf');
+    // Source: RFC 6266 §4.2 — "attachment" asks the browser to save rather than display; WHATWG Fetch, X-Content-Type-Options: nosniff.
+    expect(file.headers.get('content-disposition')).toMatch(/^attachment; filename="recall-notice.pdf"/);
+    expect(file.headers.get('x-content-type-options')).toBe('nosniff');
+    const photo = await post(trialId, form('jar.png', await generatedPng(40, 30)));
+    const shown = await download(oneUpload.GET, photo.body.upload.id);
+    expect(shown.headers.get('content-disposition')).toMatch(/^inline;/);
+    expect(shown.headers.get('x-content-type-options')).toBe('nosniff');
+  });
+});
+
+describe('pixel budget', () => {
+  it(`pixel budget: refuses a 79-megapixel PNG (413) from its header, over the ${PHOTO_MAX_PIXELS / 1e6}-megapixel budget, and stores nothing`, async () => {
+    const { trialId } = await createFixtureTrial(a);
+    const png = bilevelPng(10_000, 7_900);
+    expect(png.byteLength).toBeLessThan(PHOTO_MAX_BYTES);
+    const meta = await sharp(png).metadata();
+    expect([meta.width, meta.height]).toEqual([10_000, 7_900]);
+    const res = await post(trialId, form('scan.png', png));
+    expect(res.status, JSON.stringify(res.body)).toBe(413);
+    expect(res.body.error.message).toBe(
+      'The photo is 10000 × 7900 pixels (79 megapixels); Setwell keeps photos up to 50 megapixels. Export it smaller (for example with the long side at 4000 pixels) and try again.',
+    );
+    expect(await storedFor(a, trialId)).toEqual({ rows: 0, keys: [] });
+  });
+
+  it('pixel budget: the budget is inclusive (checked with a smaller injected budget)', async () => {
+    const { trialId } = await createFixtureTrial(a);
+    const budget = { ...UPLOAD_LIMITS, maxPixels: 40 * 25 };
+    const fits = await createUpload(actorOf(a, 'developer'), { trialId, file: { name: 'fits.png', bytes: bilevelPng(40, 25) } }, budget);
+    expect([fits.width, fits.height]).toEqual([40, 25]);
+    await expect(createUpload(actorOf(a, 'developer'), { trialId, file: { name: 'over.png', bytes: bilevelPng(40, 26) } }, budget)).rejects.toMatchObject({ status: 413 });
   });
 });
 
