@@ -20,12 +20,9 @@ export function proxy(request: NextRequest) {
 export const config = {
   matcher: [
     {
-      // Pages only: the API and static files get the fixed policy from next.config.mjs.
+      // Pages only: the API and static files get the fixed policy from next.config.mjs. Prefetch
+      // and RSC requests are pages too and get the policy like any other response.
       source: '/((?!api/|_next/static|_next/image|favicon.ico).*)',
-      missing: [
-        { type: 'header', key: 'next-router-prefetch' },
-        { type: 'header', key: 'purpose', value: 'prefetch' },
-      ],
     },
   ],
 };

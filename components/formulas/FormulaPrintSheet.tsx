@@ -221,8 +221,7 @@ export function FormulaPrintSheet({
 
   return (
     <article className="mx-auto max-w-[210mm] space-y-5 bg-white p-8 font-sans text-black print:max-w-none print:p-0" aria-label={`Formula sheet: ${formula.name}`}>
-      {/* No page size: the printer's own A4 or Letter stock is used, with margins that fit both. */}
-      <style>{'@page { margin: 14mm; } @media print { html, body { background: #fff !important; color: #000 !important; } }'}</style>
+      {/* Page margins and the white paper are in app/globals.css (@page, @media print): an inline <style> would be refused by the CSP. */}
 
       <header className="border-b-2 border-black pb-3">
         <p className="text-xs uppercase tracking-widest text-rind-600">Setwell formula sheet</p>

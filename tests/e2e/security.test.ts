@@ -52,6 +52,12 @@ describe('Content Security Policy', () => {
     expect(first).not.toContain('unsafe-inline');
     expect(first).not.toContain('unsafe-eval');
     expect(/'nonce-([^']+)'/.exec(first)![1]).not.toBe(/'nonce-([^']+)'/.exec(second)![1]);
+    // CSP on prefetch requests: the router's prefetches, RSC requests and speculative loads carry it too.
+    const prefetches: Array<Record<string, string>> = [{ purpose: 'prefetch' }, { 'next-router-prefetch': '1', rsc: '1' }, { rsc: '1' }, { 'sec-purpose': 'prefetch' }];
+    for (const headers of prefetches) {
+      const policy = (await ctx.request.get('/sign-in', { headers })).headers()['content-security-policy'];
+      expect(policy, JSON.stringify(headers)).toMatch(/script-src 'self' 'nonce-[A-Za-z0-9+/=]{20,}' 'strict-dynamic'(;|$)/);
+    }
     await ctx.close();
   });
 
@@ -110,6 +116,16 @@ describe('Content Security Policy', () => {
     await page.getByTestId('products').locator('li', { hasText: 'Blackcurrant jam' }).getByRole('link', { name: /^v\d+$/ }).click();
     await page.getByRole('link', { name: 'Batch sheet' }).click();
     await page.getByTestId('sheet-ingredients').waitFor();
+
+    // Print styles: the formula print page's margins and white paper come from the stylesheet, not a refused <style>.
+    await page.goto('/formulas');
+    await page.locator('main a[href^="/formulas/"]:not([href="/formulas/new"])').first().click();
+    await page.getByRole('link', { name: 'Print view' }).click();
+    await page.getByRole('article', { name: /^Formula sheet:/ }).waitFor();
+    expect(await page.locator('style:not([nonce])').count()).toBe(0);
+    await page.emulateMedia({ media: 'print' });
+    expect(await page.evaluate(() => getComputedStyle(document.body).backgroundColor)).toBe('rgb(255, 255, 255)');
+    await page.emulateMedia({ media: 'screen' });
 
     expect(violations).toEqual([]);
     expect(phoneViolations).toEqual([]);

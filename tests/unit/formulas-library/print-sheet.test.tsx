@@ -116,4 +116,13 @@ describe('FormulaPrintSheet', () => {
     expect(screen.getByRole('rowheader', { name: 'Water' })).toBeTruthy();
     expect(screen.getByText(PRINT_FOOTER)).toBeTruthy();
   });
+
+  it('print styles: the sheet carries no inline <style> (the CSP would refuse it); margins and white paper come from the stylesheet', async () => {
+    const { container } = render(<FormulaPrintSheet formula={detail(PRACTICAL_ACTION_LINES, settings())} massUnits="metric" temperatureUnit="C" printedAt="2026-02-04T12:00:00.000Z" />);
+    expect(container.querySelector('style')).toBeNull();
+    expect(container.querySelector('[style]')).toBeNull();
+    const css = (await import('node:fs')).readFileSync('app/globals.css', 'utf8');
+    expect(css).toMatch(/@page \{\s*margin: 14mm;\s*\}/);
+    expect(css).toMatch(/@media print \{\s*html,\s*body \{\s*background: #fff !important;/);
+  });
 });
