@@ -2,7 +2,7 @@
 # `npm run bench`: measurements, not tests. Starts its own throw-away PostgreSQL (bench profile),
 # migrates, builds the production app, starts two servers on loopback with the bench-only floor
 # route switched on, and prints each figure beside its target. Results land in bench-results/
-# (git-ignored): stats.json, load.json and bench.json (all figures).
+# (git-ignored): stats.json, notebook.json, load.json and bench.json (all figures).
 # App ports: SETWELL_BENCH_APP_PORT (default 3200) and the next one up.
 source "$(dirname "$0")/lib.sh"
 export SETWELL_PROFILE=test SETWELL_TEST_HOME="${SETWELL_BENCH_HOME:-/var/tmp/setwell-bench}" SETWELL_TEST_PG_PORT="${SETWELL_BENCH_PG_PORT:-54349}"
@@ -28,6 +28,8 @@ export NEXTAUTH_SECRET=bench-only-secret-bench-only-secret-0000 LOG_LEVEL=silent
 npm run --silent db:migrate >/dev/null
 log "statistics: 60 tasters × 12 samples × 8 attributes, then twice the tasters (median of 5 runs)"
 node --import tsx scripts/bench-stats.ts
+log "notebook: the largest accepted entry rendered read-only on the server (production React, median of 7)"
+NODE_ENV=production node --import tsx scripts/bench-notebook.ts
 
 mkdir -p "$SETWELL_LOGS"
 log "load: building the production app"
@@ -47,7 +49,8 @@ BENCH_APP_PGIDS="$(IFS=,; echo "${PIDS[*]}")" BENCH_PG_PID_FILE="$SETWELL_PG_DAT
 node -e '
   const fs = require("fs");
   const stats = JSON.parse(fs.readFileSync("bench-results/stats.json", "utf8"));
+  const notebook = JSON.parse(fs.readFileSync("bench-results/notebook.json", "utf8"));
   const load = JSON.parse(fs.readFileSync("bench-results/load.json", "utf8"));
-  fs.writeFileSync("bench-results/bench.json", JSON.stringify({ measuredAt: new Date().toISOString(), figures: [...stats.figures, ...load.figures] }, null, 2));
+  fs.writeFileSync("bench-results/bench.json", JSON.stringify({ measuredAt: new Date().toISOString(), figures: [...stats.figures, ...notebook.figures, ...load.figures] }, null, 2));
 '
 log "all figures in bench-results/bench.json"
