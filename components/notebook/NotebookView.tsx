@@ -31,12 +31,33 @@ export const NOTEBOOK_PROSE_CLASS = [
 
 type RenderedNode = { attrs: Record<string, unknown> };
 
+const CELL_ALIGN_CLASS: Record<string, string> = { left: 'text-left', center: 'text-center', right: 'text-right' };
+
+/** Spans (already bounded by sanitizeDoc) and alignment as a class, never a style attribute. */
+function cellProps(node: RenderedNode): { colSpan?: number; rowSpan?: number; className?: string } {
+  const { colspan, rowspan, align } = node.attrs;
+  return {
+    ...(typeof colspan === 'number' && colspan > 1 ? { colSpan: colspan } : {}),
+    ...(typeof rowspan === 'number' && rowspan > 1 ? { rowSpan: rowspan } : {}),
+    ...(typeof align === 'string' && Object.hasOwn(CELL_ALIGN_CLASS, align) ? { className: CELL_ALIGN_CLASS[align] } : {}),
+  };
+}
+
 export function renderNotebookDoc(doc: unknown): ReactNode {
   return renderToReactElement({
     content: sanitizeDoc(doc),
     extensions: notebookExtensions(),
     options: {
       nodeMapping: {
+        // Tables without the editor's column group and widths: those are style attributes, which the
+        // CSP refuses, and the tables take the page's width anyway.
+        table: ({ children }: { children?: ReactNode }) => (
+          <table>
+            <tbody>{children}</tbody>
+          </table>
+        ),
+        tableCell: ({ node, children }: { node: RenderedNode; children?: ReactNode }) => <td {...cellProps(node)}>{children}</td>,
+        tableHeader: ({ node, children }: { node: RenderedNode; children?: ReactNode }) => <th {...cellProps(node)}>{children}</th>,
         // Checkboxes become ☐/☑ so they print and read the same everywhere.
         taskItem: ({ node, children }: { node: RenderedNode; children?: ReactNode }) => {
           const checked = node.attrs.checked === true;
