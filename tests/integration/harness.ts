@@ -78,6 +78,19 @@ export async function createWorkspace(label = 'Test kitchen'): Promise<Workspace
   return { workspaceId: workspace.id, name: workspace.name, people };
 }
 
+/** One more person with the role in an existing workspace (for calls that end the caller's own sessions). */
+export async function addPerson(fx: WorkspaceFixture, role: Role): Promise<Person> {
+  const em = await getEm();
+  const tag = randomUUID().slice(0, 8);
+  const email = `${role}.extra.${tag}@test.example`;
+  const user = em.create(User, { email, name: `${role} extra ${tag}`, passwordHash: await hashPassword(TEST_PASSWORD) } as never) as unknown as { id: string };
+  em.create(Membership, { workspace: fx.workspaceId, user, role } as never);
+  const token = newSecret(API_TOKEN_PREFIX);
+  em.create(ApiToken, { workspace: fx.workspaceId, user, label: 'test', displayPrefix: token.slice(0, 10), tokenHash: hashSecret(token) } as never);
+  await em.flush();
+  return { userId: user.id, email, role, token, sessionCookie: await sessionCookieFor(user.id) };
+}
+
 export type Caller = { kind: 'outsider' } | { kind: 'session'; person: Person } | { kind: 'token'; person: Person };
 
 export function authHeaders(caller: Caller, write = false): Headers {
