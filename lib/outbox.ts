@@ -7,7 +7,7 @@
  *   header); mail of no workspace (password resets) is never shown, nor is mail without the header.
  * - Links and anything shaped like a token are replaced: a link is for its recipient alone.
  */
-import { env } from '@/lib/env';
+import { env, type Env } from '@/lib/env';
 import type { Actor } from '@/lib/permissions';
 
 export interface OutboxMessage {
@@ -26,8 +26,7 @@ export const LINK_HIDDEN = '[link hidden: only the recipient gets it]';
 const LOOPBACK_HOSTS = new Set(['127.0.0.1', 'localhost', '[::1]', '::1']);
 
 /** True when mail goes to the local fake, whose messages the outbox page may read. */
-export function outboxAvailable(): boolean {
-  const { MAIL_OUTBOX_URL, SMTP_URL } = env();
+export function outboxAvailable({ MAIL_OUTBOX_URL, SMTP_URL }: Pick<Env, 'MAIL_OUTBOX_URL' | 'SMTP_URL'> = env()): boolean {
   if (!MAIL_OUTBOX_URL) return false;
   try {
     return LOOPBACK_HOSTS.has(new URL(SMTP_URL).hostname);
