@@ -3,5 +3,8 @@ export async function register() {
   if (process.env.NEXT_RUNTIME === 'nodejs') {
     const { env } = await import('./lib/env');
     env();
+    // The socket's address for the per-address limits (lib/client-address.ts).
+    const { installPeerAddressHook } = await import('./lib/client-address');
+    installPeerAddressHook();
   }
 }

@@ -10,6 +10,9 @@ export default defineConfig({
     include: ['tests/unit/**/*.test.{ts,tsx}', 'tests/integration/**/*.test.{ts,tsx}'],
     // Integration tests share one database, so files run one at a time.
     fileParallelism: false,
+    // The integration tests play the proxy: each scenario sends its own X-Forwarded-For, so its
+    // limits are its own. tests/integration/trust-proxy.test.ts runs without (TRUST_PROXY=false).
+    env: { TRUST_PROXY: 'true' },
     testTimeout: 30_000,
     hookTimeout: 60_000,
   },

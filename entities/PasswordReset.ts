@@ -14,5 +14,6 @@ export const PasswordReset = defineEntity({
     usedAt: p.datetime().nullable(),
     createdAt: p.datetime().onCreate(() => new Date()),
   }),
+  indexes: [{ properties: ['user', 'usedAt'] }],
 });
 export type PasswordResetEntity = InferEntity<typeof PasswordReset>;

@@ -14,6 +14,8 @@ export const User = defineEntity({
     /** Mass units on screen: 'metric' (g, kg) or 'imperial' (lb, oz). Stored masses are always grams. */
     massUnits: p.enum(['metric', 'imperial']).default('metric'),
     temperatureUnit: p.enum(['C', 'F']).default('C'),
+    /** Raised by a password reset and by "sign out everywhere": sessions signed in under an older epoch end. */
+    sessionEpoch: p.integer().default(0),
     createdAt: p.datetime().onCreate(() => new Date()),
   }),
 });

@@ -1,22 +1,78 @@
 /**
- * Sessions and the current actor. next-auth issues a JWT session (it carries the user id);
- * everything else about the actor (workspace, role) is read fresh from the database on each
- * request, so a role change or a deactivation takes effect at once.
+ * Sessions and the current actor. next-auth issues a JWT session (it carries the user id and
+ * the user's session epoch); everything else about the actor (workspace, role) is read fresh
+ * from the database on each request, so a role change or a deactivation takes effect at once.
  */
 import type { NextAuthOptions } from 'next-auth';
 import Credentials from 'next-auth/providers/credentials';
 import { decode } from 'next-auth/jwt';
+import { z } from 'zod';
 import { getEm } from '@/lib/db';
 import { env } from '@/lib/env';
 import { Membership, User, ApiToken } from '@/entities';
 import { verifyPassword } from '@/lib/passwords';
 import { hashSecret } from '@/lib/secrets';
-import { checkSignInAllowed, recordSignInFailure, recordSignInSuccess } from '@/lib/rate-limit';
+import { clientAddress } from '@/lib/client-address';
+import { consumeSignInAttempt, signInSucceeded, RateLimited } from '@/lib/rate-limit';
+import { tooManyAttemptsCode, type SignInErrorCode } from '@/lib/sign-in-errors';
+import { logger } from '@/lib/log';
 import type { Actor, Role } from '@/lib/permissions';
 
 export const WORKSPACE_COOKIE = 'setwell-workspace';
 export const API_TOKEN_PREFIX = 'swt_';
 const SESSION_COOKIES = ['__Secure-next-auth.session-token', 'next-auth.session-token'];
+
+const credentialsSchema = z.object({
+  email: z.email().max(254),
+  password: z.string().min(1).max(1000),
+});
+
+export interface SignedInUser {
+  id: string;
+  email: string;
+  name: string;
+  /** The user's session epoch at sign-in, carried in the JWT. */
+  sessionEpoch: number;
+}
+
+/**
+ * Checks an e-mail and password. Throws an Error whose message is one of our sign-in codes
+ * (lib/sign-in-errors.ts), never anything else: next-auth puts it into the sign-in URL.
+ * The attempt is counted before the password is evaluated, so parallel guesses cannot outrun
+ * the limit.
+ */
+export async function signInWithPassword(credentials: unknown, headers: Headers | Record<string, unknown>): Promise<SignedInUser> {
+  try {
+    const raw = (credentials ?? {}) as Record<string, unknown>;
+    if (!raw.email || !raw.password) throw fail('missing_fields');
+    const parsed = credentialsSchema.safeParse({ email: String(raw.email).trim().toLowerCase(), password: raw.password });
+    // An address that cannot exist matches no account; it never reaches the database.
+    if (!parsed.success) throw fail('bad_credentials');
+    const { email, password } = parsed.data;
+    const address = clientAddress(headers);
+    await consumeSignInAttempt(email, address);
+    const em = await getEm();
+    const user = await em.findOne(User, { email });
+    const ok = await verifyPassword(password, user?.passwordHash);
+    if (!user || !ok) throw fail('bad_credentials');
+    const active = await em.count(Membership, { user: user.id, active: true });
+    if (active === 0) throw fail('no_workspace');
+    await signInSucceeded(email, address);
+    return { id: user.id, email: user.email, name: user.name, sessionEpoch: user.sessionEpoch };
+  } catch (err) {
+    if (err instanceof SignInRefused) throw new Error(err.code);
+    if (err instanceof RateLimited) throw new Error(tooManyAttemptsCode(err.retryAfterSeconds));
+    logger.error({ err }, 'sign-in failed');
+    throw new Error('sign_in_failed' satisfies SignInErrorCode);
+  }
+}
+
+class SignInRefused extends Error {
+  constructor(readonly code: SignInErrorCode) {
+    super(code);
+  }
+}
+const fail = (code: SignInErrorCode) => new SignInRefused(code);
 
 /** appUrl decides the cookie flags: Secure (and the __Secure- name) exactly when the app is served over https. */
 export function authOptions(appUrl: string = env().APP_URL): NextAuthOptions {
@@ -30,28 +86,16 @@ export function authOptions(appUrl: string = env().APP_URL): NextAuthOptions {
         name: 'E-mail and password',
         credentials: { email: { label: 'E-mail', type: 'email' }, password: { label: 'Password', type: 'password' } },
         async authorize(credentials, req) {
-          const email = String(credentials?.email ?? '').trim().toLowerCase();
-          const password = String(credentials?.password ?? '');
-          const ip = clientIp(req?.headers ?? {});
-          if (!email || !password) throw new Error('Enter your e-mail and password.');
-          await checkSignInAllowed(email, ip);
-          const em = await getEm();
-          const user = await em.findOne(User, { email });
-          const ok = await verifyPassword(password, user?.passwordHash);
-          if (!user || !ok) {
-            await recordSignInFailure(email, ip);
-            throw new Error('That e-mail and password do not match an account.');
-          }
-          const active = await em.count(Membership, { user: user.id, active: true });
-          if (active === 0) throw new Error('This account has no active workspace. Ask an administrator.');
-          await recordSignInSuccess(email);
-          return { id: user.id, email: user.email, name: user.name };
+          return signInWithPassword(credentials, req?.headers ?? {});
         },
       }),
     ],
     callbacks: {
       async jwt({ token, user }) {
-        if (user) token.sub = user.id;
+        if (user) {
+          token.sub = user.id;
+          token.epoch = (user as unknown as SignedInUser).sessionEpoch;
+        }
         return token;
       },
       async session({ session, token }) {
@@ -60,19 +104,6 @@ export function authOptions(appUrl: string = env().APP_URL): NextAuthOptions {
       },
     },
   };
-}
-
-/**
- * The address for the per-address sign-in limit: the right-most X-Forwarded-For entry, i.e.
- * the one our own load balancer appended. A client can forge entries to its left, not that one.
- * Without a proxy in front, Next.js passes a client's header through, so the per-account limit
- * is the one that always holds (see the README's operations notes).
- */
-export function clientIp(headers: Record<string, unknown> | Headers): string {
-  const get = (name: string) =>
-    headers instanceof Headers ? headers.get(name) : (headers[name] as string | undefined);
-  const forwarded = get('x-forwarded-for')?.split(',').map((s) => s.trim()).filter(Boolean);
-  return forwarded?.at(-1) ?? get('x-real-ip')?.trim() ?? 'unknown';
 }
 
 /** Reads a cookie value out of a Cookie header. */
@@ -85,14 +116,20 @@ export function readCookie(cookieHeader: string | null | undefined, name: string
   return undefined;
 }
 
-async function userIdFromSessionCookies(cookieHeader: string | null | undefined): Promise<string | null> {
+interface SessionClaim {
+  userId: string;
+  /** Sessions from before epochs existed carry none: they count as epoch 0. */
+  epoch: number;
+}
+
+async function sessionFromCookies(cookieHeader: string | null | undefined): Promise<SessionClaim | null> {
   const secret = env().NEXTAUTH_SECRET;
   for (const name of SESSION_COOKIES) {
     const raw = readCookie(cookieHeader, name);
     if (!raw) continue;
     try {
       const token = await decode({ token: raw, secret });
-      if (token?.sub) return token.sub;
+      if (token?.sub) return { userId: token.sub, epoch: typeof token.epoch === 'number' ? token.epoch : 0 };
     } catch {
       return null;
     }
@@ -102,10 +139,16 @@ async function userIdFromSessionCookies(cookieHeader: string | null | undefined)
 
 type MembershipRow = { workspace: { id: string; name: string }; role: Role };
 
-async function actorFor(userId: string, preferredWorkspaceId: string | undefined, via: Actor['via']): Promise<Actor | null> {
+/**
+ * The actor, read fresh: role, deactivation and (for a session) the session epoch are checked on
+ * every request, so a role change, a deactivation, a password reset or "sign out everywhere"
+ * takes effect at once.
+ */
+async function actorFor(userId: string, preferredWorkspaceId: string | undefined, via: Actor['via'], sessionEpoch?: number): Promise<Actor | null> {
   const em = await getEm();
   const user = await em.findOne(User, { id: userId });
   if (!user) return null;
+  if (sessionEpoch !== undefined && sessionEpoch !== user.sessionEpoch) return null;
   const memberships = (await em.find(
     Membership,
     { user: userId, active: true },
@@ -146,9 +189,9 @@ export async function actorFromHeaders(headers: Headers): Promise<Actor | null> 
     return actor;
   }
   const cookieHeader = headers.get('cookie');
-  const userId = await userIdFromSessionCookies(cookieHeader);
-  if (!userId) return null;
-  return actorFor(userId, readCookie(cookieHeader, WORKSPACE_COOKIE), 'session');
+  const claim = await sessionFromCookies(cookieHeader);
+  if (!claim) return null;
+  return actorFor(claim.userId, readCookie(cookieHeader, WORKSPACE_COOKIE), 'session', claim.epoch);
 }
 
 /** The actor in a server component or server action, from the incoming request's headers. */

@@ -14,6 +14,12 @@ const envSchema = z.object({
   MAIL_FROM: z.string().min(3),
   /** The SMTP fake's web view; only set in development and tests. */
   MAIL_OUTBOX_URL: z.url().optional(),
+  /**
+   * 'true' only when a proxy of ours sits in front and sets X-Forwarded-For / X-Forwarded-Host:
+   * then the client address and the request's host are read from them. Otherwise both headers
+   * are ignored (a client could write them) and the socket and Host header count.
+   */
+  TRUST_PROXY: z.enum(['true', 'false'], 'must be true or false').default('false'),
   LOG_LEVEL: z.enum(['fatal', 'error', 'warn', 'info', 'debug', 'trace', 'silent']).default('info'),
   /** Object storage for photos and files. Leave S3_ENDPOINT unset for AWS S3 itself. */
   S3_ENDPOINT: z.url('must be the URL of an S3-compatible store, e.g. http://127.0.0.1:4569').optional(),

@@ -2,7 +2,15 @@
 import nodemailer, { type Transporter } from 'nodemailer';
 import { env } from '@/lib/env';
 
+/** Names the workspace whose action sent a message; the local fake keeps it so each outbox shows only its own. */
+export const WORKSPACE_MAIL_HEADER = 'X-Setwell-Workspace';
+
 export interface OutgoingMail {
+  /**
+   * The workspace whose action sent it, or null for mail that belongs to no workspace (password
+   * resets). Every sender says which, so no message lands in the wrong outbox by default.
+   */
+  workspaceId: string | null;
   to: string;
   subject: string;
   /** Every message has a plain-text part; html is optional. */
@@ -17,8 +25,8 @@ function transport(): Transporter {
   return cache.setwellMailer;
 }
 
-export async function sendMail(mail: OutgoingMail): Promise<void> {
-  await transport().sendMail({ from: env().MAIL_FROM, ...mail });
+export async function sendMail({ workspaceId, ...mail }: OutgoingMail): Promise<void> {
+  await transport().sendMail({ from: env().MAIL_FROM, ...mail, headers: workspaceId ? { [WORKSPACE_MAIL_HEADER]: workspaceId } : {} });
 }
 
 /** Escapes text for the small HTML parts of our e-mails. */

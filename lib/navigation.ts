@@ -23,6 +23,7 @@ export const NAV_ITEMS: NavItem[] = [
   { href: '/settings/profile', label: 'Profile & units', permission: 'account.self', group: 'settings' },
 ];
 
-export function navFor(role: Role): NavItem[] {
-  return NAV_ITEMS.filter((item) => can(role, item.permission));
+/** mailOutbox: false hides the outbox, which exists only with the local mail fake (lib/outbox.ts). */
+export function navFor(role: Role, { mailOutbox = true }: { mailOutbox?: boolean } = {}): NavItem[] {
+  return NAV_ITEMS.filter((item) => can(role, item.permission) && (mailOutbox || item.href !== '/settings/outbox'));
 }

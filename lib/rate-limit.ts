@@ -1,7 +1,8 @@
 /**
- * Sign-in throttling, with counters in PostgreSQL (rate-limiter-flexible's Postgres store)
- * so that several app servers share them. Failed attempts count; a success clears the
- * account's counter.
+ * Rate limits, with counters in PostgreSQL (rate-limiter-flexible's Postgres store) so that
+ * several app servers share them. Every limit counts the attempt first, in one statement
+ * (INSERT … ON CONFLICT DO UPDATE … RETURNING points), and refuses when the count is past the
+ * limit: parallel attempts cannot all pass a check before any of them is counted.
  */
 import { RateLimiterPostgres, RateLimiterRes } from 'rate-limiter-flexible';
 import { Pool } from 'pg';
@@ -13,17 +14,24 @@ export const SIGN_IN_LIMITS = {
   perIp: { points: 30, durationSeconds: 15 * 60 },
 } as const;
 
+/** Reset mails: a few per account, more per address (one office may share one). */
+export const RESET_LIMITS = {
+  perAccount: { points: 3, durationSeconds: 60 * 60 },
+  perIp: { points: 10, durationSeconds: 60 * 60 },
+} as const;
+
+export const JOIN_LIMIT = { points: 20, durationSeconds: 10 * 60 } as const;
+
 export class RateLimited extends Error {
-  constructor(readonly retryAfterSeconds: number) {
+  constructor(readonly retryAfterSeconds: number, what = 'sign-in attempts') {
     const minutes = Math.max(1, Math.ceil(retryAfterSeconds / 60));
-    super(`Too many sign-in attempts. Wait ${minutes} minute${minutes === 1 ? '' : 's'} and try again.`);
+    super(`Too many ${what}. Wait ${minutes} minute${minutes === 1 ? '' : 's'} and try again.`);
     this.name = 'RateLimited';
   }
 }
 
-export const JOIN_LIMIT = { points: 20, durationSeconds: 10 * 60 } as const;
-
-type Limiters = { account: RateLimiterPostgres; ip: RateLimiterPostgres; join: RateLimiterPostgres; pool: Pool };
+type LimiterName = 'signInAccount' | 'signInIp' | 'resetAccount' | 'resetIp' | 'join';
+type Limiters = Record<LimiterName, RateLimiterPostgres> & { pool: Pool };
 const cache = globalThis as unknown as { setwellLimiters?: Limiters };
 
 function limiters(): Limiters {
@@ -32,57 +40,62 @@ function limiters(): Limiters {
   // An idle client dies when PostgreSQL restarts; without a listener that error would end the process.
   pool.on('error', (err) => logger.warn({ err: err.message }, 'rate-limit pool lost a connection'));
   const common = { storeClient: pool, storeType: 'pool', tableName: 'rate_limits', tableCreated: true, clearExpiredByTimeout: false };
+  const limiter = (keyPrefix: string, limit: { points: number; durationSeconds: number }) =>
+    new RateLimiterPostgres({ ...common, keyPrefix, points: limit.points, duration: limit.durationSeconds });
   cache.setwellLimiters = {
     pool,
-    account: new RateLimiterPostgres({ ...common, keyPrefix: 'signin-account', points: SIGN_IN_LIMITS.perAccount.points, duration: SIGN_IN_LIMITS.perAccount.durationSeconds }),
-    ip: new RateLimiterPostgres({ ...common, keyPrefix: 'signin-ip', points: SIGN_IN_LIMITS.perIp.points, duration: SIGN_IN_LIMITS.perIp.durationSeconds }),
-    join: new RateLimiterPostgres({ ...common, keyPrefix: 'join-ip', points: JOIN_LIMIT.points, duration: JOIN_LIMIT.durationSeconds }),
+    signInAccount: limiter('signin-account', SIGN_IN_LIMITS.perAccount),
+    signInIp: limiter('signin-ip', SIGN_IN_LIMITS.perIp),
+    resetAccount: limiter('reset-account', RESET_LIMITS.perAccount),
+    resetIp: limiter('reset-ip', RESET_LIMITS.perIp),
+    join: limiter('join-ip', JOIN_LIMIT),
   };
   return cache.setwellLimiters;
 }
 
-async function remainingBlock(limiter: RateLimiterPostgres, key: string, points: number): Promise<number> {
-  const res = await limiter.get(key);
-  if (res && res.consumedPoints >= points) return Math.ceil(res.msBeforeNext / 1000);
-  return 0;
+/**
+ * Counts one attempt against every key and answers how long to wait when any of them is past
+ * its limit (0: allowed). Every key is counted even when one refuses, so a refused attempt is
+ * an attempt too.
+ */
+async function consume(keys: Array<[LimiterName, string]>): Promise<number> {
+  const l = limiters();
+  const waits = await Promise.all(
+    keys.map(([name, key]) =>
+      l[name].consume(key, 1).then(
+        () => 0,
+        (err: unknown) => {
+          if (err instanceof RateLimiterRes) return Math.max(1, Math.ceil(err.msBeforeNext / 1000));
+          throw err;
+        },
+      ),
+    ),
+  );
+  return Math.max(0, ...waits);
 }
 
-/** Throws RateLimited when the account or the address has used up its attempts. */
-export async function checkSignInAllowed(email: string, ip: string): Promise<void> {
-  const l = limiters();
-  const wait = Math.max(
-    await remainingBlock(l.account, email, SIGN_IN_LIMITS.perAccount.points),
-    await remainingBlock(l.ip, ip, SIGN_IN_LIMITS.perIp.points),
-  );
+/**
+ * Counts a sign-in attempt for the account and the address BEFORE the password is checked;
+ * throws RateLimited when either is past its limit. A success gives both back (signInSucceeded).
+ */
+export async function consumeSignInAttempt(email: string, address: string): Promise<void> {
+  const wait = await consume([['signInAccount', email], ['signInIp', address]]);
   if (wait > 0) throw new RateLimited(wait);
 }
 
-export async function recordSignInFailure(email: string, ip: string): Promise<void> {
+/** Only failures should stay counted: clear the account's counter and return the address's point. */
+export async function signInSucceeded(email: string, address: string): Promise<void> {
   const l = limiters();
-  await Promise.all([
-    l.account.penalty(email, 1).catch(ignoreLimit),
-    l.ip.penalty(ip, 1).catch(ignoreLimit),
-  ]);
+  await Promise.all([l.signInAccount.delete(email), l.signInIp.reward(address, 1)]);
 }
 
-export async function recordSignInSuccess(email: string): Promise<void> {
-  await limiters().account.delete(email);
-}
-
-function ignoreLimit(err: unknown) {
-  if (err instanceof RateLimiterRes) return;
-  throw err;
+/** True when another reset mail may go to this account from this address (the attempt is counted either way). */
+export async function consumeResetRequest(email: string, address: string): Promise<boolean> {
+  return (await consume([['resetAccount', email], ['resetIp', address]])) === 0;
 }
 
 /** Join-code guesses per address: every attempt counts, so codes cannot be walked. */
-export async function consumeJoinAttempt(ip: string): Promise<void> {
-  try {
-    await limiters().join.consume(ip, 1);
-  } catch (err) {
-    if (err instanceof RateLimiterRes) {
-      const minutes = Math.max(1, Math.ceil(err.msBeforeNext / 60000));
-      throw Object.assign(new Error(`Too many tries with join codes. Wait ${minutes} minute${minutes === 1 ? '' : 's'} and try again.`), { name: 'RateLimited', retryAfterSeconds: Math.ceil(err.msBeforeNext / 1000) });
-    }
-    throw err;
-  }
+export async function consumeJoinAttempt(address: string): Promise<void> {
+  const wait = await consume([['join', address]]);
+  if (wait > 0) throw new RateLimited(wait, 'tries with join codes');
 }

@@ -3,7 +3,11 @@
  * and a small JSON web view of them. The start command and the tests run it so no mail
  * ever leaves the machine. Never used in production: set SMTP_URL to a real relay there.
  *
- *   GET    /messages        newest first: [{ id, to, from, subject, text, html, date }]
+ *   GET    /messages        newest first: [{ id, to, from, subject, text, html, date, workspaceId }]
+ *
+ * workspaceId comes from the X-Setwell-Workspace header the app puts on a workspace's mail
+ * (null for mail of no workspace: password resets). This view shows everything, links included,
+ * to whoever can reach 127.0.0.1; the app's outbox page shows a workspace only its own, redacted.
  *   GET    /messages/:id
  *   DELETE /messages        empties the box (tests)
  */
@@ -21,6 +25,7 @@ interface StoredMessage {
   text: string;
   html: string;
   date: string;
+  workspaceId: string | null;
 }
 
 const smtpPort = Number(process.env.MAIL_FAKE_SMTP_PORT ?? 2525);
@@ -46,6 +51,10 @@ function persist() {
   fs.writeFileSync(storeFile, JSON.stringify(messages.slice(0, 500)));
 }
 
+function headerText(value: unknown): string | null {
+  return typeof value === 'string' && value.trim() ? value.trim() : null;
+}
+
 const smtp = new SMTPServer({
   authOptional: true,
   disabledCommands: ['STARTTLS'],
@@ -63,6 +72,7 @@ const smtp = new SMTPServer({
           text: parsed.text ?? '',
           html: typeof parsed.html === 'string' ? parsed.html : '',
           date: new Date().toISOString(),
+          workspaceId: headerText(parsed.headers.get('x-setwell-workspace')),
         });
         persist();
         callback();

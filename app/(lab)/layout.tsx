@@ -1,6 +1,7 @@
 import { AppShell } from '@/components/shell/AppShell';
 import { requirePage } from '@/lib/page-guard';
 import { navFor } from '@/lib/navigation';
+import { outboxAvailable } from '@/lib/outbox';
 import { listMyWorkspaces } from '@/lib/workspaces/queries';
 
 export const dynamic = 'force-dynamic';
@@ -10,7 +11,7 @@ export default async function LabLayout({ children }: { children: React.ReactNod
   const actor = await requirePage('account.self');
   const workspaces = await listMyWorkspaces(actor.userId);
   return (
-    <AppShell actor={actor} nav={navFor(actor.role)} workspaces={workspaces}>
+    <AppShell actor={actor} nav={navFor(actor.role, { mailOutbox: outboxAvailable() })} workspaces={workspaces}>
       {children}
     </AppShell>
   );

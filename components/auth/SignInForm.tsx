@@ -7,6 +7,7 @@ import Link from 'next/link';
 import { Field } from '@/components/ui/Field';
 import { Button } from '@/components/ui/Button';
 import { Notice } from '@/components/ui/Notice';
+import { SIGN_IN_ERRORS, signInErrorMessage } from '@/lib/sign-in-errors';
 
 export function SignInForm({ initialError }: { initialError?: string }) {
   const router = useRouter();
@@ -25,7 +26,7 @@ export function SignInForm({ initialError }: { initialError?: string }) {
     });
     setBusy(false);
     if (!res || res.error) {
-      setError(res?.error && res.error !== 'CredentialsSignin' ? res.error : 'That e-mail and password do not match an account.');
+      setError(signInErrorMessage(res?.error) ?? SIGN_IN_ERRORS.sign_in_failed);
       return;
     }
     router.replace('/home');

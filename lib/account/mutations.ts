@@ -1,4 +1,5 @@
 /** Signed-out account flows and the user's own preferences. */
+import type { EntityManager } from '@mikro-orm/postgresql';
 import { getEm } from '@/lib/db';
 import { Invitation, Membership, PasswordReset, User, Workspace } from '@/entities';
 import { hashPassword } from '@/lib/passwords';
@@ -6,6 +7,7 @@ import { hashSecret, newSecret } from '@/lib/secrets';
 import { sendMail, escapeHtml } from '@/lib/mail';
 import { env } from '@/lib/env';
 import { ValidationFailed } from '@/lib/api/errors';
+import { consumeResetRequest } from '@/lib/rate-limit';
 import type { Actor } from '@/lib/permissions';
 import type { AcceptInvitationInput, PreferencesInput, ResetPasswordInput } from './schema';
 
@@ -70,8 +72,12 @@ export async function acceptInvitation(input: AcceptInvitationInput): Promise<{ 
   });
 }
 
-/** Always succeeds from the caller's view, so the form does not reveal which e-mails have accounts. */
-export async function requestPasswordReset(email: string): Promise<void> {
+/**
+ * Always succeeds from the caller's view, so the form does not reveal which e-mails have accounts
+ * or that a limit was reached: past RESET_LIMITS (per account, per address) no mail is sent.
+ */
+export async function requestPasswordReset(email: string, address: string): Promise<void> {
+  if (!(await consumeResetRequest(email, address))) return;
   const em = await getEm();
   const user = await em.findOne(User, { email });
   if (!user?.passwordHash) return;
@@ -84,6 +90,8 @@ export async function requestPasswordReset(email: string): Promise<void> {
   await em.flush();
   const link = `${env().APP_URL}/reset-password/${token}`;
   await sendMail({
+    // Not a workspace's mail: no workspace's outbox ever shows it.
+    workspaceId: null,
     to: user.email,
     subject: 'Reset your Setwell password',
     text: [
@@ -98,19 +106,39 @@ export async function requestPasswordReset(email: string): Promise<void> {
   });
 }
 
+/**
+ * Uses the link once and sets the password. A new password ends everything that came before
+ * it: every session of the user (endSessions) and every other reset link still open.
+ */
 export async function resetPassword(input: ResetPasswordInput): Promise<void> {
   const em = await getEm();
   const passwordHash = await hashPassword(input.password);
   await em.transactional(async (tx) => {
+    const now = new Date();
     const claimed = await tx.nativeUpdate(
       PasswordReset,
-      { tokenHash: hashSecret(input.token), usedAt: null, expiresAt: { $gt: new Date() } },
-      { usedAt: new Date() },
+      { tokenHash: hashSecret(input.token), usedAt: null, expiresAt: { $gt: now } },
+      { usedAt: now },
     );
     if (claimed !== 1) throw linkInvalid();
     const reset = await tx.findOneOrFail(PasswordReset, { tokenHash: hashSecret(input.token) });
-    await tx.nativeUpdate(User, { id: (reset.user as unknown as { id: string }).id }, { passwordHash });
+    const userId = (reset.user as unknown as { id: string }).id;
+    await tx.nativeUpdate(User, { id: userId }, { passwordHash });
+    await tx.nativeUpdate(PasswordReset, { user: userId, usedAt: null }, { usedAt: now });
+    await endSessions(tx, userId);
   });
+}
+
+/** Raises the user's session epoch: every session signed in before now stops working. */
+async function endSessions(em: EntityManager, userId: string): Promise<void> {
+  // em.execute runs inside em's transaction when there is one.
+  await em.execute('update "users" set "session_epoch" = "session_epoch" + 1 where "id" = ?', [userId]);
+}
+
+/** "Sign out everywhere": ends every session of the actor, this one included. API tokens stay. */
+export async function signOutEverywhere(actor: Actor): Promise<void> {
+  const em = await getEm();
+  await endSessions(em, actor.userId);
 }
 
 export async function updatePreferences(actor: Actor, input: PreferencesInput): Promise<void> {

@@ -7,6 +7,7 @@ import type { z } from 'zod';
 import { actorFromHeaders } from '@/lib/auth';
 import { authorize, notFound, type Actor, type Permission } from '@/lib/permissions';
 import { env } from '@/lib/env';
+import { requestHost } from '@/lib/client-address';
 import { isUuid } from '@/lib/ids';
 import { logger, pathForLog } from '@/lib/log';
 import { ApiError, describeError } from '@/lib/api/errors';
@@ -32,11 +33,11 @@ export function json(data: unknown, status = 200): Response {
 /**
  * Cookie-authenticated writes must come from our own origin (CSRF defence beyond SameSite):
  * the Origin header must match APP_URL or the host the request was addressed to, as Next.js
- * itself checks for server actions.
+ * itself checks for server actions. X-Forwarded-Host counts only behind a trusted proxy.
  */
 export function assertSameOrigin(headers: Headers): void {
   const origin = headers.get('origin');
-  const host = headers.get('x-forwarded-host') ?? headers.get('host');
+  const host = requestHost(headers);
   let originHost: string | undefined;
   try {
     originHost = origin ? new URL(origin).host : undefined;

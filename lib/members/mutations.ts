@@ -36,6 +36,7 @@ export async function inviteMember(actor: Actor, input: InviteMemberInput): Prom
   const link = `${env().APP_URL}/accept-invite/${token}`;
   const role = ROLE_LABELS[input.role];
   await sendMail({
+    workspaceId: actor.workspaceId,
     to: input.email,
     subject: `${actor.name} invited you to ${workspace.name} on Setwell`,
     text: [

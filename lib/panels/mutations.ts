@@ -157,6 +157,7 @@ export async function inviteStaffTasters(actor: Actor, sessionId: string, userId
     const { token } = await em.transactional((tx) => addSeat(tx, sessionId, { kind: 'staff', userId: user.id, displayName: user.name }));
     const link = `${env().APP_URL}/t/${token}`;
     await sendMail({
+      workspaceId: actor.workspaceId,
       to: user.email,
       subject: `Tasting: ${session.title}`,
       text: [`You are seated at the tasting “${session.title}”${session.place ? ` in ${session.place}` : ''}.`, '', 'Open this link on your phone when the samples arrive (it is yours alone; do not forward it):', link].join('\n'),

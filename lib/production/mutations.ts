@@ -32,11 +32,12 @@ async function audit(
 }
 
 /** Mail is a courtesy: the in-app queue is the record, so a mail failure never undoes the step. */
-async function notify(to: string[], subject: string, lines: string[], link: string): Promise<void> {
+async function notify(actor: Actor, to: string[], subject: string, lines: string[], link: string): Promise<void> {
   const url = `${env().APP_URL}${link}`;
   for (const address of to) {
     try {
       await sendMail({
+        workspaceId: actor.workspaceId,
         to: address, subject,
         text: `${lines.join('\n\n')}\n\n${url}\n`,
         html: `${lines.map((l) => `<p>${escapeHtml(l)}</p>`).join('')}<p><a href="${escapeHtml(url)}">${escapeHtml(url)}</a></p>`,
@@ -131,7 +132,7 @@ export async function requestPromotion(actor: Actor, input: RequestPromotionInpu
     return { requestId: request.id, code: promotionCode(request.number) };
   });
 
-  await notify(await headsOfProduct(em, actor), `Promotion ${result.code} awaits your review`, [
+  await notify(actor, await headsOfProduct(em, actor), `Promotion ${result.code} awaits your review`, [
     `${actor.name} asks to put variant ${variant.label} of ${trialCode(trial.number)} “${trial.title}” into production.`,
     `Reason given: ${input.rationale}`,
   ], `/production/reviews/${result.requestId}`);
@@ -204,7 +205,7 @@ export async function decidePromotion(actor: Actor, requestId: string, input: De
 
   const requester = await em.fork().findOne(Membership, { ...inWorkspace(actor), user: outcome.requestedById }, { populate: ['user'] }) as unknown as { user: { email: string } } | null;
   if (requester) {
-    await notify([requester.user.email],
+    await notify(actor, [requester.user.email],
       outcome.status === 'approved' ? `Promotion ${outcome.code} approved` : `Promotion ${outcome.code} sent back`,
       [outcome.status === 'approved'
         ? `${actor.name} approved ${outcome.code}; it is now the production version.`

@@ -177,6 +177,8 @@ export interface ActionCase {
   args?: (a: WorkspaceFixture) => unknown[];
   /** The same, when building them needs the database. */
   argsAsync?: (a: WorkspaceFixture) => Promise<unknown[]>;
+  /** Run each role's call as a new person of that role: the action ends the caller's own sessions. */
+  endsCallersSessions?: boolean;
 }
 
 function form(fields: Record<string, string>): FormData {
@@ -197,6 +199,7 @@ export const ACTION_CASES: ActionCase[] = [
     args: () => [null, form({ name: 'Same Name', massUnits: 'metric', temperatureUnit: 'C' })],
   },
   { action: 'lib/workspaces/actions.ts#switchWorkspaceAction', allowed: ALL, otherWorkspace: 404, args: (a) => [a.workspaceId] },
+  { action: 'lib/account/actions.ts#signOutEverywhereAction', allowed: ALL, otherWorkspace: 'own-data', args: () => [], endsCallersSessions: true },
 ];
 
 ACTION_CASES.push(

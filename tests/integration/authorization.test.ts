@@ -7,7 +7,7 @@
 import { describe, it, expect, beforeAll } from 'vitest';
 import fs from 'node:fs';
 import path from 'node:path';
-import { createWorkspace, callRoute, asCaller, type WorkspaceFixture, type Caller, type Person } from './harness';
+import { createWorkspace, callRoute, asCaller, addPerson, type WorkspaceFixture, type Caller, type Person } from './harness';
 import { ROUTE_CASES, EXEMPT_ROUTES, BENCH_ONLY_ROUTES, ACTION_CASES, type RouteCase } from './access-table';
 import { ROOT, walk, discoverRoutes, operationKey } from './routes';
 import { API_OPERATIONS } from '@/lib/api/openapi';
@@ -158,7 +158,8 @@ describe.each(ACTION_CASES)('$action', (c) => {
 
   it.each([...ROLES])('as %s: allowed, or 403', async (role) => {
     if (c.allowed === 'public') return;
-    const res = await run({ kind: 'session', person: a.people[role] });
+    const person = c.endsCallersSessions ? await addPerson(a, role) : a.people[role];
+    const res = await run({ kind: 'session', person });
     if (c.allowed.includes(role)) expect(res.ok, JSON.stringify(res)).toBe(true);
     else expect(res).toMatchObject({ ok: false, status: 403 });
   });

@@ -5,12 +5,14 @@
  */
 import { afterAll, vi } from 'vitest';
 import { randomUUID } from 'node:crypto';
+import { createRequire } from 'node:module';
+import path from 'node:path';
 import { encode } from 'next-auth/jwt';
 import { getEm, closeOrm } from '@/lib/db';
 import { Membership, User, Workspace, ApiToken } from '@/entities';
 import { hashPassword } from '@/lib/passwords';
 import { hashSecret, newSecret } from '@/lib/secrets';
-import { API_TOKEN_PREFIX } from '@/lib/auth';
+import { API_TOKEN_PREFIX, type authOptions } from '@/lib/auth';
 import { ROLES, type Actor, type Role } from '@/lib/permissions';
 import { addStarterLibrary } from '@/lib/ingredients/mutations';
 import { addDefaultAttributes } from '@/lib/panels/mutations';
@@ -76,6 +78,19 @@ export async function createWorkspace(label = 'Test kitchen'): Promise<Workspace
     people[c.role] = { userId: c.user.id, email: c.email, role: c.role, token: c.token, sessionCookie: await sessionCookieFor(c.user.id) };
   }
   return { workspaceId: workspace.id, name: workspace.name, people };
+}
+
+/** One more person with the role in an existing workspace (for calls that end the caller's own sessions). */
+export async function addPerson(fx: WorkspaceFixture, role: Role): Promise<Person> {
+  const em = await getEm();
+  const tag = randomUUID().slice(0, 8);
+  const email = `${role}.extra.${tag}@test.example`;
+  const user = em.create(User, { email, name: `${role} extra ${tag}`, passwordHash: await hashPassword(TEST_PASSWORD) } as never) as unknown as { id: string };
+  em.create(Membership, { workspace: fx.workspaceId, user, role } as never);
+  const token = newSecret(API_TOKEN_PREFIX);
+  em.create(ApiToken, { workspace: fx.workspaceId, user, label: 'test', displayPrefix: token.slice(0, 10), tokenHash: hashSecret(token) } as never);
+  await em.flush();
+  return { userId: user.id, email, role, token, sessionCookie: await sessionCookieFor(user.id) };
 }
 
 export type Caller = { kind: 'outsider' } | { kind: 'session'; person: Person } | { kind: 'token'; person: Person };
@@ -177,4 +192,44 @@ export function actorOf(fx: WorkspaceFixture, role: Role): Actor {
     userId: p.userId, email: p.email, name: `${role} person`, workspaceId: fx.workspaceId, workspaceName: fx.name,
     role, via: 'session', massUnits: 'metric', temperatureUnit: 'C',
   };
+}
+
+export type AuthCookie = { name: string; value: string; options: { httpOnly?: boolean; sameSite?: string; secure?: boolean; path?: string } };
+type AuthResponse = { status?: number; redirect?: string; cookies?: AuthCookie[]; body?: unknown };
+// next-auth's framework-free core, which its Next.js handler wraps (not in the package's export map,
+// so it is loaded by file; next-auth is pinned to 4.24.15).
+const { AuthHandler } = createRequire(__filename)(path.resolve(__dirname, '../../node_modules/next-auth/core/index.js')) as {
+  AuthHandler: (params: { req: Record<string, unknown>; options: ReturnType<typeof authOptions> }) => Promise<AuthResponse>;
+};
+
+/** Signs in through next-auth's own handler with our options, as the sign-in form does; returns its answer (redirect, cookies). */
+export async function signInThroughNextAuth(
+  options: ReturnType<typeof authOptions>,
+  credentials: { email: string; password: string },
+  headers: Record<string, string> = { 'x-forwarded-for': '192.0.2.10' },
+): Promise<AuthResponse & { cookies: AuthCookie[] }> {
+  const origin = new URL(process.env.NEXTAUTH_URL!).origin;
+  const csrf = await AuthHandler({ req: { action: 'csrf', method: 'GET', origin, headers: {}, cookies: {} }, options });
+  const csrfCookie = csrf.cookies!.find((c) => c.name.endsWith('next-auth.csrf-token'))!;
+  const res = await AuthHandler({
+    req: {
+      action: 'callback',
+      providerId: 'credentials',
+      method: 'POST',
+      origin,
+      headers,
+      cookies: { [csrfCookie.name]: csrfCookie.value },
+      body: { csrfToken: (csrf.body as { csrfToken: string }).csrfToken, ...credentials, json: 'true' },
+    },
+    options,
+  });
+  return { ...res, cookies: res.cookies ?? [] };
+}
+
+/** The session cookie a real sign-in sets, as a Cookie header value. */
+export async function signedInCookie(options: ReturnType<typeof authOptions>, email: string, password = TEST_PASSWORD): Promise<string> {
+  const res = await signInThroughNextAuth(options, { email, password }, { 'x-forwarded-for': `192.0.2.${Math.floor(Math.random() * 200) + 20}` });
+  const session = res.cookies.find((c) => c.name.endsWith('next-auth.session-token'));
+  if (!session) throw new Error(`sign-in of ${email} set no session cookie (${res.redirect ?? res.status})`);
+  return `${session.name}=${session.value}`;
 }

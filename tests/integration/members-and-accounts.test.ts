@@ -1,13 +1,13 @@
 /** Members admin, invitations, password resets and sign-in throttling against the real database and mail fake. */
 import { describe, it, expect, beforeAll } from 'vitest';
-import { createWorkspace, callRoute, waitForMail, type WorkspaceFixture } from './harness';
+import { createWorkspace, callRoute, waitForMail, asCaller, type WorkspaceFixture } from './harness';
 import * as membersRoute from '@/app/api/v1/members/route';
 import * as memberRoute from '@/app/api/v1/members/[membershipId]/route';
 import { acceptInvitationAction, requestPasswordResetAction, resetPasswordAction } from '@/lib/account/actions';
 import { getEm } from '@/lib/db';
 import { Invitation, Membership, User } from '@/entities';
 import { verifyPassword } from '@/lib/passwords';
-import { checkSignInAllowed, recordSignInFailure, recordSignInSuccess, RateLimited, SIGN_IN_LIMITS } from '@/lib/rate-limit';
+import { consumeSignInAttempt, signInSucceeded, RateLimited, SIGN_IN_LIMITS } from '@/lib/rate-limit';
 
 let a: WorkspaceFixture;
 beforeAll(async () => {
@@ -130,7 +130,7 @@ describe('the last administrator', () => {
 describe('password reset', () => {
   it('mails a single-use link and changes the password', async () => {
     const person = a.people.head_of_product;
-    const asked = await requestPasswordResetAction(null, form({ email: person.email.toUpperCase() }));
+    const asked = await asCaller({ kind: 'outsider' }, () => requestPasswordResetAction(null, form({ email: person.email.toUpperCase() })), { 'x-forwarded-for': '192.0.2.61' });
     expect(asked.ok).toBe(true);
     const token = linkToken((await waitForMail(person.email)).text, 'reset-password');
 
@@ -148,37 +148,37 @@ describe('password reset', () => {
   });
 
   it('answers the same for an unknown address and sends nothing', async () => {
-    const res = await requestPasswordResetAction(null, form({ email: 'nobody.here@test.example' }));
+    const res = await asCaller({ kind: 'outsider' }, () => requestPasswordResetAction(null, form({ email: 'nobody.here@test.example' })), { 'x-forwarded-for': '192.0.2.62' });
     expect(res.ok).toBe(true);
     await expect(waitForMail('nobody.here@test.example', 500)).rejects.toThrow();
   });
 });
 
 describe('sign-in throttling', () => {
-  it(`blocks an account after ${SIGN_IN_LIMITS.perAccount.points} failures, with a wait time in the message`, async () => {
+  // Every attempt is counted before the password is checked (see account-security.test.ts for the race).
+  it(`blocks an account after ${SIGN_IN_LIMITS.perAccount.points} attempts, with a wait time in the message`, async () => {
     const email = `throttle.${Date.now()}@test.example`;
     for (let i = 0; i < SIGN_IN_LIMITS.perAccount.points; i++) {
-      await expect(checkSignInAllowed(email, '203.0.113.7')).resolves.toBeUndefined();
-      await recordSignInFailure(email, '203.0.113.7');
+      await expect(consumeSignInAttempt(email, '203.0.113.7')).resolves.toBeUndefined();
     }
-    const blocked = await checkSignInAllowed(email, '203.0.113.7').catch((e) => e);
+    const blocked = await consumeSignInAttempt(email, '203.0.113.7').catch((e: unknown) => e);
     expect(blocked).toBeInstanceOf(RateLimited);
-    expect(blocked.message).toMatch(/Wait \d+ minutes?/);
+    expect((blocked as Error).message).toMatch(/Wait \d+ minutes?/);
     // Another account from another address is unaffected.
-    await expect(checkSignInAllowed(`other.${email}`, '203.0.113.8')).resolves.toBeUndefined();
+    await expect(consumeSignInAttempt(`other.${email}`, '203.0.113.8')).resolves.toBeUndefined();
   });
 
-  it(`blocks an address after ${SIGN_IN_LIMITS.perIp.points} failures across accounts`, async () => {
+  it(`blocks an address after ${SIGN_IN_LIMITS.perIp.points} attempts across accounts`, async () => {
     const ip = '198.51.100.23';
-    for (let i = 0; i < SIGN_IN_LIMITS.perIp.points; i++) await recordSignInFailure(`spray${i}.${Date.now()}@test.example`, ip);
-    await expect(checkSignInAllowed('fresh@test.example', ip)).rejects.toBeInstanceOf(RateLimited);
+    for (let i = 0; i < SIGN_IN_LIMITS.perIp.points; i++) await consumeSignInAttempt(`spray${i}.${Date.now()}@test.example`, ip);
+    await expect(consumeSignInAttempt('fresh@test.example', ip)).rejects.toBeInstanceOf(RateLimited);
   });
 
-  it('a success clears the account counter', async () => {
+  it('a success clears the account counter and gives the address its attempt back', async () => {
     const email = `recover.${Date.now()}@test.example`;
-    for (let i = 0; i < SIGN_IN_LIMITS.perAccount.points - 1; i++) await recordSignInFailure(email, '192.0.2.50');
-    await recordSignInSuccess(email);
-    await recordSignInFailure(email, '192.0.2.51');
-    await expect(checkSignInAllowed(email, '192.0.2.52')).resolves.toBeUndefined();
+    for (let i = 0; i < SIGN_IN_LIMITS.perAccount.points - 1; i++) await consumeSignInAttempt(email, '192.0.2.50');
+    await signInSucceeded(email, '192.0.2.50');
+    for (let i = 0; i < SIGN_IN_LIMITS.perAccount.points; i++) await expect(consumeSignInAttempt(email, '192.0.2.52')).resolves.toBeUndefined();
+    await expect(consumeSignInAttempt(email, '192.0.2.52')).rejects.toBeInstanceOf(RateLimited);
   });
 });

@@ -17,9 +17,7 @@
  */
 import { describe, it, expect, beforeAll } from 'vitest';
 // The harness first: its next/headers and next/cache mocks must be in place before the actions load.
-import { asCaller, callRoute, createWorkspace, lastSetCookies, waitForMail, TEST_PASSWORD, type WorkspaceFixture } from './harness';
-import { createRequire } from 'node:module';
-import path from 'node:path';
+import { asCaller, callRoute, createWorkspace, lastSetCookies, waitForMail, signInThroughNextAuth, TEST_PASSWORD, type WorkspaceFixture } from './harness';
 import { createHash } from 'node:crypto';
 import { getEm } from '@/lib/db';
 import { ApiToken, PanelSeat, PasswordReset, User } from '@/entities';
@@ -30,14 +28,6 @@ import { switchWorkspaceAction } from '@/lib/workspaces/actions';
 import * as tokensRoute from '@/app/api/v1/tokens/route';
 import * as joinRoute from '@/app/api/v1/tasting/join/route';
 import { panelFixture } from './access-panels';
-
-type AuthCookie = { name: string; value: string; options: { httpOnly?: boolean; sameSite?: string; secure?: boolean; path?: string } };
-type AuthResponse = { cookies?: AuthCookie[]; body?: unknown };
-// next-auth's framework-free core, which its Next.js handler wraps (not in the package's export map,
-// so it is loaded by file; next-auth is pinned to 4.24.15).
-const { AuthHandler } = createRequire(__filename)(path.resolve(__dirname, '../../node_modules/next-auth/core/index.js')) as {
-  AuthHandler: (params: { req: Record<string, unknown>; options: ReturnType<typeof authOptions> }) => Promise<AuthResponse>;
-};
 
 const sha256 = (s: string) => createHash('sha256').update(s).digest('hex');
 
@@ -61,22 +51,7 @@ async function rowText(table: string, id: string): Promise<string> {
 describe('session cookie', () => {
   // next-auth's own handler, given our options: sign in with the credentials provider and read the cookie it sets.
   async function signInCookies(options: ReturnType<typeof authOptions>) {
-    const origin = new URL(process.env.NEXTAUTH_URL!).origin;
-    const csrf = await AuthHandler({ req: { action: 'csrf', method: 'GET', origin, headers: {}, cookies: {} }, options });
-    const csrfCookie = csrf.cookies!.find((c) => c.name.endsWith('next-auth.csrf-token'))!;
-    const res = await AuthHandler({
-      req: {
-        action: 'callback',
-        providerId: 'credentials',
-        method: 'POST',
-        origin,
-        headers: { 'x-forwarded-for': '192.0.2.10' },
-        cookies: { [csrfCookie.name]: csrfCookie.value },
-        body: { csrfToken: (csrf.body as { csrfToken: string }).csrfToken, email: a.people.developer.email, password: TEST_PASSWORD, json: 'true' },
-      },
-      options,
-    });
-    return res.cookies ?? [];
+    return (await signInThroughNextAuth(options, { email: a.people.developer.email, password: TEST_PASSWORD })).cookies;
   }
 
   it('is HttpOnly and SameSite=Lax, and not Secure on plain http', async () => {
@@ -175,7 +150,7 @@ describe('secrets are stored as SHA-256 only', () => {
 
   it('a password-reset link: the mail carries it, the row holds only its hash', async () => {
     const person = a.people.head_of_product;
-    await asCaller({ kind: 'outsider' }, () => requestPasswordResetAction(null, form({ email: person.email })));
+    await asCaller({ kind: 'outsider' }, () => requestPasswordResetAction(null, form({ email: person.email })), { 'x-forwarded-for': '192.0.2.63' });
     const token = /reset-password\/([A-Za-z0-9_-]+)/.exec((await waitForMail(person.email)).text)![1];
     const row = await (await getEm()).findOneOrFail(PasswordReset, { tokenHash: sha256(token) });
     expect(await rowText('password_resets', row.id)).not.toContain(token);

@@ -1,6 +1,7 @@
 import Link from 'next/link';
 import { requirePage } from '@/lib/page-guard';
 import { navFor } from '@/lib/navigation';
+import { outboxAvailable } from '@/lib/outbox';
 import { PageHeader, Card } from '@/components/ui/Card';
 import { ROLE_LABELS, can, type Role } from '@/lib/permissions';
 import { listProducts, reviewQueue } from '@/lib/production/queries';
@@ -19,7 +20,7 @@ const ROLE_LEADS: Record<Role, string> = {
 
 export default async function HomePage() {
   const actor = await requirePage('account.self');
-  const shortcuts = navFor(actor.role).filter((n) => n.href !== '/home');
+  const shortcuts = navFor(actor.role, { mailOutbox: outboxAvailable() }).filter((n) => n.href !== '/home');
   // What waits for this person: the review queue for a decider, the products for the kitchen.
   const queue = can(actor.role, 'promotion.decide') ? (await reviewQueue(actor)).filter((r) => !r.ownRequest) : [];
   const kitchen = can(actor.role, 'batches.record') ? (await listProducts(actor)).filter((p) => p.current) : [];
