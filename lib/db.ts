@@ -44,6 +44,16 @@ export async function getEm(): Promise<EntityManager> {
   return (await getOrm()).em.fork();
 }
 
+/**
+ * Serialises writers on `key` until the transaction ends. The lock must be taken on the
+ * transaction's own connection (`tx.execute`): `tx.getConnection().execute` borrows another pooled
+ * connection, where the lock is released as soon as that statement commits.
+ */
+export async function lockForTransaction(tx: EntityManager, key: string): Promise<void> {
+  if (!tx.isInTransaction()) throw new Error('lockForTransaction needs the EntityManager of a running transaction.');
+  await tx.execute('select pg_advisory_xact_lock(hashtext(?))', [key]);
+}
+
 export async function closeOrm(): Promise<void> {
   await closeSqlPool();
   if (!cache.setwellOrm) return;
