@@ -9,8 +9,8 @@ import { logger, withoutStatement } from '@/lib/log';
  *
  * After a PostgreSQL restart the pool drops its dead connections by itself (knex marks a
  * connection disposed on its 'error'/'end' event and validates on acquire); requests that were
- * running at that moment fail once with a 500, and the phone's queue resends them with the same
- * idempotency key. scripts/soak.ts checks this under load.
+ * running at that moment fail once with a 503 and Retry-After (lib/api/errors.ts), and the phone's
+ * queue resends them with the same idempotency key. scripts/soak.ts checks this under load.
  */
 const cache = globalThis as unknown as { setwellOrm?: Promise<MikroORM> };
 
