@@ -222,21 +222,15 @@ async function taster(seat: { token: string; seatId: string }, home: number, dou
       const question = `${seat.seatId}|${sample.code}|${attribute.id}`;
       let answer = { idempotencyKey: randomUUID(), code: sample.code, attributeId: attribute.id, value: randomValueOn(attribute.scale) };
       allKeys.push(answer.idempotencyKey);
-      if (changed.has(index)) {
-        // A change of mind: the first answer is acknowledged, then replaced; a copy of the first arrives late.
-        const first = answer;
+      const first = changed.has(index) ? answer : null;
+      if (first) {
+        // A change of mind: the first answer is acknowledged, then replaced; once the new one is
+        // acknowledged too, a copy of the first arrives late.
         await call<AnswerReply>(home, 'PUT', `${base}/answers`, first);
         counts.acknowledgedRequests++;
         answer = { ...first, idempotencyKey: randomUUID(), value: randomValueOn(attribute.scale) };
         allKeys.push(answer.idempotencyKey);
         staleKeys.set(question, first.idempotencyKey);
-        lateReplays.push((async () => {
-          await sleep(randomInt(STALE_REPLAY_DELAY_MS[0], STALE_REPLAY_DELAY_MS[1]));
-          counts.staleReplaysSent++;
-          const reply = await call<AnswerReply>(other, 'PUT', `${base}/answers`, first);
-          counts.acknowledgedRequests++;
-          if (reply.duplicate && reply.stale) counts.staleReplaysRecognised++;
-        })());
       }
       const current = answer;
       const send = (app: number) => call<AnswerReply>(app, 'PUT', `${base}/answers`, current);
@@ -253,6 +247,15 @@ async function taster(seat: { token: string; seatId: string }, home: number, dou
       }
       counts.acknowledgedRequests += twice ? 2 : 1;
       counts.acknowledgedAnswers++;
+      if (first) {
+        lateReplays.push((async () => {
+          await sleep(randomInt(STALE_REPLAY_DELAY_MS[0], STALE_REPLAY_DELAY_MS[1]));
+          counts.staleReplaysSent++;
+          const reply = await call<AnswerReply>(other, 'PUT', `${base}/answers`, first);
+          counts.acknowledgedRequests++;
+          if (reply.duplicate && reply.stale) counts.staleReplaysRecognised++;
+        })());
+      }
       acknowledged.set(question, { seatId: seat.seatId, code: sample.code, attributeId: attribute.id, value: answer.value, key: answer.idempotencyKey });
     }
   }
