@@ -7,7 +7,8 @@ import { PanelSeat } from './PanelSeat';
 /**
  * One answer. (seat, item, attribute) is unique in the database: item is the sample code
  * for ratings and '*' for a ranking or a triangle choice; attribute is '*' for triangles.
- * A retry with the same idempotency key changes nothing.
+ * A retry with any idempotency key it has had changes nothing, so a late replay of an older
+ * answer never overwrites a newer one.
  */
 export const PanelAnswer = defineEntity({
   name: 'PanelAnswer',
@@ -28,7 +29,10 @@ export const PanelAnswer = defineEntity({
     correct: p.boolean().nullable(),
     confidence: p.integer().nullable(),
     comment: p.text().nullable(),
+    /** The key of the request that set the current value. */
     idempotencyKey: p.uuid(),
+    /** Every key this answer has had, the current one last: a replay of any of them changes nothing. */
+    idempotencyKeys: p.array<string>().columnType('uuid[]'),
     createdAt: p.datetime().onCreate(() => new Date()),
     updatedAt: p.datetime().onCreate(() => new Date()),
   }),

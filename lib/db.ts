@@ -9,8 +9,8 @@ import { logger, withoutStatement } from '@/lib/log';
  *
  * After a PostgreSQL restart the pool drops its dead connections by itself (knex marks a
  * connection disposed on its 'error'/'end' event and validates on acquire); requests that were
- * running at that moment fail once with a 500, and the phone's queue resends them with the same
- * idempotency key. scripts/soak.ts checks this under load.
+ * running at that moment fail once with a 503 and Retry-After (lib/api/errors.ts), and the phone's
+ * queue resends them with the same idempotency key. scripts/soak.ts checks this under load.
  */
 const cache = globalThis as unknown as { setwellOrm?: Promise<MikroORM> };
 
@@ -42,6 +42,16 @@ export function getOrm(): Promise<MikroORM> {
 
 export async function getEm(): Promise<EntityManager> {
   return (await getOrm()).em.fork();
+}
+
+/**
+ * Serialises writers on `key` until the transaction ends. The lock must be taken on the
+ * transaction's own connection (`tx.execute`): `tx.getConnection().execute` borrows another pooled
+ * connection, where the lock is released as soon as that statement commits.
+ */
+export async function lockForTransaction(tx: EntityManager, key: string): Promise<void> {
+  if (!tx.isInTransaction()) throw new Error('lockForTransaction needs the EntityManager of a running transaction.');
+  await tx.execute('select pg_advisory_xact_lock(hashtext(?))', [key]);
 }
 
 export async function closeOrm(): Promise<void> {

@@ -53,11 +53,12 @@ async function buildSession(tasters: number): Promise<{ actor: Actor; sessionId:
     const rows: string[] = [];
     for (const [si, s] of samples.entries()) {
       for (const a of attrs) {
-        rows.push(`(gen_random_uuid(), ?, ?, ?, 'rating', ?, ?, ?, ?, gen_random_uuid(), now(), now())`);
-        values.push(ws, session, seat, s.code, a, s.id, 1 + ((t * 7 + si * 3 + a.charCodeAt(0)) % 9));
+        const key = randomUUID();
+        rows.push(`(gen_random_uuid(), ?, ?, ?, 'rating', ?, ?, ?, ?, ?, array[?]::uuid[], now(), now())`);
+        values.push(ws, session, seat, s.code, a, s.id, 1 + ((t * 7 + si * 3 + a.charCodeAt(0)) % 9), key, key);
       }
     }
-    await conn.execute(`insert into panel_answers (id, workspace_id, session_id, seat_id, kind, item, attribute, sample_id, value, idempotency_key, created_at, updated_at) values ${rows.join(',')}`, values);
+    await conn.execute(`insert into panel_answers (id, workspace_id, session_id, seat_id, kind, item, attribute, sample_id, value, idempotency_key, idempotency_keys, created_at, updated_at) values ${rows.join(',')}`, values);
   }
   const actor: Actor = { userId: user, email: '', name: 'Bench', workspaceId: ws, workspaceName: 'Bench', role: 'developer', via: 'session', massUnits: 'metric', temperatureUnit: 'C' };
   return { actor, sessionId: session };

@@ -5,16 +5,19 @@
  * 2. Every simulated taster, concurrently, does what the phone does over HTTP: reads its seat,
  *    consents, answers every sample × attribute with random pauses (PUT …/answers with an
  *    idempotency key), then submits. 10 % of answers are sent twice with the same key, half as a
- *    double tap (both at once) and half as a resend after the first reply.
+ *    double tap (both at once) and half as a resend after the first reply. Another 10 % are
+ *    changed (a new key and value after the first was acknowledged), and the first request is then
+ *    replayed late, 0.3–3 s on, as a network holding a copy would: it must be a 2xx and change nothing.
  *    Two app processes serve the one database, as behind a load balancer: tasters are spread over
  *    them, and every second copy and every retry goes to the other process, so a process that
  *    kept anything of its own would show here as a duplicate or a refusal.
  * 3. PostgreSQL is restarted once (pg_ctl restart -m fast) while requests are in flight. Clients
  *    retry a 5xx, a connection error or a timeout with backoff, as the phone's queue does; an
  *    answer counts as acknowledged only on a 2xx.
- * 4. The database must hold every acknowledged answer exactly once with its value and key, and
- *    nothing else; the app log must hold no seat token, token hash or idempotency key.
- * Prints the counts and exits non-zero on any loss, duplicate, stray row or leak.
+ * 4. The database must hold every acknowledged answer exactly once with its latest value and key,
+ *    none set back by a stale replay, and nothing else; the app log must hold no seat token, token
+ *    hash or idempotency key. 503s (the database away) are expected around the restart; a 500 is not.
+ * Prints the counts and exits non-zero on any loss, duplicate, regression, HTTP 500, stray row or leak.
  */
 import fs from 'node:fs';
 import path from 'node:path';
@@ -38,6 +41,9 @@ const PLAN = SHORT
   ? { tasters: 20, samples: 4, attributes: 3, pauseMs: [150, 900] as const }
   : { tasters: 200, samples: 6, attributes: 4, pauseMs: [50, 700] as const };
 const DUPLICATE_SHARE = 0.1;
+/** Share of answers changed once and then hit by a late replay of the first request. */
+const STALE_REPLAY_SHARE = 0.1;
+const STALE_REPLAY_DELAY_MS = [300, 3000] as const;
 /** The restart starts once this share of answers is acknowledged. */
 const RESTART_AT = 0.4;
 const MAX_ATTEMPTS = 12;
@@ -109,6 +115,13 @@ const counts = {
   acknowledgedRequests: 0,
   refused: 0,
   gaveUp: 0,
+  staleReplaysSent: 0,
+  /** Stale replays whose 2xx reply said duplicate and stale, as it must. */
+  staleReplaysRecognised: 0,
+  http500: 0,
+  http503: 0,
+  /** Any other 5xx status. */
+  httpOther5xx: 0,
 };
 /** Requests each app process answered (any status), to show both took their share. */
 const answeredBy = APPS.map(() => 0);
@@ -162,6 +175,9 @@ async function call<T>(home: number, method: 'GET' | 'POST' | 'PUT', url: string
         counts.refused++;
         throw Object.assign(new Error(`${method} ${url.replace(/sws_[\w-]+/, 'sws_…')} → ${res.status} ${text.slice(0, 200)}`), { final: true });
       }
+      if (res.status === 500) counts.http500++;
+      else if (res.status === 503) counts.http503++;
+      else counts.httpOther5xx++;
       kind = `HTTP ${res.status}`;
     } catch (err) {
       if ((err as { final?: boolean }).final) throw err;
@@ -180,6 +196,8 @@ async function call<T>(home: number, method: 'GET' | 'POST' | 'PUT', url: string
 
 interface Acknowledged { seatId: string; code: string; attributeId: string; value: number; key: string }
 const acknowledged = new Map<string, Acknowledged>();
+/** The first key of each changed answer, replayed late: the stored row must never carry it again. */
+const staleKeys = new Map<string, string>();
 const allKeys: string[] = [];
 
 function randomValueOn(scale: TasterView['attributes'][number]['scale']): number {
@@ -188,19 +206,34 @@ function randomValueOn(scale: TasterView['attributes'][number]['scale']): number
   return Number((scale.min + randomInt(steps + 1) * scale.step).toFixed(6));
 }
 
-async function taster(seat: { token: string; seatId: string }, home: number, doubled: Set<number>, firstIndex: number): Promise<void> {
+type AnswerReply = { stored: boolean; duplicate: boolean; stale: boolean };
+
+async function taster(seat: { token: string; seatId: string }, home: number, doubled: Set<number>, changed: Set<number>, firstIndex: number): Promise<void> {
   const base = `/api/v1/tasting/${seat.token}`;
   const other = home + 1;
   await pause();
   const view = await call<TasterView>(home, 'GET', base);
   await call(other, 'POST', `${base}/consent`);
   let index = firstIndex;
+  const lateReplays: Array<Promise<void>> = [];
   for (const sample of view.samples) {
     for (const attribute of view.attributes) {
       await pause();
-      const answer = { idempotencyKey: randomUUID(), code: sample.code, attributeId: attribute.id, value: randomValueOn(attribute.scale) };
+      const question = `${seat.seatId}|${sample.code}|${attribute.id}`;
+      let answer = { idempotencyKey: randomUUID(), code: sample.code, attributeId: attribute.id, value: randomValueOn(attribute.scale) };
       allKeys.push(answer.idempotencyKey);
-      const send = (app: number) => call<{ stored: boolean }>(app, 'PUT', `${base}/answers`, answer);
+      const first = changed.has(index) ? answer : null;
+      if (first) {
+        // A change of mind: the first answer is acknowledged, then replaced; once the new one is
+        // acknowledged too, a copy of the first arrives late.
+        await call<AnswerReply>(home, 'PUT', `${base}/answers`, first);
+        counts.acknowledgedRequests++;
+        answer = { ...first, idempotencyKey: randomUUID(), value: randomValueOn(attribute.scale) };
+        allKeys.push(answer.idempotencyKey);
+        staleKeys.set(question, first.idempotencyKey);
+      }
+      const current = answer;
+      const send = (app: number) => call<AnswerReply>(app, 'PUT', `${base}/answers`, current);
       const twice = doubled.has(index++);
       if (twice) counts.duplicatesSent++;
       if (twice && index % 2 === 0) {
@@ -214,9 +247,19 @@ async function taster(seat: { token: string; seatId: string }, home: number, dou
       }
       counts.acknowledgedRequests += twice ? 2 : 1;
       counts.acknowledgedAnswers++;
-      acknowledged.set(`${seat.seatId}|${sample.code}|${attribute.id}`, { seatId: seat.seatId, code: sample.code, attributeId: attribute.id, value: answer.value, key: answer.idempotencyKey });
+      if (first) {
+        lateReplays.push((async () => {
+          await sleep(randomInt(STALE_REPLAY_DELAY_MS[0], STALE_REPLAY_DELAY_MS[1]));
+          counts.staleReplaysSent++;
+          const reply = await call<AnswerReply>(other, 'PUT', `${base}/answers`, first);
+          counts.acknowledgedRequests++;
+          if (reply.duplicate && reply.stale) counts.staleReplaysRecognised++;
+        })());
+      }
+      acknowledged.set(question, { seatId: seat.seatId, code: sample.code, attributeId: attribute.id, value: answer.value, key: answer.idempotencyKey });
     }
   }
+  await Promise.all(lateReplays);
   await pause();
   await call(other, 'POST', `${base}/submit`);
 }
@@ -262,16 +305,18 @@ async function checkDatabase(sessionId: string) {
     const seats = await pool.query<{ submitted: number }>('select count(*) filter (where submitted_at is not null)::int as submitted from panel_seats where session_id = $1', [sessionId]);
     let missing = 0;
     let wrongValue = 0;
+    let regressed = 0;
     const stored = new Map<string, (typeof rows)[number]>();
     for (const r of rows) stored.set(`${r.seat_id}|${r.item}|${r.attribute}`, r);
     for (const [k, a] of acknowledged) {
       const r = stored.get(k);
       if (!r) missing++;
       else if (r.value !== a.value || r.idempotency_key !== a.key) wrongValue++;
+      if (r && r.idempotency_key === staleKeys.get(k)) regressed++;
     }
     const duplicated = rows.filter((r) => r.copies > 1).length;
     const extra = [...stored.keys()].filter((k) => !acknowledged.has(k)).length;
-    return { rowsStored: rows.length, missing, duplicated, wrongValue, extra, submitted: seats.rows[0].submitted };
+    return { rowsStored: rows.length, missing, duplicated, wrongValue, regressed, extra, submitted: seats.rows[0].submitted };
   } finally {
     await pool.end();
   }
@@ -299,13 +344,15 @@ async function main() {
   const total = PLAN.tasters * perTaster;
   const pick = new Set<number>();
   while (pick.size < Math.round(total * DUPLICATE_SHARE)) pick.add(randomInt(total));
+  const changed = new Set<number>();
+  while (changed.size < Math.round(total * STALE_REPLAY_SHARE)) changed.add(randomInt(total));
   console.log(`soak: ${PLAN.tasters} tasters × ${PLAN.samples} samples × ${PLAN.attributes} attributes = ${total} answers${SHORT ? ' (short)' : ''}, over ${APPS.length} app processes`);
 
   let finished = false;
   const load = Date.now();
   loadStartedAt = load;
   const restarter = restartPostgresWhenDue(total, () => finished);
-  const results = await Promise.allSettled(seats.map((s, i) => taster(s, i % APPS.length, pick, i * perTaster)));
+  const results = await Promise.allSettled(seats.map((s, i) => taster(s, i % APPS.length, pick, changed, i * perTaster)));
   finished = true;
   await restarter;
   const loadSeconds = (Date.now() - load) / 1000;
@@ -323,6 +370,10 @@ async function main() {
       `acknowledged ${counts.acknowledgedAnswers} answers (${counts.acknowledgedRequests} answer requests), ` +
       `rows stored ${db.rowsStored}, missing ${db.missing}, duplicated ${db.duplicated}, wrong value ${db.wrongValue}, extra ${db.extra}, ` +
       `seats submitted ${db.submitted}/${PLAN.tasters}`,
+  );
+  console.log(
+    `soak: stale replays sent ${counts.staleReplaysSent} (answered duplicate and stale ${counts.staleReplaysRecognised}), regressed by stale replays ${db.regressed}; ` +
+      `HTTP 500 ${counts.http500}, HTTP 503 ${counts.http503}, other 5xx ${counts.httpOther5xx}`,
   );
   console.log(
     restart.done
@@ -344,6 +395,10 @@ async function main() {
     ...(db.missing ? [`${db.missing} acknowledged answers are missing`] : []),
     ...(db.duplicated ? [`${db.duplicated} rows are duplicates`] : []),
     ...(db.wrongValue ? [`${db.wrongValue} rows hold another value or key than acknowledged`] : []),
+    ...(db.regressed ? [`${db.regressed} answers were set back by a stale replay`] : []),
+    ...(counts.staleReplaysRecognised !== counts.staleReplaysSent ? [`${counts.staleReplaysSent - counts.staleReplaysRecognised} stale replays were not answered as duplicate and stale`] : []),
+    ...(counts.http500 ? [`${counts.http500} requests got HTTP 500 (the database being away is a 503)`] : []),
+    ...(counts.httpOther5xx ? [`${counts.httpOther5xx} requests got a 5xx other than 503`] : []),
     ...(db.extra ? [`${db.extra} rows were never acknowledged`] : []),
     ...(db.rowsStored !== counts.acknowledgedAnswers ? [`${db.rowsStored} rows for ${counts.acknowledgedAnswers} acknowledged answers`] : []),
     ...(db.submitted !== PLAN.tasters ? [`${PLAN.tasters - db.submitted} seats are not submitted`] : []),

@@ -26,8 +26,16 @@ const WRITE_METHODS = new Set(['POST', 'PUT', 'PATCH', 'DELETE']);
 /** The largest JSON body any handler reads (bytes). */
 export const MAX_BODY_BYTES = 1_000_000;
 
-export function json(data: unknown, status = 200): Response {
-  return Response.json(data, { status, headers: { 'cache-control': 'no-store' } });
+export function json(data: unknown, status = 200, headers: Record<string, string> = {}): Response {
+  return Response.json(data, { status, headers: { 'cache-control': 'no-store', ...headers } });
+}
+
+/** The error response of both adapters: the one shape, its status and headers (Retry-After on 503). */
+function errorResponse(req: Request, err: unknown): Response {
+  const { status, body, headers } = describeError(err);
+  if (status === 503) logger.warn({ err, path: pathForLog(req.url), method: req.method }, 'database unavailable');
+  else if (status >= 500) logger.error({ err, path: pathForLog(req.url), method: req.method }, 'api handler failed');
+  return json(body, status, headers);
 }
 
 /**
@@ -60,9 +68,7 @@ export function apiRoute<P = Record<string, never>>(
       const params = (routeContext ? await routeContext.params : {}) as P;
       return await handler({ req, actor: actor!, params, body: (schema) => readBody(req, schema) });
     } catch (err) {
-      const { status, body } = describeError(err);
-      if (status >= 500) logger.error({ err, path: pathForLog(req.url), method: req.method }, 'api handler failed');
-      return json(body, status);
+      return errorResponse(req, err);
     }
   };
 }
@@ -77,9 +83,7 @@ export function publicRoute<P = Record<string, never>>(handler: (ctx: Omit<ApiCo
       const params = (routeContext ? await routeContext.params : {}) as P;
       return await handler({ req, params, body: (schema) => readBody(req, schema) });
     } catch (err) {
-      const { status, body } = describeError(err);
-      if (status >= 500) logger.error({ err, path: pathForLog(req.url), method: req.method }, 'api handler failed');
-      return json(body, status);
+      return errorResponse(req, err);
     }
   };
 }

@@ -83,11 +83,6 @@ export async function recordConsent(token: string): Promise<void> {
   await em.nativeUpdate(PanelSeat, { id: seat.id, consentedAt: null }, { consentedAt: new Date() });
 }
 
-/**
- * Stores one answer exactly once. A single upsert keyed on (seat, item, attribute) keeps the
- * hot path to one statement; a retry with the same idempotency key changes nothing, and a
- * later change of mind (a new key) replaces the earlier value while the session is open.
- */
 type AnswerContext = { seat: SeatRow; session: SessionRow; scales: Map<string, SensoryScale> };
 
 /**
@@ -115,7 +110,14 @@ async function answerContext(token: string): Promise<AnswerContext> {
   return { seat, session, scales: new Map(Object.entries(r.scales)) };
 }
 
-export async function recordAnswer(token: string, input: AnswerInput): Promise<{ stored: true; duplicate: boolean }> {
+/**
+ * Stores one answer exactly once, and only forward. A single upsert keyed on (seat, item,
+ * attribute) keeps the hot path to one statement. The row keeps every idempotency key it has
+ * had: a retry or a late replay of any of them changes nothing (`duplicate`; `stale` when a newer
+ * answer has replaced it since), while a change of mind (a new key) replaces the value as long as
+ * the session is open. Both replies are 2xx, so the phone stops resending.
+ */
+export async function recordAnswer(token: string, input: AnswerInput): Promise<{ stored: true; duplicate: boolean; stale: boolean }> {
   const { seat, session, scales } = await answerContext(token);
   if (session.state !== 'open') throw closed();
   if (!seat.consentedAt) throw new ApiError(409, 'no_consent', 'Read and accept the notice before the first sample.');
@@ -145,24 +147,31 @@ export async function recordAnswer(token: string, input: AnswerInput): Promise<{
   }
 
   const result = await sql(
-    `insert into panel_answers (id, workspace_id, session_id, seat_id, kind, item, attribute, sample_id, value, ranking, odd_code, correct, confidence, comment, idempotency_key, created_at, updated_at)
-     values (gen_random_uuid(), $1, $2, $3, $4, $5, $6, $7, $8, $9::jsonb, $10, $11, $12, $13, $14, now(), now())
+    `insert into panel_answers (id, workspace_id, session_id, seat_id, kind, item, attribute, sample_id, value, ranking, odd_code, correct, confidence, comment, idempotency_key, idempotency_keys, created_at, updated_at)
+     values (gen_random_uuid(), $1, $2, $3, $4, $5, $6, $7, $8, $9::jsonb, $10, $11, $12, $13, $14, array[$14::uuid], now(), now())
      on conflict (seat_id, item, attribute) do update set
        value = excluded.value, ranking = excluded.ranking, odd_code = excluded.odd_code, correct = excluded.correct,
-       confidence = excluded.confidence, comment = excluded.comment, idempotency_key = excluded.idempotency_key, updated_at = now()
-     where panel_answers.idempotency_key <> excluded.idempotency_key
+       confidence = excluded.confidence, comment = excluded.comment, idempotency_key = excluded.idempotency_key,
+       idempotency_keys = panel_answers.idempotency_keys || excluded.idempotency_key, updated_at = now()
+     where excluded.idempotency_key <> all(panel_answers.idempotency_keys)
        and exists (select 1 from panel_sessions s where s.id = panel_answers.session_id and s.state = 'open')
      returning (xmax = 0) as inserted`,
     [seat.workspace.id, seat.session.id, seat.id, row.kind, row.item, row.attribute, row.sampleId, row.value, row.ranking ? JSON.stringify(row.ranking) : null, row.oddCode, row.correct, row.confidence, row.comment, input.idempotencyKey],
     'setwell_store_answer',
   );
-  // No row back: the same idempotency key was already stored (a retry), or the session closed meanwhile.
+  // No row back: this key was stored before (a retry, or a late replay of an older answer), or the session closed meanwhile.
   if (result.length === 0) {
-    const still = await (await getEm()).findOneOrFail(PanelSession, { id: seat.session.id });
-    if (still.state !== 'open') throw closed();
-    return { stored: true, duplicate: true };
+    const [replay] = await sql<{ state: SessionRow['state']; current_key: string | null }>(
+      `select s.state, a.idempotency_key as current_key
+         from panel_sessions s left join panel_answers a on a.seat_id = $2 and a.item = $3 and a.attribute = $4
+        where s.id = $1`,
+      [seat.session.id, seat.id, row.item, row.attribute],
+      'setwell_answer_replay',
+    );
+    if (replay?.state !== 'open') throw closed();
+    return { stored: true, duplicate: true, stale: replay.current_key !== input.idempotencyKey };
   }
-  return { stored: true, duplicate: false };
+  return { stored: true, duplicate: false, stale: false };
 }
 
 export async function submitSeat(token: string): Promise<void> {

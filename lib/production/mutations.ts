@@ -5,7 +5,7 @@
  */
 import type { EntityManager } from '@mikro-orm/postgresql';
 import { LockMode } from '@mikro-orm/core';
-import { getEm } from '@/lib/db';
+import { getEm, lockForTransaction } from '@/lib/db';
 import { AuditEvent, BatchRecord, Membership, Product, ProductionFormula, PromotionRequest, Trial, Variant } from '@/entities';
 import { authorizeDecision, inWorkspace, notFound, AccessDenied, type Actor } from '@/lib/permissions';
 import { Conflict, ValidationFailed } from '@/lib/api/errors';
@@ -115,7 +115,7 @@ export async function requestPromotion(actor: Actor, input: RequestPromotionInpu
   }
 
   const result = await em.transactional(async (tx) => {
-    await tx.getConnection().execute('select pg_advisory_xact_lock(hashtext(?))', [`promotion-number:${actor.workspaceId}`]);
+    await lockForTransaction(tx, `promotion-number:${actor.workspaceId}`);
     if (await tx.count(PromotionRequest, { ...inWorkspace(actor), trial: trial.id, status: 'pending' })) {
       throw new Conflict('This trial already has a promotion request awaiting review: withdraw it or wait for the decision.');
     }
@@ -176,7 +176,7 @@ export async function decidePromotion(actor: Actor, requestId: string, input: De
       request.product = productId as never;
     }
     // Serialise versioning per product; the one-current index is the backstop.
-    await tx.getConnection().execute('select pg_advisory_xact_lock(hashtext(?))', [`product-version:${productId}`]);
+    await lockForTransaction(tx, `product-version:${productId}`);
     const current = await tx.findOne(ProductionFormula, { ...inWorkspace(actor), product: productId, status: 'current' });
     const latest = await tx.findOne(ProductionFormula, { ...inWorkspace(actor), product: productId }, { orderBy: { version: 'desc' } });
     const version = (latest?.version ?? 0) + 1;

@@ -1,7 +1,7 @@
 /** Trial writes, shared by the server actions and the API. */
 import type { EntityManager } from '@mikro-orm/postgresql';
 import { LockMode } from '@mikro-orm/core';
-import { getEm } from '@/lib/db';
+import { getEm, lockForTransaction } from '@/lib/db';
 import { Formula, FormulaRevision, Measurement, Trial, TrialStatusChange, Variant } from '@/entities';
 import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
 import { Conflict, ValidationFailed } from '@/lib/api/errors';
@@ -52,7 +52,7 @@ export async function createTrial(actor: Actor, input: CreateTrialInput): Promis
 
   return em.transactional(async (tx) => {
     // Serialise numbering per workspace; the unique (workspace, number) index is the backstop.
-    await tx.getConnection().execute('select pg_advisory_xact_lock(hashtext(?))', [`trial-number:${actor.workspaceId}`]);
+    await lockForTransaction(tx, `trial-number:${actor.workspaceId}`);
     const last = await tx.findOne(Trial, inWorkspace(actor), { orderBy: { number: 'desc' } });
     const trial = tx.create(Trial, {
       workspace: actor.workspaceId,
