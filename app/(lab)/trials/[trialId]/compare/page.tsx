@@ -4,11 +4,10 @@ import { can } from '@/lib/permissions';
 import { getTrialComparison } from '@/lib/results/trial-comparison';
 import { LAB_MEASURE_LABELS } from '@/lib/results/comparison';
 import { formatP } from '@/lib/results/analysis';
-import { FACTOR_LABELS, type TrialFactor } from '@/lib/trials/vocabulary';
 import { TrialHeader } from '@/components/trials/TrialHeader';
 import { VariantsTable } from '@/components/trials/VariantsTable';
 import { RecommendForm } from '@/components/results/RecommendForm';
-import { CountChart } from '@/components/results/Charts';
+import { FactorEffectsCard } from '@/components/results/FactorEffects';
 import { Notice } from '@/components/ui/Notice';
 
 export const dynamic = 'force-dynamic';
@@ -53,18 +52,9 @@ export default async function ComparePage({ params }: { params: Promise<{ trialI
       {c.effects.length ? (
         <section className="mb-6" aria-labelledby="effects-title">
           <h2 id="effects-title" className="mb-2 text-xl font-semibold">Factor effects</h2>
-          <p className="mb-3 text-sm text-rind-600">Least-squares main effects on the variants’ mean scores: the change from the lowest to the highest level tried.</p>
+          <p className="mb-3 text-sm text-rind-600">Least-squares main effects on the variants’ mean scores: the change from the lowest to the highest level tried. Factors that changed together in every variant tasted cannot be told apart and get no effect of their own.</p>
           <div className="grid gap-4 lg:grid-cols-2">
-            {c.effects.map((e) => (
-              <div key={e.attribute} className="rounded-card bg-pith-50 p-4 ring-1 ring-pith-300">
-                <p className="font-medium">{e.attribute}</p>
-                <CountChart label="Effect over the range" labels={e.result.effects.map((x) => FACTOR_LABELS[x.factor as TrialFactor]?.name ?? x.factor)} values={e.result.effects.map((x) => x.effectOverRange ?? 0)} ariaLabel={`Factor effects on ${e.attribute}`} />
-                <ul className="mt-2 text-xs text-rind-600">
-                  {e.result.effects.map((x) => <li key={x.factor}>{FACTOR_LABELS[x.factor as TrialFactor]?.name ?? x.factor}: {n2(x.effectOverRange)} ± {n2(x.standardErrorOverRange)} {x.p !== null ? `(${formatP(x.p)})` : ''}</li>)}
-                </ul>
-                {e.result.message ? <p className="mt-1 text-xs text-amberline-700">{e.result.message}</p> : null}
-              </div>
-            ))}
+            {c.effects.map((e) => <FactorEffectsCard key={e.attribute} effect={e} />)}
           </div>
         </section>
       ) : null}
