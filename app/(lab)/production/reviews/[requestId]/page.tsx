@@ -11,6 +11,8 @@ import { SpecTable } from '@/components/production/SpecTable';
 import { CautionList } from '@/components/production/CautionList';
 import { AuditTrail } from '@/components/production/AuditTrail';
 import { DecisionForm } from '@/components/production/DecisionForm';
+import { approvalConsequence } from '@/lib/production/review';
+import { PromotionFormula } from '@/components/production/PromotionFormula';
 import { WithdrawButton } from '@/components/production/WithdrawButton';
 
 export const dynamic = 'force-dynamic';
@@ -30,7 +32,7 @@ export default async function PromotionRequestPage({ params }: { params: Promise
     <>
       <PageHeader
         title={`${r.code}: variant ${r.variantLabel} of ${r.trial.code}`}
-        lead={`${r.productLabel}. Requested by ${r.requestedBy} on ${r.requestedAt.slice(0, 10)}.`}
+        lead={`${r.productLabel}. Requested by ${r.requestedBy} on ${r.requestedAt.slice(0, 10)}.${r.status === 'pending' ? ` On approval, ${approvalConsequence(r.outcome).replace(/^T/, 't')}` : ''}`}
         actions={<StatusBadge status={r.status} />}
       />
       <p className="-mt-3 mb-6 text-sm">
@@ -51,6 +53,9 @@ export default async function PromotionRequestPage({ params }: { params: Promise
             <p className="whitespace-pre-line">{r.rationale}</p>
             <p className="mt-3 text-sm text-rind-600"><strong>Trial question:</strong> {e.trial.question}</p>
             <p className="mt-1 text-sm text-rind-600"><strong>Variant:</strong> {e.variant.description}{e.variant.factorLevels.length ? ` (${e.variant.factorLevels.map((l) => `${FACTOR_LABELS[l.factor as TrialFactor]?.name ?? l.factor} ${l.value}`).join(', ')})` : ''}</p>
+          </Card>
+          <Card title="Formula">
+            <PromotionFormula formula={r.formula} baseline={r.baseline} variantLabel={r.variantLabel} massUnits={units} temperatureUnit={actor.temperatureUnit} />
           </Card>
           <Card title="Compliance and predicted chemistry">
             <p className="text-sm"><strong>{e.compliance.edition}:</strong> {e.compliance.overall.replace('_', ' ')}</p>
@@ -87,7 +92,7 @@ export default async function PromotionRequestPage({ params }: { params: Promise
           </Card>
         </div>
         <div className="space-y-6">
-          {r.canDecide ? <DecisionForm requestId={r.id} code={r.code} productLabel={r.productLabel} /> : null}
+          {r.canDecide ? <DecisionForm requestId={r.id} code={r.code} outcome={r.outcome} /> : null}
           {r.status === 'pending' && !r.canDecide && r.requestedById === actor.userId && can(actor.role, 'promotion.decide') ? (
             <Notice tone="info">You made this request: another head of product must decide it.</Notice>
           ) : null}
