@@ -82,12 +82,14 @@ export default async function PromotionRequestPage({ params }: { params: Promise
           </Card>
           <Card title="Lab readings">
             {e.lab.length === 0 ? <p className="text-sm text-rind-600">No cooks were recorded.</p> : (
+<div className="overflow-x-auto">
               <table className="w-full text-sm">
                 <thead><tr className="border-b border-pith-300 text-left text-rind-600"><th className="py-1 pr-3 font-medium">Variant</th><th className="py-1 pr-3 font-medium">Cooked</th><th className="py-1 pr-3 font-medium">°Brix at 20 °C</th><th className="py-1 pr-3 font-medium">pH</th><th className="py-1 pr-3 font-medium">End point</th><th className="py-1 font-medium">Set</th></tr></thead>
                 <tbody>{e.lab.map((m, i) => (
                   <tr key={i} className={`border-b border-pith-200 ${m.label === r.variantLabel ? 'font-semibold' : ''}`}><td className="py-1 pr-3">{m.label}</td><td className="py-1 pr-3">{m.cookDate}</td><td className="py-1 pr-3 tabular-nums">{n(m.brix20, 1)}</td><td className="py-1 pr-3 tabular-nums">{n(m.ph, 2)}</td><td className="py-1 pr-3">{m.endPointTempC === null ? '—' : formatTemperature(m.endPointTempC, temps)}</td><td className="py-1">{m.setTestScore ?? '—'}</td></tr>
                 ))}</tbody>
               </table>
+              </div>
             )}
           </Card>
         </div>

@@ -8,6 +8,7 @@ import { TrialHeader } from '@/components/trials/TrialHeader';
 import { VariantsTable } from '@/components/trials/VariantsTable';
 import { RecommendForm } from '@/components/results/RecommendForm';
 import { FactorEffectsCard } from '@/components/results/FactorEffects';
+import { DataTable, CELL, HEAD, NUM, NUM_TH, TH } from '@/components/results/DataTable';
 import { Notice } from '@/components/ui/Notice';
 
 export const dynamic = 'force-dynamic';
@@ -43,10 +44,10 @@ export default async function ComparePage({ params }: { params: Promise<{ trialI
           </div>
         ))}
         {attributes.length ? (
-          <table className="mt-3 text-sm" data-testid="sensory-means">
-            <thead className="text-left text-xs uppercase tracking-wider text-rind-500"><tr><th scope="col" className="pr-4">Attribute</th>{labels.map((l) => <th key={l} scope="col" className="px-2">{l}</th>)}</tr></thead>
-            <tbody>{attributes.map((a) => <tr key={a}><th scope="row" className="pr-4 text-left font-normal">{a}</th>{labels.map((l) => <td key={l} className="px-2 tabular-nums">{n2(c.means.find((m) => m.attribute === a && m.label === l)?.mean)}</td>)}</tr>)}</tbody>
-          </table>
+          <div className="mt-3"><DataTable testId="sensory-means">
+            <thead className={HEAD}><tr><th scope="col" className={TH}>Attribute</th>{labels.map((l) => <th key={l} scope="col" className={NUM_TH}>{l}</th>)}</tr></thead>
+            <tbody className="divide-y divide-pith-200">{attributes.map((a) => <tr key={a}><th scope="row" className={`${CELL} text-left font-normal`}>{a}</th>{labels.map((l) => <td key={l} className={NUM}>{n2(c.means.find((m) => m.attribute === a && m.label === l)?.mean)}</td>)}</tr>)}</tbody>
+          </DataTable></div>
         ) : null}
       </section>
       {c.effects.length ? (
@@ -61,10 +62,10 @@ export default async function ComparePage({ params }: { params: Promise<{ trialI
       {c.correlations.length ? (
         <section className="mb-6" aria-labelledby="corr-title">
           <h2 id="corr-title" className="mb-2 text-xl font-semibold">Lab measurements against sensory means</h2>
-          <table className="text-sm">
-            <thead className="text-left text-xs uppercase tracking-wider text-rind-500"><tr><th scope="col" className="pr-4">Attribute</th><th scope="col" className="pr-4">Measure</th><th scope="col" className="pr-4">r</th><th scope="col" className="pr-4">n</th><th scope="col">p</th></tr></thead>
-            <tbody>{c.correlations.map((x) => <tr key={`${x.attribute}-${x.measure}`}><td className="pr-4">{x.attribute}</td><td className="pr-4">{LAB_MEASURE_LABELS[x.measure]}</td><td className="pr-4 tabular-nums">{n2(x.result.r)}</td><td className="pr-4">{x.result.n}</td><td>{formatP(x.result.p)}</td></tr>)}</tbody>
-          </table>
+          <DataTable>
+            <thead className={HEAD}><tr><th scope="col" className={TH}>Attribute</th><th scope="col" className={TH}>Measure</th><th scope="col" className={NUM_TH}>r</th><th scope="col" className={NUM_TH}>n</th><th scope="col" className={NUM_TH}>p</th></tr></thead>
+            <tbody className="divide-y divide-pith-200">{c.correlations.map((x) => <tr key={`${x.attribute}-${x.measure}`}><td className={CELL}>{x.attribute}</td><td className={CELL}>{LAB_MEASURE_LABELS[x.measure]}</td><td className={NUM}>{n2(x.result.r)}</td><td className={NUM}>{x.result.n}</td><td className={`${NUM} whitespace-nowrap`}>{formatP(x.result.p)}</td></tr>)}</tbody>
+          </DataTable>
           <p className="mt-1 text-xs text-rind-500">Pearson correlation across variants; with this few variants, read it as a hint, not proof.</p>
         </section>
       ) : null}
