@@ -106,6 +106,7 @@ export function RevisionDiff({
   massUnits,
   temperatureUnit = 'C',
   title,
+  sideLabels,
 }: {
   before: FormulaRevisionView;
   after: FormulaRevisionView;
@@ -113,15 +114,19 @@ export function RevisionDiff({
   temperatureUnit?: 'C' | 'F';
   /** Overrides the "Revision 1 → revision 2" heading, e.g. when comparing trial variants. */
   title?: string;
+  /** Names the two sides where they are not revisions of one formula (e.g. "v2 in production", "this request"). */
+  sideLabels?: { before: string; after: string };
 }) {
   const diff = diffRevisions(before, after);
   const heading = title ?? `Revision ${diff.beforeRevision} → revision ${diff.afterRevision}`;
+  const side = sideLabels ?? { before: `rev. ${diff.beforeRevision}`, after: `rev. ${diff.afterRevision}` };
+  const sideTitle = sideLabels ?? { before: `Revision ${diff.beforeRevision}`, after: `Revision ${diff.afterRevision}` };
 
   if (diff.identical) {
     return (
       <section aria-label={heading} className="rounded-card bg-pith-50 p-5 ring-1 ring-pith-300">
         <h2 className="font-display text-lg text-damson-900">{heading}</h2>
-        <p className="mt-2 text-rind-600">No differences. Name, settings, lines and ingredient values are the same in both revisions.</p>
+        <p className="mt-2 text-rind-600">No differences. Name, settings, lines and ingredient values are the same in both {sideLabels ? 'formulas' : 'revisions'}.</p>
       </section>
     );
   }
@@ -148,8 +153,8 @@ export function RevisionDiff({
             <thead className="bg-pith-200 text-left text-xs uppercase tracking-wider text-rind-600">
               <tr>
                 <th scope="col" className="px-3 py-2">Setting</th>
-                <th scope="col" className="px-3 py-2">Revision {diff.beforeRevision}</th>
-                <th scope="col" className="px-3 py-2">Revision {diff.afterRevision}</th>
+                <th scope="col" className="px-3 py-2">{sideTitle.before}</th>
+                <th scope="col" className="px-3 py-2">{sideTitle.after}</th>
               </tr>
             </thead>
             <tbody className="divide-y divide-pith-200">
@@ -176,10 +181,10 @@ export function RevisionDiff({
             <tr>
               <th scope="col" className="px-3 py-2">Ingredient</th>
               <th scope="col" className="px-3 py-2">Status</th>
-              <th scope="col" className="px-3 py-2">Quantity, rev. {diff.beforeRevision}</th>
-              <th scope="col" className="px-3 py-2">Solids, rev. {diff.beforeRevision}</th>
-              <th scope="col" className="px-3 py-2">Quantity, rev. {diff.afterRevision}</th>
-              <th scope="col" className="px-3 py-2">Solids, rev. {diff.afterRevision}</th>
+              <th scope="col" className="px-3 py-2">Quantity, {side.before}</th>
+              <th scope="col" className="px-3 py-2">Solids, {side.before}</th>
+              <th scope="col" className="px-3 py-2">Quantity, {side.after}</th>
+              <th scope="col" className="px-3 py-2">Solids, {side.after}</th>
               <th scope="col" className="px-3 py-2">Ingredient values changed</th>
             </tr>
           </thead>

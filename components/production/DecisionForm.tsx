@@ -7,9 +7,10 @@ import { ConfirmDialog } from '@/components/ui/ConfirmDialog';
 import { FieldErrorText, inputClass } from '@/components/ui/Field';
 import { Notice } from '@/components/ui/Notice';
 import { decidePromotionAction } from '@/lib/production/actions';
+import { approvalConsequence, type PromotionOutcome } from '@/lib/production/review';
 
 /** Approve or send back. Approval is final, so it asks first; sending back needs a comment. */
-export function DecisionForm({ requestId, code, productLabel }: { requestId: string; code: string; productLabel: string }) {
+export function DecisionForm({ requestId, code, outcome }: { requestId: string; code: string; outcome: PromotionOutcome }) {
   const router = useRouter();
   const [comment, setComment] = useState('');
   const [fields, setFields] = useState<Record<string, string[]>>({});
@@ -49,7 +50,7 @@ export function DecisionForm({ requestId, code, productLabel }: { requestId: str
       <ConfirmDialog
         open={confirming}
         title={`Approve ${code}?`}
-        body={<>This creates a new production version of <strong>{productLabel}</strong>, supersedes the version now in production, and cannot be undone or edited.</>}
+        body={<>{approvalConsequence(outcome)} Approval cannot be undone or edited.</>}
         confirmLabel="Approve"
         tone="primary"
         busy={busy}

@@ -6,7 +6,9 @@ import { Button } from '@/components/ui/Button';
 import { Field, FieldErrorText, SelectField, inputClass } from '@/components/ui/Field';
 import { Notice } from '@/components/ui/Notice';
 import { qcSpecCautions, type QcSpec } from '@/lib/chemistry';
-import type { PromotionDraftVariant } from '@/lib/production/queries';
+import type { PromotionDraftVariant, PromotionTargetProduct } from '@/lib/production/queries';
+import { describeIdentity, identityDifferences } from '@/lib/production/review';
+import type { PromotionTarget } from '@/lib/production/vocabulary';
 import { requestPromotionAction } from '@/lib/production/actions';
 import { CautionList } from './CautionList';
 import { fromDisplayTemperature, parseNumber, toDisplayTemperature, type TemperatureUnit } from './temperature';
@@ -29,11 +31,47 @@ function specFromText(t: SpecText, unit: TemperatureUnit) {
   };
 }
 
+/** The variant beside what it would replace, with a warning when the fruit or product class differ. */
+function TargetComparison({ variant, mode, product, newName }: { variant: PromotionDraftVariant; mode: PromotionTarget; product: PromotionTargetProduct | undefined; newName: string }) {
+  if (mode === 'existing_product' && !product) return null;
+  const current = mode === 'existing_product' ? product?.current ?? null : null;
+  const currentName = product && current ? `${product.name} v${current.version}` : '';
+  const differences = current ? identityDifferences(variant, current, currentName) : [];
+  const outcome = mode === 'new_product'
+    ? `Becomes version 1 of ${newName.trim() || 'the new product'}.`
+    : current
+      ? `Becomes version ${product!.nextVersion} of ${product!.name} and, once approved, supersedes version ${current.version} now in production.`
+      : `Becomes version ${product!.nextVersion} of ${product!.name}; no version of it is in production now.`;
+  return (
+    <div className="space-y-2" data-testid="target-comparison">
+      <dl className="grid gap-2 text-sm sm:grid-cols-2">
+        <div className="rounded-lg bg-white/70 px-3 py-2 ring-1 ring-pith-300">
+          <dt className="text-xs uppercase tracking-wider text-rind-500">This variant</dt>
+          <dd>{variant.label} — {describeIdentity(variant)}</dd>
+        </div>
+        {current ? (
+          <div className="rounded-lg bg-white/70 px-3 py-2 ring-1 ring-pith-300">
+            <dt className="text-xs uppercase tracking-wider text-rind-500">In production now</dt>
+            <dd>{currentName} — {describeIdentity(current)}</dd>
+          </div>
+        ) : null}
+      </dl>
+      <p className="text-sm text-rind-700">{outcome}</p>
+      {differences.length ? (
+        <Notice tone="warning" title={`This variant is not like ${currentName}`}>
+          <ul className="list-disc pl-5">{differences.map((d) => <li key={d}>{d}</li>)}</ul>
+          <p className="mt-1">Approving it would replace that spec in production. If this is another product, choose “A new product”.</p>
+        </Notice>
+      ) : null}
+    </div>
+  );
+}
+
 /** The developer's request: which variant, which product, how it is made, and the QC spec (pre-filled from the chemistry). */
 export function PromotionForm({ trialId, variants, products, recommendedVariantId, recommendationRationale, temperatureUnit }: {
   trialId: string;
   variants: PromotionDraftVariant[];
-  products: Array<{ id: string; code: string; name: string }>;
+  products: PromotionTargetProduct[];
   recommendedVariantId: string | null;
   recommendationRationale: string | null;
   temperatureUnit: TemperatureUnit;
@@ -44,8 +82,10 @@ export function PromotionForm({ trialId, variants, products, recommendedVariantI
   const initial = promotable.find((v) => v.id === recommendedVariantId) ?? promotable[0];
   const [variantId, setVariantId] = useState(initial?.id ?? '');
   const variant = variants.find((v) => v.id === variantId);
-  const [mode, setMode] = useState<'new' | 'existing'>(products.length ? 'existing' : 'new');
-  const [productId, setProductId] = useState(products[0]?.id ?? '');
+  // No default: filing a strawberry variant as the next blackcurrant version must be a choice, never a click-through.
+  const [mode, setMode] = useState<PromotionTarget | null>(null);
+  const [productId, setProductId] = useState('');
+  const product = products.find((p) => p.id === productId);
   const [newName, setNewName] = useState('');
   const [newCode, setNewCode] = useState('');
   const [rationale, setRationale] = useState(recommendationRationale ?? '');
@@ -81,12 +121,17 @@ export function PromotionForm({ trialId, variants, products, recommendedVariantI
   async function submit(e: React.FormEvent) {
     e.preventDefault();
     if (!spec) return;
+    if (!mode) {
+      setFields({ target: ['Choose whether this is a new product or a new version of an existing one.'] });
+      setError('Choose where this variant goes.');
+      return;
+    }
     setBusy(true);
     setError(undefined);
     setFields({});
     const res = await requestPromotionAction({
-      trialId, variantId,
-      ...(mode === 'existing' ? { productId } : { newProductName: newName, newProductCode: newCode.trim().toUpperCase() }),
+      trialId, variantId, target: mode,
+      ...(mode === 'existing_product' ? { productId: productId || undefined } : { newProductName: newName, newProductCode: newCode.trim().toUpperCase() }),
       rationale,
       process: { endPointSeaLevelC: fromDisplayTemperature(endPoint, unit), fillTempC: fromDisplayTemperature(fillTemp, unit), cookNotes },
       spec: specFromText(spec, unit),
@@ -117,20 +162,26 @@ export function PromotionForm({ trialId, variants, products, recommendedVariantI
           label="Variant" name="variantId" value={variantId} onChange={(e) => chooseVariant(e.target.value)} errors={fields.variantId}
           options={promotable.map((v) => ({ value: v.id, label: `${v.label} — ${v.description}${v.id === recommendedVariantId ? ' (recommended)' : ''}${v.complianceOverall === 'non_compliant' ? ' — fails its market rules' : ''}` }))}
         />
-        <fieldset className="space-y-2">
-          <legend className="mb-1 text-sm font-medium text-rind-700">Which product</legend>
-          <div className="flex flex-wrap gap-4 text-sm">
-            <label className="flex items-center gap-2"><input type="radio" name="mode" checked={mode === 'existing'} disabled={!products.length} onChange={() => setMode('existing')} /> New version of a product</label>
-            <label className="flex items-center gap-2"><input type="radio" name="mode" checked={mode === 'new'} onChange={() => setMode('new')} /> A new product</label>
+        <fieldset className="space-y-3" aria-describedby={fields.target ? 'f-target-err' : undefined}>
+          <legend className="mb-1 text-sm font-medium text-rind-700">Where it goes</legend>
+          <div className="flex flex-col gap-2 text-sm sm:flex-row sm:flex-wrap sm:gap-6">
+            <label className="flex items-center gap-2"><input type="radio" name="target" value="new_product" checked={mode === 'new_product'} onChange={() => setMode('new_product')} /> A new product</label>
+            <label className="flex items-center gap-2"><input type="radio" name="target" value="existing_product" checked={mode === 'existing_product'} disabled={!products.length} onChange={() => setMode('existing_product')} /> A new version of an existing product</label>
           </div>
-          {mode === 'existing' ? (
-            <SelectField label="Product" name="productId" value={productId} onChange={(e) => setProductId(e.target.value)} errors={fields.productId} options={products.map((p) => ({ value: p.id, label: `${p.name} (${p.code})` }))} />
-          ) : (
+          <FieldErrorText id="f-target-err" errors={fields.target} />
+          {mode === 'existing_product' ? (
+            <SelectField
+              label="Product" name="productId" value={productId} onChange={(e) => setProductId(e.target.value)} errors={fields.productId}
+              options={[{ value: '', label: 'Choose a product…' }, ...products.map((p) => ({ value: p.id, label: `${p.name} (${p.code})` }))]}
+            />
+          ) : null}
+          {mode === 'new_product' ? (
             <div className="grid gap-3 sm:grid-cols-2">
               <Field label="Product name" name="newProductName" value={newName} onChange={(e) => setNewName(e.target.value)} errors={fields.newProductName} />
               <Field label="Product code" name="newProductCode" value={newCode} onChange={(e) => setNewCode(e.target.value)} errors={fields.newProductCode} hint="2–5 capital letters; every lot code starts with it." autoCapitalize="characters" />
             </div>
-          )}
+          ) : null}
+          {variant && mode ? <TargetComparison variant={variant} mode={mode} product={product} newName={newName} /> : null}
         </fieldset>
         <div>
           <label htmlFor="f-rationale" className="mb-1 block text-sm font-medium text-rind-700">Why this variant</label>

@@ -2,6 +2,7 @@
 
 import { Chart as ChartJS, BarElement, CategoryScale, LinearScale, Tooltip, Legend, type Plugin } from 'chart.js';
 import { Bar } from 'react-chartjs-2';
+import { clipInterval, clippingNote, jarDiverging, type ClippedInterval, type JarShareRow } from '@/lib/results/chart-data';
 
 ChartJS.register(BarElement, CategoryScale, LinearScale, Tooltip, Legend);
 // Results are read, printed and screenshotted: draw the final state at once.
@@ -12,68 +13,114 @@ const QUINCE = '#d9a82e';
 const LEAF = '#2f7a43';
 const EMBER = '#b2331f';
 
-/** Draws each bar's 95 % interval as a whisker; chart.js has no error bars of its own. */
+type WhiskerOptions = { intervals: Array<ClippedInterval | null> };
+
+/**
+ * Draws each bar's 95 % interval as a whisker; chart.js has no error bars of its own. An end cut at
+ * the scale gets an arrowhead instead of a cap, so a cut whisker never reads as the true limit.
+ */
 const errorBars: Plugin<'bar'> = {
   id: 'setwellErrorBars',
   afterDatasetsDraw(chart) {
-    const intervals = (chart.options.plugins as unknown as { setwellErrorBars?: { intervals: Array<[number, number] | null> } }).setwellErrorBars?.intervals;
+    const intervals = (chart.options.plugins as unknown as { setwellErrorBars?: WhiskerOptions }).setwellErrorBars?.intervals;
     if (!intervals) return;
     const { ctx, scales } = chart;
     const meta = chart.getDatasetMeta(0);
     ctx.save();
     ctx.strokeStyle = '#2f1729';
     ctx.lineWidth = 1.5;
+    const end = (x: number, y: number, clipped: boolean, pointsUp: boolean) => {
+      if (!clipped) {
+        ctx.moveTo(x - 6, y);
+        ctx.lineTo(x + 6, y);
+        return;
+      }
+      const tip = pointsUp ? -1 : 1;
+      ctx.moveTo(x - 5, y - 5 * tip);
+      ctx.lineTo(x, y);
+      ctx.lineTo(x + 5, y - 5 * tip);
+    };
     meta.data.forEach((bar, i) => {
       const ci = intervals[i];
       if (!ci) return;
       const x = bar.x;
-      const y1 = scales.y.getPixelForValue(ci[0]);
-      const y2 = scales.y.getPixelForValue(ci[1]);
+      const y1 = scales.y.getPixelForValue(ci.lower);
+      const y2 = scales.y.getPixelForValue(ci.upper);
       ctx.beginPath();
       ctx.moveTo(x, y1);
       ctx.lineTo(x, y2);
-      ctx.moveTo(x - 6, y1);
-      ctx.lineTo(x + 6, y1);
-      ctx.moveTo(x - 6, y2);
-      ctx.lineTo(x + 6, y2);
+      end(x, y1, ci.clippedLower, false);
+      end(x, y2, ci.clippedUpper, true);
       ctx.stroke();
     });
     ctx.restore();
   },
 };
 
+/** Means with 95 % whiskers on the attribute's own scale; whiskers stop at the scale's ends. */
 export function MeansChart({ title, labels, means, intervals, min, max, letters }: {
   title: string; labels: string[]; means: Array<number | null>; intervals: Array<[number, number] | null>; min: number; max: number; letters: string[];
 }) {
+  const clipped = intervals.map((ci) => clipInterval(ci, { min, max }));
+  const note = clippingNote(labels, clipped, { min, max });
   return (
-    <div className="h-64" role="img" aria-label={`${title}: means with 95 % confidence intervals`} data-testid="means-chart">
-      <Bar
-        data={{ labels: labels.map((l, i) => `${l} (${letters[i] ?? ''})`), datasets: [{ label: title, data: means, backgroundColor: DAMSON, borderRadius: 6 }] }}
-        options={{
-          maintainAspectRatio: false,
-          scales: { y: { min, max, title: { display: true, text: 'Mean score' } } },
-          plugins: { legend: { display: false }, setwellErrorBars: { intervals } } as never,
-        }}
-        plugins={[errorBars]}
-      />
+    <div>
+      <div className="h-64" role="img" aria-label={`${title}: means with 95 % confidence intervals`} data-testid="means-chart">
+        <Bar
+          data={{ labels: labels.map((l, i) => `${l} (${letters[i] ?? ''})`), datasets: [{ label: title, data: means, backgroundColor: DAMSON, borderRadius: 6 }] }}
+          options={{
+            maintainAspectRatio: false,
+            scales: { y: { min, max, title: { display: true, text: `Mean score (${min}–${max})` } } },
+            plugins: { legend: { display: false }, setwellErrorBars: { intervals: clipped } } as never,
+          }}
+          plugins={[errorBars]}
+        />
+      </div>
+      {note ? <p className="mt-1 text-xs text-rind-500" data-testid="whisker-clip-note">{note}</p> : null}
     </div>
   );
 }
 
-export function JarChart({ title, rows }: { title: string; rows: Array<{ label: string; tooLittle: number; justAboutRight: number; tooMuch: number; n: number }> }) {
-  const pct = (x: number, n: number) => (n ? (100 * x) / n : 0);
+/**
+ * Just-about-right shares as diverging bars: "just about right" straddles the centre line, "too
+ * little" runs left of it and "too much" right, so the side a sample leans to shows at a glance.
+ */
+export function JarChart({ title, rows }: { title: string; rows: JarShareRow[] }) {
+  const d = jarDiverging(rows);
+  const percent = (v: number | string) => `${Math.abs(Number(v)).toFixed(0)} %`;
   return (
     <div className="h-56" role="img" aria-label={`${title}: share of tasters too little, just about right, too much`} data-testid="jar-chart">
       <Bar
         data={{
-          labels: rows.map((r) => r.label),
+          labels: d.labels,
           datasets: [
-            { label: 'Too little', data: rows.map((r) => pct(r.tooLittle, r.n)), backgroundColor: QUINCE },
-            { label: 'Just about right', data: rows.map((r) => pct(r.justAboutRight, r.n)), backgroundColor: LEAF },
-            { label: 'Too much', data: rows.map((r) => pct(r.tooMuch, r.n)), backgroundColor: EMBER },
+            { label: 'Just about right', data: d.justRightLeft, backgroundColor: LEAF, stack: 'jar' },
+            { label: 'Too little', data: d.tooLittle, backgroundColor: QUINCE, stack: 'jar' },
+            { label: 'Just about right ', data: d.justRightRight, backgroundColor: LEAF, stack: 'jar' },
+            { label: 'Too much', data: d.tooMuch, backgroundColor: EMBER, stack: 'jar' },
           ],
         }}
-        options={{ indexAxis: 'y', maintainAspectRatio: false, scales: { x: { stacked: true, max: 100, title: { display: true, text: '% of tasters' } }, y: { stacked: true } } }}
+        options={{
+          indexAxis: 'y',
+          maintainAspectRatio: false,
+          scales: {
+            x: { stacked: true, min: -100, max: 100, ticks: { callback: percent }, title: { display: true, text: '← too little · % of tasters · too much →' } },
+            y: { stacked: true },
+          },
+          plugins: {
+            // The right half of "just about right" is the same series as the left: one legend entry.
+            legend: { labels: { filter: (item) => item.text !== 'Just about right ' } },
+            tooltip: {
+              callbacks: {
+                label: (item) => {
+                  const row = rows[item.dataIndex];
+                  if (item.dataset.label?.startsWith('Just about right')) return `Just about right: ${percent(row.n ? (100 * row.justAboutRight) / row.n : 0)}`;
+                  return `${item.dataset.label}: ${percent(item.parsed.x ?? 0)}`;
+                },
+              },
+            },
+          },
+        }}
       />
     </div>
   );
@@ -89,25 +136,36 @@ export function CountChart({ label, labels, values, ariaLabel }: { label: string
 
 const SERIES = [DAMSON, QUINCE, LEAF, EMBER, '#9f6389', '#6f665e', '#b98a1c', '#245f34', '#3b3632', '#d9bccf', '#e8c153', '#8c2616'];
 
-/** All attributes at once, one bar group per attribute and one colour per sample. */
-export function ProfileChart({ attributes, samples, means }: { attributes: string[]; samples: string[]; means: Record<string, Record<string, number | null>> }) {
+/**
+ * The attributes scored on one scale, one bar group per attribute and one colour per sample. Scales
+ * are never mixed on one axis; on the JAR scale the bars start at 3 ("just right").
+ */
+export function ProfileChart({ attributes, samples, means, scale, base }: {
+  attributes: string[]; samples: string[]; means: Record<string, Record<string, number | null>>; scale: { min: number; max: number; name: string }; base?: number;
+}) {
   return (
-    <div className="h-72" role="img" aria-label="Attribute profile: mean score of each sample on each attribute" data-testid="profile-chart">
+    <div className="h-72" role="img" aria-label={`Profile, ${scale.name}: mean score of each sample on each attribute`} data-testid="profile-chart">
       <Bar
-        data={{ labels: attributes, datasets: samples.map((s, i) => ({ label: `Sample ${s}`, data: attributes.map((a) => means[a]?.[s] ?? null), backgroundColor: SERIES[i % SERIES.length] })) }}
-        options={{ maintainAspectRatio: false, scales: { y: { min: 0, title: { display: true, text: 'Mean score (each on its own scale)' } } } }}
+        data={{ labels: attributes, datasets: samples.map((s, i) => ({ label: `Sample ${s}`, data: attributes.map((a) => means[a]?.[s] ?? null), backgroundColor: SERIES[i % SERIES.length], ...(base === undefined ? {} : { base }) })) }}
+        options={{ maintainAspectRatio: false, scales: { y: { min: scale.min, max: scale.max, title: { display: true, text: scale.name } } } }}
       />
     </div>
   );
 }
 
-/** Weighted penalties of the too-little and too-much groups; the larger the bar, the more liking that side costs. */
-export function PenaltyChart({ title, tooLittle, tooMuch }: { title: string; tooLittle: number | null; tooMuch: number | null }) {
+/** Weighted penalties of the too-little and too-much groups, per sample; the longer the bar, the more liking that side costs. */
+export function PenaltyChart({ title, rows }: { title: string; rows: Array<{ label: string; tooLittle: number | null; tooMuch: number | null }> }) {
   return (
-    <div className="h-40" role="img" aria-label={`${title}: weighted penalties`} data-testid="penalty-chart">
+    <div className="h-48" role="img" aria-label={`${title}: weighted penalties per sample`} data-testid="penalty-chart">
       <Bar
-        data={{ labels: ['Too little', 'Too much'], datasets: [{ label: 'Weighted penalty', data: [tooLittle ?? 0, tooMuch ?? 0], backgroundColor: [QUINCE, EMBER] }] }}
-        options={{ indexAxis: 'y', maintainAspectRatio: false, plugins: { legend: { display: false } }, scales: { x: { title: { display: true, text: 'Share × mean drop in liking' } } } }}
+        data={{
+          labels: rows.map((r) => `Sample ${r.label}`),
+          datasets: [
+            { label: 'Too little', data: rows.map((r) => r.tooLittle ?? 0), backgroundColor: QUINCE },
+            { label: 'Too much', data: rows.map((r) => r.tooMuch ?? 0), backgroundColor: EMBER },
+          ],
+        }}
+        options={{ indexAxis: 'y', maintainAspectRatio: false, scales: { x: { title: { display: true, text: 'Share × mean drop in liking' } } } }}
       />
     </div>
   );

@@ -100,7 +100,7 @@ export async function requestPromotion(actor: Actor, input: RequestPromotionInpu
   if (!trial) throw notFound('trial');
   const variant = await em.findOne(Variant, { ...inWorkspace(actor), trial: trial.id, id: input.variantId, removedAt: null });
   if (!variant) throw new ValidationFailed('Choose a variant of this trial.', { variantId: ['Choose a variant of this trial.'] });
-  if (input.productId) {
+  if (input.target === 'existing_product') {
     const product = await em.findOne(Product, { ...inWorkspace(actor), id: input.productId });
     if (!product) throw new ValidationFailed('Choose a product of this workspace.', { productId: ['Choose a product of this workspace.'] });
   } else if (await em.count(Product, { ...inWorkspace(actor), code: input.newProductCode! })) {
@@ -122,7 +122,8 @@ export async function requestPromotion(actor: Actor, input: RequestPromotionInpu
     const last = await tx.findOne(PromotionRequest, inWorkspace(actor), { orderBy: { number: 'desc' } });
     const request = tx.create(PromotionRequest, {
       workspace: actor.workspaceId, number: (last?.number ?? 0) + 1, trial: trial.id, variantId: variant.id, variantLabel: variant.label,
-      product: input.productId ?? null, newProductName: input.productId ? null : input.newProductName, newProductCode: input.productId ? null : input.newProductCode,
+      product: input.target === 'existing_product' ? input.productId : null,
+      newProductName: input.target === 'new_product' ? input.newProductName : null, newProductCode: input.target === 'new_product' ? input.newProductCode : null,
       rationale: input.rationale, process: input.process, spec: input.spec, evidence: built.evidence, status: 'pending', requestedBy: actor.userId,
     } as never) as unknown as { id: string; number: number };
     await tx.flush();

@@ -1,6 +1,6 @@
 /** Production reads: the review queue, products and their versions, batch records, the audit trail. */
 import { getEm } from '@/lib/db';
-import { AuditEvent, BatchRecord, Product, ProductionFormula, PromotionRequest, Trial } from '@/entities';
+import { AuditEvent, BatchRecord, Product, ProductionFormula, PromotionRequest, Trial, Variant } from '@/entities';
 import { can, inWorkspace, notFound, type Actor } from '@/lib/permissions';
 import { trialCode } from '@/lib/trials/access';
 import { toCsv } from '@/lib/csv';
@@ -9,6 +9,7 @@ import { getTrialOverview } from '@/lib/trials/queries';
 import type { FormulaSettingsInput, RevisionLine } from '@/lib/formulas/schema';
 import type { ProductionProcess, PromotionEvidence, BatchSheetQuery } from './schema';
 import { buildBatchSheet, type BatchSheet } from './sheet';
+import { fruitsOf, weighLines, type PromotionOutcome, type RecipeIdentity } from './review';
 import { promotionCode, type Disposition, type PromotionStatus, type VersionStatus } from './vocabulary';
 
 type Ref = { id: string };
@@ -46,6 +47,12 @@ export interface PromotionView extends PromotionSummary {
   canWithdraw: boolean;
   history: PromotionSummary[];
   audit: AuditView[];
+  /** What approval does (or did): make a new product, or a new version superseding the one in production. */
+  outcome: PromotionOutcome;
+  /** The formula that goes (or went) to production: the variant's lines while pending, the version's once approved. */
+  formula: { settings: FormulaSettingsInput; lines: RevisionLine[]; weighed: ReturnType<typeof weighLines> } | null;
+  /** The version it is compared against: the one in production now, or (once approved) the one it superseded. */
+  baseline: { version: number; productName: string; settings: FormulaSettingsInput; lines: RevisionLine[] } | null;
 }
 
 export interface AuditView {
@@ -101,7 +108,9 @@ export async function getPromotionRequest(actor: Actor, requestId: string): Prom
   const history = (await em.find(PromotionRequest, { ...inWorkspace(actor), trial: r.trial.id, id: { $ne: r.id } }, { populate: REQUEST_POPULATE, orderBy: { number: 'asc' } })) as unknown as RequestRow[];
   const events = await em.find(AuditEvent, { ...inWorkspace(actor), promotionRequestId: r.id }, { orderBy: { at: 'asc' } });
   const pending = r.status === 'pending';
+  const { outcome, formula, baseline } = await promotionComparison(actor, r);
   return {
+    outcome, formula, baseline,
     ...summary(r),
     variantId: r.variantId,
     product: r.product ? { id: r.product.id, code: r.product.code, name: r.product.name } : null,
@@ -113,6 +122,30 @@ export async function getPromotionRequest(actor: Actor, requestId: string): Prom
     canWithdraw: pending && r.requestedBy.id === actor.userId,
     history: history.map(summary),
     audit: events.map(toAuditView),
+  };
+}
+
+type VersionLines = { id: string; version: number; status: VersionStatus; settings: FormulaSettingsInput; lines: RevisionLine[] };
+
+/** The formula a request puts into production and the version it stands beside. */
+async function promotionComparison(actor: Actor, r: RequestRow): Promise<Pick<PromotionView, 'outcome' | 'formula' | 'baseline'>> {
+  const em = await getEm();
+  const created = r.productionFormulaId
+    ? ((await em.findOne(ProductionFormula, { ...inWorkspace(actor), id: r.productionFormulaId })) as unknown as VersionLines | null)
+    : null;
+  const source = created ?? ((await em.findOne(Variant, { ...inWorkspace(actor), id: r.variantId })) as unknown as { settings: FormulaSettingsInput; lines: RevisionLine[] } | null);
+  const formula = source ? { settings: source.settings, lines: source.lines, weighed: weighLines(source.settings, source.lines) } : null;
+  if (!r.product) return { outcome: { kind: 'new_product', name: r.newProductName ?? '', code: r.newProductCode ?? '' }, formula, baseline: null };
+  const versions = (await em.find(ProductionFormula, { ...inWorkspace(actor), product: r.product.id }, { orderBy: { version: 'asc' } })) as unknown as VersionLines[];
+  // A request that created its product (approved as a new product) has no earlier version to compare with.
+  const before = created ? versions.filter((v) => v.version < created.version).at(-1) ?? null : versions.find((v) => v.status === 'current') ?? null;
+  const current = versions.find((v) => v.status === 'current') ?? null;
+  return {
+    outcome: created && !before
+      ? { kind: 'new_product', name: r.product.name, code: r.product.code }
+      : { kind: 'existing_product', name: r.product.name, code: r.product.code, nextVersion: created?.version ?? (versions.at(-1)?.version ?? 0) + 1, currentVersion: created ? before?.version ?? null : current?.version ?? null },
+    formula,
+    baseline: before ? { version: before.version, productName: r.product.name, settings: before.settings, lines: before.lines } : null,
   };
 }
 
@@ -287,11 +320,33 @@ export async function listAuditEvents(actor: Actor, options: { limit?: number } 
   return rows.map(toAuditView);
 }
 
-/** Products with a version in production, to promote a new version of. */
-export async function listPromotableProducts(actor: Actor): Promise<Array<{ id: string; code: string; name: string }>> {
+/** A product a variant could become the next version of, with what is in production now. */
+export interface PromotionTargetProduct {
+  id: string;
+  code: string;
+  name: string;
+  /** The version in production; null if none is (then the next version is `nextVersion`). */
+  current: ({ version: number } & RecipeIdentity) | null;
+  nextVersion: number;
+}
+
+/** Products to promote a new version of, each with the product class and fruit of its version in production. */
+export async function listPromotableProducts(actor: Actor): Promise<PromotionTargetProduct[]> {
   const em = await getEm();
   const rows = await em.find(Product, inWorkspace(actor), { orderBy: { name: 'asc' } });
-  return rows.map((p) => ({ id: p.id, code: p.code, name: p.name }));
+  if (!rows.length) return [];
+  const versions = (await em.find(ProductionFormula, { ...inWorkspace(actor), product: { $in: rows.map((p) => p.id) } }, {
+    fields: ['product', 'version', 'status', 'settings', 'lines'],
+  })) as unknown as Array<{ product: Ref; version: number; status: VersionStatus; settings: FormulaSettingsInput; lines: RevisionLine[] }>;
+  return rows.map((p) => {
+    const mine = versions.filter((v) => v.product.id === p.id);
+    const current = mine.find((v) => v.status === 'current');
+    return {
+      id: p.id, code: p.code, name: p.name,
+      current: current ? { version: current.version, productClass: current.settings.productClass, fruits: fruitsOf(current.lines) } : null,
+      nextVersion: Math.max(0, ...mine.map((v) => v.version)) + 1,
+    };
+  });
 }
 
 export async function batchesCsv(actor: Actor, productId: string): Promise<{ csv: string; filename: string }> {
@@ -336,6 +391,7 @@ export interface PromotionDraftVariant {
   description: string;
   complianceOverall: string | null;
   productClass: string;
+  fruits: string[];
   /** Null when the variant's chemistry cannot be computed. */
   defaults: { spec: QcSpec; process: ProductionProcess; cautions: Caution[] } | null;
 }
@@ -346,7 +402,7 @@ export async function getPromotionDraft(actor: Actor, trialId: string): Promise<
   variants: PromotionDraftVariant[];
   recommendedVariantId: string | null;
   recommendationRationale: string | null;
-  products: Array<{ id: string; code: string; name: string }>;
+  products: PromotionTargetProduct[];
   pending: PromotionSummary | null;
 }> {
   const trial = await getTrialOverview(actor, trialId);
@@ -354,10 +410,11 @@ export async function getPromotionDraft(actor: Actor, trialId: string): Promise<
   const row = await em.findOne(Trial, { ...inWorkspace(actor), id: trialId });
   const variants = trial.variants.map((v): PromotionDraftVariant => {
     const c = v.computation;
-    if (!c) return { id: v.id, label: v.label, description: v.description, complianceOverall: null, productClass: v.settings.productClass, defaults: null };
+    const fruits = fruitsOf(v.lines);
+    if (!c) return { id: v.id, label: v.label, description: v.description, complianceOverall: null, productClass: v.settings.productClass, fruits, defaults: null };
     const spec = defaultQcSpec(c);
     return {
-      id: v.id, label: v.label, description: v.description, complianceOverall: c.compliance.overall, productClass: c.settings.productClass,
+      id: v.id, label: v.label, description: v.description, complianceOverall: c.compliance.overall, productClass: c.settings.productClass, fruits,
       defaults: {
         spec,
         process: { endPointSeaLevelC: Math.round(estimateEndPoint({ targetSolidsPct: c.settings.targetSolidsPct }).endPointC * 10) / 10, fillTempC: DEFAULT_FILL_TEMP_C, cookNotes: '' },

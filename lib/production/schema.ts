@@ -2,7 +2,7 @@
 import { z } from 'zod';
 import { isoDate } from '@/lib/formulas/schema';
 import { qcSpecProblems, type QcSpec } from '@/lib/chemistry/qc';
-import { DISPOSITIONS, LOT_CODE_PATTERN, PRODUCT_CODE_PATTERN, PROMOTION_STATUSES } from './vocabulary';
+import { DISPOSITIONS, LOT_CODE_PATTERN, PRODUCT_CODE_PATTERN, PROMOTION_STATUSES, PROMOTION_TARGETS } from './vocabulary';
 
 /** How the kitchen makes it: frozen into every production version. Temperatures in °C. */
 export interface ProductionProcess {
@@ -59,7 +59,8 @@ export const requestPromotionSchema = z
   .object({
     trialId: z.uuid('Unknown trial.'),
     variantId: z.uuid('Choose a variant.'),
-    /** Either an existing product (a new version) or a new product's name and code. */
+    /** Chosen by the developer, never defaulted: a new product, or a new version of an existing one. */
+    target: z.enum(PROMOTION_TARGETS, { error: 'Choose whether this is a new product or a new version of an existing one.' }),
     productId: z.uuid('Choose a product.').optional(),
     newProductName: z.string().trim().min(2, 'Name the product.').max(120, 'Use at most 120 characters.').optional(),
     newProductCode: z.string().trim().regex(PRODUCT_CODE_PATTERN, 'Use 2–5 capital letters, e.g. QMJ.').optional(),
@@ -69,12 +70,16 @@ export const requestPromotionSchema = z
   })
   .strict()
   .superRefine((r, ctx) => {
-    if (r.productId && (r.newProductName || r.newProductCode)) {
-      ctx.addIssue({ code: 'custom', path: ['productId'], message: 'Choose an existing product or name a new one, not both.' });
+    if (r.target === 'existing_product') {
+      if (!r.productId) ctx.addIssue({ code: 'custom', path: ['productId'], message: 'Choose the product this becomes a new version of.' });
+      if (r.newProductName || r.newProductCode) {
+        ctx.addIssue({ code: 'custom', path: ['newProductName'], message: 'A new version of an existing product takes no new name or code.' });
+      }
+      return;
     }
-    if (!r.productId && !(r.newProductName && r.newProductCode)) {
-      ctx.addIssue({ code: 'custom', path: [r.newProductName ? 'newProductCode' : 'newProductName'], message: 'Name the new product and give it a code, or choose an existing product.' });
-    }
+    if (r.productId) ctx.addIssue({ code: 'custom', path: ['productId'], message: 'A new product is not a version of an existing one: leave the product out.' });
+    if (!r.newProductName) ctx.addIssue({ code: 'custom', path: ['newProductName'], message: 'Name the new product.' });
+    if (!r.newProductCode) ctx.addIssue({ code: 'custom', path: ['newProductCode'], message: 'Give the new product a code.' });
   });
 export type RequestPromotionInput = z.infer<typeof requestPromotionSchema>;
 

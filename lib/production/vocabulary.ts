@@ -9,6 +9,10 @@ export const PROMOTION_STATUS_LABELS: Record<PromotionStatus, string> = {
   withdrawn: 'Withdrawn',
 };
 
+/** Where a promoted variant goes; the developer always chooses, there is no default. */
+export const PROMOTION_TARGETS = ['new_product', 'existing_product'] as const;
+export type PromotionTarget = (typeof PROMOTION_TARGETS)[number];
+
 export const VERSION_STATUSES = ['current', 'superseded'] as const;
 export type VersionStatus = (typeof VERSION_STATUSES)[number];
 export const VERSION_STATUS_LABELS: Record<VersionStatus, string> = { current: 'In production', superseded: 'Superseded' };

@@ -57,7 +57,20 @@ export interface AttributeAnalysis {
   comparison: ComparisonResult;
   assessors: number;
   verdict: Verdict;
-  penalty?: PenaltyAnalysisResult;
+  /** Just-about-right attributes: one penalty analysis per sample, as the method intends. */
+  penalties?: SamplePenalty[];
+  /** All samples pooled: only when asked for (`pooledPenalty`), because it mixes products. */
+  pooledPenalty?: PenaltyAnalysisResult;
+}
+
+export interface SamplePenalty {
+  label: string;
+  result: PenaltyAnalysisResult;
+}
+
+export interface AnalysisOptions {
+  /** Also compute the penalty analysis over all samples together. Off by default. */
+  pooledPenalty?: boolean;
 }
 
 export interface PanelAnalysis {
@@ -109,7 +122,12 @@ function verdictFor(attr: PanelDataAttribute, anova: AnovaResult, cmp: Compariso
   return { headline, differs: true, cautions };
 }
 
-export function analysePanel(data: PanelData): PanelAnalysis {
+/**
+ * Pairs each JAR answer with the same taster's liking of the same sample. Penalty analysis is run
+ * per sample: a drop in liking means something only within one product (pooling lets one sample's
+ * "too sweet" tasters and another's low liking make a penalty neither has).
+ */
+export function analysePanel(data: PanelData, options: AnalysisOptions = {}): PanelAnalysis {
   const labelOf = new Map(data.samples.map((s) => [s.sampleId, s.label]));
   const out: PanelAnalysis = { method: data.method, attributes: [], jarShares: [] };
 
@@ -134,11 +152,14 @@ export function analysePanel(data: PanelData): PanelAnalysis {
         }
         if (liking) {
           const likingBy = new Map(data.answers.filter((a) => a.kind === 'rating' && a.attribute === liking.id).map((a) => [`${a.seatIndex}|${a.sampleId}`, a.value]));
-          const responses = data.answers
-            .filter((a) => a.kind === 'rating' && a.attribute === attr.id && a.value !== null)
+          const responsesOf = (sampleId: string | null) => data.answers
+            .filter((a) => a.kind === 'rating' && a.attribute === attr.id && a.value !== null && (sampleId === null || a.sampleId === sampleId))
             .map((a) => ({ jarScore: a.value!, liking: likingBy.get(`${a.seatIndex}|${a.sampleId}`) ?? NaN }))
             .filter((r) => Number.isFinite(r.liking));
-          analysis.penalty = penaltyAnalysis(responses);
+          analysis.penalties = [...data.samples]
+            .sort((x, y) => x.label.localeCompare(y.label))
+            .map((s) => ({ label: s.label, result: penaltyAnalysis(responsesOf(s.sampleId)) }));
+          if (options.pooledPenalty) analysis.pooledPenalty = penaltyAnalysis(responsesOf(null));
         }
       }
       out.attributes.push(analysis);

@@ -30,6 +30,21 @@ export interface LabCorrelation {
 
 export const LAB_MEASURE_LABELS = { ph: 'pH', brix20: 'Brix at 20 °C', yieldRatio: 'Yield ÷ predicted' } as const;
 
+function joinNames(names: string[]): string {
+  return names.length <= 1 ? names.join('') : `${names.slice(0, -1).join(', ')} and ${names.at(-1)}`;
+}
+
+/**
+ * One sentence per alias group, in the page's words: which factors moved together, that their effects
+ * cannot be split, and what would split them. `nameOf` turns a factor key into its label.
+ */
+export function describeAliasing(groups: readonly string[][], nameOf: (factor: string) => string): string[] {
+  return groups.map((group) => {
+    const names = group.map((factor, i) => (i === 0 ? nameOf(factor) : nameOf(factor).toLowerCase()));
+    return `${joinNames(names)} changed together in the variants tasted, so their effects cannot be separated: taste a variant that changes one of them alone to tell them apart.`;
+  });
+}
+
 export function compareVariants(variants: ComparedVariant[], means: SensoryMean[]): { effects: FactorEffectsByAttribute[]; correlations: LabCorrelation[] } {
   const attributes = [...new Set(means.map((m) => m.attribute))];
   const factors = [...new Set(variants.flatMap((v) => Object.keys(v.factorLevels)))];

@@ -4,7 +4,7 @@ import { PanelAnswer, PanelSeat, PanelSession, SensoryAttributeDef } from '@/ent
 import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
 import { getPanelSession } from '@/lib/panels/queries';
 import { toCsv } from '@/lib/csv';
-import { analysePanel, type PanelAnalysis, type PanelData } from './analysis';
+import { analysePanel, type AnalysisOptions, type PanelAnalysis, type PanelData } from './analysis';
 
 export async function loadPanelData(actor: Actor, sessionId: string): Promise<{ data: PanelData; session: Awaited<ReturnType<typeof getPanelSession>> }> {
   const session = await getPanelSession(actor, sessionId);
@@ -46,9 +46,9 @@ export async function loadPanelData(actor: Actor, sessionId: string): Promise<{ 
   };
 }
 
-export async function getPanelResults(actor: Actor, sessionId: string): Promise<{ session: Awaited<ReturnType<typeof getPanelSession>>; analysis: PanelAnalysis; data: PanelData }> {
+export async function getPanelResults(actor: Actor, sessionId: string, options: AnalysisOptions = {}): Promise<{ session: Awaited<ReturnType<typeof getPanelSession>>; analysis: PanelAnalysis; data: PanelData }> {
   const { data, session } = await loadPanelData(actor, sessionId);
-  return { session, data, analysis: analysePanel(data) };
+  return { session, data, analysis: analysePanel(data, options) };
 }
 
 /** Raw answers, one row per answer: session, seat, code, variant, attribute, value. */
@@ -88,9 +88,11 @@ export async function summaryCsv(actor: Actor, sessionId: string, table: Summary
     ]);
   }
   if (table === 'penalty') {
-    const rows = analysis.attributes.flatMap((a) => (a.penalty ? (['tooLittle', 'justAboutRight', 'tooMuch'] as const).map((g) => ({ a, g, x: a.penalty!.groups[g] })) : []));
+    // One penalty analysis per sample (variant).
+    const rows = analysis.attributes.flatMap((a) => (a.penalties ?? []).flatMap((p) => (['tooLittle', 'justAboutRight', 'tooMuch'] as const).map((g) => ({ a, variant: p.label, g, x: p.result.groups[g] }))));
     return toCsv(rows, [
       { header: 'attribute', value: (r) => r.a.attribute.name },
+      { header: 'variant', value: (r) => r.variant },
       { header: 'group', value: (r) => r.g },
       { header: 'count', value: (r) => r.x.count },
       { header: 'share', value: (r) => r.x.share },

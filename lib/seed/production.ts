@@ -15,7 +15,7 @@ async function request(developer: Actor, trial: SeededTrial, label: string, prod
   const draft = await getPromotionDraft(developer, trial.trialId);
   const variant = draft.variants.find((v) => v.label === label)!;
   return requestPromotion(developer, {
-    trialId: trial.trialId, variantId: variant.id, newProductName: product.name, newProductCode: product.code, rationale,
+    trialId: trial.trialId, variantId: variant.id, target: 'new_product', newProductName: product.name, newProductCode: product.code, rationale,
     process: { ...variant.defaults!.process, cookNotes }, spec: variant.defaults!.spec,
   });
 }

@@ -37,8 +37,12 @@ describe('promotion to production, three roles', () => {
     const variant = page.getByLabel('Variant', { exact: true });
     const options = await variant.locator('option').allTextContents();
     await variant.selectOption({ label: options.find((o) => o.startsWith('C — '))! });
-    // A new version of the blackcurrant jam already in production.
-    await expect.poll(() => page.getByLabel('Product', { exact: true }).inputValue()).not.toBe('');
+    // Nothing is chosen for the developer: they file it as a new version of the blackcurrant jam in production.
+    expect(await page.getByLabel('Product', { exact: true }).count()).toBe(0);
+    await page.getByLabel('A new version of an existing product').check();
+    await page.getByLabel('Product', { exact: true }).selectOption({ label: 'Blackcurrant jam (BCJ)' });
+    await page.getByTestId('target-comparison').getByText('supersedes version 1 now in production', { exact: false }).waitFor();
+    expect(await page.getByTestId('target-comparison').getByText('Different fruit', { exact: false }).count()).toBe(0);
     await page.getByLabel('Why this variant').fill('Variant C set as firmly as the base with the higher sugar ratio, and tasters preferred it.');
     expect(await page.getByLabel('pH max').inputValue()).not.toBe('');
     await page.getByRole('button', { name: 'Request promotion' }).click();
@@ -61,7 +65,10 @@ describe('promotion to production, three roles', () => {
     await page.getByTestId('review-queue').getByRole('link', { name: new RegExp(`^${requestCode}:`) }).click();
     await page.getByRole('heading', { name: 'Compliance and predicted chemistry' }).waitFor();
     await page.getByRole('heading', { name: 'Proposed QC specification' }).waitFor();
+    await page.getByTestId('promotion-lines').waitFor();
+    await page.getByRole('region', { name: 'Against Blackcurrant jam v1, line by line' }).waitFor();
     await page.getByRole('button', { name: 'Approve for production' }).click();
+    await page.getByRole('dialog').getByText('supersedes version 1 now in production', { exact: false }).waitFor();
     await page.getByRole('dialog').getByRole('button', { name: 'Approve' }).click();
     await page.waitForURL(/\/production\/versions\/[0-9a-f-]{36}$/);
     versionUrl = page.url();

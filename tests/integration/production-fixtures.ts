@@ -30,7 +30,7 @@ export async function promotionInput(fx: WorkspaceFixture, trialId: string, vari
   const v = draft.variants.find((x) => x.id === variantId)!;
   return {
     trialId, variantId,
-    ...('productId' in product ? { productId: product.productId } : { newProductName: product.name ?? 'Fixture strawberry jam', newProductCode: product.code }),
+    ...('productId' in product ? { target: 'existing_product' as const, productId: product.productId } : { target: 'new_product' as const, newProductName: product.name ?? 'Fixture strawberry jam', newProductCode: product.code }),
     rationale: 'Variant A set cleanly and scored best on overall liking.',
     process: { ...v.defaults!.process, cookNotes: 'Rolling boil; skim before filling.' },
     spec: v.defaults!.spec,

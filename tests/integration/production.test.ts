@@ -23,6 +23,7 @@ import { computeFormula } from '@/lib/formulas/compute';
 import { scaleFormula } from '@/lib/chemistry';
 import { toChemistrySettings } from '@/lib/formulas/compute';
 import { lotCodeFor } from '@/lib/production/vocabulary';
+import { diffRevisions } from '@/lib/formulas/diff';
 
 let a: WorkspaceFixture;
 const as = (role: keyof WorkspaceFixture['people']): Caller => ({ kind: 'session', person: a.people[role] });
@@ -80,10 +81,28 @@ describe('requesting promotion', () => {
     const { trialId } = await createTrial(dev, { title: 'Low solids', question: 'Does 55 % pass?', formulaId });
     const [v] = await listVariants(dev, trialId);
     const spec = { solidsMinBrix: 54, solidsMaxBrix: 56, phMin: 2.9, phMax: 3.3, minFillTempC: 85, netFillG: 340, netFillToleranceG: 10.2, setMinScore: 3, setDescription: 'Soft set', shelfLifeMonths: 6, storageNotes: 'Refrigerate after opening.' };
-    const body = { trialId, variantId: v.id, newProductName: 'Runny jam', newProductCode: freshProductCode(), rationale: 'Trying a softer set.', process: { endPointSeaLevelC: 103, fillTempC: 88, cookNotes: '' } };
+    const body = { trialId, variantId: v.id, target: 'new_product', newProductName: 'Runny jam', newProductCode: freshProductCode(), rationale: 'Trying a softer set.', process: { endPointSeaLevelC: 103, fillTempC: 88, cookNotes: '' } };
     const res = await callRoute(promotionsRoute.POST, { method: 'POST', path: '', caller: as('developer'), body: { ...body, spec } });
     expect(res.status, JSON.stringify(res.body)).toBe(422);
     expect(res.body.error.fields.variantId.join(' ')).toMatch(/Soluble dry matter: 55 %.*needs ≥ 60 %/);
+    expect(await (await getEm()).fork().count(PromotionRequest, { trial: trialId })).toBe(0);
+  });
+
+  it('refuses a request that does not say where the variant goes (422), and stores nothing', async () => {
+    const { trialId, variantId } = await createPromotableTrial(a);
+    const input = await promotionInput(a, trialId, variantId, { code: freshProductCode() });
+    const untargeted: Record<string, unknown> = { ...input };
+    delete untargeted.target;
+    const missing = await callRoute(promotionsRoute.POST, { method: 'POST', path: '', caller: as('developer'), body: untargeted });
+    expect(missing.status).toBe(422);
+    expect(missing.body.error.fields.target.join(' ')).toMatch(/new product or a new version/);
+    // "A new version" without naming the product is no choice either.
+    const bare: Record<string, unknown> = { ...input, target: 'existing_product' };
+    delete bare.newProductName;
+    delete bare.newProductCode;
+    const noProduct = await callRoute(promotionsRoute.POST, { method: 'POST', path: '', caller: as('developer'), body: bare });
+    expect(noProduct.status).toBe(422);
+    expect(noProduct.body.error.fields.productId.join(' ')).toMatch(/Choose the product/);
     expect(await (await getEm()).fork().count(PromotionRequest, { trial: trialId })).toBe(0);
   });
 
@@ -209,6 +228,42 @@ describe('approval and the production version', () => {
     // A superseded version takes no new batches.
     const late = await callRoute(batchesRoute.POST, { method: 'POST', path: '', caller: as('production'), params: { versionId: first.versionId }, body: goodBatch(product.product.code, '2026-11-20', 1) });
     expect(late.status).toBe(409);
+  });
+});
+
+describe('what the head of product reviews', () => {
+  it('the formula lines in grams and % of the batch, the version in production beside them, and what approval does', async () => {
+    const first = await createApprovedVersion(a);
+    const productId = (await callRoute(versionRoute.GET, { method: 'GET', path: '', caller: as('head_of_product'), params: { versionId: first.versionId } })).body.version.product.id;
+    const dev = actorOf(a, 'developer');
+    const base = await strawberryJamInput(a);
+    // Variant with 900 g sugar instead of 1000 g: the one line that changes.
+    const { formulaId } = await createFormula(dev, { ...base, name: 'Less sugar', lines: base.lines.map((l, i) => (i === 1 ? { ...l, quantity: 900 } : l)) });
+    const { trialId } = await createTrial(dev, { title: 'Less sugar', question: 'Does 900 g still set?', formulaId });
+    const [v] = await listVariants(dev, trialId);
+    const input = await promotionInput(a, trialId, v.id, { productId });
+    const created = await callRoute(promotionsRoute.POST, { method: 'POST', path: '', caller: as('developer'), body: input });
+    expect(created.status, JSON.stringify(created.body)).toBe(201);
+    const p = (await callRoute(promotionRoute.GET, { method: 'GET', path: '', caller: as('head_of_product'), params: { requestId: created.body.requestId } })).body.promotion;
+    expect(p.outcome).toEqual({ kind: 'existing_product', name: 'Fixture strawberry jam', code: first.productCode, nextVersion: 2, currentVersion: 1 });
+    // Hand computation: charge 1000 + 900 + 6 + 5.5 = 1911.5 g; strawberry 1000 / 1911.5 = 52.31 %.
+    expect(p.formula.weighed.totalChargeG).toBeCloseTo(1911.5, 9);
+    expect(p.formula.weighed.lines.map((l: any) => l.grams)).toEqual([1000, 900, 6, 5.5]);
+    expect(p.formula.weighed.lines[0].pctOfBatch).toBeCloseTo(100_000 / 1911.5, 9);
+    expect(p.baseline.version).toBe(1);
+    const diff = diffRevisions(
+      { formulaId: '', number: 1, name: 'x', settings: p.baseline.settings, lines: p.baseline.lines, note: null, createdAt: '', createdBy: { id: '', name: '' } },
+      { formulaId: '', number: 2, name: 'x', settings: p.formula.settings, lines: p.formula.lines, note: null, createdAt: '', createdBy: { id: '', name: '' } },
+    );
+    expect(diff.lines.map((l) => l.status)).toEqual(['unchanged', 'changed', 'unchanged', 'unchanged']);
+  });
+
+  it('a new product has nothing to compare with and becomes version 1', async () => {
+    const { requestId } = await newRequest();
+    const p = (await callRoute(promotionRoute.GET, { method: 'GET', path: '', caller: as('head_of_product'), params: { requestId } })).body.promotion;
+    expect(p.outcome.kind).toBe('new_product');
+    expect(p.baseline).toBeNull();
+    expect(p.formula.weighed.lines).toHaveLength(4);
   });
 });
 

@@ -55,10 +55,59 @@ describe('rated panels', () => {
       attributes: [{ id: 'like', name: 'Overall liking', purpose: 'liking' }, { id: 'sweet', name: 'Sweetness', purpose: 'just-about-right' }],
     });
     expect(r.jarShares).toEqual([{ attributeId: 'sweet', label: 'A', n: 5, tooLittle: 1, justAboutRight: 3, tooMuch: 1 }]);
-    const p = r.attributes[1].penalty!;
+    expect(r.attributes[1].penalties!.map((x) => x.label)).toEqual(['A']);
+    const p = r.attributes[1].penalties![0].result;
     expect(p.groups.tooLittle.meanDrop).toBeCloseTo(3, 12);
     expect(p.groups.tooLittle.weightedPenalty).toBeCloseTo(0.6, 12);
     expect(p.groups.tooMuch.weightedPenalty).toBeCloseTo(0.4, 12);
+  });
+});
+
+describe('penalty analysis, one per sample', () => {
+  // Hand-worked, invented answers: five tasters score sweetness (JAR, 1–5) and overall liking (1–9) of A and B.
+  //   A: JAR 3,3,3,4,4 with liking 8,8,7,5,6 → JAR mean 23/3 = 7.667; too much n 2 (40 %), mean 5.5,
+  //      drop 2.1667, weighted 0.8667; too little none.
+  //   B: JAR 1,2,3,3,3 with liking 3,4,6,6,6 → JAR mean 6; too little n 2 (40 %), mean 3.5, drop 2.5,
+  //      weighted 1.0; too much none.
+  //   Pooled (10 answers): JAR mean 41/6 = 6.833; too much 20 %, drop 1.333, weighted 0.267 — a third of
+  //   what A's tasters actually lose, which is why each sample gets its own analysis.
+  const samples = [{ sampleId: 'sa', label: 'A', description: '' }, { sampleId: 'sb', label: 'B', description: '' }];
+  const jar = { sa: [3, 3, 3, 4, 4], sb: [1, 2, 3, 3, 3] };
+  const like = { sa: [8, 8, 7, 5, 6], sb: [3, 4, 6, 6, 6] };
+  const answers = (['sa', 'sb'] as const).flatMap((sampleId) => jar[sampleId].flatMap((v, i) => [
+    { seatIndex: i, kind: 'rating' as const, attribute: 'sweet', sampleId, value: v, rankingSampleIds: null, correct: null },
+    { seatIndex: i, kind: 'rating' as const, attribute: 'like', sampleId, value: like[sampleId][i], rankingSampleIds: null, correct: null },
+  ]));
+  const data: PanelData = {
+    method: 'rated', samples, answers, seatCount: 5, submittedSeats: 5,
+    attributes: [{ id: 'like', name: 'Overall liking', purpose: 'liking' }, { id: 'sweet', name: 'Sweetness', purpose: 'just-about-right' }],
+  };
+
+  it('runs one analysis per sample by default and no pooled one', () => {
+    const a = analysePanel(data).attributes[1];
+    expect(a.pooledPenalty).toBeUndefined();
+    const [pa, pb] = a.penalties!;
+    expect([pa.label, pb.label]).toEqual(['A', 'B']);
+    expect(pa.result.respondentCount).toBe(5);
+    expect(pa.result.groups.justAboutRight.meanLiking).toBeCloseTo(23 / 3, 12);
+    expect(pa.result.groups.tooMuch.share).toBeCloseTo(0.4, 12);
+    expect(pa.result.groups.tooMuch.meanDrop).toBeCloseTo(23 / 3 - 5.5, 12);
+    expect(pa.result.groups.tooMuch.weightedPenalty).toBeCloseTo(0.4 * (23 / 3 - 5.5), 12);
+    expect(pa.result.groups.tooLittle.count).toBe(0);
+    expect(pb.result.groups.tooLittle.meanDrop).toBeCloseTo(2.5, 12);
+    expect(pb.result.groups.tooLittle.weightedPenalty).toBeCloseTo(1.0, 12);
+    expect(pb.result.groups.tooMuch.count).toBe(0);
+    // Common practice, no published source: groups of at least 20 % of a sample's tasters are read.
+    expect(pa.result.shareThreshold).toBe(0.2);
+    expect(pa.result.groups.tooMuch.largeEnoughToInterpret).toBe(true);
+  });
+
+  it('pools all samples only when asked', () => {
+    const pooled = analysePanel(data, { pooledPenalty: true }).attributes[1].pooledPenalty!;
+    expect(pooled.respondentCount).toBe(10);
+    expect(pooled.groups.justAboutRight.meanLiking).toBeCloseTo(41 / 6, 12);
+    expect(pooled.groups.tooMuch.weightedPenalty).toBeCloseTo(0.2 * (41 / 6 - 5.5), 12);
+    expect(pooled.groups.tooLittle.weightedPenalty).toBeCloseTo(0.2 * (41 / 6 - 3.5), 12);
   });
 });
 

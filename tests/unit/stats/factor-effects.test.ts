@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { estimateFactorEffects, type FactorRun } from '@/lib/stats';
+import { estimateFactorEffects, findAliasGroups, type FactorRun } from '@/lib/stats';
 import { collectNonFiniteNumbers } from './fixtures';
 
 // Source: Montgomery, Design and Analysis of Experiments, Example 6.1 (2² design, chemical yield):
@@ -56,13 +56,84 @@ describe('factor main effects by least squares', () => {
     expect(collectNonFiniteNumbers(result)).toEqual([]);
   });
 
-  it('constant or confounded factor: flagged, no NaN', () => {
+  it('factors changed together: neither is credited, both are named as aliased, no NaN', () => {
     const result = estimateFactorEffects(['A', 'B'], [
       { levels: { A: -1, B: -1 }, responses: [5, 6] },
       { levels: { A: 1, B: 1 }, responses: [7, 8] },
     ]);
-    expect(result.effects[1].coefficientPerUnit).toBeNull();
-    expect(result.warnings.join(' ')).toMatch(/B: its levels are constant or confounded/);
+    expect(result.effects.map((e) => e.effectOverRange)).toEqual([null, null]);
+    expect(result.effects.map((e) => e.aliasedWith)).toEqual([['B'], ['A']]);
+    expect(result.aliasGroups).toEqual([['A', 'B']]);
+    expect(result.message).toMatch(/cannot be separated/);
     expect(collectNonFiniteNumbers(result)).toEqual([]);
+  });
+
+  it('a constant factor is reported as not varied, not as aliased', () => {
+    const result = estimateFactorEffects(['A', 'B'], [
+      { levels: { A: -1, B: 0 }, responses: [5] },
+      { levels: { A: 1, B: 0 }, responses: [7] },
+      { levels: { A: 1, B: 0 }, responses: [8] },
+    ]);
+    expect(result.effects[1].constant).toBe(true);
+    expect(result.effects[1].effectOverRange).toBeNull();
+    expect(result.aliasGroups).toEqual([]);
+    // By hand: mean at A = +1 is 7.5, at A = −1 is 5, so the effect over the range is 2.5.
+    expect(result.effects[0].effectOverRange).toBeCloseTo(2.5, 10);
+    expect(result.warnings.join(' ')).toMatch(/B: held one level/);
+  });
+});
+
+describe('aliasing: effects that the runs cannot separate', () => {
+  it('the issue\'s case: the base against one variant that changed sugar ratio and pectin dose together', () => {
+    // Hand-worked: two runs (0.78, 6.0) and (0.65, 5.0); with an intercept the design has rank 2 but three
+    // columns, and the two centred factor columns are proportional (−0.065, 0.065) and (−0.5, 0.5).
+    const result = estimateFactorEffects(['sugar_ratio', 'pectin_dose'], [
+      { label: 'Base', levels: { sugar_ratio: 0.78, pectin_dose: 6.0 }, responses: [6.5] },
+      { label: 'B', levels: { sugar_ratio: 0.65, pectin_dose: 5.0 }, responses: [9.67] },
+    ]);
+    expect(result.aliasGroups).toEqual([['sugar_ratio', 'pectin_dose']]);
+    expect(result.effects.every((e) => e.effectOverRange === null && e.standardErrorOverRange === null)).toBe(true);
+    expect(result.effects[0].aliasedWith).toEqual(['pectin_dose']);
+  });
+
+  it('more factors than the runs can carry: all three are aliased, and a fourth orthogonal run set is not', () => {
+    // Hand-worked: C = A + B in every run, so the centred columns are linearly dependent (rank 3 of 4 columns
+    // with the intercept); no single factor's effect can be separated from the other two.
+    const runs: FactorRun[] = [
+      { levels: { A: 0, B: 0, C: 0 }, responses: [4] },
+      { levels: { A: 1, B: 0, C: 1 }, responses: [6] },
+      { levels: { A: 0, B: 1, C: 1 }, responses: [5] },
+      { levels: { A: 1, B: 1, C: 2 }, responses: [8] },
+    ];
+    expect(estimateFactorEffects(['A', 'B', 'C'], runs).aliasGroups).toEqual([['A', 'B', 'C']]);
+    // Drop C and the 2² design is orthogonal: nothing is aliased.
+    expect(estimateFactorEffects(['A', 'B'], runs).aliasGroups).toEqual([]);
+  });
+
+  it('the 2^(3−1) half fraction with I = ABC aliases each main effect with a two-factor interaction', () => {
+    // Source: Montgomery, Design and Analysis of Experiments, §8.2, the one-half fraction of the 2³ design
+    // with defining relation I = ABC: runs a, b, c, abc, and the alias structure A = BC, B = AC, C = AB (memory).
+    // Also NIST/SEMATECH e-Handbook of Statistical Methods, §5.3.3.4.1 (the 2^(3−1) design and its confounding).
+    const runs = [
+      { A: 1, B: -1, C: -1 }, // a
+      { A: -1, B: 1, C: -1 }, // b
+      { A: -1, B: -1, C: 1 }, // c
+      { A: 1, B: 1, C: 1 }, // abc
+    ];
+    const column = (f: (r: (typeof runs)[number]) => number) => runs.map(f);
+    const { groups, constant } = findAliasGroups({
+      A: column((r) => r.A), B: column((r) => r.B), C: column((r) => r.C),
+      AB: column((r) => r.A * r.B), AC: column((r) => r.A * r.C), BC: column((r) => r.B * r.C),
+    });
+    expect(constant).toEqual([]);
+    const sorted = groups.map((g) => [...g].sort()).sort((x, y) => x[0].localeCompare(y[0]));
+    expect(sorted).toEqual([['A', 'BC'], ['AB', 'C'], ['AC', 'B']]); // A = BC, C = AB, B = AC
+    // The full 2³ factorial separates all six: nothing is aliased.
+    const full = [-1, 1].flatMap((A) => [-1, 1].flatMap((B) => [-1, 1].map((C) => ({ A, B, C }))));
+    const fullColumn = (f: (r: (typeof full)[number]) => number) => full.map(f);
+    expect(findAliasGroups({
+      A: fullColumn((r) => r.A), B: fullColumn((r) => r.B), C: fullColumn((r) => r.C),
+      AB: fullColumn((r) => r.A * r.B), AC: fullColumn((r) => r.A * r.C), BC: fullColumn((r) => r.B * r.C),
+    }).groups).toEqual([]);
   });
 });

@@ -11,10 +11,12 @@ export const dynamic = 'force-dynamic';
 export const metadata = { title: 'Tasting results' };
 
 /** Results unblind the samples: staff only (panels.read), never reachable from a seat token. */
-export default async function PanelResultsPage({ params }: { params: Promise<{ sessionId: string }> }) {
+export default async function PanelResultsPage({ params, searchParams }: { params: Promise<{ sessionId: string }>; searchParams: Promise<Record<string, string | string[] | undefined>> }) {
   const actor = await requirePage('panels.read');
   const id = pageId((await params).sessionId);
-  const { session, analysis, data } = await orNotFound(getPanelResults(actor, id));
+  // Penalty analysis is per sample; the pooled view is an explicit option (?penalty=pooled), anything else is ignored.
+  const pooled = (await searchParams).penalty === 'pooled';
+  const { session, analysis, data } = await orNotFound(getPanelResults(actor, id, { pooledPenalty: pooled }));
   const partial = data.seatCount - data.submittedSeats;
   return (
     <>
@@ -27,7 +29,7 @@ export default async function PanelResultsPage({ params }: { params: Promise<{ s
             <a href={`/api/v1/panels/${id}/answers.csv`} className={buttonClass('secondary')}>Raw answers (CSV)</a>
             <a href={`/api/v1/panels/${id}/summary.csv`} className={buttonClass('ghost')}>Means (CSV)</a>
             <a href={`/api/v1/panels/${id}/summary.csv?table=anova`} className={buttonClass('ghost')}>ANOVA (CSV)</a>
-            {analysis.attributes.some((a) => a.penalty) ? <a href={`/api/v1/panels/${id}/summary.csv?table=penalty`} className={buttonClass('ghost')}>Penalties (CSV)</a> : null}
+            {analysis.attributes.some((a) => a.penalties) ? <a href={`/api/v1/panels/${id}/summary.csv?table=penalty`} className={buttonClass('ghost')}>Penalties (CSV)</a> : null}
             {analysis.triangle ? <a href={`/api/v1/panels/${id}/summary.csv?table=triangle`} className={buttonClass('ghost')}>Triangle (CSV)</a> : null}
             {analysis.ranking ? <a href={`/api/v1/panels/${id}/summary.csv?table=ranking`} className={buttonClass('ghost')}>Ranking (CSV)</a> : null}
           </div>
@@ -41,7 +43,7 @@ export default async function PanelResultsPage({ params }: { params: Promise<{ s
       </section>
       {session.state !== 'closed' ? <div className="mb-4"><Notice tone="warning">The tasting is still taking answers: these results will change.</Notice></div> : null}
       {partial > 0 ? <div className="mb-4"><Notice tone="info">{partial} seat{partial === 1 ? '' : 's'} did not submit; their answers so far are included, and the analysis adjusts for the missing cells.</Notice></div> : null}
-      <ResultsView analysis={analysis} />
+      <ResultsView analysis={analysis} pooledPenalty={{ showHref: `/panels/${id}/results?penalty=pooled`, hideHref: `/panels/${id}/results` }} />
     </>
   );
 }

@@ -11,6 +11,8 @@ import { SpecTable } from '@/components/production/SpecTable';
 import { CautionList } from '@/components/production/CautionList';
 import { AuditTrail } from '@/components/production/AuditTrail';
 import { DecisionForm } from '@/components/production/DecisionForm';
+import { approvalConsequence } from '@/lib/production/review';
+import { PromotionFormula } from '@/components/production/PromotionFormula';
 import { WithdrawButton } from '@/components/production/WithdrawButton';
 
 export const dynamic = 'force-dynamic';
@@ -30,7 +32,7 @@ export default async function PromotionRequestPage({ params }: { params: Promise
     <>
       <PageHeader
         title={`${r.code}: variant ${r.variantLabel} of ${r.trial.code}`}
-        lead={`${r.productLabel}. Requested by ${r.requestedBy} on ${r.requestedAt.slice(0, 10)}.`}
+        lead={`${r.productLabel}. Requested by ${r.requestedBy} on ${r.requestedAt.slice(0, 10)}.${r.status === 'pending' ? ` On approval, ${approvalConsequence(r.outcome).replace(/^T/, 't')}` : ''}`}
         actions={<StatusBadge status={r.status} />}
       />
       <p className="-mt-3 mb-6 text-sm">
@@ -51,6 +53,9 @@ export default async function PromotionRequestPage({ params }: { params: Promise
             <p className="whitespace-pre-line">{r.rationale}</p>
             <p className="mt-3 text-sm text-rind-600"><strong>Trial question:</strong> {e.trial.question}</p>
             <p className="mt-1 text-sm text-rind-600"><strong>Variant:</strong> {e.variant.description}{e.variant.factorLevels.length ? ` (${e.variant.factorLevels.map((l) => `${FACTOR_LABELS[l.factor as TrialFactor]?.name ?? l.factor} ${l.value}`).join(', ')})` : ''}</p>
+          </Card>
+          <Card title="Formula">
+            <PromotionFormula formula={r.formula} baseline={r.baseline} variantLabel={r.variantLabel} massUnits={units} temperatureUnit={actor.temperatureUnit} />
           </Card>
           <Card title="Compliance and predicted chemistry">
             <p className="text-sm"><strong>{e.compliance.edition}:</strong> {e.compliance.overall.replace('_', ' ')}</p>
@@ -77,17 +82,19 @@ export default async function PromotionRequestPage({ params }: { params: Promise
           </Card>
           <Card title="Lab readings">
             {e.lab.length === 0 ? <p className="text-sm text-rind-600">No cooks were recorded.</p> : (
+<div className="overflow-x-auto">
               <table className="w-full text-sm">
                 <thead><tr className="border-b border-pith-300 text-left text-rind-600"><th className="py-1 pr-3 font-medium">Variant</th><th className="py-1 pr-3 font-medium">Cooked</th><th className="py-1 pr-3 font-medium">°Brix at 20 °C</th><th className="py-1 pr-3 font-medium">pH</th><th className="py-1 pr-3 font-medium">End point</th><th className="py-1 font-medium">Set</th></tr></thead>
                 <tbody>{e.lab.map((m, i) => (
                   <tr key={i} className={`border-b border-pith-200 ${m.label === r.variantLabel ? 'font-semibold' : ''}`}><td className="py-1 pr-3">{m.label}</td><td className="py-1 pr-3">{m.cookDate}</td><td className="py-1 pr-3 tabular-nums">{n(m.brix20, 1)}</td><td className="py-1 pr-3 tabular-nums">{n(m.ph, 2)}</td><td className="py-1 pr-3">{m.endPointTempC === null ? '—' : formatTemperature(m.endPointTempC, temps)}</td><td className="py-1">{m.setTestScore ?? '—'}</td></tr>
                 ))}</tbody>
               </table>
+              </div>
             )}
           </Card>
         </div>
         <div className="space-y-6">
-          {r.canDecide ? <DecisionForm requestId={r.id} code={r.code} productLabel={r.productLabel} /> : null}
+          {r.canDecide ? <DecisionForm requestId={r.id} code={r.code} outcome={r.outcome} /> : null}
           {r.status === 'pending' && !r.canDecide && r.requestedById === actor.userId && can(actor.role, 'promotion.decide') ? (
             <Notice tone="info">You made this request: another head of product must decide it.</Notice>
           ) : null}

@@ -4,11 +4,11 @@ import { can } from '@/lib/permissions';
 import { getTrialComparison } from '@/lib/results/trial-comparison';
 import { LAB_MEASURE_LABELS } from '@/lib/results/comparison';
 import { formatP } from '@/lib/results/analysis';
-import { FACTOR_LABELS, type TrialFactor } from '@/lib/trials/vocabulary';
 import { TrialHeader } from '@/components/trials/TrialHeader';
 import { VariantsTable } from '@/components/trials/VariantsTable';
 import { RecommendForm } from '@/components/results/RecommendForm';
-import { CountChart } from '@/components/results/Charts';
+import { FactorEffectsCard } from '@/components/results/FactorEffects';
+import { DataTable, CELL, HEAD, NUM, NUM_TH, TH } from '@/components/results/DataTable';
 import { Notice } from '@/components/ui/Notice';
 
 export const dynamic = 'force-dynamic';
@@ -44,37 +44,28 @@ export default async function ComparePage({ params }: { params: Promise<{ trialI
           </div>
         ))}
         {attributes.length ? (
-          <table className="mt-3 text-sm" data-testid="sensory-means">
-            <thead className="text-left text-xs uppercase tracking-wider text-rind-500"><tr><th scope="col" className="pr-4">Attribute</th>{labels.map((l) => <th key={l} scope="col" className="px-2">{l}</th>)}</tr></thead>
-            <tbody>{attributes.map((a) => <tr key={a}><th scope="row" className="pr-4 text-left font-normal">{a}</th>{labels.map((l) => <td key={l} className="px-2 tabular-nums">{n2(c.means.find((m) => m.attribute === a && m.label === l)?.mean)}</td>)}</tr>)}</tbody>
-          </table>
+          <div className="mt-3"><DataTable testId="sensory-means">
+            <thead className={HEAD}><tr><th scope="col" className={TH}>Attribute</th>{labels.map((l) => <th key={l} scope="col" className={NUM_TH}>{l}</th>)}</tr></thead>
+            <tbody className="divide-y divide-pith-200">{attributes.map((a) => <tr key={a}><th scope="row" className={`${CELL} text-left font-normal`}>{a}</th>{labels.map((l) => <td key={l} className={NUM}>{n2(c.means.find((m) => m.attribute === a && m.label === l)?.mean)}</td>)}</tr>)}</tbody>
+          </DataTable></div>
         ) : null}
       </section>
       {c.effects.length ? (
         <section className="mb-6" aria-labelledby="effects-title">
           <h2 id="effects-title" className="mb-2 text-xl font-semibold">Factor effects</h2>
-          <p className="mb-3 text-sm text-rind-600">Least-squares main effects on the variants’ mean scores: the change from the lowest to the highest level tried.</p>
+          <p className="mb-3 text-sm text-rind-600">Least-squares main effects on the variants’ mean scores: the change from the lowest to the highest level tried. Factors that changed together in every variant tasted cannot be told apart and get no effect of their own.</p>
           <div className="grid gap-4 lg:grid-cols-2">
-            {c.effects.map((e) => (
-              <div key={e.attribute} className="rounded-card bg-pith-50 p-4 ring-1 ring-pith-300">
-                <p className="font-medium">{e.attribute}</p>
-                <CountChart label="Effect over the range" labels={e.result.effects.map((x) => FACTOR_LABELS[x.factor as TrialFactor]?.name ?? x.factor)} values={e.result.effects.map((x) => x.effectOverRange ?? 0)} ariaLabel={`Factor effects on ${e.attribute}`} />
-                <ul className="mt-2 text-xs text-rind-600">
-                  {e.result.effects.map((x) => <li key={x.factor}>{FACTOR_LABELS[x.factor as TrialFactor]?.name ?? x.factor}: {n2(x.effectOverRange)} ± {n2(x.standardErrorOverRange)} {x.p !== null ? `(${formatP(x.p)})` : ''}</li>)}
-                </ul>
-                {e.result.message ? <p className="mt-1 text-xs text-amberline-700">{e.result.message}</p> : null}
-              </div>
-            ))}
+            {c.effects.map((e) => <FactorEffectsCard key={e.attribute} effect={e} />)}
           </div>
         </section>
       ) : null}
       {c.correlations.length ? (
         <section className="mb-6" aria-labelledby="corr-title">
           <h2 id="corr-title" className="mb-2 text-xl font-semibold">Lab measurements against sensory means</h2>
-          <table className="text-sm">
-            <thead className="text-left text-xs uppercase tracking-wider text-rind-500"><tr><th scope="col" className="pr-4">Attribute</th><th scope="col" className="pr-4">Measure</th><th scope="col" className="pr-4">r</th><th scope="col" className="pr-4">n</th><th scope="col">p</th></tr></thead>
-            <tbody>{c.correlations.map((x) => <tr key={`${x.attribute}-${x.measure}`}><td className="pr-4">{x.attribute}</td><td className="pr-4">{LAB_MEASURE_LABELS[x.measure]}</td><td className="pr-4 tabular-nums">{n2(x.result.r)}</td><td className="pr-4">{x.result.n}</td><td>{formatP(x.result.p)}</td></tr>)}</tbody>
-          </table>
+          <DataTable>
+            <thead className={HEAD}><tr><th scope="col" className={TH}>Attribute</th><th scope="col" className={TH}>Measure</th><th scope="col" className={NUM_TH}>r</th><th scope="col" className={NUM_TH}>n</th><th scope="col" className={NUM_TH}>p</th></tr></thead>
+            <tbody className="divide-y divide-pith-200">{c.correlations.map((x) => <tr key={`${x.attribute}-${x.measure}`}><td className={CELL}>{x.attribute}</td><td className={CELL}>{LAB_MEASURE_LABELS[x.measure]}</td><td className={NUM}>{n2(x.result.r)}</td><td className={NUM}>{x.result.n}</td><td className={`${NUM} whitespace-nowrap`}>{formatP(x.result.p)}</td></tr>)}</tbody>
+          </DataTable>
           <p className="mt-1 text-xs text-rind-500">Pearson correlation across variants; with this few variants, read it as a hint, not proof.</p>
         </section>
       ) : null}
