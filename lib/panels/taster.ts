@@ -83,6 +83,13 @@ export async function recordConsent(token: string): Promise<void> {
   await em.nativeUpdate(PanelSeat, { id: seat.id, consentedAt: null }, { consentedAt: new Date() });
 }
 
+/**
+ * How many idempotency keys (the first answer and its changes) one answer keeps. Bounds the row a
+ * seat token can grow; a taster changes an answer a few times at most (common practice, no
+ * published source).
+ */
+export const MAX_KEYS_PER_ANSWER = 100;
+
 type AnswerContext = { seat: SeatRow; session: SessionRow; scales: Map<string, SensoryScale> };
 
 /**
@@ -154,21 +161,24 @@ export async function recordAnswer(token: string, input: AnswerInput): Promise<{
        confidence = excluded.confidence, comment = excluded.comment, idempotency_key = excluded.idempotency_key,
        idempotency_keys = panel_answers.idempotency_keys || excluded.idempotency_key, updated_at = now()
      where excluded.idempotency_key <> all(panel_answers.idempotency_keys)
+       and cardinality(panel_answers.idempotency_keys) < $15
        and exists (select 1 from panel_sessions s where s.id = panel_answers.session_id and s.state = 'open')
      returning (xmax = 0) as inserted`,
-    [seat.workspace.id, seat.session.id, seat.id, row.kind, row.item, row.attribute, row.sampleId, row.value, row.ranking ? JSON.stringify(row.ranking) : null, row.oddCode, row.correct, row.confidence, row.comment, input.idempotencyKey],
+    [seat.workspace.id, seat.session.id, seat.id, row.kind, row.item, row.attribute, row.sampleId, row.value, row.ranking ? JSON.stringify(row.ranking) : null, row.oddCode, row.correct, row.confidence, row.comment, input.idempotencyKey, MAX_KEYS_PER_ANSWER],
     'setwell_store_answer',
   );
-  // No row back: this key was stored before (a retry, or a late replay of an older answer), or the session closed meanwhile.
+  // No row back: this key was stored before (a retry, or a late replay of an older answer), the
+  // session closed meanwhile, or the answer has had as many keys as it may keep.
   if (result.length === 0) {
-    const [replay] = await sql<{ state: SessionRow['state']; current_key: string | null }>(
-      `select s.state, a.idempotency_key as current_key
+    const [replay] = await sql<{ state: SessionRow['state']; current_key: string | null; seen: boolean | null }>(
+      `select s.state, a.idempotency_key as current_key, $5::uuid = any(a.idempotency_keys) as seen
          from panel_sessions s left join panel_answers a on a.seat_id = $2 and a.item = $3 and a.attribute = $4
         where s.id = $1`,
-      [seat.session.id, seat.id, row.item, row.attribute],
+      [seat.session.id, seat.id, row.item, row.attribute, input.idempotencyKey],
       'setwell_answer_replay',
     );
     if (replay?.state !== 'open') throw closed();
+    if (!replay.seen) throw new ApiError(422, 'too_many_changes', 'This answer has been changed too many times to take another change. Your last saved answer stands.');
     return { stored: true, duplicate: true, stale: replay.current_key !== input.idempotencyKey };
   }
   return { stored: true, duplicate: false, stale: false };

@@ -11,7 +11,7 @@ import { createFixtureFormula } from './fixtures';
 import { createTrial, planVariants } from '@/lib/trials/mutations';
 import { createPanelSession, openPanelSession, joinAsGuest } from '@/lib/panels/mutations';
 import { listAttributes } from '@/lib/panels/queries';
-import { recordConsent, tasterView } from '@/lib/panels/taster';
+import { MAX_KEYS_PER_ANSWER, recordConsent, tasterView } from '@/lib/panels/taster';
 import * as answersRoute from '@/app/api/v1/tasting/[seatToken]/answers/route';
 import { getEm } from '@/lib/db';
 import { PanelAnswer, Variant } from '@/entities';
@@ -84,5 +84,18 @@ describe('answers only move forward', () => {
     expect(replies.filter((r) => r.body.duplicate === false)).toHaveLength(1);
     expect((await tasterView(seatToken)).answers.find((x) => x.code === code)?.value).toBe(7);
     expect((await put(k1, 2)).body).toEqual({ stored: true, duplicate: true, stale: true });
+  });
+
+  it(`an answer keeps at most ${MAX_KEYS_PER_ANSWER} keys: one change more is refused (422), the last value stands and old keys stay recognised`, async () => {
+    const { put, seatToken, code } = await newSeat();
+    const keys = Array.from({ length: MAX_KEYS_PER_ANSWER }, () => randomUUID());
+    for (const [i, k] of keys.entries()) expect((await put(k, 1 + (i % 9))).status).toBe(200);
+    const last = 1 + ((MAX_KEYS_PER_ANSWER - 1) % 9);
+    const refused = await put(randomUUID(), last === 9 ? 1 : 9);
+    expect(refused.status).toBe(422);
+    expect(refused.body.error.code).toBe('too_many_changes');
+    expect((await tasterView(seatToken)).answers.find((x) => x.code === code)?.value).toBe(last);
+    expect((await put(keys[0], 1)).body).toEqual({ stored: true, duplicate: true, stale: true });
+    expect((await put(keys.at(-1)!, last)).body).toEqual({ stored: true, duplicate: true, stale: false });
   });
 });
