@@ -5,7 +5,12 @@
  * - API authorisation matrix (401/403/404 per role and workspace): tests/integration/authorization.test.ts
  * - Origin check on a cookie-authenticated API write from a foreign origin: authorization.test.ts ("cookie-authenticated writes")
  * - Sign-in throttling per account and per address: tests/integration/members-and-accounts.test.ts ("sign-in throttling"),
+ *   counted before the password is checked: account-security.test.ts ("limits that hold"),
  *   and in the browser: tests/e2e/platform.test.ts ("the rate limit kicks in…")
+ * - Forwarded headers ignored without TRUST_PROXY (limits, Origin): tests/integration/trust-proxy.test.ts
+ * - The mail outbox across workspaces, what a password reset ends, sign out everywhere, reset limits, sign-in
+ *   error codes: tests/integration/account-security.test.ts, tests/unit/security/sign-in-errors.test.ts,
+ *   tests/e2e/accounts.test.ts
  * - Join-code guesses rate-limited per address: tests/integration/panels.test.ts ("join-code guesses are rate-limited")
  * - Invitation links stored as SHA-256 only: members-and-accounts.test.ts ("Only the hash is stored")
  * - Uploads typed by their bytes (renamed programs, archives, HEIC, NUL-byte CSV; 413/415): tests/integration/uploads.test.ts
