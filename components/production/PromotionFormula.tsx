@@ -8,6 +8,9 @@ const asRevision = (name: string, number: number, f: { settings: FormulaSettings
   formulaId: '', number, name, settings: f.settings, lines: f.lines, note: null, createdAt: '', createdBy: { id: '', name: '' },
 });
 
+/** Pectin and acid to a tenth of a gram, the rest to the gram; kilograms to 10 g. */
+const massDecimals = (grams: number, units: UnitPreference) => (units !== 'metric' ? 2 : grams < 100 ? 1 : grams < 1000 ? 0 : 2);
+
 /** The formula the head of product approves, line by line, and what it changes against the version in production. */
 export function PromotionFormula({ formula, baseline, variantLabel, massUnits, temperatureUnit }: {
   formula: PromotionView['formula'];
@@ -27,16 +30,16 @@ export function PromotionFormula({ formula, baseline, variantLabel, massUnits, t
             <thead>
               <tr className="border-b border-pith-300 text-left text-rind-600">
                 <th scope="col" className="py-1 pr-4 font-medium">Ingredient</th>
-                <th scope="col" className="py-1 pr-4 text-right font-medium">{massUnits === 'metric' ? 'Grams' : 'Weight'}</th>
-                <th scope="col" className="py-1 text-right font-medium">% of batch</th>
+                <th scope="col" className="whitespace-nowrap py-1 pr-4 text-right font-medium">{massUnits === 'metric' ? 'Grams' : 'Weight'}</th>
+                <th scope="col" className="whitespace-nowrap py-1 text-right font-medium">% of batch</th>
               </tr>
             </thead>
             <tbody>
               {weighed.lines.map((l, i) => (
                 <tr key={`${l.name}-${i}`} className="border-b border-pith-200">
                   <th scope="row" className="py-1 pr-4 text-left font-normal">{l.name}</th>
-                  <td className="py-1 pr-4 text-right tabular-nums">{formatMass(l.grams, massUnits, massUnits === 'metric' && l.grams < 1000 ? 1 : 2)}</td>
-                  <td className="py-1 text-right tabular-nums">{l.pctOfBatch.toFixed(1)} %</td>
+                  <td className="whitespace-nowrap py-1 pr-4 text-right tabular-nums">{formatMass(l.grams, massUnits, massDecimals(l.grams, massUnits))}</td>
+                  <td className="whitespace-nowrap py-1 text-right tabular-nums">{l.pctOfBatch.toFixed(1)} %</td>
                 </tr>
               ))}
             </tbody>

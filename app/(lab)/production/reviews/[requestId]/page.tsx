@@ -48,11 +48,12 @@ export default async function PromotionRequestPage({ params }: { params: Promise
       ) : null}
 
       <div className="grid gap-6 lg:grid-cols-3">
-        <div className="space-y-6 lg:col-span-2">
+        {/* min-w-0: a grid column would otherwise grow to its widest table and push the page sideways on a phone. */}
+        <div className="min-w-0 space-y-6 lg:col-span-2">
           <Card title="Why">
             <p className="whitespace-pre-line">{r.rationale}</p>
             <p className="mt-3 text-sm text-rind-600"><strong>Trial question:</strong> {e.trial.question}</p>
-            <p className="mt-1 text-sm text-rind-600"><strong>Variant:</strong> {e.variant.description}{e.variant.factorLevels.length ? ` (${e.variant.factorLevels.map((l) => `${FACTOR_LABELS[l.factor as TrialFactor]?.name ?? l.factor} ${l.value}`).join(', ')})` : ''}</p>
+            <p className="mt-1 text-sm text-rind-600"><strong>Variant:</strong> {e.variant.description}{e.variant.factorLevels.length ? ` (${e.variant.factorLevels.map((l) => `${FACTOR_LABELS[l.factor as TrialFactor]?.name ?? l.factor} ${Number(l.value.toFixed(3))}`).join(', ')})` : ''}</p>
           </Card>
           <Card title="Formula">
             <PromotionFormula formula={r.formula} baseline={r.baseline} variantLabel={r.variantLabel} massUnits={units} temperatureUnit={actor.temperatureUnit} />
@@ -93,7 +94,7 @@ export default async function PromotionRequestPage({ params }: { params: Promise
             )}
           </Card>
         </div>
-        <div className="space-y-6">
+        <div className="min-w-0 space-y-6">
           {r.canDecide ? <DecisionForm requestId={r.id} code={r.code} outcome={r.outcome} /> : null}
           {r.status === 'pending' && !r.canDecide && r.requestedById === actor.userId && can(actor.role, 'promotion.decide') ? (
             <Notice tone="info">You made this request: another head of product must decide it.</Notice>
