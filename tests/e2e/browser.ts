@@ -66,3 +66,24 @@ export function sharedBrowser(): () => Browser {
   });
   return () => browser!;
 }
+
+export type Violation = { directive: string; blocked: string; page: string };
+
+/** Records every securitypolicyviolation event and every CSP console error of the page. */
+export async function watchCsp(page: Page): Promise<Violation[]> {
+  const seen: Violation[] = [];
+  await page.exposeFunction('__reportCspViolation', (v: Violation) => seen.push(v));
+  await page.addInitScript(() => {
+    document.addEventListener('securitypolicyviolation', (e) => {
+      (window as unknown as { __reportCspViolation: (v: unknown) => void }).__reportCspViolation({
+        directive: e.effectiveDirective,
+        blocked: e.blockedURI,
+        page: location.pathname,
+      });
+    });
+  });
+  page.on('console', (msg) => {
+    if (msg.type() === 'error' && /Content Security Policy/i.test(msg.text())) seen.push({ directive: 'console', blocked: msg.text(), page: page.url() });
+  });
+  return seen;
+}

@@ -6,32 +6,11 @@
  */
 import { describe, it, expect } from 'vitest';
 import type { Page } from 'playwright-core';
-import { sharedBrowser, newContext, signIn } from './browser';
+import { sharedBrowser, newContext, signIn, watchCsp } from './browser';
 import { DEMO_USERS } from '@/lib/seed/demo';
 
 const browser = sharedBrowser();
 const developer = DEMO_USERS.find((u) => u.role === 'developer')!;
-
-type Violation = { directive: string; blocked: string; page: string };
-
-/** Records every securitypolicyviolation event and every CSP console error of the page. */
-async function watchCsp(page: Page): Promise<Violation[]> {
-  const seen: Violation[] = [];
-  await page.exposeFunction('__reportCspViolation', (v: Violation) => seen.push(v));
-  await page.addInitScript(() => {
-    document.addEventListener('securitypolicyviolation', (e) => {
-      (window as unknown as { __reportCspViolation: (v: unknown) => void }).__reportCspViolation({
-        directive: e.effectiveDirective,
-        blocked: e.blockedURI,
-        page: location.pathname,
-      });
-    });
-  });
-  page.on('console', (msg) => {
-    if (msg.type() === 'error' && /Content Security Policy/i.test(msg.text())) seen.push({ directive: 'console', blocked: msg.text(), page: page.url() });
-  });
-  return seen;
-}
 
 /** Every script tag of the page carries a nonce, and it is the one in this response's policy. */
 async function expectNoncedScripts(page: Page, policy: string) {
