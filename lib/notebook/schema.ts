@@ -4,6 +4,7 @@
  * links only to web, mail or same-site addresses, and images only from the app's own uploads.
  */
 import { z } from 'zod';
+import { lookup, unsafeTextReason } from '@/lib/input';
 
 export const NOTEBOOK_LIMITS = {
   /** Nesting levels of nodes, the doc itself counting as 1. */
@@ -154,7 +155,7 @@ function checkAttrs(
     if (!(key in attrs)) problems.push({ path: [...path, 'attrs', key], message: `${what} needs ${key}.` });
   }
   for (const [key, value] of Object.entries(attrs)) {
-    const check = allowed?.[key];
+    const check = lookup(allowed, key);
     if (!check) {
       problems.push({ path: [...path, 'attrs', key], message: `${what} has no attribute "${key}".` });
       continue;
@@ -223,11 +224,35 @@ function checkNode(node: unknown, parentType: string | null, depth: number, path
   }
 }
 
+/** The first string (text, attribute or key) with characters no text may hold: NUL, other controls, direction overrides, broken characters. */
+function findUnsafeText(value: unknown, path: Array<string | number>): DocProblem | null {
+  if (typeof value === 'string') {
+    const why = unsafeTextReason(value, true);
+    return why ? { path, message: why } : null;
+  }
+  if (Array.isArray(value)) {
+    for (let i = 0; i < value.length; i++) {
+      const found = findUnsafeText(value[i], [...path, i]);
+      if (found) return found;
+    }
+    return null;
+  }
+  if (isRecord(value)) {
+    for (const [k, v] of Object.entries(value)) {
+      const found = findUnsafeText(k, [...path, k]) ?? findUnsafeText(v, [...path, k]);
+      if (found) return found;
+    }
+  }
+  return null;
+}
+
 /** Every reason the value is not an acceptable notebook document (empty when it is). */
 export function findDocProblems(value: unknown): DocProblem[] {
   const problems: DocProblem[] = [];
   checkNode(value, null, 1, [], problems);
   if (problems.length) return problems;
+  const unsafe = findUnsafeText(value, []);
+  if (unsafe) return [unsafe];
   const bytes = new TextEncoder().encode(JSON.stringify(value)).length;
   if (bytes > NOTEBOOK_LIMITS.maxDocBytes) {
     problems.push({ path: [], message: `The entry is ${Math.ceil(bytes / 1000)} kB; the limit is ${NOTEBOOK_LIMITS.maxDocBytes / 1000} kB. Split it or move long tables to a file.` });
@@ -324,7 +349,7 @@ export function sanitizeDoc(doc: unknown): TiptapDoc {
     const out: TiptapNode = { type };
     if (isRecord(node.attrs)) {
       const allowed = NODE_ATTRS[type] ?? {};
-      const attrs = Object.fromEntries(Object.entries(node.attrs).filter(([k, v]) => allowed[k] && allowed[k](v) === null));
+      const attrs = Object.fromEntries(Object.entries(node.attrs).filter(([k, v]) => lookup(allowed, k)?.(v) === null));
       if (Object.keys(attrs).length) out.attrs = attrs;
     }
     if (type === 'heading' && !out.attrs?.level) out.attrs = { ...out.attrs, level: 2 };
