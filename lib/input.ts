@@ -26,7 +26,6 @@ export const PROTOTYPE_KEYS: ReadonlySet<string> = new Set(['__proto__', 'constr
 
 // C0 controls except tab/newline/carriage return, DEL, C1 controls, bidi embeddings/overrides
 // (U+202A–U+202E) and isolates (U+2066–U+2069), and the noncharacters U+FFFE/U+FFFF.
-// eslint-disable-next-line no-control-regex -- finding control characters is the point
 const CONTROL = /[\u0000-\u0008\u000B\u000C\u000E-\u001F\u007F-\u009F\u202A-\u202E\u2066-\u2069\uFFFE\uFFFF]/;
 /** A high surrogate not followed by a low one, or a low one not preceded by a high one. */
 const LONE_SURROGATE = /[\uD800-\uDBFF](?![\uDC00-\uDFFF])|(?<![\uD800-\uDBFF])[\uDC00-\uDFFF]/;

@@ -1,6 +1,6 @@
 /** Input schemas and shared shapes of the production feature. */
 import { z } from 'zod';
-import { boundedNumber, isoDate, longText, name, numberFromText, text, wholeNumber } from '@/lib/input';
+import { boundedNumber, isoDate, longText, numberFromText, text, wholeNumber } from '@/lib/input';
 import { qcSpecProblems, type QcSpec } from '@/lib/chemistry/qc';
 import { DISPOSITIONS, LOT_CODE_PATTERN, PRODUCT_CODE_PATTERN, PROMOTION_STATUSES } from './vocabulary';
 
