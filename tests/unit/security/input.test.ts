@@ -154,7 +154,7 @@ describe('tiny and huge floats', () => {
 
 describe('prototype-named keys', () => {
   it.each(['__proto__', 'constructor', 'prototype'])('safeRecord drops %s and has no prototype to pollute', (key) => {
-    const r = safeRecord([[key, { polluted: true }], ['kept', 1]]);
+    const r = safeRecord<unknown>([[key, { polluted: true }], ['kept', 1]]);
     expect(Object.keys(r)).toEqual(['kept']);
     expect(Object.getPrototypeOf(r)).toBeNull();
     expect(({} as Record<string, unknown>).polluted).toBeUndefined();
