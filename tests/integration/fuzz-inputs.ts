@@ -86,6 +86,9 @@ export function poisonedString(original: string): fc.Arbitrary<string> {
   return fc.oneof(withCharacter, fc.constantFrom(...IMPOSSIBLE_DATES).map((d) => original.replace(DATE_IN_TEXT, d)));
 }
 
+/** True when the string survives UTF-8 (no lone surrogate): what a FormData field or URL can carry at all. */
+export const isWellFormedText = (v: string) => new TextDecoder().decode(new TextEncoder().encode(v)) === v;
+
 /** Every path to a string (or number) in a JSON-like value. */
 export function leafPaths(value: unknown, kind: 'string' | 'number'): Path[] {
   return pathsOf(value).filter((p) => typeof getAt(value, p) === kind);
@@ -292,13 +295,17 @@ export const QUERY_KEYS = [
   'target', 'amount', 'unit', 'step', 'stepUnit', 'altitudeM', 'paper', 'a', 'b', 'formula', 'code', 'error', 'reset', 'joined',
 ];
 
-const queryValue = (key: string): fc.Arbitrary<string> =>
-  fc.oneof(
-    fc.constantFrom(...(QUERY_VALUES[key] ?? ['1'])),
+const queryValue = (key: string): fc.Arbitrary<string> => {
+  // An own-property look-up: the key may be "__proto__" or "constructor".
+  const known = Object.prototype.hasOwnProperty.call(QUERY_VALUES, key) ? QUERY_VALUES[key] : ['jam', '1'];
+  return fc.oneof(
+    fc.constantFrom(...known),
     fc.constantFrom(...BAD_IDS, ...NUMBERISH_STRINGS, ...IMPOSSIBLE_DATES, 'A'.repeat(10_000)),
-    fc.constantFrom(...(QUERY_VALUES[key] ?? ['jam'])).chain(poisonedString),
+    // A URL cannot carry a lone surrogate (it is not UTF-8), so only the other poisons are sent.
+    fc.constantFrom(...known).chain((v) => poisonedString(v).filter(isWellFormedText)),
     fc.string({ maxLength: 30 }),
   );
+};
 
 /** Key/value pairs for a query string: the given keys (repeated ones too) plus unknown and prototype-named keys. */
 export function queryPairs(keys: readonly string[] = QUERY_KEYS): fc.Arbitrary<Array<[string, string]>> {
