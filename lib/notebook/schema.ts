@@ -4,7 +4,7 @@
  * links only to web, mail or same-site addresses, and images only from the app's own uploads.
  */
 import { z } from 'zod';
-import { lookup, unsafeTextReason } from '@/lib/input';
+import { INT32_MAX, lookup, unsafeTextReason, wholeNumber } from '@/lib/input';
 
 export const NOTEBOOK_LIMITS = {
   /** Nesting levels of nodes, the doc itself counting as 1. */
@@ -270,7 +270,7 @@ export const saveNotebookBodySchema = z
     /** Null (or absent) for the trial's own entry. */
     variantId: z.uuid('Unknown variant.').nullable().default(null),
     /** The version the writer started from; an older one than the stored version is kept as a conflict. */
-    baseVersion: z.number({ error: 'baseVersion must be a number.' }).int('baseVersion must be a whole number.').min(0, 'baseVersion cannot be negative.'),
+    baseVersion: wholeNumber('baseVersion', 0, INT32_MAX),
     doc: notebookDocSchema,
   })
   .strict();

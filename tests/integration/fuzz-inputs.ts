@@ -72,8 +72,10 @@ const NUMBERISH_STRINGS = ['NaN', 'Infinity', '-Infinity', '1e309', '-1', '', '0
 export const POISON_CHARACTERS = ['\u0000', '\uD800', '\uDFFF', '\u202E', '\u202D', '\u2066', '\u2069', '\u001B', '\u0007', '\u007F', '\u0085', '\uFFFF'];
 /** Dates with the right shape that are not on the calendar, or outside the stated years. */
 export const IMPOSSIBLE_DATES = ['2026-02-30', '2026-04-31', '2025-02-29', '2100-02-29', '0000-01-01', '1899-12-31', '2201-01-01', '2026-13-01', '2026-00-10', '2026-06-00'];
-/** Numbers no field takes, which a server action can still receive (React encodes them). */
-export const POISON_NUMBERS = [Number.NaN, Infinity, -Infinity];
+/** Numbers past every stated range: an int column's 2^31, 2^53 (no longer exact), 1e308. No field takes them. */
+export const HUGE_NUMBERS = ['2147483648', '-2147483649', '4294967296', '9007199254740993', '1e308', '-1e308'];
+/** Numbers no field takes, which a server action can still receive (React encodes NaN and ±Infinity). */
+export const POISON_NUMBERS = [Number.NaN, Infinity, -Infinity, ...HUGE_NUMBERS.map(Number)];
 /** Keys that reach an object's prototype, and built-ins of every object. */
 export const PROTOTYPE_KEYS = ['__proto__', 'constructor', 'prototype', 'valueOf', 'hasOwnProperty', 'toString', '__defineGetter__', 'isPrototypeOf'];
 
@@ -208,6 +210,13 @@ export function structuredBodies(base: Json): fc.Arbitrary<BodySample> {
     // House rule, whatever the schema: no text field takes a control character, and no date field a day that does not exist.
     arbs.push(
       fc.constantFrom(...texts).chain((p) => poisonedString(getAt(base, p) as string).map((v) => ({ ...json('poisoned text')(setAt(base, p, v)), refusedByRule: true }))),
+    );
+  }
+  const numbers = leafPaths(base, 'number');
+  if (numbers.length) {
+    // House rule, whatever the schema: every number has a stated range, and none reaches 2^31.
+    arbs.push(
+      fc.tuple(fc.constantFrom(...numbers), fc.constantFrom(...HUGE_NUMBERS)).map(([p, n]) => ({ ...json('huge number')(setAt(base, p, raw(n))), refusedByRule: true })),
     );
   }
   if (paths.length) {
