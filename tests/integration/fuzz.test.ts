@@ -45,6 +45,8 @@ const SEED = 20261202;
 const RUNS = { structured: 48, malformed: 12, contentType: 6, param: 40, query: 60, action: 140, page: 150 } as const;
 /** Snapshot around every request instead of around every batch (slower; names the request that wrote). */
 const EACH = process.env.FUZZ_EACH === '1';
+/** A batch of a hundred-odd requests; on a loaded two-core machine that can pass the default 30 s. */
+const BATCH_TIMEOUT_MS = 240_000;
 
 /**
  * Left out of the before/after comparison, and why:
@@ -227,9 +229,9 @@ describe.each(bodyOps.map((op) => ({ op, name: operationKey(op) })))('$name body
       { seed: SEED, numRuns: RUNS[category], endOnFailure: true, maxSkipsPerRun: 200 },
     ));
 
-  it('refuses wrong types, hostile values, missing and unknown fields, deep nesting', () => run('structured', structuredBodies));
-  it('refuses malformed, deeply nested and oversized JSON text', () => run('malformed', malformedBodies));
-  it('refuses a body that is not sent as application/json', () => run('contentType', wrongContentTypes));
+  it('refuses wrong types, hostile values, missing and unknown fields, deep nesting', () => run('structured', structuredBodies), BATCH_TIMEOUT_MS);
+  it('refuses malformed, deeply nested and oversized JSON text', () => run('malformed', malformedBodies), BATCH_TIMEOUT_MS);
+  it('refuses a body that is not sent as application/json', () => run('contentType', wrongContentTypes), BATCH_TIMEOUT_MS);
 });
 
 describe.each(paramOps.map((op) => ({ op, name: operationKey(op) })))('$name path parameters', ({ op }) => {
@@ -246,7 +248,7 @@ describe.each(paramOps.map((op) => ({ op, name: operationKey(op) })))('$name pat
       }),
       { seed: SEED, numRuns: RUNS.param, endOnFailure: true },
     ));
-  });
+  }, BATCH_TIMEOUT_MS);
 });
 
 describe.each(getOps.map((op) => ({ op, name: operationKey(op) })))('$name query', ({ op }) => {
@@ -261,7 +263,7 @@ describe.each(getOps.map((op) => ({ op, name: operationKey(op) })))('$name query
       }),
       { seed: SEED, numRuns: RUNS.query, endOnFailure: true },
     ));
-  });
+  }, BATCH_TIMEOUT_MS);
 });
 
 // ---------------------------------------------------------------------------------------------
@@ -378,7 +380,7 @@ describe.each(ACTION_CASES.map((c) => ({ c, name: c.action })))('$name (server a
         { seed: SEED, numRuns: RUNS.action, endOnFailure: true },
       ),
     );
-  });
+  }, BATCH_TIMEOUT_MS);
 
   it('takes prototype-named fields as plain data: no crash, no polluted prototype', async () => {
     const caller = actionCaller(c);
@@ -466,5 +468,5 @@ describe.each(PAGE_CASES.map((p) => ({ p, name: p.page })))('$name query', ({ p 
         { seed: SEED, numRuns: RUNS.page, endOnFailure: true },
       ),
     );
-  });
+  }, BATCH_TIMEOUT_MS);
 });
