@@ -129,7 +129,7 @@ export const batchSheetQuerySchema = z
   .object({
     target: z.enum(['finished_mass', 'total_charge', 'jar_count'], { error: 'Scale by kettle charge, finished mass or jar count.' }).default('total_charge'),
     /** Absent: the formula at its developed size. */
-    amount: numberFromText('The amount', boundedNumber('The amount', 0, 5_000_000).positive('The amount must be more than 0.')).optional(),
+    amount: numberFromText('The amount', z.number().positive('The amount must be more than 0.').max(5_000_000, 'The amount is implausibly large.')).optional(),
     unit: z.enum(['g', 'kg', 'lb', 'oz'], { error: 'Use g, kg, lb or oz.' }).default('kg'),
     step: numberFromText('The scale resolution', boundedNumber('The scale resolution', SHEET_STEP_MIN, 10_000)).default(5),
     stepUnit: z.enum(['g', 'kg', 'lb', 'oz'], { error: 'Use g, kg, lb or oz.' }).default('g'),
