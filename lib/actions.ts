@@ -7,7 +7,7 @@ import type { z } from 'zod';
 import { actorFromHeaders } from '@/lib/auth';
 import { assertSameOrigin } from '@/lib/api/route';
 import { authorize, AccessDenied, type Actor, type Permission } from '@/lib/permissions';
-import { describeError, type FieldErrors } from '@/lib/api/errors';
+import { ApiError, describeError, type FieldErrors } from '@/lib/api/errors';
 import { logger } from '@/lib/log';
 
 export type ActionResult<T = undefined> =
@@ -34,7 +34,7 @@ export async function runAction<S extends z.ZodType, T>(
     // The session cookie rides along on any cross-site post; Next.js checks action origins too, this does not rely on it.
     if (actor?.via === 'session') assertSameOrigin(requestHeaders);
     const allowed = authorize(actor, permission);
-    const parsed = schema.safeParse(input);
+    const parsed = schema.safeParse(checkedShape(input));
     if (!parsed.success) throw parsed.error;
     return { ok: true, data: await fn(allowed, parsed.data) };
   } catch (err) {
@@ -49,7 +49,7 @@ export async function runPublicAction<S extends z.ZodType, T>(
   fn: (data: z.infer<S>) => Promise<T>,
 ): Promise<ActionResult<T>> {
   try {
-    const parsed = schema.safeParse(input);
+    const parsed = schema.safeParse(checkedShape(input));
     if (!parsed.success) throw parsed.error;
     return { ok: true, data: await fn(parsed.data) };
   } catch (err) {
@@ -57,14 +57,29 @@ export async function runPublicAction<S extends z.ZodType, T>(
   }
 }
 
-/** FormData to a plain object (repeated keys become arrays) for schema parsing. */
-export function formToObject(form: FormData): Record<string, unknown> {
-  const out: Record<string, unknown> = {};
+/** What formToObject returns for an argument that is not FormData (a hand-made call, not the app's form). */
+class NotAForm {}
+
+const WRONG_SHAPE = 'This form arrived in a shape the server does not accept. Reload the page and try again.';
+
+/** The action's input, or a 400 when formToObject was handed something other than a form. */
+function checkedShape(input: unknown): unknown {
+  if (input instanceof NotAForm) throw new ApiError(400, 'bad_request', WRONG_SHAPE);
+  return input;
+}
+
+/**
+ * FormData to an object for schema parsing (repeated keys become arrays). The object has no
+ * prototype, so a field named __proto__ or constructor is an ordinary key that schemas refuse or
+ * ignore. Anything that is not FormData becomes a marker that runAction answers with 400.
+ */
+export function formToObject(form: unknown): Record<string, unknown> {
+  if (!(form instanceof FormData)) return new NotAForm() as Record<string, unknown>;
+  const out = Object.create(null) as Record<string, unknown>;
   for (const [key, value] of form.entries()) {
     if (key.startsWith('$ACTION')) continue;
-    const v = typeof value === 'string' ? value : value;
-    if (key in out) out[key] = ([] as unknown[]).concat(out[key], v);
-    else out[key] = v;
+    if (Object.prototype.hasOwnProperty.call(out, key)) out[key] = ([] as unknown[]).concat(out[key], value);
+    else out[key] = value;
   }
   return out;
 }

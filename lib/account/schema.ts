@@ -1,19 +1,20 @@
 import { z } from 'zod';
 import { passwordSchema } from '@/lib/passwords';
+import { email, name } from '@/lib/input';
 
 const tokenSchema = z.string().min(20, 'This link is not valid.').max(200, 'This link is not valid.');
 
 export const acceptInvitationSchema = z
   .object({
     token: tokenSchema,
-    name: z.string().trim().min(1, 'Enter your name.').max(120, 'Use at most 120 characters.'),
+    name: name('Enter your name.'),
     password: passwordSchema,
     confirm: z.string(),
   })
   .refine((v) => v.password === v.confirm, { path: ['confirm'], message: 'The two passwords differ.' });
 
 export const requestResetSchema = z.object({
-  email: z.email('Enter a valid e-mail address.').transform((s) => s.trim().toLowerCase()),
+  email,
 });
 
 export const resetPasswordSchema = z
@@ -21,7 +22,7 @@ export const resetPasswordSchema = z
   .refine((v) => v.password === v.confirm, { path: ['confirm'], message: 'The two passwords differ.' });
 
 export const preferencesSchema = z.object({
-  name: z.string().trim().min(1, 'Enter your name.').max(120),
+  name: name('Enter your name.'),
   massUnits: z.enum(['metric', 'imperial']),
   temperatureUnit: z.enum(['C', 'F']),
 });

@@ -1,7 +1,8 @@
 import { z } from 'zod';
+import { name } from '@/lib/input';
 
 export const createTokenSchema = z.object({
-  label: z.string().trim().min(1, 'Give the token a label, for example the script that uses it.').max(80, 'Use at most 80 characters.'),
+  label: name('Give the token a label, for example the script that uses it.', 80),
 }).strict();
 
 export interface TokenRow {

@@ -2,6 +2,7 @@
 import { z } from 'zod';
 import type { BatchComputation, IngredientComposition } from '@/lib/chemistry';
 import { ingredientInputSchema } from '@/lib/ingredients/schema';
+import { isoDate, longText, name, searchText, versionNumber } from '@/lib/input';
 
 export const PRODUCT_CLASSES = ['jam', 'extra_jam', 'jelly', 'marmalade', 'reduced_sugar_spread'] as const;
 export const RULE_SETS = ['eu', 'us', 'codex'] as const;
@@ -21,8 +22,8 @@ export const RULE_SET_LABELS: Record<(typeof RULE_SETS)[number], string> = {
   codex: 'Codex (CXS 296-2009)',
 };
 
-/** A calendar date as YYYY-MM-DD that is also a real date. Shared by every feature's schemas. */
-export const isoDate = z.string().regex(/^\d{4}-\d{2}-\d{2}$/, 'Use a date like 2026-06-14.').refine((s) => !Number.isNaN(Date.parse(s)), 'Not a real date.');
+/** Calendar dates come from lib/input.ts (real dates in the years it states); re-exported for older imports. */
+export { isoDate };
 
 export const formulaSettingsSchema = z
   .object({
@@ -46,13 +47,13 @@ export const formulaLineSchema = z
   .strict();
 
 const linesSchema = z.array(formulaLineSchema).min(1, 'Add at least one line.').max(60, 'A formula has at most 60 lines.');
-const nameSchema = z.string().trim().min(1, 'Give the formula a name.').max(120, 'Use at most 120 characters.');
-const noteSchema = z.string().trim().max(500, 'Use at most 500 characters.');
+const nameSchema = name('Give the formula a name.');
+const noteSchema = longText(500);
 
 export const createFormulaSchema = z
   .object({
     name: nameSchema,
-    description: z.string().trim().max(2000).optional(),
+    description: longText(2000).optional(),
     settings: formulaSettingsSchema,
     lines: linesSchema,
     note: noteSchema.optional(),
@@ -62,7 +63,7 @@ export const createFormulaSchema = z
 export const reviseFormulaSchema = z
   .object({
     /** The revision the editor started from; a newer one on the server means someone else saved (409). */
-    baseRevision: z.number().int().positive(),
+    baseRevision: versionNumber,
     /** Save on top of a newer revision anyway; the other person's revision stays in the history. */
     force: z.boolean().optional(),
     name: nameSchema.optional(),
@@ -92,6 +93,9 @@ export const calcBatchSchema = z
       .max(60),
   })
   .strict();
+
+/** GET /api/v1/formulas and the formulas page: ?q= searches names. */
+export const formulaListQuerySchema = z.object({ q: searchText.optional() });
 
 export type FormulaSettingsInput = z.infer<typeof formulaSettingsSchema>;
 export type FormulaLineInputData = z.infer<typeof formulaLineSchema>;

@@ -1,6 +1,7 @@
 /** Ingredient library: the zod schemas shared by forms and the API, and the plain types pages receive. */
 import { z } from 'zod';
 import type { IngredientComposition } from '@/lib/chemistry';
+import { longText, name, searchText } from '@/lib/input';
 
 export const INGREDIENT_KINDS = ['fruit', 'sweetener', 'pectin', 'acid', 'water', 'other'] as const;
 export const SWEETENER_TYPES = ['sucrose', 'glucose_syrup', 'invert_sugar', 'honey', 'fructose', 'dextrose', 'other'] as const;
@@ -38,7 +39,7 @@ const optionalNumber = (min: number, max: number, what: string) =>
 
 export const ingredientInputSchema = z
   .object({
-    name: z.string().trim().min(1, 'Give the ingredient a name.').max(120, 'Use at most 120 characters.'),
+    name: name('Give the ingredient a name.'),
     kind: z.enum(INGREDIENT_KINDS, { error: 'Choose a kind.' }),
     solidsPct: z.number({ error: 'Soluble solids must be a number.' }).min(0, 'Soluble solids cannot be negative.').max(100, 'Soluble solids cannot exceed 100 %.'),
     phMin: optionalNumber(0, 14, 'pH'),
@@ -52,7 +53,7 @@ export const ingredientInputSchema = z
     sweetenerType: z.enum(SWEETENER_TYPES).nullable().optional(),
     acidType: z.enum(ACID_TYPES).nullable().optional(),
     calciumSource: z.boolean().optional(),
-    notes: z.string().max(1000, 'Use at most 1000 characters.').nullable().optional(),
+    notes: longText(1000).nullable().optional(),
   })
   .strict()
   .superRefine((v, ctx) => {
@@ -84,7 +85,7 @@ export interface IngredientView extends IngredientComposition {
 }
 
 export const ingredientListQuerySchema = z.object({
-  q: z.string().max(100).optional(),
+  q: searchText.optional(),
   kind: z.enum(INGREDIENT_KINDS).optional(),
   sort: z.enum(['name', 'kind', 'solidsPct', 'origin', 'updatedAt']).optional(),
   dir: z.enum(['asc', 'desc']).optional(),

@@ -1,10 +1,11 @@
 import { z } from 'zod';
 import { ROLES } from '@/lib/permissions';
+import { email } from '@/lib/input';
 
 export const roleSchema = z.enum(ROLES, { error: 'Choose one of the roles.' });
 
 export const inviteMemberSchema = z.object({
-  email: z.email('Enter a valid e-mail address.').max(254).transform((s) => s.trim().toLowerCase()),
+  email,
   role: roleSchema,
 }).strict();
 

@@ -4,6 +4,7 @@
  * links only to web, mail or same-site addresses, and images only from the app's own uploads.
  */
 import { z } from 'zod';
+import { unsafeTextReason, wholeNumber } from '@/lib/input';
 
 /**
  * Every number and size that drives rendering has a ceiling (project limits with room for a lab
@@ -338,12 +339,36 @@ function checkNode(node: unknown, parentType: string | null, depth: number, path
   }
 }
 
+/** The first string (text, attribute or key) with characters no text may hold: NUL, other controls, direction overrides, broken characters. */
+function findUnsafeText(value: unknown, path: Array<string | number>): DocProblem | null {
+  if (typeof value === 'string') {
+    const why = unsafeTextReason(value, true);
+    return why ? { path, message: why } : null;
+  }
+  if (Array.isArray(value)) {
+    for (let i = 0; i < value.length; i++) {
+      const found = findUnsafeText(value[i], [...path, i]);
+      if (found) return found;
+    }
+    return null;
+  }
+  if (isRecord(value)) {
+    for (const [k, v] of Object.entries(value)) {
+      const found = findUnsafeText(k, [...path, k]) ?? findUnsafeText(v, [...path, k]);
+      if (found) return found;
+    }
+  }
+  return null;
+}
+
 /** Every reason the value is not an acceptable notebook document (empty when it is). */
 export function findDocProblems(value: unknown): DocProblem[] {
   const walk: Walk = { problems: [], nodes: 0, images: 0 };
   checkNode(value, null, 1, [], walk);
   const { problems } = walk;
   if (problems.length) return problems;
+  const unsafe = findUnsafeText(value, []);
+  if (unsafe) return [unsafe];
   const bytes = new TextEncoder().encode(JSON.stringify(value)).length;
   if (bytes > L.maxDocBytes) {
     problems.push({ path: [], message: `The entry is ${Math.ceil(bytes / 1000)} kB; the limit is ${L.maxDocBytes / 1000} kB. Split it or move long tables to a file.` });
@@ -379,11 +404,7 @@ export const saveNotebookBodySchema = z
     /** Null (or absent) for the trial's own entry. */
     variantId: z.uuid('Unknown variant.').nullable().default(null),
     /** The version the writer started from; an older one than the stored version is kept as a conflict. */
-    baseVersion: z
-      .number({ error: 'baseVersion must be a number.' })
-      .int('baseVersion must be a whole number.')
-      .min(0, 'baseVersion cannot be negative.')
-      .max(L.maxVersion, `baseVersion is at most ${L.maxVersion}.`),
+    baseVersion: wholeNumber('baseVersion', 0, L.maxVersion),
     doc: notebookDocSchema,
   })
   .strict();

@@ -1,19 +1,20 @@
 /** Panel sessions and taster answers: zod schemas shared by the API, actions and the phone flow. */
 import { z } from 'zod';
 import { PANEL_METHODS } from './vocabulary';
+import { isoDateTime, longText, name, text } from '@/lib/input';
 
 const code = z.string().regex(/^\d{3}$/, 'A sample code has three digits.');
 
 export const createPanelSchema = z
   .object({
-    title: z.string().trim().min(1, 'Give the tasting a title tasters may see (no variant names).').max(120),
-    place: z.string().trim().max(120).optional(),
-    startsAt: z.iso.datetime({ offset: true, error: 'Use a date and time.' }).optional(),
+    title: name('Give the tasting a title tasters may see (no variant names).'),
+    place: text({ max: 120 }).optional(),
+    startsAt: isoDateTime.optional(),
     method: z.enum(PANEL_METHODS, { error: 'Choose a method.' }),
     variantIds: z.array(z.uuid('Unknown variant.')).min(2, 'Choose at least two samples.').max(12, 'At most twelve samples.'),
     attributeIds: z.array(z.uuid('Unknown attribute.')).max(12, 'At most twelve attributes.').default([]),
     rankingAttributeId: z.uuid().optional(),
-    notice: z.string().trim().min(1, 'Write the allergen and consent notice tasters must accept.').max(3000),
+    notice: longText(3000, { min: 1, required: 'Write the allergen and consent notice tasters must accept.' }),
   })
   .strict()
   .superRefine((v, ctx) => {
@@ -25,7 +26,7 @@ export const createPanelSchema = z
 export const joinSchema = z
   .object({
     joinCode: z.string().trim().toUpperCase().regex(/^[A-Z0-9]{6}$/, 'The code has six letters and digits.'),
-    displayName: z.string().trim().min(1, 'Tell us what to call you.').max(40, 'Use at most 40 characters.'),
+    displayName: name('Tell us what to call you.', 40),
   })
   .strict();
 
@@ -34,18 +35,18 @@ const key = z.uuid('idempotencyKey must be a UUID.');
 export const answerSchema = z.union([
   z.object({ idempotencyKey: key, code, attributeId: z.uuid(), value: z.number({ error: 'The value must be a number.' }).finite() }).strict(),
   z.object({ idempotencyKey: key, attributeId: z.uuid().optional(), ranking: z.array(code).min(2).max(12) }).strict(),
-  z.object({ idempotencyKey: key, oddCode: code, confidence: z.union([z.literal(1), z.literal(2), z.literal(3)]).optional(), comment: z.string().trim().max(500).optional() }).strict(),
+  z.object({ idempotencyKey: key, oddCode: code, confidence: z.union([z.literal(1), z.literal(2), z.literal(3)]).optional(), comment: longText(500).optional() }).strict(),
 ]);
 
 export const inviteTastersSchema = z.object({ userIds: z.array(z.uuid()).min(1, 'Choose at least one taster.').max(200) }).strict();
 
 export const createAttributeSchema = z
   .object({
-    name: z.string().trim().min(1, 'Name the attribute.').max(80),
-    instruction: z.string().trim().min(1, 'Tell tasters what to do and attend to.').max(600),
+    name: name('Name the attribute.', 80),
+    instruction: longText(600, { min: 1, required: 'Tell tasters what to do and attend to.' }),
     scale: z.enum(['intensity', 'hedonic', 'jar'], { error: 'Choose a scale.' }),
-    lowAnchor: z.string().trim().max(40).optional(),
-    highAnchor: z.string().trim().max(40).optional(),
+    lowAnchor: text({ max: 40 }).optional(),
+    highAnchor: text({ max: 40 }).optional(),
   })
   .strict()
   .superRefine((v, ctx) => {

@@ -1,6 +1,6 @@
 /** Input schemas and shared shapes of the production feature. */
 import { z } from 'zod';
-import { isoDate } from '@/lib/formulas/schema';
+import { boundedNumber, isoDate, longText, numberFromText, text, wholeNumber } from '@/lib/input';
 import { qcSpecProblems, type QcSpec } from '@/lib/chemistry/qc';
 import { DISPOSITIONS, LOT_CODE_PATTERN, PRODUCT_CODE_PATTERN, PROMOTION_STATUSES, PROMOTION_TARGETS } from './vocabulary';
 
@@ -37,10 +37,10 @@ export const qcSpecSchema = z
     minFillTempC: num('Minimum fill temperature').min(60, 'A fill below 60 °C is not a hot fill.').max(100, 'Fill temperature must be at most 100 °C.'),
     netFillG: num('Net fill').positive('Net fill must be more than 0 g.').max(10_000, 'Net fill must be at most 10 kg.'),
     netFillToleranceG: num('Fill tolerance').min(0, 'Fill tolerance cannot be negative.').max(1000, 'Fill tolerance must be at most 1 kg.'),
-    setMinScore: z.number({ error: 'Set score must be a number.' }).int('Use a whole score.').min(1, 'Score from 1 to 5.').max(5, 'Score from 1 to 5.'),
-    setDescription: z.string().trim().min(3, 'Describe the expected set.').max(200, 'Use at most 200 characters.'),
-    shelfLifeMonths: z.number({ error: 'Shelf life must be a number.' }).int('Use whole months.').min(1, 'Shelf life must be at least 1 month.').max(60, 'Shelf life must be at most 60 months.'),
-    storageNotes: z.string().trim().min(3, 'Give the storage instructions.').max(500, 'Use at most 500 characters.'),
+    setMinScore: wholeNumber('Set score', 1, 5),
+    setDescription: text({ min: 3, max: 200, required: 'Describe the expected set.' }),
+    shelfLifeMonths: wholeNumber('Shelf life in months', 1, 60),
+    storageNotes: longText(500, { min: 3, required: 'Give the storage instructions.' }),
   })
   .strict()
   .superRefine((spec, ctx) => {
@@ -51,7 +51,7 @@ export const processSchema = z
   .object({
     endPointSeaLevelC: num('End point').min(100, 'The end point must be at least 100 °C at sea level.').max(112, 'The end point must be at most 112 °C.'),
     fillTempC: num('Fill temperature').min(60, 'A fill below 60 °C is not a hot fill.').max(100, 'Fill temperature must be at most 100 °C.'),
-    cookNotes: z.string().trim().max(4000, 'Use at most 4000 characters.'),
+    cookNotes: longText(4000),
   })
   .strict();
 
@@ -62,9 +62,9 @@ export const requestPromotionSchema = z
     /** Chosen by the developer, never defaulted: a new product, or a new version of an existing one. */
     target: z.enum(PROMOTION_TARGETS, { error: 'Choose whether this is a new product or a new version of an existing one.' }),
     productId: z.uuid('Choose a product.').optional(),
-    newProductName: z.string().trim().min(2, 'Name the product.').max(120, 'Use at most 120 characters.').optional(),
+    newProductName: text({ min: 2, max: 120, required: 'Name the product.' }).optional(),
     newProductCode: z.string().trim().regex(PRODUCT_CODE_PATTERN, 'Use 2–5 capital letters, e.g. QMJ.').optional(),
-    rationale: z.string().trim().min(10, 'Say why, in a sentence or two.').max(4000, 'Use at most 4000 characters.'),
+    rationale: longText(4000, { min: 10, required: 'Say why, in a sentence or two.' }),
     process: processSchema,
     spec: qcSpecSchema,
   })
@@ -86,7 +86,7 @@ export type RequestPromotionInput = z.infer<typeof requestPromotionSchema>;
 export const decisionSchema = z
   .object({
     decision: z.enum(['approve', 'send_back'], { error: 'Approve or send back.' }),
-    comment: z.string().trim().max(4000, 'Use at most 4000 characters.').default(''),
+    comment: longText(4000).default(''),
   })
   .strict()
   .superRefine((d, ctx) => {
@@ -96,7 +96,7 @@ export const decisionSchema = z
   });
 export type DecisionInput = z.infer<typeof decisionSchema>;
 
-export const withdrawSchema = z.object({ comment: z.string().trim().max(2000).default('') }).strict();
+export const withdrawSchema = z.object({ comment: longText(2000).default('') }).strict();
 
 const optionalNum = (what: string, min: number, max: number) => num(what).min(min, `${what} must be at least ${min}.`).max(max, `${what} must be at most ${max}.`).nullable().optional();
 
@@ -111,12 +111,12 @@ export const batchRecordSchema = z
     fillTempC: num('Fill temperature').min(20, 'Fill temperature must be at least 20 °C.').max(105, 'Fill temperature must be at most 105 °C.'),
     netFillMeanG: optionalNum('Mean net fill', 1, 20_000),
     netFillMinG: optionalNum('Lightest jar', 1, 20_000),
-    setTestScore: z.number().int('Use a whole score.').min(1, 'Score from 1 to 5.').max(5, 'Score from 1 to 5.').nullable().optional(),
-    jarsFilled: z.number({ error: 'Jars filled must be a number.' }).int('Count whole jars.').min(0, 'Jars cannot be negative.').max(1_000_000),
-    jarsRejected: z.number({ error: 'Jars rejected must be a number.' }).int('Count whole jars.').min(0, 'Jars cannot be negative.').max(1_000_000),
-    notes: z.string().trim().max(4000, 'Use at most 4000 characters.').nullable().optional(),
+    setTestScore: wholeNumber('The set-test score', 1, 5).nullable().optional(),
+    jarsFilled: wholeNumber('Jars filled', 0, 1_000_000),
+    jarsRejected: wholeNumber('Jars rejected', 0, 1_000_000),
+    notes: longText(4000).nullable().optional(),
     disposition: z.enum(DISPOSITIONS, { error: 'Choose rework, hold or discard.' }).nullable().optional(),
-    dispositionComment: z.string().trim().max(2000, 'Use at most 2000 characters.').nullable().optional(),
+    dispositionComment: longText(2000).nullable().optional(),
   })
   .strict()
   .superRefine((b, ctx) => {
@@ -127,17 +127,25 @@ export const batchRecordSchema = z
   });
 export type BatchRecordInput = z.infer<typeof batchRecordSchema>;
 
+/** The finest scale resolution a batch sheet rounds to, in the chosen unit (finer is no kitchen scale, and only drives the arithmetic). */
+export const SHEET_STEP_MIN = 0.001;
+
 export const batchSheetQuerySchema = z
   .object({
     target: z.enum(['finished_mass', 'total_charge', 'jar_count'], { error: 'Scale by kettle charge, finished mass or jar count.' }).default('total_charge'),
     /** Absent: the formula at its developed size. */
-    amount: z.coerce.number({ error: 'Give the amount as a number.' }).positive('The amount must be more than 0.').max(5_000_000, 'The amount is implausibly large.').optional(),
+    amount: numberFromText('The amount', z.number().positive('The amount must be more than 0.').max(5_000_000, 'The amount is implausibly large.')).optional(),
     unit: z.enum(['g', 'kg', 'lb', 'oz'], { error: 'Use g, kg, lb or oz.' }).default('kg'),
-    step: z.coerce.number({ error: 'Give the scale resolution as a number.' }).positive('The scale resolution must be more than 0.').max(10_000, 'The scale resolution is implausibly coarse.').default(5),
+    step: numberFromText('The scale resolution', boundedNumber('The scale resolution', SHEET_STEP_MIN, 10_000)).default(5),
     stepUnit: z.enum(['g', 'kg', 'lb', 'oz'], { error: 'Use g, kg, lb or oz.' }).default('g'),
-    altitudeM: z.coerce.number({ error: 'Altitude must be a number.' }).min(-500, 'Altitude must be at least −500 m.').max(5000, 'Altitude must be at most 5000 m.').optional(),
+    altitudeM: numberFromText('Altitude', boundedNumber('Altitude', -500, 5000)).optional(),
   })
-  .strict();
+  .strict()
+  .superRefine((q, ctx) => {
+    if (q.target === 'jar_count' && q.amount !== undefined && (!Number.isInteger(q.amount) || q.amount < 1)) {
+      ctx.addIssue({ code: 'custom', path: ['amount'], message: 'Count whole jars, at least one.' });
+    }
+  });
 export type BatchSheetQuery = z.infer<typeof batchSheetQuerySchema>;
 
 export const promotionListQuerySchema = z.object({ status: z.enum(PROMOTION_STATUSES, { error: 'Unknown status.' }).optional() }).strict();

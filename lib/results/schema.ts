@@ -1,8 +1,9 @@
 import { z } from 'zod';
+import { longText } from '@/lib/input';
 
 export const recommendationSchema = z
   .object({
     variantId: z.uuid('Choose a variant.'),
-    rationale: z.string().trim().min(10, 'Say why, in a sentence or two: the evidence travels with the recommendation.').max(2000),
+    rationale: longText(2000, { min: 10, required: 'Say why, in a sentence or two: the evidence travels with the recommendation.' }),
   })
   .strict();

@@ -8,6 +8,7 @@ import { Measurement, Trial, Variant } from '@/entities';
 import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
 import { ValidationFailed } from '@/lib/api/errors';
 import { toCsv } from '@/lib/csv';
+import { parseDecimal } from '@/lib/input';
 import { measurementSchema } from './schema';
 import { measurementColumns } from './mutations';
 import { getTrialOverview } from './queries';
@@ -70,7 +71,7 @@ export function parseMeasurementCsv(text: string, variantIdByLabel: Map<string, 
       }
       if (raw === '') continue;
       if (col.kind === 'number') {
-        const n = Number(raw.replace(',', '.'));
+        const n = parseDecimal(raw);
         if (!Number.isFinite(n)) {
           errors.push({ row: rowNumber, column: col.column, message: `“${raw}” is not a number.` });
           rowOk = false;

@@ -1,6 +1,7 @@
 /** Trials, variants and cooks: zod schemas shared by forms, actions and the API, and the plain views. */
 import { z } from 'zod';
-import { formulaLineSchema, formulaSettingsSchema, isoDate, PRODUCT_CLASSES, type FormulaSettingsInput, type RevisionLine, type RevisionSummary } from '@/lib/formulas/schema';
+import { isoDate, longText, name, searchText, text, versionNumber, wholeNumber } from '@/lib/input';
+import { formulaLineSchema, formulaSettingsSchema, PRODUCT_CLASSES, type FormulaSettingsInput, type RevisionLine, type RevisionSummary } from '@/lib/formulas/schema';
 import { SET_TEST_METHODS, SYNERESIS_LEVELS, TRIAL_FACTORS, TRIAL_STATUSES, type TrialStatus } from './vocabulary';
 import type { FactorLevel } from './plan';
 import type { BatchComputation } from '@/lib/chemistry';
@@ -11,15 +12,15 @@ const num = (what: string) => z.number({ error: `${what} must be a number.` });
 
 export const createTrialSchema = z
   .object({
-    title: z.string().trim().min(1, 'Give the trial a title.').max(160, 'Use at most 160 characters.'),
-    question: z.string().trim().min(1, 'Say what the trial should find out.').max(4000, 'Use at most 4000 characters.'),
+    title: name('Give the trial a title.', 160),
+    question: longText(4000, { min: 1, required: 'Say what the trial should find out.' }),
     formulaId: z.uuid('Choose a base formula.'),
     /** Defaults to the formula's latest revision. */
-    baseRevision: z.number().int().positive().optional(),
+    baseRevision: versionNumber.optional(),
   })
   .strict();
 
-export const transitionSchema = z.object({ to: z.enum(TRIAL_STATUSES, { error: 'Unknown status.' }), note: z.string().trim().max(500).optional() }).strict();
+export const transitionSchema = z.object({ to: z.enum(TRIAL_STATUSES, { error: 'Unknown status.' }), note: longText(500).optional() }).strict();
 
 export const planSchema = z
   .object({
@@ -40,7 +41,7 @@ export const planSchema = z
 
 export const manualVariantSchema = z
   .object({
-    description: z.string().trim().min(1, 'Say what this variant changes.').max(200),
+    description: text({ min: 1, max: 200, required: 'Say what this variant changes.' }),
     settings: formulaSettingsSchema.optional(),
     lines: z.array(formulaLineSchema).min(1, 'Add at least one line.').max(60),
   })
@@ -56,13 +57,13 @@ export const measurementSchema = z
     ph: opt(num('pH').min(0, 'pH runs from 0 to 14.').max(14, 'pH runs from 0 to 14.')),
     endPointTempC: opt(num('The end-point temperature').min(60, 'An end point below 60 °C is not plausible.').max(130, 'An end point above 130 °C is not plausible.')),
     boilTimeMin: opt(num('Boil time').min(0, 'Boil time cannot be negative.').max(600, 'Boil time must be at most 600 minutes.')),
-    setTestScore: z.number().int('Use a whole score.').min(1, 'Score from 1 to 5.').max(5, 'Score from 1 to 5.').nullable().optional(),
+    setTestScore: wholeNumber('The set-test score', 1, 5).nullable().optional(),
     setTestMethod: z.enum(SET_TEST_METHODS, { error: 'Use cold_plate, spoon or flake.' }).nullable().optional(),
     syneresis: z.enum(SYNERESIS_LEVELS, { error: 'Use none, slight or marked.' }).nullable().optional(),
-    colourNotes: z.string().trim().max(500).nullable().optional(),
-    yieldJars: z.number().int('Jars are counted whole.').min(0, 'Jars cannot be negative.').max(100_000).nullable().optional(),
+    colourNotes: longText(500).nullable().optional(),
+    yieldJars: wholeNumber('Jars', 0, 100_000).nullable().optional(),
     yieldG: opt(num('Yield').min(0, 'Yield cannot be negative.').max(5_000_000)),
-    notes: z.string().trim().max(2000).nullable().optional(),
+    notes: longText(2000).nullable().optional(),
   })
   .strict()
   .refine((m) => (m.brixReading == null) === (m.brixSampleTempC == null), {
@@ -75,11 +76,11 @@ export const importMeasurementsSchema = z.object({ csv: z.string().min(1, 'Send 
 
 export const trialListQuerySchema = z.object({
   status: z.enum(TRIAL_STATUSES).optional(),
-  owner: z.uuid().optional(),
+  owner: z.uuid('Unknown person.').optional(),
   product: z.enum(PRODUCT_CLASSES).optional(),
   from: isoDate.optional(),
   to: isoDate.optional(),
-  q: z.string().max(100).optional(),
+  q: searchText.optional(),
 });
 
 export type CreateTrialInput = z.infer<typeof createTrialSchema>;

@@ -5,29 +5,12 @@
  * workspace B 404 on A's records.
  */
 import { describe, it, expect, beforeAll } from 'vitest';
-import fs from 'node:fs';
-import path from 'node:path';
 import { createWorkspace, callRoute, asCaller, addPerson, type WorkspaceFixture, type Caller, type Person } from './harness';
 import { ROUTE_CASES, EXEMPT_ROUTES, BENCH_ONLY_ROUTES, ACTION_CASES, type RouteCase } from './access-table';
-import { ROOT, walk, discoverRoutes, operationKey } from './routes';
+import { discoverActions, discoverRoutes, operationKey } from './routes';
 import { API_OPERATIONS } from '@/lib/api/openapi';
 import { ROLES } from '@/lib/permissions';
 import { seatFixture } from './access-panels';
-
-type ServerAction = (...args: unknown[]) => Promise<{ ok: boolean; status?: number }>;
-
-const actionFiles = walk(path.join(ROOT, 'lib'), (f) => f.endsWith(`${path.sep}actions.ts`) && fs.readFileSync(f, 'utf8').startsWith("'use server'"));
-
-async function discoverActions() {
-  const found = new Map<string, ServerAction>();
-  for (const file of actionFiles) {
-    const mod = await import(file);
-    for (const [name, fn] of Object.entries(mod)) {
-      if (typeof fn === 'function') found.set(`${path.relative(ROOT, file).split(path.sep).join('/')}#${name}`, fn as never);
-    }
-  }
-  return found;
-}
 
 let a: WorkspaceFixture;
 let b: WorkspaceFixture;

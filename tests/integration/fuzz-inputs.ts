@@ -7,7 +7,7 @@ import fc from 'fast-check';
 import type { z } from 'zod';
 
 type Json = null | boolean | number | string | Json[] | { [k: string]: Json };
-type Path = Array<string | number>;
+export type Path = Array<string | number>;
 
 /** A request body exactly as sent: its text, its content-type (null: none), what it is. */
 export interface BodySample {
@@ -57,9 +57,44 @@ export const BAD_IDS = [
 ];
 
 /** Raw number tokens; some are valid JSON that parses to something no field should take (1e309 is Infinity). */
-const RAW_NUMBERS = ['1e309', '-1e309', '1e-400', '-0', '9007199254740993', 'NaN', 'Infinity', '-Infinity', '0x10', '01', '.5', '+1'];
+const RAW_NUMBERS = [
+  '1e309', '-1e309', '1e-400', '-0', '9007199254740993', 'NaN', 'Infinity', '-Infinity', '0x10', '01', '.5', '+1',
+  // Past 2^31 (an int column) and 2^53 (no longer exact), tiny and huge floats.
+  '2147483648', '-2147483649', '4294967296', '9007199254740992', '1e-300', '5e-324', '1e308', '-1e308', '0.4',
+];
 
-const NUMBERISH_STRINGS = ['NaN', 'Infinity', '-Infinity', '1e309', '-1', '', '0x1F', '1,5'];
+const NUMBERISH_STRINGS = ['NaN', 'Infinity', '-Infinity', '1e309', '-1', '', '0x1F', '1,5', '-0', '1e-300', '1e308', '2147483648', '9007199254740993', '0.4'];
+
+/**
+ * Characters no text field may hold (lib/input.ts): NUL and other controls, lone surrogates,
+ * bidi overrides and isolates, a noncharacter. Each makes any string it is put into invalid.
+ */
+export const POISON_CHARACTERS = ['\u0000', '\uD800', '\uDFFF', '\u202E', '\u202D', '\u2066', '\u2069', '\u001B', '\u0007', '\u007F', '\u0085', '\uFFFF'];
+/** Dates with the right shape that are not on the calendar, or outside the stated years. */
+export const IMPOSSIBLE_DATES = ['2026-02-30', '2026-04-31', '2025-02-29', '2100-02-29', '0000-01-01', '1899-12-31', '2201-01-01', '2026-13-01', '2026-00-10', '2026-06-00'];
+/** Numbers past every stated range: an int column's 2^31, 2^53 (no longer exact), 1e308. No field takes them. */
+export const HUGE_NUMBERS = ['2147483648', '-2147483649', '4294967296', '9007199254740993', '1e308', '-1e308'];
+/** Numbers no field takes, which a server action can still receive (React encodes NaN and ±Infinity). */
+export const POISON_NUMBERS = [Number.NaN, Infinity, -Infinity, ...HUGE_NUMBERS.map(Number)];
+/** Keys that reach an object's prototype, and built-ins of every object. */
+export const PROTOTYPE_KEYS = ['__proto__', 'constructor', 'prototype', 'valueOf', 'hasOwnProperty', 'toString', '__defineGetter__', 'isPrototypeOf'];
+
+const DATE_IN_TEXT = /\d{4}-\d{2}-\d{2}/;
+
+/** A copy of a string made invalid: a forbidden character at its start, middle or end, or an impossible date in place of its date. */
+export function poisonedString(original: string): fc.Arbitrary<string> {
+  const withCharacter = fc.tuple(fc.constantFrom(...POISON_CHARACTERS), fc.nat({ max: original.length })).map(([ch, at]) => original.slice(0, at) + ch + original.slice(at));
+  if (!DATE_IN_TEXT.test(original)) return withCharacter;
+  return fc.oneof(withCharacter, fc.constantFrom(...IMPOSSIBLE_DATES).map((d) => original.replace(DATE_IN_TEXT, d)));
+}
+
+/** True when the string survives UTF-8 (no lone surrogate): what a FormData field or URL can carry at all. */
+export const isWellFormedText = (v: string) => new TextDecoder().decode(new TextEncoder().encode(v)) === v;
+
+/** Every path to a string (or number) in a JSON-like value. */
+export function leafPaths(value: unknown, kind: 'string' | 'number'): Path[] {
+  return pathsOf(value).filter((p) => typeof getAt(value, p) === kind);
+}
 
 /** Placeholders for raw JSON tokens inside a value; replaced after JSON.stringify. */
 const RAW = '\u0000raw:';
@@ -78,7 +113,9 @@ export const hostileValue: fc.Arbitrary<unknown> = fc.oneof(
   fc.constantFrom(...NUMBERISH_STRINGS),
   fc.constantFrom(...RAW_NUMBERS).map(raw),
   fc.constantFrom(raw(deepArrays), raw(deepObjects)),
-  fc.constantFrom(raw('{"__proto__":{"isAdmin":true}}'), raw('{"constructor":{"prototype":{"role":"admin"}}}')),
+  fc.constantFrom(raw('{"__proto__":{"isAdmin":true}}'), raw('{"constructor":{"prototype":{"role":"admin"}}}'), raw('{"valueOf":1,"hasOwnProperty":"x","toString":null}')),
+  fc.tuple(fc.constantFrom(...POISON_CHARACTERS), fc.constantFrom('', 'Quince jam', ' ')).map(([ch, t]) => `${t}${ch}${t}`),
+  fc.constantFrom(...IMPOSSIBLE_DATES, '2026-02-30T10:00:00Z', '0000-01-01T00:00:00Z'),
   // One megabyte and a bit: above the 1 MB body limit on its own.
   fc.constant('x'.repeat(1_048_577)),
   // Large but under the limit: only a length rule can refuse it.
@@ -92,7 +129,7 @@ export const hostileValue: fc.Arbitrary<unknown> = fc.oneof(
   fc.dictionary(fc.string({ maxLength: 8 }), fc.jsonValue({ maxDepth: 2 }), { maxKeys: 4 }),
 );
 
-const UNKNOWN_KEYS = ['__proto__', 'constructor', 'prototype', 'isAdmin', 'workspaceId', 'role', 'id', 'createdAt', 'userId', '$where'];
+const UNKNOWN_KEYS = [...PROTOTYPE_KEYS, 'isAdmin', 'workspaceId', 'role', 'id', 'createdAt', 'userId', '$where'];
 
 function pathsOf(value: unknown, prefix: Path = [], out: Path[] = []): Path[] {
   const entries: Array<[string | number, unknown]> = Array.isArray(value) ? value.map((v, i) => [i, v]) : value && typeof value === 'object' ? Object.entries(value) : [];
@@ -111,7 +148,7 @@ function objectPaths(value: unknown): Path[] {
   });
 }
 
-function getAt(value: unknown, path: Path): unknown {
+export function getAt(value: unknown, path: Path): unknown {
   return path.reduce<unknown>((v, k) => (v as Record<string | number, unknown>)?.[k], value);
 }
 
@@ -119,7 +156,7 @@ function clone<T>(v: T): T {
   return JSON.parse(JSON.stringify(v)) as T;
 }
 
-function setAt(value: Json, path: Path, next: unknown): unknown {
+export function setAt(value: Json, path: Path, next: unknown): unknown {
   if (!path.length) return next;
   const copy = clone(value) as Record<string | number, unknown>;
   const parent = getAt(copy, path.slice(0, -1)) as Record<string | number, unknown>;
@@ -168,6 +205,20 @@ export function structuredBodies(base: Json): fc.Arbitrary<BodySample> {
     }),
     hostileValue.map(json('hostile body')),
   ];
+  const texts = leafPaths(base, 'string');
+  if (texts.length) {
+    // House rule, whatever the schema: no text field takes a control character, and no date field a day that does not exist.
+    arbs.push(
+      fc.constantFrom(...texts).chain((p) => poisonedString(getAt(base, p) as string).map((v) => ({ ...json('poisoned text')(setAt(base, p, v)), refusedByRule: true }))),
+    );
+  }
+  const numbers = leafPaths(base, 'number');
+  if (numbers.length) {
+    // House rule, whatever the schema: every number has a stated range, and none reaches 2^31.
+    arbs.push(
+      fc.tuple(fc.constantFrom(...numbers), fc.constantFrom(...HUGE_NUMBERS)).map(([p, n]) => ({ ...json('huge number')(setAt(base, p, raw(n))), refusedByRule: true })),
+    );
+  }
   if (paths.length) {
     arbs.push(fc.tuple(fc.constantFrom(...paths), hostileValue).map(([p, v]) => json('hostile value')(setAt(base, p, v))));
     arbs.push(fc.constantFrom(...paths).map((p) => json('missing field')(deleteAt(base, p))));
@@ -228,16 +279,63 @@ export function badParam(name: string): fc.Arbitrary<string> {
   return fc.oneof(shared, fc.uuid());
 }
 
+/** Values that mean something for one query key (valid ones too, so that hostile combinations such as a sheet for 0.4 jars are reached). */
+const QUERY_VALUES: Record<string, string[]> = {
+  target: ['jar_count', 'finished_mass', 'total_charge'],
+  amount: ['0.4', '12', '1e-300', '5e-324', '1e308', '2147483648', '9007199254740993', '-0', 'NaN', '0x10', ' '],
+  step: ['1e-300', '5e-324', '0.001', '1e308', '-0', '0', '10000', 'Infinity'],
+  unit: ['g', 'kg', 'lb', 'oz', 'st'],
+  stepUnit: ['g', 'kg', 'lb', 'oz', 'ton'],
+  altitudeM: ['-0', '1e308', '4999.9', '2147483648'],
+  paper: ['a4', 'letter', 'legal'],
+  from: [...IMPOSSIBLE_DATES, '2026-06-14'],
+  to: [...IMPOSSIBLE_DATES, '2026-06-14'],
+  a: ['1', '2', '2147483648', '9007199254740993', '1e308', '-0', 'NaN', '0'],
+  b: ['1', '2', '2147483648', '9007199254740993', '1e308', '-0', 'NaN', '0'],
+  table: ['means', 'anova', 'penalty', 'triangle', 'ranking', 'constructor', '__proto__'],
+  status: ['draft', 'cooking', 'archived', 'pending', 'approved', 'toString'],
+  sort: ['name', 'kind', 'solidsPct', 'valueOf', '__proto__'],
+  code: ['ABC123', 'abc-123', '000000'],
+};
+
+/** Every query key a page, export or list of the app reads. */
+export const QUERY_KEYS = [
+  'q', 'kind', 'sort', 'dir', 'archived', 'status', 'owner', 'product', 'from', 'to', 'variantId', 'measurementId', 'table', 'limit', 'offset',
+  'target', 'amount', 'unit', 'step', 'stepUnit', 'altitudeM', 'paper', 'a', 'b', 'formula', 'code', 'error', 'reset', 'joined',
+];
+
+const queryValue = (key: string): fc.Arbitrary<string> => {
+  // An own-property look-up: the key may be "__proto__" or "constructor".
+  const known = Object.prototype.hasOwnProperty.call(QUERY_VALUES, key) ? QUERY_VALUES[key] : ['jam', '1'];
+  return fc.oneof(
+    fc.constantFrom(...known),
+    fc.constantFrom(...BAD_IDS, ...NUMBERISH_STRINGS, ...IMPOSSIBLE_DATES, 'A'.repeat(10_000)),
+    // A URL cannot carry a lone surrogate (it is not UTF-8), so only the other poisons are sent.
+    fc.constantFrom(...known).chain((v) => poisonedString(v).filter(isWellFormedText)),
+    fc.string({ maxLength: 30 }),
+  );
+};
+
+/** Key/value pairs for a query string: the given keys (repeated ones too) plus unknown and prototype-named keys. */
+export function queryPairs(keys: readonly string[] = QUERY_KEYS): fc.Arbitrary<Array<[string, string]>> {
+  const key = fc.oneof({ weight: 4, arbitrary: fc.constantFrom(...keys) }, fc.constantFrom(...PROTOTYPE_KEYS), fc.string({ maxLength: 10 }));
+  return fc.array(key.chain((k) => queryValue(k).map((v) => [k, v] as [string, string])), { minLength: 1, maxLength: 5 });
+}
+
+export const encodeQuery = (pairs: Array<[string, string]>) => pairs.map(([k, v]) => `${encodeURIComponent(k)}=${encodeURIComponent(v)}`).join('&');
+
 /** Query strings for GET operations: known and unknown keys with hostile values. */
-export const hostileQuery: fc.Arbitrary<string> = fc
-  .array(
-    fc.tuple(
-      fc.oneof(fc.constantFrom('q', 'kind', 'sort', 'dir', 'archived', 'status', 'owner', 'product', 'from', 'to', 'variantId', 'measurementId', 'table', 'limit', 'offset'), fc.string({ maxLength: 10 })),
-      fc.oneof(fc.constantFrom(...BAD_IDS, ...NUMBERISH_STRINGS, 'A'.repeat(10_000)), fc.string({ maxLength: 30 })),
-    ),
-    { minLength: 1, maxLength: 4 },
-  )
-  .map((pairs) => pairs.map(([k, v]) => `${encodeURIComponent(k)}=${encodeURIComponent(v)}`).join('&'));
+export const hostileQuery: fc.Arbitrary<string> = queryPairs().map(encodeQuery);
+
+/** The searchParams object Next.js hands a page: a repeated key becomes an array; every key an own property. */
+export function searchParamsOf(pairs: Array<[string, string]>): Record<string, string | string[]> {
+  const out: Record<string, string | string[]> = {};
+  for (const [k, v] of pairs) {
+    const prev = Object.prototype.hasOwnProperty.call(out, k) ? out[k] : undefined;
+    Object.defineProperty(out, k, { value: prev === undefined ? v : ([] as string[]).concat(prev, v), enumerable: true, writable: true, configurable: true });
+  }
+  return out;
+}
 
 /** A short description for failure messages (the samples can be a megabyte long). */
 export function describeSample(s: BodySample): string {

@@ -46,3 +46,25 @@ export function routesReadingJsonBody(): string[] {
   }
   return keys;
 }
+
+export type ServerAction = (...args: unknown[]) => Promise<{ ok: boolean; status?: number }>;
+
+/** Every exported function of a 'use server' actions.ts under lib/, named "lib/<feature>/actions.ts#name". */
+export async function discoverActions(): Promise<Map<string, ServerAction>> {
+  const files = walk(path.join(ROOT, 'lib'), (f) => f.endsWith(`${path.sep}actions.ts`) && fs.readFileSync(f, 'utf8').startsWith("'use server'"));
+  const found = new Map<string, ServerAction>();
+  for (const file of files) {
+    const mod = await import(file);
+    for (const [name, fn] of Object.entries(mod)) {
+      if (typeof fn === 'function') found.set(`${path.relative(ROOT, file).split(path.sep).join('/')}#${name}`, fn as ServerAction);
+    }
+  }
+  return found;
+}
+
+/** Page files (page.tsx anywhere under app/) whose component reads searchParams, named by their path under app/. */
+export function pagesReadingSearchParams(): string[] {
+  return walk(path.join(ROOT, 'app'), (f) => f.endsWith(`${path.sep}page.tsx`) && /\bsearchParams\b/.test(fs.readFileSync(f, 'utf8'))).map((f) =>
+    path.relative(path.join(ROOT, 'app'), f).split(path.sep).join('/'),
+  );
+}

@@ -2,6 +2,7 @@ import Link from 'next/link';
 import { requirePage } from '@/lib/page-guard';
 import { can } from '@/lib/permissions';
 import { listFormulas } from '@/lib/formulas/queries';
+import { formulaListQuerySchema } from '@/lib/formulas/schema';
 import { FormulaList } from '@/components/formulas/FormulaList';
 import { PageHeader } from '@/components/ui/Card';
 import { buttonClass } from '@/components/ui/Button';
@@ -10,9 +11,10 @@ import { inputClass } from '@/components/ui/Field';
 export const dynamic = 'force-dynamic';
 export const metadata = { title: 'Formulas' };
 
-export default async function FormulasPage({ searchParams }: { searchParams: Promise<{ q?: string }> }) {
+export default async function FormulasPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
   const actor = await requirePage('formulas.read');
-  const q = (await searchParams).q?.slice(0, 100);
+  // A search the server cannot take (control characters, too long, repeated) is shown as no search.
+  const q = formulaListQuerySchema.safeParse(await searchParams).data?.q;
   const formulas = await listFormulas(actor, { q });
   const canCreate = can(actor.role, 'formulas.write');
   return (

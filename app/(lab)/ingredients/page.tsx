@@ -3,6 +3,7 @@ import { requirePage } from '@/lib/page-guard';
 import { can } from '@/lib/permissions';
 import { listIngredients } from '@/lib/ingredients/queries';
 import { ingredientListQuerySchema } from '@/lib/ingredients/schema';
+import { searchText } from '@/lib/input';
 import { IngredientTable } from '@/components/ingredients/IngredientTable';
 import { PageHeader } from '@/components/ui/Card';
 import { buttonClass } from '@/components/ui/Button';
@@ -10,12 +11,12 @@ import { buttonClass } from '@/components/ui/Button';
 export const dynamic = 'force-dynamic';
 export const metadata = { title: 'Ingredients' };
 
-export default async function IngredientsPage({ searchParams }: { searchParams: Promise<Record<string, string | undefined>> }) {
+export default async function IngredientsPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
   const actor = await requirePage('ingredients.read');
   const raw = await searchParams;
   // An unusable sort or filter in the URL falls back to the default list rather than an error page.
   const parsed = ingredientListQuerySchema.safeParse(raw);
-  const query = parsed.success ? parsed.data : { q: typeof raw.q === 'string' ? raw.q.slice(0, 100) : undefined };
+  const query = parsed.success ? parsed.data : { q: searchText.safeParse(raw.q).data || undefined };
   const rows = await listIngredients(actor, query);
   const canEdit = can(actor.role, 'ingredients.write');
   return (

@@ -14,7 +14,7 @@ import { TrialFilters } from '@/components/trials/TrialFilters';
 export const dynamic = 'force-dynamic';
 export const metadata = { title: 'Trials' };
 
-export default async function TrialsPage({ searchParams }: { searchParams: Promise<Record<string, string | undefined>> }) {
+export default async function TrialsPage({ searchParams }: { searchParams: Promise<Record<string, string | string[] | undefined>> }) {
   const actor = await requirePage('trials.read');
   const raw = Object.fromEntries(Object.entries(await searchParams).filter(([, v]) => v !== ''));
   const parsed = trialListQuerySchema.safeParse(raw);

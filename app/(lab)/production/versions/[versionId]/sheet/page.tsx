@@ -3,6 +3,7 @@ import { requirePage, orNotFound, pageId } from '@/lib/page-guard';
 import { getBatchSheet, getProductionVersion } from '@/lib/production/queries';
 import { batchSheetQuerySchema } from '@/lib/production/schema';
 import { zodFieldErrors } from '@/lib/api/errors';
+import { safeRecord } from '@/lib/input';
 import { ChemistryInputError } from '@/lib/chemistry';
 import { Notice } from '@/components/ui/Notice';
 import { PrintButton } from '@/components/ui/PrintButton';
@@ -15,7 +16,7 @@ export const metadata = { title: 'Batch sheet' };
 export default async function BatchSheetPage({ params, searchParams }: { params: Promise<{ versionId: string }>; searchParams: Promise<Record<string, string | string[] | undefined>> }) {
   const actor = await requirePage('production.read');
   const versionId = pageId((await params).versionId);
-  const raw = Object.fromEntries(Object.entries(await searchParams).filter(([k, v]) => k !== 'paper' && typeof v === 'string' && v !== '')) as Record<string, string>;
+  const raw = safeRecord(Object.entries(await searchParams).filter((e): e is [string, string] => e[0] !== 'paper' && typeof e[1] === 'string' && e[1] !== ''));
   const paper = (await searchParams).paper === 'letter' ? 'letter' : 'a4';
   const parsed = batchSheetQuerySchema.safeParse(raw);
   const errors = parsed.success ? {} : zodFieldErrors(parsed.error);

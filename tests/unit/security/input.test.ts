@@ -1,0 +1,170 @@
+/**
+ * The vocabulary of safe input (lib/input.ts) and the feature schemas built from it. Each
+ * describe block is one class of hostile input; every case here was accepted before the
+ * building blocks existed (and most then failed in PostgreSQL with a 500).
+ * Sources: Unicode Standard §23.2 (bidirectional formatting characters U+202A–U+202E,
+ * U+2066–U+2069) and §3.9 (a lone surrogate is ill-formed UTF-16); Gregorian calendar month
+ * lengths and leap years (ISO 8601-1:2019 §4.2.1); PostgreSQL `integer` is −2³¹ … 2³¹−1
+ * (PostgreSQL 16 manual §8.1.1); PostgreSQL text cannot hold NUL (manual §8.3).
+ */
+import { describe, it, expect } from 'vitest';
+import { z } from 'zod';
+import {
+  boundedNumber,
+  calendarDateProblem,
+  email,
+  INT32_MAX,
+  isoDate,
+  isoDateTime,
+  lookup,
+  name,
+  numberFromText,
+  parseDecimal,
+  safeRecord,
+  text,
+  unsafeTextReason,
+  versionNumber,
+  wholeNumber,
+} from '@/lib/input';
+import { createTrialSchema, measurementSchema, trialListQuerySchema } from '@/lib/trials/schema';
+import { batchRecordSchema, batchSheetQuerySchema } from '@/lib/production/schema';
+import { reviseFormulaSchema, formulaListQuerySchema } from '@/lib/formulas/schema';
+import { joinSchema, createPanelSchema } from '@/lib/panels/schema';
+import { requestResetSchema } from '@/lib/account/schema';
+import { inviteMemberSchema } from '@/lib/members/schema';
+import { ingredientListQuerySchema } from '@/lib/ingredients/schema';
+import { findDocProblems } from '@/lib/notebook/schema';
+import { parseMeasurementCsv } from '@/lib/trials/csv';
+
+const ok = (schema: z.ZodType, value: unknown) => schema.safeParse(value).success;
+
+describe('NUL and other control characters', () => {
+  const line = text({ max: 100 });
+  const notes = text({ max: 100, multiline: true });
+  it.each(['a\u0000b', '\u0000', 'a\u0007', 'a\u001b[31m', 'a\u007f', 'a\u0085b', 'a\u009bb'])('refuses %j in any text', (value) => {
+    expect(ok(line, value)).toBe(false);
+    expect(ok(notes, value)).toBe(false);
+  });
+  it('allows newline and tab only where several lines are allowed', () => {
+    expect(ok(notes, 'one\r\ntwo\tthree')).toBe(true);
+    expect(ok(line, 'one\ntwo')).toBe(false);
+    expect(ok(line, 'one\ttwo')).toBe(false);
+    expect(ok(line, 'one\u2028two')).toBe(false);
+  });
+  it('trims and bounds, and keeps ordinary text of every script whole', () => {
+    expect(line.parse('  Quince & rosé — 柚子 🍓  ')).toBe('Quince & rosé — 柚子 🍓');
+    expect(ok(text({ max: 3 }), 'abcd')).toBe(false);
+    expect(ok(name('Give it a name.'), '   ')).toBe(false);
+  });
+  it('the e-mail block refuses NUL (sign-in and reset never reach the database with one)', () => {
+    expect(ok(email, 'a\u0000@b.example')).toBe(false);
+    expect(ok(requestResetSchema, { email: 'ann@example.com\u0000' })).toBe(false);
+    expect(email.parse('  Ann.Smith@Example.COM ')).toBe('ann.smith@example.com');
+    expect(ok(inviteMemberSchema, { email: `${'a'.repeat(250)}@b.co`, role: 'taster' })).toBe(false);
+  });
+  it('feature schemas refuse NUL in names, notes and searches (the unauthenticated join too)', () => {
+    expect(ok(joinSchema, { joinCode: 'ABC123', displayName: 'Ann\u0000' })).toBe(false);
+    expect(ok(trialListQuerySchema, { q: 'jam\u0000' })).toBe(false);
+    expect(ok(formulaListQuerySchema, { q: '\u0000' })).toBe(false);
+    expect(ok(ingredientListQuerySchema, { q: 'x\u0000' })).toBe(false);
+    expect(ok(createTrialSchema, { title: 'T\u0000', question: 'Q', formulaId: '6f1c0b9e-8a47-4d7e-9a59-3c1f2a7b9e10' })).toBe(false);
+  });
+  it('a notebook entry refuses NUL in text, attributes and keys', () => {
+    const doc = (t: string) => ({ type: 'doc', content: [{ type: 'paragraph', content: [{ type: 'text', text: t }] }] });
+    expect(findDocProblems(doc('fine'))).toEqual([]);
+    expect(findDocProblems(doc('bad\u0000'))).not.toEqual([]);
+    expect(findDocProblems(doc('bad\u202e'))).not.toEqual([]);
+  });
+});
+
+describe('lone surrogates', () => {
+  it.each(['\uD800', 'a\uDC00', '\uDBFFx', 'x\uDFFF'])('refuses %j', (value) => {
+    expect(unsafeTextReason(value)).not.toBeNull();
+    expect(ok(text({ max: 10 }), value)).toBe(false);
+  });
+  it('accepts a well-formed pair (an emoji)', () => {
+    expect(unsafeTextReason('\uD83C\uDF53')).toBeNull();
+  });
+});
+
+describe('bidi overrides and isolates', () => {
+  it.each(['\u202A', '\u202B', '\u202C', '\u202D', '\u202E', '\u2066', '\u2067', '\u2068', '\u2069'])('refuses U+%s', (ch) => {
+    expect(ok(text({ max: 20, multiline: true }), `invoice${ch}fdp.exe`)).toBe(false);
+  });
+  it('keeps right-to-left text itself', () => {
+    expect(ok(text({ max: 40 }), 'مربى المشمش')).toBe(true);
+  });
+});
+
+describe('impossible calendar dates', () => {
+  it.each(['2026-02-30', '2026-04-31', '2025-02-29', '1900-02-29', '0000-01-01', '2026-13-01', '2026-00-10', '2026-06-00', '1899-12-31', '2201-01-01', '2026-6-14', '14/06/2026', '2026-06-14T00:00:00Z'])(
+    'refuses %s',
+    (value) => {
+      expect(calendarDateProblem(value)).not.toBeNull();
+      expect(ok(isoDate, value)).toBe(false);
+    },
+  );
+  it.each(['2024-02-29', '2000-02-29', '1900-01-01', '2200-12-31', '2026-04-30'])('accepts %s', (value) => {
+    expect(ok(isoDate, value)).toBe(true);
+  });
+  it('refuses them in cooks, batch records, the cook CSV and tasting times', () => {
+    expect(ok(measurementSchema, { variantId: '6f1c0b9e-8a47-4d7e-9a59-3c1f2a7b9e10', cookDate: '2026-02-30' })).toBe(false);
+    expect(batchRecordSchema.safeParse({ batchDate: '2026-04-31' }).error?.issues.some((i) => i.path[0] === 'batchDate')).toBe(true);
+    expect(ok(isoDateTime, '2026-02-30T10:00:00Z')).toBe(false);
+    expect(ok(isoDateTime, '0000-01-01T10:00:00Z')).toBe(false);
+    expect(ok(isoDateTime, '2026-06-14T10:00:00+02:00')).toBe(true);
+    expect(createPanelSchema.safeParse({ startsAt: '2026-02-30T10:00:00Z' }).error?.issues.some((i) => i.path[0] === 'startsAt')).toBe(true);
+    const { errors } = parseMeasurementCsv('variant,cook_date\nA,2026-02-30\n', new Map([['A', '6f1c0b9e-8a47-4d7e-9a59-3c1f2a7b9e10']]));
+    expect(errors).toEqual([expect.objectContaining({ row: 2, column: 'cook_date' })]);
+  });
+});
+
+describe('integers past 2^31 and 2^53', () => {
+  it.each([2 ** 31, 2 ** 53, 2 ** 53 + 2, 1e300, -(2 ** 31) - 1])('refuses %d where a 32-bit integer column takes it', (n) => {
+    expect(ok(versionNumber, n)).toBe(false);
+    expect(ok(reviseFormulaSchema.shape.baseRevision, n)).toBe(false);
+    expect(ok(createTrialSchema.shape.baseRevision, n)).toBe(false);
+  });
+  it('accepts the largest integer the column holds', () => {
+    expect(ok(versionNumber, INT32_MAX)).toBe(true);
+  });
+  it('will not build a whole-number rule wider than the column', () => {
+    expect(() => wholeNumber('Count', 0, INT32_MAX + 1)).toThrow();
+  });
+});
+
+describe('tiny and huge floats', () => {
+  const n = boundedNumber('The amount', 0, 1000);
+  it.each([Infinity, -Infinity, Number.NaN, 1e308, -1e-300, 1001])('refuses %d', (v) => expect(ok(n, v)).toBe(false));
+  it('reads only plain decimal text from a query or a CSV cell', () => {
+    for (const raw of ['0x10', 'Infinity', 'NaN', '', ' ', '1e', '1,2,3', '--1']) expect(parseDecimal(raw)).toBeNaN();
+    expect(parseDecimal('2,5')).toBe(2.5);
+    expect(parseDecimal('-0.75e2')).toBe(-75);
+    expect(ok(numberFromText('The amount', n), '1e309')).toBe(false);
+  });
+  it('refuses a batch sheet step of 1e-300 and a sheet for 0.4 jars', () => {
+    expect(ok(batchSheetQuerySchema, { step: '1e-300' })).toBe(false);
+    expect(ok(batchSheetQuerySchema, { step: '0.001' })).toBe(true);
+    expect(ok(batchSheetQuerySchema, { target: 'jar_count', amount: '0.4' })).toBe(false);
+    expect(ok(batchSheetQuerySchema, { target: 'jar_count', amount: '12.5' })).toBe(false);
+    expect(ok(batchSheetQuerySchema, { target: 'jar_count', amount: '12' })).toBe(true);
+    expect(ok(batchSheetQuerySchema, { amount: '0x10' })).toBe(false);
+  });
+});
+
+describe('prototype-named keys', () => {
+  it.each(['__proto__', 'constructor', 'prototype'])('safeRecord drops %s and has no prototype to pollute', (key) => {
+    const r = safeRecord<unknown>([[key, { polluted: true }], ['kept', 1]]);
+    expect(Object.keys(r)).toEqual(['kept']);
+    expect(Object.getPrototypeOf(r)).toBeNull();
+    expect(({} as Record<string, unknown>).polluted).toBeUndefined();
+  });
+  it.each(['__proto__', 'constructor', 'valueOf', 'hasOwnProperty', 'toString'])('lookup(%s) finds nothing inherited', (key) => {
+    expect(lookup({ level: 1 }, key)).toBeUndefined();
+  });
+  it.each(['__proto__', 'valueOf', 'hasOwnProperty', 'constructor'])('a notebook attribute named %s is refused, not run or stored', (key) => {
+    const attrs = JSON.parse(`{"${key}": {"x": 1}, "level": 2}`);
+    const problems = findDocProblems({ type: 'doc', content: [{ type: 'heading', attrs, content: [{ type: 'text', text: 'Hi' }] }] });
+    expect(problems.map((p) => p.message).join(' ')).toContain(`no attribute "${key}"`);
+  });
+});
