@@ -76,4 +76,6 @@ export interface FormulaSettings {
   altitudeM?: number;
   measuredWaterBoilingC?: number;
   plannedPh?: number;
+  /** How a reduced-sugar product is kept (guidance.ts PRESERVATION_METHODS); unset when not stated. */
+  preservation?: 'heat_processed' | 'preservative' | 'chilled';
 }

@@ -361,7 +361,7 @@ export async function getPromotionDraft(actor: Actor, trialId: string): Promise<
       defaults: {
         spec,
         process: { endPointSeaLevelC: Math.round(estimateEndPoint({ targetSolidsPct: c.settings.targetSolidsPct }).endPointC * 10) / 10, fillTempC: DEFAULT_FILL_TEMP_C, cookNotes: '' },
-        cautions: qcSpecCautions(spec, c.settings.productClass),
+        cautions: qcSpecCautions(spec, c.settings.productClass, c.settings.preservation),
       },
     };
   });
