@@ -266,6 +266,7 @@ export function checkBatchAgainstSpec(spec: QcSpec, r: BatchReadings): BatchChec
     outcome: checks.some((c) => c.status === 'fail') ? 'fail' : 'pass',
     checks,
     correctedBrix20C: brix,
-    brixCorrectionNote: correction.usedRecalledValues ? 'The 20 °C correction used a table row recalled from memory, not read from the OIV table.' : null,
+    // The correction table rows at these temperatures were recalled, not read (lib/chemistry/refractometer.ts).
+    brixCorrectionNote: correction.usedRecalledValues ? 'The correction to 20 °C at this sample temperature is approximate: near a limit, cool the sample to 20 °C and read again.' : null,
   };
 }
