@@ -90,6 +90,8 @@ export const API_OPERATIONS: ApiOperation[] = [
   { method: 'get', path: '/api/v1/trials/{trialId}/panels', summary: 'Tasting sessions of a trial', tag: 'Panels', permission: 'panels.read' },
   { method: 'post', path: '/api/v1/trials/{trialId}/panels', summary: 'Create a tasting session (draft): samples get three-digit codes, serving orders are balanced', tag: 'Panels', permission: 'panels.run', request: createPanelSchema, okStatus: 201 },
   { method: 'get', path: '/api/v1/panels/{sessionId}', summary: 'A session with live progress per seat (poll it)', tag: 'Panels', permission: 'panels.read' },
+  { method: 'patch', path: '/api/v1/panels/{sessionId}', summary: 'Replace the set-up of a tasting that is still being set up (codes are drawn afresh); 409 once it has opened', tag: 'Panels', permission: 'panels.run', request: createPanelSchema },
+  { method: 'delete', path: '/api/v1/panels/{sessionId}', summary: 'Discard a tasting that never opened; 409 once it has', tag: 'Panels', permission: 'panels.run' },
   { method: 'post', path: '/api/v1/panels/{sessionId}/open', summary: 'Open for answers; returns the join code', tag: 'Panels', permission: 'panels.run' },
   { method: 'post', path: '/api/v1/panels/{sessionId}/close', summary: 'Close and lock the answers', tag: 'Panels', permission: 'panels.run' },
   { method: 'post', path: '/api/v1/panels/{sessionId}/invitations', summary: 'Seat staff tasters and e-mail each their own link', tag: 'Panels', permission: 'panels.run', request: inviteTastersSchema, okStatus: 201 },

@@ -144,3 +144,26 @@ export async function revisionExists(actor: Actor, formulaId: string, number: nu
   const em = await getEm();
   return (await em.count(FormulaRevision, { ...inWorkspace(actor), formula: formulaId, number })) > 0;
 }
+
+export interface StoveItem {
+  id: string;
+  code: string;
+  title: string;
+  /** Variants still in the trial with no cook that counts (withdrawn cooks do not). */
+  uncooked: string[];
+}
+
+/** The developer's trials at the stove (status cooking) and which of their variants are not cooked yet. */
+export async function trialsAtTheStove(actor: Actor): Promise<StoveItem[]> {
+  const em = await getEm();
+  const trials = await em.find(Trial, { ...inWorkspace(actor), owner: actor.userId, status: 'cooking' }, { orderBy: { updatedAt: 'desc' }, limit: 50 });
+  if (!trials.length) return [];
+  const variants = (await em.find(Variant, { ...inWorkspace(actor), trial: { $in: trials.map((t) => t.id) }, removedAt: null }, { orderBy: { position: 'asc' }, fields: ['trial', 'label'] })) as unknown as Array<{ id: string; label: string; trial: { id: string } }>;
+  const cooked = variants.length
+    ? new Set(((await em.find(Measurement, { ...inWorkspace(actor), variant: { $in: variants.map((v) => v.id) }, withdrawnAt: null }, { fields: ['variant'] })) as unknown as Array<{ variant: { id: string } }>).map((m) => m.variant.id))
+    : new Set<string>();
+  return trials.map((t) => ({
+    id: t.id, code: trialCode(t.number), title: t.title,
+    uncooked: variants.filter((v) => v.trial.id === t.id && !cooked.has(v.id)).map((v) => v.label),
+  }));
+}
