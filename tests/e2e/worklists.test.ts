@@ -3,7 +3,7 @@
  * a staff taster gets back to the seat from My tastings; a cook without readings is refused, and a
  * cook is corrected and withdrawn with a reason. Screenshots land in test-results/.
  */
-import { describe, it, expect } from 'vitest';
+import { describe, it, expect, onTestFailed } from 'vitest';
 import type { Page } from 'playwright-core';
 import { sharedBrowser, newContext, signIn, screenshot } from './browser';
 import { DEMO_USERS } from '@/lib/seed/demo';
@@ -93,6 +93,9 @@ describe('cooks', () => {
     const ctx = await newContext(browser(), VIEWPORTS.desktop);
     const page = await ctx.newPage();
     const problems = await watch(page);
+    onTestFailed(async () => {
+      await screenshot(page, 'cooks-failure');
+    });
     await signIn(page, user('developer').email);
     await page.goto('/trials');
     await page.getByRole('link', { name: /Strawberry jam: less acid/ }).first().click();
@@ -102,22 +105,26 @@ describe('cooks', () => {
     await form.getByLabel(/Batch size/).fill('3000');
     await form.getByRole('button', { name: 'Save the cook' }).click();
     await form.getByText(/Record at least one reading/).waitFor();
+    const cooks = page.getByTestId('cook-list');
+    // Cooks are in date order; nested history items are not cooks.
+    const before = await cooks.locator(':scope > li').count();
     await form.getByRole('textbox', { name: 'pH', exact: true }).fill('3.9');
     await form.getByRole('button', { name: 'Save the cook' }).click();
     await form.getByText('Cook recorded.').waitFor();
-
-    const cooks = page.getByTestId('cook-list');
-    const newest = cooks.locator('li').last();
-    await newest.getByRole('button', { name: 'Correct' }).click();
+    await cooks.locator(':scope > li').nth(before).waitFor();
+    const newest = () => cooks.locator(':scope > li').last();
+    await newest().getByRole('button', { name: 'Correct' }).click();
     const fix = page.getByRole('form', { name: 'Correct this cook' });
     await fix.getByRole('textbox', { name: 'pH', exact: true }).fill('3.09');
     await fix.getByLabel('Why is it corrected?').fill('Meter not calibrated; re-read.');
     await fix.getByRole('button', { name: 'Save the correction' }).click();
-    await cooks.locator('li').last().getByText(/Corrected once/).waitFor();
+    await newest().getByText(/Corrected once/).waitFor();
+    await screenshot(page, 'cook-corrected-desktop');
 
-    await cooks.locator('li').last().getByRole('button', { name: 'Withdraw' }).click();
-    await page.getByLabel('Why is it withdrawn?').fill('Sample taken from the wrong pan.');
-    await page.getByRole('button', { name: 'Withdraw the cook' }).click();
+    await newest().getByRole('button', { name: 'Withdraw' }).click();
+    const dialog = page.getByRole('dialog');
+    await dialog.getByLabel('Why is it withdrawn?').fill('Sample taken from the wrong pan.');
+    await dialog.getByRole('button', { name: 'Withdraw the cook' }).click();
     await page.getByTestId('withdrawn-cook-list').getByText(/Sample taken from the wrong pan/).waitFor();
     await screenshot(page, 'cook-withdrawn-desktop');
     expect(problems).toEqual([]);
