@@ -30,6 +30,8 @@ export const Measurement = defineEntity({
     notes: p.text().nullable(),
     recordedBy: p.manyToOne(User),
     createdAt: p.datetime().onCreate(() => new Date()),
+    /** A withdrawn cook stays on record (with its history) but counts in no comparison or evidence. */
+    withdrawnAt: p.datetime().nullable(),
   }),
   indexes: [{ properties: ['workspace', 'variant'] }],
 });

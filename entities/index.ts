@@ -13,6 +13,7 @@ import { Trial } from './Trial';
 import { TrialStatusChange } from './TrialStatusChange';
 import { Variant } from './Variant';
 import { Measurement } from './Measurement';
+import { MeasurementChange } from './MeasurementChange';
 import { Upload } from './Upload';
 import { NotebookEntry } from './NotebookEntry';
 import { NotebookConflict } from './NotebookConflict';
@@ -29,7 +30,7 @@ import { AuditEvent } from './AuditEvent';
 
 export {
   Workspace, User, Membership, Invitation, PasswordReset, ApiToken, RateLimitBucket, Ingredient, Formula, FormulaRevision,
-  Trial, TrialStatusChange, Variant, Measurement, Upload, NotebookEntry, NotebookConflict,
+  Trial, TrialStatusChange, Variant, Measurement, MeasurementChange, Upload, NotebookEntry, NotebookConflict,
   SensoryAttributeDef, PanelSession, PanelSample, PanelSeat, PanelAnswer,
   Product, PromotionRequest, ProductionFormula, BatchRecord, AuditEvent,
 };
@@ -38,7 +39,7 @@ export { ROLES } from './Membership';
 export const allEntities = [
   Workspace, User, Membership, Invitation, PasswordReset, ApiToken, RateLimitBucket,
   Ingredient, Formula, FormulaRevision,
-  Trial, TrialStatusChange, Variant, Measurement, Upload, NotebookEntry, NotebookConflict,
+  Trial, TrialStatusChange, Variant, Measurement, MeasurementChange, Upload, NotebookEntry, NotebookConflict,
   SensoryAttributeDef, PanelSession, PanelSample, PanelSeat, PanelAnswer,
   Product, PromotionRequest, ProductionFormula, BatchRecord, AuditEvent,
 ];

@@ -12,6 +12,7 @@ export const NAV_ITEMS: NavItem[] = [
   { href: '/home', label: 'Overview', permission: 'account.self', group: 'work' },
   { href: '/formulas', label: 'Formulas', permission: 'formulas.read', group: 'work' },
   { href: '/trials', label: 'Trials', permission: 'trials.read', group: 'work' },
+  { href: '/panels', label: 'Tastings', permission: 'panels.read', group: 'work' },
   { href: '/ingredients', label: 'Ingredients', permission: 'ingredients.read', group: 'work' },
   { href: '/production/reviews', label: 'Promotion reviews', permission: 'promotion.read', group: 'work' },
   { href: '/production', label: 'Production', permission: 'production.read', group: 'work' },

@@ -114,8 +114,8 @@ export function BrixHelper({ temperatureUnit }: { temperatureUnit: TemperatureUn
             {outcome.correction.usedRecalledValues ? (
               <div className="sm:col-span-2">
                 <Notice tone="warning">
-                  This correction uses table values that were recalled, not read from the published table (rows {RECALLED_ROWS_C.join(', ')} °C). Check it
-                  against the printed table, or measure the sample at 20 °C.
+                  At {RECALLED_ROWS_C.join(', ')} °C this correction is approximate. Check it against the printed table, or cool the sample to 20 °C
+                  and read again.
                 </Notice>
               </div>
             ) : null}

@@ -2,7 +2,7 @@
 
 import { useEffect, useMemo, useRef, useState } from 'react';
 import { useRouter } from 'next/navigation';
-import type { UnitPreference } from '@/lib/chemistry';
+import { PRESERVATION_LABELS, PRESERVATION_METHODS, type UnitPreference } from '@/lib/chemistry';
 import { createFormulaAction, reviseFormulaAction } from '@/lib/formulas/actions';
 import {
   createFormulaSchema,
@@ -340,6 +340,15 @@ export function FormulaEditor({ mode, initial, ingredients, massUnits, temperatu
                 value={settings.plannedPh.text}
                 onChange={(e) => updateSettings({ plannedPh: settingsTextToDraft(e.target.value) }, 'settings.plannedPh')}
                 errors={fieldErrors('settings.plannedPh', settings.plannedPh)}
+              />
+              <SelectField
+                label="Preservation besides sugar"
+                name="settings.preservation"
+                id="setting-preservation"
+                value={settings.preservation}
+                options={[{ value: '', label: 'Not stated (sugar and acidity alone)' }, ...PRESERVATION_METHODS.map((m) => ({ value: m, label: PRESERVATION_LABELS[m] }))]}
+                onChange={(e) => updateSettings({ preservation: e.target.value as SettingsDraft['preservation'] }, 'settings.preservation')}
+                errors={errors.fields['settings.preservation']}
               />
               <fieldset className="sm:col-span-2">
                 <legend className="mb-1 text-sm font-medium text-rind-700">Where does water boil in your kitchen?</legend>

@@ -14,6 +14,7 @@ import {
   toGrams,
   type LineUnit,
   type MassUnit,
+  type PreservationMethod,
   type UnitPreference,
 } from '@/lib/chemistry';
 import { computeFormula, type ComputableLine, type ComputeOutcome } from '@/lib/formulas/compute';
@@ -229,6 +230,8 @@ export interface SettingsDraft {
   altitude: MeasuredDraft;
   measuredBoiling: MeasuredDraft;
   plannedPh: MeasuredDraft;
+  /** '' while not stated. */
+  preservation: PreservationMethod | '';
 }
 
 const IDENTITY_SCALE: DisplayScale = { toDisplay: (v) => v, toBase: (v) => v, decimals: 3, unitLabel: '' };
@@ -260,6 +263,7 @@ export function initialSettingsDraft(options: {
     altitude: draftFromBase(s.altitudeM, altitudeScale(options.system)),
     measuredBoiling: draftFromBase(s.measuredWaterBoilingC, temperatureScale(options.temperatureUnit)),
     plannedPh: draftFromBase(s.plannedPh, IDENTITY_SCALE),
+    preservation: s.preservation ?? '',
   };
 }
 
@@ -292,6 +296,7 @@ export function settingsFromDraft(draft: SettingsDraft): FormulaSettingsInput {
     altitudeM: useAltitude ? draft.altitude.base : null,
     measuredWaterBoilingC: useAltitude ? null : draft.measuredBoiling.base,
     plannedPh: draft.plannedPh.base,
+    preservation: draft.preservation || null,
   };
 }
 

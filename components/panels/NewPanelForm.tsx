@@ -11,11 +11,35 @@ import { PANEL_METHODS, PANEL_METHOD_LABELS, type PanelMethod } from '@/lib/pane
 const DEFAULT_NOTICE =
   'These samples are fruit preserves made in our development kitchen. They contain fruit and sugar and may contain traces of nuts, gluten (crackers) and sulphites. Do not taste if you have an allergy or intolerance to any of these. Taking part is voluntary; your answers are stored under the name you give and used only to improve our products. You may stop at any time.';
 
-export function NewPanelForm({ trialId, variants, attributes }: { trialId: string; variants: Array<{ id: string; label: string; description: string }>; attributes: Array<{ id: string; name: string; scaleName: string }> }) {
+export interface PanelSetup {
+  id: string;
+  title: string;
+  place: string | null;
+  startsAt: string | null;
+  method: PanelMethod;
+  variantIds: string[];
+  attributeIds: string[];
+  rankingAttributeId: string | null;
+  notice: string;
+}
+
+/** A datetime-local value in the browser's own time zone. */
+function localInput(iso: string | null): string | undefined {
+  if (!iso) return undefined;
+  const d = new Date(iso);
+  const pad = (n: number) => String(n).padStart(2, '0');
+  return `${d.getFullYear()}-${pad(d.getMonth() + 1)}-${pad(d.getDate())}T${pad(d.getHours())}:${pad(d.getMinutes())}`;
+}
+
+/** Sets up a tasting; with `editing`, changes the set-up of one that has not opened yet. */
+export function NewPanelForm({ trialId, variants, attributes, suggestedAttributeIds, editing }: {
+  trialId: string; variants: Array<{ id: string; label: string; description: string }>; attributes: Array<{ id: string; name: string; scaleName: string }>;
+  suggestedAttributeIds: string[]; editing?: PanelSetup;
+}) {
   const router = useRouter();
-  const [method, setMethod] = useState<PanelMethod>('rated');
-  const [chosen, setChosen] = useState<string[]>(variants.slice(0, 4).map((v) => v.id));
-  const [attrs, setAttrs] = useState<string[]>(attributes.map((a) => a.id));
+  const [method, setMethod] = useState<PanelMethod>(editing?.method ?? 'rated');
+  const [chosen, setChosen] = useState<string[]>(editing?.variantIds ?? variants.slice(0, 4).map((v) => v.id));
+  const [attrs, setAttrs] = useState<string[]>(editing ? editing.attributeIds : suggestedAttributeIds);
   const [fields, setFields] = useState<Record<string, string[]>>({});
   const [error, setError] = useState<string>();
   const [busy, setBusy] = useState(false);
@@ -29,8 +53,8 @@ export function NewPanelForm({ trialId, variants, attributes }: { trialId: strin
     setError(undefined);
     const startsAt = String(form.get('startsAt') ?? '');
     try {
-      const res = await apiFetch<{ sessionId: string }>(`/api/v1/trials/${trialId}/panels`, {
-        method: 'POST',
+      const res = await apiFetch<{ sessionId?: string }>(editing ? `/api/v1/panels/${editing.id}` : `/api/v1/trials/${trialId}/panels`, {
+        method: editing ? 'PATCH' : 'POST',
         body: JSON.stringify({
           title: form.get('title'),
           place: String(form.get('place') ?? '') || undefined,
@@ -42,10 +66,11 @@ export function NewPanelForm({ trialId, variants, attributes }: { trialId: strin
           notice: form.get('notice'),
         }),
       });
-      router.push(`/panels/${res.sessionId}`);
+      router.push(`/panels/${editing?.id ?? res.sessionId}`);
+      router.refresh();
     } catch (err) {
       if (err instanceof ApiClientError && err.fields) setFields(err.fields);
-      setError(err instanceof Error ? err.message : 'The tasting was not created.');
+      setError(err instanceof Error ? err.message : editing ? 'The changes were not saved.' : 'The tasting was not created.');
       setBusy(false);
     }
   }
@@ -53,10 +78,10 @@ export function NewPanelForm({ trialId, variants, attributes }: { trialId: strin
   return (
     <form onSubmit={submit} className="max-w-3xl space-y-5" noValidate>
       {error ? <Notice tone="danger">{error}</Notice> : null}
-      <Field label="Title tasters see" name="title" required errors={fields.title} hint="Never a variant or recipe name: tasters must not learn what they taste." placeholder="e.g. Thursday tasting" />
+      <Field label="Title tasters see" name="title" required defaultValue={editing?.title} errors={fields.title} hint="Never a variant or recipe name: tasters must not learn what they taste." placeholder="e.g. Thursday tasting" />
       <div className="grid gap-4 sm:grid-cols-2">
-        <Field label="Place" name="place" errors={fields.place} placeholder="e.g. Tasting room" />
-        <Field label="Date and time" name="startsAt" type="datetime-local" errors={fields.startsAt} />
+        <Field label="Place" name="place" defaultValue={editing?.place ?? undefined} errors={fields.place} placeholder="e.g. Tasting room" />
+        <Field label="Date and time" name="startsAt" type="datetime-local" defaultValue={localInput(editing?.startsAt ?? null)} errors={fields.startsAt} />
       </div>
       <fieldset>
         <legend className="text-sm font-medium text-rind-700">Method</legend>
@@ -83,6 +108,7 @@ export function NewPanelForm({ trialId, variants, attributes }: { trialId: strin
       {method === 'rated' ? (
         <fieldset>
           <legend className="text-sm font-medium text-rind-700">Attributes to rate</legend>
+          <p className="text-xs text-rind-500">Ticked: overall liking and fruit flavour, and what the trial’s factors change. Add others if the question needs them.</p>
           <div className="mt-2 grid gap-2 sm:grid-cols-2">
             {attributes.map((a) => (
               <label key={a.id} className="flex min-h-10 items-center gap-2 text-sm">
@@ -96,7 +122,7 @@ export function NewPanelForm({ trialId, variants, attributes }: { trialId: strin
       {method === 'ranking' ? (
         <label className="block text-sm">
           <span className="mb-1 block font-medium text-rind-700">Rank by</span>
-          <select name="rankingAttributeId" className={inputClass}>
+          <select name="rankingAttributeId" defaultValue={editing?.rankingAttributeId ?? ''} className={inputClass}>
             <option value="">Preference (which they like most)</option>
             {attributes.map((a) => <option key={a.id} value={a.id}>{a.name}</option>)}
           </select>
@@ -104,11 +130,11 @@ export function NewPanelForm({ trialId, variants, attributes }: { trialId: strin
       ) : null}
       <div>
         <label htmlFor="f-notice" className="mb-1 block text-sm font-medium text-rind-700">Allergen and consent notice</label>
-        <textarea id="f-notice" name="notice" rows={5} defaultValue={DEFAULT_NOTICE} className={inputClass} />
+        <textarea id="f-notice" name="notice" rows={5} defaultValue={editing?.notice ?? DEFAULT_NOTICE} className={inputClass} />
         <FieldErrorText id="notice-err" errors={fields.notice} />
         <p className="mt-1 text-xs text-rind-500">Tasters read and accept this before the first sample. Check it against what is really in the samples; local rules on allergen information govern.</p>
       </div>
-      <Button type="submit" disabled={busy}>{busy ? 'Creating…' : 'Create the tasting'}</Button>
+      <Button type="submit" disabled={busy}>{busy ? 'Saving…' : editing ? 'Save the changes' : 'Create the tasting'}</Button>
     </form>
   );
 }

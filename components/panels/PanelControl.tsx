@@ -10,6 +10,7 @@ import { ConfirmDialog } from '@/components/ui/ConfirmDialog';
 import { EmptyState } from '@/components/ui/Card';
 import { PANEL_METHOD_LABELS, PANEL_STATE_LABELS } from '@/lib/panels/vocabulary';
 import type { PanelSessionView } from '@/lib/panels/queries';
+import { DiscardPanelButton } from './DiscardPanelButton';
 
 const STATUS_LABEL = { joined: 'Joined', answering: 'Answering', submitted: 'Submitted', partial: 'Partial' } as const;
 
@@ -53,6 +54,8 @@ export function PanelControl({ initial, qrDataUrl, joinUrl, members, canRun }: {
         <span className="rounded-full bg-damson-100 px-3 py-1 text-sm font-semibold text-damson-800" data-testid="panel-state">{PANEL_STATE_LABELS[s.state]}</span>
         <span className="text-sm text-rind-600">{PANEL_METHOD_LABELS[s.method]} · {s.samples.length} samples{s.attributes.length ? ` · ${s.attributes.map((a) => a.name).join(', ')}` : ''}</span>
         {canRun && s.state === 'draft' ? <Button type="button" disabled={busy} onClick={() => call(`/api/v1/panels/${s.id}/open`)}>Open for tasters</Button> : null}
+        {canRun && s.state === 'draft' ? <Link href={`/panels/${s.id}/edit`} className={buttonClass('secondary')}>Change the set-up</Link> : null}
+        {canRun && s.state === 'draft' ? <DiscardPanelButton sessionId={s.id} trialId={s.trialId} /> : null}
         {canRun && s.state === 'open' ? <Button type="button" tone="danger" disabled={busy} onClick={() => setConfirmClose(true)}>Close the tasting</Button> : null}
         {canRun ? <Link href={`/panels/${s.id}/sheet`} className={buttonClass('ghost')}>Kitchen serving sheet</Link> : null}
         {s.seats.length ? <Link href={`/panels/${s.id}/results`} className={buttonClass('ghost')}>Results</Link> : null}

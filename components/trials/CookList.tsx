@@ -3,23 +3,68 @@ import { SET_TEST_METHOD_LABELS, SET_TEST_SCALE, SYNERESIS_LABELS } from '@/lib/
 import type { MeasurementView } from '@/lib/trials/schema';
 import { EmptyState } from '@/components/ui/Card';
 import { FLAG_CLASS, massText, numText, tempText } from './format';
-import { DeleteCookButton } from './DeleteCookButton';
+import { CookActions } from './CookActions';
+
+const dateText = (iso: string) => new Date(iso.length === 10 ? `${iso}T12:00:00Z` : iso).toLocaleDateString('en-GB', { dateStyle: 'medium' });
+
+const FIELD_LABELS: Record<string, string> = {
+  cookDate: 'cook date', batchSizeG: 'batch size', brixReading: 'refractometer', brixSampleTempC: 'sample temperature', ph: 'pH',
+  endPointTempC: 'end point', boilTimeMin: 'boil time', setTestScore: 'set test', setTestMethod: 'set test method', syneresis: 'syneresis',
+  colourNotes: 'colour', yieldJars: 'jars', yieldG: 'yield', notes: 'notes',
+};
+
+/** What a correction replaced, in words: "pH 3.40, yield 1.50 kg". */
+function beforeText(before: Partial<MeasurementView>, massUnits: UnitPreference, temperatureUnit: 'C' | 'F'): string {
+  return Object.entries(before).map(([key, v]) => {
+    const value = v == null || v === '' ? 'blank'
+      : key === 'batchSizeG' || key === 'yieldG' ? massText(v as number, massUnits)
+      : key === 'brixSampleTempC' || key === 'endPointTempC' ? tempText(v as number, temperatureUnit)
+      : key === 'setTestMethod' ? SET_TEST_METHOD_LABELS[v as keyof typeof SET_TEST_METHOD_LABELS]
+      : key === 'syneresis' ? SYNERESIS_LABELS[v as keyof typeof SYNERESIS_LABELS]
+      : key === 'cookDate' ? dateText(String(v))
+      : String(v);
+    return `${FIELD_LABELS[key] ?? key} ${value}`;
+  }).join(', ');
+}
+
+function CookHistory({ cook, massUnits, temperatureUnit }: { cook: MeasurementView; massUnits: UnitPreference; temperatureUnit: 'C' | 'F' }) {
+  const corrections = cook.changes.filter((c) => c.kind === 'corrected');
+  if (!corrections.length) return null;
+  return (
+    <details className="mt-3 text-sm">
+      <summary className="cursor-pointer text-rind-600">Corrected {corrections.length === 1 ? 'once' : `${corrections.length} times`}: see what changed</summary>
+      <ol className="mt-2 space-y-1 text-rind-700">
+        {corrections.map((c) => (
+          <li key={c.at}>{dateText(c.at)}, {c.byName}: “{c.reason}”. Before: {beforeText(c.before, massUnits, temperatureUnit)}.</li>
+        ))}
+      </ol>
+    </details>
+  );
+}
 
 const FLAG_WORD: Record<string, string> = { ok: 'within', watch: 'check', out: 'out of window', danger: 'SAFETY', unknown: '' };
 
 /** Each cook with its measurements beside the predictions for the batch actually cooked. */
-export function CookList({ trialId, cooks, massUnits, temperatureUnit, canEdit }: { trialId: string; cooks: MeasurementView[]; massUnits: UnitPreference; temperatureUnit: 'C' | 'F'; canEdit: boolean }) {
+export function CookList({ trialId, cooks, massUnits, temperatureUnit, canEdit, withdrawn = false }: {
+  trialId: string; cooks: MeasurementView[]; massUnits: UnitPreference; temperatureUnit: 'C' | 'F'; canEdit: boolean; withdrawn?: boolean;
+}) {
+  if (!cooks.length && withdrawn) return null;
   if (!cooks.length) return <EmptyState title="Not cooked yet">Record the cook below: what the refractometer read, the pH, the end point and the yield.</EmptyState>;
   const show = (unit: string, v: number | null) =>
     unit === 'g' ? massText(v, massUnits) : unit === '°C' ? tempText(v, temperatureUnit) : unit === 'pH' ? numText(v, 2) : unit === '°Brix' ? numText(v, 1) : numText(v, 0);
   return (
-    <ol className="space-y-4" data-testid="cook-list">
+    <ol className="space-y-4" data-testid={withdrawn ? 'withdrawn-cook-list' : 'cook-list'}>
       {cooks.map((m) => (
-        <li key={m.id} className="rounded-card bg-pith-50 p-4 ring-1 ring-pith-300">
+        <li key={m.id} className={`rounded-card p-4 ring-1 ring-pith-300 ${m.withdrawn ? 'bg-pith-100 text-rind-600' : 'bg-pith-50'}`}>
           <div className="flex flex-wrap items-baseline justify-between gap-2">
-            <p className="font-medium">Cook of {new Date(`${m.cookDate}T12:00:00Z`).toLocaleDateString('en-GB', { dateStyle: 'medium' })} <span className="text-sm font-normal text-rind-500">by {m.recordedByName}{m.batchSizeG ? ` · ${massText(m.batchSizeG, massUnits)} charge` : ''}</span></p>
-            {canEdit ? <DeleteCookButton trialId={trialId} measurementId={m.id} /> : null}
+            <p className="font-medium">Cook of {dateText(m.cookDate)} <span className="text-sm font-normal text-rind-500">by {m.recordedByName}{m.batchSizeG ? ` · ${massText(m.batchSizeG, massUnits)} charge` : ''}</span></p>
+            {canEdit && !m.withdrawn ? <CookActions trialId={trialId} cook={m} massUnits={massUnits} temperatureUnit={temperatureUnit} /> : null}
           </div>
+          {m.withdrawn ? (
+            <p className="mt-2 rounded-lg bg-pith-200 px-3 py-2 text-sm text-rind-800">
+              <strong>Withdrawn</strong> on {dateText(m.withdrawn.at)} by {m.withdrawn.byName}: “{m.withdrawn.reason}”. It counts in no comparison or promotion evidence.
+            </p>
+          ) : null}
           {m.comparison.rows.some((r) => r.flag === 'danger') ? (
             <div role="alert" className="mt-2 rounded-lg bg-ember-600 px-3 py-2 text-sm font-semibold text-white">
               {m.comparison.rows.find((r) => r.flag === 'danger')!.note}
@@ -49,6 +94,7 @@ export function CookList({ trialId, cooks, massUnits, temperatureUnit, canEdit }
           </dl>
           {m.colourNotes ? <p className="mt-2 text-sm"><span className="text-xs text-rind-500">Colour: </span>{m.colourNotes}</p> : null}
           {m.notes ? <p className="mt-1 text-sm text-rind-700">{m.notes}</p> : null}
+          <CookHistory cook={m} massUnits={massUnits} temperatureUnit={temperatureUnit} />
         </li>
       ))}
     </ol>

@@ -12,7 +12,7 @@ import { calcBatchSchema, createFormulaSchema, reviseFormulaSchema } from '@/lib
 import { FILE_MAX_BYTES, PHOTO_MAX_BYTES, THUMBNAIL_MAX_PX, UPLOAD_SUBJECTS } from '@/lib/uploads/schema';
 import { recommendationSchema } from '@/lib/results/schema';
 import { answerSchema, createAttributeSchema, createPanelSchema, inviteTastersSchema, joinSchema } from '@/lib/panels/schema';
-import { createTrialSchema, importMeasurementsSchema, manualVariantSchema, measurementSchema, planSchema, transitionSchema } from '@/lib/trials/schema';
+import { correctMeasurementSchema, createTrialSchema, importMeasurementsSchema, manualVariantSchema, measurementSchema, planSchema, transitionSchema, withdrawMeasurementSchema } from '@/lib/trials/schema';
 import { saveNotebookBodySchema } from '@/lib/notebook/schema';
 import { batchRecordSchema, decisionSchema, requestPromotionSchema, withdrawSchema } from '@/lib/production/schema';
 
@@ -76,7 +76,8 @@ export const API_OPERATIONS: ApiOperation[] = [
   { method: 'delete', path: '/api/v1/trials/{trialId}/variants/{variantId}', summary: 'Remove a variant (kept on record; the base stays)', tag: 'Trials', permission: 'trials.write' },
   { method: 'get', path: '/api/v1/trials/{trialId}/measurements', summary: 'Every cook, each beside its prediction', tag: 'Trials', permission: 'trials.read' },
   { method: 'post', path: '/api/v1/trials/{trialId}/measurements', summary: 'Record a cook of a variant (refractometer reading stored raw with its sample temperature)', tag: 'Trials', permission: 'trials.write', request: measurementSchema, okStatus: 201 },
-  { method: 'delete', path: '/api/v1/trials/{trialId}/measurements/{measurementId}', summary: 'Delete a cook record', tag: 'Trials', permission: 'trials.write' },
+  { method: 'patch', path: '/api/v1/trials/{trialId}/measurements/{measurementId}', summary: 'Correct a cook with a reason (fields sent replace the stored ones; the old values stay in its history); 409 once withdrawn', tag: 'Trials', permission: 'trials.write', request: correctMeasurementSchema },
+  { method: 'post', path: '/api/v1/trials/{trialId}/measurements/{measurementId}/withdraw', summary: 'Withdraw a cook with a reason: kept on record, left out of comparisons and promotion evidence', tag: 'Trials', permission: 'trials.write', request: withdrawMeasurementSchema },
   { method: 'post', path: '/api/v1/trials/{trialId}/measurements/import', summary: 'Import cooks from CSV text ({ "csv": "…" }); all-or-nothing, errors by row and column', tag: 'Trials', permission: 'trials.write', request: importMeasurementsSchema, okStatus: 201 },
   { method: 'get', path: '/api/v1/trials/{trialId}/export', summary: 'Variants and cooks as CSV, one row per cook', tag: 'Trials', permission: 'trials.read' },
   { method: 'get', path: '/api/v1/trials/{trialId}/uploads', summary: "A trial's photos and files, oldest first (query: variantId, measurementId)", tag: 'Uploads', permission: 'trials.read' },
@@ -89,6 +90,8 @@ export const API_OPERATIONS: ApiOperation[] = [
   { method: 'get', path: '/api/v1/trials/{trialId}/panels', summary: 'Tasting sessions of a trial', tag: 'Panels', permission: 'panels.read' },
   { method: 'post', path: '/api/v1/trials/{trialId}/panels', summary: 'Create a tasting session (draft): samples get three-digit codes, serving orders are balanced', tag: 'Panels', permission: 'panels.run', request: createPanelSchema, okStatus: 201 },
   { method: 'get', path: '/api/v1/panels/{sessionId}', summary: 'A session with live progress per seat (poll it)', tag: 'Panels', permission: 'panels.read' },
+  { method: 'patch', path: '/api/v1/panels/{sessionId}', summary: 'Replace the set-up of a tasting that is still being set up (codes are drawn afresh); 409 once it has opened', tag: 'Panels', permission: 'panels.run', request: createPanelSchema },
+  { method: 'delete', path: '/api/v1/panels/{sessionId}', summary: 'Discard a tasting that never opened; 409 once it has', tag: 'Panels', permission: 'panels.run' },
   { method: 'post', path: '/api/v1/panels/{sessionId}/open', summary: 'Open for answers; returns the join code', tag: 'Panels', permission: 'panels.run' },
   { method: 'post', path: '/api/v1/panels/{sessionId}/close', summary: 'Close and lock the answers', tag: 'Panels', permission: 'panels.run' },
   { method: 'post', path: '/api/v1/panels/{sessionId}/invitations', summary: 'Seat staff tasters and e-mail each their own link', tag: 'Panels', permission: 'panels.run', request: inviteTastersSchema, okStatus: 201 },

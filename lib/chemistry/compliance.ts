@@ -2,7 +2,7 @@ import { validateSettings } from './mass-balance';
 import { EU_2024_AMENDMENT_FROM, OUT_OF_SCOPE, RULES, rulesInForce } from './rule-sets';
 import type { ComplianceRule } from './rule-sets';
 import type { MassBalance } from './mass-balance';
-import type { EuFruitGroup, FormulaSettings } from './types';
+import { PRODUCT_CLASS_NAMES, type EuFruitGroup, type FormulaSettings } from './types';
 
 export type RuleStatus = 'pass' | 'fail' | 'not_applicable' | 'not_evaluable';
 export type OverallComplianceStatus = 'compliant' | 'non_compliant' | 'incomplete' | 'not_applicable';
@@ -107,7 +107,8 @@ function evaluateUsRatio(rule: ComplianceRule, batch: ComplianceBatchInput): Eva
   }
   const groups = new Set(fruitLines.map((l) => l.ingredient.usFruitGroup));
   const note = groups.size > 1
-    ? 'Group I and Group II fruits mixed: the required parts are weighted by fruit mass (memory: the mixed-group clause of 21 CFR 150.160(d)(1) was not read).'
+    // (memory) The mixed-group clause of 21 CFR 150.160(d)(1) was not read.
+    ? 'Group I and Group II fruits mixed: the required parts are weighted by fruit mass.'
     : undefined;
   return { actualValue, requiredValue: weighted, note };
 }
@@ -188,7 +189,7 @@ export function checkCompliance(batch: ComplianceBatchInput, settings: FormulaSe
         passed: null,
         status: 'not_applicable',
         source: rule.source,
-        note: `Applies to ${rule.productClasses.join(', ')}, not ${settings.productClass}.`,
+        note: `Applies to ${rule.productClasses.map((c) => PRODUCT_CLASS_NAMES[c]).join(', ')}, not to ${PRODUCT_CLASS_NAMES[settings.productClass]}.`,
       });
       continue;
     }

@@ -79,7 +79,7 @@ export const SUCROSE_BOILING_TABLE: readonly SucroseBoilingPoint[] = [
   { solidsPct: 0, boilingPointSeaLevelC: 100.0, source: 'pure water' },
   { solidsPct: 10, boilingPointSeaLevelC: 100.4, source: 'Browne (1912), tabulated in vk1od.net "Endpoint to boiling a sugar solution", Table 1' },
   { solidsPct: 20, boilingPointSeaLevelC: 100.6, source: 'Browne (1912), tabulated in vk1od.net "Endpoint to boiling a sugar solution", Table 1' },
-  { solidsPct: 30, boilingPointSeaLevelC: 101.0, source: 'Browne (1912) spline; the 30 % row was not read, the 32 % row is +1.1 °C (memory)' },
+  { solidsPct: 30, boilingPointSeaLevelC: 101.0, source: 'Browne (1912), interpolated between neighbouring rows' }, // (memory) the 30 % row was not read; the 32 % row is +1.1 °C
   { solidsPct: 40, boilingPointSeaLevelC: 101.5, source: 'Browne (1912), tabulated in vk1od.net "Endpoint to boiling a sugar solution", Table 1' },
   { solidsPct: 50, boilingPointSeaLevelC: 102.0, source: 'Browne (1912), tabulated in vk1od.net "Endpoint to boiling a sugar solution", Table 1' },
   { solidsPct: 60, boilingPointSeaLevelC: 103.0, source: 'Lowe, Experimental Cookery' },

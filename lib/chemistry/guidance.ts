@@ -27,8 +27,22 @@ export const LOW_ACID_AW_LIMIT = 0.85;
 export const HM_OPTIMUM = { phMin: 2.8, phMax: 3.3, solidsMinPct: 65, solidsMaxPct: 69 } as const;
 /** Below this the product cannot rely on sugar alone to keep (EU and Codex 60 % floor). */
 export const REDUCED_SUGAR_BELOW_PCT = 60;
+/** Hot-fill guidance: fill at 85 °C or above. Common practice, no published source (memory). */
+export const HOT_FILL_MIN_C = 85;
+/** How a caution that rests on a rule of thumb names its source on screen. */
+export const TRADE_PRACTICE_SOURCE = 'Usual trade practice';
+
+/** How a product that sugar does not preserve is kept safe, as the developer states it. */
+export const PRESERVATION_METHODS = ['heat_processed', 'preservative', 'chilled'] as const;
+export type PreservationMethod = (typeof PRESERVATION_METHODS)[number];
+export const PRESERVATION_LABELS: Record<PreservationMethod, string> = {
+  heat_processed: 'A validated heat process in sealed jars',
+  preservative: 'A permitted preservative',
+  chilled: 'Kept chilled from filling to eating',
+};
 
 export interface GuidanceInput {
+  /** `settings.preservation` is how a reduced-sugar product is kept, when the developer has said. */
   massBalance: Pick<MassBalance, 'lines' | 'targetSolidsPct' | 'waterToEvaporateG' | 'pectinRatedSugarCapacityG' | 'solubleSolidsInG'>;
   settings: FormulaSettings;
   /** Estimated water activity of the finished batch, if known. */
@@ -75,7 +89,8 @@ export function buildGuidance(input: GuidanceInput): Caution[] {
       severity: 'info',
       title: 'Outside the usual HM optimum',
       message: `A set is most reliable at pH ${HM_OPTIMUM.phMin}–${HM_OPTIMUM.phMax} with ${HM_OPTIMUM.solidsMinPct}–${HM_OPTIMUM.solidsMaxPct} % final sugar.`,
-      source: 'Common practice, no published source',
+      // Common practice, no published source.
+      source: TRADE_PRACTICE_SOURCE,
     });
   }
   if (lmPectin && !hasCalcium) {
@@ -96,33 +111,49 @@ export function buildGuidance(input: GuidanceInput): Caution[] {
       source: 'McGee, On Food and Cooking (2004): HM pectin gels at pH 2.8–3.5',
     });
   }
-  if (ph !== undefined && ph > ACID_FOOD_MAX_PH) {
+  // Graded by what is known: DANGER only where a limit is crossed; an unknown pH is asked for, not alarmed on.
+  if (ph === undefined) {
+    cautions.push({
+      code: 'PH_NOT_GIVEN',
+      severity: 'info',
+      title: 'Give a planned pH',
+      message: safety(`Whether this product keeps depends on its acidity: at pH ${ACID_FOOD_MAX_PH} or below it is an acid food${input.aw !== undefined && input.aw > LOW_ACID_AW_LIMIT ? ` (its estimated water activity, ${input.aw.toFixed(3)}, is above ${LOW_ACID_AW_LIMIT}, so sugar alone does not keep it)` : ''}. Enter the planned pH to see the safety notes that apply, and measure it on every cook.`),
+      source: '21 CFR 114.3 (acid foods: equilibrium pH 4.6 or below)',
+    });
+  } else if (ph > ACID_FOOD_MAX_PH) {
     cautions.push({
       code: 'PH_ABOVE_4_6',
       severity: 'danger',
       title: 'pH above 4.6: not an acid food',
-      message: safety(`${phLabel} pH ${ph.toFixed(2)} is above 4.6. A food above pH 4.6 is treated as low-acid (where aw is above 0.85) and can support Clostridium botulinum; it needs acidification to pH 4.6 or below or a validated low-acid process.`),
+      message: safety(`${phLabel} pH ${ph.toFixed(2)} is above 4.6. A food above pH 4.6 is treated as low-acid (where aw is above 0.85${input.aw !== undefined ? `; the estimate here is ${input.aw.toFixed(3)}` : ''}) and can support Clostridium botulinum; it needs acidification to pH 4.6 or below or a validated low-acid process.`),
       source: '21 CFR 114.3 (acid foods: equilibrium pH 4.6 or below)',
     });
-  }
-  if (input.aw !== undefined && input.aw > LOW_ACID_AW_LIMIT) {
-    const lowAcidToo = ph !== undefined && ph > ACID_FOOD_MAX_PH;
+  } else if (input.aw !== undefined && input.aw > LOW_ACID_AW_LIMIT) {
     cautions.push({
-      code: 'AW_ABOVE_0_85',
-      severity: lowAcidToo || ph === undefined ? 'danger' : 'warning',
-      title: 'Water activity above 0.85',
-      message: safety(`Estimated aw ${input.aw.toFixed(3)} is above 0.85, so sugar alone does not make the product shelf-stable: safety rests on acidity (pH 4.6 or below), heat processing and sealing. Yeasts grow down to about aw 0.88 and most moulds to 0.80, so an opened jar spoils. The value is a model estimate, not a measurement.`),
-      source: '21 CFR 114.3 (low-acid foods: pH > 4.6 and aw > 0.85); Beuchat (1981) growth limits',
+      code: 'ACID_PRESERVED',
+      severity: 'info',
+      title: 'Kept by its acidity, not by sugar alone',
+      message: safety(`Estimated water activity ${input.aw.toFixed(3)} is above 0.85, so sugar alone does not make the product keep; at ${phLabel.toLowerCase()} pH ${ph.toFixed(2)} (4.6 or below) it is an acid food, kept safe by that acidity together with hot filling and sealing. Check the pH of every batch. Yeasts grow down to about aw 0.88 and most moulds to 0.80, so an opened jar spoils: keep it cool. The water activity is a model estimate, not a measurement.`),
+      source: '21 CFR 114.3 (acid foods: pH 4.6 or below; low-acid foods: pH above 4.6 and aw above 0.85); Beuchat (1981) growth limits',
     });
   }
   if (settings.productClass === 'reduced_sugar_spread' || solids < REDUCED_SUGAR_BELOW_PCT) {
-    cautions.push({
-      code: 'REDUCED_SUGAR',
-      severity: 'danger',
-      title: 'Reduced sugar: needs preservation and refrigeration after opening',
-      message: safety(`At ${solids.toFixed(1)} % solids sugar does not preserve the product. It needs a validated heat process in sealed jars (or an approved preservative) and must be kept refrigerated after opening.`),
-      source: 'Council Directive 2001/113/EC, Annex I and CXS 296-2009 (60 % soluble solids floor); Beuchat (1981) growth limits',
-    });
+    const stated = settings.preservation;
+    cautions.push(stated
+      ? {
+          code: 'REDUCED_SUGAR',
+          severity: 'warning',
+          title: 'Reduced sugar: refrigerate after opening',
+          message: safety(`At ${solids.toFixed(1)} % solids sugar does not preserve the product. Stated preservation: ${PRESERVATION_LABELS[stated].toLowerCase()}. It still needs a "keep refrigerated after opening" label and a shorter shelf life.`),
+          source: 'Council Directive 2001/113/EC, Annex I and CXS 296-2009 (60 % soluble solids floor); Beuchat (1981) growth limits',
+        }
+      : {
+          code: 'REDUCED_SUGAR',
+          severity: 'danger',
+          title: 'Reduced sugar with no preservation stated',
+          message: safety(`At ${solids.toFixed(1)} % solids sugar does not preserve the product, and no other preservation is stated. It needs a validated heat process in sealed jars (or a permitted preservative, or the chill chain) and must be kept refrigerated after opening. State the preservation in the formula settings.`),
+          source: 'Council Directive 2001/113/EC, Annex I and CXS 296-2009 (60 % soluble solids floor); Beuchat (1981) growth limits',
+        });
   }
   if (massBalance.waterToEvaporateG < 0) {
     cautions.push({
@@ -146,8 +177,9 @@ export function buildGuidance(input: GuidanceInput): Caution[] {
     code: 'HOT_FILL',
     severity: 'info',
     title: 'Hot filling',
-    message: safety('Hot-filling into clean, hot jars and sealing at once does not by itself sterilise the product or the headspace; keep the filling temperature high, use sound closures and, for home canning, a tested boiling-water process.'),
-    source: 'Common practice, no published source',
+    message: safety(`Fill at ${HOT_FILL_MIN_C} °C or above into clean, hot jars and seal at once. Hot filling does not by itself sterilise the product or the headspace: use sound closures and, for home canning, a tested boiling-water process.`),
+    // Common practice, no published source.
+    source: TRADE_PRACTICE_SOURCE,
   });
   return cautions;
 }

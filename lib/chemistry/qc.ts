@@ -6,7 +6,9 @@
  */
 import { correctBrixTo20C } from './refractometer';
 import { rulesInForce } from './rule-sets';
-import { ACID_FOOD_MAX_PH, HM_OPTIMUM, REDUCED_SUGAR_BELOW_PCT, SAFETY_GOVERNANCE_SENTENCE, type Caution } from './guidance';
+import { ACID_FOOD_MAX_PH, HM_OPTIMUM, HOT_FILL_MIN_C, PRESERVATION_LABELS, REDUCED_SUGAR_BELOW_PCT, SAFETY_GOVERNANCE_SENTENCE, TRADE_PRACTICE_SOURCE, type Caution, type PreservationMethod } from './guidance';
+
+export { HOT_FILL_MIN_C };
 import type { BatchComputation } from './batch';
 
 export interface QcSpec {
@@ -26,8 +28,6 @@ export interface QcSpec {
   storageNotes: string;
 }
 
-/** Hot-fill guidance: fill at 85 °C or above. Common practice, no published source (memory). */
-export const HOT_FILL_MIN_C = 85;
 /** Default half-width of the solids window around the target. Common practice, no published source. */
 export const SOLIDS_WINDOW_HALF_WIDTH = 1;
 /** Default half-width of the pH window around the planned pH. Common practice, no published source. */
@@ -133,7 +133,7 @@ export function qcSpecProblems(spec: QcSpec): Array<{ field: keyof QcSpec; messa
 }
 
 /** Cautions a specification carries onto the batch sheet. */
-export function qcSpecCautions(spec: QcSpec, productClass: string): Caution[] {
+export function qcSpecCautions(spec: QcSpec, productClass: string, preservation?: PreservationMethod): Caution[] {
   const cautions: Caution[] = [];
   cautions.push({
     code: 'SPEC_PH_LIMIT',
@@ -145,18 +145,19 @@ export function qcSpecCautions(spec: QcSpec, productClass: string): Caution[] {
   if (spec.minFillTempC < HOT_FILL_MIN_C) {
     cautions.push({
       code: 'SPEC_FILL_BELOW_HOT_FILL',
-      severity: 'warning',
-      title: 'Fill temperature below the hot-fill guidance',
-      message: `The minimum fill of ${spec.minFillTempC} °C is below the usual ${HOT_FILL_MIN_C} °C. A cooler fill does not pasteurise the jar and headspace; it needs a validated post-fill heat process. ${SAFETY_GOVERNANCE_SENTENCE}`,
-      source: 'Common practice, no published source',
+      severity: 'danger',
+      title: 'Fill temperature below the hot-fill minimum',
+      message: `The minimum fill of ${spec.minFillTempC} °C is below the ${HOT_FILL_MIN_C} °C hot-fill minimum. A cooler fill does not pasteurise the jar and headspace; it needs a validated post-fill heat process. ${SAFETY_GOVERNANCE_SENTENCE}`,
+      // Common practice, no published source.
+      source: TRADE_PRACTICE_SOURCE,
     });
   }
   if (isReducedSugar(productClass, spec.solidsMinBrix)) {
     cautions.push({
       code: 'SPEC_REDUCED_SUGAR_STORAGE',
-      severity: 'danger',
-      title: 'Reduced sugar: storage and process matter',
-      message: `Below ${REDUCED_SUGAR_BELOW_PCT} % solids sugar does not preserve the product: it needs a validated heat process in sealed jars (or an approved preservative), a refrigerated-after-opening label and a shorter shelf life. ${SAFETY_GOVERNANCE_SENTENCE}`,
+      severity: preservation ? 'warning' : 'danger',
+      title: preservation ? 'Reduced sugar: storage and process matter' : 'Reduced sugar with no preservation stated',
+      message: `Below ${REDUCED_SUGAR_BELOW_PCT} % solids sugar does not preserve the product: ${preservation ? `the formula states ${PRESERVATION_LABELS[preservation].toLowerCase()}; it still needs` : 'it needs a validated heat process in sealed jars (or a permitted preservative), and'} a refrigerated-after-opening label and a shorter shelf life. ${SAFETY_GOVERNANCE_SENTENCE}`,
       source: 'Council Directive 2001/113/EC, Annex I and CXS 296-2009 (60 % soluble solids floor)',
     });
   }
@@ -265,6 +266,7 @@ export function checkBatchAgainstSpec(spec: QcSpec, r: BatchReadings): BatchChec
     outcome: checks.some((c) => c.status === 'fail') ? 'fail' : 'pass',
     checks,
     correctedBrix20C: brix,
-    brixCorrectionNote: correction.usedRecalledValues ? 'The 20 °C correction used a table row recalled from memory, not read from the OIV table.' : null,
+    // The correction table rows at these temperatures were recalled, not read (lib/chemistry/refractometer.ts).
+    brixCorrectionNote: correction.usedRecalledValues ? 'The correction to 20 °C at this sample temperature is approximate: near a limit, cool the sample to 20 °C and read again.' : null,
   };
 }

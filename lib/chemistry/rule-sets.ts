@@ -1,7 +1,8 @@
 /**
  * Market composition rules, as data. Each rule names the legal text it comes from. Dates are ISO;
- * `validFrom` is inclusive and `validUntil` exclusive. Where a value was not checked against the
- * legal text it says "(memory)" in `note`.
+ * `validFrom` is inclusive and `validUntil` exclusive. `note` is shown on screen beside the result;
+ * where the values were read and whether they were checked against the legal text ("(memory)")
+ * stays in `provenance`, which is never shown.
  */
 import type { EuFruitGroup, MarketRuleSetId, ProductClass, UsFruitGroup } from './types';
 
@@ -29,6 +30,8 @@ export interface ComplianceRule {
   source: string;
   quote: string;
   note?: string;
+  /** For developers and tests only: where the values were read, and "(memory)" where not checked. */
+  provenance?: string;
 }
 
 /** Date from which the Directive (EU) 2024/1438 minimums apply. */
@@ -39,7 +42,9 @@ const EU_2024 = 'Council Directive 2001/113/EC, Annex I, as amended by Directive
 /** Where the 2024 general minimums were read: the amending text itself was not reachable. */
 const EU_2024_SUMMARIES = 'General minimums per the Food Safety Authority of Ireland summary of Directive (EU) 2024/1438 (jam 350 → 450 g; extra jam and extra jelly 450 → 500 g) and the Eurofins summary of the same amendment.';
 /** The exception minimums after 2024 are carried over from 2001 without having been read in the amending text. */
-const EU_2024_EXCEPTIONS_NOTE = '(memory) Exception-fruit minimums kept as in 2001/113/EC: the FSAI and Eurofins summaries name only the general minimums, and a Polish press summary of the national transposition says the lower thresholds for currants, sea buckthorn, quince and the other exception fruits are kept; not checked against the amending text.';
+const EU_2024_EXCEPTIONS_PROVENANCE = '(memory) Exception-fruit minimums kept as in 2001/113/EC: the FSAI and Eurofins summaries name only the general minimums, and a Polish press summary of the national transposition says the lower thresholds for currants, sea buckthorn, quince and the other exception fruits are kept; not checked against the amending text.';
+/** What a reader of the result needs to know about the exception fruits after 2024. */
+const EU_2024_EXCEPTIONS_NOTE = 'The lower minimums for currants, sea buckthorn, quince and the other exception fruits are carried over from the 2001 rules; check them against the amending directive before relying on them.';
 const TRANSITION_NOTE = 'Products made and labelled under these rules before 14 June 2026 may be sold until stocks run out (Directive (EU) 2024/1438).';
 
 export const RULES: readonly ComplianceRule[] = [
@@ -95,7 +100,8 @@ export const RULES: readonly ComplianceRule[] = [
     validFrom: EU_2024_AMENDMENT_FROM,
     source: `${EU_2024}, Part I ('Jam')`,
     quote: 'The general minimum for jam rises from 350 g to 450 g of fruit per 1000 g of finished product.',
-    note: `${EU_2024_SUMMARIES} ${EU_2024_EXCEPTIONS_NOTE}`,
+    note: EU_2024_EXCEPTIONS_NOTE,
+    provenance: `${EU_2024_SUMMARIES} ${EU_2024_EXCEPTIONS_PROVENANCE}`,
   },
   {
     id: 'eu.2024.extra_jam.fruit',
@@ -108,7 +114,8 @@ export const RULES: readonly ComplianceRule[] = [
     validFrom: EU_2024_AMENDMENT_FROM,
     source: `${EU_2024}, Part I ('Extra jam')`,
     quote: 'The general minimum for extra jam rises from 450 g to 500 g of fruit per 1000 g of finished product.',
-    note: `${EU_2024_SUMMARIES} ${EU_2024_EXCEPTIONS_NOTE}`,
+    note: EU_2024_EXCEPTIONS_NOTE,
+    provenance: `${EU_2024_SUMMARIES} ${EU_2024_EXCEPTIONS_PROVENANCE}`,
   },
   {
     id: 'eu.2024.jelly.fruit',
@@ -121,7 +128,8 @@ export const RULES: readonly ComplianceRule[] = [
     validFrom: EU_2024_AMENDMENT_FROM,
     source: `${EU_2024}, Part I ('Jelly')`,
     quote: 'Juice and/or aqueous extracts per 1000 g of finished product not less than that laid down for the manufacture of jam, so the general minimum rises with jam to 450 g.',
-    note: `Jelly refers to the jam minimums in Annex I, Part I ('Jelly'); the FSAI summary lists no separate change for jelly. ${EU_2024_EXCEPTIONS_NOTE}`,
+    note: `Jelly uses the jam minimums. ${EU_2024_EXCEPTIONS_NOTE}`,
+    provenance: `Jelly refers to the jam minimums in Annex I, Part I ('Jelly'); the FSAI summary lists no separate change for jelly. ${EU_2024_EXCEPTIONS_PROVENANCE}`,
   },
   {
     id: 'eu.marmalade.citrus',
@@ -133,7 +141,8 @@ export const RULES: readonly ComplianceRule[] = [
     unit: 'g citrus per 1000 g',
     source: `${EU_2001}, Part I ('Marmalade')`,
     quote: 'The quantity of citrus fruit used in the manufacture of 1 000 g of finished product must not be less than 200 g of which at least 75 g must be obtained from the endocarp.',
-    note: 'Text as reproduced in the EFSA FoodEx2 description of "Marmalade" (term A01NJ) and in the Jam and Similar Products (England) Regulations 2003. Directive (EU) 2024/1438 renames the product "citrus marmalade"; the FSAI and Eurofins summaries list no change to this minimum. The 75 g endocarp share is not computed.',
+    note: 'Directive (EU) 2024/1438 renames the product "citrus marmalade" without changing this minimum. The 75 g endocarp share is not computed.',
+    provenance: 'Text as reproduced in the EFSA FoodEx2 description of "Marmalade" (term A01NJ) and in the Jam and Similar Products (England) Regulations 2003; the FSAI and Eurofins summaries of Directive (EU) 2024/1438 list no change to this minimum.',
   },
   {
     id: 'eu.soluble_dry_matter',
@@ -170,7 +179,8 @@ export const RULES: readonly ComplianceRule[] = [
     unit: 'parts fruit per 55 parts sweetener',
     source: '21 CFR 150.160 (Fruit preserves and jams), paragraphs (b)(1) and (d)(1)',
     quote: 'In the case of a fruit ingredient consisting of a Group I fruit or a permitted combination exclusively of Group I fruits, 47 parts by weight of the fruit ingredient to each 55 parts by weight of the saccharine ingredient; Group II fruits, 45 parts.',
-    note: 'Group I at 47 parts: the text of 150.160(d)(1)(i) as quoted in an IFSQN forum thread (Feb 2025). Group II at 45 parts: Colorado State University, Colorado Farm to Market, "Jams and Jellies" (berry group 47:55, pome group 45:55). (memory) A mix of Group I and Group II fruits is weighted by fruit mass; the regulation clause for mixed groups was not read.',
+    note: 'Group I fruits need 47 parts, Group II fruits 45 parts per 55 parts of sweetener; a mix of both is weighted by fruit mass.',
+    provenance: 'Group I at 47 parts: the text of 150.160(d)(1)(i) as quoted in an IFSQN forum thread (Feb 2025). Group II at 45 parts: Colorado State University, Colorado Farm to Market, "Jams and Jellies" (berry group 47:55, pome group 45:55). (memory) A mix of Group I and Group II fruits is weighted by fruit mass; the regulation clause for mixed groups was not read.',
   },
   {
     id: 'us.150_140.soluble_solids',
@@ -193,7 +203,8 @@ export const RULES: readonly ComplianceRule[] = [
     unit: 'parts juice per 55 parts sweetener',
     source: '21 CFR 150.140 (Fruit jelly), paragraph (d)',
     quote: 'The fruit juice is not less than 45 parts by weight and the saccharine ingredients no more than 55 parts by weight.',
-    note: 'One 45-part ratio for every juice, with no fruit groups: FDA Compliance Policy Guide Sec. 550.475 (Jellies, Nonstandardized), Finding 1 of the 1940 jelly standard; Colorado State University, Colorado Farm to Market, "Jams and Jellies" (jellies 45:55). The juice is counted as single strength.',
+    note: 'One 45-part ratio for every juice, with no fruit groups. The juice is counted as single strength.',
+    provenance: 'FDA Compliance Policy Guide Sec. 550.475 (Jellies, Nonstandardized), Finding 1 of the 1940 jelly standard; Colorado State University, Colorado Farm to Market, "Jams and Jellies" (jellies 45:55).',
   },
   // --- Codex ---
   {
@@ -206,7 +217,8 @@ export const RULES: readonly ComplianceRule[] = [
     unit: '% soluble solids',
     source: 'Codex Standard for Jams, Jellies and Marmalades (CXS 296-2009), section 3 (composition)',
     quote: 'Soluble solids content of the finished product between 60 and 65 % or greater.',
-    note: '(memory) Lower bound of 60 % recalled; the composition clause of CXS 296-2009 was not read (its scope clause 1.1 was).',
+    note: 'Check this minimum against the composition section of the standard before relying on it.',
+    provenance: '(memory) Lower bound of 60 % recalled; the composition clause of CXS 296-2009 was not read (its scope clause 1.1 was).',
   },
 ];
 

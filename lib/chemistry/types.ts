@@ -15,6 +15,10 @@ export type PectinType = 'hm_rapid_set' | 'hm_slow_set' | 'lm_conventional' | 'l
 export type PectinLevel = 'high' | 'medium' | 'low';
 export type AcidType = 'citric' | 'malic' | 'tartaric' | 'lemon_juice' | 'other';
 export type ProductClass = 'jam' | 'extra_jam' | 'jelly' | 'marmalade' | 'reduced_sugar_spread';
+/** Product classes as they read inside a sentence (never the enum key on a screen). */
+export const PRODUCT_CLASS_NAMES: Record<ProductClass, string> = {
+  jam: 'jam', extra_jam: 'extra jam', jelly: 'jelly', marmalade: 'marmalade', reduced_sugar_spread: 'reduced-sugar spread',
+};
 
 /**
  * Market rule set. The EU set is dated: before 14 June 2026 the Directive 2001/113/EC Annex I
@@ -76,4 +80,6 @@ export interface FormulaSettings {
   altitudeM?: number;
   measuredWaterBoilingC?: number;
   plannedPh?: number;
+  /** How a reduced-sugar product is kept (guidance.ts PRESERVATION_METHODS); unset when not stated. */
+  preservation?: 'heat_processed' | 'preservative' | 'chilled';
 }

@@ -22,6 +22,7 @@ export function toChemistrySettings(s: FormulaSettingsInput): FormulaSettings {
     ...(s.altitudeM != null ? { altitudeM: s.altitudeM } : {}),
     ...(s.measuredWaterBoilingC != null ? { measuredWaterBoilingC: s.measuredWaterBoilingC } : {}),
     ...(s.plannedPh != null ? { plannedPh: s.plannedPh } : {}),
+    ...(s.preservation != null ? { preservation: s.preservation } : {}),
   };
 }
 

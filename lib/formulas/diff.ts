@@ -66,6 +66,7 @@ export const SETTINGS_FIELD_LABELS: Record<SettingsField, string> = {
   altitudeM: 'Altitude (m)',
   measuredWaterBoilingC: 'Measured water boiling point (°C)',
   plannedPh: 'Planned pH',
+  preservation: 'Preservation (reduced sugar)',
 };
 
 export const COMPOSITION_FIELD_LABELS: Record<CompositionField, string> = {

@@ -1,6 +1,7 @@
 /** Formulas and their revisions: zod schemas shared by the editor, the server actions and the API. */
 import { z } from 'zod';
 import type { BatchComputation, IngredientComposition } from '@/lib/chemistry';
+import { PRESERVATION_METHODS } from '@/lib/chemistry/guidance';
 import { ingredientInputSchema } from '@/lib/ingredients/schema';
 import { isoDate, longText, name, searchText, versionNumber } from '@/lib/input';
 
@@ -35,6 +36,7 @@ export const formulaSettingsSchema = z
     altitudeM: z.number({ error: 'Altitude must be a number.' }).min(-500, 'Altitude must be at least −500 m.').max(5000, 'Altitude must be at most 5000 m.').nullable().optional(),
     measuredWaterBoilingC: z.number({ error: 'Boiling point must be a number.' }).min(60, 'A water boiling point below 60 °C is not plausible.').max(105, 'A water boiling point above 105 °C is not plausible.').nullable().optional(),
     plannedPh: z.number({ error: 'pH must be a number.' }).min(1, 'pH must be at least 1.').max(8, 'pH must be at most 8.').nullable().optional(),
+    preservation: z.enum(PRESERVATION_METHODS, { error: 'Choose how the product is preserved.' }).nullable().optional(),
   })
   .strict();
 

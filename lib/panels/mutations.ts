@@ -27,10 +27,8 @@ export async function addDefaultAttributes(em: EntityManager, workspaceId: strin
   await em.flush();
 }
 
-export async function createPanelSession(actor: Actor, trialId: string, input: CreatePanelInput): Promise<{ sessionId: string }> {
-  const em = await getEm();
-  const trial = await em.findOne(Trial, { ...inWorkspace(actor), id: trialId });
-  if (!trial) throw notFound('trial');
+/** Checks a tasting's variants and attributes against the trial and the workspace library. */
+async function checkPanelInput(em: EntityManager, actor: Actor, trialId: string, input: CreatePanelInput): Promise<void> {
   const variants = await em.find(Variant, { ...inWorkspace(actor), trial: trialId, id: { $in: input.variantIds }, removedAt: null });
   if (variants.length !== input.variantIds.length) throw new ValidationFailed('Choose variants of this trial.', { variantIds: ['Choose variants of this trial.'] });
   const attributeIds = [...input.attributeIds, ...(input.rankingAttributeId ? [input.rankingAttributeId] : [])];
@@ -38,27 +36,97 @@ export async function createPanelSession(actor: Actor, trialId: string, input: C
     const found = await em.count(SensoryAttributeDef, { ...inWorkspace(actor), id: { $in: attributeIds } });
     if (found !== new Set(attributeIds).size) throw new ValidationFailed('Choose attributes from this workspace’s library.', { attributeIds: ['Choose attributes from this workspace’s library.'] });
   }
+}
+
+/** The set-up fields of a tasting, as stored. */
+function setupColumns(input: CreatePanelInput) {
+  return {
+    title: input.title, place: input.place ?? null, startsAt: input.startsAt ? new Date(input.startsAt) : null,
+    method: input.method, notice: input.notice, attributeIds: input.method === 'rated' ? input.attributeIds : [],
+    rankingAttributeId: input.method === 'ranking' ? input.rankingAttributeId ?? null : null,
+  };
+}
+
+/** Draws the sample codes and the serving design for a tasting's variants. */
+async function drawSamples(tx: EntityManager, actor: Actor, session: { id: string; design: Record<string, unknown> }, input: CreatePanelInput): Promise<void> {
+  // Rated and ranking samples carry one code each; triangle cups are coded per seat.
+  const codes = input.method === 'triangle' ? [] : drawBlindingCodes(input.variantIds.length);
+  const samples = input.variantIds.map((variantId, i) =>
+    tx.create(PanelSample, { workspace: actor.workspaceId, session, variant: variantId, code: codes[i] ?? null, position: i } as never) as unknown as { id: string },
+  );
+  await tx.flush();
+  // Letters are assigned at random, so no variant is always served first in the design.
+  const order = shuffled(samples.map((s) => s.id));
+  session.design =
+    input.method === 'triangle'
+      ? { treatments: [{ letter: 'A', sampleId: order[0] }, { letter: 'B', sampleId: order[1] }], triangleCycle: shuffled([...TRIANGLE_ORDERS]) }
+      : { treatments: order.map((sampleId, i) => ({ letter: treatmentLetter(i), sampleId })) };
+  await tx.flush();
+}
+
+export async function createPanelSession(actor: Actor, trialId: string, input: CreatePanelInput): Promise<{ sessionId: string }> {
+  const em = await getEm();
+  const trial = await em.findOne(Trial, { ...inWorkspace(actor), id: trialId });
+  if (!trial) throw notFound('trial');
+  await checkPanelInput(em, actor, trialId, input);
   return em.transactional(async (tx) => {
-    const session = tx.create(PanelSession, {
-      workspace: actor.workspaceId, trial, title: input.title, place: input.place ?? null, startsAt: input.startsAt ? new Date(input.startsAt) : null,
-      method: input.method, notice: input.notice, attributeIds: input.method === 'rated' ? input.attributeIds : [],
-      rankingAttributeId: input.method === 'ranking' ? input.rankingAttributeId ?? null : null, design: {}, createdBy: actor.userId,
-    } as never) as unknown as { id: string; design: Record<string, unknown> };
-    // Rated and ranking samples carry one code each; triangle cups are coded per seat.
-    const codes = input.method === 'triangle' ? [] : drawBlindingCodes(input.variantIds.length);
-    const samples = input.variantIds.map((variantId, i) =>
-      tx.create(PanelSample, { workspace: actor.workspaceId, session, variant: variantId, code: codes[i] ?? null, position: i } as never) as unknown as { id: string },
-    );
+    const session = tx.create(PanelSession, { workspace: actor.workspaceId, trial, ...setupColumns(input), design: {}, createdBy: actor.userId } as never) as unknown as { id: string; design: Record<string, unknown> };
     await tx.flush();
-    // Letters are assigned at random, so no variant is always served first in the design.
-    const order = shuffled(samples.map((s) => s.id));
-    session.design =
-      input.method === 'triangle'
-        ? { treatments: [{ letter: 'A', sampleId: order[0] }, { letter: 'B', sampleId: order[1] }], triangleCycle: shuffled([...TRIANGLE_ORDERS]) }
-        : { treatments: order.map((sampleId, i) => ({ letter: treatmentLetter(i), sampleId })) };
-    await tx.flush();
+    await drawSamples(tx, actor, session, input);
     return { sessionId: session.id };
   });
+}
+
+/** Locks a tasting that is still being set up; one that has opened keeps its set-up (409). */
+async function loadDraftForUpdate(tx: EntityManager, actor: Actor, sessionId: string) {
+  const s = await tx.findOne(PanelSession, { ...inWorkspace(actor), id: sessionId }, { lockMode: LockMode.PESSIMISTIC_WRITE });
+  if (!s) throw notFound('tasting');
+  if (s.state !== 'draft') throw new Conflict('Only a tasting that is still being set up can be changed or discarded: this one has opened, and its codes and answers stay as they are.');
+  return s;
+}
+
+/** Replaces a draft tasting's set-up; samples and codes are drawn afresh (nobody has seen them yet). */
+export async function updatePanelSession(actor: Actor, sessionId: string, input: CreatePanelInput): Promise<void> {
+  const em = await getEm();
+  const current = await em.findOne(PanelSession, { ...inWorkspace(actor), id: sessionId });
+  if (!current) throw notFound('tasting');
+  const trialId = (current.trial as unknown as { id: string }).id;
+  await checkPanelInput(em, actor, trialId, input);
+  await em.transactional(async (tx) => {
+    const s = await loadDraftForUpdate(tx, actor, sessionId);
+    await tx.nativeDelete(PanelSample, { session: s.id });
+    tx.assign(s, { ...setupColumns(input), design: {} } as never);
+    await tx.flush();
+    await drawSamples(tx, actor, s as unknown as { id: string; design: Record<string, unknown> }, input);
+  });
+}
+
+/** Discards a tasting that never opened: it has no seats and no answers, so nothing is lost but the set-up. */
+export async function discardPanelSession(actor: Actor, sessionId: string): Promise<{ trialId: string }> {
+  const em = await getEm();
+  return em.transactional(async (tx) => {
+    const s = await loadDraftForUpdate(tx, actor, sessionId);
+    const trialId = (s.trial as unknown as { id: string }).id;
+    await tx.nativeDelete(PanelSample, { session: s.id });
+    await tx.nativeDelete(PanelSession, { id: s.id });
+    return { trialId };
+  });
+}
+
+/**
+ * A staff taster back to their own seat (the e-mailed link is lost): a fresh seat link, and the old
+ * one stops working. Only the seat holder, only while the tasting takes answers.
+ */
+export async function renewMySeatLink(actor: Actor, sessionId: string): Promise<{ path: string }> {
+  const em = await getEm();
+  const seat = await em.findOne(PanelSeat, { ...inWorkspace(actor), session: sessionId, user: actor.userId }, { populate: ['session'] });
+  if (!seat) throw notFound('seat');
+  if ((seat.session as unknown as { state: string }).state !== 'open') throw new Conflict('This tasting is not taking answers.');
+  if (seat.submittedAt) throw new Conflict('You have already sent your answers for this tasting.');
+  const token = newSecret(SEAT_TOKEN_PREFIX);
+  seat.tokenHash = hashSecret(token);
+  await em.flush();
+  return { path: `/t/${token}` };
 }
 
 async function loadSession(em: EntityManager, actor: Actor, sessionId: string) {

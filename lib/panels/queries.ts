@@ -2,6 +2,7 @@
 import { getEm } from '@/lib/db';
 import { PanelAnswer, PanelSample, PanelSeat, PanelSession, SensoryAttributeDef, Variant } from '@/entities';
 import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
+import { trialCode } from '@/lib/trials/access';
 import type { PanelMethod, PanelState } from './vocabulary';
 
 export interface SeatProgress {
@@ -27,6 +28,9 @@ export interface PanelSessionView {
   joinCode: string | null;
   samples: Array<{ sampleId: string; variantId: string; variantLabel: string; variantDescription: string; code: string | null }>;
   attributes: Array<{ id: string; name: string }>;
+  /** The set-up as chosen: the rated attributes and, for a ranking, the attribute ranked by. */
+  ratedAttributeIds: string[];
+  rankingAttributeId: string | null;
   seats: SeatProgress[];
   createdAt: string;
   openedAt: string | null;
@@ -86,6 +90,8 @@ export async function getPanelSession(actor: Actor, sessionId: string): Promise<
       return { sampleId: x.id, variantId: v.id, variantLabel: v.label, variantDescription: v.description, code: x.code ?? null };
     }),
     attributes: attrIds.map((id) => attrs.find((a) => a.id === id)).filter((a): a is NonNullable<typeof a> => !!a).map((a) => ({ id: a.id, name: a.name })),
+    ratedAttributeIds: s.attributeIds,
+    rankingAttributeId: s.rankingAttributeId ?? null,
     seats: seats.map((seat) => {
       const answered = countBySeat.get(seat.id) ?? 0;
       const expected = expectedFor(seat.servingOrder.length);
@@ -117,4 +123,60 @@ export async function getServingSheet(actor: Actor, sessionId: string) {
       cups: seat.servingOrder.map((c, i) => ({ position: i + 1, code: c.code, variantLabel: bySample.get(c.sampleId)?.variantLabel ?? '?' })),
     })),
   };
+}
+
+export interface TastingSummary {
+  id: string;
+  title: string;
+  method: PanelMethod;
+  state: PanelState;
+  trial: { id: string; code: string; title: string };
+  place: string | null;
+  startsAt: string | null;
+  seats: number;
+  submitted: number;
+  createdAt: string;
+}
+
+/** The workspace's tastings, newest first; filters come from the URL (state, trial). */
+export async function listTastings(actor: Actor, filter: { state?: PanelState; trialId?: string } = {}): Promise<TastingSummary[]> {
+  const em = await getEm();
+  const rows = (await em.find(
+    PanelSession,
+    { ...inWorkspace(actor), ...(filter.state ? { state: filter.state } : {}), ...(filter.trialId ? { trial: filter.trialId } : {}) },
+    { populate: ['trial'], orderBy: { createdAt: 'desc' }, limit: 500 },
+  )) as unknown as Array<SessionRow & { trial: { id: string; number: number; title: string } }>;
+  const seats = rows.length ? await em.find(PanelSeat, { ...inWorkspace(actor), session: { $in: rows.map((r) => r.id) } }, { fields: ['session', 'submittedAt'] }) : [];
+  return rows.map((r) => {
+    const mine = seats.filter((s) => (s.session as unknown as { id: string }).id === r.id);
+    return {
+      id: r.id, title: r.title, method: r.method, state: r.state, place: r.place ?? null, startsAt: r.startsAt ? r.startsAt.toISOString() : null,
+      trial: { id: r.trial.id, code: trialCode(r.trial.number), title: r.trial.title },
+      seats: mine.length, submitted: mine.filter((s) => s.submittedAt).length, createdAt: r.createdAt.toISOString(),
+    };
+  });
+}
+
+export interface MySeat {
+  sessionId: string;
+  title: string;
+  place: string | null;
+  startsAt: string | null;
+  state: PanelState;
+  submitted: boolean;
+  /** Open and not yet submitted: the taster still has answers to give. */
+  waiting: boolean;
+}
+
+/** The signed-in person's seats in this workspace: the ones still to answer first, then by date. Only what a taster may see. */
+export async function listMySeats(actor: Actor): Promise<MySeat[]> {
+  const em = await getEm();
+  const seats = (await em.find(PanelSeat, { ...inWorkspace(actor), user: actor.userId }, { populate: ['session'], orderBy: { createdAt: 'desc' }, limit: 200 })) as unknown as Array<{
+    submittedAt?: Date | null; createdAt: Date; session: { id: string; title: string; place?: string | null; startsAt?: Date | null; state: PanelState };
+  }>;
+  const view = seats.map((s) => ({
+    sessionId: s.session.id, title: s.session.title, place: s.session.place ?? null, startsAt: s.session.startsAt ? s.session.startsAt.toISOString() : null,
+    state: s.session.state, submitted: !!s.submittedAt, waiting: s.session.state === 'open' && !s.submittedAt,
+  }));
+  return [...view.filter((s) => s.waiting), ...view.filter((s) => !s.waiting)];
 }

@@ -1,6 +1,6 @@
 /** Panel sessions and taster answers: zod schemas shared by the API, actions and the phone flow. */
 import { z } from 'zod';
-import { PANEL_METHODS } from './vocabulary';
+import { PANEL_METHODS, PANEL_STATES } from './vocabulary';
 import { isoDateTime, longText, name, text } from '@/lib/input';
 
 const code = z.string().regex(/^\d{3}$/, 'A sample code has three digits.');
@@ -54,6 +54,9 @@ export const createAttributeSchema = z
       ctx.addIssue({ code: 'custom', path: [!v.lowAnchor ? 'lowAnchor' : 'highAnchor'], message: 'An intensity line needs words for both ends.' });
     }
   });
+
+/** The tastings list's filters, from the URL; anything else is ignored. */
+export const tastingListQuerySchema = z.object({ state: z.enum(PANEL_STATES).optional(), trial: z.uuid().optional() });
 
 export type CreateAttributeInput = z.infer<typeof createAttributeSchema>;
 export type CreatePanelInput = z.infer<typeof createPanelSchema>;

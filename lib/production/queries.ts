@@ -418,7 +418,7 @@ export async function getPromotionDraft(actor: Actor, trialId: string): Promise<
       defaults: {
         spec,
         process: { endPointSeaLevelC: Math.round(estimateEndPoint({ targetSolidsPct: c.settings.targetSolidsPct }).endPointC * 10) / 10, fillTempC: DEFAULT_FILL_TEMP_C, cookNotes: '' },
-        cautions: qcSpecCautions(spec, c.settings.productClass),
+        cautions: qcSpecCautions(spec, c.settings.productClass, c.settings.preservation),
       },
     };
   });
@@ -431,4 +431,26 @@ export async function getPromotionDraft(actor: Actor, trialId: string): Promise<
     products: await listPromotableProducts(actor),
     pending,
   };
+}
+
+export interface BatchWorkItem {
+  id: string;
+  lotCode: string;
+  batchDate: string;
+  productId: string;
+  productName: string;
+  outcome: BatchView['outcome'];
+  disposition: BatchView['disposition'];
+}
+
+/** The kitchen's worklist: batches on hold, and the batches recorded today. */
+export async function batchWorklist(actor: Actor, today: string): Promise<{ held: BatchWorkItem[]; today: BatchWorkItem[] }> {
+  const em = await getEm();
+  const rows = (await em.find(
+    BatchRecord,
+    { ...inWorkspace(actor), $or: [{ disposition: 'hold' }, { batchDate: today }] },
+    { populate: ['product'], orderBy: { batchDate: 'desc', createdAt: 'desc' }, limit: 200 },
+  )) as unknown as Array<{ id: string; lotCode: string; batchDate: string; outcome: BatchView['outcome']; disposition?: BatchView['disposition'] | null; product: { id: string; name: string } }>;
+  const items = rows.map((b) => ({ id: b.id, lotCode: b.lotCode, batchDate: b.batchDate, productId: b.product.id, productName: b.product.name, outcome: b.outcome, disposition: b.disposition ?? null }));
+  return { held: items.filter((b) => b.disposition === 'hold'), today: items.filter((b) => b.batchDate === today) };
 }

@@ -68,7 +68,7 @@ export function buildBatchSheet(source: SheetSource, query: BatchSheetQuery): Ba
     fillTempC: source.process.fillTempC,
     cookNotes: source.process.cookNotes,
     spec: source.spec,
-    cautions: qcSpecCautions(source.spec, source.settings.productClass),
+    cautions: qcSpecCautions(source.spec, source.settings.productClass, source.settings.preservation ?? undefined),
     steps,
   };
 }

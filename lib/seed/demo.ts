@@ -4,7 +4,8 @@
  * Every person here is made up. Later features extend this file with their own demo data.
  */
 import type { EntityManager } from '@mikro-orm/postgresql';
-import { Membership, User, Workspace } from '@/entities';
+import { Invitation, Membership, User, Workspace } from '@/entities';
+import { hashSecret, newSecret } from '@/lib/secrets';
 import { hashPassword } from '@/lib/passwords';
 import type { Actor, Role } from '@/lib/permissions';
 import { addStarterLibrary } from '@/lib/ingredients/mutations';
@@ -58,6 +59,10 @@ export async function seedDemo(em: EntityManager): Promise<SeedReport> {
     await addStarterLibrary(tx, brackenfold.id);
     await addDefaultAttributes(tx, demo.id);
     await addDefaultAttributes(tx, brackenfold.id);
+    // One invitation not yet accepted, so the administrator's worklist has something in it. Its link was never sent.
+    const admin = await tx.findOneOrFail(User, { email: DEMO_USERS[0].email });
+    tx.create(Invitation, { workspace: demo, email: 'pip.taster@hollowmere.example', role: 'taster', tokenHash: hashSecret(newSecret()), invitedBy: admin, expiresAt: new Date(Date.now() + 14 * 86_400_000) } as never);
+    await tx.flush();
     return { created: true, workspaceId: demo.id, otherWorkspaceId: brackenfold.id };
   });
   const developer = await em.fork().findOneOrFail(User, { email: DEMO_USERS[1].email });

@@ -4,7 +4,9 @@
  * phone. Answers are made up around per-variant tendencies with tasters' own scatter.
  */
 import { randomUUID } from 'node:crypto';
-import { createPanelSession, openPanelSession, closePanelSession, joinAsGuest } from '@/lib/panels/mutations';
+import { addSeat, createPanelSession, openPanelSession, closePanelSession, joinAsGuest } from '@/lib/panels/mutations';
+import { getEm } from '@/lib/db';
+import { User } from '@/entities';
 import { listAttributes, getServingSheet } from '@/lib/panels/queries';
 import { recordAnswer, recordConsent, submitSeat, tasterView } from '@/lib/panels/taster';
 import type { Actor } from '@/lib/permissions';
@@ -89,4 +91,13 @@ export async function seedDemoPanels(developer: Actor, trials: SeededTrial[]): P
     variantIds: [apricot.variantIds.A, apricot.variantIds.E], attributeIds: [liking, firmness], notice,
   });
   await openPanelSession(developer, open.sessionId);
+  // Two staff tasters are seated at it, so their home pages and My tastings have a seat waiting.
+  const em = await getEm();
+  for (const email of SEATED_STAFF) {
+    const user = await em.fork().findOneOrFail(User, { email });
+    await em.fork().transactional((tx) => addSeat(tx, open.sessionId, { kind: 'staff', userId: user.id, displayName: user.name }));
+  }
 }
+
+/** The demo taster and the developer who also tastes (see DEMO_USERS in demo.ts). */
+const SEATED_STAFF = ['sol.taster@hollowmere.example', 'tomas.dev@hollowmere.example'];

@@ -42,6 +42,9 @@ export async function seedDemoProduction(people: { developer: Actor; head: Actor
     { date: '2026-11-30', brix: midBrix, temp: 20, ph: s.phMax + 0.14, fill: 88.1, mean: s.netFillG + 1.8, min: s.netFillG - 2.5, jars: 117, rejected: 2, notes: 'Citric acid solution ran out half-way through dosing.',
       disposition: 'rework' as const, dispositionComment: 'Held, re-acidified and re-boiled on 1 December; re-test within spec, released under a new lot.' },
     { date: '2026-12-01', brix: midBrix + 0.6, temp: 18.5, ph: midPh - 0.08, fill: 89.2, mean: s.netFillG + 2.6, min: s.netFillG - 2, jars: 119, rejected: 1, notes: 'Reworked lot from 30 November blended in.' },
+    // Filled too cool after a burner fault: on hold until someone decides (the kitchen's worklist shows it).
+    { date: '2026-12-02', brix: midBrix + 0.2, temp: 20, ph: midPh, fill: 82.5, mean: s.netFillG + 1.9, min: s.netFillG - 3, jars: 116, rejected: 0, notes: 'Burner tripped during filling; the last third went in cool.',
+      disposition: 'hold' as const, dispositionComment: 'Held: jars filled below the hot-fill minimum. Decide whether to re-process or discard.' },
   ];
   for (const b of batches) {
     await recordBatch(production, version.id, {

@@ -79,6 +79,16 @@ export async function seedDemoTrials(em: EntityManager, developer: Actor): Promi
   await transitionTrial(developer, blackcurrant.trialId, 'cooking');
   await cookAll(developer, blackcurrant.trialId, ['A', 'B', 'C'], '2026-11-26', { A: 4, B: 3, C: 4 }, { A: 3.0, B: 3.05, C: 2.95 });
 
+  // At the stove: the base is cooked, the two variants are not yet (the developer's worklist shows them).
+  const strawberry = await createTrial(developer, {
+    title: 'Strawberry jam: less acid, same set?',
+    question: 'Does cutting the citric acid to 3 g per kg of fruit keep a clean set and a brighter fruit flavour?',
+    formulaId: byName('Hedgerow strawberry jam'),
+  });
+  await planVariants(developer, strawberry.trialId, { kind: 'one_factor_at_a_time', factors: [{ factor: 'acid_dose', low: 3, high: 5 }], centrePoint: false });
+  await transitionTrial(developer, strawberry.trialId, 'cooking');
+  await cookAll(developer, strawberry.trialId, ['A'], '2026-12-02', { A: 4 }, { A: 3.2 });
+
   for (const t of [apricot, blackcurrant]) {
     const variants = await listVariants(developer, t.trialId);
     out.push({ trialId: t.trialId, variantIds: Object.fromEntries(variants.map((v) => [v.label, v.id])) });

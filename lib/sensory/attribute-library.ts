@@ -124,3 +124,21 @@ export const DEFAULT_ATTRIBUTE_LIBRARY: readonly SensoryAttribute[] = Object.fre
 export function defaultAttributeById(attributeId: string): SensoryAttribute | undefined {
   return DEFAULT_ATTRIBUTE_LIBRARY.find((attribute) => attribute.id === attributeId);
 }
+
+/**
+ * Which library attributes a trial's factors call for: a sugar change is judged on sweetness, an
+ * acid change on tartness, a pectin change on the set and the spread. Common practice, no published source.
+ */
+export const ATTRIBUTES_FOR_FACTOR: Readonly<Record<string, readonly string[]>> = {
+  sugar_ratio: ['sweetness'],
+  acid_dose: ['tartness'],
+  pectin_dose: ['set-firmness', 'spreadability'],
+};
+/** Asked at every rated tasting: the workspace defaults. */
+export const DEFAULT_TASTING_ATTRIBUTES: readonly string[] = ['overall-liking', 'fruit-flavour'];
+
+/** The attributes to tick first for a trial's tasting: the defaults plus those its factors call for, never the whole library. */
+export function suggestAttributes<T extends { id: string; libraryKey: string | null }>(attributes: readonly T[], factors: readonly string[]): string[] {
+  const wanted = new Set([...DEFAULT_TASTING_ATTRIBUTES, ...factors.flatMap((f) => ATTRIBUTES_FOR_FACTOR[f] ?? [])]);
+  return attributes.filter((a) => a.libraryKey !== null && wanted.has(a.libraryKey)).map((a) => a.id);
+}

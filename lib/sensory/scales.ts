@@ -84,7 +84,8 @@ export function makeJustAboutRightScale(id: string, name: string): CategoryScale
       { value: 1, label: 'Much too little' },
     ],
     justRightValue: 3,
-    source: 'ASTM MNL 63, Just-About-Right (JAR) Scales (2009); wording from memory',
+    // (memory) The point wording was recalled, not copied from the manual.
+    source: 'ASTM MNL 63, Just-About-Right (JAR) Scales (2009)',
   });
 }
 

@@ -3,8 +3,8 @@
 import { revalidatePath } from 'next/cache';
 import { z } from 'zod';
 import { runAction } from '@/lib/actions';
-import { createTrialSchema, manualVariantSchema, measurementSchema, planSchema, transitionSchema } from './schema';
-import { addVariant, createTrial, deleteMeasurement, planVariants, recordMeasurement, removeVariant, transitionTrial } from './mutations';
+import { correctMeasurementSchema, createTrialSchema, manualVariantSchema, measurementSchema, planSchema, transitionSchema, withdrawMeasurementSchema } from './schema';
+import { addVariant, correctMeasurement, createTrial, planVariants, recordMeasurement, removeVariant, transitionTrial, withdrawMeasurement } from './mutations';
 import { importMeasurementsCsv } from './csv';
 
 const trialId = z.uuid('Unknown trial.');
@@ -48,10 +48,16 @@ export async function recordMeasurementAction(id: unknown, input: unknown) {
   return result;
 }
 
-export async function deleteMeasurementAction(id: unknown, measurementId: unknown) {
-  const result = await runAction('trials.write', z.object({ id: trialId, measurementId: z.uuid('Unknown cook.') }), { id, measurementId }, (actor, d) =>
-    deleteMeasurement(actor, d.id, d.measurementId),
-  );
+export async function correctMeasurementAction(id: unknown, measurementId: unknown, input: unknown) {
+  const schema = z.object({ id: trialId, measurementId: z.uuid('Unknown cook.'), change: correctMeasurementSchema });
+  const result = await runAction('trials.write', schema, { id, measurementId, change: input }, (actor, d) => correctMeasurement(actor, d.id, d.measurementId, d.change));
+  if (result.ok) refresh(id);
+  return result;
+}
+
+export async function withdrawMeasurementAction(id: unknown, measurementId: unknown, input: unknown) {
+  const schema = z.object({ id: trialId, measurementId: z.uuid('Unknown cook.'), change: withdrawMeasurementSchema });
+  const result = await runAction('trials.write', schema, { id, measurementId, change: input }, (actor, d) => withdrawMeasurement(actor, d.id, d.measurementId, d.change.reason));
   if (result.ok) refresh(id);
   return result;
 }

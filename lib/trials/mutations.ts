@@ -2,7 +2,7 @@
 import type { EntityManager } from '@mikro-orm/postgresql';
 import { LockMode } from '@mikro-orm/core';
 import { getEm, lockForTransaction } from '@/lib/db';
-import { Formula, FormulaRevision, Measurement, Trial, TrialStatusChange, Variant } from '@/entities';
+import { Formula, FormulaRevision, Measurement, MeasurementChange, Trial, TrialStatusChange, Variant } from '@/entities';
 import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
 import { Conflict, ValidationFailed } from '@/lib/api/errors';
 import { resolveLines } from '@/lib/chemistry';
@@ -11,7 +11,7 @@ import type { RevisionLine, RevisionSummary, FormulaSettingsInput } from '@/lib/
 import { computeFormula } from '@/lib/formulas/compute';
 import { applyFactorLevels, measureFactor, planRuns, PlanError, type FactorLevel, type MassLine } from './plan';
 import { TRIAL_STATUS_LABELS, TRIAL_TRANSITIONS, type TrialStatus } from './vocabulary';
-import type { CreateTrialInput, ManualVariantInput, MeasurementInput, PlanInput } from './schema';
+import { cookReadingProblems, type CookReadings, type CorrectMeasurementInput, type CreateTrialInput, type ManualVariantInput, type MeasurementInput, type PlanInput } from './schema';
 
 /** A, B, … Z, AA, AB, … in creation order; A is always the base. */
 export function variantLabel(index: number): string {
@@ -223,9 +223,56 @@ export async function recordMeasurement(actor: Actor, trialId: string, input: Me
   return { measurementId: m.id };
 }
 
-export async function deleteMeasurement(actor: Actor, trialId: string, measurementId: string): Promise<void> {
+type CookColumns = ReturnType<typeof measurementColumns>;
+
+async function loadCookForChange(tx: EntityManager, actor: Actor, trialId: string, measurementId: string) {
+  const m = await tx.findOne(Measurement, { ...inWorkspace(actor), id: measurementId, variant: { trial: trialId } }, { lockMode: LockMode.PESSIMISTIC_WRITE });
+  if (!m) throw notFound('cook');
+  if (m.withdrawnAt) throw new Conflict('This cook was withdrawn; it stays on record as it was. Record a new cook instead.');
+  return m;
+}
+
+/**
+ * Corrects a cook: the fields sent replace the stored ones, the result must still be a cook, and the
+ * values replaced are kept in a measurement_changes row with the reason. A change that changes
+ * nothing is refused, so the history never fills with empty corrections.
+ */
+export async function correctMeasurement(actor: Actor, trialId: string, measurementId: string, input: CorrectMeasurementInput): Promise<void> {
   const em = await getEm();
-  const m = await em.findOne(Measurement, { ...inWorkspace(actor), id: measurementId, variant: { trial: trialId } });
-  if (!m) throw notFound('measurement');
-  await em.remove(m).flush();
+  await em.transactional(async (tx) => {
+    const m = await loadCookForChange(tx, actor, trialId, measurementId);
+    const { reason, ...sent } = input;
+    const stored = measurementColumns(m as unknown as CookReadings);
+    const next = measurementColumns({ ...stored, ...sent } as CookReadings);
+    const problems = cookReadingProblems(next);
+    if (problems.length) {
+      throw new ValidationFailed(problems[0].message, Object.fromEntries(problems.map((p) => [p.path, [p.message]])));
+    }
+    const before: Partial<CookColumns> = {};
+    for (const key of Object.keys(next) as Array<keyof CookColumns>) {
+      if (next[key] !== stored[key]) (before as Record<string, unknown>)[key] = stored[key];
+    }
+    if (!Object.keys(before).length) throw new ValidationFailed('Nothing changed: the cook already reads like that.', { readings: ['Change at least one value.'] });
+    tx.create(MeasurementChange, { workspace: actor.workspaceId, measurement: m, kind: 'corrected', before, reason, changedBy: actor.userId } as never);
+    tx.assign(m, next);
+    await touchTrial(tx, actor, trialId);
+    await tx.flush();
+  });
+}
+
+/** Withdraws a cook: it stays on record, marked, and leaves every comparison and the promotion evidence. */
+export async function withdrawMeasurement(actor: Actor, trialId: string, measurementId: string, reason: string): Promise<void> {
+  const em = await getEm();
+  await em.transactional(async (tx) => {
+    const m = await loadCookForChange(tx, actor, trialId, measurementId);
+    tx.create(MeasurementChange, { workspace: actor.workspaceId, measurement: m, kind: 'withdrawn', before: {}, reason, changedBy: actor.userId } as never);
+    m.withdrawnAt = new Date();
+    await touchTrial(tx, actor, trialId);
+    await tx.flush();
+  });
+}
+
+async function touchTrial(tx: EntityManager, actor: Actor, trialId: string) {
+  const trial = await tx.findOne(Trial, { ...inWorkspace(actor), id: trialId });
+  if (trial) trial.updatedAt = new Date();
 }

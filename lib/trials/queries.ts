@@ -1,10 +1,10 @@
 import { getEm } from '@/lib/db';
-import { Formula, FormulaRevision, Measurement, Trial, TrialStatusChange, Variant } from '@/entities';
+import { Formula, FormulaRevision, Measurement, MeasurementChange, Trial, TrialStatusChange, Variant } from '@/entities';
 import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
 import { computeFormula } from '@/lib/formulas/compute';
 import { compareCook } from './compare';
 import { trialCode } from './access';
-import type { MeasurementView, StatusChangeView, TrialListQuery, TrialOverview, TrialSummary, VariantView } from './schema';
+import type { CookChangeView, MeasurementView, StatusChangeView, TrialListQuery, TrialOverview, TrialSummary, VariantView } from './schema';
 
 type TrialRow = {
   id: string; number: number; title: string; question: string; status: TrialOverview['status'];
@@ -52,9 +52,12 @@ export async function listTrials(actor: Actor, query: TrialListQuery = {}): Prom
 }
 
 type VariantRow = Omit<VariantView, 'computation' | 'computationError' | 'measurements'> & { trial: { id: string } };
-type MeasurementRow = MeasurementView & { variant: { id: string }; recordedBy: { name: string }; createdAt: Date; cookDate: string };
+type MeasurementRow = Omit<MeasurementView, 'withdrawn' | 'changes'> & { variant: { id: string }; recordedBy: { name: string }; createdAt: Date; cookDate: string; withdrawnAt?: Date | null };
+type ChangeRow = { measurement: { id: string }; kind: CookChangeView['kind']; before: CookChangeView['before']; reason: string; changedBy: { name: string }; changedAt: Date };
 
-function toMeasurementView(m: MeasurementRow, v: VariantView): MeasurementView {
+function toMeasurementView(m: MeasurementRow, v: VariantView, changeRows: ChangeRow[]): MeasurementView {
+  const changes: CookChangeView[] = changeRows.map((c) => ({ kind: c.kind, reason: c.reason, byName: c.changedBy.name, at: c.changedAt.toISOString(), before: c.before }));
+  const withdrawal = changes.find((c) => c.kind === 'withdrawn');
   const readings = {
     batchSizeG: m.batchSizeG ?? null, brixReading: m.brixReading ?? null, brixSampleTempC: m.brixSampleTempC ?? null, ph: m.ph ?? null,
     endPointTempC: m.endPointTempC ?? null, boilTimeMin: m.boilTimeMin ?? null, setTestScore: m.setTestScore ?? null,
@@ -69,6 +72,8 @@ function toMeasurementView(m: MeasurementRow, v: VariantView): MeasurementView {
     recordedByName: m.recordedBy.name,
     createdAt: m.createdAt.toISOString(),
     comparison: compareCook(v.computation, readings, v.settings.plannedPh),
+    withdrawn: m.withdrawnAt ? { reason: withdrawal?.reason ?? '', byName: withdrawal?.byName ?? '', at: withdrawal?.at ?? m.withdrawnAt.toISOString() } : null,
+    changes,
   };
 }
 
@@ -81,6 +86,9 @@ export async function listVariants(actor: Actor, trialId: string): Promise<Varia
     { ...inWorkspace(actor), variant: { $in: rows.map((r) => r.id) } },
     { populate: ['recordedBy'], orderBy: { cookDate: 'asc', createdAt: 'asc' } },
   )) as unknown as MeasurementRow[];
+  const changeRows = measurements.length
+    ? ((await em.find(MeasurementChange, { ...inWorkspace(actor), measurement: { $in: measurements.map((m) => m.id) } }, { populate: ['changedBy'], orderBy: { changedAt: 'asc' } })) as unknown as ChangeRow[])
+    : [];
   return rows.map((r) => {
     const outcome = computeFormula(r.settings, r.lines);
     const view: VariantView = {
@@ -95,8 +103,11 @@ export async function listVariants(actor: Actor, trialId: string): Promise<Varia
       computation: outcome.ok ? outcome.computation : null,
       computationError: outcome.ok ? null : outcome.message,
       measurements: [],
+      withdrawnMeasurements: [],
     };
-    view.measurements = measurements.filter((m) => m.variant.id === r.id).map((m) => toMeasurementView(m, view));
+    const cooks = measurements.filter((m) => m.variant.id === r.id).map((m) => toMeasurementView(m, view, changeRows.filter((c) => c.measurement.id === m.id)));
+    view.measurements = cooks.filter((m) => !m.withdrawn);
+    view.withdrawnMeasurements = cooks.filter((m) => m.withdrawn);
     return view;
   });
 }
@@ -132,4 +143,27 @@ export async function listTrialBases(actor: Actor): Promise<Array<{ formulaId: s
 export async function revisionExists(actor: Actor, formulaId: string, number: number): Promise<boolean> {
   const em = await getEm();
   return (await em.count(FormulaRevision, { ...inWorkspace(actor), formula: formulaId, number })) > 0;
+}
+
+export interface StoveItem {
+  id: string;
+  code: string;
+  title: string;
+  /** Variants still in the trial with no cook that counts (withdrawn cooks do not). */
+  uncooked: string[];
+}
+
+/** The developer's trials at the stove (status cooking) and which of their variants are not cooked yet. */
+export async function trialsAtTheStove(actor: Actor): Promise<StoveItem[]> {
+  const em = await getEm();
+  const trials = await em.find(Trial, { ...inWorkspace(actor), owner: actor.userId, status: 'cooking' }, { orderBy: { updatedAt: 'desc' }, limit: 50 });
+  if (!trials.length) return [];
+  const variants = (await em.find(Variant, { ...inWorkspace(actor), trial: { $in: trials.map((t) => t.id) }, removedAt: null }, { orderBy: { position: 'asc' }, fields: ['trial', 'label'] })) as unknown as Array<{ id: string; label: string; trial: { id: string } }>;
+  const cooked = variants.length
+    ? new Set(((await em.find(Measurement, { ...inWorkspace(actor), variant: { $in: variants.map((v) => v.id) }, withdrawnAt: null }, { fields: ['variant'] })) as unknown as Array<{ variant: { id: string } }>).map((m) => m.variant.id))
+    : new Set<string>();
+  return trials.map((t) => ({
+    id: t.id, code: trialCode(t.number), title: t.title,
+    uncooked: variants.filter((v) => v.trial.id === t.id && !cooked.has(v.id)).map((v) => v.label),
+  }));
 }

@@ -47,29 +47,63 @@ export const manualVariantSchema = z
   })
   .strict();
 
+/** The readings of a cook, as one shape for recording and correcting. */
+const cookReadings = {
+  cookDate: isoDate,
+  batchSizeG: opt(num('Batch size').positive('Batch size must be more than 0.').max(5_000_000)),
+  brixReading: opt(num('The refractometer reading').min(0, 'A Brix reading cannot be negative.').max(95, 'A Brix reading above 95 is not plausible.')),
+  brixSampleTempC: opt(num('The sample temperature').min(0, 'Sample temperature must be at least 0 °C.').max(60, 'Sample temperature must be at most 60 °C.')),
+  ph: opt(num('pH').min(0, 'pH runs from 0 to 14.').max(14, 'pH runs from 0 to 14.')),
+  endPointTempC: opt(num('The end-point temperature').min(60, 'An end point below 60 °C is not plausible.').max(130, 'An end point above 130 °C is not plausible.')),
+  boilTimeMin: opt(num('Boil time').min(0, 'Boil time cannot be negative.').max(600, 'Boil time must be at most 600 minutes.')),
+  setTestScore: wholeNumber('The set-test score', 1, 5).nullable().optional(),
+  setTestMethod: z.enum(SET_TEST_METHODS, { error: 'Use cold_plate, spoon or flake.' }).nullable().optional(),
+  syneresis: z.enum(SYNERESIS_LEVELS, { error: 'Use none, slight or marked.' }).nullable().optional(),
+  colourNotes: longText(500).nullable().optional(),
+  yieldJars: wholeNumber('Jars', 0, 100_000).nullable().optional(),
+  yieldG: opt(num('Yield').min(0, 'Yield cannot be negative.').max(5_000_000)),
+  notes: longText(2000).nullable().optional(),
+};
+
+/** What was measured or observed at the stove. A batch size, a date or a note alone is not a cook. */
+export const COOK_READING_FIELDS = ['brixReading', 'ph', 'endPointTempC', 'boilTimeMin', 'setTestScore', 'syneresis', 'yieldJars', 'yieldG', 'colourNotes'] as const;
+export const NO_READING_MESSAGE = 'Record at least one reading: refractometer, pH, end point, boil time, set test, syneresis, yield or colour.';
+
+type ReadingsLike = { [K in (typeof COOK_READING_FIELDS)[number]]?: unknown } & { brixReading?: number | null; brixSampleTempC?: number | null };
+
+/** The cross-field rules of a cook, for a new one and for the result of a correction alike. */
+export function cookReadingProblems(m: ReadingsLike): Array<{ path: string; message: string }> {
+  const problems: Array<{ path: string; message: string }> = [];
+  if (!COOK_READING_FIELDS.some((f) => m[f] != null && m[f] !== '')) problems.push({ path: 'readings', message: NO_READING_MESSAGE });
+  if ((m.brixReading == null) !== (m.brixSampleTempC == null)) {
+    problems.push({ path: 'brixSampleTempC', message: 'Give the sample temperature with the refractometer reading (it is corrected to 20 °C).' });
+  }
+  return problems;
+}
+
+const checkCook = (m: ReadingsLike, ctx: z.RefinementCtx) => {
+  for (const p of cookReadingProblems(m)) ctx.addIssue({ code: 'custom', path: [p.path], message: p.message });
+};
+
 export const measurementSchema = z
-  .object({
-    variantId: z.uuid('Choose the variant that was cooked.'),
-    cookDate: isoDate,
-    batchSizeG: opt(num('Batch size').positive('Batch size must be more than 0.').max(5_000_000)),
-    brixReading: opt(num('The refractometer reading').min(0, 'A Brix reading cannot be negative.').max(95, 'A Brix reading above 95 is not plausible.')),
-    brixSampleTempC: opt(num('The sample temperature').min(0, 'Sample temperature must be at least 0 °C.').max(60, 'Sample temperature must be at most 60 °C.')),
-    ph: opt(num('pH').min(0, 'pH runs from 0 to 14.').max(14, 'pH runs from 0 to 14.')),
-    endPointTempC: opt(num('The end-point temperature').min(60, 'An end point below 60 °C is not plausible.').max(130, 'An end point above 130 °C is not plausible.')),
-    boilTimeMin: opt(num('Boil time').min(0, 'Boil time cannot be negative.').max(600, 'Boil time must be at most 600 minutes.')),
-    setTestScore: wholeNumber('The set-test score', 1, 5).nullable().optional(),
-    setTestMethod: z.enum(SET_TEST_METHODS, { error: 'Use cold_plate, spoon or flake.' }).nullable().optional(),
-    syneresis: z.enum(SYNERESIS_LEVELS, { error: 'Use none, slight or marked.' }).nullable().optional(),
-    colourNotes: longText(500).nullable().optional(),
-    yieldJars: wholeNumber('Jars', 0, 100_000).nullable().optional(),
-    yieldG: opt(num('Yield').min(0, 'Yield cannot be negative.').max(5_000_000)),
-    notes: longText(2000).nullable().optional(),
-  })
+  .object({ variantId: z.uuid('Choose the variant that was cooked.'), ...cookReadings })
   .strict()
-  .refine((m) => (m.brixReading == null) === (m.brixSampleTempC == null), {
-    path: ['brixSampleTempC'],
-    message: 'Give the sample temperature with the refractometer reading (it is corrected to 20 °C).',
-  });
+  .superRefine(checkCook);
+
+const changeReason = longText(500, { min: 1, required: 'Say why (it is kept with the cook’s history).' });
+
+/**
+ * PATCH a cook: the fields sent replace the stored ones (null clears one), the rest stay. The result
+ * must still be a cook (checked in the mutation); the previous values are kept in measurement_changes.
+ */
+export const correctMeasurementSchema = z
+  .object(cookReadings)
+  .partial()
+  .extend({ reason: changeReason })
+  .strict()
+  .refine((c) => Object.keys(c).some((k) => k !== 'reason'), { path: ['readings'], message: 'Change at least one value.' });
+
+export const withdrawMeasurementSchema = z.object({ reason: changeReason }).strict();
 
 /** POST /api/v1/trials/{trialId}/measurements/import: the CSV as text (the API's 1 MB body limit is the tighter bound). */
 export const importMeasurementsSchema = z.object({ csv: z.string().min(1, 'Send the CSV text.').max(2_000_000, 'At most 2 MB.') }).strict();
@@ -87,6 +121,7 @@ export type CreateTrialInput = z.infer<typeof createTrialSchema>;
 export type PlanInput = z.infer<typeof planSchema>;
 export type ManualVariantInput = z.infer<typeof manualVariantSchema>;
 export type MeasurementInput = z.infer<typeof measurementSchema>;
+export type CorrectMeasurementInput = z.infer<typeof correctMeasurementSchema>;
 export type TrialListQuery = z.infer<typeof trialListQuerySchema>;
 
 export interface TrialSummary {
@@ -103,12 +138,27 @@ export interface TrialSummary {
   updatedAt: string;
 }
 
-export interface MeasurementView extends Omit<MeasurementInput, 'variantId'> {
+export type CookReadings = Omit<MeasurementInput, 'variantId'>;
+
+/** One correction or withdrawal of a cook; `before` holds the values it replaced. */
+export interface CookChangeView {
+  kind: 'corrected' | 'withdrawn';
+  reason: string;
+  byName: string;
+  at: string;
+  /** Only the values that changed, as they were before. */
+  before: Partial<CookReadings>;
+}
+
+export interface MeasurementView extends CookReadings {
   id: string;
   variantId: string;
   recordedByName: string;
   createdAt: string;
   comparison: CookComparison;
+  /** Set for a withdrawn cook: it stays on record but leaves every comparison and the promotion evidence. */
+  withdrawn: { reason: string; byName: string; at: string } | null;
+  changes: CookChangeView[];
 }
 
 export interface VariantView {
@@ -122,7 +172,9 @@ export interface VariantView {
   summary: RevisionSummary;
   computation: BatchComputation | null;
   computationError: string | null;
+  /** Cooks that count: withdrawn ones are in `withdrawnMeasurements`. */
   measurements: MeasurementView[];
+  withdrawnMeasurements: MeasurementView[];
 }
 
 export interface StatusChangeView {

@@ -2,7 +2,7 @@
 import type { ActionCase, RouteCase } from './access-table';
 import { trialWithVariants } from './access-trials';
 import { actorOf, type WorkspaceFixture } from './harness';
-import { createPanelSession, openPanelSession } from '@/lib/panels/mutations';
+import { createPanelSession, inviteStaffTasters, openPanelSession } from '@/lib/panels/mutations';
 import { listAttributes } from '@/lib/panels/queries';
 import { joinAsGuest } from '@/lib/panels/mutations';
 import { recordConsent } from '@/lib/panels/taster';
@@ -46,6 +46,16 @@ export const PANELS_ROUTE_CASES: RouteCase[] = [
     },
   },
   { route: 'GET /api/v1/panels/[sessionId]', allowed: READ, otherWorkspace: 404, prepare: async (a) => ({ params: { sessionId: (await panelFixture(a)).sessionId } }) },
+  {
+    route: 'PATCH /api/v1/panels/[sessionId]',
+    allowed: RUN,
+    otherWorkspace: 404,
+    prepare: async (a) => {
+      const p = await panelFixture(a, false);
+      return { params: { sessionId: p.sessionId }, body: { title: 'Friday tasting', method: 'rated', variantIds: p.variantIds, attributeIds: [p.attributeId], notice: 'Contains fruit and sugar.' } };
+    },
+  },
+  { route: 'DELETE /api/v1/panels/[sessionId]', allowed: RUN, otherWorkspace: 404, prepare: async (a) => ({ params: { sessionId: (await panelFixture(a, false)).sessionId } }) },
   { route: 'POST /api/v1/panels/[sessionId]/open', allowed: RUN, otherWorkspace: 404, prepare: async (a) => ({ params: { sessionId: (await panelFixture(a, false)).sessionId } }) },
   { route: 'POST /api/v1/panels/[sessionId]/close', allowed: RUN, otherWorkspace: 404, prepare: async (a) => ({ params: { sessionId: (await panelFixture(a)).sessionId } }) },
   {
@@ -87,7 +97,15 @@ export const PANELS_ROUTE_CASES: RouteCase[] = [
   { route: 'POST /api/v1/tasting/[seatToken]/submit', allowed: 'public', otherWorkspace: 'public', prepare: async (a) => ({ params: { seatToken: (await seatFixture(a)).seatToken } }) },
 ];
 
+/** An open tasting where every person of workspace A holds a staff seat, so each can ask for their own seat link. */
+async function everyoneSeated(a: WorkspaceFixture): Promise<string> {
+  const p = await panelFixture(a);
+  await inviteStaffTasters(actorOf(a, 'developer'), p.sessionId, Object.values(a.people).map((person) => person.userId));
+  return p.sessionId;
+}
+
 export const PANELS_ACTION_CASES: ActionCase[] = [
+  { action: 'lib/panels/actions.ts#renewMySeatAction', allowed: ['admin', 'developer', 'head_of_product', 'production', 'taster'], otherWorkspace: 404, argsAsync: async (a) => [await everyoneSeated(a)] },
   {
     action: 'lib/results/actions.ts#recommendVariantAction',
     allowed: RUN,

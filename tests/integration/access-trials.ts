@@ -22,6 +22,14 @@ export async function trialWithVariants(a: WorkspaceFixture): Promise<{ trialId:
 
 const cook = (variantId: string) => ({ variantId, cookDate: '2026-11-20', brixReading: 64.5, brixSampleTempC: 18, ph: 3.2, yieldG: 1500 });
 
+/** A trial with one cook recorded, as the params of the cook's routes. */
+async function recordedCook(a: WorkspaceFixture): Promise<{ trialId: string; measurementId: string }> {
+  const t = await trialWithVariants(a);
+  const { recordMeasurement } = await import('@/lib/trials/mutations');
+  const { measurementId } = await recordMeasurement(actorOf(a, 'developer'), t.trialId, cook(t.otherId));
+  return { trialId: t.trialId, measurementId };
+}
+
 export const TRIALS_ROUTE_CASES: RouteCase[] = [
   { route: 'GET /api/v1/trials', allowed: READ, otherWorkspace: 'own-data' },
   {
@@ -78,15 +86,16 @@ export const TRIALS_ROUTE_CASES: RouteCase[] = [
     },
   },
   {
-    route: 'DELETE /api/v1/trials/[trialId]/measurements/[measurementId]',
+    route: 'PATCH /api/v1/trials/[trialId]/measurements/[measurementId]',
     allowed: WRITE,
     otherWorkspace: 404,
-    prepare: async (a) => {
-      const t = await trialWithVariants(a);
-      const { recordMeasurement } = await import('@/lib/trials/mutations');
-      const { measurementId } = await recordMeasurement(actorOf(a, 'developer'), t.trialId, cook(t.otherId));
-      return { params: { trialId: t.trialId, measurementId } };
-    },
+    prepare: async (a) => ({ params: await recordedCook(a), body: { ph: 3.3, reason: 'Re-read after calibrating the meter.' } }),
+  },
+  {
+    route: 'POST /api/v1/trials/[trialId]/measurements/[measurementId]/withdraw',
+    allowed: WRITE,
+    otherWorkspace: 404,
+    prepare: async (a) => ({ params: await recordedCook(a), body: { reason: 'Measured the wrong jar.' } }),
   },
   {
     route: 'POST /api/v1/trials/[trialId]/measurements/import',
@@ -119,16 +128,17 @@ export const TRIALS_ACTION_CASES: ActionCase[] = [
   { action: 'lib/trials/actions.ts#removeVariantAction', allowed: WRITE, otherWorkspace: 404, argsAsync: async (a) => { const t = await trialWithVariants(a); return [t.trialId, t.otherId]; } },
   { action: 'lib/trials/actions.ts#recordMeasurementAction', allowed: WRITE, otherWorkspace: 404, argsAsync: async (a) => { const t = await trialWithVariants(a); return [t.trialId, cook(t.otherId)]; } },
   {
-    action: 'lib/trials/actions.ts#deleteMeasurementAction',
+    action: 'lib/trials/actions.ts#correctMeasurementAction',
     allowed: WRITE,
     otherWorkspace: 404,
-    argsAsync: async (a) => {
-      const t = await trialWithVariants(a);
-      const { recordMeasurement } = await import('@/lib/trials/mutations');
-      const { measurementId } = await recordMeasurement(actorOf(a, 'developer'), t.trialId, cook(t.otherId));
-      return [t.trialId, measurementId];
-    },
+    argsAsync: async (a) => { const c = await recordedCook(a); return [c.trialId, c.measurementId, { ph: 3.3, reason: 'Re-read after calibrating the meter.' }]; },
   },
-  { action: 'lib/trials/actions.ts#importMeasurementsAction', allowed: WRITE, otherWorkspace: 404, argsAsync: async (a) => [(await trialWithVariants(a)).trialId, 'variant,cook_date\nB,2026-11-20\n'] },
+  {
+    action: 'lib/trials/actions.ts#withdrawMeasurementAction',
+    allowed: WRITE,
+    otherWorkspace: 404,
+    argsAsync: async (a) => { const c = await recordedCook(a); return [c.trialId, c.measurementId, { reason: 'Measured the wrong jar.' }]; },
+  },
+  { action: 'lib/trials/actions.ts#importMeasurementsAction', allowed: WRITE, otherWorkspace: 404, argsAsync: async (a) => [(await trialWithVariants(a)).trialId, 'variant,cook_date,ph\nB,2026-11-20,3.2\n'] },
 ];
 

@@ -147,7 +147,7 @@ describe('cooks and CSV', () => {
     const r1 = await callRoute(measurementsRoute.POST, { method: 'POST', path: '', caller: dev(), params: { trialId }, body: { variantId: t.variants[0].id, cookDate: '2026-11-20', brixReading: 64 } });
     expect(r1.status).toBe(422);
     expect(r1.body.error.fields).toHaveProperty(['brixSampleTempC']);
-    const r2 = await callRoute(measurementsRoute.POST, { method: 'POST', path: '', caller: dev(), params: { trialId }, body: { variantId: t.variants[0].id, cookDate: '2026-11-20' } });
+    const r2 = await callRoute(measurementsRoute.POST, { method: 'POST', path: '', caller: dev(), params: { trialId }, body: { variantId: t.variants[0].id, cookDate: '2026-11-20', ph: 3.2 } });
     expect(r2.status).toBe(422);
     expect(r2.body.error.fields).toHaveProperty(['variantId']);
   });

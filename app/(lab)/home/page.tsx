@@ -1,60 +1,97 @@
-import Link from 'next/link';
 import { requirePage } from '@/lib/page-guard';
-import { navFor } from '@/lib/navigation';
-import { outboxAvailable } from '@/lib/outbox';
-import { PageHeader, Card } from '@/components/ui/Card';
-import { ROLE_LABELS, can, type Role } from '@/lib/permissions';
-import { listProducts, reviewQueue } from '@/lib/production/queries';
-import { Notice } from '@/components/ui/Notice';
+import { PageHeader } from '@/components/ui/Card';
+import { WorkList, type WorkItem } from '@/components/home/WorkList';
+import { ROLE_LABELS, can } from '@/lib/permissions';
+import { batchWorklist, listProducts, reviewQueue } from '@/lib/production/queries';
+import { trialsAtTheStove } from '@/lib/trials/queries';
+import { listMySeats, listTastings } from '@/lib/panels/queries';
+import { listMembers } from '@/lib/members/queries';
+import { PANEL_STATE_LABELS } from '@/lib/panels/vocabulary';
 
 export const dynamic = 'force-dynamic';
 export const metadata = { title: 'Overview' };
 
-const ROLE_LEADS: Record<Role, string> = {
-  admin: 'Invite your team, give each person a role, and keep the workspace tidy.',
-  developer: 'Build formulas from the ingredient library and see the batch, the set and the rules while you type.',
-  head_of_product: 'Review the evidence behind each promotion request and decide what reaches the kitchen.',
-  production: 'Print the batch sheet for your kettle, record each batch, and see it checked against its spec.',
-  taster: 'When an organiser seats you at a tasting, it appears under My tastings.',
-};
+const dateText = (iso: string) => new Date(iso.length === 10 ? `${iso}T12:00:00Z` : iso).toLocaleDateString('en-GB', { dateStyle: 'medium' });
 
+/** The home page is a worklist: each part shows only to those whose permissions let them do the work it links to. */
 export default async function HomePage() {
   const actor = await requirePage('account.self');
-  const shortcuts = navFor(actor.role, { mailOutbox: outboxAvailable() }).filter((n) => n.href !== '/home');
-  // What waits for this person: the review queue for a decider, the products for the kitchen.
-  const queue = can(actor.role, 'promotion.decide') ? (await reviewQueue(actor)).filter((r) => !r.ownRequest) : [];
-  const kitchen = can(actor.role, 'batches.record') ? (await listProducts(actor)).filter((p) => p.current) : [];
+  const today = new Date().toISOString().slice(0, 10);
+  const [stove, tastings, reviews, batches, kitchen, seats, members] = await Promise.all([
+    can(actor.role, 'trials.write') ? trialsAtTheStove(actor) : null,
+    can(actor.role, 'panels.run') ? listTastings(actor) : null,
+    can(actor.role, 'promotion.decide') ? reviewQueue(actor) : null,
+    can(actor.role, 'batches.record') ? batchWorklist(actor, today) : null,
+    can(actor.role, 'batches.record') ? listProducts(actor) : null,
+    listMySeats(actor),
+    can(actor.role, 'members.manage') ? listMembers(actor) : null,
+  ]);
+  const waitingSeats = seats.filter((s) => s.waiting);
+  const sections: React.ReactNode[] = [];
+
+  if (stove) {
+    sections.push(
+      <WorkList key="stove" title="At the stove" more={{ href: '/trials?status=cooking', label: 'All trials being cooked' }}
+        empty="None of your trials is at the stove. Move a planned trial to “Cooking” when its variants are ready to cook."
+        items={stove.map((t) => ({
+          key: t.id, href: `/trials/${t.id}`, label: `${t.code}: ${t.title}`,
+          detail: t.uncooked.length ? `Not cooked yet: variant${t.uncooked.length > 1 ? 's' : ''} ${t.uncooked.join(', ')}` : 'Every variant has a cook: ready to taste.',
+        }))} />,
+    );
+  }
+  if (tastings) {
+    const live = tastings.filter((t) => t.state !== 'closed');
+    sections.push(
+      <WorkList key="tastings" title="Tastings being set up or taking answers" more={{ href: '/panels', label: 'All tastings' }}
+        empty="No tasting is being set up or taking answers. Start one from a trial once its variants are cooked."
+        items={live.map((t) => ({
+          key: t.id, href: `/panels/${t.id}`, label: `${t.title} (${t.trial.code})`,
+          detail: t.state === 'open' ? `${PANEL_STATE_LABELS.open}: ${t.submitted} of ${t.seats} tasters finished` : `${PANEL_STATE_LABELS.draft}${t.startsAt ? `, planned for ${dateText(t.startsAt)}` : ''}`,
+        }))} />,
+    );
+  }
+  if (reviews) {
+    const waiting = reviews.filter((r) => !r.ownRequest);
+    sections.push(
+      <WorkList key="reviews" title="Promotions waiting for your decision" more={{ href: '/production/reviews', label: 'All reviews' }}
+        empty="No promotion request is waiting for you."
+        items={waiting.map((r) => ({ key: r.id, href: `/production/reviews/${r.id}`, label: `${r.code}: ${r.trial.code} variant ${r.variantLabel}`, detail: `To ${r.productLabel}` }))} />,
+    );
+  }
+  if (batches && kitchen) {
+    const held: WorkItem[] = batches.held.map((b) => ({ key: b.id, href: `/production/products/${b.productId}`, label: `${b.lotCode}: ${b.productName}`, detail: `On hold since ${dateText(b.batchDate)}: decide what happens to it.` }));
+    const todays: WorkItem[] = batches.today.map((b) => ({ key: b.id, href: `/production/products/${b.productId}`, label: `${b.lotCode}: ${b.productName}`, detail: b.outcome === 'pass' ? 'Passed its checks.' : 'Failed a check.' }));
+    const sheets: WorkItem[] = kitchen.filter((p) => p.current).map((p) => ({
+      key: p.id, href: `/production/versions/${p.current!.id}/batches/new`, label: `Record a batch of ${p.name}`, detail: `Version ${p.current!.version}`,
+    }));
+    sections.push(
+      <WorkList key="held" title="Batches on hold" empty="No batch is on hold." items={held} />,
+      <WorkList key="today" title="Today’s batches" empty="No batch recorded today yet." items={[...todays, ...sheets]} more={{ href: '/production', label: 'Products and batch sheets' }} />,
+    );
+  }
+  if (members) {
+    sections.push(
+      <WorkList key="invitations" title="Invitations not yet accepted" more={{ href: '/settings/members', label: 'Members' }}
+        empty="Every invitation has been accepted."
+        items={members.invitations.map((i) => ({ key: i.invitationId, href: '/settings/members', label: i.email, detail: `${ROLE_LABELS[i.role]}, invited by ${i.invitedBy}; the link works until ${dateText(i.expiresAt)}` }))} />,
+    );
+  }
+  // Everyone can be seated at a tasting; staff see the part only when a seat waits for them.
+  if (waitingSeats.length || !can(actor.role, 'lab.enter')) {
+    sections.push(
+      <WorkList key="seats" title="Tastings waiting for your answers" more={{ href: '/tastings', label: 'My tastings' }}
+        empty="No tasting is waiting for you. When an organiser seats you, it appears here and you get an e-mail with your link."
+        items={waitingSeats.map((s) => ({ key: s.sessionId, href: '/tastings', label: s.title, detail: s.place ? `In ${s.place}` : undefined }))} />,
+    );
+  }
+
   return (
     <>
-      <PageHeader title={`Good to see you, ${actor.name.split(' ')[0]}`} lead={ROLE_LEADS[actor.role]} />
+      <PageHeader title={`Good to see you, ${actor.name.split(' ')[0]}`} />
       <p className="mb-6 text-sm text-rind-600">
         You are working in <strong>{actor.workspaceName}</strong> as {ROLE_LABELS[actor.role]}.
       </p>
-      {queue.length ? (
-        <div className="mb-6">
-          <Notice tone="warning" title={`${queue.length} promotion request${queue.length === 1 ? '' : 's'} waiting for your decision`}>
-            <ul className="mt-1 space-y-1">{queue.map((r) => <li key={r.id}><Link className="underline" href={`/production/reviews/${r.id}`}>{r.code}: {r.trial.code} variant {r.variantLabel} → {r.productLabel}</Link></li>)}</ul>
-          </Notice>
-        </div>
-      ) : null}
-      {kitchen.length ? (
-        <div className="mb-6">
-          <Notice tone="info" title="In production">
-            <ul className="mt-1 space-y-1">{kitchen.map((p) => (
-              <li key={p.id}>{p.name} v{p.current!.version}: <Link className="underline" href={`/production/versions/${p.current!.id}/sheet`}>batch sheet</Link> · <Link className="underline" href={`/production/versions/${p.current!.id}/batches/new`}>record a batch</Link></li>
-            ))}</ul>
-          </Notice>
-        </div>
-      ) : null}
-      <div className="grid gap-4 sm:grid-cols-2 lg:grid-cols-3">
-        {shortcuts.map((s) => (
-          <Link key={s.href} href={s.href} className="group">
-            <Card className="h-full transition-shadow group-hover:ring-damson-300">
-              <p className="font-display text-lg text-damson-900">{s.label}</p>
-            </Card>
-          </Link>
-        ))}
-      </div>
+      <div className="grid gap-4 lg:grid-cols-2">{sections}</div>
     </>
   );
 }

@@ -200,7 +200,9 @@ describe('US standards of identity', () => {
     const rule = checkCompliance(computeMassBalance(lines, s), s).results.find((r) => r.ruleId === 'us.150_160.fruit_ratio');
     expect(rule?.requiredValue).toBeCloseTo(46, 9);
     expect(rule?.passed).toBe(true);
-    expect(rule?.note).toMatch(/memory/);
+    // The note says what is done, in words; that the mixed-group clause was not read stays in the code.
+    expect(rule?.note).toMatch(/weighted by fruit mass/);
+    expect(rule?.note).not.toMatch(/memory/);
   });
 
   it('requires 45 parts of juice for jelly whatever the fruit group', () => {

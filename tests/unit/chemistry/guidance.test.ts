@@ -1,5 +1,5 @@
 import { describe, it, expect } from 'vitest';
-import { SAFETY_GOVERNANCE_SENTENCE, buildGuidance, computeMassBalance } from '@/lib/chemistry';
+import { HOT_FILL_MIN_C, SAFETY_GOVERNANCE_SENTENCE, TRADE_PRACTICE_SOURCE, buildGuidance, computeBatch, computeMassBalance, defaultQcSpec, qcSpecCautions } from '@/lib/chemistry';
 import type { FormulaLineInput, FormulaSettings, IngredientComposition } from '@/lib/chemistry';
 import { PRACTICAL_ACTION_LINES, SUGAR, fruit, settings } from './fixtures';
 
@@ -14,7 +14,7 @@ function codes(lines: FormulaLineInput[], s: FormulaSettings, aw?: number): stri
   return guidanceFor(lines, s, aw).map((c) => c.code);
 }
 
-const SAFETY_CODES = ['PH_ABOVE_4_6', 'AW_ABOVE_0_85', 'REDUCED_SUGAR', 'HOT_FILL'];
+const SAFETY_CODES = ['PH_ABOVE_4_6', 'REDUCED_SUGAR', 'HOT_FILL'];
 
 describe('set guidance', () => {
   it('flags HM pectin at or below 55 % solids', () => {
@@ -32,7 +32,8 @@ describe('set guidance', () => {
   it('marks the HM optimum as common practice', () => {
     // Common practice, no published source: optimum pH 2.8–3.3 and 65–69 % final sugar
     const caution = guidanceFor(PRACTICAL_ACTION_LINES, settings({ targetSolidsPct: 62, plannedPh: 3.1 })).find((c) => c.code === 'HM_PECTIN_OUTSIDE_OPTIMUM');
-    expect(caution?.source).toBe('Common practice, no published source');
+    // On screen a rule of thumb is named as trade practice; the provenance note stays in the code.
+    expect(caution?.source).toBe(TRADE_PRACTICE_SOURCE);
     expect(codes(PRACTICAL_ACTION_LINES, settings({ targetSolidsPct: 67, plannedPh: 3.1 }))).not.toContain('HM_PECTIN_OUTSIDE_OPTIMUM');
   });
 
@@ -63,29 +64,89 @@ describe('safety cautions', () => {
     expect(codes(PRACTICAL_ACTION_LINES, settings({ plannedPh: 4.6 }))).not.toContain('PH_ABOVE_4_6');
   });
 
-  it('cautions when aw is above 0.85', () => {
-    // Source: 21 CFR 114.3 — low-acid foods: pH > 4.6 and aw > 0.85
-    expect(codes(PRACTICAL_ACTION_LINES, settings({ plannedPh: 3.2 }), 0.86)).toContain('AW_ABOVE_0_85');
-    expect(codes(PRACTICAL_ACTION_LINES, settings({ plannedPh: 3.2 }), 0.84)).not.toContain('AW_ABOVE_0_85');
+  it('explains acid preservation (a note) when aw is above 0.85 and pH is 4.6 or below', () => {
+    // Source: 21 CFR 114.3 — acid foods: equilibrium pH 4.6 or below; low-acid foods: pH > 4.6 and aw > 0.85
+    const at32 = guidanceFor(PRACTICAL_ACTION_LINES, settings({ plannedPh: 3.2 }), 0.86);
+    expect(at32.find((c) => c.code === 'ACID_PRESERVED')?.severity).toBe('info');
+    expect(codes(PRACTICAL_ACTION_LINES, settings({ plannedPh: 4.6 }), 0.86)).toContain('ACID_PRESERVED');
+    expect(codes(PRACTICAL_ACTION_LINES, settings({ plannedPh: 3.2 }), 0.84)).not.toContain('ACID_PRESERVED');
   });
 
-  it('cautions on reduced-sugar spreads', () => {
+  it('cautions on reduced-sugar spreads: danger without a stated preservation, a warning with one', () => {
     // Source: EU Directive 2001/113/EC, Annex I and CXS 296-2009 (60 % soluble solids floor for the reserved names)
-    expect(codes(PRACTICAL_ACTION_LINES, settings({ productClass: 'reduced_sugar_spread', targetSolidsPct: 60 }))).toContain('REDUCED_SUGAR');
-    expect(codes(PRACTICAL_ACTION_LINES, settings({ targetSolidsPct: 50 }))).toContain('REDUCED_SUGAR');
+    const severity = (s: FormulaSettings) => guidanceFor(PRACTICAL_ACTION_LINES, s).find((c) => c.code === 'REDUCED_SUGAR')?.severity;
+    expect(severity(settings({ productClass: 'reduced_sugar_spread', targetSolidsPct: 60 }))).toBe('danger');
+    expect(severity(settings({ targetSolidsPct: 50 }))).toBe('danger');
+    expect(severity(settings({ targetSolidsPct: 50, preservation: 'heat_processed' }))).toBe('warning');
+    expect(severity(settings({ productClass: 'reduced_sugar_spread', targetSolidsPct: 45, preservation: 'chilled' }))).toBe('warning');
+    // 60 % is the floor itself, not below it.
+    expect(severity(settings({ targetSolidsPct: 60 }))).toBeUndefined();
     expect(codes(PRACTICAL_ACTION_LINES, settings({ targetSolidsPct: 65 }))).not.toContain('REDUCED_SUGAR');
   });
 
-  it('always notes hot filling', () => {
-    expect(codes(PRACTICAL_ACTION_LINES, settings())).toContain('HOT_FILL');
+  it('always notes hot filling, with the hot-fill minimum the QC checks use', () => {
+    // Common practice, no published source: fill at 85 °C or above (HOT_FILL_MIN_C, shared with lib/chemistry/qc.ts).
+    const hot = guidanceFor(PRACTICAL_ACTION_LINES, settings()).find((c) => c.code === 'HOT_FILL');
+    expect(hot?.severity).toBe('info');
+    expect(hot?.message).toContain(`${HOT_FILL_MIN_C} °C`);
   });
 
   it('ends every safety caution with the governance sentence', () => {
-    const all = guidanceFor(PRACTICAL_ACTION_LINES, settings({ productClass: 'reduced_sugar_spread', targetSolidsPct: 45, plannedPh: 4.7 }), 0.93);
-    const safetyCautions = all.filter((c) => SAFETY_CODES.includes(c.code));
-    expect(safetyCautions.map((c) => c.code).sort()).toEqual([...SAFETY_CODES].sort());
+    const all = [
+      ...guidanceFor(PRACTICAL_ACTION_LINES, settings({ productClass: 'reduced_sugar_spread', targetSolidsPct: 45, plannedPh: 4.7 }), 0.93),
+      ...guidanceFor(PRACTICAL_ACTION_LINES, settings({ plannedPh: 3.2 }), 0.93),
+      ...guidanceFor(PRACTICAL_ACTION_LINES, settings(), 0.93),
+    ];
+    const safetyCodes = [...SAFETY_CODES, 'ACID_PRESERVED', 'PH_NOT_GIVEN'];
+    const safetyCautions = all.filter((c) => safetyCodes.includes(c.code));
+    expect([...new Set(safetyCautions.map((c) => c.code))].sort()).toEqual([...safetyCodes].sort());
     for (const caution of safetyCautions) {
       expect(caution.message.endsWith(SAFETY_GOVERNANCE_SENTENCE)).toBe(true);
     }
+  });
+});
+
+describe('cautions graded by what is known (no alarm fatigue)', () => {
+  // The textbook jam: the Practical Action worked batch (10 kg fruit at 10 % solids, 10 kg sugar) at 65 % solids.
+  const jam = (overrides: Partial<FormulaSettings> = {}) => computeBatch(PRACTICAL_ACTION_LINES, settings({ targetSolidsPct: 65, ...overrides }));
+  const severities = (c: ReturnType<typeof jam>) => c.cautions.map((x) => `${x.code}:${x.severity}`);
+
+  it('a 65 °Brix jam with no planned pH is asked for one: a note, no danger, no warning', () => {
+    const c = jam();
+    // Its estimated water activity is above 0.85 (Norrish model, lib/chemistry/water-activity.ts).
+    expect(c.waterActivity.aw).toBeGreaterThan(0.85);
+    expect(c.cautions.filter((x) => x.severity !== 'info')).toEqual([]);
+    const ask = c.cautions.find((x) => x.code === 'PH_NOT_GIVEN');
+    expect(ask?.severity).toBe('info');
+    expect(ask?.message).toContain(c.waterActivity.aw.toFixed(3));
+  });
+
+  it('the same jam at pH 3.2 gets the acid-preservation note and nothing louder', () => {
+    // Source: 21 CFR 114.3 — an acid food has an equilibrium pH of 4.6 or below.
+    const c = jam({ plannedPh: 3.2 });
+    expect(c.cautions.filter((x) => x.severity !== 'info').map((x) => x.code)).toEqual([]);
+    expect(severities(c)).toContain('ACID_PRESERVED:info');
+    expect(severities(c)).not.toContain('PH_NOT_GIVEN:info');
+  });
+
+  it('is a danger exactly above pH 4.6, at the 21 CFR 114 boundary', () => {
+    // Source: 21 CFR 114.3(b) — acid foods have a natural pH of 4.6 or below; 4.6 itself is acid, 4.61 is not.
+    expect(severities(jam({ plannedPh: 4.6 }))).not.toContain('PH_ABOVE_4_6:danger');
+    expect(severities(jam({ plannedPh: 4.61 }))).toContain('PH_ABOVE_4_6:danger');
+    expect(jam({ plannedPh: 4.61 }).cautions.filter((x) => x.severity === 'danger')).toHaveLength(1);
+  });
+
+  it('a QC spec whose fill minimum is below the hot-fill minimum is a danger; at the minimum it is not', () => {
+    // Common practice, no published source: hot fill at 85 °C or above (HOT_FILL_MIN_C in lib/chemistry/qc.ts).
+    const spec = defaultQcSpec(jam({ plannedPh: 3.2 }));
+    expect(qcSpecCautions({ ...spec, minFillTempC: HOT_FILL_MIN_C }, 'jam').map((x) => x.code)).not.toContain('SPEC_FILL_BELOW_HOT_FILL');
+    expect(qcSpecCautions({ ...spec, minFillTempC: HOT_FILL_MIN_C - 1 }, 'jam').find((x) => x.code === 'SPEC_FILL_BELOW_HOT_FILL')?.severity).toBe('danger');
+  });
+
+  it('a reduced-sugar spec is a danger without a stated preservation and a warning with one', () => {
+    // Source: Council Directive 2001/113/EC, Annex I and CXS 296-2009 (60 % soluble solids floor).
+    const spec = { ...defaultQcSpec(jam({ plannedPh: 3.2 })), solidsMinBrix: 44, solidsMaxBrix: 46 };
+    expect(qcSpecCautions(spec, 'reduced_sugar_spread').find((x) => x.code === 'SPEC_REDUCED_SUGAR_STORAGE')?.severity).toBe('danger');
+    expect(qcSpecCautions(spec, 'reduced_sugar_spread', 'heat_processed').find((x) => x.code === 'SPEC_REDUCED_SUGAR_STORAGE')?.severity).toBe('warning');
   });
 });

@@ -86,7 +86,7 @@ describe('BrixHelper', () => {
     expect(screen.getByTestId('brix-correction').textContent).toBe('−0.38 °Brix');
     expect(screen.getByTestId('brix-corrected').textContent).toBe('64.62 °Brix');
     expect(screen.getByText(/Source: OIV-MA-AS2-02/)).toBeTruthy();
-    expect(screen.queryByText(/recalled/)).toBeNull();
+    expect(screen.queryByText(/approximate/)).toBeNull();
   });
 
   it('accepts the temperature in °F (59 °F = 15 °C)', () => {
@@ -97,11 +97,12 @@ describe('BrixHelper', () => {
     expect(screen.getByTestId('brix-correction').textContent).toBe('−0.38 °Brix');
   });
 
-  it('notes recalled table values and shows the module message out of range', () => {
+  it('notes approximate (recalled) table values without provenance words, and shows the module message out of range', () => {
     render(<BrixHelper temperatureUnit="C" />);
     fireEvent.change(screen.getByLabelText('Reading (°Brix)'), { target: { value: '65' } });
     fireEvent.change(screen.getByLabelText('Sample temperature (°C)'), { target: { value: '22' } });
-    expect(screen.getByText(/recalled, not read from the published table/)).toBeTruthy();
+    expect(screen.getByText(/this correction is approximate/)).toBeTruthy();
+    expect(document.body.textContent).not.toMatch(/memory|recalled/i);
     fireEvent.change(screen.getByLabelText('Sample temperature (°C)'), { target: { value: '30' } });
     expect(screen.getByRole('alert').textContent).toBe('The correction table covers 10–25 °C; bring the sample nearer 20 °C');
     fireEvent.change(screen.getByLabelText('Sample temperature (°C)'), { target: { value: '20' } });

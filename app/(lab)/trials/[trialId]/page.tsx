@@ -86,14 +86,19 @@ export default async function TrialPage({ params }: { params: Promise<{ trialId:
           {canEdit ? <CsvImport trialId={trial.id} /> : null}
           <Attachments trialId={trial.id} uploads={uploads} canEdit={canEdit} />
           <section aria-labelledby="history-title">
-            <h2 id="history-title" className="mb-2 text-lg font-semibold">Status history</h2>
+            <h2 id="history-title" className="mb-2 text-lg font-semibold">History</h2>
             <ol className="space-y-1 text-sm text-rind-700">
-              {trial.history.map((h, i) => (
-                <li key={i}>
-                  {new Date(h.at).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short' })} — {h.from ? `${TRIAL_STATUS_LABELS[h.from]} → ` : ''}
-                  {TRIAL_STATUS_LABELS[h.to]} by {h.byName}
-                  {h.note ? ` (“${h.note}”)` : ''}
-                </li>
+              {[
+                ...trial.history.map((h) => ({
+                  at: h.at,
+                  text: `${h.from ? `${TRIAL_STATUS_LABELS[h.from]} → ` : ''}${TRIAL_STATUS_LABELS[h.to]} by ${h.byName}${h.note ? ` (“${h.note}”)` : ''}`,
+                })),
+                ...trial.variants.flatMap((v) => [...v.measurements, ...v.withdrawnMeasurements].flatMap((m) => m.changes.map((c) => ({
+                  at: c.at,
+                  text: `Cook of ${m.cookDate} (variant ${v.label}) ${c.kind === 'withdrawn' ? 'withdrawn' : 'corrected'} by ${c.byName} (“${c.reason}”)`,
+                })))),
+              ].sort((x, y) => x.at.localeCompare(y.at)).map((h, i) => (
+                <li key={i}>{new Date(h.at).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short' })} — {h.text}</li>
               ))}
             </ol>
           </section>

@@ -53,7 +53,7 @@ export default async function VersionPage({ params }: { params: Promise<{ versio
         </Card>
         <Card title="QC specification">
           <SpecTable spec={v.spec} temperatures={temps} />
-          <div className="mt-3"><CautionList cautions={qcSpecCautions(v.spec, v.settings.productClass)} /></div>
+          <div className="mt-3"><CautionList cautions={qcSpecCautions(v.spec, v.settings.productClass, v.settings.preservation ?? undefined)} /></div>
         </Card>
       </div>
       <div className="mt-6" id="batches"><Card title="Batches made to this version"><BatchTable batches={[...v.batches].reverse()} units={units} temperatures={temps} /></Card></div>

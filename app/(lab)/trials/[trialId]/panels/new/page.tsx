@@ -2,6 +2,7 @@ import { requirePage, orNotFound, pageId } from '@/lib/page-guard';
 import { getTrialOverview } from '@/lib/trials/queries';
 import { listAttributes } from '@/lib/panels/queries';
 import { NewPanelForm } from '@/components/panels/NewPanelForm';
+import { suggestAttributes } from '@/lib/sensory';
 import { PageHeader } from '@/components/ui/Card';
 
 export const dynamic = 'force-dynamic';
@@ -14,7 +15,8 @@ export default async function NewPanelPage({ params }: { params: Promise<{ trial
   return (
     <>
       <PageHeader title={`New tasting for ${trial.code}`} lead={`${trial.title}. Samples get random three-digit codes and balanced serving orders.`} />
-      <NewPanelForm trialId={trial.id} variants={trial.variants.map((v) => ({ id: v.id, label: v.label, description: v.description }))} attributes={attributes} />
+      <NewPanelForm trialId={trial.id} variants={trial.variants.map((v) => ({ id: v.id, label: v.label, description: v.description }))} attributes={attributes}
+        suggestedAttributeIds={suggestAttributes(attributes, [...new Set(trial.variants.flatMap((v) => v.factorLevels.map((l) => l.factor)))])} />
     </>
   );
 }

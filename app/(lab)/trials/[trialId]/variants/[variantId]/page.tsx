@@ -14,7 +14,7 @@ import { RevisionDiff } from '@/components/formulas/RevisionDiff';
 import { ResultsPanel } from '@/components/formulas/ResultsPanel';
 import { CookList } from '@/components/trials/CookList';
 import { RecordCookForm } from '@/components/trials/RecordCookForm';
-import { RemoveVariantButton } from '@/components/trials/DeleteCookButton';
+import { RemoveVariantButton } from '@/components/trials/RemoveVariantButton';
 import { Attachments } from '@/components/trials/Attachments';
 import { NotebookEditor } from '@/components/notebook/NotebookEditor';
 
@@ -72,6 +72,12 @@ export default async function VariantPage({ params }: { params: Promise<{ trialI
             <h3 id="cooks-title" className="mb-2 text-lg font-semibold">Cooks: measured against predicted</h3>
             <CookList trialId={trialId} cooks={variant.measurements} massUnits={actor.massUnits} temperatureUnit={actor.temperatureUnit} canEdit={canEdit} />
           </section>
+          {variant.withdrawnMeasurements.length ? (
+            <section aria-labelledby="withdrawn-title">
+              <h3 id="withdrawn-title" className="mb-2 text-lg font-semibold">Withdrawn cooks</h3>
+              <CookList trialId={trialId} cooks={variant.withdrawnMeasurements} massUnits={actor.massUnits} temperatureUnit={actor.temperatureUnit} canEdit={false} withdrawn />
+            </section>
+          ) : null}
           {canEdit ? <RecordCookForm trialId={trialId} variantId={variant.id} massUnits={actor.massUnits} temperatureUnit={actor.temperatureUnit} /> : null}
           <Attachments trialId={trialId} variantId={variant.id} uploads={uploads} canEdit={canEdit} />
           <NotebookEditor trialId={trialId} variantId={variant.id} initial={notebook} canEdit={canEdit} title={`Notebook for variant ${variant.label}`} />

@@ -3,7 +3,7 @@
 import { useState } from 'react';
 import { useRouter } from 'next/navigation';
 import { ConfirmDialog } from '@/components/ui/ConfirmDialog';
-import { deleteMeasurementAction, removeVariantAction } from '@/lib/trials/actions';
+import { removeVariantAction } from '@/lib/trials/actions';
 
 function useConfirmedAction(run: () => Promise<{ ok: boolean; error?: string }>) {
   const router = useRouter();
@@ -21,17 +21,6 @@ function useConfirmedAction(run: () => Promise<{ ok: boolean; error?: string }>)
       else router.refresh();
     },
   };
-}
-
-export function DeleteCookButton({ trialId, measurementId }: { trialId: string; measurementId: string }) {
-  const c = useConfirmedAction(() => deleteMeasurementAction(trialId, measurementId));
-  return (
-    <>
-      <button type="button" className="text-sm text-ember-700 underline" onClick={() => c.setOpen(true)}>Delete</button>
-      {c.error ? <span className="text-sm text-ember-700">{c.error}</span> : null}
-      <ConfirmDialog open={c.open} busy={c.busy} title="Delete this cook?" body="Its readings are removed for good. Photos stay." confirmLabel="Delete" onCancel={() => c.setOpen(false)} onConfirm={c.confirm} />
-    </>
-  );
 }
 
 export function RemoveVariantButton({ trialId, variantId, label, onDone }: { trialId: string; variantId: string; label: string; onDone?: string }) {

@@ -1,0 +1,34 @@
+'use client';
+
+import { useState } from 'react';
+import { useRouter } from 'next/navigation';
+import { apiFetch } from '@/components/api/client';
+import { Button } from '@/components/ui/Button';
+import { ConfirmDialog } from '@/components/ui/ConfirmDialog';
+
+/** Discards a tasting that never opened, after asking. */
+export function DiscardPanelButton({ sessionId, trialId }: { sessionId: string; trialId: string }) {
+  const router = useRouter();
+  const [open, setOpen] = useState(false);
+  const [busy, setBusy] = useState(false);
+  const [error, setError] = useState<string>();
+  async function discard() {
+    setBusy(true);
+    try {
+      await apiFetch(`/api/v1/panels/${sessionId}`, { method: 'DELETE' });
+      router.push(`/trials/${trialId}`);
+      router.refresh();
+    } catch (err) {
+      setError(err instanceof Error ? err.message : 'The tasting was not discarded.');
+      setBusy(false);
+      setOpen(false);
+    }
+  }
+  return (
+    <>
+      <Button type="button" tone="ghost" onClick={() => setOpen(true)}>Discard</Button>
+      {error ? <span role="alert" className="text-sm text-ember-700">{error}</span> : null}
+      <ConfirmDialog open={open} busy={busy} title="Discard this tasting?" body="It has not opened, so nobody has tasted or answered. Its set-up and sample codes are removed." confirmLabel="Discard the tasting" onCancel={() => setOpen(false)} onConfirm={discard} />
+    </>
+  );
+}
