@@ -6,7 +6,7 @@ import { Button } from '@/components/ui/Button';
 import { Field, FieldErrorText, SelectField, inputClass } from '@/components/ui/Field';
 import { Notice } from '@/components/ui/Notice';
 import { checkBatchAgainstSpec, toGrams, type QcSpec } from '@/lib/chemistry';
-import { DISPOSITIONS, DISPOSITION_LABELS, lotCodeFor } from '@/lib/production/vocabulary';
+import { DISPOSITIONS, DISPOSITION_LABELS, nextLotCode } from '@/lib/production/vocabulary';
 import { recordBatchAction } from '@/lib/production/actions';
 import { fromDisplayTemperature, parseNumber, type TemperatureUnit } from './temperature';
 
@@ -14,14 +14,14 @@ const STATUS_STYLE = { pass: 'text-leaf-700', fail: 'text-ember-700', not_measur
 const STATUS_TEXT = { pass: 'Pass', fail: 'Fail', not_measured: 'Not measured' } as const;
 
 /** Production's batch entry: every reading is checked against the spec as it is typed, and again on the server. */
-export function BatchForm({ versionId, spec, productCode, today, temperatureUnit, massUnits }: {
-  versionId: string; spec: QcSpec; productCode: string; today: string; temperatureUnit: TemperatureUnit; massUnits: 'metric' | 'imperial';
+export function BatchForm({ versionId, spec, productCode, takenLotCodes, today, temperatureUnit, massUnits }: {
+  versionId: string; spec: QcSpec; productCode: string; takenLotCodes: readonly string[]; today: string; temperatureUnit: TemperatureUnit; massUnits: 'metric' | 'imperial';
 }) {
   const router = useRouter();
   const deg = temperatureUnit === 'F' ? '°F' : '°C';
   const sizeUnit = massUnits === 'imperial' ? 'lb' : 'kg';
   const [v, setV] = useState<Record<string, string>>({
-    lotCode: lotCodeFor(productCode, today, 1), batchDate: today, batchSize: '', brixReading: '', brixSampleTemp: temperatureUnit === 'F' ? '68' : '20', ph: '',
+    lotCode: nextLotCode(productCode, today, takenLotCodes), batchDate: today, batchSize: '', brixReading: '', brixSampleTemp: temperatureUnit === 'F' ? '68' : '20', ph: '',
     fillTemp: '', netFillMeanG: '', netFillMinG: '', setTestScore: '', jarsFilled: '', jarsRejected: '0', notes: '', disposition: '', dispositionComment: '',
   });
   const [fields, setFields] = useState<Record<string, string[]>>({});
@@ -48,7 +48,7 @@ export function BatchForm({ versionId, spec, productCode, today, temperatureUnit
 
   function onDateChange(e: React.ChangeEvent<HTMLInputElement>) {
     const date = e.target.value;
-    setV((s) => ({ ...s, batchDate: date, lotCode: /^\d{4}-\d{2}-\d{2}$/.test(date) ? lotCodeFor(productCode, date, Number(s.lotCode.split('-')[2]) || 1) : s.lotCode }));
+    setV((s) => ({ ...s, batchDate: date, lotCode: /^\d{4}-\d{2}-\d{2}$/.test(date) ? nextLotCode(productCode, date, takenLotCodes) : s.lotCode }));
   }
 
   async function submit(e: React.FormEvent) {

@@ -258,6 +258,13 @@ export async function listBatches(actor: Actor, filter: { productId?: string; ve
   return rows.map(batchView);
 }
 
+/** Lot codes already used for a product, so the batch form can propose the next free batch of a day. */
+export async function takenLotCodes(actor: Actor, productId: string): Promise<string[]> {
+  const em = await getEm();
+  const rows = await em.find(BatchRecord, { ...inWorkspace(actor), product: productId }, { fields: ['lotCode'] });
+  return rows.map((r) => r.lotCode);
+}
+
 export async function getProductionVersion(actor: Actor, versionId: string): Promise<VersionView> {
   const em = await getEm();
   const v = (await em.findOne(ProductionFormula, { ...inWorkspace(actor), id: versionId }, { populate: VERSION_POPULATE })) as unknown as VersionRow | null;

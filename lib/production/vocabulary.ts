@@ -56,6 +56,14 @@ export function lotCodeFor(productCode: string, isoDate: string, batchOfDay: num
   return `${productCode}-${yy}${String(dayOfYear(isoDate)).padStart(3, '0')}-${batchOfDay}`;
 }
 
+/** The first batch number of the day not yet used by `takenLotCodes` (lot codes of the product). */
+export function nextLotCode(productCode: string, isoDate: string, takenLotCodes: readonly string[]): string {
+  const taken = new Set(takenLotCodes);
+  let batch = 1;
+  while (taken.has(lotCodeFor(productCode, isoDate, batch))) batch += 1;
+  return lotCodeFor(productCode, isoDate, batch);
+}
+
 export function promotionCode(number: number): string {
   return `PR-${String(number).padStart(3, '0')}`;
 }
