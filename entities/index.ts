@@ -26,12 +26,13 @@ import { PromotionRequest } from './PromotionRequest';
 import { ProductionFormula } from './ProductionFormula';
 import { BatchRecord } from './BatchRecord';
 import { AuditEvent } from './AuditEvent';
+import { BatchDecision } from './BatchDecision';
 
 export {
   Workspace, User, Membership, Invitation, PasswordReset, ApiToken, RateLimitBucket, Ingredient, Formula, FormulaRevision,
   Trial, TrialStatusChange, Variant, Measurement, Upload, NotebookEntry, NotebookConflict,
   SensoryAttributeDef, PanelSession, PanelSample, PanelSeat, PanelAnswer,
-  Product, PromotionRequest, ProductionFormula, BatchRecord, AuditEvent,
+  Product, PromotionRequest, ProductionFormula, BatchRecord, BatchDecision, AuditEvent,
 };
 export { ROLES } from './Membership';
 
@@ -40,5 +41,5 @@ export const allEntities = [
   Ingredient, Formula, FormulaRevision,
   Trial, TrialStatusChange, Variant, Measurement, Upload, NotebookEntry, NotebookConflict,
   SensoryAttributeDef, PanelSession, PanelSample, PanelSeat, PanelAnswer,
-  Product, PromotionRequest, ProductionFormula, BatchRecord, AuditEvent,
+  Product, PromotionRequest, ProductionFormula, BatchRecord, BatchDecision, AuditEvent,
 ];

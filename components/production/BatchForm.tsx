@@ -5,13 +5,15 @@ import { useRouter } from 'next/navigation';
 import { Button } from '@/components/ui/Button';
 import { Field, FieldErrorText, SelectField, inputClass } from '@/components/ui/Field';
 import { Notice } from '@/components/ui/Notice';
+import { useFormAction } from '@/components/ui/useFormAction';
+import { CheckList } from './CheckList';
 import { checkBatchAgainstSpec, toGrams, type QcSpec } from '@/lib/chemistry';
 import { DISPOSITIONS, DISPOSITION_LABELS, nextLotCode } from '@/lib/production/vocabulary';
 import { recordBatchAction } from '@/lib/production/actions';
 import { fromDisplayTemperature, parseNumber, type TemperatureUnit } from './temperature';
 
-const STATUS_STYLE = { pass: 'text-leaf-700', fail: 'text-ember-700', not_measured: 'text-rind-500' } as const;
-const STATUS_TEXT = { pass: 'Pass', fail: 'Fail', not_measured: 'Not measured' } as const;
+// Field names of the form differ from the server's where it converts units.
+const RENAMES = { batchSizeG: 'batchSize', brixSampleTempC: 'brixSampleTemp', fillTempC: 'fillTemp' };
 
 /** Production's batch entry: every reading is checked against the spec as it is typed, and again on the server. */
 export function BatchForm({ versionId, spec, productCode, takenLotCodes, today, temperatureUnit, massUnits }: {
@@ -24,11 +26,12 @@ export function BatchForm({ versionId, spec, productCode, takenLotCodes, today, 
     lotCode: nextLotCode(productCode, today, takenLotCodes), batchDate: today, batchSize: '', brixReading: '', brixSampleTemp: temperatureUnit === 'F' ? '68' : '20', ph: '',
     fillTemp: '', netFillMeanG: '', netFillMinG: '', setTestScore: '', jarsFilled: '', jarsRejected: '0', notes: '', disposition: '', dispositionComment: '',
   });
-  const [fields, setFields] = useState<Record<string, string[]>>({});
-  const [error, setError] = useState<string>();
   const [saved, setSaved] = useState<string>();
-  const [busy, setBusy] = useState(false);
-  const set = (key: string) => (e: React.ChangeEvent<HTMLInputElement | HTMLSelectElement | HTMLTextAreaElement>) => setV((s) => ({ ...s, [key]: e.target.value }));
+  const { pending: busy, error, fields, run, revalidate } = useFormAction(recordBatchAction, { fieldPrefix: 'batch', renameFields: RENAMES });
+  const set = (key: string) => (e: React.ChangeEvent<HTMLInputElement | HTMLSelectElement | HTMLTextAreaElement>) => {
+    setV((s) => ({ ...s, [key]: e.target.value }));
+    revalidate(key);
+  };
 
   const readings = {
     brixReading: parseNumber(v.brixReading), brixSampleTempC: fromDisplayTemperature(v.brixSampleTemp, temperatureUnit), ph: parseNumber(v.ph),
@@ -48,32 +51,24 @@ export function BatchForm({ versionId, spec, productCode, takenLotCodes, today, 
 
   function onDateChange(e: React.ChangeEvent<HTMLInputElement>) {
     const date = e.target.value;
+    revalidate('batchDate');
+    revalidate('lotCode');
     setV((s) => ({ ...s, batchDate: date, lotCode: /^\d{4}-\d{2}-\d{2}$/.test(date) ? nextLotCode(productCode, date, takenLotCodes) : s.lotCode }));
   }
 
   async function submit(e: React.FormEvent) {
     e.preventDefault();
-    setBusy(true);
-    setError(undefined);
     setSaved(undefined);
-    setFields({});
     const size = parseNumber(v.batchSize);
-    const res = await recordBatchAction(versionId, {
+    const res = await run(versionId, {
       lotCode: v.lotCode, batchDate: v.batchDate, batchSizeG: size === null ? null : toGrams(size, sizeUnit), ...readings,
       jarsFilled: parseNumber(v.jarsFilled), jarsRejected: parseNumber(v.jarsRejected), notes: v.notes || null,
       disposition: v.disposition || null, dispositionComment: v.dispositionComment || null,
     });
-    setBusy(false);
-    if (res.ok) {
-      setSaved(`${v.lotCode} recorded: ${res.data.outcome === 'pass' ? 'passed every check' : 'failed, with its disposition'}.`);
+    if (res?.ok) {
+      setSaved(`${v.lotCode} recorded: ${res.data.outcome === 'pass' ? 'passed every check' : res.data.outcome === 'incomplete' ? 'incomplete, on hold until the missing checks are re-tested' : 'failed, with its disposition'}.`);
       router.push(`/production/versions/${versionId}#batches`);
       router.refresh();
-    } else {
-      const f = Object.fromEntries(Object.entries(res.fields ?? {}).map(([k, msgs]) => [k.replace(/^batch\./, ''), msgs]));
-      // Field names of the form differ where it converts units.
-      f.batchSize = f.batchSizeG; f.brixSampleTemp = f.brixSampleTempC; f.fillTemp = f.fillTempC;
-      setFields(f);
-      setError(res.error);
     }
   }
 
@@ -105,11 +100,10 @@ export function BatchForm({ versionId, spec, productCode, takenLotCodes, today, 
         <h2 className="mb-2 text-lg font-semibold">Against the spec</h2>
         {live ? (
           <>
-            <ul className="space-y-1 text-sm" data-testid="live-checks">
-              {live.checks.map((c) => (
-                <li key={c.key}><span className={`font-semibold ${STATUS_STYLE[c.status]}`}>{STATUS_TEXT[c.status]}</span> — {c.label}: {c.reason}</li>
-              ))}
-            </ul>
+            <CheckList checks={live.checks} testId="live-checks" />
+            {live.outcome === 'incomplete' ? (
+              <p className="mt-2 text-sm font-medium text-amberline-700" data-testid="live-outcome">Incomplete: the spec requires every check. Without the missing ones the batch is recorded on hold until they are re-tested.</p>
+            ) : null}
             {live.brixCorrectionNote ? <p className="mt-2 text-xs text-rind-500">{live.brixCorrectionNote}</p> : null}
           </>
         ) : <p className="text-sm text-rind-600">Enter the refractometer reading and its temperature, the pH and the fill temperature to see the checks.</p>}

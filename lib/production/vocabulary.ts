@@ -13,8 +13,21 @@ export const VERSION_STATUSES = ['current', 'superseded'] as const;
 export type VersionStatus = (typeof VERSION_STATUSES)[number];
 export const VERSION_STATUS_LABELS: Record<VersionStatus, string> = { current: 'In production', superseded: 'Superseded' };
 
-export const BATCH_OUTCOMES = ['pass', 'fail'] as const;
+/** A batch's checks: all passed, one failed, or none failed but one the spec requires was not measured. */
+export const BATCH_OUTCOMES = ['pass', 'fail', 'incomplete'] as const;
 export type BatchOutcome = (typeof BATCH_OUTCOMES)[number];
+export const BATCH_OUTCOME_LABELS: Record<BatchOutcome, string> = { pass: 'Pass', fail: 'Fail', incomplete: 'Incomplete' };
+
+/** What can follow a held batch: re-tests, then one release or reject. */
+export const BATCH_DECISION_KINDS = ['retest', 'release', 'reject'] as const;
+export type BatchDecisionKind = (typeof BATCH_DECISION_KINDS)[number];
+
+/** Where a batch stands: passed at recording, held (failed or incomplete), discarded at recording, or released/rejected after a hold. */
+export const BATCH_STATUSES = ['passed', 'held', 'discarded', 'released', 'rejected'] as const;
+export type BatchStatus = (typeof BATCH_STATUSES)[number];
+export const BATCH_STATUS_LABELS: Record<BatchStatus, string> = {
+  passed: 'Passed', held: 'On hold', discarded: 'Discarded', released: 'Released', rejected: 'Rejected',
+};
 
 /** What happens to a batch that failed a check. */
 export const DISPOSITIONS = ['rework', 'hold', 'discard'] as const;
@@ -35,6 +48,10 @@ export const AUDIT_ACTIONS = {
   'version.superseded': 'Superseded production version',
   'batch.recorded': 'Recorded batch',
   'batch.failed': 'Recorded failed batch',
+  'batch.incomplete': 'Recorded incomplete batch',
+  'batch.retested': 'Re-tested held batch',
+  'batch.released': 'Released held batch',
+  'batch.rejected': 'Rejected held batch',
 } as const;
 export type AuditAction = keyof typeof AUDIT_ACTIONS;
 

@@ -1,7 +1,7 @@
 import Link from 'next/link';
 import { requirePage, orNotFound, pageId } from '@/lib/page-guard';
 import { can } from '@/lib/permissions';
-import { getProduct } from '@/lib/production/queries';
+import { getProduct, type BatchView } from '@/lib/production/queries';
 import { PageHeader, Card } from '@/components/ui/Card';
 import { buttonClass } from '@/components/ui/Button';
 import { StatusBadge } from '@/components/production/StatusBadge';
@@ -10,6 +10,8 @@ import { TrendChart } from '@/components/production/TrendChart';
 
 export const dynamic = 'force-dynamic';
 export const metadata = { title: 'Product' };
+
+const checkPassed = (b: BatchView, key: string) => b.checks.find((c) => c.key === key)?.status === 'pass';
 
 export default async function ProductPage({ params }: { params: Promise<{ productId: string }> }) {
   const actor = await requirePage('production.read');
@@ -40,8 +42,8 @@ export default async function ProductPage({ params }: { params: Promise<{ produc
       <section className="mt-6 grid gap-4 lg:grid-cols-2" aria-label="Trends">
         {batches.length ? (
           <>
-            <TrendChart title="Soluble solids at 20 °C" unit="°Brix" decimals={1} points={batches.map((b) => ({ lotCode: b.lotCode, value: b.brix20, min: b.limits.solidsMin, max: b.limits.solidsMax, outcome: b.outcome }))} />
-            <TrendChart title="pH" unit="pH" decimals={2} points={batches.map((b) => ({ lotCode: b.lotCode, value: b.ph, min: b.limits.phMin, max: b.limits.phMax, outcome: b.outcome }))} />
+            <TrendChart title="Soluble solids at 20 °C" unit="°Brix" decimals={1} points={batches.map((b) => ({ lotCode: b.lotCode, value: b.brix20, min: b.limits.solidsMin, max: b.limits.solidsMax, ok: checkPassed(b, 'solids') }))} />
+            <TrendChart title="pH" unit="pH" decimals={2} points={batches.map((b) => ({ lotCode: b.lotCode, value: b.ph, min: b.limits.phMin, max: b.limits.phMax, ok: checkPassed(b, 'ph') }))} />
           </>
         ) : <p className="text-sm text-rind-600">The trend charts appear with the first batch.</p>}
       </section>
