@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { passwordSchema } from '@/lib/passwords';
+import { passwordSchema } from '@/lib/password-rules';
 
 const tokenSchema = z.string().min(20, 'This link is not valid.').max(200, 'This link is not valid.');
 
