@@ -1,6 +1,16 @@
 import { z } from 'zod';
 import { passwordSchema } from '@/lib/password-rules';
 
+/** Compare the two passwords even while another field is invalid, so the form can re-check the repeat as it is typed. */
+const bothPasswordsTyped = {
+  path: ['confirm'],
+  message: 'The two passwords differ.',
+  when: (payload: { value: unknown }) => {
+    const v = payload.value as { password?: unknown; confirm?: unknown } | null;
+    return typeof v?.password === 'string' && typeof v?.confirm === 'string';
+  },
+};
+
 const tokenSchema = z.string().min(20, 'This link is not valid.').max(200, 'This link is not valid.');
 
 export const acceptInvitationSchema = z
@@ -10,7 +20,7 @@ export const acceptInvitationSchema = z
     password: passwordSchema,
     confirm: z.string(),
   })
-  .refine((v) => v.password === v.confirm, { path: ['confirm'], message: 'The two passwords differ.' });
+  .refine((v) => v.password === v.confirm, bothPasswordsTyped);
 
 export const requestResetSchema = z.object({
   email: z.email('Enter a valid e-mail address.').transform((s) => s.trim().toLowerCase()),
@@ -18,7 +28,7 @@ export const requestResetSchema = z.object({
 
 export const resetPasswordSchema = z
   .object({ token: tokenSchema, password: passwordSchema, confirm: z.string() })
-  .refine((v) => v.password === v.confirm, { path: ['confirm'], message: 'The two passwords differ.' });
+  .refine((v) => v.password === v.confirm, bothPasswordsTyped);
 
 export const preferencesSchema = z.object({
   name: z.string().trim().min(1, 'Enter your name.').max(120),
