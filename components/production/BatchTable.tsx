@@ -3,6 +3,7 @@ import type { BatchView } from '@/lib/production/queries';
 import { DISPOSITION_LABELS } from '@/lib/production/vocabulary';
 import { formatMass, formatTemperature, type UnitPreference } from '@/lib/chemistry';
 import { StatusBadge } from './StatusBadge';
+import { formatDate } from '@/lib/format/dates';
 
 export function BatchTable({ batches, units, temperatures }: { batches: BatchView[]; units: UnitPreference; temperatures: UnitPreference }) {
   if (!batches.length) return <p className="text-sm text-rind-600">No batches recorded yet.</p>;
@@ -26,7 +27,7 @@ export function BatchTable({ batches, units, temperatures }: { batches: BatchVie
           {batches.map((b) => (
             <tr key={b.id} className="border-b border-pith-200 align-top">
               <td className="py-2 pr-3 font-mono"><Link href={`/production/batches/${b.id}`} className="text-damson-700 underline">{b.lotCode}</Link></td>
-              <td className="py-2 pr-3 tabular-nums">{b.batchDate}</td>
+              <td className="py-2 pr-3 tabular-nums">{formatDate(b.batchDate)}</td>
               <td className="py-2 pr-3">v{b.version}</td>
               <td className="py-2 pr-3">{formatMass(b.batchSizeG, units)}</td>
               <td className="py-2 pr-3 tabular-nums">{b.brix20.toFixed(1)}</td>

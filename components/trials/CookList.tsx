@@ -4,6 +4,7 @@ import type { MeasurementView } from '@/lib/trials/schema';
 import { EmptyState } from '@/components/ui/Card';
 import { FLAG_CLASS, massText, numText, tempText } from './format';
 import { DeleteCookButton } from './DeleteCookButton';
+import { formatDate } from '@/lib/format/dates';
 
 const FLAG_WORD: Record<string, string> = { ok: 'within', watch: 'check', out: 'out of window', danger: 'SAFETY', unknown: '' };
 
@@ -17,7 +18,7 @@ export function CookList({ trialId, cooks, massUnits, temperatureUnit, canEdit }
       {cooks.map((m) => (
         <li key={m.id} className="rounded-card bg-pith-50 p-4 ring-1 ring-pith-300">
           <div className="flex flex-wrap items-baseline justify-between gap-2">
-            <p className="font-medium">Cook of {new Date(`${m.cookDate}T12:00:00Z`).toLocaleDateString('en-GB', { dateStyle: 'medium' })} <span className="text-sm font-normal text-rind-500">by {m.recordedByName}{m.batchSizeG ? ` · ${massText(m.batchSizeG, massUnits)} charge` : ''}</span></p>
+            <p className="font-medium">Cook of {formatDate(m.cookDate)} <span className="text-sm font-normal text-rind-500">by {m.recordedByName}{m.batchSizeG ? ` · ${massText(m.batchSizeG, massUnits)} charge` : ''}</span></p>
             {canEdit ? <DeleteCookButton trialId={trialId} measurementId={m.id} /> : null}
           </div>
           {m.comparison.rows.some((r) => r.flag === 'danger') ? (

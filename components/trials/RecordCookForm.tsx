@@ -8,6 +8,7 @@ import { Notice } from '@/components/ui/Notice';
 import { Field, SelectField, inputClass } from '@/components/ui/Field';
 import { SET_TEST_METHODS, SET_TEST_METHOD_LABELS, SET_TEST_SCALE, SYNERESIS_LABELS, SYNERESIS_LEVELS } from '@/lib/trials/vocabulary';
 import { recordMeasurementAction } from '@/lib/trials/actions';
+import { todayIso } from '@/lib/format/dates';
 
 /** Readings are entered in the person's units and stored in grams and °C; the refractometer reading is stored as read. */
 export function RecordCookForm({ trialId, variantId, massUnits, temperatureUnit }: { trialId: string; variantId: string; massUnits: UnitPreference; temperatureUnit: 'C' | 'F' }) {
@@ -80,7 +81,7 @@ export function RecordCookForm({ trialId, variantId, massUnits, temperatureUnit 
     <form onSubmit={submit} className="space-y-4 rounded-card bg-pith-50 p-5 ring-1 ring-pith-300" noValidate aria-label="Record a cook">
       <h2 className="text-lg font-semibold">Record a cook</h2>
       <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-3">
-        <Field label="Cook date" name="cookDate" type="date" required defaultValue={new Date().toISOString().slice(0, 10)} errors={fields.cookDate} />
+        <Field label="Cook date" name="cookDate" type="date" required defaultValue={todayIso()} errors={fields.cookDate} />
         <Field label={`Batch size, total charge (${massUnit})`} name="batchSizeG" inputMode="decimal" errors={fields.batchSizeG} />
         <Field label="Boil time (min)" name="boilTimeMin" inputMode="decimal" errors={fields.boilTimeMin} />
         <Field label="Refractometer reading (°Brix, as read)" name="brixReading" inputMode="decimal" errors={fields.brixReading} />

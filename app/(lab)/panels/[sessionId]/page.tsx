@@ -7,6 +7,7 @@ import { listMembers } from '@/lib/members/queries';
 import { env } from '@/lib/env';
 import { PanelControl } from '@/components/panels/PanelControl';
 import { PageHeader } from '@/components/ui/Card';
+import { formatDateTime } from '@/lib/format/dates';
 
 export const dynamic = 'force-dynamic';
 export const metadata = { title: 'Tasting' };
@@ -20,7 +21,7 @@ export default async function PanelPage({ params }: { params: Promise<{ sessionI
   return (
     <>
       <p className="text-sm text-rind-500"><Link href={`/trials/${session.trialId}`} className="underline-offset-2 hover:underline">Back to the trial</Link></p>
-      <PageHeader title={session.title} lead={[session.place, session.startsAt ? new Date(session.startsAt).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short' }) : null].filter(Boolean).join(' · ') || undefined} />
+      <PageHeader title={session.title} lead={[session.place, session.startsAt ? formatDateTime(session.startsAt) : null].filter(Boolean).join(' · ') || undefined} />
       <PanelControl initial={session} qrDataUrl={qrDataUrl} joinUrl={joinUrl} members={members} canRun={can(actor.role, 'panels.run')} />
     </>
   );

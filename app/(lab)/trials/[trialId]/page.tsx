@@ -17,6 +17,7 @@ import { NotebookEditor } from '@/components/notebook/NotebookEditor';
 import { listPanelSessions } from '@/lib/panels/queries';
 import { PANEL_METHOD_LABELS, PANEL_STATE_LABELS } from '@/lib/panels/vocabulary';
 import { buttonClass } from '@/components/ui/Button';
+import { formatDateTime } from '@/lib/format/dates';
 
 export const dynamic = 'force-dynamic';
 export const metadata = { title: 'Trial' };
@@ -90,7 +91,7 @@ export default async function TrialPage({ params }: { params: Promise<{ trialId:
             <ol className="space-y-1 text-sm text-rind-700">
               {trial.history.map((h, i) => (
                 <li key={i}>
-                  {new Date(h.at).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short' })} — {h.from ? `${TRIAL_STATUS_LABELS[h.from]} → ` : ''}
+                  {formatDateTime(h.at)} — {h.from ? `${TRIAL_STATUS_LABELS[h.from]} → ` : ''}
                   {TRIAL_STATUS_LABELS[h.to]} by {h.byName}
                   {h.note ? ` (“${h.note}”)` : ''}
                 </li>

@@ -7,6 +7,7 @@ import { buttonClass } from '@/components/ui/Button';
 import { StatusBadge } from '@/components/production/StatusBadge';
 import { BatchTable } from '@/components/production/BatchTable';
 import { TrendChart } from '@/components/production/TrendChart';
+import { formatDate } from '@/lib/format/dates';
 
 export const dynamic = 'force-dynamic';
 export const metadata = { title: 'Product' };
@@ -33,7 +34,7 @@ export default async function ProductPage({ params }: { params: Promise<{ produc
         <ul className="divide-y divide-pith-200" data-testid="versions">
           {versions.map((v) => (
             <li key={v.id} className="flex flex-wrap items-center justify-between gap-2 py-2 text-sm">
-              <span><Link href={`/production/versions/${v.id}`} className="font-medium text-damson-800 underline">v{v.version}</Link> — from {v.source.trialCode} variant {v.source.variantLabel}, approved by {v.approvedBy} on {v.approvedAt.slice(0, 10)}{v.supersededAt ? `; superseded by v${v.supersededByVersion} on ${v.supersededAt.slice(0, 10)}` : ''}</span>
+              <span><Link href={`/production/versions/${v.id}`} className="font-medium text-damson-800 underline">v{v.version}</Link> — from {v.source.trialCode} variant {v.source.variantLabel}, approved by {v.approvedBy} on {formatDate(v.approvedAt)}{v.supersededAt ? `; superseded by v${v.supersededByVersion} on ${formatDate(v.supersededAt)}` : ''}</span>
               <StatusBadge status={v.status} />
             </li>
           ))}
