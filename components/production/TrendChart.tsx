@@ -67,11 +67,12 @@ export function TrendChart({ title, unit, points, decimals }: { title: string; u
         ) : <p className="text-rind-600">No point breaks a run rule.</p>}
         <p className="mt-1 text-xs text-rind-500">Run rules: {RUN_RULE_SET}, with the spec window as the limits and its middle as the target.</p>
       </div>
-      <table className="sr-only">
+      {/* A table cannot shrink to sr-only's 1 px, so the wrapper hides it (no sideways scroll on a phone). */}
+      <div className="sr-only"><table>
         <caption>{title} by batch</caption>
         <thead><tr><th>Lot</th><th>Value</th><th>Minimum</th><th>Maximum</th><th>Checks</th><th>Run rule</th></tr></thead>
         <tbody>{points.map((p, i) => <tr key={p.lotCode}><td>{p.lotCode}</td><td>{p.value.toFixed(decimals)}</td><td>{p.min}</td><td>{p.max}</td><td>{p.ok ? 'Passed' : 'Not passed'}</td><td>{signals.filter((s) => s.index === i).map((s) => RUN_RULE_LABELS[s.rule]).join('; ') || 'None'}</td></tr>)}</tbody>
-      </table>
+      </table></div>
     </figure>
   );
 }
