@@ -85,7 +85,7 @@ export function BatchForm({ versionId, spec, productCode, takenLotCodes, today, 
         <Field label={`Sample temperature (${deg})`} name="brixSampleTemp" inputMode="decimal" value={v.brixSampleTemp} onChange={set('brixSampleTemp')} errors={fields.brixSampleTemp} hint="Corrected to 20 °C for the check." />
         <Field label="pH" name="ph" inputMode="decimal" value={v.ph} onChange={set('ph')} errors={fields.ph} />
         <Field label={`Fill temperature (${deg})`} name="fillTemp" inputMode="decimal" value={v.fillTemp} onChange={set('fillTemp')} errors={fields.fillTemp} />
-        <Field label="Mean net fill (g)" name="netFillMeanG" inputMode="decimal" value={v.netFillMeanG} onChange={set('netFillMeanG')} errors={fields.netFillMeanG} hint="Of the jars weighed; optional." />
+        <Field label="Mean net fill (g)" name="netFillMeanG" inputMode="decimal" value={v.netFillMeanG} onChange={set('netFillMeanG')} errors={fields.netFillMeanG} hint="Of the jars weighed. The spec needs it for a pass." />
         <Field label="Lightest jar (g)" name="netFillMinG" inputMode="decimal" value={v.netFillMinG} onChange={set('netFillMinG')} errors={fields.netFillMinG} />
         <Field label="Set test score (1–5)" name="setTestScore" inputMode="numeric" value={v.setTestScore} onChange={set('setTestScore')} errors={fields.setTestScore} />
         <Field label="Jars filled" name="jarsFilled" inputMode="numeric" value={v.jarsFilled} onChange={set('jarsFilled')} errors={fields.jarsFilled} />

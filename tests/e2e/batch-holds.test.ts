@@ -78,8 +78,8 @@ describe('held batches, as production', () => {
       await page.getByLabel('Reason').fill('Every check passes after the re-test.');
       await page.getByRole('button', { name: 'Release the batch' }).click();
       await page.getByRole('dialog').getByRole('button', { name: 'Release' }).click();
-      await page.getByText('Released').first().waitFor();
-      await expect.poll(async () => (await page.getByTestId('audit-trail').textContent()) ?? '').toMatch(/Re-tested held batch/);
+      await expect.poll(async () => (await page.getByTestId('audit-trail').textContent()) ?? '', { timeout: 15_000 }).toMatch(/Re-tested held batch.*Released held batch/s);
+      expect(await page.getByRole('form', { name: 'Re-test the batch' }).count()).toBe(0);
       await screenshot(page, `h7-batch-decided-${label}`);
       expect(await overflow(page)).toBeLessThanOrEqual(0);
       expect(problems).toEqual([]);
