@@ -27,12 +27,13 @@ import { PromotionRequest } from './PromotionRequest';
 import { ProductionFormula } from './ProductionFormula';
 import { BatchRecord } from './BatchRecord';
 import { AuditEvent } from './AuditEvent';
+import { BatchDecision } from './BatchDecision';
 
 export {
   Workspace, User, Membership, Invitation, PasswordReset, ApiToken, RateLimitBucket, Ingredient, Formula, FormulaRevision,
   Trial, TrialStatusChange, Variant, Measurement, MeasurementChange, Upload, NotebookEntry, NotebookConflict,
   SensoryAttributeDef, PanelSession, PanelSample, PanelSeat, PanelAnswer,
-  Product, PromotionRequest, ProductionFormula, BatchRecord, AuditEvent,
+  Product, PromotionRequest, ProductionFormula, BatchRecord, BatchDecision, AuditEvent,
 };
 export { ROLES } from './Membership';
 
@@ -41,5 +42,5 @@ export const allEntities = [
   Ingredient, Formula, FormulaRevision,
   Trial, TrialStatusChange, Variant, Measurement, MeasurementChange, Upload, NotebookEntry, NotebookConflict,
   SensoryAttributeDef, PanelSession, PanelSample, PanelSeat, PanelAnswer,
-  Product, PromotionRequest, ProductionFormula, BatchRecord, AuditEvent,
+  Product, PromotionRequest, ProductionFormula, BatchRecord, BatchDecision, AuditEvent,
 ];

@@ -1,17 +1,8 @@
 import bcrypt from 'bcryptjs';
-import { z } from 'zod';
 
 const BCRYPT_COST = 11;
 
-export { PASSWORD_RULES } from '@/lib/password-rules';
-
-export const passwordSchema = z
-  .string()
-  .min(10, 'Use at least 10 characters.')
-  .max(200, 'Use at most 200 characters.')
-  .refine((s) => /\p{L}/u.test(s), 'Include at least one letter.')
-  .refine((s) => /[^\p{L}]/u.test(s), 'Include at least one digit or symbol.')
-  .refine((s) => new Set(s).size >= 4, 'Use more than three different characters.');
+export { PASSWORD_RULES, passwordSchema } from '@/lib/password-rules';
 
 export function hashPassword(password: string): Promise<string> {
   return bcrypt.hash(password, BCRYPT_COST);

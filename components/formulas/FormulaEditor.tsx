@@ -31,6 +31,7 @@ import {
   convertSettingsForTemperature,
   draftFromText,
   EMPTY_FIELD_ERRORS,
+  hasFieldErrors,
   ingredientIndex,
   initialSettingsDraft,
   issuesToFieldErrors,
@@ -72,7 +73,8 @@ type SaveStatus =
   | { kind: 'idle' }
   | { kind: 'saving' }
   | { kind: 'saved'; revision: number }
-  | { kind: 'error'; message: string }
+  /** `aboutFields`: the message only summarises field errors, so it goes once they are fixed. */
+  | { kind: 'error'; message: string; aboutFields?: boolean }
   | { kind: 'conflict'; message: string };
 
 const SYSTEM_OPTIONS = [
@@ -207,7 +209,7 @@ export function FormulaEditor({ mode, initial, ingredients, massUnits, temperatu
     const check = (mode === 'create' ? createFormulaSchema : reviseFormulaSchema).safeParse(body);
     if (!check.success) {
       setErrors(mapFieldErrors(issuesToFieldErrors(check.error.issues), sentKeys));
-      setStatus({ kind: 'error', message: 'Some fields need attention; they are marked below.' });
+      setStatus({ kind: 'error', message: 'Some fields need attention; they are marked below.', aboutFields: true });
       return;
     }
 
@@ -228,7 +230,7 @@ export function FormulaEditor({ mode, initial, ingredients, massUnits, temperatu
         return;
       }
       if (result.status === 422) setErrors(mapFieldErrors(result.fields, sentKeys));
-      setStatus({ kind: 'error', message: result.error });
+      setStatus({ kind: 'error', message: result.error, aboutFields: result.status === 422 && !!result.fields });
     } catch {
       setStatus({ kind: 'error', message: 'The formula was not saved: the server could not be reached. Everything you typed is still here.' });
     }
@@ -465,7 +467,7 @@ export function FormulaEditor({ mode, initial, ingredients, massUnits, temperatu
                 errors={errors.fields.note}
               />
               {status.kind === 'saved' ? <Notice tone="success">Saved as revision {status.revision}.</Notice> : null}
-              {status.kind === 'error' ? (
+              {status.kind === 'error' && !(status.aboutFields && !hasFieldErrors(errors)) ? (
                 <Notice tone="danger" title="Not saved">
                   <p>{status.message}</p>
                   {errors.unplaced.length ? (

@@ -1,5 +1,6 @@
 import Link from 'next/link';
 import type { FormulaDetail } from '@/lib/formulas/schema';
+import { formatDateTime } from '@/lib/format/dates';
 
 /** Name, revision and the formula's sub-pages. */
 export function FormulaHeader({ formula, active }: { formula: FormulaDetail; active: 'editor' | 'history' | 'print' }) {
@@ -17,7 +18,7 @@ export function FormulaHeader({ formula, active }: { formula: FormulaDetail; act
       </p>
       <h1 className="text-3xl font-semibold tracking-tight">{formula.name}</h1>
       <p className="mt-1 text-sm text-rind-600">
-        Revision {c.number}, saved by {c.createdBy.name} on {new Date(c.createdAt).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short' })}
+        Revision {c.number}, saved by {c.createdBy.name} on {formatDateTime(c.createdAt)}
         {c.note ? ` — “${c.note}”` : ''}
       </p>
       {formula.description ? <p className="mt-2 max-w-3xl text-rind-700">{formula.description}</p> : null}

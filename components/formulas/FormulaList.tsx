@@ -2,6 +2,7 @@ import Link from 'next/link';
 import { formatMass, type UnitPreference } from '@/lib/chemistry';
 import { PRODUCT_CLASS_LABELS, RULE_SET_LABELS, type FormulaSummary } from '@/lib/formulas/schema';
 import { EmptyState } from '@/components/ui/Card';
+import { formatDate } from '@/lib/format/dates';
 
 const STATUS: Record<string, { label: string; className: string }> = {
   compliant: { label: 'Meets the rules', className: 'bg-leaf-50 text-leaf-700 ring-leaf-100' },
@@ -42,7 +43,7 @@ export function FormulaList({ formulas, massUnits, canCreate, query }: { formula
                 {f.warningCount ? <span className="rounded-full bg-amberline-100 px-2 py-0.5 text-amberline-700">{f.warningCount} warning{f.warningCount > 1 ? 's' : ''}</span> : null}
               </div>
               <p className="mt-3 text-xs text-rind-500">
-                Saved by {f.updatedByName} on {new Date(f.updatedAt).toLocaleDateString('en-GB', { day: 'numeric', month: 'short', year: 'numeric' })}
+                Saved by {f.updatedByName} on {formatDate(f.updatedAt)}
               </p>
             </Link>
           </li>

@@ -447,6 +447,11 @@ export function hasAnyFieldError(errors: MappedFieldErrors): boolean {
   return Object.keys(errors.fields).length > 0 || Object.keys(errors.lines).length > 0 || errors.unplaced.length > 0;
 }
 
+/** True while any field, line or unplaced error is left to fix. */
+export function hasFieldErrors(errors: MappedFieldErrors): boolean {
+  return Object.keys(errors.fields).length > 0 || Object.values(errors.lines).some((l) => Object.keys(l).length > 0) || errors.unplaced.length > 0;
+}
+
 export const EMPTY_FIELD_ERRORS: MappedFieldErrors = { fields: {}, lines: {}, unplaced: [] };
 
 /* ---------- sources of the sucrose boiling table rows used ---------- */

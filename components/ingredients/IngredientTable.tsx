@@ -3,6 +3,7 @@ import type { UnitPreference } from '@/lib/chemistry';
 import { buttonClass } from '@/components/ui/Button';
 import { EmptyState } from '@/components/ui/Card';
 import { inputClass } from '@/components/ui/Field';
+import { formatDate } from '@/lib/format/dates';
 import {
   EU_GROUP_LABELS,
   INGREDIENT_KINDS,
@@ -56,13 +57,6 @@ function decimal(value: number, maxDecimals = 2): string {
   return String(Number(value.toFixed(maxDecimals)));
 }
 
-/** A fixed locale and zone, so the server and a test render the same text. */
-const DATE_FORMAT = new Intl.DateTimeFormat('en-GB', { day: 'numeric', month: 'short', year: 'numeric', timeZone: 'UTC' });
-
-function formatDate(iso: string): string {
-  const t = Date.parse(iso);
-  return Number.isNaN(t) ? iso : DATE_FORMAT.format(t);
-}
 
 function queryString(params: Record<string, string | undefined>): string {
   const search = new URLSearchParams();

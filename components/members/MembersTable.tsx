@@ -9,6 +9,7 @@ import { Notice } from '@/components/ui/Notice';
 import { ConfirmDialog } from '@/components/ui/ConfirmDialog';
 import { ROLE_LABELS, ROLES, type Role } from '@/lib/permissions';
 import type { MemberRow, PendingInvitation } from '@/lib/members/schema';
+import { formatDate } from '@/lib/format/dates';
 
 type MembersPayload = { members: MemberRow[]; invitations: PendingInvitation[] };
 type Pending = { kind: 'deactivate' | 'reactivate'; member: MemberRow } | { kind: 'revoke'; invitation: PendingInvitation } | null;
@@ -121,7 +122,7 @@ export function MembersTable({ currentUserId }: { currentUserId: string }) {
                 <td className="px-4 py-3 italic text-rind-500">Invited</td>
                 <td className="px-4 py-3">{i.email}</td>
                 <td className="px-4 py-3">{ROLE_LABELS[i.role]}</td>
-                <td className="px-4 py-3 text-xs">Waiting · expires {new Date(i.expiresAt).toLocaleDateString()}</td>
+                <td className="px-4 py-3 text-xs">Waiting · expires {formatDate(i.expiresAt)}</td>
                 <td className="px-4 py-3 text-right">
                   <Button tone="ghost" type="button" disabled={busy} onClick={() => setPending({ kind: 'revoke', invitation: i })}>Revoke</Button>
                 </td>

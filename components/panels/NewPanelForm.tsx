@@ -6,6 +6,7 @@ import { apiFetch, ApiClientError } from '@/components/api/client';
 import { Button } from '@/components/ui/Button';
 import { Field, FieldErrorText, inputClass } from '@/components/ui/Field';
 import { Notice } from '@/components/ui/Notice';
+import { scaleNote } from '@/lib/sensory/scales';
 import { PANEL_METHODS, PANEL_METHOD_LABELS, type PanelMethod } from '@/lib/panels/vocabulary';
 
 const DEFAULT_NOTICE =
@@ -112,7 +113,7 @@ export function NewPanelForm({ trialId, variants, attributes, suggestedAttribute
           <div className="mt-2 grid gap-2 sm:grid-cols-2">
             {attributes.map((a) => (
               <label key={a.id} className="flex min-h-10 items-center gap-2 text-sm">
-                <input type="checkbox" checked={attrs.includes(a.id)} onChange={() => setAttrs(toggle(attrs, a.id))} /> {a.name} <span className="text-xs text-rind-500">({a.scaleName})</span>
+                <input type="checkbox" checked={attrs.includes(a.id)} onChange={() => setAttrs(toggle(attrs, a.id))} /> {a.name}{scaleNote(a.name, a.scaleName) ? <span className="text-xs text-rind-500"> ({a.scaleName})</span> : null}
               </label>
             ))}
           </div>

@@ -18,8 +18,8 @@ const STATUS_LABEL = { joined: 'Joined', answering: 'Answering', submitted: 'Sub
  * The organiser's live view. Progress is polled from the API every few seconds, so it works
  * the same with any number of app servers behind a load balancer.
  */
-export function PanelControl({ initial, qrDataUrl, joinUrl, members, canRun }: {
-  initial: PanelSessionView; qrDataUrl: string | null; joinUrl: string | null;
+export function PanelControl({ initial, qrDataUrl, joinUrl, members, canRun, joinUrlLocalOnly = false }: {
+  initial: PanelSessionView; qrDataUrl: string | null; joinUrl: string | null; joinUrlLocalOnly?: boolean;
   members: Array<{ userId: string; name: string; role: string }>; canRun: boolean;
 }) {
   const { data, mutate } = useSWR<{ session: PanelSessionView }>(`/api/v1/panels/${initial.id}`, (u: string) => apiFetch(u), {
@@ -70,6 +70,13 @@ export function PanelControl({ initial, qrDataUrl, joinUrl, members, canRun }: {
             <p className="text-sm text-rind-600">Guests open <strong>{joinUrl?.replace(/\?.*$/, '')}</strong> on their phone and type</p>
             <p className="font-mono text-5xl font-bold tracking-[0.3em] text-damson-900" data-testid="join-code">{s.joinCode}</p>
             <p className="mt-1 text-sm text-rind-600">or scan the code. Each guest gets a seat of their own for this tasting only.</p>
+            {joinUrlLocalOnly ? (
+              <div className="mt-3" data-testid="join-link-local">
+                <Notice tone="warning" title="Phones cannot open this address">
+                  The app’s public address (APP_URL) points at this computer only. Restart the app with the address phones on the kitchen’s network reach, e.g. <code>APP_URL=http://192.168.1.20:3000</code> (see the README).
+                </Notice>
+              </div>
+            ) : null}
           </div>
         </section>
       ) : null}

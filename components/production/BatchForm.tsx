@@ -5,30 +5,33 @@ import { useRouter } from 'next/navigation';
 import { Button } from '@/components/ui/Button';
 import { Field, FieldErrorText, SelectField, inputClass } from '@/components/ui/Field';
 import { Notice } from '@/components/ui/Notice';
+import { useFormAction } from '@/components/ui/useFormAction';
+import { CheckList } from './CheckList';
 import { checkBatchAgainstSpec, toGrams, type QcSpec } from '@/lib/chemistry';
-import { DISPOSITIONS, DISPOSITION_LABELS, lotCodeFor } from '@/lib/production/vocabulary';
+import { DISPOSITIONS, DISPOSITION_LABELS, nextLotCode } from '@/lib/production/vocabulary';
 import { recordBatchAction } from '@/lib/production/actions';
 import { fromDisplayTemperature, parseNumber, type TemperatureUnit } from './temperature';
 
-const STATUS_STYLE = { pass: 'text-leaf-700', fail: 'text-ember-700', not_measured: 'text-rind-500' } as const;
-const STATUS_TEXT = { pass: 'Pass', fail: 'Fail', not_measured: 'Not measured' } as const;
+// Field names of the form differ from the server's where it converts units.
+const RENAMES = { batchSizeG: 'batchSize', brixSampleTempC: 'brixSampleTemp', fillTempC: 'fillTemp' };
 
 /** Production's batch entry: every reading is checked against the spec as it is typed, and again on the server. */
-export function BatchForm({ versionId, spec, productCode, today, temperatureUnit, massUnits }: {
-  versionId: string; spec: QcSpec; productCode: string; today: string; temperatureUnit: TemperatureUnit; massUnits: 'metric' | 'imperial';
+export function BatchForm({ versionId, spec, productCode, takenLotCodes, today, temperatureUnit, massUnits }: {
+  versionId: string; spec: QcSpec; productCode: string; takenLotCodes: readonly string[]; today: string; temperatureUnit: TemperatureUnit; massUnits: 'metric' | 'imperial';
 }) {
   const router = useRouter();
   const deg = temperatureUnit === 'F' ? '°F' : '°C';
   const sizeUnit = massUnits === 'imperial' ? 'lb' : 'kg';
   const [v, setV] = useState<Record<string, string>>({
-    lotCode: lotCodeFor(productCode, today, 1), batchDate: today, batchSize: '', brixReading: '', brixSampleTemp: temperatureUnit === 'F' ? '68' : '20', ph: '',
+    lotCode: nextLotCode(productCode, today, takenLotCodes), batchDate: today, batchSize: '', brixReading: '', brixSampleTemp: temperatureUnit === 'F' ? '68' : '20', ph: '',
     fillTemp: '', netFillMeanG: '', netFillMinG: '', setTestScore: '', jarsFilled: '', jarsRejected: '0', notes: '', disposition: '', dispositionComment: '',
   });
-  const [fields, setFields] = useState<Record<string, string[]>>({});
-  const [error, setError] = useState<string>();
   const [saved, setSaved] = useState<string>();
-  const [busy, setBusy] = useState(false);
-  const set = (key: string) => (e: React.ChangeEvent<HTMLInputElement | HTMLSelectElement | HTMLTextAreaElement>) => setV((s) => ({ ...s, [key]: e.target.value }));
+  const { pending: busy, error, fields, run, revalidate } = useFormAction(recordBatchAction, { fieldPrefix: 'batch', renameFields: RENAMES });
+  const set = (key: string) => (e: React.ChangeEvent<HTMLInputElement | HTMLSelectElement | HTMLTextAreaElement>) => {
+    setV((s) => ({ ...s, [key]: e.target.value }));
+    revalidate(key);
+  };
 
   const readings = {
     brixReading: parseNumber(v.brixReading), brixSampleTempC: fromDisplayTemperature(v.brixSampleTemp, temperatureUnit), ph: parseNumber(v.ph),
@@ -48,32 +51,24 @@ export function BatchForm({ versionId, spec, productCode, today, temperatureUnit
 
   function onDateChange(e: React.ChangeEvent<HTMLInputElement>) {
     const date = e.target.value;
-    setV((s) => ({ ...s, batchDate: date, lotCode: /^\d{4}-\d{2}-\d{2}$/.test(date) ? lotCodeFor(productCode, date, Number(s.lotCode.split('-')[2]) || 1) : s.lotCode }));
+    revalidate('batchDate');
+    revalidate('lotCode');
+    setV((s) => ({ ...s, batchDate: date, lotCode: /^\d{4}-\d{2}-\d{2}$/.test(date) ? nextLotCode(productCode, date, takenLotCodes) : s.lotCode }));
   }
 
   async function submit(e: React.FormEvent) {
     e.preventDefault();
-    setBusy(true);
-    setError(undefined);
     setSaved(undefined);
-    setFields({});
     const size = parseNumber(v.batchSize);
-    const res = await recordBatchAction(versionId, {
+    const res = await run(versionId, {
       lotCode: v.lotCode, batchDate: v.batchDate, batchSizeG: size === null ? null : toGrams(size, sizeUnit), ...readings,
       jarsFilled: parseNumber(v.jarsFilled), jarsRejected: parseNumber(v.jarsRejected), notes: v.notes || null,
       disposition: v.disposition || null, dispositionComment: v.dispositionComment || null,
     });
-    setBusy(false);
-    if (res.ok) {
-      setSaved(`${v.lotCode} recorded: ${res.data.outcome === 'pass' ? 'passed every check' : 'failed, with its disposition'}.`);
+    if (res?.ok) {
+      setSaved(`${v.lotCode} recorded: ${res.data.outcome === 'pass' ? 'passed every check' : res.data.outcome === 'incomplete' ? 'incomplete, on hold until the missing checks are re-tested' : 'failed, with its disposition'}.`);
       router.push(`/production/versions/${versionId}#batches`);
       router.refresh();
-    } else {
-      const f = Object.fromEntries(Object.entries(res.fields ?? {}).map(([k, msgs]) => [k.replace(/^batch\./, ''), msgs]));
-      // Field names of the form differ where it converts units.
-      f.batchSize = f.batchSizeG; f.brixSampleTemp = f.brixSampleTempC; f.fillTemp = f.fillTempC;
-      setFields(f);
-      setError(res.error);
     }
   }
 
@@ -90,7 +85,7 @@ export function BatchForm({ versionId, spec, productCode, today, temperatureUnit
         <Field label={`Sample temperature (${deg})`} name="brixSampleTemp" inputMode="decimal" value={v.brixSampleTemp} onChange={set('brixSampleTemp')} errors={fields.brixSampleTemp} hint="Corrected to 20 °C for the check." />
         <Field label="pH" name="ph" inputMode="decimal" value={v.ph} onChange={set('ph')} errors={fields.ph} />
         <Field label={`Fill temperature (${deg})`} name="fillTemp" inputMode="decimal" value={v.fillTemp} onChange={set('fillTemp')} errors={fields.fillTemp} />
-        <Field label="Mean net fill (g)" name="netFillMeanG" inputMode="decimal" value={v.netFillMeanG} onChange={set('netFillMeanG')} errors={fields.netFillMeanG} hint="Of the jars weighed; optional." />
+        <Field label="Mean net fill (g)" name="netFillMeanG" inputMode="decimal" value={v.netFillMeanG} onChange={set('netFillMeanG')} errors={fields.netFillMeanG} hint="Of the jars weighed. The spec needs it for a pass." />
         <Field label="Lightest jar (g)" name="netFillMinG" inputMode="decimal" value={v.netFillMinG} onChange={set('netFillMinG')} errors={fields.netFillMinG} />
         <Field label="Set test score (1–5)" name="setTestScore" inputMode="numeric" value={v.setTestScore} onChange={set('setTestScore')} errors={fields.setTestScore} />
         <Field label="Jars filled" name="jarsFilled" inputMode="numeric" value={v.jarsFilled} onChange={set('jarsFilled')} errors={fields.jarsFilled} />
@@ -105,11 +100,10 @@ export function BatchForm({ versionId, spec, productCode, today, temperatureUnit
         <h2 className="mb-2 text-lg font-semibold">Against the spec</h2>
         {live ? (
           <>
-            <ul className="space-y-1 text-sm" data-testid="live-checks">
-              {live.checks.map((c) => (
-                <li key={c.key}><span className={`font-semibold ${STATUS_STYLE[c.status]}`}>{STATUS_TEXT[c.status]}</span> — {c.label}: {c.reason}</li>
-              ))}
-            </ul>
+            <CheckList checks={live.checks} testId="live-checks" />
+            {live.outcome === 'incomplete' ? (
+              <p className="mt-2 text-sm font-medium text-amberline-700" data-testid="live-outcome">Incomplete: the spec requires every check. Without the missing ones the batch is recorded on hold until they are re-tested.</p>
+            ) : null}
             {live.brixCorrectionNote ? <p className="mt-2 text-xs text-rind-500">{live.brixCorrectionNote}</p> : null}
           </>
         ) : <p className="text-sm text-rind-600">Enter the refractometer reading and its temperature, the pH and the fill temperature to see the checks.</p>}

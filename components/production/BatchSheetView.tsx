@@ -9,7 +9,9 @@ export function BatchSheetView({ sheet, paper, massUnits, temperatures, supersed
   const s = sheet.scaled;
   const unit = s.resolution.unit;
   const decimals = Math.max(0, -Math.floor(Math.log10(s.resolution.step)));
+  // One unit on the sheet: the scale's own, so "Weigh out" and "Exact" read side by side.
   const rounded = (g: number) => `${fromGrams(g, unit).toFixed(decimals)} ${unit}`;
+  const exact = (g: number) => `${fromGrams(g, unit).toFixed(decimals + 1)} ${unit}`;
   return (
     <article className={`batch-sheet sheet-${paper} rounded-card bg-white p-6 text-sm ring-1 ring-pith-300 print:rounded-none print:p-0 print:ring-0`} data-testid="batch-sheet">
       <header className="mb-4 flex flex-wrap items-start justify-between gap-4 border-b-2 border-rind-800 pb-3">
@@ -36,11 +38,11 @@ export function BatchSheetView({ sheet, paper, massUnits, temperatures, supersed
                 <td className="py-1.5"><span className={box} aria-hidden /></td>
                 <td className="py-1.5">{l.name}</td>
                 <td className="py-1.5 text-right font-semibold tabular-nums">{rounded(l.roundedG)}</td>
-                <td className="py-1.5 text-right tabular-nums text-rind-500">{formatMass(l.exactG, massUnits, 1)}</td>
+                <td className="py-1.5 text-right tabular-nums text-rind-500">{exact(l.exactG)}</td>
                 <td className="py-1.5 pl-4"><span className="inline-block w-28 border-b border-rind-400">&nbsp;</span></td>
               </tr>
             ))}
-            <tr className="font-medium"><td /><td className="py-1.5">Kettle charge</td><td className="py-1.5 text-right tabular-nums">{formatMass(s.rounded.totalChargeG, massUnits)}</td><td className="py-1.5 text-right tabular-nums text-rind-500">{formatMass(s.exact.totalChargeG, massUnits)}</td><td /></tr>
+            <tr className="font-medium"><td /><td className="py-1.5">Kettle charge</td><td className="py-1.5 text-right tabular-nums">{rounded(s.rounded.totalChargeG)}</td><td className="py-1.5 text-right tabular-nums text-rind-500">{exact(s.exact.totalChargeG)}</td><td /></tr>
           </tbody>
         </table>
         <p className="mt-2 text-rind-700" data-testid="rounding-effect">

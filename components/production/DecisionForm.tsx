@@ -6,6 +6,7 @@ import { Button } from '@/components/ui/Button';
 import { ConfirmDialog } from '@/components/ui/ConfirmDialog';
 import { FieldErrorText, inputClass } from '@/components/ui/Field';
 import { Notice } from '@/components/ui/Notice';
+import { useFormAction } from '@/components/ui/useFormAction';
 import { decidePromotionAction } from '@/lib/production/actions';
 import { approvalConsequence, type PromotionOutcome } from '@/lib/production/review';
 
@@ -13,24 +14,15 @@ import { approvalConsequence, type PromotionOutcome } from '@/lib/production/rev
 export function DecisionForm({ requestId, code, outcome }: { requestId: string; code: string; outcome: PromotionOutcome }) {
   const router = useRouter();
   const [comment, setComment] = useState('');
-  const [fields, setFields] = useState<Record<string, string[]>>({});
-  const [error, setError] = useState<string>();
-  const [busy, setBusy] = useState(false);
+  const { pending: busy, error, fields, run, revalidate } = useFormAction(decidePromotionAction, { fieldPrefix: 'decision' });
   const [confirming, setConfirming] = useState(false);
 
   async function decide(decision: 'approve' | 'send_back') {
-    setBusy(true);
-    setError(undefined);
-    setFields({});
-    const res = await decidePromotionAction(requestId, { decision, comment });
-    setBusy(false);
+    const res = await run(requestId, { decision, comment });
     setConfirming(false);
-    if (res.ok) {
+    if (res?.ok) {
       router.push(res.data.productionFormulaId ? `/production/versions/${res.data.productionFormulaId}` : `/production/reviews/${requestId}`);
       router.refresh();
-    } else {
-      setFields(Object.fromEntries(Object.entries(res.fields ?? {}).map(([k, v]) => [k.replace(/^decision\./, ''), v])));
-      setError(res.error);
     }
   }
 
@@ -39,7 +31,7 @@ export function DecisionForm({ requestId, code, outcome }: { requestId: string; 
       <h2 className="text-lg font-semibold">Your decision</h2>
       <div>
         <label htmlFor="f-comment" className="mb-1 block text-sm font-medium text-rind-700">Comment (needed to send back)</label>
-        <textarea id="f-comment" name="comment" rows={3} value={comment} onChange={(e) => setComment(e.target.value)} className={inputClass} aria-invalid={fields.comment ? true : undefined} aria-describedby={fields.comment ? 'f-comment-err' : undefined} />
+        <textarea id="f-comment" name="comment" rows={3} value={comment} onChange={(e) => { setComment(e.target.value); revalidate('comment'); }} className={inputClass} aria-invalid={fields.comment ? true : undefined} aria-describedby={fields.comment ? 'f-comment-err' : undefined} />
         <FieldErrorText id="f-comment-err" errors={fields.comment} />
       </div>
       {error ? <Notice tone="danger">{error}</Notice> : null}

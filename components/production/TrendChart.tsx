@@ -2,6 +2,7 @@
 
 import { Chart as ChartJS, CategoryScale, LinearScale, LineElement, PointElement, Tooltip, Legend } from 'chart.js';
 import { Line } from 'react-chartjs-2';
+import { RUN_RULE_LABELS, RUN_RULE_SET, runRuleSignals } from '@/lib/stats/run-rules';
 
 ChartJS.register(CategoryScale, LinearScale, LineElement, PointElement, Tooltip, Legend);
 ChartJS.defaults.animation = false;
@@ -16,12 +17,18 @@ export interface TrendPoint {
   value: number;
   min: number;
   max: number;
-  outcome: 'pass' | 'fail';
+  /** Passed its checks (leaf), or not (ember). */
+  ok: boolean;
 }
 
-/** One reading across batches with the spec limits each batch was checked against (they step when a new version comes in). */
+/**
+ * One reading across batches with the spec limits each batch was checked against (they step when a
+ * new version comes in). Points that break a run rule are drawn as triangles and listed below.
+ */
 export function TrendChart({ title, unit, points, decimals }: { title: string; unit: string; points: TrendPoint[]; decimals: number }) {
   const labels = points.map((p) => p.lotCode);
+  const signals = runRuleSignals(points);
+  const flagged = new Set(signals.map((s) => s.index));
   const limitLine = (label: string, data: number[]) => ({
     label, data, borderColor: LIMIT, borderDash: [6, 4], borderWidth: 1.5, pointRadius: 0, stepped: 'middle' as const, fill: false,
   });
@@ -35,7 +42,9 @@ export function TrendChart({ title, unit, points, decimals }: { title: string; u
             datasets: [
               {
                 label: `${title} (${unit})`, data: points.map((p) => p.value), borderColor: DAMSON, borderWidth: 2,
-                pointRadius: 5, pointBackgroundColor: points.map((p) => (p.outcome === 'fail' ? EMBER : LEAF)), pointBorderColor: points.map((p) => (p.outcome === 'fail' ? EMBER : LEAF)),
+                pointRadius: points.map((_, i) => (flagged.has(i) ? 8 : 5)),
+                pointStyle: points.map((_, i) => (flagged.has(i) ? 'triangle' : 'circle')),
+                pointBackgroundColor: points.map((p) => (p.ok ? LEAF : EMBER)), pointBorderColor: points.map((p, i) => (flagged.has(i) ? EMBER : p.ok ? LEAF : EMBER)),
               },
               limitLine('Spec minimum', points.map((p) => p.min)),
               limitLine('Spec maximum', points.map((p) => p.max)),
@@ -48,11 +57,22 @@ export function TrendChart({ title, unit, points, decimals }: { title: string; u
           }}
         />
       </div>
-      <table className="sr-only">
+      <div className="mt-3 text-sm" data-testid="run-rule-signals">
+        {signals.length ? (
+          <ul className="space-y-1">
+            {signals.map((s) => (
+              <li key={`${s.index}-${s.rule}`}><span className="font-mono">{points[s.index].lotCode}</span> — <strong className="text-ember-700">{RUN_RULE_LABELS[s.rule]}</strong>: {s.message}</li>
+            ))}
+          </ul>
+        ) : <p className="text-rind-600">No point breaks a run rule.</p>}
+        <p className="mt-1 text-xs text-rind-500">Run rules: {RUN_RULE_SET}, with the spec window as the limits and its middle as the target.</p>
+      </div>
+      {/* A table cannot shrink to sr-only's 1 px, so the wrapper hides it (no sideways scroll on a phone). */}
+      <div className="sr-only"><table>
         <caption>{title} by batch</caption>
-        <thead><tr><th>Lot</th><th>Value</th><th>Minimum</th><th>Maximum</th><th>Result</th></tr></thead>
-        <tbody>{points.map((p) => <tr key={p.lotCode}><td>{p.lotCode}</td><td>{p.value.toFixed(decimals)}</td><td>{p.min}</td><td>{p.max}</td><td>{p.outcome}</td></tr>)}</tbody>
-      </table>
+        <thead><tr><th>Lot</th><th>Value</th><th>Minimum</th><th>Maximum</th><th>Checks</th><th>Run rule</th></tr></thead>
+        <tbody>{points.map((p, i) => <tr key={p.lotCode}><td>{p.lotCode}</td><td>{p.value.toFixed(decimals)}</td><td>{p.min}</td><td>{p.max}</td><td>{p.ok ? 'Passed' : 'Not passed'}</td><td>{signals.filter((s) => s.index === i).map((s) => RUN_RULE_LABELS[s.rule]).join('; ') || 'None'}</td></tr>)}</tbody>
+      </table></div>
     </figure>
   );
 }

@@ -5,20 +5,17 @@ import { useRouter } from 'next/navigation';
 import { Button } from '@/components/ui/Button';
 import { ConfirmDialog } from '@/components/ui/ConfirmDialog';
 import { Notice } from '@/components/ui/Notice';
+import { useFormAction } from '@/components/ui/useFormAction';
 import { withdrawPromotionAction } from '@/lib/production/actions';
 
 export function WithdrawButton({ requestId, code }: { requestId: string; code: string }) {
   const router = useRouter();
   const [open, setOpen] = useState(false);
-  const [busy, setBusy] = useState(false);
-  const [error, setError] = useState<string>();
+  const { pending: busy, error, run } = useFormAction(withdrawPromotionAction);
   async function withdraw() {
-    setBusy(true);
-    const res = await withdrawPromotionAction(requestId, { comment: '' });
-    setBusy(false);
+    const res = await run(requestId, { comment: '' });
     setOpen(false);
-    if (res.ok) router.refresh();
-    else setError(res.error);
+    if (res?.ok) router.refresh();
   }
   return (
     <div className="space-y-2">

@@ -1,24 +1,41 @@
 'use client';
 
-import { useActionState } from 'react';
+import { useState } from 'react';
 import { Field, SelectField } from '@/components/ui/Field';
 import { Button } from '@/components/ui/Button';
 import { Notice } from '@/components/ui/Notice';
+import { useFormAction } from '@/components/ui/useFormAction';
 import { updatePreferencesAction } from '@/lib/account/actions';
+import { preferencesSchema } from '@/lib/account/schema';
 
 export function PreferencesForm({ name, massUnits, temperatureUnit }: { name: string; massUnits: string; temperatureUnit: string }) {
-  const [state, action, pending] = useActionState(updatePreferencesAction, null);
-  const fields = state && !state.ok ? state.fields : undefined;
+  const form = useFormAction(updatePreferencesAction, { schema: preferencesSchema });
+  const [values, setValues] = useState({ name, massUnits, temperatureUnit });
+  const [saved, setSaved] = useState(false);
+  const change = (key: keyof typeof values) => (e: React.ChangeEvent<HTMLInputElement | HTMLSelectElement>) => {
+    const next = { ...values, [key]: e.target.value };
+    setValues(next);
+    setSaved(false);
+    form.revalidate(key, next);
+  };
+  async function submit(e: React.FormEvent) {
+    e.preventDefault();
+    setSaved(false);
+    const data = new FormData();
+    for (const [k, v] of Object.entries(values)) data.set(k, v);
+    if ((await form.run(null, data))?.ok) setSaved(true);
+  }
   return (
-    <form action={action} className="max-w-md space-y-4" noValidate>
-      {state?.ok ? <Notice tone="success">Saved.</Notice> : null}
-      {state && !state.ok && !fields ? <Notice tone="danger">{state.error}</Notice> : null}
-      <Field label="Your name" name="name" defaultValue={name} required errors={fields?.name} />
+    <form onSubmit={submit} className="max-w-md space-y-4" noValidate>
+      {saved ? <Notice tone="success">Saved.</Notice> : null}
+      {form.error ? <Notice tone="danger">{form.error}</Notice> : null}
+      <Field label="Your name" name="name" value={values.name} onChange={change('name')} required errors={form.fields.name} />
       <SelectField
         label="Mass units on screen"
         name="massUnits"
-        defaultValue={massUnits}
-        errors={fields?.massUnits}
+        value={values.massUnits}
+        onChange={change('massUnits')}
+        errors={form.fields.massUnits}
         options={[
           { value: 'metric', label: 'Metric (g, kg)' },
           { value: 'imperial', label: 'Imperial (oz, lb)' },
@@ -27,15 +44,16 @@ export function PreferencesForm({ name, massUnits, temperatureUnit }: { name: st
       <SelectField
         label="Temperatures"
         name="temperatureUnit"
-        defaultValue={temperatureUnit}
-        errors={fields?.temperatureUnit}
+        value={values.temperatureUnit}
+        onChange={change('temperatureUnit')}
+        errors={form.fields.temperatureUnit}
         options={[
           { value: 'C', label: 'Celsius (°C)' },
           { value: 'F', label: 'Fahrenheit (°F)' },
         ]}
       />
       <p className="text-xs text-rind-500">Setwell always stores grams and degrees Celsius; this only changes what you see and type.</p>
-      <Button type="submit" disabled={pending}>{pending ? 'Saving…' : 'Save preferences'}</Button>
+      <Button type="submit" disabled={form.pending}>{form.pending ? 'Saving…' : 'Save preferences'}</Button>
     </form>
   );
 }

@@ -9,6 +9,7 @@ import { Notice } from '@/components/ui/Notice';
 import { ConfirmDialog } from '@/components/ui/ConfirmDialog';
 import { EmptyState } from '@/components/ui/Card';
 import type { TokenRow } from '@/lib/api-tokens/schema';
+import { formatDate, formatDateTime } from '@/lib/format/dates';
 
 export function TokensPanel() {
   const { data, isLoading, mutate } = useSWR<{ tokens: TokenRow[] }>('/api/v1/tokens', (u: string) => apiFetch<{ tokens: TokenRow[] }>(u));
@@ -62,7 +63,7 @@ export function TokensPanel() {
               <div>
                 <p className="font-medium">{t.label}</p>
                 <p className="text-xs text-rind-500">
-                  <code>{t.displayPrefix}…</code> · created {new Date(t.createdAt).toLocaleDateString()} · {t.lastUsedAt ? `last used ${new Date(t.lastUsedAt).toLocaleString()}` : 'never used'}
+                  <code>{t.displayPrefix}…</code> · created {formatDate(t.createdAt)} · {t.lastUsedAt ? `last used ${formatDateTime(t.lastUsedAt)}` : 'never used'}
                 </p>
               </div>
               <Button tone="ghost" type="button" onClick={() => setRevoking(t)}>Revoke</Button>

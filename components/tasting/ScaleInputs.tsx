@@ -47,7 +47,11 @@ export function CategoryScaleInput({ code, attribute, value, onChange }: ScaleIn
   );
 }
 
-/** A 0–10 line with its two anchors and a numeric readout; arrow keys move it one step. */
+/**
+ * A 0–10 line with its two anchors and a numeric readout; arrow keys move it one step. Until it is
+ * marked it shows no thumb and no fill (the `line-unmarked` rules in globals.css), so the untouched
+ * slider does not point at the middle of the scale.
+ */
 export function LineScaleInput({ code, attribute, value, onChange }: ScaleInputProps<LineScaleView>) {
   const { scale } = attribute;
   const inputId = `line-${code}-${attribute.id}`;
@@ -83,7 +87,8 @@ export function LineScaleInput({ code, attribute, value, onChange }: ScaleInputP
           e.preventDefault();
           onChange(next);
         }}
-        className="mt-2 h-12 w-full cursor-pointer accent-damson-700"
+        data-marked={value === undefined ? 'no' : 'yes'}
+        className={`mt-2 h-12 w-full cursor-pointer accent-damson-700 ${value === undefined ? 'line-unmarked' : ''}`}
       />
       <div className="flex justify-between gap-4 text-sm text-rind-700">
         <span>

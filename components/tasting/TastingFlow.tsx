@@ -28,6 +28,7 @@ import { useAnswerQueue } from './useAnswerQueue';
 import { CategoryScaleInput, LineScaleInput } from './ScaleInputs';
 import { RankingScreen } from './RankingScreen';
 import { TriangleScreen } from './TriangleScreen';
+import { formatDateTime } from '@/lib/format/dates';
 import { AnswerList } from './AnswerList';
 
 type Load = { kind: 'loading' } | { kind: 'failed'; message: string } | { kind: 'ready'; view: SeatView };
@@ -335,7 +336,6 @@ export function TastingFlow({ seatToken }: { seatToken: string }) {
 }
 
 function formatStart(startsAt: string): string {
-  const when = new Date(startsAt);
-  if (!startsAt || Number.isNaN(when.getTime())) return '';
-  return when.toLocaleString(undefined, { weekday: 'short', day: 'numeric', month: 'short', hour: '2-digit', minute: '2-digit' });
+  if (!startsAt || Number.isNaN(new Date(startsAt).getTime())) return '';
+  return formatDateTime(startsAt);
 }

@@ -4,8 +4,7 @@ import type { MeasurementView } from '@/lib/trials/schema';
 import { EmptyState } from '@/components/ui/Card';
 import { FLAG_CLASS, massText, numText, tempText } from './format';
 import { CookActions } from './CookActions';
-
-const dateText = (iso: string) => new Date(iso.length === 10 ? `${iso}T12:00:00Z` : iso).toLocaleDateString('en-GB', { dateStyle: 'medium' });
+import { formatDate } from '@/lib/format/dates';
 
 const FIELD_LABELS: Record<string, string> = {
   cookDate: 'cook date', batchSizeG: 'batch size', brixReading: 'refractometer', brixSampleTempC: 'sample temperature', ph: 'pH',
@@ -21,7 +20,7 @@ function beforeText(before: Partial<MeasurementView>, massUnits: UnitPreference,
       : key === 'brixSampleTempC' || key === 'endPointTempC' ? tempText(v as number, temperatureUnit)
       : key === 'setTestMethod' ? SET_TEST_METHOD_LABELS[v as keyof typeof SET_TEST_METHOD_LABELS]
       : key === 'syneresis' ? SYNERESIS_LABELS[v as keyof typeof SYNERESIS_LABELS]
-      : key === 'cookDate' ? dateText(String(v))
+      : key === 'cookDate' ? formatDate(String(v))
       : String(v);
     return `${FIELD_LABELS[key] ?? key} ${value}`;
   }).join(', ');
@@ -35,7 +34,7 @@ function CookHistory({ cook, massUnits, temperatureUnit }: { cook: MeasurementVi
       <summary className="cursor-pointer text-rind-600">Corrected {corrections.length === 1 ? 'once' : `${corrections.length} times`}: see what changed</summary>
       <ol className="mt-2 space-y-1 text-rind-700">
         {corrections.map((c) => (
-          <li key={c.at}>{dateText(c.at)}, {c.byName}: “{c.reason}”. Before: {beforeText(c.before, massUnits, temperatureUnit)}.</li>
+          <li key={c.at}>{formatDate(c.at)}, {c.byName}: “{c.reason}”. Before: {beforeText(c.before, massUnits, temperatureUnit)}.</li>
         ))}
       </ol>
     </details>
@@ -57,12 +56,12 @@ export function CookList({ trialId, cooks, massUnits, temperatureUnit, canEdit, 
       {cooks.map((m) => (
         <li key={m.id} className={`rounded-card p-4 ring-1 ring-pith-300 ${m.withdrawn ? 'bg-pith-100 text-rind-600' : 'bg-pith-50'}`}>
           <div className="flex flex-wrap items-baseline justify-between gap-2">
-            <p className="font-medium">Cook of {dateText(m.cookDate)} <span className="text-sm font-normal text-rind-500">by {m.recordedByName}{m.batchSizeG ? ` · ${massText(m.batchSizeG, massUnits)} charge` : ''}</span></p>
+            <p className="font-medium">Cook of {formatDate(m.cookDate)} <span className="text-sm font-normal text-rind-500">by {m.recordedByName}{m.batchSizeG ? ` · ${massText(m.batchSizeG, massUnits)} charge` : ''}</span></p>
             {canEdit && !m.withdrawn ? <CookActions trialId={trialId} cook={m} massUnits={massUnits} temperatureUnit={temperatureUnit} /> : null}
           </div>
           {m.withdrawn ? (
             <p className="mt-2 rounded-lg bg-pith-200 px-3 py-2 text-sm text-rind-800">
-              <strong>Withdrawn</strong> on {dateText(m.withdrawn.at)} by {m.withdrawn.byName}: “{m.withdrawn.reason}”. It counts in no comparison or promotion evidence.
+              <strong>Withdrawn</strong> on {formatDate(m.withdrawn.at)} by {m.withdrawn.byName}: “{m.withdrawn.reason}”. It counts in no comparison or promotion evidence.
             </p>
           ) : null}
           {m.comparison.rows.some((r) => r.flag === 'danger') ? (

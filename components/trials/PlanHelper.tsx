@@ -8,6 +8,7 @@ import { inputClass } from '@/components/ui/Field';
 import { planRuns, PlanError, type DesignKind, type FactorSpec } from '@/lib/trials/plan';
 import { FACTOR_LABELS, TRIAL_FACTORS, type TrialFactor } from '@/lib/trials/vocabulary';
 import { planVariantsAction } from '@/lib/trials/actions';
+import { useFormAction } from '@/components/ui/useFormAction';
 
 type Draft = Record<TrialFactor, { on: boolean; low: string; high: string }>;
 
@@ -28,8 +29,8 @@ export function PlanHelper({ trialId, baseLevels }: { trialId: string; baseLevel
   const [draft, setDraft] = useState<Draft>(() =>
     Object.fromEntries(TRIAL_FACTORS.map((f) => [f, { on: f === 'sugar_ratio', ...suggest(baseLevels[f], f) }])) as Draft,
   );
-  const [busy, setBusy] = useState(false);
-  const [result, setResult] = useState<{ tone: 'success' | 'danger'; text: string }>();
+  const { pending: busy, error, fields, run } = useFormAction(planVariantsAction, { fieldPrefix: 'plan' });
+  const [added, setAdded] = useState<string>();
 
   const specs: FactorSpec[] = TRIAL_FACTORS.filter((f) => draft[f].on).map((f) => ({ factor: f, low: Number(draft[f].low.replace(',', '.')), high: Number(draft[f].high.replace(',', '.')) }));
   // Cheap to compute (at most nine runs), so it is simply recomputed on every render.
@@ -44,14 +45,13 @@ export function PlanHelper({ trialId, baseLevels }: { trialId: string; baseLevel
   })();
 
   async function generate() {
-    setBusy(true);
-    setResult(undefined);
-    const res = await planVariantsAction(trialId, { kind, factors: specs, centrePoint: centre });
-    setBusy(false);
-    if (res.ok) {
-      setResult({ tone: 'success', text: `Added variants ${res.data.created.join(', ')}.` });
+    setAdded(undefined);
+    const res = await run(trialId, { kind, factors: specs, centrePoint: centre });
+    if (res?.ok) {
+      const { created, skipped } = res.data;
+      setAdded(`Added variants ${created.join(', ')}.${skipped.length ? ` Left out the runs already in the trial as ${skipped.join(', ')}.` : ''}`);
       router.refresh();
-    } else setResult({ tone: 'danger', text: res.fields ? Object.values(res.fields).flat().join(' ') : res.error });
+    }
   }
 
   return (
@@ -104,7 +104,8 @@ export function PlanHelper({ trialId, baseLevels }: { trialId: string; baseLevel
           <Notice tone="warning">{preview.message}</Notice>
         )}
       </div>
-      {result ? <div className="mt-3"><Notice tone={result.tone}>{result.text}</Notice></div> : null}
+      {added ? <div className="mt-3"><Notice tone="success">{added}</Notice></div> : null}
+      {error ? <div className="mt-3"><Notice tone="danger">{Object.keys(fields).length ? Object.values(fields).flat().join(' ') : error}</Notice></div> : null}
       <Button className="mt-4" type="button" disabled={!preview.ok || busy} onClick={generate}>
         {busy ? 'Adding…' : 'Add these variants'}
       </Button>

@@ -9,6 +9,7 @@ import { Field, SelectField, inputClass } from '@/components/ui/Field';
 import { SET_TEST_METHODS, SET_TEST_METHOD_LABELS, SET_TEST_SCALE, SYNERESIS_LABELS, SYNERESIS_LEVELS } from '@/lib/trials/vocabulary';
 import { correctMeasurementAction, recordMeasurementAction } from '@/lib/trials/actions';
 import { cookReadingProblems, type MeasurementView } from '@/lib/trials/schema';
+import { todayIso } from '@/lib/format/dates';
 
 const round = (n: number, places: number) => String(Number(n.toFixed(places)));
 
@@ -102,7 +103,7 @@ export function RecordCookForm({ trialId, variantId, massUnits, temperatureUnit,
       <h2 className="text-lg font-semibold">{title}</h2>
       <p className="text-sm text-rind-600">A cook needs at least one reading: refractometer, pH, end point, boil time, set test, syneresis, yield or colour.</p>
       <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-3">
-        <Field id={id('cookDate')} label="Cook date" name="cookDate" type="date" required defaultValue={cook?.cookDate ?? new Date().toISOString().slice(0, 10)} errors={fields.cookDate} />
+        <Field id={id('cookDate')} label="Cook date" name="cookDate" type="date" required defaultValue={cook?.cookDate ?? todayIso()} errors={fields.cookDate} />
         <Field id={id('batchSizeG')} label={`Batch size, total charge (${massUnit})`} name="batchSizeG" inputMode="decimal" defaultValue={initialMass(cook?.batchSizeG)} errors={fields.batchSizeG} />
         <Field id={id('boilTimeMin')} label="Boil time (min)" name="boilTimeMin" inputMode="decimal" defaultValue={initialNum(cook?.boilTimeMin)} errors={fields.boilTimeMin} />
         <Field id={id('brixReading')} label="Refractometer reading (°Brix, as read)" name="brixReading" inputMode="decimal" defaultValue={initialNum(cook?.brixReading)} errors={fields.brixReading} />

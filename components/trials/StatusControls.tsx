@@ -8,13 +8,13 @@ import { Notice } from '@/components/ui/Notice';
 import { inputClass } from '@/components/ui/Field';
 import { TRIAL_STATUS_LABELS, TRIAL_TRANSITIONS, type TrialStatus } from '@/lib/trials/vocabulary';
 import { transitionTrialAction } from '@/lib/trials/actions';
+import { useFormAction } from '@/components/ui/useFormAction';
 
 export function StatusControls({ trialId, status }: { trialId: string; status: TrialStatus }) {
   const router = useRouter();
   const [target, setTarget] = useState<TrialStatus | null>(null);
   const [note, setNote] = useState('');
-  const [busy, setBusy] = useState(false);
-  const [error, setError] = useState<string>();
+  const { pending: busy, error, run } = useFormAction(transitionTrialAction);
   return (
     <div className="no-print">
       <div className="flex flex-wrap gap-2" role="group" aria-label="Move the trial">
@@ -41,13 +41,12 @@ export function StatusControls({ trialId, status }: { trialId: string; status: T
         onCancel={() => setTarget(null)}
         onConfirm={async () => {
           if (!target) return;
-          setBusy(true);
-          const res = await transitionTrialAction(trialId, { to: target, note: note || undefined });
-          setBusy(false);
+          const res = await run(trialId, { to: target, note: note || undefined });
           setTarget(null);
-          setNote('');
-          if (!res.ok) setError(res.error);
-          else router.refresh();
+          if (res?.ok) {
+            setNote('');
+            router.refresh();
+          }
         }}
       />
     </div>

@@ -1,6 +1,7 @@
 import Link from 'next/link';
 import type { TrialOverview } from '@/lib/trials/schema';
 import { StatusBadge } from './StatusBadge';
+import { formatDate } from '@/lib/format/dates';
 
 export function TrialHeader({ trial, children }: { trial: TrialOverview; children?: React.ReactNode }) {
   return (
@@ -18,7 +19,7 @@ export function TrialHeader({ trial, children }: { trial: TrialOverview; childre
       <p className="mt-2 max-w-3xl text-rind-700">{trial.question}</p>
       <p className="mt-1 text-sm text-rind-500">
         Owner {trial.owner.name} · base <Link href={`/formulas/${trial.baseFormula.id}`} className="underline">{trial.baseFormula.name}</Link>, revision {trial.baseFormula.revision} · started{' '}
-        {new Date(trial.createdAt).toLocaleDateString('en-GB', { dateStyle: 'medium' })}
+        {formatDate(trial.createdAt)}
       </p>
       {children ? <div className="mt-4">{children}</div> : null}
     </header>

@@ -2,6 +2,16 @@ import { z } from 'zod';
 import { passwordSchema } from '@/lib/passwords';
 import { email, name } from '@/lib/input';
 
+/** Compare the two passwords even while another field is invalid, so the form can re-check the repeat as it is typed. */
+const bothPasswordsTyped = {
+  path: ['confirm'],
+  message: 'The two passwords differ.',
+  when: (payload: { value: unknown }) => {
+    const v = payload.value as { password?: unknown; confirm?: unknown } | null;
+    return typeof v?.password === 'string' && typeof v?.confirm === 'string';
+  },
+};
+
 const tokenSchema = z.string().min(20, 'This link is not valid.').max(200, 'This link is not valid.');
 
 export const acceptInvitationSchema = z
@@ -11,7 +21,7 @@ export const acceptInvitationSchema = z
     password: passwordSchema,
     confirm: z.string(),
   })
-  .refine((v) => v.password === v.confirm, { path: ['confirm'], message: 'The two passwords differ.' });
+  .refine((v) => v.password === v.confirm, bothPasswordsTyped);
 
 export const requestResetSchema = z.object({
   email,
@@ -19,7 +29,7 @@ export const requestResetSchema = z.object({
 
 export const resetPasswordSchema = z
   .object({ token: tokenSchema, password: passwordSchema, confirm: z.string() })
-  .refine((v) => v.password === v.confirm, { path: ['confirm'], message: 'The two passwords differ.' });
+  .refine((v) => v.password === v.confirm, bothPasswordsTyped);
 
 export const preferencesSchema = z.object({
   name: name('Enter your name.'),

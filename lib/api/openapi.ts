@@ -14,7 +14,7 @@ import { recommendationSchema } from '@/lib/results/schema';
 import { answerSchema, createAttributeSchema, createPanelSchema, inviteTastersSchema, joinSchema } from '@/lib/panels/schema';
 import { correctMeasurementSchema, createTrialSchema, importMeasurementsSchema, manualVariantSchema, measurementSchema, planSchema, transitionSchema, withdrawMeasurementSchema } from '@/lib/trials/schema';
 import { saveNotebookBodySchema } from '@/lib/notebook/schema';
-import { batchRecordSchema, decisionSchema, requestPromotionSchema, withdrawSchema } from '@/lib/production/schema';
+import { batchDecisionSchema, batchRecordSchema, batchRetestSchema, decisionSchema, requestPromotionSchema, withdrawSchema } from '@/lib/production/schema';
 
 export interface ApiOperation {
   method: 'get' | 'post' | 'patch' | 'put' | 'delete';
@@ -121,6 +121,9 @@ export const API_OPERATIONS: ApiOperation[] = [
   { method: 'get', path: '/api/v1/production-versions/{versionId}/batch-sheet', summary: 'The batch sheet scaled to a kettle or jar count (query: target=total_charge|finished_mass|jar_count, amount, unit, step, stepUnit, altitudeM) with rounding effect, end point for the altitude and QC targets', tag: 'Production', permission: 'production.read' },
   { method: 'get', path: '/api/v1/production-versions/{versionId}/batches', summary: 'Batch records made to this version', tag: 'Production', permission: 'production.read' },
   { method: 'post', path: '/api/v1/production-versions/{versionId}/batches', summary: 'Record a production batch; every reading is checked against the spec; a failed batch needs a disposition and comment (422 without)', tag: 'Production', permission: 'batches.record', request: batchRecordSchema, okStatus: 201 },
+  { method: 'get', path: '/api/v1/batches/{batchId}', summary: 'One batch record with where it stands (passed, on hold, discarded, released, rejected), its re-tests and decisions, its spec and audit events', tag: 'Production', permission: 'production.read' },
+  { method: 'post', path: '/api/v1/batches/{batchId}/retests', summary: 'Re-test a held batch: the readings taken again, merged over the recorded ones and checked against the same spec; 409 when the batch is not on hold', tag: 'Production', permission: 'batches.record', request: batchRetestSchema, okStatus: 201 },
+  { method: 'post', path: '/api/v1/batches/{batchId}/decision', summary: 'Release (only when the latest checks pass, 409 otherwise) or reject a held batch, with a comment; final', tag: 'Production', permission: 'batches.record', request: batchDecisionSchema, okStatus: 201 },
   { method: 'get', path: '/api/v1/audit', summary: 'The workspace audit trail, newest first (read-only)', tag: 'Production', permission: 'audit.read' },
   { method: 'get', path: '/api/v1/openapi.json', summary: 'This description', tag: 'Meta', permission: null },
 ];

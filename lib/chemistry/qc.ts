@@ -189,7 +189,8 @@ export interface QcCheck {
 }
 
 export interface BatchCheckResult {
-  outcome: 'pass' | 'fail';
+  /** `incomplete`: nothing failed, but a check the spec requires (net fill, set test) was not measured. */
+  outcome: 'pass' | 'fail' | 'incomplete';
   checks: QcCheck[];
   /** Set when the 20 °C correction used a table row that was not verified. */
   brixCorrectionNote: string | null;
@@ -197,6 +198,13 @@ export interface BatchCheckResult {
 }
 
 const f = (x: number, d: number) => x.toFixed(d);
+
+/** Every check of the spec is required: one failure fails the batch, one missing reading leaves it incomplete. */
+export function outcomeOfChecks(checks: readonly QcCheck[]): BatchCheckResult['outcome'] {
+  if (checks.some((c) => c.status === 'fail')) return 'fail';
+  if (checks.some((c) => c.status === 'not_measured')) return 'incomplete';
+  return 'pass';
+}
 
 export function checkBatchAgainstSpec(spec: QcSpec, r: BatchReadings): BatchCheckResult {
   const correction = correctBrixTo20C(r.brixReading, r.brixSampleTempC);
@@ -263,7 +271,7 @@ export function checkBatchAgainstSpec(spec: QcSpec, r: BatchReadings): BatchChec
   }
 
   return {
-    outcome: checks.some((c) => c.status === 'fail') ? 'fail' : 'pass',
+    outcome: outcomeOfChecks(checks),
     checks,
     correctedBrix20C: brix,
     // The correction table rows at these temperatures were recalled, not read (lib/chemistry/refractometer.ts).

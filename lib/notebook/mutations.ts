@@ -11,6 +11,7 @@ import { NotebookConflict, NotebookEntry, User } from '@/entities';
 import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
 import { Conflict, ValidationFailed } from '@/lib/api/errors';
 import { assertNotebookScope } from './queries';
+import { formatDateTime } from '@/lib/format/dates';
 import {
   EMPTY_NOTEBOOK_DOC,
   findDocProblems,
@@ -30,9 +31,9 @@ async function nameOf(tx: EntityManager, userId: string | undefined | null): Pro
   return user?.name ?? null;
 }
 
-/** "2026-12-02 14:02 UTC": one unambiguous stamp for text stored in the document itself. */
+/** "2 Dec 2026, 14:02 UTC": the app's one date format, for text stored in the document itself. */
 export function utcStamp(at: Date): string {
-  return `${at.toISOString().slice(0, 16).replace('T', ' ')} UTC`;
+  return formatDateTime(at);
 }
 
 /**

@@ -6,19 +6,20 @@
 import type { EntityManager } from '@mikro-orm/postgresql';
 import { LockMode } from '@mikro-orm/core';
 import { getEm, lockForTransaction } from '@/lib/db';
-import { AuditEvent, BatchRecord, Membership, Product, ProductionFormula, PromotionRequest, Trial, Variant } from '@/entities';
+import { AuditEvent, BatchDecision, BatchRecord, Membership, Product, ProductionFormula, PromotionRequest, Trial, Variant } from '@/entities';
 import { authorizeDecision, inWorkspace, notFound, AccessDenied, type Actor } from '@/lib/permissions';
 import { Conflict, ValidationFailed } from '@/lib/api/errors';
 import { computeFormula } from '@/lib/formulas/compute';
-import { checkBatchAgainstSpec, type QcSpec } from '@/lib/chemistry';
+import { checkBatchAgainstSpec, type QcCheck, type QcSpec } from '@/lib/chemistry';
 import { getTrialComparison } from '@/lib/results/trial-comparison';
 import { trialCode } from '@/lib/trials/access';
 import { sendMail, escapeHtml } from '@/lib/mail';
 import { env } from '@/lib/env';
 import { logger } from '@/lib/log';
 import type { FormulaSettingsInput, RevisionLine } from '@/lib/formulas/schema';
-import type { BatchRecordInput, DecisionInput, PromotionEvidence, RequestPromotionInput } from './schema';
-import { AUDIT_ACTIONS, dayOfYear, promotionCode, type AuditAction } from './vocabulary';
+import type { BatchDecisionInput, BatchRecordInput, BatchRetestInput, DecisionInput, PromotionEvidence, RequestPromotionInput } from './schema';
+import { batchStanding, checkRetest, type BatchDecisionFact } from './holds';
+import { AUDIT_ACTIONS, dayOfYear, promotionCode, type AuditAction, type BatchOutcome, type Disposition } from './vocabulary';
 
 async function audit(
   tx: EntityManager, actor: Actor, action: AuditAction,
@@ -234,7 +235,7 @@ export async function withdrawPromotion(actor: Actor, requestId: string, comment
   });
 }
 
-export async function recordBatch(actor: Actor, versionId: string, input: BatchRecordInput): Promise<{ batchId: string; outcome: 'pass' | 'fail' }> {
+export async function recordBatch(actor: Actor, versionId: string, input: BatchRecordInput): Promise<{ batchId: string; outcome: BatchOutcome }> {
   const em = await getEm();
   const version = (await em.findOne(ProductionFormula, { ...inWorkspace(actor), id: versionId }, { populate: ['product'] })) as unknown as
     | { id: string; version: number; status: string; spec: QcSpec; promotionRequestId: string; product: { id: string; code: string } } | null;
@@ -255,7 +256,10 @@ export async function recordBatch(actor: Actor, versionId: string, input: BatchR
     if (!input.dispositionComment || input.dispositionComment.trim().length < 5) fields.dispositionComment = ['Say what was done or decided about the failed batch.'];
     if (Object.keys(fields).length) throw new ValidationFailed('A failed batch needs a disposition with a comment.', fields);
   } else if (input.disposition) {
-    throw new ValidationFailed('This batch passed every check; it needs no disposition.', { disposition: ['A passed batch needs no disposition.'] });
+    throw new ValidationFailed(
+      result.outcome === 'pass' ? 'This batch passed every check; it needs no disposition.' : 'This batch is incomplete: it stays on hold until the missing checks are re-tested.',
+      { disposition: [result.outcome === 'pass' ? 'A passed batch needs no disposition.' : 'An incomplete batch is held; re-test the missing checks.'] },
+    );
   }
   if (await em.count(BatchRecord, { ...inWorkspace(actor), lotCode: input.lotCode })) {
     throw new ValidationFailed('That lot code is already recorded.', { lotCode: ['That lot code is already recorded: use the next batch number of the day.'] });
@@ -272,10 +276,74 @@ export async function recordBatch(actor: Actor, versionId: string, input: BatchR
       recordedBy: actor.userId,
     } as never) as unknown as { id: string };
     await tx.flush();
-    const failed = result.checks.filter((c) => c.status === "fail").map((c) => c.label);
-    await audit(tx, actor, result.outcome === 'fail' ? 'batch.failed' : 'batch.recorded', { type: 'batch_record', id: batch.id }, version.promotionRequestId,
-      result.outcome === 'fail' ? `${input.lotCode} failed ${failed.join(', ')}; ${input.disposition}: ${input.dispositionComment}` : `${input.lotCode} passed`);
+    const failed = result.checks.filter((c) => c.status === 'fail').map((c) => c.label);
+    const missing = result.checks.filter((c) => c.status === 'not_measured').map((c) => c.label.toLowerCase());
+    await audit(tx, actor, result.outcome === 'fail' ? 'batch.failed' : result.outcome === 'incomplete' ? 'batch.incomplete' : 'batch.recorded', { type: 'batch_record', id: batch.id }, version.promotionRequestId,
+      result.outcome === 'fail' ? `${input.lotCode} failed ${failed.join(', ')}; ${input.disposition}: ${input.dispositionComment}`
+        : result.outcome === 'incomplete' ? `${input.lotCode} held: ${missing.join(' and ')} not measured` : `${input.lotCode} passed`);
     await tx.flush();
     return { batchId: batch.id, outcome: result.outcome };
+  });
+}
+
+type HeldBatchRow = {
+  id: string; lotCode: string; brixReading: number; brixSampleTempC: number; ph: number; fillTempC: number; netFillMeanG: number | null; netFillMinG: number | null;
+  setTestScore: number | null; checks: QcCheck[]; disposition: Disposition | null; productionFormula: { id: string };
+};
+
+/** Locks the batch row (decisions on one batch are serialised) and works out where it stands. */
+async function lockedStanding(tx: EntityManager, actor: Actor, batchId: string) {
+  const batch = (await tx.findOne(BatchRecord, { ...inWorkspace(actor), id: batchId }, { lockMode: LockMode.PESSIMISTIC_WRITE })) as unknown as HeldBatchRow | null;
+  if (!batch) throw notFound('batch');
+  const version = (await tx.findOneOrFail(ProductionFormula, { ...inWorkspace(actor), id: batch.productionFormula.id })) as unknown as { spec: QcSpec; promotionRequestId: string };
+  const decisions = (await tx.find(BatchDecision, { ...inWorkspace(actor), batch: batch.id }, { orderBy: { createdAt: 'asc' } })) as unknown as BatchDecisionFact[];
+  const readings = {
+    brixReading: batch.brixReading, brixSampleTempC: batch.brixSampleTempC, ph: batch.ph, fillTempC: batch.fillTempC,
+    netFillMeanG: batch.netFillMeanG, netFillMinG: batch.netFillMinG, setTestScore: batch.setTestScore,
+  };
+  return { batch, version, standing: batchStanding({ readings, checks: batch.checks, disposition: batch.disposition }, decisions) };
+}
+
+const NOT_HELD = { passed: 'This batch passed at recording; it is not on hold.', discarded: 'This batch was discarded at recording.', released: 'This batch was already released.', rejected: 'This batch was already rejected.' } as const;
+
+/** New readings of a held batch, checked against the spec of the version it was made to. */
+export async function retestBatch(actor: Actor, batchId: string, input: BatchRetestInput): Promise<{ decisionId: string; outcome: BatchOutcome }> {
+  const em = await getEm();
+  return em.transactional(async (tx) => {
+    const { batch, version, standing } = await lockedStanding(tx, actor, batchId);
+    if (!standing.canRetest) throw new Conflict(standing.status === 'held' ? 'This batch cannot be re-tested.' : NOT_HELD[standing.status]);
+    const { comment, ...retest } = input;
+    const result = checkRetest(version.spec, standing.readings, retest);
+    const decision = tx.create(BatchDecision, {
+      workspace: actor.workspaceId, batch: batch.id, kind: 'retest', readings: retest, checks: result.checks, outcome: result.outcome, comment, decidedBy: actor.userId,
+    } as never) as unknown as { id: string };
+    await tx.flush();
+    const failed = result.checks.filter((c) => c.status !== 'pass').map((c) => `${c.label.toLowerCase()} ${c.status === 'fail' ? 'failed' : 'not measured'}`);
+    await audit(tx, actor, 'batch.retested', { type: 'batch_record', id: batch.id }, version.promotionRequestId,
+      `${batch.lotCode} ${result.outcome === 'pass' ? 'passed every check' : failed.join(', ')}: ${comment}`);
+    await tx.flush();
+    return { decisionId: decision.id, outcome: result.outcome };
+  });
+}
+
+/** Release (only once the latest checks pass) or reject a held batch. Final. */
+export async function decideBatch(actor: Actor, batchId: string, input: BatchDecisionInput): Promise<{ decisionId: string; status: 'released' | 'rejected' }> {
+  const em = await getEm();
+  return em.transactional(async (tx) => {
+    const { batch, version, standing } = await lockedStanding(tx, actor, batchId);
+    if (standing.status !== 'held') throw new Conflict(NOT_HELD[standing.status]);
+    if (input.decision === 'release' && !standing.canRelease) {
+      throw new Conflict(standing.outcome === 'fail'
+        ? 'The latest checks of this batch failed: re-test it after rework, or reject it.'
+        : 'A check the spec requires is still missing: re-test it before release.');
+    }
+    const decision = tx.create(BatchDecision, {
+      workspace: actor.workspaceId, batch: batch.id, kind: input.decision, readings: null, checks: null, outcome: null, comment: input.comment, decidedBy: actor.userId,
+    } as never) as unknown as { id: string };
+    await tx.flush();
+    await audit(tx, actor, input.decision === 'release' ? 'batch.released' : 'batch.rejected', { type: 'batch_record', id: batch.id }, version.promotionRequestId,
+      `${batch.lotCode}: ${input.comment}`);
+    await tx.flush();
+    return { decisionId: decision.id, status: input.decision === 'release' ? 'released' as const : 'rejected' as const };
   });
 }

@@ -1,16 +1,17 @@
 /** Production reads: the review queue, products and their versions, batch records, the audit trail. */
 import { getEm } from '@/lib/db';
-import { AuditEvent, BatchRecord, Product, ProductionFormula, PromotionRequest, Trial, Variant } from '@/entities';
+import { AuditEvent, BatchDecision, BatchRecord, Product, ProductionFormula, PromotionRequest, Trial, Variant } from '@/entities';
 import { can, inWorkspace, notFound, type Actor } from '@/lib/permissions';
 import { trialCode } from '@/lib/trials/access';
 import { toCsv } from '@/lib/csv';
-import { defaultQcSpec, estimateEndPoint, qcSpecCautions, type Caution, type ComplianceReport, type QcCheck, type QcSpec } from '@/lib/chemistry';
+import { defaultQcSpec, estimateEndPoint, outcomeOfChecks, qcSpecCautions, type Caution, type ComplianceReport, type QcCheck, type QcSpec } from '@/lib/chemistry';
 import { getTrialOverview } from '@/lib/trials/queries';
 import type { FormulaSettingsInput, RevisionLine } from '@/lib/formulas/schema';
 import type { ProductionProcess, PromotionEvidence, BatchSheetQuery } from './schema';
 import { buildBatchSheet, type BatchSheet } from './sheet';
 import { fruitsOf, weighLines, type PromotionOutcome, type RecipeIdentity } from './review';
-import { promotionCode, type Disposition, type PromotionStatus, type VersionStatus } from './vocabulary';
+import { promotionCode, type BatchDecisionKind, type BatchOutcome, type BatchStatus, type Disposition, type PromotionStatus, type VersionStatus } from './vocabulary';
+import { batchStanding, type BatchRetestReadings } from './holds';
 
 type Ref = { id: string };
 
@@ -176,9 +177,26 @@ type VersionRow = {
 type BatchRow = {
   id: string; product: Ref; productionFormula: { id: string; version: number; spec: QcSpec }; lotCode: string; batchDate: string; batchSizeG: number;
   brixReading: number; brixSampleTempC: number; brix20: number; ph: number; fillTempC: number; netFillMeanG: number | null; netFillMinG: number | null;
-  setTestScore: number | null; jarsFilled: number; jarsRejected: number; notes: string | null; checks: QcCheck[]; outcome: 'pass' | 'fail';
+  setTestScore: number | null; jarsFilled: number; jarsRejected: number; notes: string | null; checks: QcCheck[]; outcome: BatchOutcome;
   disposition: Disposition | null; dispositionComment: string | null; recordedBy: Named; createdAt: Date;
 };
+
+type DecisionRow = {
+  id: string; batch: Ref; kind: BatchDecisionKind; readings: BatchRetestReadings | null; checks: QcCheck[] | null; outcome: BatchOutcome | null;
+  comment: string; decidedBy: Named; createdAt: Date;
+};
+
+/** A re-test, release or reject of a held batch. */
+export interface BatchDecisionView {
+  id: string;
+  kind: BatchDecisionKind;
+  readings: BatchRetestReadings | null;
+  checks: QcCheck[] | null;
+  outcome: BatchOutcome | null;
+  comment: string;
+  decidedBy: string;
+  at: string;
+}
 
 export async function listProducts(actor: Actor): Promise<ProductSummary[]> {
   const em = await getEm();
@@ -186,7 +204,7 @@ export async function listProducts(actor: Actor): Promise<ProductSummary[]> {
   if (!products.length) return [];
   const ids = products.map((p) => p.id);
   const versions = (await em.find(ProductionFormula, { ...inWorkspace(actor), product: { $in: ids } }, { fields: ['product', 'version', 'status', 'approvedAt'] })) as unknown as Array<{ id: string; product: Ref; version: number; status: VersionStatus; approvedAt: Date }>;
-  const batches = (await em.find(BatchRecord, { ...inWorkspace(actor), product: { $in: ids } }, { fields: ['product', 'outcome', 'batchDate'] })) as unknown as Array<{ product: Ref; outcome: string; batchDate: string }>;
+  const batches = (await em.find(BatchRecord, { ...inWorkspace(actor), product: { $in: ids } }, { fields: ['product', 'checks', 'batchDate'] })) as unknown as Array<{ product: Ref; checks: QcCheck[]; batchDate: string }>;
   return products.map((p) => {
     const mine = versions.filter((v) => v.product.id === p.id);
     const current = mine.find((v) => v.status === 'current');
@@ -194,7 +212,7 @@ export async function listProducts(actor: Actor): Promise<ProductSummary[]> {
     return {
       id: p.id, code: p.code, name: p.name,
       current: current ? { id: current.id, version: current.version, approvedAt: current.approvedAt.toISOString() } : null,
-      versionCount: mine.length, batchCount: own.length, failedCount: own.filter((b) => b.outcome === 'fail').length,
+      versionCount: mine.length, batchCount: own.length, failedCount: own.filter((b) => outcomeOfChecks(b.checks) === 'fail').length,
       lastBatchDate: own.map((b) => b.batchDate).sort().at(-1) ?? null,
     };
   });
@@ -243,10 +261,19 @@ export interface BatchView {
   jarsRejected: number;
   notes: string | null;
   checks: QcCheck[];
-  outcome: 'pass' | 'fail';
+  /** The outcome at recording: a missing required check shows as incomplete, even on rows stored before that rule. */
+  outcome: BatchOutcome;
   disposition: Disposition | null;
   dispositionComment: string | null;
   recordedBy: string;
+  /** Where the batch stands now, the latest checks (after any re-test), and what may follow. */
+  status: BatchStatus;
+  latestOutcome: BatchOutcome;
+  latestChecks: QcCheck[];
+  canRetest: boolean;
+  canRelease: boolean;
+  canReject: boolean;
+  decisions: BatchDecisionView[];
   /** The spec this batch was checked against, for the trend chart's limits. */
   limits: { solidsMin: number; solidsMax: number; phMin: number; phMax: number };
 }
@@ -260,14 +287,23 @@ function versionSummary(v: VersionRow): VersionSummary {
   };
 }
 
-function batchView(b: BatchRow): BatchView {
+function batchView(b: BatchRow, decisionRows: DecisionRow[]): BatchView {
   const s = b.productionFormula.spec;
+  const decisions: BatchDecisionView[] = decisionRows.map((d) => ({
+    id: d.id, kind: d.kind, readings: d.readings ?? null, checks: d.checks ?? null, outcome: d.outcome ?? null, comment: d.comment, decidedBy: d.decidedBy.name, at: d.createdAt.toISOString(),
+  }));
+  const standing = batchStanding({
+    readings: { brixReading: b.brixReading, brixSampleTempC: b.brixSampleTempC, ph: b.ph, fillTempC: b.fillTempC, netFillMeanG: b.netFillMeanG, netFillMinG: b.netFillMinG, setTestScore: b.setTestScore },
+    checks: b.checks, disposition: b.disposition ?? null,
+  }, decisions);
   return {
     id: b.id, lotCode: b.lotCode, batchDate: b.batchDate, version: b.productionFormula.version, versionId: b.productionFormula.id, batchSizeG: b.batchSizeG,
     brixReading: b.brixReading, brixSampleTempC: b.brixSampleTempC, brix20: b.brix20, ph: b.ph, fillTempC: b.fillTempC,
     netFillMeanG: b.netFillMeanG ?? null, netFillMinG: b.netFillMinG ?? null, setTestScore: b.setTestScore ?? null, jarsFilled: b.jarsFilled, jarsRejected: b.jarsRejected,
-    notes: b.notes ?? null, checks: b.checks, outcome: b.outcome, disposition: b.disposition ?? null, dispositionComment: b.dispositionComment ?? null,
+    notes: b.notes ?? null, checks: b.checks, outcome: outcomeOfChecks(b.checks), disposition: b.disposition ?? null, dispositionComment: b.dispositionComment ?? null,
     recordedBy: b.recordedBy.name,
+    status: standing.status, latestOutcome: standing.outcome, latestChecks: [...standing.checks],
+    canRetest: standing.canRetest, canRelease: standing.canRelease, canReject: standing.canReject, decisions,
     limits: { solidsMin: s.solidsMinBrix, solidsMax: s.solidsMaxBrix, phMin: s.phMin, phMax: s.phMax },
   };
 }
@@ -288,7 +324,31 @@ export async function listBatches(actor: Actor, filter: { productId?: string; ve
   const rows = (await em.find(BatchRecord, {
     ...inWorkspace(actor), ...(filter.productId ? { product: filter.productId } : {}), ...(filter.versionId ? { productionFormula: filter.versionId } : {}),
   }, { populate: BATCH_POPULATE, orderBy: { batchDate: 'asc', createdAt: 'asc' }, limit: 5000 })) as unknown as BatchRow[];
-  return rows.map(batchView);
+  return withDecisions(actor, rows);
+}
+
+async function withDecisions(actor: Actor, rows: BatchRow[]): Promise<BatchView[]> {
+  if (!rows.length) return [];
+  const em = await getEm();
+  const decisions = (await em.find(BatchDecision, { ...inWorkspace(actor), batch: { $in: rows.map((r) => r.id) } }, { populate: ['decidedBy'], orderBy: { createdAt: 'asc' } })) as unknown as DecisionRow[];
+  return rows.map((r) => batchView(r, decisions.filter((d) => d.batch.id === r.id)));
+}
+
+/** One batch with its re-tests and decisions, the version it was made to and its spec. */
+export async function getBatch(actor: Actor, batchId: string): Promise<{ batch: BatchView; product: { id: string; code: string; name: string }; spec: QcSpec; audit: AuditView[] }> {
+  const em = await getEm();
+  const row = (await em.findOne(BatchRecord, { ...inWorkspace(actor), id: batchId }, { populate: [...BATCH_POPULATE, 'product'] })) as unknown as (BatchRow & { product: { id: string; code: string; name: string } }) | null;
+  if (!row) throw notFound('batch');
+  const [batch] = await withDecisions(actor, [row]);
+  const events = await em.find(AuditEvent, { ...inWorkspace(actor), subjectId: row.id }, { orderBy: { at: 'asc' } });
+  return { batch, product: { id: row.product.id, code: row.product.code, name: row.product.name }, spec: row.productionFormula.spec, audit: events.map(toAuditView) };
+}
+
+/** Lot codes already used for a product, so the batch form can propose the next free batch of a day. */
+export async function takenLotCodes(actor: Actor, productId: string): Promise<string[]> {
+  const em = await getEm();
+  const rows = await em.find(BatchRecord, { ...inWorkspace(actor), product: productId }, { fields: ['lotCode'] });
+  return rows.map((r) => r.lotCode);
 }
 
 export async function getProductionVersion(actor: Actor, versionId: string): Promise<VersionView> {
@@ -377,6 +437,8 @@ export async function batchesCsv(actor: Actor, productId: string): Promise<{ csv
     { header: 'net_fill_check', value: (b) => check(b, 'net_fill') },
     { header: 'set_check', value: (b) => check(b, 'set') },
     { header: 'outcome', value: (b) => b.outcome },
+    { header: 'status', value: (b) => b.status },
+    { header: 'latest_outcome', value: (b) => b.latestOutcome },
     { header: 'disposition', value: (b) => b.disposition },
     { header: 'disposition_comment', value: (b) => b.dispositionComment },
     { header: 'recorded_by', value: (b) => b.recordedBy },

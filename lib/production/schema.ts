@@ -130,6 +130,42 @@ export type BatchRecordInput = z.infer<typeof batchRecordSchema>;
 /** The finest scale resolution a batch sheet rounds to, in the chosen unit (finer is no kitchen scale, and only drives the arithmetic). */
 export const SHEET_STEP_MIN = 0.001;
 
+const decisionComment = longText(2000, { min: 5, required: 'Say what was found or decided, in a few words.' });
+
+/** A re-test of a held batch: the readings taken again (at least one); the rest keep their recorded values. */
+export const batchRetestSchema = z
+  .object({
+    brixReading: optionalNum('Refractometer reading', 10, 70),
+    brixSampleTempC: optionalNum('Sample temperature', 10, 25),
+    ph: optionalNum('pH', 1, 8),
+    fillTempC: optionalNum('Fill temperature', 20, 105),
+    netFillMeanG: optionalNum('Mean net fill', 1, 20_000),
+    netFillMinG: optionalNum('Lightest jar', 1, 20_000),
+    setTestScore: wholeNumber('The set-test score', 1, 5).nullable().optional(),
+    comment: decisionComment,
+  })
+  .strict()
+  .superRefine((r, ctx) => {
+    const taken = (['brixReading', 'ph', 'fillTempC', 'netFillMeanG', 'netFillMinG', 'setTestScore'] as const).filter((k) => r[k] != null);
+    if (!taken.length) ctx.addIssue({ code: 'custom', path: ['brixReading'], message: 'Enter at least one reading taken again.' });
+    if ((r.brixReading == null) !== (r.brixSampleTempC == null)) {
+      ctx.addIssue({ code: 'custom', path: [r.brixReading == null ? 'brixReading' : 'brixSampleTempC'], message: 'A refractometer reading needs its sample temperature, and the other way round.' });
+    }
+    if (r.netFillMeanG != null && r.netFillMinG != null && r.netFillMinG > r.netFillMeanG) {
+      ctx.addIssue({ code: 'custom', path: ['netFillMinG'], message: 'The lightest jar cannot weigh more than the mean.' });
+    }
+  });
+export type BatchRetestInput = z.infer<typeof batchRetestSchema>;
+
+/** Release or reject a held batch. */
+export const batchDecisionSchema = z
+  .object({
+    decision: z.enum(['release', 'reject'], { error: 'Release or reject.' }),
+    comment: decisionComment,
+  })
+  .strict();
+export type BatchDecisionInput = z.infer<typeof batchDecisionSchema>;
+
 export const batchSheetQuerySchema = z
   .object({
     target: z.enum(['finished_mass', 'total_charge', 'jar_count'], { error: 'Scale by kettle charge, finished mass or jar count.' }).default('total_charge'),

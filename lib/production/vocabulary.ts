@@ -17,8 +17,21 @@ export const VERSION_STATUSES = ['current', 'superseded'] as const;
 export type VersionStatus = (typeof VERSION_STATUSES)[number];
 export const VERSION_STATUS_LABELS: Record<VersionStatus, string> = { current: 'In production', superseded: 'Superseded' };
 
-export const BATCH_OUTCOMES = ['pass', 'fail'] as const;
+/** A batch's checks: all passed, one failed, or none failed but one the spec requires was not measured. */
+export const BATCH_OUTCOMES = ['pass', 'fail', 'incomplete'] as const;
 export type BatchOutcome = (typeof BATCH_OUTCOMES)[number];
+export const BATCH_OUTCOME_LABELS: Record<BatchOutcome, string> = { pass: 'Pass', fail: 'Fail', incomplete: 'Incomplete' };
+
+/** What can follow a held batch: re-tests, then one release or reject. */
+export const BATCH_DECISION_KINDS = ['retest', 'release', 'reject'] as const;
+export type BatchDecisionKind = (typeof BATCH_DECISION_KINDS)[number];
+
+/** Where a batch stands: passed at recording, held (failed or incomplete), discarded at recording, or released/rejected after a hold. */
+export const BATCH_STATUSES = ['passed', 'held', 'discarded', 'released', 'rejected'] as const;
+export type BatchStatus = (typeof BATCH_STATUSES)[number];
+export const BATCH_STATUS_LABELS: Record<BatchStatus, string> = {
+  passed: 'Passed', held: 'On hold', discarded: 'Discarded', released: 'Released', rejected: 'Rejected',
+};
 
 /** What happens to a batch that failed a check. */
 export const DISPOSITIONS = ['rework', 'hold', 'discard'] as const;
@@ -39,6 +52,10 @@ export const AUDIT_ACTIONS = {
   'version.superseded': 'Superseded production version',
   'batch.recorded': 'Recorded batch',
   'batch.failed': 'Recorded failed batch',
+  'batch.incomplete': 'Recorded incomplete batch',
+  'batch.retested': 'Re-tested held batch',
+  'batch.released': 'Released held batch',
+  'batch.rejected': 'Rejected held batch',
 } as const;
 export type AuditAction = keyof typeof AUDIT_ACTIONS;
 
@@ -58,6 +75,14 @@ export function dayOfYear(isoDate: string): number {
 export function lotCodeFor(productCode: string, isoDate: string, batchOfDay: number): string {
   const yy = isoDate.slice(2, 4);
   return `${productCode}-${yy}${String(dayOfYear(isoDate)).padStart(3, '0')}-${batchOfDay}`;
+}
+
+/** The first batch number of the day not yet used by `takenLotCodes` (lot codes of the product). */
+export function nextLotCode(productCode: string, isoDate: string, takenLotCodes: readonly string[]): string {
+  const taken = new Set(takenLotCodes);
+  let batch = 1;
+  while (taken.has(lotCodeFor(productCode, isoDate, batch))) batch += 1;
+  return lotCodeFor(productCode, isoDate, batch);
 }
 
 export function promotionCode(number: number): string {

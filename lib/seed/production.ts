@@ -6,7 +6,7 @@
 import { recommendVariant } from '@/lib/results/trial-comparison';
 import { transitionTrial } from '@/lib/trials/mutations';
 import { getPromotionDraft, getProductionVersion } from '@/lib/production/queries';
-import { decidePromotion, recordBatch, requestPromotion } from '@/lib/production/mutations';
+import { decideBatch, decidePromotion, recordBatch, requestPromotion, retestBatch } from '@/lib/production/mutations';
 import { lotCodeFor } from '@/lib/production/vocabulary';
 import type { Actor } from '@/lib/permissions';
 import type { SeededTrial } from './trials';
@@ -40,20 +40,24 @@ export async function seedDemoProduction(people: { developer: Actor; head: Actor
     { date: '2026-11-28', brix: midBrix - 0.4, temp: 21, ph: midPh + 0.02, fill: 87.8, mean: s.netFillG + 1.4, min: s.netFillG - 4.5, jars: 120, rejected: 0, notes: null },
     // Acid short-weighed: pH above the window.
     { date: '2026-11-30', brix: midBrix, temp: 20, ph: s.phMax + 0.14, fill: 88.1, mean: s.netFillG + 1.8, min: s.netFillG - 2.5, jars: 117, rejected: 2, notes: 'Citric acid solution ran out half-way through dosing.',
-      disposition: 'rework' as const, dispositionComment: 'Held, re-acidified and re-boiled on 1 December; re-test within spec, released under a new lot.' },
+      disposition: 'rework' as const, dispositionComment: 'Held for re-acidifying and a second boil.' },
     { date: '2026-12-01', brix: midBrix + 0.6, temp: 18.5, ph: midPh - 0.08, fill: 89.2, mean: s.netFillG + 2.6, min: s.netFillG - 2, jars: 119, rejected: 1, notes: 'Reworked lot from 30 November blended in.' },
     // Filled too cool after a burner fault: on hold until someone decides (the kitchen's worklist shows it).
     { date: '2026-12-02', brix: midBrix + 0.2, temp: 20, ph: midPh, fill: 82.5, mean: s.netFillG + 1.9, min: s.netFillG - 3, jars: 116, rejected: 0, notes: 'Burner tripped during filling; the last third went in cool.',
       disposition: 'hold' as const, dispositionComment: 'Held: jars filled below the hot-fill minimum. Decide whether to re-process or discard.' },
   ];
+  const recorded: Array<{ batchId: string }> = [];
   for (const b of batches) {
-    await recordBatch(production, version.id, {
+    recorded.push(await recordBatch(production, version.id, {
       lotCode: lotCodeFor(version.product.code, b.date, 1), batchDate: b.date, batchSizeG: 50_000,
       brixReading: Math.round(b.brix * 10) / 10, brixSampleTempC: b.temp, ph: Math.round(b.ph * 100) / 100, fillTempC: b.fill,
       netFillMeanG: Math.round(b.mean * 10) / 10, netFillMinG: Math.round(b.min * 10) / 10, setTestScore: 4, jarsFilled: b.jars, jarsRejected: b.rejected, notes: b.notes,
       disposition: 'disposition' in b ? b.disposition : null, dispositionComment: 'dispositionComment' in b ? b.dispositionComment : null,
-    });
+    }));
   }
+  // The reworked lot: re-tested within the window, then released.
+  await retestBatch(production, recorded[2].batchId, { ph: Math.round((midPh + 0.03) * 100) / 100, comment: 'Re-acidified and re-boiled on 1 December; pH read again on a cooled sample.' });
+  await decideBatch(production, recorded[2].batchId, { decision: 'release', comment: 'Re-test within spec on every check.' });
 
   const apricotWhy = 'Variant E (more pectin at the higher sugar ratio) set firmest and scored best on overall liking; the panel did not find it too sweet.';
   await recommendVariant(developer, apricot.trialId, { variantId: apricot.variantIds.E, rationale: apricotWhy });

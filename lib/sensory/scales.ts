@@ -161,3 +161,8 @@ export function snapLineValue(scale: LineScale, rawValue: number): number {
   const decimals = Math.max(0, -Math.floor(Math.log10(scale.resolution)));
   return Number((scale.minValue + steps * scale.resolution).toFixed(decimals));
 }
+
+/** The scale's name beside an attribute's, unless it only repeats it (an intensity line is named after its attribute). */
+export function scaleNote(attributeName: string, scaleName: string): string | null {
+  return attributeName.trim().toLowerCase() === scaleName.trim().toLowerCase() ? null : scaleName;
+}

@@ -13,3 +13,4 @@ export * from './discrimination';
 export * from './penalty';
 export * from './factor-effects';
 export * from './correlation';
+export * from './run-rules';

@@ -9,7 +9,7 @@ import { resolveLines } from '@/lib/chemistry';
 import { prepareRevision } from '@/lib/formulas/mutations';
 import type { RevisionLine, RevisionSummary, FormulaSettingsInput } from '@/lib/formulas/schema';
 import { computeFormula } from '@/lib/formulas/compute';
-import { applyFactorLevels, measureFactor, planRuns, PlanError, type FactorLevel, type MassLine } from './plan';
+import { applyFactorLevels, measureFactor, planRuns, PlanError, variantLinesKey, type FactorLevel, type MassLine } from './plan';
 import { TRIAL_STATUS_LABELS, TRIAL_TRANSITIONS, type TrialStatus } from './vocabulary';
 import { cookReadingProblems, type CookReadings, type CorrectMeasurementInput, type CreateTrialInput, type ManualVariantInput, type MeasurementInput, type PlanInput } from './schema';
 
@@ -109,7 +109,8 @@ function massLinesOf(lines: RevisionLine[]): MassLine[] {
 }
 
 /** Generates the planned variants from the base variant; the base gets its own factor levels recorded. */
-export async function planVariants(actor: Actor, trialId: string, plan: PlanInput): Promise<{ created: string[] }> {
+/** Runs that would repeat a variant already added to the trial (same lines) are skipped and named; if every run would, nothing is added (422). */
+export async function planVariants(actor: Actor, trialId: string, plan: PlanInput): Promise<{ created: string[]; skipped: string[] }> {
   const em = await getEm();
   return em.transactional(async (tx) => {
     const trial = await loadTrialForUpdate(tx, actor, trialId);
@@ -130,8 +131,13 @@ export async function planVariants(actor: Actor, trialId: string, plan: PlanInpu
       if (err instanceof PlanError) throw new ValidationFailed(err.message, { [err.field]: [err.message] });
       throw err;
     }
+    // The base is left out: a run at the base's own levels is a deliberate replicate of it.
+    const active = await tx.find(Variant, { ...inWorkspace(actor), trial: trialId, removedAt: null, isBase: false }, { orderBy: { position: 'asc' } });
+    const labelByKey = new Map(active.map((v) => [variantLinesKey(v.lines), v.label]));
     const created: string[] = [];
-    runs.forEach((run, i) => {
+    const skipped: string[] = [];
+    const fresh: Array<{ run: (typeof runs)[number]; lines: RevisionLine[] }> = [];
+    for (const run of runs) {
       let scaled: MassLine[];
       try {
         scaled = applyFactorLevels(baseMass, run.levels);
@@ -140,6 +146,19 @@ export async function planVariants(actor: Actor, trialId: string, plan: PlanInpu
         throw err;
       }
       const lines: RevisionLine[] = base.lines.map((l, j) => ({ ...l, quantity: scaled[j].massG, unit: 'g' }));
+      const same = labelByKey.get(variantLinesKey(lines));
+      if (same) {
+        if (!skipped.includes(same)) skipped.push(same);
+        continue;
+      }
+      labelByKey.set(variantLinesKey(lines), '(this plan)');
+      fresh.push({ run, lines });
+    }
+    if (!fresh.length) {
+      const message = `These variants are already in the trial (${skipped.join(', ')}): nothing was added.`;
+      throw new ValidationFailed(message, { factors: [message] });
+    }
+    fresh.forEach(({ run, lines }, i) => {
       const label = variantLabel(existing + i);
       tx.create(Variant, {
         workspace: actor.workspaceId,
@@ -158,7 +177,7 @@ export async function planVariants(actor: Actor, trialId: string, plan: PlanInpu
     });
     trial.updatedAt = new Date();
     await tx.flush();
-    return { created };
+    return { created, skipped };
   });
 }
 

@@ -157,3 +157,11 @@ export function applyFactorLevels(lines: MassLine[], levels: FactorLevel[]): Mas
   }
   return result;
 }
+
+/**
+ * What makes two variants the same: the same ingredients at the same grams (to 0.001 g). Lines given
+ * as % of fruit keep their unit in the key, so they never match grams by accident.
+ */
+export function variantLinesKey(lines: ReadonlyArray<{ ingredientId: string; quantity: number; unit: string }>): string {
+  return lines.map((l) => `${l.ingredientId}:${l.quantity.toFixed(3)}${l.unit}`).sort().join('|');
+}

@@ -3,7 +3,7 @@ import type { ActionCase, RouteCase } from './access-table';
 import type { Person, WorkspaceFixture } from './harness';
 import { actorOf } from './harness';
 import type { Role } from '@/lib/permissions';
-import { requestPromotion } from '@/lib/production/mutations';
+import { recordBatch, requestPromotion } from '@/lib/production/mutations';
 import { getProductionVersion } from '@/lib/production/queries';
 import { lotCodeFor } from '@/lib/production/vocabulary';
 import { createApprovedVersion, createPromotableTrial, freshProductCode, promotionInput } from './production-fixtures';
@@ -41,6 +41,14 @@ function nextBatch(code: string) {
   batchDay += 1;
   const date = new Date(Date.UTC(2026, 0, batchDay)).toISOString().slice(0, 10);
   return { lotCode: lotCodeFor(code, date, 1), batchDate: date, batchSizeG: 30_000, brixReading: 65, brixSampleTempC: 20, ph: 3.1, fillTempC: 88, jarsFilled: 80, jarsRejected: 0 };
+}
+
+/** A fresh held batch: nextBatch() weighs no jars and has no set test, so it is recorded incomplete (on hold). */
+async function heldBatch(a: WorkspaceFixture): Promise<string> {
+  const v = await currentVersion(a);
+  const { batchId, outcome } = await recordBatch(actorOf(a, 'production'), v.versionId, nextBatch(v.code));
+  if (outcome !== 'incomplete') throw new Error(`expected an incomplete batch, got ${outcome}`);
+  return batchId;
 }
 
 const versionParams = async (a: WorkspaceFixture) => ({ params: { versionId: (await currentVersion(a)).versionId } });
@@ -87,6 +95,21 @@ export const PRODUCTION_ROUTE_CASES: RouteCase[] = [
       return { params: { versionId: v.versionId }, body: nextBatch(v.code) };
     },
   },
+  { route: 'GET /api/v1/batches/[batchId]', allowed: STAFF, otherWorkspace: 404, prepare: async (a) => ({ params: { batchId: await heldBatch(a) } }) },
+  {
+    route: 'POST /api/v1/batches/[batchId]/retests',
+    allowed: ['production'],
+    otherWorkspace: 404,
+    otherWorkspaceRole: 'production',
+    prepare: async (a) => ({ params: { batchId: await heldBatch(a) }, body: { setTestScore: 4, netFillMeanG: 342, netFillMinG: 336, comment: 'Matrix: re-test.' } }),
+  },
+  {
+    route: 'POST /api/v1/batches/[batchId]/decision',
+    allowed: ['production'],
+    otherWorkspace: 404,
+    otherWorkspaceRole: 'production',
+    prepare: async (a) => ({ params: { batchId: await heldBatch(a) }, body: { decision: 'reject', comment: 'Matrix: reject.' } }),
+  },
   { route: 'GET /api/v1/audit', allowed: ['admin', 'head_of_product'], otherWorkspace: 'own-data' },
 ];
 
@@ -116,5 +139,19 @@ export const PRODUCTION_ACTION_CASES: ActionCase[] = [
       const v = await currentVersion(a);
       return [v.versionId, nextBatch(v.code)];
     },
+  },
+  {
+    action: 'lib/production/actions.ts#retestBatchAction',
+    allowed: ['production'],
+    otherWorkspace: 404,
+    otherWorkspaceRole: 'production',
+    argsAsync: async (a) => [await heldBatch(a), { setTestScore: 4, comment: 'Matrix: re-test.' }],
+  },
+  {
+    action: 'lib/production/actions.ts#decideBatchAction',
+    allowed: ['production'],
+    otherWorkspace: 404,
+    otherWorkspaceRole: 'production',
+    argsAsync: async (a) => [await heldBatch(a), { decision: 'reject', comment: 'Matrix: reject.' }],
   },
 ];

@@ -14,8 +14,11 @@ import * as versionRoute from '@/app/api/v1/production-versions/[versionId]/rout
 import * as sheetRoute from '@/app/api/v1/production-versions/[versionId]/batch-sheet/route';
 import * as batchesRoute from '@/app/api/v1/production-versions/[versionId]/batches/route';
 import * as auditRoute from '@/app/api/v1/audit/route';
+import * as batchRoute from '@/app/api/v1/batches/[batchId]/route';
+import * as retestsRoute from '@/app/api/v1/batches/[batchId]/retests/route';
+import * as batchDecisionRoute from '@/app/api/v1/batches/[batchId]/decision/route';
 import { getEm } from '@/lib/db';
-import { AuditEvent, BatchRecord, Membership, ProductionFormula, PromotionRequest } from '@/entities';
+import { AuditEvent, BatchDecision, BatchRecord, Membership, ProductionFormula, PromotionRequest } from '@/entities';
 import { createFormula } from '@/lib/formulas/mutations';
 import { createTrial } from '@/lib/trials/mutations';
 import { listVariants } from '@/lib/trials/queries';
@@ -330,6 +333,105 @@ describe('batch records against the spec', () => {
     expect(lines[0].split(',')).toEqual(expect.arrayContaining(['lot_code', 'brix_20c', 'solids_min', 'ph_max', 'outcome', 'disposition']));
     expect(lines).toHaveLength(3);
     expect(lines.find((l) => l.includes(lotCodeFor(code, '2026-11-02', 2)))).toMatch(/,fail,hold,/);
+  });
+});
+
+describe('held batches: incomplete, re-test, release or reject', () => {
+  let versionId: string;
+  let code: string;
+  beforeAll(async () => {
+    const v = await createApprovedVersion(a);
+    versionId = v.versionId;
+    code = v.productCode;
+  });
+  const record = async (body: unknown) => {
+    const res = await callRoute(batchesRoute.POST, { method: 'POST', path: '', caller: as('production'), params: { versionId }, body });
+    expect(res.status, JSON.stringify(res.body)).toBe(201);
+    return res.body as { batchId: string; outcome: string };
+  };
+  const retest = (batchId: string, body: unknown, caller = as('production')) => callRoute(retestsRoute.POST, { method: 'POST', path: '', caller, params: { batchId }, body });
+  const decide = (batchId: string, body: unknown, caller = as('production')) => callRoute(batchDecisionRoute.POST, { method: 'POST', path: '', caller, params: { batchId }, body });
+  const view = async (batchId: string) => (await callRoute(batchRoute.GET, { method: 'GET', path: '', caller: as('head_of_product'), params: { batchId } })).body.batch;
+
+  it('a batch with its net fill and set test not measured is incomplete and held, never passed', async () => {
+    const { batchId, outcome } = await record(goodBatch(code, '2026-10-01', 1, { netFillMeanG: null, netFillMinG: null, setTestScore: null }));
+    expect(outcome).toBe('incomplete');
+    const b = await view(batchId);
+    expect(b.outcome).toBe('incomplete');
+    expect(b.status).toBe('held');
+    expect(b.canRelease).toBe(false);
+    expect(b.checks.filter((c: any) => c.status === 'not_measured').map((c: any) => c.key).sort()).toEqual(['net_fill', 'set']);
+    // An incomplete batch takes no disposition: it is held by rule.
+    const withDisposition = await callRoute(batchesRoute.POST, { method: 'POST', path: '', caller: as('production'), params: { versionId }, body: { ...goodBatch(code, '2026-10-01', 2, { setTestScore: null }), disposition: 'hold', dispositionComment: 'Held anyway.' } });
+    expect(withDisposition.status).toBe(422);
+  });
+
+  it('re-tests the missing checks against the same spec, then releases, with the audit trail; the release is final', async () => {
+    const { batchId } = await record(goodBatch(code, '2026-10-02', 1, { setTestScore: null }));
+    const early = await decide(batchId, { decision: 'release', comment: 'Looks fine to me.' });
+    expect(early.status).toBe(409);
+    expect(early.body.error.message).toMatch(/still missing/);
+    const passing = await retest(batchId, { setTestScore: 4, comment: 'Set test read at 24 h.' });
+    expect(passing.status, JSON.stringify(passing.body)).toBe(201);
+    expect(passing.body.outcome).toBe('pass');
+    let b = await view(batchId);
+    expect(b.status).toBe('held');
+    expect(b.latestOutcome).toBe('pass');
+    expect(b.canRelease).toBe(true);
+    // The recorded readings are kept as they were; the re-test carries its own checks.
+    expect(b.setTestScore).toBeNull();
+    expect(b.decisions.map((d: any) => [d.kind, d.outcome])).toEqual([['retest', 'pass']]);
+    const released = await decide(batchId, { decision: 'release', comment: 'Every check passes after the set test.' });
+    expect(released.status, JSON.stringify(released.body)).toBe(201);
+    b = await view(batchId);
+    expect(b.status).toBe('released');
+    expect((await decide(batchId, { decision: 'reject', comment: 'Changed my mind.' })).status).toBe(409);
+    expect((await retest(batchId, { ph: 3.1, comment: 'One more.' })).status).toBe(409);
+    const trail = (await callRoute(batchRoute.GET, { method: 'GET', path: '', caller: as('head_of_product'), params: { batchId } })).body.audit.map((e: any) => e.action);
+    expect(trail).toEqual(['batch.incomplete', 'batch.retested', 'batch.released']);
+    const roles = (await callRoute(batchRoute.GET, { method: 'GET', path: '', caller: as('head_of_product'), params: { batchId } })).body.audit.map((e: any) => e.actorRole);
+    expect(new Set(roles)).toEqual(new Set(['production']));
+  });
+
+  it('a failed batch on hold that still fails its re-test cannot be released; it can be rejected', async () => {
+    const { batchId } = await record({ ...goodBatch(code, '2026-10-03', 1, { ph: 3.6 }), disposition: 'hold', dispositionComment: 'Acid short; holding for re-acidifying.' });
+    const stillBad = await retest(batchId, { ph: 3.45, comment: 'Re-acidified once.' });
+    expect(stillBad.body.outcome).toBe('fail');
+    expect((await decide(batchId, { decision: 'release', comment: 'Close enough.' })).status).toBe(409);
+    const rejected = await decide(batchId, { decision: 'reject', comment: 'pH will not come down; discard.' });
+    expect(rejected.status).toBe(201);
+    expect((await view(batchId)).status).toBe('rejected');
+  });
+
+  it('refuses a re-test of a passed or discarded batch, empty or lopsided re-tests, and other roles; nothing is written', async () => {
+    const passed = await record(goodBatch(code, '2026-10-04', 1));
+    expect(passed.outcome).toBe('pass');
+    expect((await retest(passed.batchId, { ph: 3.1, comment: 'Checking.' })).status).toBe(409);
+    const discarded = await record({ ...goodBatch(code, '2026-10-04', 2, { fillTempC: 70 }), disposition: 'discard', dispositionComment: 'Filled cold; discarded.' });
+    expect((await decide(discarded.batchId, { decision: 'release', comment: 'Please.' })).status).toBe(409);
+    const held = await record(goodBatch(code, '2026-10-04', 3, { setTestScore: null }));
+    const before = await (await getEm()).fork().count(BatchDecision, {});
+    expect((await retest(held.batchId, { comment: 'Nothing measured.' })).status).toBe(422);
+    expect((await retest(held.batchId, { brixReading: 65, comment: 'No temperature.' })).status).toBe(422);
+    expect((await retest(held.batchId, { setTestScore: 4, comment: '' })).status).toBe(422);
+    expect((await decide(held.batchId, { decision: 'approve', comment: 'Wrong word.' })).status).toBe(422);
+    for (const role of ['developer', 'head_of_product', 'admin'] as const) {
+      expect((await retest(held.batchId, { setTestScore: 4, comment: 'Not mine to do.' }, as(role))).status, role).toBe(403);
+      expect((await decide(held.batchId, { decision: 'reject', comment: 'Not mine to do.' }, as(role))).status, role).toBe(403);
+    }
+    expect(await (await getEm()).fork().count(BatchDecision, {})).toBe(before);
+  });
+
+  it('re-tests and decisions cannot be changed, even in the database, and only one release or reject can exist', async () => {
+    const { batchId } = await record(goodBatch(code, '2026-10-05', 1, { setTestScore: null }));
+    await decide(batchId, { decision: 'reject', comment: 'Set never checked; rejected.' });
+    await expect(sql(`update batch_decisions set comment = 'edited' where batch_id = ?`, [batchId])).rejects.toThrow(/insert-only/);
+    await expect(sql('delete from batch_decisions where batch_id = ?', [batchId])).rejects.toThrow(/insert-only/);
+    const decision = await (await getEm()).fork().findOneOrFail(BatchDecision, { batch: batchId });
+    await expect(sql(
+      `insert into batch_decisions (id, workspace_id, batch_id, kind, comment, decided_by_id, created_at) values (gen_random_uuid(), ?, ?, 'release', 'sneaky', ?, now())`,
+      [a.workspaceId, batchId, (decision.decidedBy as unknown as { id: string }).id],
+    )).rejects.toThrow(/batch_decisions_one_final/);
   });
 });
 

@@ -64,6 +64,22 @@ describe('planning variants', () => {
     expect(diff.lines.filter((l) => l.status === 'changed').map((l) => l.ingredientName).sort()).toEqual(['Citric acid (anhydrous powder)', 'Sucrose (white sugar)']);
   });
 
+  it('"Add these variants" twice adds no exact duplicates: a repeat is refused with the labels it repeats', async () => {
+    const trialId = await newTrial();
+    const body = { kind: 'full_factorial', factors: [{ factor: 'sugar_ratio', low: 0.8, high: 1.1 }] };
+    const first = await callRoute(planRoute.POST, { method: 'POST', path: '', caller: dev(), params: { trialId }, body });
+    expect(first.status, JSON.stringify(first.body)).toBe(201);
+    expect(first.body).toMatchObject({ created: ['B', 'C'], skipped: [] });
+    const again = await callRoute(planRoute.POST, { method: 'POST', path: '', caller: dev(), params: { trialId }, body });
+    expect(again.status).toBe(422);
+    expect(again.body.error.message).toBe('These variants are already in the trial (B, C): nothing was added.');
+    expect((await overview(trialId)).variants.map((v: any) => v.label)).toEqual(['A', 'B', 'C']);
+    // A wider plan adds only the runs that are new.
+    const wider = await callRoute(planRoute.POST, { method: 'POST', path: '', caller: dev(), params: { trialId }, body: { ...body, centrePoint: true } });
+    expect(wider.status).toBe(201);
+    expect(wider.body).toMatchObject({ created: ['D'], skipped: ['B', 'C'] });
+  });
+
   it('refuses a factor the base formula cannot carry, and writes nothing', async () => {
     const trialId = await newTrial();
     const before = (await overview(trialId)).variants.length;

@@ -4,6 +4,7 @@ import { can } from '@/lib/permissions';
 import { listProducts, reviewQueue } from '@/lib/production/queries';
 import { PageHeader, EmptyState } from '@/components/ui/Card';
 import { buttonClass } from '@/components/ui/Button';
+import { formatDate } from '@/lib/format/dates';
 
 export const dynamic = 'force-dynamic';
 export const metadata = { title: 'Production' };
@@ -31,7 +32,7 @@ export default async function ProductionPage() {
             <li key={p.id} className="rounded-card bg-pith-50 p-5 shadow-card ring-1 ring-pith-300">
               <p className="font-display text-lg text-damson-900"><Link href={`/production/products/${p.id}`} className="hover:underline">{p.name}</Link> <span className="font-mono text-sm text-rind-500">{p.code}</span></p>
               <p className="mt-1 text-sm text-rind-600">
-                {p.current ? <>In production: <Link className="text-damson-700 underline" href={`/production/versions/${p.current.id}`}>v{p.current.version}</Link>, approved {p.current.approvedAt.slice(0, 10)}</> : 'No version in production'}
+                {p.current ? <>In production: <Link className="text-damson-700 underline" href={`/production/versions/${p.current.id}`}>v{p.current.version}</Link>, approved {formatDate(p.current.approvedAt)}</> : 'No version in production'}
                 {' · '}{p.versionCount} version{p.versionCount === 1 ? '' : 's'}
               </p>
               <p className="mt-1 text-sm text-rind-600">{p.batchCount} batch{p.batchCount === 1 ? '' : 'es'}{p.failedCount ? <>, <span className="font-medium text-ember-700">{p.failedCount} failed</span></> : null}{p.lastBatchDate ? `, last ${p.lastBatchDate}` : ''}</p>

@@ -10,6 +10,7 @@ import { buttonClass } from '@/components/ui/Button';
 import { Notice } from '@/components/ui/Notice';
 import { StatusBadge } from '@/components/trials/StatusBadge';
 import { TrialFilters } from '@/components/trials/TrialFilters';
+import { formatDate } from '@/lib/format/dates';
 
 export const dynamic = 'force-dynamic';
 export const metadata = { title: 'Trials' };
@@ -64,7 +65,7 @@ export default async function TrialsPage({ searchParams }: { searchParams: Promi
                   <td className="px-4 py-3">{t.baseFormulaName} <span className="text-xs text-rind-500">({PRODUCT_CLASS_LABELS[t.productClass]})</span></td>
                   <td className="px-4 py-3 tabular-nums">{t.variantCount}</td>
                   <td className="px-4 py-3">{t.ownerName}</td>
-                  <td className="px-4 py-3 text-rind-600">{new Date(t.createdAt).toLocaleDateString('en-GB')}</td>
+                  <td className="px-4 py-3 text-rind-600">{formatDate(t.createdAt)}</td>
                 </tr>
               ))}
             </tbody>

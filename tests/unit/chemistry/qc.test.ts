@@ -97,7 +97,7 @@ describe('specification problems and cautions', () => {
 
 describe('checking a batch against its specification at the boundaries', () => {
   it('passes a batch inside every window', () => {
-    const result = checkBatchAgainstSpec(SPEC, GOOD);
+    const result = checkBatchAgainstSpec(SPEC, { ...GOOD, netFillMeanG: 341, netFillMinG: 335, setTestScore: 4 });
     expect(result.outcome).toBe('pass');
     expect(result.checks.filter((c) => c.status === 'fail')).toEqual([]);
   });
@@ -145,12 +145,15 @@ describe('checking a batch against its specification at the boundaries', () => {
     expect(statusOf('net_fill', {})).toBe('not_measured');
   });
 
-  it('set test: below the minimum score fails; not measured does not fail the batch', () => {
+  it('set test: below the minimum score fails; not measured leaves the batch incomplete, never passed', () => {
     expect(statusOf('set', { setTestScore: 4 })).toBe('pass');
     expect(statusOf('set', { setTestScore: 3 })).toBe('fail');
-    const unmeasured = checkBatchAgainstSpec(SPEC, GOOD);
+    const unmeasured = checkBatchAgainstSpec(SPEC, { ...GOOD, netFillMeanG: 341, netFillMinG: 335 });
     expect(unmeasured.checks.find((c) => c.key === 'set')!.status).toBe('not_measured');
-    expect(unmeasured.outcome).toBe('pass');
+    expect(unmeasured.outcome).toBe('incomplete');
+    // Net fill and set test both missing: still incomplete; a failure elsewhere wins.
+    expect(checkBatchAgainstSpec(SPEC, GOOD).outcome).toBe('incomplete');
+    expect(checkBatchAgainstSpec(SPEC, { ...GOOD, fillTempC: 80 }).outcome).toBe('fail');
   });
 
   it('one failed check fails the batch and says why', () => {

@@ -321,6 +321,16 @@ describe('FormulaEditor: saving', () => {
     expect(actions.reviseFormulaAction).not.toHaveBeenCalled();
   });
 
+  it('drops "Some fields need attention" once the marked fields are fixed', async () => {
+    renderRevise();
+    type('Name', '   ');
+    fireEvent.click(screen.getByRole('button', { name: 'Save new revision' }));
+    await screen.findByText('Some fields need attention; they are marked below.');
+    type('Name', 'Plum jam, trial 2');
+    expect(screen.queryByText('Give the formula a name.')).toBeNull();
+    expect(screen.queryByText('Some fields need attention; they are marked below.')).toBeNull();
+  });
+
   it('asks before leaving with unsaved changes', () => {
     renderRevise();
     const clean = new Event('beforeunload', { cancelable: true });

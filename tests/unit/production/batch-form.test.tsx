@@ -16,8 +16,8 @@ const SPEC: QcSpec = {
   setMinScore: 4, setDescription: 'Clean set', shelfLifeMonths: 12, storageNotes: 'Cool and dark',
 };
 
-function renderForm(temperatureUnit: 'C' | 'F' = 'C') {
-  render(<BatchForm versionId="11111111-1111-4111-8111-111111111111" spec={SPEC} productCode="QMJ" today="2026-12-02" temperatureUnit={temperatureUnit} massUnits="metric" />);
+function renderForm(temperatureUnit: 'C' | 'F' = 'C', takenLotCodes: string[] = []) {
+  render(<BatchForm versionId="11111111-1111-4111-8111-111111111111" spec={SPEC} productCode="QMJ" takenLotCodes={takenLotCodes} today="2026-12-02" temperatureUnit={temperatureUnit} massUnits="metric" />);
 }
 const type = (label: string, value: string) => fireEvent.change(screen.getByLabelText(label), { target: { value } });
 
@@ -33,6 +33,15 @@ describe('the batch form', () => {
     expect((screen.getByLabelText('Lot code') as HTMLInputElement).value).toBe('QMJ-26336-1');
     type('Batch date', '2026-01-05');
     expect((screen.getByLabelText('Lot code') as HTMLInputElement).value).toBe('QMJ-26005-1');
+  });
+
+  it('proposes the next free batch of the day, not batch 1 again', () => {
+    renderForm('C', ['QMJ-26336-1', 'QMJ-26336-2', 'QMJ-26005-1']);
+    expect((screen.getByLabelText('Lot code') as HTMLInputElement).value).toBe('QMJ-26336-3');
+    type('Batch date', '2026-01-05');
+    expect((screen.getByLabelText('Lot code') as HTMLInputElement).value).toBe('QMJ-26005-2');
+    type('Batch date', '2026-01-06');
+    expect((screen.getByLabelText('Lot code') as HTMLInputElement).value).toBe('QMJ-26006-1');
   });
 
   it('checks the readings as they are typed and asks for a disposition when one fails', () => {

@@ -2,6 +2,7 @@ import { requirePage } from '@/lib/page-guard';
 import { listIngredients } from '@/lib/ingredients/queries';
 import { FormulaEditor } from '@/components/formulas/FormulaEditor';
 import { PageHeader } from '@/components/ui/Card';
+import { todayIso } from '@/lib/format/dates';
 
 export const dynamic = 'force-dynamic';
 export const metadata = { title: 'New formula' };
@@ -17,7 +18,7 @@ export default async function NewFormulaPage() {
         ingredients={ingredients}
         massUnits={actor.massUnits}
         temperatureUnit={actor.temperatureUnit}
-        defaults={{ ruleDate: new Date().toISOString().slice(0, 10), targetSolidsPct: 65, jarNetFillG: 340 }}
+        defaults={{ ruleDate: todayIso(), targetSolidsPct: 65, jarNetFillG: 340 }}
       />
     </>
   );

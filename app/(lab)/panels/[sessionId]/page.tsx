@@ -5,8 +5,10 @@ import { can } from '@/lib/permissions';
 import { getPanelSession } from '@/lib/panels/queries';
 import { listMembers } from '@/lib/members/queries';
 import { env } from '@/lib/env';
+import { isLoopbackUrl, joinLink } from '@/lib/panels/join-link';
 import { PanelControl } from '@/components/panels/PanelControl';
 import { PageHeader } from '@/components/ui/Card';
+import { formatDateTime } from '@/lib/format/dates';
 
 export const dynamic = 'force-dynamic';
 export const metadata = { title: 'Tasting' };
@@ -14,14 +16,14 @@ export const metadata = { title: 'Tasting' };
 export default async function PanelPage({ params }: { params: Promise<{ sessionId: string }> }) {
   const actor = await requirePage('panels.read');
   const session = await orNotFound(getPanelSession(actor, pageId((await params).sessionId)));
-  const joinUrl = session.joinCode ? `${env().APP_URL}/join?code=${session.joinCode}` : null;
+  const joinUrl = session.joinCode ? joinLink(env().APP_URL, session.joinCode) : null;
   const qrDataUrl = joinUrl ? await QRCode.toDataURL(joinUrl, { margin: 1, width: 360, color: { dark: '#2f1729', light: '#ffffff' } }) : null;
   const members = (await listMembers(actor)).members.filter((m) => m.active).map((m) => ({ userId: m.userId, name: m.name, role: m.role }));
   return (
     <>
       <p className="text-sm text-rind-500"><Link href={`/trials/${session.trialId}`} className="underline-offset-2 hover:underline">Back to the trial</Link></p>
-      <PageHeader title={session.title} lead={[session.place, session.startsAt ? new Date(session.startsAt).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short' }) : null].filter(Boolean).join(' · ') || undefined} />
-      <PanelControl initial={session} qrDataUrl={qrDataUrl} joinUrl={joinUrl} members={members} canRun={can(actor.role, 'panels.run')} />
+      <PageHeader title={session.title} lead={[session.place, session.startsAt ? formatDateTime(session.startsAt) : null].filter(Boolean).join(' · ') || undefined} />
+      <PanelControl initial={session} qrDataUrl={qrDataUrl} joinUrl={joinUrl} members={members} canRun={can(actor.role, 'panels.run')} joinUrlLocalOnly={isLoopbackUrl(env().APP_URL)} />
     </>
   );
 }

@@ -4,6 +4,7 @@ import { can } from '@/lib/permissions';
 import { listPromotionRequests, reviewQueue } from '@/lib/production/queries';
 import { PageHeader, EmptyState, Card } from '@/components/ui/Card';
 import { StatusBadge } from '@/components/production/StatusBadge';
+import { formatDate } from '@/lib/format/dates';
 
 export const dynamic = 'force-dynamic';
 export const metadata = { title: 'Promotion reviews' };
@@ -25,7 +26,7 @@ export default async function ReviewsPage() {
               <li key={r.id} className="flex flex-wrap items-center justify-between gap-2 py-3">
                 <div>
                   <Link href={`/production/reviews/${r.id}`} className="font-medium text-damson-800 underline">{r.code}: {r.trial.code} variant {r.variantLabel} → {r.productLabel}</Link>
-                  <p className="text-sm text-rind-600">Requested by {r.requestedBy} on {r.requestedAt.slice(0, 10)}{r.ownRequest ? ' (yours: another head of product must decide)' : ''}</p>
+                  <p className="text-sm text-rind-600">Requested by {r.requestedBy} on {formatDate(r.requestedAt)}{r.ownRequest ? ' (yours: another head of product must decide)' : ''}</p>
                 </div>
                 <StatusBadge status={r.status} />
               </li>
@@ -40,7 +41,7 @@ export default async function ReviewsPage() {
               {decided.map((r) => (
                 <li key={r.id} className="flex flex-wrap items-center justify-between gap-2 py-2 text-sm">
                   <Link href={`/production/reviews/${r.id}`} className="text-damson-800 underline">{r.code}: {r.trial.code} variant {r.variantLabel} → {r.productLabel}</Link>
-                  <span className="flex items-center gap-2 text-rind-600">{r.decidedAt?.slice(0, 10)} <StatusBadge status={r.status} /></span>
+                  <span className="flex items-center gap-2 text-rind-600">{formatDate(r.decidedAt)} <StatusBadge status={r.status} /></span>
                 </li>
               ))}
             </ul>

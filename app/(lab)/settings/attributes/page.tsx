@@ -2,6 +2,7 @@ import { requirePage } from '@/lib/page-guard';
 import { can } from '@/lib/permissions';
 import { listAttributes } from '@/lib/panels/queries';
 import { PageHeader } from '@/components/ui/Card';
+import { scaleNote } from '@/lib/sensory/scales';
 import { AttributeForm } from '@/components/panels/AttributeForm';
 
 export const dynamic = 'force-dynamic';
@@ -16,7 +17,7 @@ export default async function AttributesPage() {
       <ul className="mb-8 grid gap-3 md:grid-cols-2" data-testid="attribute-list">
         {attributes.map((a) => (
           <li key={a.id} className="rounded-card bg-pith-50 p-4 ring-1 ring-pith-300">
-            <p className="font-medium">{a.name} <span className="text-xs text-rind-500">· {a.scaleName}{a.libraryKey ? '' : ' · your own'}</span></p>
+            <p className="font-medium">{a.name} <span className="text-xs text-rind-500">{[scaleNote(a.name, a.scaleName), a.libraryKey ? null : 'your own'].filter(Boolean).map((t) => ` · ${t}`).join('')}</span></p>
             <p className="mt-1 text-sm text-rind-600">{a.instruction}</p>
           </li>
         ))}

@@ -3,6 +3,7 @@ import { requirePage } from '@/lib/page-guard';
 import { outboxAvailable, readWorkspaceOutbox } from '@/lib/outbox';
 import { PageHeader, EmptyState } from '@/components/ui/Card';
 import { Notice } from '@/components/ui/Notice';
+import { formatDateTime } from '@/lib/format/dates';
 
 export const dynamic = 'force-dynamic';
 export const metadata = { title: 'Mail outbox' };
@@ -27,7 +28,7 @@ export default async function OutboxPage() {
           {messages.map((m) => (
             <li key={m.id} className="rounded-card bg-pith-50 p-4 ring-1 ring-pith-300">
               <p className="font-medium break-words">{m.subject}</p>
-              <p className="text-xs text-rind-500 break-words">To {m.to.join(', ')} · {new Date(m.date).toLocaleString()}</p>
+              <p className="text-xs text-rind-500 break-words">To {m.to.join(', ')} · {formatDateTime(m.date)}</p>
               <pre className="mt-3 whitespace-pre-wrap break-words font-sans text-sm text-rind-700">{m.text}</pre>
             </li>
           ))}

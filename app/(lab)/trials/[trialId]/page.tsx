@@ -17,6 +17,7 @@ import { NotebookEditor } from '@/components/notebook/NotebookEditor';
 import { listPanelSessions } from '@/lib/panels/queries';
 import { PANEL_METHOD_LABELS, PANEL_STATE_LABELS } from '@/lib/panels/vocabulary';
 import { buttonClass } from '@/components/ui/Button';
+import { formatDateTime } from '@/lib/format/dates';
 
 export const dynamic = 'force-dynamic';
 export const metadata = { title: 'Trial' };
@@ -95,10 +96,10 @@ export default async function TrialPage({ params }: { params: Promise<{ trialId:
                 })),
                 ...trial.variants.flatMap((v) => [...v.measurements, ...v.withdrawnMeasurements].flatMap((m) => m.changes.map((c) => ({
                   at: c.at,
-                  text: `Cook of ${m.cookDate} (variant ${v.label}) ${c.kind === 'withdrawn' ? 'withdrawn' : 'corrected'} by ${c.byName} (“${c.reason}”)`,
+                  text: `Cook of ${formatDate(m.cookDate)} (variant ${v.label}) ${c.kind === 'withdrawn' ? 'withdrawn' : 'corrected'} by ${c.byName} (“${c.reason}”)`,
                 })))),
               ].sort((x, y) => x.at.localeCompare(y.at)).map((h, i) => (
-                <li key={i}>{new Date(h.at).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short' })} — {h.text}</li>
+                <li key={i}>{formatDateTime(h.at)} — {h.text}</li>
               ))}
             </ol>
           </section>

@@ -4,6 +4,7 @@ import { getFormula, listRevisions } from '@/lib/formulas/queries';
 import { FormulaHeader } from '@/components/formulas/FormulaHeader';
 import { RevisionDiff } from '@/components/formulas/RevisionDiff';
 import { buttonClass } from '@/components/ui/Button';
+import { formatDate, formatDateTime } from '@/lib/format/dates';
 
 export const dynamic = 'force-dynamic';
 export const metadata = { title: 'Formula history' };
@@ -21,7 +22,7 @@ export default async function FormulaHistoryPage({ params, searchParams }: { par
   const before = byNumber.get(Number(q.a)) ?? revisions.find((r) => r.number < after.number) ?? after;
   const options = revisions.map((r) => (
     <option key={r.number} value={r.number}>
-      Revision {r.number} — {r.createdBy.name}, {new Date(r.createdAt).toLocaleDateString('en-GB')}
+      Revision {r.number} — {r.createdBy.name}, {formatDate(r.createdAt)}
     </option>
   ));
 
@@ -35,7 +36,7 @@ export default async function FormulaHistoryPage({ params, searchParams }: { par
             {revisions.map((r) => (
               <li key={r.number} className="rounded-lg bg-pith-50 p-3 text-sm ring-1 ring-pith-300">
                 <p className="font-medium">Revision {r.number}</p>
-                <p className="text-xs text-rind-500">{r.createdBy.name} · {new Date(r.createdAt).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short' })}</p>
+                <p className="text-xs text-rind-500">{r.createdBy.name} · {formatDateTime(r.createdAt)}</p>
                 {r.note ? <p className="mt-1 text-rind-700">{r.note}</p> : null}
               </li>
             ))}

@@ -14,6 +14,7 @@ import { DecisionForm } from '@/components/production/DecisionForm';
 import { approvalConsequence } from '@/lib/production/review';
 import { PromotionFormula } from '@/components/production/PromotionFormula';
 import { WithdrawButton } from '@/components/production/WithdrawButton';
+import { formatDate } from '@/lib/format/dates';
 
 export const dynamic = 'force-dynamic';
 export const metadata = { title: 'Promotion request' };
@@ -32,7 +33,7 @@ export default async function PromotionRequestPage({ params }: { params: Promise
     <>
       <PageHeader
         title={`${r.code}: variant ${r.variantLabel} of ${r.trial.code}`}
-        lead={`${r.productLabel}. Requested by ${r.requestedBy} on ${r.requestedAt.slice(0, 10)}.${r.status === 'pending' ? ` On approval, ${approvalConsequence(r.outcome).replace(/^T/, 't')}` : ''}`}
+        lead={`${r.productLabel}. Requested by ${r.requestedBy} on ${formatDate(r.requestedAt)}.${r.status === 'pending' ? ` On approval, ${approvalConsequence(r.outcome).replace(/^T/, 't')}` : ''}`}
         actions={<StatusBadge status={r.status} />}
       />
       <p className="-mt-3 mb-6 text-sm">
@@ -41,7 +42,7 @@ export default async function PromotionRequestPage({ params }: { params: Promise
       </p>
       {r.status !== 'pending' ? (
         <div className="mb-6">
-          <Notice tone={r.status === 'approved' ? 'success' : 'warning'} title={`${r.status === 'approved' ? 'Approved' : r.status === 'withdrawn' ? 'Withdrawn' : 'Sent back'} by ${r.decidedBy} on ${r.decidedAt?.slice(0, 10)}`}>
+          <Notice tone={r.status === 'approved' ? 'success' : 'warning'} title={`${r.status === 'approved' ? 'Approved' : r.status === 'withdrawn' ? 'Withdrawn' : 'Sent back'} by ${r.decidedBy} on ${formatDate(r.decidedAt)}`}>
             {r.decisionComment ?? 'No comment.'}
           </Notice>
         </div>
@@ -87,7 +88,7 @@ export default async function PromotionRequestPage({ params }: { params: Promise
               <table className="w-full text-sm">
                 <thead><tr className="border-b border-pith-300 text-left text-rind-600"><th className="py-1 pr-3 font-medium">Variant</th><th className="py-1 pr-3 font-medium">Cooked</th><th className="py-1 pr-3 font-medium">°Brix at 20 °C</th><th className="py-1 pr-3 font-medium">pH</th><th className="py-1 pr-3 font-medium">End point</th><th className="py-1 font-medium">Set</th></tr></thead>
                 <tbody>{e.lab.map((m, i) => (
-                  <tr key={i} className={`border-b border-pith-200 ${m.label === r.variantLabel ? 'font-semibold' : ''}`}><td className="py-1 pr-3">{m.label}</td><td className="py-1 pr-3">{m.cookDate}</td><td className="py-1 pr-3 tabular-nums">{n(m.brix20, 1)}</td><td className="py-1 pr-3 tabular-nums">{n(m.ph, 2)}</td><td className="py-1 pr-3">{m.endPointTempC === null ? '—' : formatTemperature(m.endPointTempC, temps)}</td><td className="py-1">{m.setTestScore ?? '—'}</td></tr>
+                  <tr key={i} className={`border-b border-pith-200 ${m.label === r.variantLabel ? 'font-semibold' : ''}`}><td className="py-1 pr-3">{m.label}</td><td className="py-1 pr-3">{formatDate(m.cookDate)}</td><td className="py-1 pr-3 tabular-nums">{n(m.brix20, 1)}</td><td className="py-1 pr-3 tabular-nums">{n(m.ph, 2)}</td><td className="py-1 pr-3">{m.endPointTempC === null ? '—' : formatTemperature(m.endPointTempC, temps)}</td><td className="py-1">{m.setTestScore ?? '—'}</td></tr>
                 ))}</tbody>
               </table>
               </div>

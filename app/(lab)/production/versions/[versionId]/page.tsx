@@ -12,6 +12,7 @@ import { SpecTable } from '@/components/production/SpecTable';
 import { CautionList } from '@/components/production/CautionList';
 import { AuditTrail } from '@/components/production/AuditTrail';
 import { BatchTable } from '@/components/production/BatchTable';
+import { formatDate } from '@/lib/format/dates';
 
 export const dynamic = 'force-dynamic';
 export const metadata = { title: 'Production version' };
@@ -25,7 +26,7 @@ export default async function VersionPage({ params }: { params: Promise<{ versio
     <>
       <PageHeader
         title={`${v.product.name} v${v.version}`}
-        lead={`${PRODUCT_CLASS_LABELS[v.settings.productClass]}, ${RULE_SET_LABELS[v.settings.ruleSet]} rules. From ${v.source.trialCode} “${v.trialTitle}” variant ${v.source.variantLabel}; approved by ${v.approvedBy} on ${v.approvedAt.slice(0, 10)}.`}
+        lead={`${PRODUCT_CLASS_LABELS[v.settings.productClass]}, ${RULE_SET_LABELS[v.settings.ruleSet]} rules. From ${v.source.trialCode} “${v.trialTitle}” variant ${v.source.variantLabel}; approved by ${v.approvedBy} on ${formatDate(v.approvedAt)}.`}
         actions={<StatusBadge status={v.status} />}
       />
       <p className="-mt-3 mb-6 flex flex-wrap gap-3 text-sm">
@@ -33,7 +34,7 @@ export default async function VersionPage({ params }: { params: Promise<{ versio
         {can(actor.role, 'promotion.read') ? <Link href={`/production/reviews/${v.promotionRequestId}`} className="text-damson-700 underline">The request and its evidence</Link> : null}
       </p>
       {v.status === 'superseded' ? (
-        <div className="mb-6"><Notice tone="warning" title={`Superseded by v${v.supersededByVersion} on ${v.supersededAt?.slice(0, 10)}`}>Kept read-only with its history. Make new batches to the version in production.</Notice></div>
+        <div className="mb-6"><Notice tone="warning" title={`Superseded by v${v.supersededByVersion} on ${formatDate(v.supersededAt)}`}>Kept read-only with its history. Make new batches to the version in production.</Notice></div>
       ) : (
         <div className="no-print mb-6 flex flex-wrap gap-2">
           <Link href={`/production/versions/${v.id}/sheet`} className={buttonClass('secondary')}>Batch sheet</Link>

@@ -10,6 +10,7 @@ import { RecommendForm } from '@/components/results/RecommendForm';
 import { FactorEffectsCard } from '@/components/results/FactorEffects';
 import { DataTable, CELL, HEAD, NUM, NUM_TH, TH } from '@/components/results/DataTable';
 import { Notice } from '@/components/ui/Notice';
+import { formatDate } from '@/lib/format/dates';
 
 export const dynamic = 'force-dynamic';
 export const metadata = { title: 'Compare variants' };
@@ -26,7 +27,7 @@ export default async function ComparePage({ params }: { params: Promise<{ trialI
       <TrialHeader trial={c.trial} />
       <p className="-mt-3 mb-6 text-sm"><Link href={`/trials/${c.trial.id}`} className="text-damson-700 underline">Back to the trial</Link></p>
       {c.recommendation ? (
-        <div className="mb-6"><Notice tone="success" title={`Recommended: variant ${c.recommendation.label}`}>{c.recommendation.rationale} — {c.recommendation.byName}, {new Date(c.recommendation.at).toLocaleDateString('en-GB')}</Notice></div>
+        <div className="mb-6"><Notice tone="success" title={`Recommended: variant ${c.recommendation.label}`}>{c.recommendation.rationale} — {c.recommendation.byName}, {formatDate(c.recommendation.at)}</Notice></div>
       ) : null}
       <section className="mb-6">
         <h2 className="mb-2 text-xl font-semibold">Predicted and measured</h2>

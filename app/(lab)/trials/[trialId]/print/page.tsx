@@ -6,6 +6,7 @@ import { VariantsTable } from '@/components/trials/VariantsTable';
 import { CookList } from '@/components/trials/CookList';
 import { NotebookView } from '@/components/notebook/NotebookView';
 import { PrintButton } from '@/components/ui/PrintButton';
+import { formatDateTime } from '@/lib/format/dates';
 
 export const dynamic = 'force-dynamic';
 export const metadata = { title: 'Print trial' };
@@ -41,7 +42,7 @@ export default async function TrialPrintPage({ params }: { params: Promise<{ tri
         </section>
       ))}
       <footer className="mt-8 border-t border-rind-300 pt-2 text-xs text-rind-500">
-        Printed from Setwell on {new Date().toLocaleString('en-GB', { dateStyle: 'long', timeStyle: 'short' })}. Predictions are estimates for product development; local food-safety codes and licensed practice govern.
+        Printed from Setwell on {formatDateTime(new Date())}. Predictions are estimates for product development; local food-safety codes and licensed practice govern.
       </footer>
     </article>
   );

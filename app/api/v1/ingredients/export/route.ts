@@ -2,6 +2,7 @@ import { apiRoute } from '@/lib/api/route';
 import { listIngredients } from '@/lib/ingredients/queries';
 import { ingredientListQuerySchema } from '@/lib/ingredients/schema';
 import { csvResponse, toCsv } from '@/lib/csv';
+import { todayIso } from '@/lib/format/dates';
 
 export const dynamic = 'force-dynamic';
 
@@ -27,5 +28,5 @@ export const GET = apiRoute('ingredients.read', async ({ actor, req }) => {
     { header: 'source', value: (r) => r.source },
     { header: 'updated_at', value: (r) => r.updatedAt },
   ]);
-  return csvResponse(csv, `ingredients-${new Date().toISOString().slice(0, 10)}.csv`);
+  return csvResponse(csv, `ingredients-${todayIso()}.csv`);
 });

@@ -1,9 +1,10 @@
 import Link from 'next/link';
 import { requirePage, orNotFound, pageId } from '@/lib/page-guard';
-import { getProductionVersion } from '@/lib/production/queries';
+import { getProductionVersion, takenLotCodes } from '@/lib/production/queries';
 import { PageHeader } from '@/components/ui/Card';
 import { Notice } from '@/components/ui/Notice';
 import { BatchForm } from '@/components/production/BatchForm';
+import { todayIso } from '@/lib/format/dates';
 
 export const dynamic = 'force-dynamic';
 export const metadata = { title: 'Record a batch' };
@@ -18,7 +19,7 @@ export default async function NewBatchPage({ params }: { params: Promise<{ versi
       {v.status !== 'current' ? (
         <Notice tone="warning" title="This version is superseded">Record batches against the version in production.</Notice>
       ) : (
-        <BatchForm versionId={v.id} spec={v.spec} productCode={v.product.code} today={new Date().toISOString().slice(0, 10)} temperatureUnit={actor.temperatureUnit} massUnits={actor.massUnits} />
+        <BatchForm versionId={v.id} spec={v.spec} productCode={v.product.code} takenLotCodes={await takenLotCodes(actor, v.product.id)} today={todayIso()} temperatureUnit={actor.temperatureUnit} massUnits={actor.massUnits} />
       )}
     </>
   );
