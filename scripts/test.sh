@@ -3,7 +3,9 @@
 #   npm test                 → types, lint, unit + integration (vitest), browser tests, short soak
 #   npm test -- <paths…>     → only the vitest files given (the test services still start)
 # It starts its own throw-away PostgreSQL cluster (fsync off), mail fake and S3 fake on test ports,
-# never touching the demo data, and stops them at the end.
+# never touching the demo data, and stops them at the end. Inherited app settings (DATABASE_URL,
+# SMTP_URL, S3_*, APP_URL, …, e.g. from a shell that sourced env.sh for the dev server) are dropped
+# by env.sh's test profile, so the tests can never reach the demo's database, mail or bucket.
 source "$(dirname "$0")/lib.sh"
 export SETWELL_PROFILE=test
 source "$(dirname "$0")/env.sh"
