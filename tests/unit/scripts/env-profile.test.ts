@@ -14,6 +14,7 @@ function environmentAfter(outerProfile: 'demo' | 'test', innerProfile: 'demo' | 
     env: {
       PATH: process.env.PATH ?? '/usr/bin:/bin',
       HOME: '/nonexistent-home',
+      NODE_ENV: 'test',
       SETWELL_PROFILE: outerProfile,
       // The test profile's own ports, fixed here so the expected values do not depend on the caller.
       SETWELL_TEST_HOME: '/var/tmp/setwell-env-check',
