@@ -3,7 +3,9 @@
 # migrates, builds the production app, starts two servers on loopback with the bench-only floor
 # route switched on, and prints each figure beside its target. Results land in bench-results/
 # (git-ignored): stats.json, notebook.json, load.json and bench.json (all figures).
-# App ports: SETWELL_BENCH_APP_PORT (default 3200) and the next one up.
+# App ports: SETWELL_BENCH_APP_PORT (default 3200) and the next one up. Inherited app settings
+# (DATABASE_URL, SMTP_URL, S3_*, APP_URL, …) are dropped by env.sh's test profile: the bench writes,
+# so it must never reach the demo's database.
 source "$(dirname "$0")/lib.sh"
 export SETWELL_PROFILE=test SETWELL_TEST_HOME="${SETWELL_BENCH_HOME:-/var/tmp/setwell-bench}" SETWELL_TEST_PG_PORT="${SETWELL_BENCH_PG_PORT:-54349}"
 source "$(dirname "$0")/env.sh"

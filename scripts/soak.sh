@@ -27,8 +27,8 @@ if [ "${SETWELL_SOAK_REUSE_CLUSTER:-}" = 1 ]; then
   : "${SETWELL_PG_DATA:?the test cluster must be set up by scripts/test.sh}" "${SETWELL_PG_PORT:?}" "${PORT:?}" "${SETWELL_DB_PASSWORD:?}"
   own_cluster=0
 else
-  # Never aim the soak at a database from the caller's environment: it writes a session of its own.
-  unset DATABASE_URL APP_URL NEXTAUTH_URL
+  # Never aim the soak at a database from the caller's environment (it writes a session of its
+  # own): the test profile of env.sh drops every inherited app setting.
   export SETWELL_PROFILE=test
   export SETWELL_TEST_HOME="${SETWELL_SOAK_HOME:-/var/tmp/setwell-soak}"
   export SETWELL_TEST_PG_PORT="${SETWELL_SOAK_PG_PORT:-54359}"

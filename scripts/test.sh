@@ -3,7 +3,9 @@
 #   npm test                 → types, lint, unit + integration (vitest), browser tests, short soak
 #   npm test -- <paths…>     → only the vitest files given (the test services still start)
 # It starts its own throw-away PostgreSQL cluster (fsync off), mail fake and S3 fake on test ports,
-# never touching the demo data, and stops them at the end.
+# never touching the demo data, and stops them at the end. Inherited app settings (DATABASE_URL,
+# SMTP_URL, S3_*, APP_URL, …, e.g. from a shell that sourced env.sh for the dev server) are dropped
+# by env.sh's test profile, so the tests can never reach the demo's database, mail or bucket.
 source "$(dirname "$0")/lib.sh"
 export SETWELL_PROFILE=test
 source "$(dirname "$0")/env.sh"
@@ -36,10 +38,9 @@ export NEXTAUTH_SECRET NODE_ENV=test LOG_LEVEL=silent
 export SETWELL_PG_BIN="$(pg_bindir)"
 start_background "mail fake" "$SETWELL_RUN/mail-fake.pid" "$SETWELL_LOGS/mail-fake.log" node --import tsx scripts/mail-fake.ts
 wait_for_port 127.0.0.1 "$MAIL_FAKE_HTTP_PORT" 30
-if [[ "${S3_ENDPOINT:-}" == "$S3_FAKE_ENDPOINT" ]]; then
-  start_background "S3 fake" "$SETWELL_RUN/s3-fake.pid" "$SETWELL_LOGS/s3-fake.log" node --import tsx scripts/s3-fake.ts
-  wait_for_port 127.0.0.1 "$S3_FAKE_PORT" 30
-fi
+# The test profile always points S3_ENDPOINT at the fake (an inherited endpoint is dropped).
+start_background "S3 fake" "$SETWELL_RUN/s3-fake.pid" "$SETWELL_LOGS/s3-fake.log" node --import tsx scripts/s3-fake.ts
+wait_for_port 127.0.0.1 "$S3_FAKE_PORT" 30
 
 npm run --silent db:migrate
 

@@ -137,5 +137,8 @@ export async function summaryCsv(actor: Actor, sessionId: string, table: Summary
     { header: 'adjusted_mean', value: (x) => x.a.anova.treatments.find((t) => t.label === x.d.label)?.adjustedMean ?? '' },
     { header: 'tukey_letters', value: (x) => x.a.comparison.letters[x.d.label] ?? '' },
     { header: 'anova_p', value: p },
+    { header: 'median', value: (x) => x.d.median ?? '' },
+    { header: 'quartile_lower', value: (x) => x.d.quartiles?.lower ?? '' },
+    { header: 'quartile_upper', value: (x) => x.d.quartiles?.upper ?? '' },
   ]);
 }

@@ -1,7 +1,9 @@
 /**
- * Descriptive statistics per group: n, mean, sample SD, standard error and a
- * t-based confidence interval. Sums of squares are centred (two passes).
+ * Descriptive statistics per group: n, mean, sample SD, standard error, a t-based confidence
+ * interval, and the median and quartiles (simple-statistics; the mean and SD stay in numeric.ts,
+ * which says why). Sums of squares are centred (two passes).
  */
+import { medianSorted, quantileSorted } from 'simple-statistics';
 import { centredSumOfSquares, stableMean, studentTQuantile } from './numeric';
 
 export interface ConfidenceInterval {
@@ -20,6 +22,10 @@ export interface GroupDescription {
   standardError: number | null;
   /** mean ± t(1 − (1 − level)/2, n − 1) · SE */
   confidenceInterval: ConfidenceInterval | null;
+  /** The middle score: on a 9-point hedonic or JAR scale it is robust to a few extreme tasters. */
+  median: number | null;
+  /** First and third quartiles, linear interpolation between order statistics (R's type 7). */
+  quartiles: { lower: number; upper: number } | null;
   warnings: string[];
 }
 
@@ -44,12 +50,15 @@ export function describeGroup(label: string, rawValues: readonly number[], confi
   const n = values.length;
   if (n === 0) {
     warnings.push(`${label}: no values, nothing to describe.`);
-    return { label, n, mean: null, standardDeviation: null, standardError: null, confidenceInterval: null, warnings };
+    return { label, n, mean: null, standardDeviation: null, standardError: null, confidenceInterval: null, median: null, quartiles: null, warnings };
   }
   const mean = stableMean(values);
+  const sorted = [...values].sort((a, b) => a - b);
+  const median = medianSorted(sorted);
+  const quartiles = { lower: quantileSorted(sorted, 0.25), upper: quantileSorted(sorted, 0.75) };
   if (n < 2) {
     warnings.push(`${label}: a single value has no standard deviation or confidence interval (n < 2).`);
-    return { label, n, mean, standardDeviation: null, standardError: null, confidenceInterval: null, warnings };
+    return { label, n, mean, standardDeviation: null, standardError: null, confidenceInterval: null, median, quartiles, warnings };
   }
   const standardDeviation = Math.sqrt(centredSumOfSquares(values) / (n - 1));
   const standardError = standardDeviation / Math.sqrt(n);
@@ -62,6 +71,8 @@ export function describeGroup(label: string, rawValues: readonly number[], confi
     standardDeviation,
     standardError,
     confidenceInterval: { lower: mean - t * standardError, upper: mean + t * standardError, level: confidenceLevel },
+    median,
+    quartiles,
     warnings,
   };
 }
