@@ -21,6 +21,7 @@ describe('attribute labels', () => {
         trialId="t1"
         variants={[{ id: 'v1', label: 'A', description: 'Base' }, { id: 'v2', label: 'B', description: 'Less sugar' }]}
         attributes={[{ id: 'a1', name: 'Set firmness', scaleName: SET_FIRMNESS_LINE.name }, { id: 'a2', name: 'Overall liking', scaleName: '9-point hedonic' }]}
+        suggestedAttributeIds={['a1', 'a2']}
       />,
     );
     const text = document.body.textContent ?? '';

@@ -17,7 +17,7 @@ import { NotebookEditor } from '@/components/notebook/NotebookEditor';
 import { listPanelSessions } from '@/lib/panels/queries';
 import { PANEL_METHOD_LABELS, PANEL_STATE_LABELS } from '@/lib/panels/vocabulary';
 import { buttonClass } from '@/components/ui/Button';
-import { formatDateTime } from '@/lib/format/dates';
+import { formatDate, formatDateTime } from '@/lib/format/dates';
 
 export const dynamic = 'force-dynamic';
 export const metadata = { title: 'Trial' };
