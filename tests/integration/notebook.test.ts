@@ -110,7 +110,7 @@ describe('saving and keeping parallel edits', () => {
     expect(merged.entries[0].version).toBe(2);
     expect(content[0]).toEqual(first.content[0]);
     expect(content[1].type).toBe('heading');
-    expect(content[1].content?.[0].text).toMatch(/^Kept from a parallel edit by admin .+ at \d{4}-\d{2}-\d{2} \d{2}:\d{2} UTC$/);
+    expect(content[1].content?.[0].text).toMatch(/^Kept from a parallel edit by admin .+ at \d{1,2} [A-Z][a-z]{2} \d{4}, \d{2}:\d{2} UTC$/);
     expect(content[2]).toEqual(parallel.content[0]);
     // Resolved, not deleted: the kept version stays on record.
     expect(merged.conflicts).toHaveLength(1);
