@@ -101,7 +101,7 @@ export function PromotionForm({ trialId, variants, products, recommendedVariantI
     if (!spec || !variant) return [];
     const s = specFromText(spec, unit);
     if (Object.values(s).some((x) => x === null)) return [];
-    return qcSpecCautions(s as QcSpec, variant.productClass);
+    return qcSpecCautions(s as QcSpec, variant.productClass, variant.preservation ?? undefined);
   }, [spec, unit, variant]);
 
   function chooseVariant(id: string) {

@@ -80,6 +80,7 @@ function buildEvidence(comparison: Awaited<ReturnType<typeof getTrialComparison>
         endPointC: computation.endPoint.endPointC,
         finishedMassG: computation.massBalance.finishedMassG,
         aw: computation.waterActivity.aw,
+        preservation: computation.settings.preservation ?? null,
       },
     },
   };

@@ -4,7 +4,7 @@ import { AuditEvent, BatchDecision, BatchRecord, Product, ProductionFormula, Pro
 import { can, inWorkspace, notFound, type Actor } from '@/lib/permissions';
 import { trialCode } from '@/lib/trials/access';
 import { toCsv } from '@/lib/csv';
-import { defaultQcSpec, estimateEndPoint, outcomeOfChecks, qcSpecCautions, type Caution, type ComplianceReport, type QcCheck, type QcSpec } from '@/lib/chemistry';
+import { defaultQcSpec, estimateEndPoint, outcomeOfChecks, qcSpecCautions, type Caution, type ComplianceReport, type QcCheck, type QcSpec, type PreservationMethod } from '@/lib/chemistry';
 import { getTrialOverview } from '@/lib/trials/queries';
 import type { FormulaSettingsInput, RevisionLine } from '@/lib/formulas/schema';
 import type { ProductionProcess, PromotionEvidence, BatchSheetQuery } from './schema';
@@ -453,6 +453,8 @@ export interface PromotionDraftVariant {
   description: string;
   complianceOverall: string | null;
   productClass: string;
+  /** How the variant is preserved besides sugar, when stated (it grades the reduced-sugar caution). */
+  preservation: PreservationMethod | null;
   fruits: string[];
   /** Null when the variant's chemistry cannot be computed. */
   defaults: { spec: QcSpec; process: ProductionProcess; cautions: Caution[] } | null;
@@ -473,10 +475,10 @@ export async function getPromotionDraft(actor: Actor, trialId: string): Promise<
   const variants = trial.variants.map((v): PromotionDraftVariant => {
     const c = v.computation;
     const fruits = fruitsOf(v.lines);
-    if (!c) return { id: v.id, label: v.label, description: v.description, complianceOverall: null, productClass: v.settings.productClass, fruits, defaults: null };
+    if (!c) return { id: v.id, label: v.label, description: v.description, complianceOverall: null, productClass: v.settings.productClass, preservation: v.settings.preservation ?? null, fruits, defaults: null };
     const spec = defaultQcSpec(c);
     return {
-      id: v.id, label: v.label, description: v.description, complianceOverall: c.compliance.overall, productClass: c.settings.productClass, fruits,
+      id: v.id, label: v.label, description: v.description, complianceOverall: c.compliance.overall, productClass: c.settings.productClass, preservation: c.settings.preservation ?? null, fruits,
       defaults: {
         spec,
         process: { endPointSeaLevelC: Math.round(estimateEndPoint({ targetSolidsPct: c.settings.targetSolidsPct }).endPointC * 10) / 10, fillTempC: DEFAULT_FILL_TEMP_C, cookNotes: '' },
@@ -501,18 +503,24 @@ export interface BatchWorkItem {
   batchDate: string;
   productId: string;
   productName: string;
-  outcome: BatchView['outcome'];
-  disposition: BatchView['disposition'];
+  /** Where the batch stands after its re-tests and decisions (a released batch is no longer held). */
+  status: BatchView['status'];
+  latestOutcome: BatchView['latestOutcome'];
 }
 
-/** The kitchen's worklist: batches on hold, and the batches recorded today. */
+/** The kitchen's worklist: batches still on hold (not yet released or rejected), and the batches recorded today. */
 export async function batchWorklist(actor: Actor, today: string): Promise<{ held: BatchWorkItem[]; today: BatchWorkItem[] }> {
   const em = await getEm();
+  // Candidates: anything that was not a plain pass at recording, and today's batches; where each stands comes from its decisions.
   const rows = (await em.find(
     BatchRecord,
-    { ...inWorkspace(actor), $or: [{ disposition: 'hold' }, { batchDate: today }] },
-    { populate: ['product'], orderBy: { batchDate: 'desc', createdAt: 'desc' }, limit: 200 },
-  )) as unknown as Array<{ id: string; lotCode: string; batchDate: string; outcome: BatchView['outcome']; disposition?: BatchView['disposition'] | null; product: { id: string; name: string } }>;
-  const items = rows.map((b) => ({ id: b.id, lotCode: b.lotCode, batchDate: b.batchDate, productId: b.product.id, productName: b.product.name, outcome: b.outcome, disposition: b.disposition ?? null }));
-  return { held: items.filter((b) => b.disposition === 'hold'), today: items.filter((b) => b.batchDate === today) };
+    { ...inWorkspace(actor), $or: [{ outcome: { $ne: 'pass' } }, { batchDate: today }] },
+    { populate: [...BATCH_POPULATE, 'product'], orderBy: { batchDate: 'desc', createdAt: 'desc' }, limit: 200 },
+  )) as unknown as Array<BatchRow & { product: { id: string; name: string } }>;
+  const views = await withDecisions(actor, rows);
+  const items = views.map((v, i) => ({
+    id: v.id, lotCode: v.lotCode, batchDate: v.batchDate, productId: rows[i].product.id, productName: rows[i].product.name,
+    status: v.status, latestOutcome: v.latestOutcome,
+  }));
+  return { held: items.filter((b) => b.status === 'held'), today: items.filter((b) => b.batchDate === today) };
 }

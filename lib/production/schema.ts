@@ -2,6 +2,7 @@
 import { z } from 'zod';
 import { boundedNumber, isoDate, longText, numberFromText, text, wholeNumber } from '@/lib/input';
 import { qcSpecProblems, type QcSpec } from '@/lib/chemistry/qc';
+import type { PreservationMethod } from '@/lib/chemistry/guidance';
 import { DISPOSITIONS, LOT_CODE_PATTERN, PRODUCT_CODE_PATTERN, PROMOTION_STATUSES, PROMOTION_TARGETS } from './vocabulary';
 
 /** How the kitchen makes it: frozen into every production version. Temperatures in °C. */
@@ -23,7 +24,7 @@ export interface PromotionEvidence {
   lab: Array<{ label: string; cookDate: string; ph: number | null; brix20: number | null; endPointTempC: number | null; setTestScore: number | null }>;
   compliance: { overall: string; edition: string; failing: string[] };
   cautions: Array<{ code: string; severity: string; title: string }>;
-  predicted: { productClass: string; targetSolidsPct: number; plannedPh: number | null; endPointC: number; finishedMassG: number; aw: number };
+  predicted: { productClass: string; targetSolidsPct: number; plannedPh: number | null; endPointC: number; finishedMassG: number; aw: number; /** Absent on requests made before it was captured. */ preservation?: PreservationMethod | null };
 }
 
 const num = (what: string) => z.number({ error: `${what} must be a number.` }).refine(Number.isFinite, `${what} must be a finite number.`);

@@ -12,7 +12,7 @@ import { getPanelSession, listMySeats, listTastings } from '@/lib/panels/queries
 import { tasterView } from '@/lib/panels/taster';
 import { recordMeasurement, transitionTrial, withdrawMeasurement } from '@/lib/trials/mutations';
 import { trialsAtTheStove } from '@/lib/trials/queries';
-import { recordBatch } from '@/lib/production/mutations';
+import { decideBatch, recordBatch, retestBatch } from '@/lib/production/mutations';
 import { batchWorklist } from '@/lib/production/queries';
 import { lotCodeFor } from '@/lib/production/vocabulary';
 
@@ -114,11 +114,15 @@ describe('worklists', () => {
     const { versionId, productCode } = await createApprovedVersion(a);
     const production = actorOf(a, 'production');
     const today = new Date().toISOString().slice(0, 10);
-    const good = { batchSizeG: 30_000, brixReading: 65, brixSampleTempC: 20, ph: 3.1, fillTempC: 88, jarsFilled: 80, jarsRejected: 0 };
+    const good = { batchSizeG: 30_000, brixReading: 65, brixSampleTempC: 20, ph: 3.1, fillTempC: 88, netFillMeanG: 342, netFillMinG: 336, setTestScore: 4, jarsFilled: 80, jarsRejected: 0 };
     await recordBatch(production, versionId, { ...good, lotCode: lotCodeFor(productCode, today, 1), batchDate: today });
     const held = await recordBatch(production, versionId, { ...good, ph: 4.8, lotCode: lotCodeFor(productCode, '2026-01-05', 1), batchDate: '2026-01-05', disposition: 'hold', dispositionComment: 'Re-test the pH.' } as never);
     const list = await batchWorklist(production, today);
     expect(list.held.map((b) => b.id)).toEqual([held.batchId]);
     expect(list.today.map((b) => b.lotCode)).toEqual([lotCodeFor(productCode, today, 1)]);
+    // Once re-tested and released, the batch leaves the held list.
+    await retestBatch(production, held.batchId, { ph: 3.2, comment: 'pH taken again after re-boil.' });
+    await decideBatch(production, held.batchId, { decision: 'release', comment: 'Re-test passed; released.' });
+    expect((await batchWorklist(production, today)).held).toEqual([]);
   });
 });

@@ -2,16 +2,20 @@ import { requirePage } from '@/lib/page-guard';
 import { PageHeader } from '@/components/ui/Card';
 import { WorkList, type WorkItem } from '@/components/home/WorkList';
 import { ROLE_LABELS, can } from '@/lib/permissions';
-import { batchWorklist, listProducts, reviewQueue } from '@/lib/production/queries';
+import { batchWorklist, listProducts, reviewQueue, type BatchWorkItem } from '@/lib/production/queries';
 import { trialsAtTheStove } from '@/lib/trials/queries';
 import { listMySeats, listTastings } from '@/lib/panels/queries';
 import { listMembers } from '@/lib/members/queries';
 import { PANEL_STATE_LABELS } from '@/lib/panels/vocabulary';
+import { formatDate } from '@/lib/format/dates';
 
 export const dynamic = 'force-dynamic';
+
+const TODAY_DETAIL: Record<BatchWorkItem['status'], string> = {
+  passed: 'Passed its checks.', held: 'On hold: a check failed or was not measured.', discarded: 'Discarded.', released: 'Released after re-test.', rejected: 'Rejected.',
+};
 export const metadata = { title: 'Overview' };
 
-const dateText = (iso: string) => new Date(iso.length === 10 ? `${iso}T12:00:00Z` : iso).toLocaleDateString('en-GB', { dateStyle: 'medium' });
 
 /** The home page is a worklist: each part shows only to those whose permissions let them do the work it links to. */
 export default async function HomePage() {
@@ -46,7 +50,7 @@ export default async function HomePage() {
         empty="No tasting is being set up or taking answers. Start one from a trial once its variants are cooked."
         items={live.map((t) => ({
           key: t.id, href: `/panels/${t.id}`, label: `${t.title} (${t.trial.code})`,
-          detail: t.state === 'open' ? `${PANEL_STATE_LABELS.open}: ${t.submitted} of ${t.seats} tasters finished` : `${PANEL_STATE_LABELS.draft}${t.startsAt ? `, planned for ${dateText(t.startsAt)}` : ''}`,
+          detail: t.state === 'open' ? `${PANEL_STATE_LABELS.open}: ${t.submitted} of ${t.seats} tasters finished` : `${PANEL_STATE_LABELS.draft}${t.startsAt ? `, planned for ${formatDate(t.startsAt)}` : ''}`,
         }))} />,
     );
   }
@@ -59,8 +63,8 @@ export default async function HomePage() {
     );
   }
   if (batches && kitchen) {
-    const held: WorkItem[] = batches.held.map((b) => ({ key: b.id, href: `/production/products/${b.productId}`, label: `${b.lotCode}: ${b.productName}`, detail: `On hold since ${dateText(b.batchDate)}: decide what happens to it.` }));
-    const todays: WorkItem[] = batches.today.map((b) => ({ key: b.id, href: `/production/products/${b.productId}`, label: `${b.lotCode}: ${b.productName}`, detail: b.outcome === 'pass' ? 'Passed its checks.' : 'Failed a check.' }));
+    const held: WorkItem[] = batches.held.map((b) => ({ key: b.id, href: `/production/batches/${b.id}`, label: `${b.lotCode}: ${b.productName}`, detail: `On hold since ${formatDate(b.batchDate)}: decide what happens to it.` }));
+    const todays: WorkItem[] = batches.today.map((b) => ({ key: b.id, href: `/production/batches/${b.id}`, label: `${b.lotCode}: ${b.productName}`, detail: TODAY_DETAIL[b.status] }));
     const sheets: WorkItem[] = kitchen.filter((p) => p.current).map((p) => ({
       key: p.id, href: `/production/versions/${p.current!.id}/batches/new`, label: `Record a batch of ${p.name}`, detail: `Version ${p.current!.version}`,
     }));
@@ -73,7 +77,7 @@ export default async function HomePage() {
     sections.push(
       <WorkList key="invitations" title="Invitations not yet accepted" more={{ href: '/settings/members', label: 'Members' }}
         empty="Every invitation has been accepted."
-        items={members.invitations.map((i) => ({ key: i.invitationId, href: '/settings/members', label: i.email, detail: `${ROLE_LABELS[i.role]}, invited by ${i.invitedBy}; the link works until ${dateText(i.expiresAt)}` }))} />,
+        items={members.invitations.map((i) => ({ key: i.invitationId, href: '/settings/members', label: i.email, detail: `${ROLE_LABELS[i.role]}, invited by ${i.invitedBy}; the link works until ${formatDate(i.expiresAt)}` }))} />,
     );
   }
   // Everyone can be seated at a tasting; staff see the part only when a seat waits for them.

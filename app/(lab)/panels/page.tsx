@@ -6,12 +6,12 @@ import { listTrials } from '@/lib/trials/queries';
 import { PANEL_METHOD_LABELS, PANEL_STATES, PANEL_STATE_LABELS } from '@/lib/panels/vocabulary';
 import { PageHeader, EmptyState } from '@/components/ui/Card';
 import { buttonClass } from '@/components/ui/Button';
+import { formatDate } from '@/lib/format/dates';
 
 export const dynamic = 'force-dynamic';
 export const metadata = { title: 'Tastings' };
 
 const select = 'block w-full rounded-lg bg-white px-3 py-2 text-sm ring-1 ring-inset ring-rind-300';
-const dateText = (iso: string) => new Date(iso).toLocaleDateString('en-GB', { dateStyle: 'medium' });
 
 /** Every tasting of the workspace; the filters live in the URL so a filtered list can be shared. */
 export default async function TastingsPage({ searchParams }: { searchParams: Promise<Record<string, string | undefined>> }) {
@@ -56,7 +56,7 @@ export default async function TastingsPage({ searchParams }: { searchParams: Pro
                 <Link href={`/panels/${t.id}`} className="font-medium text-damson-800 underline">{t.title}</Link>
                 <p className="text-sm text-rind-600">
                   <Link href={`/trials/${t.trial.id}`} className="underline">{t.trial.code}</Link> {t.trial.title} · {PANEL_METHOD_LABELS[t.method]}
-                  {t.place ? ` · ${t.place}` : ''}{t.startsAt ? ` · ${dateText(t.startsAt)}` : ''}
+                  {t.place ? ` · ${t.place}` : ''}{t.startsAt ? ` · ${formatDate(t.startsAt)}` : ''}
                 </p>
               </div>
               <p className="text-sm text-rind-700">

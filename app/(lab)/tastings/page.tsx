@@ -3,11 +3,11 @@ import { listMySeats } from '@/lib/panels/queries';
 import { PANEL_STATE_LABELS } from '@/lib/panels/vocabulary';
 import { PageHeader, EmptyState } from '@/components/ui/Card';
 import { OpenSeatButton } from '@/components/tastings/OpenSeatButton';
+import { formatDateTime } from '@/lib/format/dates';
 
 export const dynamic = 'force-dynamic';
 export const metadata = { title: 'My tastings' };
 
-const dateText = (iso: string) => new Date(iso).toLocaleString('en-GB', { dateStyle: 'medium', timeStyle: 'short' });
 
 export default async function MyTastingsPage() {
   const actor = await requirePage('tastings.own');
@@ -28,7 +28,7 @@ export default async function MyTastingsPage() {
                 <p className="font-medium">{s.title}</p>
                 <p className="text-sm text-rind-600">
                   {s.waiting ? 'Waiting for your answers' : s.submitted ? 'Your answers are in. Thank you.' : PANEL_STATE_LABELS[s.state]}
-                  {s.place ? ` · ${s.place}` : ''}{s.startsAt ? ` · ${dateText(s.startsAt)}` : ''}
+                  {s.place ? ` · ${s.place}` : ''}{s.startsAt ? ` · ${formatDateTime(s.startsAt)}` : ''}
                 </p>
               </div>
               {s.waiting ? (

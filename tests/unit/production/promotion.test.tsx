@@ -36,7 +36,7 @@ const strawberryLines = [line(IDS.fruit, STRAWBERRY, 1000), line(IDS.sugar, SUGA
 const computation = computeBatch(strawberryLines, toChemistrySettings(settings({ targetSolidsPct: 65 })));
 const variant: PromotionDraftVariant = {
   id: '6a0e3f7c-1111-4c1e-9d1a-0b1c2d3e4f50', label: 'B', description: 'Less sugar, less pectin', complianceOverall: 'compliant',
-  productClass: 'jam', fruits: fruitsOf(strawberryLines),
+  productClass: 'jam', preservation: null, fruits: fruitsOf(strawberryLines),
   defaults: { spec: defaultQcSpec(computation), process: { endPointSeaLevelC: 104, fillTempC: 88, cookNotes: '' }, cautions: [] },
 };
 const blackcurrant: PromotionTargetProduct = {

@@ -107,7 +107,7 @@ export default async function PromotionRequestPage({ params }: { params: Promise
           </Card>
           <Card title="Proposed QC specification">
             <SpecTable spec={r.spec} temperatures={temps} />
-            <div className="mt-3"><CautionList cautions={qcSpecCautions(r.spec, e.predicted.productClass)} /></div>
+            <div className="mt-3"><CautionList cautions={qcSpecCautions(r.spec, e.predicted.productClass, e.predicted.preservation ?? undefined)} /></div>
           </Card>
           {r.history.length ? (
             <Card title="Earlier requests for this trial">
