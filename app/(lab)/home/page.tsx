@@ -7,7 +7,7 @@ import { trialsAtTheStove } from '@/lib/trials/queries';
 import { listMySeats, listTastings } from '@/lib/panels/queries';
 import { listMembers } from '@/lib/members/queries';
 import { PANEL_STATE_LABELS } from '@/lib/panels/vocabulary';
-import { formatDate } from '@/lib/format/dates';
+import { formatDate, todayIso } from '@/lib/format/dates';
 
 export const dynamic = 'force-dynamic';
 
@@ -20,7 +20,7 @@ export const metadata = { title: 'Overview' };
 /** The home page is a worklist: each part shows only to those whose permissions let them do the work it links to. */
 export default async function HomePage() {
   const actor = await requirePage('account.self');
-  const today = new Date().toISOString().slice(0, 10);
+  const today = todayIso();
   const [stove, tastings, reviews, batches, kitchen, seats, members] = await Promise.all([
     can(actor.role, 'trials.write') ? trialsAtTheStove(actor) : null,
     can(actor.role, 'panels.run') ? listTastings(actor) : null,

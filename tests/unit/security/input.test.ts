@@ -114,7 +114,7 @@ describe('impossible calendar dates', () => {
     expect(ok(isoDateTime, '0000-01-01T10:00:00Z')).toBe(false);
     expect(ok(isoDateTime, '2026-06-14T10:00:00+02:00')).toBe(true);
     expect(createPanelSchema.safeParse({ startsAt: '2026-02-30T10:00:00Z' }).error?.issues.some((i) => i.path[0] === 'startsAt')).toBe(true);
-    const { errors } = parseMeasurementCsv('variant,cook_date\nA,2026-02-30\n', new Map([['A', '6f1c0b9e-8a47-4d7e-9a59-3c1f2a7b9e10']]));
+    const { errors } = parseMeasurementCsv('variant,cook_date,ph\nA,2026-02-30,3.2\n', new Map([['A', '6f1c0b9e-8a47-4d7e-9a59-3c1f2a7b9e10']]));
     expect(errors).toEqual([expect.objectContaining({ row: 2, column: 'cook_date' })]);
   });
 });
