@@ -9,6 +9,8 @@
 source "$(dirname "$0")/lib.sh"
 explicit_url="${DATABASE_URL:-}"
 source "$(dirname "$0")/env.sh"
+# The test profile drops inherited settings; an explicit database is what these scripts are pointed at.
+[ -n "$explicit_url" ] && export DATABASE_URL="$explicit_url"
 
 dir="${SETWELL_BACKUP_DIR:-$SETWELL_HOME/backups}"
 while [ $# -gt 0 ]; do

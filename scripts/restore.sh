@@ -11,6 +11,8 @@
 source "$(dirname "$0")/lib.sh"
 explicit_url="${DATABASE_URL:-}"
 source "$(dirname "$0")/env.sh"
+# The test profile drops inherited settings; an explicit database is what these scripts are pointed at.
+[ -n "$explicit_url" ] && export DATABASE_URL="$explicit_url"
 
 usage() { echo "usage: npm run restore -- <dump-file> [database] [--force]" >&2; exit 2; }
 file="" target="" force=0

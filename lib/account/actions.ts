@@ -28,6 +28,7 @@ export async function updatePreferencesAction(_prev: ActionResult<void> | null, 
 }
 
 /** Ends every session of the caller, this one included; the page then goes to sign-in. */
-export async function signOutEverywhereAction() {
-  return runAction('account.self', z.undefined(), undefined, (actor) => signOutEverywhere(actor));
+/** Takes no input: any argument sent to it is refused (422) and ends nothing. */
+export async function signOutEverywhereAction(...args: unknown[]) {
+  return runAction('account.self', z.undefined({ error: 'This takes no input.' }), args.length ? args : undefined, (actor) => signOutEverywhere(actor));
 }

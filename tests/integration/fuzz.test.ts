@@ -326,6 +326,8 @@ function actionSamples(args: unknown[]): fc.Arbitrary<ActionSample> {
       }
     }
   });
+  // An action that takes nothing is sent something: it must refuse it, not act on it.
+  if (!args.length) arbs.push(fc.constantFrom(...wrongShapes(undefined)).map((v) => ({ args: [v], category: 'wrong shape', what: `an argument where none is taken: ${shapeLabel(v)}` })));
   return fc.oneof(...arbs);
 }
 
@@ -430,6 +432,8 @@ const PAGE_CASES: PageCase[] = [
   { page: '(lab)/trials/page.tsx', caller: 'developer', keys: ['status', 'owner', 'product', 'from', 'to', 'q'] },
   { page: '(lab)/trials/new/page.tsx', caller: 'developer', keys: ['formula'] },
   { page: '(lab)/ingredients/page.tsx', caller: 'developer', keys: ['q', 'kind', 'sort', 'dir', 'archived'] },
+  { page: '(lab)/panels/page.tsx', caller: 'developer', keys: ['state', 'trial'] },
+  { page: '(lab)/panels/[sessionId]/results/page.tsx', caller: 'developer', keys: ['penalty'], paramsFrom: 'GET /api/v1/panels/[sessionId]/results' },
   { page: '(lab)/production/versions/[versionId]/sheet/page.tsx', caller: 'production', keys: ['target', 'amount', 'unit', 'step', 'stepUnit', 'altitudeM', 'paper'], paramsFrom: 'GET /api/v1/production-versions/[versionId]/batch-sheet' },
 ];
 

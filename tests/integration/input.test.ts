@@ -71,7 +71,7 @@ describe('impossible calendar dates', () => {
   });
 
   it('a CSV import with a cook dated 30 February names the row and the column', async () => {
-    const res = await refused('POST /api/v1/trials/[trialId]/measurements/import', (s) => (s.body.csv = 'variant,cook_date\nB,2026-02-30\n'));
+    const res = await refused('POST /api/v1/trials/[trialId]/measurements/import', (s) => (s.body.csv = 'variant,cook_date,ph\nB,2026-02-30,3.2\n'));
     expect(Object.keys(res.body.error.fields)).toEqual(['row 2, cook_date']);
   });
 
