@@ -48,11 +48,14 @@ export function TrendChart({ title, unit, points, decimals }: { title: string; u
           }}
         />
       </div>
-      <table className="sr-only">
+      {/* A table cannot shrink below its content, so the hidden box is a div that clips it. */}
+      <div className="sr-only">
+      <table>
         <caption>{title} by batch</caption>
         <thead><tr><th>Lot</th><th>Value</th><th>Minimum</th><th>Maximum</th><th>Result</th></tr></thead>
         <tbody>{points.map((p) => <tr key={p.lotCode}><td>{p.lotCode}</td><td>{p.value.toFixed(decimals)}</td><td>{p.min}</td><td>{p.max}</td><td>{p.outcome}</td></tr>)}</tbody>
       </table>
+      </div>
     </figure>
   );
 }
