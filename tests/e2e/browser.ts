@@ -49,10 +49,10 @@ export async function mailTo(address: string, timeoutMs = 10_000, subject?: RegE
   throw new Error(`no mail to ${address}${subject ? ` matching ${subject}` : ''}`);
 }
 
-export async function screenshot(page: Page, name: string) {
+export async function screenshot(page: Page, name: string, fullPage = true) {
   const dir = path.resolve('test-results');
   fs.mkdirSync(dir, { recursive: true });
-  await page.screenshot({ path: path.join(dir, `${name}.png`), fullPage: true });
+  await page.screenshot({ path: path.join(dir, `${name}.png`), fullPage });
 }
 
 /** One chromium per test file, started before the first test and closed after the last. */
@@ -148,7 +148,8 @@ export async function sidewaysOverflow(page: Page): Promise<string | null> {
  * watch collected so far, and saves a full-page screenshot to test-results/<name>.png.
  */
 export async function checkpoint(page: Page, watch: PageWatch, name: string): Promise<void> {
-  await page.waitForLoadState('networkidle').catch(() => undefined);
+  // Settle: pages that poll (the tasting page, the organiser's progress) never go fully quiet.
+  await page.waitForLoadState('networkidle', { timeout: 3000 }).catch(() => undefined);
   await screenshot(page, name);
   const overflow = await sidewaysOverflow(page);
   const problems = [...watch.problems, ...(overflow ? [`sideways scroll on ${new URL(page.url()).pathname}: ${overflow}`] : [])];
@@ -158,3 +159,40 @@ export async function checkpoint(page: Page, watch: PageWatch, name: string): Pr
 
 export const DESKTOP = { width: 1366, height: 900 };
 export const PHONE = { width: 390, height: 844 };
+
+/** One person's walk through the app in one window size, stopping at checkpoints. */
+export interface Walk {
+  page: Page;
+  watch: PageWatch;
+  /** A checkpoint named walk-<name>-<n>-<label> (see checkpoint()). */
+  stop: (label: string) => Promise<void>;
+  /** Follows a main-navigation entry: the side rail on wide screens, the Menu drawer on phones. */
+  nav: (label: string) => Promise<void>;
+  close: () => Promise<void>;
+}
+
+export async function startWalk(browser: Browser, name: string, viewport: { width: number; height: number }): Promise<Walk> {
+  const ctx = await newContext(browser, viewport);
+  const page = await ctx.newPage();
+  const watch = await watchPage(page);
+  let n = 0;
+  return {
+    page,
+    watch,
+    stop: (label) => checkpoint(page, watch, `walk-${name}-${String(++n).padStart(2, '0')}-${label}`),
+    nav: async (label) => {
+      // The side rail shows from Tailwind's lg breakpoint (1024 px); below it the drawer.
+      if (viewport.width < 1024) await page.getByRole('button', { name: 'Menu' }).click();
+      const before = page.url();
+      await page.getByTestId('main-nav').filter({ visible: true }).getByRole('link', { name: label, exact: true }).click();
+      await page.waitForURL((url) => url.href !== before);
+    },
+    close: () => ctx.close(),
+  };
+}
+
+/** The two window sizes every walk runs in: a desktop and a phone. */
+export const WINDOWS = [
+  ['desktop', DESKTOP],
+  ['phone', PHONE],
+] as const;
