@@ -27,13 +27,20 @@ describe.each(WINDOWS)('the developer walks the loop (%s)', (size, viewport) => 
     const before = await finished.textContent();
     const quantity = page.getByLabel('Line 1: quantity');
     await quantity.fill(String(Number(await quantity.inputValue()) + 250));
-    await expect.poll(() => finished.textContent()).not.toBe(before);
+    await expect.poll(() => finished.textContent(), { timeout: 15_000 }).not.toBe(before);
     if (size === 'phone') {
-      // The key results sit on screen next to the line being typed, not below the whole form.
+      // The key results sit on screen next to the line being typed, not below the whole form, and
+      // a field focused for typing stops above them.
+      await quantity.blur();
+      await page.evaluate(() => window.scrollTo(0, 0));
+      await quantity.focus();
       const bar = page.getByTestId('key-results');
       const box = (await bar.boundingBox())!;
+      const field = (await quantity.boundingBox())!;
       expect(box.y).toBeGreaterThanOrEqual(0);
       expect(box.y + box.height).toBeLessThanOrEqual(viewport.height + 1);
+      expect(field.y).toBeGreaterThanOrEqual(0);
+      expect(field.y + field.height).toBeLessThanOrEqual(box.y);
       expect(await bar.textContent()).toMatch(/Batch.*Solids.*pH.*End point.*Rules/);
       await screenshot(page, `walk-developer-${size}-key-results-beside-the-line`, false);
     }
@@ -55,7 +62,7 @@ describe.each(WINDOWS)('the developer walks the loop (%s)', (size, viewport) => 
     await page.getByRole('textbox', { name: 'pH', exact: true }).fill('3.1');
     await page.getByLabel(/End-point temperature/).fill('104.5');
     await page.getByRole('button', { name: 'Save the cook' }).click();
-    await expect.poll(() => cooks.count()).toBe(cooksBefore + 1);
+    await expect.poll(() => cooks.count(), { timeout: 15_000 }).toBe(cooksBefore + 1);
     await walk.stop('cook-recorded');
 
     // A closed tasting's results, then the comparison of the variants.

@@ -40,7 +40,7 @@ describe.each(WINDOWS)('the production lead walks the loop (%s)', (size, viewpor
       pH: '3.0', 'Fill temperature (°C)': '88', 'Jars filled': '55', 'Jars rejected': '0',
     };
     for (const [label, value] of Object.entries(readings)) await page.getByLabel(label, { exact: true }).fill(value);
-    await expect.poll(() => page.getByTestId('live-checks').textContent()).toMatch(/Pass — Soluble solids/);
+    await expect.poll(() => page.getByTestId('live-checks').textContent(), { timeout: 15_000 }).toMatch(/Pass — Soluble solids/);
     await walk.stop('batch-form');
     await page.getByRole('button', { name: 'Record the batch' }).click();
     await page.waitForURL(/\/production\/versions\/[0-9a-f-]{36}#batches$/);

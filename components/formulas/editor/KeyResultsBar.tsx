@@ -38,7 +38,7 @@ export function KeyResultsBar({
   const c = outcome?.ok ? outcome.computation : null;
   return (
     <div
-      className="no-print sticky bottom-0 z-10 -mx-4 border-t border-pith-300 bg-pith-50/95 px-4 py-2 shadow-card backdrop-blur sm:-mx-8 sm:px-8 lg:hidden"
+      className="key-results-bar no-print sticky bottom-0 z-10 -mx-4 border-t border-pith-300 bg-pith-50/95 px-4 py-2 shadow-card backdrop-blur sm:-mx-8 sm:px-8 lg:hidden"
       data-testid="key-results"
       aria-label="Key results"
       role="region"
