@@ -225,7 +225,7 @@ export function FormulaPrintSheet({
   return (
     // The page margins are the named page `formula-sheet` in globals.css: a <style> tag here would
     // be refused by the Content-Security-Policy.
-    <article className="formula-sheet mx-auto max-w-[210mm] space-y-5 bg-white p-4 font-sans text-black sm:p-8 print:max-w-none print:p-0" aria-label={`Formula sheet: ${formula.name}`}>
+    <article className="formula-sheet mx-auto w-full max-w-[210mm] space-y-5 bg-white p-4 font-sans text-black sm:p-8 print:max-w-none print:p-0" aria-label={`Formula sheet: ${formula.name}`}>
 
       <header className="border-b-2 border-black pb-3">
         <p className="text-xs uppercase tracking-widest text-rind-600">Setwell formula sheet</p>
