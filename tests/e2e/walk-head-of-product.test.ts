@@ -2,7 +2,7 @@
  * The head of product's part of the job on the seeded demo, on a desktop and on a phone: the
  * waiting request on the home page, the review queue, the evidence of the reduced-sugar apricot
  * spread (chemistry, tasters, lab readings, the proposed QC spec), the decision dialog opened and
- * cancelled (the production walk-through decides; this one only reads), and the product in
+ * cancelled (the production walk-through decides; this one only reads), the formula read-only, and the product in
  * production with its trends. Every stop fails on a console error, a CSP violation, an uncaught
  * exception or a page wider than the window (tests/e2e/browser.ts).
  */
@@ -14,7 +14,7 @@ const browser = sharedBrowser();
 const head = DEMO_USERS.find((u) => u.role === 'head_of_product')!;
 
 describe.each(WINDOWS)('the head of product walks the loop (%s)', (size, viewport) => {
-  it('review queue, evidence, decision dialog, product trends', async () => {
+  it('review queue, evidence, decision dialog, formula, product trends', async () => {
     const walk = await startWalk(browser(), `head-${size}`, viewport);
     const { page } = walk;
     await signIn(page, head.email);
@@ -36,6 +36,12 @@ describe.each(WINDOWS)('the head of product walks the loop (%s)', (size, viewpor
     await walk.stop('decision-dialog');
     await dialog.getByRole('button', { name: 'Cancel' }).click();
     await dialog.waitFor({ state: 'hidden' });
+
+    // The formula behind the request, read-only for the decider.
+    await walk.nav('Formulas');
+    await page.getByRole('link', { name: /Apricot spread, reduced sugar/ }).first().click();
+    await page.getByRole('heading', { name: 'Batch results' }).waitFor();
+    await walk.stop('formula-read-only');
 
     await walk.nav('Production');
     await page.getByTestId('products').getByRole('link', { name: 'Blackcurrant jam' }).first().click();
