@@ -4,7 +4,7 @@ import typescript from 'eslint-config-next/typescript';
 const config = [
   ...coreWebVitals,
   ...typescript,
-  { ignores: ['node_modules/**', '.next/**', 'next-env.d.ts'] },
+  { ignores: ['node_modules/**', '.next/**', '.next-bench/**', 'next-env.d.ts'] },
   // Tests read arbitrary JSON bodies; typing each one would add noise, not safety.
   { files: ['tests/**'], rules: { '@typescript-eslint/no-explicit-any': 'off' } },
 ];

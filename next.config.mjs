@@ -12,6 +12,8 @@ const nextConfig = {
     'rate-limiter-flexible',
   ],
   poweredByHeader: false,
+  // `npm run bench` builds into its own folder so a bench run never replaces the build a test server is using.
+  distDir: process.env.SETWELL_NEXT_DIST_DIR || '.next',
   experimental: { authInterrupts: true },
   typedRoutes: false,
   // Baseline headers on every response. Pages get their full Content-Security-Policy (with a

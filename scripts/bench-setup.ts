@@ -55,7 +55,7 @@ async function main() {
   // Values every default attribute scale accepts (the hedonic 1–9, the 0–10 line, the JAR 1–5).
   const values: Record<string, number[]> = Object.fromEntries(attributeIds.map((id) => [id, [1, 2, 3, 4, 5]]));
   await orm.em.getConnection().execute('create table if not exists bench_floor (id uuid primary key default gen_random_uuid(), seat text not null, body jsonb not null, created_at timestamptz not null default now())');
-  fs.writeFileSync(out, JSON.stringify({ sessionId, attributeIds, values, seats }, null, 2));
+  fs.writeFileSync(out, JSON.stringify({ sessionId, joinCode, attributeIds, values, seats }, null, 2));
   console.log(`bench set-up: ${seats.length} seats, ${seats[0].codes.length} samples, ${attributeIds.length} attributes`);
   await closeOrm();
 }

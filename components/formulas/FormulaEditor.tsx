@@ -21,6 +21,7 @@ import { Notice } from '@/components/ui/Notice';
 import { BrixHelper } from './BrixHelper';
 import { ResultsPanel } from './ResultsPanel';
 import { ScalePanel } from './ScalePanel';
+import { KeyResultsBar } from './editor/KeyResultsBar';
 import { LineRow } from './editor/LineRow';
 import { UnitToggle } from './editor/UnitToggle';
 import {
@@ -495,9 +496,10 @@ export function FormulaEditor({ mode, initial, ingredients, massUnits, temperatu
               </Button>
             </div>
           </Card>
+          <KeyResultsBar outcome={outcome} massUnits={system} temperatureUnit={tempUnit} resultsAnchor="batch-results" />
         </form>
 
-        <aside className="self-start lg:sticky lg:top-4">
+        <aside id="batch-results" className="scroll-mt-4 self-start lg:sticky lg:top-4">
           <Card>
             <ResultsPanel outcome={outcome} massUnits={system} temperatureUnit={tempUnit} notice={resultsNotice} />
           </Card>

@@ -1,3 +1,4 @@
+import { TableBox } from '@/components/ui/TableBox';
 import {
   celsiusToFahrenheit,
   formatAltitude,
@@ -142,7 +143,8 @@ function Compliance({ computation }: { computation: BatchComputation }) {
       <p className="text-sm">
         <span className="font-semibold">{OVERALL_TEXT[compliance.overall]}.</span> Checked against {compliance.edition}, for a product made on {compliance.ruleDate}.
       </p>
-      <table className="mt-2 w-full border-collapse text-left text-xs">
+      <TableBox label="Composition rules" framed={false} className="mt-2">
+      <table className="w-full border-collapse text-left text-xs">
         <thead>
           <tr className="border-b-2 border-black">
             <th scope="col" className="py-1 pr-2">Rule</th>
@@ -167,6 +169,7 @@ function Compliance({ computation }: { computation: BatchComputation }) {
           ))}
         </tbody>
       </table>
+      </TableBox>
     </section>
   );
 }
@@ -216,8 +219,9 @@ export function FormulaPrintSheet({
   const totalChargeG = computation?.massBalance.totalChargeG ?? null;
 
   return (
-    <article className="mx-auto max-w-[210mm] space-y-5 bg-white p-8 font-sans text-black print:max-w-none print:p-0" aria-label={`Formula sheet: ${formula.name}`}>
-      {/* Page margins and the white paper are in app/globals.css (@page, @media print): an inline <style> would be refused by the CSP. */}
+    // Page margins and white paper are in app/globals.css (@page, @media print): a <style> tag here
+    // would be refused by the Content-Security-Policy.
+    <article className="formula-sheet mx-auto w-full max-w-[210mm] space-y-5 bg-white p-4 font-sans text-black sm:p-8 print:max-w-none print:p-0" aria-label={`Formula sheet: ${formula.name}`}>
 
       <header className="border-b-2 border-black pb-3">
         <p className="text-xs uppercase tracking-widest text-rind-600">Setwell formula sheet</p>
@@ -250,6 +254,7 @@ export function FormulaPrintSheet({
 
       <section aria-labelledby="print-lines">
         <h2 id="print-lines" className="mb-1 font-display text-lg text-black">Ingredients</h2>
+        <TableBox label="Ingredients" framed={false}>
         <table className="w-full border-collapse text-left text-sm">
           <thead>
             <tr className="border-b-2 border-black">
@@ -287,6 +292,7 @@ export function FormulaPrintSheet({
             </tfoot>
           ) : null}
         </table>
+        </TableBox>
         <p className="mt-1 text-xs text-rind-600">Soluble solids are the ingredient values saved with this revision.</p>
       </section>
 

@@ -2,6 +2,7 @@ import { formatAltitude, formatMass, formatTemperature, type UnitPreference } fr
 import { diffRevisions, type CompositionChange, type LineDiff, type LineSnapshot, type SettingChange } from '@/lib/formulas/diff';
 import { PRODUCT_CLASS_LABELS, RULE_SET_LABELS, type FormulaRevisionView } from '@/lib/formulas/schema';
 import { EU_GROUP_LABELS, KIND_LABELS, PECTIN_TYPE_LABELS } from '@/lib/ingredients/schema';
+import { TableBox } from '@/components/ui/TableBox';
 
 /** Stored numbers shown without float noise or padded zeros (10.5, not 10.500000001). */
 function decimal(value: number, maxDecimals = 2): string {
@@ -147,7 +148,7 @@ export function RevisionDiff({
       ) : null}
 
       {diff.settings.length ? (
-        <div className="overflow-x-auto rounded-card ring-1 ring-pith-300">
+        <TableBox label="Settings changed">
           <table className="min-w-full divide-y divide-pith-300 bg-pith-50 text-sm">
             <caption className="px-4 py-2 text-left font-semibold text-rind-700">Settings that changed</caption>
             <thead className="bg-pith-200 text-left text-xs uppercase tracking-wider text-rind-600">
@@ -167,12 +168,12 @@ export function RevisionDiff({
               ))}
             </tbody>
           </table>
-        </div>
+        </TableBox>
       ) : (
         <p className="text-sm text-rind-600">Settings are unchanged.</p>
       )}
 
-      <div className="overflow-x-auto rounded-card ring-1 ring-pith-300">
+      <TableBox label="Lines changed">
         <table className="min-w-full divide-y divide-pith-300 bg-pith-50 text-sm">
           <caption className="px-4 py-2 text-left font-semibold text-rind-700">
             Lines {visibleLineChanges ? `(${visibleLineChanges} changed, added or removed)` : '(unchanged)'}
@@ -214,7 +215,7 @@ export function RevisionDiff({
             ))}
           </tbody>
         </table>
-      </div>
+      </TableBox>
     </section>
   );
 }

@@ -14,6 +14,7 @@ import type { FormulaSettingsInput } from '@/lib/formulas/schema';
 import { inputClass } from '@/components/ui/Field';
 import { Notice } from '@/components/ui/Notice';
 import { formatEntryNumber, friendlyComputeMessage, parseDecimal, showMass, showMassDelta, showNumber, formatSigned } from './editor-state';
+import { TableBox } from '@/components/ui/TableBox';
 
 type TargetKind = 'total_charge' | 'finished_mass' | 'jar_count';
 
@@ -177,7 +178,7 @@ function ScaledTable({ scaled, massUnits, targetSolidsPct }: { scaled: ScaledFor
   return (
     <div className="space-y-4" data-testid="scale-result">
       <p className="text-sm text-rind-600">Scale factor × {showNumber(scaled.scaleFactor, 4)}</p>
-      <div className="overflow-x-auto rounded-card ring-1 ring-pith-300">
+      <TableBox label="Scaled lines">
         <table className="min-w-full divide-y divide-pith-300 bg-pith-50 text-sm">
           <caption className="sr-only">Scaled lines: exact and rounded weights</caption>
           <thead className="bg-pith-200 text-left text-xs uppercase tracking-wider text-rind-600">
@@ -201,7 +202,7 @@ function ScaledTable({ scaled, massUnits, targetSolidsPct }: { scaled: ScaledFor
             ))}
           </tbody>
         </table>
-      </div>
+      </TableBox>
       <dl className="grid gap-2 text-sm sm:grid-cols-2">
         <EffectRow label="Total charge" exact={showMass(scaled.exact.totalChargeG, massUnits)} rounded={showMass(scaled.rounded.totalChargeG, massUnits)} delta={showMassDelta(effect.totalChargeDeltaG, massUnits)} />
         <EffectRow label="Soluble solids" exact={showMass(scaled.exact.solubleSolidsInG, massUnits)} rounded={showMass(scaled.rounded.solubleSolidsInG, massUnits)} delta={showMassDelta(effect.solubleSolidsDeltaG, massUnits)} />

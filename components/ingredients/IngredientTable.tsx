@@ -12,6 +12,7 @@ import {
   type IngredientOrigin,
   type IngredientView,
 } from '@/lib/ingredients/schema';
+import { TableBox } from '@/components/ui/TableBox';
 
 export type IngredientSortKey = 'name' | 'kind' | 'solidsPct' | 'origin' | 'updatedAt';
 
@@ -210,7 +211,7 @@ export function IngredientTable({
           </EmptyState>
         )
       ) : (
-        <div className="overflow-x-auto rounded-card ring-1 ring-pith-300">
+        <TableBox label="Ingredients">
           <table className="min-w-full divide-y divide-pith-300 bg-pith-50 text-sm" data-testid="ingredient-table">
             <caption className="sr-only">Ingredients in this workspace&apos;s library</caption>
             <thead className="bg-pith-200 text-left text-xs uppercase tracking-wider text-rind-600">
@@ -266,7 +267,7 @@ export function IngredientTable({
               })}
             </tbody>
           </table>
-        </div>
+        </TableBox>
       )}
     </div>
   );

@@ -10,6 +10,7 @@ import { ConfirmDialog } from '@/components/ui/ConfirmDialog';
 import { ROLE_LABELS, ROLES, type Role } from '@/lib/permissions';
 import type { MemberRow, PendingInvitation } from '@/lib/members/schema';
 import { formatDate } from '@/lib/format/dates';
+import { TableBox } from '@/components/ui/TableBox';
 
 type MembersPayload = { members: MemberRow[]; invitations: PendingInvitation[] };
 type Pending = { kind: 'deactivate' | 'reactivate'; member: MemberRow } | { kind: 'revoke'; invitation: PendingInvitation } | null;
@@ -75,7 +76,7 @@ export function MembersTable({ currentUserId }: { currentUserId: string }) {
       {notice ? <Notice tone={notice.tone}>{notice.text}</Notice> : null}
       {error ? <Notice tone="danger">{(error as Error).message}</Notice> : null}
 
-      <div className="overflow-x-auto rounded-card ring-1 ring-pith-300">
+      <TableBox label="Members and invitations">
         <table className="min-w-full divide-y divide-pith-300 bg-pith-50 text-sm" data-testid="members-table">
           <caption className="sr-only">Members of this workspace</caption>
           <thead className="bg-pith-200 text-left text-xs uppercase tracking-wider text-rind-600">
@@ -130,7 +131,7 @@ export function MembersTable({ currentUserId }: { currentUserId: string }) {
             ))}
           </tbody>
         </table>
-      </div>
+      </TableBox>
 
       <ConfirmDialog
         open={pending !== null}

@@ -11,6 +11,7 @@ import { EmptyState } from '@/components/ui/Card';
 import { PANEL_METHOD_LABELS, PANEL_STATE_LABELS } from '@/lib/panels/vocabulary';
 import type { PanelSessionView } from '@/lib/panels/queries';
 import { DiscardPanelButton } from './DiscardPanelButton';
+import { TableBox } from '@/components/ui/TableBox';
 
 const STATUS_LABEL = { joined: 'Joined', answering: 'Answering', submitted: 'Submitted', partial: 'Partial' } as const;
 
@@ -104,7 +105,7 @@ export function PanelControl({ initial, qrDataUrl, joinUrl, members, canRun, joi
         {s.seats.length === 0 ? (
           <EmptyState title="Nobody has joined yet">{s.state === 'draft' ? 'Open the tasting to show the join code.' : 'Seats appear here as tasters join.'}</EmptyState>
         ) : (
-          <div className="overflow-x-auto rounded-card ring-1 ring-pith-300">
+          <TableBox label="Tasters and their progress">
             <table className="min-w-full divide-y divide-pith-300 bg-pith-50 text-sm" data-testid="seat-progress">
               <thead className="bg-pith-200 text-left text-xs uppercase tracking-wider text-rind-600">
                 <tr><th scope="col" className="px-3 py-2">Seat</th><th scope="col" className="px-3 py-2">Taster</th><th scope="col" className="px-3 py-2">Answered</th><th scope="col" className="px-3 py-2">Status</th></tr>
@@ -120,7 +121,7 @@ export function PanelControl({ initial, qrDataUrl, joinUrl, members, canRun, joi
                 ))}
               </tbody>
             </table>
-          </div>
+          </TableBox>
         )}
       </section>
 

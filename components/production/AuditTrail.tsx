@@ -1,12 +1,13 @@
 import type { AuditView } from '@/lib/production/queries';
 import { ROLE_LABELS, type Role } from '@/lib/permissions';
 import { formatDateTime } from '@/lib/format/dates';
+import { TableBox } from '@/components/ui/TableBox';
 
 /** The insert-only trail: who, what, when, and from which request. */
 export function AuditTrail({ events, showRequest = false }: { events: AuditView[]; showRequest?: boolean }) {
   if (!events.length) return <p className="text-sm text-rind-600">Nothing recorded yet.</p>;
   return (
-    <div className="overflow-x-auto">
+    <TableBox label="Audit trail" framed={false}>
       <table className="w-full text-sm" data-testid="audit-trail">
         <thead>
           <tr className="border-b border-pith-300 text-left text-rind-600">
@@ -27,6 +28,6 @@ export function AuditTrail({ events, showRequest = false }: { events: AuditView[
           ))}
         </tbody>
       </table>
-    </div>
+    </TableBox>
   );
 }

@@ -1,6 +1,7 @@
 import { formatMass, formatTemperature, fromGrams, type UnitPreference } from '@/lib/chemistry';
 import type { BatchSheet } from '@/lib/production/sheet';
 import { SpecTable } from './SpecTable';
+import { TableBox } from '@/components/ui/TableBox';
 
 const box = 'inline-block h-4 w-4 border border-rind-700 align-middle';
 
@@ -19,32 +20,36 @@ export function BatchSheetView({ sheet, paper, massUnits, temperatures, supersed
           <h1 className="text-2xl font-semibold">{sheet.title}</h1>
           <p className="text-rind-600">Batch sheet{superseded ? ' — SUPERSEDED, reference only' : ''}. Scale factor {s.scaleFactor.toFixed(3)}; weights rounded to {s.resolution.step} {unit}.</p>
         </div>
-        <table className="text-sm">
-          <tbody>
-            {['Lot code', 'Date', 'Made by (initials)', 'Checked by (initials)'].map((label) => (
-              <tr key={label}><th scope="row" className="pr-3 text-left font-medium">{label}</th><td className="h-7 w-48 border-b border-rind-500" /></tr>
-            ))}
-          </tbody>
-        </table>
+        <TableBox label="Batch" framed={false}>
+          <table className="text-sm">
+            <tbody>
+              {['Lot code', 'Date', 'Made by (initials)', 'Checked by (initials)'].map((label) => (
+                <tr key={label}><th scope="row" className="pr-3 text-left font-medium">{label}</th><td className="h-7 w-48 border-b border-rind-500" /></tr>
+              ))}
+            </tbody>
+          </table>
+        </TableBox>
       </header>
 
       <section className="mb-4 break-inside-avoid">
         <h2 className="mb-1 text-lg font-semibold">Ingredients</h2>
-        <table className="w-full" data-testid="sheet-ingredients">
-          <thead><tr className="border-b border-rind-500 text-left"><th className="w-8 py-1">✓</th><th className="py-1">Ingredient</th><th className="py-1 text-right">Weigh out</th><th className="py-1 text-right text-rind-500">Exact</th><th className="py-1 pl-4">Weighed (actual)</th></tr></thead>
-          <tbody>
-            {s.lines.map((l) => (
-              <tr key={l.index} className="border-b border-pith-300">
-                <td className="py-1.5"><span className={box} aria-hidden /></td>
-                <td className="py-1.5">{l.name}</td>
-                <td className="py-1.5 text-right font-semibold tabular-nums">{rounded(l.roundedG)}</td>
-                <td className="py-1.5 text-right tabular-nums text-rind-500">{exact(l.exactG)}</td>
-                <td className="py-1.5 pl-4"><span className="inline-block w-28 border-b border-rind-400">&nbsp;</span></td>
-              </tr>
-            ))}
-            <tr className="font-medium"><td /><td className="py-1.5">Kettle charge</td><td className="py-1.5 text-right tabular-nums">{rounded(s.rounded.totalChargeG)}</td><td className="py-1.5 text-right tabular-nums text-rind-500">{exact(s.exact.totalChargeG)}</td><td /></tr>
-          </tbody>
-        </table>
+        <TableBox label="Ingredients to weigh" framed={false}>
+          <table className="w-full" data-testid="sheet-ingredients">
+            <thead><tr className="border-b border-rind-500 text-left"><th className="w-8 py-1">✓</th><th className="py-1">Ingredient</th><th className="py-1 text-right">Weigh out</th><th className="py-1 text-right text-rind-500">Exact</th><th className="py-1 pl-4">Weighed (actual)</th></tr></thead>
+            <tbody>
+              {s.lines.map((l) => (
+                <tr key={l.index} className="border-b border-pith-300">
+                  <td className="py-1.5"><span className={box} aria-hidden /></td>
+                  <td className="py-1.5">{l.name}</td>
+                  <td className="py-1.5 text-right font-semibold tabular-nums">{rounded(l.roundedG)}</td>
+                  <td className="py-1.5 text-right tabular-nums text-rind-500">{exact(l.exactG)}</td>
+                  <td className="py-1.5 pl-4"><span className="inline-block w-28 border-b border-rind-400">&nbsp;</span></td>
+                </tr>
+              ))}
+              <tr className="font-medium"><td /><td className="py-1.5">Kettle charge</td><td className="py-1.5 text-right tabular-nums">{rounded(s.rounded.totalChargeG)}</td><td className="py-1.5 text-right tabular-nums text-rind-500">{exact(s.exact.totalChargeG)}</td><td /></tr>
+            </tbody>
+          </table>
+        </TableBox>
         <p className="mt-2 text-rind-700" data-testid="rounding-effect">
           Effect of rounding: charge {signed(s.effectOfRounding.totalChargeDeltaG)} g, soluble solids {signed(s.effectOfRounding.solubleSolidsDeltaG)} g.
           Cooked to the same target it gives {formatMass(s.rounded.finishedMassG, massUnits)} ({signed(s.effectOfRounding.finishedMassDeltaG)} g), about {s.rounded.jarsFilled} jars;
@@ -69,13 +74,15 @@ export function BatchSheetView({ sheet, paper, massUnits, temperatures, supersed
 
       <section className="mb-4 break-inside-avoid">
         <h2 className="mb-1 text-lg font-semibold">Record</h2>
-        <table className="w-full">
-          <tbody>
-            {['Boil started (time)', 'End point reached (time, °)', 'Refractometer reading / sample temperature', 'pH', 'Filling started / finished (time, °)', 'Jars filled / rejected', 'Net fill: mean / lightest jar'].map((label) => (
-              <tr key={label} className="border-b border-pith-300"><th scope="row" className="w-1/2 py-2 text-left font-medium">{label}</th><td className="py-2" /></tr>
-            ))}
-          </tbody>
-        </table>
+        <TableBox label="Checks" framed={false}>
+          <table className="w-full">
+            <tbody>
+              {['Boil started (time)', 'End point reached (time, °)', 'Refractometer reading / sample temperature', 'pH', 'Filling started / finished (time, °)', 'Jars filled / rejected', 'Net fill: mean / lightest jar'].map((label) => (
+                <tr key={label} className="border-b border-pith-300"><th scope="row" className="w-1/2 py-2 text-left font-medium">{label}</th><td className="py-2" /></tr>
+              ))}
+            </tbody>
+          </table>
+        </TableBox>
       </section>
 
       {sheet.cautions.length ? (

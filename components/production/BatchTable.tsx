@@ -4,11 +4,12 @@ import { DISPOSITION_LABELS } from '@/lib/production/vocabulary';
 import { formatMass, formatTemperature, type UnitPreference } from '@/lib/chemistry';
 import { StatusBadge } from './StatusBadge';
 import { formatDate } from '@/lib/format/dates';
+import { TableBox } from '@/components/ui/TableBox';
 
 export function BatchTable({ batches, units, temperatures }: { batches: BatchView[]; units: UnitPreference; temperatures: UnitPreference }) {
   if (!batches.length) return <p className="text-sm text-rind-600">No batches recorded yet.</p>;
   return (
-    <div className="overflow-x-auto">
+    <TableBox label="Batches" framed={false}>
       <table className="w-full text-sm" data-testid="batch-table">
         <thead>
           <tr className="border-b border-pith-300 text-left text-rind-600">
@@ -50,6 +51,6 @@ export function BatchTable({ batches, units, temperatures }: { batches: BatchVie
           ))}
         </tbody>
       </table>
-    </div>
+    </TableBox>
   );
 }

@@ -1,4 +1,5 @@
 import { formatTemperature, type QcSpec, type UnitPreference } from '@/lib/chemistry';
+import { TableBox } from '@/components/ui/TableBox';
 
 /** The QC targets of a production version, as the kitchen reads them. */
 export function SpecTable({ spec, temperatures }: { spec: QcSpec; temperatures: UnitPreference }) {
@@ -12,15 +13,17 @@ export function SpecTable({ spec, temperatures }: { spec: QcSpec; temperatures: 
     ['Storage', spec.storageNotes],
   ];
   return (
-    <table className="w-full text-sm" data-testid="qc-spec">
-      <tbody>
-        {rows.map(([k, v]) => (
-          <tr key={k} className="border-b border-pith-200 last:border-0">
-            <th scope="row" className="py-1.5 pr-4 text-left font-medium text-rind-600">{k}</th>
-            <td className="py-1.5">{v}</td>
-          </tr>
-        ))}
-      </tbody>
-    </table>
+    <TableBox label="QC specification" framed={false}>
+      <table className="w-full text-sm" data-testid="qc-spec">
+        <tbody>
+          {rows.map(([k, v]) => (
+            <tr key={k} className="border-b border-pith-200 last:border-0">
+              <th scope="row" className="py-1.5 pr-4 text-left font-medium text-rind-600">{k}</th>
+              <td className="py-1.5">{v}</td>
+            </tr>
+          ))}
+        </tbody>
+      </table>
+    </TableBox>
   );
 }

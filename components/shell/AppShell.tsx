@@ -26,7 +26,7 @@ export function AppShell({ actor, nav, workspaces, children }: { actor: Actor; n
     </div>
   );
   return (
-    <div className="min-h-screen lg:grid lg:grid-cols-[16rem_1fr] print:block">
+    <div className="min-h-screen lg:grid lg:grid-cols-[16rem_minmax(0,1fr)] print:block">
       <a href="#main" className="sr-only focus:not-sr-only focus:absolute focus:left-2 focus:top-2 focus:z-50 focus:rounded focus:bg-white focus:px-3 focus:py-2">
         Skip to content
       </a>
@@ -40,7 +40,7 @@ export function AppShell({ actor, nav, workspaces, children }: { actor: Actor; n
         {identity}
       </aside>
       <MobileNav items={nav}>{identity}</MobileNav>
-      <main id="main" className="mx-auto w-full max-w-6xl px-4 py-6 sm:px-8 sm:py-10 print:max-w-none print:p-0">
+      <main id="main" className="mx-auto w-full min-w-0 max-w-6xl px-4 py-6 sm:px-8 sm:py-10 print:max-w-none print:p-0">
         {children}
       </main>
     </div>

@@ -40,6 +40,7 @@ function CookHistory({ cook, massUnits, temperatureUnit }: { cook: MeasurementVi
     </details>
   );
 }
+import { TableBox } from '@/components/ui/TableBox';
 
 const FLAG_WORD: Record<string, string> = { ok: 'within', watch: 'check', out: 'out of window', danger: 'SAFETY', unknown: '' };
 
@@ -69,22 +70,24 @@ export function CookList({ trialId, cooks, massUnits, temperatureUnit, canEdit, 
               {m.comparison.rows.find((r) => r.flag === 'danger')!.note}
             </div>
           ) : null}
-          <table className="mt-3 w-full text-sm">
-            <thead className="text-left text-xs uppercase tracking-wider text-rind-500">
-              <tr><th scope="col" className="py-1">Measure</th><th scope="col">Predicted</th><th scope="col">Measured</th><th scope="col">Difference</th><th scope="col" className="sr-only">Note</th></tr>
-            </thead>
-            <tbody className="divide-y divide-pith-200">
-              {m.comparison.rows.map((r) => (
-                <tr key={r.key}>
-                  <th scope="row" className="py-1.5 text-left font-normal">{r.label}</th>
-                  <td className="tabular-nums">{show(r.unit, r.predicted)}</td>
-                  <td className={`tabular-nums ${FLAG_CLASS[r.flag]}`}>{show(r.unit, r.measured)} {FLAG_WORD[r.flag] ? <span className="text-xs">({FLAG_WORD[r.flag]})</span> : null}</td>
-                  <td className="tabular-nums">{r.difference === null ? '—' : `${r.difference > 0 ? '+' : ''}${show(r.unit, r.difference)}`}</td>
-                  <td className="hidden max-w-72 py-1.5 text-xs text-rind-500 md:table-cell">{r.note}</td>
-                </tr>
-              ))}
-            </tbody>
-          </table>
+          <TableBox label="Cook against prediction" framed={false}>
+            <table className="mt-3 w-full text-sm">
+              <thead className="text-left text-xs uppercase tracking-wider text-rind-500">
+                <tr><th scope="col" className="py-1">Measure</th><th scope="col">Predicted</th><th scope="col">Measured</th><th scope="col">Difference</th><th scope="col" className="sr-only">Note</th></tr>
+              </thead>
+              <tbody className="divide-y divide-pith-200">
+                {m.comparison.rows.map((r) => (
+                  <tr key={r.key}>
+                    <th scope="row" className="py-1.5 text-left font-normal">{r.label}</th>
+                    <td className="tabular-nums">{show(r.unit, r.predicted)}</td>
+                    <td className={`tabular-nums ${FLAG_CLASS[r.flag]}`}>{show(r.unit, r.measured)} {FLAG_WORD[r.flag] ? <span className="text-xs">({FLAG_WORD[r.flag]})</span> : null}</td>
+                    <td className="tabular-nums">{r.difference === null ? '—' : `${r.difference > 0 ? '+' : ''}${show(r.unit, r.difference)}`}</td>
+                    <td className="hidden max-w-72 py-1.5 text-xs text-rind-500 md:table-cell">{r.note}</td>
+                  </tr>
+                ))}
+              </tbody>
+            </table>
+          </TableBox>
           <dl className="mt-3 grid grid-cols-2 gap-x-4 gap-y-1 text-sm sm:grid-cols-4">
             <div><dt className="text-xs text-rind-500">Set test</dt><dd>{m.setTestScore ? `${m.setTestScore} · ${SET_TEST_SCALE[m.setTestScore - 1].label}` : '—'}{m.setTestMethod ? ` (${SET_TEST_METHOD_LABELS[m.setTestMethod]})` : ''}</dd></div>
             <div><dt className="text-xs text-rind-500">Syneresis</dt><dd>{m.syneresis ? SYNERESIS_LABELS[m.syneresis] : '—'}</dd></div>

@@ -3,6 +3,7 @@ import type { UnitPreference } from '@/lib/chemistry';
 import { FACTOR_LABELS, SET_TEST_SCALE } from '@/lib/trials/vocabulary';
 import type { VariantView } from '@/lib/trials/schema';
 import { FLAG_CLASS, massText, numText, tempText } from './format';
+import { TableBox } from '@/components/ui/TableBox';
 
 const COMPLIANCE: Record<string, string> = {
   compliant: 'Meets the rules',
@@ -15,7 +16,7 @@ const COMPLIANCE: Record<string, string> = {
 export function VariantsTable({ trialId, variants, massUnits, temperatureUnit }: { trialId: string; variants: VariantView[]; massUnits: UnitPreference; temperatureUnit: 'C' | 'F' }) {
   const factors = [...new Set(variants.flatMap((v) => v.factorLevels.map((l) => l.factor)))];
   return (
-    <div className="overflow-x-auto rounded-card ring-1 ring-pith-300">
+    <TableBox label="Variants">
       <table className="min-w-full divide-y divide-pith-300 bg-pith-50 text-sm" data-testid="variants-table">
         <caption className="sr-only">Variants with predicted and measured values</caption>
         <thead className="bg-pith-200 text-left text-xs uppercase tracking-wider text-rind-600">
@@ -79,6 +80,6 @@ export function VariantsTable({ trialId, variants, massUnits, temperatureUnit }:
           })}
         </tbody>
       </table>
-    </div>
+    </TableBox>
   );
 }

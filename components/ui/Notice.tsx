@@ -11,7 +11,7 @@ const TONES: Record<Tone, string> = {
 
 export function Notice({ tone = 'info', title, children }: { tone?: Tone; title?: string; children?: ReactNode }) {
   return (
-    <div role={tone === 'danger' ? 'alert' : 'status'} className={`rounded-lg px-4 py-3 text-sm ring-1 ring-inset ${TONES[tone]}`}>
+    <div role={tone === 'danger' ? 'alert' : 'status'} className={`break-words rounded-lg px-4 py-3 text-sm ring-1 ring-inset ${TONES[tone]}`}>
       {title ? <p className="font-semibold">{title}</p> : null}
       {children ? <div className={title ? 'mt-1' : ''}>{children}</div> : null}
     </div>

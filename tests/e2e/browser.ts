@@ -49,10 +49,10 @@ export async function mailTo(address: string, timeoutMs = 10_000, subject?: RegE
   throw new Error(`no mail to ${address}${subject ? ` matching ${subject}` : ''}`);
 }
 
-export async function screenshot(page: Page, name: string) {
+export async function screenshot(page: Page, name: string, fullPage = true) {
   const dir = path.resolve('test-results');
   fs.mkdirSync(dir, { recursive: true });
-  await page.screenshot({ path: path.join(dir, `${name}.png`), fullPage: true });
+  await page.screenshot({ path: path.join(dir, `${name}.png`), fullPage });
 }
 
 /** One chromium per test file, started before the first test and closed after the last. */
@@ -67,6 +67,137 @@ export function sharedBrowser(): () => Browser {
   return () => browser!;
 }
 
+/** What a walk must never meet on a page: console errors, CSP violations, uncaught exceptions. */
+export interface PageWatch {
+  problems: string[];
+}
+
+/**
+ * Starts watching a page before its first navigation: console errors, `securitypolicyviolation`
+ * events (W3C CSP Level 3) and uncaught exceptions (`pageerror`) are collected with the path they
+ * happened on. Dialogs (the editor's "leave with unsaved changes?") are accepted.
+ */
+export async function watchPage(page: Page): Promise<PageWatch> {
+  const watch: PageWatch = { problems: [] };
+  const where = () => {
+    try {
+      return new URL(page.url()).pathname;
+    } catch {
+      return page.url();
+    }
+  };
+  await page.exposeFunction('__setwellReportViolation', (v: { directive: string; blocked: string; path: string }) =>
+    watch.problems.push(`CSP violation on ${v.path}: ${v.directive} blocked ${v.blocked}`),
+  );
+  await page.addInitScript(() => {
+    document.addEventListener('securitypolicyviolation', (e) => {
+      (window as unknown as { __setwellReportViolation: (v: unknown) => void }).__setwellReportViolation({
+        directive: e.effectiveDirective,
+        blocked: e.blockedURI,
+        path: location.pathname,
+      });
+    });
+  });
+  page.on('console', (msg) => {
+    if (msg.type() === 'error') watch.problems.push(`console error on ${where()}: ${msg.text()}`);
+  });
+  page.on('pageerror', (err) => watch.problems.push(`uncaught exception on ${where()}: ${err.message}`));
+  page.on('dialog', (dialog) => void dialog.accept());
+  return watch;
+}
+
+/**
+ * The page's sideways scroll: the document is wider than the window when
+ * `document.scrollingElement.scrollWidth > clientWidth`. On overflow it names the widest elements
+ * that stick out past the right edge (outside a box that scrolls on its own), to find the culprit.
+ */
+export async function sidewaysOverflow(page: Page): Promise<string | null> {
+  // A string, not a function: the test transform may wrap named functions in helpers the page lacks.
+  return page.evaluate<string | null>(`(() => {
+    const root = document.scrollingElement;
+    if (root.scrollWidth <= root.clientWidth) return null;
+    const width = root.clientWidth;
+    // Clipped by a box that scrolls (or hides) on its own. An absolutely placed element escapes
+    // every box up to its containing block, the nearest positioned ancestor.
+    const clipped = (el) => {
+      let placed = getComputedStyle(el).position === 'absolute';
+      if (getComputedStyle(el).position === 'fixed') return true;
+      for (let p = el.parentElement; p && p !== document.body; p = p.parentElement) {
+        const style = getComputedStyle(p);
+        if (placed && style.position === 'static') continue;
+        if (['auto', 'scroll', 'hidden', 'clip'].includes(style.overflowX)) return true;
+        placed = style.position === 'absolute';
+      }
+      return false;
+    };
+    const culprits = [...document.body.querySelectorAll('*')]
+      .filter((el) => el.getBoundingClientRect().right > width + 1 && !clipped(el))
+      .map((el) => ({
+        element: el.tagName.toLowerCase() + (el.getAttribute('data-testid') ? '[data-testid=' + el.getAttribute('data-testid') + ']' : '') + '.' + String(el.className).split(/\\s+/).slice(0, 4).join('.'),
+        right: Math.round(el.getBoundingClientRect().right),
+        text: (el.textContent || '').trim().slice(0, 40),
+      }))
+      .sort((a, b) => b.right - a.right)
+      .slice(0, 5);
+    return 'page is ' + root.scrollWidth + ' px wide in a ' + width + ' px window; sticking out: ' + JSON.stringify(culprits);
+  })()`);
+}
+
+/**
+ * One stop of a walk: waits for the page to settle, fails on sideways scroll and on anything the
+ * watch collected so far, and saves a full-page screenshot to test-results/<name>.png.
+ */
+export async function checkpoint(page: Page, watch: PageWatch, name: string): Promise<void> {
+  // Settle: pages that poll (the tasting page, the organiser's progress) never go fully quiet.
+  await page.waitForLoadState('networkidle', { timeout: 3000 }).catch(() => undefined);
+  await screenshot(page, name);
+  const overflow = await sidewaysOverflow(page);
+  const problems = [...watch.problems, ...(overflow ? [`sideways scroll on ${new URL(page.url()).pathname}: ${overflow}`] : [])];
+  watch.problems.length = 0;
+  if (problems.length) throw new Error(`${name}:\n${problems.join('\n')}`);
+}
+
+export const DESKTOP = { width: 1366, height: 900 };
+export const PHONE = { width: 390, height: 844 };
+
+/** One person's walk through the app in one window size, stopping at checkpoints. */
+export interface Walk {
+  page: Page;
+  watch: PageWatch;
+  /** A checkpoint named walk-<name>-<n>-<label> (see checkpoint()). */
+  stop: (label: string) => Promise<void>;
+  /** Follows a main-navigation entry: the side rail on wide screens, the Menu drawer on phones. */
+  nav: (label: string) => Promise<void>;
+  close: () => Promise<void>;
+}
+
+export async function startWalk(browser: Browser, name: string, viewport: { width: number; height: number }): Promise<Walk> {
+  const ctx = await newContext(browser, viewport);
+  const page = await ctx.newPage();
+  const watch = await watchPage(page);
+  let n = 0;
+  return {
+    page,
+    watch,
+    stop: (label) => checkpoint(page, watch, `walk-${name}-${String(++n).padStart(2, '0')}-${label}`),
+    nav: async (label) => {
+      // The side rail shows from Tailwind's lg breakpoint (1024 px); below it the drawer.
+      if (viewport.width < 1024) await page.getByRole('button', { name: 'Menu' }).click();
+      const before = page.url();
+      await page.getByTestId('main-nav').filter({ visible: true }).getByRole('link', { name: label, exact: true }).click();
+      await page.waitForURL((url) => url.href !== before);
+    },
+    close: () => ctx.close(),
+  };
+}
+
+/** The two window sizes every walk runs in: a desktop and a phone. */
+export const WINDOWS = [
+  ['desktop', DESKTOP],
+  ['phone', PHONE],
+] as const;
+
+/** For the CSP checks that only count violations (security, notebook bounds). */
 export type Violation = { directive: string; blocked: string; page: string };
 
 /** Records every securitypolicyviolation event and every CSP console error of the page. */

@@ -11,6 +11,7 @@ import { Notice } from '@/components/ui/Notice';
 import { StatusBadge } from '@/components/trials/StatusBadge';
 import { TrialFilters } from '@/components/trials/TrialFilters';
 import { formatDate } from '@/lib/format/dates';
+import { TableBox } from '@/components/ui/TableBox';
 
 export const dynamic = 'force-dynamic';
 export const metadata = { title: 'Trials' };
@@ -41,7 +42,7 @@ export default async function TrialsPage({ searchParams }: { searchParams: Promi
           </EmptyState>
         )
       ) : (
-        <div className="overflow-x-auto rounded-card ring-1 ring-pith-300">
+        <TableBox label="Trials">
           <table className="min-w-full divide-y divide-pith-300 bg-pith-50 text-sm" data-testid="trial-list">
             <thead className="bg-pith-200 text-left text-xs uppercase tracking-wider text-rind-600">
               <tr>
@@ -70,7 +71,7 @@ export default async function TrialsPage({ searchParams }: { searchParams: Promi
               ))}
             </tbody>
           </table>
-        </div>
+        </TableBox>
       )}
     </>
   );

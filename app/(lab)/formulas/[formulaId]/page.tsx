@@ -21,7 +21,7 @@ export default async function FormulaPage({ params }: { params: Promise<{ formul
     return (
       <>
         <FormulaHeader formula={formula} active="editor" />
-        <div className="grid gap-6 xl:grid-cols-[1fr_26rem]">
+        <div className="grid grid-cols-1 gap-6 xl:grid-cols-[minmax(0,1fr)_26rem]">
           <FormulaPrintSheet formula={formula} massUnits={actor.massUnits} temperatureUnit={actor.temperatureUnit} printedAt={new Date().toISOString()} />
           <ResultsPanel outcome={computeFormula(c.settings, c.lines)} massUnits={actor.massUnits} temperatureUnit={actor.temperatureUnit} />
         </div>

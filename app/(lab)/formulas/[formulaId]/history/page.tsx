@@ -29,7 +29,7 @@ export default async function FormulaHistoryPage({ params, searchParams }: { par
   return (
     <>
       <FormulaHeader formula={formula} active="history" />
-      <div className="grid gap-6 lg:grid-cols-[20rem_1fr]">
+      <div className="grid grid-cols-1 gap-6 lg:grid-cols-[20rem_minmax(0,1fr)]">
         <section aria-labelledby="revisions-title">
           <h2 id="revisions-title" className="mb-3 text-lg font-semibold">Revisions</h2>
           <ol className="space-y-2" data-testid="revision-list">

@@ -13,6 +13,7 @@ import { CautionList } from '@/components/production/CautionList';
 import { AuditTrail } from '@/components/production/AuditTrail';
 import { BatchTable } from '@/components/production/BatchTable';
 import { formatDate } from '@/lib/format/dates';
+import { TableBox } from '@/components/ui/TableBox';
 
 export const dynamic = 'force-dynamic';
 export const metadata = { title: 'Production version' };
@@ -44,10 +45,12 @@ export default async function VersionPage({ params }: { params: Promise<{ versio
       <p className="mb-4 text-sm text-rind-600">An approved version is a fixed record: nobody can edit or delete it. To change the product, run a trial and promote a new version.</p>
       <div className="grid gap-6 lg:grid-cols-2">
         <Card title="Formula as approved">
-          <table className="w-full text-sm">
-            <thead><tr className="border-b border-pith-300 text-left text-rind-600"><th className="py-1 pr-3 font-medium">Ingredient</th><th className="py-1 font-medium">Quantity</th></tr></thead>
-            <tbody>{v.lines.map((l, i) => <tr key={i} className="border-b border-pith-200"><td className="py-1 pr-3">{l.ingredient.name}</td><td className="py-1 tabular-nums">{l.unit === 'pct_fruit' ? `${l.quantity} % of fruit` : formatMass(l.quantity, units, 1)}</td></tr>)}</tbody>
-          </table>
+          <TableBox label="Formula lines" framed={false}>
+            <table className="w-full text-sm">
+              <thead><tr className="border-b border-pith-300 text-left text-rind-600"><th className="py-1 pr-3 font-medium">Ingredient</th><th className="py-1 font-medium">Quantity</th></tr></thead>
+              <tbody>{v.lines.map((l, i) => <tr key={i} className="border-b border-pith-200"><td className="py-1 pr-3">{l.ingredient.name}</td><td className="py-1 tabular-nums">{l.unit === 'pct_fruit' ? `${l.quantity} % of fruit` : formatMass(l.quantity, units, 1)}</td></tr>)}</tbody>
+            </table>
+          </TableBox>
           <p className="mt-3 text-sm text-rind-600">Target {v.settings.targetSolidsPct} % solids; {v.settings.jarNetFillG} g jars. End point {formatTemperature(v.process.endPointSeaLevelC, temps)} at sea level; fill at {formatTemperature(v.process.fillTempC, temps)}.</p>
           {v.process.cookNotes ? <p className="mt-2 whitespace-pre-line text-sm">{v.process.cookNotes}</p> : null}
           <p className="mt-3 text-sm"><strong>{v.compliance.edition}:</strong> {v.compliance.overall.replace('_', ' ')} at approval.</p>
