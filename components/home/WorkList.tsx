@@ -11,7 +11,7 @@ export interface WorkItem {
 /** One part of a home page's worklist: what waits, each item linking to where it is done; words when nothing waits. */
 export function WorkList({ title, items, empty, more }: { title: string; items: WorkItem[]; empty: string; more?: { href: string; label: string } }) {
   return (
-    <section aria-label={title} className="rounded-card bg-pith-50 p-5 shadow-card ring-1 ring-pith-300">
+    <section aria-label={title} className="min-w-0 break-words rounded-card bg-pith-50 p-5 shadow-card ring-1 ring-pith-300">
       <header className="mb-3 flex flex-wrap items-baseline justify-between gap-2">
         <h2 className="text-lg font-semibold">{title}{items.length ? <span className="ml-2 text-sm font-normal text-rind-500">{items.length}</span> : null}</h2>
         {more ? <Link href={more.href} className="text-sm text-damson-700 underline">{more.label}</Link> : null}

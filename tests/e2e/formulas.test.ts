@@ -86,7 +86,7 @@ describe('the formula editor', () => {
     const list = page.getByTestId('formula-list');
     await list.getByRole('link', { name: /Raspberry jam, economy trial/ }).getByText('Fails a rule').waitFor();
     await list.getByRole('link', { name: /Apricot spread, reduced sugar/ }).click();
-    await page.getByText(/Reduced sugar: needs preservation and refrigeration/).first().waitFor();
+    await page.getByText(/Reduced sugar with no preservation stated/).first().waitFor();
     await page.getByText('Local food-safety codes and licensed practice govern.').first().waitFor();
     await screenshot(page, 'formula-cautions');
     await ctx.close();

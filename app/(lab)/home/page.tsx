@@ -95,7 +95,7 @@ export default async function HomePage() {
       <p className="mb-6 text-sm text-rind-600">
         You are working in <strong>{actor.workspaceName}</strong> as {ROLE_LABELS[actor.role]}.
       </p>
-      <div className="grid gap-4 lg:grid-cols-2">{sections}</div>
+      <div className="grid grid-cols-1 gap-4 lg:grid-cols-2">{sections}</div>
     </>
   );
 }
