@@ -58,17 +58,29 @@ export async function listPanelSessions(actor: Actor, trialId?: string) {
   });
 }
 
-export async function getPanelSession(actor: Actor, sessionId: string): Promise<PanelSessionView> {
+/** The rows a session's views are built from (its answers are loaded by the caller: all of them for results, only their seats for progress). */
+export async function loadPanelSessionRows(actor: Actor, sessionId: string) {
   const em = await getEm();
   const s = (await em.findOne(PanelSession, { ...inWorkspace(actor), id: sessionId })) as unknown as SessionRow | null;
   if (!s) throw notFound('tasting');
   const samples = await em.find(PanelSample, { session: s.id }, { orderBy: { position: 'asc' } });
   const variants = await em.find(Variant, { id: { $in: samples.map((x) => (x.variant as unknown as { id: string }).id) } });
-  const vById = new Map(variants.map((v) => [v.id, v]));
   const attrIds = [...s.attributeIds, ...(s.rankingAttributeId ? [s.rankingAttributeId] : [])];
   const attrs = attrIds.length ? await em.find(SensoryAttributeDef, { id: { $in: attrIds } }) : [];
   const seats = await em.find(PanelSeat, { session: s.id }, { orderBy: { seatIndex: 'asc' } });
-  const answers = await em.find(PanelAnswer, { session: s.id }, { fields: ['seat'] });
+  return { s, samples, variants, attrs, seats };
+}
+
+export async function getPanelSession(actor: Actor, sessionId: string): Promise<PanelSessionView> {
+  const rows = await loadPanelSessionRows(actor, sessionId);
+  const answers = await (await getEm()).find(PanelAnswer, { session: rows.s.id }, { fields: ['seat'] });
+  return panelSessionView(rows, answers);
+}
+
+/** The organiser's view of a session from its rows; `answers` need only their seat. */
+export function panelSessionView({ s, samples, variants, attrs, seats }: Awaited<ReturnType<typeof loadPanelSessionRows>>, answers: ReadonlyArray<{ seat: unknown }>): PanelSessionView {
+  const vById = new Map(variants.map((v) => [v.id, v]));
+  const attrIds = [...s.attributeIds, ...(s.rankingAttributeId ? [s.rankingAttributeId] : [])];
   const countBySeat = new Map<string, number>();
   for (const a of answers) {
     const id = (a.seat as unknown as { id: string }).id;

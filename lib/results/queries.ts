@@ -1,22 +1,19 @@
 /** Loads a session's answers for analysis and export. Staff only: this is where samples are unblinded. */
 import { getEm } from '@/lib/db';
-import { PanelAnswer, PanelSeat, PanelSession, SensoryAttributeDef } from '@/entities';
-import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
-import { getPanelSession } from '@/lib/panels/queries';
+import { PanelAnswer, PanelSeat } from '@/entities';
+import { inWorkspace, type Actor } from '@/lib/permissions';
+import { loadPanelSessionRows, panelSessionView, type PanelSessionView } from '@/lib/panels/queries';
 import { toCsv } from '@/lib/csv';
 import { analysePanel, type AnalysisOptions, type PanelAnalysis, type PanelData } from './analysis';
 
-export async function loadPanelData(actor: Actor, sessionId: string): Promise<{ data: PanelData; session: Awaited<ReturnType<typeof getPanelSession>> }> {
-  const session = await getPanelSession(actor, sessionId);
-  const em = await getEm();
-  const s = await em.findOne(PanelSession, { ...inWorkspace(actor), id: sessionId });
-  if (!s) throw notFound('tasting');
-  const attrIds = [...s.attributeIds, ...(s.rankingAttributeId ? [s.rankingAttributeId] : [])];
-  const attrs = attrIds.length ? await em.find(SensoryAttributeDef, { id: { $in: attrIds } }) : [];
-  const seats = await em.find(PanelSeat, { session: sessionId });
+export async function loadPanelData(actor: Actor, sessionId: string): Promise<{ data: PanelData; session: PanelSessionView }> {
+  // One set of reads serves both the session view and the analysis.
+  const rows = await loadPanelSessionRows(actor, sessionId);
+  const { s, attrs, seats } = rows;
+  const answers = await (await getEm()).find(PanelAnswer, { ...inWorkspace(actor), session: sessionId });
+  const session = panelSessionView(rows, answers);
   const seatIndex = new Map(seats.map((x) => [x.id, x.seatIndex]));
   const codeToSample = new Map<string, string>(seats.flatMap((x) => x.servingOrder.map((c) => [`${x.id}|${c.code}`, c.sampleId] as [string, string])));
-  const answers = await em.find(PanelAnswer, { ...inWorkspace(actor), session: sessionId });
   return {
     session,
     data: {
@@ -46,7 +43,7 @@ export async function loadPanelData(actor: Actor, sessionId: string): Promise<{ 
   };
 }
 
-export async function getPanelResults(actor: Actor, sessionId: string, options: AnalysisOptions = {}): Promise<{ session: Awaited<ReturnType<typeof getPanelSession>>; analysis: PanelAnalysis; data: PanelData }> {
+export async function getPanelResults(actor: Actor, sessionId: string, options: AnalysisOptions = {}): Promise<{ session: PanelSessionView; analysis: PanelAnalysis; data: PanelData }> {
   const { data, session } = await loadPanelData(actor, sessionId);
   return { session, data, analysis: analysePanel(data, options) };
 }

@@ -306,8 +306,26 @@ export function studentizedRangeUpperTail(q: number, numberOfMeans: number, df: 
   return Math.max(0, 1 - studentizedRangeCdf(q, numberOfMeans, df));
 }
 
+/**
+ * Quantiles already computed, by (p, means, df). Each one costs about 40 cdf integrals (~35 ms),
+ * and a results page asks for the same one for every attribute (same α, samples and error df) on
+ * every request. The function is pure, so a remembered value is the value itself. Bounded.
+ */
+const studentizedRangeQuantiles = new Map<string, number>();
+const REMEMBERED_QUANTILES = 512;
+
 /** Studentized-range quantile, refined by bisection to about 1e-10. */
 export function studentizedRangeQuantile(p: number, numberOfMeans: number, df: number): number {
+  const key = `${p}|${numberOfMeans}|${df}`;
+  const known = studentizedRangeQuantiles.get(key);
+  if (known !== undefined) return known;
+  const value = refineStudentizedRangeQuantile(p, numberOfMeans, df);
+  if (studentizedRangeQuantiles.size >= REMEMBERED_QUANTILES) studentizedRangeQuantiles.clear();
+  studentizedRangeQuantiles.set(key, value);
+  return value;
+}
+
+function refineStudentizedRangeQuantile(p: number, numberOfMeans: number, df: number): number {
   let guess = 5;
   try {
     const value = jStat.tukey.inv(p, numberOfMeans, df);
