@@ -99,6 +99,18 @@ describe('record home', () => {
     expect(forbidden).not.toContain('Record home');
   });
 
+  it('a member who was deactivated in the record\'s workspace gets the plain 404', async () => {
+    const leaver = active.people.production;
+    await join(home, leaver.userId, 'developer');
+    const path = `/trials/${trialId}`;
+    expect(await findRecordHome({ userId: leaver.userId, workspaceId: active.workspaceId }, path)).not.toBeNull();
+    const em = await getEm();
+    await em.nativeUpdate(Membership, { workspace: home.workspaceId, user: leaver.userId }, { active: false });
+    const html = await render(NotFound, leaver, active.workspaceId, path);
+    expect(html).toContain('Nothing here');
+    expect(html).not.toContain('Record home');
+  });
+
   it('a record of the active workspace itself gets the plain 404 (it is missing for another reason)', async () => {
     const html = await render(NotFound, home.people.developer, home.workspaceId, `/trials/${trialId}/variants/00000000-0000-4000-8000-000000000000`);
     expect(html).toContain('Nothing here');
