@@ -6,12 +6,12 @@ import { Button } from '@/components/ui/Button';
 import { switchWorkspaceAction } from '@/lib/workspaces/actions';
 import type { RecordHome } from '@/lib/workspaces/record-home';
 
-/** A link led to a record of another of the user's workspaces: offer the switch, or say why not. */
+/** A link led to a record of another of the user's workspaces: offer the switch, or say why not. A section: it renders inside the staff frame's main. */
 export function RecordElsewhere({ home }: { home: RecordHome }) {
   const [pending, start] = useTransition();
   const [error, setError] = useState<string>();
   return (
-    <main className="mx-auto max-w-lg px-6 py-24 text-center">
+    <section className="mx-auto max-w-lg px-6 py-24 text-center">
       <h1 className="text-2xl font-semibold">
         This {home.kind} is in {home.workspaceName}
       </h1>
@@ -52,6 +52,6 @@ export function RecordElsewhere({ home }: { home: RecordHome }) {
           Back to your overview
         </Link>
       </p>
-    </main>
+    </section>
   );
 }
