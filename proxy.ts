@@ -5,6 +5,7 @@
  */
 import { NextResponse, type NextRequest } from 'next/server';
 import { contentSecurityPolicy, newNonce } from '@/lib/csp';
+import { REQUEST_PATH_HEADER } from '@/lib/workspaces/record-path';
 
 export function proxy(request: NextRequest) {
   const nonce = newNonce();
@@ -12,6 +13,8 @@ export function proxy(request: NextRequest) {
   const requestHeaders = new Headers(request.headers);
   requestHeaders.set('x-nonce', nonce);
   requestHeaders.set('content-security-policy', policy);
+  // Always our own value: the not-found and forbidden pages read it to offer a switch of workspace.
+  requestHeaders.set(REQUEST_PATH_HEADER, request.nextUrl.pathname);
   const response = NextResponse.next({ request: { headers: requestHeaders } });
   response.headers.set('content-security-policy', policy);
   return response;

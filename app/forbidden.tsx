@@ -1,6 +1,11 @@
 import Link from 'next/link';
+import { RecordElsewhere } from '@/components/workspaces/RecordElsewhere';
+import { recordHomeOfRequest } from '@/lib/workspaces/record-home';
 
-export default function Forbidden() {
+export default async function Forbidden() {
+  // The active role cannot open this kind of record, but the record is in another of the user's workspaces.
+  const home = await recordHomeOfRequest();
+  if (home) return <RecordElsewhere home={home} />;
   return (
     <main className="mx-auto max-w-lg px-6 py-24 text-center">
       <p className="font-display text-5xl text-damson-300">403</p>

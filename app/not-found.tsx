@@ -1,6 +1,11 @@
 import Link from 'next/link';
+import { RecordElsewhere } from '@/components/workspaces/RecordElsewhere';
+import { recordHomeOfRequest } from '@/lib/workspaces/record-home';
 
-export default function NotFound() {
+export default async function NotFound() {
+  // A record of another of the user's own workspaces: offer the switch instead.
+  const home = await recordHomeOfRequest();
+  if (home) return <RecordElsewhere home={home} />;
   return (
     <main className="mx-auto max-w-lg px-6 py-24 text-center">
       <p className="font-display text-5xl text-damson-300">404</p>
