@@ -5,7 +5,7 @@
  */
 import { describe, it, expect } from 'vitest';
 import type { Page } from 'playwright-core';
-import { sharedBrowser, newContext, signIn, screenshot } from './browser';
+import { sharedBrowser, newContext, signIn, screenshot, openApricotTasting } from './browser';
 import { DEMO_USERS } from '@/lib/seed/demo';
 
 const browser = sharedBrowser();
@@ -90,14 +90,7 @@ describe('held batches, as production', () => {
 
 describe('the tasting slider on a phone', () => {
   it('shows no thumb until it is touched', async () => {
-    const desk = await newContext(browser());
-    const organiser = await desk.newPage();
-    await signIn(organiser, person('developer').email);
-    await organiser.goto('/trials');
-    await organiser.getByRole('link', { name: /Apricot spread: how low can the sugar go\?/ }).click();
-    await organiser.getByTestId('panel-list').getByRole('link', { name: 'Second look: two spreads' }).click();
-    const joinCode = (await organiser.getByTestId('join-code').textContent())!.trim();
-    await screenshot(organiser, 'h7-tasting-join-desktop');
+    const { joinCode } = await openApricotTasting(browser(), { organiserEmail: person('developer').email, title: `Slider check ${Date.now()}`, attribute: 'Set firmness' });
     const { page: phone, problems } = await watched(390, 844);
     await phone.goto('/join');
     await phone.getByLabel('Tasting code').fill(joinCode);
@@ -116,7 +109,6 @@ describe('the tasting slider on a phone', () => {
     expect(await slider.getAttribute('data-marked')).toBe('yes');
     await screenshot(phone, 'h7-slider-marked-phone');
     expect(problems).toEqual([]);
-    await desk.close();
     await phone.context().close();
   });
 });

@@ -218,3 +218,38 @@ export async function watchCsp(page: Page): Promise<Violation[]> {
   });
   return seen;
 }
+
+/**
+ * A rated tasting of two of the demo's apricot variants on one attribute, made through the API as
+ * the organiser and opened; a staff taster seated when named. Tests that need an open tasting make
+ * their own, so the seeded ones (which other tests close) stay as they are.
+ */
+export async function openApricotTasting(browser: Browser, o: { organiserEmail: string; title: string; attribute: string; seat?: string }): Promise<{ joinCode: string }> {
+  const ctx = await newContext(browser);
+  const page = await ctx.newPage();
+  await signIn(page, o.organiserEmail);
+  await page.goto('/trials');
+  await page.getByRole('link', { name: /Apricot spread: how low can the sugar go\?/ }).first().click();
+  await page.waitForURL(/\/trials\/[0-9a-f-]{36}$/);
+  const trialId = new URL(page.url()).pathname.split('/').pop()!;
+  const write = { headers: { origin: new URL(page.url()).origin } };
+  const { variants } = await (await page.request.get(`/api/v1/trials/${trialId}/variants`)).json();
+  const { attributes } = await (await page.request.get('/api/v1/attributes')).json();
+  const attribute = (attributes as Array<{ id: string; name: string }>).find((a) => a.name === o.attribute)!;
+  const created = await page.request.post(`/api/v1/trials/${trialId}/panels`, {
+    ...write,
+    data: { title: o.title, method: 'rated', variantIds: variants.slice(0, 2).map((v: { id: string }) => v.id), attributeIds: [attribute.id], notice: 'Apricot spreads with fruit, sugar and pectin.' },
+  });
+  if (created.status() !== 201) throw new Error(`tasting not created: ${await created.text()}`);
+  const { sessionId } = await created.json();
+  const { joinCode } = await (await page.request.post(`/api/v1/panels/${sessionId}/open`, write)).json();
+  if (o.seat) {
+    await page.goto(`/panels/${sessionId}`);
+    const invite = page.getByRole('region', { name: 'Invite staff tasters' });
+    await invite.getByRole('checkbox', { name: new RegExp(o.seat) }).check();
+    await invite.getByRole('button', { name: 'Send invitations' }).click();
+    await page.getByText('Invitations sent.').waitFor();
+  }
+  await ctx.close();
+  return { joinCode };
+}

@@ -8,7 +8,7 @@
  */
 import { describe, it } from 'vitest';
 import type { Page } from 'playwright-core';
-import { sharedBrowser, newContext, signIn, startWalk, mailTo, WINDOWS, type Walk } from './browser';
+import { sharedBrowser, signIn, startWalk, mailTo, openApricotTasting, WINDOWS, type Walk } from './browser';
 import { DEMO_USERS } from '@/lib/seed/demo';
 
 const browser = sharedBrowser();
@@ -16,35 +16,8 @@ const developer = DEMO_USERS.find((u) => u.role === 'developer')!;
 const taster = DEMO_USERS.find((u) => u.role === 'taster')!;
 
 /** A rated tasting of two apricot variants on overall liking, opened; Sol seated when asked. */
-async function openTasting(title: string, seatSol: boolean): Promise<{ joinCode: string }> {
-  const ctx = await newContext(browser());
-  const page = await ctx.newPage();
-  await signIn(page, developer.email);
-  await page.goto('/trials');
-  await page.getByRole('link', { name: /Apricot spread: how low can the sugar go\?/ }).first().click();
-  await page.waitForURL(/\/trials\/[0-9a-f-]{36}$/);
-  const trialId = new URL(page.url()).pathname.split('/').pop()!;
-  const write = { headers: { origin: new URL(page.url()).origin } };
-  const { variants } = await (await page.request.get(`/api/v1/trials/${trialId}/variants`)).json();
-  const { attributes } = await (await page.request.get('/api/v1/attributes')).json();
-  const liking = (attributes as Array<{ id: string; name: string }>).find((a) => a.name === 'Overall liking')!;
-  const created = await page.request.post(`/api/v1/trials/${trialId}/panels`, {
-    ...write,
-    data: { title, method: 'rated', variantIds: variants.slice(0, 2).map((v: { id: string }) => v.id), attributeIds: [liking.id], notice: 'Apricot spreads with fruit, sugar and pectin.' },
-  });
-  if (created.status() !== 201) throw new Error(`tasting not created: ${await created.text()}`);
-  const { sessionId } = await created.json();
-  const { joinCode } = await (await page.request.post(`/api/v1/panels/${sessionId}/open`, write)).json();
-  if (seatSol) {
-    await page.goto(`/panels/${sessionId}`);
-    const invite = page.getByRole('region', { name: 'Invite staff tasters' });
-    await invite.getByRole('checkbox', { name: new RegExp(taster.name) }).check();
-    await invite.getByRole('button', { name: 'Send invitations' }).click();
-    await page.getByText('Invitations sent.').waitFor();
-  }
-  await ctx.close();
-  return { joinCode };
-}
+const openTasting = (title: string, seatSol: boolean) =>
+  openApricotTasting(browser(), { organiserEmail: developer.email, title, attribute: 'Overall liking', seat: seatSol ? taster.name : undefined });
 
 /** From the notice to "Thank you!": like each sample moderately, review, submit. */
 async function answerEverything(walk: Walk, page: Page) {
