@@ -104,14 +104,19 @@ describe('promotion to production, three roles', () => {
     const fill = async (readings: Record<string, string>) => {
       for (const [label, value] of Object.entries(readings)) await page.getByLabel(label, { exact: true }).fill(value);
     };
-    await fill({ 'Lot code': lotCodeFor('BCJ', today, 1), 'Batch size (kg)': '50', 'Refractometer (°Brix, as read)': '67', 'Sample temperature (°C)': '20', 'pH': '3.0', 'Fill temperature (°C)': '88', 'Jars filled': '118', 'Jars rejected': '1' });
+    // The form proposes the next free lot of the day (other tests may have recorded some today).
+    const firstLot = await page.getByLabel('Lot code', { exact: true }).inputValue();
+    expect(firstLot).toMatch(new RegExp(`^${lotCodeFor('BCJ', today, 1).replace(/-1$/, '')}-\\d+$`));
+    await fill({ 'Batch size (kg)': '50', 'Refractometer (°Brix, as read)': '67', 'Sample temperature (°C)': '20', 'pH': '3.0', 'Fill temperature (°C)': '88', 'Jars filled': '118', 'Jars rejected': '1' });
     await expect.poll(() => page.getByTestId('live-checks').textContent()).toMatch(/Pass — Soluble solids/);
     await page.getByRole('button', { name: 'Record the batch' }).click();
     await page.waitForURL(/\/production\/versions\/[0-9a-f-]{36}#batches$/);
-    await page.getByTestId('batch-table').getByText(lotCodeFor('BCJ', today, 1)).waitFor();
+    await page.getByTestId('batch-table').getByText(firstLot).waitFor();
 
     await page.goto(`${versionUrl}/batches/new`);
-    await fill({ 'Lot code': lotCodeFor('BCJ', today, 2), 'Batch size (kg)': '50', 'Refractometer (°Brix, as read)': '67', 'Sample temperature (°C)': '20', 'pH': '3.0', 'Fill temperature (°C)': '80', 'Jars filled': '120', 'Jars rejected': '0' });
+    const secondLot = await page.getByLabel('Lot code', { exact: true }).inputValue();
+    expect(secondLot).not.toBe(firstLot);
+    await fill({ 'Batch size (kg)': '50', 'Refractometer (°Brix, as read)': '67', 'Sample temperature (°C)': '20', 'pH': '3.0', 'Fill temperature (°C)': '80', 'Jars filled': '120', 'Jars rejected': '0' });
     await expect.poll(() => page.getByTestId('live-checks').textContent()).toMatch(/Fail — Fill temperature/);
     await page.getByRole('button', { name: 'Record the batch' }).click();
     await page.getByText('A failed batch needs a disposition with a comment.').waitFor();
@@ -119,7 +124,7 @@ describe('promotion to production, three roles', () => {
     await page.getByLabel('What was done').fill('Held for a water-bath re-process.');
     await page.getByRole('button', { name: 'Record the batch' }).click();
     await page.waitForURL(/#batches$/);
-    const row = page.getByTestId('batch-table').locator('tr', { hasText: lotCodeFor('BCJ', today, 2) });
+    const row = page.getByTestId('batch-table').locator('tr', { hasText: secondLot });
     await row.getByText('Fail').waitFor();
     expect(await row.textContent()).toMatch(/Hold/);
 
