@@ -21,7 +21,6 @@ const EVERYONE: Role[] = [...ROLES];
 /** Each permission lists the roles that hold it. Add a permission here, never a role check in a page. */
 const GRANTS = {
   'account.self': EVERYONE,
-  'lab.enter': STAFF,
   'tastings.own': EVERYONE,
   'members.manage': ['admin'],
   'outbox.read': ['admin'],
@@ -85,16 +84,45 @@ export function authorize(actor: Actor | null, permission: Permission): Actor {
   return actor;
 }
 
+/** Staff work in the lab; a taster only takes part in tastings. */
+export function isStaff(role: Role): boolean {
+  return STAFF.includes(role);
+}
+
+/** A promotion request as the rules below need it. */
+export interface RequestParties {
+  requestedById: string;
+}
+
 /**
  * The four-eyes rule of promotion: only the head of product decides, and never on a request they
  * made themselves (an admin who also holds the role is no exception).
  */
-export function authorizeDecision(actor: Actor | null, request: { requestedById: string }): Actor {
+export function mayDecide(actor: Actor, request: RequestParties): boolean {
+  return can(actor.role, 'promotion.decide') && request.requestedById !== actor.userId;
+}
+
+/** The four-eyes rule seen from the requester: they hold the role but must leave this one to another. */
+export function awaitsAnotherDecider(actor: Actor, request: RequestParties): boolean {
+  return can(actor.role, 'promotion.decide') && request.requestedById === actor.userId;
+}
+
+export function authorizeDecision(actor: Actor | null, request: RequestParties): Actor {
   const decider = authorize(actor, 'promotion.decide');
-  if (request.requestedById === decider.userId) {
+  if (!mayDecide(decider, request)) {
     throw new AccessDenied(403, 'Nobody approves their own request: another head of product must decide it.');
   }
   return decider;
+}
+
+/** Only the person who made a request may take it back. */
+export function mayWithdraw(actor: Actor, request: RequestParties): boolean {
+  return request.requestedById === actor.userId;
+}
+
+export function authorizeWithdrawal(actor: Actor, request: RequestParties): Actor {
+  if (!mayWithdraw(actor, request)) throw new AccessDenied(403, 'Only the person who made the request can withdraw it.');
+  return actor;
 }
 
 /** The where-clause fragment every query starts from: nothing is read across workspaces. */

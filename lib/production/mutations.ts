@@ -7,7 +7,7 @@ import type { EntityManager } from '@mikro-orm/postgresql';
 import { LockMode } from '@mikro-orm/core';
 import { getEm, lockForTransaction } from '@/lib/db';
 import { AuditEvent, BatchDecision, BatchRecord, Membership, Product, ProductionFormula, PromotionRequest, Trial, Variant } from '@/entities';
-import { authorizeDecision, inWorkspace, notFound, AccessDenied, type Actor } from '@/lib/permissions';
+import { authorizeDecision, authorizeWithdrawal, inWorkspace, notFound, type Actor } from '@/lib/permissions';
 import { Conflict, ValidationFailed } from '@/lib/api/errors';
 import { computeFormula } from '@/lib/formulas/compute';
 import { checkBatchAgainstSpec, type QcCheck, type QcSpec } from '@/lib/chemistry';
@@ -224,7 +224,7 @@ export async function withdrawPromotion(actor: Actor, requestId: string, comment
   await em.transactional(async (tx) => {
     const request = await tx.findOne(PromotionRequest, { ...inWorkspace(actor), id: requestId }, { lockMode: LockMode.PESSIMISTIC_WRITE });
     if (!request) throw notFound('promotion request');
-    if ((request.requestedBy as unknown as { id: string }).id !== actor.userId) throw new AccessDenied(403, 'Only the person who made the request can withdraw it.');
+    authorizeWithdrawal(actor, { requestedById: (request.requestedBy as unknown as { id: string }).id });
     if (request.status !== 'pending') throw new Conflict('Only a request awaiting review can be withdrawn.');
     request.status = 'withdrawn';
     request.decidedBy = actor.userId as never;

@@ -1,7 +1,7 @@
 /** Production reads: the review queue, products and their versions, batch records, the audit trail. */
 import { getEm } from '@/lib/db';
 import { AuditEvent, BatchDecision, BatchRecord, Product, ProductionFormula, PromotionRequest, Trial, Variant } from '@/entities';
-import { can, inWorkspace, notFound, type Actor } from '@/lib/permissions';
+import { awaitsAnotherDecider, inWorkspace, mayDecide, mayWithdraw, notFound, type Actor } from '@/lib/permissions';
 import { trialCode } from '@/lib/trials/access';
 import { toCsv } from '@/lib/csv';
 import { defaultQcSpec, estimateEndPoint, outcomeOfChecks, qcSpecCautions, type Caution, type ComplianceReport, type QcCheck, type QcSpec, type PreservationMethod } from '@/lib/chemistry';
@@ -45,6 +45,8 @@ export interface PromotionView extends PromotionSummary {
   productionFormulaId: string | null;
   /** The permissions module decides; the page only shows what it allows. */
   canDecide: boolean;
+  /** The viewer holds the deciding role but made this request: another head of product decides it. */
+  awaitsAnotherDecider: boolean;
   canWithdraw: boolean;
   history: PromotionSummary[];
   audit: AuditView[];
@@ -119,8 +121,9 @@ export async function getPromotionRequest(actor: Actor, requestId: string): Prom
     rationale: r.rationale, process: r.process, spec: r.spec, evidence: r.evidence,
     requestedById: r.requestedBy.id,
     decidedBy: r.decidedBy?.name ?? null, decisionComment: r.decisionComment ?? null, productionFormulaId: r.productionFormulaId ?? null,
-    canDecide: pending && can(actor.role, 'promotion.decide') && r.requestedBy.id !== actor.userId,
-    canWithdraw: pending && r.requestedBy.id === actor.userId,
+    canDecide: pending && mayDecide(actor, { requestedById: r.requestedBy.id }),
+    awaitsAnotherDecider: pending && awaitsAnotherDecider(actor, { requestedById: r.requestedBy.id }),
+    canWithdraw: pending && mayWithdraw(actor, { requestedById: r.requestedBy.id }),
     history: history.map(summary),
     audit: events.map(toAuditView),
   };

@@ -1,7 +1,7 @@
 import { requirePage } from '@/lib/page-guard';
 import { PageHeader } from '@/components/ui/Card';
 import { WorkList, type WorkItem } from '@/components/home/WorkList';
-import { ROLE_LABELS, can } from '@/lib/permissions';
+import { ROLE_LABELS, can, isStaff } from '@/lib/permissions';
 import { batchWorklist, listProducts, reviewQueue, type BatchWorkItem } from '@/lib/production/queries';
 import { trialsAtTheStove } from '@/lib/trials/queries';
 import { listMySeats, listTastings } from '@/lib/panels/queries';
@@ -81,7 +81,7 @@ export default async function HomePage() {
     );
   }
   // Everyone can be seated at a tasting; staff see the part only when a seat waits for them.
-  if (waitingSeats.length || !can(actor.role, 'lab.enter')) {
+  if (waitingSeats.length || !isStaff(actor.role)) {
     sections.push(
       <WorkList key="seats" title="Tastings waiting for your answers" more={{ href: '/tastings', label: 'My tastings' }}
         empty="No tasting is waiting for you. When an organiser seats you, it appears here and you get an e-mail with your link."

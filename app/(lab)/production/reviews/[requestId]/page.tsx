@@ -1,6 +1,5 @@
 import Link from 'next/link';
 import { requirePage, orNotFound, pageId } from '@/lib/page-guard';
-import { can } from '@/lib/permissions';
 import { getPromotionRequest } from '@/lib/production/queries';
 import { formatMass, formatTemperature, qcSpecCautions } from '@/lib/chemistry';
 import { FACTOR_LABELS, type TrialFactor } from '@/lib/trials/vocabulary';
@@ -97,7 +96,7 @@ export default async function PromotionRequestPage({ params }: { params: Promise
         </div>
         <div className="min-w-0 space-y-6">
           {r.canDecide ? <DecisionForm requestId={r.id} code={r.code} outcome={r.outcome} /> : null}
-          {r.status === 'pending' && !r.canDecide && r.requestedById === actor.userId && can(actor.role, 'promotion.decide') ? (
+          {r.awaitsAnotherDecider ? (
             <Notice tone="info">You made this request: another head of product must decide it.</Notice>
           ) : null}
           {r.canWithdraw ? <WithdrawButton requestId={r.id} code={r.code} /> : null}
