@@ -7,7 +7,8 @@ import type { z } from 'zod';
 import { actorFromHeaders } from '@/lib/auth';
 import { assertSameOrigin } from '@/lib/api/route';
 import { authorize, AccessDenied, type Actor, type Permission } from '@/lib/permissions';
-import { ApiError, describeError, type FieldErrors } from '@/lib/api/errors';
+import { ApiError, describeError } from '@/lib/api/errors';
+import { type FieldErrors } from '@/lib/errors';
 import { logger } from '@/lib/log';
 
 export type ActionResult<T = undefined> =

@@ -6,7 +6,7 @@ import { hashPassword } from '@/lib/passwords';
 import { hashSecret, newSecret } from '@/lib/secrets';
 import { sendMail, escapeHtml } from '@/lib/mail';
 import { env } from '@/lib/env';
-import { ValidationFailed } from '@/lib/api/errors';
+import { ValidationFailed } from '@/lib/errors';
 import { consumeResetRequest } from '@/lib/rate-limit';
 import type { Actor } from '@/lib/permissions';
 import type { AcceptInvitationInput, PreferencesInput, ResetPasswordInput } from './schema';

@@ -5,8 +5,7 @@
  */
 import { ZodError } from 'zod';
 import { AccessDenied } from '@/lib/permissions';
-
-export type FieldErrors = Record<string, string[]>;
+import { Conflict, ValidationFailed, zodFieldErrors, type FieldErrors } from '@/lib/errors';
 
 export class ApiError extends Error {
   constructor(
@@ -18,34 +17,6 @@ export class ApiError extends Error {
     super(message);
     this.name = 'ApiError';
   }
-}
-
-/** Validation failure from a feature module; same meaning as a ZodError. */
-export class ValidationFailed extends Error {
-  constructor(
-    message: string,
-    readonly fields: FieldErrors,
-  ) {
-    super(message);
-    this.name = 'ValidationFailed';
-  }
-}
-
-/** A state conflict (a stale revision, an immutable record, a duplicate). */
-export class Conflict extends Error {
-  constructor(message: string) {
-    super(message);
-    this.name = 'Conflict';
-  }
-}
-
-export function zodFieldErrors(error: ZodError): FieldErrors {
-  const fields: FieldErrors = {};
-  for (const issue of error.issues) {
-    const key = issue.path.length ? issue.path.join('.') : '_';
-    (fields[key] ??= []).push(issue.message);
-  }
-  return fields;
 }
 
 const CODES: Record<AccessDenied['status'], string> = { 401: 'unauthenticated', 403: 'forbidden', 404: 'not_found' };

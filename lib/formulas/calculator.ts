@@ -1,5 +1,5 @@
 /** The stateless batch calculator behind POST /api/v1/calc/batch. */
-import { ValidationFailed, type FieldErrors } from '@/lib/api/errors';
+import { ValidationFailed, type FieldErrors } from '@/lib/errors';
 import type { BatchComputation, IngredientComposition } from '@/lib/chemistry';
 import { compositionOf, ingredientsByIds } from '@/lib/ingredients/queries';
 import type { Actor } from '@/lib/permissions';

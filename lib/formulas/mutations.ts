@@ -3,7 +3,7 @@ import { LockMode } from '@mikro-orm/core';
 import { getEm } from '@/lib/db';
 import { Formula, FormulaRevision, User } from '@/entities';
 import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
-import { Conflict, ValidationFailed, type FieldErrors } from '@/lib/api/errors';
+import { Conflict, ValidationFailed, type FieldErrors } from '@/lib/errors';
 import { compositionOf, ingredientsByIds } from '@/lib/ingredients/queries';
 import { chemistryFieldPath, computeFormula, normaliseQuantity } from './compute';
 import type { CreateFormulaInput, FormulaLineInputData, FormulaSettingsInput, ReviseFormulaInput, RevisionLine } from './schema';

@@ -3,7 +3,7 @@ import { LockMode } from '@mikro-orm/core';
 import { getEm } from '@/lib/db';
 import { Invitation, Membership, User, Workspace } from '@/entities';
 import { inWorkspace, notFound, ROLE_LABELS, type Actor } from '@/lib/permissions';
-import { Conflict } from '@/lib/api/errors';
+import { Conflict } from '@/lib/errors';
 import { newSecret, hashSecret } from '@/lib/secrets';
 import { sendMail, escapeHtml } from '@/lib/mail';
 import { env } from '@/lib/env';

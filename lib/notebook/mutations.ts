@@ -9,7 +9,7 @@ import type { EntityManager } from '@mikro-orm/postgresql';
 import { getEm } from '@/lib/db';
 import { NotebookConflict, NotebookEntry, User } from '@/entities';
 import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
-import { Conflict, ValidationFailed } from '@/lib/api/errors';
+import { Conflict, ValidationFailed } from '@/lib/errors';
 import { assertNotebookScope } from './queries';
 import { formatDateTime } from '@/lib/format/dates';
 import {

@@ -5,7 +5,7 @@ import { getEm } from '@/lib/db';
 import { LockMode } from '@mikro-orm/core';
 import { Membership, PanelSample, PanelSeat, PanelSession, SensoryAttributeDef, Trial, Variant } from '@/entities';
 import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
-import { Conflict, ValidationFailed } from '@/lib/api/errors';
+import { Conflict, ValidationFailed } from '@/lib/errors';
 import { hashSecret, newSecret } from '@/lib/secrets';
 import { sendMail, escapeHtml } from '@/lib/mail';
 import { env } from '@/lib/env';

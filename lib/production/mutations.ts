@@ -8,7 +8,7 @@ import { LockMode } from '@mikro-orm/core';
 import { getEm, lockForTransaction } from '@/lib/db';
 import { AuditEvent, BatchDecision, BatchRecord, Membership, Product, ProductionFormula, PromotionRequest, Trial, Variant } from '@/entities';
 import { authorizeDecision, authorizeWithdrawal, inWorkspace, notFound, type Actor } from '@/lib/permissions';
-import { Conflict, ValidationFailed } from '@/lib/api/errors';
+import { Conflict, ValidationFailed } from '@/lib/errors';
 import { computeFormula } from '@/lib/formulas/compute';
 import { checkBatchAgainstSpec, type QcCheck, type QcSpec } from '@/lib/chemistry';
 import { getTrialComparison } from '@/lib/results/trial-comparison';

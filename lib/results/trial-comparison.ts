@@ -2,7 +2,7 @@
 import { getEm } from '@/lib/db';
 import { Trial, Variant, User } from '@/entities';
 import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
-import { ValidationFailed } from '@/lib/api/errors';
+import { ValidationFailed } from '@/lib/errors';
 import { getTrialOverview } from '@/lib/trials/queries';
 import { listPanelSessions } from '@/lib/panels/queries';
 import { getPanelResults } from './queries';

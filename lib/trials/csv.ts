@@ -6,7 +6,7 @@ import Papa from 'papaparse';
 import { getEm } from '@/lib/db';
 import { Measurement, Trial, Variant } from '@/entities';
 import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
-import { ValidationFailed } from '@/lib/api/errors';
+import { ValidationFailed } from '@/lib/errors';
 import { toCsv } from '@/lib/csv';
 import { parseDecimal } from '@/lib/input';
 import { measurementSchema } from './schema';

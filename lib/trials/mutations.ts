@@ -4,7 +4,7 @@ import { LockMode } from '@mikro-orm/core';
 import { getEm, lockForTransaction } from '@/lib/db';
 import { Formula, FormulaRevision, Measurement, MeasurementChange, Trial, TrialStatusChange, Variant } from '@/entities';
 import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
-import { Conflict, ValidationFailed } from '@/lib/api/errors';
+import { Conflict, ValidationFailed } from '@/lib/errors';
 import { resolveLines } from '@/lib/chemistry';
 import { prepareRevision } from '@/lib/formulas/mutations';
 import type { RevisionLine, RevisionSummary, FormulaSettingsInput } from '@/lib/formulas/schema';

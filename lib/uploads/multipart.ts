@@ -3,7 +3,8 @@
  * over the cap is refused before a byte is read, and a body without one (chunked) is cut off
  * the moment it passes the cap. Pure: web Request only.
  */
-import { ApiError, ValidationFailed } from '@/lib/api/errors';
+import { ApiError } from '@/lib/api/errors';
+import { ValidationFailed } from '@/lib/errors';
 import { FILE_MAX_BYTES, PHOTO_MAX_BYTES, UPLOAD_REQUEST_MAX_BYTES, type UploadFile } from './schema';
 
 const mb = (bytes: number) => Math.floor(bytes / (1024 * 1024));

@@ -1,5 +1,5 @@
 import { apiRoute, json, uuidParam } from '@/lib/api/route';
-import { Conflict } from '@/lib/api/errors';
+import { Conflict } from '@/lib/errors';
 import { getProductionVersion } from '@/lib/production/queries';
 
 export const dynamic = 'force-dynamic';

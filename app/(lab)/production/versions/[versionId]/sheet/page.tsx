@@ -2,7 +2,7 @@ import Link from 'next/link';
 import { requirePage, orNotFound, pageId } from '@/lib/page-guard';
 import { getBatchSheet, getProductionVersion } from '@/lib/production/queries';
 import { batchSheetQuerySchema } from '@/lib/production/schema';
-import { zodFieldErrors } from '@/lib/api/errors';
+import { zodFieldErrors } from '@/lib/errors';
 import { safeRecord } from '@/lib/input';
 import { ChemistryInputError } from '@/lib/chemistry';
 import { Notice } from '@/components/ui/Notice';
