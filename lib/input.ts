@@ -14,6 +14,7 @@
  * - ids: UUIDs.
  */
 import { z } from 'zod';
+import { readDecimal } from '@/lib/format/numbers';
 
 /** Calendar dates and date-times are accepted from this year… */
 export const YEAR_MIN = 1900;
@@ -145,13 +146,9 @@ export function wholeNumber(what: string, min: number, max: number) {
 /** A revision or version number (1 … 2³¹−1). */
 export const versionNumber = wholeNumber('The version', 1, INT32_MAX);
 
-// Plain decimal notation as people type it: no hex, no "Infinity", no blank.
-const DECIMAL = /^[+-]?(?:\d+(?:\.\d*)?|\.\d+)(?:[eE][+-]?\d+)?$/;
-
-/** Parses the decimal text of a query parameter or CSV cell (a comma as decimal mark allowed); NaN when it is not one. */
+/** Parses the decimal text of a query parameter or CSV cell (lib/format/numbers.ts); NaN when blank or not a number. */
 export function parseDecimal(raw: string): number {
-  const s = raw.trim().replace(',', '.');
-  return DECIMAL.test(s) ? Number(s) : Number.NaN;
+  return readDecimal(raw) ?? Number.NaN;
 }
 
 /** A number sent as text (query parameter, form field): plain decimal notation, then the number rule. */

@@ -20,6 +20,7 @@ import {
 import { computeFormula, type ComputableLine, type ComputeOutcome } from '@/lib/formulas/compute';
 import type { FormulaSettingsInput } from '@/lib/formulas/schema';
 import type { IngredientView } from '@/lib/ingredients/schema';
+import { readDecimal } from '@/lib/format/numbers';
 
 export type TemperatureUnit = 'C' | 'F';
 export type ProductClassId = FormulaSettingsInput['productClass'];
@@ -28,14 +29,7 @@ export type RuleSetId = FormulaSettingsInput['ruleSet'];
 /* ---------- numbers as typed ---------- */
 
 /** Parses a typed decimal ("1,5" allowed). null = empty, NaN = not a number. */
-export function parseDecimal(text: string): number | null {
-  const trimmed = text.trim();
-  if (trimmed === '') return null;
-  const normalised = trimmed.includes('.') ? trimmed : trimmed.replace(',', '.');
-  if (!/^[+-]?(\d+\.?\d*|\.\d+)(e[+-]?\d+)?$/i.test(normalised)) return Number.NaN;
-  const value = Number(normalised);
-  return Number.isFinite(value) ? value : Number.NaN;
-}
+export const parseDecimal = readDecimal;
 
 /** A number for an input box: at most `maxDecimals`, no trailing zeros ("17.64", "500"). */
 export function formatEntryNumber(value: number, maxDecimals: number): string {

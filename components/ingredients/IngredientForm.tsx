@@ -7,6 +7,7 @@ import { Button } from '@/components/ui/Button';
 import { Field, FieldErrorText, SelectField, inputClass } from '@/components/ui/Field';
 import { Notice } from '@/components/ui/Notice';
 import { saveIngredientAction } from '@/lib/ingredients/actions';
+import { readDecimal } from '@/lib/format/numbers';
 import {
   ACID_TYPES,
   EU_FRUIT_GROUPS,
@@ -72,10 +73,8 @@ function options<T extends string>(values: readonly T[], labels: Record<T, strin
 
 /** "6,5" and "6.5" both mean 6.5; an empty box means "not given". */
 function parseNumber(raw: FormDataEntryValue | null): { value: number | null; valid: boolean } {
-  const text = typeof raw === 'string' ? raw.trim().replace(',', '.') : '';
-  if (text === '') return { value: null, valid: true };
-  const value = Number(text);
-  return Number.isFinite(value) ? { value, valid: true } : { value: null, valid: false };
+  const value = readDecimal(typeof raw === 'string' ? raw : '');
+  return value !== null && Number.isNaN(value) ? { value: null, valid: false } : { value, valid: true };
 }
 
 function text(raw: FormDataEntryValue | null): string {

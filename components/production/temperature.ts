@@ -1,5 +1,6 @@
 /** °C ↔ the person's unit for form fields; the server always receives °C. */
 import { celsiusToFahrenheit, fahrenheitToCelsius } from '@/lib/chemistry/units';
+import { readOptionalDecimal } from '@/lib/format/numbers';
 
 export type TemperatureUnit = 'C' | 'F';
 
@@ -15,9 +16,4 @@ export function fromDisplayTemperature(text: string, unit: TemperatureUnit): num
 }
 
 /** Accepts a decimal comma as well as a point; null when empty or not a number. */
-export function parseNumber(text: string): number | null {
-  const t = text.trim().replace(',', '.');
-  if (!t) return null;
-  const n = Number(t);
-  return Number.isFinite(n) ? n : null;
-}
+export const parseNumber = readOptionalDecimal;

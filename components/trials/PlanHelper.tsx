@@ -9,6 +9,7 @@ import { planRuns, PlanError, type DesignKind, type FactorSpec } from '@/lib/tri
 import { FACTOR_LABELS, TRIAL_FACTORS, type TrialFactor } from '@/lib/trials/vocabulary';
 import { planVariantsAction } from '@/lib/trials/actions';
 import { useFormAction } from '@/components/ui/useFormAction';
+import { readDecimal } from '@/lib/format/numbers';
 
 type Draft = Record<TrialFactor, { on: boolean; low: string; high: string }>;
 
@@ -32,7 +33,7 @@ export function PlanHelper({ trialId, baseLevels }: { trialId: string; baseLevel
   const { pending: busy, error, fields, run } = useFormAction(planVariantsAction, { fieldPrefix: 'plan' });
   const [added, setAdded] = useState<string>();
 
-  const specs: FactorSpec[] = TRIAL_FACTORS.filter((f) => draft[f].on).map((f) => ({ factor: f, low: Number(draft[f].low.replace(',', '.')), high: Number(draft[f].high.replace(',', '.')) }));
+  const specs: FactorSpec[] = TRIAL_FACTORS.filter((f) => draft[f].on).map((f) => ({ factor: f, low: readDecimal(draft[f].low) ?? Number.NaN, high: readDecimal(draft[f].high) ?? Number.NaN }));
   // Cheap to compute (at most nine runs), so it is simply recomputed on every render.
   const preview = (() => {
     try {

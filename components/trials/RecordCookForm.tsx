@@ -10,6 +10,7 @@ import { SET_TEST_METHODS, SET_TEST_METHOD_LABELS, SET_TEST_SCALE, SYNERESIS_LAB
 import { correctMeasurementAction, recordMeasurementAction } from '@/lib/trials/actions';
 import { cookReadingProblems, type MeasurementView } from '@/lib/trials/schema';
 import { todayIso } from '@/lib/format/dates';
+import { readDecimal } from '@/lib/format/numbers';
 
 const round = (n: number, places: number) => String(Number(n.toFixed(places)));
 
@@ -31,10 +32,8 @@ export function RecordCookForm({ trialId, variantId, massUnits, temperatureUnit,
   const initialNum = (n: number | null | undefined) => (n == null ? undefined : String(n));
   const formId = cook ? `cook-${cook.id}` : 'cook-new';
 
-  function number(form: FormData, name: string): number | null | typeof NaN {
-    const raw = String(form.get(name) ?? '').trim().replace(',', '.');
-    if (raw === '') return null;
-    return Number(raw);
+  function number(form: FormData, name: string): number | null {
+    return readDecimal(String(form.get(name) ?? ''));
   }
 
   async function submit(e: React.FormEvent<HTMLFormElement>) {
