@@ -4,7 +4,7 @@ import type { UnitPreference, WaterBoilingBasis } from '@/lib/chemistry';
 import type { ComputeOutcome } from '@/lib/formulas/compute';
 import { EmptyState } from '@/components/ui/Card';
 import { Notice } from '@/components/ui/Notice';
-import { CautionList } from './editor/CautionList';
+import { CautionList } from '@/components/ui/CautionList';
 import { ComplianceTable } from './editor/ComplianceTable';
 import { ResultRow } from './editor/ResultRow';
 import { showMass, showNumber, showTemperature, sucroseTableSourcesFor, type TemperatureUnit } from './editor-state';

@@ -10,7 +10,7 @@ import type { PromotionDraftVariant, PromotionTargetProduct } from '@/lib/produc
 import { describeIdentity, identityDifferences } from '@/lib/production/review';
 import type { PromotionTarget } from '@/lib/production/vocabulary';
 import { requestPromotionAction } from '@/lib/production/actions';
-import { CautionList } from './CautionList';
+import { CautionList } from '@/components/ui/CautionList';
 import { fromDisplayTemperature, parseNumber, toDisplayTemperature, type TemperatureUnit } from './temperature';
 
 type SpecText = Record<keyof QcSpec, string>;

@@ -8,7 +8,7 @@
 import { afterEach, describe, expect, it } from 'vitest';
 import { cleanup, render } from '@testing-library/react';
 import { ResultsPanel } from '@/components/formulas/ResultsPanel';
-import { CautionList as SpecCautionList } from '@/components/production/CautionList';
+import { CautionList as SpecCautionList } from '@/components/ui/CautionList';
 import { computeBatch, defaultQcSpec, qcSpecCautions, RULES, OUT_OF_SCOPE, TYPICAL_INGREDIENTS, PRESERVATION_METHODS, type FormulaLineInput, type FormulaSettings } from '@/lib/chemistry';
 import { PRODUCT_CLASSES, RULE_SETS } from '@/lib/formulas/schema';
 
@@ -63,6 +63,9 @@ describe('text on screens carries no enum keys or provenance notes', () => {
     for (const preservation of [undefined, ...PRESERVATION_METHODS]) {
       const cautions = qcSpecCautions({ ...spec, solidsMinBrix: 44, minFillTempC: 80, phMax: 4.8 }, 'reduced_sugar_spread', preservation);
       const { container } = render(<SpecCautionList cautions={cautions} />);
+      // One caution list everywhere: the spec's cautions name their source like the formula's do.
+      expect(container.querySelectorAll('li').length).toBe(cautions.length);
+      expect(container.textContent).toContain(`Source: ${cautions[0].source}`);
       problems.push(...problemsIn(container.textContent ?? ''));
       cleanup();
     }

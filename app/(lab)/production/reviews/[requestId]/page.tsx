@@ -7,7 +7,7 @@ import { PageHeader, Card } from '@/components/ui/Card';
 import { Notice } from '@/components/ui/Notice';
 import { StatusBadge } from '@/components/production/StatusBadge';
 import { SpecTable } from '@/components/production/SpecTable';
-import { CautionList } from '@/components/production/CautionList';
+import { CautionList } from '@/components/ui/CautionList';
 import { AuditTrail } from '@/components/production/AuditTrail';
 import { DecisionForm } from '@/components/production/DecisionForm';
 import { approvalConsequence } from '@/lib/production/review';

@@ -9,7 +9,7 @@ import { Notice } from '@/components/ui/Notice';
 import { buttonClass } from '@/components/ui/Button';
 import { StatusBadge } from '@/components/production/StatusBadge';
 import { SpecTable } from '@/components/production/SpecTable';
-import { CautionList } from '@/components/production/CautionList';
+import { CautionList } from '@/components/ui/CautionList';
 import { AuditTrail } from '@/components/production/AuditTrail';
 import { BatchTable } from '@/components/production/BatchTable';
 import { formatDate } from '@/lib/format/dates';
