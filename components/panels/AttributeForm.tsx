@@ -2,7 +2,8 @@
 
 import { useState } from 'react';
 import { useRouter } from 'next/navigation';
-import { apiFetch, ApiClientError } from '@/components/api/client';
+import { useFormAction } from '@/components/ui/useFormAction';
+import { createAttributeAction } from '@/lib/panels/actions';
 import { Button } from '@/components/ui/Button';
 import { Field, SelectField } from '@/components/ui/Field';
 import { Notice } from '@/components/ui/Notice';
@@ -10,33 +11,23 @@ import { Notice } from '@/components/ui/Notice';
 export function AttributeForm() {
   const router = useRouter();
   const [scale, setScale] = useState('intensity');
-  const [fields, setFields] = useState<Record<string, string[]>>({});
-  const [message, setMessage] = useState<{ tone: 'success' | 'danger'; text: string }>();
-  const [busy, setBusy] = useState(false);
+  const add = useFormAction(createAttributeAction);
+  const { fields, pending: busy } = add;
+  const [added, setAdded] = useState(false);
+  const message = add.error ? { tone: 'danger' as const, text: add.error } : added ? { tone: 'success' as const, text: 'Added to the library.' } : undefined;
   async function submit(e: React.FormEvent<HTMLFormElement>) {
     e.preventDefault();
     const formEl = e.currentTarget;
     const f = new FormData(formEl);
-    setBusy(true);
-    setFields({});
-    setMessage(undefined);
-    try {
-      await apiFetch('/api/v1/attributes', {
-        method: 'POST',
-        body: JSON.stringify({
-          name: f.get('name'), instruction: f.get('instruction'), scale,
-          ...(scale === 'intensity' ? { lowAnchor: f.get('lowAnchor'), highAnchor: f.get('highAnchor') } : {}),
-        }),
-      });
-      formEl.reset();
-      setMessage({ tone: 'success', text: 'Added to the library.' });
-      router.refresh();
-    } catch (err) {
-      if (err instanceof ApiClientError && err.fields) setFields(err.fields);
-      setMessage({ tone: 'danger', text: err instanceof Error ? err.message : 'Not added.' });
-    } finally {
-      setBusy(false);
-    }
+    setAdded(false);
+    const result = await add.run({
+      name: f.get('name'), instruction: f.get('instruction'), scale,
+      ...(scale === 'intensity' ? { lowAnchor: f.get('lowAnchor'), highAnchor: f.get('highAnchor') } : {}),
+    });
+    if (!result?.ok) return;
+    formEl.reset();
+    setAdded(true);
+    router.refresh();
   }
   return (
     <form onSubmit={submit} className="max-w-2xl space-y-4 rounded-card bg-pith-50 p-5 ring-1 ring-pith-300" noValidate aria-label="Add an attribute">

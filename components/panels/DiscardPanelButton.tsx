@@ -2,7 +2,8 @@
 
 import { useState } from 'react';
 import { useRouter } from 'next/navigation';
-import { apiFetch } from '@/components/api/client';
+import { discardTastingAction } from '@/lib/panels/actions';
+import { NETWORK_FAILURE_MESSAGE } from '@/components/ui/useFormAction';
 import { Button } from '@/components/ui/Button';
 import { ConfirmDialog } from '@/components/ui/ConfirmDialog';
 
@@ -14,15 +15,15 @@ export function DiscardPanelButton({ sessionId, trialId }: { sessionId: string; 
   const [error, setError] = useState<string>();
   async function discard() {
     setBusy(true);
-    try {
-      await apiFetch(`/api/v1/panels/${sessionId}`, { method: 'DELETE' });
+    const result = await discardTastingAction(sessionId).catch(() => ({ ok: false as const, error: NETWORK_FAILURE_MESSAGE }));
+    if (result.ok) {
       router.push(`/trials/${trialId}`);
       router.refresh();
-    } catch (err) {
-      setError(err instanceof Error ? err.message : 'The tasting was not discarded.');
-      setBusy(false);
-      setOpen(false);
+      return;
     }
+    setError(result.error);
+    setBusy(false);
+    setOpen(false);
   }
   return (
     <>

@@ -2,7 +2,8 @@
 
 import { useState } from 'react';
 import { useRouter } from 'next/navigation';
-import { apiFetch, ApiClientError } from '@/components/api/client';
+import { useFormAction, type FormActionResult } from '@/components/ui/useFormAction';
+import { createTastingAction, updateTastingAction } from '@/lib/panels/actions';
 import { Button } from '@/components/ui/Button';
 import { Field, FieldErrorText, inputClass } from '@/components/ui/Field';
 import { Notice } from '@/components/ui/Notice';
@@ -41,39 +42,30 @@ export function NewPanelForm({ trialId, variants, attributes, suggestedAttribute
   const [method, setMethod] = useState<PanelMethod>(editing?.method ?? 'rated');
   const [chosen, setChosen] = useState<string[]>(editing?.variantIds ?? variants.slice(0, 4).map((v) => v.id));
   const [attrs, setAttrs] = useState<string[]>(editing ? editing.attributeIds : suggestedAttributeIds);
-  const [fields, setFields] = useState<Record<string, string[]>>({});
-  const [error, setError] = useState<string>();
-  const [busy, setBusy] = useState(false);
+  const save = useFormAction(
+    async (input: unknown): Promise<FormActionResult<{ sessionId?: string }>> => (editing ? updateTastingAction(editing.id, input).then((r) => (r.ok ? { ...r, data: {} } : r)) : createTastingAction(trialId, input)),
+    { fieldPrefix: 'tasting' },
+  );
+  const { fields, error, pending: busy } = save;
   const toggle = (list: string[], id: string) => (list.includes(id) ? list.filter((x) => x !== id) : [...list, id]);
 
   async function submit(e: React.FormEvent<HTMLFormElement>) {
     e.preventDefault();
     const form = new FormData(e.currentTarget);
-    setBusy(true);
-    setFields({});
-    setError(undefined);
     const startsAt = String(form.get('startsAt') ?? '');
-    try {
-      const res = await apiFetch<{ sessionId?: string }>(editing ? `/api/v1/panels/${editing.id}` : `/api/v1/trials/${trialId}/panels`, {
-        method: editing ? 'PATCH' : 'POST',
-        body: JSON.stringify({
-          title: form.get('title'),
-          place: String(form.get('place') ?? '') || undefined,
-          startsAt: startsAt ? new Date(startsAt).toISOString() : undefined,
-          method,
-          variantIds: chosen,
-          attributeIds: method === 'rated' ? attrs : [],
-          rankingAttributeId: method === 'ranking' ? String(form.get('rankingAttributeId') ?? '') || undefined : undefined,
-          notice: form.get('notice'),
-        }),
-      });
-      router.push(`/panels/${editing?.id ?? res.sessionId}`);
-      router.refresh();
-    } catch (err) {
-      if (err instanceof ApiClientError && err.fields) setFields(err.fields);
-      setError(err instanceof Error ? err.message : editing ? 'The changes were not saved.' : 'The tasting was not created.');
-      setBusy(false);
-    }
+    const result = await save.run({
+      title: form.get('title'),
+      place: String(form.get('place') ?? '') || undefined,
+      startsAt: startsAt ? new Date(startsAt).toISOString() : undefined,
+      method,
+      variantIds: chosen,
+      attributeIds: method === 'rated' ? attrs : [],
+      rankingAttributeId: method === 'ranking' ? String(form.get('rankingAttributeId') ?? '') || undefined : undefined,
+      notice: form.get('notice'),
+    });
+    if (!result?.ok) return;
+    router.push(`/panels/${editing?.id ?? result.data.sessionId}`);
+    router.refresh();
   }
 
   return (

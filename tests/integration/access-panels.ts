@@ -105,6 +105,32 @@ async function everyoneSeated(a: WorkspaceFixture): Promise<string> {
 }
 
 export const PANELS_ACTION_CASES: ActionCase[] = [
+  {
+    action: 'lib/panels/actions.ts#createTastingAction',
+    allowed: RUN,
+    otherWorkspace: 404,
+    argsAsync: async (a) => {
+      const t = await trialWithVariants(a);
+      const attrs = await listAttributes(actorOf(a, 'developer'));
+      return [t.trialId, { title: 'Matrix tasting', method: 'rated', variantIds: [t.baseId, t.otherId], attributeIds: [attrs[0].id], notice: 'Fruit, sugar.' }];
+    },
+  },
+  {
+    action: 'lib/panels/actions.ts#updateTastingAction',
+    allowed: RUN,
+    otherWorkspace: 404,
+    argsAsync: async (a) => {
+      const p = await panelFixture(a, false);
+      return [p.sessionId, { title: 'Friday tasting', method: 'rated', variantIds: p.variantIds, attributeIds: [p.attributeId], notice: 'Contains fruit and sugar.' }];
+    },
+  },
+  { action: 'lib/panels/actions.ts#discardTastingAction', allowed: RUN, otherWorkspace: 404, argsAsync: async (a) => [(await panelFixture(a, false)).sessionId] },
+  {
+    action: 'lib/panels/actions.ts#createAttributeAction',
+    allowed: RUN,
+    otherWorkspace: 'own-data',
+    args: () => [{ name: `Peel chewiness ${randomUUID().slice(0, 8)}`, instruction: 'Chew the peel.', scale: 'intensity', lowAnchor: 'Tender', highAnchor: 'Chewy' }],
+  },
   { action: 'lib/panels/actions.ts#renewMySeatAction', allowed: ['admin', 'developer', 'head_of_product', 'production', 'taster'], otherWorkspace: 404, argsAsync: async (a) => [await everyoneSeated(a)] },
   {
     action: 'lib/results/actions.ts#recommendVariantAction',
