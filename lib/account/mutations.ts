@@ -16,26 +16,6 @@ export const RESET_LIFETIME_MINUTES = 60;
 const linkInvalid = () =>
   new ValidationFailed('This link has expired or was already used. Ask for a new one.', { token: ['This link has expired or was already used.'] });
 
-export interface InvitationPreview {
-  email: string;
-  workspaceName: string;
-  role: string;
-  hasAccount: boolean;
-}
-
-/** What the accept page shows before the invitee commits. Null when the link is not usable. */
-export async function previewInvitation(token: string): Promise<InvitationPreview | null> {
-  const em = await getEm();
-  const inv = await em.findOne(
-    Invitation,
-    { tokenHash: hashSecret(token), acceptedAt: null, revokedAt: null, expiresAt: { $gt: new Date() } },
-    { populate: ['workspace'] },
-  );
-  if (!inv) return null;
-  const user = await em.findOne(User, { email: inv.email });
-  return { email: inv.email, workspaceName: (inv.workspace as unknown as { name: string }).name, role: inv.role, hasAccount: !!user?.passwordHash };
-}
-
 /**
  * Uses the invitation exactly once: the conditional UPDATE claims it, so two tabs
  * submitting the same link cannot both succeed. An existing account keeps its password.

@@ -5,22 +5,7 @@ import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
 import { API_TOKEN_PREFIX } from '@/lib/auth';
 import { hashSecret, newSecret } from '@/lib/secrets';
 import type { TokenRow } from './schema';
-
-type TokenEntity = { id: string; label: string; displayPrefix: string; createdAt: Date; lastUsedAt?: Date | null };
-
-const toRow = (t: TokenEntity): TokenRow => ({
-  tokenId: t.id,
-  label: t.label,
-  displayPrefix: t.displayPrefix,
-  createdAt: t.createdAt.toISOString(),
-  lastUsedAt: t.lastUsedAt ? t.lastUsedAt.toISOString() : null,
-});
-
-export async function listMyTokens(actor: Actor): Promise<TokenRow[]> {
-  const em = await getEm();
-  const rows = await em.find(ApiToken, { ...inWorkspace(actor), user: actor.userId, revokedAt: null }, { orderBy: { createdAt: 'desc' } });
-  return (rows as unknown as TokenEntity[]).map(toRow);
-}
+import { toRow, type TokenEntity } from './queries';
 
 /** Returns the secret once; only its hash is kept. */
 export async function createToken(actor: Actor, input: { label: string }): Promise<TokenRow & { secret: string }> {

@@ -4,7 +4,7 @@ import { revalidatePath } from 'next/cache';
 import { z } from 'zod';
 import { runAction } from '@/lib/actions';
 import { recommendationSchema } from './schema';
-import { recommendVariant } from './trial-comparison';
+import { recommendVariant } from './mutations';
 
 export async function recommendVariantAction(trialId: unknown, input: unknown) {
   const schema = z.object({ trialId: z.uuid('Unknown trial.'), recommendation: recommendationSchema });

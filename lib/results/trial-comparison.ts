@@ -1,8 +1,7 @@
 /** Everything the head of product weighs for one trial, assembled from the trial, its cooks and its tastings. */
 import { getEm } from '@/lib/db';
-import { Trial, Variant, User } from '@/entities';
-import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
-import { ValidationFailed } from '@/lib/errors';
+import { Trial, User } from '@/entities';
+import { inWorkspace, type Actor } from '@/lib/permissions';
 import { getTrialOverview } from '@/lib/trials/queries';
 import { listPanelSessions } from '@/lib/panels/queries';
 import { getPanelResults } from './queries';
@@ -69,17 +68,3 @@ export async function getTrialComparison(actor: Actor, trialId: string): Promise
   return { trial, sessions: verdicts, means, variants, effects, correlations, recommendation };
 }
 
-/** The product developer marks the variant to promote, with the reasons; the promotion step reads it. */
-export async function recommendVariant(actor: Actor, trialId: string, input: { variantId: string; rationale: string }): Promise<void> {
-  const em = await getEm();
-  const trial = await em.findOne(Trial, { ...inWorkspace(actor), id: trialId });
-  if (!trial) throw notFound('trial');
-  const variant = await em.findOne(Variant, { ...inWorkspace(actor), trial: trialId, id: input.variantId, removedAt: null });
-  if (!variant) throw new ValidationFailed('Choose a variant of this trial.', { variantId: ['Choose a variant of this trial.'] });
-  trial.recommendedVariantId = variant.id;
-  trial.recommendationRationale = input.rationale;
-  trial.recommendedBy = actor.userId as never;
-  trial.recommendedAt = new Date();
-  trial.updatedAt = new Date();
-  await em.flush();
-}

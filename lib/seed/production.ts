@@ -3,7 +3,7 @@
  * and is in production with a few batches (one failed and was reworked), and the reduced-sugar
  * apricot spread waits in the head of product's queue.
  */
-import { recommendVariant } from '@/lib/results/trial-comparison';
+import { recommendVariant } from '@/lib/results/mutations';
 import { transitionTrial } from '@/lib/trials/mutations';
 import { getPromotionDraft, getProductionVersion } from '@/lib/production/queries';
 import { decideBatch, decidePromotion, recordBatch, requestPromotion, retestBatch } from '@/lib/production/mutations';

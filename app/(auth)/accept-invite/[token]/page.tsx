@@ -1,5 +1,5 @@
 import Link from 'next/link';
-import { previewInvitation } from '@/lib/account/mutations';
+import { previewInvitation } from '@/lib/account/queries';
 import { AcceptInvitationForm } from '@/components/auth/AccountForms';
 import { Notice } from '@/components/ui/Notice';
 import { ROLE_LABELS, type Role } from '@/lib/permissions';

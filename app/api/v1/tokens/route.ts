@@ -1,5 +1,6 @@
 import { apiRoute, json } from '@/lib/api/route';
-import { createToken, listMyTokens } from '@/lib/api-tokens/mutations';
+import { createToken } from '@/lib/api-tokens/mutations';
+import { listMyTokens } from '@/lib/api-tokens/queries';
 import { createTokenSchema } from '@/lib/api-tokens/schema';
 
 export const dynamic = 'force-dynamic';

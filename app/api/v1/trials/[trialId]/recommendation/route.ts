@@ -1,5 +1,5 @@
 import { apiRoute, json, uuidParam } from '@/lib/api/route';
-import { recommendVariant } from '@/lib/results/trial-comparison';
+import { recommendVariant } from '@/lib/results/mutations';
 import { recommendationSchema } from '@/lib/results/schema';
 
 export const dynamic = 'force-dynamic';

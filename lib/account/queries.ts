@@ -1,0 +1,24 @@
+/** Reads of the signed-out account flows. */
+import { getEm } from '@/lib/db';
+import { Invitation, User } from '@/entities';
+import { hashSecret } from '@/lib/secrets';
+
+export interface InvitationPreview {
+  email: string;
+  workspaceName: string;
+  role: string;
+  hasAccount: boolean;
+}
+
+/** What the accept page shows before the invitee commits. Null when the link is not usable. */
+export async function previewInvitation(token: string): Promise<InvitationPreview | null> {
+  const em = await getEm();
+  const inv = await em.findOne(
+    Invitation,
+    { tokenHash: hashSecret(token), acceptedAt: null, revokedAt: null, expiresAt: { $gt: new Date() } },
+    { populate: ['workspace'] },
+  );
+  if (!inv) return null;
+  const user = await em.findOne(User, { email: inv.email });
+  return { email: inv.email, workspaceName: (inv.workspace as unknown as { name: string }).name, role: inv.role, hasAccount: !!user?.passwordHash };
+}
