@@ -163,10 +163,12 @@ function euSegments(name: string, allergens: readonly EuAllergen[]): ListSegment
   const missing: string[] = [];
   for (const allergen of allergens) {
     const entry = EU_ALLERGEN_WORDS[allergen];
-    const word = entry.words.find((w) => lower.includes(w));
-    if (word) {
-      const start = lower.indexOf(word);
-      marks.push({ start, end: start + word.length });
+    // Whole words only, so "oat" is not found in "coated" nor "egg" in "nutmeg".
+    const found = entry.words
+      .map((w) => ({ w, at: lower.search(new RegExp(`(?<![a-z])${w}(?![a-z])`)) }))
+      .find((f) => f.at >= 0);
+    if (found) {
+      marks.push({ start: found.at, end: found.at + found.w.length });
     } else {
       missing.push(entry.name);
     }

@@ -148,7 +148,8 @@ function requireBrix(value: unknown, field: string): number {
 }
 
 /**
- * A cook's or batch's measured Brix (at 20 °C) against the stated total sugar: within when the
+ * A cook's or batch's measured Brix against the stated total sugar; pass the reading corrected to
+ * 20 °C (lib/chemistry/refractometer.ts), as the statement is. Within when the
  * difference is at most ± 3 refractometric degrees (Art. 2(4)); exactly 3 is within.
  */
 export function compareStatedSugar(stated: number, measuredBrix: number): StatedSugarComparison {

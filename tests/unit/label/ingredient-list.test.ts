@@ -140,6 +140,19 @@ describe('allergens', () => {
     expect(list.containsStatement).toBeNull();
   });
 
+  it('matches allergen words whole, not inside other words', () => {
+    // Source: Regulation (EU) No 1169/2011 Art. 21(1)(b) (the allergen's name is what is emphasised)
+    const coated = labelData('oat-coated nutmeg', { euAllergens: ['cereals_gluten', 'eggs'] });
+    const list = ingredientList(labelInputFrom([
+      strawberry(1000), sugar(800),
+      { composition: { kind: 'other', name: 'Spice', solidsPct: 0 }, label: coated, grams: 5 },
+    ]), 'eu');
+    expect(list.entries.at(-1)?.segments).toEqual([
+      { text: 'oat', emphasis: true }, { text: '-coated nutmeg', emphasis: false },
+      { text: ' (', emphasis: false }, { text: 'egg', emphasis: true }, { text: ')', emphasis: false },
+    ]);
+  });
+
   it('gives the US list a "Contains:" statement instead of emphasis', () => {
     // Source: FALCPA (21 U.S.C. 343(w)(1)(A)): "Contains" followed by the food sources, beside the ingredient list
     const list = ingredientList(input(), 'us');
