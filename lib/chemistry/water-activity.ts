@@ -202,11 +202,14 @@ export function solutesFromSugarProfiles(lines: SugarProfileLine[]): { solutes: 
  * during the boil. Inversion turns 1 g of sucrose into 1.053 g of glucose + fructose and takes the
  * 0.053 g of water from the syrup; the finished mass stays the mass balance's.
  *
- * Expected error: Norrish/Ross predictions for sugar solutions agree with measurement to about 2 %
+ * Expected error: in sugar solutions Norrish/Ross predictions agree with measurement to about 2 %
  * of aw on average (Sereno, Hubinger, Comesaña and Correa, "Prediction of water activity of
- * osmotic solutions", Journal of Food Engineering, 2001); in a jam, pectin, acids and fruit
- * solids not counted as sugars add to this, so read the estimate as ± 0.02 aw and measure the
- * product before relying on it (common practice, no published source for the jam figure).
+ * osmotic solutions", 2001; journal recalled as the Journal of Food Engineering). In a jam, pectin,
+ * acids and fruit solids add to this: a 68 °Brix strawberry jam with a quarter of its sucrose
+ * inverted comes out at 0.831, inside the "below 0.85" group where the New York State Department
+ * of Agriculture and Markets places jams and jellies, and about 0.03 above the 0.75–0.80 that aw
+ * tables give for jam. Read the estimate as erring high by up to 0.05, which is the safe side for
+ * the cautions, and measure the product before relying on it.
  */
 export function estimateWaterActivityFromSugars(lines: SugarProfileLine[], finishedMassG: number, options: SugarMixOptions = {}): SugarMixEstimate {
   requireFiniteNumber(finishedMassG, 'finishedMassG');
