@@ -4,8 +4,8 @@
  * Order: descending weight at the time of use (Regulation (EU) No 1169/2011 Art. 18(1);
  * 21 CFR 101.4(a)(1) "descending order of predominance by weight").
  */
-import { ChemistryInputError, requireFiniteNumber } from '@/lib/chemistry/errors';
 import type { EuAllergen, LabelInput, LabelLine, UsAllergen } from './types';
+import { validateLabelInput } from './validate';
 
 export type LabelMarket = 'eu' | 'us';
 
@@ -194,19 +194,6 @@ function euSegments(name: string, allergens: readonly EuAllergen[]): ListSegment
   return segments;
 }
 
-function validateInput(input: LabelInput): void {
-  if (!input || !Array.isArray(input.lines)) throw new ChemistryInputError('lines', 'the label needs the formula lines');
-  const finished = requireFiniteNumber(input.massBalance?.finishedMassG, 'massBalance.finishedMassG');
-  if (finished <= 0) throw new ChemistryInputError('massBalance.finishedMassG', 'finished mass must be positive');
-  input.lines.forEach((line, i) => {
-    const grams = requireFiniteNumber(line?.grams, `lines[${i}].grams`);
-    if (grams < 0) throw new ChemistryInputError(`lines[${i}].grams`, 'grams cannot be negative');
-    if (!line.ingredient || typeof line.ingredient.labelName !== 'string') {
-      throw new ChemistryInputError(`lines[${i}].ingredient.labelName`, 'every line needs its ingredient-list name');
-    }
-  });
-}
-
 function isAddedWater(line: LabelLine): boolean {
   return line.ingredient.isAddedWater === true;
 }
@@ -307,7 +294,7 @@ interface Group {
  * as added) and left out when the rule says so.
  */
 export function ingredientList(input: LabelInput, market: LabelMarket): IngredientList {
-  validateInput(input);
+  validateLabelInput(input);
   const finishedG = input.massBalance.finishedMassG;
   const notes: string[] = [];
   const water = addedWaterAccount(input, market);

@@ -1,7 +1,10 @@
 import { describe, expect, it } from 'vitest';
+import { additiveLimitChecks } from '@/lib/label/additives';
+import { checkNoAddedSugars } from '@/lib/label/claims';
 import { additiveListName, fruitIndication, ingredientList } from '@/lib/label/ingredient-list';
+import { jamStatements } from '@/lib/label/statements';
 import {
-  CITRIC, LABEL, PECTIN, RASPBERRY, REDCURRANT, STRAWBERRY, SUCROSE, WATER, labelData, labelInputFrom, labelSettings,
+  CITRIC, LABEL, PECTIN, RASPBERRY, REDCURRANT, STRAWBERRY, SUCROSE, WATER, labelData, labelInputFrom, labelSettings, nutrients,
 } from './fixtures';
 import type { TestLine } from './fixtures';
 
@@ -197,5 +200,28 @@ describe('bad input', () => {
     const input = labelInputFrom([strawberry(1000), sugar(1000)]);
     expect(() => ingredientList({ ...input, lines: [{ ...input.lines[0], grams: -1 }] }, 'eu')).toThrow(/grams/);
     expect(() => ingredientList({ ...input, massBalance: { ...input.massBalance, finishedMassG: Number.NaN } }, 'eu')).toThrow(/finishedMassG/);
+  });
+});
+
+describe('every label module refuses the same bad input', () => {
+  it('names the field for negative or non-finite grams, an empty name and a missing finished mass', () => {
+    // Source: DEVELOPERS.md (validation: bad input is refused and changes nothing); ChemistryInputError names the field for a 4xx
+    const input = labelInputFrom([strawberry(1000), sugar(1000)]);
+    const bad = [
+      { ...input, lines: [{ ...input.lines[0], grams: Number.POSITIVE_INFINITY }] },
+      { ...input, lines: [{ ...input.lines[0], ingredient: { ...input.lines[0].ingredient, labelName: '  ' } }] },
+      { ...input, massBalance: { ...input.massBalance, finishedMassG: 0 } },
+    ];
+    const modules = [
+      (i: typeof input) => ingredientList(i, 'us'),
+      (i: typeof input) => jamStatements(i),
+      (i: typeof input) => additiveLimitChecks(i),
+      (i: typeof input) => checkNoAddedSugars(i, { ...nutrients({ sugarsG: 1 }), unknownFrom: {} }),
+    ];
+    for (const run of modules) {
+      expect(() => run(bad[0])).toThrow(/lines\[0\]\.grams/);
+      expect(() => run(bad[1])).toThrow(/labelName/);
+      expect(() => run(bad[2])).toThrow(/finishedMassG/);
+    }
   });
 });
