@@ -1,0 +1,8 @@
+/**
+ * lib/models: response-surface models from the workspace's own trials. PURE: no framework imports.
+ * terms.ts (coding and model terms) · regression.ts (least squares, diagnostics, predictions) ·
+ * surface.ts (a fitted model over named factors, its region, the stationary point) ·
+ * desirability.ts (Derringer–Suich) · optimise.ts (proposals inside the data's region) · designs.ts.
+ */
+export * from './terms';
+export * from './regression';
