@@ -6,3 +6,5 @@
  */
 export * from './terms';
 export * from './regression';
+export * from './linear-algebra';
+export * from './surface';
