@@ -8,3 +8,4 @@ export * from './terms';
 export * from './regression';
 export * from './linear-algebra';
 export * from './surface';
+export * from './desirability';
