@@ -9,3 +9,4 @@ export * from './regression';
 export * from './linear-algebra';
 export * from './surface';
 export * from './desirability';
+export * from './optimise';
