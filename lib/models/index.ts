@@ -10,3 +10,4 @@ export * from './linear-algebra';
 export * from './surface';
 export * from './desirability';
 export * from './optimise';
+export * from './designs';
