@@ -9,7 +9,7 @@
  * it is off, so it walks back in. Distinct optima are returned best first.
  */
 import { ModelSpecError, type FactorRange } from './terms';
-import { predictResponse, type ResponseSurface } from './surface';
+import { checkRegion, predictResponse, type ResponseSurface } from './surface';
 import { desirability, overallDesirability, validateGoal, type Goal } from './desirability';
 import type { Interval } from './regression';
 
@@ -92,8 +92,8 @@ export interface OptimiseResult {
   message: string | null;
 }
 
-const GRID_BUDGET = 4096;
-const STARTS = 6;
+const GRID_BUDGET = 1500;
+const STARTS = 4;
 /** Proposals closer than this (unit-cube distance) are the same optimum. */
 const DISTINCT = 0.05;
 
@@ -192,13 +192,13 @@ export function optimise(input: OptimiseInput): OptimiseResult {
     let offBy = 0;
     const parts: { desirability: number; importance?: number }[] = [];
     for (const g of input.goals) {
-      const prediction = predictResponse(g.surface, point);
-      if (!prediction.inRegion) {
+      const region = checkRegion(g.surface, point);
+      if (!region.inRegion) {
         // Outside: score by how far past the largest leverage (or the box) the point is.
-        offBy += prediction.leverage === null ? 1 : Math.max(1e-6, prediction.leverage - g.surface.fit.basis.maxLeverage);
+        offBy += region.leverage === null ? 1 : Math.max(1e-6, region.leverage - g.surface.fit.basis.maxLeverage);
         continue;
       }
-      parts.push({ desirability: desirability(g.goal, prediction.estimate), importance: g.importance });
+      parts.push({ desirability: desirability(g.goal, region.estimate), importance: g.importance });
     }
     for (const c of constraints) offBy += Math.max(0, c.violation(point));
     if (offBy > 0) return { score: -1 - offBy, feasible: false, desirability: 0 };
@@ -229,7 +229,7 @@ export function optimise(input: OptimiseInput): OptimiseResult {
 
   const found: { unit: number[]; evaluation: Evaluation }[] = [];
   for (const start of starts) {
-    const result = nelderMead((x) => -evaluate(x).score, start, 0.5 / (levels - 1), 150 * k);
+    const result = nelderMead((x) => -evaluate(x).score, start, 0.5 / (levels - 1), 100 * k);
     found.push({ unit: result.x, evaluation: evaluate(result.x) });
   }
   // The grid's own best points stay candidates too (Nelder–Mead may stall on a flat D = 1 plateau).

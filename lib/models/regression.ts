@@ -83,6 +83,8 @@ export interface PredictionBasis {
   residualDf: number;
   maxLeverage: number;
   hasAliasedTerms: boolean;
+  /** t(0.975, residual df), kept because predictions while typing ask for it on every keystroke. */
+  t95: number | null;
 }
 
 export interface RegressionFit {
@@ -315,6 +317,7 @@ export function fitRegression(input: RegressionInput): RegressionFit {
       residualDf,
       maxLeverage: Math.max(...leverages),
       hasAliasedTerms: aliased.length > 0,
+      t95: residualDf > 0 ? studentTQuantile(0.975, residualDf) : null,
     },
   };
 }
@@ -335,6 +338,13 @@ export interface RegressionPrediction {
   prediction: Interval | null;
 }
 
+/** ŷ₀ = x₀ᵀβ and the row's leverage, without intervals (the optimiser's inner loop). */
+export function estimateRow(basis: PredictionBasis, row: readonly number[]): { estimate: number; leverage: number } {
+  let estimate = 0;
+  for (let j = 0; j < row.length; j++) estimate += row[j] * basis.coefficients[j];
+  return { estimate, leverage: leverageOfRow(basis, row) };
+}
+
 /**
  * ŷ₀ = x₀ᵀβ with its intervals (Montgomery, Peck & Vining, §3.4–3.5; R's predict.lm):
  * mean: ŷ₀ ± t(1 − α/2, df) · s·√h₀; new run: ŷ₀ ± t · s·√(1/w₀ + h₀).
@@ -346,13 +356,12 @@ export function predictRow(
 ): RegressionPrediction {
   const level = options.level ?? 0.95;
   const newRunWeight = options.newRunWeight ?? 1;
-  const estimate = compensatedSum(row.map((v, j) => v * basis.coefficients[j]));
-  const leverage = leverageOfRow(basis, row);
+  const { estimate, leverage } = estimateRow(basis, row);
   if (basis.residualVariance === null || basis.residualDf <= 0) {
     return { estimate, leverage, standardErrorOfMean: null, confidence: null, prediction: null };
   }
   const s2 = basis.residualVariance;
-  const t = studentTQuantile(1 - (1 - level) / 2, basis.residualDf);
+  const t = level === 0.95 && basis.t95 !== null ? basis.t95 : studentTQuantile(1 - (1 - level) / 2, basis.residualDf);
   const seMean = Math.sqrt(s2 * leverage);
   const seNew = Math.sqrt(s2 * (1 / newRunWeight + leverage));
   return {

@@ -22,7 +22,7 @@ import {
   type ModelKind,
   type ModelTerm,
 } from './terms';
-import { fitRegression, predictRow, type RegressionFit, type RegressionPrediction } from './regression';
+import { estimateRow, fitRegression, predictRow, type RegressionFit, type RegressionPrediction } from './regression';
 import { symmetricEigen } from './linear-algebra';
 
 export interface SurfaceRun {
@@ -104,35 +104,45 @@ function boxViolation(surface: ResponseSurface, point: Readonly<Record<string, n
 
 /** Leverage of a natural point under the surface's fit. */
 export function leverageAt(surface: ResponseSurface, point: Readonly<Record<string, number>>): number {
-  return predictRow(surface.fit.basis, designRow(surface.terms, codePoint(surface.coding, point))).leverage;
+  return estimateRow(surface.fit.basis, designRow(surface.terms, codePoint(surface.coding, point))).leverage;
+}
+
+export type RegionCheck =
+  | { inRegion: true; estimate: number; leverage: number }
+  | { inRegion: false; reason: string; leverage: number | null };
+
+/** The estimate at a natural point if it lies inside the data's region (see the module note), else the reason. */
+export function checkRegion(surface: ResponseSurface, point: Readonly<Record<string, number>>): RegionCheck {
+  if (surface.fit.basis.hasAliasedTerms) {
+    return { inRegion: false, reason: 'The model has terms the data cannot separate; simplify the model or add runs first.', leverage: null };
+  }
+  const { estimate, leverage } = estimateRow(surface.fit.basis, designRow(surface.terms, codePoint(surface.coding, point)));
+  const outsideBox = boxViolation(surface, point);
+  if (outsideBox) return { inRegion: false, reason: outsideBox, leverage };
+  const limit = surface.fit.basis.maxLeverage;
+  if (leverage > limit * (1 + 1e-9)) {
+    return {
+      inRegion: false,
+      reason: `This combination is far from the runs the model learned from (leverage ${leverage.toFixed(2)} above the data's largest, ${limit.toFixed(2)}).`,
+      leverage,
+    };
+  }
+  return { inRegion: true, estimate, leverage };
 }
 
 /**
- * The prediction at a natural point with its 95 % intervals, or the reason there is none: outside the
- * box, beyond the leverage rule, or a model with aliased terms (its predictions depend on a choice
- * the data cannot make).
+ * The prediction at a natural point with its intervals (95 % unless `level` says otherwise), or the
+ * reason there is none: outside the box, beyond the leverage rule, or a model with aliased terms
+ * (its predictions depend on a choice the data cannot make).
  */
 export function predictResponse(
   surface: ResponseSurface,
   point: Readonly<Record<string, number>>,
   options: { level?: number; newRunWeight?: number } = {},
 ): SurfacePrediction {
-  if (surface.fit.basis.hasAliasedTerms) {
-    return { inRegion: false, reason: 'The model has terms the data cannot separate; simplify the model or add runs first.', leverage: null };
-  }
-  const coded = codePoint(surface.coding, point);
-  const outsideBox = boxViolation(surface, point);
-  const prediction = predictRow(surface.fit.basis, designRow(surface.terms, coded), options);
-  if (outsideBox) return { inRegion: false, reason: outsideBox, leverage: prediction.leverage };
-  const limit = surface.fit.basis.maxLeverage;
-  if (prediction.leverage > limit * (1 + 1e-9)) {
-    return {
-      inRegion: false,
-      reason: `This combination is far from the runs the model learned from (leverage ${prediction.leverage.toFixed(2)} above the data's largest, ${limit.toFixed(2)}).`,
-      leverage: prediction.leverage,
-    };
-  }
-  return { inRegion: true, ...prediction };
+  const region = checkRegion(surface, point);
+  if (!region.inRegion) return region;
+  return { inRegion: true, ...predictRow(surface.fit.basis, designRow(surface.terms, codePoint(surface.coding, point)), options) };
 }
 
 export type StationaryNature = 'maximum' | 'minimum' | 'saddle' | 'ridge';
