@@ -93,6 +93,8 @@ export interface OptimiseResult {
 }
 
 const GRID_BUDGET = 1500;
+/** With more factors even two grid levels each exceed the budget. */
+const MAX_SEARCH_FACTORS = 8;
 const STARTS = 4;
 /** Proposals closer than this (unit-cube distance) are the same optimum. */
 const DISTINCT = 0.05;
@@ -166,6 +168,7 @@ function nelderMead(f: (x: number[]) => number, start: number[], step: number, m
 export function optimise(input: OptimiseInput): OptimiseResult {
   if (input.goals.length === 0) throw new ModelSpecError('State at least one goal.');
   if (input.factors.length === 0) throw new ModelSpecError('Choose at least one factor to vary.');
+  if (input.factors.length > MAX_SEARCH_FACTORS) throw new ModelSpecError(`The search varies at most ${MAX_SEARCH_FACTORS} factors at once.`);
   input.goals.forEach((g) => validateGoal(g.goal));
   for (const { surface, name } of input.goals) {
     for (const factor of surface.factors) {

@@ -127,6 +127,7 @@ function validate(input: RegressionInput): void {
   const n = input.response.length;
   const p = input.termNames.length;
   if (p === 0) throw new ModelSpecError('The model has no terms.');
+  if (n === 0) throw new ModelSpecError('There are no runs to fit.');
   if (input.rows.length !== n) throw new ModelSpecError('The design has a different number of runs than the response.');
   for (const row of input.rows) {
     if (row.length !== p) throw new ModelSpecError('Every design row needs one value per term.');

@@ -33,9 +33,17 @@ export class ModelSpecError extends Error {
   }
 }
 
+/** More factors than a kitchen can vary at once; also bounds the terms (a full quadratic in 12 has 91). */
+export const MAX_FACTORS = 12;
+
+function checkFactorCount(count: number): void {
+  if (count === 0) throw new ModelSpecError('Choose at least one factor.');
+  if (count > MAX_FACTORS) throw new ModelSpecError(`A model here takes at most ${MAX_FACTORS} factors.`);
+}
+
 /** Checks the ranges: unique names, finite levels, high above low. */
 export function validateRanges(ranges: readonly FactorRange[]): void {
-  if (ranges.length === 0) throw new ModelSpecError('Choose at least one factor.');
+  checkFactorCount(ranges.length);
   const seen = new Set<string>();
   for (const range of ranges) {
     if (seen.has(range.name)) throw new ModelSpecError(`The factor ${range.name} is listed twice.`);
@@ -85,6 +93,7 @@ export function decodePoint(ranges: readonly FactorRange[], coded: readonly numb
  * (A×B, A×C, …, B×C, …), then squares.
  */
 export function buildTerms(factorNames: readonly string[], kind: ModelKind): ModelTerm[] {
+  checkFactorCount(factorNames.length);
   const terms: ModelTerm[] = [{ name: '1', powers: [] }];
   factorNames.forEach((name, i) => terms.push({ name, powers: [{ factor: i, power: 1 }] }));
   if (kind === 'main_effects') return terms;

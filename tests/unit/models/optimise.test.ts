@@ -100,5 +100,8 @@ describe('optimiser', () => {
     expect(unreachable.message).toMatch(/always outside its acceptable limits/);
     const noOverlap = optimise({ factors: [{ name: 'time', low: 100, high: 120 }, wide[1]], goals: [{ name: 'yield', surface: yieldSurface, goal: { kind: 'maximise', low: 75, high: 81 } }] });
     expect(noOverlap.message).toMatch(/time lies outside the data/);
+    // A search over many factors would explode the grid: refused before any work.
+    const many = Array.from({ length: 9 }, (_, i) => ({ name: `f${i}`, low: 0, high: 1 }));
+    expect(() => optimise({ factors: many, goals: [{ name: 'yield', surface: yieldSurface, goal: { kind: 'maximise', low: 75, high: 81 } }] })).toThrow(/at most 8 factors/);
   });
 });

@@ -155,6 +155,8 @@ describe('warnings instead of numbers', () => {
     expect(() => fitRegression({ termNames: ['1'], rows: [[1], [1]], response: [1, 2], weights: [1, -1] })).toThrow(/positive/);
     expect(() => fitRegression({ termNames: ['1'], rows: [[1]], response: [1, 2] })).toThrow(/number of runs/);
     expect(() => fitRegression({ termNames: ['1'], rows: [[1], [Number.NaN]], response: [1, 2] })).toThrow(/not a number/);
+    expect(() => fitRegression({ termNames: ['1'], rows: [], response: [] })).toThrow(/no runs/);
+    expect(() => buildTerms(Array.from({ length: 13 }, (_, i) => `f${i}`), 'full_quadratic')).toThrow(/at most 12 factors/);
   });
 });
 

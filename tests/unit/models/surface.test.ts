@@ -72,6 +72,20 @@ describe('response surface over named factors', () => {
     expect(collectNonFiniteNumbers(stationaryPoint(ridge))).toEqual([]);
   });
 
+  it('a full quadratic on a two-level factorial: the squares are aliased with the intercept, named, and predictions withdrawn', () => {
+    // By hand: at ±1 every x² is 1, the same column as the intercept.
+    const corners = [[-1, -1], [1, -1], [-1, 1], [1, 1], [-1, -1], [1, 1]].map(([a, b], i) => ({ point: { a, b }, response: 3 + a - b + 0.1 * i }));
+    const surface = fitResponseSurface({ factors: ['a', 'b'], kind: 'full_quadratic', runs: corners });
+    const squares = surface.fit.terms.filter((t) => t.name.endsWith('²'));
+    expect(squares.map((t) => t.estimate)).toEqual([null, null]);
+    expect(squares[0].aliasedWith).toEqual(['1']);
+    expect(surface.fit.warnings.find((w) => w.kind === 'aliased')!.message).toContain('a² (with 1)');
+    const at = predictResponse(surface, { a: 0, b: 0 });
+    expect(at.inRegion).toBe(false);
+    if (!at.inRegion) expect(at.reason).toMatch(/cannot separate/);
+    expect(stationaryPoint(surface)).toBeNull();
+  });
+
   it('refuses a factor that never varies', () => {
     expect(() => fitResponseSurface({ factors: ['a', 'b'], kind: 'main_effects', runs: [{ point: { a: 1, b: 2 }, response: 1 }, { point: { a: 2, b: 2 }, response: 2 }] })).toThrow(/same value in every run/);
   });
