@@ -10,6 +10,7 @@
  * Alone: `node --import tsx scripts/bench-models.ts`.
  */
 import fs from 'node:fs';
+import os from 'node:os';
 import path from 'node:path';
 import { performance } from 'node:perf_hooks';
 import { findTypicalIngredient } from '../lib/chemistry';
@@ -51,7 +52,7 @@ function stats(samples: number[]): { median: number; p95: number } {
 }
 
 function time(repeats: number, work: () => unknown): { median: number; p95: number } {
-  for (let i = 0; i < Math.min(5, repeats); i++) work();
+  for (let i = 0; i < Math.min(20, repeats); i++) work();
   const samples: number[] = [];
   for (let i = 0; i < repeats; i++) {
     const t0 = performance.now();
@@ -61,7 +62,7 @@ function time(repeats: number, work: () => unknown): { median: number; p95: numb
   return stats(samples);
 }
 
-const fit = time(50, () => fitResponseSurface({ factors: FACTORS.map((f) => f.name), kind: 'full_quadratic', runs: firmnessRuns }));
+const fit = time(100, () => fitResponseSurface({ factors: FACTORS.map((f) => f.name), kind: 'full_quadratic', runs: firmnessRuns }));
 const surfaces = [firmnessRuns, tartnessRuns, likingRuns].map((runs) => fitResponseSurface({ factors: FACTORS.map((f) => f.name), kind: 'full_quadratic', runs }));
 
 const ingredient = (key: string) => {
@@ -102,7 +103,7 @@ const figures = [
   { name: 'models.chemistry_recompute_ms', measured: chemistry.median, p95: chemistry.p95, target: '(reference: the keystroke without models)' },
   { name: 'models.optimise_3_responses_ms', measured: optimisation.median, p95: optimisation.p95, target: '<= 1000 ms' },
 ];
-console.log('models: full quadratic, 4 features × 200 variants; three responses predicted per keystroke; optimisation');
+console.log(`models: full quadratic, 4 features × 200 variants; three responses predicted per keystroke; optimisation (load average ${os.loadavg()[0].toFixed(1)} on ${os.cpus().length} cores)`);
 for (const f of figures) console.log(`${f.name.padEnd(34)} ${f.measured.toFixed(3).padStart(9)}  p95 ${f.p95.toFixed(3).padStart(9)}   target ${f.target}`);
 fs.mkdirSync('bench-results', { recursive: true });
-fs.writeFileSync(path.join('bench-results', 'models.json'), JSON.stringify({ measuredAt: new Date().toISOString(), figures }, null, 2));
+fs.writeFileSync(path.join('bench-results', 'models.json'), JSON.stringify({ measuredAt: new Date().toISOString(), loadAverage: os.loadavg()[0], figures }, null, 2));
