@@ -11,3 +11,4 @@ export * from './surface';
 export * from './desirability';
 export * from './optimise';
 export * from './designs';
+export * from './hull';

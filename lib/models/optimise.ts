@@ -9,7 +9,7 @@
  * it is off, so it walks back in. Distinct optima are returned best first.
  */
 import { ModelSpecError, type FactorRange } from './terms';
-import { checkRegion, predictResponse, type ResponseSurface } from './surface';
+import { checkRegion, predictResponse, type RegionRules, type ResponseSurface } from './surface';
 import { desirability, overallDesirability, validateGoal, type Goal } from './desirability';
 import type { Interval } from './regression';
 
@@ -81,6 +81,8 @@ export interface OptimiseInput {
   constraints?: readonly Constraint[];
   /** How many distinct proposals to return (default 3). */
   proposals?: number;
+  /** Region rules beyond the box and leverage (surface.ts), e.g. the convex hull. */
+  region?: RegionRules;
 }
 
 export interface OptimiseResult {
@@ -195,7 +197,7 @@ export function optimise(input: OptimiseInput): OptimiseResult {
     let offBy = 0;
     const parts: { desirability: number; importance?: number }[] = [];
     for (const g of input.goals) {
-      const region = checkRegion(g.surface, point);
+      const region = checkRegion(g.surface, point, input.region);
       if (!region.inRegion) {
         // Outside: score by how far past the largest leverage (or the box) the point is.
         offBy += region.leverage === null ? 1 : Math.max(1e-6, region.leverage - g.surface.fit.basis.maxLeverage);
@@ -251,7 +253,7 @@ export function optimise(input: OptimiseInput): OptimiseResult {
       point,
       desirability: evaluation.desirability,
       responses: input.goals.map((g) => {
-        const prediction = predictResponse(g.surface, point);
+        const prediction = predictResponse(g.surface, point, input.region);
         if (!prediction.inRegion) throw new Error('A proposal left the data region.');
         return {
           name: g.name,

@@ -8,7 +8,8 @@
  *    leverage of the data, h_max. The set h₀ ≤ h_max is the smallest ellipsoid of that shape holding
  *    every run, which flags "hidden extrapolation" between the runs that the box misses
  *    (Montgomery, Peck & Vining, Introduction to Linear Regression Analysis, §3.8 — memory).
- * A convex-hull test is stricter still; it is not applied here.
+ * 3. on request (`hull: true`), the convex hull of the runs (hull.ts): stricter still, it also refuses
+ *    the empty corners between runs that the ellipsoid holds.
  */
 import {
   buildTerms,
@@ -24,6 +25,7 @@ import {
 } from './terms';
 import { estimateRow, fitRegression, predictRow, type RegressionFit, type RegressionPrediction } from './regression';
 import { symmetricEigen } from './linear-algebra';
+import { insideConvexHull } from './hull';
 
 export interface SurfaceRun {
   /** Natural values by factor name. */
@@ -50,6 +52,8 @@ export interface ResponseSurface {
   dataBox: FactorRange[];
   terms: ModelTerm[];
   fit: RegressionFit;
+  /** The runs' coded points, for the convex-hull rule. */
+  codedRuns: number[][];
 }
 
 export function fitResponseSurface(input: SurfaceInput): ResponseSurface {
@@ -70,13 +74,14 @@ export function fitResponseSurface(input: SurfaceInput): ResponseSurface {
   const terms = buildTerms(factors, input.kind);
   const weighted = input.runs.some((r) => r.weight !== undefined);
   if (weighted && input.runs.some((r) => r.weight === undefined)) throw new ModelSpecError('Give a weight for every run or for none.');
+  const codedRuns = input.runs.map((r) => codePoint(coding, r.point));
   const fit = fitRegression({
     termNames: terms.map((t) => t.name),
-    rows: input.runs.map((r) => designRow(terms, codePoint(coding, r.point))),
+    rows: codedRuns.map((coded) => designRow(terms, coded)),
     response: input.runs.map((r) => r.response),
     weights: weighted ? input.runs.map((r) => r.weight as number) : undefined,
   });
-  return { factors, kind: input.kind, coding, dataBox, terms, fit };
+  return { factors, kind: input.kind, coding, dataBox, terms, fit, codedRuns };
 }
 
 export type SurfacePrediction =
@@ -107,16 +112,22 @@ export function leverageAt(surface: ResponseSurface, point: Readonly<Record<stri
   return estimateRow(surface.fit.basis, designRow(surface.terms, codePoint(surface.coding, point))).leverage;
 }
 
+export interface RegionRules {
+  /** Also require the point to lie in the convex hull of the runs. */
+  hull?: boolean;
+}
+
 export type RegionCheck =
   | { inRegion: true; estimate: number; leverage: number }
   | { inRegion: false; reason: string; leverage: number | null };
 
 /** The estimate at a natural point if it lies inside the data's region (see the module note), else the reason. */
-export function checkRegion(surface: ResponseSurface, point: Readonly<Record<string, number>>): RegionCheck {
+export function checkRegion(surface: ResponseSurface, point: Readonly<Record<string, number>>, rules: RegionRules = {}): RegionCheck {
   if (surface.fit.basis.hasAliasedTerms) {
     return { inRegion: false, reason: 'The model has terms the data cannot separate; simplify the model or add runs first.', leverage: null };
   }
-  const { estimate, leverage } = estimateRow(surface.fit.basis, designRow(surface.terms, codePoint(surface.coding, point)));
+  const coded = codePoint(surface.coding, point);
+  const { estimate, leverage } = estimateRow(surface.fit.basis, designRow(surface.terms, coded));
   const outsideBox = boxViolation(surface, point);
   if (outsideBox) return { inRegion: false, reason: outsideBox, leverage };
   const limit = surface.fit.basis.maxLeverage;
@@ -126,6 +137,9 @@ export function checkRegion(surface: ResponseSurface, point: Readonly<Record<str
       reason: `This combination is far from the runs the model learned from (leverage ${leverage.toFixed(2)} above the data's largest, ${limit.toFixed(2)}).`,
       leverage,
     };
+  }
+  if (rules.hull && !insideConvexHull(surface.codedRuns, coded)) {
+    return { inRegion: false, reason: 'This combination lies outside the runs the model learned from (beyond their convex hull).', leverage };
   }
   return { inRegion: true, estimate, leverage };
 }
@@ -138,9 +152,9 @@ export function checkRegion(surface: ResponseSurface, point: Readonly<Record<str
 export function predictResponse(
   surface: ResponseSurface,
   point: Readonly<Record<string, number>>,
-  options: { level?: number; newRunWeight?: number } = {},
+  options: { level?: number; newRunWeight?: number } & RegionRules = {},
 ): SurfacePrediction {
-  const region = checkRegion(surface, point);
+  const region = checkRegion(surface, point, options);
   if (!region.inRegion) return region;
   return { inRegion: true, ...predictRow(surface.fit.basis, designRow(surface.terms, codePoint(surface.coding, point)), options) };
 }

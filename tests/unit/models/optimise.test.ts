@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { fitResponseSurface, leverageAt, linearConstraint, optimise, predictResponse, stationaryPoint, windowConstraint } from '@/lib/models';
+import { codePoint, fitResponseSurface, insideConvexHull, leverageAt, linearConstraint, optimise, predictResponse, stationaryPoint, windowConstraint } from '@/lib/models';
 import { yieldCcd } from './published';
 
 const coding = [
@@ -58,6 +58,12 @@ describe('optimiser', () => {
     // runs) = 1/13 + 2/8, so the allowed region is x1² + x2² ≤ 2; the optimum of x1 + x2 is (1, 1).
     expect(result.proposals[0].point.time).toBeCloseTo(90, 1);
     expect(result.proposals[0].point.temperature).toBeCloseTo(180, 1);
+    // With the convex-hull rule too, every proposal lies in the hull of the runs.
+    const strict = optimise({ factors: wide, goals: [{ name: 'sum', surface: planar, goal: { kind: 'maximise', low: 200, high: 300 } }], region: { hull: true } });
+    expect(strict.proposals.length).toBeGreaterThan(0);
+    for (const proposal of strict.proposals) {
+      expect(insideConvexHull(planar.codedRuns, codePoint(planar.coding, proposal.point))).toBe(true);
+    }
   });
 
   it('combines two responses with a window constraint and returns distinct proposals with intervals', () => {

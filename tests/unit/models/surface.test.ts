@@ -49,6 +49,14 @@ describe('response surface over named factors', () => {
       expect(corner.reason).toMatch(/far from the runs/);
       expect(corner.leverage!).toBeGreaterThan(surface.fit.basis.maxLeverage);
     }
+    // Between the corner (1, 1) and the axial run (1.414, 0) (coded 1.2, 0.6; see hull.test.ts): the
+    // leverage rule keeps it, the convex-hull rule (on request) does not.
+    const between = { time: 91, temperature: 178 };
+    expect(predictResponse(surface, between).inRegion).toBe(true);
+    const strict = predictResponse(surface, between, { hull: true });
+    expect(strict.inRegion).toBe(false);
+    if (!strict.inRegion) expect(strict.reason).toMatch(/convex hull/);
+    expect(predictResponse(surface, { time: 86, temperature: 176 }, { hull: true }).inRegion).toBe(true);
     // At a run itself the leverage is that run's.
     expect(leverageAt(surface, { time: 80, temperature: 170 })).toBeCloseTo(surface.fit.leverages[0], 12);
   });
