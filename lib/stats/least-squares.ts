@@ -6,6 +6,9 @@
  * combinations of earlier columns are marked `aliased` and left out, as R's `lm`
  * does, so unbalanced or disconnected designs still give a fit and a clear flag.
  * Callers centre the response first, so the offset of the data cannot hurt.
+ * Householder QR is column-scaling invariant in its rounding errors, so columns of very different
+ * size (x and x¹⁰ in NIST's Filip set) need no rescaling here; on Filip it keeps 8 digits of the
+ * certified coefficients (tests/unit/models/nist.test.ts).
  */
 import { compensatedSum } from './numeric';
 
@@ -23,6 +26,27 @@ export interface LeastSquaresFit {
    * multiply by the residual mean square for the covariance of the coefficients.
    */
   unscaledCovariance: number[][];
+  /** Indices of the estimable (non-aliased) design columns, in order. */
+  estimableColumns: number[];
+  /** R⁻¹ of the QR factors of the estimable columns (upper triangular, rank × rank). */
+  inverseR: number[][];
+  /** Diagonal of the hat matrix X(XᵀX)⁻¹Xᵀ: each row's leverage, from its row of Q. */
+  leverages: number[];
+}
+
+/**
+ * x₀ᵀ(XᵀX)⁻¹x₀ for a row laid out like the design's: ‖x₀ R⁻¹‖², which keeps the digits that
+ * forming (XᵀX)⁻¹ would lose. For a row of the design it is that row's leverage.
+ */
+export function leverageOfRow(fit: Pick<LeastSquaresFit, 'estimableColumns' | 'inverseR'>, row: readonly number[]): number {
+  const { estimableColumns, inverseR } = fit;
+  let total = 0;
+  for (let col = 0; col < estimableColumns.length; col++) {
+    let z = 0;
+    for (let k = 0; k <= col; k++) z += row[estimableColumns[k]] * inverseR[k][col];
+    total += z * z;
+  }
+  return total;
 }
 
 /** Relative size below which a column's new direction counts as zero. */
@@ -121,6 +145,9 @@ export function fitLeastSquares(design: readonly (readonly number[])[], response
     }
   }
 
+  const factors = { estimableColumns: acceptedColumns, inverseR: rInverse };
+  const leverages = design.map((row) => leverageOfRow(factors, row));
+
   return {
     coefficients,
     aliased,
@@ -130,5 +157,8 @@ export function fitLeastSquares(design: readonly (readonly number[])[], response
     residualSumOfSquares,
     residuals,
     unscaledCovariance,
+    estimableColumns: acceptedColumns,
+    inverseR: rInverse,
+    leverages,
   };
 }
