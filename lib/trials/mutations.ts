@@ -11,7 +11,7 @@ import type { RevisionLine, RevisionSummary, FormulaSettingsInput } from '@/lib/
 import { computeFormula } from '@/lib/formulas/compute';
 import { applyFactorLevels, measureFactor, planRuns, PlanError, variantLinesKey, type FactorLevel, type MassLine } from './plan';
 import { TRIAL_STATUS_LABELS, TRIAL_TRANSITIONS, type TrialStatus } from './vocabulary';
-import { cookReadingProblems, type CookReadings, type CorrectMeasurementInput, type CreateTrialInput, type ManualVariantInput, type MeasurementInput, type PlanInput } from './schema';
+import { cookReadingProblems, cookValues, type CookReadings, type CorrectMeasurementInput, type CreateTrialInput, type ManualVariantInput, type MeasurementInput, type PlanInput } from './schema';
 
 /** A, B, … Z, AA, AB, … in creation order; A is always the base. */
 export function variantLabel(index: number): string {
@@ -219,13 +219,7 @@ export async function removeVariant(actor: Actor, trialId: string, variantId: st
 }
 
 export function measurementColumns(m: Omit<MeasurementInput, 'variantId'>) {
-  return {
-    cookDate: m.cookDate,
-    batchSizeG: m.batchSizeG ?? null, brixReading: m.brixReading ?? null, brixSampleTempC: m.brixSampleTempC ?? null,
-    ph: m.ph ?? null, endPointTempC: m.endPointTempC ?? null, boilTimeMin: m.boilTimeMin ?? null,
-    setTestScore: m.setTestScore ?? null, setTestMethod: m.setTestMethod ?? null, syneresis: m.syneresis ?? null,
-    colourNotes: m.colourNotes ?? null, yieldJars: m.yieldJars ?? null, yieldG: m.yieldG ?? null, notes: m.notes ?? null,
-  };
+  return { cookDate: m.cookDate, ...cookValues(m) };
 }
 
 export async function recordMeasurement(actor: Actor, trialId: string, input: MeasurementInput): Promise<{ measurementId: string }> {

@@ -4,7 +4,7 @@ import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
 import { computeFormula } from '@/lib/formulas/compute';
 import { compareCook } from './compare';
 import { trialCode } from './access';
-import type { CookChangeView, MeasurementView, StatusChangeView, TrialListQuery, TrialOverview, TrialSummary, VariantView } from './schema';
+import { cookValues, type CookChangeView, type MeasurementView, type StatusChangeView, type TrialListQuery, type TrialOverview, type TrialSummary, type VariantView } from './schema';
 
 type TrialRow = {
   id: string; number: number; title: string; question: string; status: TrialOverview['status'];
@@ -58,12 +58,7 @@ type ChangeRow = { measurement: { id: string }; kind: CookChangeView['kind']; be
 function toMeasurementView(m: MeasurementRow, v: VariantView, changeRows: ChangeRow[]): MeasurementView {
   const changes: CookChangeView[] = changeRows.map((c) => ({ kind: c.kind, reason: c.reason, byName: c.changedBy.name, at: c.changedAt.toISOString(), before: c.before }));
   const withdrawal = changes.find((c) => c.kind === 'withdrawn');
-  const readings = {
-    batchSizeG: m.batchSizeG ?? null, brixReading: m.brixReading ?? null, brixSampleTempC: m.brixSampleTempC ?? null, ph: m.ph ?? null,
-    endPointTempC: m.endPointTempC ?? null, boilTimeMin: m.boilTimeMin ?? null, setTestScore: m.setTestScore ?? null,
-    setTestMethod: m.setTestMethod ?? null, syneresis: m.syneresis ?? null, colourNotes: m.colourNotes ?? null,
-    yieldJars: m.yieldJars ?? null, yieldG: m.yieldG ?? null, notes: m.notes ?? null,
-  };
+  const readings = cookValues(m);
   return {
     id: m.id,
     variantId: m.variant.id,

@@ -140,6 +140,17 @@ export interface TrialSummary {
 
 export type CookReadings = Omit<MeasurementInput, 'variantId'>;
 
+/** Every stored value of a cook besides its date, in one list: storing, viewing and correcting copy exactly these. */
+export const COOK_VALUE_FIELDS = Object.keys(cookReadings).filter((k) => k !== 'cookDate') as Array<Exclude<keyof CookReadings, 'cookDate'>>;
+export type CookValues = { [K in (typeof COOK_VALUE_FIELDS)[number]]-?: NonNullable<CookReadings[K]> | null };
+
+/** The cook's values from anything that holds them, absent ones as null. */
+export function cookValues(m: Partial<Record<(typeof COOK_VALUE_FIELDS)[number], unknown>>): CookValues {
+  const out: Record<string, unknown> = {};
+  for (const f of COOK_VALUE_FIELDS) out[f] = m[f] ?? null;
+  return out as CookValues;
+}
+
 /** One correction or withdrawal of a cook; `before` holds the values it replaced. */
 export interface CookChangeView {
   kind: 'corrected' | 'withdrawn';
