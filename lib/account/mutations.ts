@@ -31,10 +31,10 @@ export async function acceptInvitation(input: AcceptInvitationInput): Promise<{ 
     );
     if (claimed !== 1) throw linkInvalid();
     const inv = await tx.findOneOrFail(Invitation, { tokenHash: hashSecret(input.token) });
-    const workspaceId = (inv.workspace as unknown as { id: string }).id;
+    const workspaceId = inv.workspace.id;
     let user = await tx.findOne(User, { email: inv.email });
     if (!user) {
-      user = tx.create(User, { email: inv.email, name: input.name, passwordHash } as never);
+      user = tx.create(User, { email: inv.email, name: input.name, passwordHash });
     } else if (!user.passwordHash) {
       user.passwordHash = passwordHash;
       user.name = input.name;
@@ -44,7 +44,7 @@ export async function acceptInvitation(input: AcceptInvitationInput): Promise<{ 
       existing.active = true;
       existing.role = inv.role;
     } else {
-      tx.create(Membership, { workspace: workspaceId, user, role: inv.role } as never);
+      tx.create(Membership, { workspace: workspaceId, user, role: inv.role });
     }
     await tx.flush();
     await tx.findOneOrFail(Workspace, { id: workspaceId });
@@ -66,7 +66,7 @@ export async function requestPasswordReset(email: string, address: string): Prom
     user,
     tokenHash: hashSecret(token),
     expiresAt: new Date(Date.now() + RESET_LIFETIME_MINUTES * 60_000),
-  } as never);
+  });
   await em.flush();
   const link = `${env().APP_URL}/reset-password/${token}`;
   await sendMail({
@@ -102,7 +102,7 @@ export async function resetPassword(input: ResetPasswordInput): Promise<void> {
     );
     if (claimed !== 1) throw linkInvalid();
     const reset = await tx.findOneOrFail(PasswordReset, { tokenHash: hashSecret(input.token) });
-    const userId = (reset.user as unknown as { id: string }).id;
+    const userId = reset.user.id;
     await tx.nativeUpdate(User, { id: userId }, { passwordHash });
     await tx.nativeUpdate(PasswordReset, { user: userId, usedAt: null }, { usedAt: now });
     await endSessions(tx, userId);

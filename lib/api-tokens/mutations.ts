@@ -17,7 +17,7 @@ export async function createToken(actor: Actor, input: { label: string }): Promi
     label: input.label,
     displayPrefix: secret.slice(0, 10),
     tokenHash: hashSecret(secret),
-  } as never) as unknown as TokenEntity;
+  }) as unknown as TokenEntity;
   await em.flush();
   return { ...toRow(token), secret };
 }

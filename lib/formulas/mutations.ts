@@ -15,18 +15,16 @@ import type { CreateFormulaInput, FormulaLineInputData, FormulaSettingsInput, Re
 export async function prepareRevision(actor: Actor, settings: FormulaSettingsInput, lines: FormulaLineInputData[]) {
   const library = await ingredientsByIds(actor, lines.map((l) => l.ingredientId));
   const fields: FieldErrors = {};
-  const stored: RevisionLine[] = lines.map((line, i) => {
+  const stored: RevisionLine[] = [];
+  lines.forEach((line, i) => {
     const ingredient = library.get(line.ingredientId);
     if (!ingredient) {
       fields[`lines.${i}.ingredientId`] = ['Choose an ingredient from this workspace’s library.'];
     } else if (ingredient.archived) {
       fields[`lines.${i}.ingredientId`] = [`${ingredient.name} is archived; restore it or pick another ingredient.`];
+    } else {
+      stored.push({ ingredientId: line.ingredientId, ingredient: compositionOf(ingredient), ...normaliseQuantity(line.quantity, line.unit) });
     }
-    return {
-      ingredientId: line.ingredientId,
-      ingredient: ingredient ? compositionOf(ingredient) : ({} as never),
-      ...normaliseQuantity(line.quantity, line.unit),
-    };
   });
   if (Object.keys(fields).length) throw new ValidationFailed('Some lines are not valid.', fields);
   const outcome = computeFormula(settings, stored);
@@ -52,7 +50,7 @@ export async function createFormula(actor: Actor, input: CreateFormulaInput): Pr
       latestRevision: 1,
       createdBy: actor.userId,
       updatedBy: actor.userId,
-    } as never) as unknown as { id: string };
+    });
     tx.create(FormulaRevision, {
       workspace: actor.workspaceId,
       formula,
@@ -63,7 +61,7 @@ export async function createFormula(actor: Actor, input: CreateFormulaInput): Pr
       note: input.note || 'First version',
       summary,
       createdBy: actor.userId,
-    } as never);
+    });
     await tx.flush();
     return { formulaId: formula.id, revision: 1 };
   });
@@ -83,7 +81,7 @@ export async function reviseFormula(actor: Actor, formulaId: string, input: Revi
     const formula = await tx.findOne(Formula, { ...inWorkspace(actor), id: formulaId, archivedAt: null }, { lockMode: LockMode.PESSIMISTIC_WRITE });
     if (!formula) throw notFound('formula');
     if (formula.latestRevision !== input.baseRevision && !input.force) {
-      const by = await tx.findOne(User, { id: (formula.updatedBy as unknown as { id: string }).id });
+      const by = await tx.findOne(User, { id: formula.updatedBy.id });
       throw new Conflict(
         `${by?.name ?? 'Someone'} saved revision ${formula.latestRevision} after you opened revision ${input.baseRevision}. Your changes are not saved yet; you can save them on top, and both versions stay in the history.`,
       );
@@ -100,7 +98,7 @@ export async function reviseFormula(actor: Actor, formulaId: string, input: Revi
       note: input.note || null,
       summary,
       createdBy: actor.userId,
-    } as never);
+    });
     formula.latestRevision = number;
     formula.name = name;
     formula.updatedBy = actor.userId as never;

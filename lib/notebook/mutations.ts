@@ -71,7 +71,7 @@ export async function saveEntry(actor: Actor, input: SaveNotebookInput): Promise
       doc: input.doc,
       baseVersion: input.baseVersion,
       savedBy: actor.userId,
-    } as never) as unknown as { id: string };
+    });
     await tx.flush();
     return {
       status: 'conflict' as const,

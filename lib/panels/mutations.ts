@@ -4,6 +4,7 @@ import { randomInt } from 'node:crypto';
 import { getEm } from '@/lib/db';
 import { LockMode } from '@mikro-orm/core';
 import { Membership, PanelSample, PanelSeat, PanelSession, SensoryAttributeDef, Trial, Variant } from '@/entities';
+import type { PanelSessionEntity } from '@/entities/PanelSession';
 import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
 import { Conflict, ValidationFailed } from '@/lib/errors';
 import { hashSecret, newSecret } from '@/lib/secrets';
@@ -22,7 +23,7 @@ export async function addDefaultAttributes(em: EntityManager, workspaceId: strin
     em.create(SensoryAttributeDef, {
       workspace: workspaceId, libraryKey: a.id, name: a.name, instruction: a.tasterInstruction, modality: a.modality, scale: a.scale,
       formulationCaution: a.formulationCaution ?? null,
-    } as never);
+    });
   }
   await em.flush();
 }
@@ -48,11 +49,11 @@ function setupColumns(input: CreatePanelInput) {
 }
 
 /** Draws the sample codes and the serving design for a tasting's variants. */
-async function drawSamples(tx: EntityManager, actor: Actor, session: { id: string; design: Record<string, unknown> }, input: CreatePanelInput): Promise<void> {
+async function drawSamples(tx: EntityManager, actor: Actor, session: PanelSessionEntity, input: CreatePanelInput): Promise<void> {
   // Rated and ranking samples carry one code each; triangle cups are coded per seat.
   const codes = input.method === 'triangle' ? [] : drawBlindingCodes(input.variantIds.length);
   const samples = input.variantIds.map((variantId, i) =>
-    tx.create(PanelSample, { workspace: actor.workspaceId, session, variant: variantId, code: codes[i] ?? null, position: i } as never) as unknown as { id: string },
+    tx.create(PanelSample, { workspace: actor.workspaceId, session, variant: variantId, code: codes[i] ?? null, position: i }),
   );
   await tx.flush();
   // Letters are assigned at random, so no variant is always served first in the design.
@@ -70,7 +71,7 @@ export async function createPanelSession(actor: Actor, trialId: string, input: C
   if (!trial) throw notFound('trial');
   await checkPanelInput(em, actor, trialId, input);
   return em.transactional(async (tx) => {
-    const session = tx.create(PanelSession, { workspace: actor.workspaceId, trial, ...setupColumns(input), design: {}, createdBy: actor.userId } as never) as unknown as { id: string; design: Record<string, unknown> };
+    const session = tx.create(PanelSession, { workspace: actor.workspaceId, trial, ...setupColumns(input), design: {}, createdBy: actor.userId });
     await tx.flush();
     await drawSamples(tx, actor, session, input);
     return { sessionId: session.id };
@@ -90,14 +91,14 @@ export async function updatePanelSession(actor: Actor, sessionId: string, input:
   const em = await getEm();
   const current = await em.findOne(PanelSession, { ...inWorkspace(actor), id: sessionId });
   if (!current) throw notFound('tasting');
-  const trialId = (current.trial as unknown as { id: string }).id;
+  const trialId = current.trial.id;
   await checkPanelInput(em, actor, trialId, input);
   await em.transactional(async (tx) => {
     const s = await loadDraftForUpdate(tx, actor, sessionId);
     await tx.nativeDelete(PanelSample, { session: s.id });
-    tx.assign(s, { ...setupColumns(input), design: {} } as never);
+    tx.assign(s, { ...setupColumns(input), design: {} });
     await tx.flush();
-    await drawSamples(tx, actor, s as unknown as { id: string; design: Record<string, unknown> }, input);
+    await drawSamples(tx, actor, s, input);
   });
 }
 
@@ -106,7 +107,7 @@ export async function discardPanelSession(actor: Actor, sessionId: string): Prom
   const em = await getEm();
   return em.transactional(async (tx) => {
     const s = await loadDraftForUpdate(tx, actor, sessionId);
-    const trialId = (s.trial as unknown as { id: string }).id;
+    const trialId = s.trial.id;
     await tx.nativeDelete(PanelSample, { session: s.id });
     await tx.nativeDelete(PanelSession, { id: s.id });
     return { trialId };
@@ -203,9 +204,9 @@ export async function addSeat(tx: EntityManager, sessionId: string, seat: { kind
   }
   const token = newSecret(SEAT_TOKEN_PREFIX);
   const row = tx.create(PanelSeat, {
-    workspace: (session.workspace as unknown as { id: string }).id, session, seatIndex, kind: seat.kind, user: seat.userId ?? null,
+    workspace: session.workspace.id, session, seatIndex, kind: seat.kind, user: seat.userId ?? null,
     displayName: seat.displayName, tokenHash: hashSecret(token), servingOrder, designRow,
-  } as never) as unknown as { id: string };
+  });
   await tx.flush();
   return { token, seatId: row.id };
 }
@@ -217,7 +218,7 @@ export async function inviteStaffTasters(actor: Actor, sessionId: string, userId
   const members = await em.find(Membership, { ...inWorkspace(actor), user: { $in: userIds }, active: true }, { populate: ['user'] });
   if (members.length !== new Set(userIds).size) throw new ValidationFailed('Invite members of this workspace.', { userIds: ['Invite active members of this workspace.'] });
   const already = await em.find(PanelSeat, { session: sessionId, user: { $in: userIds } });
-  const skip = new Set(already.map((s) => (s.user as unknown as { id: string }).id));
+  const skip = new Set(already.map((s) => s.user?.id));
   let invited = 0;
   for (const m of members) {
     const user = m.user as unknown as { id: string; name: string; email: string };
@@ -254,7 +255,7 @@ export async function createAttribute(actor: Actor, input: CreateAttributeInput)
   const row = em.create(SensoryAttributeDef, {
     workspace: actor.workspaceId, libraryKey: null, name: input.name, instruction: input.instruction,
     modality: input.scale === 'hedonic' ? 'liking' : input.scale === 'jar' ? 'just-about-right' : 'intensity', scale,
-  } as never) as unknown as { id: string };
+  });
   await em.flush();
   return { attributeId: row.id };
 }

@@ -53,7 +53,7 @@ export async function listPanelSessions(actor: Actor, trialId?: string) {
   const rows = (await em.find(PanelSession, { ...inWorkspace(actor), ...(trialId ? { trial: trialId } : {}) }, { orderBy: { createdAt: 'desc' } })) as unknown as SessionRow[];
   const seats = rows.length ? await em.find(PanelSeat, { session: { $in: rows.map((r) => r.id) } }, { fields: ['session', 'submittedAt'] }) : [];
   return rows.map((r) => {
-    const mine = seats.filter((s) => (s.session as unknown as { id: string }).id === r.id);
+    const mine = seats.filter((s) => s.session.id === r.id);
     return { id: r.id, trialId: r.trial.id, title: r.title, method: r.method, state: r.state, seats: mine.length, submitted: mine.filter((s) => s.submittedAt).length, createdAt: r.createdAt.toISOString() };
   });
 }
@@ -64,7 +64,7 @@ export async function loadPanelSessionRows(actor: Actor, sessionId: string) {
   const s = (await em.findOne(PanelSession, { ...inWorkspace(actor), id: sessionId })) as unknown as SessionRow | null;
   if (!s) throw notFound('tasting');
   const samples = await em.find(PanelSample, { session: s.id }, { orderBy: { position: 'asc' } });
-  const variants = await em.find(Variant, { id: { $in: samples.map((x) => (x.variant as unknown as { id: string }).id) } });
+  const variants = await em.find(Variant, { id: { $in: samples.map((x) => x.variant.id) } });
   const attrIds = [...s.attributeIds, ...(s.rankingAttributeId ? [s.rankingAttributeId] : [])];
   const attrs = attrIds.length ? await em.find(SensoryAttributeDef, { id: { $in: attrIds } }) : [];
   const seats = await em.find(PanelSeat, { session: s.id }, { orderBy: { seatIndex: 'asc' } });
@@ -78,12 +78,12 @@ export async function getPanelSession(actor: Actor, sessionId: string): Promise<
 }
 
 /** The organiser's view of a session from its rows; `answers` need only their seat. */
-export function panelSessionView({ s, samples, variants, attrs, seats }: Awaited<ReturnType<typeof loadPanelSessionRows>>, answers: ReadonlyArray<{ seat: unknown }>): PanelSessionView {
+export function panelSessionView({ s, samples, variants, attrs, seats }: Awaited<ReturnType<typeof loadPanelSessionRows>>, answers: ReadonlyArray<{ seat: { id: string } }>): PanelSessionView {
   const vById = new Map(variants.map((v) => [v.id, v]));
   const attrIds = [...s.attributeIds, ...(s.rankingAttributeId ? [s.rankingAttributeId] : [])];
   const countBySeat = new Map<string, number>();
   for (const a of answers) {
-    const id = (a.seat as unknown as { id: string }).id;
+    const id = a.seat.id;
     countBySeat.set(id, (countBySeat.get(id) ?? 0) + 1);
   }
   const expectedFor = (cups: number) => (s.method === 'rated' ? cups * s.attributeIds.length : 1);
@@ -98,7 +98,7 @@ export function panelSessionView({ s, samples, variants, attrs, seats }: Awaited
     notice: s.notice,
     joinCode: s.joinCode ?? null,
     samples: samples.map((x) => {
-      const v = vById.get((x.variant as unknown as { id: string }).id)!;
+      const v = vById.get(x.variant.id)!;
       return { sampleId: x.id, variantId: v.id, variantLabel: v.label, variantDescription: v.description, code: x.code ?? null };
     }),
     attributes: attrIds.map((id) => attrs.find((a) => a.id === id)).filter((a): a is NonNullable<typeof a> => !!a).map((a) => ({ id: a.id, name: a.name })),
@@ -160,7 +160,7 @@ export async function listTastings(actor: Actor, filter: { state?: PanelState; t
   )) as unknown as Array<SessionRow & { trial: { id: string; number: number; title: string } }>;
   const seats = rows.length ? await em.find(PanelSeat, { ...inWorkspace(actor), session: { $in: rows.map((r) => r.id) } }, { fields: ['session', 'submittedAt'] }) : [];
   return rows.map((r) => {
-    const mine = seats.filter((s) => (s.session as unknown as { id: string }).id === r.id);
+    const mine = seats.filter((s) => s.session.id === r.id);
     return {
       id: r.id, title: r.title, method: r.method, state: r.state, place: r.place ?? null, startsAt: r.startsAt ? r.startsAt.toISOString() : null,
       trial: { id: r.trial.id, code: trialCode(r.trial.number), title: r.trial.title },

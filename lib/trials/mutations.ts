@@ -62,7 +62,7 @@ export async function createTrial(actor: Actor, input: CreateTrialInput): Promis
       owner: actor.userId,
       baseFormula: formula.id,
       baseRevision: number,
-    } as never) as unknown as { id: string; number: number };
+    });
     tx.create(Variant, {
       workspace: actor.workspaceId,
       trial,
@@ -75,8 +75,8 @@ export async function createTrial(actor: Actor, input: CreateTrialInput): Promis
       summary: revision.summary,
       position: 0,
       createdBy: actor.userId,
-    } as never);
-    tx.create(TrialStatusChange, { workspace: actor.workspaceId, trial, fromStatus: null, toStatus: 'planning', changedBy: actor.userId } as never);
+    });
+    tx.create(TrialStatusChange, { workspace: actor.workspaceId, trial, fromStatus: null, toStatus: 'planning', changedBy: actor.userId });
     await tx.flush();
     return { trialId: trial.id, code: `T-${String(trial.number).padStart(3, '0')}` };
   });
@@ -90,7 +90,7 @@ export async function transitionTrial(actor: Actor, trialId: string, to: TrialSt
     if (!TRIAL_TRANSITIONS[from].includes(to)) {
       throw new Conflict(`A trial that is “${TRIAL_STATUS_LABELS[from]}” cannot move to “${TRIAL_STATUS_LABELS[to]}”.`);
     }
-    tx.create(TrialStatusChange, { workspace: actor.workspaceId, trial, fromStatus: trial.status, toStatus: to, note: note || null, changedBy: actor.userId } as never);
+    tx.create(TrialStatusChange, { workspace: actor.workspaceId, trial, fromStatus: trial.status, toStatus: to, note: note || null, changedBy: actor.userId });
     trial.status = to;
     trial.updatedAt = new Date();
     await tx.flush();
@@ -172,7 +172,7 @@ export async function planVariants(actor: Actor, trialId: string, plan: PlanInpu
         summary: summarise(base.settings, lines),
         position: existing + i,
         createdBy: actor.userId,
-      } as never);
+      });
       created.push(label);
     });
     trial.updatedAt = new Date();
@@ -197,7 +197,7 @@ export async function addVariant(actor: Actor, trialId: string, input: ManualVar
     const v = tx.create(Variant, {
       workspace: actor.workspaceId, trial, label, isBase: false, description: input.description, factorLevels: [],
       settings, lines: stored, summary, position, createdBy: actor.userId,
-    } as never) as unknown as { id: string };
+    });
     trial.updatedAt = new Date();
     await tx.flush();
     return { variantId: v.id, label };
@@ -230,7 +230,7 @@ export async function recordMeasurement(actor: Actor, trialId: string, input: Me
   if (!variant) throw new ValidationFailed('Choose a variant of this trial.', { variantId: ['Choose a variant of this trial.'] });
   const { variantId: _ignored, ...rest } = input;
   void _ignored;
-  const m = em.create(Measurement, { workspace: actor.workspaceId, variant, recordedBy: actor.userId, ...measurementColumns(rest) } as never) as unknown as { id: string };
+  const m = em.create(Measurement, { workspace: actor.workspaceId, variant, recordedBy: actor.userId, ...measurementColumns(rest) });
   trial.updatedAt = new Date();
   await em.flush();
   return { measurementId: m.id };
@@ -266,7 +266,7 @@ export async function correctMeasurement(actor: Actor, trialId: string, measurem
       if (next[key] !== stored[key]) (before as Record<string, unknown>)[key] = stored[key];
     }
     if (!Object.keys(before).length) throw new ValidationFailed('Nothing changed: the cook already reads like that.', { readings: ['Change at least one value.'] });
-    tx.create(MeasurementChange, { workspace: actor.workspaceId, measurement: m, kind: 'corrected', before, reason, changedBy: actor.userId } as never);
+    tx.create(MeasurementChange, { workspace: actor.workspaceId, measurement: m, kind: 'corrected', before, reason, changedBy: actor.userId });
     tx.assign(m, next);
     await touchTrial(tx, actor, trialId);
     await tx.flush();
@@ -278,7 +278,7 @@ export async function withdrawMeasurement(actor: Actor, trialId: string, measure
   const em = await getEm();
   await em.transactional(async (tx) => {
     const m = await loadCookForChange(tx, actor, trialId, measurementId);
-    tx.create(MeasurementChange, { workspace: actor.workspaceId, measurement: m, kind: 'withdrawn', before: {}, reason, changedBy: actor.userId } as never);
+    tx.create(MeasurementChange, { workspace: actor.workspaceId, measurement: m, kind: 'withdrawn', before: {}, reason, changedBy: actor.userId });
     m.withdrawnAt = new Date();
     await touchTrial(tx, actor, trialId);
     await tx.flush();

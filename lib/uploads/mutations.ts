@@ -68,7 +68,7 @@ export async function createUpload(actor: Actor, input: CreateUploadInput, limit
       width: inspected.width,
       height: inspected.height,
       uploadedBy: actor.userId,
-    } as never);
+    });
     await em.flush();
     return toUploadView(row as never, actor.name);
   } catch (err) {
