@@ -4,13 +4,9 @@ import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
 import { computeFormula } from '@/lib/formulas/compute';
 import { compareCook } from './compare';
 import { trialCode } from './access';
-import { cookValues, type CookChangeView, type MeasurementView, type StatusChangeView, type TrialListQuery, type TrialOverview, type TrialSummary, type VariantView } from './schema';
-
-type TrialRow = {
-  id: string; number: number; title: string; question: string; status: TrialOverview['status'];
-  owner: { id: string; name: string }; baseFormula: { id: string; name: string }; baseRevision: number;
-  createdAt: Date; updatedAt: Date;
-};
+import type { Loaded } from '@mikro-orm/core';
+import type { MeasurementEntity } from '@/entities/Measurement';
+import { cookValues, type CookChangeView, type MeasurementView, type TrialListQuery, type TrialOverview, type TrialSummary, type VariantView } from './schema';
 
 export async function listTrials(actor: Actor, query: TrialListQuery = {}): Promise<TrialSummary[]> {
   const em = await getEm();
@@ -25,12 +21,12 @@ export async function listTrials(actor: Actor, query: TrialListQuery = {}): Prom
     };
   }
   if (query.q?.trim()) where.title = { $ilike: `%${query.q.trim().replace(/[%_\\]/g, (c) => `\\${c}`)}%` };
-  const trials = (await em.find(Trial, where, { populate: ['owner', 'baseFormula'], orderBy: { updatedAt: 'desc' }, limit: 500 })) as unknown as TrialRow[];
+  const trials = (await em.find(Trial, where, { populate: ['owner', 'baseFormula'], orderBy: { updatedAt: 'desc' }, limit: 500 }));
   if (!trials.length) return [];
   const variants = await em.find(Variant, { ...inWorkspace(actor), trial: { $in: trials.map((t) => t.id) }, removedAt: null }, { fields: ['trial', 'settings', 'isBase'] });
   const counts = new Map<string, number>();
   const productOf = new Map<string, TrialSummary['productClass']>();
-  for (const v of variants as unknown as Array<{ trial: { id: string }; settings: { productClass: TrialSummary['productClass'] }; isBase: boolean }>) {
+  for (const v of variants) {
     counts.set(v.trial.id, (counts.get(v.trial.id) ?? 0) + 1);
     if (v.isBase) productOf.set(v.trial.id, v.settings.productClass);
   }
@@ -51,8 +47,7 @@ export async function listTrials(actor: Actor, query: TrialListQuery = {}): Prom
     .filter((t) => !query.product || t.productClass === query.product);
 }
 
-type VariantRow = Omit<VariantView, 'computation' | 'computationError' | 'measurements'> & { trial: { id: string } };
-type MeasurementRow = Omit<MeasurementView, 'withdrawn' | 'changes'> & { variant: { id: string }; recordedBy: { name: string }; createdAt: Date; cookDate: string; withdrawnAt?: Date | null };
+type MeasurementRow = Loaded<MeasurementEntity, 'recordedBy'>;
 type ChangeRow = { measurement: { id: string }; kind: CookChangeView['kind']; before: CookChangeView['before']; reason: string; changedBy: { name: string }; changedAt: Date };
 
 function toMeasurementView(m: MeasurementRow, v: VariantView, changeRows: ChangeRow[]): MeasurementView {
@@ -75,14 +70,14 @@ function toMeasurementView(m: MeasurementRow, v: VariantView, changeRows: Change
 /** Variants with their recomputed chemistry and every cook beside its prediction. */
 export async function listVariants(actor: Actor, trialId: string): Promise<VariantView[]> {
   const em = await getEm();
-  const rows = (await em.find(Variant, { ...inWorkspace(actor), trial: trialId, removedAt: null }, { orderBy: { position: 'asc' } })) as unknown as VariantRow[];
+  const rows = (await em.find(Variant, { ...inWorkspace(actor), trial: trialId, removedAt: null }, { orderBy: { position: 'asc' } }));
   const measurements = (await em.find(
     Measurement,
     { ...inWorkspace(actor), variant: { $in: rows.map((r) => r.id) } },
     { populate: ['recordedBy'], orderBy: { cookDate: 'asc', createdAt: 'asc' } },
-  )) as unknown as MeasurementRow[];
+  ));
   const changeRows = measurements.length
-    ? ((await em.find(MeasurementChange, { ...inWorkspace(actor), measurement: { $in: measurements.map((m) => m.id) } }, { populate: ['changedBy'], orderBy: { changedAt: 'asc' } })) as unknown as ChangeRow[])
+    ? ((await em.find(MeasurementChange, { ...inWorkspace(actor), measurement: { $in: measurements.map((m) => m.id) } }, { populate: ['changedBy'], orderBy: { changedAt: 'asc' } })))
     : [];
   return rows.map((r) => {
     const outcome = computeFormula(r.settings, r.lines);
@@ -109,11 +104,9 @@ export async function listVariants(actor: Actor, trialId: string): Promise<Varia
 
 export async function getTrialOverview(actor: Actor, trialId: string): Promise<TrialOverview> {
   const em = await getEm();
-  const t = (await em.findOne(Trial, { ...inWorkspace(actor), id: trialId }, { populate: ['owner', 'baseFormula'] })) as unknown as TrialRow | null;
+  const t = (await em.findOne(Trial, { ...inWorkspace(actor), id: trialId }, { populate: ['owner', 'baseFormula'] }));
   if (!t) throw notFound('trial');
-  const history = (await em.find(TrialStatusChange, { ...inWorkspace(actor), trial: trialId }, { populate: ['changedBy'], orderBy: { changedAt: 'asc' } })) as unknown as Array<{
-    fromStatus?: StatusChangeView['from']; toStatus: StatusChangeView['to']; note?: string | null; changedBy: { name: string }; changedAt: Date;
-  }>;
+  const history = (await em.find(TrialStatusChange, { ...inWorkspace(actor), trial: trialId }, { populate: ['changedBy'], orderBy: { changedAt: 'asc' } }));
   return {
     id: t.id,
     code: trialCode(t.number),
@@ -153,9 +146,9 @@ export async function trialsAtTheStove(actor: Actor): Promise<StoveItem[]> {
   const em = await getEm();
   const trials = await em.find(Trial, { ...inWorkspace(actor), owner: actor.userId, status: 'cooking' }, { orderBy: { updatedAt: 'desc' }, limit: 50 });
   if (!trials.length) return [];
-  const variants = (await em.find(Variant, { ...inWorkspace(actor), trial: { $in: trials.map((t) => t.id) }, removedAt: null }, { orderBy: { position: 'asc' }, fields: ['trial', 'label'] })) as unknown as Array<{ id: string; label: string; trial: { id: string } }>;
+  const variants = (await em.find(Variant, { ...inWorkspace(actor), trial: { $in: trials.map((t) => t.id) }, removedAt: null }, { orderBy: { position: 'asc' }, fields: ['trial', 'label'] }));
   const cooked = variants.length
-    ? new Set(((await em.find(Measurement, { ...inWorkspace(actor), variant: { $in: variants.map((v) => v.id) }, withdrawnAt: null }, { fields: ['variant'] })) as unknown as Array<{ variant: { id: string } }>).map((m) => m.variant.id))
+    ? new Set(((await em.find(Measurement, { ...inWorkspace(actor), variant: { $in: variants.map((v) => v.id) }, withdrawnAt: null }, { fields: ['variant'] }))).map((m) => m.variant.id))
     : new Set<string>();
   return trials.map((t) => ({
     id: t.id, code: trialCode(t.number), title: t.title,
