@@ -1,8 +1,8 @@
 /**
  * The ingredient library in and out as CSV. One column table serves both ways, so an exported file
  * imports back unchanged. Import is all-or-nothing: every row is checked first, errors are reported
- * by row and column, and nothing lands unless every row is good. A row whose name matches an
- * ingredient of the library (ignoring case) replaces that ingredient's values; any other row adds one.
+ * by row and column, and nothing lands unless every row is good. A row replaces the values of the
+ * ingredient its id names or, without an id, the one its name matches (ignoring case); any other row adds one.
  */
 import Papa from 'papaparse';
 import { z } from 'zod';
@@ -51,6 +51,8 @@ function label(header: string, field: string, out: (v: IngredientView) => Cell, 
 }
 
 export const INGREDIENT_CSV_COLUMNS: Column[] = [
+  // Read by the import itself: which ingredient a row replaces (blank: matched by name, or added).
+  { header: 'id', out: (v) => v.id },
   { header: 'name', out: (v) => v.name, path: 'name', in: (raw, c) => { c.name = raw; return null; } },
   { header: 'kind', out: (v) => v.kind, path: 'kind', in: (raw, c) => { c.kind = raw; return null; } },
   numeric('soluble_solids_pct', 'solidsPct', (v) => v.solidsPct),
@@ -117,11 +119,17 @@ function candidateOf(v: IngredientView | undefined): Candidate {
   return { ...values, labelData: { ...labelData, nutrients: { ...labelData.nutrients } }, eNumber: additive?.eNumber ?? '', additiveClass: additive?.functionalClass ?? '' };
 }
 
+/** A checked row and the library ingredient it replaces (null: a new one). */
+export interface IngredientCsvRow {
+  ingredientId: string | null;
+  input: IngredientInput;
+}
+
 /**
  * Pure: the file's rows as checked ingredient inputs, or every error found (then no rows). A row
  * naming an ingredient of `library` starts from its values: only the file's columns change it.
  */
-export function parseIngredientCsv(text: string, library: IngredientView[] = []): { rows: IngredientInput[]; errors: CsvRowError[] } {
+export function parseIngredientCsv(text: string, library: IngredientView[] = []): { rows: IngredientCsvRow[]; errors: CsvRowError[] } {
   const parsed = Papa.parse<Record<string, string>>(text.replace(/^\uFEFF/, ''), { header: true, skipEmptyLines: 'greedy', transformHeader: (h) => h.trim().toLowerCase() });
   const errors: CsvRowError[] = [];
   const headers = parsed.meta.fields ?? [];
@@ -136,12 +144,25 @@ export function parseIngredientCsv(text: string, library: IngredientView[] = [])
 
   const columns = INGREDIENT_CSV_COLUMNS.filter((c) => c.in && headers.includes(c.header));
   const byPath = new Map(INGREDIENT_CSV_COLUMNS.filter((c) => c.path).map((c) => [c.path!, c.header]));
-  const rows: IngredientInput[] = [];
+  const rows: IngredientCsvRow[] = [];
   const seen = new Map<string, number>();
-  const byName = new Map(library.map((v) => [v.name.toLowerCase(), v]));
+  const byId = new Map(library.map((v) => [v.id, v]));
+  const byName = new Map<string, IngredientView[]>();
+  for (const v of library) byName.set(v.name.toLowerCase(), [...(byName.get(v.name.toLowerCase()) ?? []), v]);
   parsed.data.forEach((record, i) => {
     const rowNumber = i + 2; // the header is row 1, as a spreadsheet shows it
-    const candidate = candidateOf(byName.get((record.name ?? '').trim().toLowerCase()));
+    const id = (record.id ?? '').trim();
+    const named = byName.get((record.name ?? '').trim().toLowerCase()) ?? [];
+    const target = id ? byId.get(id) : named.length === 1 ? named[0] : undefined;
+    if (id && !target) {
+      errors.push({ row: rowNumber, column: 'id', message: 'No ingredient of this library has this id; leave it blank to add one.' });
+      return;
+    }
+    if (!id && named.length > 1) {
+      errors.push({ row: rowNumber, column: 'name', message: `${named.length} ingredients are called “${named[0].name}”: give the id column to say which.` });
+      return;
+    }
+    const candidate = candidateOf(target);
     let rowOk = true;
     for (const col of columns) {
       const problem = col.in!((record[col.header] ?? '').trim(), candidate);
@@ -162,11 +183,11 @@ export function parseIngredientCsv(text: string, library: IngredientView[] = [])
       }
       return;
     }
-    const key = result.data.name.toLowerCase();
+    const key = target ? target.id : result.data.name.toLowerCase();
     const first = seen.get(key);
-    if (first) errors.push({ row: rowNumber, column: 'name', message: `“${result.data.name}” is already in row ${first}.` });
+    if (first) errors.push({ row: rowNumber, column: target ? 'id' : 'name', message: `Row ${first} already gives this ingredient.` });
     else seen.set(key, rowNumber);
-    rows.push(result.data);
+    rows.push({ ingredientId: target?.id ?? null, input: result.data });
   });
   return { rows: errors.length ? [] : rows, errors };
 }

@@ -87,8 +87,8 @@ function sameValues(row: IngredientEntity, input: IngredientInput): boolean {
 
 /**
  * All-or-nothing CSV import: every row is checked before anything is written, then one transaction
- * replaces the values of the ingredients named (ignoring case; archived ones too, so none is
- * duplicated) and adds the rest as the workspace's own.
+ * replaces the values of the ingredients the rows name (by id, or by name ignoring case; archived
+ * ones too, so none is duplicated) and adds the rest as the workspace's own.
  */
 export async function importIngredientsCsv(actor: Actor, text: string): Promise<{ created: number; updated: number; unchanged: number }> {
   const { rows, errors } = parseIngredientCsv(text, await listIngredients(actor, { archived: 'include' }));
@@ -99,13 +99,13 @@ export async function importIngredientsCsv(actor: Actor, text: string): Promise<
   }
   const em = await getEm();
   return em.transactional(async (tx) => {
-    const existing = await tx.find(Ingredient, { ...inWorkspace(actor) });
-    const byName = new Map(existing.map((r) => [r.name.toLowerCase(), r]));
+    const ids = rows.flatMap((r) => (r.ingredientId ? [r.ingredientId] : []));
+    const existing = new Map((await tx.find(Ingredient, { ...inWorkspace(actor), id: { $in: ids } })).map((r) => [r.id, r]));
     let created = 0;
     let updated = 0;
     let unchanged = 0;
-    for (const input of rows) {
-      const row = byName.get(input.name.toLowerCase());
+    for (const { ingredientId, input } of rows) {
+      const row = ingredientId ? existing.get(ingredientId) : undefined;
       if (row && sameValues(row, input)) unchanged++;
       else if (row) {
         assignRow(row, actor, input);

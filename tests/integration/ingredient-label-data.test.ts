@@ -9,6 +9,7 @@ import * as importRoute from '@/app/api/v1/ingredients/import/route';
 import { saveIngredientAction } from '@/lib/ingredients/actions';
 import { getEm, getOrm } from '@/lib/db';
 import { STARTER_LABEL_DATA } from '@/lib/ingredients/starter-composition';
+import { Migration20261203140000 } from '@/migrations/Migration20261203140000';
 
 let a: WorkspaceFixture;
 const dev = () => ({ kind: 'session' as const, person: a.people.developer });
@@ -60,7 +61,7 @@ describe('label data through the API', () => {
     ['a bidi override in the source', { source: 'sheet \u202E4' }, 'labelData.source'],
     ['a prototype-named allergen', { euAllergens: ['__proto__'] }, 'labelData.euAllergens.0'],
     ['an unknown allergen', { usAllergens: ['celery'] }, 'labelData.usAllergens.0'],
-    ['a bad E-number', { additive: { eNumber: 'E4400x', functionalClass: 'gelling_agent' } }, 'labelData.additive.eNumber'],
+    ['a bad E-number', { additive: { eNumber: 'E44a', functionalClass: 'gelling_agent' } }, 'labelData.additive.eNumber'],
     ['a number past 2^53', { nutrients: { sodiumMg: 2 ** 53 + 2 } }, 'labelData.nutrients.sodiumMg'],
     ['parts over their whole', { nutrients: { waterG: 95, carbohydrateG: 9 } }, 'labelData.nutrients.waterG'],
     ['an unknown nutrient', { nutrients: { vitaminC: 3 } }, 'labelData.nutrients'],
@@ -141,6 +142,8 @@ describe('CSV', () => {
     expect(res.status).toBe(422);
     expect(Object.keys(res.body.error.fields).sort()).toEqual(['row 3, fat_g', 'row 4, eu_allergens', 'row 5, e_number', 'row 6, label_name', 'row 7, name'].sort());
     expect(await libraryChecksum(a.workspaceId)).toBe(before);
+    const stranger = await importCsv('id,name,kind,soluble_solids_pct\n00000000-0000-4000-8000-000000000000,X,fruit,1\n');
+    expect(Object.keys(stranger.body.error.fields)).toEqual(['row 2, id']);
     const unknown = await importCsv('name,kind,soluble_solids_pct,__proto__\nX,fruit,1,2\n');
     expect(unknown.status).toBe(422);
     expect(Object.keys(unknown.body.error.fields)).toEqual(['row 1, __proto__']);
@@ -153,13 +156,24 @@ describe('migration Migration20261203140000', () => {
     const em = await getEm();
     const ids = await starterIds(fx);
     const custom = await callRoute(ingredientsRoute.POST, { method: 'POST', path: '/api/v1/ingredients', caller: { kind: 'session', person: fx.people.developer }, body: { name: 'Own quince', kind: 'fruit', solidsPct: 13 } });
-    const migrator = (await getOrm()).getMigrator();
-    await migrator.down({ migrations: ['Migration20261203140000'] });
+    // The migration's own statements, down then up, as the migrator runs them (in one transaction each).
+    const orm = await getOrm();
+    const migration = new Migration20261203140000(orm.em.getDriver(), orm.config);
+    const run = async (step: 'up' | 'down') => {
+      migration.reset();
+      await migration[step]();
+      await em.transactional(async (tx) => {
+        for (const q of migration.getQueries()) await tx.execute(q as string);
+      });
+    };
+    await run('down');
     try {
       const gone = await em.getConnection().execute(`select count(*) as n from ingredients where workspace_id = ? and typical_key = 'potassium_sorbate'`, [fx.workspaceId]);
       expect(Number(gone[0].n)).toBe(0);
+      const columns = await em.getConnection().execute(`select count(*) as n from information_schema.columns where table_name = 'ingredients' and column_name = 'water_g'`);
+      expect(Number(columns[0].n)).toBe(0);
     } finally {
-      await migrator.up({ migrations: ['Migration20261203140000'] });
+      await run('up');
     }
     const rows = await em.getConnection().execute(`select id, typical_key, origin, water_g, sugars_g, sucrose_g, e_number, additive_class, composition_source, is_added_water from ingredients where workspace_id = ?`, [fx.workspaceId]);
     const byKey = new Map(rows.map((r: Record<string, unknown>) => [r.typical_key, r]));
