@@ -7,7 +7,8 @@ import { Button } from '@/components/ui/Button';
 import { Field, FieldErrorText, SelectField, inputClass } from '@/components/ui/Field';
 import { Notice } from '@/components/ui/Notice';
 import { saveIngredientAction } from '@/lib/ingredients/actions';
-import { readDecimal } from '@/lib/format/numbers';
+import { readFieldNumber } from '@/lib/format/numbers';
+import { LabelDataFields, labelFieldKeys, readLabelData } from './LabelDataFields';
 import {
   ACID_TYPES,
   EU_FRUIT_GROUPS,
@@ -71,12 +72,6 @@ function options<T extends string>(values: readonly T[], labels: Record<T, strin
   return emptyLabel ? [{ value: '', label: emptyLabel }, ...list] : list;
 }
 
-/** "6,5" and "6.5" both mean 6.5; an empty box means "not given". */
-function parseNumber(raw: FormDataEntryValue | null): { value: number | null; valid: boolean } {
-  const value = readDecimal(typeof raw === 'string' ? raw : '');
-  return value !== null && Number.isNaN(value) ? { value: null, valid: false } : { value, valid: true };
-}
-
 function text(raw: FormDataEntryValue | null): string {
   return typeof raw === 'string' ? raw : '';
 }
@@ -104,7 +99,7 @@ export function buildIngredientInput(form: FormData, kind: Kind): { data: Ingred
       numbers[field] = null;
       continue;
     }
-    const parsed = parseNumber(form.get(field));
+    const parsed = readFieldNumber(form.get(field));
     if (!parsed.valid) errors[field] = [`${NUMBER_LABELS[field]} must be a number.`];
     numbers[field] = parsed.value;
   }
@@ -114,6 +109,8 @@ export function buildIngredientInput(form: FormData, kind: Kind): { data: Ingred
     choices[field] = value === '' ? null : value;
   }
   const notes = text(form.get('notes')).trim();
+  const label = readLabelData(form);
+  Object.assign(errors, label.errors);
   const data = {
     name: text(form.get('name')).trim(),
     kind,
@@ -126,6 +123,7 @@ export function buildIngredientInput(form: FormData, kind: Kind): { data: Ingred
     ...choices,
     calciumSource: applies.has('calciumSource') ? form.get('calciumSource') === 'on' : false,
     notes: notes === '' ? null : notes,
+    labelData: label.data,
   } as IngredientInput;
   return { data, errors };
 }
@@ -162,7 +160,7 @@ export function IngredientForm({ initial, onSavedHref = '/ingredients' }: { init
       const fields = stripFieldPrefix(result.fields);
       setErrors(fields);
       // Errors not tied to a visible field (e.g. an unknown id) still need to be seen.
-      const visible = new Set<string>([...ALWAYS_SHOWN, ...KIND_FIELDS[kind]]);
+      const visible = new Set<string>([...ALWAYS_SHOWN, ...KIND_FIELDS[kind], ...labelFieldKeys()]);
       const unplaced = Object.entries(fields).filter(([key]) => !visible.has(key)).flatMap(([, m]) => m);
       if (!Object.keys(fields).length || unplaced.length) setFormError(unplaced.length ? unplaced.join(' ') : result.error);
     });
@@ -259,6 +257,8 @@ export function IngredientForm({ initial, onSavedHref = '/ingredients' }: { init
           <FieldErrorText id={`${id('calciumSource')}-err`} errors={errors.calciumSource} />
         </div>
       ) : null}
+
+      <LabelDataFields initial={initial?.labelData} errors={errors} idPrefix={idPrefix} />
 
       <div>
         <label htmlFor={id('notes')} className="mb-1 block text-sm font-medium text-rind-700">Notes</label>

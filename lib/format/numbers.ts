@@ -22,3 +22,9 @@ export function readOptionalDecimal(text: string): number | null {
   const n = readDecimal(text);
   return n === null || Number.isNaN(n) ? null : n;
 }
+
+/** A form field's number: blank is "not given" (valid, null); anything unreadable is invalid. */
+export function readFieldNumber(raw: unknown): { value: number | null; valid: boolean } {
+  const value = readDecimal(typeof raw === 'string' ? raw : '');
+  return value !== null && Number.isNaN(value) ? { value: null, valid: false } : { value, valid: true };
+}
