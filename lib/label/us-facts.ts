@@ -128,8 +128,9 @@ export function usGramAmount(value: number): UsAmount {
 }
 
 /**
- * % DV from the amount before rounding (21 CFR 101.9(d)(7)(ii) allows either the declared or the
- * actual amount — memory), to the nearest 1 %.
+ * % DV to the nearest 1 %. 21 CFR 101.9(d)(7)(ii) lets it be computed from the declared amount or
+ * the actual one (memory); we use the declared amount so "0 g" never sits beside "1 %", and the
+ * actual amount where the declaration is "less than 1 g".
  */
 export function usDailyValuePct(amount: number, dailyValue: number): number {
   return roundToStep((amount / dailyValue) * 100, 1);
@@ -197,7 +198,7 @@ function facts(spec: RowSpec, servingG: number): UsFactsRow {
     unit: spec.unit,
     amount,
     label: amount?.label ?? 'not known',
-    dailyValuePct: amount !== null && spec.dailyValue !== null ? usDailyValuePct(amount.value, spec.dailyValue) : null,
+    dailyValuePct: amount !== null && spec.dailyValue !== null ? usDailyValuePct(amount.labelValue ?? amount.value, spec.dailyValue) : null,
     unknownFrom,
     incomplete: unknownFrom.length > 0,
     note: spec.missingReason ?? incompleteNote(unknownFrom),
