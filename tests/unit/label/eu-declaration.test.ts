@@ -2,7 +2,7 @@ import { describe, it, expect } from 'vitest';
 import { finishedNutrients } from '@/lib/label/nutrition';
 import { availableCarbohydrate, euDeclaration, euEnergyAmounts, euGramAmount, type EuDeclaration } from '@/lib/label/eu-declaration';
 import type { FinishedNutrients, NutrientValues } from '@/lib/label/types';
-import { CITRIC_ACID_NOTHING, NO_FIGURES, SR28, apricotJam, strawberryJam } from './nutrition-fixtures';
+import { CITRIC_ACID_NOTHING, NO_FIGURES, SR28, apricotJam, strawberryJam } from './fixtures';
 
 // REF = /work/shared/nutrition-references.md; GUIDANCE = European Commission, December 2012,
 // "Guidance document for competent authorities … setting of tolerances for nutrient values

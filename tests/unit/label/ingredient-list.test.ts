@@ -2,8 +2,8 @@ import { describe, expect, it } from 'vitest';
 import { additiveListName, fruitIndication, ingredientList } from '@/lib/label/ingredient-list';
 import {
   CITRIC, LABEL, PECTIN, RASPBERRY, REDCURRANT, STRAWBERRY, SUCROSE, WATER, labelData, labelInputFrom, labelSettings,
-} from './fixtures';
-import type { TestLine } from './fixtures';
+} from './text-fixtures';
+import type { TestLine } from './text-fixtures';
 
 const strawberry = (grams: number): TestLine => ({ composition: STRAWBERRY, label: LABEL.strawberry, grams });
 const sugar = (grams: number): TestLine => ({ composition: SUCROSE, label: LABEL.sugar, grams });

@@ -2,7 +2,7 @@ import { describe, it, expect } from 'vitest';
 import { ChemistryInputError } from '@/lib/chemistry';
 import { finishedNutrients } from '@/lib/label/nutrition';
 import type { LabelInput } from '@/lib/label/types';
-import { CITRIC_ACID_NOTHING, NO_FIGURES, SR28, apricotJam, labelData, labelInput, line, strawberryJam } from './nutrition-fixtures';
+import { CITRIC_ACID_NOTHING, NO_FIGURES, SR28, apricotJam, labelData, labelInput, line, strawberryJam } from './fixtures';
 
 // REF = /work/shared/nutrition-references.md (USDA SR28 figures and worked examples).
 

@@ -7,7 +7,7 @@ import {
   usFatAmount, usGramAmount, usNutritionFacts, usServingsPerContainer, usSodiumAmount, type UsNutritionFacts,
 } from '@/lib/label/us-facts';
 import type { LabelInput } from '@/lib/label/types';
-import { SR28, apricotJam, labelData, labelInput, line, strawberryJam } from './nutrition-fixtures';
+import { SR28, apricotJam, labelData, labelInput, line, strawberryJam } from './fixtures';
 
 // REF = /work/shared/nutrition-references.md; CFR = 21 CFR 101.9 as amended by the 2016 Nutrition
 // Facts final rule (81 FR 33742), rounding per paragraph (c) as tabulated in FDA's Food Labeling
