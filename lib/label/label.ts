@@ -86,6 +86,8 @@ export interface Label {
 
 /** One line of the label in words: the unit of the CSV export and of the label comparison. */
 export interface LabelRow {
+  /** Stable within a label: the section and the row's key (two energy rows share a name). */
+  id: string;
   section: string;
   item: string;
   value: string;
@@ -102,21 +104,21 @@ const figureText = (label: string | null, unit: string) => (label === null ? UNK
 /** The label flattened to rows, in the order the view shows it. */
 export function labelRows(label: Label): LabelRow[] {
   const rows: LabelRow[] = [
-    { section: 'Ingredients (EU)', item: 'List', value: runsText(label.ingredients.eu) },
-    { section: 'Ingredients (US)', item: 'List', value: runsText(label.ingredients.us) },
+    { id: 'ingredients.eu', section: 'Ingredients (EU)', item: 'List', value: runsText(label.ingredients.eu) },
+    { id: 'ingredients.us', section: 'Ingredients (US)', item: 'List', value: runsText(label.ingredients.us) },
   ];
   for (const s of label.statements) {
-    rows.push({ section: 'Statements', item: s.kind === 'fruit' ? 'Fruit' : 'Total sugar', value: s.text ?? UNKNOWN });
+    rows.push({ id: `statement.${s.kind}`, section: 'Statements', item: s.kind === 'fruit' ? 'Fruit' : 'Total sugar', value: s.text ?? UNKNOWN });
   }
-  for (const r of label.eu.rows) rows.push({ section: `EU declaration, ${label.eu.per}`, item: r.name, value: figureText(r.label, r.unit) });
+  for (const r of label.eu.rows) rows.push({ id: `eu.${r.key}`, section: `EU declaration, ${label.eu.per}`, item: r.name, value: figureText(r.label, r.unit) });
   for (const r of label.us.rows) {
-    rows.push({ section: `US facts, ${label.us.serving}`, item: r.name, value: `${figureText(r.label, r.unit)}${r.dailyValue ? `, ${r.dailyValue} DV` : ''}` });
+    rows.push({ id: `us.${r.key}`, section: `US facts, ${label.us.serving}`, item: r.name, value: `${figureText(r.label, r.unit)}${r.dailyValue ? `, ${r.dailyValue} DV` : ''}` });
   }
   for (const c of label.claims.items) {
-    rows.push({ section: 'Claims', item: c.claim, value: c.holds === null ? UNKNOWN : c.holds ? 'may be made' : 'may not be made' });
+    rows.push({ id: `claim.${c.claim}`, section: 'Claims', item: c.claim, value: c.holds === null ? UNKNOWN : c.holds ? 'may be made' : 'may not be made' });
   }
   for (const a of label.additives) {
-    rows.push({ section: 'Additive limits', item: a.name, value: a.status === 'unknown' ? UNKNOWN : `${a.amount ?? UNKNOWN} (${a.status === 'over' ? 'over' : 'within'} ${a.limit})` });
+    rows.push({ id: `additive.${a.name}`, section: 'Additive limits', item: a.name, value: a.status === 'unknown' ? UNKNOWN : `${a.amount ?? UNKNOWN} (${a.status === 'over' ? 'over' : 'within'} ${a.limit})` });
   }
   return rows;
 }
@@ -133,14 +135,12 @@ export interface LabelChange {
  * (a change that rounds to the same label text needs no new label).
  */
 export function labelChanges(before: Label, after: Label): LabelChange[] {
-  const key = (r: LabelRow) => `${r.section}\u0000${r.item}`;
-  const old = new Map(labelRows(before).map((r) => [key(r), r]));
+  const old = new Map(labelRows(before).map((r) => [r.id, r]));
   const changes: LabelChange[] = [];
   const seen = new Set<string>();
   for (const r of labelRows(after)) {
-    const k = key(r);
-    seen.add(k);
-    const was = old.get(k);
+    seen.add(r.id);
+    const was = old.get(r.id);
     if (!was) changes.push({ section: r.section, item: r.item, before: null, after: r.value });
     else if (was.value !== r.value) changes.push({ section: r.section, item: r.item, before: was.value, after: r.value });
   }
