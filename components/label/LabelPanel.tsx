@@ -14,20 +14,20 @@ function IngredientText({ list, title }: { list: LabelIngredientList; title: str
       <p className="mt-1 text-sm" data-testid="ingredient-list">
         {list.runs.length === 0 ? <span className="text-rind-600">No lines yet.</span> : list.runs.map((r, i) => (r.emphasis ? <strong key={i}>{r.text}</strong> : <span key={i}>{r.text}</span>))}
       </p>
+      {list.contains ? <p className="mt-1 text-sm font-semibold">{list.contains}</p> : null}
       {list.notes.length ? <ul className="mt-1 list-disc pl-5 text-xs text-rind-600">{list.notes.map((n) => <li key={n}>{n}</li>)}</ul> : null}
     </div>
   );
 }
 
-const figure = (value: string | null, unit: string) => (value === null ? UNKNOWN : `${value}${unit ? ` ${unit}` : ''}`);
 const unrounded = (value: number | null, unit: string) => (value === null ? UNKNOWN : `${Number(value.toPrecision(4))}${unit ? ` ${unit}` : ''}`);
 
 function NutrientCells({ row }: { row: LabelNutrientRow }) {
   return (
     <>
-      <th scope="row" className={`py-1 pr-3 text-left font-normal ${row.sub ? 'pl-4' : ''}`}>{row.sub ? `of which ${row.name.toLowerCase()}` : row.name}</th>
+      <th scope="row" className={`py-1 pr-3 text-left font-normal ${row.depth === 2 ? 'pl-8' : row.depth === 1 ? 'pl-4' : ''}`}>{row.name}</th>
       <td className={`py-1 pr-3 tabular-nums ${row.label === null ? 'text-rind-600 italic' : 'font-medium'}`}>
-        {figure(row.label, row.unit)}
+        {row.label ?? UNKNOWN}
         {row.incomplete && row.label !== null ? <span className="ml-1 text-xs text-amberline-700">(incomplete)</span> : null}
       </td>
       <td className="py-1 pr-3 tabular-nums text-rind-600">{unrounded(row.unrounded, row.unit)}</td>

@@ -17,6 +17,8 @@ export interface LabelTextRun {
 
 export interface LabelIngredientList {
   runs: LabelTextRun[];
+  /** The US "Contains:" statement of major food allergens; null when none (or for the EU). */
+  contains: string | null;
   /** Plain sentences: added water left out, "contains" statement, mixed fruit … */
   notes: string[];
 }
@@ -33,11 +35,12 @@ export interface LabelStatement {
 export interface LabelNutrientRow {
   key: string;
   name: string;
+  /** Unit of the unrounded figure. */
   unit: string;
-  /** Nested under the row above ("of which sugars"). */
-  sub: boolean;
+  /** Nested under the row above ("of which sugars"); 2 under that ("Includes added sugars"). */
+  depth: 0 | 1 | 2;
   unrounded: number | null;
-  /** The value as the label states it ("0.6", "<0.5"); null when unknown. */
+  /** The value as the label prints it, unit included ("0.6 g", "<0.5 g"); null when unknown. */
   label: string | null;
   /** Some ingredient's value is unknown, so the figure is a lower bound at best. */
   incomplete: boolean;
@@ -99,7 +102,6 @@ function runsText(list: LabelIngredientList): string {
   return list.runs.map((r) => r.text).join('');
 }
 
-const figureText = (label: string | null, unit: string) => (label === null ? UNKNOWN : `${label}${unit ? ` ${unit}` : ''}`);
 
 /** The label flattened to rows, in the order the view shows it. */
 export function labelRows(label: Label): LabelRow[] {
@@ -107,12 +109,13 @@ export function labelRows(label: Label): LabelRow[] {
     { id: 'ingredients.eu', section: 'Ingredients (EU)', item: 'List', value: runsText(label.ingredients.eu) },
     { id: 'ingredients.us', section: 'Ingredients (US)', item: 'List', value: runsText(label.ingredients.us) },
   ];
+  if (label.ingredients.us.contains) rows.push({ id: 'ingredients.us.contains', section: 'Ingredients (US)', item: 'Contains', value: label.ingredients.us.contains });
   for (const s of label.statements) {
     rows.push({ id: `statement.${s.kind}`, section: 'Statements', item: s.kind === 'fruit' ? 'Fruit' : 'Total sugar', value: s.text ?? UNKNOWN });
   }
-  for (const r of label.eu.rows) rows.push({ id: `eu.${r.key}`, section: `EU declaration, ${label.eu.per}`, item: r.name, value: figureText(r.label, r.unit) });
+  for (const r of label.eu.rows) rows.push({ id: `eu.${r.key}`, section: `EU declaration, ${label.eu.per}`, item: r.name, value: r.label ?? UNKNOWN });
   for (const r of label.us.rows) {
-    rows.push({ id: `us.${r.key}`, section: `US facts, ${label.us.serving}`, item: r.name, value: `${figureText(r.label, r.unit)}${r.dailyValue ? `, ${r.dailyValue} DV` : ''}` });
+    rows.push({ id: `us.${r.key}`, section: `US facts, ${label.us.serving}`, item: r.name, value: `${r.label ?? UNKNOWN}${r.dailyValue ? `, ${r.dailyValue} DV` : ''}` });
   }
   for (const c of label.claims.items) {
     rows.push({ id: `claim.${c.claim}`, section: 'Claims', item: c.claim, value: c.holds === null ? UNKNOWN : c.holds ? 'may be made' : 'may not be made' });

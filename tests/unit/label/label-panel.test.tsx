@@ -14,7 +14,7 @@ describe('LabelPanel', () => {
     expect(within(saturates).getAllByText('unknown')).toHaveLength(2);
     expect(saturates.textContent).not.toMatch(/\b0\b/);
     const us = screen.getByRole('region', { name: 'US nutrition facts' });
-    const added = within(us).getByRole('rowheader', { name: 'of which added sugars' }).closest('tr')!;
+    const added = within(us).getByRole('rowheader', { name: 'Includes added sugars' }).closest('tr')!;
     expect(within(added).getAllByText('unknown').length).toBeGreaterThanOrEqual(2);
   });
 

@@ -17,11 +17,11 @@ describe('label rows and changes', () => {
 
   it('names each row whose label text changes, with before and after', () => {
     const after = sampleLabel();
-    after.eu.rows[5] = { ...after.eu.rows[5], unrounded: 39.8, label: '40' };
+    after.eu.rows[5] = { ...after.eu.rows[5], unrounded: 39.8, label: '40 g' };
     after.additives[0] = { ...after.additives[0], status: 'within', amount: '900 mg/kg as sorbic acid' };
     const changes = labelChanges(sampleLabel(), after);
     expect(changes).toEqual([
-      { section: 'EU declaration, 100 g', item: 'Sugars', before: '44 g', after: '40 g' },
+      { section: 'EU declaration, 100 g', item: 'of which sugars', before: '44 g', after: '40 g' },
       { section: 'Additive limits', item: 'Sorbic acid and sorbates', before: '1100 mg/kg as sorbic acid (over 1000 mg/kg)', after: '900 mg/kg as sorbic acid (within 1000 mg/kg)' },
     ]);
   });
@@ -41,7 +41,7 @@ describe('label rows and changes', () => {
     expect(parsed[0]).toEqual(['section', 'item', 'value', 'unrounded']);
     expect(parsed.length - 1).toBe(labelRows(label).length + label.incomplete.length);
     expect(parsed).toContainEqual(['EU declaration, 100 g', 'Fat', '<0.5 g', '0.12']);
-    expect(parsed).toContainEqual(['EU declaration, 100 g', 'Saturates', 'unknown', '']);
+    expect(parsed).toContainEqual(['EU declaration, 100 g', 'of which saturates', 'unknown', '']);
     expect(parsed).toContainEqual(['Incomplete', 'Saturates', 'Not known for pectin.', '']);
   });
 });
