@@ -2,7 +2,7 @@
 import { afterEach, describe, expect, it } from 'vitest';
 import { cleanup, render, screen, within } from '@testing-library/react';
 import { LabelPanel } from '@/components/label/LabelPanel';
-import { sampleLabel } from './fixtures';
+import { sampleLabel } from './sample-label';
 
 afterEach(cleanup);
 

@@ -2,7 +2,7 @@ import { describe, expect, it } from 'vitest';
 import Papa from 'papaparse';
 import { labelChanges, labelRows } from '@/lib/label/label';
 import { labelCsv } from '@/lib/label/export';
-import { sampleLabel } from './fixtures';
+import { sampleLabel } from './sample-label';
 
 describe('label rows and changes', () => {
   it('finds no change between a label and itself', () => {
