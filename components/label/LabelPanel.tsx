@@ -68,7 +68,7 @@ function UsTable({ label }: { label: Label }) {
 }
 
 const claimVerdict = (holds: boolean | null) => (holds === null ? 'Cannot tell yet' : holds ? 'May be made' : 'May not be made');
-const additiveVerdict = { within: 'Within the limit', over: 'Over the limit', unknown: 'Cannot tell yet' } as const;
+const additiveVerdict = { within: 'Within the limit', over: 'Over the limit', unknown: 'Cannot tell yet', not_applicable: 'Does not apply' } as const;
 
 /** `heading` names what the label belongs to ("Label of v3"); `frozenNote` says how a version's label was kept. */
 export function LabelPanel({ label, heading = 'Label', frozenNote }: { label: Label; heading?: string; frozenNote?: string }) {
@@ -138,7 +138,7 @@ export function LabelPanel({ label, heading = 'Label', frozenNote }: { label: La
                   <th scope="row" className="py-1 pr-3 text-left font-normal">{a.name}</th>
                   <td className={`py-1 pr-3 ${a.status === 'over' ? 'font-semibold text-ember-700' : ''}`}>{additiveVerdict[a.status]}</td>
                   <td className="py-1 pr-3 tabular-nums">{a.amount ?? UNKNOWN}</td>
-                  <td className="py-1 pr-3 tabular-nums">{a.limit}</td>
+                  <td className="py-1 pr-3">{a.limit}{a.note ? <span className="block text-xs text-rind-600">{a.note}</span> : null}</td>
                   <td className="py-1 pr-3 text-xs text-rind-600">{a.rule}</td>
                 </tr>
               ))}</tbody>

@@ -62,11 +62,13 @@ export interface LabelClaim {
 
 export interface LabelAdditiveCheck {
   name: string;
-  status: 'within' | 'over' | 'unknown';
+  /** `not_applicable`: no limit of this market applies to the product. */
+  status: 'within' | 'over' | 'unknown' | 'not_applicable';
   /** Amount in the finished product, in words with its unit; null when unknown. */
   amount: string | null;
   limit: string;
   rule: string;
+  note: string | null;
 }
 
 export interface LabelIncomplete {
@@ -103,6 +105,13 @@ function runsText(list: LabelIngredientList): string {
 }
 
 
+const ADDITIVE_ROW_TEXT: Record<LabelAdditiveCheck['status'], (a: LabelAdditiveCheck) => string> = {
+  within: (a) => `${a.amount ?? UNKNOWN} (within: ${a.limit})`,
+  over: (a) => `${a.amount ?? UNKNOWN} (over: ${a.limit})`,
+  unknown: () => UNKNOWN,
+  not_applicable: () => 'does not apply',
+};
+
 /** The label flattened to rows, in the order the view shows it. */
 export function labelRows(label: Label): LabelRow[] {
   const rows: LabelRow[] = [
@@ -121,7 +130,7 @@ export function labelRows(label: Label): LabelRow[] {
     rows.push({ id: `claim.${c.claim}`, section: 'Claims', item: c.claim, value: c.holds === null ? UNKNOWN : c.holds ? 'may be made' : 'may not be made' });
   }
   for (const a of label.additives) {
-    rows.push({ id: `additive.${a.name}`, section: 'Additive limits', item: a.name, value: a.status === 'unknown' ? UNKNOWN : `${a.amount ?? UNKNOWN} (${a.status === 'over' ? 'over' : 'within'} ${a.limit})` });
+    rows.push({ id: `additive.${a.name}`, section: 'Additive limits', item: a.name, value: ADDITIVE_ROW_TEXT[a.status](a) });
   }
   return rows;
 }

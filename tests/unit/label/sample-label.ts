@@ -39,7 +39,7 @@ export function sampleLabel(): Label {
       ],
     },
     claims: { reference: 'a typical jam (60 g sugars per 100 g)', items: [{ claim: 'Reduced sugar', holds: true, figures: '44.1 g against 60 g: 26 % less', rule: 'Regulation (EC) 1924/2006, Annex' }] },
-    additives: [{ name: 'Sorbic acid and sorbates', status: 'over', amount: '1100 mg/kg as sorbic acid', limit: '1000 mg/kg', rule: 'Regulation (EC) 1333/2008, Annex II, 04.2.5' }],
+    additives: [{ name: 'Sorbic acid and sorbates', status: 'over', amount: '1100 mg/kg as sorbic acid', limit: '1000 mg/kg', rule: 'Regulation (EC) 1333/2008, Annex II, 04.2.5', note: null }],
     incomplete: [{ part: 'Saturates', reason: 'Not known for pectin.' }],
   };
 }
