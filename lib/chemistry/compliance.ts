@@ -210,20 +210,23 @@ export function checkCompliance(batch: ComplianceBatchInput, settings: FormulaSe
       note: joinNotes(evaluation.note, rule.note),
     });
   }
-  const applicable = results.filter((r) => r.status !== 'not_applicable');
-  let overall: OverallComplianceStatus;
-  if (applicable.length === 0) overall = 'not_applicable';
-  else if (applicable.some((r) => r.status === 'fail')) overall = 'non_compliant';
-  else if (applicable.some((r) => r.status === 'not_evaluable')) overall = 'incomplete';
-  else overall = 'compliant';
   return {
     ruleSet: settings.ruleSet,
     ruleDate: settings.ruleDate,
     productClass: settings.productClass,
     edition: ruleEditionLabel(settings.ruleSet, settings.ruleDate),
-    overall,
+    overall: overallStatus(results),
     results,
   };
+}
+
+/** One verdict over rule results: any failure fails; anything not evaluable leaves it incomplete. */
+export function overallStatus(results: readonly Pick<RuleCheckResult, 'status'>[]): OverallComplianceStatus {
+  const applicable = results.filter((r) => r.status !== 'not_applicable');
+  if (applicable.length === 0) return 'not_applicable';
+  if (applicable.some((r) => r.status === 'fail')) return 'non_compliant';
+  if (applicable.some((r) => r.status === 'not_evaluable')) return 'incomplete';
+  return 'compliant';
 }
 
 export { RULES };

@@ -10,6 +10,7 @@ export * from './scaling';
 export * from './rule-sets';
 export {
   checkCompliance,
+  overallStatus,
   ruleEditionLabel,
   type ComplianceBatchInput,
   type ComplianceReport,
