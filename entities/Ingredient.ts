@@ -5,6 +5,8 @@ import { User } from './User';
 import {
   ACID_TYPES, EU_FRUIT_GROUPS, INGREDIENT_KINDS, PECTIN_LEVELS, PECTIN_TYPES, SWEETENER_TYPES, US_FRUIT_GROUPS,
 } from '../lib/ingredients/schema';
+import { ADDITIVE_CLASSES } from '../lib/ingredients/label-data';
+import type { EuAllergen, UsAllergen } from '../lib/label/types';
 
 /**
  * One entry of a workspace's ingredient library. Starter entries carry a handbook value
@@ -34,6 +36,30 @@ export const Ingredient = defineEntity({
     origin: p.enum(['typical', 'edited', 'custom']),
     typicalKey: p.string().length(60).nullable(),
     source: p.text().nullable(),
+    // Label data, per 100 g as used (lib/ingredients/label-data.ts). null = not known, never zero.
+    labelName: p.string().length(120).nullable(),
+    waterG: p.double().$type<number>().nullable(),
+    energyKcal: p.double().$type<number>().nullable(),
+    energyKj: p.double().$type<number>().nullable(),
+    proteinG: p.double().$type<number>().nullable(),
+    fatG: p.double().$type<number>().nullable(),
+    saturatesG: p.double().$type<number>().nullable(),
+    carbohydrateG: p.double().$type<number>().nullable(),
+    sugarsG: p.double().$type<number>().nullable(),
+    sucroseG: p.double().$type<number>().nullable(),
+    glucoseG: p.double().$type<number>().nullable(),
+    fructoseG: p.double().$type<number>().nullable(),
+    fibreG: p.double().$type<number>().nullable(),
+    polyolsG: p.double().$type<number>().nullable(),
+    organicAcidsG: p.double().$type<number>().nullable(),
+    sodiumMg: p.double().$type<number>().nullable(),
+    euAllergens: p.json<EuAllergen[]>().default('[]'),
+    usAllergens: p.json<UsAllergen[]>().default('[]'),
+    sulphiteMgPerKg: p.double().$type<number>().nullable(),
+    eNumber: p.string().length(12).nullable(),
+    additiveClass: p.enum([...ADDITIVE_CLASSES]).nullable(),
+    isAddedWater: p.boolean().default(false),
+    compositionSource: p.text().nullable(),
     archivedAt: p.datetime().nullable(),
     updatedBy: p.manyToOne(User).nullable(),
     createdAt: p.datetime().onCreate(() => new Date()),

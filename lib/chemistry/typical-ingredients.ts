@@ -59,6 +59,8 @@ export const TYPICAL_INGREDIENTS: readonly TypicalIngredient[] = [
   { key: 'calcium_citrate', kind: 'other', name: 'Calcium citrate (powder)', solidsPct: 100, calciumSource: true,
     // (memory)
     source: 'Calcium salt for low-methoxyl pectin sets; counted as dry solids, its mass is negligible' },
+  { key: 'potassium_sorbate', kind: 'other', name: 'Potassium sorbate (powder)', solidsPct: 100,
+    source: 'Preservative for reduced-sugar spreads; counted as dry solids, its mass is negligible' },
   { key: 'water', kind: 'water', name: 'Water', solidsPct: 0, source: 'Pure water has no soluble solids' },
 ];
 

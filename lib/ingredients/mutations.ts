@@ -5,6 +5,23 @@ import { Ingredient } from '@/entities';
 import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
 import { TYPICAL_INGREDIENTS } from '@/lib/chemistry';
 import type { IngredientInput } from './schema';
+import type { IngredientLabelFields } from './label-data';
+import { STARTER_LABEL_DATA } from './starter-composition';
+
+/** The label data as entity properties: one column per nutrient, the additive in two. */
+export function labelColumns(d: IngredientLabelFields) {
+  return {
+    ...d.nutrients,
+    labelName: d.labelName,
+    euAllergens: d.euAllergens,
+    usAllergens: d.usAllergens,
+    sulphiteMgPerKg: d.sulphiteMgPerKg,
+    eNumber: d.additive?.eNumber ?? null,
+    additiveClass: d.additive?.functionalClass ?? null,
+    isAddedWater: d.isAddedWater,
+    compositionSource: d.source,
+  };
+}
 
 function columns(input: IngredientInput) {
   return {
@@ -23,6 +40,8 @@ function columns(input: IngredientInput) {
     acidType: input.acidType ?? null,
     calciumSource: input.calciumSource ?? false,
     notes: input.notes ?? null,
+    // Left out (an API client that predates label data): the stored label data stays.
+    ...(input.labelData ? labelColumns(input.labelData) : {}),
   };
 }
 
@@ -58,8 +77,9 @@ export async function setIngredientArchived(actor: Actor, id: string, archived: 
 export async function addStarterLibrary(em: EntityManager, workspaceId: string): Promise<number> {
   for (const t of TYPICAL_INGREDIENTS) {
     const { key, source, ...composition } = t;
+    const labelData = STARTER_LABEL_DATA[key];
     em.create(Ingredient, {
-      ...columns({ ...composition, notes: null } as IngredientInput),
+      ...columns({ ...composition, notes: null, labelData } as IngredientInput),
       workspace: workspaceId,
       origin: 'typical',
       typicalKey: key,

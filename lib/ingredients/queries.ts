@@ -3,7 +3,9 @@ import { getEm } from '@/lib/db';
 import { Ingredient } from '@/entities';
 import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
 import type { IngredientComposition } from '@/lib/chemistry';
+import { NUTRIENT_KEYS, type NutrientValues } from '@/lib/label/types';
 import type { IngredientListQuery, IngredientView } from './schema';
+import type { AdditiveClass, IngredientLabelFields } from './label-data';
 
 type Row = Record<string, unknown> & {
   id: string; name: string; kind: IngredientView['kind']; solidsPct: number; origin: IngredientView['origin'];
@@ -21,6 +23,23 @@ export function compositionOf(row: { kind: string; name: string; solidsPct: numb
   return c as unknown as IngredientComposition;
 }
 
+/** The stored label data of a row (columns per nutrient, allergen lists, the additive's two columns). */
+export function labelDataOf(row: Record<string, unknown>): IngredientLabelFields {
+  const nutrients = Object.fromEntries(NUTRIENT_KEYS.map((k) => [k, (row[k] as number | null | undefined) ?? null])) as NutrientValues;
+  const eNumber = (row.eNumber as string | null | undefined) ?? null;
+  const additiveClass = (row.additiveClass as AdditiveClass | null | undefined) ?? null;
+  return {
+    labelName: (row.labelName as string | null | undefined) ?? null,
+    nutrients,
+    euAllergens: Array.isArray(row.euAllergens) ? (row.euAllergens as IngredientLabelFields['euAllergens']) : [],
+    usAllergens: Array.isArray(row.usAllergens) ? (row.usAllergens as IngredientLabelFields['usAllergens']) : [],
+    sulphiteMgPerKg: (row.sulphiteMgPerKg as number | null | undefined) ?? null,
+    additive: eNumber && additiveClass ? { eNumber, functionalClass: additiveClass } : null,
+    isAddedWater: row.isAddedWater === true,
+    source: (row.compositionSource as string | null | undefined) ?? null,
+  };
+}
+
 export function toIngredientView(row: Row): IngredientView {
   return {
     ...compositionOf(row),
@@ -28,6 +47,7 @@ export function toIngredientView(row: Row): IngredientView {
     origin: row.origin,
     source: (row.source as string | null) ?? null,
     notes: (row.notes as string | null) ?? null,
+    labelData: labelDataOf(row),
     archived: !!row.archivedAt,
     updatedAt: row.updatedAt.toISOString(),
     updatedByName: row.updatedBy?.name ?? null,

@@ -1,9 +1,10 @@
 import type { IngredientView } from '@/lib/ingredients/schema';
 import type { IngredientComposition } from '@/lib/chemistry';
+import { emptyLabelFields } from '@/lib/ingredients/label-data';
 
 /** Invented library entries; only the compositions matter to the checks. */
 function view(id: string, composition: IngredientComposition): IngredientView {
-  return { id, origin: 'custom', source: null, notes: null, archived: false, updatedAt: '2026-01-10T09:00:00.000Z', updatedByName: 'Demo Maker', ...composition };
+  return { id, origin: 'custom', source: null, notes: null, labelData: emptyLabelFields(), archived: false, updatedAt: '2026-01-10T09:00:00.000Z', updatedByName: 'Demo Maker', ...composition };
 }
 
 export const IDS = {

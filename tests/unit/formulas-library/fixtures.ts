@@ -1,3 +1,4 @@
+import { STARTER_LABEL_DATA } from '@/lib/ingredients/starter-composition';
 import type { IngredientComposition } from '@/lib/chemistry';
 import { TYPICAL_INGREDIENTS } from '@/lib/chemistry';
 import type { FormulaRevisionView, FormulaSettingsInput, RevisionLine } from '@/lib/formulas/schema';
@@ -63,6 +64,7 @@ export function typicalRow(key: string, overrides: Partial<IngredientView> = {})
     origin: 'typical',
     source,
     notes: null,
+    labelData: STARTER_LABEL_DATA[key],
     archived: false,
     updatedAt: '2026-01-10T08:00:00.000Z',
     updatedByName: null,
