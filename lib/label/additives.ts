@@ -22,6 +22,7 @@ import { overallStatus } from '@/lib/chemistry/compliance';
 import type { OverallComplianceStatus, RuleCheckResult } from '@/lib/chemistry/compliance';
 import type { ProductClass } from '@/lib/chemistry/types';
 import type { LabelInput } from './types';
+import { validateLabelInput } from './validate';
 
 export type FoodCategory = '04.2.5.1' | '04.2.5.2' | '04.2.5.3';
 
@@ -180,6 +181,7 @@ function result(fields: Omit<AdditiveCheck, 'passed' | 'status'> & { status: Add
  * in other markets each additive is reported as not applicable.
  */
 export function additiveLimitChecks(input: LabelInput): AdditiveCheck[] {
+  validateLabelInput(input);
   const masses = additiveMasses(input);
   if (masses.size === 0) return [];
   const settings = input.settings;

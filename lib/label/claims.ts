@@ -13,6 +13,7 @@
  * association's summary of 1047/2012; the Annex text itself was not reached, memory).
  */
 import type { FinishedNutrients, LabelInput, NutrientKey } from './types';
+import { validateLabelInput } from './validate';
 
 export type ClaimStatus = 'met' | 'not_met' | 'cannot_tell';
 export type SugarClaim = 'low_sugars' | 'sugars_free' | 'no_added_sugars' | 'reduced_sugars';
@@ -130,6 +131,7 @@ export function checkSugarsFree(nutrients: FinishedNutrients): ClaimCheck {
  * sweetener line (sugar, syrups, honey) is.
  */
 export function checkNoAddedSugars(input: LabelInput, nutrients: FinishedNutrients): ClaimCheck {
+  validateLabelInput(input);
   const added = input.lines.filter((l) => l.grams > 0 && l.ingredient.kind === 'sweetener' && !l.ingredient.additive);
   const addedG = added.reduce((t, l) => t + l.grams, 0);
   const naturallyPresent = nutrients.sugarsG === null || nutrients.sugarsG > 0;

@@ -4,8 +4,8 @@
  * Order: descending weight at the time of use (Regulation (EU) No 1169/2011 Art. 18(1);
  * 21 CFR 101.4(a)(1) "descending order of predominance by weight").
  */
-import { ChemistryInputError, requireFiniteNumber } from '@/lib/chemistry/errors';
 import type { EuAllergen, LabelInput, LabelLine, UsAllergen } from './types';
+import { validateLabelInput } from './validate';
 
 export type LabelMarket = 'eu' | 'us';
 
@@ -163,10 +163,12 @@ function euSegments(name: string, allergens: readonly EuAllergen[]): ListSegment
   const missing: string[] = [];
   for (const allergen of allergens) {
     const entry = EU_ALLERGEN_WORDS[allergen];
-    const word = entry.words.find((w) => lower.includes(w));
-    if (word) {
-      const start = lower.indexOf(word);
-      marks.push({ start, end: start + word.length });
+    // Whole words only, so "oat" is not found in "coated" nor "egg" in "nutmeg".
+    const found = entry.words
+      .map((w) => ({ w, at: lower.search(new RegExp(`(?<![a-z])${w}(?![a-z])`)) }))
+      .find((f) => f.at >= 0);
+    if (found) {
+      marks.push({ start: found.at, end: found.at + found.w.length });
     } else {
       missing.push(entry.name);
     }
@@ -190,19 +192,6 @@ function euSegments(name: string, allergens: readonly EuAllergen[]): ListSegment
     segments.push({ text: ')', emphasis: false });
   }
   return segments;
-}
-
-function validateInput(input: LabelInput): void {
-  if (!input || !Array.isArray(input.lines)) throw new ChemistryInputError('lines', 'the label needs the formula lines');
-  const finished = requireFiniteNumber(input.massBalance?.finishedMassG, 'massBalance.finishedMassG');
-  if (finished <= 0) throw new ChemistryInputError('massBalance.finishedMassG', 'finished mass must be positive');
-  input.lines.forEach((line, i) => {
-    const grams = requireFiniteNumber(line?.grams, `lines[${i}].grams`);
-    if (grams < 0) throw new ChemistryInputError(`lines[${i}].grams`, 'grams cannot be negative');
-    if (!line.ingredient || typeof line.ingredient.labelName !== 'string') {
-      throw new ChemistryInputError(`lines[${i}].ingredient.labelName`, 'every line needs its ingredient-list name');
-    }
-  });
 }
 
 function isAddedWater(line: LabelLine): boolean {
@@ -305,7 +294,7 @@ interface Group {
  * as added) and left out when the rule says so.
  */
 export function ingredientList(input: LabelInput, market: LabelMarket): IngredientList {
-  validateInput(input);
+  validateLabelInput(input);
   const finishedG = input.massBalance.finishedMassG;
   const notes: string[] = [];
   const water = addedWaterAccount(input, market);

@@ -21,6 +21,7 @@ import { ChemistryInputError, requireFiniteNumber } from '@/lib/chemistry/errors
 import { EU_2024_AMENDMENT_FROM } from '@/lib/chemistry/rule-sets';
 import { PRODUCT_CLASS_NAMES } from '@/lib/chemistry/types';
 import type { LabelInput } from './types';
+import { validateLabelInput } from './validate';
 
 /** ± refractometric degrees between the stated and the measured value (Art. 2(4)). */
 export const STATED_SUGAR_TOLERANCE_DEGREES = 3;
@@ -66,8 +67,8 @@ function statementEdition(isoDate: string): string {
  * (common practice, no published source; the Directive sets no rounding).
  */
 export function fruitPer100g(input: LabelInput, extractionWaterG = 0): number {
-  const finished = requireFiniteNumber(input.massBalance?.finishedMassG, 'massBalance.finishedMassG');
-  if (finished <= 0) throw new ChemistryInputError('massBalance.finishedMassG', 'finished mass must be positive');
+  validateLabelInput(input);
+  const finished = input.massBalance.finishedMassG;
   const extraction = requireFiniteNumber(extractionWaterG, 'extractionWaterG');
   if (extraction < 0) throw new ChemistryInputError('extractionWaterG', 'extraction water cannot be negative');
   const fruitG = input.lines.filter((l) => l.ingredient.kind === 'fruit').reduce((t, l) => t + l.grams, 0);
@@ -88,6 +89,7 @@ export function statedTotalSugar(targetSolidsPct: number): number {
 
 /** The two statements of Art. 2(3)–(4) for a formula. */
 export function jamStatements(input: LabelInput, options: StatementOptions = {}): JamStatements {
+  validateLabelInput(input);
   const settings = input.settings;
   const notes: string[] = [];
   const inScope = settings.ruleSet === 'eu' && DIRECTIVE_CLASSES.has(settings.productClass);
@@ -148,7 +150,8 @@ function requireBrix(value: unknown, field: string): number {
 }
 
 /**
- * A cook's or batch's measured Brix (at 20 °C) against the stated total sugar: within when the
+ * A cook's or batch's measured Brix against the stated total sugar; pass the reading corrected to
+ * 20 °C (lib/chemistry/refractometer.ts), as the statement is. Within when the
  * difference is at most ± 3 refractometric degrees (Art. 2(4)); exactly 3 is within.
  */
 export function compareStatedSugar(stated: number, measuredBrix: number): StatedSugarComparison {

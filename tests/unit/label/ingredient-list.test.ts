@@ -1,7 +1,10 @@
 import { describe, expect, it } from 'vitest';
+import { additiveLimitChecks } from '@/lib/label/additives';
+import { checkNoAddedSugars } from '@/lib/label/claims';
 import { additiveListName, fruitIndication, ingredientList } from '@/lib/label/ingredient-list';
+import { jamStatements } from '@/lib/label/statements';
 import {
-  CITRIC, LABEL, PECTIN, RASPBERRY, REDCURRANT, STRAWBERRY, SUCROSE, WATER, labelData, labelInputFrom, labelSettings,
+  CITRIC, LABEL, PECTIN, RASPBERRY, REDCURRANT, STRAWBERRY, SUCROSE, WATER, labelData, labelInputFrom, labelSettings, nutrients,
 } from './text-fixtures';
 import type { TestLine } from './text-fixtures';
 
@@ -140,6 +143,19 @@ describe('allergens', () => {
     expect(list.containsStatement).toBeNull();
   });
 
+  it('matches allergen words whole, not inside other words', () => {
+    // Source: Regulation (EU) No 1169/2011 Art. 21(1)(b) (the allergen's name is what is emphasised)
+    const coated = labelData('oat-coated nutmeg', { euAllergens: ['cereals_gluten', 'eggs'] });
+    const list = ingredientList(labelInputFrom([
+      strawberry(1000), sugar(800),
+      { composition: { kind: 'other', name: 'Spice', solidsPct: 0 }, label: coated, grams: 5 },
+    ]), 'eu');
+    expect(list.entries.at(-1)?.segments).toEqual([
+      { text: 'oat', emphasis: true }, { text: '-coated nutmeg', emphasis: false },
+      { text: ' (', emphasis: false }, { text: 'egg', emphasis: true }, { text: ')', emphasis: false },
+    ]);
+  });
+
   it('gives the US list a "Contains:" statement instead of emphasis', () => {
     // Source: FALCPA (21 U.S.C. 343(w)(1)(A)): "Contains" followed by the food sources, beside the ingredient list
     const list = ingredientList(input(), 'us');
@@ -184,5 +200,28 @@ describe('bad input', () => {
     const input = labelInputFrom([strawberry(1000), sugar(1000)]);
     expect(() => ingredientList({ ...input, lines: [{ ...input.lines[0], grams: -1 }] }, 'eu')).toThrow(/grams/);
     expect(() => ingredientList({ ...input, massBalance: { ...input.massBalance, finishedMassG: Number.NaN } }, 'eu')).toThrow(/finishedMassG/);
+  });
+});
+
+describe('every label module refuses the same bad input', () => {
+  it('names the field for negative or non-finite grams, an empty name and a missing finished mass', () => {
+    // Source: DEVELOPERS.md (validation: bad input is refused and changes nothing); ChemistryInputError names the field for a 4xx
+    const input = labelInputFrom([strawberry(1000), sugar(1000)]);
+    const bad = [
+      { ...input, lines: [{ ...input.lines[0], grams: Number.POSITIVE_INFINITY }] },
+      { ...input, lines: [{ ...input.lines[0], ingredient: { ...input.lines[0].ingredient, labelName: '  ' } }] },
+      { ...input, massBalance: { ...input.massBalance, finishedMassG: 0 } },
+    ];
+    const modules = [
+      (i: typeof input) => ingredientList(i, 'us'),
+      (i: typeof input) => jamStatements(i),
+      (i: typeof input) => additiveLimitChecks(i),
+      (i: typeof input) => checkNoAddedSugars(i, { ...nutrients({ sugarsG: 1 }), unknownFrom: {} }),
+    ];
+    for (const run of modules) {
+      expect(() => run(bad[0])).toThrow(/lines\[0\]\.grams/);
+      expect(() => run(bad[1])).toThrow(/labelName/);
+      expect(() => run(bad[2])).toThrow(/finishedMassG/);
+    }
   });
 });
