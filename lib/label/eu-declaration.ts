@@ -77,8 +77,8 @@ type RoundingClass = 'macronutrient' | 'saturates' | 'salt';
  * - salt: ≥ 1 g → nearest 0.1 g; < 1 g → nearest 0.01 g; ≤ 0.0125 g → "0" or "<0.01 g".
  * We print "0 g" only for a true zero and "<…" for a small positive amount, which the table allows
  * and which does not make a trace look like none.
- * Thresholds as summarised from the guidance's table by UK labelling advisers (nutricalc.co.uk,
- * "Rounding nutrition values for labelling"); the table itself was not re-read here.
+ * The table itself was not re-read here: the "0"/"<…" limits (0.5 g, 0.1 g, 0.0125 g) match
+ * published secondary summaries of it; the step limits (10 g; 1 g for salt) are from memory.
  */
 const ROUNDING: Record<RoundingClass, { wholeFrom: number; wholeStep: number; fineStep: number; negligibleUpTo: number; negligibleLabel: string }> = {
   macronutrient: { wholeFrom: 10, wholeStep: 1, fineStep: 0.1, negligibleUpTo: 0.5, negligibleLabel: '<0.5 g' },

@@ -70,6 +70,8 @@ function sumNutrient(lines: LabelLine[], key: NutrientKey): BatchSum {
   let known = false;
   const unknownFrom: string[] = [];
   for (const line of lines) {
+    // A line weighing nothing contributes nothing, so its unknowns do not make a figure incomplete.
+    if (line.grams === 0) continue;
     const value = line.ingredient.nutrients[key];
     if (value === null) {
       if (!unknownFrom.includes(line.ingredient.labelName)) unknownFrom.push(line.ingredient.labelName);

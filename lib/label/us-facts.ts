@@ -164,7 +164,7 @@ export function addedSugarsPer100g(input: LabelInput): { value: number; unknownF
   let batchG = 0;
   const unknownFrom: string[] = [];
   for (const line of lines) {
-    if (line.ingredient.kind !== 'sweetener') continue;
+    if (line.ingredient.kind !== 'sweetener' || line.grams === 0) continue;
     const sugars = line.ingredient.nutrients.sugarsG;
     if (sugars === null) {
       if (!unknownFrom.includes(line.ingredient.labelName)) unknownFrom.push(line.ingredient.labelName);

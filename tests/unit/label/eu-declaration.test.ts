@@ -6,8 +6,8 @@ import { CITRIC_ACID_NOTHING, NO_FIGURES, SR28, apricotJam, strawberryJam } from
 
 // REF = /work/shared/nutrition-references.md; GUIDANCE = European Commission, December 2012,
 // "Guidance document for competent authorities … setting of tolerances for nutrient values
-// declared on a label", section 4 (rounding), thresholds as summarised by nutricalc.co.uk
-// ("Rounding nutrition values for labelling").
+// declared on a label", section 4 (rounding). The "0"/"<…" limits match secondary summaries of
+// its table; the 10 g and 1 g (salt) step limits are from memory (the table was not re-read).
 
 const finished = (values: Partial<NutrientValues>, unknownFrom: FinishedNutrients['unknownFrom'] = {}): FinishedNutrients => ({ ...NO_FIGURES, ...values, unknownFrom });
 const rowOf = (d: EuDeclaration, nutrient: string) => {

@@ -69,6 +69,16 @@ describe('finished nutrients: example (b) apricot jam', () => {
   });
 });
 
+describe('finished nutrients: lines weighing nothing', () => {
+  it('ignores a 0 g line, so its missing figures do not make the label incomplete', () => {
+    // Source: the summing rule of REF (grams × value/100): a 0 g line adds 0 whatever its value.
+    const input = labelInput([line(1000, labelData('sugar', 'sweetener', SR28.sugar)), line(0, labelData('spice', 'other', NO_FIGURES))]);
+    const n = finishedNutrients(input);
+    expect(n.unknownFrom.sugarsG).toBeUndefined();
+    expect(n.sugarsG).toBeCloseTo((998 / input.massBalance.finishedMassG) * 100, 9);
+  });
+});
+
 describe('finished nutrients: water to add', () => {
   it('adds the water when the target solids are below the charge solids', () => {
     // Derived from the mass balance rule in REF ("final water = Σ water − (input mass − finished mass)"):

@@ -1,6 +1,7 @@
 import { describe, it, expect } from 'vitest';
 import { ChemistryInputError } from '@/lib/chemistry';
 import { finishedNutrients } from '@/lib/label/nutrition';
+import { euDeclaration } from '@/lib/label/eu-declaration';
 import {
   US_DAILY_VALUES, US_SERVING_LABEL, addedSugarsPer100g, usCalories, usCholesterolAmount, usDailyValuePct,
   usFatAmount, usGramAmount, usNutritionFacts, usServingsPerContainer, usSodiumAmount, type UsNutritionFacts,
@@ -94,6 +95,20 @@ describe('US Nutrition Facts: example (b) apricot jam', () => {
     expect(rowOf(f, 'totalSugars').label).toBe('13 g'); // 13.35 g
     expect(rowOf(f, 'addedSugars').amount?.value).toBeCloseTo((1497 / 24.5) * 0.2, 9); // sugar line only
     expect(rowOf(f, 'protein').label).toBe('0 g'); // 0.857 × 0.2 = 0.171 g, under 0.5 g
+  });
+});
+
+describe('which carbohydrate feeds energy: US against EU', () => {
+  it('keeps fibre in US calories (total carbohydrate × 4) but takes it out of EU energy', () => {
+    // Source: 21 CFR 101.9(c)(1)(i)(B) general factors on total carbohydrate; Regulation (EU) 1169/2011 Annex I point 7 and Annex XIV.
+    const base = strawberryJam();
+    const n = finishedNutrients(base);
+    const moreFibre = { ...n, fibreG: n.fibreG! + 5 };
+    const us = (x: typeof n) => usNutritionFacts(x, base).calories.value!;
+    expect(us(moreFibre)).toBeCloseTo(us(n), 12);
+    const eu = (x: typeof n) => euDeclaration(x).energyKcal!;
+    // 5 g moved from available carbohydrate (4 kcal/g) to fibre (2 kcal/g): 10 kcal less per 100 g.
+    expect(eu(n) - eu(moreFibre)).toBeCloseTo(10, 9);
   });
 });
 
