@@ -8,6 +8,7 @@ import { rolesWith, type Permission } from '@/lib/permissions';
 import { inviteMemberSchema, updateMemberSchema } from '@/lib/members/schema';
 import { createTokenSchema } from '@/lib/api-tokens/schema';
 import { ingredientInputSchema } from '@/lib/ingredients/schema';
+import { importIngredientsSchema } from '@/lib/ingredients/csv';
 import { calcBatchSchema, createFormulaSchema, reviseFormulaSchema } from '@/lib/formulas/schema';
 import { FILE_MAX_BYTES, PHOTO_MAX_BYTES, THUMBNAIL_MAX_PX, UPLOAD_SUBJECTS } from '@/lib/uploads/schema';
 import { recommendationSchema } from '@/lib/results/schema';
@@ -53,9 +54,10 @@ export const API_OPERATIONS: ApiOperation[] = [
   { method: 'delete', path: '/api/v1/tokens/{tokenId}', summary: 'Revoke one of your tokens', tag: 'Account', permission: 'tokens.manage' },
   { method: 'get', path: '/api/v1/ingredients', summary: 'The ingredient library (query: q, kind, sort, dir, archived=include|only)', tag: 'Ingredients', permission: 'ingredients.read' },
   { method: 'post', path: '/api/v1/ingredients', summary: 'Add an ingredient of your own', tag: 'Ingredients', permission: 'ingredients.write', request: ingredientInputSchema, okStatus: 201 },
-  { method: 'get', path: '/api/v1/ingredients/export', summary: 'The ingredient library as CSV (same query as the list)', tag: 'Ingredients', permission: 'ingredients.read' },
+  { method: 'get', path: '/api/v1/ingredients/export', summary: 'The ingredient library as CSV (same query as the list), label data included', tag: 'Ingredients', permission: 'ingredients.read' },
+  { method: 'post', path: '/api/v1/ingredients/import', summary: 'Import the library from CSV text ({ "csv": "…" }, the export\'s columns); a row whose name matches an ingredient replaces its values, any other adds one; all-or-nothing, errors by row and column', tag: 'Ingredients', permission: 'ingredients.write', request: importIngredientsSchema },
   { method: 'get', path: '/api/v1/ingredients/{ingredientId}', summary: 'One ingredient', tag: 'Ingredients', permission: 'ingredients.read' },
-  { method: 'patch', path: '/api/v1/ingredients/{ingredientId}', summary: "Replace an ingredient's values (a typical value becomes the workspace's edited value)", tag: 'Ingredients', permission: 'ingredients.write', request: ingredientInputSchema },
+  { method: 'patch', path: '/api/v1/ingredients/{ingredientId}', summary: "Replace an ingredient's values (a typical value becomes the workspace's edited value); leave out labelData to keep the stored label data", tag: 'Ingredients', permission: 'ingredients.write', request: ingredientInputSchema },
   { method: 'delete', path: '/api/v1/ingredients/{ingredientId}', summary: 'Archive an ingredient (old revisions keep their snapshot)', tag: 'Ingredients', permission: 'ingredients.write' },
   { method: 'get', path: '/api/v1/formulas', summary: 'Formulas with the headline results of their latest revision (query: q)', tag: 'Formulas', permission: 'formulas.read' },
   { method: 'post', path: '/api/v1/formulas', summary: 'Create a formula (revision 1); lines may be in g, kg, lb, oz or % of fruit and are stored in grams', tag: 'Formulas', permission: 'formulas.write', request: createFormulaSchema, okStatus: 201 },
