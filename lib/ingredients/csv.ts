@@ -51,8 +51,6 @@ function label(header: string, field: string, out: (v: IngredientView) => Cell, 
 }
 
 export const INGREDIENT_CSV_COLUMNS: Column[] = [
-  // Read by the import itself: which ingredient a row replaces (blank: matched by name, or added).
-  { header: 'id', out: (v) => v.id },
   { header: 'name', out: (v) => v.name, path: 'name', in: (raw, c) => { c.name = raw; return null; } },
   { header: 'kind', out: (v) => v.kind, path: 'kind', in: (raw, c) => { c.kind = raw; return null; } },
   numeric('soluble_solids_pct', 'solidsPct', (v) => v.solidsPct),
@@ -89,6 +87,8 @@ export const INGREDIENT_CSV_COLUMNS: Column[] = [
   { header: 'origin', out: (v) => v.origin },
   { header: 'source', out: (v) => v.source },
   { header: 'updated_at', out: (v) => v.updatedAt },
+  // Read by the import itself: which ingredient a row replaces (blank: matched by name, or added).
+  { header: 'id', out: (v) => v.id },
 ];
 
 export function ingredientsToCsv(rows: IngredientView[]): string {
