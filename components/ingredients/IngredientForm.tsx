@@ -7,6 +7,7 @@ import { Button } from '@/components/ui/Button';
 import { Field, FieldErrorText, SelectField, inputClass } from '@/components/ui/Field';
 import { Notice } from '@/components/ui/Notice';
 import { saveIngredientAction } from '@/lib/ingredients/actions';
+import { LabelDataFields, labelFieldKeys, readLabelData } from './LabelDataFields';
 import {
   ACID_TYPES,
   EU_FRUIT_GROUPS,
@@ -115,6 +116,8 @@ export function buildIngredientInput(form: FormData, kind: Kind): { data: Ingred
     choices[field] = value === '' ? null : value;
   }
   const notes = text(form.get('notes')).trim();
+  const label = readLabelData(form);
+  Object.assign(errors, label.errors);
   const data = {
     name: text(form.get('name')).trim(),
     kind,
@@ -127,6 +130,7 @@ export function buildIngredientInput(form: FormData, kind: Kind): { data: Ingred
     ...choices,
     calciumSource: applies.has('calciumSource') ? form.get('calciumSource') === 'on' : false,
     notes: notes === '' ? null : notes,
+    labelData: label.data,
   } as IngredientInput;
   return { data, errors };
 }
@@ -163,7 +167,7 @@ export function IngredientForm({ initial, onSavedHref = '/ingredients' }: { init
       const fields = stripFieldPrefix(result.fields);
       setErrors(fields);
       // Errors not tied to a visible field (e.g. an unknown id) still need to be seen.
-      const visible = new Set<string>([...ALWAYS_SHOWN, ...KIND_FIELDS[kind]]);
+      const visible = new Set<string>([...ALWAYS_SHOWN, ...KIND_FIELDS[kind], ...labelFieldKeys()]);
       const unplaced = Object.entries(fields).filter(([key]) => !visible.has(key)).flatMap(([, m]) => m);
       if (!Object.keys(fields).length || unplaced.length) setFormError(unplaced.length ? unplaced.join(' ') : result.error);
     });
@@ -260,6 +264,8 @@ export function IngredientForm({ initial, onSavedHref = '/ingredients' }: { init
           <FieldErrorText id={`${id('calciumSource')}-err`} errors={errors.calciumSource} />
         </div>
       ) : null}
+
+      <LabelDataFields initial={initial?.labelData} errors={errors} idPrefix={idPrefix} />
 
       <div>
         <label htmlFor={id('notes')} className="mb-1 block text-sm font-medium text-rind-700">Notes</label>

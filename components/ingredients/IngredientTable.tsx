@@ -13,6 +13,7 @@ import {
   type IngredientView,
 } from '@/lib/ingredients/schema';
 import { TableBox } from '@/components/ui/TableBox';
+import { completenessText } from '@/lib/ingredients/label-data';
 
 export type IngredientSortKey = 'name' | 'kind' | 'solidsPct' | 'origin' | 'updatedAt';
 
@@ -132,6 +133,11 @@ function OriginBadge({ row }: { row: IngredientView }) {
   );
 }
 
+function LabelDataStatus({ row }: { row: IngredientView }) {
+  const status = completenessText(row.labelData);
+  return <span className={status.complete ? 'text-leaf-700' : 'text-quince-700'}>{status.text}</span>;
+}
+
 function SortHeader({ column, label, query }: { column: IngredientSortKey; label: string; query: IngredientTableQuery }) {
   const current = effectiveSort(query);
   const active = current.sort === column;
@@ -223,6 +229,7 @@ export function IngredientTable({
                 <th scope="col" className="px-4 py-3">Acid %</th>
                 <th scope="col" className="px-4 py-3">Pectin</th>
                 <th scope="col" className="px-4 py-3">EU / US group</th>
+                <th scope="col" className="px-4 py-3">Label data</th>
                 <SortHeader column="origin" label="Origin" query={query} />
                 <SortHeader column="updatedAt" label="Last change" query={query} />
               </tr>
@@ -257,6 +264,7 @@ export function IngredientTable({
                         '—'
                       )}
                     </td>
+                    <td className="px-4 py-3 text-xs"><LabelDataStatus row={row} /></td>
                     <td className="px-4 py-3"><OriginBadge row={row} /></td>
                     <td className="px-4 py-3 text-xs">
                       <span className="block">{row.updatedByName ?? '—'}</span>

@@ -8,6 +8,7 @@ import { rolesWith, type Permission } from '@/lib/permissions';
 import { inviteMemberSchema, updateMemberSchema } from '@/lib/members/schema';
 import { createTokenSchema } from '@/lib/api-tokens/schema';
 import { ingredientInputSchema } from '@/lib/ingredients/schema';
+import { importIngredientsSchema } from '@/lib/ingredients/csv';
 import { calcBatchSchema, createFormulaSchema, reviseFormulaSchema } from '@/lib/formulas/schema';
 import { FILE_MAX_BYTES, PHOTO_MAX_BYTES, THUMBNAIL_MAX_PX, UPLOAD_SUBJECTS } from '@/lib/uploads/schema';
 import { recommendationSchema } from '@/lib/results/schema';
@@ -53,13 +54,15 @@ export const API_OPERATIONS: ApiOperation[] = [
   { method: 'delete', path: '/api/v1/tokens/{tokenId}', summary: 'Revoke one of your tokens', tag: 'Account', permission: 'tokens.manage' },
   { method: 'get', path: '/api/v1/ingredients', summary: 'The ingredient library (query: q, kind, sort, dir, archived=include|only)', tag: 'Ingredients', permission: 'ingredients.read' },
   { method: 'post', path: '/api/v1/ingredients', summary: 'Add an ingredient of your own', tag: 'Ingredients', permission: 'ingredients.write', request: ingredientInputSchema, okStatus: 201 },
-  { method: 'get', path: '/api/v1/ingredients/export', summary: 'The ingredient library as CSV (same query as the list)', tag: 'Ingredients', permission: 'ingredients.read' },
+  { method: 'get', path: '/api/v1/ingredients/export', summary: 'The ingredient library as CSV (same query as the list), label data included', tag: 'Ingredients', permission: 'ingredients.read' },
+  { method: 'post', path: '/api/v1/ingredients/import', summary: 'Import the library from CSV text ({ "csv": "…" }, the export\'s columns); a row whose name matches an ingredient replaces its values, any other adds one; all-or-nothing, errors by row and column', tag: 'Ingredients', permission: 'ingredients.write', request: importIngredientsSchema },
   { method: 'get', path: '/api/v1/ingredients/{ingredientId}', summary: 'One ingredient', tag: 'Ingredients', permission: 'ingredients.read' },
-  { method: 'patch', path: '/api/v1/ingredients/{ingredientId}', summary: "Replace an ingredient's values (a typical value becomes the workspace's edited value)", tag: 'Ingredients', permission: 'ingredients.write', request: ingredientInputSchema },
+  { method: 'patch', path: '/api/v1/ingredients/{ingredientId}', summary: "Replace an ingredient's values (a typical value becomes the workspace's edited value); leave out labelData to keep the stored label data", tag: 'Ingredients', permission: 'ingredients.write', request: ingredientInputSchema },
   { method: 'delete', path: '/api/v1/ingredients/{ingredientId}', summary: 'Archive an ingredient (old revisions keep their snapshot)', tag: 'Ingredients', permission: 'ingredients.write' },
   { method: 'get', path: '/api/v1/formulas', summary: 'Formulas with the headline results of their latest revision (query: q)', tag: 'Formulas', permission: 'formulas.read' },
   { method: 'post', path: '/api/v1/formulas', summary: 'Create a formula (revision 1); lines may be in g, kg, lb, oz or % of fruit and are stored in grams', tag: 'Formulas', permission: 'formulas.write', request: createFormulaSchema, okStatus: 201 },
   { method: 'get', path: '/api/v1/formulas/{formulaId}', summary: 'A formula at its latest revision, with the full computation', tag: 'Formulas', permission: 'formulas.read' },
+  { method: 'get', path: '/api/v1/formulas/{formulaId}/label', summary: 'The label of the latest revision: ingredient lists (EU, US), fruit and total-sugar statements, EU declaration per 100 g and US facts per serving (label and unrounded values), sugar claims against reference=typical|<formula id>, additive limits and what is incomplete; format=csv|json for a download', tag: 'Formulas', permission: 'formulas.read' },
   { method: 'get', path: '/api/v1/formulas/{formulaId}/revisions', summary: 'Revision history, newest first', tag: 'Formulas', permission: 'formulas.read' },
   { method: 'post', path: '/api/v1/formulas/{formulaId}/revisions', summary: 'Save a new revision; 409 when baseRevision is no longer the latest (unless force)', tag: 'Formulas', permission: 'formulas.write', request: reviseFormulaSchema, okStatus: 201 },
   { method: 'get', path: '/api/v1/formulas/{formulaId}/revisions/{number}', summary: 'One revision', tag: 'Formulas', permission: 'formulas.read' },
@@ -74,6 +77,7 @@ export const API_OPERATIONS: ApiOperation[] = [
   { method: 'get', path: '/api/v1/trials/{trialId}/variants', summary: 'Variants with their factor levels and predicted chemistry', tag: 'Trials', permission: 'trials.read' },
   { method: 'post', path: '/api/v1/trials/{trialId}/variants', summary: 'Add a hand-made variant (any lines)', tag: 'Trials', permission: 'trials.write', request: manualVariantSchema, okStatus: 201 },
   { method: 'delete', path: '/api/v1/trials/{trialId}/variants/{variantId}', summary: 'Remove a variant (kept on record; the base stays)', tag: 'Trials', permission: 'trials.write' },
+  { method: 'get', path: '/api/v1/trials/{trialId}/variants/{variantId}/label', summary: 'The label of a variant, as for a formula (reference=typical|<formula id>, format=csv|json)', tag: 'Trials', permission: 'trials.read' },
   { method: 'get', path: '/api/v1/trials/{trialId}/measurements', summary: 'Every cook, each beside its prediction', tag: 'Trials', permission: 'trials.read' },
   { method: 'post', path: '/api/v1/trials/{trialId}/measurements', summary: 'Record a cook of a variant (refractometer reading stored raw with its sample temperature)', tag: 'Trials', permission: 'trials.write', request: measurementSchema, okStatus: 201 },
   { method: 'patch', path: '/api/v1/trials/{trialId}/measurements/{measurementId}', summary: 'Correct a cook with a reason (fields sent replace the stored ones; the old values stay in its history); 409 once withdrawn', tag: 'Trials', permission: 'trials.write', request: correctMeasurementSchema },
@@ -119,6 +123,7 @@ export const API_OPERATIONS: ApiOperation[] = [
   { method: 'put', path: '/api/v1/production-versions/{versionId}', summary: 'Always 409: an approved version cannot be replaced', tag: 'Production', permission: 'production.read' },
   { method: 'delete', path: '/api/v1/production-versions/{versionId}', summary: 'Always 409: an approved version cannot be deleted', tag: 'Production', permission: 'production.read' },
   { method: 'get', path: '/api/v1/production-versions/{versionId}/batch-sheet', summary: 'The batch sheet scaled to a kettle or jar count (query: target=total_charge|finished_mass|jar_count, amount, unit, step, stepUnit, altitudeM) with rounding effect, end point for the altitude and QC targets', tag: 'Production', permission: 'production.read' },
+  { method: 'get', path: '/api/v1/production-versions/{versionId}/label', summary: 'The label frozen when the version was approved (computed now, and marked so, for versions approved before labels were frozen); format=csv|json for a download', tag: 'Production', permission: 'production.read' },
   { method: 'get', path: '/api/v1/production-versions/{versionId}/batches', summary: 'Batch records made to this version', tag: 'Production', permission: 'production.read' },
   { method: 'post', path: '/api/v1/production-versions/{versionId}/batches', summary: 'Record a production batch; every reading is checked against the spec; a failed batch needs a disposition and comment (422 without)', tag: 'Production', permission: 'batches.record', request: batchRecordSchema, okStatus: 201 },
   { method: 'get', path: '/api/v1/batches/{batchId}', summary: 'One batch record with where it stands (passed, on hold, discarded, released, rejected), its re-tests and decisions, its spec and audit events', tag: 'Production', permission: 'production.read' },

@@ -136,6 +136,21 @@ export function missingNutrients(fields: Pick<IngredientLabelFields, 'nutrients'
   return REQUIRED_NUTRIENTS.filter((k) => fields.nutrients[k] == null);
 }
 
+/** A nutrient's own name with its unit, for a form box or a list ("Sugars (g)"). */
+export function nutrientLabel(k: NutrientKey): string {
+  const { label, unit } = NUTRIENT_LABELS[k];
+  const name = label.startsWith('of which ') ? label.slice('of which '.length).replace(/^\w/, (c) => c.toUpperCase()) : label;
+  return `${name} (${unit})`;
+}
+
+/** Words for the library and the form: "Complete", "Not entered", or which required nutrients are unknown. */
+export function completenessText(fields: Pick<IngredientLabelFields, 'nutrients'>): { complete: boolean; text: string } {
+  const missing = missingNutrients(fields);
+  if (!missing.length) return { complete: true, text: 'Complete' };
+  if (missing.length === REQUIRED_NUTRIENTS.length) return { complete: false, text: 'Not entered' };
+  return { complete: false, text: `Unknown: ${missing.map((k) => nutrientLabel(k).toLowerCase()).join(', ')}` };
+}
+
 /** Keeps only the allergen keys of our lists, once each, in the lists' order (stored data may predate a list change). */
 function known<T extends string>(list: readonly T[], values: readonly string[]): T[] {
   return list.filter((k) => values.includes(k));

@@ -1,7 +1,12 @@
 /** Ingredient library writes, shared by the server actions and the API. */
+import { wrap } from '@mikro-orm/core';
 import type { EntityManager } from '@mikro-orm/postgresql';
 import { getEm } from '@/lib/db';
 import { Ingredient } from '@/entities';
+import type { IngredientEntity } from '@/entities/Ingredient';
+import { ValidationFailed } from '@/lib/api/errors';
+import { parseIngredientCsv } from './csv';
+import { listIngredients } from './queries';
 import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
 import { TYPICAL_INGREDIENTS } from '@/lib/chemistry';
 import type { IngredientInput } from './schema';
@@ -47,23 +52,71 @@ function columns(input: IngredientInput) {
 
 export async function createIngredient(actor: Actor, input: IngredientInput): Promise<{ ingredientId: string }> {
   const em = await getEm();
-  const row = em.create(Ingredient, { ...columns(input), workspace: actor.workspaceId, origin: 'custom', updatedBy: actor.userId } as never) as unknown as { id: string };
+  const row = createRow(em, actor, input);
   await em.flush();
   return { ingredientId: row.id };
 }
 
+function createRow(em: EntityManager, actor: Actor, input: IngredientInput): { id: string } {
+  return em.create(Ingredient, { ...columns(input), workspace: actor.workspaceId, origin: 'custom', updatedBy: actor.userId } as never) as unknown as { id: string };
+}
+
 /** Editing a handbook entry makes it the workspace's own value: its handbook source no longer applies. */
-export async function updateIngredient(actor: Actor, id: string, input: IngredientInput): Promise<{ ingredientId: string }> {
-  const em = await getEm();
-  const row = await em.findOne(Ingredient, { ...inWorkspace(actor), id });
-  if (!row) throw notFound('ingredient');
-  em.assign(row, { ...columns(input), updatedBy: actor.userId } as never);
+function assignRow(row: IngredientEntity, actor: Actor, input: IngredientInput): void {
+  wrap(row).assign({ ...columns(input), updatedBy: actor.userId } as never);
   if (row.origin === 'typical') {
     row.origin = 'edited';
     row.source = null;
   }
+}
+
+export async function updateIngredient(actor: Actor, id: string, input: IngredientInput): Promise<{ ingredientId: string }> {
+  const em = await getEm();
+  const row = await em.findOne(Ingredient, { ...inWorkspace(actor), id });
+  if (!row) throw notFound('ingredient');
+  assignRow(row, actor, input);
   await em.flush();
   return { ingredientId: row.id };
+}
+
+/** True when saving the input would change nothing (an exported row imported back keeps its origin and source). */
+function sameValues(row: IngredientEntity, input: IngredientInput): boolean {
+  const stored = row as unknown as Record<string, unknown>;
+  return Object.entries(columns(input)).every(([k, v]) => JSON.stringify(stored[k] ?? null) === JSON.stringify(v ?? null));
+}
+
+/**
+ * All-or-nothing CSV import: every row is checked before anything is written, then one transaction
+ * replaces the values of the ingredients the rows name (by id, or by name ignoring case; archived
+ * ones too, so none is duplicated) and adds the rest as the workspace's own.
+ */
+export async function importIngredientsCsv(actor: Actor, text: string): Promise<{ created: number; updated: number; unchanged: number }> {
+  const { rows, errors } = parseIngredientCsv(text, await listIngredients(actor, { archived: 'include' }));
+  if (errors.length) {
+    const fields: Record<string, string[]> = {};
+    for (const e of errors) (fields[`row ${e.row}${e.column ? `, ${e.column}` : ''}`] ??= []).push(e.message);
+    throw new ValidationFailed(`Nothing was imported: ${errors.length} problem${errors.length > 1 ? 's' : ''} in the file.`, fields);
+  }
+  const em = await getEm();
+  return em.transactional(async (tx) => {
+    const ids = rows.flatMap((r) => (r.ingredientId ? [r.ingredientId] : []));
+    const existing = new Map((await tx.find(Ingredient, { ...inWorkspace(actor), id: { $in: ids } })).map((r) => [r.id, r]));
+    let created = 0;
+    let updated = 0;
+    let unchanged = 0;
+    for (const { ingredientId, input } of rows) {
+      const row = ingredientId ? existing.get(ingredientId) : undefined;
+      if (row && sameValues(row, input)) unchanged++;
+      else if (row) {
+        assignRow(row, actor, input);
+        updated++;
+      } else {
+        createRow(tx, actor, input);
+        created++;
+      }
+    }
+    return { created, updated, unchanged };
+  });
 }
 
 /** Archived ingredients stay in old revisions (which hold a snapshot) but cannot be picked for new lines. */

@@ -115,7 +115,7 @@ function incompleteParts(eu: EuDeclaration, us: UsNutritionFacts, claims: LabelC
   if (us.calories.incomplete && us.calories.note) out.push({ part: 'US facts: Calories', reason: us.calories.note });
   for (const r of us.rows) if (r.incomplete && r.note) out.push({ part: `US facts: ${r.name}`, reason: r.note });
   for (const c of claims) if (c.holds === null) out.push({ part: `Claim: ${c.claim}`, reason: 'A figure the claim needs is not known.' });
-  for (const a of additives) if (a.status === 'unknown') out.push({ part: `Additive: ${a.name}`, reason: 'Its amount in the product is not known.' });
+  for (const a of additives) if (a.status === 'unknown') out.push({ part: `Additive: ${a.name}`, reason: a.note ?? 'Its limit cannot be checked with what is known.' });
   return out;
 }
 

@@ -16,7 +16,7 @@ import type { FormulaSettingsInput, RevisionLine } from '@/lib/formulas/schema';
 import { TYPICAL_JAM_REFERENCE, type ClaimReference } from './claims';
 import type { IngredientLabelData } from './types';
 import { claimReferenceFrom, labelForLines, type LabelOptions, type LabelOutcome } from './index';
-import type { Label } from './label';
+import { labelChanges, type Label, type LabelChange } from './label';
 import type { LabelQuery, LabelView } from './schema';
 
 /** The library's label data for each stored line, in line order; null for an ingredient no longer there. */
@@ -78,4 +78,31 @@ export async function versionLabel(actor: Actor, versionId: string): Promise<Lab
   if (frozen) return { label: frozen, problem: null, kept: 'frozen', reference: { choice: 'typical', name: frozen.claims.reference ?? TYPICAL_JAM_REFERENCE.name }, subject };
   const outcome = await labelOfStored(em, actor, v.settings, v.lines);
   return view(outcome, 'not_frozen', subject, { choice: 'typical', name: TYPICAL_JAM_REFERENCE.name });
+}
+
+export interface LabelComparison {
+  baselineVersion: number;
+  /** How the baseline's label was kept: frozen at approval, or computed now. */
+  baselineKept: LabelView['kept'];
+  changes: LabelChange[];
+  /** Set when either label cannot be computed; then there are no changes to show. */
+  problem: string | null;
+}
+
+/**
+ * The label a promotion puts into production beside the label of the version it replaces: the
+ * proposed variant's (or, once approved, the new version's frozen label) against the baseline's.
+ */
+export async function promotionLabelComparison(
+  actor: Actor,
+  request: { productionFormulaId: string | null; formula: { settings: FormulaSettingsInput; lines: RevisionLine[] } | null; baseline: { id: string; version: number } | null },
+): Promise<LabelComparison | null> {
+  if (!request.baseline || !request.formula) return null;
+  const before = await versionLabel(actor, request.baseline.id);
+  const after = request.productionFormulaId
+    ? await versionLabel(actor, request.productionFormulaId)
+    : view(await labelOfStored(await getEm(), actor, request.formula.settings, request.formula.lines), 'live', { kind: 'variant', id: '', name: '' }, null);
+  const base = { baselineVersion: request.baseline.version, baselineKept: before.kept };
+  if (!before.label || !after.label) return { ...base, changes: [], problem: before.problem ?? after.problem };
+  return { ...base, changes: labelChanges(before.label, after.label), problem: null };
 }

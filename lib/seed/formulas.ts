@@ -6,6 +6,11 @@
 import type { EntityManager } from '@mikro-orm/postgresql';
 import { Ingredient } from '@/entities';
 import { createFormula, reviseFormula } from '@/lib/formulas/mutations';
+import { updateIngredient } from '@/lib/ingredients/mutations';
+import { STARTER_LABEL_DATA } from '@/lib/ingredients/starter-composition';
+import type { IngredientLabelFields } from '@/lib/ingredients/label-data';
+import type { IngredientInput } from '@/lib/ingredients/schema';
+import { findTypicalIngredient } from '@/lib/chemistry';
 import type { CreateFormulaInput } from '@/lib/formulas/schema';
 import type { Actor } from '@/lib/permissions';
 
@@ -19,10 +24,43 @@ function input(ids: Record<string, string>, name: string, settings: CreateFormul
   return { name, description, settings, lines: linesOf(ids, lines), note };
 }
 
+/**
+ * The demo kitchen's own values where the food table has gaps (SR28 gives no sugars for pectin, no
+ * sugars or fibre for blackcurrants), so every ingredient of a seeded formula has a complete
+ * composition. Invented supplier sheets and kitchen analyses, plausible for the products.
+ */
+const DEMO_OWN_VALUES: Record<string, { nutrients: Partial<IngredientLabelFields['nutrients']>; source: string }> = {
+  pectin_hm_rapid_150: {
+    nutrients: { waterG: 9, energyKj: 790, energyKcal: 195, proteinG: 0.5, fatG: 0.2, saturatesG: 0.05, carbohydrateG: 88, sugarsG: 2, sucroseG: 2, glucoseG: 0, fructoseG: 0, fibreG: 80, sodiumMg: 280 },
+    source: 'Supplier specification sheet, Tarnbeck Ingredients, HM 150 rapid set (demo)',
+  },
+  pectin_lm_amidated: {
+    nutrients: { waterG: 10, energyKj: 760, energyKcal: 188, proteinG: 0.6, fatG: 0.2, saturatesG: 0.05, carbohydrateG: 86, sugarsG: 1.5, sucroseG: 1.5, glucoseG: 0, fructoseG: 0, fibreG: 79, sodiumMg: 150 },
+    source: 'Supplier specification sheet, Tarnbeck Ingredients, LM amidated (demo)',
+  },
+  blackcurrant: {
+    nutrients: { sugarsG: 8.1, sucroseG: 0.6, glucoseG: 3.4, fructoseG: 4.1, fibreG: 4.6 },
+    source: 'Hollowmere kitchen laboratory, lot BC-2026-07 (demo); other values USDA SR28 NDB 09083',
+  },
+};
+
+async function completeDemoComposition(developer: Actor, ids: Record<string, string>): Promise<void> {
+  for (const [key, own] of Object.entries(DEMO_OWN_VALUES)) {
+    const typical = findTypicalIngredient(key);
+    if (!typical) continue;
+    const { key: _key, source: _source, ...composition } = typical;
+    void _key; void _source;
+    const starter = STARTER_LABEL_DATA[key];
+    const labelData: IngredientLabelFields = { ...starter, nutrients: { ...starter.nutrients, ...own.nutrients }, source: own.source };
+    await updateIngredient(developer, ids[key], { ...composition, notes: null, labelData } as IngredientInput);
+  }
+}
+
 export async function seedDemoFormulas(em: EntityManager, developer: Actor): Promise<number> {
   const rows = await em.find(Ingredient, { workspace: developer.workspaceId, typicalKey: { $ne: null } });
   const ids = Object.fromEntries(rows.map((r) => [r.typicalKey!, r.id]));
   const today = '2026-11-20';
+  await completeDemoComposition(developer, ids);
 
   const strawberry = await createFormula(
     developer,
@@ -64,5 +102,15 @@ export async function seedDemoFormulas(em: EntityManager, developer: Actor): Pro
       ['bitter_orange', 800], ['sucrose', 1200], ['water', 900], ['lemon_juice', 60],
     ], 'Thick-cut, long boil'),
   );
-  return 5;
+
+  // Potassium sorbate: 1.5 g gives about 0.91 g sorbic acid per kg of the about 1.23 kg made, near but under
+  // the 1,000 mg/kg (as free acid) that Regulation (EC) 1333/2008 Annex II allows low-sugar jams (memory);
+  // less sugar means less product, and the same dose then crosses the limit.
+  await createFormula(
+    developer,
+    input(ids, 'Strawberry spread, less sugar', { productClass: 'reduced_sugar_spread', ruleSet: 'eu', ruleDate: today, targetSolidsPct: 42, jarNetFillG: 250, altitudeM: 120, plannedPh: 3.3, preservation: 'preservative' }, [
+      ['strawberry', 1000], ['sucrose', 420], ['pectin_lm_amidated', 12], ['calcium_citrate', 1.5], ['citric_acid_anhydrous', 3], ['potassium_sorbate', 1.5],
+    ], 'Low-methoxyl set at 42 % solids, kept with sorbate', 'Deli line with about a third less sugar than the house strawberry jam; the sorbate dose sits close to its limit.'),
+  );
+  return 6;
 }

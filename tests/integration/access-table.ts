@@ -105,6 +105,15 @@ export const ROUTE_CASES: RouteCase[] = [
 const READ_FORMULAS: Role[] = ['admin', 'developer', 'head_of_product'];
 const WRITE_FORMULAS: Role[] = ['admin', 'developer'];
 const CUSTOM_INGREDIENT = { name: 'Matrix rhubarb', kind: 'fruit', solidsPct: 5, pectinLevel: 'low', euFruitGroup: 'general' };
+/** With label data, so the fuzz test reaches the nested nutrient, allergen and additive fields. */
+const CUSTOM_INGREDIENT_WITH_LABEL = {
+  ...CUSTOM_INGREDIENT,
+  labelData: {
+    labelName: 'rhubarb', nutrients: { waterG: 93, proteinG: 0.9, fatG: 0.2, carbohydrateG: 4.5, sodiumMg: 4 },
+    euAllergens: ['celery'], usAllergens: ['milk'], sulphiteMgPerKg: 0, additive: { eNumber: 'E440', functionalClass: 'gelling_agent' },
+    isAddedWater: false, source: 'Supplier sheet 7',
+  },
+};
 
 async function ingredientIdOf(a: WorkspaceFixture): Promise<string> {
   return (await starterIds(a)).strawberry;
@@ -112,8 +121,14 @@ async function ingredientIdOf(a: WorkspaceFixture): Promise<string> {
 
 ROUTE_CASES.push(
   { route: 'GET /api/v1/ingredients', allowed: READ_FORMULAS, otherWorkspace: 'own-data' },
-  { route: 'POST /api/v1/ingredients', allowed: WRITE_FORMULAS, otherWorkspace: 'own-data', prepare: () => ({ body: CUSTOM_INGREDIENT }) },
+  { route: 'POST /api/v1/ingredients', allowed: WRITE_FORMULAS, otherWorkspace: 'own-data', prepare: () => ({ body: CUSTOM_INGREDIENT_WITH_LABEL }) },
   { route: 'GET /api/v1/ingredients/export', allowed: READ_FORMULAS, otherWorkspace: 'own-data' },
+  {
+    route: 'POST /api/v1/ingredients/import',
+    allowed: WRITE_FORMULAS,
+    otherWorkspace: 'own-data',
+    prepare: () => ({ body: { csv: 'name,kind,soluble_solids_pct,water_g,eu_allergens\nMatrix damson,fruit,14,80,sulphites\n' } }),
+  },
   { route: 'GET /api/v1/ingredients/[ingredientId]', allowed: READ_FORMULAS, otherWorkspace: 404, prepare: async (a) => ({ params: { ingredientId: await ingredientIdOf(a) } }) },
   {
     route: 'PATCH /api/v1/ingredients/[ingredientId]',
@@ -133,6 +148,7 @@ ROUTE_CASES.push(
   { route: 'GET /api/v1/formulas', allowed: READ_FORMULAS, otherWorkspace: 'own-data' },
   { route: 'POST /api/v1/formulas', allowed: WRITE_FORMULAS, otherWorkspace: 422, prepare: async (a) => ({ body: await strawberryJamInput(a) }) },
   { route: 'GET /api/v1/formulas/[formulaId]', allowed: READ_FORMULAS, otherWorkspace: 404, prepare: async (a) => ({ params: { formulaId: await createFixtureFormula(a) } }) },
+  { route: 'GET /api/v1/formulas/[formulaId]/label', allowed: READ_FORMULAS, otherWorkspace: 404, prepare: async (a) => ({ params: { formulaId: await createFixtureFormula(a) } }) },
   { route: 'GET /api/v1/formulas/[formulaId]/revisions', allowed: READ_FORMULAS, otherWorkspace: 404, prepare: async (a) => ({ params: { formulaId: await createFixtureFormula(a) } }) },
   {
     route: 'POST /api/v1/formulas/[formulaId]/revisions',
@@ -203,7 +219,7 @@ export const ACTION_CASES: ActionCase[] = [
 ];
 
 ACTION_CASES.push(
-  { action: 'lib/ingredients/actions.ts#saveIngredientAction', allowed: WRITE_FORMULAS, otherWorkspace: 'own-data', args: () => [null, CUSTOM_INGREDIENT] },
+  { action: 'lib/ingredients/actions.ts#saveIngredientAction', allowed: WRITE_FORMULAS, otherWorkspace: 'own-data', args: () => [null, CUSTOM_INGREDIENT_WITH_LABEL] },
   {
     action: 'lib/ingredients/actions.ts#archiveIngredientAction',
     allowed: WRITE_FORMULAS,

@@ -1,0 +1,193 @@
+/**
+ * The ingredient library in and out as CSV. One column table serves both ways, so an exported file
+ * imports back unchanged. Import is all-or-nothing: every row is checked first, errors are reported
+ * by row and column, and nothing lands unless every row is good. A row replaces the values of the
+ * ingredient its id names or, without an id, the one its name matches (ignoring case); any other row adds one.
+ */
+import Papa from 'papaparse';
+import { z } from 'zod';
+import { toCsv } from '@/lib/csv';
+import { parseDecimal } from '@/lib/input';
+import { NUTRIENT_KEYS, type NutrientKey } from '@/lib/label/types';
+import { ingredientInputSchema, type IngredientInput, type IngredientView } from './schema';
+
+/** How a nutrient is named in a CSV header. */
+const NUTRIENT_COLUMNS: Record<NutrientKey, string> = {
+  waterG: 'water_g', energyKcal: 'energy_kcal', energyKj: 'energy_kj', proteinG: 'protein_g', fatG: 'fat_g',
+  saturatesG: 'saturates_g', carbohydrateG: 'carbohydrate_g', sugarsG: 'sugars_g', sucroseG: 'sucrose_g',
+  glucoseG: 'glucose_g', fructoseG: 'fructose_g', fibreG: 'fibre_g', polyolsG: 'polyols_g',
+  organicAcidsG: 'organic_acids_g', sodiumMg: 'sodium_mg',
+};
+
+type Cell = string | number | null;
+interface Column {
+  header: string;
+  /** The cell of an ingredient on export. */
+  out: (v: IngredientView) => Cell;
+  /** Writes the cell into the import candidate; absent for columns that are exported for reading only. */
+  in?: (raw: string, into: Candidate) => string | null;
+  /** Where the schema's issues for this column point (first path segments, joined by "."). */
+  path?: string;
+}
+type Candidate = Record<string, unknown> & { labelData: Record<string, unknown> & { nutrients: Record<string, unknown> } };
+
+const blankToNull = (raw: string) => (raw === '' ? null : raw);
+function numberCell(raw: string): { value: number | null; problem: string | null } {
+  if (raw === '') return { value: null, problem: null };
+  const n = parseDecimal(raw);
+  return Number.isFinite(n) ? { value: n, problem: null } : { value: null, problem: `“${raw}” is not a number.` };
+}
+const yes = (raw: string) => ['yes', 'true', '1', 'y'].includes(raw.toLowerCase());
+const list = (raw: string) => raw.split(/[;,]/).map((s) => s.trim()).filter(Boolean);
+
+function plain(header: string, field: keyof IngredientInput, out: (v: IngredientView) => Cell): Column {
+  return { header, out, path: field, in: (raw, c) => { (c as Record<string, unknown>)[field] = blankToNull(raw); return null; } };
+}
+function numeric(header: string, field: keyof IngredientInput, out: (v: IngredientView) => Cell): Column {
+  return { header, out, path: field, in: (raw, c) => { const n = numberCell(raw); (c as Record<string, unknown>)[field] = n.value; return n.problem; } };
+}
+function label(header: string, field: string, out: (v: IngredientView) => Cell, read: (raw: string) => unknown): Column {
+  return { header, out, path: `labelData.${field}`, in: (raw, c) => { c.labelData[field] = read(raw); return null; } };
+}
+
+export const INGREDIENT_CSV_COLUMNS: Column[] = [
+  { header: 'name', out: (v) => v.name, path: 'name', in: (raw, c) => { c.name = raw; return null; } },
+  { header: 'kind', out: (v) => v.kind, path: 'kind', in: (raw, c) => { c.kind = raw; return null; } },
+  numeric('soluble_solids_pct', 'solidsPct', (v) => v.solidsPct),
+  numeric('ph_min', 'phMin', (v) => v.phMin ?? null),
+  numeric('ph_max', 'phMax', (v) => v.phMax ?? null),
+  numeric('acid_pct_as_citric', 'acidPct', (v) => v.acidPct ?? null),
+  plain('pectin_level', 'pectinLevel', (v) => v.pectinLevel ?? null),
+  plain('pectin_type', 'pectinType', (v) => v.pectinType ?? null),
+  numeric('pectin_grade', 'pectinGrade', (v) => v.pectinGrade ?? null),
+  plain('sweetener_type', 'sweetenerType', (v) => v.sweetenerType ?? null),
+  plain('acid_type', 'acidType', (v) => v.acidType ?? null),
+  plain('eu_fruit_group', 'euFruitGroup', (v) => v.euFruitGroup ?? null),
+  plain('us_fruit_group', 'usFruitGroup', (v) => v.usFruitGroup ?? null),
+  { header: 'calcium_source', out: (v) => (v.calciumSource ? 'yes' : ''), path: 'calciumSource', in: (raw, c) => { c.calciumSource = yes(raw); return null; } },
+  label('label_name', 'labelName', (v) => v.labelData.labelName, blankToNull),
+  ...NUTRIENT_KEYS.map((k): Column => ({
+    header: NUTRIENT_COLUMNS[k],
+    out: (v) => v.labelData.nutrients[k],
+    path: `labelData.nutrients.${k}`,
+    in: (raw, c) => { const n = numberCell(raw); c.labelData.nutrients[k] = n.value; return n.problem; },
+  })),
+  label('eu_allergens', 'euAllergens', (v) => v.labelData.euAllergens.join(';'), list),
+  label('us_allergens', 'usAllergens', (v) => v.labelData.usAllergens.join(';'), list),
+  {
+    header: 'sulphite_mg_per_kg', out: (v) => v.labelData.sulphiteMgPerKg, path: 'labelData.sulphiteMgPerKg',
+    in: (raw, c) => { const n = numberCell(raw); c.labelData.sulphiteMgPerKg = n.value; return n.problem; },
+  },
+  { header: 'e_number', out: (v) => v.labelData.additive?.eNumber ?? null, path: 'labelData.additive.eNumber', in: (raw, c) => { c.eNumber = raw; return null; } },
+  { header: 'additive_class', out: (v) => v.labelData.additive?.functionalClass ?? null, path: 'labelData.additive.functionalClass', in: (raw, c) => { c.additiveClass = raw; return null; } },
+  label('added_water', 'isAddedWater', (v) => (v.labelData.isAddedWater ? 'yes' : ''), yes),
+  label('composition_source', 'source', (v) => v.labelData.source, blankToNull),
+  plain('notes', 'notes', (v) => v.notes),
+  // Exported for reading; the library sets them itself.
+  { header: 'origin', out: (v) => v.origin },
+  { header: 'source', out: (v) => v.source },
+  { header: 'updated_at', out: (v) => v.updatedAt },
+  // Read by the import itself: which ingredient a row replaces (blank: matched by name, or added).
+  { header: 'id', out: (v) => v.id },
+];
+
+export function ingredientsToCsv(rows: IngredientView[]): string {
+  return toCsv(rows, INGREDIENT_CSV_COLUMNS.map((c) => ({ header: c.header, value: c.out })));
+}
+
+/** At most as many rows as the library page lists. */
+export const MAX_INGREDIENT_IMPORT_ROWS = 1000;
+export const importIngredientsSchema = z.object({ csv: z.string({ error: 'Send the CSV text.' }).min(1, 'Send the CSV text.').max(2_000_000, 'At most 2 MB.') }).strict();
+
+export interface CsvRowError {
+  row: number;
+  column: string;
+  message: string;
+}
+
+const INPUT_FIELDS = [
+  'name', 'kind', 'solidsPct', 'phMin', 'phMax', 'acidPct', 'pectinLevel', 'pectinType', 'pectinGrade', 'sweetenerType', 'acidType',
+  'euFruitGroup', 'usFruitGroup', 'calciumSource', 'notes',
+] as const satisfies ReadonlyArray<keyof IngredientInput>;
+
+/** An ingredient's stored values as an import starts from them, so a column left out of the file keeps its value. */
+function candidateOf(v: IngredientView | undefined): Candidate {
+  if (!v) return { labelData: { nutrients: {} } };
+  const { additive, ...labelData } = v.labelData;
+  const stored = v as unknown as Record<string, unknown>;
+  const values = Object.fromEntries(INPUT_FIELDS.filter((k) => stored[k] !== undefined).map((k) => [k, stored[k]]));
+  return { ...values, labelData: { ...labelData, nutrients: { ...labelData.nutrients } }, eNumber: additive?.eNumber ?? '', additiveClass: additive?.functionalClass ?? '' };
+}
+
+/** A checked row and the library ingredient it replaces (null: a new one). */
+export interface IngredientCsvRow {
+  ingredientId: string | null;
+  input: IngredientInput;
+}
+
+/**
+ * Pure: the file's rows as checked ingredient inputs, or every error found (then no rows). A row
+ * naming an ingredient of `library` starts from its values: only the file's columns change it.
+ */
+export function parseIngredientCsv(text: string, library: IngredientView[] = []): { rows: IngredientCsvRow[]; errors: CsvRowError[] } {
+  const parsed = Papa.parse<Record<string, string>>(text.replace(/^\uFEFF/, ''), { header: true, skipEmptyLines: 'greedy', transformHeader: (h) => h.trim().toLowerCase() });
+  const errors: CsvRowError[] = [];
+  const headers = parsed.meta.fields ?? [];
+  const known = new Set(INGREDIENT_CSV_COLUMNS.map((c) => c.header));
+  for (const h of headers) if (!known.has(h)) errors.push({ row: 1, column: h, message: `Unknown column “${h}”. Known columns: ${[...known].join(', ')}.` });
+  for (const required of ['name', 'kind', 'soluble_solids_pct']) if (!headers.includes(required)) errors.push({ row: 1, column: required, message: `The column “${required}” is required.` });
+  if (new Set(headers).size !== headers.length) errors.push({ row: 1, column: '', message: 'A column appears twice.' });
+  for (const e of parsed.errors) errors.push({ row: (e.row ?? 0) + 2, column: '', message: e.message });
+  if (errors.length) return { rows: [], errors };
+  if (parsed.data.length === 0) return { rows: [], errors: [{ row: 2, column: '', message: 'The file has a header but no rows.' }] };
+  if (parsed.data.length > MAX_INGREDIENT_IMPORT_ROWS) return { rows: [], errors: [{ row: MAX_INGREDIENT_IMPORT_ROWS + 2, column: '', message: `At most ${MAX_INGREDIENT_IMPORT_ROWS} rows per import.` }] };
+
+  const columns = INGREDIENT_CSV_COLUMNS.filter((c) => c.in && headers.includes(c.header));
+  const byPath = new Map(INGREDIENT_CSV_COLUMNS.filter((c) => c.path).map((c) => [c.path!, c.header]));
+  const rows: IngredientCsvRow[] = [];
+  const seen = new Map<string, number>();
+  const byId = new Map(library.map((v) => [v.id, v]));
+  const byName = new Map<string, IngredientView[]>();
+  for (const v of library) byName.set(v.name.toLowerCase(), [...(byName.get(v.name.toLowerCase()) ?? []), v]);
+  parsed.data.forEach((record, i) => {
+    const rowNumber = i + 2; // the header is row 1, as a spreadsheet shows it
+    const id = (record.id ?? '').trim();
+    const named = byName.get((record.name ?? '').trim().toLowerCase()) ?? [];
+    const target = id ? byId.get(id) : named.length === 1 ? named[0] : undefined;
+    if (id && !target) {
+      errors.push({ row: rowNumber, column: 'id', message: 'No ingredient of this library has this id; leave it blank to add one.' });
+      return;
+    }
+    if (!id && named.length > 1) {
+      errors.push({ row: rowNumber, column: 'name', message: `${named.length} ingredients are called “${named[0].name}”: give the id column to say which.` });
+      return;
+    }
+    const candidate = candidateOf(target);
+    let rowOk = true;
+    for (const col of columns) {
+      const problem = col.in!((record[col.header] ?? '').trim(), candidate);
+      if (problem) {
+        errors.push({ row: rowNumber, column: col.header, message: problem });
+        rowOk = false;
+      }
+    }
+    const { eNumber, additiveClass, ...input } = candidate;
+    input.labelData.additive = eNumber || additiveClass ? { eNumber, functionalClass: additiveClass } : null;
+    if (!rowOk) return;
+    const result = ingredientInputSchema.safeParse(input);
+    if (!result.success) {
+      for (const issue of result.error.issues) {
+        const path = issue.path.map(String);
+        const column = [3, 2, 1].map((n) => byPath.get(path.slice(0, n).join('.'))).find(Boolean) ?? path.join('.');
+        errors.push({ row: rowNumber, column, message: issue.message });
+      }
+      return;
+    }
+    const key = target ? target.id : result.data.name.toLowerCase();
+    const first = seen.get(key);
+    if (first) errors.push({ row: rowNumber, column: target ? 'id' : 'name', message: `Row ${first} already gives this ingredient.` });
+    else seen.set(key, rowNumber);
+    rows.push({ ingredientId: target?.id ?? null, input: result.data });
+  });
+  return { rows: errors.length ? [] : rows, errors };
+}

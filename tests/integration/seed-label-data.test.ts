@@ -1,0 +1,47 @@
+/** The demo seed gives every ingredient of its formulas a complete composition, and one spread near its sorbate limit. */
+import { describe, it, expect, beforeAll } from 'vitest';
+import './harness';
+import { getEm } from '@/lib/db';
+import { seedDemo, type SeedReport } from '@/lib/seed/demo';
+import { Ingredient } from '@/entities';
+import { labelDataOf } from '@/lib/ingredients/queries';
+import { missingNutrients } from '@/lib/ingredients/label-data';
+import { computeFormula } from '@/lib/formulas/compute';
+import type { FormulaSettingsInput, RevisionLine } from '@/lib/formulas/schema';
+
+let report: SeedReport;
+type Latest = { name: string; settings: FormulaSettingsInput; lines: RevisionLine[] };
+let latest: Latest[];
+
+beforeAll(async () => {
+  report = await seedDemo(await getEm());
+  const em = await getEm();
+  latest = await em.getConnection().execute(
+    `select distinct on (r.formula_id) f.name, r.settings, r.lines from formula_revisions r join formulas f on f.id = r.formula_id where r.workspace_id = ? order by r.formula_id, r.number desc`,
+    [report.workspaceId],
+  );
+}, 120_000);
+
+describe('demo seed label data', () => {
+  it('every ingredient used by a seeded formula has a complete composition', async () => {
+    const ids = [...new Set(latest.flatMap((f) => f.lines.map((l) => l.ingredientId)))];
+    expect(ids.length).toBeGreaterThan(8);
+    const rows = await (await getEm()).find(Ingredient, { workspace: report.workspaceId, id: { $in: ids } });
+    expect(rows).toHaveLength(ids.length);
+    for (const row of rows) expect(missingNutrients(labelDataOf(row as unknown as Record<string, unknown>)), row.name).toEqual([]);
+  });
+
+  it('seeds one reduced-sugar spread with potassium sorbate close under 1,000 mg/kg as sorbic acid', () => {
+    const spread = latest.find((f) => f.name === 'Strawberry spread, less sugar');
+    expect(spread).toBeDefined();
+    expect(spread!.settings).toMatchObject({ productClass: 'reduced_sugar_spread', preservation: 'preservative' });
+    const outcome = computeFormula(spread!.settings, spread!.lines);
+    if (!outcome.ok) throw new Error(outcome.message);
+    const sorbate = spread!.lines.find((l) => l.ingredient.name.startsWith('Potassium sorbate'))!;
+    // Sorbic acid 112.13 g/mol in potassium sorbate 150.22 g/mol (IUPAC standard atomic weights).
+    const sorbicMgPerKg = (sorbate.quantity * (112.13 / 150.22) * 1000) / (outcome.computation.massBalance.finishedMassG / 1000);
+    // Regulation (EC) 1333/2008 Annex II, low-sugar jams: E 200–213 at most 1,000 mg/kg as free acid (memory).
+    expect(sorbicMgPerKg).toBeGreaterThan(850);
+    expect(sorbicMgPerKg).toBeLessThan(1000);
+  });
+});
