@@ -9,6 +9,7 @@ import type { FormulaSettingsInput, RevisionLine } from '../lib/formulas/schema'
 import type { ProductionProcess } from '../lib/production/schema';
 import type { QcSpec } from '../lib/chemistry/qc';
 import type { ComplianceReport } from '../lib/chemistry/compliance';
+import type { Label } from '../lib/label/label';
 
 /**
  * One approved version of a product: a frozen snapshot of lines, process, rules and QC spec.
@@ -28,6 +29,8 @@ export const ProductionFormula = defineEntity({
     process: p.json<ProductionProcess>(),
     compliance: p.json<ComplianceReport>(),
     spec: p.json<QcSpec>(),
+    /** The label computed at approval; null for versions approved before labels were frozen. */
+    label: p.json<Label>().nullable(),
     sourceTrial: p.manyToOne(Trial),
     sourceVariantId: p.uuid(),
     sourceVariantLabel: p.string().length(8),

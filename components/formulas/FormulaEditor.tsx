@@ -21,6 +21,7 @@ import { Notice } from '@/components/ui/Notice';
 import { BrixHelper } from './BrixHelper';
 import { ResultsPanel } from './ResultsPanel';
 import { ScalePanel } from './ScalePanel';
+import { LiveLabel } from '@/components/label/LiveLabel';
 import { KeyResultsBar } from './editor/KeyResultsBar';
 import { LineRow } from './editor/LineRow';
 import { UnitToggle } from './editor/UnitToggle';
@@ -518,6 +519,10 @@ export function FormulaEditor({ mode, initial, ingredients, massUnits, temperatu
           <BrixHelper temperatureUnit={tempUnit} />
         </Card>
       </div>
+
+      <Card>
+        <LiveLabel settings={settingsInput} outcome={outcome} lines={computed.lines} />
+      </Card>
     </div>
   );
 }

@@ -3,12 +3,13 @@ import type { FormulaDetail } from '@/lib/formulas/schema';
 import { formatDateTime } from '@/lib/format/dates';
 
 /** Name, revision and the formula's sub-pages. */
-export function FormulaHeader({ formula, active }: { formula: FormulaDetail; active: 'editor' | 'history' | 'print' }) {
+export function FormulaHeader({ formula, active }: { formula: FormulaDetail; active: 'editor' | 'history' | 'print' | 'label' }) {
   const base = `/formulas/${formula.id}`;
   const tabs = [
     { key: 'editor', href: base, label: 'Formula' },
     { key: 'history', href: `${base}/history`, label: 'History' },
     { key: 'print', href: `${base}/print`, label: 'Print view' },
+    { key: 'label', href: `${base}/label`, label: 'Label' },
   ] as const;
   const c = formula.current;
   return (

@@ -10,6 +10,7 @@ import { AuditEvent, BatchDecision, BatchRecord, Membership, Product, Production
 import { authorizeDecision, authorizeWithdrawal, inWorkspace, notFound, type Actor } from '@/lib/permissions';
 import { Conflict, ValidationFailed } from '@/lib/errors';
 import { computeFormula } from '@/lib/formulas/compute';
+import { labelOfStored } from '@/lib/label/queries';
 import { checkBatchAgainstSpec, type QcCheck, type QcSpec } from '@/lib/chemistry';
 import { getTrialComparison } from '@/lib/results/trial-comparison';
 import { trialCode } from '@/lib/trials/access';
@@ -178,6 +179,8 @@ export async function decidePromotion(actor: Actor, requestId: string, input: De
       productId = product.id;
       request.product = productId as never;
     }
+    // The label is frozen with the version; one the label modules cannot compute stays null and is computed on read.
+    const labelOutcome = await labelOfStored(tx, actor, variant.settings, variant.lines);
     // Serialise versioning per product; the one-current index is the backstop.
     await lockForTransaction(tx, `product-version:${productId}`);
     const current = await tx.findOne(ProductionFormula, { ...inWorkspace(actor), product: productId, status: 'current' });
@@ -193,6 +196,7 @@ export async function decidePromotion(actor: Actor, requestId: string, input: De
     const created = tx.create(ProductionFormula, {
       workspace: actor.workspaceId, product: productId, version, status: 'current',
       settings: variant.settings, lines: variant.lines, process: request.process, compliance: computation.compliance, spec: request.spec as QcSpec,
+      label: labelOutcome.ok ? labelOutcome.label : null,
       sourceTrial: (request.trial as unknown as { id: string }).id, sourceVariantId: variant.id, sourceVariantLabel: variant.label,
       promotionRequestId: request.id, approvedBy: actor.userId,
     } as never) as unknown as { id: string };

@@ -55,7 +55,7 @@ export interface PromotionView extends PromotionSummary {
   /** The formula that goes (or went) to production: the variant's lines while pending, the version's once approved. */
   formula: { settings: FormulaSettingsInput; lines: RevisionLine[]; weighed: ReturnType<typeof weighLines> } | null;
   /** The version it is compared against: the one in production now, or (once approved) the one it superseded. */
-  baseline: { version: number; productName: string; settings: FormulaSettingsInput; lines: RevisionLine[] } | null;
+  baseline: { id: string; version: number; productName: string; settings: FormulaSettingsInput; lines: RevisionLine[] } | null;
 }
 
 export interface AuditView {
@@ -149,7 +149,7 @@ async function promotionComparison(actor: Actor, r: RequestRow): Promise<Pick<Pr
       ? { kind: 'new_product', name: r.product.name, code: r.product.code }
       : { kind: 'existing_product', name: r.product.name, code: r.product.code, nextVersion: created?.version ?? (versions.at(-1)?.version ?? 0) + 1, currentVersion: created ? before?.version ?? null : current?.version ?? null },
     formula,
-    baseline: before ? { version: before.version, productName: r.product.name, settings: before.settings, lines: before.lines } : null,
+    baseline: before ? { id: before.id, version: before.version, productName: r.product.name, settings: before.settings, lines: before.lines } : null,
   };
 }
 

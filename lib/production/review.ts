@@ -80,3 +80,10 @@ export function approvalConsequence(outcome: PromotionOutcome): string {
     ? `The variant becomes version ${outcome.nextVersion} of ${outcome.name} (${outcome.code}); no version of it is in production now.`
     : `The variant becomes version ${outcome.nextVersion} of ${outcome.name} (${outcome.code}) and supersedes version ${outcome.currentVersion} now in production.`;
 }
+
+/** The review's verdict on the label: whether the pack must change before the first batch of the new version. */
+export function labelChangeVerdict(changedRows: number, baselineVersion: number): string {
+  return changedRows > 0
+    ? 'The declaration changes: relabel before this batch.'
+    : `The label reads the same as version ${baselineVersion}'s: no relabelling is needed.`;
+}

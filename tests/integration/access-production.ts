@@ -84,6 +84,7 @@ export const PRODUCTION_ROUTE_CASES: RouteCase[] = [
   { route: 'PUT /api/v1/production-versions/[versionId]', allowed: STAFF, allowedStatus: 409, otherWorkspace: 404, prepare: async (a) => ({ ...(await versionParams(a)), body: {} }) },
   { route: 'DELETE /api/v1/production-versions/[versionId]', allowed: STAFF, allowedStatus: 409, otherWorkspace: 404, prepare: versionParams },
   { route: 'GET /api/v1/production-versions/[versionId]/batch-sheet', allowed: STAFF, otherWorkspace: 404, prepare: versionParams },
+  { route: 'GET /api/v1/production-versions/[versionId]/label', allowed: STAFF, otherWorkspace: 404, prepare: versionParams },
   { route: 'GET /api/v1/production-versions/[versionId]/batches', allowed: STAFF, otherWorkspace: 404, prepare: versionParams },
   {
     route: 'POST /api/v1/production-versions/[versionId]/batches',

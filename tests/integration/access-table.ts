@@ -148,6 +148,7 @@ ROUTE_CASES.push(
   { route: 'GET /api/v1/formulas', allowed: READ_FORMULAS, otherWorkspace: 'own-data' },
   { route: 'POST /api/v1/formulas', allowed: WRITE_FORMULAS, otherWorkspace: 422, prepare: async (a) => ({ body: await strawberryJamInput(a) }) },
   { route: 'GET /api/v1/formulas/[formulaId]', allowed: READ_FORMULAS, otherWorkspace: 404, prepare: async (a) => ({ params: { formulaId: await createFixtureFormula(a) } }) },
+  { route: 'GET /api/v1/formulas/[formulaId]/label', allowed: READ_FORMULAS, otherWorkspace: 404, prepare: async (a) => ({ params: { formulaId: await createFixtureFormula(a) } }) },
   { route: 'GET /api/v1/formulas/[formulaId]/revisions', allowed: READ_FORMULAS, otherWorkspace: 404, prepare: async (a) => ({ params: { formulaId: await createFixtureFormula(a) } }) },
   {
     route: 'POST /api/v1/formulas/[formulaId]/revisions',

@@ -75,6 +75,15 @@ export const TRIALS_ROUTE_CASES: RouteCase[] = [
       return { params: { trialId: t.trialId, variantId: t.otherId } };
     },
   },
+  {
+    route: 'GET /api/v1/trials/[trialId]/variants/[variantId]/label',
+    allowed: READ,
+    otherWorkspace: 404,
+    prepare: async (a) => {
+      const t = await trialWithVariants(a);
+      return { params: { trialId: t.trialId, variantId: t.otherId } };
+    },
+  },
   { route: 'GET /api/v1/trials/[trialId]/measurements', allowed: READ, otherWorkspace: 404, prepare: async (a) => ({ params: { trialId: (await trialWithVariants(a)).trialId } }) },
   {
     route: 'POST /api/v1/trials/[trialId]/measurements',

@@ -434,6 +434,8 @@ const PAGE_CASES: PageCase[] = [
   { page: '(lab)/ingredients/page.tsx', caller: 'developer', keys: ['q', 'kind', 'sort', 'dir', 'archived'] },
   { page: '(lab)/panels/page.tsx', caller: 'developer', keys: ['state', 'trial'] },
   { page: '(lab)/panels/[sessionId]/results/page.tsx', caller: 'developer', keys: ['penalty'], paramsFrom: 'GET /api/v1/panels/[sessionId]/results' },
+  { page: '(lab)/formulas/[formulaId]/label/page.tsx', caller: 'developer', keys: ['reference'], paramsFrom: 'GET /api/v1/formulas/[formulaId]/label' },
+  { page: '(lab)/trials/[trialId]/variants/[variantId]/label/page.tsx', caller: 'developer', keys: ['reference'], paramsFrom: 'GET /api/v1/trials/[trialId]/variants/[variantId]/label' },
   { page: '(lab)/production/versions/[versionId]/sheet/page.tsx', caller: 'production', keys: ['target', 'amount', 'unit', 'step', 'stepUnit', 'altitudeM', 'paper'], paramsFrom: 'GET /api/v1/production-versions/[versionId]/batch-sheet' },
 ];
 

@@ -2,8 +2,8 @@ import { describe, expect, it } from 'vitest';
 import { additiveLimitChecks, additiveReport, foodCategoryFor, formulaMass, freeAcidFactor } from '@/lib/label/additives';
 import {
   BENZOATE, CITRIC, LABEL, PECTIN, SORBATE, STRAWBERRY, SUCROSE, labelData, labelInputFrom, labelSettings,
-} from './fixtures';
-import type { TestLine } from './fixtures';
+} from './text-fixtures';
+import type { TestLine } from './text-fixtures';
 
 const SPREAD = labelSettings({ productClass: 'reduced_sugar_spread', targetSolidsPct: 40 });
 

@@ -3,7 +3,7 @@ import {
   TYPICAL_JAM_REFERENCE, checkLowSugars, checkNoAddedSugars, checkReducedSugars, checkSugarsFree, referenceFromNutrients, sugarClaimChecks,
 } from '@/lib/label/claims';
 import type { FinishedNutrients, NutrientKey } from '@/lib/label/types';
-import { LABEL, STRAWBERRY, SUCROSE, labelData, labelInputFrom, labelSettings, nutrients } from './fixtures';
+import { LABEL, STRAWBERRY, SUCROSE, labelData, labelInputFrom, labelSettings, nutrients } from './text-fixtures';
 
 function finished(sugarsG: number | null, unknownFrom: Partial<Record<NutrientKey, string[]>> = {}): FinishedNutrients {
   return { ...nutrients({ sugarsG }), unknownFrom };

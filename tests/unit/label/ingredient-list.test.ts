@@ -5,8 +5,8 @@ import { additiveListName, fruitIndication, ingredientList } from '@/lib/label/i
 import { jamStatements } from '@/lib/label/statements';
 import {
   CITRIC, LABEL, PECTIN, RASPBERRY, REDCURRANT, STRAWBERRY, SUCROSE, WATER, labelData, labelInputFrom, labelSettings, nutrients,
-} from './fixtures';
-import type { TestLine } from './fixtures';
+} from './text-fixtures';
+import type { TestLine } from './text-fixtures';
 
 const strawberry = (grams: number): TestLine => ({ composition: STRAWBERRY, label: LABEL.strawberry, grams });
 const sugar = (grams: number): TestLine => ({ composition: SUCROSE, label: LABEL.sugar, grams });

@@ -15,7 +15,7 @@ import { computeMassBalance } from '@/lib/chemistry';
 import type { FinishedNutrients } from '@/lib/label/types';
 import {
   BENZOATE, CITRIC, LABEL, PECTIN, SORBATE, STRAWBERRY, SUCROSE, WATER, labelData, labelInputFrom, labelSettings, nutrients,
-} from './fixtures';
+} from './text-fixtures';
 
 const PROVENANCE = /\(memory|\bmemory\b|recalled|was not read|were not read|not checked against|unverified/i;
 const ENUM_KEY = /\b[a-z]+_[a-z0-9_]+\b|\b[A-Z][A-Z0-9]*_[A-Z0-9_]+\b/;

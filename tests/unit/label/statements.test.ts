@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { compareStatedSugar, jamStatements, statedTotalSugar } from '@/lib/label/statements';
-import { LABEL, STRAWBERRY, SUCROSE, labelData, labelInputFrom, labelSettings } from './fixtures';
+import { LABEL, STRAWBERRY, SUCROSE, labelData, labelInputFrom, labelSettings } from './text-fixtures';
 
 const jam = (fruitG: number, sugarG: number, overrides = {}) => labelInputFrom([
   { composition: STRAWBERRY, label: LABEL.strawberry, grams: fruitG },

@@ -1,7 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import { computeMassBalance, estimateBatchWaterActivity } from '@/lib/chemistry';
 import { sugarProfileOf, waterActivityFromLabelLines } from '@/lib/label/water-activity';
-import { LABEL, STRAWBERRY, SUCROSE, labelData, labelSettings, nutrients } from './fixtures';
+import { LABEL, STRAWBERRY, SUCROSE, labelData, labelSettings, nutrients } from './text-fixtures';
 
 // Source: USDA SR28 NDB 09316 strawberries (sucrose 0.47, glucose 1.99, fructose 2.44 g/100 g) and 19335 granulated
 // sugar (sucrose 99.80), per ../shared/nutrition-references.md "Individual sugars".

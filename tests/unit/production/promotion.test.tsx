@@ -131,7 +131,7 @@ describe('the review page shows the formula and what it changes', () => {
     render(
       <PromotionFormula
         formula={{ settings: settings(), lines: variantLines, weighed: weighLines(settings(), variantLines) }}
-        baseline={{ version: 2, productName: 'Orchard jam', settings: settings(), lines: PRACTICAL_ACTION_LINES }}
+        baseline={{ id: '5f0c1d2e-3a4b-4c5d-8e6f-7a8b9c0d1e2f', version: 2, productName: 'Orchard jam', settings: settings(), lines: PRACTICAL_ACTION_LINES }}
         variantLabel="B" massUnits="metric" temperatureUnit="C"
       />,
     );

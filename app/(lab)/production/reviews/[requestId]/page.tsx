@@ -14,6 +14,8 @@ import { approvalConsequence } from '@/lib/production/review';
 import { PromotionFormula } from '@/components/production/PromotionFormula';
 import { WithdrawButton } from '@/components/production/WithdrawButton';
 import { formatDate } from '@/lib/format/dates';
+import { promotionLabelComparison } from '@/lib/label/queries';
+import { LabelChanges } from '@/components/label/LabelChanges';
 
 export const dynamic = 'force-dynamic';
 export const metadata = { title: 'Promotion request' };
@@ -23,6 +25,7 @@ const n = (x: number | null, d: number) => (x === null ? '—' : x.toFixed(d));
 export default async function PromotionRequestPage({ params }: { params: Promise<{ requestId: string }> }) {
   const actor = await requirePage('promotion.read');
   const r = await orNotFound(getPromotionRequest(actor, pageId((await params).requestId)));
+  const labelComparison = await promotionLabelComparison(actor, r);
   const units = actor.massUnits;
   const temps = actor.temperatureUnit === 'C' ? 'metric' : 'imperial';
   const e = r.evidence;
@@ -58,6 +61,11 @@ export default async function PromotionRequestPage({ params }: { params: Promise
           <Card title="Formula">
             <PromotionFormula formula={r.formula} baseline={r.baseline} variantLabel={r.variantLabel} massUnits={units} temperatureUnit={actor.temperatureUnit} />
           </Card>
+          {labelComparison ? (
+            <Card title={`Label against v${labelComparison.baselineVersion}`}>
+              <LabelChanges comparison={labelComparison} />
+            </Card>
+          ) : null}
           <Card title="Compliance and predicted chemistry">
             <p className="text-sm"><strong>{e.compliance.edition}:</strong> {e.compliance.overall.replace('_', ' ')}</p>
             {e.compliance.failing.length ? <ul className="mt-1 list-disc pl-5 text-sm text-ember-700">{e.compliance.failing.map((f) => <li key={f}>{f}</li>)}</ul> : null}

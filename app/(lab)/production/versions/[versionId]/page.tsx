@@ -14,6 +14,9 @@ import { AuditTrail } from '@/components/production/AuditTrail';
 import { BatchTable } from '@/components/production/BatchTable';
 import { formatDate } from '@/lib/format/dates';
 import { TableBox } from '@/components/ui/TableBox';
+import { versionLabel } from '@/lib/label/queries';
+import { LabelPanel } from '@/components/label/LabelPanel';
+import { KEPT_NOTES, LabelExportLinks } from '@/components/label/LabelPageBody';
 
 export const dynamic = 'force-dynamic';
 export const metadata = { title: 'Production version' };
@@ -21,6 +24,7 @@ export const metadata = { title: 'Production version' };
 export default async function VersionPage({ params }: { params: Promise<{ versionId: string }> }) {
   const actor = await requirePage('production.read');
   const v = await orNotFound(getProductionVersion(actor, pageId((await params).versionId)));
+  const label = await versionLabel(actor, v.id);
   const units = actor.massUnits;
   const temps = actor.temperatureUnit === 'C' ? 'metric' : 'imperial';
   return (
@@ -58,6 +62,13 @@ export default async function VersionPage({ params }: { params: Promise<{ versio
         <Card title="QC specification">
           <SpecTable spec={v.spec} temperatures={temps} />
           <div className="mt-3"><CautionList cautions={qcSpecCautions(v.spec, v.settings.productClass, v.settings.preservation ?? undefined)} /></div>
+        </Card>
+      </div>
+      <div className="mt-6" id="label">
+        <Card title={label.kept === 'frozen' ? 'Label, frozen at approval' : 'Label, not frozen at approval'} actions={<Link href={`/production/versions/${v.id}/label`} className="no-print text-sm text-damson-700 underline">Print view</Link>}>
+          <p className="mb-3 text-sm text-rind-600">{KEPT_NOTES[label.kept]}</p>
+          <div className="no-print mb-4"><LabelExportLinks apiPath={`/api/v1/production-versions/${v.id}/label`} fileName={`label-${v.product.code.toLowerCase()}-v${v.version}`} /></div>
+          {label.label ? <LabelPanel label={label.label} heading={`Label of ${label.subject.name}`} /> : <Notice tone="warning" title="No label">{label.problem}</Notice>}
         </Card>
       </div>
       <div className="mt-6" id="batches"><Card title="Batches made to this version"><BatchTable batches={[...v.batches].reverse()} units={units} temperatures={temps} /></Card></div>

@@ -52,6 +52,7 @@ export default async function VariantPage({ params }: { params: Promise<{ trialI
           ) : null}
         </div>
         <div className="flex items-center gap-4">
+          <Link href={`/trials/${trialId}/variants/${variantId}/label`} className="text-sm text-damson-700 underline">Label</Link>
           <Link href={`/trials/${trialId}`} className="text-sm text-damson-700 underline">All variants</Link>
           {canEdit && !variant.isBase && (trial.status === 'planning' || trial.status === 'cooking') ? (
             <RemoveVariantButton trialId={trialId} variantId={variant.id} label={variant.label} onDone={`/trials/${trialId}`} />
