@@ -114,9 +114,16 @@ export async function listVariants(actor: Actor, trialId: string): Promise<Varia
 
 export async function getTrialOverview(actor: Actor, trialId: string): Promise<TrialOverview> {
   const em = await getEm();
-  const t = (await em.findOne(Trial, { ...inWorkspace(actor), id: trialId }, { populate: ['owner', 'baseFormula'] })) as unknown as TrialRow | null;
+  // The trial, its history and its variants are read at once (each scoped to the workspace); a
+  // trial of another workspace finds nothing in any of them.
+  const [found, historyRows, variants] = await Promise.all([
+    em.findOne(Trial, { ...inWorkspace(actor), id: trialId }, { populate: ['owner', 'baseFormula'] }),
+    em.find(TrialStatusChange, { ...inWorkspace(actor), trial: trialId }, { populate: ['changedBy'], orderBy: { changedAt: 'asc' } }),
+    listVariants(actor, trialId),
+  ]);
+  const t = found as unknown as TrialRow | null;
   if (!t) throw notFound('trial');
-  const history = (await em.find(TrialStatusChange, { ...inWorkspace(actor), trial: trialId }, { populate: ['changedBy'], orderBy: { changedAt: 'asc' } })) as unknown as Array<{
+  const history = historyRows as unknown as Array<{
     fromStatus?: StatusChangeView['from']; toStatus: StatusChangeView['to']; note?: string | null; changedBy: { name: string }; changedAt: Date;
   }>;
   return {
@@ -128,7 +135,7 @@ export async function getTrialOverview(actor: Actor, trialId: string): Promise<T
     owner: { id: t.owner.id, name: t.owner.name },
     baseFormula: { id: t.baseFormula.id, name: t.baseFormula.name, revision: t.baseRevision },
     createdAt: t.createdAt.toISOString(),
-    variants: await listVariants(actor, trialId),
+    variants,
     history: history.map((h) => ({ from: h.fromStatus ?? null, to: h.toStatus, note: h.note ?? null, byName: h.changedBy.name, at: h.changedAt.toISOString() })),
   };
 }

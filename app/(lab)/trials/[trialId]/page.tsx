@@ -38,8 +38,10 @@ function baseLevelsOf(lines: MassLine[]): Record<TrialFactor, number | null> {
 export default async function TrialPage({ params }: { params: Promise<{ trialId: string }> }) {
   const actor = await requirePage('trials.read');
   const trialId = pageId((await params).trialId);
-  const trial = await orNotFound(getTrialOverview(actor, trialId));
-  const [notebook, uploads, panels] = await Promise.all([getEntry(actor, trialId, null), listUploads(actor, trialId), can(actor.role, 'panels.read') ? listPanelSessions(actor, trialId) : Promise.resolve([])]);
+  // All four reads at once: each checks the trial itself, so none waits for another.
+  const [trial, notebook, uploads, panels] = await orNotFound(
+    Promise.all([getTrialOverview(actor, trialId), getEntry(actor, trialId, null), listUploads(actor, trialId), can(actor.role, 'panels.read') ? listPanelSessions(actor, trialId) : Promise.resolve([])]),
+  );
   const canEdit = can(actor.role, 'trials.write');
   const editable = canEdit && (trial.status === 'planning' || trial.status === 'cooking');
   const base = trial.variants.find((v) => v.isBase)!;
