@@ -67,22 +67,19 @@ function useHydrated(): boolean {
   );
 }
 
-/** What the server already read for the first screen; absent, the page loads the seat itself. */
-export type FirstLoad = { kind: 'ready'; view: SeatView } | { kind: 'failed'; message: string };
-
 /**
  * The whole taster flow for one seat: notice, samples, review, thank-you. With `first` (the page
  * read the seat on the server) the first screen is in the HTML, so the phone paints it without
  * waiting for this script and an API round trip; answers still waiting on the phone are merged
  * in once it runs.
  */
-export function TastingFlow({ seatToken, first }: { seatToken: string; first?: FirstLoad }) {
+export function TastingFlow({ seatToken, first }: { seatToken: string; first?: SeatView }) {
   const { queue, status, give, flushDebounced } = useAnswerQueue(seatToken);
   const hydrated = useHydrated();
-  const [load, setLoad] = useState<Load>(first ?? { kind: 'loading' });
+  const [load, setLoad] = useState<Load>(first ? { kind: 'ready', view: first } : { kind: 'loading' });
   const [loadAttempt, setLoadAttempt] = useState(0);
-  const [book, setBook] = useState<AnswerBook>(() => (first?.kind === 'ready' ? mergeAnswers(first.view, []) : emptyAnswerBook()));
-  const [step, setStep] = useState<FlowStep>(() => (first?.kind === 'ready' ? resumeStep(first.view, mergeAnswers(first.view, [])) : { kind: 'notice' }));
+  const [book, setBook] = useState<AnswerBook>(() => (first ? mergeAnswers(first, []) : emptyAnswerBook()));
+  const [step, setStep] = useState<FlowStep>(() => (first ? resumeStep(first, mergeAnswers(first, [])) : { kind: 'notice' }));
   const [busy, setBusy] = useState(false);
   const [actionError, setActionError] = useState<string>();
   const [closedMessage, setClosedMessage] = useState<string>();
@@ -103,7 +100,7 @@ export function TastingFlow({ seatToken, first }: { seatToken: string; first?: F
     };
     // The server's first read stands for the first attempt; "Try again" always asks the API.
     if (loadAttempt === 0 && first) {
-      if (first.kind === 'ready') settle(first.view);
+      settle(first);
       return;
     }
     (async () => {

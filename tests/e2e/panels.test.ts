@@ -94,7 +94,7 @@ describe('answers given without a connection', () => {
     expect(html).toContain('Like moderately');
 
     const serverValue = async () => {
-      const view = await (await phone.request.get(`/api/v1/tasting/${seatToken}`)).json();
+      const view = await (await phoneCtx.request.get(`/api/v1/tasting/${seatToken}`)).json();
       return (view.answers as Array<{ code?: string; value?: number }>).find((a) => a.code === code)?.value ?? null;
     };
     const status = phone.getByRole('status');
@@ -125,6 +125,11 @@ describe('answers given without a connection', () => {
     await expect.poll(serverValue, { timeout: 15_000 }).toBe(6);
     await expect.poll(() => again.getByRole('status').textContent(), { timeout: 15_000 }).toBe('Sent');
     expect(violations).toEqual([]);
+
+    // A seat link nobody was given is a 404 that says what to do.
+    const unknown = await phoneCtx.request.get('/t/sws_no-such-seat-0000000000');
+    expect(unknown.status()).toBe(404);
+    expect(await unknown.text()).toContain('Ask the organiser for the join code again.');
     await phoneCtx.close();
   });
 });

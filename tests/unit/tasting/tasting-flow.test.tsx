@@ -12,7 +12,7 @@ vi.mock('next/navigation', () => ({
 
 import { renderToString } from 'react-dom/server';
 import { TastingFlow } from '@/components/tasting/TastingFlow';
-import { parseSeatView, queueStorageKey, RINSE_REMINDER, SEAT_NOT_FOUND_MESSAGE } from '@/lib/tasting-client';
+import { parseSeatView, queueStorageKey, RINSE_REMINDER } from '@/lib/tasting-client';
 
 type Call = { method: string; url: string; body: any };
 
@@ -263,7 +263,7 @@ describe('TastingFlow, first screen read by the page', () => {
     const fetchMock = vi.fn();
     vi.stubGlobal('fetch', fetchMock);
     const view = parseSeatView(ratedSeatPayload({ consented: true }));
-    const html = renderToString(<TastingFlow seatToken={SEAT_TOKEN} first={{ kind: 'ready', view }} />);
+    const html = renderToString(<TastingFlow seatToken={SEAT_TOKEN} first={view} />);
     expect(html).toContain('Sample <!-- -->1<!-- --> of <!-- -->3');
     expect(html).toContain('482');
     expect(html).toContain('Overall liking');
@@ -281,7 +281,7 @@ describe('TastingFlow, first screen read by the page', () => {
       JSON.stringify({ v: 1, items: [{ idempotencyKey: '3f1c2a9e-8b7d-4c6e-9a5b-1d2e3f4a5b6c', attempts: 1, answer: { kind: 'rated', code: '482', attributeId: 'attr-liking', value: 3 } }] }),
     );
     const api = mockApi(ratedSeatPayload({ consented: true }));
-    render(<TastingFlow seatToken={SEAT_TOKEN} first={{ kind: 'ready', view: parseSeatView(ratedSeatPayload({ consented: true })) }} />);
+    render(<TastingFlow seatToken={SEAT_TOKEN} first={parseSeatView(ratedSeatPayload({ consented: true }))} />);
     // The phone's waiting answer to 482 moves the taster on to the next sample.
     await screen.findByText('Sample 2 of 3');
     await waitFor(() => expect(api.puts()).toEqual([{ idempotencyKey: '3f1c2a9e-8b7d-4c6e-9a5b-1d2e3f4a5b6c', code: '482', attributeId: 'attr-liking', value: 3 }]));
@@ -292,16 +292,5 @@ describe('TastingFlow, first screen read by the page', () => {
       ['482', 3],
       ['615', 6],
     ]);
-  });
-
-  it('shows the page’s "not valid" answer for an unknown seat, and "Try again" asks the API', async () => {
-    const fetchMock = vi.fn(async () => json(404, { error: { code: 'not_found', message: 'Unknown seat' } }));
-    vi.stubGlobal('fetch', fetchMock);
-    render(<TastingFlow seatToken="seat_unknown_123" first={{ kind: 'failed', message: SEAT_NOT_FOUND_MESSAGE }} />);
-    expect(screen.getByText(SEAT_NOT_FOUND_MESSAGE)).toBeTruthy();
-    expect(fetchMock).not.toHaveBeenCalled();
-    fireEvent.click(screen.getByRole('button', { name: 'Try again' }));
-    await waitFor(() => expect(fetchMock).toHaveBeenCalledTimes(1));
-    await screen.findByText(SEAT_NOT_FOUND_MESSAGE);
   });
 });

@@ -1,6 +1,8 @@
-import { TastingFlow, type FirstLoad } from '@/components/tasting/TastingFlow';
+import { notFound } from 'next/navigation';
+import { TastingFlow } from '@/components/tasting/TastingFlow';
 import { tasterViewOrNull } from '@/lib/panels/taster';
-import { parseSeatView, SEAT_NOT_FOUND_MESSAGE } from '@/lib/tasting-client';
+import { parseSeatView } from '@/lib/tasting-client';
+import type { TasterView } from '@/lib/panels/schema';
 import { logger } from '@/lib/log';
 
 export const metadata = { title: 'Tasting' };
@@ -8,17 +10,18 @@ export const metadata = { title: 'Tasting' };
 /**
  * The seat is read here so the first screen (sample code, questions, controls) is in the HTML: a
  * slow phone paints it without waiting for the script and an API round trip. The view goes through
- * the same contract filter as the API's answer. If the read fails for another reason, the client
- * loads the seat through the API and offers "Try again".
+ * the same contract filter as the API's answer. An unknown seat is a 404 (not-found.tsx says what
+ * to do); if the read fails for another reason, the client loads the seat through the API and
+ * offers "Try again".
  */
 export default async function SeatPage({ params }: { params: Promise<{ seatToken: string }> }) {
   const { seatToken } = await params;
-  let first: FirstLoad | undefined;
+  let view: TasterView | null | undefined;
   try {
-    const view = await tasterViewOrNull(seatToken);
-    first = view ? { kind: 'ready', view: parseSeatView(JSON.parse(JSON.stringify(view))) } : { kind: 'failed', message: SEAT_NOT_FOUND_MESSAGE };
+    view = await tasterViewOrNull(seatToken);
   } catch (err) {
     logger.warn({ err }, 'tasting page: first read failed, the phone loads the seat itself');
   }
-  return <TastingFlow seatToken={seatToken} first={first} />;
+  if (view === null) notFound();
+  return <TastingFlow seatToken={seatToken} first={view ? parseSeatView(JSON.parse(JSON.stringify(view))) : undefined} />;
 }
