@@ -73,8 +73,10 @@ function useHydrated(): boolean {
  * waiting for this script and an API round trip; answers still waiting on the phone are merged
  * in once it runs.
  */
-export function TastingFlow({ seatToken, first }: { seatToken: string; first?: SeatView }) {
+export function TastingFlow({ seatToken, first: firstProp }: { seatToken: string; first?: SeatView }) {
   const { queue, status, give, flushDebounced } = useAnswerQueue(seatToken);
+  // Only the view the page was first served with counts; a later render never rewinds the taster.
+  const [first] = useState(firstProp);
   const hydrated = useHydrated();
   const [load, setLoad] = useState<Load>(first ? { kind: 'ready', view: first } : { kind: 'loading' });
   const [loadAttempt, setLoadAttempt] = useState(0);
