@@ -3,6 +3,6 @@
  * `new Function`; under our Content-Security-Policy (no 'unsafe-eval') that probe is refused and
  * reported as a violation even though zod falls back. jitless skips the probe: same results.
  */
-import { z } from 'zod';
+import { config } from 'zod/v4/core';
 
-z.config({ jitless: true });
+config({ jitless: true });

@@ -4,7 +4,8 @@
 # route switched on, and prints each figure beside its target. Results land in bench-results/
 # (git-ignored): stats.json, notebook.json, models.json, label.json, load.json, pages.json and bench.json (all figures).
 # The demo seed is loaded too, for the staff pages and the phone (scripts/bench-pages.ts).
-# Ports: SETWELL_BENCH_APP_PORT (default 3200) and the next one up, SETWELL_BENCH_PG_PORT (54349),
+# Ports: SETWELL_BENCH_APP_PORT (default 3200) and SETWELL_BENCH_APP_PORT_B (default the next one up),
+# SETWELL_BENCH_PG_PORT (54349),
 # SETWELL_BENCH_S3_PORT (4599, the S3 fake the seed's photos go to). The build goes to .next-bench,
 # so a bench run never replaces the .next of a running test server. Inherited app settings
 # (DATABASE_URL, SMTP_URL, S3_*, APP_URL, …) are dropped by env.sh's test profile: the bench writes,
@@ -17,7 +18,7 @@ cd "$REPO_ROOT"
 ensure_node_modules
 ensure_postgres_installed
 APP_A="${SETWELL_BENCH_APP_PORT:-3200}"
-APP_B=$((APP_A + 1))
+APP_B="${SETWELL_BENCH_APP_PORT_B:-$((APP_A + 1))}"
 PIDS=()
 cleanup() {
   set +e

@@ -13,8 +13,8 @@ function ChangeButton({ label, onClick }: { label: string; onClick: () => void }
   );
 }
 
-function SavedMark({ waiting }: { waiting: boolean }) {
-  return <span className={`text-xs font-semibold ${waiting ? 'text-ember-700' : 'text-leaf-700'}`}>{waiting ? 'Not saved' : 'Saved'}</span>;
+function SentMark({ waiting }: { waiting: boolean }) {
+  return <span className={`text-xs font-semibold ${waiting ? 'text-ember-700' : 'text-leaf-700'}`}>{waiting ? 'Not sent' : 'Sent'}</span>;
 }
 
 /**
@@ -53,7 +53,7 @@ export function AnswerList({
                     <dd className={`text-base ${value === undefined ? 'text-ember-700' : 'text-rind-900'}`}>
                       {ratedAnswerText(attr, value)}{' '}
                       {waitingSlots && value !== undefined ? (
-                        <SavedMark waiting={waiting.has(answerSlot({ kind: 'rated', code: sample.code, attributeId: attr.id, value }))} />
+                        <SentMark waiting={waiting.has(answerSlot({ kind: 'rated', code: sample.code, attributeId: attr.id, value }))} />
                       ) : null}
                     </dd>
                   </div>
@@ -84,7 +84,7 @@ export function AnswerList({
         ) : (
           <p className="mt-2 text-ember-700">Not saved yet</p>
         )}
-        {waitingSlots && order ? <SavedMark waiting={waiting.has(answerSlot({ kind: 'ranking', attributeId, ranking: order }))} /> : null}
+        {waitingSlots && order ? <SentMark waiting={waiting.has(answerSlot({ kind: 'ranking', attributeId, ranking: order }))} /> : null}
       </div>
     );
   }
@@ -116,7 +116,7 @@ export function AnswerList({
       ) : (
         <p className="mt-2 text-ember-700">Not answered yet</p>
       )}
-      {waitingSlots && t ? <SavedMark waiting={waiting.has('triangle')} /> : null}
+      {waitingSlots && t ? <SentMark waiting={waiting.has('triangle')} /> : null}
     </div>
   );
 }

@@ -1,6 +1,6 @@
 'use client';
 
-import { useEffect, useRef, useState } from 'react';
+import { useEffect, useRef, useState, useSyncExternalStore } from 'react';
 import { Button } from '@/components/ui/Button';
 import { Notice } from '@/components/ui/Notice';
 import {
@@ -17,6 +17,7 @@ import {
   ratedValue,
   resumeStep,
   RINSE_REMINDER,
+  SEAT_NOT_FOUND_MESSAGE,
   SeatViewError,
   stepAfter,
   type AnswerBook,
@@ -52,13 +53,35 @@ function forgetLastSeat(seatToken: string) {
   }
 }
 
-/** The whole taster flow for one seat: notice, samples, review, thank-you. */
-export function TastingFlow({ seatToken }: { seatToken: string }) {
+const noSubscription = () => () => {};
+
+/**
+ * False in the server's HTML and until this script has taken the page over: controls painted
+ * before then would take a tap nobody records, so they stay disabled for that moment.
+ */
+function useHydrated(): boolean {
+  return useSyncExternalStore(
+    noSubscription,
+    () => true,
+    () => false,
+  );
+}
+
+/**
+ * The whole taster flow for one seat: notice, samples, review, thank-you. With `first` (the page
+ * read the seat on the server) the first screen is in the HTML, so the phone paints it without
+ * waiting for this script and an API round trip; answers still waiting on the phone are merged
+ * in once it runs.
+ */
+export function TastingFlow({ seatToken, first: firstProp }: { seatToken: string; first?: SeatView }) {
   const { queue, status, give, flushDebounced } = useAnswerQueue(seatToken);
-  const [load, setLoad] = useState<Load>({ kind: 'loading' });
+  // Only the view the page was first served with counts; a later render never rewinds the taster.
+  const [first] = useState(firstProp);
+  const hydrated = useHydrated();
+  const [load, setLoad] = useState<Load>(first ? { kind: 'ready', view: first } : { kind: 'loading' });
   const [loadAttempt, setLoadAttempt] = useState(0);
-  const [book, setBook] = useState<AnswerBook>(emptyAnswerBook);
-  const [step, setStep] = useState<FlowStep>({ kind: 'notice' });
+  const [book, setBook] = useState<AnswerBook>(() => (first ? mergeAnswers(first, []) : emptyAnswerBook()));
+  const [step, setStep] = useState<FlowStep>(() => (first ? resumeStep(first, mergeAnswers(first, [])) : { kind: 'notice' }));
   const [busy, setBusy] = useState(false);
   const [actionError, setActionError] = useState<string>();
   const [closedMessage, setClosedMessage] = useState<string>();
@@ -67,21 +90,29 @@ export function TastingFlow({ seatToken }: { seatToken: string }) {
 
   useEffect(() => {
     let cancelled = false;
+    const settle = (view: SeatView) => {
+      const merged = mergeAnswers(
+        view,
+        queue.pending().map((item) => item.answer),
+      );
+      setBook(merged);
+      setStep(resumeStep(view, merged));
+      setLoad({ kind: 'ready', view });
+      if (view.session.state === 'open' && !view.seat.submitted) queue.start();
+    };
+    // The server's first read stands for the first attempt; "Try again" always asks the API.
+    if (loadAttempt === 0 && first) {
+      settle(first);
+      return;
+    }
     (async () => {
       try {
         const res = await fetch(base, { headers: { accept: 'application/json' }, cache: 'no-store', credentials: 'same-origin' });
-        if (res.status === 404) throw new SeatViewError('This tasting link is not valid. Ask the organiser for the join code again.');
+        if (res.status === 404) throw new SeatViewError(SEAT_NOT_FOUND_MESSAGE);
         if (!res.ok) throw new SeatViewError(await serverMessage(res, 'The tasting could not be loaded.'));
         const view = parseSeatView(await res.json());
         if (cancelled) return;
-        const merged = mergeAnswers(
-          view,
-          queue.pending().map((item) => item.answer),
-        );
-        setBook(merged);
-        setStep(resumeStep(view, merged));
-        setLoad({ kind: 'ready', view });
-        if (view.session.state === 'open' && !view.seat.submitted) queue.start();
+        settle(view);
       } catch (e) {
         if (cancelled) return;
         const message = e instanceof SeatViewError ? e.message : 'No connection. Check your signal and try again.';
@@ -91,7 +122,7 @@ export function TastingFlow({ seatToken }: { seatToken: string }) {
     return () => {
       cancelled = true;
     };
-  }, [base, queue, loadAttempt]);
+  }, [base, queue, loadAttempt, first]);
 
   // Each new screen starts at its heading, for screen readers and for the scroll position.
   useEffect(() => {
@@ -181,7 +212,7 @@ export function TastingFlow({ seatToken }: { seatToken: string }) {
       <div className="space-y-5">
         {heading('This tasting has closed')}
         {closedMessage || status.stopMessage ? <Notice tone="warning">{closedMessage ?? status.stopMessage}</Notice> : null}
-        <p className="text-base text-rind-700">Here is what you answered. Answers marked “Not saved” did not reach the organiser.</p>
+        <p className="text-base text-rind-700">Here is what you answered. Answers marked “Not sent” did not reach the organiser.</p>
         <AnswerList view={view} book={book} waitingSlots={status.waitingSlots} />
       </div>
     );
@@ -304,7 +335,7 @@ export function TastingFlow({ seatToken }: { seatToken: string }) {
         {!ready ? <Notice tone="warning">Some questions still need an answer.</Notice> : null}
         {waiting > 0 ? (
           <p className="text-center text-sm text-rind-600">
-            Waiting for {waiting} {waiting === 1 ? 'answer' : 'answers'} to save before you can submit.
+            Waiting for {waiting} {waiting === 1 ? 'answer' : 'answers'} to be sent before you can submit.
           </p>
         ) : null}
         <Button type="button" className={bigButton} disabled={!ready || waiting > 0 || busy} onClick={submit}>
@@ -319,7 +350,10 @@ export function TastingFlow({ seatToken }: { seatToken: string }) {
     <div className="space-y-4 pb-16">
       {actionError ? <Notice tone="danger">{actionError}</Notice> : null}
       {status.rejectionMessage && !closed ? <Notice tone="warning">{status.rejectionMessage}</Notice> : null}
-      {screen}
+      {/* min-w-0: a fieldset is as wide as its content by default, which would scroll sideways. */}
+      <fieldset disabled={!hydrated} className="min-w-0">
+        {screen}
+      </fieldset>
       {showStatus ? (
         <p
           role="status"
@@ -328,7 +362,7 @@ export function TastingFlow({ seatToken }: { seatToken: string }) {
             status.phase === 'offline' || status.phase === 'retrying' ? 'text-amberline-700' : 'text-rind-600'
           }`}
         >
-          {statusText || '\u00a0'}
+          {hydrated ? statusText || '\u00a0' : 'Getting the page ready…'}
         </p>
       ) : null}
     </div>

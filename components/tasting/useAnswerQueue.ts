@@ -13,7 +13,7 @@ function browserStorage(): KeyValueStorage | null {
   }
 }
 
-const SERVER_STATUS: QueueStatus = { phase: 'idle', waitingCount: 0, waitingSlots: [], hasStored: false };
+const SERVER_STATUS: QueueStatus = { phase: 'idle', waitingCount: 0, waitingSlots: [], hasStored: false, keptOnPhone: false, oldestAttempts: 0 };
 
 /** One answer queue per seat, started once the page knows the session is open. */
 export function useAnswerQueue(seatToken: string) {

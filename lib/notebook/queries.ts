@@ -21,6 +21,14 @@ export function toConflictView(c: ConflictRow): NotebookConflictView {
 /** The entry with its unresolved conflicts, oldest first; an entry nobody wrote yet is empty at version 0. */
 export async function getEntry(actor: Actor, trialId: string, variantId: string | null): Promise<NotebookEntryView> {
   await assertNotebookScope(actor, trialId, variantId);
+  return readEntry(actor, trialId, variantId);
+}
+
+/**
+ * getEntry without its scope check, for a caller that checks the trial itself in the same request
+ * (the trial page). Still scoped to the actor's workspace.
+ */
+export async function readEntry(actor: Actor, trialId: string, variantId: string | null): Promise<NotebookEntryView> {
   const em = await getEm();
   const entry = (await em.findOne(
     NotebookEntry,

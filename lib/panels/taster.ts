@@ -6,7 +6,7 @@
 import { getEm } from '@/lib/db';
 import { sql } from '@/lib/sql';
 import { PanelAnswer, PanelSeat, PanelSession, SensoryAttributeDef } from '@/entities';
-import { notFound } from '@/lib/permissions';
+import { AccessDenied, notFound } from '@/lib/permissions';
 import { ApiError } from '@/lib/api/errors';
 import { ValidationFailed } from '@/lib/errors';
 import { hashSecret } from '@/lib/secrets';
@@ -75,6 +75,16 @@ export async function tasterView(token: string): Promise<TasterView> {
           : { oddCode: a.oddCode ?? undefined, confidence: a.confidence ?? undefined, comment: a.comment ?? undefined },
     ),
   };
+}
+
+/** The seat for the page's first screen; null when the token names no tasting (the API's 404). */
+export async function tasterViewOrNull(token: string): Promise<TasterView | null> {
+  try {
+    return await tasterView(token);
+  } catch (err) {
+    if (err instanceof AccessDenied && err.status === 404) return null;
+    throw err;
+  }
 }
 
 export async function recordConsent(token: string): Promise<void> {

@@ -4,13 +4,17 @@ import { PanelAnswer, PanelSeat } from '@/entities';
 import { inWorkspace, type Actor } from '@/lib/permissions';
 import { loadPanelSessionRows, panelSessionView, type PanelSessionView } from '@/lib/panels/queries';
 import { toCsv } from '@/lib/csv';
-import { analysePanel, type AnalysisOptions, type PanelAnalysis, type PanelData } from './analysis';
+import { type AnalysisOptions, type PanelAnalysis, type PanelData } from './analysis';
+import { analyseRemembered } from './analysis-memo';
 
 export async function loadPanelData(actor: Actor, sessionId: string): Promise<{ data: PanelData; session: PanelSessionView }> {
   // One set of reads serves both the session view and the analysis.
-  const rows = await loadPanelSessionRows(actor, sessionId);
+  // Only the fields the analysis reads (an answer row also keeps every idempotency key it had).
+  const [rows, answers] = await Promise.all([
+    loadPanelSessionRows(actor, sessionId),
+    (await getEm()).find(PanelAnswer, { ...inWorkspace(actor), session: sessionId }, { fields: ['seat', 'kind', 'attribute', 'sampleId', 'value', 'ranking', 'correct'] }),
+  ]);
   const { s, attrs, seats } = rows;
-  const answers = await (await getEm()).find(PanelAnswer, { ...inWorkspace(actor), session: sessionId });
   const session = panelSessionView(rows, answers);
   const seatIndex = new Map(seats.map((x) => [x.id, x.seatIndex]));
   const codeToSample = new Map<string, string>(seats.flatMap((x) => x.servingOrder.map((c) => [`${x.id}|${c.code}`, c.sampleId] as [string, string])));
@@ -45,7 +49,7 @@ export async function loadPanelData(actor: Actor, sessionId: string): Promise<{ 
 
 export async function getPanelResults(actor: Actor, sessionId: string, options: AnalysisOptions = {}): Promise<{ session: PanelSessionView; analysis: PanelAnalysis; data: PanelData }> {
   const { data, session } = await loadPanelData(actor, sessionId);
-  return { session, data, analysis: analysePanel(data, options) };
+  return { session, data, analysis: analyseRemembered(data, options) };
 }
 
 /** Raw answers, one row per answer: session, seat, code, variant, attribute, value. */

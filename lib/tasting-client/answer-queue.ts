@@ -1,7 +1,9 @@
 /**
- * A persistent, in-order queue of answer PUTs for one seat. Every answer is written to
- * localStorage before it is sent, so a dropped connection or a reload loses nothing;
- * each item keeps the idempotency key it was born with for all of its retries.
+ * The phone's outbox: a persistent, in-order queue of answer PUTs for one seat. Every answer is
+ * written to localStorage before it is sent, so the taster sees "Saved on this phone" at once (no
+ * network wait) and a dropped connection or a reload loses nothing; "Sent" follows when the server
+ * confirms. Each item keeps the idempotency key it was born with for all of its retries, so a
+ * replay after a reload is a duplicate the server recognises, never a second answer.
  */
 import type { AnswerPayload, TriangleConfidence } from './types';
 import { makeIdempotencyKey } from './idempotency';
@@ -33,6 +35,10 @@ export interface QueueStatus {
   waitingSlots: string[];
   /** True once any answer has been stored during this page's life. */
   hasStored: boolean;
+  /** True when every waiting answer is written to this phone's storage (survives a reload). */
+  keptOnPhone: boolean;
+  /** Failed sends of the oldest waiting answer; past STUBBORN_ATTEMPTS the status says so plainly. */
+  oldestAttempts: number;
   /** The server's message for a 409/404 stop. */
   stopMessage?: string;
   /** The server's message for the last answer it refused (422); that answer was dropped. */
@@ -52,6 +58,11 @@ export interface AnswerQueueOptions {
 }
 
 const MAX_RETRY_DELAY_MS = 30_000;
+/**
+ * After this many failed sends of one answer (about a minute of backoff) the status stops saying
+ * "trying again" and says the answer has not gone, while the queue keeps retrying.
+ */
+export const STUBBORN_ATTEMPTS = 6;
 const FIRST_RETRY_DELAY_MS = 1_000;
 
 /** Delay before retry number `attempt` (1-based): 1 s, 2 s, 4 s … capped at 30 s. */
@@ -173,6 +184,7 @@ export class AnswerQueue {
   private snapshot: QueueStatus;
   private phase: QueuePhase = 'idle';
   private hasStored = false;
+  private keptOnPhone: boolean;
   private stopMessage?: string;
   private rejectionMessage?: string;
 
@@ -184,6 +196,7 @@ export class AnswerQueue {
     this.clearTimer = options.clearTimer ?? ((t) => globalThis.clearTimeout(t as ReturnType<typeof setTimeout>));
     this.makeKey = options.makeKey ?? (() => makeIdempotencyKey());
     this.items = readStoredItems(this.storage, queueStorageKey(this.seatToken));
+    this.keptOnPhone = this.storage !== null;
     this.snapshot = this.buildSnapshot();
   }
 
@@ -255,8 +268,11 @@ export class AnswerQueue {
     try {
       if (this.items.length === 0) this.storage.removeItem(key);
       else this.storage.setItem(key, JSON.stringify({ v: 1, items: this.items }));
+      this.keptOnPhone = true;
     } catch {
-      // Storage full or blocked: keep going in memory rather than lose the answer now.
+      // Storage full or blocked: keep going in memory rather than lose the answer now, and stop
+      // claiming it is kept on the phone.
+      this.keptOnPhone = false;
     }
   }
 
@@ -266,6 +282,8 @@ export class AnswerQueue {
       waitingCount: this.items.length,
       waitingSlots: this.items.map((i) => answerSlot(i.answer)),
       hasStored: this.hasStored,
+      keptOnPhone: this.keptOnPhone && this.storage !== null,
+      oldestAttempts: this.items[0]?.attempts ?? 0,
       stopMessage: this.stopMessage,
       rejectionMessage: this.rejectionMessage,
     };
@@ -341,23 +359,32 @@ export class AnswerQueue {
   }
 }
 
-/** The one-line save status under the questions. Empty when there is nothing to say yet. */
+/**
+ * The one-line status under the questions. "Saved on this phone" as soon as an answer is in the
+ * phone's storage, "Sent" once the server has every answer. Empty when there is nothing to say yet.
+ */
 export function describeQueueStatus(status: QueueStatus): string {
   const n = status.waitingCount;
-  const waiting = `${n} ${n === 1 ? 'answer' : 'answers'} waiting`;
+  const answers = `${n} ${n === 1 ? 'answer' : 'answers'}`;
+  const kept = status.keptOnPhone;
+  if (n > 0 && status.oldestAttempts >= STUBBORN_ATTEMPTS && (status.phase === 'offline' || status.phase === 'retrying')) {
+    return kept
+      ? `Not sent after ${status.oldestAttempts} tries — ${answers} kept on this phone. Keep this page open; they go when the connection allows.`
+      : `Not sent after ${status.oldestAttempts} tries — ${answers} waiting. Keep this page open; they go when the connection allows.`;
+  }
   switch (status.phase) {
     case 'saving':
-      return 'Saving…';
+      return kept ? 'Saved on this phone' : 'Sending…';
     case 'offline':
-      return `Offline — ${waiting}`;
+      return kept ? `Saved on this phone — offline, ${answers} to send` : `Offline — ${answers} waiting`;
     case 'retrying':
-      return `Not saved yet — ${waiting}, trying again`;
+      return kept ? `Saved on this phone — not sent yet, trying again (${answers} to send)` : `Not sent yet — ${answers} waiting, trying again`;
     case 'closed':
-      return n > 0 ? `This tasting has closed — ${waiting} could not be saved` : 'This tasting has closed';
+      return n > 0 ? `This tasting has closed — ${answers} could not be sent` : 'This tasting has closed';
     case 'stopped':
       return status.stopMessage ?? 'This tasting link is no longer valid.';
     case 'idle':
-      if (n > 0) return `${waiting}`;
-      return status.hasStored ? 'Saved' : '';
+      if (n > 0) return kept ? 'Saved on this phone' : `${answers} waiting`;
+      return status.hasStored ? 'Sent' : '';
   }
 }

@@ -107,3 +107,6 @@ export function parseSeatView(json: unknown): SeatView {
   }
   return view;
 }
+
+/** What the taster reads when the seat link is unknown, whether the page or the API found out. */
+export const SEAT_NOT_FOUND_MESSAGE = 'This tasting link is not valid. Ask the organiser for the join code again.';

@@ -104,9 +104,14 @@ export async function listVariants(actor: Actor, trialId: string): Promise<Varia
 
 export async function getTrialOverview(actor: Actor, trialId: string): Promise<TrialOverview> {
   const em = await getEm();
-  const t = (await em.findOne(Trial, { ...inWorkspace(actor), id: trialId }, { populate: ['owner', 'baseFormula'] }));
+  // The trial, its history and its variants are read at once (each scoped to the workspace); a
+  // trial of another workspace finds nothing in any of them.
+  const [t, history, variants] = await Promise.all([
+    em.findOne(Trial, { ...inWorkspace(actor), id: trialId }, { populate: ['owner', 'baseFormula'] }),
+    em.find(TrialStatusChange, { ...inWorkspace(actor), trial: trialId }, { populate: ['changedBy'], orderBy: { changedAt: 'asc' } }),
+    listVariants(actor, trialId),
+  ]);
   if (!t) throw notFound('trial');
-  const history = (await em.find(TrialStatusChange, { ...inWorkspace(actor), trial: trialId }, { populate: ['changedBy'], orderBy: { changedAt: 'asc' } }));
   return {
     id: t.id,
     code: trialCode(t.number),
@@ -116,7 +121,7 @@ export async function getTrialOverview(actor: Actor, trialId: string): Promise<T
     owner: { id: t.owner.id, name: t.owner.name },
     baseFormula: { id: t.baseFormula.id, name: t.baseFormula.name, revision: t.baseRevision },
     createdAt: t.createdAt.toISOString(),
-    variants: await listVariants(actor, trialId),
+    variants,
     history: history.map((h) => ({ from: h.fromStatus ?? null, to: h.toStatus, note: h.note ?? null, byName: h.changedBy.name, at: h.changedAt.toISOString() })),
   };
 }

@@ -48,6 +48,14 @@ export function toUploadView(row: UploadRow, uploadedByName?: string): UploadVie
 /** A trial's uploads in the order they were taken (oldest first), optionally for one variant or cook. */
 export async function listUploads(actor: Actor, trialId: string, query: UploadListQuery = {}): Promise<UploadView[]> {
   await loadTrial(actor, trialId);
+  return readUploads(actor, trialId, query);
+}
+
+/**
+ * listUploads without its trial check, for a caller that checks the trial itself in the same
+ * request (the trial page). Still scoped to the actor's workspace.
+ */
+export async function readUploads(actor: Actor, trialId: string, query: UploadListQuery = {}): Promise<UploadView[]> {
   const filter = uploadListQuerySchema.parse(query);
   const em = await getEm();
   const where: Record<string, unknown> = { ...inWorkspace(actor), trial: trialId };

@@ -4,7 +4,7 @@
  */
 import { describe, it, expect } from 'vitest';
 import type { Page } from 'playwright-core';
-import { sharedBrowser, newContext, signIn, screenshot } from './browser';
+import { sharedBrowser, newContext, signIn, screenshot, openApricotTasting, watchCsp } from './browser';
 import { DEMO_USERS } from '@/lib/seed/demo';
 
 const browser = sharedBrowser();
@@ -67,6 +67,70 @@ describe('a tasting on phones', () => {
     await screenshot(organiser, 'panel-organiser');
     await phoneCtx.close();
     await desk.close();
+  });
+});
+
+describe('answers given without a connection', () => {
+  it('keeps an offline answer on the phone and sends it on reconnecting, and after a reload; the first screen is in the HTML', async () => {
+    const { joinCode } = await openApricotTasting(browser(), { organiserEmail: developer.email, title: 'Offline check', attribute: 'Overall liking' });
+    const phoneCtx = await newContext(browser(), { width: 390, height: 844 });
+    const phone = await phoneCtx.newPage();
+    const violations = await watchCsp(phone);
+    await phone.goto('/join');
+    await phone.getByLabel('Tasting code').fill(joinCode);
+    await phone.getByLabel('Your name').fill('Offline guest');
+    await phone.getByRole('button', { name: 'Join the tasting' }).click();
+    await phone.waitForURL(/\/t\/sws_/);
+    const seatPath = new URL(phone.url()).pathname;
+    const seatToken = seatPath.split('/').pop()!;
+    await phone.getByRole('button', { name: 'I agree, start' }).click();
+    await phone.getByText('Sample 1 of 2').waitFor();
+    const code = (await phone.getByRole('heading', { level: 1 }).textContent())!.replace(/\D/g, '');
+
+    // The server's HTML already has the sample, the question and the answers (no script needed to paint them).
+    const html = await (await phone.request.get(seatPath)).text();
+    expect(html).toContain(code);
+    expect(html).toContain('Overall liking');
+    expect(html).toContain('Like moderately');
+
+    const serverValue = async () => {
+      const view = await (await phoneCtx.request.get(`/api/v1/tasting/${seatToken}`)).json();
+      return (view.answers as Array<{ code?: string; value?: number }>).find((a) => a.code === code)?.value ?? null;
+    };
+    const status = phone.getByRole('status');
+
+    // Offline: the answer is kept on the phone and says so; nothing reaches the server.
+    await phoneCtx.setOffline(true);
+    await phone.getByRole('radio', { name: 'Like moderately', exact: true }).check();
+    await expect.poll(() => status.textContent(), { timeout: 10_000 }).toMatch(/^Saved on this phone — offline, 1 answer to send$/);
+    expect(await serverValue()).toBeNull();
+    // Back online: the phone sends it without another tap.
+    await phoneCtx.setOffline(false);
+    await expect.poll(() => status.textContent(), { timeout: 15_000 }).toBe('Sent');
+    expect(await serverValue()).toBe(7);
+
+    // Offline again, a change of mind, then the page is closed before any connection comes back.
+    await phoneCtx.setOffline(true);
+    await phone.getByRole('radio', { name: 'Like slightly', exact: true }).check();
+    await expect.poll(() => status.textContent(), { timeout: 10_000 }).toMatch(/^Saved on this phone — offline/);
+    await phone.close();
+    await phoneCtx.setOffline(false);
+    expect(await serverValue()).toBe(7);
+    // Opening the link again sends what the phone kept.
+    const again = await phoneCtx.newPage();
+    violations.push(...(await watchCsp(again)));
+    await again.goto(seatPath);
+    // Sample 1 has an answer (on the server and on the phone), so the page resumes at sample 2.
+    await again.getByText('Sample 2 of 2').waitFor();
+    await expect.poll(serverValue, { timeout: 15_000 }).toBe(6);
+    await expect.poll(() => again.getByRole('status').textContent(), { timeout: 15_000 }).toBe('Sent');
+    expect(violations).toEqual([]);
+
+    // A seat link nobody was given is a 404 that says what to do.
+    const unknown = await phoneCtx.request.get('/t/sws_no-such-seat-0000000000');
+    expect(unknown.status()).toBe(404);
+    expect(await unknown.text()).toContain('Ask the organiser for the join code again.');
+    await phoneCtx.close();
   });
 });
 

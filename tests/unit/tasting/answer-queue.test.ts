@@ -5,6 +5,7 @@ import {
   describeQueueStatus,
   queueStorageKey,
   retryDelayMs,
+  STUBBORN_ATTEMPTS,
   type AnswerPayload,
   type KeyValueStorage,
 } from '@/lib/tasting-client';
@@ -94,7 +95,7 @@ describe('AnswerQueue', () => {
     await settle();
     expect(fetchMock).toHaveBeenCalledTimes(1);
     expect(queue.status().phase).toBe('offline');
-    expect(describeQueueStatus(queue.status())).toBe('Offline — 1 answer waiting');
+    expect(describeQueueStatus(queue.status())).toBe('Saved on this phone — offline, 1 answer to send');
     expect(timers.fireNext()).toBe(1000);
     await settle();
     expect(fetchMock).toHaveBeenCalledTimes(2);
@@ -104,7 +105,7 @@ describe('AnswerQueue', () => {
     expect(fetchMock.mock.calls[0][0]).toBe(`/api/v1/tasting/${SEAT}/answers`);
     expect((fetchMock.mock.calls[0][1] as RequestInit).method).toBe('PUT');
     expect(queue.pending()).toHaveLength(0);
-    expect(describeQueueStatus(queue.status())).toBe('Saved');
+    expect(describeQueueStatus(queue.status())).toBe('Sent');
   });
 
   it('sends ten retries of one answer under one key, backing off 1, 2, 4 … 30 s', async () => {
@@ -179,7 +180,7 @@ describe('AnswerQueue', () => {
     queue.start();
     await settle();
     expect(queue.status().phase).toBe('saving');
-    expect(describeQueueStatus(queue.status())).toBe('Saving…');
+    expect(describeQueueStatus(queue.status())).toBe('Saved on this phone');
     // A change to the answer being sent goes out after it, under its own key.
     queue.enqueue(liking('482', 8));
     queue.enqueue({ kind: 'ranking', attributeId: 'attr-liking', ranking: ['903', '482', '615'] });
@@ -199,7 +200,7 @@ describe('AnswerQueue', () => {
     queue.enqueue(liking('482', 5));
     queue.enqueue(liking('615', 2));
     queue.enqueue(liking('482', 6));
-    expect(describeQueueStatus(queue.status())).toBe('2 answers waiting');
+    expect(describeQueueStatus(queue.status())).toBe('Saved on this phone');
     queue.start();
     await settle();
     expect(bodies(fetchMock).map((b) => [b.code, b.value])).toEqual([
@@ -217,7 +218,7 @@ describe('AnswerQueue', () => {
     await settle();
     const before = first.queue.pending().map((i) => i.idempotencyKey);
     expect(before).toHaveLength(2);
-    expect(describeQueueStatus(first.queue.status())).toBe('Offline — 2 answers waiting');
+    expect(describeQueueStatus(first.queue.status())).toBe('Saved on this phone — offline, 2 answers to send');
 
     const online = vi.fn().mockResolvedValue(json(200, { stored: true, duplicate: false }));
     const reloaded = makeQueue(online, first.storage);
@@ -283,5 +284,112 @@ describe('AnswerQueue', () => {
       ranking: ['1', '2'],
     });
     expect(answerRequestBody({ idempotencyKey: 'k', attempts: 0, answer: { kind: 'triangle', oddCode: '615' } })).toEqual({ idempotencyKey: 'k', oddCode: '615' });
+  });
+});
+
+describe('the outbox on the phone', () => {
+  it('writes an answer to the phone before it is sent and says so at once, then "Sent" when the server confirms', async () => {
+    const storage = new MemoryStorage();
+    let release!: () => void;
+    let storedWhenSent: string | null = null;
+    const fetchMock = vi.fn().mockImplementation(() => {
+      storedWhenSent = storage.getItem(queueStorageKey(SEAT));
+      return new Promise<Response>((resolve) => {
+        release = () => resolve(json(200, { stored: true, duplicate: false }));
+      });
+    });
+    const { queue } = makeQueue(fetchMock, storage);
+    queue.start();
+    queue.enqueue(liking('482', 7));
+    // Before any reply: the answer is on the phone and the taster is told so.
+    expect(describeQueueStatus(queue.status())).toBe('Saved on this phone');
+    expect(JSON.parse(storage.getItem(queueStorageKey(SEAT))!).items[0].answer).toEqual(liking('482', 7));
+    await settle();
+    expect(JSON.parse(storedWhenSent!).items).toHaveLength(1);
+    release();
+    await settle();
+    expect(describeQueueStatus(queue.status())).toBe('Sent');
+    expect(storage.getItem(queueStorageKey(SEAT))).toBeNull();
+  });
+
+  it('does not claim "Saved on this phone" when the phone refuses to store it', async () => {
+    const full: KeyValueStorage = {
+      getItem: () => null,
+      setItem: () => {
+        throw new DOMException('Quota exceeded', 'QuotaExceededError');
+      },
+      removeItem: () => {},
+    };
+    const fetchMock = vi.fn().mockRejectedValue(new TypeError('Failed to fetch'));
+    const { queue } = makeQueue(fetchMock, full as MemoryStorage);
+    queue.enqueue(liking('482', 7));
+    expect(describeQueueStatus(queue.status())).toBe('1 answer waiting');
+    queue.start();
+    await settle();
+    // Kept in memory and still retried, but the taster is not told it would survive a reload.
+    expect(describeQueueStatus(queue.status())).toBe('Offline — 1 answer waiting');
+    expect(queue.pending()).toHaveLength(1);
+  });
+
+  it('says plainly when an answer has not gone after many tries, and still sends it later under its key', async () => {
+    const fetchMock = vi.fn();
+    for (let i = 0; i < STUBBORN_ATTEMPTS; i++) fetchMock.mockResolvedValueOnce(json(503, { error: { code: 'busy', message: 'Busy' } }));
+    fetchMock.mockResolvedValue(json(200, { stored: true, duplicate: false }));
+    const { queue, timers } = makeQueue(fetchMock);
+    queue.enqueue(liking('482', 7));
+    queue.enqueue(liking('615', 3));
+    queue.start();
+    await settle();
+    expect(describeQueueStatus(queue.status())).toBe('Saved on this phone — not sent yet, trying again (2 answers to send)');
+    for (let i = 1; i < STUBBORN_ATTEMPTS; i++) {
+      timers.fireNext();
+      await settle();
+    }
+    expect(describeQueueStatus(queue.status())).toBe(
+      `Not sent after ${STUBBORN_ATTEMPTS} tries — 2 answers kept on this phone. Keep this page open; they go when the connection allows.`,
+    );
+    timers.fireNext();
+    await settle();
+    await settle();
+    const sent = bodies(fetchMock);
+    expect(new Set(sent.slice(0, STUBBORN_ATTEMPTS + 1).map((b) => b.idempotencyKey)).size).toBe(1);
+    expect(sent.map((b) => b.code)).toEqual([...Array(STUBBORN_ATTEMPTS + 1).fill('482'), '615']);
+    expect(describeQueueStatus(queue.status())).toBe('Sent');
+  });
+
+  it('loses nothing across two reloads mid-send: every answer reaches the server once per key, in order', async () => {
+    const storage = new MemoryStorage();
+    // First page: two answers, the first request never returns (the phone reloads while it is out).
+    const hanging = vi.fn().mockImplementation(() => new Promise<Response>(() => {}));
+    const first = makeQueue(hanging, storage);
+    first.queue.start();
+    first.queue.enqueue(liking('482', 7));
+    first.queue.enqueue(liking('615', 4));
+    await settle();
+    // Second page: offline; one more answer given.
+    const offline = vi.fn().mockRejectedValue(new TypeError('Failed to fetch'));
+    const second = makeQueue(offline, storage);
+    second.queue.enqueue(liking('903', 9));
+    second.queue.start();
+    await settle();
+    // Third page: online; the outbox replays in the order the answers were given.
+    const server = new Map<string, number>();
+    const online = vi.fn().mockImplementation(async (_url: string, init: RequestInit) => {
+      const body = JSON.parse(String(init.body));
+      server.set(body.idempotencyKey, (server.get(body.idempotencyKey) ?? 0) + 1);
+      return json(200, { stored: true, duplicate: false });
+    });
+    const third = makeQueue(online, storage);
+    third.queue.start();
+    for (let i = 0; i < 4; i++) await settle();
+    expect(bodies(online).map((b) => [b.code, b.value])).toEqual([
+      ['482', 7],
+      ['615', 4],
+      ['903', 9],
+    ]);
+    // The replay of the first answer carries the key of the request lost in the first reload.
+    expect(bodies(online)[0].idempotencyKey).toBe(bodies(hanging)[0].idempotencyKey);
+    expect([...server.values()]).toEqual([1, 1, 1]);
+    expect(storage.getItem(queueStorageKey(SEAT))).toBeNull();
   });
 });

@@ -10,8 +10,9 @@ vi.mock('next/navigation', () => ({
   useSearchParams: () => new URLSearchParams(),
 }));
 
+import { renderToString } from 'react-dom/server';
 import { TastingFlow } from '@/components/tasting/TastingFlow';
-import { queueStorageKey, RINSE_REMINDER } from '@/lib/tasting-client';
+import { parseSeatView, queueStorageKey, RINSE_REMINDER } from '@/lib/tasting-client';
 
 type Call = { method: string; url: string; body: any };
 
@@ -87,7 +88,7 @@ describe('TastingFlow', () => {
     const put = api.puts()[0];
     expect(put).toMatchObject({ code: '482', attributeId: 'attr-liking', value: 7 });
     expect(put.idempotencyKey).toMatch(/^[0-9a-f]{8}-[0-9a-f]{4}-4[0-9a-f]{3}-[89ab][0-9a-f]{3}-[0-9a-f]{12}$/);
-    await screen.findByText('Saved');
+    await screen.findByText('Sent');
     expectNoSecrets();
 
     fireEvent.click(screen.getByRole('button', { name: 'Next' }));
@@ -152,7 +153,7 @@ describe('TastingFlow', () => {
     render(<TastingFlow seatToken={SEAT_TOKEN} />);
     await screen.findByText('Sample 1 of 3');
     await rate('Like slightly');
-    await screen.findByText('Offline — 1 answer waiting');
+    await screen.findByText('Saved on this phone — offline, 1 answer to send');
     const stored = JSON.parse(window.localStorage.getItem(queueStorageKey(SEAT_TOKEN))!);
     expect(stored.items).toHaveLength(1);
     expect(stored.items[0].answer).toEqual({ kind: 'rated', code: '482', attributeId: 'attr-liking', value: 6 });
@@ -173,7 +174,7 @@ describe('TastingFlow', () => {
     render(<TastingFlow seatToken={SEAT_TOKEN} />);
     await screen.findByText('Sample 1 of 3');
     await rate('Like very much');
-    await screen.findByText('Saved');
+    await screen.findByText('Sent');
     fireEvent.click(screen.getByRole('button', { name: 'Next' }));
     fireEvent.click(screen.getByRole('button', { name: 'Next sample' }));
     await rate('Dislike moderately');
@@ -182,9 +183,9 @@ describe('TastingFlow', () => {
     const saved = screen.getByText('Sample 482').closest('li')!.textContent!;
     const unsaved = screen.getByText('Sample 615').closest('li')!.textContent!;
     expect(saved).toContain('Like very much');
-    expect(saved).toContain('Saved');
+    expect(saved).toContain('Sent');
     expect(unsaved).toContain('Dislike moderately');
-    expect(unsaved).toContain('Not saved');
+    expect(unsaved).toContain('Not sent');
   });
 
   it('shows the closed screen straight away for a session that has already closed', async () => {
@@ -254,5 +255,42 @@ describe('TastingFlow, other methods', () => {
     fireEvent.click(screen.getByRole('button', { name: 'Review my answers' }));
     await screen.findByRole('heading', { name: 'Check your answers' });
     expect(screen.getByText('Fairly sure')).toBeTruthy();
+  });
+});
+
+describe('TastingFlow, first screen read by the page', () => {
+  it('has the sample code, the question and the answers in the server HTML, disabled until the script runs', () => {
+    const fetchMock = vi.fn();
+    vi.stubGlobal('fetch', fetchMock);
+    const view = parseSeatView(ratedSeatPayload({ consented: true }));
+    const html = renderToString(<TastingFlow seatToken={SEAT_TOKEN} first={view} />);
+    expect(html).toContain('Sample <!-- -->1<!-- --> of <!-- -->3');
+    expect(html).toContain('482');
+    expect(html).toContain('Overall liking');
+    expect(html).toContain('Like moderately');
+    expect(html).toMatch(/<fieldset[^>]* disabled=""/);
+    expect(html).toContain('Getting the page ready…');
+    expect(html).not.toContain('Loading your tasting');
+    expect(html).not.toContain('SECRET');
+    expect(fetchMock).not.toHaveBeenCalled();
+  });
+
+  it('starts on the page’s view without asking the API, merges answers still on the phone and sends them', async () => {
+    window.localStorage.setItem(
+      queueStorageKey(SEAT_TOKEN),
+      JSON.stringify({ v: 1, items: [{ idempotencyKey: '3f1c2a9e-8b7d-4c6e-9a5b-1d2e3f4a5b6c', attempts: 1, answer: { kind: 'rated', code: '482', attributeId: 'attr-liking', value: 3 } }] }),
+    );
+    const api = mockApi(ratedSeatPayload({ consented: true }));
+    render(<TastingFlow seatToken={SEAT_TOKEN} first={parseSeatView(ratedSeatPayload({ consented: true }))} />);
+    // The phone's waiting answer to 482 moves the taster on to the next sample.
+    await screen.findByText('Sample 2 of 3');
+    await waitFor(() => expect(api.puts()).toEqual([{ idempotencyKey: '3f1c2a9e-8b7d-4c6e-9a5b-1d2e3f4a5b6c', code: '482', attributeId: 'attr-liking', value: 3 }]));
+    expect(api.calls.filter((c) => c.method === 'GET')).toHaveLength(0);
+    await rate('Like slightly');
+    await screen.findByText('Sent');
+    expect(api.puts().map((b) => [b.code, b.value])).toEqual([
+      ['482', 3],
+      ['615', 6],
+    ]);
   });
 });

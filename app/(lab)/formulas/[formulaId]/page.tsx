@@ -13,10 +13,15 @@ export const metadata = { title: 'Formula' };
 
 export default async function FormulaPage({ params }: { params: Promise<{ formulaId: string }> }) {
   const actor = await requirePage('formulas.read');
-  const formula = await orNotFound(getFormula(actor, pageId((await params).formulaId)));
+  const writer = can(actor.role, 'formulas.write');
+  // The library is read beside the formula, not after it (writers only; both are workspace-scoped).
+  const [formula, fullLibrary] = await Promise.all([
+    orNotFound(getFormula(actor, pageId((await params).formulaId))),
+    writer ? listIngredients(actor, { archived: 'include' }) : Promise.resolve([]),
+  ]);
   const c = formula.current;
 
-  if (!can(actor.role, 'formulas.write')) {
+  if (!writer) {
     // Reviewers read the formula and its results; they cannot save revisions.
     return (
       <>
@@ -31,7 +36,7 @@ export default async function FormulaPage({ params }: { params: Promise<{ formul
 
   // Archived ingredients appear only where a current line still uses them (the server refuses them on save).
   const used = new Set(c.lines.map((l) => l.ingredientId));
-  const library = (await listIngredients(actor, { archived: 'include' })).filter((i) => !i.archived || used.has(i.id));
+  const library = fullLibrary.filter((i) => !i.archived || used.has(i.id));
   return (
     <>
       <FormulaHeader formula={formula} active="editor" />

@@ -5,8 +5,8 @@ import { getTrialOverview } from '@/lib/trials/queries';
 import { measureFactor, type MassLine } from '@/lib/trials/plan';
 import { TRIAL_FACTORS, TRIAL_STATUS_LABELS, type TrialFactor } from '@/lib/trials/vocabulary';
 import { resolveLines } from '@/lib/chemistry';
-import { getEntry } from '@/lib/notebook/queries';
-import { listUploads } from '@/lib/uploads/queries';
+import { readEntry } from '@/lib/notebook/queries';
+import { readUploads } from '@/lib/uploads/queries';
 import { TrialHeader } from '@/components/trials/TrialHeader';
 import { StatusControls } from '@/components/trials/StatusControls';
 import { VariantsTable } from '@/components/trials/VariantsTable';
@@ -38,8 +38,11 @@ function baseLevelsOf(lines: MassLine[]): Record<TrialFactor, number | null> {
 export default async function TrialPage({ params }: { params: Promise<{ trialId: string }> }) {
   const actor = await requirePage('trials.read');
   const trialId = pageId((await params).trialId);
-  const trial = await orNotFound(getTrialOverview(actor, trialId));
-  const [notebook, uploads, panels] = await Promise.all([getEntry(actor, trialId, null), listUploads(actor, trialId), can(actor.role, 'panels.read') ? listPanelSessions(actor, trialId) : Promise.resolve([])]);
+  // All four reads at once. The overview checks the trial (a 404 otherwise); the notebook and the
+  // uploads are workspace-scoped reads of the same trial, so they skip their own check of it.
+  const [trial, notebook, uploads, panels] = await orNotFound(
+    Promise.all([getTrialOverview(actor, trialId), readEntry(actor, trialId, null), readUploads(actor, trialId), can(actor.role, 'panels.read') ? listPanelSessions(actor, trialId) : Promise.resolve([])]),
+  );
   const canEdit = can(actor.role, 'trials.write');
   const editable = canEdit && (trial.status === 'planning' || trial.status === 'cooking');
   const base = trial.variants.find((v) => v.isBase)!;
