@@ -1,0 +1,63 @@
+import { describe, expect, it } from 'vitest';
+import { formatMoney, minorDigits, minorToDecimal, roundMinor } from '@/lib/costing';
+
+// Rounding rule: our choice, round half to even, stated in lib/costing/money.ts (common practice in
+// bookkeeping, no published source needed for the arithmetic itself).
+describe('roundMinor: round half to even, once', () => {
+  it('rounds a tie to the even neighbour on both sides of .5', () => {
+    expect(roundMinor(12.5)).toBe(12);
+    expect(roundMinor(13.5)).toBe(14);
+    expect(roundMinor(0.5)).toBe(0);
+    expect(roundMinor(1.5)).toBe(2);
+    expect(roundMinor(-2.5)).toBe(-2);
+    expect(roundMinor(-3.5)).toBe(-4);
+  });
+
+  it('rounds just below and just above a tie to the nearer whole unit', () => {
+    expect(roundMinor(12.49)).toBe(12);
+    expect(roundMinor(12.51)).toBe(13);
+    expect(roundMinor(13.4999)).toBe(13);
+    expect(roundMinor(13.5001)).toBe(14);
+  });
+
+  it('treats float noise around a tie as the tie it was meant to be', () => {
+    // (12.5 / 97) × 97 = 12.499999999999998 and (12.5 / 11) × 11 = 12.500000000000002 in binary
+    // floats; both meant 12.5, which rounds to 12.
+    const below = (12.5 / 97) * 97;
+    const above = (12.5 / 11) * 11;
+    expect(below).toBeLessThan(12.5);
+    expect(above).toBeGreaterThan(12.5);
+    expect(roundMinor(below)).toBe(12);
+    expect(roundMinor(above)).toBe(12);
+    expect(roundMinor(13.5 + 1e-12)).toBe(14);
+  });
+
+  it('never returns minus zero and refuses what is not a number', () => {
+    expect(Object.is(roundMinor(-0.2), 0)).toBe(true);
+    expect(() => roundMinor(Number.NaN)).toThrow(RangeError);
+    expect(() => roundMinor(Infinity)).toThrow(RangeError);
+  });
+});
+
+describe('money on screen and in data', () => {
+  it('knows the minor unit of the currency (ISO 4217: GBP 2 digits, JPY 0)', () => {
+    // Source: ISO 4217 minor-unit column (GBP 2, EUR 2, JPY 0), as carried by the ICU data in Node.
+    expect(minorDigits('GBP')).toBe(2);
+    expect(minorDigits('EUR')).toBe(2);
+    expect(minorDigits('JPY')).toBe(0);
+  });
+
+  it('formats rounded minor units as major units, signed when asked', () => {
+    expect(formatMoney(106.573, 'GBP')).toBe('£1.07');
+    expect(formatMoney(1.9095, 'GBP', { signed: true })).toBe('+£0.02');
+    expect(formatMoney(250.5, 'EUR')).toBe('€2.50');
+    expect(formatMoney(1234, 'JPY')).toBe('JP¥1,234');
+  });
+
+  it('writes plain decimals for CSV and the API', () => {
+    expect(minorToDecimal(106.573, 'GBP')).toBe('1.07');
+    expect(minorToDecimal(5, 'GBP')).toBe('0.05');
+    expect(minorToDecimal(-250.5, 'GBP')).toBe('-2.50');
+    expect(minorToDecimal(1234, 'JPY')).toBe('1234');
+  });
+});
