@@ -4,6 +4,7 @@ import { Workspace } from './Workspace';
 import { User } from './User';
 import { Trial } from './Trial';
 import { Product } from './Product';
+import { PackFormat } from './PackFormat';
 import { VERSION_STATUSES } from '../lib/production/vocabulary';
 import type { FormulaSettingsInput, RevisionLine } from '../lib/formulas/schema';
 import type { ProductionProcess } from '../lib/production/schema';
@@ -36,6 +37,8 @@ export const ProductionFormula = defineEntity({
     approvedAt: p.datetime().onCreate(() => new Date()),
     supersededAt: p.datetime().nullable(),
     supersededByVersion: p.integer().nullable(),
+    /** The jar and packaging the version is filled in; the one column that may change after approval (lib/pricing). */
+    packFormat: p.manyToOne(PackFormat).nullable(),
   }),
   uniques: [{ properties: ['product', 'version'] }],
   indexes: [{ properties: ['workspace', 'status'] }],
