@@ -9,6 +9,8 @@
  * TIE_TOLERANCE of a half is treated as the tie it was meant to be.
  */
 
+import { amountText, formatMoney } from '@/lib/pricing/money';
+
 /** Far below a thousandth of a minor unit, far above the float noise of a few dozen operations. */
 const TIE_TOLERANCE = 1e-7;
 
@@ -24,47 +26,18 @@ export function roundMinor(minor: number): number {
   return rounded === 0 ? 0 : rounded;
 }
 
-const ISO_CURRENCY = /^[A-Z]{3}$/;
-
-/** Digits after the decimal point in the currency's minor unit (2 for GBP/EUR, 0 for JPY). */
-export function minorDigits(currency: string): number {
-  if (!ISO_CURRENCY.test(currency)) return 2;
-  try {
-    return new Intl.NumberFormat('en-GB', { style: 'currency', currency }).resolvedOptions().maximumFractionDigits ?? 2;
-  } catch {
-    return 2;
-  }
-}
-
 /**
- * Unrounded minor units → a figure in the currency for the screen ("£1.23", "€0.45"), rounded once
- * with roundMinor. `signed` puts a plus on positive differences (sensitivity, movements).
+ * Unrounded minor units → the screen's figure ("GBP 1.07"), rounded once with roundMinor and
+ * written the way prices are (lib/pricing/money.ts). `signed` marks rises ("+GBP 0.02").
  */
-export function formatMoney(minor: number, currency: string, options: { signed?: boolean } = {}): string {
-  const digits = minorDigits(currency);
+export function formatCost(minor: number, currency: string, options: { signed?: boolean } = {}): string {
   const whole = roundMinor(minor);
-  const major = whole / 10 ** digits;
-  let text: string;
-  try {
-    text = new Intl.NumberFormat('en-GB', {
-      style: 'currency',
-      currency: ISO_CURRENCY.test(currency) ? currency : 'XXX',
-      minimumFractionDigits: digits,
-      maximumFractionDigits: digits,
-    }).format(major);
-  } catch {
-    text = `${major.toFixed(digits)} ${currency}`;
-  }
-  return options.signed && whole > 0 ? `+${text}` : text;
+  if (!options.signed) return formatMoney(whole, currency);
+  const text = formatMoney(Math.abs(whole), currency);
+  return whole > 0 ? `+${text}` : whole < 0 ? `−${text}` : text;
 }
 
-/** Unrounded minor units → a plain decimal in major units for CSV and the API ("1.23"). */
-export function minorToDecimal(minor: number, currency: string): string {
-  const digits = minorDigits(currency);
-  const whole = roundMinor(minor);
-  const sign = whole < 0 ? '-' : '';
-  const abs = Math.abs(whole);
-  if (digits === 0) return `${sign}${abs}`;
-  const text = String(abs).padStart(digits + 1, '0');
-  return `${sign}${text.slice(0, -digits)}.${text.slice(-digits)}`;
+/** Unrounded minor units → a plain decimal in major units for CSV and the API ("1.07"). */
+export function costDecimal(minor: number, currency: string): string {
+  return amountText(roundMinor(minor), currency);
 }

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { formatMoney, minorDigits, minorToDecimal, roundMinor } from '@/lib/costing';
+import { costDecimal, formatCost, roundMinor } from '@/lib/costing';
 
 // Rounding rule: our choice, round half to even, stated in lib/costing/money.ts (common practice in
 // bookkeeping, no published source needed for the arithmetic itself).
@@ -39,25 +39,21 @@ describe('roundMinor: round half to even, once', () => {
   });
 });
 
-describe('money on screen and in data', () => {
-  it('knows the minor unit of the currency (ISO 4217: GBP 2 digits, JPY 0)', () => {
-    // Source: ISO 4217 minor-unit column (GBP 2, EUR 2, JPY 0), as carried by the ICU data in Node.
-    expect(minorDigits('GBP')).toBe(2);
-    expect(minorDigits('EUR')).toBe(2);
-    expect(minorDigits('JPY')).toBe(0);
+describe('costs on screen and in data', () => {
+  it('are rounded once, half to even, and written as prices are', () => {
+    expect(formatCost(106.573, 'GBP')).toBe('GBP 1.07');
+    expect(formatCost(112.5, 'GBP')).toBe('GBP 1.12');
+    expect(formatCost(113.5, 'GBP')).toBe('GBP 1.14');
+    expect(formatCost(1.9095, 'GBP', { signed: true })).toBe('+GBP 0.02');
+    expect(formatCost(-1.9095, 'GBP', { signed: true })).toBe('−GBP 0.02');
+    // Source: ISO 4217 minor units (JPY has none), as carried by the runtime's ICU data.
+    expect(formatCost(1234.5, 'JPY')).toBe('JPY 1,234');
   });
 
-  it('formats rounded minor units as major units, signed when asked', () => {
-    expect(formatMoney(106.573, 'GBP')).toBe('£1.07');
-    expect(formatMoney(1.9095, 'GBP', { signed: true })).toBe('+£0.02');
-    expect(formatMoney(250.5, 'EUR')).toBe('€2.50');
-    expect(formatMoney(1234, 'JPY')).toBe('JP¥1,234');
-  });
-
-  it('writes plain decimals for CSV and the API', () => {
-    expect(minorToDecimal(106.573, 'GBP')).toBe('1.07');
-    expect(minorToDecimal(5, 'GBP')).toBe('0.05');
-    expect(minorToDecimal(-250.5, 'GBP')).toBe('-2.50');
-    expect(minorToDecimal(1234, 'JPY')).toBe('1234');
+  it('go to CSV and the API as plain decimals in major units', () => {
+    expect(costDecimal(106.573, 'GBP')).toBe('1.07');
+    expect(costDecimal(5, 'GBP')).toBe('0.05');
+    expect(costDecimal(250.5, 'EUR')).toBe('2.50');
+    expect(costDecimal(1234, 'JPY')).toBe('1234');
   });
 });
