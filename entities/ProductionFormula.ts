@@ -10,6 +10,7 @@ import type { FormulaSettingsInput, RevisionLine } from '../lib/formulas/schema'
 import type { ProductionProcess } from '../lib/production/schema';
 import type { QcSpec } from '../lib/chemistry/qc';
 import type { ComplianceReport } from '../lib/chemistry/compliance';
+import type { FrozenCost } from '../lib/costs/schema';
 
 /**
  * One approved version of a product: a frozen snapshot of lines, process, rules and QC spec.
@@ -39,6 +40,8 @@ export const ProductionFormula = defineEntity({
     supersededByVersion: p.integer().nullable(),
     /** The jar and packaging the version is filled in; the one column that may change after approval (lib/pricing). */
     packFormat: p.manyToOne(PackFormat).nullable(),
+    /** The cost on the approval day, frozen at approval (lib/costs); null without a workspace currency. */
+    costAtApproval: p.json<FrozenCost>().nullable(),
   }),
   uniques: [{ properties: ['product', 'version'] }],
   indexes: [{ properties: ['workspace', 'status'] }],

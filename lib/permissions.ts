@@ -41,6 +41,7 @@ const GRANTS = {
   'production.read': STAFF,
   'batches.record': ['production'],
   'audit.read': ['admin', 'head_of_product'],
+  'prices.read': STAFF,
 } satisfies Record<string, Role[]>;
 
 export type Permission = keyof typeof GRANTS;
