@@ -5,6 +5,7 @@
  */
 import { computeFormula, type ComputableLine } from '@/lib/formulas/compute';
 import type { FormulaSettingsInput } from '@/lib/formulas/schema';
+import type { BatchComputation } from '@/lib/chemistry';
 import { costFormula, CostingInputError, type CostingInput, type FormulaCost } from './cost';
 
 export interface CostableLine extends ComputableLine {
@@ -15,21 +16,21 @@ export interface CostableLine extends ComputableLine {
 
 export type FormulaCostOutcome = { ok: true; cost: FormulaCost } | { ok: false; message: string };
 
-export function costStoredFormula(
-  settings: FormulaSettingsInput,
-  lines: CostableLine[],
-  prices: Omit<CostingInput, 'lines' | 'chargeG' | 'finishedMassG'>,
+export type FormulaPrices = Omit<CostingInput, 'lines' | 'chargeG' | 'finishedMassG'>;
+
+/** Prices a batch the chemistry has already computed (the editor has it at hand); lines in the computation's order. */
+export function costComputation(
+  computation: BatchComputation,
+  lines: Array<{ ingredientId: string; name: string; refusePct: number }>,
+  prices: FormulaPrices,
 ): FormulaCostOutcome {
-  if (lines.length === 0) return { ok: false, message: 'The formula has no lines to cost.' };
-  const outcome = computeFormula(settings, lines);
-  if (!outcome.ok) return { ok: false, message: `Cost needs the formula's results first: ${outcome.message}` };
-  const mb = outcome.computation.massBalance;
+  const mb = computation.massBalance;
   try {
     return {
       ok: true,
       cost: costFormula({
         ...prices,
-        lines: lines.map((l, i) => ({ ingredientId: l.ingredientId, name: l.ingredient.name, grams: mb.lines[i].massG, refusePct: l.refusePct })),
+        lines: lines.map((l, i) => ({ ingredientId: l.ingredientId, name: l.name, grams: mb.lines[i].massG, refusePct: l.refusePct })),
         chargeG: mb.totalChargeG,
         finishedMassG: mb.finishedMassG,
       }),
@@ -38,4 +39,11 @@ export function costStoredFormula(
     if (err instanceof CostingInputError) return { ok: false, message: err.message };
     throw err;
   }
+}
+
+export function costStoredFormula(settings: FormulaSettingsInput, lines: CostableLine[], prices: FormulaPrices): FormulaCostOutcome {
+  if (lines.length === 0) return { ok: false, message: 'The formula has no lines to cost.' };
+  const outcome = computeFormula(settings, lines);
+  if (!outcome.ok) return { ok: false, message: `Cost needs the formula's results first: ${outcome.message}` };
+  return costComputation(outcome.computation, lines.map((l) => ({ ingredientId: l.ingredientId, name: l.ingredient.name, refusePct: l.refusePct })), prices);
 }
