@@ -164,11 +164,12 @@ function today(): string {
   return new Date().toISOString().slice(0, 10);
 }
 
-export async function ingredientPriceList(actor: Actor): Promise<IngredientPriceRow[]> {
+/** Every ingredient with the price in force on `asOf` (default today); archived ones only when they have prices. */
+export async function ingredientPriceList(actor: Actor, asOf: string = today()): Promise<IngredientPriceRow[]> {
   const em = await getEm();
   const ingredients = await em.find(Ingredient, { ...inWorkspace(actor) }, { orderBy: { name: 'asc' }, limit: 1000 });
   const ids = ingredients.map((i) => i.id);
-  const current = await pricesAsOf(actor.workspaceId, ids, today());
+  const current = await pricesAsOf(actor.workspaceId, ids, asOf);
   const counts = await em.execute<{ ingredient_id: string; n: string }[]>(
     `select ingredient_id, count(*) as n from ingredient_prices where workspace_id = ? and withdrawn_at is null group by ingredient_id`, [actor.workspaceId],
   );
@@ -217,10 +218,10 @@ export async function ingredientPriceDetail(actor: Actor, ingredientId: string):
   };
 }
 
-export async function packagingItemList(actor: Actor): Promise<PackagingItemRow[]> {
+export async function packagingItemList(actor: Actor, asOf: string = today()): Promise<PackagingItemRow[]> {
   const em = await getEm();
   const items = await em.find(PackagingItem, { ...inWorkspace(actor) }, { orderBy: { name: 'asc' }, limit: 1000 });
-  const raw = await pointsAsOf('packaging', actor.workspaceId, items.map((i) => i.id), [today()]);
+  const raw = await pointsAsOf('packaging', actor.workspaceId, items.map((i) => i.id), [asOf]);
   const current = new Map(raw.map((r) => [r.subject_id, r]));
   const counts = await em.execute<{ packaging_item_id: string; n: string }[]>(
     `select packaging_item_id, count(*) as n from packaging_prices where workspace_id = ? and withdrawn_at is null group by packaging_item_id`, [actor.workspaceId],

@@ -35,6 +35,9 @@ export const refuseSchema = z
   })
   .strict();
 
+/** The refuse/trim share alone, for the API path that names the ingredient. */
+export const refuseBodySchema = z.object({ refusePct: boundedNumber('The refuse/trim share', 0, PRICE_LIMITS.maxRefusePct) }).strict();
+
 export const withdrawSchema = z
   .object({
     reason: longText(PRICE_LIMITS.maxReasonLength, { min: 3, required: 'Say why this price is withdrawn.' }),
@@ -88,6 +91,9 @@ export type PackFormatInput = z.infer<typeof packFormatSchema>;
 
 /** Which pack format a formula or a production version is costed in (null: none). */
 export const packFormatChoiceSchema = z.object({ packFormatId: id('Unknown pack format.').nullable() }).strict();
+
+/** The price lists' query: the day whose prices to show (default today). */
+export const priceListQuerySchema = z.object({ asOf: isoDate.optional() });
 
 export const priceImportSchema = z.object({ csv: z.string().max(1_000_000, 'The file is too large (1 MB at most).') }).strict();
 
