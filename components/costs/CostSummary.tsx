@@ -1,6 +1,7 @@
 import { formatCost, type CostTotal, type FormulaCost } from '@/lib/costing';
 import { formatDate } from '@/lib/format/dates';
 import { Notice } from '@/components/ui/Notice';
+import type { CostResult, TrialCosts } from '@/lib/costs/schema';
 
 /** A total as the screen says it: "at least" while lines are unpriced. */
 export function costText(total: CostTotal | null, currency: string): string {
@@ -33,4 +34,16 @@ function Figure({ label, value, testId }: { label: string; value: string; testId
       <dd className="text-lg font-semibold tabular-nums text-damson-900" data-testid={testId}>{value}</dd>
     </div>
   );
+}
+
+/** A cost per jar in one cell: the figure, "at least …" while incomplete, or why there is none. */
+export function perJarText(result: CostResult, currency: string | null): string {
+  if (!currency) return 'No currency set';
+  if (!result.ok) return 'Not costed';
+  return result.cost.perJar ? costText(result.cost.perJar, currency) : 'No pack format';
+}
+
+/** The trial's variants' costs per jar, by variant id, for the variants table. */
+export function variantCostTexts(costs: TrialCosts): Map<string, string> {
+  return new Map(costs.variants.map((v) => [v.variantId, perJarText(v.result, costs.currency)]));
 }

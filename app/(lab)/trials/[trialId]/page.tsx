@@ -10,6 +10,8 @@ import { listUploads } from '@/lib/uploads/queries';
 import { TrialHeader } from '@/components/trials/TrialHeader';
 import { StatusControls } from '@/components/trials/StatusControls';
 import { VariantsTable } from '@/components/trials/VariantsTable';
+import { trialCosts } from '@/lib/costs/queries';
+import { variantCostTexts } from '@/components/costs/CostSummary';
 import { PlanHelper } from '@/components/trials/PlanHelper';
 import { CsvImport } from '@/components/trials/CsvImport';
 import { Attachments } from '@/components/trials/Attachments';
@@ -39,6 +41,7 @@ export default async function TrialPage({ params }: { params: Promise<{ trialId:
   const actor = await requirePage('trials.read');
   const trialId = pageId((await params).trialId);
   const trial = await orNotFound(getTrialOverview(actor, trialId));
+  const costPerJar = can(actor.role, 'prices.read') ? variantCostTexts(await trialCosts(actor, trialId)) : undefined;
   const [notebook, uploads, panels] = await Promise.all([getEntry(actor, trialId, null), listUploads(actor, trialId), can(actor.role, 'panels.read') ? listPanelSessions(actor, trialId) : Promise.resolve([])]);
   const canEdit = can(actor.role, 'trials.write');
   const editable = canEdit && (trial.status === 'planning' || trial.status === 'cooking');
@@ -60,7 +63,7 @@ export default async function TrialPage({ params }: { params: Promise<{ trialId:
         <div className="min-w-0 space-y-6">
           <section aria-labelledby="variants-title">
             <h2 id="variants-title" className="mb-3 text-xl font-semibold">Variants</h2>
-            <VariantsTable trialId={trial.id} variants={trial.variants} massUnits={actor.massUnits} temperatureUnit={actor.temperatureUnit} />
+            <VariantsTable trialId={trial.id} variants={trial.variants} massUnits={actor.massUnits} temperatureUnit={actor.temperatureUnit} costPerJar={costPerJar} />
             <p className="mt-2 text-xs text-rind-500">Measured values are coloured against their prediction: green within tolerance, amber worth a look, red out of window; a red block means a food-safety limit.</p>
           </section>
           {editable ? <PlanHelper trialId={trial.id} baseLevels={baseLevelsOf(baseMass)} /> : canEdit ? (
