@@ -19,17 +19,13 @@ function audit(tx: EntityManager, actor: Actor, action: string, subject: { type:
   } as never);
 }
 
-async function priceCount(em: EntityManager, workspaceId: string): Promise<number> {
-  return (await em.count(IngredientPrice, { workspace: workspaceId })) + (await em.count(PackagingPrice, { workspace: workspaceId }));
-}
-
 /** Saves currency, overfill and warning threshold. The currency is fixed once a price exists: prices are never converted. */
 export async function saveCostSettings(actor: Actor, input: CostSettingsInput): Promise<void> {
   if (!isCurrencyCode(input.currency)) throw new ValidationFailed('Choose a currency from the list.', { currency: ['Choose a currency from the list.'] });
   const em = await getEm();
   await em.transactional(async (tx) => {
     const row = await tx.findOne(CostSettings, { workspace: actor.workspaceId });
-    if (row && row.currency !== input.currency && (await priceCount(tx, actor.workspaceId)) > 0) {
+    if (row && row.currency !== input.currency && (await tx.count(IngredientPrice, { workspace: actor.workspaceId })) + (await tx.count(PackagingPrice, { workspace: actor.workspaceId })) > 0) {
       throw new Conflict(`The currency stays ${row.currency}: prices are already recorded in it and Setwell never converts them. Start a new workspace for another currency.`);
     }
     const columns = { currency: input.currency, overfillPct: input.overfillPct, costWarningPct: input.costWarningPct, updatedBy: actor.userId };

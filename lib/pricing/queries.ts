@@ -123,6 +123,12 @@ export async function costSettings(workspaceId: string): Promise<CostSettingsVie
   return row ? { currency: row.currency, overfillPct: row.overfillPct, costWarningPct: row.costWarningPct } : { currency: null, overfillPct: 0, costWarningPct: 5 };
 }
 
+/** True once any price (ingredient or packaging, withdrawn ones too) is recorded: the currency is then fixed. */
+export async function workspaceHasPrices(workspaceId: string): Promise<boolean> {
+  const em = await getEm();
+  return (await em.count(IngredientPrice, { workspace: workspaceId })) + (await em.count(PackagingPrice, { workspace: workspaceId })) > 0;
+}
+
 /** Refuse/trim % per ingredient (0 when none is set). */
 export async function refuseShares(workspaceId: string, ingredientIds: readonly string[]): Promise<Map<string, number>> {
   const ids = cleanIds(ingredientIds);

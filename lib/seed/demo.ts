@@ -11,6 +11,7 @@ import type { Actor, Role } from '@/lib/permissions';
 import { addStarterLibrary } from '@/lib/ingredients/mutations';
 import { addDefaultAttributes } from '@/lib/panels/mutations';
 import { seedDemoFormulas } from './formulas';
+import { seedDemoPrices } from './prices';
 import { seedDemoTrials } from './trials';
 import { seedDemoNotebooks } from './notebook';
 import { seedDemoPanels } from './panels';
@@ -73,6 +74,7 @@ export async function seedDemo(em: EntityManager): Promise<SeedReport> {
   await seedDemoPanels(actor, trials);
   const person = async (index: number, role: Role) => demoActor(await em.fork().findOneOrFail(User, { email: DEMO_USERS[index].email }), report.workspaceId, role);
   await seedDemoProduction({ developer: actor, head: await person(2, 'head_of_product'), production: await person(3, 'production') }, trials);
+  await seedDemoPrices(em.fork(), { admin: await person(0, 'admin'), production: await person(3, 'production'), developer: actor });
   return report;
 }
 

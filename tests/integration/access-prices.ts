@@ -5,6 +5,7 @@ import type { Role } from '@/lib/permissions';
 import { createFixtureFormula, starterIds } from './fixtures';
 import { createApprovedVersion } from './production-fixtures';
 import { costSettings } from '@/lib/pricing/queries';
+import { createIngredient } from '@/lib/ingredients/mutations';
 import { addIngredientPrice, addPackagingPrice, createPackagingItem, createPackFormat, saveCostSettings } from '@/lib/pricing/mutations';
 
 const READ: Role[] = ['admin', 'developer', 'head_of_product', 'production'];
@@ -51,13 +52,17 @@ const priceBody = async (a: WorkspaceFixture) => {
   await ensureCurrency(a);
   return { ingredientId: await sugarId(a), packPrice: '28.10', packSize: 25, packUnit: 'kg', supplier: 'Matrix mill', validFrom: '2026-02-01' };
 };
+/** Names an ingredient only workspace A has: elsewhere the file matches nothing (or finds no currency) and is refused whole. */
+const ownIngredient = new Map<string, string>();
 const importBody = async (a: WorkspaceFixture) => {
   await ensureCurrency(a);
-  const { ingredientId } = await priceBody(a);
-  const { getEm } = await import('@/lib/db');
-  const { Ingredient } = await import('@/entities');
-  const name = (await (await getEm()).findOneOrFail(Ingredient, { id: ingredientId })).name;
-  return { csv: `ingredient,valid_from,pack_price,pack_size,pack_unit\n${name},2026-03-01,29.00,25,kg\n` };
+  let name = ownIngredient.get(a.workspaceId);
+  if (!name) {
+    name = `Matrix damson ${Math.random().toString(36).slice(2, 8)}`;
+    await createIngredient(actorOf(a, 'admin'), { name, kind: 'fruit', solidsPct: 12 });
+    ownIngredient.set(a.workspaceId, name);
+  }
+  return { csv: `ingredient,valid_from,pack_price,pack_size,pack_unit\n${name},2026-03-01,29.00,10,kg\n` };
 };
 
 export const PRICES_ROUTE_CASES: RouteCase[] = [
@@ -66,7 +71,6 @@ export const PRICES_ROUTE_CASES: RouteCase[] = [
   { route: 'GET /api/v1/prices', allowed: READ, otherWorkspace: 'own-data' },
   // The body names workspace A's ingredient: elsewhere it is not found.
   { route: 'POST /api/v1/prices', allowed: WRITE, otherWorkspace: 404, prepare: async (a) => ({ body: await priceBody(a) }) },
-  // Elsewhere no currency is chosen and no such ingredient exists: the file is refused whole.
   { route: 'POST /api/v1/prices/import', allowed: WRITE, otherWorkspace: 422, prepare: async (a) => ({ body: await importBody(a) }) },
   { route: 'GET /api/v1/prices/export', allowed: READ, otherWorkspace: 'own-data' },
   { route: 'GET /api/v1/prices/[ingredientId]', allowed: READ, otherWorkspace: 404, prepare: async (a) => ({ params: { ingredientId: await sugarId(a) } }) },
