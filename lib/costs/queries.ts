@@ -125,20 +125,22 @@ export function freeze(result: CostResult, currency: string | null, packFormatNa
 }
 
 /**
- * The cost a new version freezes at approval: its lines and settings on the approval day, in the
- * pack format of the trial's base formula. Read outside the approval's transaction (prices are
- * committed data); null when the workspace has no currency.
+ * What a new version takes at approval: the pack format of the trial's base formula (a version is
+ * filled in the jar its formula was costed in) and the cost of its lines on the approval day in it,
+ * frozen (null when the workspace has no currency). Read outside the approval's transaction: prices
+ * are committed data.
  */
 export async function costForApproval(
   workspaceId: string,
   formula: { settings: FormulaSettingsInput; lines: RevisionLine[]; trialId: string },
   day: string,
-): Promise<FrozenCost | null> {
+): Promise<{ packFormatId: string | null; costAtApproval: FrozenCost | null }> {
   const em = await getEm();
   const trial = await em.findOne(Trial, { workspace: workspaceId, id: formula.trialId }, { fields: ['id', 'baseFormula'], populate: ['baseFormula'] });
   const packFormatId = refId((trial?.baseFormula as unknown as { packFormat?: unknown } | null)?.packFormat);
   const basis = await loadCostBasis(workspaceId, { ingredientIds: ingredientIdsOf([formula]), packFormatIds: packFormatId ? [packFormatId] : [], from: day, to: day });
-  return freeze(costOn(basis, formula.settings, formula.lines, packFormatId, day), basis.currency, packFormatId ? (basis.packFormats.get(packFormatId)?.name ?? null) : null);
+  const name = packFormatId ? (basis.packFormats.get(packFormatId)?.name ?? null) : null;
+  return { packFormatId, costAtApproval: freeze(costOn(basis, formula.settings, formula.lines, packFormatId, day), basis.currency, name) };
 }
 
 /** Every version of a product: its cost frozen at approval and today's, and whether it moved past the threshold. */

@@ -192,9 +192,9 @@ export async function decidePromotion(actor: Actor, requestId: string, input: De
       await tx.flush();
       await audit(tx, actor, 'version.superseded', { type: 'production_formula', id: current.id }, request.id, `v${current.version} superseded by v${version} (${code})`);
     }
-    const costAtApproval = await costForApproval(actor.workspaceId, { settings: variant.settings, lines: variant.lines, trialId: (request.trial as unknown as { id: string }).id }, todayIso());
+    const { packFormatId, costAtApproval } = await costForApproval(actor.workspaceId, { settings: variant.settings, lines: variant.lines, trialId: (request.trial as unknown as { id: string }).id }, todayIso());
     const created = tx.create(ProductionFormula, {
-      workspace: actor.workspaceId, product: productId, version, status: 'current', costAtApproval,
+      workspace: actor.workspaceId, product: productId, version, status: 'current', packFormat: packFormatId, costAtApproval,
       settings: variant.settings, lines: variant.lines, process: request.process, compliance: computation.compliance, spec: request.spec as QcSpec,
       sourceTrial: (request.trial as unknown as { id: string }).id, sourceVariantId: variant.id, sourceVariantLabel: variant.label,
       promotionRequestId: request.id, approvedBy: actor.userId,

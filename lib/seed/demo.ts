@@ -73,8 +73,9 @@ export async function seedDemo(em: EntityManager): Promise<SeedReport> {
   await seedDemoNotebooks(actor, trials);
   await seedDemoPanels(actor, trials);
   const person = async (index: number, role: Role) => demoActor(await em.fork().findOneOrFail(User, { email: DEMO_USERS[index].email }), report.workspaceId, role);
-  await seedDemoProduction({ developer: actor, head: await person(2, 'head_of_product'), production: await person(3, 'production') }, trials);
+  // Prices before production: approving a version freezes its cost and takes its formula's pack format.
   await seedDemoPrices(em.fork(), { admin: await person(0, 'admin'), production: await person(3, 'production'), developer: actor });
+  await seedDemoProduction({ developer: actor, head: await person(2, 'head_of_product'), production: await person(3, 'production') }, trials);
   return report;
 }
 

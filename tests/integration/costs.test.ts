@@ -14,7 +14,7 @@ import { listVariants } from '@/lib/trials/queries';
 import { decidePromotion, recordBatch, requestPromotion } from '@/lib/production/mutations';
 import { getProductionVersion } from '@/lib/production/queries';
 import { lotCodeFor } from '@/lib/production/vocabulary';
-import { addIngredientPrice, addPackagingPrice, createPackagingItem, createPackFormat, saveCostSettings, setFormulaPackFormat, setVersionPackFormat } from '@/lib/pricing/mutations';
+import { addIngredientPrice, addPackagingPrice, createPackagingItem, createPackFormat, saveCostSettings, setFormulaPackFormat } from '@/lib/pricing/mutations';
 import { batchCost, productCosts, trialCosts } from '@/lib/costs/queries';
 import { todayIso } from '@/lib/format/dates';
 import type { Role } from '@/lib/permissions';
@@ -90,11 +90,11 @@ describe('a production version: frozen at approval, today, and the warning', () 
     const { requestId } = await requestPromotion(dev(), input);
     ({ productionFormulaId: versionId } = (await decidePromotion(actorOf(a, 'head_of_product'), requestId, { decision: 'approve', comment: '' })) as { productionFormulaId: string });
     productId = (await getProductionVersion(actorOf(a, 'production'), versionId)).product.id;
-    await setVersionPackFormat(dev(), versionId, (await trialCosts(dev(), trialId)).packFormat!.id);
   });
 
-  it('freezes the cost of the approval day with the version', async () => {
+  it('takes its formula’s pack format and freezes the cost of the approval day with the version', async () => {
     const row = await (await getEm()).findOneOrFail(ProductionFormula, { id: versionId });
+    expect((row.packFormat as unknown as { id: string }).id).toBe((await trialCosts(dev(), trialId)).packFormat!.id);
     const today = await trialCosts(dev(), trialId, todayIso());
     const [v] = today.variants;
     if (!v.result.ok) throw new Error('not costed');
