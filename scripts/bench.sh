@@ -2,7 +2,7 @@
 # `npm run bench`: measurements, not tests. Starts its own throw-away PostgreSQL (bench profile),
 # migrates, builds the production app, starts two servers on loopback with the bench-only floor
 # route switched on, and prints each figure beside its target. Results land in bench-results/
-# (git-ignored): stats.json, notebook.json, load.json, pages.json and bench.json (all figures).
+# (git-ignored): stats.json, notebook.json, costs.json, load.json, pages.json and bench.json (all figures).
 # The demo seed is loaded too, for the staff pages and the phone (scripts/bench-pages.ts).
 # Ports: SETWELL_BENCH_APP_PORT (default 3200) and the next one up, SETWELL_BENCH_PG_PORT (54349),
 # SETWELL_BENCH_S3_PORT (4599, the S3 fake the seed's photos go to). The build goes to .next-bench,
@@ -37,6 +37,8 @@ log "statistics: 60 tasters × 12 samples × 8 attributes, then twice the taster
 node --import tsx scripts/bench-stats.ts
 log "notebook: the largest accepted entry rendered read-only on the server (production React, median of 7)"
 NODE_ENV=production node --import tsx scripts/bench-notebook.ts
+log "costs: a trial of 12 variants and a product of 24 versions against 3 years of daily prices, beside fetching those rows (median of 7)"
+node --import tsx scripts/bench-costs.ts
 
 mkdir -p "$SETWELL_LOGS"
 log "load: building the production app"
@@ -65,6 +67,6 @@ node --import tsx scripts/bench-pages.ts "$SETWELL_HOME/seats.json" "http://127.
 node -e '
   const fs = require("fs");
   const read = (name) => JSON.parse(fs.readFileSync(`bench-results/${name}.json`, "utf8")).figures;
-  fs.writeFileSync("bench-results/bench.json", JSON.stringify({ measuredAt: new Date().toISOString(), figures: [...read("stats"), ...read("notebook"), ...read("load"), ...read("pages")] }, null, 2));
+  fs.writeFileSync("bench-results/bench.json", JSON.stringify({ measuredAt: new Date().toISOString(), figures: [...read("stats"), ...read("notebook"), ...read("costs"), ...read("load"), ...read("pages")] }, null, 2));
 '
 log "all figures in bench-results/bench.json"

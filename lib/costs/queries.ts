@@ -3,7 +3,7 @@
  * range of days asked) and costs them with lib/costing. Callers hold `prices.read`.
  */
 import { getEm } from '@/lib/db';
-import { BatchRecord, Formula, Ingredient, Product, ProductionFormula, Trial, Variant } from '@/entities';
+import { BatchRecord, Ingredient, Product, ProductionFormula, Trial, Variant } from '@/entities';
 import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
 import { todayIso, isoDate } from '@/lib/format/dates';
 import { batchActualCostPerJar, changePct, costStoredFormula, historiesBy, type IngredientPricePoint, type PackagingPricePoint, type PackFormatData } from '@/lib/costing';
@@ -95,14 +95,13 @@ export async function editorCostBasis(actor: Actor, asOf: string = todayIso()): 
 
 /** Each variant of a trial costed on `asOf` in the pack format of the trial's base formula. */
 export async function trialCosts(actor: Actor, trialId: string, asOf: string = todayIso()): Promise<TrialCosts> {
-  const em = await getEm();
-  const trial = await em.findOne(Trial, { ...inWorkspace(actor), id: trialId }, { fields: ['id', 'baseFormula'] });
-  if (!trial) throw notFound('trial');
-  const [variants, formula] = await Promise.all([
-    em.find(Variant, { ...inWorkspace(actor), trial: trialId, removedAt: null }, { orderBy: { position: 'asc' } }),
-    em.findOne(Formula, { ...inWorkspace(actor), id: refId(trial.baseFormula)! }, { fields: ['id', 'packFormat'] }),
+  // The trial (with its base formula's pack format) and its variants in one round trip.
+  const [trial, variants] = await Promise.all([
+    getEm().then((em) => em.findOne(Trial, { ...inWorkspace(actor), id: trialId }, { populate: ['baseFormula'] })),
+    getEm().then((em) => em.find(Variant, { ...inWorkspace(actor), trial: trialId, removedAt: null }, { orderBy: { position: 'asc' } })),
   ]);
-  const packFormatId = refId(formula?.packFormat);
+  if (!trial) throw notFound('trial');
+  const packFormatId = refId((trial.baseFormula as unknown as { packFormat?: unknown } | null)?.packFormat);
   const basis = await loadCostBasis(actor.workspaceId, { ingredientIds: ingredientIdsOf(variants), packFormatIds: packFormatId ? [packFormatId] : [], from: asOf, to: asOf });
   const format = packFormatId ? basis.packFormats.get(packFormatId) : undefined;
   return {
