@@ -9,6 +9,7 @@ import { Ingredient, IngredientPrice } from '@/entities';
 import { inWorkspace, type Actor } from '@/lib/permissions';
 import { ValidationFailed } from '@/lib/api/errors';
 import { toCsv } from '@/lib/csv';
+import { todayIso } from '@/lib/format/dates';
 import { parseDecimal } from '@/lib/input';
 import { costSettings } from './queries';
 import { ingredientPriceSchema } from './schema';
@@ -108,5 +109,5 @@ export async function exportPricesCsv(actor: Actor): Promise<{ filename: string;
     { header: 'supplier', value: (p) => p.supplier ?? '' },
     { header: 'currency', value: () => currency ?? '' },
   ]);
-  return { filename: `prices-${new Date().toISOString().slice(0, 10)}.csv`, csv };
+  return { filename: `prices-${todayIso()}.csv`, csv };
 }

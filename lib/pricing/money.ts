@@ -51,7 +51,9 @@ export function amountText(minor: number, currency: string): string {
 /** Minor units for a screen, with the currency stated: "EUR 12.50". */
 export function formatMoney(minor: number, currency: string, extraDigits = 0): string {
   const digits = minorDigits(currency) + extraDigits;
-  return `${currency} ${(minor / 10 ** minorDigits(currency)).toLocaleString('en-GB', { minimumFractionDigits: digits, maximumFractionDigits: digits })}`;
+  // No locale: the server and the browser print the same text, thousands grouped with commas.
+  const [whole, fraction] = (minor / 10 ** minorDigits(currency)).toFixed(digits).split('.');
+  return `${currency} ${whole.replace(/\B(?=(\d{3})+(?!\d))/g, ',')}${fraction ? `.${fraction}` : ''}`;
 }
 
 /** A mass typed in g, kg or lb, in grams. */

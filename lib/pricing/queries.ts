@@ -9,6 +9,7 @@ import { getEm } from '@/lib/db';
 import { CostSettings, Formula, Ingredient, IngredientPrice, PackagingItem, PackagingPrice, PackFormat, PackFormatItem, ProductionFormula } from '@/entities';
 import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
 import { calendarDateProblem } from '@/lib/input';
+import { isoDate, todayIso } from '@/lib/format/dates';
 import type { IngredientPricePoint, PackagingPricePoint, PackFormatData } from '@/lib/costing/types';
 import type {
   CostSettingsView, IngredientPriceRow, PackagingItemRow, PackagingPricePointView, PackFormatView, PricePointView,
@@ -167,7 +168,7 @@ export async function packFormatOfVersions(workspaceId: string, versionIds: read
 // ---- Screens and exports (the actor has prices.read) ----
 
 function today(): string {
-  return new Date().toISOString().slice(0, 10);
+  return todayIso();
 }
 
 /** Every ingredient with the price in force on `asOf` (default today); archived ones only when they have prices. */
@@ -199,7 +200,7 @@ type PointRow = {
 function pointView(r: PointRow): Omit<PricePointView, 'packSizeG'> {
   return {
     id: r.id,
-    validFrom: typeof r.validFrom === 'string' ? r.validFrom : r.validFrom.toISOString().slice(0, 10),
+    validFrom: isoDate(r.validFrom),
     packPriceMinor: Number(r.packPriceMinor),
     supplier: r.supplier ?? null,
     enteredAt: r.enteredAt.toISOString(),

@@ -7,6 +7,7 @@
 import type { EntityManager } from '@mikro-orm/postgresql';
 import { Formula, Ingredient, ProductionFormula } from '@/entities';
 import type { Actor } from '@/lib/permissions';
+import { isoDate } from '@/lib/format/dates';
 import {
   addIngredientPrice, addPackagingPrice, createPackagingItem, createPackFormat, saveCostSettings, setFormulaPackFormat, setRefuse,
   setVersionPackFormat, withdrawIngredientPrice,
@@ -49,7 +50,7 @@ const PACKAGING: Array<{ name: string; kind: 'jar' | 'lid' | 'label' | 'case'; s
 ];
 
 function daysAgo(n: number, today = new Date()): string {
-  return new Date(Date.UTC(today.getUTCFullYear(), today.getUTCMonth(), today.getUTCDate() - n)).toISOString().slice(0, 10);
+  return isoDate(new Date(Date.UTC(today.getUTCFullYear(), today.getUTCMonth(), today.getUTCDate() - n)));
 }
 
 export async function seedDemoPrices(em: EntityManager, people: { admin: Actor; production: Actor; developer: Actor }): Promise<void> {

@@ -3,11 +3,12 @@ import { describe, it, expect, beforeAll } from 'vitest';
 import { getEm } from '@/lib/db';
 import { seedDemo } from '@/lib/seed/demo';
 import { DEMO_CURRENCY } from '@/lib/seed/prices';
+import { todayIso } from '@/lib/format/dates';
 import { Formula, Ingredient, PackagingItem, ProductionFormula } from '@/entities';
 import { costSettings, packagingPricesAsOf, packFormatOfFormulas, packFormatOfVersions, packFormatsByIds, priceHistory, pricesAsOf } from '@/lib/pricing/queries';
 
 let workspaceId: string;
-const today = new Date().toISOString().slice(0, 10);
+const today = todayIso();
 
 beforeAll(async () => {
   workspaceId = (await seedDemo((await getEm()).fork())).workspaceId;
