@@ -64,9 +64,11 @@ describe.each(WINDOWS)('costs (%s)', (size, viewport) => {
     const lead = await startWalk(browser(), `cost-sugar-${size}`, viewport);
     await signIn(lead.page, DEMO_USERS.find((u) => u.role === 'production')!.email);
     await lead.page.goto(`${BASE_URL}/prices`);
-    await lead.page.getByTestId('price-table').getByRole('link', { name: 'Sucrose (white sugar)', exact: true }).click();
+    const sugarLink = lead.page.getByTestId('price-table').getByRole('link', { name: 'Sucrose (white sugar)', exact: true });
+    const ingredientId = (await sugarLink.getAttribute('href'))!.split('/').pop()!;
+    await sugarLink.click();
+    await lead.page.waitForURL(`${BASE_URL}/prices/${ingredientId}`);
     // The price goes in through the API with the lead's session (the price form has its own browser test).
-    const ingredientId = new URL(lead.page.url()).pathname.split('/').pop()!;
     const added = await lead.page.request.post(`${BASE_URL}/api/v1/prices`, {
       headers: { origin: BASE_URL },
       data: { ingredientId, packPrice: size === 'desktop' ? '60.00' : '75.00', packSize: 25, packUnit: 'kg', supplier: 'Millbrook Sugar', validFrom: todayIso() },
