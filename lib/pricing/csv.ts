@@ -10,7 +10,7 @@ import { inWorkspace, type Actor } from '@/lib/permissions';
 import { ValidationFailed } from '@/lib/api/errors';
 import { toCsv } from '@/lib/csv';
 import { todayIso } from '@/lib/format/dates';
-import { parseDecimal } from '@/lib/input';
+import { parseDecimal, unsafeTextReason } from '@/lib/input';
 import { costSettings } from './queries';
 import { ingredientPriceSchema } from './schema';
 import { ingredientPriceColumns, NO_CURRENCY_MESSAGE } from './mutations';
@@ -31,6 +31,8 @@ type Columns = ReturnType<typeof ingredientPriceColumns>;
 
 /** Checks every row; returns the points ready to insert or every error found. Pure apart from the name map. */
 export function parsePriceCsv(text: string, ingredientIdsByName: Map<string, string[]>, currency: string): { rows: Columns[]; errors: CsvRowError[] } {
+  const unsafe = unsafeTextReason(text.replace(/^\uFEFF/, ''), true);
+  if (unsafe) return { rows: [], errors: [{ row: 1, column: '', message: unsafe }] };
   const parsed = Papa.parse<Record<string, string>>(text.replace(/^\uFEFF/, ''), { header: true, skipEmptyLines: 'greedy', transformHeader: (h) => h.trim().toLowerCase() });
   const errors: CsvRowError[] = [];
   const headers = parsed.meta.fields ?? [];

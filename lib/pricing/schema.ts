@@ -3,8 +3,11 @@ import { z } from 'zod';
 import { boundedNumber, id, isoDate, longText, name, text, wholeNumber } from '@/lib/input';
 import { PACK_UNITS, PACKAGING_KINDS, PRICE_LIMITS, type PackagingKind } from './vocabulary';
 
-/** A typed amount; whether its decimals suit the workspace currency is checked by lib/pricing/money.ts. */
-const amount = text({ min: 1, max: 20, required: 'Give the price.' });
+/** A typed amount ("24.50"); whether its decimals suit the workspace currency is checked by lib/pricing/money.ts. */
+const amount = text({ min: 1, max: 20, required: 'Give the price.' }).superRefine((value, ctx) => {
+  if (value.startsWith('-')) ctx.addIssue({ code: 'custom', message: 'A price cannot be negative.' });
+  else if (value && !/^\d+(?:[.,]\d+)?$/.test(value)) ctx.addIssue({ code: 'custom', message: 'Give the price as a number, e.g. 24.50.' });
+});
 const supplier = text({ max: PRICE_LIMITS.maxSupplierLength }).nullable().optional();
 
 export const costSettingsSchema = z

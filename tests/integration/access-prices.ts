@@ -105,7 +105,8 @@ export const PRICES_ACTION_CASES: ActionCase[] = [
   { action: 'lib/pricing/actions.ts#withdrawIngredientPriceAction', allowed: WRITE, otherWorkspace: 404, argsAsync: async (a) => [await freshPrice(a), { reason: 'Matrix: typed twice.' }] },
   { action: 'lib/pricing/actions.ts#setRefuseAction', allowed: WRITE, otherWorkspace: 404, argsAsync: async (a) => [{ ingredientId: await sugarId(a), refusePct: 0 }] },
   { action: 'lib/pricing/actions.ts#importPricesAction', allowed: WRITE, otherWorkspace: 422, argsAsync: async (a) => [await importBody(a)] },
-  { action: 'lib/pricing/actions.ts#savePackagingItemAction', allowed: WRITE, otherWorkspace: 404, argsAsync: async (a) => [await freshItem(a), { name: 'Matrix lid, renamed', kind: 'lid' }] },
+  // A null id creates (the app's "add" form); a wrong shape in its place must be refused, never taken as "create".
+  { action: 'lib/pricing/actions.ts#savePackagingItemAction', allowed: WRITE, otherWorkspace: 'own-data', args: () => [null, { name: 'Matrix label', kind: 'label' }] },
   {
     action: 'lib/pricing/actions.ts#addPackagingPriceAction',
     allowed: WRITE,
@@ -116,7 +117,8 @@ export const PRICES_ACTION_CASES: ActionCase[] = [
     },
   },
   { action: 'lib/pricing/actions.ts#withdrawPackagingPriceAction', allowed: WRITE, otherWorkspace: 404, argsAsync: async (a) => [await freshPackagingPrice(a), { reason: 'Matrix: wrong supplier.' }] },
-  { action: 'lib/pricing/actions.ts#savePackFormatAction', allowed: WRITE, otherWorkspace: 404, argsAsync: async (a) => [await freshFormat(a), { name: 'Matrix jar, renamed', netFillG: 340, items: [] }] },
+  // Names workspace A's packaging: elsewhere it matches nothing (422).
+  { action: 'lib/pricing/actions.ts#savePackFormatAction', allowed: WRITE, otherWorkspace: 422, argsAsync: async (a) => [null, { name: 'Matrix 212 ml jar', netFillG: 227, items: [{ packagingItemId: await freshItem(a), pieces: 1, perJars: 12 }] }] },
   { action: 'lib/pricing/actions.ts#archivePackagingAction', allowed: WRITE, otherWorkspace: 404, argsAsync: async (a) => ['item', await freshItem(a), true] },
   { action: 'lib/pricing/actions.ts#setFormulaPackFormatAction', allowed: ['admin', 'developer'], otherWorkspace: 404, argsAsync: async (a) => [await createFixtureFormula(a), { packFormatId: await freshFormat(a) }] },
   { action: 'lib/pricing/actions.ts#setVersionPackFormatAction', allowed: WRITE, otherWorkspace: 404, argsAsync: async (a) => [await versionOf(a), { packFormatId: await freshFormat(a) }] },

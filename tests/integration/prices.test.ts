@@ -139,6 +139,12 @@ describe('CSV import is all or nothing', () => {
     expect(Object.keys(unknownColumn.body.error.fields)).toContain('row 1, __proto__');
     expect(await count()).toBe(before);
 
+    for (const poison of ['\u0000', '\u202E', '\uD800']) {
+      const poisoned = await callRoute(importRoute.POST, { method: 'POST', path: '', caller: admin(), body: { csv: `ingredient,valid_from,pack_price,pack_size,pack_unit\nSucrose (white sugar),2026-08-01,31.00,25,kg\nSucrose (white sugar)${poison},2026-08-02,31.00,25,kg\n` } });
+      expect(poisoned.status).toBe(422);
+    }
+    expect(await count()).toBe(before);
+
     const good = 'ingredient,valid_from,pack_price,pack_size,pack_unit\nsucrose (white sugar),2026-09-01,32.40,25,kg\nSucrose (white sugar),2026-10-01,33.00,50,lb\n';
     const ok = await callRoute(importRoute.POST, { method: 'POST', path: '', caller: admin(), body: { csv: good } });
     expect(ok.status, JSON.stringify(ok.body)).toBe(201);

@@ -4,7 +4,7 @@ import { can } from '@/lib/permissions';
 import { isUuid } from '@/lib/ids';
 import { costSettings, ingredientPriceDetail } from '@/lib/pricing/queries';
 import { ingredientHistoryRows } from '@/lib/pricing/display';
-import { todayIso } from '@/lib/format/dates';
+import { formatDate, todayIso } from '@/lib/format/dates';
 import { PageHeader, Card, EmptyState } from '@/components/ui/Card';
 import { NoCurrencyNotice, PriceHistoryTable, PriceTabs } from '@/components/pricing/PriceViews';
 import { IngredientPriceForm } from '@/components/pricing/IngredientPriceForm';
@@ -36,7 +36,7 @@ export default async function IngredientPricePage({ params }: { params: Promise<
               label={`Prices of ${ingredient.name}`}
               unitLabel={`Per ${actor.massUnits === 'imperial' ? 'lb' : 'kg'}`}
               rows={ingredientHistoryRows(points, currency, actor.massUnits, today)}
-              withdraw={canWrite ? (r) => <WithdrawPriceButton kind="ingredient" priceId={r.id} label={`the price from ${r.validFrom}`} /> : undefined}
+              withdraw={canWrite ? (r) => <WithdrawPriceButton kind="ingredient" priceId={r.id} label={`the price from ${formatDate(r.validFrom)}`} /> : undefined}
             />
           )}
         </Card>

@@ -5,7 +5,7 @@ import { isUuid } from '@/lib/ids';
 import { costSettings, packagingItemDetail } from '@/lib/pricing/queries';
 import { packagingHistoryRows } from '@/lib/pricing/display';
 import { PACKAGING_KIND_LABELS } from '@/lib/pricing/vocabulary';
-import { todayIso } from '@/lib/format/dates';
+import { formatDate, todayIso } from '@/lib/format/dates';
 import { PageHeader, Card, EmptyState } from '@/components/ui/Card';
 import { NoCurrencyNotice, PriceHistoryTable, PriceTabs } from '@/components/pricing/PriceViews';
 import { PackagingPriceForm } from '@/components/pricing/PackagingPriceForm';
@@ -36,7 +36,7 @@ export default async function PackagingItemPage({ params }: { params: Promise<{ 
               label={`Prices of ${item.name}`}
               unitLabel="Per piece"
               rows={packagingHistoryRows(points, currency, today)}
-              withdraw={canWrite ? (r) => <WithdrawPriceButton kind="packaging" priceId={r.id} label={`the price from ${r.validFrom}`} /> : undefined}
+              withdraw={canWrite ? (r) => <WithdrawPriceButton kind="packaging" priceId={r.id} label={`the price from ${formatDate(r.validFrom)}`} /> : undefined}
             />
           )}
         </Card>
