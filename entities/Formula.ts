@@ -2,6 +2,7 @@ import { defineEntity, type InferEntity } from '@mikro-orm/core';
 import { randomUUID } from 'node:crypto';
 import { Workspace } from './Workspace';
 import { User } from './User';
+import { PackFormat } from './PackFormat';
 
 /**
  * A development formula. Its content lives in immutable revisions; this row only holds
@@ -19,6 +20,8 @@ export const Formula = defineEntity({
     createdBy: p.manyToOne(User),
     updatedBy: p.manyToOne(User),
     archivedAt: p.datetime().nullable(),
+    /** The jar and packaging this formula is costed in (lib/pricing); none until someone picks one. */
+    packFormat: p.manyToOne(PackFormat).nullable(),
     createdAt: p.datetime().onCreate(() => new Date()),
     updatedAt: p.datetime().onCreate(() => new Date()),
   }),

@@ -33,6 +33,8 @@ export const Ingredient = defineEntity({
     acidType: p.enum([...ACID_TYPES]).nullable(),
     calciumSource: p.boolean().default(false),
     notes: p.text().nullable(),
+    /** Share of the bought mass trimmed away before weighing (stones, peel, stalks), % 0–95; set on the price list. */
+    refusePct: p.double().$type<number>().default(0),
     origin: p.enum(['typical', 'edited', 'custom']),
     typicalKey: p.string().length(60).nullable(),
     source: p.text().nullable(),

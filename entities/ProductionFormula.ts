@@ -4,12 +4,14 @@ import { Workspace } from './Workspace';
 import { User } from './User';
 import { Trial } from './Trial';
 import { Product } from './Product';
+import { PackFormat } from './PackFormat';
 import { VERSION_STATUSES } from '../lib/production/vocabulary';
 import type { FormulaSettingsInput, RevisionLine } from '../lib/formulas/schema';
 import type { ProductionProcess } from '../lib/production/schema';
 import type { QcSpec } from '../lib/chemistry/qc';
 import type { ComplianceReport } from '../lib/chemistry/compliance';
 import type { Label } from '../lib/label/label';
+import type { FrozenCost } from '../lib/costs/schema';
 
 /**
  * One approved version of a product: a frozen snapshot of lines, process, rules and QC spec.
@@ -39,6 +41,10 @@ export const ProductionFormula = defineEntity({
     approvedAt: p.datetime().onCreate(() => new Date()),
     supersededAt: p.datetime().nullable(),
     supersededByVersion: p.integer().nullable(),
+    /** The jar and packaging the version is filled in; the one column that may change after approval (lib/pricing). */
+    packFormat: p.manyToOne(PackFormat).nullable(),
+    /** The cost on the approval day, frozen at approval (lib/costs); null without a workspace currency. */
+    costAtApproval: p.json<FrozenCost>().nullable(),
   }),
   uniques: [{ properties: ['product', 'version'] }],
   indexes: [{ properties: ['workspace', 'status'] }],

@@ -28,12 +28,19 @@ import { ProductionFormula } from './ProductionFormula';
 import { BatchRecord } from './BatchRecord';
 import { AuditEvent } from './AuditEvent';
 import { BatchDecision } from './BatchDecision';
+import { CostSettings } from './CostSettings';
+import { IngredientPrice } from './IngredientPrice';
+import { PackagingItem } from './PackagingItem';
+import { PackagingPrice } from './PackagingPrice';
+import { PackFormat } from './PackFormat';
+import { PackFormatItem } from './PackFormatItem';
 
 export {
   Workspace, User, Membership, Invitation, PasswordReset, ApiToken, RateLimitBucket, Ingredient, Formula, FormulaRevision,
   Trial, TrialStatusChange, Variant, Measurement, MeasurementChange, Upload, NotebookEntry, NotebookConflict,
   SensoryAttributeDef, PanelSession, PanelSample, PanelSeat, PanelAnswer,
   Product, PromotionRequest, ProductionFormula, BatchRecord, BatchDecision, AuditEvent,
+  CostSettings, IngredientPrice, PackagingItem, PackagingPrice, PackFormat, PackFormatItem,
 };
 export { ROLES } from './Membership';
 
@@ -43,4 +50,5 @@ export const allEntities = [
   Trial, TrialStatusChange, Variant, Measurement, MeasurementChange, Upload, NotebookEntry, NotebookConflict,
   SensoryAttributeDef, PanelSession, PanelSample, PanelSeat, PanelAnswer,
   Product, PromotionRequest, ProductionFormula, BatchRecord, BatchDecision, AuditEvent,
+  CostSettings, IngredientPrice, PackagingItem, PackagingPrice, PackFormat, PackFormatItem,
 ];

@@ -40,6 +40,11 @@ const GRANTS = {
   'production.read': STAFF,
   'batches.record': ['production'],
   'audit.read': ['admin', 'head_of_product'],
+  /** Prices, packaging and costs: staff only, never tasters or guests. */
+  'prices.read': STAFF,
+  'prices.write': ['admin', 'developer', 'production'],
+  /** The workspace's currency, overfill and cost-warning threshold. */
+  'costs.settings': ['admin'],
 } satisfies Record<string, Role[]>;
 
 export type Permission = keyof typeof GRANTS;

@@ -2,7 +2,7 @@
 # `npm run bench`: measurements, not tests. Starts its own throw-away PostgreSQL (bench profile),
 # migrates, builds the production app, starts two servers on loopback with the bench-only floor
 # route switched on, and prints each figure beside its target. Results land in bench-results/
-# (git-ignored): stats.json, notebook.json, models.json, label.json, load.json, pages.json and bench.json (all figures).
+# (git-ignored): stats.json, notebook.json, models.json, label.json, costs.json, load.json, pages.json and bench.json (all figures).
 # The demo seed is loaded too, for the staff pages and the phone (scripts/bench-pages.ts).
 # Ports: SETWELL_BENCH_APP_PORT (default 3200) and SETWELL_BENCH_APP_PORT_B (default the next one up),
 # SETWELL_BENCH_PG_PORT (54349),
@@ -42,6 +42,8 @@ log "models: full quadratic fit (4 features × 200 variants), prediction per key
 node --import tsx scripts/bench-models.ts
 log "label: the formula editor's recompute for a 40-line formula, chemistry alone and with the label (median and p95)"
 node --import tsx scripts/bench-label.ts
+log "costs: a trial of 12 variants and a product of 24 versions against 3 years of daily prices, beside fetching those rows (median of 7)"
+node --import tsx scripts/bench-costs.ts
 
 mkdir -p "$SETWELL_LOGS"
 log "load: building the production app"
@@ -70,6 +72,6 @@ node --import tsx scripts/bench-pages.ts "$SETWELL_HOME/seats.json" "http://127.
 node -e '
   const fs = require("fs");
   const read = (name) => JSON.parse(fs.readFileSync(`bench-results/${name}.json`, "utf8")).figures;
-  fs.writeFileSync("bench-results/bench.json", JSON.stringify({ measuredAt: new Date().toISOString(), figures: [...read("stats"), ...read("notebook"), ...read("models"), ...read("label"), ...read("load"), ...read("pages")] }, null, 2));
+  fs.writeFileSync("bench-results/bench.json", JSON.stringify({ measuredAt: new Date().toISOString(), figures: [...read("stats"), ...read("notebook"), ...read("models"), ...read("label"), ...read("costs"), ...read("load"), ...read("pages")] }, null, 2));
 '
 log "all figures in bench-results/bench.json"

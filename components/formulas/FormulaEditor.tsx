@@ -25,6 +25,8 @@ import { LiveLabel } from '@/components/label/LiveLabel';
 import { KeyResultsBar } from './editor/KeyResultsBar';
 import { LineRow } from './editor/LineRow';
 import { UnitToggle } from './editor/UnitToggle';
+import { FormulaCostPanel } from '@/components/costs/FormulaCostPanel';
+import type { EditorCostBasis } from '@/lib/costs/schema';
 import {
   altitudeScale,
   computeEditor,
@@ -69,6 +71,8 @@ export interface FormulaEditorProps {
   temperatureUnit: TemperatureUnit;
   /** Settings for a new formula. */
   defaults?: Partial<FormulaSettingsInput>;
+  /** Prices for the live cost; absent for roles that may not see prices. */
+  cost?: { basis: EditorCostBasis; packFormatId: string | null };
 }
 
 type SaveStatus =
@@ -97,7 +101,7 @@ function numberProblem(draft: MeasuredDraft): string[] {
 }
 
 /** The formula editor: settings, lines and live results; saves a new formula or a new revision. */
-export function FormulaEditor({ mode, initial, ingredients, massUnits, temperatureUnit, defaults }: FormulaEditorProps) {
+export function FormulaEditor({ mode, initial, ingredients, massUnits, temperatureUnit, defaults, cost }: FormulaEditorProps) {
   const router = useRouter();
   const nextKey = useRef(initial?.lines.length ?? 0);
   const makeKey = () => `l${nextKey.current++}`;
@@ -506,6 +510,12 @@ export function FormulaEditor({ mode, initial, ingredients, massUnits, temperatu
           </Card>
         </aside>
       </div>
+
+      {cost ? (
+        <Card>
+          <FormulaCostPanel initialBasis={cost.basis} computed={computed} drafts={lines} packFormatId={cost.packFormatId} massUnits={system} />
+        </Card>
+      ) : null}
 
       <div className="grid gap-6 xl:grid-cols-2">
         <Card>

@@ -13,7 +13,11 @@ const COMPLIANCE: Record<string, string> = {
 };
 
 /** The trial at a glance: each variant's factor levels, predicted chemistry and latest cook side by side. */
-export function VariantsTable({ trialId, variants, massUnits, temperatureUnit }: { trialId: string; variants: VariantView[]; massUnits: UnitPreference; temperatureUnit: 'C' | 'F' }) {
+export function VariantsTable({ trialId, variants, massUnits, temperatureUnit, costPerJar }: {
+  trialId: string; variants: VariantView[]; massUnits: UnitPreference; temperatureUnit: 'C' | 'F';
+  /** Cost per jar as shown, by variant id; absent for roles that may not see prices. */
+  costPerJar?: Map<string, string>;
+}) {
   const factors = [...new Set(variants.flatMap((v) => v.factorLevels.map((l) => l.factor)))];
   return (
     <TableBox label="Variants">
@@ -33,6 +37,7 @@ export function VariantsTable({ trialId, variants, massUnits, temperatureUnit }:
             <th scope="col" className="px-3 py-2">aw (est.)</th>
             <th scope="col" className="px-3 py-2">End point</th>
             <th scope="col" className="px-3 py-2">Rules</th>
+            {costPerJar ? <th scope="col" className="px-3 py-2">Cost per jar</th> : null}
             <th scope="col" className="px-3 py-2">Last cook: yield</th>
             <th scope="col" className="px-3 py-2">Brix at 20 °C</th>
             <th scope="col" className="px-3 py-2">pH</th>
@@ -71,6 +76,7 @@ export function VariantsTable({ trialId, variants, massUnits, temperatureUnit }:
                   {v.summary.complianceOverall ? COMPLIANCE[v.summary.complianceOverall] : '—'}
                   {danger ? <span className="ml-1 rounded bg-ember-600 px-1 text-xs font-semibold text-white">caution</span> : null}
                 </td>
+                {costPerJar ? <td className="px-3 py-2 tabular-nums" data-testid="variant-cost">{costPerJar.get(v.id) ?? '—'}</td> : null}
                 <td className={`px-3 py-2 tabular-nums ${FLAG_CLASS[flag('finished_mass')]}`}>{cook ? massText(cook.yieldG, massUnits) : 'not cooked'}</td>
                 <td className={`px-3 py-2 tabular-nums ${FLAG_CLASS[flag('solids')]}`}>{cook ? numText(cook.comparison.correctedBrix ?? cook.brixReading, 1) : '—'}</td>
                 <td className={`px-3 py-2 tabular-nums ${FLAG_CLASS[flag('ph')]}`}>{cook ? numText(cook.ph, 2) : '—'}</td>

@@ -15,6 +15,10 @@ import { recommendationSchema } from '@/lib/results/schema';
 import { answerSchema, createAttributeSchema, createPanelSchema, inviteTastersSchema, joinSchema } from '@/lib/panels/schema';
 import { correctMeasurementSchema, createTrialSchema, importMeasurementsSchema, manualVariantSchema, measurementSchema, planSchema, transitionSchema, withdrawMeasurementSchema } from '@/lib/trials/schema';
 import { saveNotebookBodySchema } from '@/lib/notebook/schema';
+import {
+  costSettingsSchema, ingredientPriceSchema, packagingItemSchema, packagingPriceSchema, packFormatChoiceSchema, packFormatSchema, priceImportSchema,
+  refuseBodySchema, withdrawSchema as withdrawPriceSchema,
+} from '@/lib/pricing/schema';
 import { batchDecisionSchema, batchRecordSchema, batchRetestSchema, decisionSchema, requestPromotionSchema, withdrawSchema } from '@/lib/production/schema';
 
 export interface ApiOperation {
@@ -105,6 +109,10 @@ export const API_OPERATIONS: ApiOperation[] = [
   { method: 'get', path: '/api/v1/panels/{sessionId}/summary.csv', summary: 'A summary table as CSV: ?table=means (mean, SD, CI, adjusted mean, letters, ANOVA p; default), anova, penalty, triangle or ranking', tag: 'Results', permission: 'panels.read', okMediaTypes: ['text/csv'] },
   { method: 'get', path: '/api/v1/trials/{trialId}/comparison', summary: 'Variants side by side: factor levels, predicted chemistry, lab values, tasting verdicts, factor effects and lab–sensory correlations', tag: 'Results', permission: 'panels.read' },
   { method: 'put', path: '/api/v1/trials/{trialId}/recommendation', summary: 'Mark the recommended variant with a rationale (feeds promotion)', tag: 'Results', permission: 'trials.write', request: recommendationSchema },
+  { method: 'get', path: '/api/v1/costs/basis', summary: 'The prices on one day the formula editor costs with (?asOf=YYYY-MM-DD, default today): ingredient and packaging prices, refuse %, pack formats, overfill, currency', tag: 'Costs', permission: 'prices.read' },
+  { method: 'get', path: '/api/v1/trials/{trialId}/costs', summary: "Each variant's cost on a day (?asOf): per batch, per kg of finished product, per jar with packaging, line shares, sensitivity; incomplete with the unpriced lines named. Needs trials.read too", tag: 'Costs', permission: 'prices.read' },
+  { method: 'get', path: '/api/v1/products/{productId}/costs', summary: "Every version's cost frozen at approval and today's, and whether today's cost per jar moved past the workspace threshold", tag: 'Costs', permission: 'prices.read' },
+  { method: 'get', path: '/api/v1/batches/{batchId}/cost', summary: "A batch's cost: its version priced on the batch's day and the actual cost per good jar from its charge and jars", tag: 'Costs', permission: 'prices.read' },
   { method: 'post', path: '/api/v1/tasting/join', summary: 'A guest joins with the short code (rate-limited per address); returns the seat token', tag: 'Tasting', permission: null, request: joinSchema, okStatus: 201 },
   { method: 'get', path: '/api/v1/tasting/{seatToken}', summary: "The taster's view: codes in serving order, scales, own answers — nothing that maps to a variant", tag: 'Tasting', permission: null },
   { method: 'post', path: '/api/v1/tasting/{seatToken}/consent', summary: 'Accept the allergen and consent notice', tag: 'Tasting', permission: null },
@@ -131,6 +139,27 @@ export const API_OPERATIONS: ApiOperation[] = [
   { method: 'post', path: '/api/v1/batches/{batchId}/decision', summary: 'Release (only when the latest checks pass, 409 otherwise) or reject a held batch, with a comment; final', tag: 'Production', permission: 'batches.record', request: batchDecisionSchema, okStatus: 201 },
   { method: 'get', path: '/api/v1/audit', summary: 'The workspace audit trail, newest first (read-only)', tag: 'Production', permission: 'audit.read' },
   { method: 'get', path: '/api/v1/openapi.json', summary: 'This description', tag: 'Meta', permission: null },
+  { method: 'get', path: '/api/v1/cost-settings', summary: "The workspace's currency (ISO 4217; null until chosen), filling overfill % and cost-change warning threshold %", tag: 'Prices', permission: 'prices.read' },
+  { method: 'put', path: '/api/v1/cost-settings', summary: 'Set currency, overfill and warning threshold; 409 when changing the currency after prices exist (no conversion)', tag: 'Prices', permission: 'costs.settings', request: costSettingsSchema },
+  { method: 'get', path: '/api/v1/prices', summary: 'Every ingredient with the price in force on a day (query: asOf=YYYY-MM-DD, default today) and its refuse/trim %; amounts in minor units of the stated currency', tag: 'Prices', permission: 'prices.read' },
+  { method: 'post', path: '/api/v1/prices', summary: 'Add a dated price of an ingredient (pack price as decimal text in the workspace currency, pack size in g, kg or lb); prices are never overwritten', tag: 'Prices', permission: 'prices.write', request: ingredientPriceSchema, okStatus: 201 },
+  { method: 'post', path: '/api/v1/prices/import', summary: 'Import ingredient prices from CSV (ingredient, valid_from, pack_price, pack_size, pack_unit, supplier, currency), all or nothing: 422 with errors by row and column', tag: 'Prices', permission: 'prices.write', request: priceImportSchema, okStatus: 201 },
+  { method: 'get', path: '/api/v1/prices/export', summary: 'Every ingredient price that counts, as CSV in the import columns', tag: 'Prices', permission: 'prices.read', okMediaTypes: ['text/csv'] },
+  { method: 'get', path: '/api/v1/prices/{ingredientId}', summary: "An ingredient's price history, newest first, withdrawn points included with who and why", tag: 'Prices', permission: 'prices.read' },
+  { method: 'put', path: '/api/v1/prices/{ingredientId}/refuse', summary: "Set an ingredient's refuse/trim share (0–95 % of the bought mass)", tag: 'Prices', permission: 'prices.write', request: refuseBodySchema },
+  { method: 'post', path: '/api/v1/price-points/{priceId}/withdraw', summary: 'Withdraw a mistaken ingredient price with a reason (kept on record, audited); 409 when already withdrawn', tag: 'Prices', permission: 'prices.write', request: withdrawPriceSchema },
+  { method: 'get', path: '/api/v1/packaging-items', summary: 'Packaging items with the unit price in force on a day (query: asOf)', tag: 'Prices', permission: 'prices.read' },
+  { method: 'post', path: '/api/v1/packaging-items', summary: 'Add a packaging item (jar, lid, label, case or other)', tag: 'Prices', permission: 'prices.write', request: packagingItemSchema, okStatus: 201 },
+  { method: 'get', path: '/api/v1/packaging-items/{packagingItemId}', summary: "A packaging item's price history, newest first", tag: 'Prices', permission: 'prices.read' },
+  { method: 'put', path: '/api/v1/packaging-items/{packagingItemId}', summary: 'Rename a packaging item or change its kind', tag: 'Prices', permission: 'prices.write', request: packagingItemSchema },
+  { method: 'post', path: '/api/v1/packaging-prices', summary: 'Add a dated price of a packaging item (the price of a pack of so many pieces)', tag: 'Prices', permission: 'prices.write', request: packagingPriceSchema, okStatus: 201 },
+  { method: 'post', path: '/api/v1/packaging-prices/{priceId}/withdraw', summary: 'Withdraw a mistaken packaging price with a reason; 409 when already withdrawn', tag: 'Prices', permission: 'prices.write', request: withdrawPriceSchema },
+  { method: 'get', path: '/api/v1/pack-formats', summary: 'Pack formats: container, net fill and packaging per jar', tag: 'Prices', permission: 'prices.read' },
+  { method: 'post', path: '/api/v1/pack-formats', summary: 'Create a pack format (pieces per jars for each packaging item: a case of 12 is 1 per 12)', tag: 'Prices', permission: 'prices.write', request: packFormatSchema, okStatus: 201 },
+  { method: 'get', path: '/api/v1/pack-formats/{packFormatId}', summary: 'One pack format', tag: 'Prices', permission: 'prices.read' },
+  { method: 'put', path: '/api/v1/pack-formats/{packFormatId}', summary: "Replace a pack format's name, net fill and packaging", tag: 'Prices', permission: 'prices.write', request: packFormatSchema },
+  { method: 'put', path: '/api/v1/formulas/{formulaId}/pack-format', summary: 'Choose the pack format a formula is costed in (null: none)', tag: 'Prices', permission: 'formulas.write', request: packFormatChoiceSchema },
+  { method: 'put', path: '/api/v1/production-versions/{versionId}/pack-format', summary: 'Choose the pack format a production version is filled in (the one change a version accepts; audited)', tag: 'Prices', permission: 'prices.write', request: packFormatChoiceSchema },
 ];
 
 const errorSchema = {

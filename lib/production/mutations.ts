@@ -17,6 +17,8 @@ import { trialCode } from '@/lib/trials/access';
 import { sendMail, escapeHtml } from '@/lib/mail';
 import { env } from '@/lib/env';
 import { logger } from '@/lib/log';
+import { costForApproval } from '@/lib/costs/queries';
+import { todayIso } from '@/lib/format/dates';
 import type { FormulaSettingsInput, RevisionLine } from '@/lib/formulas/schema';
 import type { BatchDecisionInput, BatchRecordInput, BatchRetestInput, DecisionInput, PromotionEvidence, RequestPromotionInput } from './schema';
 import { batchStanding, checkRetest, type BatchDecisionFact } from './holds';
@@ -193,8 +195,9 @@ export async function decidePromotion(actor: Actor, requestId: string, input: De
       await tx.flush();
       await audit(tx, actor, 'version.superseded', { type: 'production_formula', id: current.id }, request.id, `v${current.version} superseded by v${version} (${code})`);
     }
+    const { packFormatId, costAtApproval } = await costForApproval(actor.workspaceId, { settings: variant.settings, lines: variant.lines, trialId: (request.trial as unknown as { id: string }).id }, todayIso());
     const created = tx.create(ProductionFormula, {
-      workspace: actor.workspaceId, product: productId, version, status: 'current',
+      workspace: actor.workspaceId, product: productId, version, status: 'current', packFormat: packFormatId, costAtApproval,
       settings: variant.settings, lines: variant.lines, process: request.process, compliance: computation.compliance, spec: request.spec as QcSpec,
       label: labelOutcome.ok ? labelOutcome.label : null,
       sourceTrial: (request.trial as unknown as { id: string }).id, sourceVariantId: variant.id, sourceVariantLabel: variant.label,

@@ -11,6 +11,7 @@ import type { Actor, Role } from '@/lib/permissions';
 import { addStarterLibrary } from '@/lib/ingredients/mutations';
 import { addDefaultAttributes } from '@/lib/panels/mutations';
 import { seedDemoFormulas } from './formulas';
+import { seedDemoPrices } from './prices';
 import { seedDemoTrials } from './trials';
 import { seedDemoNotebooks } from './notebook';
 import { seedDemoPanels } from './panels';
@@ -72,6 +73,8 @@ export async function seedDemo(em: EntityManager): Promise<SeedReport> {
   await seedDemoNotebooks(actor, trials);
   await seedDemoPanels(actor, trials);
   const person = async (index: number, role: Role) => demoActor(await em.fork().findOneOrFail(User, { email: DEMO_USERS[index].email }), report.workspaceId, role);
+  // Prices before production: approving a version freezes its cost and takes its formula's pack format.
+  await seedDemoPrices(em.fork(), { admin: await person(0, 'admin'), production: await person(3, 'production'), developer: actor });
   await seedDemoProduction({ developer: actor, head: await person(2, 'head_of_product'), production: await person(3, 'production') }, trials);
   return report;
 }

@@ -9,7 +9,7 @@ import { getEm } from '@/lib/db';
 import { currentActor } from '@/lib/auth';
 import { isUuid } from '@/lib/ids';
 import { can, ROLE_LABELS, type Actor, type Permission } from '@/lib/permissions';
-import { BatchRecord, Formula, Ingredient, PanelSession, Product, ProductionFormula, PromotionRequest, Trial } from '@/entities';
+import { BatchRecord, Formula, Ingredient, PackagingItem, PanelSession, Product, ProductionFormula, PromotionRequest, Trial } from '@/entities';
 import { listMyWorkspaces } from './queries';
 import { REQUEST_PATH_HEADER } from './record-path';
 
@@ -24,6 +24,8 @@ const RECORD_ROUTES = [
   { prefix: '/production/batches/', kind: 'batch', entity: BatchRecord, permission: 'production.read', opens: 'batches' },
   { prefix: '/production/versions/', kind: 'production version', entity: ProductionFormula, permission: 'production.read', opens: 'production versions' },
   { prefix: '/ingredients/', kind: 'ingredient', entity: Ingredient, permission: 'ingredients.write', opens: 'ingredient entries' },
+  { prefix: '/prices/packaging/', kind: 'packaging item', entity: PackagingItem, permission: 'prices.read', opens: 'prices' },
+  { prefix: '/prices/', kind: 'ingredient’s prices', entity: Ingredient, permission: 'prices.read', opens: 'prices' },
 ] as const satisfies ReadonlyArray<{ prefix: string; kind: string; entity: unknown; permission: Permission; opens: string }>;
 
 type RecordRoute = (typeof RECORD_ROUTES)[number];

@@ -12,7 +12,7 @@ import { DEMO_USERS, OTHER_ADMIN } from '@/lib/seed/demo';
 const browser = sharedBrowser();
 const admin = DEMO_USERS.find((u) => u.role === 'admin')!;
 
-const SETTINGS = ['Tasting attributes', 'API tokens', 'Mail outbox', 'Profile & units'];
+const SETTINGS = ['Tasting attributes', 'Costs and currency', 'API tokens', 'Mail outbox', 'Profile & units'];
 
 describe.each(WINDOWS)('administrators walk the loop (%s)', (size, viewport) => {
   it.each([

@@ -7,6 +7,8 @@ import { FormulaEditor } from '@/components/formulas/FormulaEditor';
 import { FormulaHeader } from '@/components/formulas/FormulaHeader';
 import { ResultsPanel } from '@/components/formulas/ResultsPanel';
 import { FormulaPrintSheet } from '@/components/formulas/FormulaPrintSheet';
+import { editorCostBasis } from '@/lib/costs/queries';
+import { packFormatOfFormulas } from '@/lib/pricing/queries';
 
 export const dynamic = 'force-dynamic';
 export const metadata = { title: 'Formula' };
@@ -37,6 +39,9 @@ export default async function FormulaPage({ params }: { params: Promise<{ formul
   // Archived ingredients appear only where a current line still uses them (the server refuses them on save).
   const used = new Set(c.lines.map((l) => l.ingredientId));
   const library = fullLibrary.filter((i) => !i.archived || used.has(i.id));
+  const cost = can(actor.role, 'prices.read')
+    ? { basis: await editorCostBasis(actor), packFormatId: (await packFormatOfFormulas(actor.workspaceId, [formula.id])).get(formula.id) ?? null }
+    : undefined;
   return (
     <>
       <FormulaHeader formula={formula} active="editor" />
@@ -52,6 +57,7 @@ export default async function FormulaPage({ params }: { params: Promise<{ formul
         ingredients={library}
         massUnits={actor.massUnits}
         temperatureUnit={actor.temperatureUnit}
+        cost={cost}
       />
     </>
   );

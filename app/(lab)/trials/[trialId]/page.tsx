@@ -10,6 +10,8 @@ import { readUploads } from '@/lib/uploads/queries';
 import { TrialHeader } from '@/components/trials/TrialHeader';
 import { StatusControls } from '@/components/trials/StatusControls';
 import { VariantsTable } from '@/components/trials/VariantsTable';
+import { trialCosts } from '@/lib/costs/queries';
+import { variantCostTexts } from '@/components/costs/CostSummary';
 import { PlanHelper } from '@/components/trials/PlanHelper';
 import { CsvImport } from '@/components/trials/CsvImport';
 import { Attachments } from '@/components/trials/Attachments';
@@ -43,6 +45,7 @@ export default async function TrialPage({ params }: { params: Promise<{ trialId:
   const [trial, notebook, uploads, panels] = await orNotFound(
     Promise.all([getTrialOverview(actor, trialId), readEntry(actor, trialId, null), readUploads(actor, trialId), can(actor.role, 'panels.read') ? listPanelSessions(actor, trialId) : Promise.resolve([])]),
   );
+  const costPerJar = can(actor.role, 'prices.read') ? variantCostTexts(await trialCosts(actor, trialId)) : undefined;
   const canEdit = can(actor.role, 'trials.write');
   const editable = canEdit && (trial.status === 'planning' || trial.status === 'cooking');
   const base = trial.variants.find((v) => v.isBase)!;
@@ -63,7 +66,7 @@ export default async function TrialPage({ params }: { params: Promise<{ trialId:
         <div className="min-w-0 space-y-6">
           <section aria-labelledby="variants-title">
             <h2 id="variants-title" className="mb-3 text-xl font-semibold">Variants</h2>
-            <VariantsTable trialId={trial.id} variants={trial.variants} massUnits={actor.massUnits} temperatureUnit={actor.temperatureUnit} />
+            <VariantsTable trialId={trial.id} variants={trial.variants} massUnits={actor.massUnits} temperatureUnit={actor.temperatureUnit} costPerJar={costPerJar} />
             <p className="mt-2 text-xs text-rind-500">Measured values are coloured against their prediction: green within tolerance, amber worth a look, red out of window; a red block means a food-safety limit.</p>
           </section>
           {editable ? <PlanHelper trialId={trial.id} baseLevels={baseLevelsOf(baseMass)} /> : canEdit ? (

@@ -11,6 +11,8 @@ import { StatusBadge } from '@/components/production/StatusBadge';
 import { CheckList } from '@/components/production/CheckList';
 import { AuditTrail } from '@/components/production/AuditTrail';
 import { BatchHoldPanel } from '@/components/production/BatchHoldPanel';
+import { batchCost } from '@/lib/costs/queries';
+import { BatchCostCard } from '@/components/costs/BatchCostCard';
 
 export const dynamic = 'force-dynamic';
 export const metadata = { title: 'Batch' };
@@ -21,6 +23,7 @@ export default async function BatchPage({ params }: { params: Promise<{ batchId:
   const actor = await requirePage('production.read');
   const { batch: b, product, audit } = await orNotFound(getBatch(actor, pageId((await params).batchId)));
   const temps = actor.temperatureUnit === 'C' ? 'metric' : 'imperial';
+  const cost = can(actor.role, 'prices.read') ? await batchCost(actor, b.id) : null;
   return (
     <>
       <PageHeader
@@ -41,6 +44,7 @@ export default async function BatchPage({ params }: { params: Promise<{ batchId:
           </Notice>
         </div>
       ) : null}
+      {cost ? <div className="mb-6"><BatchCostCard cost={cost} goodJars={b.jarsFilled - b.jarsRejected} /></div> : null}
       <div className="grid gap-6 lg:grid-cols-2">
         <Card title="Checks at recording">
           <div className="mb-2"><StatusBadge status={b.outcome} /></div>

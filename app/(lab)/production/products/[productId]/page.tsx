@@ -8,6 +8,8 @@ import { StatusBadge } from '@/components/production/StatusBadge';
 import { BatchTable } from '@/components/production/BatchTable';
 import { TrendChart } from '@/components/production/TrendChart';
 import { formatDate } from '@/lib/format/dates';
+import { productCosts } from '@/lib/costs/queries';
+import { ProductCostCard } from '@/components/costs/ProductCostCard';
 
 export const dynamic = 'force-dynamic';
 export const metadata = { title: 'Product' };
@@ -18,6 +20,7 @@ export default async function ProductPage({ params }: { params: Promise<{ produc
   const actor = await requirePage('production.read');
   const { product, versions, batches } = await orNotFound(getProduct(actor, pageId((await params).productId)));
   const current = versions.find((v) => v.status === 'current');
+  const costs = can(actor.role, 'prices.read') ? await productCosts(actor, product.id) : null;
   return (
     <>
       <PageHeader
@@ -40,6 +43,7 @@ export default async function ProductPage({ params }: { params: Promise<{ produc
           ))}
         </ul>
       </Card>
+      {costs ? <div className="mt-6"><ProductCostCard costs={costs} /></div> : null}
       <section className="mt-6 grid gap-4 lg:grid-cols-2" aria-label="Trends">
         {batches.length ? (
           <>

@@ -11,6 +11,9 @@ import { FactorEffectsCard } from '@/components/results/FactorEffects';
 import { DataTable, CELL, HEAD, NUM, NUM_TH, TH } from '@/components/results/DataTable';
 import { Notice } from '@/components/ui/Notice';
 import { formatDate } from '@/lib/format/dates';
+import { trialCosts } from '@/lib/costs/queries';
+import { variantCostTexts } from '@/components/costs/CostSummary';
+import { CostAgainstLiking } from '@/components/costs/CostAgainstLiking';
 
 export const dynamic = 'force-dynamic';
 export const metadata = { title: 'Compare variants' };
@@ -22,6 +25,7 @@ export default async function ComparePage({ params }: { params: Promise<{ trialI
   const c = await orNotFound(getTrialComparison(actor, pageId((await params).trialId)));
   const attributes = [...new Set(c.means.map((m) => m.attribute))];
   const labels = c.trial.variants.map((v) => v.label);
+  const costs = can(actor.role, 'prices.read') ? await trialCosts(actor, c.trial.id) : null;
   return (
     <>
       <TrialHeader trial={c.trial} />
@@ -31,7 +35,7 @@ export default async function ComparePage({ params }: { params: Promise<{ trialI
       ) : null}
       <section className="mb-6">
         <h2 className="mb-2 text-xl font-semibold">Predicted and measured</h2>
-        <VariantsTable trialId={c.trial.id} variants={c.trial.variants} massUnits={actor.massUnits} temperatureUnit={actor.temperatureUnit} />
+        <VariantsTable trialId={c.trial.id} variants={c.trial.variants} massUnits={actor.massUnits} temperatureUnit={actor.temperatureUnit} costPerJar={costs ? variantCostTexts(costs) : undefined} />
       </section>
       <section className="mb-6" aria-labelledby="sensory-title">
         <h2 id="sensory-title" className="mb-2 text-xl font-semibold">What tasters said</h2>
@@ -51,6 +55,12 @@ export default async function ComparePage({ params }: { params: Promise<{ trialI
           </DataTable></div>
         ) : null}
       </section>
+      {costs ? (
+        <section className="mb-6" aria-labelledby="cost-liking-title">
+          <h2 id="cost-liking-title" className="mb-2 text-xl font-semibold">Cost against liking</h2>
+          <CostAgainstLiking costs={costs} means={c.means} />
+        </section>
+      ) : null}
       {c.effects.length ? (
         <section className="mb-6" aria-labelledby="effects-title">
           <h2 id="effects-title" className="mb-2 text-xl font-semibold">Factor effects</h2>

@@ -1,0 +1,59 @@
+import { formatCost } from '@/lib/costing';
+import type { ProductCosts, VersionCost } from '@/lib/costs/schema';
+import { formatDate } from '@/lib/format/dates';
+import { Card } from '@/components/ui/Card';
+import { Notice } from '@/components/ui/Notice';
+import { TableBox } from '@/components/ui/TableBox';
+import { perJarText } from './CostSummary';
+
+function approvalText(v: VersionCost): string {
+  const a = v.atApproval;
+  if (!a) return 'Not recorded';
+  if (a.perJarMinor === null) return 'No pack format';
+  return `${a.complete ? '' : 'at least '}${formatCost(a.perJarMinor, a.currency)}`;
+}
+
+/** A product's cost per jar: frozen at each version's approval, and today; warns past the workspace threshold. */
+export function ProductCostCard({ costs }: { costs: ProductCosts }) {
+  const current = costs.versions.find((v) => v.status === 'current');
+  return (
+    <Card title="Cost per jar">
+      <div className="space-y-3" data-testid="product-cost">
+        {current?.warn && current.movedPct !== null ? (
+          <Notice tone="warning" title="Cost moved">
+            Today’s cost per jar of v{current.version} is {Math.abs(current.movedPct).toFixed(1)} % {current.movedPct > 0 ? 'above' : 'below'} its cost at approval;
+            the workspace warns beyond {costs.warningPct} %.
+          </Notice>
+        ) : null}
+        <TableBox label="Cost per jar of each version" framed={false}>
+          <table className="w-full min-w-max border-collapse text-sm">
+            <thead className="border-b border-pith-300 text-left text-xs uppercase tracking-wider text-rind-500">
+              <tr>
+                <th scope="col" className="px-3 py-2 font-medium">Version</th>
+                <th scope="col" className="px-3 py-2 text-right font-medium">At approval</th>
+                <th scope="col" className="px-3 py-2 text-right font-medium">Today ({formatDate(costs.asOf)})</th>
+                <th scope="col" className="px-3 py-2 text-right font-medium">Change</th>
+              </tr>
+            </thead>
+            <tbody className="divide-y divide-pith-200">
+              {costs.versions.map((v) => (
+                <tr key={v.versionId}>
+                  <th scope="row" className="px-3 py-1.5 text-left font-normal">v{v.version}{v.status === 'current' ? ' (current)' : ''}</th>
+                  <td className="px-3 py-1.5 text-right tabular-nums" data-testid="cost-at-approval">
+                    {approvalText(v)}
+                    {v.atApproval ? <span className="block text-xs text-rind-500">{formatDate(v.atApproval.asOf)}</span> : null}
+                  </td>
+                  <td className="px-3 py-1.5 text-right tabular-nums" data-testid="cost-today">{perJarText(v.today, costs.currency)}</td>
+                  <td className={`px-3 py-1.5 text-right tabular-nums ${v.warn ? 'font-semibold text-ember-700' : ''}`}>
+                    {v.movedPct === null ? '—' : `${v.movedPct > 0 ? '+' : v.movedPct < 0 ? '−' : ''}${Math.abs(v.movedPct).toFixed(1)} %`}
+                  </td>
+                </tr>
+              ))}
+            </tbody>
+          </table>
+        </TableBox>
+        <p className="text-xs text-rind-500">The cost at approval is kept as it was on that day; today’s uses today’s prices and the version’s pack format.</p>
+      </div>
+    </Card>
+  );
+}

@@ -1,0 +1,185 @@
+/**
+ * Cost reads: loads the prices a set of formulas needs (one history read per kind, for the whole
+ * range of days asked) and costs them with lib/costing. Callers hold `prices.read`.
+ */
+import { getEm } from '@/lib/db';
+import { BatchRecord, Ingredient, Product, ProductionFormula, Trial, Variant } from '@/entities';
+import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
+import { todayIso, isoDate } from '@/lib/format/dates';
+import { batchActualCostPerJar, changePct, costStoredFormula, historiesBy, type IngredientPricePoint, type PackagingPricePoint, type PackFormatData } from '@/lib/costing';
+import type { FormulaSettingsInput, RevisionLine } from '@/lib/formulas/schema';
+import {
+  costSettings, packagingPriceHistory, packagingPricesAsOf, packFormatList, packFormatsByIds, priceHistory, pricesAsOf, refuseShares,
+} from '@/lib/pricing/queries';
+import type { BatchCost, CostResult, EditorCostBasis, FrozenCost, ProductCosts, TrialCosts, VersionCost } from './schema';
+
+/** Everything costFormula needs for some formulas over a range of days. */
+export interface CostBasis {
+  currency: string | null;
+  overfillPct: number;
+  warningPct: number;
+  ingredientPrices: Map<string, IngredientPricePoint[]>;
+  packagingPrices: Map<string, PackagingPricePoint[]>;
+  refuse: Map<string, number>;
+  packFormats: Map<string, PackFormatData>;
+}
+
+/** The price rows the formulas' ingredients and pack formats need from `from` to `to`. */
+export async function loadCostBasis(
+  workspaceId: string,
+  need: { ingredientIds: readonly string[]; packFormatIds: readonly string[]; from: string; to: string },
+): Promise<CostBasis> {
+  const [settings, refuse, packFormats, ingredientPoints] = await Promise.all([
+    costSettings(workspaceId),
+    refuseShares(workspaceId, need.ingredientIds),
+    packFormatsByIds(workspaceId, need.packFormatIds),
+    priceHistory(workspaceId, need.ingredientIds, { from: need.from, to: need.to }),
+  ]);
+  const itemIds = [...new Set([...packFormats.values()].flatMap((f) => f.items.map((i) => i.packagingItemId)))];
+  const packagingPoints = await packagingPriceHistory(workspaceId, itemIds, { from: need.from, to: need.to });
+  return {
+    currency: settings.currency,
+    overfillPct: settings.overfillPct,
+    warningPct: settings.costWarningPct,
+    ingredientPrices: historiesBy(ingredientPoints, (p) => p.ingredientId),
+    packagingPrices: historiesBy(packagingPoints, (p) => p.packagingItemId),
+    refuse,
+    packFormats,
+  };
+}
+
+/** One formula (lines as stored) costed on `asOf` in its pack format. */
+export function costOn(basis: CostBasis, settings: FormulaSettingsInput, lines: RevisionLine[], packFormatId: string | null, asOf: string): CostResult {
+  if (!basis.currency) return { ok: false, message: 'The workspace has no currency yet: an administrator sets it under prices.' };
+  return costStoredFormula(
+    settings,
+    lines.map((l) => ({ ...l, refusePct: basis.refuse.get(l.ingredientId) ?? 0 })),
+    {
+      asOf,
+      packFormat: packFormatId ? (basis.packFormats.get(packFormatId) ?? null) : null,
+      overfillPct: basis.overfillPct,
+      ingredientPrices: basis.ingredientPrices,
+      packagingPrices: basis.packagingPrices,
+    },
+  );
+}
+
+const ingredientIdsOf = (formulas: Array<{ lines: RevisionLine[] }>) => [...new Set(formulas.flatMap((f) => f.lines.map((l) => l.ingredientId)))];
+const refId = (ref: unknown) => (ref as { id: string } | null)?.id ?? null;
+
+/** The editor's prices on one day, for every ingredient and pack format of the workspace. */
+export async function editorCostBasis(actor: Actor, asOf: string = todayIso()): Promise<EditorCostBasis> {
+  const em = await getEm();
+  const ingredientIds = (await em.find(Ingredient, { ...inWorkspace(actor) }, { fields: ['id'], limit: 5000 })).map((i) => i.id);
+  const [settings, formats, prices, refuse] = await Promise.all([
+    costSettings(actor.workspaceId),
+    packFormatList(actor),
+    pricesAsOf(actor.workspaceId, ingredientIds, asOf),
+    refuseShares(actor.workspaceId, ingredientIds),
+  ]);
+  const packFormats = formats
+    .filter((f) => !f.archived)
+    .map((f) => ({ id: f.id, name: f.name, netFillG: f.netFillG, items: f.items.map((i) => ({ packagingItemId: i.packagingItemId, name: i.name, perJar: i.pieces / i.perJars })) }));
+  const itemIds = [...new Set(packFormats.flatMap((f) => f.items.map((i) => i.packagingItemId)))];
+  const packaging = await packagingPricesAsOf(actor.workspaceId, itemIds, asOf);
+  return {
+    currency: settings.currency,
+    asOf,
+    overfillPct: settings.overfillPct,
+    ingredientPrices: [...prices.values()],
+    packagingPrices: [...packaging.values()],
+    refuse: [...refuse.entries()],
+    packFormats,
+  };
+}
+
+/** Each variant of a trial costed on `asOf` in the pack format of the trial's base formula. */
+export async function trialCosts(actor: Actor, trialId: string, asOf: string = todayIso()): Promise<TrialCosts> {
+  // The trial (with its base formula's pack format) and its variants in one round trip.
+  const [trial, variants] = await Promise.all([
+    getEm().then((em) => em.findOne(Trial, { ...inWorkspace(actor), id: trialId }, { populate: ['baseFormula'] })),
+    getEm().then((em) => em.find(Variant, { ...inWorkspace(actor), trial: trialId, removedAt: null }, { orderBy: { position: 'asc' } })),
+  ]);
+  if (!trial) throw notFound('trial');
+  const packFormatId = refId((trial.baseFormula as unknown as { packFormat?: unknown } | null)?.packFormat);
+  const basis = await loadCostBasis(actor.workspaceId, { ingredientIds: ingredientIdsOf(variants), packFormatIds: packFormatId ? [packFormatId] : [], from: asOf, to: asOf });
+  const format = packFormatId ? basis.packFormats.get(packFormatId) : undefined;
+  return {
+    currency: basis.currency,
+    asOf,
+    packFormat: format ? { id: format.id, name: format.name } : null,
+    variants: variants.map((v) => ({ variantId: v.id, label: v.label, result: costOn(basis, v.settings, v.lines, packFormatId, asOf) })),
+  };
+}
+
+/** A cost reduced to what is frozen with a version. */
+export function freeze(result: CostResult, currency: string | null, packFormatName: string | null): FrozenCost | null {
+  if (!result.ok || !currency) return null;
+  const c = result.cost;
+  return {
+    asOf: c.asOf, currency, packFormatName,
+    batchMinor: c.batch.minor, perKgMinor: c.perKg.minor, perJarMinor: c.perJar?.minor ?? null,
+    complete: c.complete, missing: c.missing,
+  };
+}
+
+/**
+ * What a new version takes at approval: the pack format of the trial's base formula (a version is
+ * filled in the jar its formula was costed in) and the cost of its lines on the approval day in it,
+ * frozen (null when the workspace has no currency). Read outside the approval's transaction: prices
+ * are committed data.
+ */
+export async function costForApproval(
+  workspaceId: string,
+  formula: { settings: FormulaSettingsInput; lines: RevisionLine[]; trialId: string },
+  day: string,
+): Promise<{ packFormatId: string | null; costAtApproval: FrozenCost | null }> {
+  const em = await getEm();
+  const trial = await em.findOne(Trial, { workspace: workspaceId, id: formula.trialId }, { fields: ['id', 'baseFormula'], populate: ['baseFormula'] });
+  const packFormatId = refId((trial?.baseFormula as unknown as { packFormat?: unknown } | null)?.packFormat);
+  const basis = await loadCostBasis(workspaceId, { ingredientIds: ingredientIdsOf([formula]), packFormatIds: packFormatId ? [packFormatId] : [], from: day, to: day });
+  const name = packFormatId ? (basis.packFormats.get(packFormatId)?.name ?? null) : null;
+  return { packFormatId, costAtApproval: freeze(costOn(basis, formula.settings, formula.lines, packFormatId, day), basis.currency, name) };
+}
+
+/** Every version of a product: its cost frozen at approval and today's, and whether it moved past the threshold. */
+export async function productCosts(actor: Actor, productId: string, asOf: string = todayIso()): Promise<ProductCosts> {
+  const em = await getEm();
+  const versions = await em.find(ProductionFormula, { ...inWorkspace(actor), product: productId }, { orderBy: { version: 'desc' } });
+  if (!versions.length && !(await em.count(Product, { ...inWorkspace(actor), id: productId }))) throw notFound('product');
+  const packFormatIds = [...new Set(versions.map((v) => refId(v.packFormat)).filter((id): id is string => !!id))];
+  const basis = await loadCostBasis(actor.workspaceId, { ingredientIds: ingredientIdsOf(versions), packFormatIds, from: asOf, to: asOf });
+  return {
+    currency: basis.currency,
+    asOf,
+    warningPct: basis.warningPct,
+    versions: versions.map((v): VersionCost => {
+      const today = costOn(basis, v.settings, v.lines, refId(v.packFormat), asOf);
+      const atApproval = v.costAtApproval ?? null;
+      const before = atApproval?.complete && atApproval.currency === basis.currency ? atApproval.perJarMinor : null;
+      const after = today.ok && today.cost.perJar?.complete ? today.cost.perJar.minor : null;
+      const movedPct = before !== null && after !== null ? changePct(before, after) : null;
+      return {
+        versionId: v.id, version: v.version, status: v.status, approvedAt: v.approvedAt.toISOString(),
+        atApproval, today, movedPct, warn: movedPct !== null && Math.abs(movedPct) > basis.warningPct,
+      };
+    }),
+  };
+}
+
+/** A batch's cost: the version costed on the batch's day, and per good jar from its charge and jars. */
+export async function batchCost(actor: Actor, batchId: string): Promise<BatchCost> {
+  const em = await getEm();
+  const batch = await em.findOne(BatchRecord, { ...inWorkspace(actor), id: batchId }, { populate: ['productionFormula'] });
+  if (!batch) throw notFound('batch');
+  const version = batch.productionFormula as unknown as { settings: FormulaSettingsInput; lines: RevisionLine[]; packFormat: unknown };
+  const day = isoDate(batch.batchDate);
+  const packFormatId = refId(version.packFormat);
+  const basis = await loadCostBasis(actor.workspaceId, { ingredientIds: ingredientIdsOf([version]), packFormatIds: packFormatId ? [packFormatId] : [], from: day, to: day });
+  const planned = costOn(basis, version.settings, version.lines, packFormatId, day);
+  return {
+    currency: basis.currency,
+    planned,
+    actualPerJar: planned.ok ? batchActualCostPerJar(planned.cost, { chargeG: batch.batchSizeG, jarsFilled: batch.jarsFilled, jarsRejected: batch.jarsRejected }) : null,
+  };
+}

@@ -1,0 +1,115 @@
+/**
+ * Ingredient prices in and out as CSV. Import is all-or-nothing: every row is checked first,
+ * errors are reported by row and column, and nothing lands unless every row is good.
+ * Ingredients are named as in the library (case does not matter); amounts are in the workspace currency.
+ */
+import Papa from 'papaparse';
+import { getEm } from '@/lib/db';
+import { Ingredient, IngredientPrice } from '@/entities';
+import { inWorkspace, type Actor } from '@/lib/permissions';
+import { ValidationFailed } from '@/lib/errors';
+import { toCsv } from '@/lib/csv';
+import { todayIso } from '@/lib/format/dates';
+import { parseDecimal, unsafeTextReason } from '@/lib/input';
+import { costSettings } from './queries';
+import { ingredientPriceSchema } from './schema';
+import { ingredientPriceColumns, NO_CURRENCY_MESSAGE } from './mutations';
+import { amountText } from './money';
+import { PRICE_LIMITS } from './vocabulary';
+
+export const PRICE_CSV_COLUMNS = ['ingredient', 'valid_from', 'pack_price', 'pack_size', 'pack_unit', 'supplier', 'currency'] as const;
+const REQUIRED = ['ingredient', 'valid_from', 'pack_price', 'pack_size', 'pack_unit'];
+const FIELD_COLUMN: Record<string, string> = { ingredientId: 'ingredient', validFrom: 'valid_from', packPrice: 'pack_price', packSize: 'pack_size', packUnit: 'pack_unit', supplier: 'supplier' };
+
+export interface CsvRowError {
+  row: number;
+  column: string;
+  message: string;
+}
+
+type Columns = ReturnType<typeof ingredientPriceColumns>;
+
+/** Checks every row; returns the points ready to insert or every error found. Pure apart from the name map. */
+export function parsePriceCsv(text: string, ingredientIdsByName: Map<string, string[]>, currency: string): { rows: Columns[]; errors: CsvRowError[] } {
+  const unsafe = unsafeTextReason(text.replace(/^\uFEFF/, ''), true);
+  if (unsafe) return { rows: [], errors: [{ row: 1, column: '', message: unsafe }] };
+  const parsed = Papa.parse<Record<string, string>>(text.replace(/^\uFEFF/, ''), { header: true, skipEmptyLines: 'greedy', transformHeader: (h) => h.trim().toLowerCase() });
+  const errors: CsvRowError[] = [];
+  const headers = parsed.meta.fields ?? [];
+  const known = new Set<string>(PRICE_CSV_COLUMNS);
+  for (const h of headers) if (!known.has(h)) errors.push({ row: 1, column: h, message: `Unknown column “${h}”. Known columns: ${PRICE_CSV_COLUMNS.join(', ')}.` });
+  for (const required of REQUIRED) if (!headers.includes(required)) errors.push({ row: 1, column: required, message: `The column “${required}” is required.` });
+  for (const e of parsed.errors) errors.push({ row: (e.row ?? 0) + 2, column: '', message: e.message });
+  if (errors.length) return { rows: [], errors };
+  if (parsed.data.length === 0) return { rows: [], errors: [{ row: 2, column: '', message: 'The file has a header but no rows.' }] };
+  if (parsed.data.length > PRICE_LIMITS.maxCsvRows) return { rows: [], errors: [{ row: PRICE_LIMITS.maxCsvRows + 2, column: '', message: `At most ${PRICE_LIMITS.maxCsvRows} rows per import.` }] };
+
+  const rows: Columns[] = [];
+  parsed.data.forEach((record, i) => {
+    const row = i + 2; // the header is row 1, as a spreadsheet shows it
+    const cell = (column: string) => (Object.prototype.hasOwnProperty.call(record, column) ? String(record[column] ?? '') : '').trim();
+    const fail = (column: string, message: string) => errors.push({ row, column, message });
+    const rowCurrency = cell('currency');
+    if (rowCurrency && rowCurrency.toUpperCase() !== currency) return fail('currency', `Prices here are in ${currency}; this row says ${rowCurrency}. Setwell does not convert currencies.`);
+    const name = cell('ingredient');
+    const matches = ingredientIdsByName.get(name.toLowerCase()) ?? [];
+    if (matches.length !== 1) {
+      return fail('ingredient', !name ? 'Name the ingredient as in the library.' : matches.length ? `Several ingredients are called “${name}”; rename one in the library first.` : `No ingredient “${name}” in the library.`);
+    }
+    const size = parseDecimal(cell('pack_size'));
+    const candidate = { ingredientId: matches[0], validFrom: cell('valid_from'), packPrice: cell('pack_price'), packSize: Number.isFinite(size) ? size : cell('pack_size'), packUnit: cell('pack_unit').toLowerCase(), supplier: cell('supplier') || null };
+    const result = ingredientPriceSchema.safeParse(candidate);
+    if (!result.success) {
+      for (const issue of result.error.issues) fail(FIELD_COLUMN[String(issue.path[0])] ?? '', issue.message);
+      return;
+    }
+    try {
+      rows.push(ingredientPriceColumns(result.data, currency));
+    } catch (err) {
+      if (!(err instanceof ValidationFailed)) throw err;
+      for (const [field, messages] of Object.entries(err.fields)) for (const m of messages) fail(FIELD_COLUMN[field] ?? field, m);
+    }
+  });
+  return { rows: errors.length ? [] : rows, errors };
+}
+
+export async function importPricesCsv(actor: Actor, text: string): Promise<{ imported: number }> {
+  const { currency } = await costSettings(actor.workspaceId);
+  // A file-level problem like any other: the import is refused as a whole (422), nothing lands.
+  if (!currency) throw new ValidationFailed(NO_CURRENCY_MESSAGE, { 'row 1': [NO_CURRENCY_MESSAGE] });
+  const em = await getEm();
+  const ingredients = await em.find(Ingredient, { ...inWorkspace(actor) }, { fields: ['id', 'name'] });
+  const byName = new Map<string, string[]>();
+  for (const i of ingredients) {
+    const key = i.name.trim().toLowerCase();
+    byName.set(key, [...(byName.get(key) ?? []), i.id]);
+  }
+  const { rows, errors } = parsePriceCsv(text, byName, currency);
+  if (errors.length) {
+    const fields: Record<string, string[]> = Object.create(null);
+    for (const e of errors) (fields[`row ${e.row}${e.column ? `, ${e.column}` : ''}`] ??= []).push(e.message);
+    throw new ValidationFailed(`Nothing was imported: ${errors.length} problem${errors.length > 1 ? 's' : ''} in the file.`, fields);
+  }
+  await em.transactional(async (tx) => {
+    for (const r of rows) tx.create(IngredientPrice, { ...r, workspace: actor.workspaceId, enteredBy: actor.userId } as never);
+  });
+  return { imported: rows.length };
+}
+
+/** Every point that counts (withdrawn ones left out), in the import's columns, so an export can be edited and read back. */
+export async function exportPricesCsv(actor: Actor): Promise<{ filename: string; csv: string }> {
+  const { currency } = await costSettings(actor.workspaceId);
+  const em = await getEm();
+  const points = await em.find(IngredientPrice, { ...inWorkspace(actor), withdrawnAt: null }, { populate: ['ingredient'], orderBy: { ingredient: { name: 'asc' }, validFrom: 'asc', enteredAt: 'asc' }, limit: 200_000 });
+  type Point = { validFrom: string; packPriceMinor: number; packSizeG: number; supplier: string | null; ingredient: { name: string } };
+  const csv = toCsv(points as unknown as Point[], [
+    { header: 'ingredient', value: (p) => p.ingredient.name },
+    { header: 'valid_from', value: (p) => p.validFrom },
+    { header: 'pack_price', value: (p) => (currency ? amountText(Number(p.packPriceMinor), currency) : '') },
+    { header: 'pack_size', value: (p) => p.packSizeG },
+    { header: 'pack_unit', value: () => 'g' },
+    { header: 'supplier', value: (p) => p.supplier ?? '' },
+    { header: 'currency', value: () => currency ?? '' },
+  ]);
+  return { filename: `prices-${todayIso()}.csv`, csv };
+}

@@ -1,0 +1,284 @@
+/**
+ * Price and packaging reads. The costing reads take a workspace id (the caller has authorised
+ * `prices.read`) and answer many ingredients and many dates in one statement each: "the latest
+ * point on or before a day" is a lateral LIMIT 1 per (day, ingredient) over the partial index
+ * ingredient_prices_as_of_index, so 3 years of daily points cost one index probe each.
+ * Withdrawn points never count; of two points on the same day the later entered wins.
+ */
+import { getEm } from '@/lib/db';
+import { CostSettings, Formula, Ingredient, IngredientPrice, PackagingItem, PackagingPrice, PackFormat, PackFormatItem, ProductionFormula } from '@/entities';
+import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
+import { calendarDateProblem } from '@/lib/input';
+import { isoDate, todayIso } from '@/lib/format/dates';
+import type { IngredientPricePoint, PackagingPricePoint, PackFormatData } from '@/lib/costing/types';
+import type {
+  CostSettingsView, IngredientPriceRow, PackagingItemRow, PackagingPricePointView, PackFormatView, PricePointView,
+} from './schema';
+import type { PackagingKind } from './vocabulary';
+
+const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
+
+/** Ids and days that cannot match anything are dropped here, so no caller's typo becomes a database error. */
+function cleanIds(ids: readonly string[]): string[] {
+  return [...new Set(ids.filter((v) => UUID.test(v)))];
+}
+function cleanDays(days: readonly string[]): string[] {
+  return [...new Set(days.filter((d) => calendarDateProblem(d) === null))];
+}
+
+/** The two kinds of price point differ only in their table, their subject column and what a point holds. */
+const SOURCES = {
+  ingredient: { table: 'ingredient_prices', subject: 'ingredient_id', columns: 'p.pack_price_minor, p.pack_size_g, p.supplier' },
+  packaging: { table: 'packaging_prices', subject: 'packaging_item_id', columns: 'p.pack_price_minor, p.pieces_per_pack, p.supplier' },
+} as const;
+type Source = keyof typeof SOURCES;
+type RawPoint = { subject_id: string; as_of?: string; valid_from: string; pack_price_minor: number; pack_size_g?: number; pieces_per_pack?: number; supplier: string | null };
+
+async function pointsAsOf(source: Source, workspaceId: string, subjectIds: readonly string[], days: readonly string[]): Promise<RawPoint[]> {
+  const ids = cleanIds(subjectIds);
+  const dates = cleanDays(days);
+  if (!ids.length || !dates.length || !UUID.test(workspaceId)) return [];
+  const { table, subject, columns } = SOURCES[source];
+  const em = await getEm();
+  return em.execute<RawPoint[]>(
+    `select s.id as subject_id, d.day as as_of, to_char(p.valid_from, 'YYYY-MM-DD') as valid_from, ${columns}
+       from jsonb_array_elements_text(?::jsonb) as d(day)
+       cross join jsonb_array_elements_text(?::jsonb) as s(id)
+       cross join lateral (
+         select * from "${table}" x
+          where x.workspace_id = ? and x.${subject} = s.id::uuid and x.valid_from <= d.day::date and x.withdrawn_at is null
+          order by x.valid_from desc, x.entered_at desc
+          limit 1
+       ) p`,
+    [JSON.stringify(dates), JSON.stringify(ids), workspaceId],
+  );
+}
+
+async function pointsBetween(source: Source, workspaceId: string, subjectIds: readonly string[], range: { from?: string; to?: string }): Promise<RawPoint[]> {
+  const ids = cleanIds(subjectIds);
+  if (!ids.length || !UUID.test(workspaceId)) return [];
+  const from = range.from && !calendarDateProblem(range.from) ? range.from : '1900-01-01';
+  const to = range.to && !calendarDateProblem(range.to) ? range.to : '2200-12-31';
+  const { table, subject, columns } = SOURCES[source];
+  const em = await getEm();
+  return em.execute<RawPoint[]>(
+    `select distinct on (p.${subject}, p.valid_from) p.${subject} as subject_id, to_char(p.valid_from, 'YYYY-MM-DD') as valid_from, ${columns}
+       from "${table}" p
+      where p.workspace_id = ? and p.${subject} in (select value::uuid from jsonb_array_elements_text(?::jsonb)) and p.withdrawn_at is null
+        and p.valid_from <= ?::date
+        and p.valid_from >= coalesce((select max(x.valid_from) from "${table}" x where x.workspace_id = p.workspace_id
+              and x.${subject} = p.${subject} and x.withdrawn_at is null and x.valid_from <= ?::date), '1900-01-01'::date)
+      order by p.${subject}, p.valid_from, p.entered_at desc`,
+    [workspaceId, JSON.stringify(ids), to, from],
+  );
+}
+
+function ingredientPoint(r: RawPoint): IngredientPricePoint {
+  return { ingredientId: r.subject_id, validFrom: r.valid_from, packPriceMinor: Number(r.pack_price_minor), packSizeG: Number(r.pack_size_g), supplier: r.supplier };
+}
+function packagingPoint(r: RawPoint): PackagingPricePoint {
+  return { packagingItemId: r.subject_id, validFrom: r.valid_from, unitPriceMinor: Number(r.pack_price_minor) / Number(r.pieces_per_pack), supplier: r.supplier };
+}
+
+function byDay<T>(rows: RawPoint[], days: readonly string[], map: (r: RawPoint) => T): Map<string, Map<string, T>> {
+  const out = new Map<string, Map<string, T>>(days.map((d) => [d, new Map()]));
+  for (const r of rows) out.get(r.as_of!)?.set(r.subject_id, map(r));
+  return out;
+}
+
+/** The price of each ingredient in force on `date` (YYYY-MM-DD); an ingredient without one is absent (unknown). */
+export async function pricesAsOf(workspaceId: string, ingredientIds: readonly string[], date: string): Promise<Map<string, IngredientPricePoint>> {
+  return (await pricesAsOfDates(workspaceId, ingredientIds, [date])).get(date) ?? new Map();
+}
+
+/** Many days at once (a product's versions at their approval days and today): day → ingredient → point, in one statement. */
+export async function pricesAsOfDates(workspaceId: string, ingredientIds: readonly string[], dates: readonly string[]): Promise<Map<string, Map<string, IngredientPricePoint>>> {
+  return byDay(await pointsAsOf('ingredient', workspaceId, ingredientIds, dates), dates, ingredientPoint);
+}
+
+/**
+ * The points that count, oldest first per ingredient: those from `from` to `to` (inclusive) and the one
+ * already in force on `from`. One point per day (the later entered). Without a range: every point.
+ */
+export async function priceHistory(workspaceId: string, ingredientIds: readonly string[], range: { from?: string; to?: string } = {}): Promise<IngredientPricePoint[]> {
+  return (await pointsBetween('ingredient', workspaceId, ingredientIds, range)).map(ingredientPoint);
+}
+
+/** The unit price of each packaging item in force on `date`; absent = unknown. */
+export async function packagingPricesAsOf(workspaceId: string, packagingItemIds: readonly string[], date: string): Promise<Map<string, PackagingPricePoint>> {
+  return (await packagingPricesAsOfDates(workspaceId, packagingItemIds, [date])).get(date) ?? new Map();
+}
+
+export async function packagingPricesAsOfDates(workspaceId: string, packagingItemIds: readonly string[], dates: readonly string[]): Promise<Map<string, Map<string, PackagingPricePoint>>> {
+  return byDay(await pointsAsOf('packaging', workspaceId, packagingItemIds, dates), dates, packagingPoint);
+}
+
+export async function packagingPriceHistory(workspaceId: string, packagingItemIds: readonly string[], range: { from?: string; to?: string } = {}): Promise<PackagingPricePoint[]> {
+  return (await pointsBetween('packaging', workspaceId, packagingItemIds, range)).map(packagingPoint);
+}
+
+/** The workspace's currency (null until chosen), filling overfill % and cost-change warning threshold %. */
+export async function costSettings(workspaceId: string): Promise<CostSettingsView> {
+  const em = await getEm();
+  const row = await em.findOne(CostSettings, { workspace: workspaceId });
+  return row ? { currency: row.currency, overfillPct: row.overfillPct, costWarningPct: row.costWarningPct } : { currency: null, overfillPct: 0, costWarningPct: 5 };
+}
+
+/** True once any price (ingredient or packaging, withdrawn ones too) is recorded: the currency is then fixed. */
+export async function workspaceHasPrices(workspaceId: string): Promise<boolean> {
+  const em = await getEm();
+  return (await em.count(IngredientPrice, { workspace: workspaceId })) + (await em.count(PackagingPrice, { workspace: workspaceId })) > 0;
+}
+
+/** Refuse/trim % per ingredient (0 when none is set). */
+export async function refuseShares(workspaceId: string, ingredientIds: readonly string[]): Promise<Map<string, number>> {
+  const ids = cleanIds(ingredientIds);
+  if (!ids.length) return new Map();
+  const em = await getEm();
+  const rows = await em.find(Ingredient, { workspace: workspaceId, id: { $in: ids } }, { fields: ['id', 'refusePct'] });
+  return new Map(rows.map((r) => [r.id, r.refusePct]));
+}
+
+/** Pack formats with their packaging, by id (archived ones too: old versions keep theirs). */
+export async function packFormatsByIds(workspaceId: string, packFormatIds: readonly string[]): Promise<Map<string, PackFormatData>> {
+  const ids = cleanIds(packFormatIds);
+  if (!ids.length) return new Map();
+  const views = await loadPackFormats(workspaceId, { id: { $in: ids } });
+  return new Map(views.map((v) => [v.id, { id: v.id, name: v.name, netFillG: v.netFillG, items: v.items.map((i) => ({ packagingItemId: i.packagingItemId, name: i.name, perJar: i.pieces / i.perJars })) }]));
+}
+
+/** The pack format each formula is costed in (null: none picked). */
+export async function packFormatOfFormulas(workspaceId: string, formulaIds: readonly string[]): Promise<Map<string, string | null>> {
+  const ids = cleanIds(formulaIds);
+  if (!ids.length) return new Map();
+  const em = await getEm();
+  const rows = await em.find(Formula, { workspace: workspaceId, id: { $in: ids } }, { fields: ['id', 'packFormat'] });
+  return new Map(rows.map((r) => [r.id, (r.packFormat as { id: string } | null)?.id ?? null]));
+}
+
+/** The pack format each production version is filled in (null: none picked). */
+export async function packFormatOfVersions(workspaceId: string, versionIds: readonly string[]): Promise<Map<string, string | null>> {
+  const ids = cleanIds(versionIds);
+  if (!ids.length) return new Map();
+  const em = await getEm();
+  const rows = await em.find(ProductionFormula, { workspace: workspaceId, id: { $in: ids } }, { fields: ['id', 'packFormat'] });
+  return new Map(rows.map((r) => [r.id, (r.packFormat as { id: string } | null)?.id ?? null]));
+}
+
+// ---- Screens and exports (the actor has prices.read) ----
+
+function today(): string {
+  return todayIso();
+}
+
+/** Every ingredient with the price in force on `asOf` (default today); archived ones only when they have prices. */
+export async function ingredientPriceList(actor: Actor, asOf: string = today()): Promise<IngredientPriceRow[]> {
+  const em = await getEm();
+  const ingredients = await em.find(Ingredient, { ...inWorkspace(actor) }, { orderBy: { name: 'asc' }, limit: 1000 });
+  const ids = ingredients.map((i) => i.id);
+  const current = await pricesAsOf(actor.workspaceId, ids, asOf);
+  const counts = await em.execute<{ ingredient_id: string; n: string }[]>(
+    `select ingredient_id, count(*) as n from ingredient_prices where workspace_id = ? and withdrawn_at is null group by ingredient_id`, [actor.workspaceId],
+  );
+  const countOf = new Map(counts.map((c) => [c.ingredient_id, Number(c.n)]));
+  return ingredients
+    .filter((i) => !i.archivedAt || countOf.has(i.id))
+    .map((i) => {
+      const p = current.get(i.id);
+      return {
+        ingredientId: i.id, name: i.name, kind: i.kind, refusePct: i.refusePct, archived: !!i.archivedAt,
+        current: p ? { validFrom: p.validFrom, packPriceMinor: p.packPriceMinor, packSizeG: p.packSizeG, supplier: p.supplier } : null,
+        points: countOf.get(i.id) ?? 0,
+      };
+    });
+}
+
+type PointRow = {
+  id: string; validFrom: string | Date; packPriceMinor: number; supplier?: string | null; enteredAt: Date;
+  enteredBy: { name: string }; withdrawnAt?: Date | null; withdrawnBy?: { name: string } | null; withdrawReason?: string | null;
+};
+function pointView(r: PointRow): Omit<PricePointView, 'packSizeG'> {
+  return {
+    id: r.id,
+    validFrom: isoDate(r.validFrom),
+    packPriceMinor: Number(r.packPriceMinor),
+    supplier: r.supplier ?? null,
+    enteredAt: r.enteredAt.toISOString(),
+    enteredByName: r.enteredBy.name,
+    withdrawnAt: r.withdrawnAt ? r.withdrawnAt.toISOString() : null,
+    withdrawnByName: r.withdrawnBy?.name ?? null,
+    withdrawReason: r.withdrawReason ?? null,
+  };
+}
+
+/** An ingredient's whole history for its page, withdrawn points included, newest first. */
+export async function ingredientPriceDetail(actor: Actor, ingredientId: string): Promise<{ ingredient: { id: string; name: string; refusePct: number; archived: boolean }; points: PricePointView[] }> {
+  const em = await getEm();
+  const ingredient = await em.findOne(Ingredient, { ...inWorkspace(actor), id: ingredientId });
+  if (!ingredient) throw notFound('ingredient');
+  const rows = await em.find(IngredientPrice, { ...inWorkspace(actor), ingredient: ingredientId }, {
+    populate: ['enteredBy', 'withdrawnBy'], orderBy: { validFrom: 'desc', enteredAt: 'desc' }, limit: 5000,
+  });
+  return {
+    ingredient: { id: ingredient.id, name: ingredient.name, refusePct: ingredient.refusePct, archived: !!ingredient.archivedAt },
+    points: (rows as unknown as (PointRow & { packSizeG: number })[]).map((r) => ({ ...pointView(r), packSizeG: r.packSizeG })),
+  };
+}
+
+export async function packagingItemList(actor: Actor, asOf: string = today()): Promise<PackagingItemRow[]> {
+  const em = await getEm();
+  const items = await em.find(PackagingItem, { ...inWorkspace(actor) }, { orderBy: { name: 'asc' }, limit: 1000 });
+  const raw = await pointsAsOf('packaging', actor.workspaceId, items.map((i) => i.id), [asOf]);
+  const current = new Map(raw.map((r) => [r.subject_id, r]));
+  const counts = await em.execute<{ packaging_item_id: string; n: string }[]>(
+    `select packaging_item_id, count(*) as n from packaging_prices where workspace_id = ? and withdrawn_at is null group by packaging_item_id`, [actor.workspaceId],
+  );
+  const countOf = new Map(counts.map((c) => [c.packaging_item_id, Number(c.n)]));
+  return items.map((i) => {
+    const p = current.get(i.id);
+    return {
+      id: i.id, name: i.name, kind: i.kind as PackagingKind, archived: !!i.archivedAt,
+      current: p ? { validFrom: p.valid_from, packPriceMinor: Number(p.pack_price_minor), piecesPerPack: Number(p.pieces_per_pack), supplier: p.supplier } : null,
+      points: countOf.get(i.id) ?? 0,
+    };
+  });
+}
+
+export async function packagingItemDetail(actor: Actor, packagingItemId: string): Promise<{ item: { id: string; name: string; kind: PackagingKind; archived: boolean }; points: PackagingPricePointView[] }> {
+  const em = await getEm();
+  const item = await em.findOne(PackagingItem, { ...inWorkspace(actor), id: packagingItemId });
+  if (!item) throw notFound('packaging item');
+  const rows = await em.find(PackagingPrice, { ...inWorkspace(actor), packagingItem: packagingItemId }, {
+    populate: ['enteredBy', 'withdrawnBy'], orderBy: { validFrom: 'desc', enteredAt: 'desc' }, limit: 5000,
+  });
+  return {
+    item: { id: item.id, name: item.name, kind: item.kind as PackagingKind, archived: !!item.archivedAt },
+    points: (rows as unknown as (PointRow & { piecesPerPack: number })[]).map((r) => ({ ...pointView(r), piecesPerPack: r.piecesPerPack })),
+  };
+}
+
+async function loadPackFormats(workspaceId: string, where: Record<string, unknown>): Promise<PackFormatView[]> {
+  const em = await getEm();
+  const formats = await em.find(PackFormat, { workspace: workspaceId, ...where }, { orderBy: { name: 'asc' }, limit: 500 });
+  if (!formats.length) return [];
+  const items = await em.find(PackFormatItem, { workspace: workspaceId, packFormat: { $in: formats.map((f) => f.id) } }, { populate: ['packagingItem'], orderBy: { position: 'asc' } });
+  return formats.map((f) => ({
+    id: f.id, name: f.name, netFillG: f.netFillG, archived: !!f.archivedAt,
+    items: items
+      .filter((i) => (i.packFormat as { id: string }).id === f.id)
+      .map((i) => {
+        const item = i.packagingItem as unknown as { id: string; name: string; kind: PackagingKind };
+        return { packagingItemId: item.id, name: item.name, kind: item.kind, pieces: i.pieces, perJars: i.perJars };
+      }),
+  }));
+}
+
+export async function packFormatList(actor: Actor): Promise<PackFormatView[]> {
+  return loadPackFormats(actor.workspaceId, {});
+}
+
+export async function getPackFormat(actor: Actor, packFormatId: string): Promise<PackFormatView> {
+  const [view] = await loadPackFormats(actor.workspaceId, { id: packFormatId });
+  if (!view) throw notFound('pack format');
+  return view;
+}

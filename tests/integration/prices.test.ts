@@ -1,0 +1,245 @@
+/** Prices and packaging: dated points read "as of" a day, kept for ever, imported all or nothing, seen only by staff. */
+import { describe, it, expect, beforeAll } from 'vitest';
+import { createWorkspace, callRoute, actorOf, type WorkspaceFixture } from './harness';
+import { starterIds } from './fixtures';
+import { createApprovedVersion } from './production-fixtures';
+import * as pricesRoute from '@/app/api/v1/prices/route';
+import * as importRoute from '@/app/api/v1/prices/import/route';
+import * as exportRoute from '@/app/api/v1/prices/export/route';
+import * as historyRoute from '@/app/api/v1/prices/[ingredientId]/route';
+import * as withdrawRoute from '@/app/api/v1/price-points/[priceId]/withdraw/route';
+import * as settingsRoute from '@/app/api/v1/cost-settings/route';
+import * as packFormatsRoute from '@/app/api/v1/pack-formats/route';
+import * as versionPackRoute from '@/app/api/v1/production-versions/[versionId]/pack-format/route';
+import { getEm } from '@/lib/db';
+import { AuditEvent, IngredientPrice, ProductionFormula } from '@/entities';
+import { packagingPricesAsOf, packFormatsByIds, priceHistory, pricesAsOf, pricesAsOfDates } from '@/lib/pricing/queries';
+import { addIngredientPrice, addPackagingPrice, createPackagingItem, createPackFormat, saveCostSettings, withdrawIngredientPrice } from '@/lib/pricing/mutations';
+
+let a: WorkspaceFixture;
+let ids: Record<string, string>;
+const admin = () => ({ kind: 'session' as const, person: a.people.admin });
+const count = async () => (await getEm()).count(IngredientPrice, { workspace: a.workspaceId });
+
+async function price(ingredient: string, validFrom: string, packPrice: string, packSize = 25, packUnit: 'g' | 'kg' | 'lb' = 'kg') {
+  return (await addIngredientPrice(actorOf(a, 'developer'), { ingredientId: ids[ingredient], packPrice, packSize, packUnit, supplier: 'Test mill', validFrom })).priceId;
+}
+
+beforeAll(async () => {
+  a = await createWorkspace('Prices');
+  ids = await starterIds(a);
+  await saveCostSettings(actorOf(a, 'admin'), { currency: 'EUR', overfillPct: 2, costWarningPct: 5 });
+  // Sugar: three points, and a correction on the second day.
+  await price('sucrose', '2026-01-10', '25.00');
+  await price('sucrose', '2026-03-01', '27.00');
+  await price('sucrose', '2026-03-01', '26.50');
+  await price('sucrose', '2026-06-15', '30.00');
+});
+
+describe('the price in force on a day', () => {
+  it('is unknown before the first point, the latest point on or before the day after it, and the later entry of a corrected day', async () => {
+    const before = await pricesAsOf(a.workspaceId, [ids.sucrose], '2026-01-09');
+    expect(before.has(ids.sucrose)).toBe(false);
+    expect((await pricesAsOf(a.workspaceId, [ids.sucrose], '2026-01-10')).get(ids.sucrose)).toMatchObject({ validFrom: '2026-01-10', packPriceMinor: 2500, packSizeG: 25_000 });
+    // Between points: the earlier one still holds.
+    expect((await pricesAsOf(a.workspaceId, [ids.sucrose], '2026-02-28')).get(ids.sucrose)?.packPriceMinor).toBe(2500);
+    // Two points on 1 March: the one entered later is the correction.
+    expect((await pricesAsOf(a.workspaceId, [ids.sucrose], '2026-03-01')).get(ids.sucrose)?.packPriceMinor).toBe(2650);
+    expect((await pricesAsOf(a.workspaceId, [ids.sucrose], '2027-01-01')).get(ids.sucrose)?.packPriceMinor).toBe(3000);
+  });
+
+  it('answers many days and ingredients in one call, leaving unknown ones out', async () => {
+    const days = ['2026-01-01', '2026-02-01', '2026-07-01'];
+    const byDay = await pricesAsOfDates(a.workspaceId, [ids.sucrose, ids.strawberry], days);
+    expect([...byDay.keys()]).toEqual(days);
+    expect(byDay.get('2026-01-01')?.size).toBe(0);
+    expect(byDay.get('2026-02-01')?.get(ids.sucrose)?.packPriceMinor).toBe(2500);
+    expect(byDay.get('2026-07-01')?.get(ids.sucrose)?.packPriceMinor).toBe(3000);
+    expect(byDay.get('2026-07-01')?.has(ids.strawberry)).toBe(false);
+  });
+
+  it('gives the history of a range with the point already in force at its start, one point per day', async () => {
+    const history = await priceHistory(a.workspaceId, [ids.sucrose], { from: '2026-02-01', to: '2026-06-30' });
+    expect(history.map((p) => [p.validFrom, p.packPriceMinor])).toEqual([['2026-01-10', 2500], ['2026-03-01', 2650], ['2026-06-15', 3000]]);
+  });
+
+  it('stores pounds as grams (1 lb = 453.59237 g)', async () => {
+    // Source: International Yard and Pound Agreement (1959), 1 lb = 0.45359237 kg exactly.
+    await price('lemon_juice', '2026-01-01', '9.99', 2, 'lb');
+    expect((await pricesAsOf(a.workspaceId, [ids.lemon_juice], '2026-01-01')).get(ids.lemon_juice)?.packSizeG).toBeCloseTo(907.18474, 6);
+  });
+});
+
+describe('prices are kept', () => {
+  it('a withdrawn point stops counting but stays in the history with who and why, and the withdrawal is audited once', async () => {
+    const mistaken = await price('strawberry', '2026-05-01', '450.00', 10);
+    expect((await pricesAsOf(a.workspaceId, [ids.strawberry], '2026-05-02')).get(ids.strawberry)?.packPriceMinor).toBe(45000);
+    const res = await callRoute(withdrawRoute.POST, { method: 'POST', path: '', caller: admin(), params: { priceId: mistaken }, body: { reason: 'Typed the price of a pallet.' } });
+    expect(res.status, JSON.stringify(res.body)).toBe(200);
+    expect((await pricesAsOf(a.workspaceId, [ids.strawberry], '2026-05-02')).has(ids.strawberry)).toBe(false);
+    const history = await callRoute(historyRoute.GET, { method: 'GET', path: '', caller: admin(), params: { ingredientId: ids.strawberry } });
+    expect(history.body.points[0]).toMatchObject({ id: mistaken, withdrawReason: 'Typed the price of a pallet.' });
+    expect(history.body.points[0].withdrawnAt).not.toBeNull();
+    const again = await callRoute(withdrawRoute.POST, { method: 'POST', path: '', caller: admin(), params: { priceId: mistaken }, body: { reason: 'Twice.' } });
+    expect(again.status).toBe(409);
+    const em = await getEm();
+    expect(await em.count(AuditEvent, { workspace: a.workspaceId, subjectId: mistaken, action: 'price.withdrawn' })).toBe(1);
+  });
+
+  it('the database refuses to change or delete a point', async () => {
+    const id = await price('sucrose', '2025-01-01', '20.00');
+    const em = await getEm();
+    await expect(em.execute('update ingredient_prices set pack_price_minor = 1 where id = ?', [id])).rejects.toThrow(/never changed/);
+    await expect(em.execute('delete from ingredient_prices where id = ?', [id])).rejects.toThrow(/never deleted/);
+    await withdrawIngredientPrice(actorOf(a, 'admin'), id, 'Test point.');
+  });
+
+  it('the currency cannot change once prices exist (no conversion), while overfill and threshold can', async () => {
+    const res = await callRoute(settingsRoute.PUT, { method: 'PUT', path: '', caller: admin(), body: { currency: 'GBP', overfillPct: 2, costWarningPct: 5 } });
+    expect(res.status).toBe(409);
+    expect(res.body.error.message).toMatch(/stays EUR/);
+    const ok = await callRoute(settingsRoute.PUT, { method: 'PUT', path: '', caller: admin(), body: { currency: 'EUR', overfillPct: 1.5, costWarningPct: 8 } });
+    expect(ok.status).toBe(200);
+    expect(ok.body.settings).toEqual({ currency: 'EUR', overfillPct: 1.5, costWarningPct: 8 });
+    const unknown = await callRoute(settingsRoute.PUT, { method: 'PUT', path: '', caller: admin(), body: { currency: 'XYZ', overfillPct: 1, costWarningPct: 5 } });
+    expect(unknown.status).toBe(422);
+  });
+
+  it('a workspace without a currency takes no price', async () => {
+    const b = await createWorkspace('No currency');
+    const sugar = (await starterIds(b)).sucrose;
+    const res = await callRoute(pricesRoute.POST, { method: 'POST', path: '', caller: { kind: 'session', person: b.people.admin }, body: { ingredientId: sugar, packPrice: '1.00', packSize: 1, packUnit: 'kg', validFrom: '2026-01-01' } });
+    expect(res.status).toBe(409);
+    expect(res.body.error.message).toMatch(/currency first/);
+  });
+});
+
+describe('CSV import is all or nothing', () => {
+  it('reports every bad row and column and stores nothing; a good file lands whole and reads back from the export', async () => {
+    const before = await count();
+    const bad = [
+      'ingredient,valid_from,pack_price,pack_size,pack_unit,supplier,currency',
+      'Sucrose (white sugar),2026-08-01,31.00,25,kg,Test mill,EUR', // good
+      'No such fruit,2026-08-01,1.00,1,kg,,', // unknown ingredient
+      'Sucrose (white sugar),2026-02-30,31.00,25,kg,,', // impossible date
+      'Sucrose (white sugar),2026-08-02,-3.00,25,kg,,', // negative price
+      'Sucrose (white sugar),2026-08-03,31.005,25,kg,,', // more decimals than EUR has
+      'Sucrose (white sugar),2026-08-04,31.00,25,tonnes,,', // unknown unit
+      'Sucrose (white sugar),2026-08-05,31.00,25,kg,,GBP', // another currency
+    ].join('\n');
+    const res = await callRoute(importRoute.POST, { method: 'POST', path: '', caller: admin(), body: { csv: bad } });
+    expect(res.status).toBe(422);
+    const keys = Object.keys(res.body.error.fields);
+    expect(keys).toEqual(expect.arrayContaining(['row 3, ingredient', 'row 4, valid_from', 'row 5, pack_price', 'row 6, pack_price', 'row 7, pack_unit', 'row 8, currency']));
+    expect(keys.some((k) => k.startsWith('row 2'))).toBe(false);
+    expect(await count()).toBe(before);
+
+    const unknownColumn = await callRoute(importRoute.POST, { method: 'POST', path: '', caller: admin(), body: { csv: 'ingredient,valid_from,pack_price,pack_size,pack_unit,__proto__\nSucrose (white sugar),2026-08-01,31.00,25,kg,x\n' } });
+    expect(unknownColumn.status).toBe(422);
+    expect(Object.keys(unknownColumn.body.error.fields)).toContain('row 1, __proto__');
+    expect(await count()).toBe(before);
+
+    for (const poison of ['\u0000', '\u202E', '\uD800']) {
+      const poisoned = await callRoute(importRoute.POST, { method: 'POST', path: '', caller: admin(), body: { csv: `ingredient,valid_from,pack_price,pack_size,pack_unit\nSucrose (white sugar),2026-08-01,31.00,25,kg\nSucrose (white sugar)${poison},2026-08-02,31.00,25,kg\n` } });
+      expect(poisoned.status).toBe(422);
+    }
+    expect(await count()).toBe(before);
+
+    const good = 'ingredient,valid_from,pack_price,pack_size,pack_unit\nsucrose (white sugar),2026-09-01,32.40,25,kg\nSucrose (white sugar),2026-10-01,33.00,50,lb\n';
+    const ok = await callRoute(importRoute.POST, { method: 'POST', path: '', caller: admin(), body: { csv: good } });
+    expect(ok.status, JSON.stringify(ok.body)).toBe(201);
+    expect(ok.body.imported).toBe(2);
+    expect(await count()).toBe(before + 2);
+    const exported = await callRoute(exportRoute.GET, { method: 'GET', path: '', caller: admin() });
+    expect(exported.status).toBe(200);
+    expect(exported.body).toContain('Sucrose (white sugar),2026-09-01,32.40,25000,g,,EUR');
+  });
+});
+
+describe('who sees prices', () => {
+  it('a taster gets 403 and no figure from the list, a history or the CSV export; an outsider 401', async () => {
+    const taster = { kind: 'session' as const, person: a.people.taster };
+    for (const [handler, params] of [[pricesRoute.GET, {}], [exportRoute.GET, {}], [historyRoute.GET, { ingredientId: ids.sucrose }], [settingsRoute.GET, {}], [packFormatsRoute.GET, {}]] as const) {
+      const res = await callRoute(handler, { method: 'GET', path: '', caller: taster, params });
+      expect(res.status).toBe(403);
+      expect(JSON.stringify(res.body)).not.toMatch(/2650|26\.50|EUR/);
+      const outsider = await callRoute(handler, { method: 'GET', path: '', caller: { kind: 'outsider' }, params });
+      expect(outsider.status).toBe(401);
+    }
+    const token = await callRoute(pricesRoute.GET, { method: 'GET', path: '', caller: { kind: 'token', person: a.people.taster } });
+    expect(token.status).toBe(403);
+  });
+
+  it('the production lead reads prices with the currency stated', async () => {
+    const res = await callRoute(pricesRoute.GET, { method: 'GET', path: '/api/v1/prices?asOf=2026-03-02', caller: { kind: 'session', person: a.people.production } });
+    expect(res.status).toBe(200);
+    expect(res.body.currency).toBe('EUR');
+    expect(res.body.prices.find((p: { ingredientId: string }) => p.ingredientId === ids.sucrose).current.packPriceMinor).toBe(2650);
+  });
+});
+
+describe('bad input gets a 4xx and changes nothing', () => {
+  const valid = () => ({ ingredientId: ids.sucrose, packPrice: '12.00', packSize: 25, packUnit: 'kg', supplier: 'Test mill', validFrom: '2026-11-01' });
+  const cases: Array<[string, (b: Record<string, unknown>) => unknown]> = [
+    ['NUL in the supplier', (b) => ({ ...b, supplier: 'Mill\u0000' })],
+    ['a control character', (b) => ({ ...b, supplier: 'Mill\u0007' })],
+    ['a bidi override', (b) => ({ ...b, supplier: 'Mill\u202Eevil' })],
+    ['a lone surrogate', (b) => ({ ...b, supplier: 'Mill\uD800' })],
+    ['30 February', (b) => ({ ...b, validFrom: '2026-02-30' })],
+    ['year 0000', (b) => ({ ...b, validFrom: '0000-01-01' })],
+    ['a pack size past 2^53', (b) => ({ ...b, packSize: 2 ** 53 + 2 })],
+    ['a price past 2^53', (b) => ({ ...b, packPrice: '9007199254740993' })],
+    ['a price past 2^31 minor units', (b) => ({ ...b, packPrice: '30000000.00' })],
+    ['a negative price', (b) => ({ ...b, packPrice: '-1.00' })],
+    ['a price in exponent notation', (b) => ({ ...b, packPrice: '1e3' })],
+    ['a zero pack size', (b) => ({ ...b, packSize: 0 })],
+    ['an unknown unit', (b) => ({ ...b, packUnit: 'oz' })],
+    ['a prototype-named key', (b) => JSON.parse(`{"__proto__":{"polluted":1},${JSON.stringify(b).slice(1)}`)],
+    ['a constructor key', (b) => ({ ...b, constructor: 'x' })],
+  ];
+  it.each(cases)('%s', async (_name, mutate) => {
+    const before = await count();
+    const res = await callRoute(pricesRoute.POST, { method: 'POST', path: '', caller: admin(), body: mutate(valid()) });
+    expect(res.status, JSON.stringify(res.body)).toBeGreaterThanOrEqual(400);
+    expect(res.status).toBeLessThan(500);
+    expect(await count()).toBe(before);
+    expect(({} as Record<string, unknown>).polluted).toBeUndefined();
+  });
+
+  it('a valid body is accepted (the cases above differ from it in one field)', async () => {
+    const res = await callRoute(pricesRoute.POST, { method: 'POST', path: '', caller: admin(), body: valid() });
+    expect(res.status, JSON.stringify(res.body)).toBe(201);
+  });
+});
+
+describe('pack formats', () => {
+  it('a 340 g jar with lid, label and a case of 12: per-jar shares and unit prices from packs of pieces', async () => {
+    const dev = actorOf(a, 'developer');
+    const jar = (await createPackagingItem(dev, { name: 'Test jar 340 g', kind: 'jar' })).packagingItemId;
+    const label = (await createPackagingItem(dev, { name: 'Test label', kind: 'label' })).packagingItemId;
+    const caseOf12 = (await createPackagingItem(dev, { name: 'Test case of 12', kind: 'case' })).packagingItemId;
+    await addPackagingPrice(dev, { packagingItemId: label, packPrice: '45.00', piecesPerPack: 1000, supplier: null, validFrom: '2026-01-01' });
+    const { packFormatId } = await createPackFormat(dev, { name: 'Test 340 g', netFillG: 340, items: [{ packagingItemId: jar, pieces: 1, perJars: 1 }, { packagingItemId: label, pieces: 1, perJars: 1 }, { packagingItemId: caseOf12, pieces: 1, perJars: 12 }] });
+    const format = (await packFormatsByIds(a.workspaceId, [packFormatId])).get(packFormatId)!;
+    expect(format.netFillG).toBe(340);
+    expect(format.items.map((i) => i.perJar)).toEqual([1, 1, 1 / 12]);
+    const prices = await packagingPricesAsOf(a.workspaceId, [jar, label, caseOf12], '2026-02-01');
+    expect(prices.get(label)?.unitPriceMinor).toBeCloseTo(4.5, 10); // 45.00 EUR per 1000 = 4.5 cents each
+    expect(prices.has(jar)).toBe(false);
+
+    const dup = await callRoute(packFormatsRoute.POST, { method: 'POST', path: '', caller: admin(), body: { name: 'Twice', netFillG: 340, items: [{ packagingItemId: jar, pieces: 1, perJars: 1 }, { packagingItemId: jar, pieces: 1, perJars: 1 }] } });
+    expect(dup.status).toBe(422);
+  });
+
+  it('a production version takes a pack format (audited) and stays frozen otherwise', async () => {
+    const { versionId } = await createApprovedVersion(a);
+    const { packFormatId } = await createPackFormat(actorOf(a, 'admin'), { name: 'Test 450 g', netFillG: 450, items: [] });
+    const res = await callRoute(versionPackRoute.PUT, { method: 'PUT', path: '', caller: { kind: 'session', person: a.people.production }, params: { versionId }, body: { packFormatId } });
+    expect(res.status, JSON.stringify(res.body)).toBe(200);
+    const em = await getEm();
+    const v = await em.findOneOrFail(ProductionFormula, { id: versionId });
+    expect((v.packFormat as unknown as { id: string }).id).toBe(packFormatId);
+    expect(await em.count(AuditEvent, { subjectId: versionId, action: 'version.pack_format' })).toBe(1);
+    await expect(em.execute('update production_formulas set pack_format_id = null, version = version + 100 where id = ?', [versionId])).rejects.toThrow(/immutable/);
+  });
+});
