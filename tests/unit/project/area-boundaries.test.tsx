@@ -15,7 +15,7 @@ const areas = readdirSync(LAB).filter((name) => statSync(path.join(LAB, name)).i
 
 describe('area boundaries', () => {
   it('finds the areas', () => {
-    expect(areas).toEqual(expect.arrayContaining(['formulas', 'trials', 'panels', 'production', 'ingredients', 'settings', 'home', 'tastings']));
+    expect(areas).toEqual(expect.arrayContaining(['formulas', 'trials', 'panels', 'production', 'ingredients', 'settings', 'home', 'tastings', 'prices']));
   });
 
   it.each(areas)('%s has loading.tsx, error.tsx and not-found.tsx', (area) => {

@@ -41,7 +41,8 @@ function packageOf(specifier: string): string | null {
 }
 
 const SPECIFIERS = [
-  /\b(?:from|import)\s*['"]([^'"\s]+)['"]/g, // import … from 'x', import 'x', export … from 'x', CSS @import "x"
+  // import … from 'x', import 'x', export … from 'x', CSS @import "x" — not SQL's from "${table}" (no $ in a package name)
+  /\b(?:from|import)\s*['"]([^'"\s$]+)['"]/g,
   /\b(?:import|require)\s*\(\s*['"]([^'"\s]+)['"]\s*\)/g, // import('x'), require('x')
   /@plugin\s+['"]([^'"\s]+)['"]/g, // Tailwind's CSS plugins
   /--import[= ]([^\s'"]+)/g, // node --import tsx
