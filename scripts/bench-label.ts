@@ -1,10 +1,10 @@
 /**
  * Label recompute benchmark (part of `npm run bench`, pure: no database, no server). The formula
  * editor recomputes on every keystroke; this times, for a 40-line formula, the chemistry alone
- * (computeFormula: mass balance, end point, aw, compliance, cautions) and the chemistry followed by
- * the label (finished nutrients, EU declaration, US Nutrition Facts, both ingredient lists, the jam
- * statements, the sugar claims against the typical jam, the additive limits), median and p95 of
- * many runs.
+ * (computeFormula: mass balance, end point, aw, compliance, cautions) and the editor's whole
+ * recompute, labelForLines: the same chemistry, then buildLabel (finished nutrients, EU
+ * declaration, US Nutrition Facts, both ingredient lists, the jam statements, the sugar claims
+ * against the typical jam, the additive limits), median and p95 of many runs.
  * Prints one line per figure with its target and writes them to bench-results/label.json.
  */
 import fs from 'node:fs';
@@ -14,14 +14,8 @@ import { performance } from 'node:perf_hooks';
 import { TYPICAL_INGREDIENTS } from '../lib/chemistry/typical-ingredients';
 import { computeFormula, type ComputableLine } from '../lib/formulas/compute';
 import type { FormulaSettingsInput } from '../lib/formulas/schema';
-import { finishedNutrients } from '../lib/label/nutrition';
-import { euDeclaration } from '../lib/label/eu-declaration';
-import { usNutritionFacts } from '../lib/label/us-facts';
-import { ingredientList } from '../lib/label/ingredient-list';
-import { jamStatements } from '../lib/label/statements';
-import { TYPICAL_JAM_REFERENCE, sugarClaimChecks } from '../lib/label/claims';
-import { additiveReport } from '../lib/label/additives';
-import type { IngredientLabelData, LabelInput, NutrientValues } from '../lib/label/types';
+import { labelForLines } from '../lib/label';
+import type { IngredientLabelData, NutrientValues } from '../lib/label/types';
 
 const LINES = 40;
 const WARM_UP = 50;
@@ -94,26 +88,12 @@ function chemistryOnly() {
 }
 
 function chemistryAndLabel() {
-  const computation = chemistryOnly();
-  const input: LabelInput = {
-    lines: computation.massBalance.lines.map((resolved) => ({ grams: resolved.massG, ingredient: labelData[resolved.index] })),
-    settings: computation.settings,
-    massBalance: computation.massBalance,
-  };
-  const nutrients = finishedNutrients(input);
-  const eu = euDeclaration(nutrients);
-  const energyIncomplete = eu.rows[0].incomplete;
-  return {
-    eu,
-    us: usNutritionFacts(nutrients, input),
-    ingredients: { eu: ingredientList(input, 'eu'), us: ingredientList(input, 'us') },
-    statements: jamStatements(input),
-    claims: sugarClaimChecks(input, { nutrients, energyKj: eu.energyKj, energyIncomplete }, TYPICAL_JAM_REFERENCE),
-    additives: additiveReport(input),
-  };
+  const outcome = labelForLines(settings, lines, labelData);
+  if (!outcome.ok) throw new Error(`the bench formula has no label: ${outcome.message}`);
+  return outcome.label;
 }
 
-const covers = 'chemistry + finished nutrients + EU declaration + US Nutrition Facts + EU and US ingredient lists + jam statements + sugar claims + additive limits';
+const covers = 'labelForLines: chemistry (computeFormula) + buildLabel (finished nutrients, EU declaration, US Nutrition Facts, EU and US ingredient lists, jam statements, sugar claims, additive limits)';
 const chemistry = time(chemistryOnly);
 const label = time(chemistryAndLabel);
 const figures = [
