@@ -32,7 +32,7 @@ describe('ingredient label data', () => {
     await page.getByLabel('Carbohydrate (g)').fill('50');
     await page.getByLabel('Fat (g)').fill('24,5');
     await page.getByLabel('Nuts (almond, hazelnut, walnut and other tree nuts)').check();
-    await page.getByLabel('Tree nuts').check();
+    await page.getByLabel('Tree nuts', { exact: true }).check();
     await page.getByLabel('E-number, if an additive').fill('E44');
     await page.getByLabel('Additive class').selectOption('thickener');
     await checkpoint(page, watch, `ingredients-label-${window}-form`);
@@ -43,7 +43,7 @@ describe('ingredient label data', () => {
     await page.getByLabel('E-number, if an additive').fill('');
     await page.getByLabel('Additive class').selectOption('');
     // Keyboard: the checkbox toggles with the space bar.
-    await page.getByLabel('Sesame seeds').focus();
+    await page.getByLabel('Sesame seeds', { exact: true }).focus();
     await page.keyboard.press('Space');
     await page.getByRole('button', { name: 'Add ingredient' }).click();
     await page.waitForURL('**/ingredients');
@@ -54,8 +54,8 @@ describe('ingredient label data', () => {
     await expect(page.getByLabel('Fat (g)').inputValue()).resolves.toBe('24.5');
     await expect(page.getByLabel('Water (g)').inputValue()).resolves.toBe('');
     await expect(page.getByLabel('Water (g)').getAttribute('placeholder')).resolves.toBe('unknown');
-    await expect(page.getByLabel('Sesame seeds').isChecked()).resolves.toBe(true);
-    await expect(page.getByLabel('Tree nuts').isChecked()).resolves.toBe(true);
+    await expect(page.getByLabel('Sesame seeds', { exact: true }).isChecked()).resolves.toBe(true);
+    await expect(page.getByLabel('Tree nuts', { exact: true }).isChecked()).resolves.toBe(true);
     await page.getByText(/Now: Unknown: water \(g\)/).waitFor();
     await checkpoint(page, watch, `ingredients-label-${window}-saved`);
     await ctx.close();
