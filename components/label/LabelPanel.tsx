@@ -52,7 +52,7 @@ function UsTable({ label }: { label: Label }) {
     <TableBox label="US nutrition facts" framed={false}>
       <table className="w-full text-sm">
         <caption className="pb-1 text-left text-xs text-rind-600">
-          Serving size {label.us.serving}{label.us.servingsPerJar ? `; ${label.us.servingsPerJar} servings per jar` : ''}. {label.us.energyBasis}
+          Serving size {label.us.serving}{label.us.servingsPerJar ? `; ${label.us.servingsPerJar}` : ''}. {label.us.energyBasis}
         </caption>
         <thead><tr className="border-b border-pith-300 text-left text-rind-600"><th scope="col" className="py-1 pr-3 font-medium">Per serving</th><th scope="col" className="py-1 pr-3 font-medium">On the label</th><th scope="col" className="py-1 pr-3 font-medium">Unrounded</th><th scope="col" className="py-1 pr-3 font-medium">% Daily Value</th></tr></thead>
         <tbody>{label.us.rows.map((r: LabelFactsRow) => (

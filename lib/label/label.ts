@@ -83,6 +83,7 @@ export interface Label {
   ingredients: { eu: LabelIngredientList; us: LabelIngredientList };
   statements: LabelStatement[];
   eu: { per: string; energyBasis: string; rows: LabelNutrientRow[] };
+  /** `servingsPerJar` as printed: "17 servings per container". */
   us: { serving: string; servingG: number; servingsPerJar: string | null; energyBasis: string; rows: LabelFactsRow[]; notes: string[] };
   claims: { reference: string | null; items: LabelClaim[] };
   additives: LabelAdditiveCheck[];

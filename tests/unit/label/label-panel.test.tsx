@@ -26,6 +26,7 @@ describe('LabelPanel', () => {
     expect(fat.textContent).toContain('0.12 g');
     const carbohydrate = within(eu).getByRole('rowheader', { name: 'Carbohydrate' }).closest('tr')!;
     expect(carbohydrate.textContent).toContain('(incomplete)');
+    expect(screen.getByRole('region', { name: 'US nutrition facts' }).querySelector('caption')!.textContent).toContain('Serving size 1 tbsp (20 g); 12.5 servings per container.');
   });
 
   it('emphasises allergens in the ingredient list and only them', () => {

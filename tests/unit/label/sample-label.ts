@@ -31,7 +31,7 @@ export function sampleLabel(): Label {
       ],
     },
     us: {
-      serving: '1 tbsp (20 g)', servingG: 20, servingsPerJar: 'About 17', energyBasis: 'Calories from the general factors.', notes: [],
+      serving: '1 tbsp (20 g)', servingG: 20, servingsPerJar: '12.5 servings per container', energyBasis: 'Calories from the general factors.', notes: [],
       rows: [
         { ...row('calories', 'Calories', '', 36.3, '35'), dailyValue: null },
         { ...row('totalSugars', 'Total sugars', 'g', 8.8, '9 g'), dailyValue: null },
