@@ -2,7 +2,7 @@ import { checkCompliance } from './compliance';
 import { estimateEndPoint } from './end-point';
 import { buildGuidance } from './guidance';
 import { computeMassBalance } from './mass-balance';
-import { estimateBatchWaterActivity } from './water-activity';
+import { estimateWaterActivityFromSugars } from './water-activity';
 import type { ComplianceReport } from './compliance';
 import type { EndPointEstimate } from './end-point';
 import type { Caution } from './guidance';
@@ -27,7 +27,12 @@ export function computeBatch(lines: FormulaLineInput[], settings: FormulaSetting
     altitudeM: settings.altitudeM,
     measuredWaterBoilingC: settings.measuredWaterBoilingC,
   });
-  const waterActivity = estimateBatchWaterActivity(massBalance.lines, massBalance.finishedMassG);
+  // The real mix of sucrose, glucose and fructose where the library knows an ingredient's sugars;
+  // modelled from the ingredient's kind elsewhere (no inversion during the boil is assumed).
+  const waterActivity = estimateWaterActivityFromSugars(
+    massBalance.lines.map((line) => ({ line, sugars: lines[line.index]?.ingredient.sugars ?? null })),
+    massBalance.finishedMassG,
+  );
   const compliance = checkCompliance(massBalance, settings);
   const cautions = buildGuidance({ massBalance, settings, aw: waterActivity.aw });
   return { settings: { ...settings }, massBalance, endPoint, waterActivity, compliance, cautions };

@@ -59,6 +59,11 @@ export interface IngredientComposition {
   sweetenerType?: SweetenerType;
   acidType?: AcidType;
   calciumSource?: boolean;
+  /**
+   * The ingredient's own sugars, g per 100 g as used, when the library knows all three (its label
+   * data); the water-activity estimate then uses the real mix instead of modelling by kind.
+   */
+  sugars?: { sucroseG: number; glucoseG: number; fructoseG: number };
 }
 
 export interface FormulaLineInput {

@@ -15,7 +15,8 @@ export interface SettingChange {
   after: SettingValue;
 }
 
-export type CompositionField = keyof IngredientComposition;
+/** Scalar composition fields; the sugar profile (label data feeding water activity) is compared on the label, not here. */
+export type CompositionField = Exclude<keyof IngredientComposition, 'sugars'>;
 export type CompositionValue = string | number | boolean | null;
 
 export interface CompositionChange {

@@ -20,6 +20,9 @@ export function compositionOf(row: { kind: string; name: string; solidsPct: numb
   const c: Record<string, unknown> = { kind: row.kind, name: row.name, solidsPct: row.solidsPct };
   for (const key of OPTIONAL_KEYS) if (source[key] != null) c[key] = source[key];
   if (row.calciumSource) c.calciumSource = true;
+  // Only a full profile is passed on: a sugar the library does not know is never taken as zero.
+  const [sucroseG, glucoseG, fructoseG] = [source.sucroseG, source.glucoseG, source.fructoseG];
+  if (typeof sucroseG === 'number' && typeof glucoseG === 'number' && typeof fructoseG === 'number') c.sugars = { sucroseG, glucoseG, fructoseG };
   return c as unknown as IngredientComposition;
 }
 

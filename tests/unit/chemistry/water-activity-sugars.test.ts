@@ -81,3 +81,32 @@ describe('water activity from the sugars present', () => {
     expect(() => estimateWaterActivityFromSugars(lines, mb.finishedMassG, { sucroseInversionFraction: Number.NaN })).toThrow(/finite/);
   });
 });
+
+describe('the batch computation uses the ingredients’ sugars (issue 15, part 7)', () => {
+  it('a formula whose library entries carry sugar profiles gets the sugar-mix estimate; one without keeps the kind-based one', async () => {
+    const { computeBatch } = await import('@/lib/chemistry');
+    // Source: USDA SR28 "Individual sugars" for 09316 and 19335 (../shared/nutrition-references.md), as the library stores them.
+    const withProfiles = computeBatch([
+      { ingredient: { ...STRAWBERRY, sugars: { sucroseG: 0.47, glucoseG: 1.99, fructoseG: 2.44 } }, quantity: 1000, unit: 'g' },
+      { ingredient: { ...SUGAR, sugars: { sucroseG: 99.8, glucoseG: 0, fructoseG: 0 } }, quantity: 1000, unit: 'g' },
+    ], settings({ targetSolidsPct: 65 }));
+    const { mb, lines } = strawberryJam(65);
+    expect(withProfiles.waterActivity.aw).toBeCloseTo(estimateWaterActivityFromSugars(lines, mb.finishedMassG).aw, 12);
+    expect(withProfiles.waterActivity.model).toMatch(/profiles/);
+
+    const withoutProfiles = computeBatch([
+      { ingredient: STRAWBERRY, quantity: 1000, unit: 'g' },
+      { ingredient: SUGAR, quantity: 1000, unit: 'g' },
+    ], settings({ targetSolidsPct: 65 }));
+    expect(withoutProfiles.waterActivity.aw).toBeCloseTo(estimateBatchWaterActivity(mb.lines, mb.finishedMassG).aw, 12);
+    expect(withoutProfiles.waterActivity.model).toMatch(/modelled from the ingredient kinds/);
+  });
+
+  it('the library passes a profile on only when all three sugars are known', async () => {
+    const { compositionOf } = await import('@/lib/ingredients/queries');
+    const base = { kind: 'fruit', name: 'Strawberry', solidsPct: 8 };
+    expect(compositionOf({ ...base, sucroseG: 0.47, glucoseG: 1.99, fructoseG: 2.44 } as never).sugars).toEqual({ sucroseG: 0.47, glucoseG: 1.99, fructoseG: 2.44 });
+    // Source: ../shared/nutrition-references.md — SR28 gives blackcurrant no sugars; unknown is never zero.
+    expect(compositionOf({ ...base, sucroseG: null, glucoseG: 1.99, fructoseG: 2.44 } as never).sugars).toBeUndefined();
+  });
+});
