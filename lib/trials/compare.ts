@@ -4,11 +4,12 @@
  */
 import { correctBrixTo20C, ChemistryInputError, type BatchComputation } from '@/lib/chemistry';
 import { ACID_FOOD_MAX_PH, SET_PH_MAX, SET_PH_MIN } from '@/lib/chemistry';
+import { compareStatedSugar, statedTotalSugar } from '@/lib/label/statements';
 
 export type ComparisonFlag = 'ok' | 'watch' | 'out' | 'danger' | 'unknown';
 
 export interface ComparisonRow {
-  key: 'finished_mass' | 'jars' | 'solids' | 'end_point' | 'ph';
+  key: 'finished_mass' | 'jars' | 'solids' | 'sugar_statement' | 'end_point' | 'ph';
   label: string;
   unit: 'g' | 'jars' | '°Brix' | '°C' | 'pH';
   predicted: number | null;
@@ -56,7 +57,7 @@ export function compareCook(computation: BatchComputation | null, cook: CookRead
     try {
       const c = correctBrixTo20C(cook.brixReading, cook.brixSampleTempC);
       correctedBrix = c.correctedBrix20C;
-      brixNote = `Corrected to 20 °C from ${cook.brixReading} °Brix at ${cook.brixSampleTempC} °C (${c.source})${c.usedRecalledValues ? '; the table rows used are from memory' : ''}.`;
+      brixNote = `Corrected to 20 °C from ${cook.brixReading} °Brix at ${cook.brixSampleTempC} °C (${c.source})${c.usedRecalledValues ? '; approximate at this sample temperature: near a limit, cool the sample to 20 °C and read again' : ''}.`;
     } catch (err) {
       if (!(err instanceof ChemistryInputError)) throw err;
       brixNote = `Not corrected: ${err.message}. Raw reading shown.`;
@@ -79,6 +80,13 @@ export function compareCook(computation: BatchComputation | null, cook: CookRead
   const solidsOff = targetSolids !== null && measuredSolids !== null && Math.abs(measuredSolids - targetSolids) > TOLERANCES.solidsBrix;
   rows.push(row('solids', 'Soluble solids', '°Brix', targetSolids, measuredSolids, measuredSolids === null ? 'unknown' : solidsOff ? 'out' : 'ok',
     brixNote ?? (solidsOff ? 'Off the target by more than 1 °Brix (common practice).' : 'Refractometer reading against the target solids.')));
+  // The label's "total sugar content" is the target refractometer value; a measured Brix must sit within its tolerance.
+  if (targetSolids !== null && targetSolids > 0 && targetSolids < 100) {
+    const stated = statedTotalSugar(targetSolids);
+    const check = measuredSolids !== null && measuredSolids >= 0 && measuredSolids <= 100 ? compareStatedSugar(stated, Math.round(measuredSolids * 10) / 10) : null;
+    rows.push(row('sugar_statement', 'Total sugar on the label', '°Brix', stated, check ? check.measuredBrix : null, check === null ? 'unknown' : check.withinTolerance ? 'ok' : 'out',
+      check ? `${check.message} (Directive 2001/113/EC, refractometer value at 20 °C).` : `The label states ${stated} g per 100 g; a refractometer reading checks it.`));
+  }
   const endPoint = computation?.endPoint.endPointC ?? null;
   const epOff = endPoint !== null && cook.endPointTempC != null && Math.abs(cook.endPointTempC - endPoint) > TOLERANCES.endPointC;
   rows.push(row('end_point', 'End-point temperature', '°C', endPoint, cook.endPointTempC ?? null, cook.endPointTempC == null ? 'unknown' : epOff ? 'watch' : 'ok',

@@ -71,3 +71,24 @@ describe('the pH window follows the pectin', () => {
     expect(flag(4.7)).toBe('danger');
   });
 });
+
+describe('the label’s total sugar against a cook (issue 15, part 4)', () => {
+  // Source: Directive 2001/113/EC Annex III — total sugar content stated as the refractometer value
+  // at 20 °C, with a tolerance of ± 3 refractometric degrees. The formula's target is 68 %.
+  it('a cook within 3 degrees of the stated 68 g per 100 g passes; one 3.1 below is out', () => {
+    const ok = compareCook(computation, { brixReading: 65, brixSampleTempC: 20 }).rows.find((r) => r.key === 'sugar_statement')!;
+    expect(ok.predicted).toBe(68);
+    expect(ok.measured).toBe(65);
+    expect(ok.flag).toBe('ok');
+    expect(ok.note).toMatch(/within the ± 3 tolerance/);
+    const out = compareCook(computation, { brixReading: 64.9, brixSampleTempC: 20 }).rows.find((r) => r.key === 'sugar_statement')!;
+    expect(out.flag).toBe('out');
+    expect(out.note).toMatch(/outside the ± 3 tolerance/);
+  });
+
+  it('without a reading the check waits for one', () => {
+    const waiting = compareCook(computation, { ph: 3.1 }).rows.find((r) => r.key === 'sugar_statement')!;
+    expect(waiting.flag).toBe('unknown');
+    expect(waiting.note).toBe('The label states 68 g per 100 g; a refractometer reading checks it.');
+  });
+});
