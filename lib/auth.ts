@@ -182,8 +182,8 @@ export async function actorFromHeaders(headers: Headers): Promise<Actor | null> 
     const em = await getEm();
     const token = await em.findOne(ApiToken, { tokenHash: hashSecret(secret), revokedAt: null });
     if (!token) return null;
-    const workspaceId = (token.workspace as unknown as { id: string }).id;
-    const actor = await actorFor((token.user as unknown as { id: string }).id, workspaceId, 'token');
+    const workspaceId = token.workspace.id;
+    const actor = await actorFor(token.user.id, workspaceId, 'token');
     // A token only ever acts in its own workspace.
     if (!actor || actor.workspaceId !== workspaceId) return null;
     await em.nativeUpdate(ApiToken, { id: token.id }, { lastUsedAt: new Date() });

@@ -58,12 +58,12 @@ export async function createIngredient(actor: Actor, input: IngredientInput): Pr
 }
 
 function createRow(em: EntityManager, actor: Actor, input: IngredientInput): { id: string } {
-  return em.create(Ingredient, { ...columns(input), workspace: actor.workspaceId, origin: 'custom', updatedBy: actor.userId } as never) as unknown as { id: string };
+  return em.create(Ingredient, { ...columns(input), workspace: actor.workspaceId, origin: 'custom', updatedBy: actor.userId });
 }
 
 /** Editing a handbook entry makes it the workspace's own value: its handbook source no longer applies. */
 function assignRow(row: IngredientEntity, actor: Actor, input: IngredientInput): void {
-  wrap(row).assign({ ...columns(input), updatedBy: actor.userId } as never);
+  wrap(row).assign({ ...columns(input), updatedBy: actor.userId });
   if (row.origin === 'typical') {
     row.origin = 'edited';
     row.source = null;
@@ -122,7 +122,7 @@ export async function importIngredientsCsv(actor: Actor, text: string): Promise<
 /** Archived ingredients stay in old revisions (which hold a snapshot) but cannot be picked for new lines. */
 export async function setIngredientArchived(actor: Actor, id: string, archived: boolean): Promise<void> {
   const em = await getEm();
-  const n = await em.nativeUpdate(Ingredient, { ...inWorkspace(actor), id }, { archivedAt: archived ? new Date() : null, updatedBy: actor.userId } as never);
+  const n = await em.nativeUpdate(Ingredient, { ...inWorkspace(actor), id }, { archivedAt: archived ? new Date() : null, updatedBy: actor.userId });
   if (n === 0) throw notFound('ingredient');
 }
 
@@ -137,7 +137,7 @@ export async function addStarterLibrary(em: EntityManager, workspaceId: string):
       origin: 'typical',
       typicalKey: key,
       source,
-    } as never);
+    });
   }
   await em.flush();
   return TYPICAL_INGREDIENTS.length;

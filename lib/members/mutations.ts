@@ -29,7 +29,7 @@ export async function inviteMember(actor: Actor, input: InviteMemberInput): Prom
     tokenHash: hashSecret(token),
     invitedBy: actor.userId,
     expiresAt,
-  } as never) as unknown as { id: string };
+  });
   await em.flush();
 
   const workspace = await em.findOneOrFail(Workspace, { id: actor.workspaceId });

@@ -72,7 +72,7 @@ export async function loadPanelSessionRows(actor: Actor, sessionId: string) {
   if (!s) throw notFound('tasting');
   const attrIds = [...s.attributeIds, ...(s.rankingAttributeId ? [s.rankingAttributeId] : [])];
   const [variants, attrs] = await Promise.all([
-    em.find(Variant, { ...inWorkspace(actor), id: { $in: samples.map((x) => (x.variant as unknown as { id: string }).id) } }),
+    em.find(Variant, { ...inWorkspace(actor), id: { $in: samples.map((x) => x.variant.id) } }),
     attrIds.length ? em.find(SensoryAttributeDef, { ...inWorkspace(actor), id: { $in: attrIds } }) : Promise.resolve([]),
   ]);
   return { s, samples, variants, attrs, seats };

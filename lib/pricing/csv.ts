@@ -91,7 +91,7 @@ export async function importPricesCsv(actor: Actor, text: string): Promise<{ imp
     throw new ValidationFailed(`Nothing was imported: ${errors.length} problem${errors.length > 1 ? 's' : ''} in the file.`, fields);
   }
   await em.transactional(async (tx) => {
-    for (const r of rows) tx.create(IngredientPrice, { ...r, workspace: actor.workspaceId, enteredBy: actor.userId } as never);
+    for (const r of rows) tx.create(IngredientPrice, { ...r, workspace: actor.workspaceId, enteredBy: actor.userId });
   });
   return { imported: rows.length };
 }

@@ -16,7 +16,7 @@ function audit(tx: EntityManager, actor: Actor, action: string, subject: { type:
   tx.create(AuditEvent, {
     workspace: actor.workspaceId, actor: actor.userId, actorName: actor.name, actorRole: actor.role,
     action, subjectType: subject.type, subjectId: subject.id, promotionRequestId: null, summary,
-  } as never);
+  });
 }
 
 /** Saves currency, overfill and warning threshold. The currency is fixed once a price exists: prices are never converted. */
@@ -29,8 +29,8 @@ export async function saveCostSettings(actor: Actor, input: CostSettingsInput): 
       throw new Conflict(`The currency stays ${row.currency}: prices are already recorded in it and Setwell never converts them. Start a new workspace for another currency.`);
     }
     const columns = { currency: input.currency, overfillPct: input.overfillPct, costWarningPct: input.costWarningPct, updatedBy: actor.userId };
-    if (row) tx.assign(row, columns as never);
-    else tx.create(CostSettings, { ...columns, workspace: actor.workspaceId } as never);
+    if (row) tx.assign(row, columns);
+    else tx.create(CostSettings, { ...columns, workspace: actor.workspaceId });
     await tx.flush();
     audit(tx, actor, 'costs.settings_saved', { type: 'workspace', id: actor.workspaceId },
       `Cost settings: ${input.currency}, overfill ${input.overfillPct} %, warning above ${input.costWarningPct} %`);
@@ -74,7 +74,7 @@ export async function addIngredientPrice(actor: Actor, input: IngredientPriceInp
   const ingredient = await em.findOne(Ingredient, { ...inWorkspace(actor), id: input.ingredientId });
   if (!ingredient) throw notFound('ingredient');
   const columns = ingredientPriceColumns(input, await currencyOf(em, actor.workspaceId));
-  const row = em.create(IngredientPrice, { ...columns, workspace: actor.workspaceId, enteredBy: actor.userId } as never) as unknown as { id: string };
+  const row = em.create(IngredientPrice, { ...columns, workspace: actor.workspaceId, enteredBy: actor.userId });
   await em.flush();
   return { priceId: row.id };
 }
@@ -88,7 +88,7 @@ async function withdrawPoint(actor: Actor, kind: 'ingredient' | 'packaging', pri
       { id: string; validFrom: string; packPriceMinor: number; withdrawnAt: Date | null; ingredient?: { name: string }; packagingItem?: { name: string } } | null;
     if (!row) throw notFound('price');
     if (row.withdrawnAt) throw new Conflict('This price was already withdrawn.');
-    const n = await tx.nativeUpdate(entity as typeof IngredientPrice, { ...inWorkspace(actor), id: priceId, withdrawnAt: null }, { withdrawnAt: new Date(), withdrawnBy: actor.userId, withdrawReason: reason } as never);
+    const n = await tx.nativeUpdate(entity as typeof IngredientPrice, { ...inWorkspace(actor), id: priceId, withdrawnAt: null }, { withdrawnAt: new Date(), withdrawnBy: actor.userId, withdrawReason: reason });
     if (n === 0) throw new Conflict('This price was already withdrawn.');
     const currency = await currencyOf(tx, actor.workspaceId);
     const subject = row.ingredient?.name ?? row.packagingItem?.name ?? '';
@@ -107,20 +107,20 @@ export function withdrawPackagingPrice(actor: Actor, priceId: string, reason: st
 
 export async function setRefuse(actor: Actor, ingredientId: string, refusePct: number): Promise<void> {
   const em = await getEm();
-  const n = await em.nativeUpdate(Ingredient, { ...inWorkspace(actor), id: ingredientId }, { refusePct, updatedBy: actor.userId } as never);
+  const n = await em.nativeUpdate(Ingredient, { ...inWorkspace(actor), id: ingredientId }, { refusePct, updatedBy: actor.userId });
   if (n === 0) throw notFound('ingredient');
 }
 
 export async function createPackagingItem(actor: Actor, input: PackagingItemInput): Promise<{ packagingItemId: string }> {
   const em = await getEm();
-  const row = em.create(PackagingItem, { ...input, workspace: actor.workspaceId } as never) as unknown as { id: string };
+  const row = em.create(PackagingItem, { ...input, workspace: actor.workspaceId });
   await em.flush();
   return { packagingItemId: row.id };
 }
 
 export async function updatePackagingItem(actor: Actor, id: string, input: PackagingItemInput): Promise<{ packagingItemId: string }> {
   const em = await getEm();
-  const n = await em.nativeUpdate(PackagingItem, { ...inWorkspace(actor), id }, { name: input.name, kind: input.kind } as never);
+  const n = await em.nativeUpdate(PackagingItem, { ...inWorkspace(actor), id }, { name: input.name, kind: input.kind });
   if (n === 0) throw notFound('packaging item');
   return { packagingItemId: id };
 }
@@ -134,7 +134,7 @@ export async function addPackagingPrice(actor: Actor, input: PackagingPriceInput
     workspace: actor.workspaceId, packagingItem: input.packagingItemId, validFrom: input.validFrom,
     packPriceMinor: amountOrFail(input.packPrice, currency), piecesPerPack: input.piecesPerPack,
     supplier: input.supplier || null, enteredBy: actor.userId,
-  } as never) as unknown as { id: string };
+  });
   await em.flush();
   return { priceId: row.id };
 }
@@ -145,14 +145,14 @@ async function writeFormatItems(tx: EntityManager, actor: Actor, packFormatId: s
   if (found !== ids.length) throw new ValidationFailed('A packaging item is not in this workspace.', { items: ['Pick packaging items from this workspace’s list.'] });
   await tx.nativeDelete(PackFormatItem, { ...inWorkspace(actor), packFormat: packFormatId });
   items.forEach((item, position) => {
-    tx.create(PackFormatItem, { workspace: actor.workspaceId, packFormat: packFormatId, packagingItem: item.packagingItemId, pieces: item.pieces, perJars: item.perJars, position } as never);
+    tx.create(PackFormatItem, { workspace: actor.workspaceId, packFormat: packFormatId, packagingItem: item.packagingItemId, pieces: item.pieces, perJars: item.perJars, position });
   });
 }
 
 export async function createPackFormat(actor: Actor, input: PackFormatInput): Promise<{ packFormatId: string }> {
   const em = await getEm();
   return em.transactional(async (tx) => {
-    const row = tx.create(PackFormat, { workspace: actor.workspaceId, name: input.name, netFillG: input.netFillG } as never) as unknown as { id: string };
+    const row = tx.create(PackFormat, { workspace: actor.workspaceId, name: input.name, netFillG: input.netFillG });
     await tx.flush();
     await writeFormatItems(tx, actor, row.id, input.items);
     await tx.flush();
@@ -164,7 +164,7 @@ export async function createPackFormat(actor: Actor, input: PackFormatInput): Pr
 export async function updatePackFormat(actor: Actor, id: string, input: PackFormatInput): Promise<{ packFormatId: string }> {
   const em = await getEm();
   return em.transactional(async (tx) => {
-    const n = await tx.nativeUpdate(PackFormat, { ...inWorkspace(actor), id }, { name: input.name, netFillG: input.netFillG } as never);
+    const n = await tx.nativeUpdate(PackFormat, { ...inWorkspace(actor), id }, { name: input.name, netFillG: input.netFillG });
     if (n === 0) throw notFound('pack format');
     await writeFormatItems(tx, actor, id, input.items);
     await tx.flush();
@@ -176,7 +176,7 @@ export async function updatePackFormat(actor: Actor, id: string, input: PackForm
 export async function setPackagingArchived(actor: Actor, kind: 'item' | 'format', id: string, archived: boolean): Promise<void> {
   const em = await getEm();
   const entity = kind === 'item' ? PackagingItem : PackFormat;
-  const n = await em.nativeUpdate(entity as typeof PackFormat, { ...inWorkspace(actor), id }, { archivedAt: archived ? new Date() : null } as never);
+  const n = await em.nativeUpdate(entity as typeof PackFormat, { ...inWorkspace(actor), id }, { archivedAt: archived ? new Date() : null });
   if (n === 0) throw notFound(kind === 'item' ? 'packaging item' : 'pack format');
 }
 
@@ -192,7 +192,7 @@ export async function setFormulaPackFormat(actor: Actor, formulaId: string, pack
   const formula = await em.findOne(Formula, { ...inWorkspace(actor), id: formulaId });
   if (!formula) throw notFound('formula');
   await pickableFormat(em, actor, packFormatId);
-  await em.nativeUpdate(Formula, { ...inWorkspace(actor), id: formulaId }, { packFormat: packFormatId } as never);
+  await em.nativeUpdate(Formula, { ...inWorkspace(actor), id: formulaId }, { packFormat: packFormatId });
 }
 
 /** The one change a production version accepts after approval (the database guard allows nothing else); audited. */
@@ -202,7 +202,7 @@ export async function setVersionPackFormat(actor: Actor, versionId: string, pack
     const version = await tx.findOne(ProductionFormula, { ...inWorkspace(actor), id: versionId }, { populate: ['product'] });
     if (!version) throw notFound('production version');
     const format = await pickableFormat(tx, actor, packFormatId);
-    await tx.nativeUpdate(ProductionFormula, { ...inWorkspace(actor), id: versionId }, { packFormat: packFormatId } as never);
+    await tx.nativeUpdate(ProductionFormula, { ...inWorkspace(actor), id: versionId }, { packFormat: packFormatId });
     const product = version.product as unknown as { code: string };
     audit(tx, actor, 'version.pack_format', { type: 'production_formula', id: versionId },
       `Pack format of ${product.code} v${version.version}: ${format ? format.name : 'none'}`);

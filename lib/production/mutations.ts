@@ -32,7 +32,7 @@ async function audit(
   tx.create(AuditEvent, {
     workspace: actor.workspaceId, actor: actor.userId, actorName: actor.name, actorRole: actor.role,
     action, subjectType: subject.type, subjectId: subject.id, promotionRequestId, summary: `${AUDIT_ACTIONS[action]}: ${summary}`,
-  } as never);
+  });
 }
 
 /** Mail is a courtesy: the in-app queue is the record, so a mail failure never undoes the step. */
@@ -130,7 +130,7 @@ export async function requestPromotion(actor: Actor, input: RequestPromotionInpu
       product: input.target === 'existing_product' ? input.productId : null,
       newProductName: input.target === 'new_product' ? input.newProductName : null, newProductCode: input.target === 'new_product' ? input.newProductCode : null,
       rationale: input.rationale, process: input.process, spec: input.spec, evidence: built.evidence, status: 'pending', requestedBy: actor.userId,
-    } as never) as unknown as { id: string; number: number };
+    }) as unknown as { id: string; number: number };
     await tx.flush();
     await audit(tx, actor, 'promotion.requested', { type: 'promotion_request', id: request.id }, request.id,
       `${promotionCode(request.number)} for ${trialCode(trial.number)} variant ${variant.label}`);
@@ -150,7 +150,7 @@ export async function decidePromotion(actor: Actor, requestId: string, input: De
   const outcome = await em.transactional(async (tx) => {
     const request = await tx.findOne(PromotionRequest, { ...inWorkspace(actor), id: requestId }, { lockMode: LockMode.PESSIMISTIC_WRITE });
     if (!request) throw notFound('promotion request');
-    const requestedById = (request.requestedBy as unknown as { id: string }).id;
+    const requestedById = request.requestedBy.id;
     authorizeDecision(actor, { requestedById });
     if (request.status !== 'pending') throw new Conflict(`This request was already decided (${request.status.replace('_', ' ')}).`);
     const code = promotionCode(request.number);
@@ -176,7 +176,7 @@ export async function decidePromotion(actor: Actor, requestId: string, input: De
       if (await tx.count(Product, { ...inWorkspace(actor), code: request.newProductCode! })) {
         throw new Conflict(`The product code ${request.newProductCode} was taken since the request was made; send it back so a new code can be chosen.`);
       }
-      const product = tx.create(Product, { workspace: actor.workspaceId, code: request.newProductCode!, name: request.newProductName!, createdBy: requestedById } as never) as unknown as { id: string };
+      const product = tx.create(Product, { workspace: actor.workspaceId, code: request.newProductCode!, name: request.newProductName!, createdBy: requestedById });
       await tx.flush();
       productId = product.id;
       request.product = productId as never;
@@ -195,14 +195,14 @@ export async function decidePromotion(actor: Actor, requestId: string, input: De
       await tx.flush();
       await audit(tx, actor, 'version.superseded', { type: 'production_formula', id: current.id }, request.id, `v${current.version} superseded by v${version} (${code})`);
     }
-    const { packFormatId, costAtApproval } = await costForApproval(actor.workspaceId, { settings: variant.settings, lines: variant.lines, trialId: (request.trial as unknown as { id: string }).id }, todayIso());
+    const { packFormatId, costAtApproval } = await costForApproval(actor.workspaceId, { settings: variant.settings, lines: variant.lines, trialId: request.trial.id }, todayIso());
     const created = tx.create(ProductionFormula, {
       workspace: actor.workspaceId, product: productId, version, status: 'current', packFormat: packFormatId, costAtApproval,
       settings: variant.settings, lines: variant.lines, process: request.process, compliance: computation.compliance, spec: request.spec as QcSpec,
       label: labelOutcome.ok ? labelOutcome.label : null,
-      sourceTrial: (request.trial as unknown as { id: string }).id, sourceVariantId: variant.id, sourceVariantLabel: variant.label,
+      sourceTrial: request.trial.id, sourceVariantId: variant.id, sourceVariantLabel: variant.label,
       promotionRequestId: request.id, approvedBy: actor.userId,
-    } as never) as unknown as { id: string };
+    });
     await tx.flush();
     request.status = 'approved';
     request.productionFormulaId = created.id;
@@ -231,7 +231,7 @@ export async function withdrawPromotion(actor: Actor, requestId: string, comment
   await em.transactional(async (tx) => {
     const request = await tx.findOne(PromotionRequest, { ...inWorkspace(actor), id: requestId }, { lockMode: LockMode.PESSIMISTIC_WRITE });
     if (!request) throw notFound('promotion request');
-    authorizeWithdrawal(actor, { requestedById: (request.requestedBy as unknown as { id: string }).id });
+    authorizeWithdrawal(actor, { requestedById: request.requestedBy.id });
     if (request.status !== 'pending') throw new Conflict('Only a request awaiting review can be withdrawn.');
     request.status = 'withdrawn';
     request.decidedBy = actor.userId as never;
@@ -282,7 +282,7 @@ export async function recordBatch(actor: Actor, versionId: string, input: BatchR
       checks: result.checks, outcome: result.outcome,
       disposition: result.outcome === 'fail' ? input.disposition : null, dispositionComment: result.outcome === 'fail' ? input.dispositionComment : null,
       recordedBy: actor.userId,
-    } as never) as unknown as { id: string };
+    });
     await tx.flush();
     const failed = result.checks.filter((c) => c.status === 'fail').map((c) => c.label);
     const missing = result.checks.filter((c) => c.status === 'not_measured').map((c) => c.label.toLowerCase());
@@ -324,7 +324,7 @@ export async function retestBatch(actor: Actor, batchId: string, input: BatchRet
     const result = checkRetest(version.spec, standing.readings, retest);
     const decision = tx.create(BatchDecision, {
       workspace: actor.workspaceId, batch: batch.id, kind: 'retest', readings: retest, checks: result.checks, outcome: result.outcome, comment, decidedBy: actor.userId,
-    } as never) as unknown as { id: string };
+    });
     await tx.flush();
     const failed = result.checks.filter((c) => c.status !== 'pass').map((c) => `${c.label.toLowerCase()} ${c.status === 'fail' ? 'failed' : 'not measured'}`);
     await audit(tx, actor, 'batch.retested', { type: 'batch_record', id: batch.id }, version.promotionRequestId,
@@ -347,7 +347,7 @@ export async function decideBatch(actor: Actor, batchId: string, input: BatchDec
     }
     const decision = tx.create(BatchDecision, {
       workspace: actor.workspaceId, batch: batch.id, kind: input.decision, readings: null, checks: null, outcome: null, comment: input.comment, decidedBy: actor.userId,
-    } as never) as unknown as { id: string };
+    });
     await tx.flush();
     await audit(tx, actor, input.decision === 'release' ? 'batch.released' : 'batch.rejected', { type: 'batch_record', id: batch.id }, version.promotionRequestId,
       `${batch.lotCode}: ${input.comment}`);

@@ -30,7 +30,7 @@ export async function loadPanelData(actor: Actor, sessionId: string): Promise<{ 
         highAnchor: a.scale.kind === 'line' ? a.scale.highAnchor : undefined,
       })),
       answers: answers.map((a) => {
-        const seatId = (a.seat as unknown as { id: string }).id;
+        const seatId = a.seat.id;
         return {
           seatIndex: seatIndex.get(seatId) ?? -1,
           kind: a.kind,

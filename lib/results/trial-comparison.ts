@@ -62,7 +62,7 @@ export async function getTrialComparison(actor: Actor, trialId: string): Promise
   let recommendation: TrialComparison['recommendation'] = null;
   if (row?.recommendedVariantId) {
     const v = trial.variants.find((x) => x.id === row.recommendedVariantId);
-    const by = row.recommendedBy ? await em.findOne(User, { id: (row.recommendedBy as unknown as { id: string }).id }) : null;
+    const by = row.recommendedBy ? await em.findOne(User, { id: row.recommendedBy.id }) : null;
     if (v) recommendation = { variantId: v.id, label: v.label, rationale: row.recommendationRationale ?? '', byName: by?.name ?? '', at: row.recommendedAt?.toISOString() ?? '' };
   }
   return { trial, sessions: verdicts, means, variants, effects, correlations, recommendation };

@@ -49,12 +49,12 @@ export async function seedDemo(em: EntityManager): Promise<SeedReport> {
     const demo = tx.create(Workspace, DEMO_WORKSPACE);
     const brackenfold = tx.create(Workspace, OTHER_WORKSPACE);
     for (const u of DEMO_USERS) {
-      const user = tx.create(User, { email: u.email, name: u.name, passwordHash } as never);
-      tx.create(Membership, { workspace: demo, user, role: u.role } as never);
-      if (u.alsoIn) tx.create(Membership, { workspace: brackenfold, user, role: u.alsoIn } as never);
+      const user = tx.create(User, { email: u.email, name: u.name, passwordHash });
+      tx.create(Membership, { workspace: demo, user, role: u.role });
+      if (u.alsoIn) tx.create(Membership, { workspace: brackenfold, user, role: u.alsoIn });
     }
-    const otherAdmin = tx.create(User, { email: OTHER_ADMIN.email, name: OTHER_ADMIN.name, passwordHash } as never);
-    tx.create(Membership, { workspace: brackenfold, user: otherAdmin, role: 'admin' } as never);
+    const otherAdmin = tx.create(User, { email: OTHER_ADMIN.email, name: OTHER_ADMIN.name, passwordHash });
+    tx.create(Membership, { workspace: brackenfold, user: otherAdmin, role: 'admin' });
     await tx.flush();
     await addStarterLibrary(tx, demo.id);
     await addStarterLibrary(tx, brackenfold.id);
@@ -62,7 +62,7 @@ export async function seedDemo(em: EntityManager): Promise<SeedReport> {
     await addDefaultAttributes(tx, brackenfold.id);
     // One invitation not yet accepted, so the administrator's worklist has something in it. Its link was never sent.
     const admin = await tx.findOneOrFail(User, { email: DEMO_USERS[0].email });
-    tx.create(Invitation, { workspace: demo, email: 'pip.taster@hollowmere.example', role: 'taster', tokenHash: hashSecret(newSecret()), invitedBy: admin, expiresAt: new Date(Date.now() + 14 * 86_400_000) } as never);
+    tx.create(Invitation, { workspace: demo, email: 'pip.taster@hollowmere.example', role: 'taster', tokenHash: hashSecret(newSecret()), invitedBy: admin, expiresAt: new Date(Date.now() + 14 * 86_400_000) });
     await tx.flush();
     return { created: true, workspaceId: demo.id, otherWorkspaceId: brackenfold.id };
   });

@@ -39,6 +39,7 @@ const INGREDIENT_PRICES: PricePlan[] = [
   { key: 'pectin_lm_amidated', supplier: 'Calder Ingredients', packSize: 1, packUnit: 'kg', points: [[345, '22.40']] },
   { key: 'citric_acid_anhydrous', supplier: 'Calder Ingredients', packSize: 1, packUnit: 'kg', points: [[345, '4.60']] },
   { key: 'calcium_citrate', supplier: 'Calder Ingredients', packSize: 500, packUnit: 'g', points: [[345, '6.80']] },
+  { key: 'potassium_sorbate', supplier: 'Calder Ingredients', packSize: 1, packUnit: 'kg', points: [[200, '12.40']] },
   { key: 'water', supplier: 'Mains supply', packSize: 1000, packUnit: 'kg', points: [[365, '2.10']] },
 ];
 

@@ -108,7 +108,7 @@ export async function importMeasurementsCsv(actor: Actor, trialId: string, text:
   await em.transactional(async (tx) => {
     for (const r of rows) {
       const { variantId, ...rest } = r;
-      tx.create(Measurement, { workspace: actor.workspaceId, variant: variantId, recordedBy: actor.userId, ...measurementColumns(rest) } as never);
+      tx.create(Measurement, { workspace: actor.workspaceId, variant: variantId, recordedBy: actor.userId, ...measurementColumns(rest) });
     }
   });
   return { imported: rows.length };
