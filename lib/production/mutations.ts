@@ -145,8 +145,21 @@ export async function requestPromotion(actor: Actor, input: RequestPromotionInpu
   return result;
 }
 
+/** The cost a version would be frozen with if this request were approved now; null when the request cannot be approved. */
+async function costBeforeDecision(actor: Actor, requestId: string) {
+  const em = await getEm();
+  const request = await em.findOne(PromotionRequest, { ...inWorkspace(actor), id: requestId });
+  if (!request || request.status !== 'pending') return null;
+  const variant = await em.findOne(Variant, { ...inWorkspace(actor), id: request.variantId });
+  if (!variant || variant.removedAt) return null;
+  return costForApproval(actor.workspaceId, { settings: variant.settings, lines: variant.lines, trialId: request.trial.id }, todayIso());
+}
+
 export async function decidePromotion(actor: Actor, requestId: string, input: DecisionInput): Promise<{ status: 'approved' | 'sent_back'; productionFormulaId: string | null }> {
   const em = await getEm();
+  // Today's cost reads prices on connections of its own, so it is read before the transaction: a
+  // transaction waiting for the version lock must never need a second connection from the pool.
+  const frozenCost = input.decision === 'approve' ? await costBeforeDecision(actor, requestId) : null;
   const outcome = await em.transactional(async (tx) => {
     const request = await tx.findOne(PromotionRequest, { ...inWorkspace(actor), id: requestId }, { lockMode: LockMode.PESSIMISTIC_WRITE });
     if (!request) throw notFound('promotion request');
@@ -195,7 +208,7 @@ export async function decidePromotion(actor: Actor, requestId: string, input: De
       await tx.flush();
       await audit(tx, actor, 'version.superseded', { type: 'production_formula', id: current.id }, request.id, `v${current.version} superseded by v${version} (${code})`);
     }
-    const { packFormatId, costAtApproval } = await costForApproval(actor.workspaceId, { settings: variant.settings, lines: variant.lines, trialId: request.trial.id }, todayIso());
+    const { packFormatId, costAtApproval } = frozenCost ?? { packFormatId: null, costAtApproval: null };
     const created = tx.create(ProductionFormula, {
       workspace: actor.workspaceId, product: productId, version, status: 'current', packFormat: packFormatId, costAtApproval,
       settings: variant.settings, lines: variant.lines, process: request.process, compliance: computation.compliance, spec: request.spec as QcSpec,
