@@ -17,6 +17,8 @@ import { TableBox } from '@/components/ui/TableBox';
 import { versionLabel } from '@/lib/label/queries';
 import { LabelPanel } from '@/components/label/LabelPanel';
 import { KEPT_NOTES, LabelExportLinks } from '@/components/label/LabelPageBody';
+import { PackFormatPicker } from '@/components/pricing/PackFormatPicker';
+import { packFormatList, packFormatOfVersions } from '@/lib/pricing/queries';
 
 export const dynamic = 'force-dynamic';
 export const metadata = { title: 'Production version' };
@@ -25,6 +27,10 @@ export default async function VersionPage({ params }: { params: Promise<{ versio
   const actor = await requirePage('production.read');
   const v = await orNotFound(getProductionVersion(actor, pageId((await params).versionId)));
   const label = await versionLabel(actor, v.id);
+  // The pack format is the one thing of a version that may change after approval (audited); prices follow their permission.
+  const pack = can(actor.role, 'prices.read')
+    ? { current: (await packFormatOfVersions(actor.workspaceId, [v.id])).get(v.id) ?? null, formats: (await packFormatList(actor)).map((f) => ({ id: f.id, name: f.name })) }
+    : null;
   const units = actor.massUnits;
   const temps = actor.temperatureUnit === 'C' ? 'metric' : 'imperial';
   return (
@@ -46,7 +52,16 @@ export default async function VersionPage({ params }: { params: Promise<{ versio
           {can(actor.role, 'batches.record') ? <Link href={`/production/versions/${v.id}/batches/new`} className={buttonClass('primary')}>Record a batch</Link> : null}
         </div>
       )}
-      <p className="mb-4 text-sm text-rind-600">An approved version is a fixed record: nobody can edit or delete it. To change the product, run a trial and promote a new version.</p>
+      <p className="mb-4 text-sm text-rind-600">An approved version is a fixed record: nobody can edit or delete it (only the pack format it is costed in may change, and that is recorded). To change the product, run a trial and promote a new version.</p>
+      {pack ? (
+        <div className="no-print mb-6">
+          {can(actor.role, 'prices.write') ? (
+            <PackFormatPicker subject="version" subjectId={v.id} current={pack.current} formats={pack.formats} />
+          ) : (
+            <p className="text-sm">Pack format: {pack.formats.find((f) => f.id === pack.current)?.name ?? 'none chosen'}</p>
+          )}
+        </div>
+      ) : null}
       <div className="grid gap-6 lg:grid-cols-2">
         <Card title="Formula as approved">
           <TableBox label="Formula lines" framed={false}>
