@@ -1,4 +1,6 @@
 /** Client-side calls to the JSON API: one fetcher, errors surfaced with the API's own message. */
+import { readErrorBody } from '@/lib/api/error-body';
+
 export class ApiClientError extends Error {
   constructor(
     message: string,
@@ -17,8 +19,8 @@ export async function apiFetch<T>(url: string, init?: RequestInit): Promise<T> {
   });
   const body = await res.json().catch(() => ({}));
   if (!res.ok) {
-    const err = (body as { error?: { message?: string; fields?: Record<string, string[]> } }).error;
-    throw new ApiClientError(err?.message ?? `Request failed (${res.status}).`, res.status, err?.fields);
+    const err = readErrorBody(body);
+    throw new ApiClientError(err.message ?? `Request failed (${res.status}).`, res.status, err.fields ?? undefined);
   }
   return body as T;
 }

@@ -1,3 +1,4 @@
+import { readErrorBody } from '@/lib/api/error-body';
 /** Sends one photo to the uploads API with progress, for inline images in the notebook. */
 
 export interface UploadedPhoto {
@@ -46,7 +47,7 @@ export function uploadPhoto(
         resolve({ ok: true, upload });
         return;
       }
-      const message = (body as { error?: { message?: string } } | null)?.error?.message;
+      const message = readErrorBody(body).message;
       const fallback =
         xhr.status === 413 ? 'The photo is too large.' : xhr.status === 415 ? 'That file type cannot be used as a photo.' : `The upload failed (HTTP ${xhr.status}).`;
       resolve({ ok: false, message: message || fallback });

@@ -57,8 +57,8 @@ export function useNotebookAutosave({ trialId, variantId, initial, editorRef }: 
 
   const scheduleRetry = useCallback(() => {
     if (retryRef.current) clearTimeout(retryRef.current);
-    const delay = retryDelayMs(attemptRef.current);
     attemptRef.current += 1;
+    const delay = retryDelayMs(attemptRef.current);
     retryRef.current = setTimeout(() => void saveNowRef.current(), delay);
   }, []);
 

@@ -7,6 +7,7 @@ import { Button, buttonClass } from '@/components/ui/Button';
 import { Field, FieldErrorText } from '@/components/ui/Field';
 import { Notice } from '@/components/ui/Notice';
 import { checkJoinInput, DISPLAY_NAME_MAX, isPlausibleSeatToken, JOIN_CODE_LENGTH, LAST_SEAT_STORAGE_KEY, normalizeJoinCode, type JoinProblems } from '@/lib/tasting-client';
+import { readErrorBody } from '@/lib/api/error-body';
 
 function subscribeToStorage(listener: () => void) {
   window.addEventListener('storage', listener);
@@ -58,11 +59,12 @@ export function JoinForm({ initialCode = '' }: { initialCode?: string }) {
         router.push(`/t/${encodeURIComponent(body.seatToken)}`);
         return;
       }
-      const serverMessage = typeof body.error?.message === 'string' ? body.error.message : '';
+      const { message: sent, fields } = readErrorBody(body);
+      const serverMessage = sent ?? '';
       if (res.status === 404) setError('That code does not match an open tasting. Check the letters and digits and try again.');
       else if (res.status === 429) setError(serverMessage || 'Too many tries. Wait a minute, then try again.');
-      else if (res.status === 422 && body.error?.fields) {
-        setProblems({ joinCode: body.error.fields.joinCode?.join(' '), displayName: body.error.fields.displayName?.join(' ') });
+      else if (res.status === 422 && fields) {
+        setProblems({ joinCode: fields.joinCode?.join(' '), displayName: fields.displayName?.join(' ') });
         if (serverMessage) setError(serverMessage);
       } else setError(serverMessage || 'Joining did not work. Try again.');
     } catch {

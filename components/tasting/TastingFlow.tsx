@@ -31,19 +31,13 @@ import { RankingScreen } from './RankingScreen';
 import { TriangleScreen } from './TriangleScreen';
 import { formatDateTime } from '@/lib/format/dates';
 import { AnswerList } from './AnswerList';
+import { responseErrorMessage } from '@/lib/api/error-body';
 
 type Load = { kind: 'loading' } | { kind: 'failed'; message: string } | { kind: 'ready'; view: SeatView };
 
 const bigButton = 'min-h-12 w-full text-base';
 
-async function serverMessage(res: Response, fallback: string): Promise<string> {
-  try {
-    const body = (await res.json()) as { error?: { message?: unknown } };
-    return typeof body?.error?.message === 'string' && body.error.message ? body.error.message : fallback;
-  } catch {
-    return fallback;
-  }
-}
+const serverMessage = responseErrorMessage;
 
 function forgetLastSeat(seatToken: string) {
   try {

@@ -7,6 +7,7 @@ import { Notice } from '@/components/ui/Notice';
 import { EmptyState } from '@/components/ui/Card';
 import { ConfirmDialog } from '@/components/ui/ConfirmDialog';
 import { UPLOAD_SUBJECTS, UPLOAD_SUBJECT_LABELS, type UploadView } from '@/lib/uploads/schema';
+import { readErrorBody } from '@/lib/api/error-body';
 
 /** Photos and files of a trial or variant: upload (checked by content on the server), view, remove. */
 export function Attachments({ trialId, variantId, uploads, canEdit }: { trialId: string; variantId?: string; uploads: UploadView[]; canEdit: boolean }) {
@@ -26,7 +27,7 @@ export function Attachments({ trialId, variantId, uploads, canEdit }: { trialId:
     const res = await fetch(`/api/v1/trials/${trialId}/uploads`, { method: 'POST', body: form, credentials: 'same-origin' });
     const body = await res.json().catch(() => ({}));
     setBusy(false);
-    if (!res.ok) return setMessage({ tone: 'danger', text: body?.error?.message ?? `Upload failed (${res.status}).` });
+    if (!res.ok) return setMessage({ tone: 'danger', text: readErrorBody(body).message ?? `Upload failed (${res.status}).` });
     formEl.reset();
     setMessage({ tone: 'success', text: `Added ${body.upload.originalName}.` });
     router.refresh();

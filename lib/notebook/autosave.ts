@@ -1,4 +1,5 @@
 /** The autosave indicator's states and timings, kept apart from React so they can be reasoned about alone. */
+import { backoffDelayMs } from '@/lib/backoff';
 
 /** Quiet time after the last keystroke before a save starts, in milliseconds. */
 export const AUTOSAVE_DELAY_MS = 1500;
@@ -15,9 +16,9 @@ export type SaveState =
   | { kind: 'error'; message: string }
   | { kind: 'conflict' };
 
-/** Delay before retry number `attempt` (0-based) after a network failure, in milliseconds. */
+/** Delay before retry number `attempt` (1-based, as the phone's outbox counts) after a network failure. */
 export function retryDelayMs(attempt: number): number {
-  return Math.min(RETRY_MAX_MS, RETRY_BASE_MS * 2 ** Math.max(0, attempt));
+  return backoffDelayMs(attempt, { firstMs: RETRY_BASE_MS, maxMs: RETRY_MAX_MS });
 }
 
 /** "14:02" in the reader's local time. */

@@ -5,8 +5,10 @@
  * confirms. Each item keeps the idempotency key it was born with for all of its retries, so a
  * replay after a reload is a duplicate the server recognises, never a second answer.
  */
+import { backoffDelayMs } from '@/lib/backoff';
 import type { AnswerPayload, TriangleConfidence } from './types';
 import { makeIdempotencyKey } from './idempotency';
+import { responseErrorMessage } from '@/lib/api/error-body';
 
 export interface KeyValueStorage {
   getItem(key: string): string | null;
@@ -67,8 +69,7 @@ const FIRST_RETRY_DELAY_MS = 1_000;
 
 /** Delay before retry number `attempt` (1-based): 1 s, 2 s, 4 s … capped at 30 s. */
 export function retryDelayMs(attempt: number): number {
-  const n = Math.max(1, Math.floor(attempt));
-  return Math.min(MAX_RETRY_DELAY_MS, FIRST_RETRY_DELAY_MS * 2 ** Math.min(n - 1, 16));
+  return backoffDelayMs(attempt, { firstMs: FIRST_RETRY_DELAY_MS, maxMs: MAX_RETRY_DELAY_MS });
 }
 
 /** Which question an answer fills; a newer answer to the same slot replaces an unsent older one. */
@@ -157,14 +158,7 @@ type SendOutcome =
   | { kind: 'unknown-seat'; message: string }
   | { kind: 'retry'; offline: boolean };
 
-async function errorMessage(res: Response, fallback: string): Promise<string> {
-  try {
-    const body = (await res.json()) as { error?: { message?: unknown } };
-    return isString(body?.error?.message) && body.error.message ? body.error.message : fallback;
-  } catch {
-    return fallback;
-  }
-}
+const errorMessage = responseErrorMessage;
 
 export class AnswerQueue {
   private readonly seatToken: string;

@@ -175,6 +175,6 @@ describe('cleaning a stored document for display', () => {
 
 describe('retry back-off', () => {
   it('doubles from 2 s up to 30 s (common practice, no published source)', () => {
-    expect([0, 1, 2, 3, 4, 5].map(retryDelayMs)).toEqual([2000, 4000, 8000, 16000, 30000, 30000]);
+    expect([1, 2, 3, 4, 5, 6].map(retryDelayMs)).toEqual([2000, 4000, 8000, 16000, 30000, 30000]);
   });
 });
