@@ -1,6 +1,6 @@
 'use client';
 
-import { useEffect, useMemo, useRef, useState } from 'react';
+import { useMemo, useRef, useState } from 'react';
 import { useRouter } from 'next/navigation';
 import { PRESERVATION_LABELS, PRESERVATION_METHODS, type UnitPreference } from '@/lib/chemistry';
 import { createFormulaAction, reviseFormulaAction } from '@/lib/formulas/actions';
@@ -27,6 +27,7 @@ import { LineRow } from './editor/LineRow';
 import { UnitToggle } from './editor/UnitToggle';
 import { FormulaCostPanel } from '@/components/costs/FormulaCostPanel';
 import type { EditorCostBasis } from '@/lib/costs/schema';
+import { useUnsavedWarning } from '@/components/ui/useUnsavedWarning';
 import {
   altitudeScale,
   computeEditor,
@@ -124,16 +125,7 @@ export function FormulaEditor({ mode, initial, ingredients, massUnits, temperatu
   const computed = useMemo(() => computeEditor(settings, lines, ingredientsById), [settings, lines, ingredientsById]);
   const settingsInput = useMemo(() => settingsFromDraft(settings), [settings]);
 
-  useEffect(() => {
-    if (!dirty) return;
-    const warn = (event: BeforeUnloadEvent) => {
-      event.preventDefault();
-      // Older browsers need returnValue set to show the prompt.
-      event.returnValue = '';
-    };
-    window.addEventListener('beforeunload', warn);
-    return () => window.removeEventListener('beforeunload', warn);
-  }, [dirty]);
+  useUnsavedWarning(dirty);
 
   const touched = () => {
     setDirty(true);
