@@ -1,0 +1,80 @@
+/**
+ * Casts that silence the type checker (`as unknown as`, `as never`) stay at zero outside this named
+ * allow-list, and no file on it may gain one (issue 18, part 4). MikroORM's inferred entity types
+ * (`Loaded<…>`) make most of them unnecessary: lower a count when you remove one, never raise it.
+ */
+import { readFileSync, readdirSync, statSync } from 'node:fs';
+import path from 'node:path';
+import { describe, expect, it } from 'vitest';
+
+const ALLOWED: Record<string, number> = {
+  'app/api/bench/floor/route.ts': 1, // populated reads typed by hand; to go
+  'components/costs/CostLikingChart.tsx': 1, // populated reads typed by hand; to go
+  'components/notebook/NotebookView.tsx': 1, // populated reads typed by hand; to go
+  'components/results/Charts.tsx': 2, // populated reads typed by hand; to go
+  'lib/account/queries.ts': 1, // populated reads typed by hand; to go
+  'lib/api-tokens/mutations.ts': 1, // populated reads typed by hand; to go
+  'lib/api-tokens/queries.ts': 1, // populated reads typed by hand; to go
+  'lib/auth.ts': 2, // populated reads typed by hand; to go
+  'lib/client-address.ts': 1, // a process-wide cache on globalThis (survives hot reload)
+  'lib/costs/queries.ts': 3, // populated reads typed by hand; to go
+  'lib/db.ts': 1, // a process-wide cache on globalThis (survives hot reload)
+  'lib/formulas/mutations.ts': 1, // populated reads typed by hand; to go
+  'lib/formulas/queries.ts': 5, // populated reads typed by hand; to go
+  'lib/ingredients/csv.ts': 1, // populated reads typed by hand; to go
+  'lib/ingredients/mutations.ts': 1, // populated reads typed by hand; to go
+  'lib/ingredients/queries.ts': 4, // populated reads typed by hand; to go
+  'lib/label/queries.ts': 2, // populated reads typed by hand; to go
+  'lib/mail.ts': 1, // a process-wide cache on globalThis (survives hot reload)
+  'lib/members/queries.ts': 2, // populated reads typed by hand; to go
+  'lib/notebook/mutations.ts': 3, // populated reads typed by hand; to go
+  'lib/notebook/queries.ts': 2, // populated reads typed by hand; to go
+  'lib/notebook/schema.ts': 1, // populated reads typed by hand; to go
+  'lib/panels/mutations.ts': 2, // populated reads typed by hand; to go
+  'lib/panels/queries.ts': 4, // populated reads typed by hand; to go
+  'lib/panels/taster.ts': 2, // populated reads typed by hand; to go
+  'lib/pricing/csv.ts': 1, // populated reads typed by hand; to go
+  'lib/pricing/mutations.ts': 2, // populated reads typed by hand; to go
+  'lib/pricing/queries.ts': 3, // populated reads typed by hand; to go
+  'lib/production/mutations.ts': 11, // populated reads typed by hand; to go
+  'lib/production/queries.ts': 16, // populated reads typed by hand; to go
+  'lib/rate-limit.ts': 1, // a process-wide cache on globalThis (survives hot reload)
+  'lib/results/mutations.ts': 1, // populated reads typed by hand; to go
+  'lib/seed/demo.ts': 1, // populated reads typed by hand; to go
+  'lib/sql.ts': 1, // a process-wide cache on globalThis (survives hot reload)
+  'lib/storage.ts': 1, // a process-wide cache on globalThis (survives hot reload)
+  'lib/trials/mutations.ts': 1, // populated reads typed by hand; to go
+  'lib/uploads/mutations.ts': 1, // populated reads typed by hand; to go
+  'lib/uploads/queries.ts': 2, // populated reads typed by hand; to go
+  'lib/workspaces/queries.ts': 1, // populated reads typed by hand; to go
+  'lib/workspaces/record-home.ts': 1, // populated reads typed by hand; to go
+};
+
+const ROOTS = ['lib', 'app', 'components', 'entities'];
+const CAST = /\bas unknown as\b|\bas never\b/g;
+
+function files(dir: string): string[] {
+  return readdirSync(dir).flatMap((name) => {
+    const full = path.join(dir, name);
+    if (statSync(full).isDirectory()) return files(full);
+    return /\.tsx?$/.test(name) ? [full] : [];
+  });
+}
+
+describe('type-silencing casts', () => {
+  const counts = new Map<string, number>();
+  for (const file of ROOTS.flatMap((r) => files(r))) {
+    const n = (readFileSync(file, 'utf8').match(CAST) ?? []).length;
+    if (n) counts.set(file.split(path.sep).join('/'), n);
+  }
+
+  it('appear only in the allow-listed files, never more often than listed', () => {
+    const over = [...counts].filter(([file, n]) => n > (ALLOWED[file] ?? 0)).map(([file, n]) => `${file}: ${n} (allowed ${ALLOWED[file] ?? 0})`);
+    expect(over).toEqual([]);
+  });
+
+  it('the allow-list shrinks with the code: a count above what the file holds must be lowered', () => {
+    const stale = Object.entries(ALLOWED).filter(([file, n]) => (counts.get(file) ?? 0) < n).map(([file, n]) => `${file}: listed ${n}, holds ${counts.get(file) ?? 0}`);
+    expect(stale).toEqual([]);
+  });
+});
