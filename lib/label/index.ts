@@ -13,7 +13,7 @@ import { finishedNutrients } from './nutrition';
 import { euDeclaration, type EuDeclaration } from './eu-declaration';
 import { usNutritionFacts, type UsNutritionFacts } from './us-facts';
 import { ingredientList, type IngredientList } from './ingredient-list';
-import { jamStatements, type JamStatement } from './statements';
+import { compareStatedSugar, jamStatements, statedTotalSugar, type JamStatement, type StatedSugarComparison } from './statements';
 import { referenceFromNutrients, sugarClaimChecks, TYPICAL_JAM_REFERENCE, type ClaimCheck, type ClaimReference } from './claims';
 import { additiveLimitChecks, type AdditiveCheck } from './additives';
 import { LABEL_FORMAT, type Label, type LabelAdditiveCheck, type LabelClaim, type LabelFactsRow, type LabelIncomplete, type LabelIngredientList, type LabelNutrientRow, type LabelStatement } from './label';
@@ -176,4 +176,14 @@ export function claimReferenceFrom(name: string, settings: FormulaSettingsInput,
     if (err instanceof ChemistryInputError) return null;
     throw err;
   }
+}
+
+/**
+ * A measured Brix (corrected to 20 °C) against the total sugar a label states; null when the label
+ * states none or nothing was measured. Directive 2001/113/EC: the refractometer value, ± 3 degrees.
+ */
+export function statedSugarAgainst(label: Label | null, measuredBrix: number | null): StatedSugarComparison | null {
+  const stated = label?.statements.find((s) => s.kind === 'total_sugar')?.gramsPer100g;
+  if (stated == null || measuredBrix == null || !(stated > 0 && stated < 100) || !(measuredBrix >= 0 && measuredBrix <= 100)) return null;
+  return compareStatedSugar(statedTotalSugar(stated), Math.round(measuredBrix * 10) / 10);
 }

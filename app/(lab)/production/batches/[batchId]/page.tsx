@@ -13,6 +13,8 @@ import { AuditTrail } from '@/components/production/AuditTrail';
 import { BatchHoldPanel } from '@/components/production/BatchHoldPanel';
 import { batchCost } from '@/lib/costs/queries';
 import { BatchCostCard } from '@/components/costs/BatchCostCard';
+import { versionLabel } from '@/lib/label/queries';
+import { statedSugarAgainst } from '@/lib/label';
 
 export const dynamic = 'force-dynamic';
 export const metadata = { title: 'Batch' };
@@ -24,6 +26,7 @@ export default async function BatchPage({ params }: { params: Promise<{ batchId:
   const { batch: b, product, audit } = await orNotFound(getBatch(actor, pageId((await params).batchId)));
   const temps = actor.temperatureUnit === 'C' ? 'metric' : 'imperial';
   const cost = can(actor.role, 'prices.read') ? await batchCost(actor, b.id) : null;
+  const sugarOnLabel = statedSugarAgainst((await versionLabel(actor, b.versionId)).label, b.checks.find((c) => c.key === 'solids')?.value ?? null);
   return (
     <>
       <PageHeader
@@ -50,6 +53,11 @@ export default async function BatchPage({ params }: { params: Promise<{ batchId:
           <div className="mb-2"><StatusBadge status={b.outcome} /></div>
           <CheckList checks={b.checks} testId="recorded-checks" />
           <p className="mt-3 text-sm text-rind-600">Filled at {formatTemperature(b.fillTempC, temps)}.</p>
+          {sugarOnLabel ? (
+            <p className={`mt-2 text-sm ${sugarOnLabel.withinTolerance ? 'text-rind-600' : 'font-semibold text-ember-700'}`} data-testid="label-sugar-check">
+              Total sugar on the label: {sugarOnLabel.message}
+            </p>
+          ) : null}
           {b.disposition ? <p className="mt-2 text-sm"><strong>{DISPOSITION_LABELS[b.disposition]}:</strong> {b.dispositionComment}</p> : null}
           {b.notes ? <p className="mt-2 whitespace-pre-line text-sm">{b.notes}</p> : null}
         </Card>
