@@ -67,7 +67,7 @@ export class Migration20261203140000 extends Migration {
   }
 
   override async down(): Promise<void> {
-    this.addSql(`delete from "ingredients" where "typical_key" = 'potassium_sorbate' and "origin" = 'typical';`);
+    // The potassium sorbate entries stay: formulas and price lists may use them by now (no data is lost).
     const drops = ['label_name', ...Object.values(NUTRIENT_COLUMNS), 'eu_allergens', 'us_allergens', 'sulphite_mg_per_kg', 'e_number', 'additive_class', 'is_added_water', 'composition_source'];
     this.addSql(`alter table "ingredients" ${drops.map((c) => `drop column "${c}"`).join(', ')};`);
   }

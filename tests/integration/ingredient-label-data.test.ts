@@ -168,8 +168,11 @@ describe('migration Migration20261203140000', () => {
     };
     await run('down');
     try {
-      const gone = await em.getConnection().execute(`select count(*) as n from ingredients where workspace_id = ? and typical_key = 'potassium_sorbate'`, [fx.workspaceId]);
-      expect(Number(gone[0].n)).toBe(0);
+      // Rolling back keeps the sorbate entry: formulas and price lists may use it (no data is lost).
+      const kept = await em.getConnection().execute(`select count(*) as n from ingredients where workspace_id = ? and typical_key = 'potassium_sorbate'`, [fx.workspaceId]);
+      expect(Number(kept[0].n)).toBe(1);
+      // A workspace from before the entry existed has none: the migration adds it.
+      await em.getConnection().execute(`delete from ingredients where workspace_id = ? and typical_key = 'potassium_sorbate'`, [fx.workspaceId]);
       const columns = await em.getConnection().execute(`select count(*) as n from information_schema.columns where table_name = 'ingredients' and column_name = 'water_g'`);
       expect(Number(columns[0].n)).toBe(0);
     } finally {
