@@ -4,7 +4,8 @@ import { revalidatePath } from 'next/cache';
 import { z } from 'zod';
 import { runAction } from '@/lib/actions';
 import { ingredientInputSchema } from './schema';
-import { createIngredient, updateIngredient, setIngredientArchived } from './mutations';
+import { createIngredient, importIngredientsCsv, updateIngredient, setIngredientArchived } from './mutations';
+import { importIngredientsSchema } from './csv';
 
 /** Creates when ingredientId is null, otherwise updates that ingredient of the workspace. */
 export async function saveIngredientAction(ingredientId: unknown, input: unknown) {
@@ -19,6 +20,13 @@ export async function saveIngredientAction(ingredientId: unknown, input: unknown
 export async function archiveIngredientAction(ingredientId: unknown, archived: unknown) {
   const schema = z.object({ ingredientId: z.uuid('Unknown ingredient.'), archived: z.boolean() });
   const result = await runAction('ingredients.write', schema, { ingredientId, archived }, (actor, d) => setIngredientArchived(actor, d.ingredientId, d.archived));
+  if (result.ok) revalidatePath('/ingredients');
+  return result;
+}
+
+/** All-or-nothing import of the library's CSV (the export's columns); every bad cell comes back as "row N, column". */
+export async function importIngredientsAction(csv: unknown) {
+  const result = await runAction('ingredients.write', importIngredientsSchema, { csv }, (actor, d) => importIngredientsCsv(actor, d.csv));
   if (result.ok) revalidatePath('/ingredients');
   return result;
 }

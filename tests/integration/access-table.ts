@@ -219,6 +219,7 @@ export const ACTION_CASES: ActionCase[] = [
 ];
 
 ACTION_CASES.push(
+  { action: 'lib/ingredients/actions.ts#importIngredientsAction', allowed: WRITE_FORMULAS, otherWorkspace: 'own-data', args: () => ['name,kind,soluble_solids_pct\nMatrix plum,fruit,12\n'] },
   { action: 'lib/ingredients/actions.ts#saveIngredientAction', allowed: WRITE_FORMULAS, otherWorkspace: 'own-data', args: () => [null, CUSTOM_INGREDIENT_WITH_LABEL] },
   {
     action: 'lib/ingredients/actions.ts#archiveIngredientAction',

@@ -5,6 +5,7 @@ import { listIngredients } from '@/lib/ingredients/queries';
 import { ingredientListQuerySchema } from '@/lib/ingredients/schema';
 import { searchText } from '@/lib/input';
 import { IngredientTable } from '@/components/ingredients/IngredientTable';
+import { IngredientCsvImport } from '@/components/ingredients/IngredientCsvImport';
 import { PageHeader } from '@/components/ui/Card';
 import { buttonClass } from '@/components/ui/Button';
 
@@ -27,6 +28,7 @@ export default async function IngredientsPage({ searchParams }: { searchParams: 
         actions={canEdit ? <Link href="/ingredients/new" className={buttonClass('primary')}>Add an ingredient</Link> : null}
       />
       <IngredientTable rows={rows} query={query} canEdit={canEdit} massUnits={actor.massUnits} />
+      {canEdit ? <div className="no-print mt-8"><IngredientCsvImport /></div> : null}
     </>
   );
 }
