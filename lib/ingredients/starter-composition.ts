@@ -4,7 +4,7 @@
  *
  * Foods: USDA ARS, USDA National Nutrient Database for Standard Reference, Legacy Release 28
  * (SR28, public domain), nutrients 255, 208, 268, 203, 204, 606, 205, 291, 269, 307 and 210/211/212,
- * as transcribed in the project's nutrition reference notes. A value SR28 does not give stays null
+ * as listed in docs/nutrition-check-values.md. A value SR28 does not give stays null
  * (unknown), never zero. Additives and water are not in SR28: their composition follows from what they
  * are, and their energy from the Regulation (EU) 1169/2011 Annex XIV factor for organic acids.
  */

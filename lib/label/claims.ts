@@ -65,7 +65,7 @@ const ANNEX_1047 = 'Regulation (EC) No 1924/2006, Annex, as amended by Regulatio
 /**
  * A typical jam to compare with: USDA SR28 NDB 19297 "Jams and preserves", sugars 48.50 g per
  * 100 g; energy 1169.60 kJ per 100 g by the EU Annex XIV factors, as worked in
- * ../shared/nutrition-references.md section (c) (the SR28 printed 1163 kJ uses other factors).
+ * docs/nutrition-check-values.md section (c) (the SR28 printed 1163 kJ uses other factors).
  */
 export const TYPICAL_JAM_REFERENCE: ClaimReference = {
   name: 'Typical jam (USDA "Jams and preserves")',

@@ -112,7 +112,7 @@ export function euEnergyAmounts(kJ: number, kcal: number): EuAmount[] {
  * in the library they are recorded for acid ingredients (citric acid) that carry no carbohydrate
  * figure, while fruit entries keep their acids inside carbohydrate by difference with no separate
  * figure, so subtracting would remove carbohydrate the acid never contributed.
- * Source: /work/shared/nutrition-references.md, "Check values" (EU energy, example (a)).
+ * Source: docs/nutrition-check-values.md, "Check values" (EU energy, example (a)).
  */
 export function availableCarbohydrate(n: FinishedNutrients): number | null {
   if (n.carbohydrateG === null) return null;

@@ -5,7 +5,7 @@
  * else, so the finished water is Σ water − (Σ line mass − finished mass); when the target solids
  * are below the charge's, that difference is negative and the water to add is counted in. Batch
  * totals are divided by finished mass/100.
- * Source: the method of /work/shared/nutrition-references.md ("Check values"), which follows the
+ * Source: the method of docs/nutrition-check-values.md ("Check values"), which follows the
  * recipe calculation of USDA SR28 (no nutrient losses; water by evaporation only).
  */
 import { ChemistryInputError, requireFiniteNumber } from '@/lib/chemistry/errors';

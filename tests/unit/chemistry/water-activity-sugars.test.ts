@@ -7,11 +7,11 @@ import { settings } from './fixtures';
 
 const STRAWBERRY: IngredientComposition = { kind: 'fruit', name: 'Strawberry', solidsPct: 8 };
 const SUGAR: IngredientComposition = { kind: 'sweetener', name: 'Sugar', solidsPct: 100, sweetenerType: 'sucrose' };
-// Source: USDA SR28 NDB 09316 (strawberries, raw) and 19335 (sugars, granulated), per ../shared/nutrition-references.md "Individual sugars".
+// Source: USDA SR28 NDB 09316 (strawberries, raw) and 19335 (sugars, granulated), per docs/nutrition-check-values.md "Individual sugars".
 const STRAWBERRY_SUGARS: SugarProfile = { sucroseG: 0.47, glucoseG: 1.99, fructoseG: 2.44 };
 const SUGAR_SUGARS: SugarProfile = { sucroseG: 99.8, glucoseG: 0, fructoseG: 0 };
 
-/** The 1:1 strawberry jam of ../shared/nutrition-references.md example (a), fruit and sugar only, at `brix`. */
+/** The 1:1 strawberry jam of docs/nutrition-check-values.md example (a), fruit and sugar only, at `brix`. */
 function strawberryJam(brix: number, fruitProfile: SugarProfile | null = STRAWBERRY_SUGARS) {
   const mb = computeMassBalance([
     { ingredient: STRAWBERRY, quantity: 1000, unit: 'g' },
@@ -85,7 +85,7 @@ describe('water activity from the sugars present', () => {
 describe('the batch computation uses the ingredients’ sugars (issue 15, part 7)', () => {
   it('a formula whose library entries carry sugar profiles gets the sugar-mix estimate; one without keeps the kind-based one', async () => {
     const { computeBatch } = await import('@/lib/chemistry');
-    // Source: USDA SR28 "Individual sugars" for 09316 and 19335 (../shared/nutrition-references.md), as the library stores them.
+    // Source: USDA SR28 "Individual sugars" for 09316 and 19335 (docs/nutrition-check-values.md), as the library stores them.
     const withProfiles = computeBatch([
       { ingredient: { ...STRAWBERRY, sugars: { sucroseG: 0.47, glucoseG: 1.99, fructoseG: 2.44 } }, quantity: 1000, unit: 'g' },
       { ingredient: { ...SUGAR, sugars: { sucroseG: 99.8, glucoseG: 0, fructoseG: 0 } }, quantity: 1000, unit: 'g' },
@@ -106,7 +106,7 @@ describe('the batch computation uses the ingredients’ sugars (issue 15, part 7
     const { compositionOf } = await import('@/lib/ingredients/queries');
     const base = { kind: 'fruit', name: 'Strawberry', solidsPct: 8 };
     expect(compositionOf({ ...base, sucroseG: 0.47, glucoseG: 1.99, fructoseG: 2.44 } as never).sugars).toEqual({ sucroseG: 0.47, glucoseG: 1.99, fructoseG: 2.44 });
-    // Source: ../shared/nutrition-references.md — SR28 gives blackcurrant no sugars; unknown is never zero.
+    // Source: docs/nutrition-check-values.md — SR28 gives blackcurrant no sugars; unknown is never zero.
     expect(compositionOf({ ...base, sucroseG: null, glucoseG: 1.99, fructoseG: 2.44 } as never).sugars).toBeUndefined();
   });
 });

@@ -8,7 +8,7 @@ import { NUTRIENT_KEYS } from '@/lib/label/types';
 const SR28 = 'USDA National Nutrient Database for Standard Reference, Legacy Release 28';
 
 /**
- * Expected values transcribed again, independently of the module, from
+ * Expected values copied again, independently of the module, from
  * Source: USDA ARS, National Nutrient Database for Standard Reference, Legacy Release 28 (SR28),
  * NUT_DATA nutrients 255 water, 208 kcal, 268 kJ, 203 protein, 204 fat, 606 saturates,
  * 205 carbohydrate by difference, 291 fibre, 269 sugars, 307 sodium, 210/211/212 sucrose/glucose/fructose

@@ -40,7 +40,7 @@ describe('labelInputFor', () => {
     if (!outcome.ok) throw new Error(outcome.message);
     const input = labelInputFor(settings, outcome.computation.massBalance, data);
     expect(input.lines.map((l) => l.grams)).toEqual([1000, 1000, 10, 5]);
-    // Source: /work/shared/nutrition-references.md, example (a): input 2015 g, finished 1600 g, 415 g of water lost.
+    // Source: docs/nutrition-check-values.md, example (a): input 2015 g, finished 1600 g, 415 g of water lost.
     expect(input.massBalance.finishedMassG).toBeCloseTo(1600, 6);
     expect(input.massBalance.waterToEvaporateG).toBeCloseTo(415, 6);
     expect(input.lines[0].fruitName).toBe('strawberries');
@@ -59,7 +59,7 @@ describe('labelInputFor', () => {
 describe('buildLabel on the 1:1 strawberry jam', () => {
   it('declares EU energy from the Annex XIV factors, unrounded beside the label value', () => {
     const l = label();
-    // Source: /work/shared/nutrition-references.md, example (a): 1155.91625 kJ and 272.189375 kcal per 100 g
+    // Source: docs/nutrition-check-values.md, example (a): 1155.91625 kJ and 272.189375 kcal per 100 g
     // (Regulation (EU) No 1169/2011 Annex XIV, available carbohydrate = by difference − fibre).
     expect(euRow(l, 'energy_kJ').unrounded).toBeCloseTo(1155.91625, 4);
     expect(euRow(l, 'energy_kcal').unrounded).toBeCloseTo(272.189375, 4);
@@ -70,7 +70,7 @@ describe('buildLabel on the 1:1 strawberry jam', () => {
 
   it('rounds each EU row as the 2012 guidance says, on the figures of the worked example', () => {
     const l = label();
-    // Source: /work/shared/nutrition-references.md, example (a) per 100 g; rounding per the European Commission
+    // Source: docs/nutrition-check-values.md, example (a) per 100 g; rounding per the European Commission
     // guidance (December 2012): ≥ 10 g to 1 g, fat/protein ≤ 0.5 g as "<0.5 g", saturates ≤ 0.1 g as "<0.1 g",
     // salt ≤ 0.0125 g as "<0.01 g" (memory).
     expect(euRow(l, 'sugars').unrounded).toBeCloseTo(65.43125, 5);

@@ -68,7 +68,7 @@ describe('reduced sugars', () => {
 
   it('is met at exactly 30 % less than the typical jam, with energy no higher', () => {
     // Source: Regulation (EC) No 1924/2006 Annex, REDUCED [NUTRIENT] (at least 30 %); Regulation (EU) No 1047/2012 (energy ≤ the similar product's);
-    // reference: USDA SR28 NDB 19297 sugars 48.50 g, EU energy 1169.60 kJ (../shared/nutrition-references.md (c)). 48.5 × 0.7 = 33.95.
+    // reference: USDA SR28 NDB 19297 sugars 48.50 g, EU energy 1169.60 kJ (docs/nutrition-check-values.md (c)). 48.5 × 0.7 = 33.95.
     const check = checkReducedSugars(subject(33.95, 900), TYPICAL_JAM_REFERENCE);
     expect(check.status).toBe('met');
     expect(check.figures.find((f) => f.label === 'Reduction')?.value).toBeCloseTo(30, 9);

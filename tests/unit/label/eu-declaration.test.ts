@@ -4,7 +4,7 @@ import { availableCarbohydrate, euDeclaration, euEnergyAmounts, euGramAmount, ty
 import type { FinishedNutrients, NutrientValues } from '@/lib/label/types';
 import { CITRIC_ACID_NOTHING, NO_FIGURES, SR28, apricotJam, strawberryJam } from './fixtures';
 
-// REF = /work/shared/nutrition-references.md; GUIDANCE = European Commission, December 2012,
+// REF = docs/nutrition-check-values.md; GUIDANCE = European Commission, December 2012,
 // "Guidance document for competent authorities … setting of tolerances for nutrient values
 // declared on a label", section 4 (rounding). The "0"/"<…" limits match secondary summaries of
 // its table; the 10 g and 1 g (salt) step limits are from memory (the table was not re-read).

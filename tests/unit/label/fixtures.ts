@@ -8,7 +8,7 @@ export const NO_FIGURES: NutrientValues = {
   polyolsG: null, organicAcidsG: null, sodiumMg: null,
 };
 
-// Source: /work/shared/nutrition-references.md, table (USDA SR28 per 100 g edible portion).
+// Source: docs/nutrition-check-values.md, table (USDA SR28 per 100 g edible portion).
 export const SR28 = {
   strawberry: { ...NO_FIGURES, waterG: 90.95, energyKcal: 32, energyKj: 136, proteinG: 0.67, fatG: 0.30, saturatesG: 0.015, carbohydrateG: 7.68, fibreG: 2.0, sugarsG: 4.89, sodiumMg: 1, sucroseG: 0.47, glucoseG: 1.99, fructoseG: 2.44 },
   apricot: { ...NO_FIGURES, waterG: 86.35, energyKcal: 48, energyKj: 201, proteinG: 1.40, fatG: 0.39, saturatesG: 0.027, carbohydrateG: 11.12, fibreG: 2.0, sugarsG: 9.24, sodiumMg: 1, sucroseG: 5.87, glucoseG: 2.37, fructoseG: 0.94 },
@@ -21,7 +21,7 @@ export const SR28 = {
 
 /**
  * Citric acid is not in SR28; the reference counts it as anhydrous solids that add nothing to any
- * table nutrient (Source: /work/shared/nutrition-references.md, "Check values", assumptions).
+ * table nutrient (Source: docs/nutrition-check-values.md, "Check values", assumptions).
  */
 export const CITRIC_ACID_NOTHING: NutrientValues = {
   ...NO_FIGURES, waterG: 0, energyKcal: 0, energyKj: 0, proteinG: 0, fatG: 0, saturatesG: 0, carbohydrateG: 0,

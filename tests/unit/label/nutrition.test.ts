@@ -4,7 +4,7 @@ import { finishedNutrients } from '@/lib/label/nutrition';
 import type { LabelInput } from '@/lib/label/types';
 import { CITRIC_ACID_NOTHING, NO_FIGURES, SR28, apricotJam, labelData, labelInput, line, strawberryJam } from './fixtures';
 
-// REF = /work/shared/nutrition-references.md (USDA SR28 figures and worked examples).
+// REF = docs/nutrition-check-values.md (USDA SR28 figures and worked examples).
 
 describe('finished nutrients: example (a) strawberry jam 1:1', () => {
   const input = strawberryJam();

@@ -9,7 +9,7 @@ import {
 import type { LabelInput } from '@/lib/label/types';
 import { SR28, apricotJam, labelData, labelInput, line, strawberryJam } from './fixtures';
 
-// REF = /work/shared/nutrition-references.md; CFR = 21 CFR 101.9 as amended by the 2016 Nutrition
+// REF = docs/nutrition-check-values.md; CFR = 21 CFR 101.9 as amended by the 2016 Nutrition
 // Facts final rule (81 FR 33742), rounding per paragraph (c) as tabulated in FDA's Food Labeling
 // Guide, Appendix H "Rounding the values according to FDA rounding rules".
 

@@ -4,7 +4,7 @@ import { sugarProfileOf, waterActivityFromLabelLines } from '@/lib/label/water-a
 import { LABEL, STRAWBERRY, SUCROSE, labelData, labelSettings, nutrients } from './text-fixtures';
 
 // Source: USDA SR28 NDB 09316 strawberries (sucrose 0.47, glucose 1.99, fructose 2.44 g/100 g) and 19335 granulated
-// sugar (sucrose 99.80), per ../shared/nutrition-references.md "Individual sugars".
+// sugar (sucrose 99.80), per docs/nutrition-check-values.md "Individual sugars".
 const strawberry = labelData('strawberries', { kind: 'fruit', nutrients: nutrients({ sucroseG: 0.47, glucoseG: 1.99, fructoseG: 2.44 }) });
 const sugar = labelData('sugar', { kind: 'sweetener', nutrients: nutrients({ sucroseG: 99.8, glucoseG: 0, fructoseG: 0 }) });
 

@@ -3,8 +3,8 @@
  * Source: NIST Information Technology Laboratory, Statistical Reference Datasets, Linear Least Squares
  * Regression (https://www.itl.nist.gov/div898/strd/lls/lls.shtml): Norris.dat (lower difficulty),
  * Longley.dat and Filip.dat (higher), Wampler1.dat and Wampler4.dat (higher). Data and certified values
- * transcribed from the .dat files as reproduced in a public test suite of those files; the fits in
- * models.nist.test.ts reproduce the certified values, which is itself the check of the transcription.
+ * copied from the .dat files as reproduced in a public test suite of those files; the fits in
+ * models.nist.test.ts reproduce the certified values, which is itself the check of the copy.
  */
 
 export interface CertifiedFit {
