@@ -224,7 +224,7 @@ export async function watchCsp(page: Page): Promise<Violation[]> {
  * the organiser and opened; a staff taster seated when named. Tests that need an open tasting make
  * their own, so the seeded ones (which other tests close) stay as they are.
  */
-export async function openApricotTasting(browser: Browser, o: { organiserEmail: string; title: string; attribute: string; seat?: string }): Promise<{ joinCode: string }> {
+export async function openApricotTasting(browser: Browser, o: { organiserEmail: string; title: string; attribute: string | string[]; seat?: string }): Promise<{ joinCode: string; sessionId: string }> {
   const ctx = await newContext(browser);
   const page = await ctx.newPage();
   await signIn(page, o.organiserEmail);
@@ -235,10 +235,11 @@ export async function openApricotTasting(browser: Browser, o: { organiserEmail: 
   const write = { headers: { origin: new URL(page.url()).origin } };
   const { variants } = await (await page.request.get(`/api/v1/trials/${trialId}/variants`)).json();
   const { attributes } = await (await page.request.get('/api/v1/attributes')).json();
-  const attribute = (attributes as Array<{ id: string; name: string }>).find((a) => a.name === o.attribute)!;
+  const wanted = Array.isArray(o.attribute) ? o.attribute : [o.attribute];
+  const attributeIds = wanted.map((name) => (attributes as Array<{ id: string; name: string }>).find((a) => a.name === name)!.id);
   const created = await page.request.post(`/api/v1/trials/${trialId}/panels`, {
     ...write,
-    data: { title: o.title, method: 'rated', variantIds: variants.slice(0, 2).map((v: { id: string }) => v.id), attributeIds: [attribute.id], notice: 'Apricot spreads with fruit, sugar and pectin.' },
+    data: { title: o.title, method: 'rated', variantIds: variants.slice(0, 2).map((v: { id: string }) => v.id), attributeIds, notice: 'Apricot spreads with fruit, sugar and pectin.' },
   });
   if (created.status() !== 201) throw new Error(`tasting not created: ${await created.text()}`);
   const { sessionId } = await created.json();
@@ -251,5 +252,5 @@ export async function openApricotTasting(browser: Browser, o: { organiserEmail: 
     await page.getByText('Invitations sent.').waitFor();
   }
   await ctx.close();
-  return { joinCode };
+  return { joinCode, sessionId };
 }

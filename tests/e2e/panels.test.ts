@@ -18,12 +18,12 @@ async function answerSample(phone: Page) {
 
 describe('a tasting on phones', () => {
   it('joins, answers, survives a reload, submits; the organiser sees it and closes', async () => {
+    // Its own tasting: closing the demo's open one would empty the worklists other walks check.
+    const { sessionId } = await openApricotTasting(browser(), { organiserEmail: developer.email, title: 'Phone walk: two spreads', attribute: ['Overall liking', 'Set firmness'] });
     const desk = await newContext(browser());
     const organiser = await desk.newPage();
     await signIn(organiser, developer.email);
-    await organiser.goto('/trials');
-    await organiser.getByRole('link', { name: /Apricot spread: how low can the sugar go\?/ }).click();
-    await organiser.getByTestId('panel-list').getByRole('link', { name: 'Second look: two spreads' }).click();
+    await organiser.goto(`/panels/${sessionId}`);
     const joinCode = (await organiser.getByTestId('join-code').textContent())!.trim();
     expect(joinCode).toMatch(/^[A-Z0-9]{6}$/);
 
