@@ -1,3 +1,4 @@
+import 'server-only';
 /**
  * Sessions and the current actor. next-auth issues a JWT session (it carries the user id and
  * the user's session epoch); everything else about the actor (workspace, role) is read fresh

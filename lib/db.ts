@@ -1,3 +1,4 @@
+import 'server-only';
 import { MikroORM, type EntityManager } from '@mikro-orm/postgresql';
 import config from '@/mikro-orm.config';
 import { closeSqlPool } from '@/lib/sql';

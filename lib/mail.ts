@@ -1,3 +1,4 @@
+import 'server-only';
 /** Outgoing e-mail over SMTP (nodemailer). Development and tests point SMTP_URL at the local fake. */
 import nodemailer, { type Transporter } from 'nodemailer';
 import { env } from '@/lib/env';

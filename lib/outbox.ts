@@ -1,3 +1,4 @@
+import 'server-only';
 /**
  * The mail outbox page's data: what the local SMTP fake received for the current workspace.
  *

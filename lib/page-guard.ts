@@ -1,3 +1,4 @@
+import 'server-only';
 /**
  * Page and layout adapters over lib/permissions: 401 → the sign-in page, 403 → the
  * forbidden page (HTTP 403), 404 → not found.

@@ -1,3 +1,4 @@
+import 'server-only';
 import bcrypt from 'bcryptjs';
 
 const BCRYPT_COST = 11;

@@ -1,3 +1,4 @@
+import 'server-only';
 /**
  * Rate limits, with counters in PostgreSQL (rate-limiter-flexible's Postgres store) so that
  * several app servers share them. Every limit counts the attempt first, in one statement

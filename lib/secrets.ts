@@ -1,3 +1,4 @@
+import 'server-only';
 import { createHash, randomBytes } from 'node:crypto';
 
 /** A URL-safe random secret for invitation, reset and API-token links (256 bits). */

@@ -1,3 +1,4 @@
+import 'server-only';
 /**
  * Object storage for photos and files: any S3-compatible store (AWS S3, MinIO, the local fake in
  * scripts/s3-fake.ts), configured from the S3_* variables. The app proxies every download, so

@@ -7,7 +7,7 @@
  * - an optimisation over three responses with constraints (target ≤ 1 s).
  * Invented data (a made-up quadratic plus deterministic noise), our own scenario. Prints median
  * and p95 of each and writes bench-results/models.json.
- * Alone: `node --import tsx scripts/bench-models.ts`.
+ * Alone: `node --require ./scripts/outside-next.cjs --import tsx scripts/bench-models.ts`.
  */
 import fs from 'node:fs';
 import os from 'node:os';

@@ -35,23 +35,23 @@ pg_ensure_database "$SETWELL_PG_DATA" "$SETWELL_PG_PORT" "$SETWELL_DB_NAME" setw
 export NEXTAUTH_SECRET=bench-only-secret-bench-only-secret-0000 LOG_LEVEL=silent
 npm run --silent db:migrate >/dev/null
 log "statistics: 60 tasters × 12 samples × 8 attributes, then twice the tasters (median of 5 runs)"
-node --import tsx scripts/bench-stats.ts
+node --require ./scripts/outside-next.cjs --import tsx scripts/bench-stats.ts
 log "notebook: the largest accepted entry rendered read-only on the server (production React, median of 7)"
-NODE_ENV=production node --import tsx scripts/bench-notebook.ts
+NODE_ENV=production node --require ./scripts/outside-next.cjs --import tsx scripts/bench-notebook.ts
 log "models: full quadratic fit (4 features × 200 variants), prediction per keystroke beside the chemistry recompute, optimisation"
-node --import tsx scripts/bench-models.ts
+node --require ./scripts/outside-next.cjs --import tsx scripts/bench-models.ts
 log "label: the formula editor's recompute for a 40-line formula, chemistry alone and with the label (median and p95)"
-node --import tsx scripts/bench-label.ts
+node --require ./scripts/outside-next.cjs --import tsx scripts/bench-label.ts
 log "costs: a trial of 12 variants and a product of 24 versions against 3 years of daily prices, beside fetching those rows (median of 7)"
-node --import tsx scripts/bench-costs.ts
+node --require ./scripts/outside-next.cjs --import tsx scripts/bench-costs.ts
 
 mkdir -p "$SETWELL_LOGS"
 log "load: building the production app"
 NODE_ENV=production node node_modules/next/dist/bin/next build >"$SETWELL_LOGS/bench-build.log" 2>&1 || { tail -40 "$SETWELL_LOGS/bench-build.log"; exit 1; }
-node --import tsx scripts/bench-setup.ts "$SETWELL_HOME/seats.json"
+node --require ./scripts/outside-next.cjs --import tsx scripts/bench-setup.ts "$SETWELL_HOME/seats.json"
 mkdir -p "$SETWELL_RUN"
 if [[ "${S3_ENDPOINT:-}" == "$S3_FAKE_ENDPOINT" ]]; then
-  start_background "S3 fake" "$SETWELL_RUN/s3-fake.pid" "$SETWELL_LOGS/s3-fake.log" node --import tsx scripts/s3-fake.ts
+  start_background "S3 fake" "$SETWELL_RUN/s3-fake.pid" "$SETWELL_LOGS/s3-fake.log" node --require ./scripts/outside-next.cjs --import tsx scripts/s3-fake.ts
   wait_for_port 127.0.0.1 "$S3_FAKE_PORT" 30
 fi
 npm run --silent db:seed >/dev/null
@@ -65,10 +65,10 @@ wait_for_port 127.0.0.1 "$APP_B" 60
 log "load: $(nproc) cores, load average $(cut -d' ' -f1-3 /proc/loadavg) before the run"
 log "load: 100 connections, floor and taster alternating (2 × 10 s each), then two processes; then the phone page's JS"
 BENCH_APP_PGIDS="$(IFS=,; echo "${PIDS[*]}")" BENCH_PG_PID_FILE="$SETWELL_PG_DATA/postmaster.pid" \
-  node --import tsx scripts/bench-load.ts "$SETWELL_HOME/seats.json" "http://127.0.0.1:$APP_A" "http://127.0.0.1:$APP_B"
+  node --require ./scripts/outside-next.cjs --import tsx scripts/bench-load.ts "$SETWELL_HOME/seats.json" "http://127.0.0.1:$APP_A" "http://127.0.0.1:$APP_B"
 log "pages: six staff pages × 10 users against the empty page; the tasting page on a throttled phone in chromium"
 ensure_chromium_installed
-node --import tsx scripts/bench-pages.ts "$SETWELL_HOME/seats.json" "http://127.0.0.1:$APP_A"
+node --require ./scripts/outside-next.cjs --import tsx scripts/bench-pages.ts "$SETWELL_HOME/seats.json" "http://127.0.0.1:$APP_A"
 node -e '
   const fs = require("fs");
   const read = (name) => JSON.parse(fs.readFileSync(`bench-results/${name}.json`, "utf8")).figures;

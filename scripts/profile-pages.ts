@@ -3,7 +3,7 @@
  * editor and the tasting results, piece by piece, on a seeded demo database (not a test, no
  * targets: `npm run bench` holds those). Times each read and computation and counts the queries
  * one whole load sends, and the size of the props each page hands to its client components.
- * Usage: DATABASE_URL=… (plus the app's other settings) node --import tsx scripts/profile-pages.ts
+ * Usage: DATABASE_URL=… (plus the app's other settings) node --require ./scripts/outside-next.cjs --import tsx scripts/profile-pages.ts
  */
 import { performance } from 'node:perf_hooks';
 import { getOrm, closeOrm } from '../lib/db';

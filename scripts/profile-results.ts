@@ -2,7 +2,7 @@
  * Where the tasting results page spends its server time, piece by piece, on a seeded demo
  * database (not a test, no targets: `npm run bench` holds those). It times the reads, the analysis
  * and the whole load for the demo's largest tasting, and counts the queries one load sends.
- * Usage: DATABASE_URL=… (plus the app's other settings) node --import tsx scripts/profile-results.ts
+ * Usage: DATABASE_URL=… (plus the app's other settings) node --require ./scripts/outside-next.cjs --import tsx scripts/profile-results.ts
  */
 import { performance } from 'node:perf_hooks';
 import { getOrm, closeOrm } from '../lib/db';

@@ -96,4 +96,4 @@ wait_for_port 127.0.0.1 "$PORT" 60
 wait_for_port 127.0.0.1 "$((PORT + 1))" 60
 
 SOAK_APP_URLS="$(IFS=,; echo "${app_urls[*]}")" SOAK_APP_LOGS="$(IFS=,; echo "${app_logs[*]}")" NODE_ENV=production \
-  node --import tsx scripts/soak.ts "${soak_args[@]}"
+  node --require ./scripts/outside-next.cjs --import tsx scripts/soak.ts "${soak_args[@]}"

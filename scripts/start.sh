@@ -23,12 +23,12 @@ fi
 
 if [[ "$SMTP_URL" == "smtp://127.0.0.1:$MAIL_FAKE_SMTP_PORT" ]]; then
   MAIL_FAKE_STORE="$SETWELL_HOME/outbox.json" start_background "mail fake" "$SETWELL_RUN/mail-fake.pid" "$SETWELL_LOGS/mail-fake.log" \
-    node --import tsx scripts/mail-fake.ts
+    node --require ./scripts/outside-next.cjs --import tsx scripts/mail-fake.ts
   wait_for_port 127.0.0.1 "$MAIL_FAKE_HTTP_PORT" 30
 fi
 
 if [[ "${S3_ENDPOINT:-}" == "$S3_FAKE_ENDPOINT" ]]; then
-  start_background "S3 fake" "$SETWELL_RUN/s3-fake.pid" "$SETWELL_LOGS/s3-fake.log" node --import tsx scripts/s3-fake.ts
+  start_background "S3 fake" "$SETWELL_RUN/s3-fake.pid" "$SETWELL_LOGS/s3-fake.log" node --require ./scripts/outside-next.cjs --import tsx scripts/s3-fake.ts
   wait_for_port 127.0.0.1 "$S3_FAKE_PORT" 30
 fi
 

@@ -36,10 +36,10 @@ pg_ensure_database "$SETWELL_PG_DATA" "$SETWELL_PG_PORT" setwell_e2e setwell "$S
 NEXTAUTH_SECRET="$(head -c 48 /dev/urandom | base64 | tr -d '\n')"
 export NEXTAUTH_SECRET NODE_ENV=test LOG_LEVEL=silent
 export SETWELL_PG_BIN="$(pg_bindir)"
-start_background "mail fake" "$SETWELL_RUN/mail-fake.pid" "$SETWELL_LOGS/mail-fake.log" node --import tsx scripts/mail-fake.ts
+start_background "mail fake" "$SETWELL_RUN/mail-fake.pid" "$SETWELL_LOGS/mail-fake.log" node --require ./scripts/outside-next.cjs --import tsx scripts/mail-fake.ts
 wait_for_port 127.0.0.1 "$MAIL_FAKE_HTTP_PORT" 30
 # The test profile always points S3_ENDPOINT at the fake (an inherited endpoint is dropped).
-start_background "S3 fake" "$SETWELL_RUN/s3-fake.pid" "$SETWELL_LOGS/s3-fake.log" node --import tsx scripts/s3-fake.ts
+start_background "S3 fake" "$SETWELL_RUN/s3-fake.pid" "$SETWELL_LOGS/s3-fake.log" node --require ./scripts/outside-next.cjs --import tsx scripts/s3-fake.ts
 wait_for_port 127.0.0.1 "$S3_FAKE_PORT" 30
 
 npm run --silent db:migrate

@@ -1,3 +1,4 @@
+import 'server-only';
 /** Signed-out account flows and the user's own preferences. */
 import type { EntityManager } from '@mikro-orm/postgresql';
 import { getEm } from '@/lib/db';

@@ -1,3 +1,4 @@
+import 'server-only';
 /** Reads of the signed-out account flows. */
 import { getEm } from '@/lib/db';
 import { Invitation, User } from '@/entities';

@@ -1,3 +1,4 @@
+import 'server-only';
 /** Personal API tokens: each belongs to its creator in the workspace it was made in. */
 import { getEm } from '@/lib/db';
 import { ApiToken } from '@/entities';

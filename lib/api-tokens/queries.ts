@@ -1,3 +1,4 @@
+import 'server-only';
 /** Reads of personal API tokens: the signed-in person's own, never anyone else's. */
 import { getEm } from '@/lib/db';
 import { ApiToken } from '@/entities';

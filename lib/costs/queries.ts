@@ -1,3 +1,4 @@
+import 'server-only';
 /**
  * Cost reads: loads the prices a set of formulas needs (one history read per kind, for the whole
  * range of days asked) and costs them with lib/costing. Callers hold `prices.read`.

@@ -1,3 +1,4 @@
+import 'server-only';
 /** Formula writes. Every save is a new immutable revision; the formula row tracks the latest number. */
 import { LockMode } from '@mikro-orm/core';
 import { getEm } from '@/lib/db';

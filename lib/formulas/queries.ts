@@ -1,3 +1,4 @@
+import 'server-only';
 import { getEm } from '@/lib/db';
 import { Formula, FormulaRevision } from '@/entities';
 import { inWorkspace, notFound, type Actor } from '@/lib/permissions';

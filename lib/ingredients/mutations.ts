@@ -1,3 +1,4 @@
+import 'server-only';
 /** Ingredient library writes, shared by the server actions and the API. */
 import { wrap } from '@mikro-orm/core';
 import type { EntityManager } from '@mikro-orm/postgresql';

@@ -1,3 +1,4 @@
+import 'server-only';
 import type { EntityManager } from '@mikro-orm/postgresql';
 import { getEm } from '@/lib/db';
 import { Ingredient } from '@/entities';

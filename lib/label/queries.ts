@@ -1,3 +1,4 @@
+import 'server-only';
 /**
  * Labels of stored formulas, variants and production versions. A stored line keeps the chemistry
  * of its ingredient as saved; its label data is read from the library now, which is why a

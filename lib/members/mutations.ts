@@ -1,3 +1,4 @@
+import 'server-only';
 /** Member administration. The API handlers and the server actions both call these. */
 import { LockMode } from '@mikro-orm/core';
 import { getEm } from '@/lib/db';

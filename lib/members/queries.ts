@@ -1,3 +1,4 @@
+import 'server-only';
 import { getEm } from '@/lib/db';
 import { Invitation, Membership } from '@/entities';
 import { inWorkspace, type Actor } from '@/lib/permissions';

@@ -1,3 +1,4 @@
+import 'server-only';
 /**
  * Notebook writes. A save names the version it started from; when someone else saved in the
  * meantime the incoming document is kept whole as a conflict row beside the entry, never

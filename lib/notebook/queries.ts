@@ -1,3 +1,4 @@
+import 'server-only';
 /** Reading notebook entries: always scoped to the actor's workspace and the trial (404 otherwise). */
 import { getEm } from '@/lib/db';
 import { NotebookConflict, NotebookEntry } from '@/entities';

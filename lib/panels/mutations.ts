@@ -1,3 +1,4 @@
+import 'server-only';
 /** Panel sessions from the organiser's side: create, open, invite, close. */
 import type { EntityManager } from '@mikro-orm/postgresql';
 import { randomInt } from 'node:crypto';

@@ -1,3 +1,4 @@
+import 'server-only';
 /** The organiser's reads: sessions, live progress and the kitchen serving sheet (staff only). */
 import { getEm } from '@/lib/db';
 import { PanelAnswer, PanelSample, PanelSeat, PanelSession, SensoryAttributeDef, Variant } from '@/entities';

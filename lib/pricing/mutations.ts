@@ -1,3 +1,4 @@
+import 'server-only';
 /** Price and packaging writes, shared by the server actions and the API. Every point is an insert; a withdrawal is the only change. */
 import type { EntityManager } from '@mikro-orm/postgresql';
 import { getEm } from '@/lib/db';

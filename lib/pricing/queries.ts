@@ -1,3 +1,4 @@
+import 'server-only';
 /**
  * Price and packaging reads. The costing reads take a workspace id (the caller has authorised
  * `prices.read`) and answer many ingredients and many dates in one statement each: "the latest

@@ -1,3 +1,4 @@
+import 'server-only';
 /**
  * Production writes: promotion requests and decisions, the versions they create, and batch records.
  * Every step writes an audit event in the same transaction, so the trail and the change stand or

@@ -1,3 +1,4 @@
+import 'server-only';
 /** Production reads: the review queue, products and their versions, batch records, the audit trail. */
 import { getEm } from '@/lib/db';
 import { AuditEvent, BatchDecision, BatchRecord, Product, ProductionFormula, PromotionRequest, Trial, Variant } from '@/entities';

@@ -1,3 +1,4 @@
+import 'server-only';
 /** Writes of the results feature: the developer's recommendation of a trial's variant. */
 import { getEm } from '@/lib/db';
 import { Trial, Variant } from '@/entities';

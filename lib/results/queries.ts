@@ -1,3 +1,4 @@
+import 'server-only';
 /** Loads a session's answers for analysis and export. Staff only: this is where samples are unblinded. */
 import { getEm } from '@/lib/db';
 import { PanelAnswer, PanelSeat } from '@/entities';

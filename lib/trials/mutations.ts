@@ -1,3 +1,4 @@
+import 'server-only';
 /** Trial writes, shared by the server actions and the API. */
 import type { EntityManager } from '@mikro-orm/postgresql';
 import { LockMode } from '@mikro-orm/core';

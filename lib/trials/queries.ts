@@ -1,3 +1,4 @@
+import 'server-only';
 import { getEm } from '@/lib/db';
 import { Formula, FormulaRevision, Measurement, MeasurementChange, Trial, TrialStatusChange, Variant } from '@/entities';
 import { inWorkspace, notFound, type Actor } from '@/lib/permissions';

@@ -1,3 +1,4 @@
+import 'server-only';
 /** Upload writes, shared by the API and any server action: checks, object storage, then the row. */
 import { randomUUID } from 'node:crypto';
 import { getEm } from '@/lib/db';

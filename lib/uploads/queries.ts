@@ -1,3 +1,4 @@
+import 'server-only';
 /** Upload reads, scoped to the actor's workspace; another workspace's upload is a plain 404. */
 import { getEm } from '@/lib/db';
 import { Upload } from '@/entities';

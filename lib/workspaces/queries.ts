@@ -1,3 +1,4 @@
+import 'server-only';
 import { getEm } from '@/lib/db';
 import { Membership } from '@/entities';
 import type { Role } from '@/lib/permissions';

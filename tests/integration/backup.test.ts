@@ -67,7 +67,7 @@ beforeAll(async () => {
   await withDb('postgres', (c) => c.query(`create database ${SOURCE}`));
   const env = { DATABASE_URL: urlFor(SOURCE), LOG_LEVEL: 'silent' };
   for (const script of ['scripts/migrate.ts', 'scripts/seed.ts']) {
-    const r = run('node', ['--import', 'tsx', script], env);
+    const r = run('node', ['--require', './scripts/outside-next.cjs', '--import', 'tsx', script], env);
     if (r.status !== 0) throw new Error(`${script} failed: ${r.stderr}`);
   }
 }, 240_000);
