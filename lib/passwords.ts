@@ -3,8 +3,6 @@ import bcrypt from 'bcryptjs';
 
 const BCRYPT_COST = 11;
 
-export { PASSWORD_RULES, passwordSchema } from '@/lib/password-rules';
-
 export function hashPassword(password: string): Promise<string> {
   return bcrypt.hash(password, BCRYPT_COST);
 }

@@ -1,5 +1,5 @@
 import { z } from 'zod';
-import { passwordSchema } from '@/lib/passwords';
+import { passwordSchema } from '@/lib/password-rules';
 import { email, name } from '@/lib/input';
 
 /** Compare the two passwords even while another field is invalid, so the form can re-check the repeat as it is typed. */
