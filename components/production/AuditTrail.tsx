@@ -1,4 +1,4 @@
-import type { AuditView } from '@/lib/production/queries';
+import type { AuditView } from '@/lib/production/schema';
 import { ROLE_LABELS, type Role } from '@/lib/permissions';
 import { formatDateTime } from '@/lib/format/dates';
 import { TableBox } from '@/components/ui/TableBox';

@@ -1,5 +1,5 @@
 import Link from 'next/link';
-import type { BatchView } from '@/lib/production/queries';
+import type { BatchView } from '@/lib/production/schema';
 import { DISPOSITION_LABELS } from '@/lib/production/vocabulary';
 import { formatMass, formatTemperature, type UnitPreference } from '@/lib/chemistry';
 import { StatusBadge } from './StatusBadge';

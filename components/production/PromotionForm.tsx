@@ -6,7 +6,7 @@ import { Button } from '@/components/ui/Button';
 import { Field, FieldErrorText, SelectField, inputClass } from '@/components/ui/Field';
 import { Notice } from '@/components/ui/Notice';
 import { qcSpecCautions, type QcSpec } from '@/lib/chemistry';
-import type { PromotionDraftVariant, PromotionTargetProduct } from '@/lib/production/queries';
+import type { PromotionDraftVariant, PromotionTargetProduct } from '@/lib/production/schema';
 import { describeIdentity, identityDifferences } from '@/lib/production/review';
 import type { PromotionTarget } from '@/lib/production/vocabulary';
 import { requestPromotionAction } from '@/lib/production/actions';

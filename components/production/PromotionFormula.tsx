@@ -1,5 +1,5 @@
 import { formatMass, type UnitPreference } from '@/lib/chemistry';
-import type { PromotionView } from '@/lib/production/queries';
+import type { PromotionView } from '@/lib/production/schema';
 import type { FormulaRevisionView, FormulaSettingsInput, RevisionLine } from '@/lib/formulas/schema';
 import { RevisionDiff } from '@/components/formulas/RevisionDiff';
 

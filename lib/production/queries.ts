@@ -5,71 +5,18 @@ import { AuditEvent, BatchDecision, BatchRecord, Product, ProductionFormula, Pro
 import { awaitsAnotherDecider, inWorkspace, mayDecide, mayWithdraw, notFound, type Actor } from '@/lib/permissions';
 import { trialCode } from '@/lib/trials/access';
 import { toCsv } from '@/lib/csv';
-import { defaultQcSpec, estimateEndPoint, outcomeOfChecks, qcSpecCautions, type Caution, type ComplianceReport, type QcCheck, type QcSpec, type PreservationMethod } from '@/lib/chemistry';
+import { defaultQcSpec, estimateEndPoint, outcomeOfChecks, qcSpecCautions, type ComplianceReport, type QcCheck, type QcSpec } from '@/lib/chemistry';
 import { getTrialOverview } from '@/lib/trials/queries';
 import type { FormulaSettingsInput, RevisionLine } from '@/lib/formulas/schema';
-import type { ProductionProcess, PromotionEvidence, BatchSheetQuery } from './schema';
+import { DEFAULT_FILL_TEMP_C, type AuditView, type BatchDecisionView, type BatchSheetQuery, type BatchView, type BatchWorkItem, type ProductSummary, type ProductionProcess, type PromotionDraftVariant, type PromotionEvidence, type PromotionSummary, type PromotionTargetProduct, type PromotionView, type VersionSummary, type VersionView } from './schema';
 import { buildBatchSheet, type BatchSheet } from './sheet';
-import { fruitsOf, weighLines, type PromotionOutcome, type RecipeIdentity } from './review';
-import { promotionCode, type BatchDecisionKind, type BatchOutcome, type BatchStatus, type Disposition, type PromotionStatus, type VersionStatus } from './vocabulary';
+import { fruitsOf, weighLines } from './review';
+import { promotionCode, type BatchDecisionKind, type BatchOutcome, type Disposition, type PromotionStatus, type VersionStatus } from './vocabulary';
 import { batchStanding, type BatchRetestReadings } from './holds';
 
 type Ref = { id: string };
 
-/** A few degrees above the hot-fill minimum, so the last jars of a batch still fill hot. Common practice, no published source. */
-export const DEFAULT_FILL_TEMP_C = 88;
 type Named = { id: string; name: string };
-
-export interface PromotionSummary {
-  id: string;
-  code: string;
-  status: PromotionStatus;
-  trial: { id: string; code: string; title: string };
-  variantLabel: string;
-  productLabel: string;
-  requestedBy: string;
-  requestedAt: string;
-  decidedAt: string | null;
-}
-
-export interface PromotionView extends PromotionSummary {
-  variantId: string;
-  product: { id: string; code: string; name: string } | null;
-  newProduct: { name: string; code: string } | null;
-  rationale: string;
-  process: ProductionProcess;
-  spec: QcSpec;
-  evidence: PromotionEvidence;
-  requestedById: string;
-  decidedBy: string | null;
-  decisionComment: string | null;
-  productionFormulaId: string | null;
-  /** The permissions module decides; the page only shows what it allows. */
-  canDecide: boolean;
-  /** The viewer holds the deciding role but made this request: another head of product decides it. */
-  awaitsAnotherDecider: boolean;
-  canWithdraw: boolean;
-  history: PromotionSummary[];
-  audit: AuditView[];
-  /** What approval does (or did): make a new product, or a new version superseding the one in production. */
-  outcome: PromotionOutcome;
-  /** The formula that goes (or went) to production: the variant's lines while pending, the version's once approved. */
-  formula: { settings: FormulaSettingsInput; lines: RevisionLine[]; weighed: ReturnType<typeof weighLines> } | null;
-  /** The version it is compared against: the one in production now, or (once approved) the one it superseded. */
-  baseline: { id: string; version: number; productName: string; settings: FormulaSettingsInput; lines: RevisionLine[] } | null;
-}
-
-export interface AuditView {
-  id: string;
-  at: string;
-  actorName: string;
-  actorRole: string;
-  action: string;
-  summary: string;
-  subjectType: string;
-  subjectId: string;
-  promotionRequestId: string | null;
-}
 
 type RequestRow = {
   id: string; number: number; status: PromotionStatus; trial: { id: string; number: number; title: string }; variantId: string; variantLabel: string;
@@ -161,17 +108,6 @@ export async function reviewQueue(actor: Actor): Promise<Array<PromotionSummary 
   return rows.map((r) => ({ ...summary(r), ownRequest: r.requestedBy.id === actor.userId }));
 }
 
-export interface ProductSummary {
-  id: string;
-  code: string;
-  name: string;
-  current: { id: string; version: number; approvedAt: string } | null;
-  versionCount: number;
-  batchCount: number;
-  failedCount: number;
-  lastBatchDate: string | null;
-}
-
 type VersionRow = {
   id: string; product: { id: string; code: string; name: string }; version: number; status: VersionStatus; settings: FormulaSettingsInput; lines: RevisionLine[];
   process: ProductionProcess; compliance: ComplianceReport; spec: QcSpec; sourceTrial: { id: string; number: number; title: string }; sourceVariantId: string;
@@ -189,18 +125,6 @@ type DecisionRow = {
   id: string; batch: Ref; kind: BatchDecisionKind; readings: BatchRetestReadings | null; checks: QcCheck[] | null; outcome: BatchOutcome | null;
   comment: string; decidedBy: Named; createdAt: Date;
 };
-
-/** A re-test, release or reject of a held batch. */
-export interface BatchDecisionView {
-  id: string;
-  kind: BatchDecisionKind;
-  readings: BatchRetestReadings | null;
-  checks: QcCheck[] | null;
-  outcome: BatchOutcome | null;
-  comment: string;
-  decidedBy: string;
-  at: string;
-}
 
 export async function listProducts(actor: Actor): Promise<ProductSummary[]> {
   const em = await getEm();
@@ -220,66 +144,6 @@ export async function listProducts(actor: Actor): Promise<ProductSummary[]> {
       lastBatchDate: own.map((b) => b.batchDate).sort().at(-1) ?? null,
     };
   });
-}
-
-export interface VersionSummary {
-  id: string;
-  version: number;
-  status: VersionStatus;
-  approvedAt: string;
-  approvedBy: string;
-  supersededAt: string | null;
-  supersededByVersion: number | null;
-  source: { trialId: string; trialCode: string; variantLabel: string };
-  promotionRequestId: string;
-}
-
-export interface VersionView extends VersionSummary {
-  product: { id: string; code: string; name: string };
-  settings: FormulaSettingsInput;
-  lines: RevisionLine[];
-  process: ProductionProcess;
-  compliance: ComplianceReport;
-  spec: QcSpec;
-  trialTitle: string;
-  audit: AuditView[];
-  batches: BatchView[];
-}
-
-export interface BatchView {
-  id: string;
-  lotCode: string;
-  batchDate: string;
-  version: number;
-  versionId: string;
-  batchSizeG: number;
-  brixReading: number;
-  brixSampleTempC: number;
-  brix20: number;
-  ph: number;
-  fillTempC: number;
-  netFillMeanG: number | null;
-  netFillMinG: number | null;
-  setTestScore: number | null;
-  jarsFilled: number;
-  jarsRejected: number;
-  notes: string | null;
-  checks: QcCheck[];
-  /** The outcome at recording: a missing required check shows as incomplete, even on rows stored before that rule. */
-  outcome: BatchOutcome;
-  disposition: Disposition | null;
-  dispositionComment: string | null;
-  recordedBy: string;
-  /** Where the batch stands now, the latest checks (after any re-test), and what may follow. */
-  status: BatchStatus;
-  latestOutcome: BatchOutcome;
-  latestChecks: QcCheck[];
-  canRetest: boolean;
-  canRelease: boolean;
-  canReject: boolean;
-  decisions: BatchDecisionView[];
-  /** The spec this batch was checked against, for the trend chart's limits. */
-  limits: { solidsMin: number; solidsMax: number; phMin: number; phMax: number };
 }
 
 function versionSummary(v: VersionRow): VersionSummary {
@@ -384,16 +248,6 @@ export async function listAuditEvents(actor: Actor, options: { limit?: number } 
   return rows.map(toAuditView);
 }
 
-/** A product a variant could become the next version of, with what is in production now. */
-export interface PromotionTargetProduct {
-  id: string;
-  code: string;
-  name: string;
-  /** The version in production; null if none is (then the next version is `nextVersion`). */
-  current: ({ version: number } & RecipeIdentity) | null;
-  nextVersion: number;
-}
-
 /** Products to promote a new version of, each with the product class and fruit of its version in production. */
 export async function listPromotableProducts(actor: Actor): Promise<PromotionTargetProduct[]> {
   const em = await getEm();
@@ -451,19 +305,6 @@ export async function batchesCsv(actor: Actor, productId: string): Promise<{ csv
   return { csv, filename: `${product.code}-batches.csv` };
 }
 
-export interface PromotionDraftVariant {
-  id: string;
-  label: string;
-  description: string;
-  complianceOverall: string | null;
-  productClass: string;
-  /** How the variant is preserved besides sugar, when stated (it grades the reduced-sugar caution). */
-  preservation: PreservationMethod | null;
-  fruits: string[];
-  /** Null when the variant's chemistry cannot be computed. */
-  defaults: { spec: QcSpec; process: ProductionProcess; cautions: Caution[] } | null;
-}
-
 /** What the request form starts from: each variant's default spec and process, and the recommendation. */
 export async function getPromotionDraft(actor: Actor, trialId: string): Promise<{
   trial: { id: string; code: string; title: string };
@@ -499,17 +340,6 @@ export async function getPromotionDraft(actor: Actor, trialId: string): Promise<
     products: await listPromotableProducts(actor),
     pending,
   };
-}
-
-export interface BatchWorkItem {
-  id: string;
-  lotCode: string;
-  batchDate: string;
-  productId: string;
-  productName: string;
-  /** Where the batch stands after its re-tests and decisions (a released batch is no longer held). */
-  status: BatchView['status'];
-  latestOutcome: BatchView['latestOutcome'];
 }
 
 /** The kitchen's worklist: batches still on hold (not yet released or rejected), and the batches recorded today. */

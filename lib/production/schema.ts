@@ -4,6 +4,11 @@ import { boundedNumber, isoDate, longText, numberFromText, text, wholeNumber } f
 import { qcSpecProblems, type QcSpec } from '@/lib/chemistry/qc';
 import type { PreservationMethod } from '@/lib/chemistry/guidance';
 import { DISPOSITIONS, LOT_CODE_PATTERN, PRODUCT_CODE_PATTERN, PROMOTION_STATUSES, PROMOTION_TARGETS } from './vocabulary';
+import type { Caution, ComplianceReport, QcCheck } from '@/lib/chemistry';
+import type { FormulaSettingsInput, RevisionLine } from '@/lib/formulas/schema';
+import type { PromotionOutcome, RecipeIdentity, weighLines } from './review';
+import type { BatchRetestReadings } from './holds';
+import type { BatchDecisionKind, BatchOutcome, BatchStatus, Disposition, PromotionStatus, VersionStatus } from './vocabulary';
 
 /** How the kitchen makes it: frozen into every production version. Temperatures in °C. */
 export interface ProductionProcess {
@@ -186,3 +191,176 @@ export const batchSheetQuerySchema = z
 export type BatchSheetQuery = z.infer<typeof batchSheetQuerySchema>;
 
 export const promotionListQuerySchema = z.object({ status: z.enum(PROMOTION_STATUSES, { error: 'Unknown status.' }).optional() }).strict();
+
+// What the production pages and the API read (lib/production/queries.ts builds them).
+
+/** A few degrees above the hot-fill minimum, so the last jars of a batch still fill hot. Common practice, no published source. */
+export const DEFAULT_FILL_TEMP_C = 88;
+
+export interface PromotionSummary {
+  id: string;
+  code: string;
+  status: PromotionStatus;
+  trial: { id: string; code: string; title: string };
+  variantLabel: string;
+  productLabel: string;
+  requestedBy: string;
+  requestedAt: string;
+  decidedAt: string | null;
+}
+
+export interface PromotionView extends PromotionSummary {
+  variantId: string;
+  product: { id: string; code: string; name: string } | null;
+  newProduct: { name: string; code: string } | null;
+  rationale: string;
+  process: ProductionProcess;
+  spec: QcSpec;
+  evidence: PromotionEvidence;
+  requestedById: string;
+  decidedBy: string | null;
+  decisionComment: string | null;
+  productionFormulaId: string | null;
+  /** The permissions module decides; the page only shows what it allows. */
+  canDecide: boolean;
+  /** The viewer holds the deciding role but made this request: another head of product decides it. */
+  awaitsAnotherDecider: boolean;
+  canWithdraw: boolean;
+  history: PromotionSummary[];
+  audit: AuditView[];
+  /** What approval does (or did): make a new product, or a new version superseding the one in production. */
+  outcome: PromotionOutcome;
+  /** The formula that goes (or went) to production: the variant's lines while pending, the version's once approved. */
+  formula: { settings: FormulaSettingsInput; lines: RevisionLine[]; weighed: ReturnType<typeof weighLines> } | null;
+  /** The version it is compared against: the one in production now, or (once approved) the one it superseded. */
+  baseline: { id: string; version: number; productName: string; settings: FormulaSettingsInput; lines: RevisionLine[] } | null;
+}
+
+export interface AuditView {
+  id: string;
+  at: string;
+  actorName: string;
+  actorRole: string;
+  action: string;
+  summary: string;
+  subjectType: string;
+  subjectId: string;
+  promotionRequestId: string | null;
+}
+
+export interface ProductSummary {
+  id: string;
+  code: string;
+  name: string;
+  current: { id: string; version: number; approvedAt: string } | null;
+  versionCount: number;
+  batchCount: number;
+  failedCount: number;
+  lastBatchDate: string | null;
+}
+
+/** A re-test, release or reject of a held batch. */
+export interface BatchDecisionView {
+  id: string;
+  kind: BatchDecisionKind;
+  readings: BatchRetestReadings | null;
+  checks: QcCheck[] | null;
+  outcome: BatchOutcome | null;
+  comment: string;
+  decidedBy: string;
+  at: string;
+}
+
+export interface VersionSummary {
+  id: string;
+  version: number;
+  status: VersionStatus;
+  approvedAt: string;
+  approvedBy: string;
+  supersededAt: string | null;
+  supersededByVersion: number | null;
+  source: { trialId: string; trialCode: string; variantLabel: string };
+  promotionRequestId: string;
+}
+
+export interface VersionView extends VersionSummary {
+  product: { id: string; code: string; name: string };
+  settings: FormulaSettingsInput;
+  lines: RevisionLine[];
+  process: ProductionProcess;
+  compliance: ComplianceReport;
+  spec: QcSpec;
+  trialTitle: string;
+  audit: AuditView[];
+  batches: BatchView[];
+}
+
+export interface BatchView {
+  id: string;
+  lotCode: string;
+  batchDate: string;
+  version: number;
+  versionId: string;
+  batchSizeG: number;
+  brixReading: number;
+  brixSampleTempC: number;
+  brix20: number;
+  ph: number;
+  fillTempC: number;
+  netFillMeanG: number | null;
+  netFillMinG: number | null;
+  setTestScore: number | null;
+  jarsFilled: number;
+  jarsRejected: number;
+  notes: string | null;
+  checks: QcCheck[];
+  /** The outcome at recording: a missing required check shows as incomplete, even on rows stored before that rule. */
+  outcome: BatchOutcome;
+  disposition: Disposition | null;
+  dispositionComment: string | null;
+  recordedBy: string;
+  /** Where the batch stands now, the latest checks (after any re-test), and what may follow. */
+  status: BatchStatus;
+  latestOutcome: BatchOutcome;
+  latestChecks: QcCheck[];
+  canRetest: boolean;
+  canRelease: boolean;
+  canReject: boolean;
+  decisions: BatchDecisionView[];
+  /** The spec this batch was checked against, for the trend chart's limits. */
+  limits: { solidsMin: number; solidsMax: number; phMin: number; phMax: number };
+}
+
+/** A product a variant could become the next version of, with what is in production now. */
+export interface PromotionTargetProduct {
+  id: string;
+  code: string;
+  name: string;
+  /** The version in production; null if none is (then the next version is `nextVersion`). */
+  current: ({ version: number } & RecipeIdentity) | null;
+  nextVersion: number;
+}
+
+export interface PromotionDraftVariant {
+  id: string;
+  label: string;
+  description: string;
+  complianceOverall: string | null;
+  productClass: string;
+  /** How the variant is preserved besides sugar, when stated (it grades the reduced-sugar caution). */
+  preservation: PreservationMethod | null;
+  fruits: string[];
+  /** Null when the variant's chemistry cannot be computed. */
+  defaults: { spec: QcSpec; process: ProductionProcess; cautions: Caution[] } | null;
+}
+
+export interface BatchWorkItem {
+  id: string;
+  lotCode: string;
+  batchDate: string;
+  productId: string;
+  productName: string;
+  /** Where the batch stands after its re-tests and decisions (a released batch is no longer held). */
+  status: BatchView['status'];
+  latestOutcome: BatchView['latestOutcome'];
+}

@@ -2,7 +2,7 @@
 import { afterEach, describe, expect, it } from 'vitest';
 import { cleanup, render, screen, within } from '@testing-library/react';
 import { BatchTable } from '@/components/production/BatchTable';
-import type { BatchView } from '@/lib/production/queries';
+import type { BatchView } from '@/lib/production/schema';
 import type { QcCheck } from '@/lib/chemistry';
 
 const check = (key: QcCheck['key'], status: QcCheck['status']): QcCheck => ({ key, label: key === 'set' ? 'Set test' : key, value: null, limit: '', status, reason: `${key} ${status}` });

@@ -4,7 +4,7 @@ import { cleanup, fireEvent, render, screen, within } from '@testing-library/rea
 import { defaultQcSpec, computeBatch } from '@/lib/chemistry';
 import { toChemistrySettings } from '@/lib/formulas/compute';
 import { weighLines, identityDifferences, fruitsOf } from '@/lib/production/review';
-import type { PromotionDraftVariant, PromotionTargetProduct } from '@/lib/production/queries';
+import type { PromotionDraftVariant, PromotionTargetProduct } from '@/lib/production/schema';
 import { IDS, PRACTICAL_ACTION_LINES, SUGAR, PECTIN_200, line, settings } from '../formulas-library/fixtures';
 
 const { push } = vi.hoisted(() => ({ push: vi.fn() }));

@@ -1,7 +1,8 @@
 import Link from 'next/link';
 import { requirePage, orNotFound, pageId } from '@/lib/page-guard';
 import { can } from '@/lib/permissions';
-import { getProduct, type BatchView } from '@/lib/production/queries';
+import { getProduct } from '@/lib/production/queries';
+import { type BatchView } from '@/lib/production/schema';
 import { PageHeader, Card } from '@/components/ui/Card';
 import { buttonClass } from '@/components/ui/Button';
 import { StatusBadge } from '@/components/production/StatusBadge';
