@@ -8,6 +8,7 @@
  */
 export * from './terms';
 export * from './regression';
+export * from './curvature';
 export * from './linear-algebra';
 export * from './surface';
 export * from './desirability';
