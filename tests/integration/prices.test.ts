@@ -12,7 +12,7 @@ import * as settingsRoute from '@/app/api/v1/cost-settings/route';
 import * as packFormatsRoute from '@/app/api/v1/pack-formats/route';
 import * as versionPackRoute from '@/app/api/v1/production-versions/[versionId]/pack-format/route';
 import { getEm } from '@/lib/db';
-import { AuditEvent, IngredientPrice, ProductionFormula } from '@/entities';
+import { AuditEvent, Ingredient, IngredientPrice, ProductionFormula } from '@/entities';
 import { packagingPricesAsOf, packFormatsByIds, priceHistory, pricesAsOf, pricesAsOfDates } from '@/lib/pricing/queries';
 import { addIngredientPrice, addPackagingPrice, createPackagingItem, createPackFormat, saveCostSettings, withdrawIngredientPrice } from '@/lib/pricing/mutations';
 
@@ -153,6 +153,57 @@ describe('CSV import is all or nothing', () => {
     const exported = await callRoute(exportRoute.GET, { method: 'GET', path: '', caller: admin() });
     expect(exported.status).toBe(200);
     expect(exported.body).toContain('Sucrose (white sugar),2026-09-01,32.40,25000,g,,EUR');
+  });
+});
+
+describe('CSV re-import adds nothing already on record', () => {
+  it('counts the rows already present instead of adding them again, keeps new facts, and two imports of one file at once land it once', async () => {
+    const em = await getEm();
+    const raspberry = (await em.findOneOrFail(Ingredient, { id: ids.raspberry })).name;
+    const points = () => em.fork().count(IngredientPrice, { workspace: a.workspaceId, ingredient: ids.raspberry });
+    const file = [
+      'ingredient,valid_from,pack_price,pack_size,pack_unit,supplier,currency',
+      `${raspberry},2026-04-01,48.00,10,kg,Berry farm,EUR`,
+      `${raspberry},2026-05-01,52.00,10,kg,Berry farm,EUR`,
+      `${raspberry},2026-05-01,52.00,10,kg,Berry farm,EUR`, // the same row twice in one file
+    ].join('\n');
+    const first = await callRoute(importRoute.POST, { method: 'POST', path: '', caller: admin(), body: { csv: file } });
+    expect(first.status, JSON.stringify(first.body)).toBe(201);
+    expect(first.body).toEqual({ imported: 2, alreadyPresent: 1 });
+    expect(await points()).toBe(2);
+
+    const again = await callRoute(importRoute.POST, { method: 'POST', path: '', caller: admin(), body: { csv: file } });
+    expect(again.status).toBe(201);
+    expect(again.body).toEqual({ imported: 0, alreadyPresent: 3 });
+    expect(await points()).toBe(2);
+
+    // Same day and price written differently (kg vs g, case of the name) is the same point; another supplier,
+    // another pack size or another price on that day is a new fact and lands.
+    const mixed = [
+      'ingredient,valid_from,pack_price,pack_size,pack_unit,supplier',
+      `${raspberry.toUpperCase()},2026-04-01,48,10000,g,Berry farm`,
+      `${raspberry},2026-04-01,48.00,10,kg,Other farm`,
+      `${raspberry},2026-04-01,48.00,5,kg,Berry farm`,
+      `${raspberry},2026-04-01,47.00,10,kg,Berry farm`,
+    ].join('\n');
+    const third = await callRoute(importRoute.POST, { method: 'POST', path: '', caller: admin(), body: { csv: mixed } });
+    expect(third.body).toEqual({ imported: 3, alreadyPresent: 1 });
+    expect(await points()).toBe(5);
+
+    // A withdrawn point no longer counts as present: importing it again records it anew.
+    const [withdrawn] = await em.fork().find(IngredientPrice, { workspace: a.workspaceId, ingredient: ids.raspberry, validFrom: '2026-05-01' });
+    await withdrawIngredientPrice(actorOf(a, 'admin'), withdrawn.id, 'Entered against the wrong lot');
+    const afterWithdrawal = await callRoute(importRoute.POST, { method: 'POST', path: '', caller: admin(), body: { csv: file } });
+    expect(afterWithdrawal.body).toEqual({ imported: 1, alreadyPresent: 2 });
+    expect(await points()).toBe(6);
+
+    // The same new file sent twice at the same moment: the imports take turns, so it lands once.
+    const fresh = `ingredient,valid_from,pack_price,pack_size,pack_unit\n${raspberry},2026-07-01,55.00,10,kg\n${raspberry},2026-08-01,56.00,10,kg\n`;
+    const both = await Promise.all([0, 1].map(() => callRoute(importRoute.POST, { method: 'POST', path: '', caller: admin(), body: { csv: fresh } })));
+    expect(both.map((r) => r.status)).toEqual([201, 201]);
+    expect(both.map((r) => r.body.imported).sort()).toEqual([0, 2]);
+    expect(both.map((r) => r.body.alreadyPresent).sort()).toEqual([0, 2]);
+    expect(await points()).toBe(8);
   });
 });
 
