@@ -13,7 +13,10 @@ import * as packFormatsRoute from '@/app/api/v1/pack-formats/route';
 import * as versionPackRoute from '@/app/api/v1/production-versions/[versionId]/pack-format/route';
 import { getEm } from '@/lib/db';
 import { AuditEvent, Ingredient, IngredientPrice, ProductionFormula } from '@/entities';
-import { packagingPricesAsOf, packFormatsByIds, priceHistory, pricesAsOf, pricesAsOfDates } from '@/lib/pricing/queries';
+import {
+  costingData, costSettings, packagingPriceHistory, packagingPricesAsOf, packagingPricesAsOfDates, packFormatsByIds, priceHistory, pricesAsOf, pricesAsOfDates, refuseShares,
+} from '@/lib/pricing/queries';
+import { historiesBy, priceOn } from '@/lib/costing';
 import { addIngredientPrice, addPackagingPrice, createPackagingItem, createPackFormat, saveCostSettings, withdrawIngredientPrice } from '@/lib/pricing/mutations';
 
 let a: WorkspaceFixture;
@@ -61,6 +64,37 @@ describe('the price in force on a day', () => {
   it('gives the history of a range with the point already in force at its start, one point per day', async () => {
     const history = await priceHistory(a.workspaceId, [ids.sucrose], { from: '2026-02-01', to: '2026-06-30' });
     expect(history.map((p) => [p.validFrom, p.packPriceMinor])).toEqual([['2026-01-10', 2500], ['2026-03-01', 2650], ['2026-06-15', 3000]]);
+  });
+
+  it('answers a costing in one statement with what the separate reads answer, day by day', async () => {
+    const dev = actorOf(a, 'developer');
+    const lid = (await createPackagingItem(dev, { name: 'One-statement lid', kind: 'lid' })).packagingItemId;
+    const jar = (await createPackagingItem(dev, { name: 'One-statement jar', kind: 'jar' })).packagingItemId;
+    await addPackagingPrice(dev, { packagingItemId: lid, packPrice: '60.00', piecesPerPack: 1000, supplier: null, validFrom: '2026-02-01' });
+    await addPackagingPrice(dev, { packagingItemId: lid, packPrice: '66.00', piecesPerPack: 1000, supplier: null, validFrom: '2026-04-01' });
+    await addPackagingPrice(dev, { packagingItemId: jar, packPrice: '300.00', piecesPerPack: 1200, supplier: null, validFrom: '2026-03-15' });
+    const { packFormatId } = await createPackFormat(dev, { name: 'One-statement 340 g', netFillG: 340, items: [{ packagingItemId: jar, pieces: 1, perJars: 1 }, { packagingItemId: lid, pieces: 1, perJars: 1 }] });
+    const range = { from: '2026-01-05', to: '2026-07-01' };
+    const one = await costingData(a.workspaceId, { ingredientIds: [ids.sucrose, ids.strawberry, 'not-an-id'], packFormatIds: [packFormatId], ...range });
+    expect(one.settings).toEqual(await costSettings(a.workspaceId));
+    expect(one.refuse).toEqual(await refuseShares(a.workspaceId, [ids.sucrose, ids.strawberry]));
+    expect(one.packFormats).toEqual(await packFormatsByIds(a.workspaceId, [packFormatId]));
+    expect(one.ingredientPoints).toEqual(await priceHistory(a.workspaceId, [ids.sucrose, ids.strawberry], range));
+    expect(one.packagingPoints).toEqual(await packagingPriceHistory(a.workspaceId, [jar, lid], range));
+    // Every day of the range: the point the history gives equals the one the as-of statement finds.
+    const sugar = historiesBy(one.ingredientPoints, (p) => p.ingredientId).get(ids.sucrose)!;
+    const lids = historiesBy(one.packagingPoints, (p) => p.packagingItemId).get(lid)!;
+    const days: string[] = [];
+    for (let t = Date.parse(`${range.from}T00:00:00Z`); t <= Date.parse(`${range.to}T00:00:00Z`); t += 86_400_000) days.push(new Date(t).toISOString().slice(0, 10));
+    const asOf = await pricesAsOfDates(a.workspaceId, [ids.sucrose], days);
+    const lidAsOf = await packagingPricesAsOfDates(a.workspaceId, [lid], days);
+    for (const day of days) {
+      expect(priceOn(sugar, day), day).toEqual(asOf.get(day)!.get(ids.sucrose) ?? null);
+      expect(priceOn(lids, day), day).toEqual(lidAsOf.get(day)!.get(lid) ?? null);
+    }
+    // The lid's first point is after the range starts: before it, unknown.
+    expect(priceOn(lids, '2026-01-31')).toBeNull();
+    expect(priceOn(lids, '2026-04-01')?.unitPriceMinor).toBe(6.6);
   });
 
   it('stores pounds as grams (1 lb = 453.59237 g)', async () => {
