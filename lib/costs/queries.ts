@@ -3,14 +3,14 @@
  * range of days asked) and costs them with lib/costing. Callers hold `prices.read`.
  */
 import { getEm } from '@/lib/db';
-import { BatchRecord, Ingredient, Trial } from '@/entities';
+import { BatchRecord, Ingredient, PackFormat, Trial } from '@/entities';
 import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
 import { todayIso, isoDate } from '@/lib/format/dates';
 import { batchActualCostPerJar, changePct, costStoredFormula, historiesBy, type IngredientPricePoint, type PackagingPricePoint, type PackFormatData } from '@/lib/costing';
 import type { FormulaSettingsInput, RevisionLine } from '@/lib/formulas/schema';
 import { sql } from '@/lib/sql';
 import { isUuid } from '@/lib/ids';
-import { costingData, costSettings, packagingPricesAsOf, packFormatList, pricesAsOf, refuseShares } from '@/lib/pricing/queries';
+import { costingData } from '@/lib/pricing/queries';
 import type { BatchCost, CostResult, EditorCostBasis, FrozenCost, ProductCosts, TrialCosts, VersionCost } from './schema';
 
 /** Everything costFormula needs for some formulas over a range of days. */
@@ -60,29 +60,22 @@ export function costOn(basis: CostBasis, settings: FormulaSettingsInput, lines: 
 const ingredientIdsOf = (formulas: Array<{ lines: RevisionLine[] }>) => [...new Set(formulas.flatMap((f) => f.lines.map((l) => l.ingredientId)))];
 const refId = (ref: unknown) => (ref as { id: string } | null)?.id ?? null;
 
-/** The editor's prices on one day, for every ingredient and pack format of the workspace. */
+/** The editor's prices on one day, for every ingredient and (not archived) pack format of the workspace: two round trips. */
 export async function editorCostBasis(actor: Actor, asOf: string = todayIso()): Promise<EditorCostBasis> {
-  const em = await getEm();
-  const ingredientIds = (await em.find(Ingredient, { ...inWorkspace(actor) }, { fields: ['id'], limit: 5000 })).map((i) => i.id);
-  const [settings, formats, prices, refuse] = await Promise.all([
-    costSettings(actor.workspaceId),
-    packFormatList(actor),
-    pricesAsOf(actor.workspaceId, ingredientIds, asOf),
-    refuseShares(actor.workspaceId, ingredientIds),
+  const [ingredients, formats] = await Promise.all([
+    getEm().then((em) => em.find(Ingredient, { ...inWorkspace(actor) }, { fields: ['id'], limit: 5000 })),
+    getEm().then((em) => em.find(PackFormat, { ...inWorkspace(actor), archivedAt: null }, { fields: ['id'], orderBy: { name: 'asc' }, limit: 500 })),
   ]);
-  const packFormats = formats
-    .filter((f) => !f.archived)
-    .map((f) => ({ id: f.id, name: f.name, netFillG: f.netFillG, items: f.items.map((i) => ({ packagingItemId: i.packagingItemId, name: i.name, perJar: i.pieces / i.perJars })) }));
-  const itemIds = [...new Set(packFormats.flatMap((f) => f.items.map((i) => i.packagingItemId)))];
-  const packaging = await packagingPricesAsOf(actor.workspaceId, itemIds, asOf);
+  // From = to = asOf: each ingredient's and packaging item's one point in force that day.
+  const data = await costingData(actor.workspaceId, { ingredientIds: ingredients.map((i) => i.id), packFormatIds: formats.map((f) => f.id), from: asOf, to: asOf });
   return {
-    currency: settings.currency,
+    currency: data.settings.currency,
     asOf,
-    overfillPct: settings.overfillPct,
-    ingredientPrices: [...prices.values()],
-    packagingPrices: [...packaging.values()],
-    refuse: [...refuse.entries()],
-    packFormats,
+    overfillPct: data.settings.overfillPct,
+    ingredientPrices: data.ingredientPoints,
+    packagingPrices: data.packagingPoints,
+    refuse: [...data.refuse.entries()],
+    packFormats: formats.map((f) => data.packFormats.get(f.id)).filter((f): f is PackFormatData => !!f),
   };
 }
 

@@ -7,7 +7,7 @@
  */
 import { describe, it, expect } from 'vitest';
 import type { Page } from 'playwright-core';
-import { sharedBrowser, signIn, startWalk, WINDOWS } from './browser';
+import { sharedBrowser, signIn, startOwnTrial, startWalk, WINDOWS } from './browser';
 import { DEMO_USERS } from '@/lib/seed/demo';
 
 const browser = sharedBrowser();
@@ -71,13 +71,7 @@ describe.each(WINDOWS)('CSV imports from the screen (%s)', (size, viewport) => {
     const { page } = walk;
     await signIn(page, developer.email);
     // A trial of its own, so the demo's trials keep their cooks.
-    await page.goto('/trials/new');
-    const title = `E2E cooks import ${size} ${Date.now()}`;
-    await page.getByLabel('Title').fill(title);
-    await page.getByLabel('Question or hypothesis').fill('Do the cooks from the kitchen spreadsheet land as they were written?');
-    await page.getByLabel('Base formula').selectOption({ label: 'Hedgerow strawberry jam' });
-    await page.getByRole('button', { name: 'Start the trial' }).click();
-    await page.getByRole('heading', { level: 1, name: new RegExp(title) }).waitFor();
+    await startOwnTrial(page, { title: `E2E cooks import ${size} ${Date.now()}`, question: 'Do the cooks from the kitchen spreadsheet land as they were written?', formula: 'Hedgerow strawberry jam' });
     await page.getByRole('heading', { level: 2, name: 'Cooks from a spreadsheet' }).waitFor();
     await walk.stop('trial');
 

@@ -9,7 +9,7 @@
  */
 import { describe, it, expect } from 'vitest';
 import type { Page } from 'playwright-core';
-import { sharedBrowser, signIn, startWalk, WINDOWS, type Walk } from './browser';
+import { sharedBrowser, signIn, startOwnTrial, startWalk, WINDOWS, type Walk } from './browser';
 import { DEMO_USERS } from '@/lib/seed/demo';
 
 const browser = sharedBrowser();
@@ -72,13 +72,7 @@ describe.each(WINDOWS)('a version of our own (%s)', (size, viewport) => {
   it('is promoted by the developer and approved by the head of product', { timeout: 180_000 }, async () => {
     const dev = await startWalk(browser(), `version-cost-developer-${size}`, viewport);
     await signIn(dev.page, person('developer').email);
-    await dev.page.goto('/trials/new');
-    const title = `E2E version cost ${stamp}`;
-    await dev.page.getByLabel('Title').fill(title);
-    await dev.page.getByLabel('Question or hypothesis').fill('Does the base formula go to production as it stands?');
-    await dev.page.getByLabel('Base formula').selectOption({ label: 'Hedgerow strawberry jam' });
-    await dev.page.getByRole('button', { name: 'Start the trial' }).click();
-    await dev.page.getByRole('heading', { level: 1, name: new RegExp(title) }).waitFor();
+    await startOwnTrial(dev.page, { title: `E2E version cost ${stamp}`, question: 'Does the base formula go to production as it stands?', formula: 'Hedgerow strawberry jam' });
     await dev.page.goto(`${dev.page.url().replace(/\/$/, '')}/promote`);
     await dev.page.getByRole('heading', { level: 1, name: /Promote from T-\d{3}/ }).waitFor();
     const variant = dev.page.getByLabel('Variant', { exact: true });
