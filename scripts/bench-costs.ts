@@ -11,6 +11,7 @@ import path from 'node:path';
 import { randomUUID } from 'node:crypto';
 import { performance } from 'node:perf_hooks';
 import { getOrm, closeOrm } from '../lib/db';
+import { sql } from '../lib/sql';
 import { Membership, User, Workspace } from '../entities';
 import { addStarterLibrary } from '../lib/ingredients/mutations';
 import { starterIdsByKey } from '../lib/ingredients/queries';
@@ -117,8 +118,9 @@ async function main() {
     const basis = await loadCostBasis(b.actor.workspaceId, { ingredientIds: b.ingredientIds, packFormatIds: [...new Set(formulas.map((f) => f.pack_format_id!))], from: todayIso(new Date(Date.now() - DAYS * 86_400_000)), to: todayIso() });
     for (let r = 0; r < REPEATS; r++) {
       const t0 = performance.now();
-      const ing = await conn.execute(`select ingredient_id, valid_from, pack_price_minor, pack_size_g, supplier from ingredient_prices where workspace_id = ? and ingredient_id = any(?::uuid[]) and withdrawn_at is null order by ingredient_id, valid_from`, [b.actor.workspaceId, `{${b.ingredientIds.join(',')}}`]);
-      const pkg = await conn.execute(`select packaging_item_id, valid_from, pack_price_minor, pieces_per_pack, supplier from packaging_prices where workspace_id = ? and packaging_item_id = any(?::uuid[]) and withdrawn_at is null order by packaging_item_id, valid_from`, [b.actor.workspaceId, `{${b.itemIds.join(',')}}`]);
+      // Through the same pool (lib/sql) the cost reads use, so the ratio compares work, not drivers.
+      const ing = await sql(`select ingredient_id, valid_from, pack_price_minor, pack_size_g, supplier from ingredient_prices where workspace_id = $1 and ingredient_id = any($2::uuid[]) and withdrawn_at is null order by ingredient_id, valid_from`, [b.actor.workspaceId, b.ingredientIds]);
+      const pkg = await sql(`select packaging_item_id, valid_from, pack_price_minor, pieces_per_pack, supplier from packaging_prices where workspace_id = $1 and packaging_item_id = any($2::uuid[]) and withdrawn_at is null order by packaging_item_id, valid_from`, [b.actor.workspaceId, b.itemIds]);
       const t1 = performance.now();
       const trial = await trialCosts(b.actor, b.trialId);
       const product = await productCosts(b.actor, b.productId);

@@ -1,13 +1,10 @@
 'use client';
 
-import { useState } from 'react';
-import { useRouter } from 'next/navigation';
 import { Field, SelectField } from '@/components/ui/Field';
 import { Button } from '@/components/ui/Button';
-import { Notice } from '@/components/ui/Notice';
-import { useFormAction } from '@/components/ui/useFormAction';
 import { saveCostSettingsAction } from '@/lib/pricing/actions';
 import { typedNumber } from './numbers';
+import { FormNotices, usePriceForm } from './usePriceForm';
 
 /** Currency (fixed once prices exist), filling overfill and the cost-change warning threshold. */
 export function CostSettingsForm({ settings, currencies, currencyLocked }: {
@@ -15,26 +12,12 @@ export function CostSettingsForm({ settings, currencies, currencyLocked }: {
   currencies: { code: string; label: string }[];
   currencyLocked: boolean;
 }) {
-  const router = useRouter();
-  const form = useFormAction(saveCostSettingsAction);
-  const [values, setValues] = useState({ currency: settings.currency ?? '', overfillPct: String(settings.overfillPct), costWarningPct: String(settings.costWarningPct) });
-  const [saved, setSaved] = useState(false);
-  const change = (key: keyof typeof values) => (e: React.ChangeEvent<HTMLInputElement | HTMLSelectElement>) => {
-    setValues({ ...values, [key]: e.target.value });
-    setSaved(false);
-  };
-  async function submit(e: React.FormEvent) {
-    e.preventDefault();
-    const result = await form.run({ currency: values.currency, overfillPct: typedNumber(values.overfillPct), costWarningPct: typedNumber(values.costWarningPct) });
-    if (result?.ok) {
-      setSaved(true);
-      router.refresh();
-    }
-  }
+  const { form, values, saved, change, submit } = usePriceForm(saveCostSettingsAction,
+    { currency: settings.currency ?? '', overfillPct: String(settings.overfillPct), costWarningPct: String(settings.costWarningPct) },
+    (v) => ({ currency: v.currency, overfillPct: typedNumber(v.overfillPct), costWarningPct: typedNumber(v.costWarningPct) }));
   return (
     <form onSubmit={submit} className="max-w-md space-y-4" noValidate>
-      {saved ? <Notice tone="success">Saved.</Notice> : null}
-      {form.error ? <Notice tone="danger">{form.error}</Notice> : null}
+      <FormNotices saved={saved} savedText="Saved." error={form.error} />
       <SelectField
         label="Currency of every price"
         name="currency"

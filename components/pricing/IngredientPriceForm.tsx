@@ -1,13 +1,10 @@
 'use client';
 
-import { useState } from 'react';
-import { useRouter } from 'next/navigation';
 import { Field, SelectField } from '@/components/ui/Field';
 import { Button } from '@/components/ui/Button';
-import { Notice } from '@/components/ui/Notice';
-import { useFormAction } from '@/components/ui/useFormAction';
 import { addIngredientPriceAction } from '@/lib/pricing/actions';
 import { typedNumber } from './numbers';
+import { FormNotices, PricedThingSelect, usePriceForm } from './usePriceForm';
 
 /** Adds a dated price point; earlier points stay as they are. */
 export function IngredientPriceForm({ currency, ingredients, fixedIngredientId, defaultUnit, today }: {
@@ -17,32 +14,15 @@ export function IngredientPriceForm({ currency, ingredients, fixedIngredientId, 
   defaultUnit: 'kg' | 'lb';
   today: string;
 }) {
-  const router = useRouter();
-  const form = useFormAction(addIngredientPriceAction);
   const empty = { ingredientId: fixedIngredientId ?? '', packPrice: '', packSize: '', packUnit: defaultUnit as string, supplier: '', validFrom: today };
-  const [values, setValues] = useState(empty);
-  const [saved, setSaved] = useState(false);
-  const change = (key: keyof typeof values) => (e: React.ChangeEvent<HTMLInputElement | HTMLSelectElement>) => {
-    setValues({ ...values, [key]: e.target.value });
-    setSaved(false);
-  };
-  async function submit(e: React.FormEvent) {
-    e.preventDefault();
-    const result = await form.run({ ...values, packSize: typedNumber(values.packSize), supplier: values.supplier.trim() || null });
-    if (result?.ok) {
-      setSaved(true);
-      setValues({ ...empty, ingredientId: values.ingredientId, packUnit: values.packUnit });
-      router.refresh();
-    }
-  }
+  const { form, values, saved, change, submit } = usePriceForm(addIngredientPriceAction, empty,
+    (v) => ({ ...v, packSize: typedNumber(v.packSize), supplier: v.supplier.trim() || null }),
+    (v) => ({ ...empty, ingredientId: v.ingredientId, packUnit: v.packUnit }));
   return (
     <form onSubmit={submit} className="space-y-4" noValidate aria-label="Add a price">
-      {saved ? <Notice tone="success">Price added. Earlier prices are kept.</Notice> : null}
-      {form.error ? <Notice tone="danger">{form.error}</Notice> : null}
-      {fixedIngredientId ? null : (
-        <SelectField label="Ingredient" name="ingredientId" value={values.ingredientId} onChange={change('ingredientId')} errors={form.fields.ingredientId}
-          options={[{ value: '', label: 'Choose an ingredient…' }, ...ingredients.map((i) => ({ value: i.id, label: i.name }))]} />
-      )}
+      <FormNotices saved={saved} savedText="Price added. Earlier prices are kept." error={form.error} />
+      <PricedThingSelect fixed={!!fixedIngredientId} label="Ingredient" choose="Choose an ingredient…" name="ingredientId" value={values.ingredientId}
+        onChange={change('ingredientId')} errors={form.fields.ingredientId} options={ingredients} />
       <div className="grid grid-cols-1 gap-4 sm:grid-cols-2">
         <Field label={`Price of one pack (${currency})`} name="packPrice" inputMode="decimal" autoComplete="off" value={values.packPrice} onChange={change('packPrice')} errors={form.fields.packPrice} placeholder="e.g. 24.50" />
         <div className="grid grid-cols-[minmax(0,1fr)_6rem] gap-2">

@@ -1,42 +1,22 @@
 'use client';
 
-import { useState } from 'react';
-import { useRouter } from 'next/navigation';
-import { Field, SelectField } from '@/components/ui/Field';
+import { Field } from '@/components/ui/Field';
 import { Button } from '@/components/ui/Button';
-import { Notice } from '@/components/ui/Notice';
-import { useFormAction } from '@/components/ui/useFormAction';
 import { addPackagingPriceAction } from '@/lib/pricing/actions';
 import { typedNumber } from './numbers';
+import { FormNotices, PricedThingSelect, usePriceForm } from './usePriceForm';
 
 /** A dated price of a packaging item as bought: the price of a pack of so many pieces. */
 export function PackagingPriceForm({ currency, items, fixedItemId, today }: { currency: string; items: { id: string; name: string }[]; fixedItemId?: string; today: string }) {
-  const router = useRouter();
-  const form = useFormAction(addPackagingPriceAction);
   const empty = { packagingItemId: fixedItemId ?? '', packPrice: '', piecesPerPack: '1', supplier: '', validFrom: today };
-  const [values, setValues] = useState(empty);
-  const [saved, setSaved] = useState(false);
-  const change = (key: keyof typeof values) => (e: React.ChangeEvent<HTMLInputElement | HTMLSelectElement>) => {
-    setValues({ ...values, [key]: e.target.value });
-    setSaved(false);
-  };
-  async function submit(e: React.FormEvent) {
-    e.preventDefault();
-    const result = await form.run({ ...values, piecesPerPack: typedNumber(values.piecesPerPack), supplier: values.supplier.trim() || null });
-    if (result?.ok) {
-      setSaved(true);
-      setValues({ ...empty, packagingItemId: values.packagingItemId });
-      router.refresh();
-    }
-  }
+  const { form, values, saved, change, submit } = usePriceForm(addPackagingPriceAction, empty,
+    (v) => ({ ...v, piecesPerPack: typedNumber(v.piecesPerPack), supplier: v.supplier.trim() || null }),
+    (v) => ({ ...empty, packagingItemId: v.packagingItemId }));
   return (
     <form onSubmit={submit} className="space-y-4" noValidate aria-label="Add a packaging price">
-      {saved ? <Notice tone="success">Price added. Earlier prices are kept.</Notice> : null}
-      {form.error ? <Notice tone="danger">{form.error}</Notice> : null}
-      {fixedItemId ? null : (
-        <SelectField label="Packaging item" name="packagingItemId" value={values.packagingItemId} onChange={change('packagingItemId')} errors={form.fields.packagingItemId}
-          options={[{ value: '', label: 'Choose a packaging item…' }, ...items.map((i) => ({ value: i.id, label: i.name }))]} />
-      )}
+      <FormNotices saved={saved} savedText="Price added. Earlier prices are kept." error={form.error} />
+      <PricedThingSelect fixed={!!fixedItemId} label="Packaging item" choose="Choose a packaging item…" name="packagingItemId" value={values.packagingItemId}
+        onChange={change('packagingItemId')} errors={form.fields.packagingItemId} options={items} />
       <div className="grid grid-cols-1 gap-4 sm:grid-cols-2">
         <Field label={`Price of one pack (${currency})`} name="packPrice" inputMode="decimal" autoComplete="off" value={values.packPrice} onChange={change('packPrice')} errors={form.fields.packPrice} placeholder="e.g. 61.00" />
         <Field label="Pieces in the pack" name="piecesPerPack" inputMode="numeric" value={values.piecesPerPack} onChange={change('piecesPerPack')} errors={form.fields.piecesPerPack} hint="Labels by the thousand: 1000." />

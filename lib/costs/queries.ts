@@ -4,14 +4,14 @@ import 'server-only';
  * range of days asked) and costs them with lib/costing. Callers hold `prices.read`.
  */
 import { getEm } from '@/lib/db';
-import { BatchRecord, Ingredient, Product, ProductionFormula, Trial, Variant } from '@/entities';
+import { BatchRecord, Ingredient, PackFormat, Trial } from '@/entities';
 import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
 import { todayIso, isoDate } from '@/lib/format/dates';
 import { batchActualCostPerJar, changePct, costStoredFormula, historiesBy, type IngredientPricePoint, type PackagingPricePoint, type PackFormatData } from '@/lib/costing';
 import type { FormulaSettingsInput, RevisionLine } from '@/lib/formulas/schema';
-import {
-  costSettings, packagingPriceHistory, packagingPricesAsOf, packFormatList, packFormatsByIds, priceHistory, pricesAsOf, refuseShares,
-} from '@/lib/pricing/queries';
+import { sql } from '@/lib/sql';
+import { isUuid } from '@/lib/ids';
+import { costingData } from '@/lib/pricing/queries';
 import type { BatchCost, CostResult, EditorCostBasis, FrozenCost, ProductCosts, TrialCosts, VersionCost } from './schema';
 
 /** Everything costFormula needs for some formulas over a range of days. */
@@ -25,27 +25,20 @@ export interface CostBasis {
   packFormats: Map<string, PackFormatData>;
 }
 
-/** The price rows the formulas' ingredients and pack formats need from `from` to `to`. */
+/** The price rows the formulas' ingredients and pack formats need from `from` to `to`: one statement. */
 export async function loadCostBasis(
   workspaceId: string,
   need: { ingredientIds: readonly string[]; packFormatIds: readonly string[]; from: string; to: string },
 ): Promise<CostBasis> {
-  const [settings, refuse, packFormats, ingredientPoints] = await Promise.all([
-    costSettings(workspaceId),
-    refuseShares(workspaceId, need.ingredientIds),
-    packFormatsByIds(workspaceId, need.packFormatIds),
-    priceHistory(workspaceId, need.ingredientIds, { from: need.from, to: need.to }),
-  ]);
-  const itemIds = [...new Set([...packFormats.values()].flatMap((f) => f.items.map((i) => i.packagingItemId)))];
-  const packagingPoints = await packagingPriceHistory(workspaceId, itemIds, { from: need.from, to: need.to });
+  const data = await costingData(workspaceId, need);
   return {
-    currency: settings.currency,
-    overfillPct: settings.overfillPct,
-    warningPct: settings.costWarningPct,
-    ingredientPrices: historiesBy(ingredientPoints, (p) => p.ingredientId),
-    packagingPrices: historiesBy(packagingPoints, (p) => p.packagingItemId),
-    refuse,
-    packFormats,
+    currency: data.settings.currency,
+    overfillPct: data.settings.overfillPct,
+    warningPct: data.settings.costWarningPct,
+    ingredientPrices: historiesBy(data.ingredientPoints, (p) => p.ingredientId),
+    packagingPrices: historiesBy(data.packagingPoints, (p) => p.packagingItemId),
+    refuse: data.refuse,
+    packFormats: data.packFormats,
   };
 }
 
@@ -68,48 +61,47 @@ export function costOn(basis: CostBasis, settings: FormulaSettingsInput, lines: 
 const ingredientIdsOf = (formulas: Array<{ lines: RevisionLine[] }>) => [...new Set(formulas.flatMap((f) => f.lines.map((l) => l.ingredientId)))];
 const refId = (ref: unknown) => (ref as { id: string } | null)?.id ?? null;
 
-/** The editor's prices on one day, for every ingredient and pack format of the workspace. */
+/** The editor's prices on one day, for every ingredient and (not archived) pack format of the workspace: two round trips. */
 export async function editorCostBasis(actor: Actor, asOf: string = todayIso()): Promise<EditorCostBasis> {
-  const em = await getEm();
-  const ingredientIds = (await em.find(Ingredient, { ...inWorkspace(actor) }, { fields: ['id'], limit: 5000 })).map((i) => i.id);
-  const [settings, formats, prices, refuse] = await Promise.all([
-    costSettings(actor.workspaceId),
-    packFormatList(actor),
-    pricesAsOf(actor.workspaceId, ingredientIds, asOf),
-    refuseShares(actor.workspaceId, ingredientIds),
+  const [ingredients, formats] = await Promise.all([
+    getEm().then((em) => em.find(Ingredient, { ...inWorkspace(actor) }, { fields: ['id'], limit: 5000 })),
+    getEm().then((em) => em.find(PackFormat, { ...inWorkspace(actor), archivedAt: null }, { fields: ['id'], orderBy: { name: 'asc' }, limit: 500 })),
   ]);
-  const packFormats = formats
-    .filter((f) => !f.archived)
-    .map((f) => ({ id: f.id, name: f.name, netFillG: f.netFillG, items: f.items.map((i) => ({ packagingItemId: i.packagingItemId, name: i.name, perJar: i.pieces / i.perJars })) }));
-  const itemIds = [...new Set(packFormats.flatMap((f) => f.items.map((i) => i.packagingItemId)))];
-  const packaging = await packagingPricesAsOf(actor.workspaceId, itemIds, asOf);
+  // From = to = asOf: each ingredient's and packaging item's one point in force that day.
+  const data = await costingData(actor.workspaceId, { ingredientIds: ingredients.map((i) => i.id), packFormatIds: formats.map((f) => f.id), from: asOf, to: asOf });
   return {
-    currency: settings.currency,
+    currency: data.settings.currency,
     asOf,
-    overfillPct: settings.overfillPct,
-    ingredientPrices: [...prices.values()],
-    packagingPrices: [...packaging.values()],
-    refuse: [...refuse.entries()],
-    packFormats,
+    overfillPct: data.settings.overfillPct,
+    ingredientPrices: data.ingredientPoints,
+    packagingPrices: data.packagingPoints,
+    refuse: [...data.refuse.entries()],
+    packFormats: formats.map((f) => data.packFormats.get(f.id)).filter((f): f is PackFormatData => !!f),
   };
 }
 
 /** Each variant of a trial costed on `asOf` in the pack format of the trial's base formula. */
 export async function trialCosts(actor: Actor, trialId: string, asOf: string = todayIso()): Promise<TrialCosts> {
-  // The trial (with its base formula's pack format) and its variants in one round trip.
-  const [trial, variants] = await Promise.all([
-    getEm().then((em) => em.findOne(Trial, { ...inWorkspace(actor), id: trialId }, { populate: ['baseFormula'] })),
-    getEm().then((em) => em.find(Variant, { ...inWorkspace(actor), trial: trialId, removedAt: null }, { orderBy: { position: 'asc' } })),
-  ]);
-  if (!trial) throw notFound('trial');
-  const packFormatId = refId((trial.baseFormula as unknown as { packFormat?: unknown } | null)?.packFormat);
+  // The trial, its base formula's pack format and its variants in one statement; then the prices in one more.
+  const rows = isUuid(trialId) ? await sql<{ pack_format_id: string | null; id: string | null; label: string; settings: FormulaSettingsInput; lines: RevisionLine[] }>(
+    `select f.pack_format_id, v.id, v.label, v.settings, v.lines
+       from trials t
+       left join formulas f on f.id = t.base_formula_id
+       left join variants v on v.trial_id = t.id and v.workspace_id = t.workspace_id and v.removed_at is null
+      where t.workspace_id = $1 and t.id = $2
+      order by v.position`,
+    [actor.workspaceId, trialId], 'trial_costs_variants',
+  ) : [];
+  if (!rows.length) throw notFound('trial');
+  const packFormatId = rows[0].pack_format_id;
+  const variants = rows.filter((r) => r.id !== null);
   const basis = await loadCostBasis(actor.workspaceId, { ingredientIds: ingredientIdsOf(variants), packFormatIds: packFormatId ? [packFormatId] : [], from: asOf, to: asOf });
   const format = packFormatId ? basis.packFormats.get(packFormatId) : undefined;
   return {
     currency: basis.currency,
     asOf,
     packFormat: format ? { id: format.id, name: format.name } : null,
-    variants: variants.map((v) => ({ variantId: v.id, label: v.label, result: costOn(basis, v.settings, v.lines, packFormatId, asOf) })),
+    variants: variants.map((v) => ({ variantId: v.id!, label: v.label, result: costOn(basis, v.settings, v.lines, packFormatId, asOf) })),
   };
 }
 
@@ -145,23 +137,34 @@ export async function costForApproval(
 
 /** Every version of a product: its cost frozen at approval and today's, and whether it moved past the threshold. */
 export async function productCosts(actor: Actor, productId: string, asOf: string = todayIso()): Promise<ProductCosts> {
-  const em = await getEm();
-  const versions = await em.find(ProductionFormula, { ...inWorkspace(actor), product: productId }, { orderBy: { version: 'desc' } });
-  if (!versions.length && !(await em.count(Product, { ...inWorkspace(actor), id: productId }))) throw notFound('product');
-  const packFormatIds = [...new Set(versions.map((v) => refId(v.packFormat)).filter((id): id is string => !!id))];
+  // The product and its versions in one statement; then the prices in one more.
+  const rows = isUuid(productId) ? await sql<{
+    id: string | null; version: number; status: VersionCost['status']; settings: FormulaSettingsInput; lines: RevisionLine[];
+    pack_format_id: string | null; cost_at_approval: FrozenCost | null; approved_at: Date;
+  }>(
+    `select v.id, v.version, v.status, v.settings, v.lines, v.pack_format_id, v.cost_at_approval, v.approved_at
+       from products p
+       left join production_formulas v on v.product_id = p.id and v.workspace_id = p.workspace_id
+      where p.workspace_id = $1 and p.id = $2
+      order by v.version desc`,
+    [actor.workspaceId, productId], 'product_costs_versions',
+  ) : [];
+  if (!rows.length) throw notFound('product');
+  const versions = rows.filter((r) => r.id !== null);
+  const packFormatIds = [...new Set(versions.map((v) => v.pack_format_id).filter((id): id is string => !!id))];
   const basis = await loadCostBasis(actor.workspaceId, { ingredientIds: ingredientIdsOf(versions), packFormatIds, from: asOf, to: asOf });
   return {
     currency: basis.currency,
     asOf,
     warningPct: basis.warningPct,
     versions: versions.map((v): VersionCost => {
-      const today = costOn(basis, v.settings, v.lines, refId(v.packFormat), asOf);
-      const atApproval = v.costAtApproval ?? null;
+      const today = costOn(basis, v.settings, v.lines, v.pack_format_id, asOf);
+      const atApproval = v.cost_at_approval ?? null;
       const before = atApproval?.complete && atApproval.currency === basis.currency ? atApproval.perJarMinor : null;
       const after = today.ok && today.cost.perJar?.complete ? today.cost.perJar.minor : null;
       const movedPct = before !== null && after !== null ? changePct(before, after) : null;
       return {
-        versionId: v.id, version: v.version, status: v.status, approvedAt: v.approvedAt.toISOString(),
+        versionId: v.id!, version: v.version, status: v.status, approvedAt: new Date(v.approved_at).toISOString(),
         atApproval, today, movedPct, warn: movedPct !== null && Math.abs(movedPct) > basis.warningPct,
       };
     }),

@@ -4,7 +4,7 @@
  * Ingredients are named as in the library (case does not matter); amounts are in the workspace currency.
  */
 import Papa from 'papaparse';
-import { getEm } from '@/lib/db';
+import { getEm, lockForTransaction } from '@/lib/db';
 import { Ingredient, IngredientPrice } from '@/entities';
 import { inWorkspace, type Actor } from '@/lib/permissions';
 import { ValidationFailed } from '@/lib/errors';
@@ -73,7 +73,11 @@ export function parsePriceCsv(text: string, ingredientIdsByName: Map<string, str
   return { rows: errors.length ? [] : rows, errors };
 }
 
-export async function importPricesCsv(actor: Actor, text: string): Promise<{ imported: number }> {
+/**
+ * Imports a checked file whole, inside one transaction. Rows already on record (samePointKey) are
+ * counted, not added again, so re-importing a file is harmless.
+ */
+export async function importPricesCsv(actor: Actor, text: string): Promise<{ imported: number; alreadyPresent: number }> {
   const { currency } = await costSettings(actor.workspaceId);
   // A file-level problem like any other: the import is refused as a whole (422), nothing lands.
   if (!currency) throw new ValidationFailed(NO_CURRENCY_MESSAGE, { 'row 1': [NO_CURRENCY_MESSAGE] });
@@ -90,10 +94,37 @@ export async function importPricesCsv(actor: Actor, text: string): Promise<{ imp
     for (const e of errors) (fields[`row ${e.row}${e.column ? `, ${e.column}` : ''}`] ??= []).push(e.message);
     throw new ValidationFailed(`Nothing was imported: ${errors.length} problem${errors.length > 1 ? 's' : ''} in the file.`, fields);
   }
-  await em.transactional(async (tx) => {
-    for (const r of rows) tx.create(IngredientPrice, { ...r, workspace: actor.workspaceId, enteredBy: actor.userId });
+  return em.transactional(async (tx) => {
+    // Imports of one workspace take turns, so the same file sent twice at once cannot land twice.
+    await lockForTransaction(tx, `price-import:${actor.workspaceId}`);
+    const present = await tx.execute<Array<{ ingredient_id: string; valid_from: string; pack_price_minor: number; pack_size_g: number; supplier: string | null }>>(
+      `select ingredient_id, to_char(valid_from, 'YYYY-MM-DD') as valid_from, pack_price_minor, pack_size_g, supplier
+         from ingredient_prices
+        where workspace_id = ? and withdrawn_at is null
+          and ingredient_id in (select value::uuid from jsonb_array_elements_text(?::jsonb))
+          and valid_from in (select value::date from jsonb_array_elements_text(?::jsonb))`,
+      [actor.workspaceId, JSON.stringify([...new Set(rows.map((r) => r.ingredient))]), JSON.stringify([...new Set(rows.map((r) => r.validFrom))])],
+    );
+    const seen = new Set(present.map((p) => samePointKey({ ingredient: p.ingredient_id, validFrom: p.valid_from, packPriceMinor: Number(p.pack_price_minor), packSizeG: Number(p.pack_size_g), supplier: p.supplier })));
+    let imported = 0;
+    for (const r of rows) {
+      const key = samePointKey(r);
+      if (seen.has(key)) continue;
+      seen.add(key);
+      tx.create(IngredientPrice, { ...r, workspace: actor.workspaceId, enteredBy: actor.userId });
+      imported++;
+    }
+    return { imported, alreadyPresent: rows.length - imported };
   });
-  return { imported: rows.length };
+}
+
+/**
+ * A point already on record (not withdrawn) for the same ingredient and day, at the same pack price
+ * and pack size from the same supplier, is the same point: importing it again adds nothing. The
+ * currency is the workspace's one, so it always matches. A different supplier or size is a new fact.
+ */
+export function samePointKey(p: Pick<Columns, 'ingredient' | 'validFrom' | 'packPriceMinor' | 'packSizeG' | 'supplier'>): string {
+  return JSON.stringify([p.ingredient, p.validFrom, p.packPriceMinor, p.packSizeG, p.supplier ?? null]);
 }
 
 /** Every point that counts (withdrawn ones left out), in the import's columns, so an export can be edited and read back. */

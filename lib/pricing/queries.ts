@@ -7,6 +7,7 @@ import 'server-only';
  * Withdrawn points never count; of two points on the same day the later entered wins.
  */
 import { getEm } from '@/lib/db';
+import { sql } from '@/lib/sql';
 import { CostSettings, Formula, Ingredient, IngredientPrice, PackagingItem, PackagingPrice, PackFormat, PackFormatItem, ProductionFormula } from '@/entities';
 import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
 import { calendarDateProblem } from '@/lib/input';
@@ -23,6 +24,9 @@ const UUID = /^[0-9a-f]{8}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{4}-[0-9a-f]{12}$/i;
 function cleanIds(ids: readonly string[]): string[] {
   return [...new Set(ids.filter((v) => UUID.test(v)))];
 }
+/** Before an administrator saves them: no currency, no overfill, warn above 5 %. */
+const noCostSettings = (): CostSettingsView => ({ currency: null, overfillPct: 0, costWarningPct: 5 });
+
 function cleanDays(days: readonly string[]): string[] {
   return [...new Set(days.filter((d) => calendarDateProblem(d) === null))];
 }
@@ -55,23 +59,112 @@ async function pointsAsOf(source: Source, workspaceId: string, subjectIds: reado
   );
 }
 
+/**
+ * The points of each subject that count from `from` to `to`: the one in force on `from` and every later
+ * one up to `to`, one per day (the later entered). A lateral per subject, so its lower bound is found once
+ * (one index probe) instead of once per row. `$n` placeholders name the workspace, the subject ids (a
+ * jsonb array of uuids) and the two days.
+ */
+function pointsBetweenSql(source: Source, p: { workspace: string; ids: string; from: string; to: string }): string {
+  const { table, subject, columns } = SOURCES[source];
+  return `select s.id as subject_id, to_char(p.valid_from, 'YYYY-MM-DD') as valid_from, ${columns}
+       from (select distinct value::uuid as id from jsonb_array_elements_text(${p.ids}::jsonb)) s
+       cross join lateral (
+         select distinct on (x.valid_from) x.*
+           from "${table}" x
+          where x.workspace_id = ${p.workspace} and x.${subject} = s.id and x.withdrawn_at is null and x.valid_from <= ${p.to}::date
+            and x.valid_from >= coalesce((select y.valid_from from "${table}" y
+                  where y.workspace_id = ${p.workspace} and y.${subject} = s.id and y.withdrawn_at is null and y.valid_from <= ${p.from}::date
+                  order by y.valid_from desc limit 1), '1900-01-01'::date)
+          order by x.valid_from, x.entered_at desc
+       ) p`;
+}
+
+function rangeOf(range: { from?: string; to?: string }): { from: string; to: string } {
+  return {
+    from: range.from && !calendarDateProblem(range.from) ? range.from : '1900-01-01',
+    to: range.to && !calendarDateProblem(range.to) ? range.to : '2200-12-31',
+  };
+}
+
 async function pointsBetween(source: Source, workspaceId: string, subjectIds: readonly string[], range: { from?: string; to?: string }): Promise<RawPoint[]> {
   const ids = cleanIds(subjectIds);
   if (!ids.length || !UUID.test(workspaceId)) return [];
-  const from = range.from && !calendarDateProblem(range.from) ? range.from : '1900-01-01';
-  const to = range.to && !calendarDateProblem(range.to) ? range.to : '2200-12-31';
-  const { table, subject, columns } = SOURCES[source];
-  const em = await getEm();
-  return em.execute<RawPoint[]>(
-    `select distinct on (p.${subject}, p.valid_from) p.${subject} as subject_id, to_char(p.valid_from, 'YYYY-MM-DD') as valid_from, ${columns}
-       from "${table}" p
-      where p.workspace_id = ? and p.${subject} in (select value::uuid from jsonb_array_elements_text(?::jsonb)) and p.withdrawn_at is null
-        and p.valid_from <= ?::date
-        and p.valid_from >= coalesce((select max(x.valid_from) from "${table}" x where x.workspace_id = p.workspace_id
-              and x.${subject} = p.${subject} and x.withdrawn_at is null and x.valid_from <= ?::date), '1900-01-01'::date)
-      order by p.${subject}, p.valid_from, p.entered_at desc`,
-    [workspaceId, JSON.stringify(ids), to, from],
+  const { from, to } = rangeOf(range);
+  return sql<RawPoint>(
+    `${pointsBetweenSql(source, { workspace: '$1', ids: '$2', from: '$3', to: '$4' })} order by s.id, p.valid_from`,
+    [workspaceId, JSON.stringify(ids), from, to], `points_between_${source}`,
   );
+}
+
+/** What costing some formulas needs, read in one statement (lib/costs loadCostBasis). */
+export interface CostingData {
+  settings: CostSettingsView;
+  refuse: Map<string, number>;
+  packFormats: Map<string, PackFormatData>;
+  ingredientPoints: IngredientPricePoint[];
+  packagingPoints: PackagingPricePoint[];
+}
+
+/**
+ * The workspace's cost settings, the refuse share of each ingredient, the pack formats with their
+ * packaging, and the price points of the ingredients and of the pack formats' packaging items from
+ * `from` to `to` (as priceHistory / packagingPriceHistory) — one round trip instead of six.
+ */
+export async function costingData(
+  workspaceId: string,
+  need: { ingredientIds: readonly string[]; packFormatIds: readonly string[]; from?: string; to?: string },
+): Promise<CostingData> {
+  const ingredientIds = cleanIds(need.ingredientIds);
+  const packFormatIds = cleanIds(need.packFormatIds);
+  const { from, to } = rangeOf(need);
+  type Row = {
+    settings: { currency: string; overfillPct: number; costWarningPct: number } | null;
+    refuse: Array<[string, number]>;
+    formats: Array<{ id: string; name: string; netFillG: number; items: Array<{ packagingItemId: string; name: string; pieces: number; perJars: number }> }>;
+    ingredient_points: RawPoint[];
+    packaging_points: RawPoint[];
+  };
+  if (!UUID.test(workspaceId)) {
+    return { settings: noCostSettings(), refuse: new Map(), packFormats: new Map(), ingredientPoints: [], packagingPoints: [] };
+  }
+  const points = (source: Source, ids: string) =>
+    `(select coalesce(json_agg(json_build_object('subject_id', p.subject_id, 'valid_from', p.valid_from, 'pack_price_minor', p.pack_price_minor,
+        ${source === 'ingredient' ? `'pack_size_g', p.pack_size_g` : `'pieces_per_pack', p.pieces_per_pack`}, 'supplier', p.supplier) order by p.subject_id, p.valid_from), '[]')
+       from (${pointsBetweenSql(source, { workspace: '$1', ids, from: '$4', to: '$5' })}) p)`;
+  const [row] = await sql<Row>(
+    `with fmt as (
+       select f.id, f.name, f.net_fill_g from pack_formats f
+        where f.workspace_id = $1 and f.id in (select value::uuid from jsonb_array_elements_text($3::jsonb))
+     ), item as (
+       select i.pack_format_id, i.packaging_item_id, p.name, i.pieces, i.per_jars, i.position
+         from pack_format_items i join packaging_items p on p.id = i.packaging_item_id
+        where i.workspace_id = $1 and i.pack_format_id in (select id from fmt)
+     ), item_ids as (
+       select coalesce(jsonb_agg(distinct packaging_item_id), '[]') as ids from item
+     )
+     select
+       (select json_build_object('currency', c.currency, 'overfillPct', c.overfill_pct, 'costWarningPct', c.cost_warning_pct)
+          from cost_settings c where c.workspace_id = $1) as settings,
+       (select coalesce(json_agg(json_build_array(i.id, i.refuse_pct)), '[]') from ingredients i
+         where i.workspace_id = $1 and i.id in (select value::uuid from jsonb_array_elements_text($2::jsonb))) as refuse,
+       (select coalesce(json_agg(json_build_object('id', f.id, 'name', f.name, 'netFillG', f.net_fill_g, 'items',
+          (select coalesce(json_agg(json_build_object('packagingItemId', x.packaging_item_id, 'name', x.name, 'pieces', x.pieces, 'perJars', x.per_jars) order by x.position), '[]')
+             from item x where x.pack_format_id = f.id))), '[]') from fmt f) as formats,
+       ${points('ingredient', '$2')} as ingredient_points,
+       ${points('packaging', '(select ids from item_ids)')} as packaging_points`,
+    [workspaceId, JSON.stringify(ingredientIds), JSON.stringify(packFormatIds), from, to], 'costing_data',
+  );
+  return {
+    settings: row.settings ?? noCostSettings(),
+    refuse: new Map(row.refuse.map(([id, pct]) => [id, Number(pct)])),
+    packFormats: new Map(row.formats.map((f) => [f.id, {
+      id: f.id, name: f.name, netFillG: Number(f.netFillG),
+      items: f.items.map((i) => ({ packagingItemId: i.packagingItemId, name: i.name, perJar: i.pieces / i.perJars })),
+    }])),
+    ingredientPoints: row.ingredient_points.map(ingredientPoint),
+    packagingPoints: row.packaging_points.map(packagingPoint),
+  };
 }
 
 function ingredientPoint(r: RawPoint): IngredientPricePoint {
@@ -122,7 +215,7 @@ export async function packagingPriceHistory(workspaceId: string, packagingItemId
 export async function costSettings(workspaceId: string): Promise<CostSettingsView> {
   const em = await getEm();
   const row = await em.findOne(CostSettings, { workspace: workspaceId });
-  return row ? { currency: row.currency, overfillPct: row.overfillPct, costWarningPct: row.costWarningPct } : { currency: null, overfillPct: 0, costWarningPct: 5 };
+  return row ? { currency: row.currency, overfillPct: row.overfillPct, costWarningPct: row.costWarningPct } : noCostSettings();
 }
 
 /** True once any price (ingredient or packaging, withdrawn ones too) is recorded: the currency is then fixed. */

@@ -254,3 +254,13 @@ export async function openApricotTasting(browser: Browser, o: { organiserEmail: 
   await ctx.close();
   return { joinCode, sessionId };
 }
+
+/** Starts a trial of the test's own from a demo formula (signed in as a developer) and waits for its page. */
+export async function startOwnTrial(page: Page, trial: { title: string; question: string; formula: string }): Promise<void> {
+  await page.goto('/trials/new');
+  await page.getByLabel('Title').fill(trial.title);
+  await page.getByLabel('Question or hypothesis').fill(trial.question);
+  await page.getByLabel('Base formula').selectOption({ label: trial.formula });
+  await page.getByRole('button', { name: 'Start the trial' }).click();
+  await page.getByRole('heading', { level: 1, name: new RegExp(trial.title) }).waitFor();
+}

@@ -8,14 +8,15 @@ import * as trialCostsRoute from '@/app/api/v1/trials/[trialId]/costs/route';
 import * as productCostsRoute from '@/app/api/v1/products/[productId]/costs/route';
 import * as batchCostRoute from '@/app/api/v1/batches/[batchId]/cost/route';
 import { getEm } from '@/lib/db';
-import { ProductionFormula } from '@/entities';
+import { Ingredient, ProductionFormula } from '@/entities';
 import { createTrial } from '@/lib/trials/mutations';
 import { listVariants } from '@/lib/trials/queries';
 import { decidePromotion, recordBatch, requestPromotion } from '@/lib/production/mutations';
 import { getProductionVersion } from '@/lib/production/queries';
 import { lotCodeFor } from '@/lib/production/vocabulary';
-import { addIngredientPrice, addPackagingPrice, createPackagingItem, createPackFormat, saveCostSettings, setFormulaPackFormat } from '@/lib/pricing/mutations';
-import { batchCost, productCosts, trialCosts } from '@/lib/costs/queries';
+import { addIngredientPrice, addPackagingPrice, createPackagingItem, createPackFormat, saveCostSettings, setFormulaPackFormat, setPackagingArchived } from '@/lib/pricing/mutations';
+import { batchCost, editorCostBasis, productCosts, trialCosts } from '@/lib/costs/queries';
+import { packagingPricesAsOf, packFormatList, pricesAsOf, refuseShares } from '@/lib/pricing/queries';
 import { todayIso } from '@/lib/format/dates';
 import type { Role } from '@/lib/permissions';
 
@@ -26,6 +27,8 @@ let productId: string;
 let versionId: string;
 
 const dev = () => actorOf(a, 'developer');
+/** Every ingredient of the workspace: the editor's prices cover them all. */
+const allIngredientIds = async () => (await (await getEm()).find(Ingredient, { workspace: a.workspaceId }, { fields: ['id'] })).map((i) => i.id);
 async function price(ingredient: string, validFrom: string, packPrice: string, packSize: number, packUnit: 'g' | 'kg' = 'kg') {
   await addIngredientPrice(dev(), { ingredientId: ids[ingredient], packPrice, packSize, packUnit, supplier: null, validFrom });
 }
@@ -47,6 +50,32 @@ beforeAll(async () => {
   const formulaId = await createFixtureFormula(a);
   await setFormulaPackFormat(dev(), formulaId, packFormatId);
   ({ trialId } = await createTrial(dev(), { title: 'Cost trial', question: 'What does a jar cost?', formulaId }));
+});
+
+describe('the formula editor\'s prices of a day', () => {
+  it('hold each ingredient\'s and packaging item\'s point in force that day, every refuse share and the pack formats not archived', async () => {
+    const other = await createPackFormat(dev(), { name: 'Archived 200 g', netFillG: 200, items: [] });
+    await setPackagingArchived(dev(), 'format', other.packFormatId, true);
+    for (const day of ['2025-12-31', '2026-01-31', '2026-02-01']) {
+      const basis = await editorCostBasis(dev(), day);
+      expect(basis.asOf).toBe(day);
+      expect(basis.currency).toBe('GBP');
+      expect(basis.overfillPct).toBe(2);
+      const allIngredients = await allIngredientIds();
+      const inForce = await pricesAsOf(a.workspaceId, allIngredients, day);
+      expect(new Map(basis.ingredientPrices.map((p) => [p.ingredientId, p]))).toEqual(inForce);
+      const formats = (await packFormatList(dev())).filter((f) => !f.archived);
+      expect(basis.packFormats.map((f) => f.name)).toEqual(formats.map((f) => f.name));
+      expect(basis.packFormats.map((f) => f.name)).not.toContain('Archived 200 g');
+      const itemIds = formats.flatMap((f) => f.items.map((i) => i.packagingItemId));
+      expect(new Map(basis.packagingPrices.map((p) => [p.packagingItemId, p]))).toEqual(await packagingPricesAsOf(a.workspaceId, itemIds, day));
+      expect(new Map(basis.refuse)).toEqual(await refuseShares(a.workspaceId, allIngredients));
+    }
+    // Sugar: 25.00 per 25 kg until 31 January, 50.00 from 1 February.
+    expect((await editorCostBasis(dev(), '2026-01-31')).ingredientPrices.find((p) => p.ingredientId === ids.sucrose)?.packPriceMinor).toBe(2500);
+    expect((await editorCostBasis(dev(), '2026-02-01')).ingredientPrices.find((p) => p.ingredientId === ids.sucrose)?.packPriceMinor).toBe(5000);
+    expect((await editorCostBasis(dev(), '2025-12-31')).ingredientPrices).toEqual([]);
+  });
 });
 
 describe('a trial costed as of a day', () => {

@@ -12,8 +12,11 @@ import * as settingsRoute from '@/app/api/v1/cost-settings/route';
 import * as packFormatsRoute from '@/app/api/v1/pack-formats/route';
 import * as versionPackRoute from '@/app/api/v1/production-versions/[versionId]/pack-format/route';
 import { getEm } from '@/lib/db';
-import { AuditEvent, IngredientPrice, ProductionFormula } from '@/entities';
-import { packagingPricesAsOf, packFormatsByIds, priceHistory, pricesAsOf, pricesAsOfDates } from '@/lib/pricing/queries';
+import { AuditEvent, Ingredient, IngredientPrice, ProductionFormula } from '@/entities';
+import {
+  costingData, costSettings, packagingPriceHistory, packagingPricesAsOf, packagingPricesAsOfDates, packFormatsByIds, priceHistory, pricesAsOf, pricesAsOfDates, refuseShares,
+} from '@/lib/pricing/queries';
+import { historiesBy, priceOn } from '@/lib/costing';
 import { addIngredientPrice, addPackagingPrice, createPackagingItem, createPackFormat, saveCostSettings, withdrawIngredientPrice } from '@/lib/pricing/mutations';
 
 let a: WorkspaceFixture;
@@ -61,6 +64,37 @@ describe('the price in force on a day', () => {
   it('gives the history of a range with the point already in force at its start, one point per day', async () => {
     const history = await priceHistory(a.workspaceId, [ids.sucrose], { from: '2026-02-01', to: '2026-06-30' });
     expect(history.map((p) => [p.validFrom, p.packPriceMinor])).toEqual([['2026-01-10', 2500], ['2026-03-01', 2650], ['2026-06-15', 3000]]);
+  });
+
+  it('answers a costing in one statement with what the separate reads answer, day by day', async () => {
+    const dev = actorOf(a, 'developer');
+    const lid = (await createPackagingItem(dev, { name: 'One-statement lid', kind: 'lid' })).packagingItemId;
+    const jar = (await createPackagingItem(dev, { name: 'One-statement jar', kind: 'jar' })).packagingItemId;
+    await addPackagingPrice(dev, { packagingItemId: lid, packPrice: '60.00', piecesPerPack: 1000, supplier: null, validFrom: '2026-02-01' });
+    await addPackagingPrice(dev, { packagingItemId: lid, packPrice: '66.00', piecesPerPack: 1000, supplier: null, validFrom: '2026-04-01' });
+    await addPackagingPrice(dev, { packagingItemId: jar, packPrice: '300.00', piecesPerPack: 1200, supplier: null, validFrom: '2026-03-15' });
+    const { packFormatId } = await createPackFormat(dev, { name: 'One-statement 340 g', netFillG: 340, items: [{ packagingItemId: jar, pieces: 1, perJars: 1 }, { packagingItemId: lid, pieces: 1, perJars: 1 }] });
+    const range = { from: '2026-01-05', to: '2026-07-01' };
+    const one = await costingData(a.workspaceId, { ingredientIds: [ids.sucrose, ids.strawberry, 'not-an-id'], packFormatIds: [packFormatId], ...range });
+    expect(one.settings).toEqual(await costSettings(a.workspaceId));
+    expect(one.refuse).toEqual(await refuseShares(a.workspaceId, [ids.sucrose, ids.strawberry]));
+    expect(one.packFormats).toEqual(await packFormatsByIds(a.workspaceId, [packFormatId]));
+    expect(one.ingredientPoints).toEqual(await priceHistory(a.workspaceId, [ids.sucrose, ids.strawberry], range));
+    expect(one.packagingPoints).toEqual(await packagingPriceHistory(a.workspaceId, [jar, lid], range));
+    // Every day of the range: the point the history gives equals the one the as-of statement finds.
+    const sugar = historiesBy(one.ingredientPoints, (p) => p.ingredientId).get(ids.sucrose)!;
+    const lids = historiesBy(one.packagingPoints, (p) => p.packagingItemId).get(lid)!;
+    const days: string[] = [];
+    for (let t = Date.parse(`${range.from}T00:00:00Z`); t <= Date.parse(`${range.to}T00:00:00Z`); t += 86_400_000) days.push(new Date(t).toISOString().slice(0, 10));
+    const asOf = await pricesAsOfDates(a.workspaceId, [ids.sucrose], days);
+    const lidAsOf = await packagingPricesAsOfDates(a.workspaceId, [lid], days);
+    for (const day of days) {
+      expect(priceOn(sugar, day), day).toEqual(asOf.get(day)!.get(ids.sucrose) ?? null);
+      expect(priceOn(lids, day), day).toEqual(lidAsOf.get(day)!.get(lid) ?? null);
+    }
+    // The lid's first point is after the range starts: before it, unknown.
+    expect(priceOn(lids, '2026-01-31')).toBeNull();
+    expect(priceOn(lids, '2026-04-01')?.unitPriceMinor).toBe(6.6);
   });
 
   it('stores pounds as grams (1 lb = 453.59237 g)', async () => {
@@ -153,6 +187,57 @@ describe('CSV import is all or nothing', () => {
     const exported = await callRoute(exportRoute.GET, { method: 'GET', path: '', caller: admin() });
     expect(exported.status).toBe(200);
     expect(exported.body).toContain('Sucrose (white sugar),2026-09-01,32.40,25000,g,,EUR');
+  });
+});
+
+describe('CSV re-import adds nothing already on record', () => {
+  it('counts the rows already present instead of adding them again, keeps new facts, and two imports of one file at once land it once', async () => {
+    const em = await getEm();
+    const raspberry = (await em.findOneOrFail(Ingredient, { id: ids.raspberry })).name;
+    const points = () => em.fork().count(IngredientPrice, { workspace: a.workspaceId, ingredient: ids.raspberry });
+    const file = [
+      'ingredient,valid_from,pack_price,pack_size,pack_unit,supplier,currency',
+      `${raspberry},2026-04-01,48.00,10,kg,Berry farm,EUR`,
+      `${raspberry},2026-05-01,52.00,10,kg,Berry farm,EUR`,
+      `${raspberry},2026-05-01,52.00,10,kg,Berry farm,EUR`, // the same row twice in one file
+    ].join('\n');
+    const first = await callRoute(importRoute.POST, { method: 'POST', path: '', caller: admin(), body: { csv: file } });
+    expect(first.status, JSON.stringify(first.body)).toBe(201);
+    expect(first.body).toEqual({ imported: 2, alreadyPresent: 1 });
+    expect(await points()).toBe(2);
+
+    const again = await callRoute(importRoute.POST, { method: 'POST', path: '', caller: admin(), body: { csv: file } });
+    expect(again.status).toBe(201);
+    expect(again.body).toEqual({ imported: 0, alreadyPresent: 3 });
+    expect(await points()).toBe(2);
+
+    // Same day and price written differently (kg vs g, case of the name) is the same point; another supplier,
+    // another pack size or another price on that day is a new fact and lands.
+    const mixed = [
+      'ingredient,valid_from,pack_price,pack_size,pack_unit,supplier',
+      `${raspberry.toUpperCase()},2026-04-01,48,10000,g,Berry farm`,
+      `${raspberry},2026-04-01,48.00,10,kg,Other farm`,
+      `${raspberry},2026-04-01,48.00,5,kg,Berry farm`,
+      `${raspberry},2026-04-01,47.00,10,kg,Berry farm`,
+    ].join('\n');
+    const third = await callRoute(importRoute.POST, { method: 'POST', path: '', caller: admin(), body: { csv: mixed } });
+    expect(third.body).toEqual({ imported: 3, alreadyPresent: 1 });
+    expect(await points()).toBe(5);
+
+    // A withdrawn point no longer counts as present: importing it again records it anew.
+    const [withdrawn] = await em.fork().find(IngredientPrice, { workspace: a.workspaceId, ingredient: ids.raspberry, validFrom: '2026-05-01' });
+    await withdrawIngredientPrice(actorOf(a, 'admin'), withdrawn.id, 'Entered against the wrong lot');
+    const afterWithdrawal = await callRoute(importRoute.POST, { method: 'POST', path: '', caller: admin(), body: { csv: file } });
+    expect(afterWithdrawal.body).toEqual({ imported: 1, alreadyPresent: 2 });
+    expect(await points()).toBe(6);
+
+    // The same new file sent twice at the same moment: the imports take turns, so it lands once.
+    const fresh = `ingredient,valid_from,pack_price,pack_size,pack_unit\n${raspberry},2026-07-01,55.00,10,kg\n${raspberry},2026-08-01,56.00,10,kg\n`;
+    const both = await Promise.all([0, 1].map(() => callRoute(importRoute.POST, { method: 'POST', path: '', caller: admin(), body: { csv: fresh } })));
+    expect(both.map((r) => r.status)).toEqual([201, 201]);
+    expect(both.map((r) => r.body.imported).sort()).toEqual([0, 2]);
+    expect(both.map((r) => r.body.alreadyPresent).sort()).toEqual([0, 2]);
+    expect(await points()).toBe(8);
   });
 });
 

@@ -81,9 +81,7 @@ export default async function PricesPage() {
             <Card title="Add a price">
               <IngredientPriceForm currency={currency} ingredients={rows.filter((r) => !r.archived).map((r) => ({ id: r.ingredientId, name: r.name }))} defaultUnit={actor.massUnits === 'imperial' ? 'lb' : 'kg'} today={todayIso()} />
             </Card>
-            <Card title="Import prices from CSV">
-              <PriceImportForm currency={currency} />
-            </Card>
+            <PriceImportForm currency={currency} />
           </div>
         ) : null}
       </div>
