@@ -10,7 +10,6 @@ import { describe, expect, it } from 'vitest';
 const ALLOWED: Record<string, number> = {
   'app/api/bench/floor/route.ts': 1, // populated reads typed by hand; to go
   'components/costs/CostLikingChart.tsx': 1, // populated reads typed by hand; to go
-  'components/notebook/NotebookView.tsx': 1, // populated reads typed by hand; to go
   'components/results/Charts.tsx': 2, // populated reads typed by hand; to go
   'lib/account/queries.ts': 1, // populated reads typed by hand; to go
   'lib/api-tokens/mutations.ts': 1, // populated reads typed by hand; to go
@@ -27,9 +26,6 @@ const ALLOWED: Record<string, number> = {
   'lib/label/queries.ts': 2, // populated reads typed by hand; to go
   'lib/mail.ts': 1, // a process-wide cache on globalThis (survives hot reload)
   'lib/members/queries.ts': 2, // populated reads typed by hand; to go
-  'lib/notebook/mutations.ts': 3, // populated reads typed by hand; to go
-  'lib/notebook/queries.ts': 2, // populated reads typed by hand; to go
-  'lib/notebook/schema.ts': 1, // populated reads typed by hand; to go
   'lib/panels/mutations.ts': 2, // populated reads typed by hand; to go
   'lib/panels/queries.ts': 4, // populated reads typed by hand; to go
   'lib/panels/taster.ts': 2, // populated reads typed by hand; to go
