@@ -20,9 +20,6 @@ const ALLOWED: Record<string, number> = {
   'lib/db.ts': 1, // a process-wide cache on globalThis (survives hot reload)
   'lib/formulas/mutations.ts': 1, // populated reads typed by hand; to go
   'lib/formulas/queries.ts': 5, // populated reads typed by hand; to go
-  'lib/ingredients/csv.ts': 1, // populated reads typed by hand; to go
-  'lib/ingredients/mutations.ts': 1, // populated reads typed by hand; to go
-  'lib/ingredients/queries.ts': 4, // populated reads typed by hand; to go
   'lib/label/queries.ts': 2, // populated reads typed by hand; to go
   'lib/mail.ts': 1, // a process-wide cache on globalThis (survives hot reload)
   'lib/members/queries.ts': 2, // populated reads typed by hand; to go
