@@ -11,10 +11,6 @@ const ALLOWED: Record<string, number> = {
   'app/api/bench/floor/route.ts': 1, // populated reads typed by hand; to go
   'components/costs/CostLikingChart.tsx': 1, // populated reads typed by hand; to go
   'components/results/Charts.tsx': 2, // populated reads typed by hand; to go
-  'lib/account/queries.ts': 1, // populated reads typed by hand; to go
-  'lib/api-tokens/mutations.ts': 1, // populated reads typed by hand; to go
-  'lib/api-tokens/queries.ts': 1, // populated reads typed by hand; to go
-  'lib/auth.ts': 2, // populated reads typed by hand; to go
   'lib/client-address.ts': 1, // a process-wide cache on globalThis (survives hot reload)
   'lib/costs/queries.ts': 3, // populated reads typed by hand; to go
   'lib/db.ts': 1, // a process-wide cache on globalThis (survives hot reload)
@@ -22,7 +18,6 @@ const ALLOWED: Record<string, number> = {
   'lib/formulas/queries.ts': 5, // populated reads typed by hand; to go
   'lib/label/queries.ts': 2, // populated reads typed by hand; to go
   'lib/mail.ts': 1, // a process-wide cache on globalThis (survives hot reload)
-  'lib/members/queries.ts': 2, // populated reads typed by hand; to go
   'lib/panels/mutations.ts': 2, // populated reads typed by hand; to go
   'lib/panels/queries.ts': 4, // populated reads typed by hand; to go
   'lib/panels/taster.ts': 2, // populated reads typed by hand; to go
@@ -38,8 +33,6 @@ const ALLOWED: Record<string, number> = {
   'lib/trials/mutations.ts': 1, // populated reads typed by hand; to go
   'lib/uploads/mutations.ts': 1, // populated reads typed by hand; to go
   'lib/uploads/queries.ts': 2, // populated reads typed by hand; to go
-  'lib/workspaces/queries.ts': 1, // populated reads typed by hand; to go
-  'lib/workspaces/record-home.ts': 1, // populated reads typed by hand; to go
 };
 
 const ROOTS = ['lib', 'app', 'components', 'entities'];
