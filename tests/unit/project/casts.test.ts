@@ -14,7 +14,6 @@ const ALLOWED: Record<string, number> = {
   'lib/client-address.ts': 1, // a process-wide cache on globalThis (survives hot reload)
   'lib/costs/queries.ts': 3, // populated reads typed by hand; to go
   'lib/db.ts': 1, // a process-wide cache on globalThis (survives hot reload)
-  'lib/formulas/mutations.ts': 1, // populated reads typed by hand; to go
   'lib/formulas/queries.ts': 5, // populated reads typed by hand; to go
   'lib/label/queries.ts': 2, // populated reads typed by hand; to go
   'lib/mail.ts': 1, // a process-wide cache on globalThis (survives hot reload)
@@ -26,11 +25,9 @@ const ALLOWED: Record<string, number> = {
   'lib/pricing/queries.ts': 3, // populated reads typed by hand; to go
   'lib/production/queries.ts': 16, // populated reads typed by hand; to go
   'lib/rate-limit.ts': 1, // a process-wide cache on globalThis (survives hot reload)
-  'lib/results/mutations.ts': 1, // populated reads typed by hand; to go
   'lib/seed/demo.ts': 0, // populated reads typed by hand; to go
   'lib/sql.ts': 1, // a process-wide cache on globalThis (survives hot reload)
   'lib/storage.ts': 1, // a process-wide cache on globalThis (survives hot reload)
-  'lib/trials/mutations.ts': 1, // populated reads typed by hand; to go
 };
 
 const ROOTS = ['lib', 'app', 'components', 'entities'];
