@@ -10,7 +10,6 @@ import { describe, expect, it } from 'vitest';
 const ALLOWED: Record<string, number> = {
   'app/api/bench/floor/route.ts': 1, // populated reads typed by hand; to go
   'components/costs/CostLikingChart.tsx': 1, // populated reads typed by hand; to go
-  'components/results/Charts.tsx': 2, // populated reads typed by hand; to go
   'lib/client-address.ts': 1, // a process-wide cache on globalThis (survives hot reload)
   'lib/costs/queries.ts': 3, // populated reads typed by hand; to go
   'lib/db.ts': 1, // a process-wide cache on globalThis (survives hot reload)
