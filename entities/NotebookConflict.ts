@@ -2,6 +2,7 @@ import { defineEntity, type InferEntity } from '@mikro-orm/core';
 import { randomUUID } from 'node:crypto';
 import { Workspace } from './Workspace';
 import { User } from './User';
+import type { TiptapDoc } from '../lib/notebook/schema';
 import { NotebookEntry } from './NotebookEntry';
 
 /** A save that arrived from an older version: kept whole beside the entry, never dropped. */
@@ -12,7 +13,7 @@ export const NotebookConflict = defineEntity({
     id: p.uuid().primary().onCreate(() => randomUUID()),
     workspace: p.manyToOne(Workspace),
     entry: p.manyToOne(NotebookEntry),
-    doc: p.json<Record<string, unknown>>(),
+    doc: p.json<TiptapDoc>(),
     baseVersion: p.integer(),
     savedBy: p.manyToOne(User),
     createdAt: p.datetime().onCreate(() => new Date()),

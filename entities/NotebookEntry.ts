@@ -2,6 +2,7 @@ import { defineEntity, type InferEntity } from '@mikro-orm/core';
 import { randomUUID } from 'node:crypto';
 import { Workspace } from './Workspace';
 import { User } from './User';
+import type { TiptapDoc } from '../lib/notebook/schema';
 import { Trial } from './Trial';
 
 /**
@@ -17,7 +18,7 @@ export const NotebookEntry = defineEntity({
     trial: p.manyToOne(Trial),
     /** Null for the trial's own entry. */
     variantId: p.uuid().nullable(),
-    doc: p.json<Record<string, unknown>>(),
+    doc: p.json<TiptapDoc>(),
     version: p.integer().default(0),
     updatedBy: p.manyToOne(User).nullable(),
     updatedAt: p.datetime().onCreate(() => new Date()),

@@ -18,7 +18,7 @@ import { clientAddress } from '@/lib/client-address';
 import { consumeSignInAttempt, signInSucceeded, RateLimited } from '@/lib/rate-limit';
 import { tooManyAttemptsCode, type SignInErrorCode } from '@/lib/sign-in-errors';
 import { logger } from '@/lib/log';
-import type { Actor, Role } from '@/lib/permissions';
+import type { Actor } from '@/lib/permissions';
 
 export const WORKSPACE_COOKIE = 'setwell-workspace';
 export const API_TOKEN_PREFIX = 'swt_';
@@ -96,7 +96,7 @@ export function authOptions(appUrl: string = env().APP_URL): NextAuthOptions {
       async jwt({ token, user }) {
         if (user) {
           token.sub = user.id;
-          token.epoch = (user as unknown as SignedInUser).sessionEpoch;
+          if ('sessionEpoch' in user && typeof user.sessionEpoch === 'number') token.epoch = user.sessionEpoch;
         }
         return token;
       },
@@ -139,8 +139,6 @@ async function sessionFromCookies(cookieHeader: string | null | undefined): Prom
   return null;
 }
 
-type MembershipRow = { workspace: { id: string; name: string }; role: Role };
-
 /**
  * The actor, read fresh: role, deactivation and (for a session) the session epoch are checked on
  * every request, so a role change, a deactivation, a password reset or "sign out everywhere"
@@ -151,11 +149,11 @@ async function actorFor(userId: string, preferredWorkspaceId: string | undefined
   const user = await em.findOne(User, { id: userId });
   if (!user) return null;
   if (sessionEpoch !== undefined && sessionEpoch !== user.sessionEpoch) return null;
-  const memberships = (await em.find(
+  const memberships = await em.find(
     Membership,
     { user: userId, active: true },
     { populate: ['workspace'], orderBy: { createdAt: 'asc' } },
-  )) as unknown as MembershipRow[];
+  );
   const chosen = memberships.find((m) => m.workspace.id === preferredWorkspaceId) ?? memberships[0];
   if (!chosen) return null;
   return {

@@ -7,7 +7,7 @@
 import type { ReactNode } from 'react';
 import { renderToReactElement } from '@tiptap/static-renderer/pm/react';
 import { notebookExtensions } from './extensions';
-import { linkPresentation, sanitizeDoc, type TiptapDoc } from '@/lib/notebook/schema';
+import { linkPresentation, sanitizeDoc, type TiptapDoc, type TiptapNode } from '@/lib/notebook/schema';
 
 /** Our own prose styles, applied to the plain elements the renderer produces. */
 export const NOTEBOOK_PROSE_CLASS = [
@@ -97,8 +97,8 @@ export function renderNotebookDoc(doc: unknown): ReactNode {
 }
 
 function isBlank(doc: TiptapDoc): boolean {
-  const hasText = (n: { text?: string; type: string; content?: unknown[] }): boolean =>
-    Boolean(n.text?.trim()) || n.type === 'image' || n.type === 'table' || n.type === 'horizontalRule' || (n.content ?? []).some((c) => hasText(c as never));
+  const hasText = (n: TiptapNode): boolean =>
+    Boolean(n.text?.trim()) || n.type === 'image' || n.type === 'table' || n.type === 'horizontalRule' || (n.content ?? []).some((c) => hasText(c));
   return !hasText(doc);
 }
 

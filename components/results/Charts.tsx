@@ -1,6 +1,6 @@
 'use client';
 
-import { Chart as ChartJS, BarElement, CategoryScale, LinearScale, Tooltip, Legend, type Plugin } from 'chart.js';
+import { Chart as ChartJS, BarElement, CategoryScale, LinearScale, Tooltip, Legend, type ChartType, type Plugin } from 'chart.js';
 import { Bar } from 'react-chartjs-2';
 import { clipInterval, clippingNote, jarDiverging, type ClippedInterval, type JarShareRow } from '@/lib/results/chart-data';
 
@@ -13,16 +13,24 @@ const QUINCE = '#d9a82e';
 const LEAF = '#2f7a43';
 const EMBER = '#b2331f';
 
-type WhiskerOptions = { intervals: Array<ClippedInterval | null> };
+type WhiskerOptions = { intervals?: Array<ClippedInterval | null> };
+
+// chart.js's own way to type a plugin's options (set on the chart, read by the plugin's hooks).
+declare module 'chart.js' {
+  // eslint-disable-next-line @typescript-eslint/no-unused-vars -- a merged interface repeats chart.js's own type parameter
+  interface PluginOptionsByType<TType extends ChartType> {
+    setwellErrorBars?: WhiskerOptions;
+  }
+}
 
 /**
  * Draws each bar's 95 % interval as a whisker; chart.js has no error bars of its own. An end cut at
  * the scale gets an arrowhead instead of a cap, so a cut whisker never reads as the true limit.
  */
-const errorBars: Plugin<'bar'> = {
+const errorBars: Plugin<'bar', WhiskerOptions> = {
   id: 'setwellErrorBars',
-  afterDatasetsDraw(chart) {
-    const intervals = (chart.options.plugins as unknown as { setwellErrorBars?: WhiskerOptions }).setwellErrorBars?.intervals;
+  afterDatasetsDraw(chart, _args, options) {
+    const intervals = options.intervals;
     if (!intervals) return;
     const { ctx, scales } = chart;
     const meta = chart.getDatasetMeta(0);
@@ -71,7 +79,7 @@ export function MeansChart({ title, labels, means, intervals, min, max, letters 
           options={{
             maintainAspectRatio: false,
             scales: { y: { min, max, title: { display: true, text: `Mean score (${min}–${max})` } } },
-            plugins: { legend: { display: false }, setwellErrorBars: { intervals: clipped } } as never,
+            plugins: { legend: { display: false }, setwellErrorBars: { intervals: clipped } },
           }}
           plugins={[errorBars]}
         />

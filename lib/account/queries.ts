@@ -21,5 +21,5 @@ export async function previewInvitation(token: string): Promise<InvitationPrevie
   );
   if (!inv) return null;
   const user = await em.findOne(User, { email: inv.email });
-  return { email: inv.email, workspaceName: (inv.workspace as unknown as { name: string }).name, role: inv.role, hasAccount: !!user?.passwordHash };
+  return { email: inv.email, workspaceName: inv.workspace.name, role: inv.role, hasAccount: !!user?.passwordHash };
 }

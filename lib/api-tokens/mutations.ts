@@ -6,7 +6,7 @@ import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
 import { API_TOKEN_PREFIX } from '@/lib/auth';
 import { hashSecret, newSecret } from '@/lib/secrets';
 import type { TokenRow } from './schema';
-import { toRow, type TokenEntity } from './queries';
+import { toRow } from './queries';
 
 /** Returns the secret once; only its hash is kept. */
 export async function createToken(actor: Actor, input: { label: string }): Promise<TokenRow & { secret: string }> {
@@ -18,7 +18,7 @@ export async function createToken(actor: Actor, input: { label: string }): Promi
     label: input.label,
     displayPrefix: secret.slice(0, 10),
     tokenHash: hashSecret(secret),
-  }) as unknown as TokenEntity;
+  });
   await em.flush();
   return { ...toRow(token), secret };
 }

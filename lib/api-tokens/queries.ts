@@ -2,10 +2,11 @@ import 'server-only';
 /** Reads of personal API tokens: the signed-in person's own, never anyone else's. */
 import { getEm } from '@/lib/db';
 import { ApiToken } from '@/entities';
+import type { ApiTokenEntity } from '@/entities/ApiToken';
 import { inWorkspace, type Actor } from '@/lib/permissions';
 import type { TokenRow } from './schema';
 
-export type TokenEntity = { id: string; label: string; displayPrefix: string; createdAt: Date; lastUsedAt?: Date | null };
+type TokenEntity = Pick<ApiTokenEntity, 'id' | 'label' | 'displayPrefix' | 'createdAt' | 'lastUsedAt'>;
 
 export const toRow = (t: TokenEntity): TokenRow => ({
   tokenId: t.id,
@@ -18,5 +19,5 @@ export const toRow = (t: TokenEntity): TokenRow => ({
 export async function listMyTokens(actor: Actor): Promise<TokenRow[]> {
   const em = await getEm();
   const rows = await em.find(ApiToken, { ...inWorkspace(actor), user: actor.userId, revokedAt: null }, { orderBy: { createdAt: 'desc' } });
-  return (rows as unknown as TokenEntity[]).map(toRow);
+  return rows.map(toRow);
 }

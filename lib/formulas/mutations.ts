@@ -102,7 +102,7 @@ export async function reviseFormula(actor: Actor, formulaId: string, input: Revi
     });
     formula.latestRevision = number;
     formula.name = name;
-    formula.updatedBy = actor.userId as never;
+    formula.updatedBy = tx.getReference(User, actor.userId);
     formula.updatedAt = new Date();
     await tx.flush();
     return { formulaId, revision: number };

@@ -114,8 +114,7 @@ const INPUT_FIELDS = [
 function candidateOf(v: IngredientView | undefined): Candidate {
   if (!v) return { labelData: { nutrients: {} } };
   const { additive, ...labelData } = v.labelData;
-  const stored = v as unknown as Record<string, unknown>;
-  const values = Object.fromEntries(INPUT_FIELDS.filter((k) => stored[k] !== undefined).map((k) => [k, stored[k]]));
+  const values = Object.fromEntries(INPUT_FIELDS.filter((k) => v[k] !== undefined).map((k) => [k, v[k]]));
   return { ...values, labelData: { ...labelData, nutrients: { ...labelData.nutrients } }, eNumber: additive?.eNumber ?? '', additiveClass: additive?.functionalClass ?? '' };
 }
 

@@ -82,8 +82,8 @@ export async function updateIngredient(actor: Actor, id: string, input: Ingredie
 
 /** True when saving the input would change nothing (an exported row imported back keeps its origin and source). */
 function sameValues(row: IngredientEntity, input: IngredientInput): boolean {
-  const stored = row as unknown as Record<string, unknown>;
-  return Object.entries(columns(input)).every(([k, v]) => JSON.stringify(stored[k] ?? null) === JSON.stringify(v ?? null));
+  const next = columns(input);
+  return (Object.keys(next) as Array<keyof typeof next>).every((k) => JSON.stringify(row[k] ?? null) === JSON.stringify(next[k] ?? null));
 }
 
 /**

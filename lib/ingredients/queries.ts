@@ -2,45 +2,55 @@ import 'server-only';
 import type { EntityManager } from '@mikro-orm/postgresql';
 import { getEm } from '@/lib/db';
 import { Ingredient } from '@/entities';
+import type { IngredientEntity } from '@/entities/Ingredient';
 import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
 import type { IngredientComposition } from '@/lib/chemistry';
-import { NUTRIENT_KEYS, type NutrientValues } from '@/lib/label/types';
+import { NUTRIENT_KEYS, type NutrientKey, type NutrientValues } from '@/lib/label/types';
 import type { IngredientListQuery, IngredientView } from './schema';
-import type { AdditiveClass, IngredientLabelFields } from './label-data';
+import type { IngredientLabelFields } from './label-data';
 
-type Row = Record<string, unknown> & {
-  id: string; name: string; kind: IngredientView['kind']; solidsPct: number; origin: IngredientView['origin'];
-  updatedAt: Date; archivedAt?: Date | null; updatedBy?: { name: string } | null;
-};
+/** A library row as the views read it; `updatedBy` is populated where the name is shown. */
+type Row = IngredientEntity;
 
 const OPTIONAL_KEYS = ['phMin', 'phMax', 'acidPct', 'pectinLevel', 'euFruitGroup', 'usFruitGroup', 'pectinType', 'pectinGrade', 'sweetenerType', 'acidType'] as const;
 
+/**
+ * What a composition is read from: a library row, or a view of one. A value nobody gave is null or
+ * absent; the three sugars come from the row's label columns.
+ */
+export type CompositionSource = Pick<IngredientComposition, 'kind' | 'name' | 'solidsPct'>
+  & { [K in (typeof OPTIONAL_KEYS)[number]]?: IngredientComposition[K] | null }
+  & { calciumSource?: boolean | null } & Partial<Record<'sucroseG' | 'glucoseG' | 'fructoseG', number | null>>;
+
 /** The composition the chemistry module reads, without nulls or library bookkeeping. */
-export function compositionOf(row: { kind: string; name: string; solidsPct: number; calciumSource?: boolean | null }): IngredientComposition {
-  const source = row as Record<string, unknown>;
-  const c: Record<string, unknown> = { kind: row.kind, name: row.name, solidsPct: row.solidsPct };
-  for (const key of OPTIONAL_KEYS) if (source[key] != null) c[key] = source[key];
+export function compositionOf(row: CompositionSource): IngredientComposition {
+  const c: IngredientComposition = { kind: row.kind, name: row.name, solidsPct: row.solidsPct };
+  Object.assign(c, Object.fromEntries(OPTIONAL_KEYS.filter((key) => row[key] != null).map((key) => [key, row[key]])));
   if (row.calciumSource) c.calciumSource = true;
   // Only a full profile is passed on: a sugar the library does not know is never taken as zero.
-  const [sucroseG, glucoseG, fructoseG] = [source.sucroseG, source.glucoseG, source.fructoseG];
+  const { sucroseG, glucoseG, fructoseG } = row;
   if (typeof sucroseG === 'number' && typeof glucoseG === 'number' && typeof fructoseG === 'number') c.sugars = { sucroseG, glucoseG, fructoseG };
-  return c as unknown as IngredientComposition;
+  return c;
 }
 
+/** The label columns of a library row: one per nutrient, the allergen lists, the additive's two. */
+export type LabelColumns = Pick<IngredientEntity, NutrientKey | 'labelName' | 'euAllergens' | 'usAllergens' | 'sulphiteMgPerKg' | 'eNumber' | 'additiveClass' | 'isAddedWater' | 'compositionSource'>;
+
 /** The stored label data of a row (columns per nutrient, allergen lists, the additive's two columns). */
-export function labelDataOf(row: Record<string, unknown>): IngredientLabelFields {
-  const nutrients = Object.fromEntries(NUTRIENT_KEYS.map((k) => [k, (row[k] as number | null | undefined) ?? null])) as NutrientValues;
-  const eNumber = (row.eNumber as string | null | undefined) ?? null;
-  const additiveClass = (row.additiveClass as AdditiveClass | null | undefined) ?? null;
+export function labelDataOf(row: LabelColumns): IngredientLabelFields {
+  const nutrients = Object.fromEntries(NUTRIENT_KEYS.map((k) => [k, row[k] ?? null])) as NutrientValues;
+  const eNumber = row.eNumber ?? null;
+  const additiveClass = row.additiveClass ?? null;
   return {
-    labelName: (row.labelName as string | null | undefined) ?? null,
+    labelName: row.labelName ?? null,
     nutrients,
-    euAllergens: Array.isArray(row.euAllergens) ? (row.euAllergens as IngredientLabelFields['euAllergens']) : [],
-    usAllergens: Array.isArray(row.usAllergens) ? (row.usAllergens as IngredientLabelFields['usAllergens']) : [],
-    sulphiteMgPerKg: (row.sulphiteMgPerKg as number | null | undefined) ?? null,
+    // Guarded: the JSON columns are the one place a hand-edited row could hold something else.
+    euAllergens: Array.isArray(row.euAllergens) ? row.euAllergens : [],
+    usAllergens: Array.isArray(row.usAllergens) ? row.usAllergens : [],
+    sulphiteMgPerKg: row.sulphiteMgPerKg ?? null,
     additive: eNumber && additiveClass ? { eNumber, functionalClass: additiveClass } : null,
     isAddedWater: row.isAddedWater === true,
-    source: (row.compositionSource as string | null | undefined) ?? null,
+    source: row.compositionSource ?? null,
   };
 }
 
@@ -49,8 +59,8 @@ export function toIngredientView(row: Row): IngredientView {
     ...compositionOf(row),
     id: row.id,
     origin: row.origin,
-    source: (row.source as string | null) ?? null,
-    notes: (row.notes as string | null) ?? null,
+    source: row.source ?? null,
+    notes: row.notes ?? null,
     labelData: labelDataOf(row),
     archived: !!row.archivedAt,
     updatedAt: row.updatedAt.toISOString(),
@@ -72,14 +82,14 @@ export async function listIngredients(actor: Actor, query: IngredientListQuery =
     orderBy: sort === 'name' ? { name: dir } : { [sort]: dir, name: 'asc' },
     limit: 1000,
   });
-  return (rows as unknown as Row[]).map(toIngredientView);
+  return rows.map(toIngredientView);
 }
 
 export async function getIngredient(actor: Actor, id: string): Promise<IngredientView> {
   const em = await getEm();
   const row = await em.findOne(Ingredient, { ...inWorkspace(actor), id }, { populate: ['updatedBy'] });
   if (!row) throw notFound('ingredient');
-  return toIngredientView(row as unknown as Row);
+  return toIngredientView(row);
 }
 
 /** Loads the named ingredients of the actor's workspace; ids of other workspaces simply do not match. */
@@ -87,7 +97,7 @@ export async function ingredientsByIds(actor: Actor, ids: string[]): Promise<Map
   if (!ids.length) return new Map();
   const em = await getEm();
   const rows = await em.find(Ingredient, { ...inWorkspace(actor), id: { $in: [...new Set(ids)] } });
-  return new Map((rows as unknown as Row[]).map((r) => [r.id, toIngredientView(r)]));
+  return new Map(rows.map((r) => [r.id, toIngredientView(r)]));
 }
 
 /** The workspace's starter-library ingredient ids by their handbook key (strawberry, sucrose, …). */

@@ -9,6 +9,7 @@ import { LockMode } from '@mikro-orm/core';
 import type { EntityManager } from '@mikro-orm/postgresql';
 import { getEm } from '@/lib/db';
 import { NotebookConflict, NotebookEntry, User } from '@/entities';
+import type { NotebookEntryEntity } from '@/entities/NotebookEntry';
 import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
 import { Conflict, ValidationFailed } from '@/lib/errors';
 import { assertNotebookScope } from './queries';
@@ -22,9 +23,6 @@ import {
   type SaveNotebookResult,
   type TiptapDoc,
 } from './schema';
-
-type EntryRow = { id: string; trial: { id: string }; variantId?: string | null; doc: TiptapDoc; version: number; updatedAt: Date; updatedBy?: { id: string } | null };
-type ConflictRow = { id: string; doc: TiptapDoc; createdAt: Date; resolvedAt?: Date | null; entry: { id: string }; savedBy: { id: string } };
 
 async function nameOf(tx: EntityManager, userId: string | undefined | null): Promise<string | null> {
   if (!userId) return null;
@@ -41,7 +39,7 @@ export function utcStamp(at: Date): string {
  * Creates the entry at version 0 if it does not exist and locks it. Two first saves racing
  * each other both reach the same row: the insert of the second does nothing.
  */
-async function lockEntry(tx: EntityManager, actor: Actor, trialId: string, variantId: string | null): Promise<EntryRow> {
+async function lockEntry(tx: EntityManager, actor: Actor, trialId: string, variantId: string | null): Promise<NotebookEntryEntity> {
   await tx.execute(
     `insert into notebook_entries (id, workspace_id, trial_id, variant_id, doc, version, updated_at)
      values (?, ?, ?, ?, ?::jsonb, 0, now()) on conflict do nothing`,
@@ -49,7 +47,7 @@ async function lockEntry(tx: EntityManager, actor: Actor, trialId: string, varia
   );
   const entry = await tx.findOne(NotebookEntry, { ...inWorkspace(actor), trial: trialId, variantId }, { lockMode: LockMode.PESSIMISTIC_WRITE });
   if (!entry) throw notFound('notebook entry');
-  return entry as unknown as EntryRow;
+  return entry;
 }
 
 export async function saveEntry(actor: Actor, input: SaveNotebookInput): Promise<SaveNotebookResult> {
@@ -61,7 +59,7 @@ export async function saveEntry(actor: Actor, input: SaveNotebookInput): Promise
     if (input.baseVersion === entry.version) {
       const nextVersion = entry.version + 1;
       const savedAt = new Date();
-      Object.assign(entry, { doc: input.doc, version: nextVersion, updatedBy: actor.userId, updatedAt: savedAt });
+      Object.assign(entry, { doc: input.doc, version: nextVersion, updatedBy: tx.getReference(User, actor.userId), updatedAt: savedAt } satisfies Partial<NotebookEntryEntity>);
       await tx.flush();
       return { status: 'saved' as const, version: nextVersion, updatedAt: savedAt.toISOString() };
     }
@@ -104,10 +102,10 @@ export interface ConflictResolution {
 export async function resolveConflict(actor: Actor, input: ResolveNotebookConflictInput): Promise<ConflictResolution> {
   const em = await getEm();
   return em.transactional(async (tx) => {
-    const conflict = (await tx.findOne(NotebookConflict, { ...inWorkspace(actor), id: input.conflictId }, { lockMode: LockMode.PESSIMISTIC_WRITE })) as unknown as ConflictRow | null;
+    const conflict = await tx.findOne(NotebookConflict, { ...inWorkspace(actor), id: input.conflictId }, { lockMode: LockMode.PESSIMISTIC_WRITE });
     if (!conflict) throw notFound('conflict');
     if (conflict.resolvedAt) throw new Conflict('This conflict was already resolved; reload the entry to see the current version.');
-    const entry = (await tx.findOne(NotebookEntry, { ...inWorkspace(actor), id: conflict.entry.id }, { lockMode: LockMode.PESSIMISTIC_WRITE })) as unknown as EntryRow | null;
+    const entry = await tx.findOne(NotebookEntry, { ...inWorkspace(actor), id: conflict.entry.id }, { lockMode: LockMode.PESSIMISTIC_WRITE });
     if (!entry) throw notFound('notebook entry');
 
     let nextDoc: TiptapDoc | null = null;
@@ -121,8 +119,8 @@ export async function resolveConflict(actor: Actor, input: ResolveNotebookConfli
       }
     }
     const version = nextDoc ? entry.version + 1 : entry.version;
-    if (nextDoc) Object.assign(entry, { doc: nextDoc, version, updatedBy: actor.userId, updatedAt: new Date() });
-    Object.assign(conflict, { resolvedAt: new Date() });
+    if (nextDoc) Object.assign(entry, { doc: nextDoc, version, updatedBy: tx.getReference(User, actor.userId), updatedAt: new Date() } satisfies Partial<NotebookEntryEntity>);
+    conflict.resolvedAt = new Date();
     await tx.flush();
     return { entryId: entry.id, trialId: entry.trial.id, variantId: entry.variantId ?? null, version, keep: input.keep };
   });

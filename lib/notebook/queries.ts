@@ -2,12 +2,12 @@ import 'server-only';
 /** Reading notebook entries: always scoped to the actor's workspace and the trial (404 otherwise). */
 import { getEm } from '@/lib/db';
 import { NotebookConflict, NotebookEntry } from '@/entities';
+import type { NotebookConflictEntity } from '@/entities/NotebookConflict';
 import { inWorkspace, type Actor } from '@/lib/permissions';
 import { assertVariantOfTrial, loadTrial } from '@/lib/trials/access';
-import { EMPTY_NOTEBOOK_DOC, type NotebookConflictView, type NotebookEntryView, type TiptapDoc } from './schema';
+import { EMPTY_NOTEBOOK_DOC, type NotebookConflictView, type NotebookEntryView } from './schema';
 
-type EntryRow = { id: string; doc: TiptapDoc; version: number; updatedAt: Date; updatedBy?: { name: string } | null };
-type ConflictRow = { id: string; doc: TiptapDoc; baseVersion: number; createdAt: Date; savedBy: { name: string } };
+type ConflictRow = Pick<NotebookConflictEntity, 'id' | 'doc' | 'baseVersion' | 'createdAt'> & { savedBy: { name: string } };
 
 /** 404 unless the trial is in the actor's workspace and, when given, the variant belongs to it. */
 export async function assertNotebookScope(actor: Actor, trialId: string, variantId: string | null): Promise<void> {
@@ -31,19 +31,19 @@ export async function getEntry(actor: Actor, trialId: string, variantId: string 
  */
 export async function readEntry(actor: Actor, trialId: string, variantId: string | null): Promise<NotebookEntryView> {
   const em = await getEm();
-  const entry = (await em.findOne(
+  const entry = await em.findOne(
     NotebookEntry,
     { ...inWorkspace(actor), trial: trialId, variantId },
     { populate: ['updatedBy'] },
-  )) as unknown as EntryRow | null;
+  );
   if (!entry) {
     return { entryId: null, doc: structuredClone(EMPTY_NOTEBOOK_DOC), version: 0, updatedAt: null, updatedByName: null, conflicts: [] };
   }
-  const conflicts = (await em.find(
+  const conflicts = await em.find(
     NotebookConflict,
     { ...inWorkspace(actor), entry: entry.id, resolvedAt: null },
     { populate: ['savedBy'], orderBy: { createdAt: 'asc' } },
-  )) as unknown as ConflictRow[];
+  );
   return {
     entryId: entry.id,
     doc: entry.doc,

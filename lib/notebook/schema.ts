@@ -396,7 +396,8 @@ export const notebookDocSchema = z
   .superRefine((value, ctx) => {
     for (const p of findDocProblems(value)) ctx.addIssue({ code: 'custom', path: p.path, message: p.message });
   })
-  .transform((value) => withoutLinkPresentation(value as TiptapDoc)) as unknown as z.ZodType<TiptapDoc, unknown>;
+  // superRefine has refused everything that is not a document, so the value is one here.
+  .transform((value): TiptapDoc => ({ ...withoutLinkPresentation(value as TiptapDoc), type: 'doc' }));
 
 /** The body of PUT /api/v1/trials/{trialId}/notebook. */
 export const saveNotebookBodySchema = z

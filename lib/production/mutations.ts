@@ -7,12 +7,12 @@ import 'server-only';
 import type { EntityManager } from '@mikro-orm/postgresql';
 import { LockMode } from '@mikro-orm/core';
 import { getEm, lockForTransaction } from '@/lib/db';
-import { AuditEvent, BatchDecision, BatchRecord, Membership, Product, ProductionFormula, PromotionRequest, Trial, Variant } from '@/entities';
+import { AuditEvent, BatchDecision, BatchRecord, Membership, Product, ProductionFormula, PromotionRequest, Trial, User, Variant } from '@/entities';
 import { authorizeDecision, authorizeWithdrawal, inWorkspace, notFound, type Actor } from '@/lib/permissions';
 import { Conflict, ValidationFailed } from '@/lib/errors';
 import { computeFormula } from '@/lib/formulas/compute';
 import { labelOfStored } from '@/lib/label/queries';
-import { checkBatchAgainstSpec, type QcCheck, type QcSpec } from '@/lib/chemistry';
+import { checkBatchAgainstSpec } from '@/lib/chemistry';
 import { getTrialComparison } from '@/lib/results/trial-comparison';
 import { trialCode } from '@/lib/trials/access';
 import { sendMail, escapeHtml } from '@/lib/mail';
@@ -23,7 +23,7 @@ import { todayIso } from '@/lib/format/dates';
 import type { FormulaSettingsInput, RevisionLine } from '@/lib/formulas/schema';
 import type { BatchDecisionInput, BatchRecordInput, BatchRetestInput, DecisionInput, PromotionEvidence, RequestPromotionInput } from './schema';
 import { batchStanding, checkRetest, type BatchDecisionFact } from './holds';
-import { AUDIT_ACTIONS, dayOfYear, promotionCode, type AuditAction, type BatchOutcome, type Disposition } from './vocabulary';
+import { AUDIT_ACTIONS, dayOfYear, promotionCode, type AuditAction, type BatchOutcome } from './vocabulary';
 
 async function audit(
   tx: EntityManager, actor: Actor, action: AuditAction,
@@ -96,7 +96,7 @@ function computeOk(settings: FormulaSettingsInput, lines: RevisionLine[]) {
 }
 
 async function headsOfProduct(em: EntityManager, actor: Actor): Promise<string[]> {
-  const members = (await em.find(Membership, { ...inWorkspace(actor), role: 'head_of_product' }, { populate: ['user'] })) as unknown as Array<{ user: { id: string; email: string } }>;
+  const members = await em.find(Membership, { ...inWorkspace(actor), role: 'head_of_product' }, { populate: ['user'] });
   return members.filter((m) => m.user.id !== actor.userId).map((m) => m.user.email);
 }
 
@@ -131,7 +131,7 @@ export async function requestPromotion(actor: Actor, input: RequestPromotionInpu
       product: input.target === 'existing_product' ? input.productId : null,
       newProductName: input.target === 'new_product' ? input.newProductName : null, newProductCode: input.target === 'new_product' ? input.newProductCode : null,
       rationale: input.rationale, process: input.process, spec: input.spec, evidence: built.evidence, status: 'pending', requestedBy: actor.userId,
-    }) as unknown as { id: string; number: number };
+    });
     await tx.flush();
     await audit(tx, actor, 'promotion.requested', { type: 'promotion_request', id: request.id }, request.id,
       `${promotionCode(request.number)} for ${trialCode(trial.number)} variant ${variant.label}`);
@@ -168,7 +168,7 @@ export async function decidePromotion(actor: Actor, requestId: string, input: De
     authorizeDecision(actor, { requestedById });
     if (request.status !== 'pending') throw new Conflict(`This request was already decided (${request.status.replace('_', ' ')}).`);
     const code = promotionCode(request.number);
-    request.decidedBy = actor.userId as never;
+    request.decidedBy = tx.getReference(User, actor.userId);
     request.decidedAt = new Date();
     request.decisionComment = input.comment || null;
 
@@ -185,7 +185,7 @@ export async function decidePromotion(actor: Actor, requestId: string, input: De
     const computation = computeOk(variant.settings, variant.lines);
     if (!computation) throw new Conflict('The variant’s chemistry can no longer be computed; send the request back.');
 
-    let productId = (request.product as unknown as { id: string } | null)?.id ?? null;
+    let productId = request.product?.id ?? null;
     if (!productId) {
       if (await tx.count(Product, { ...inWorkspace(actor), code: request.newProductCode! })) {
         throw new Conflict(`The product code ${request.newProductCode} was taken since the request was made; send it back so a new code can be chosen.`);
@@ -193,7 +193,7 @@ export async function decidePromotion(actor: Actor, requestId: string, input: De
       const product = tx.create(Product, { workspace: actor.workspaceId, code: request.newProductCode!, name: request.newProductName!, createdBy: requestedById });
       await tx.flush();
       productId = product.id;
-      request.product = productId as never;
+      request.product = product;
     }
     // The label is frozen with the version; one the label modules cannot compute stays null and is computed on read.
     const labelOutcome = await labelOfStored(tx, actor, variant.settings, variant.lines);
@@ -212,7 +212,7 @@ export async function decidePromotion(actor: Actor, requestId: string, input: De
     const { packFormatId, costAtApproval } = frozenCost ?? { packFormatId: null, costAtApproval: null };
     const created = tx.create(ProductionFormula, {
       workspace: actor.workspaceId, product: productId, version, status: 'current', packFormat: packFormatId, costAtApproval,
-      settings: variant.settings, lines: variant.lines, process: request.process, compliance: computation.compliance, spec: request.spec as QcSpec,
+      settings: variant.settings, lines: variant.lines, process: request.process, compliance: computation.compliance, spec: request.spec,
       label: labelOutcome.ok ? labelOutcome.label : null,
       sourceTrial: request.trial.id, sourceVariantId: variant.id, sourceVariantLabel: variant.label,
       promotionRequestId: request.id, approvedBy: actor.userId,
@@ -227,7 +227,7 @@ export async function decidePromotion(actor: Actor, requestId: string, input: De
     return { status: 'approved' as const, productionFormulaId: created.id, code, requestedById };
   });
 
-  const requester = await em.fork().findOne(Membership, { ...inWorkspace(actor), user: outcome.requestedById }, { populate: ['user'] }) as unknown as { user: { email: string } } | null;
+  const requester = await em.fork().findOne(Membership, { ...inWorkspace(actor), user: outcome.requestedById }, { populate: ['user'] });
   if (requester) {
     await notify(actor, [requester.user.email],
       outcome.status === 'approved' ? `Promotion ${outcome.code} approved` : `Promotion ${outcome.code} sent back`,
@@ -248,7 +248,7 @@ export async function withdrawPromotion(actor: Actor, requestId: string, comment
     authorizeWithdrawal(actor, { requestedById: request.requestedBy.id });
     if (request.status !== 'pending') throw new Conflict('Only a request awaiting review can be withdrawn.');
     request.status = 'withdrawn';
-    request.decidedBy = actor.userId as never;
+    request.decidedBy = tx.getReference(User, actor.userId);
     request.decidedAt = new Date();
     request.decisionComment = comment || null;
     await tx.flush();
@@ -259,8 +259,7 @@ export async function withdrawPromotion(actor: Actor, requestId: string, comment
 
 export async function recordBatch(actor: Actor, versionId: string, input: BatchRecordInput): Promise<{ batchId: string; outcome: BatchOutcome }> {
   const em = await getEm();
-  const version = (await em.findOne(ProductionFormula, { ...inWorkspace(actor), id: versionId }, { populate: ['product'] })) as unknown as
-    | { id: string; version: number; status: string; spec: QcSpec; promotionRequestId: string; product: { id: string; code: string } } | null;
+  const version = await em.findOne(ProductionFormula, { ...inWorkspace(actor), id: versionId }, { populate: ['product'] });
   if (!version) throw notFound('production version');
   if (version.status !== 'current') throw new Conflict(`v${version.version} is superseded: record batches against the version in production.`);
 
@@ -308,22 +307,18 @@ export async function recordBatch(actor: Actor, versionId: string, input: BatchR
   });
 }
 
-type HeldBatchRow = {
-  id: string; lotCode: string; brixReading: number; brixSampleTempC: number; ph: number; fillTempC: number; netFillMeanG: number | null; netFillMinG: number | null;
-  setTestScore: number | null; checks: QcCheck[]; disposition: Disposition | null; productionFormula: { id: string };
-};
-
 /** Locks the batch row (decisions on one batch are serialised) and works out where it stands. */
 async function lockedStanding(tx: EntityManager, actor: Actor, batchId: string) {
-  const batch = (await tx.findOne(BatchRecord, { ...inWorkspace(actor), id: batchId }, { lockMode: LockMode.PESSIMISTIC_WRITE })) as unknown as HeldBatchRow | null;
+  const batch = await tx.findOne(BatchRecord, { ...inWorkspace(actor), id: batchId }, { lockMode: LockMode.PESSIMISTIC_WRITE });
   if (!batch) throw notFound('batch');
-  const version = (await tx.findOneOrFail(ProductionFormula, { ...inWorkspace(actor), id: batch.productionFormula.id })) as unknown as { spec: QcSpec; promotionRequestId: string };
-  const decisions = (await tx.find(BatchDecision, { ...inWorkspace(actor), batch: batch.id }, { orderBy: { createdAt: 'asc' } })) as unknown as BatchDecisionFact[];
+  const version = await tx.findOneOrFail(ProductionFormula, { ...inWorkspace(actor), id: batch.productionFormula.id });
+  const decisions: BatchDecisionFact[] = (await tx.find(BatchDecision, { ...inWorkspace(actor), batch: batch.id }, { orderBy: { createdAt: 'asc' } }))
+    .map((d) => ({ kind: d.kind, readings: d.readings ?? null, checks: d.checks ?? null }));
   const readings = {
     brixReading: batch.brixReading, brixSampleTempC: batch.brixSampleTempC, ph: batch.ph, fillTempC: batch.fillTempC,
     netFillMeanG: batch.netFillMeanG, netFillMinG: batch.netFillMinG, setTestScore: batch.setTestScore,
   };
-  return { batch, version, standing: batchStanding({ readings, checks: batch.checks, disposition: batch.disposition }, decisions) };
+  return { batch, version, standing: batchStanding({ readings, checks: batch.checks, disposition: batch.disposition ?? null }, decisions) };
 }
 
 const NOT_HELD = { passed: 'This batch passed at recording; it is not on hold.', discarded: 'This batch was discarded at recording.', released: 'This batch was already released.', rejected: 'This batch was already rejected.' } as const;

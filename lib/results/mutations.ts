@@ -1,7 +1,7 @@
 import 'server-only';
 /** Writes of the results feature: the developer's recommendation of a trial's variant. */
 import { getEm } from '@/lib/db';
-import { Trial, Variant } from '@/entities';
+import { Trial, User, Variant } from '@/entities';
 import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
 import { ValidationFailed } from '@/lib/errors';
 
@@ -14,7 +14,7 @@ export async function recommendVariant(actor: Actor, trialId: string, input: { v
   if (!variant) throw new ValidationFailed('Choose a variant of this trial.', { variantId: ['Choose a variant of this trial.'] });
   trial.recommendedVariantId = variant.id;
   trial.recommendationRationale = input.rationale;
-  trial.recommendedBy = actor.userId as never;
+  trial.recommendedBy = em.getReference(User, actor.userId);
   trial.recommendedAt = new Date();
   trial.updatedAt = new Date();
   await em.flush();

@@ -256,7 +256,7 @@ export async function correctMeasurement(actor: Actor, trialId: string, measurem
   await em.transactional(async (tx) => {
     const m = await loadCookForChange(tx, actor, trialId, measurementId);
     const { reason, ...sent } = input;
-    const stored = measurementColumns(m as unknown as CookReadings);
+    const stored: CookColumns = { cookDate: m.cookDate, ...cookValues(m) };
     const next = measurementColumns({ ...stored, ...sent } as CookReadings);
     const problems = cookReadingProblems(next);
     if (problems.length) {

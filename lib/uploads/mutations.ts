@@ -71,7 +71,7 @@ export async function createUpload(actor: Actor, input: CreateUploadInput, limit
       uploadedBy: actor.userId,
     });
     await em.flush();
-    return toUploadView(row as never, actor.name);
+    return toUploadView(row, actor.name);
   } catch (err) {
     await Promise.all(written.map((key) => deleteObject(key).catch((e: unknown) => logger.warn({ err: e, key }, 'could not remove an orphaned upload object'))));
     throw err;

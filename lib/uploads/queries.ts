@@ -63,7 +63,7 @@ export async function readUploads(actor: Actor, trialId: string, query: UploadLi
   if (filter.variantId) where.variantId = filter.variantId;
   if (filter.measurementId) where.measurementId = filter.measurementId;
   const rows = await em.find(Upload, where, { populate: ['uploadedBy'], orderBy: { createdAt: 'asc', id: 'asc' }, limit: 1000 });
-  return (rows as unknown as UploadRow[]).map((r) => toUploadView(r));
+  return rows.map((r) => toUploadView(r));
 }
 
 /** The row itself (storage keys included), for the download and delete paths only. */
@@ -72,7 +72,7 @@ export async function findUploadRow(actor: Actor, uploadId: string): Promise<Upl
   const em = await getEm();
   const row = await em.findOne(Upload, { ...inWorkspace(actor), id: uploadId }, { populate: ['uploadedBy'] });
   if (!row) throw notFound('upload');
-  return row as unknown as UploadRow;
+  return row;
 }
 
 export async function getUpload(actor: Actor, uploadId: string): Promise<UploadView> {

@@ -12,9 +12,6 @@ export interface WorkspaceChoice {
 /** The workspaces a user can switch between: their active memberships only. */
 export async function listMyWorkspaces(userId: string): Promise<WorkspaceChoice[]> {
   const em = await getEm();
-  const rows = (await em.find(Membership, { user: userId, active: true }, { populate: ['workspace'], orderBy: { createdAt: 'asc' } })) as unknown as Array<{
-    role: Role;
-    workspace: { id: string; name: string };
-  }>;
+  const rows = await em.find(Membership, { user: userId, active: true }, { populate: ['workspace'], orderBy: { createdAt: 'asc' } });
   return rows.map((r) => ({ workspaceId: r.workspace.id, name: r.workspace.name, role: r.role }));
 }

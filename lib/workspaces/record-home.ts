@@ -10,6 +10,7 @@ import { currentActor } from '@/lib/auth';
 import { isUuid } from '@/lib/ids';
 import { can, ROLE_LABELS, type Actor, type Permission } from '@/lib/permissions';
 import { BatchRecord, Formula, Ingredient, PackagingItem, PanelSession, Product, ProductionFormula, PromotionRequest, Trial } from '@/entities';
+import type { WorkspaceEntity } from '@/entities/Workspace';
 import { listMyWorkspaces } from './queries';
 import { REQUEST_PATH_HEADER } from './record-path';
 
@@ -29,6 +30,7 @@ const RECORD_ROUTES = [
 ] as const satisfies ReadonlyArray<{ prefix: string; kind: string; entity: unknown; permission: Permission; opens: string }>;
 
 type RecordRoute = (typeof RECORD_ROUTES)[number];
+type RecordInWorkspace = { id: string; workspace: WorkspaceEntity };
 
 export interface RecordHome {
   /** "trial", "formula" … as the page names the record. */
@@ -62,11 +64,13 @@ export async function findRecordHome(actor: Pick<Actor, 'userId' | 'workspaceId'
   const others = (await listMyWorkspaces(actor.userId)).filter((w) => w.workspaceId !== actor.workspaceId);
   if (others.length === 0) return null;
   const em = await getEm();
-  const found = (await em.findOne(
-    target.route.entity as typeof Trial,
+  // Every record route's entity belongs to a workspace: looked up by its entity name as that shared
+  // shape (the entity schemas themselves differ, so no one schema type covers them all).
+  const found = await em.findOne<RecordInWorkspace, never, 'workspace'>(
+    target.route.entity.meta.className,
     { id: target.id, workspace: { $in: others.map((w) => w.workspaceId) } },
     { fields: ['workspace'] },
-  )) as unknown as { workspace: { id: string } } | null;
+  );
   const home = found && others.find((w) => w.workspaceId === found.workspace.id);
   if (!home) return null;
   return {

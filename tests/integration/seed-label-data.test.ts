@@ -28,7 +28,7 @@ describe('demo seed label data', () => {
     expect(ids.length).toBeGreaterThan(8);
     const rows = await (await getEm()).find(Ingredient, { workspace: report.workspaceId, id: { $in: ids } });
     expect(rows).toHaveLength(ids.length);
-    for (const row of rows) expect(missingNutrients(labelDataOf(row as unknown as Record<string, unknown>)), row.name).toEqual([]);
+    for (const row of rows) expect(missingNutrients(labelDataOf(row)), row.name).toEqual([]);
   });
 
   it('seeds one reduced-sugar spread with potassium sorbate close under 1,000 mg/kg as sorbic acid', () => {

@@ -8,46 +8,24 @@ import path from 'node:path';
 import { describe, expect, it } from 'vitest';
 
 const ALLOWED: Record<string, number> = {
-  'app/api/bench/floor/route.ts': 1, // populated reads typed by hand; to go
+  'app/api/bench/floor/route.ts': 1, // a process-wide cache on globalThis (survives hot reload)
   'components/costs/CostLikingChart.tsx': 1, // populated reads typed by hand; to go
-  'components/notebook/NotebookView.tsx': 1, // populated reads typed by hand; to go
-  'components/results/Charts.tsx': 2, // populated reads typed by hand; to go
-  'lib/account/queries.ts': 1, // populated reads typed by hand; to go
-  'lib/api-tokens/mutations.ts': 1, // populated reads typed by hand; to go
-  'lib/api-tokens/queries.ts': 1, // populated reads typed by hand; to go
-  'lib/auth.ts': 2, // populated reads typed by hand; to go
   'lib/client-address.ts': 1, // a process-wide cache on globalThis (survives hot reload)
   'lib/costs/queries.ts': 3, // populated reads typed by hand; to go
   'lib/db.ts': 1, // a process-wide cache on globalThis (survives hot reload)
-  'lib/formulas/mutations.ts': 1, // populated reads typed by hand; to go
   'lib/formulas/queries.ts': 5, // populated reads typed by hand; to go
-  'lib/ingredients/csv.ts': 1, // populated reads typed by hand; to go
-  'lib/ingredients/mutations.ts': 1, // populated reads typed by hand; to go
-  'lib/ingredients/queries.ts': 4, // populated reads typed by hand; to go
   'lib/label/queries.ts': 2, // populated reads typed by hand; to go
   'lib/mail.ts': 1, // a process-wide cache on globalThis (survives hot reload)
-  'lib/members/queries.ts': 2, // populated reads typed by hand; to go
-  'lib/notebook/mutations.ts': 3, // populated reads typed by hand; to go
-  'lib/notebook/queries.ts': 2, // populated reads typed by hand; to go
-  'lib/notebook/schema.ts': 1, // populated reads typed by hand; to go
   'lib/panels/mutations.ts': 2, // populated reads typed by hand; to go
   'lib/panels/queries.ts': 4, // populated reads typed by hand; to go
   'lib/panels/taster.ts': 2, // populated reads typed by hand; to go
   'lib/pricing/csv.ts': 1, // populated reads typed by hand; to go
   'lib/pricing/mutations.ts': 3, // populated reads typed by hand; to go
   'lib/pricing/queries.ts': 3, // populated reads typed by hand; to go
-  'lib/production/mutations.ts': 11, // populated reads typed by hand; to go
   'lib/production/queries.ts': 16, // populated reads typed by hand; to go
   'lib/rate-limit.ts': 1, // a process-wide cache on globalThis (survives hot reload)
-  'lib/results/mutations.ts': 1, // populated reads typed by hand; to go
-  'lib/seed/demo.ts': 0, // populated reads typed by hand; to go
   'lib/sql.ts': 1, // a process-wide cache on globalThis (survives hot reload)
   'lib/storage.ts': 1, // a process-wide cache on globalThis (survives hot reload)
-  'lib/trials/mutations.ts': 1, // populated reads typed by hand; to go
-  'lib/uploads/mutations.ts': 1, // populated reads typed by hand; to go
-  'lib/uploads/queries.ts': 2, // populated reads typed by hand; to go
-  'lib/workspaces/queries.ts': 1, // populated reads typed by hand; to go
-  'lib/workspaces/record-home.ts': 1, // populated reads typed by hand; to go
 };
 
 const ROOTS = ['lib', 'app', 'components', 'entities'];
