@@ -245,6 +245,9 @@ export interface VersionView extends VersionSummary {
   batches: BatchView[];
 }
 
+/** A version as its batch sheet shows it. */
+export type SheetVersion = Pick<VersionView, 'id' | 'version' | 'status' | 'product' | 'settings' | 'lines' | 'process' | 'spec'>;
+
 export interface BatchView {
   id: string;
   lotCode: string;
@@ -368,8 +371,22 @@ export async function getProductionVersion(actor: Actor, versionId: string): Pro
   };
 }
 
-export async function getBatchSheet(actor: Actor, versionId: string, query: BatchSheetQuery): Promise<{ version: VersionView; sheet: BatchSheet }> {
-  const version = await getProductionVersion(actor, versionId);
+/**
+ * What the batch sheet needs of a version: one read of the version with its product. Not
+ * getProductionVersion, whose audit trail and batches (three more round trips) the sheet never shows.
+ */
+export async function getSheetVersion(actor: Actor, versionId: string): Promise<SheetVersion> {
+  const em = await getEm();
+  const v = await em.findOne(ProductionFormula, { ...inWorkspace(actor), id: versionId }, { populate: ['product'] });
+  if (!v) throw notFound('production version');
+  return {
+    id: v.id, version: v.version, status: v.status, product: { id: v.product.id, code: v.product.code, name: v.product.name },
+    settings: v.settings, lines: v.lines, process: v.process, spec: v.spec,
+  };
+}
+
+export async function getBatchSheet(actor: Actor, versionId: string, query: BatchSheetQuery): Promise<{ version: SheetVersion; sheet: BatchSheet }> {
+  const version = await getSheetVersion(actor, versionId);
   const sheet = buildBatchSheet({
     productName: version.product.name, productCode: version.product.code, version: version.version,
     settings: version.settings, lines: version.lines, process: version.process, spec: version.spec,
