@@ -71,8 +71,13 @@ export async function getRevision(actor: Actor, formulaId: string, number: numbe
 
 /** The formula at its latest revision, with the full computation redone from the stored snapshot. */
 export async function getFormula(actor: Actor, formulaId: string): Promise<FormulaDetail> {
-  const f = await loadFormula(actor, formulaId);
-  const current = await getRevision(actor, formulaId, f.latestRevision);
+  // One round trip: the formula's newest revision with the formula joined (revisions only ever
+  // grow, so the newest is the formula's latest).
+  const em = await getEm();
+  const r = await em.findOne(FormulaRevision, { ...inWorkspace(actor), formula: { id: formulaId, archivedAt: null } }, { populate: ['createdBy', 'formula'], orderBy: { number: 'desc' } });
+  if (!r) throw notFound('formula');
+  const f = r.formula;
+  const current = toRevisionView(r);
   const outcome = computeFormula(current.settings, current.lines);
   return {
     id: f.id,

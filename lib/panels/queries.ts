@@ -52,10 +52,17 @@ export async function listAttributes(actor: Actor) {
 export async function listPanelSessions(actor: Actor, trialId?: string) {
   const em = await getEm();
   const rows = (await em.find(PanelSession, { ...inWorkspace(actor), ...(trialId ? { trial: trialId } : {}) }, { orderBy: { createdAt: 'desc' } })) as unknown as SessionRow[];
-  const seats = rows.length ? await em.find(PanelSeat, { session: { $in: rows.map((r) => r.id) } }, { fields: ['session', 'submittedAt'] }) : [];
+  // Seats counted by PostgreSQL, not loaded one entity per seat.
+  const counts = rows.length
+    ? await em.execute<Array<{ session_id: string; seats: number; submitted: number }>>(
+        'select session_id, count(*)::int as seats, count(submitted_at)::int as submitted from panel_seats where workspace_id = ? and session_id in (?) group by session_id',
+        [actor.workspaceId, rows.map((r) => r.id)],
+      )
+    : [];
+  const bySession = new Map(counts.map((c) => [c.session_id, c]));
   return rows.map((r) => {
-    const mine = seats.filter((s) => s.session.id === r.id);
-    return { id: r.id, trialId: r.trial.id, title: r.title, method: r.method, state: r.state, seats: mine.length, submitted: mine.filter((s) => s.submittedAt).length, createdAt: r.createdAt.toISOString() };
+    const mine = bySession.get(r.id);
+    return { id: r.id, trialId: r.trial.id, title: r.title, method: r.method, state: r.state, seats: mine?.seats ?? 0, submitted: mine?.submitted ?? 0, createdAt: r.createdAt.toISOString() };
   });
 }
 

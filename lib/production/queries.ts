@@ -8,7 +8,7 @@ import { toCsv } from '@/lib/csv';
 import { defaultQcSpec, estimateEndPoint, outcomeOfChecks, qcSpecCautions, type ComplianceReport, type QcCheck, type QcSpec } from '@/lib/chemistry';
 import { getTrialOverview } from '@/lib/trials/queries';
 import type { FormulaSettingsInput, RevisionLine } from '@/lib/formulas/schema';
-import { DEFAULT_FILL_TEMP_C, type AuditView, type BatchDecisionView, type BatchSheetQuery, type BatchView, type BatchWorkItem, type ProductSummary, type ProductionProcess, type PromotionDraftVariant, type PromotionEvidence, type PromotionSummary, type PromotionTargetProduct, type PromotionView, type VersionSummary, type VersionView } from './schema';
+import { DEFAULT_FILL_TEMP_C, type AuditView, type BatchDecisionView, type BatchSheetQuery, type BatchView, type BatchWorkItem, type ProductSummary, type ProductionProcess, type PromotionDraftVariant, type PromotionEvidence, type PromotionSummary, type PromotionTargetProduct, type PromotionView, type SheetVersion, type VersionSummary, type VersionView } from './schema';
 import { buildBatchSheet, type BatchSheet } from './sheet';
 import { fruitsOf, weighLines } from './review';
 import { promotionCode, type BatchDecisionKind, type BatchOutcome, type Disposition, type PromotionStatus, type VersionStatus } from './vocabulary';
@@ -233,8 +233,22 @@ export async function getProductionVersion(actor: Actor, versionId: string): Pro
   };
 }
 
-export async function getBatchSheet(actor: Actor, versionId: string, query: BatchSheetQuery): Promise<{ version: VersionView; sheet: BatchSheet }> {
-  const version = await getProductionVersion(actor, versionId);
+/**
+ * What the batch sheet needs of a version: one read of the version with its product. Not
+ * getProductionVersion, whose audit trail and batches (three more round trips) the sheet never shows.
+ */
+export async function getSheetVersion(actor: Actor, versionId: string): Promise<SheetVersion> {
+  const em = await getEm();
+  const v = await em.findOne(ProductionFormula, { ...inWorkspace(actor), id: versionId }, { populate: ['product'] });
+  if (!v) throw notFound('production version');
+  return {
+    id: v.id, version: v.version, status: v.status, product: { id: v.product.id, code: v.product.code, name: v.product.name },
+    settings: v.settings, lines: v.lines, process: v.process, spec: v.spec,
+  };
+}
+
+export async function getBatchSheet(actor: Actor, versionId: string, query: BatchSheetQuery): Promise<{ version: SheetVersion; sheet: BatchSheet }> {
+  const version = await getSheetVersion(actor, versionId);
   const sheet = buildBatchSheet({
     productName: version.product.name, productCode: version.product.code, version: version.version,
     settings: version.settings, lines: version.lines, process: version.process, spec: version.spec,

@@ -295,6 +295,9 @@ export interface VersionView extends VersionSummary {
   batches: BatchView[];
 }
 
+/** A version as its batch sheet shows it. */
+export type SheetVersion = Pick<VersionView, 'id' | 'version' | 'status' | 'product' | 'settings' | 'lines' | 'process' | 'spec'>;
+
 export interface BatchView {
   id: string;
   lotCode: string;

@@ -1,20 +1,33 @@
 import 'server-only';
 /** Loads a session's answers for analysis and export. Staff only: this is where samples are unblinded. */
 import { getEm } from '@/lib/db';
-import { PanelAnswer, PanelSeat } from '@/entities';
-import { inWorkspace, type Actor } from '@/lib/permissions';
+import { PanelSeat } from '@/entities';
+import type { Actor } from '@/lib/permissions';
 import { loadPanelSessionRows, panelSessionView, type PanelSessionView } from '@/lib/panels/queries';
 import { toCsv } from '@/lib/csv';
 import { type AnalysisOptions, type PanelAnalysis, type PanelData } from './analysis';
 import { analyseRemembered } from './analysis-memo';
 
+type AnswerRow = { seat_id: string; kind: PanelData['answers'][number]['kind']; attribute: string; sample_id: string | null; value: number | null; ranking: string[] | null; correct: boolean | null };
+
+/**
+ * A session's answers as plain rows, only the columns the analysis reads (an answer row also keeps
+ * every idempotency key it had): a full tasting is hundreds of rows, and making each an entity in
+ * the identity map cost more than the query.
+ */
+async function answerRows(actor: Actor, sessionId: string): Promise<Array<AnswerRow & { seat: { id: string } }>> {
+  const em = await getEm();
+  const rows = await em.execute<AnswerRow[]>(
+    'select seat_id, kind, attribute, sample_id, value, ranking, correct from panel_answers where workspace_id = ? and session_id = ?',
+    [actor.workspaceId, sessionId],
+  );
+  // panelSessionView counts answers per seat through `seat.id`, as on the entity.
+  return rows.map((r) => ({ ...r, seat: { id: r.seat_id } }));
+}
+
 export async function loadPanelData(actor: Actor, sessionId: string): Promise<{ data: PanelData; session: PanelSessionView }> {
   // One set of reads serves both the session view and the analysis.
-  // Only the fields the analysis reads (an answer row also keeps every idempotency key it had).
-  const [rows, answers] = await Promise.all([
-    loadPanelSessionRows(actor, sessionId),
-    (await getEm()).find(PanelAnswer, { ...inWorkspace(actor), session: sessionId }, { fields: ['seat', 'kind', 'attribute', 'sampleId', 'value', 'ranking', 'correct'] }),
-  ]);
+  const [rows, answers] = await Promise.all([loadPanelSessionRows(actor, sessionId), answerRows(actor, sessionId)]);
   const { s, attrs, seats } = rows;
   const session = panelSessionView(rows, answers);
   const seatIndex = new Map(seats.map((x) => [x.id, x.seatIndex]));
@@ -31,12 +44,12 @@ export async function loadPanelData(actor: Actor, sessionId: string): Promise<{ 
         highAnchor: a.scale.kind === 'line' ? a.scale.highAnchor : undefined,
       })),
       answers: answers.map((a) => {
-        const seatId = a.seat.id;
+        const seatId = a.seat_id;
         return {
           seatIndex: seatIndex.get(seatId) ?? -1,
           kind: a.kind,
           attribute: a.attribute,
-          sampleId: a.sampleId ?? null,
+          sampleId: a.sample_id ?? null,
           value: a.value ?? null,
           rankingSampleIds: a.ranking ? a.ranking.map((code) => codeToSample.get(`${seatId}|${code}`) ?? code) : null,
           correct: a.correct ?? null,

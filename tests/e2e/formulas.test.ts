@@ -13,6 +13,8 @@ const developer = DEMO_USERS.find((u) => u.role === 'developer')!;
 
 async function setLine(page: Page, n: number, ingredient: string, quantity: string, unit?: string) {
   const picker = page.getByLabel(`Line ${n}: ingredient`);
+  // The picker builds its list as it takes focus, before it opens (components/formulas/editor/IngredientPicker.tsx).
+  await picker.focus();
   const value = await picker.locator('option').filter({ hasText: new RegExp(`^${ingredient.replace(/[()]/g, '\\$&')} \\(`) }).first().getAttribute('value');
   await picker.selectOption(value!);
   await page.getByLabel(`Line ${n}: quantity`).fill(quantity);

@@ -29,6 +29,13 @@ function type(label: string | RegExp, value: string) {
   fireEvent.change(screen.getByLabelText(label), { target: { value } });
 }
 
+/** Picks an ingredient on line `n` as a person does: the picker takes focus (Tab or a tap) before it opens. */
+function choose(n: number, ingredientId: string) {
+  const picker = screen.getByLabelText(`Line ${n}: ingredient`);
+  fireEvent.focus(picker);
+  fireEvent.change(picker, { target: { value: ingredientId } });
+}
+
 function renderRevise(overrides: { lines?: typeof PRACTICAL_ACTION_STORED_LINES; massUnits?: 'metric' | 'imperial' } = {}) {
   return render(
     <FormulaEditor
@@ -59,7 +66,7 @@ describe('FormulaEditor: live results', () => {
     type('Target final soluble solids (%)', '68');
     const picks = [IDS.fruit, IDS.sugar, IDS.pectin, IDS.citric];
     picks.forEach(() => fireEvent.click(screen.getByRole('button', { name: 'Add line' })));
-    picks.forEach((id, i) => fireEvent.change(screen.getByLabelText(`Line ${i + 1}: ingredient`), { target: { value: id } }));
+    picks.forEach((id, i) => choose(i + 1, id));
 
     type('Line 1: quantity', '10000');
     // Without sugar yet the fruit alone gives 1000 g of solids: 1000 / 0.68 = 1470.6 g.
@@ -203,8 +210,25 @@ describe('FormulaEditor: lines', () => {
   it('groups the ingredient picker by kind', () => {
     render(<FormulaEditor mode="create" ingredients={LIBRARY} massUnits="metric" temperatureUnit="C" />);
     fireEvent.click(screen.getByRole('button', { name: 'Add line' }));
-    const groups = screen.getByLabelText('Line 1: ingredient').querySelectorAll('optgroup');
+    const picker = screen.getByLabelText('Line 1: ingredient');
+    fireEvent.focus(picker);
+    const groups = picker.querySelectorAll('optgroup');
     expect([...groups].map((g) => g.label)).toEqual(['Fruit, juice or purée', 'Sweetener', 'Pectin', 'Acid']);
+  });
+
+  it('builds the ingredient list only when a picker is about to open (focus, a press or a key)', () => {
+    renderRevise();
+    const optionTexts = (n: number) => [...screen.getByLabelText(`Line ${n}: ingredient`).querySelectorAll('option')].map((o) => o.textContent);
+    // Closed pickers hold the placeholder and their chosen ingredient only, and show it chosen.
+    expect(optionTexts(1)).toEqual(['Choose an ingredient…', `${LIBRARY.find((i) => i.id === IDS.fruit)!.name} (${LIBRARY.find((i) => i.id === IDS.fruit)!.solidsPct} % solids)`]);
+    expect((screen.getByLabelText('Line 1: ingredient') as HTMLSelectElement).value).toBe(IDS.fruit);
+    const everything = LIBRARY.length + 1;
+    fireEvent.pointerDown(screen.getByLabelText('Line 1: ingredient'));
+    expect(optionTexts(1)).toHaveLength(everything);
+    expect((screen.getByLabelText('Line 1: ingredient') as HTMLSelectElement).value).toBe(IDS.fruit);
+    expect(optionTexts(2)).toHaveLength(2);
+    fireEvent.keyDown(screen.getByLabelText('Line 2: ingredient'), { key: 'ArrowDown' });
+    expect(optionTexts(2)).toHaveLength(everything);
   });
 });
 
@@ -219,7 +243,7 @@ describe('FormulaEditor: saving', () => {
     render(<FormulaEditor mode="create" ingredients={LIBRARY} massUnits="metric" temperatureUnit="C" defaults={{ targetSolidsPct: 68 }} />);
     type('Name', 'Damson trial A');
     fireEvent.click(screen.getByRole('button', { name: 'Add line' }));
-    fireEvent.change(screen.getByLabelText('Line 1: ingredient'), { target: { value: IDS.fruit } });
+    choose(1, IDS.fruit);
     type('Line 1: quantity', '1000');
     fireEvent.click(screen.getByRole('button', { name: 'Save formula' }));
     await screen.findByText('Saved as revision 1.');
@@ -257,8 +281,8 @@ describe('FormulaEditor: saving', () => {
     type('Name', 'Damson trial A');
     fireEvent.click(screen.getByRole('button', { name: 'Add line' }));
     fireEvent.click(screen.getByRole('button', { name: 'Add line' }));
-    fireEvent.change(screen.getByLabelText('Line 1: ingredient'), { target: { value: IDS.fruit } });
-    fireEvent.change(screen.getByLabelText('Line 2: ingredient'), { target: { value: IDS.sugar } });
+    choose(1, IDS.fruit);
+    choose(2, IDS.sugar);
     type('Line 1: quantity', '1000');
     type('Line 2: quantity', '900');
     fireEvent.click(screen.getByRole('button', { name: 'Save formula' }));

@@ -16,10 +16,16 @@ export const metadata = { title: 'Formula' };
 export default async function FormulaPage({ params }: { params: Promise<{ formulaId: string }> }) {
   const actor = await requirePage('formulas.read');
   const writer = can(actor.role, 'formulas.write');
-  // The library is read beside the formula, not after it (writers only; both are workspace-scoped).
-  const [formula, fullLibrary] = await Promise.all([
-    orNotFound(getFormula(actor, pageId((await params).formulaId))),
+  const formulaId = pageId((await params).formulaId);
+  // Every read at once, each on its own forked EntityManager: the formula (a 404 decides the page),
+  // and for writers the library, the prices and the formula's pack format (all workspace-scoped,
+  // so a formula of another workspace reveals nothing through them).
+  const prices = writer && can(actor.role, 'prices.read');
+  const [formula, fullLibrary, costBasis, packFormats] = await Promise.all([
+    orNotFound(getFormula(actor, formulaId)),
     writer ? listIngredients(actor, { archived: 'include' }) : Promise.resolve([]),
+    prices ? editorCostBasis(actor) : Promise.resolve(null),
+    prices ? packFormatOfFormulas(actor.workspaceId, [formulaId]) : Promise.resolve(null),
   ]);
   const c = formula.current;
 
@@ -39,9 +45,7 @@ export default async function FormulaPage({ params }: { params: Promise<{ formul
   // Archived ingredients appear only where a current line still uses them (the server refuses them on save).
   const used = new Set(c.lines.map((l) => l.ingredientId));
   const library = fullLibrary.filter((i) => !i.archived || used.has(i.id));
-  const cost = can(actor.role, 'prices.read')
-    ? { basis: await editorCostBasis(actor), packFormatId: (await packFormatOfFormulas(actor.workspaceId, [formula.id])).get(formula.id) ?? null }
-    : undefined;
+  const cost = costBasis && packFormats ? { basis: costBasis, packFormatId: packFormats.get(formula.id) ?? null } : undefined;
   return (
     <>
       <FormulaHeader formula={formula} active="editor" />

@@ -40,12 +40,19 @@ function baseLevelsOf(lines: MassLine[]): Record<TrialFactor, number | null> {
 export default async function TrialPage({ params }: { params: Promise<{ trialId: string }> }) {
   const actor = await requirePage('trials.read');
   const trialId = pageId((await params).trialId);
-  // All four reads at once. The overview checks the trial (a 404 otherwise); the notebook and the
-  // uploads are workspace-scoped reads of the same trial, so they skip their own check of it.
-  const [trial, notebook, uploads, panels] = await orNotFound(
-    Promise.all([getTrialOverview(actor, trialId), readEntry(actor, trialId, null), readUploads(actor, trialId), can(actor.role, 'panels.read') ? listPanelSessions(actor, trialId) : Promise.resolve([])]),
+  // All five reads at once, each on its own forked EntityManager. The overview checks the trial (a
+  // 404 otherwise); the notebook, the uploads, the tastings and the costs are workspace-scoped reads
+  // of the same trial, so they skip their own check of it.
+  const [trial, notebook, uploads, panels, costs] = await orNotFound(
+    Promise.all([
+      getTrialOverview(actor, trialId),
+      readEntry(actor, trialId, null),
+      readUploads(actor, trialId),
+      can(actor.role, 'panels.read') ? listPanelSessions(actor, trialId) : Promise.resolve([]),
+      can(actor.role, 'prices.read') ? trialCosts(actor, trialId) : Promise.resolve(null),
+    ]),
   );
-  const costPerJar = can(actor.role, 'prices.read') ? variantCostTexts(await trialCosts(actor, trialId)) : undefined;
+  const costPerJar = costs ? variantCostTexts(costs) : undefined;
   const canEdit = can(actor.role, 'trials.write');
   const editable = canEdit && (trial.status === 'planning' || trial.status === 'cooking');
   const base = trial.variants.find((v) => v.isBase)!;

@@ -1,6 +1,6 @@
 import Link from 'next/link';
 import { requirePage, orNotFound, pageId } from '@/lib/page-guard';
-import { getBatchSheet, getProductionVersion } from '@/lib/production/queries';
+import { getBatchSheet, getSheetVersion } from '@/lib/production/queries';
 import { batchSheetQuerySchema } from '@/lib/production/schema';
 import { zodFieldErrors } from '@/lib/errors';
 import { safeRecord } from '@/lib/input';
@@ -30,7 +30,7 @@ export default async function BatchSheetPage({ params, searchParams }: { params:
       problem = err.message;
     }
   }
-  const version = sheet?.version ?? (await orNotFound(getProductionVersion(actor, versionId)));
+  const version = sheet?.version ?? (await orNotFound(getSheetVersion(actor, versionId)));
   return (
     <>
       <div className="no-print mb-4 space-y-4">
