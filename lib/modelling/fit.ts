@@ -11,7 +11,8 @@
  * variance. Lab measures (the mean of a variant's cooks) are unweighted: most variants are cooked
  * once, so there is no spread of their own to weigh them by.
  */
-import { fitResponseSurface, ModelSpecError, type ModelKind, type SurfaceRun } from '@/lib/models';
+import { fitResponseSurface, ModelSpecError, type ModelKind, type ResponseSurface, type SurfaceRun } from '@/lib/models';
+import { fUpperTail } from '@/lib/stats';
 import {
   DEFAULT_MODEL_FACTORS,
   FACTOR_INFO,
@@ -163,7 +164,69 @@ export function fitFamilyModel(
     if (result.ok) responses.push(result.model);
     else unfitted.push(result.unfitted);
   }
-  return { family: dataset.family, factors, runs: dataset.rows.length, responses, unfitted, fittedAt: (options.now ?? new Date()).toISOString() };
+  return {
+    family: dataset.family, factors, runs: dataset.rows.length, responses, unfitted,
+    fruitContent: factors.length ? fruitContentSurface(dataset.rows, factors) : null,
+    fittedAt: (options.now ?? new Date()).toISOString(),
+  };
+}
+
+/** Fruit per 1000 g over the factors: computed from each formula, so the largest model the runs carry fits it near exactly. */
+function fruitContentSurface(rows: readonly DatasetRow[], factors: readonly ModelFactor[]): ResponseSurface | null {
+  const runs = rows.map((row) => ({ point: Object.fromEntries(factors.map((f) => [f, row.factors[f]])), response: row.factors.fruitPer1000g }));
+  for (const kind of KINDS_BY_SIZE) {
+    if (runs.length < runsNeeded(factors.length, kind)) continue;
+    try {
+      const surface = fitResponseSurface({ factors, kind, runs });
+      if (!surface.fit.basis.hasAliasedTerms) return surface;
+    } catch (err) {
+      if (!(err instanceof ModelSpecError)) throw err;
+    }
+  }
+  return null;
+}
+
+export interface CurvatureTest {
+  centreRuns: number;
+  cornerRuns: number;
+  /** Mean at the corners minus mean at the centre. */
+  difference: number;
+  sumOfSquares: number;
+  f: number | null;
+  p: number | null;
+}
+
+/** How close to the middle (coded) a replicated point must sit to count as the centre point. */
+const CENTRE_TOLERANCE = 0.2;
+/** How far out (coded, in every factor) a run must sit to count as a corner. */
+const CORNER_THRESHOLD = 0.5;
+
+/**
+ * The curvature test from centre points (Montgomery, Design and Analysis of Experiments, §6.8):
+ * SS = n_F·n_C·(ȳ_F − ȳ_C)² / (n_F + n_C) with 1 df, against the centre replicates' own variance.
+ * Pooled trials rarely sit exactly on a grid (pectin % of the finished product moves with the solids),
+ * so the centre is the replicated point nearest the middle within 0.2 coded units in every factor,
+ * and the corners are the runs at least 0.5 out in every factor. Unweighted. Null without a
+ * replicated centre or without corners.
+ */
+export function curvatureTest(surface: ResponseSurface): CurvatureTest | null {
+  const y = surface.fit.fitted.map((f, i) => f + surface.fit.residuals[i]);
+  const groups = new Map<string, number[]>();
+  surface.codedRuns.forEach((coded, i) => {
+    if (coded.some((x) => Math.abs(x) > CENTRE_TOLERANCE)) return;
+    const key = coded.map((x) => x.toPrecision(10)).join('|');
+    groups.set(key, [...(groups.get(key) ?? []), i]);
+  });
+  const centre = [...groups.values()].filter((g) => g.length >= 2).sort((a, b) => b.length - a.length)[0];
+  const corners = surface.codedRuns.map((coded, i) => (coded.every((x) => Math.abs(x) >= CORNER_THRESHOLD) ? i : -1)).filter((i) => i >= 0);
+  if (!centre || corners.length === 0) return null;
+  const mean = (idx: number[]) => idx.reduce((s, i) => s + y[i], 0) / idx.length;
+  const centreMean = mean(centre);
+  const difference = mean(corners) - centreMean;
+  const sumOfSquares = (corners.length * centre.length * difference * difference) / (corners.length + centre.length);
+  const centreVariance = centre.reduce((s, i) => s + (y[i] - centreMean) ** 2, 0) / (centre.length - 1);
+  const f = centreVariance > 0 ? sumOfSquares / centreVariance : null;
+  return { centreRuns: centre.length, cornerRuns: corners.length, difference, sumOfSquares, f, p: f === null ? null : fUpperTail(f, 1, centre.length - 1) };
 }
 
 export interface HistoryStep {

@@ -10,8 +10,10 @@ import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
 import { trialCode } from '@/lib/trials/access';
 import type { SensoryScale } from '@/lib/sensory';
 import { formulaFeatures, type FormulaFeatures } from './features';
-import { fitFamilyModel } from './fit';
+import { fitFamilyModel, fitResponse, varyingFactors } from './fit';
+import { ValidationFailed } from '@/lib/errors';
 import {
+  DEFAULT_MODEL_FACTORS,
   familySlug,
   LAB_RESPONSE_INFO,
   LAB_RESPONSES,
@@ -275,6 +277,34 @@ export async function listFamilies(scope: Scope): Promise<FamilySummary[]> {
       return rest;
     })
     .sort((a, b) => b.variants - a.variants || a.name.localeCompare(b.name));
+}
+
+/** The family's data set, or 404 when the workspace has no cooked variant of it; optionally only some trials. */
+export async function familyDataset(scope: Scope, family: FamilyKey, trialIds?: readonly string[]): Promise<Dataset & { family: FamilyInfo }> {
+  const dataset = await modelDataset(scope, { family });
+  if (!dataset.family) throw notFound('product family');
+  const rows = trialIds ? dataset.rows.filter((r) => trialIds.includes(r.trialId)) : dataset.rows;
+  return { ...dataset, rows, family: dataset.family };
+}
+
+/** The family model, or 404 (as familyDataset). */
+export async function familyModelOrNotFound(scope: Scope, family: FamilyKey, options: FitOptions = {}): Promise<FamilyModel> {
+  const dataset = await familyDataset(scope, family, options.trialIds);
+  return fitFamilyModel(dataset, { factors: options.factors, kind: options.kind });
+}
+
+/**
+ * The fits for the coefficients export: one response (422 when the data set has no such response or
+ * too few runs for it), or every response that can be fitted.
+ */
+export async function responseFits(scope: Scope, family: FamilyKey, query: { response?: ResponseKey; kind?: FitOptions['kind']; trialIds?: readonly string[] }) {
+  const dataset = await familyDataset(scope, family, query.trialIds);
+  if (query.response === undefined) return { dataset, models: fitFamilyModel(dataset, { kind: query.kind }).responses };
+  const response = dataset.responses.find((r) => r.key === query.response);
+  if (!response) throw new ValidationFailed('Choose a response of this data set.', { response: ['Choose a response of this data set.'] });
+  const result = fitResponse(dataset.rows, response, varyingFactors(dataset.rows, DEFAULT_MODEL_FACTORS), query.kind);
+  if (!result.ok) throw new ValidationFailed(result.unfitted.reason, { response: [result.unfitted.reason] });
+  return { dataset, models: [result.model] };
 }
 
 export { familySlug };

@@ -16,6 +16,18 @@ import { boundedNumber, id } from '@/lib/input';
 
 /* ---------- factors ---------- */
 
+/** Words for a factor key wherever one appears in a term name or a message ("pectinPct×acidPct"). */
+export function inFactorWords(text: string): string {
+  return text.replace(/\b(sugarRatio|targetSolidsPct|pectinPct|acidPct|fruitPer1000g)\b/g, (key) => FACTOR_INFO[key as ModelFactor].name.toLowerCase());
+}
+
+/** A model term for people: "1" is the intercept, factor keys become names. */
+export function termInWords(term: string): string {
+  if (term === '1') return 'Intercept';
+  const words = inFactorWords(term);
+  return words.charAt(0).toUpperCase() + words.slice(1);
+}
+
 /** Factors computed from a variant's formula (features.ts). */
 export const MODEL_FACTORS = ['sugarRatio', 'targetSolidsPct', 'pectinPct', 'acidPct', 'fruitPer1000g'] as const;
 export type ModelFactor = (typeof MODEL_FACTORS)[number];
@@ -221,6 +233,11 @@ export interface FamilyModel {
   factors: ModelFactor[];
   runs: number;
   responses: ResponseModel[];
+  /**
+   * Fruit per 1000 g of finished product over the same factors (a computed feature, not a measured
+   * response: a near-exact surface), for the legal fruit minimum as a constraint; null when unfitted.
+   */
+  fruitContent: ResponseSurface | null;
   unfitted: UnfittedResponse[];
   /** ISO date-time. */
   fittedAt: string;
@@ -246,9 +263,8 @@ export const factorPointSchema = z
   )
   .strict();
 
-export const predictRequestSchema = z
-  .object({ family: familySlugSchema, point: factorPointSchema, options: fitOptionsSchema.optional() })
-  .strict();
+/** POST /api/v1/models/{family}/predict (the family is in the path). */
+export const predictRequestSchema = z.object({ point: factorPointSchema, options: fitOptionsSchema.optional() }).strict();
 export type PredictRequest = z.infer<typeof predictRequestSchema>;
 
 const goalLimit = boundedNumber('A goal limit', -1e6, 1e6);
@@ -270,9 +286,9 @@ export const goalSchema = z.discriminatedUnion(
 
 export const MAX_GOALS = 8;
 
+/** POST /api/v1/models/{family}/optimise (the family is in the path). */
 export const optimiseRequestSchema = z
   .object({
-    family: familySlugSchema,
     /** Factors to vary with the bounds allowed (natural units); each must be a factor of the models. */
     factors: z
       .array(z.object({ name: modelFactorSchema, low: boundedNumber('A lower bound', 0, 100_000), high: boundedNumber('An upper bound', 0, 100_000) }).strict())
@@ -299,3 +315,20 @@ export const optimiseRequestSchema = z
   })
   .strict();
 export type OptimiseRequest = z.infer<typeof optimiseRequestSchema>;
+
+/** The query of the CSV exports and the data set: ?trials=<id>&trials=<id>&response=<key>&kind=<kind>. */
+export const exportQuerySchema = z
+  .object({
+    trials: trialIdsSchema.optional(),
+    response: responseKeySchema.optional(),
+    kind: modelKindSchema.optional(),
+  })
+  .strict();
+export type ExportQuery = z.infer<typeof exportQuerySchema>;
+
+/** Reads the export query from a URL's search parameters (the same key may repeat for trials). */
+export function readExportQuery(params: URLSearchParams): z.ZodSafeParseResult<ExportQuery> {
+  const raw: Record<string, unknown> = {};
+  for (const key of new Set(params.keys())) raw[key] = key === 'trials' ? params.getAll(key) : params.get(key);
+  return exportQuerySchema.safeParse(raw);
+}

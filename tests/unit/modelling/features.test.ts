@@ -98,7 +98,6 @@ describe('the modelling request shapes', () => {
 
   it('validates an optimise request: goals, bounds, unknown keys, sizes', () => {
     const valid = {
-      family: `reduced_sugar_spread.${APRICOT_ID}`,
       factors: [{ name: 'sugarRatio', low: 0.3, high: 0.36 }, { name: 'pectinPct', low: 0.5, high: 1.2 }],
       goals: [{ response: `attribute:${APRICOT_ID}`, goal: { kind: 'maximise', low: 5, high: 8 } }],
       constraints: { fruitMinimumPer1000g: 450, ph: { low: 3.3, high: 3.7 } },
