@@ -206,7 +206,7 @@ function ModelSection({ data, slug, trialQuery }: { data: ModelPageData; slug: s
         <p className="mt-2 text-sm text-rind-600">
           {f.lackOfFit ? (f.lackOfFit.p !== null && f.lackOfFit.p < 0.05 ? 'Lack of fit is significant: the model misses a pattern the replicates show; try a larger model or look for an outlier. ' : 'No significant lack of fit: the model’s misses are about as large as the spread between replicate cooks. ') : 'No lack-of-fit test: no variant was repeated at the same formula. '}
           {data.curvature
-            ? `Curvature: the ${data.curvature.cornerRuns} corner runs average ${n(Math.abs(data.curvature.difference), response.decimals)} ${data.curvature.difference >= 0 ? 'above' : 'below'} the ${data.curvature.centreRuns} centre runs (${formatP(data.curvature.p)}); ${data.curvature.p !== null && data.curvature.p < 0.05 ? 'the response bends, so square terms belong in the model.' : 'no clear sign that the response bends.'}`
+            ? `Curvature: the ${data.curvature.factorialRuns} corner runs average ${n(Math.abs(data.curvature.factorialMean - data.curvature.centreMean), response.decimals)} ${data.curvature.factorialMean >= data.curvature.centreMean ? 'above' : 'below'} the ${data.curvature.centreRuns} centre runs (${formatP(data.curvature.p)}); ${data.curvature.p !== null && data.curvature.p < 0.05 ? 'the response bends, so square terms belong in the model.' : 'no clear sign that the response bends.'}`
             : 'No curvature test: it needs repeated centre points and corner runs.'}
         </p>
       </section>

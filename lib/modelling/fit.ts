@@ -11,8 +11,7 @@
  * variance. Lab measures (the mean of a variant's cooks) are unweighted: most variants are cooked
  * once, so there is no spread of their own to weigh them by.
  */
-import { fitResponseSurface, ModelSpecError, type ModelKind, type ResponseSurface, type SurfaceRun } from '@/lib/models';
-import { fUpperTail } from '@/lib/stats';
+import { centrePointCurvature, fitResponseSurface, ModelSpecError, type CurvatureTest, type ModelKind, type ResponseSurface, type SurfaceRun } from '@/lib/models';
 import {
   DEFAULT_MODEL_FACTORS,
   FACTOR_INFO,
@@ -186,28 +185,18 @@ function fruitContentSurface(rows: readonly DatasetRow[], factors: readonly Mode
   return null;
 }
 
-export interface CurvatureTest {
-  centreRuns: number;
-  cornerRuns: number;
-  /** Mean at the corners minus mean at the centre. */
-  difference: number;
-  sumOfSquares: number;
-  f: number | null;
-  p: number | null;
-}
-
 /** How close to the middle (coded) a replicated point must sit to count as the centre point. */
 const CENTRE_TOLERANCE = 0.2;
 /** How far out (coded, in every factor) a run must sit to count as a corner. */
 const CORNER_THRESHOLD = 0.5;
 
 /**
- * The curvature test from centre points (Montgomery, Design and Analysis of Experiments, §6.8):
- * SS = n_F·n_C·(ȳ_F − ȳ_C)² / (n_F + n_C) with 1 df, against the centre replicates' own variance.
- * Pooled trials rarely sit exactly on a grid (pectin % of the finished product moves with the solids),
- * so the centre is the replicated point nearest the middle within 0.2 coded units in every factor,
- * and the corners are the runs at least 0.5 out in every factor. Unweighted. Null without a
- * replicated centre or without corners.
+ * The curvature test from centre points (lib/models centrePointCurvature; Montgomery, Design and
+ * Analysis of Experiments, §6.8) on pooled trials. They rarely sit exactly on a grid (pectin % of the
+ * finished product moves with the solids), so the centre is the replicated point nearest the middle
+ * within 0.2 coded units in every factor, and the corners are the runs at least 0.5 out in every
+ * factor, taken as ±1; other runs stay out of this test. Unweighted. Null without a replicated
+ * centre or without corners.
  */
 export function curvatureTest(surface: ResponseSurface): CurvatureTest | null {
   const y = surface.fit.fitted.map((f, i) => f + surface.fit.residuals[i]);
@@ -220,13 +209,10 @@ export function curvatureTest(surface: ResponseSurface): CurvatureTest | null {
   const centre = [...groups.values()].filter((g) => g.length >= 2).sort((a, b) => b.length - a.length)[0];
   const corners = surface.codedRuns.map((coded, i) => (coded.every((x) => Math.abs(x) >= CORNER_THRESHOLD) ? i : -1)).filter((i) => i >= 0);
   if (!centre || corners.length === 0) return null;
-  const mean = (idx: number[]) => idx.reduce((s, i) => s + y[i], 0) / idx.length;
-  const centreMean = mean(centre);
-  const difference = mean(corners) - centreMean;
-  const sumOfSquares = (corners.length * centre.length * difference * difference) / (corners.length + centre.length);
-  const centreVariance = centre.reduce((s, i) => s + (y[i] - centreMean) ** 2, 0) / (centre.length - 1);
-  const f = centreVariance > 0 ? sumOfSquares / centreVariance : null;
-  return { centreRuns: centre.length, cornerRuns: corners.length, difference, sumOfSquares, f, p: f === null ? null : fUpperTail(f, 1, centre.length - 1) };
+  return centrePointCurvature([
+    ...centre.map((i) => ({ coded: surface.codedRuns[i].map(() => 0), response: y[i] })),
+    ...corners.map((i) => ({ coded: surface.codedRuns[i].map((x) => Math.sign(x)), response: y[i] })),
+  ]);
 }
 
 export interface HistoryStep {

@@ -5,7 +5,8 @@
  * the defaults (a page never fails on its query).
  */
 import { notFound, type Actor } from '@/lib/permissions';
-import { fitResponse, curvatureTest, modelHistory, varyingFactors, type CurvatureTest, type FitResult, type HistoryStep } from './fit';
+import { fitResponse, curvatureTest, modelHistory, varyingFactors, type FitResult, type HistoryStep } from './fit';
+import type { CurvatureTest } from '@/lib/models';
 import { modelDataset } from './queries';
 import {
   DEFAULT_MODEL_FACTORS,

@@ -11,6 +11,13 @@ import { familyModel, familyOfFormula, listFamilies, modelDataset } from '@/lib/
 import { fitFamilyModel, modelHistory } from '@/lib/modelling/fit';
 import { predictResponse } from '@/lib/models';
 import type { FamilyInfo } from '@/lib/modelling/schema';
+import { optimiseFamily } from '@/lib/modelling/predict';
+import { User } from '@/entities';
+import { DEMO_USERS } from '@/lib/seed/demo';
+import { callRoute, sessionCookieFor, type Person } from './harness';
+import * as predictRoute from '@/app/api/v1/models/[family]/predict/route';
+import * as optimiseRoute from '@/app/api/v1/models/[family]/optimise/route';
+import * as coefficientsRoute from '@/app/api/v1/models/[family]/coefficients.csv/route';
 
 let workspaceId: string;
 let otherWorkspaceId: string;
@@ -153,5 +160,87 @@ describe('workspace scoping', () => {
       cook.withdrawnAt = null;
       await em.flush();
     }
+  });
+});
+
+async function demoPerson(index: number): Promise<Person> {
+  const user = await (await getEm()).fork().findOneOrFail(User, { email: DEMO_USERS[index].email });
+  return { userId: user.id, email: user.email, role: DEMO_USERS[index].role, sessionCookie: await sessionCookieFor(user.id), token: '' };
+}
+
+describe('predictions and proposals on the demo', () => {
+  const REDUCED_SUGAR = { low: 0.3, high: 0.34 };
+
+  it('proposes a reduced-sugar apricot spread that keeps the fruit minimum and the pH window', async () => {
+    const model = (await familyModel({ workspaceId }, apricot))!;
+    const box = (name: string) => model.responses[0].surface.dataBox.find((r) => r.name === name)!;
+    const liking = model.responses.find((r) => r.libraryKey === 'overall-liking')!;
+    const firmness = model.responses.find((r) => r.libraryKey === 'set-firmness')!;
+    const result = optimiseFamily(model, {
+      factors: [
+        { name: 'sugarRatio', ...REDUCED_SUGAR },
+        { name: 'targetSolidsPct', low: box('targetSolidsPct').low, high: box('targetSolidsPct').high },
+        { name: 'pectinPct', low: box('pectinPct').low, high: box('pectinPct').high },
+        { name: 'acidPct', low: box('acidPct').low, high: box('acidPct').high },
+      ],
+      goals: [
+        { response: liking.key, goal: { kind: 'maximise', low: 5, high: 7.5 } },
+        { response: firmness.key, goal: { kind: 'band', low: 3, bandLow: 5, bandHigh: 7, high: 9 } },
+      ],
+      // Source for 450 g: Directive (EU) 2024/1438 raising the jam fruit minimum (memory); used here only as a constraint value.
+      constraints: { fruitMinimumPer1000g: 450, ph: { low: 3.35, high: 3.7 } },
+      proposals: 2,
+    });
+    expect(result.message).toBeNull();
+    expect(result.proposals.length).toBeGreaterThanOrEqual(1);
+    for (const proposal of result.proposals) {
+      expect(proposal.point.sugarRatio!).toBeLessThanOrEqual(REDUCED_SUGAR.high + 1e-9);
+      expect(proposal.point.sugarRatio!).toBeGreaterThanOrEqual(REDUCED_SUGAR.low - 1e-9);
+      expect(proposal.fruitPer1000g!).toBeGreaterThanOrEqual(450);
+      const ph = proposal.responses.find((r) => r.key === 'lab:measuredPh')!;
+      expect(ph.inRegion && ph.estimate >= 3.35 && ph.estimate <= 3.7).toBe(true);
+      const liked = proposal.responses.find((r) => r.key === liking.key)!;
+      expect(liked.inRegion).toBe(true);
+      if (liked.inRegion) expect(liked.prediction!.low).toBeLessThan(liked.estimate);
+      expect(proposal.desirability).toBeGreaterThan(0);
+    }
+  });
+
+  it('predicts through the API with intervals, and withdraws the number outside the data with the reason in words', async () => {
+    const head = await demoPerson(2);
+    const point = { sugarRatio: 0.4, targetSolidsPct: 46, pectinPct: 0.8, acidPct: 0.16 };
+    const inside = await callRoute(predictRoute.POST, { method: 'POST', path: `/api/v1/models/${apricot.slug}/predict`, caller: { kind: 'session', person: head }, params: { family: apricot.slug }, body: { point } });
+    expect(inside.status).toBe(200);
+    const liking = inside.body.predictions.find((p: { name: string }) => p.name === 'Overall liking');
+    expect(liking.inRegion).toBe(true);
+    expect(liking.prediction.low).toBeLessThan(liking.estimate);
+    const outside = await callRoute(predictRoute.POST, { method: 'POST', path: `/api/v1/models/${apricot.slug}/predict`, caller: { kind: 'session', person: head }, params: { family: apricot.slug }, body: { point: { ...point, pectinPct: 2.5 } } });
+    const withdrawn = outside.body.predictions.find((p: { name: string }) => p.name === 'Overall liking');
+    expect(withdrawn.inRegion).toBe(false);
+    expect(withdrawn.reason).toMatch(/^pectin 2\.5 is outside the data/);
+    expect(withdrawn.estimate).toBeUndefined();
+  });
+
+  it('refuses a bad optimise request with 422 and a taster with 403', async () => {
+    const developer = await demoPerson(1);
+    const call = (body: unknown, person = developer) =>
+      callRoute(optimiseRoute.POST, { method: 'POST', path: `/api/v1/models/${apricot.slug}/optimise`, caller: { kind: 'session', person }, params: { family: apricot.slug }, body });
+    const factors = [{ name: 'sugarRatio', low: 0.3, high: 0.5 }, { name: 'targetSolidsPct', low: 42, high: 50 }, { name: 'pectinPct', low: 0.5, high: 1.2 }, { name: 'acidPct', low: 0.05, high: 0.3 }];
+    const goal = { response: 'lab:measuredPh', goal: { kind: 'target', low: 3.3, target: 3.5, high: 3.7 } };
+    expect((await call({ factors, goals: [goal] })).status).toBe(200);
+    expect((await call({ factors, goals: [{ ...goal, goal: { kind: 'target', low: 3.3, target: 3.9, high: 3.7 } }] })).status).toBe(422);
+    expect((await call({ factors: factors.slice(0, 2), goals: [goal] })).status).toBe(422);
+    expect((await call({ factors, goals: [{ ...goal, response: 'lab:colour' }] })).status).toBe(422);
+    expect((await call(JSON.parse(`{"factors": ${JSON.stringify(factors)}, "goals": [${JSON.stringify(goal)}], "__proto__": {"polluted": true}}`))).status).toBe(422);
+    expect(({} as Record<string, unknown>).polluted).toBeUndefined();
+    expect((await call({ factors, goals: [goal] }, await demoPerson(4))).status).toBe(403);
+  });
+
+  it('exports the coefficients of every fitted response as CSV', async () => {
+    const res = await callRoute(coefficientsRoute.GET, { method: 'GET', path: `/api/v1/models/${apricot.slug}/coefficients.csv`, caller: { kind: 'session', person: await demoPerson(1) }, params: { family: apricot.slug } });
+    expect(res.status).toBe(200);
+    const lines = String(res.body).trim().split(/\r?\n/);
+    expect(lines[0]).toBe('response,term,estimate_per_coded_unit,standard_error,t,p,aliased_with');
+    expect(lines.some((l) => l.startsWith('Overall liking,Pectin²,'))).toBe(true);
   });
 });
