@@ -13,6 +13,7 @@ export const NAV_ITEMS: NavItem[] = [
   { href: '/formulas', label: 'Formulas', permission: 'formulas.read', group: 'work' },
   { href: '/trials', label: 'Trials', permission: 'trials.read', group: 'work' },
   { href: '/panels', label: 'Tastings', permission: 'panels.read', group: 'work' },
+  { href: '/models', label: 'Models', permission: 'models.read', group: 'work' },
   { href: '/ingredients', label: 'Ingredients', permission: 'ingredients.read', group: 'work' },
   { href: '/prices', label: 'Prices', permission: 'prices.read', group: 'work' },
   { href: '/production/reviews', label: 'Promotion reviews', permission: 'promotion.read', group: 'work' },

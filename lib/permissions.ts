@@ -33,6 +33,8 @@ const GRANTS = {
   'trials.read': ['admin', 'developer', 'head_of_product'],
   'trials.write': ['admin', 'developer'],
   'panels.read': ['admin', 'developer', 'head_of_product'],
+  /** Response-surface models of the workspace's trials: data sets, fits, predictions, proposals. */
+  'models.read': ['admin', 'developer', 'head_of_product'],
   'panels.run': ['admin', 'developer'],
   'promotion.read': ['admin', 'developer', 'head_of_product'],
   'promotion.request': ['admin', 'developer'],

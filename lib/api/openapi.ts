@@ -19,6 +19,7 @@ import {
   costSettingsSchema, ingredientPriceSchema, packagingItemSchema, packagingPriceSchema, packFormatChoiceSchema, packFormatSchema, priceImportSchema,
   refuseBodySchema, withdrawSchema as withdrawPriceSchema,
 } from '@/lib/pricing/schema';
+import { fitOptionsSchema, optimiseRequestSchema, predictRequestSchema } from '@/lib/modelling/schema';
 import { batchDecisionSchema, batchRecordSchema, batchRetestSchema, decisionSchema, requestPromotionSchema, withdrawSchema } from '@/lib/production/schema';
 
 export interface ApiOperation {
@@ -109,6 +110,13 @@ export const API_OPERATIONS: ApiOperation[] = [
   { method: 'get', path: '/api/v1/panels/{sessionId}/summary.csv', summary: 'A summary table as CSV: ?table=means (mean, SD, CI, adjusted mean, letters, ANOVA p; default), anova, penalty, triangle or ranking', tag: 'Results', permission: 'panels.read', okMediaTypes: ['text/csv'] },
   { method: 'get', path: '/api/v1/trials/{trialId}/comparison', summary: 'Variants side by side: factor levels, predicted chemistry, lab values, tasting verdicts, factor effects and lab–sensory correlations', tag: 'Results', permission: 'panels.read' },
   { method: 'put', path: '/api/v1/trials/{trialId}/recommendation', summary: 'Mark the recommended variant with a rationale (feeds promotion)', tag: 'Results', permission: 'trials.write', request: recommendationSchema },
+  { method: 'get', path: '/api/v1/models', summary: 'Product families (product class + main fruit) with cooked variants: trials, variants, last cook', tag: 'Models', permission: 'models.read' },
+  { method: 'get', path: '/api/v1/models/{family}/dataset', summary: 'The data set of a family ({family} = product class + "." + main fruit ingredient id): one row per cooked or tasted variant, factors from its formula, each response as mean, n and SD; ?trials=<id> (repeatable) narrows it', tag: 'Models', permission: 'models.read' },
+  { method: 'get', path: '/api/v1/models/{family}/dataset.csv', summary: 'The data set as CSV (ISO dates); ?trials=<id> (repeatable)', tag: 'Models', permission: 'models.read', okMediaTypes: ['text/csv'] },
+  { method: 'get', path: '/api/v1/models/{family}/coefficients.csv', summary: 'Coefficients per coded unit with standard error, t and p as CSV, for ?response=<key> or every fitted response; ?kind, ?trials', tag: 'Models', permission: 'models.read', okMediaTypes: ['text/csv'] },
+  { method: 'post', path: '/api/v1/models/{family}/fit', summary: 'Fit the family model (least squares; by default the largest of full quadratic, two-factor interactions and main effects the runs allow, panel means weighted n/s²): every response surface with ANOVA, lack of fit, PRESS, leverages and warnings. Reads only', tag: 'Models', permission: 'models.read', request: fitOptionsSchema },
+  { method: 'post', path: '/api/v1/models/{family}/predict', summary: 'Predictions at a posted point with 95 % confidence and prediction intervals, or the reason there is none (outside the data: range or leverage). Reads only', tag: 'Models', permission: 'models.read', request: predictRequestSchema },
+  { method: 'post', path: '/api/v1/models/{family}/optimise', summary: 'Proposals that maximise the Derringer–Suich desirability of the stated goals inside the data, with the fruit minimum and the pH window as constraints; predicted responses with intervals. Reads only', tag: 'Models', permission: 'models.read', request: optimiseRequestSchema },
   { method: 'get', path: '/api/v1/costs/basis', summary: 'The prices on one day the formula editor costs with (?asOf=YYYY-MM-DD, default today): ingredient and packaging prices, refuse %, pack formats, overfill, currency', tag: 'Costs', permission: 'prices.read' },
   { method: 'get', path: '/api/v1/trials/{trialId}/costs', summary: "Each variant's cost on a day (?asOf): per batch, per kg of finished product, per jar with packaging, line shares, sensitivity; incomplete with the unpriced lines named. Needs trials.read too", tag: 'Costs', permission: 'prices.read' },
   { method: 'get', path: '/api/v1/products/{productId}/costs', summary: "Every version's cost frozen at approval and today's, and whether today's cost per jar moved past the workspace threshold", tag: 'Costs', permission: 'prices.read' },

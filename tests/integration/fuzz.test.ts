@@ -436,6 +436,7 @@ const PAGE_CASES: PageCase[] = [
   { page: '(lab)/panels/[sessionId]/results/page.tsx', caller: 'developer', keys: ['penalty'], paramsFrom: 'GET /api/v1/panels/[sessionId]/results' },
   { page: '(lab)/formulas/[formulaId]/label/page.tsx', caller: 'developer', keys: ['reference'], paramsFrom: 'GET /api/v1/formulas/[formulaId]/label' },
   { page: '(lab)/trials/[trialId]/variants/[variantId]/label/page.tsx', caller: 'developer', keys: ['reference'], paramsFrom: 'GET /api/v1/trials/[trialId]/variants/[variantId]/label' },
+  { page: '(lab)/models/[family]/page.tsx', caller: 'developer', keys: ['response', 'kind', 'x', 'y', 'trials'], paramsFrom: 'GET /api/v1/models/[family]/dataset' },
   { page: '(lab)/production/versions/[versionId]/sheet/page.tsx', caller: 'production', keys: ['target', 'amount', 'unit', 'step', 'stepUnit', 'altitudeM', 'paper'], paramsFrom: 'GET /api/v1/production-versions/[versionId]/batch-sheet' },
 ];
 

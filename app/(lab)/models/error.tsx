@@ -1,0 +1,7 @@
+'use client';
+
+import { AreaError } from '@/components/shell/AreaError';
+
+export default function AreaErrorPage({ reset }: { error: Error; reset: () => void }) {
+  return <AreaError what="Models" reset={reset} />;
+}
