@@ -9,7 +9,7 @@ import { resolveLines } from '@/lib/chemistry';
 import { prepareRevision } from '@/lib/formulas/mutations';
 import type { RevisionLine, RevisionSummary, FormulaSettingsInput } from '@/lib/formulas/schema';
 import { computeFormula } from '@/lib/formulas/compute';
-import { applyFactorLevels, measureFactor, planRuns, PlanError, variantLinesKey, type FactorLevel, type MassLine } from './plan';
+import { applyFactorLevels, measureFactor, planRuns, PlanError, targetSolidsOf, variantLinesKey, type FactorLevel, type MassLine } from './plan';
 import { TRIAL_STATUS_LABELS, TRIAL_TRANSITIONS, type TrialStatus } from './vocabulary';
 import { cookReadingProblems, cookValues, type CookReadings, type CorrectMeasurementInput, type CreateTrialInput, type ManualVariantInput, type MeasurementInput, type PlanInput } from './schema';
 
@@ -108,8 +108,12 @@ function massLinesOf(lines: RevisionLine[]): MassLine[] {
   return resolved.map((r) => ({ ingredient: r.ingredient, massG: r.massG }));
 }
 
-/** Generates the planned variants from the base variant; the base gets its own factor levels recorded. */
-/** Runs that would repeat a variant already added to the trial (same lines) are skipped and named; if every run would, nothing is added (422). */
+/**
+ * Generates the planned variants from the base variant; the base gets its own factor levels recorded.
+ * Runs that would repeat a variant already in the trial (same lines, same target soluble solids) are
+ * skipped and named, one existing variant per repeated run, so a design's replicated centre runs are
+ * all added the first time and none the second; if every run would repeat, nothing is added (422).
+ */
 export async function planVariants(actor: Actor, trialId: string, plan: PlanInput): Promise<{ created: string[]; skipped: string[] }> {
   const em = await getEm();
   return em.transactional(async (tx) => {
@@ -121,8 +125,8 @@ export async function planVariants(actor: Actor, trialId: string, plan: PlanInpu
     let baseMass: MassLine[];
     try {
       baseMass = massLinesOf(base.lines);
-      const baseLevels = Object.fromEntries(plan.factors.map((f) => [f.factor, measureFactor(baseMass, f.factor)]));
-      runs = planRuns(plan.kind, plan.factors, { centrePoint: plan.centrePoint, baseLevels });
+      const baseLevels = Object.fromEntries(plan.factors.map((f) => [f.factor, measureFactor(baseMass, f.factor, base.settings)]));
+      runs = planRuns(plan.kind, plan.factors, { centrePoint: plan.centrePoint, centreRuns: plan.centreRuns, baseLevels });
       base.factorLevels = plan.factors.map((f) => {
         const half = (f.high - f.low) / 2;
         return { factor: f.factor, value: baseLevels[f.factor], coded: (baseLevels[f.factor] - (f.low + f.high) / 2) / half };
@@ -133,10 +137,13 @@ export async function planVariants(actor: Actor, trialId: string, plan: PlanInpu
     }
     // The base is left out: a run at the base's own levels is a deliberate replicate of it.
     const active = await tx.find(Variant, { ...inWorkspace(actor), trial: trialId, removedAt: null, isBase: false }, { orderBy: { position: 'asc' } });
-    const labelByKey = new Map(active.map((v) => [variantLinesKey(v.lines), v.label]));
-    const created: string[] = [];
+    const labelsByKey = new Map<string, string[]>();
+    for (const v of active) {
+      const key = variantLinesKey(v.lines, v.settings.targetSolidsPct);
+      labelsByKey.set(key, [...(labelsByKey.get(key) ?? []), v.label]);
+    }
     const skipped: string[] = [];
-    const fresh: Array<{ run: (typeof runs)[number]; lines: RevisionLine[] }> = [];
+    const fresh: Array<{ run: (typeof runs)[number]; lines: RevisionLine[]; settings: typeof base.settings }> = [];
     for (const run of runs) {
       let scaled: MassLine[];
       try {
@@ -146,19 +153,19 @@ export async function planVariants(actor: Actor, trialId: string, plan: PlanInpu
         throw err;
       }
       const lines: RevisionLine[] = base.lines.map((l, j) => ({ ...l, quantity: scaled[j].massG, unit: 'g' }));
-      const same = labelByKey.get(variantLinesKey(lines));
+      const settings = { ...base.settings, targetSolidsPct: targetSolidsOf(run.levels, base.settings.targetSolidsPct) };
+      const same = labelsByKey.get(variantLinesKey(lines, settings.targetSolidsPct))?.shift();
       if (same) {
-        if (!skipped.includes(same)) skipped.push(same);
+        skipped.push(same);
         continue;
       }
-      labelByKey.set(variantLinesKey(lines), '(this plan)');
-      fresh.push({ run, lines });
+      fresh.push({ run, lines, settings });
     }
     if (!fresh.length) {
       const message = `These variants are already in the trial (${skipped.join(', ')}): nothing was added.`;
       throw new ValidationFailed(message, { factors: [message] });
     }
-    fresh.forEach(({ run, lines }, i) => {
+    const created = fresh.map(({ run, lines, settings }, i) => {
       const label = variantLabel(existing + i);
       tx.create(Variant, {
         workspace: actor.workspaceId,
@@ -167,13 +174,13 @@ export async function planVariants(actor: Actor, trialId: string, plan: PlanInpu
         isBase: false,
         description: run.description,
         factorLevels: run.levels as FactorLevel[],
-        settings: base.settings,
+        settings,
         lines,
-        summary: summarise(base.settings, lines),
+        summary: summarise(settings, lines),
         position: existing + i,
         createdBy: actor.userId,
       });
-      created.push(label);
+      return label;
     });
     trial.updatedAt = new Date();
     await tx.flush();

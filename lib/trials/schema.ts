@@ -3,7 +3,7 @@ import { z } from 'zod';
 import { isoDate, longText, name, searchText, text, versionNumber, wholeNumber } from '@/lib/input';
 import { formulaLineSchema, formulaSettingsSchema, PRODUCT_CLASSES, type FormulaSettingsInput, type RevisionLine, type RevisionSummary } from '@/lib/formulas/schema';
 import { SET_TEST_METHODS, SYNERESIS_LEVELS, TRIAL_FACTORS, TRIAL_STATUSES, type TrialStatus } from './vocabulary';
-import type { FactorLevel } from './plan';
+import { CENTRE_RUNS, DESIGN_KINDS, type FactorLevel } from './plan';
 import type { BatchComputation } from '@/lib/chemistry';
 import type { CookComparison } from './compare';
 
@@ -24,7 +24,7 @@ export const transitionSchema = z.object({ to: z.enum(TRIAL_STATUSES, { error: '
 
 export const planSchema = z
   .object({
-    kind: z.enum(['one_factor_at_a_time', 'full_factorial'], { error: 'Choose a design.' }),
+    kind: z.enum(DESIGN_KINDS, { error: 'Choose a design.' }),
     factors: z
       .array(
         z.object({
@@ -34,8 +34,10 @@ export const planSchema = z
         }).strict(),
       )
       .min(1, 'Choose at least one factor.')
-      .max(3, 'At most three factors.'),
+      .max(TRIAL_FACTORS.length, `At most ${TRIAL_FACTORS.length} factors.`),
     centrePoint: z.boolean().default(false),
+    /** Replicated centre runs of a central composite or Box–Behnken design. */
+    centreRuns: wholeNumber('The number of centre runs', CENTRE_RUNS.min, CENTRE_RUNS.max).optional(),
   })
   .strict();
 
