@@ -16,6 +16,7 @@ import { seedDemoTrials } from './trials';
 import { seedDemoNotebooks } from './notebook';
 import { seedDemoPanels } from './panels';
 import { seedDemoProduction } from './production';
+import { seedDemoModelHistory } from './model-history';
 
 export const DEMO_PASSWORD = 'setwell-demo-2026';
 
@@ -76,6 +77,8 @@ export async function seedDemo(em: EntityManager): Promise<SeedReport> {
   // Prices before production: approving a version freezes its cost and takes its formula's pack format.
   await seedDemoPrices(em.fork(), { admin: await person(0, 'admin'), production: await person(3, 'production'), developer: actor });
   await seedDemoProduction({ developer: actor, head: await person(2, 'head_of_product'), production: await person(3, 'production') }, trials);
+  // Last, so the existing trials keep their numbers; dated earlier, so they sort after them.
+  await seedDemoModelHistory(em.fork(), actor);
   return report;
 }
 

@@ -1,0 +1,157 @@
+/**
+ * The modelling reads on the seeded demo: the apricot spread family's data set (the three history
+ * trials plus the open reduced-sugar trial), its default models, and workspace scoping (the other
+ * workspace sees none of it, and a formula of another workspace is a 404).
+ */
+import { describe, it, expect, beforeAll } from 'vitest';
+import { getEm } from '@/lib/db';
+import { seedDemo } from '@/lib/seed/demo';
+import { Formula, Measurement, Trial } from '@/entities';
+import { familyModel, familyOfFormula, listFamilies, modelDataset } from '@/lib/modelling/queries';
+import { fitFamilyModel, modelHistory } from '@/lib/modelling/fit';
+import { predictResponse } from '@/lib/models';
+import type { FamilyInfo } from '@/lib/modelling/schema';
+
+let workspaceId: string;
+let otherWorkspaceId: string;
+let apricot: FamilyInfo;
+
+beforeAll(async () => {
+  const report = await seedDemo((await getEm()).fork());
+  workspaceId = report.workspaceId;
+  otherWorkspaceId = report.otherWorkspaceId;
+  const em = await getEm();
+  const formula = await em.findOneOrFail(Formula, { workspace: workspaceId, name: 'Apricot spread, reduced sugar' });
+  apricot = (await familyOfFormula({ workspaceId }, formula.id))!;
+}, 600_000);
+
+describe('the apricot spread family', () => {
+  it('is the reduced-sugar spread of apricot, named for people', () => {
+    expect(apricot.productClass).toBe('reduced_sugar_spread');
+    expect(apricot.name).toBe('Apricot reduced-sugar spread');
+    expect(apricot.slug).toBe(`reduced_sugar_spread.${apricot.fruitIngredientId}`);
+  });
+
+  it('pools the cooked variants of four trials, each with factors from its formula and its cooks and panel means', async () => {
+    const dataset = await modelDataset({ workspaceId }, { family: apricot });
+    // 3 history trials of 10 variants + the reduced-sugar trial's 5 cooked variants.
+    expect(dataset.rows).toHaveLength(35);
+    expect(new Set(dataset.rows.map((r) => r.trialId)).size).toBe(4);
+    // Date order: the March screen first, the November trial last.
+    expect(dataset.rows[0].trialDate).toBe('2026-03-11');
+    expect(dataset.rows.at(-1)!.trialDate).toBe('2026-11-12');
+    expect(dataset.rows.every((r) => r.pectinFamily === 'lm')).toBe(true);
+    const centre = dataset.rows.find((r) => r.trialDate === '2026-03-11' && r.variantLabel === 'I')!;
+    // Centre: 1000 g apricot, 400 g sugar, 10 g LM pectin, 1 g calcium citrate, 40 g lemon juice, 46 % target.
+    expect(centre.factors.sugarRatio).toBeCloseTo(0.4, 12);
+    expect(centre.factors.targetSolidsPct).toBe(46);
+    const keys = dataset.responses.map((r) => r.key);
+    expect(keys).toEqual(expect.arrayContaining(['lab:measuredSolids', 'lab:measuredPh', 'lab:setTest', 'lab:syneresis']));
+    const liking = dataset.responses.find((r) => r.libraryKey === 'overall-liking')!;
+    expect(liking.kind).toBe('sensory');
+    expect(liking.scale).toEqual({ min: 1, max: 9 });
+    // Each history variant was tasted by ten; the November panel had 24 seats.
+    expect(centre.responses[liking.key]!.n).toBe(10);
+    expect(centre.responses[liking.key]!.sd).not.toBeNull();
+  });
+
+  it('fits a full quadratic in four factors for the tasted and measured responses, weighting panel means', async () => {
+    const model = (await familyModel({ workspaceId }, apricot))!;
+    expect(model.factors).toEqual(['sugarRatio', 'targetSolidsPct', 'pectinPct', 'acidPct']);
+    expect(model.runs).toBe(35);
+    const firmness = model.responses.find((r) => r.libraryKey === 'set-firmness')!;
+    const liking = model.responses.find((r) => r.libraryKey === 'overall-liking')!;
+    const ph = model.responses.find((r) => r.key === 'lab:measuredPh')!;
+    for (const response of [firmness, liking, ph]) {
+      expect(response.surface.kind).toBe('full_quadratic');
+      expect(response.surface.fit.basis.hasAliasedTerms).toBe(false);
+    }
+    expect(firmness.surface.fit.weighted).toBe(true);
+    expect(firmness.newRunWeight).toBeGreaterThan(0);
+    expect(ph.surface.fit.weighted).toBe(false);
+    // The invented truth has firmness rising with pectin: the pectin coefficient is clearly positive.
+    const pectin = firmness.surface.fit.terms.find((t) => t.name === 'pectinPct')!;
+    expect(pectin.estimate!).toBeGreaterThan(0);
+    expect(pectin.p!).toBeLessThan(0.001);
+    // Centre points replicated across trials: lack of fit can be tested.
+    expect(ph.surface.fit.lackOfFit).not.toBeNull();
+    // A point at the centre of the data predicts, with an interval; pectin far above the data does not.
+    const middle = { sugarRatio: 0.4, targetSolidsPct: 46, pectinPct: 0.8, acidPct: 0.16 };
+    const inside = predictResponse(liking.surface, middle, { newRunWeight: liking.newRunWeight ?? undefined });
+    expect(inside.inRegion).toBe(true);
+    if (inside.inRegion) {
+      expect(inside.estimate).toBeGreaterThan(5);
+      expect(inside.estimate).toBeLessThan(8);
+      expect(inside.prediction!.high).toBeGreaterThan(inside.prediction!.low);
+    }
+    const outside = predictResponse(liking.surface, { ...middle, pectinPct: 3 });
+    expect(outside.inRegion).toBe(false);
+  });
+
+  it('serialises the model to JSON and back without losing what predictions need', async () => {
+    const model = (await familyModel({ workspaceId }, apricot))!;
+    const copy = JSON.parse(JSON.stringify(model)) as typeof model;
+    const point = { sugarRatio: 0.42, targetSolidsPct: 45, pectinPct: 0.85, acidPct: 0.15 };
+    const original = predictResponse(model.responses[0].surface, point);
+    const revived = predictResponse(copy.responses[0].surface, point);
+    expect(revived).toEqual(original);
+  });
+
+  it('grows in the history: main effects after the first screen, a quadratic once the star points are in', async () => {
+    const dataset = await modelDataset({ workspaceId }, { family: apricot });
+    const ph = dataset.responses.find((r) => r.key === 'lab:measuredPh')!;
+    const steps = modelHistory(dataset.rows, ph, ['sugarRatio', 'targetSolidsPct', 'pectinPct', 'acidPct']);
+    expect(steps.map((s) => s.runs)).toEqual([10, 20, 30, 35]);
+    expect(steps.map((s) => s.kind)).toEqual(['main_effects', 'two_factor_interactions', 'full_quadratic', 'full_quadratic']);
+  });
+
+  it('lists the family among the workspace’s families, and a trial pick gives the same rows as the family', async () => {
+    const families = await listFamilies({ workspaceId });
+    const entry = families.find((f) => f.slug === apricot.slug)!;
+    expect(entry.trials).toBe(4);
+    expect(entry.variants).toBe(35);
+    const em = await getEm();
+    const history = await em.find(Trial, { workspace: workspaceId, title: { $like: 'Apricot spread:%' } });
+    const picked = await modelDataset({ workspaceId }, { trialIds: history.map((t) => t.id) });
+    expect(picked.rows).toHaveLength(35);
+    expect(picked.family?.slug).toBe(apricot.slug);
+  });
+});
+
+describe('workspace scoping', () => {
+  it('shows another workspace none of the family, even by trial ids or by the family key', async () => {
+    const em = await getEm();
+    const trials = await em.find(Trial, { workspace: workspaceId });
+    const picked = await modelDataset({ workspaceId: otherWorkspaceId }, { trialIds: trials.map((t) => t.id) });
+    expect(picked.rows).toEqual([]);
+    const byFamily = await modelDataset({ workspaceId: otherWorkspaceId }, { family: apricot });
+    expect(byFamily.rows).toEqual([]);
+    expect(await familyModel({ workspaceId: otherWorkspaceId }, apricot)).toBeNull();
+    expect(await listFamilies({ workspaceId: otherWorkspaceId })).toEqual([]);
+  });
+
+  it('answers a formula of another workspace as missing', async () => {
+    const em = await getEm();
+    const formula = await em.findOneOrFail(Formula, { workspace: workspaceId, name: 'Apricot spread, reduced sugar' });
+    await expect(familyOfFormula({ workspaceId: otherWorkspaceId }, formula.id)).rejects.toMatchObject({ status: 404 });
+  });
+
+  it('leaves withdrawn cooks out of the lab means', async () => {
+    const em = (await getEm()).fork();
+    const dataset = await modelDataset({ workspaceId }, { family: apricot });
+    const row = dataset.rows[0];
+    const cook = await em.findOneOrFail(Measurement, { workspace: workspaceId, variant: row.variantId });
+    cook.withdrawnAt = new Date();
+    await em.flush();
+    try {
+      const after = await modelDataset({ workspaceId }, { family: apricot });
+      const same = after.rows.find((r) => r.variantId === row.variantId)!;
+      expect(same.responses['lab:measuredPh']).toBeUndefined();
+      const refit = fitFamilyModel({ ...after, family: after.family! });
+      expect(refit.runs).toBe(35);
+    } finally {
+      cook.withdrawnAt = null;
+      await em.flush();
+    }
+  });
+});
