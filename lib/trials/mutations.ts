@@ -2,7 +2,8 @@
 import type { EntityManager } from '@mikro-orm/postgresql';
 import { LockMode } from '@mikro-orm/core';
 import { getEm, lockForTransaction } from '@/lib/db';
-import { Formula, FormulaRevision, Measurement, MeasurementChange, Trial, TrialStatusChange, Variant } from '@/entities';
+import { AuditEvent, Formula, FormulaRevision, Measurement, MeasurementChange, Trial, TrialStatusChange, Variant } from '@/entities';
+import { describePoint, formulaAtPoint } from '@/lib/modelling/proposals';
 import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
 import { Conflict, ValidationFailed } from '@/lib/errors';
 import { resolveLines } from '@/lib/chemistry';
@@ -11,7 +12,7 @@ import type { RevisionLine, RevisionSummary, FormulaSettingsInput } from '@/lib/
 import { computeFormula } from '@/lib/formulas/compute';
 import { applyFactorLevels, measureFactor, planRuns, PlanError, targetSolidsOf, variantLinesKey, type FactorLevel, type MassLine } from './plan';
 import { TRIAL_STATUS_LABELS, TRIAL_TRANSITIONS, type TrialStatus } from './vocabulary';
-import { cookReadingProblems, cookValues, type CookReadings, type CorrectMeasurementInput, type CreateTrialInput, type ManualVariantInput, type MeasurementInput, type PlanInput } from './schema';
+import { cookReadingProblems, cookValues, type CookReadings, type CorrectMeasurementInput, type CreateTrialInput, type ManualVariantInput, type MeasurementInput, type PlanInput, type ProposalTrialInput } from './schema';
 
 /** A, B, … Z, AA, AB, … in creation order; A is always the base. */
 export function variantLabel(index: number): string {
@@ -42,7 +43,18 @@ async function loadTrialForUpdate(tx: EntityManager, actor: Actor, trialId: stri
   return trial;
 }
 
-export async function createTrial(actor: Actor, input: CreateTrialInput): Promise<{ trialId: string; code: string }> {
+interface ExtraVariant {
+  description: string;
+  settings: FormulaSettingsInput;
+  lines: RevisionLine[];
+}
+
+/** Creates the trial with its base variant (the formula's revision) and, when given, more variants in the same transaction. */
+export async function createTrial(
+  actor: Actor,
+  input: CreateTrialInput,
+  extra: { variants: ExtraVariant[]; audit?: { action: string; summary: string } } = { variants: [] },
+): Promise<{ trialId: string; code: string }> {
   const em = await getEm();
   const formula = await em.findOne(Formula, { ...inWorkspace(actor), id: input.formulaId, archivedAt: null });
   if (!formula) throw new ValidationFailed('Choose a base formula of this workspace.', { formulaId: ['Choose a base formula of this workspace.'] });
@@ -63,22 +75,54 @@ export async function createTrial(actor: Actor, input: CreateTrialInput): Promis
       baseFormula: formula.id,
       baseRevision: number,
     });
-    tx.create(Variant, {
-      workspace: actor.workspaceId,
-      trial,
-      label: variantLabel(0),
-      isBase: true,
-      description: `Base: ${formula.name}, revision ${number}`,
-      factorLevels: [],
-      settings: revision.settings,
-      lines: revision.lines,
-      summary: revision.summary,
-      position: 0,
-      createdBy: actor.userId,
+    const variants = [{ description: `Base: ${formula.name}, revision ${number}`, settings: revision.settings, lines: revision.lines }, ...extra.variants];
+    variants.forEach((v, position) => {
+      tx.create(Variant, {
+        workspace: actor.workspaceId,
+        trial,
+        label: variantLabel(position),
+        isBase: position === 0,
+        description: v.description,
+        factorLevels: [],
+        settings: v.settings,
+        lines: v.lines,
+        summary: position === 0 ? revision.summary : summarise(v.settings, v.lines),
+        position,
+        createdBy: actor.userId,
+      });
     });
     tx.create(TrialStatusChange, { workspace: actor.workspaceId, trial, fromStatus: null, toStatus: 'planning', changedBy: actor.userId });
+    if (extra.audit) {
+      await tx.flush(); // the trial's id comes from the insert
+      tx.create(AuditEvent, {
+        workspace: actor.workspaceId, actor: actor.userId, actorName: actor.name, actorRole: actor.role,
+        action: extra.audit.action, subjectType: 'trial', subjectId: trial.id, promotionRequestId: null, summary: extra.audit.summary,
+      });
+    }
     await tx.flush();
     return { trialId: trial.id, code: `T-${String(trial.number).padStart(3, '0')}` };
+  });
+}
+
+/**
+ * A trial from the optimiser's proposal: the base formula's latest revision as variant A, then the
+ * proposal and the points around it, each the base formula moved to that point (lib/modelling/
+ * proposals.ts). The points come from the browser; the lines are built here from the stored revision.
+ */
+export async function createProposalTrial(actor: Actor, input: ProposalTrialInput): Promise<{ trialId: string; code: string }> {
+  const em = await getEm();
+  const formula = await em.findOne(Formula, { ...inWorkspace(actor), id: input.formulaId, archivedAt: null });
+  if (!formula) throw new ValidationFailed('Choose a base formula of this workspace.', { formulaId: ['Choose a base formula of this workspace.'] });
+  const revision = await em.findOneOrFail(FormulaRevision, { ...inWorkspace(actor), formula: formula.id, number: formula.latestRevision });
+  const base = { settings: revision.settings, lines: revision.lines };
+  const variants = input.points.map((point, i) => {
+    const made = formulaAtPoint(base, point);
+    if (!made.ok) throw new ValidationFailed(made.message, { [`points.${i}`]: [made.message] });
+    return { description: `${i === 0 ? 'Proposal' : 'Near the proposal'}: ${describePoint(point)}`, settings: made.settings, lines: made.lines };
+  });
+  return createTrial(actor, { title: input.title, question: input.question, formulaId: formula.id, baseRevision: formula.latestRevision }, {
+    variants,
+    audit: { action: 'trial.from_proposal', summary: `Trial from the optimiser's proposal on ${formula.name}, revision ${formula.latestRevision}: ${variants.length} variant(s) besides the base.` },
   });
 }
 

@@ -4,6 +4,7 @@ import { isoDate, longText, name, searchText, text, versionNumber, wholeNumber }
 import { formulaLineSchema, formulaSettingsSchema, PRODUCT_CLASSES, type FormulaSettingsInput, type RevisionLine, type RevisionSummary } from '@/lib/formulas/schema';
 import { SET_TEST_METHODS, SYNERESIS_LEVELS, TRIAL_FACTORS, TRIAL_STATUSES, type TrialStatus } from './vocabulary';
 import { CENTRE_RUNS, DESIGN_KINDS, type FactorLevel } from './plan';
+import { factorPointSchema } from '@/lib/modelling/schema';
 import type { BatchComputation } from '@/lib/chemistry';
 import type { CookComparison } from './compare';
 
@@ -40,6 +41,17 @@ export const planSchema = z
     centreRuns: wholeNumber('The number of centre runs', CENTRE_RUNS.min, CENTRE_RUNS.max).optional(),
   })
   .strict();
+
+/** The optimiser's proposal and the points around it, as a new trial on the formula they came from. */
+export const proposalTrialSchema = z
+  .object({
+    formulaId: z.uuid('Choose a base formula.'),
+    title: name('Give the trial a title.', 160),
+    question: longText(4000, { min: 1, required: 'Say what the trial should find out.' }),
+    points: z.array(factorPointSchema, { error: 'Choose the proposal.' }).min(1, 'Choose the proposal.').max(9, 'At most nine variants besides the base.'),
+  })
+  .strict();
+export type ProposalTrialInput = z.infer<typeof proposalTrialSchema>;
 
 export const manualVariantSchema = z
   .object({

@@ -9,6 +9,7 @@ import { ResultsPanel } from '@/components/formulas/ResultsPanel';
 import { FormulaPrintSheet } from '@/components/formulas/FormulaPrintSheet';
 import { editorCostBasis } from '@/lib/costs/queries';
 import { packFormatOfFormulas } from '@/lib/pricing/queries';
+import { editorModels } from '@/lib/modelling/editor-models';
 
 export const dynamic = 'force-dynamic';
 export const metadata = { title: 'Formula' };
@@ -17,9 +18,10 @@ export default async function FormulaPage({ params }: { params: Promise<{ formul
   const actor = await requirePage('formulas.read');
   const writer = can(actor.role, 'formulas.write');
   // The library is read beside the formula, not after it (writers only; both are workspace-scoped).
-  const [formula, fullLibrary] = await Promise.all([
+  const [formula, fullLibrary, models] = await Promise.all([
     orNotFound(getFormula(actor, pageId((await params).formulaId))),
     writer ? listIngredients(actor, { archived: 'include' }) : Promise.resolve([]),
+    writer && can(actor.role, 'trials.read') ? editorModels(actor) : Promise.resolve([]),
   ]);
   const c = formula.current;
 
@@ -58,6 +60,7 @@ export default async function FormulaPage({ params }: { params: Promise<{ formul
         massUnits={actor.massUnits}
         temperatureUnit={actor.temperatureUnit}
         cost={cost}
+        models={models}
       />
     </>
   );
