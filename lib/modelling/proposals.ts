@@ -24,14 +24,71 @@ export type FormulaAtPoint =
   | { ok: true; settings: FormulaSettingsInput; lines: RevisionLine[]; computation: BatchComputation }
   | { ok: false; message: string };
 
-/** Fixed-point passes for pectin and acid, which are shares of a finished mass they change a little. */
-const PASSES = 4;
+type ScaledKind = 'sweetener' | 'pectin' | 'acid';
 
-function scaleKind(lines: RevisionLine[], kind: string, target: number, what: string): RevisionLine[] | string {
-  const current = lines.filter((l) => l.ingredient.kind === kind).reduce((s, l) => s + l.quantity, 0);
-  if (current <= 0) return target > 0 ? `The base formula has no ${what} line to set.` : lines;
-  const k = target / current;
-  return lines.map((l) => (l.ingredient.kind === kind ? { ...l, quantity: l.quantity * k } : l));
+interface KindTotals {
+  massG: number;
+  solidsG: number;
+  /** Acid as citric acid (each line's acidity; a powder without one counts whole). */
+  citricG: number;
+}
+
+export interface PointSolver {
+  /** Finished mass and the new total of each scaled kind at a point; null when the point cannot be made. */
+  at(point: Partial<Record<ModelFactor, number>>): { finishedMassG: number; fruitPer1000g: number; totals: Record<ScaledKind, number> } | null;
+}
+
+/**
+ * The mass balance solved for a point, without iterating: the finished mass is the soluble solids
+ * over the target (lib/chemistry/mass-balance.ts), and pectin and acid are shares of that mass, so
+ * F = (fixed solids + r·fruit·σ_sweetener) / (t − p·σ_pectin − a·σ_acid/acidity). Lines of one kind
+ * keep their proportions. Cheap enough for every step of the optimiser's search.
+ */
+export function pointSolver(base: ProposalBase): PointSolver | string {
+  const outcome = computeFormula(base.settings, base.lines);
+  if (!outcome.ok) return outcome.message;
+  const mb = outcome.computation.massBalance;
+  const fruit = mb.fruitMassG;
+  if (!(fruit > 0)) return 'The base formula has no fruit line.';
+  const totals: Record<ScaledKind | 'other', KindTotals> = { sweetener: { massG: 0, solidsG: 0, citricG: 0 }, pectin: { massG: 0, solidsG: 0, citricG: 0 }, acid: { massG: 0, solidsG: 0, citricG: 0 }, other: { massG: 0, solidsG: 0, citricG: 0 } };
+  for (const l of mb.lines) {
+    const kind = l.ingredient.kind === 'sweetener' || l.ingredient.kind === 'pectin' || l.ingredient.kind === 'acid' ? l.ingredient.kind : 'other';
+    totals[kind].massG += l.massG;
+    totals[kind].solidsG += l.solidsG;
+    if (kind === 'acid') totals.acid.citricG += (l.massG * (l.ingredient.acidPct ?? 100)) / 100;
+  }
+  const perGram = (k: ScaledKind) => (totals[k].massG > 0 ? totals[k].solidsG / totals[k].massG : 0);
+  return {
+    at(point: Partial<Record<ModelFactor, number>>) {
+      const t = (point.targetSolidsPct ?? base.settings.targetSolidsPct) / 100;
+      let fixed = totals.other.solidsG;
+      let shares = 0;
+      const sweetener = point.sugarRatio !== undefined ? point.sugarRatio * fruit : totals.sweetener.massG;
+      if (sweetener > 0 && totals.sweetener.massG <= 0) return null;
+      fixed += sweetener * perGram('sweetener');
+      if (point.pectinPct !== undefined) {
+        if (point.pectinPct > 0 && totals.pectin.massG <= 0) return null;
+        shares += (point.pectinPct / 100) * perGram('pectin');
+      } else fixed += totals.pectin.solidsG;
+      const acidity = totals.acid.massG > 0 ? totals.acid.citricG / totals.acid.massG : 0;
+      if (point.acidPct !== undefined) {
+        if (point.acidPct > 0 && !(acidity > 0)) return null;
+        if (point.acidPct > 0) shares += ((point.acidPct / 100) * perGram('acid')) / acidity;
+      } else fixed += totals.acid.solidsG;
+      const denominator = t - shares;
+      if (!(denominator > 0) || !(fixed > 0)) return null;
+      const finishedMassG = fixed / denominator;
+      return {
+        finishedMassG,
+        fruitPer1000g: (fruit / finishedMassG) * 1000,
+        totals: {
+          sweetener,
+          pectin: point.pectinPct !== undefined ? (point.pectinPct / 100) * finishedMassG : totals.pectin.massG,
+          acid: point.acidPct !== undefined ? (acidity > 0 ? ((point.acidPct / 100) * finishedMassG) / acidity : 0) : totals.acid.massG,
+        },
+      };
+    },
+  };
 }
 
 /**
@@ -39,46 +96,25 @@ function scaleKind(lines: RevisionLine[], kind: string, target: number, what: st
  * ratio, the target soluble solids set, pectin and acid lines scaled to their share of the finished
  * product (acid counted as citric acid, as the features count it). Fruit and every other line stay.
  */
-export function formulaAtPoint(base: ProposalBase, point: Partial<Record<ModelFactor, number>>): FormulaAtPoint {
+export function formulaAtPoint(base: ProposalBase, point: Partial<Record<ModelFactor, number>>, solver?: PointSolver): FormulaAtPoint {
+  const solved = solver ?? pointSolver(base);
+  if (typeof solved === 'string') return { ok: false, message: solved };
+  const at = solved.at(point);
+  if (!at) return { ok: false, message: 'This combination cannot be made from the base formula: a line it needs is missing, or the pectin or acid share is out of reach at this soluble solids.' };
   const settings = { ...base.settings, ...(point.targetSolidsPct !== undefined ? { targetSolidsPct: point.targetSolidsPct } : {}) };
-  const first = computeFormula(settings, base.lines);
+  const first = computeFormula(base.settings, base.lines);
   if (!first.ok) return { ok: false, message: first.message };
-  // Work in grams from here on, so "% of fruit" lines scale like the rest.
-  let lines: RevisionLine[] = base.lines.map((l, i) => ({ ...l, quantity: first.computation.massBalance.lines[i].massG, unit: 'g' }));
-  const fruit = first.computation.massBalance.fruitMassG;
-  if (!(fruit > 0)) return { ok: false, message: 'The base formula has no fruit line.' };
-  if (point.sugarRatio !== undefined) {
-    const scaled = scaleKind(lines, 'sweetener', point.sugarRatio * fruit, 'sweetener');
-    if (typeof scaled === 'string') return { ok: false, message: scaled };
-    lines = scaled;
-  }
-  let outcome = computeFormula(settings, lines);
-  for (let pass = 0; pass < PASSES && outcome.ok; pass++) {
-    const finished = outcome.computation.massBalance.finishedMassG;
-    if (point.pectinPct !== undefined) {
-      const scaled = scaleKind(lines, 'pectin', (point.pectinPct / 100) * finished, 'pectin');
-      if (typeof scaled === 'string') return { ok: false, message: scaled };
-      lines = scaled;
-    }
-    if (point.acidPct !== undefined) {
-      const acid = lines.filter((l) => l.ingredient.kind === 'acid');
-      const citric = acid.reduce((s, l) => s + (l.quantity * (l.ingredient.acidPct ?? 100)) / 100, 0);
-      if (citric <= 0 && point.acidPct > 0) return { ok: false, message: 'The base formula has no acid line to set.' };
-      if (citric > 0) {
-        const k = ((point.acidPct / 100) * finished) / citric;
-        lines = lines.map((l) => (l.ingredient.kind === 'acid' ? { ...l, quantity: l.quantity * k } : l));
-      }
-    }
-    outcome = computeFormula(settings, lines);
-  }
+  // In grams from here on, so "% of fruit" lines scale like the rest.
+  const grams = base.lines.map((l, i) => ({ ...l, quantity: first.computation.massBalance.lines[i].massG, unit: 'g' as const }));
+  const current = (kind: ScaledKind) => grams.filter((l) => l.ingredient.kind === kind).reduce((sum, l) => sum + l.quantity, 0);
+  const factor = { sweetener: at.totals.sweetener / current('sweetener'), pectin: at.totals.pectin / current('pectin'), acid: at.totals.acid / current('acid') };
+  const lines = grams.map((l) => {
+    const kind = l.ingredient.kind;
+    return kind === 'sweetener' || kind === 'pectin' || kind === 'acid' ? { ...l, quantity: l.quantity * factor[kind] } : l;
+  });
+  if (lines.some((l) => !(l.quantity > 0))) return { ok: false, message: 'This combination would leave a line of the base formula at nothing; take that line out of the formula first.' };
+  const outcome = computeFormula(settings, lines);
   if (!outcome.ok) return { ok: false, message: outcome.message };
-  // Shares too large to reach (pectin as much as the batch) do not settle: refuse rather than write a wrong formula.
-  const mb = outcome.computation.massBalance;
-  const acidNow = (lines.filter((l) => l.ingredient.kind === 'acid').reduce((s, l) => s + (l.quantity * (l.ingredient.acidPct ?? 100)) / 100, 0) / mb.finishedMassG) * 100;
-  const off = (got: number, want: number | undefined) => want !== undefined && Math.abs(got - want) > 1e-3 * Math.max(want, 0.01);
-  if (off(mb.pectinPctOfFinished, point.pectinPct) || off(acidNow, point.acidPct)) {
-    return { ok: false, message: 'This combination cannot be made from the base formula: the pectin or acid share is out of reach at this soluble solids.' };
-  }
   return { ok: true, settings, lines, computation: outcome.computation };
 }
 
@@ -165,21 +201,11 @@ export function proposeFormulas(model: FamilyModel, base: ProposalBase, request:
     return { name: response.name, surface: response.surface, goal: g.goal, importance: g.importance, response };
   });
   const constraints: Constraint[] = [];
-  const cache = new Map<string, FormulaAtPoint>();
-  const formulaAt = (point: Readonly<Record<string, number>>) => {
-    const key = model.factors.map((f) => point[f]).join('|');
-    let hit = cache.get(key);
-    if (!hit) {
-      hit = formulaAtPoint(base, point as Partial<Record<ModelFactor, number>>);
-      if (cache.size > 20_000) cache.clear();
-      cache.set(key, hit);
-    }
-    return hit;
-  };
-  const fruitOf = (point: Readonly<Record<string, number>>) => {
-    const formula = formulaAt(point);
-    return formula.ok ? formula.computation.massBalance.fruitPer1000gFinishedG : Number.NaN;
-  };
+  const solver = pointSolver(base);
+  if (typeof solver === 'string') throw new ModelSpecError(solver);
+  const fruitOf = (point: Readonly<Record<string, number>>) => solver.at(point)?.fruitPer1000g ?? Number.NaN;
+  // A point the base formula cannot be moved to is no proposal.
+  constraints.push(windowConstraint('formula can be made', (p) => (solver.at(p) ? 0 : Number.NaN), { low: 0 }));
   if (request.fruitMinimumPer1000g !== undefined) {
     constraints.push(windowConstraint('fruit minimum', fruitOf, { low: request.fruitMinimumPer1000g }));
   }
@@ -235,7 +261,7 @@ export function pointsAround(
       if (around.length >= count) return around;
       const point = { ...proposal, [range.name]: proposal[range.name] + (sign * (range.high - range.low)) / 10 };
       const inside = model.responses.every((r) => predictResponse(r.surface, point).inRegion);
-      if (inside && formulaAtPoint(base, point).ok) around.push(point);
+      if (inside && point[range.name] >= 0 && formulaAtPoint(base, point).ok) around.push(point);
     }
   }
   return around;
