@@ -23,6 +23,8 @@ import { ResultsPanel } from './ResultsPanel';
 import { ScalePanel } from './ScalePanel';
 import { LiveLabel } from '@/components/label/LiveLabel';
 import { KeyResultsBar } from './editor/KeyResultsBar';
+import { PredictionPanel, PredictionSummary } from './PredictionPanel';
+import type { FamilyModel } from '@/lib/modelling/schema';
 import { LineRow } from './editor/LineRow';
 import { UnitToggle } from './editor/UnitToggle';
 import { FormulaCostPanel } from '@/components/costs/FormulaCostPanel';
@@ -74,6 +76,8 @@ export interface FormulaEditorProps {
   defaults?: Partial<FormulaSettingsInput>;
   /** Prices for the live cost; absent for roles that may not see prices. */
   cost?: { basis: EditorCostBasis; packFormatId: string | null };
+  /** The workspace's fitted family models, for predictions while typing (none: no panel). */
+  models?: readonly FamilyModel[];
 }
 
 type SaveStatus =
@@ -102,7 +106,7 @@ function numberProblem(draft: MeasuredDraft): string[] {
 }
 
 /** The formula editor: settings, lines and live results; saves a new formula or a new revision. */
-export function FormulaEditor({ mode, initial, ingredients, massUnits, temperatureUnit, defaults, cost }: FormulaEditorProps) {
+export function FormulaEditor({ mode, initial, ingredients, massUnits, temperatureUnit, defaults, cost, models = [] }: FormulaEditorProps) {
   const router = useRouter();
   const nextKey = useRef(initial?.lines.length ?? 0);
   const makeKey = () => `l${nextKey.current++}`;
@@ -493,10 +497,13 @@ export function FormulaEditor({ mode, initial, ingredients, massUnits, temperatu
               </Button>
             </div>
           </Card>
-          <KeyResultsBar outcome={outcome} massUnits={system} temperatureUnit={tempUnit} resultsAnchor="batch-results" />
+          <KeyResultsBar outcome={outcome} massUnits={system} temperatureUnit={tempUnit} resultsAnchor="batch-results">
+            <PredictionSummary models={models} computed={computed} drafts={lines} settings={settingsInput} />
+          </KeyResultsBar>
         </form>
 
         <aside id="batch-results" className="scroll-mt-4 self-start lg:sticky lg:top-4">
+          {models.length ? <Card className="mb-4"><PredictionPanel models={models} computed={computed} drafts={lines} settings={settingsInput} /></Card> : null}
           <Card>
             <ResultsPanel outcome={outcome} massUnits={system} temperatureUnit={tempUnit} notice={resultsNotice} />
           </Card>

@@ -5,7 +5,7 @@ import { useRouter } from 'next/navigation';
 import { Button } from '@/components/ui/Button';
 import { Notice } from '@/components/ui/Notice';
 import { inputClass } from '@/components/ui/Field';
-import { planRuns, PlanError, type DesignKind, type FactorSpec } from '@/lib/trials/plan';
+import { CENTRE_RUNS, planDesign, PlanError, SURFACE_DESIGNS, type DesignKind, type FactorSpec } from '@/lib/trials/plan';
 import { FACTOR_LABELS, TRIAL_FACTORS, type TrialFactor } from '@/lib/trials/vocabulary';
 import { planVariantsAction } from '@/lib/trials/actions';
 import { useFormAction } from '@/components/ui/useFormAction';
@@ -15,9 +15,21 @@ type Draft = Record<TrialFactor, { on: boolean; low: string; high: string }>;
 
 function suggest(base: number | null, factor: TrialFactor): { low: string; high: string } {
   if (base === null || base <= 0) return { low: '', high: '' };
+  // Soluble solids move in points of Brix, not in proportion (±20 % of 60 °Brix is no jam).
+  if (factor === 'target_solids') return { low: Math.max(base - 3, 1).toFixed(1), high: Math.min(base + 3, 99).toFixed(1) };
   const d = factor === 'sugar_ratio' ? 2 : 1;
   return { low: (base * 0.8).toFixed(d), high: (base * 1.2).toFixed(d) };
 }
+
+const DESIGN_CHOICES: Array<{ kind: DesignKind; label: string; hint: string }> = [
+  { kind: 'full_factorial', label: 'Full factorial (2^k)', hint: 'Every combination of low and high; up to three factors.' },
+  { kind: 'one_factor_at_a_time', label: 'One factor at a time', hint: 'Each factor low and high, the rest as in the base.' },
+  { kind: 'central_composite_face_centred', label: 'Central composite, face-centred', hint: 'Corners, one factor at a time at low and high, and centre runs; every level stays within low…high. Two to four factors.' },
+  { kind: 'central_composite_rotatable', label: 'Central composite, rotatable', hint: 'As face-centred, but the single-factor runs go beyond low and high so the prediction is equally good in every direction.' },
+  { kind: 'box_behnken', label: 'Box–Behnken', hint: 'Each pair of factors at low and high with the rest at the centre, plus centre runs; no extreme corners. Three or four factors.' },
+];
+
+const designLabel = (kind: DesignKind) => DESIGN_CHOICES.find((d) => d.kind === kind)!.label;
 
 /**
  * Lays out the variants before they are made: the same planRuns the server uses runs here,
@@ -27,6 +39,7 @@ export function PlanHelper({ trialId, baseLevels }: { trialId: string; baseLevel
   const router = useRouter();
   const [kind, setKind] = useState<DesignKind>('full_factorial');
   const [centre, setCentre] = useState(false);
+  const [centreRuns, setCentreRuns] = useState(String(CENTRE_RUNS.default));
   const [draft, setDraft] = useState<Draft>(() =>
     Object.fromEntries(TRIAL_FACTORS.map((f) => [f, { on: f === 'sugar_ratio', ...suggest(baseLevels[f], f) }])) as Draft,
   );
@@ -34,11 +47,13 @@ export function PlanHelper({ trialId, baseLevels }: { trialId: string; baseLevel
   const [added, setAdded] = useState<string>();
 
   const specs: FactorSpec[] = TRIAL_FACTORS.filter((f) => draft[f].on).map((f) => ({ factor: f, low: readDecimal(draft[f].low) ?? Number.NaN, high: readDecimal(draft[f].high) ?? Number.NaN }));
-  // Cheap to compute (at most nine runs), so it is simply recomputed on every render.
+  const surface = SURFACE_DESIGNS.includes(kind);
+  const centreRunCount = Number(centreRuns);
+  // Cheap to compute (at most 30 runs), so it is simply recomputed on every render.
   const preview = (() => {
     try {
-      const runs = planRuns(kind, specs, { centrePoint: centre, baseLevels: Object.fromEntries(Object.entries(baseLevels).filter(([, v]) => v !== null)) as Partial<Record<TrialFactor, number>> });
-      return { ok: true as const, runs };
+      const { runs, warnings } = planDesign(kind, specs, { centrePoint: centre, centreRuns: centreRunCount, baseLevels: Object.fromEntries(Object.entries(baseLevels).filter(([, v]) => v !== null)) as Partial<Record<TrialFactor, number>> });
+      return { ok: true as const, runs, warnings };
     } catch (err) {
       if (err instanceof PlanError) return { ok: false as const, message: err.message };
       throw err;
@@ -47,7 +62,7 @@ export function PlanHelper({ trialId, baseLevels }: { trialId: string; baseLevel
 
   async function generate() {
     setAdded(undefined);
-    const res = await run(trialId, { kind, factors: specs, centrePoint: centre });
+    const res = await run(trialId, surface ? { kind, factors: specs, centreRuns: centreRunCount } : { kind, factors: specs, centrePoint: centre });
     if (res?.ok) {
       const { created, skipped } = res.data;
       setAdded(`Added variants ${created.join(', ')}.${skipped.length ? ` Left out the runs already in the trial as ${skipped.join(', ')}.` : ''}`);
@@ -61,10 +76,23 @@ export function PlanHelper({ trialId, baseLevels }: { trialId: string; baseLevel
       <p className="mt-1 text-sm text-rind-600">Choose the factors and their levels; the variants are the base formula with only those lines scaled.</p>
       <fieldset className="mt-4">
         <legend className="text-sm font-medium text-rind-700">Design</legend>
-        <div className="mt-2 flex flex-wrap gap-4 text-sm">
-          <label className="flex min-h-10 items-center gap-2"><input type="radio" name="design" checked={kind === 'full_factorial'} onChange={() => setKind('full_factorial')} /> Full factorial (2<sup>k</sup>)</label>
-          <label className="flex min-h-10 items-center gap-2"><input type="radio" name="design" checked={kind === 'one_factor_at_a_time'} onChange={() => setKind('one_factor_at_a_time')} /> One factor at a time</label>
-          <label className="flex min-h-10 items-center gap-2"><input type="checkbox" checked={centre} onChange={(e) => setCentre(e.target.checked)} /> Add a centre point</label>
+        <div className="mt-2 grid grid-cols-1 gap-1 text-sm sm:grid-cols-2">
+          {DESIGN_CHOICES.map((d) => (
+            <label key={d.kind} className="flex min-h-10 items-start gap-2 py-1">
+              <input type="radio" name="design" className="mt-1" checked={kind === d.kind} onChange={() => setKind(d.kind)} />
+              <span>{d.label}<span className="block text-xs text-rind-500">{d.hint}</span></span>
+            </label>
+          ))}
+        </div>
+        <div className="mt-2 text-sm">
+          {surface ? (
+            <label className="flex min-h-10 flex-wrap items-center gap-2">
+              Centre runs (replicates of the centre)
+              <input aria-label="Centre runs" inputMode="numeric" value={centreRuns} onChange={(e) => setCentreRuns(e.target.value)} className={`${inputClass} w-20`} />
+            </label>
+          ) : (
+            <label className="flex min-h-10 items-center gap-2"><input type="checkbox" checked={centre} onChange={(e) => setCentre(e.target.checked)} /> Add a centre point</label>
+          )}
         </div>
       </fieldset>
       <div className="mt-4 space-y-3">
@@ -96,7 +124,8 @@ export function PlanHelper({ trialId, baseLevels }: { trialId: string; baseLevel
       <div className="mt-4" aria-live="polite">
         {preview.ok ? (
           <>
-            <p className="text-sm font-medium">{preview.runs.length} variant{preview.runs.length === 1 ? '' : 's'} will be added:</p>
+            <p className="text-sm font-medium">{designLabel(kind)}: {preview.runs.length} run{preview.runs.length === 1 ? '' : 's'}, each a new variant (a run already in the trial is left out):</p>
+            {preview.warnings.map((w) => <p key={w} className="mt-1 text-sm text-rind-600">{w}</p>)}
             <ol className="mt-1 list-decimal pl-6 text-sm text-rind-700" data-testid="plan-preview">
               {preview.runs.map((r, i) => <li key={i}>{r.description}</li>)}
             </ol>

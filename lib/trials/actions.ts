@@ -3,8 +3,8 @@
 import { revalidatePath } from 'next/cache';
 import { z } from 'zod';
 import { runAction } from '@/lib/actions';
-import { correctMeasurementSchema, createTrialSchema, manualVariantSchema, measurementSchema, planSchema, transitionSchema, withdrawMeasurementSchema } from './schema';
-import { addVariant, correctMeasurement, createTrial, planVariants, recordMeasurement, removeVariant, transitionTrial, withdrawMeasurement } from './mutations';
+import { correctMeasurementSchema, createTrialSchema, manualVariantSchema, measurementSchema, planSchema, proposalTrialSchema, transitionSchema, withdrawMeasurementSchema } from './schema';
+import { addVariant, correctMeasurement, createProposalTrial, createTrial, planVariants, recordMeasurement, removeVariant, transitionTrial, withdrawMeasurement } from './mutations';
 import { importMeasurementsCsv } from './csv';
 
 const trialId = z.uuid('Unknown trial.');
@@ -12,6 +12,13 @@ const refresh = (id: unknown) => revalidatePath(`/trials/${String(id)}`, 'layout
 
 export async function createTrialAction(input: unknown) {
   const result = await runAction('trials.write', createTrialSchema, input, createTrial);
+  if (result.ok) revalidatePath('/trials');
+  return result;
+}
+
+/** One click from the optimiser: a trial whose variants are the proposal and a few points around it. */
+export async function createProposalTrialAction(input: unknown) {
+  const result = await runAction('trials.write', proposalTrialSchema, input, createProposalTrial);
   if (result.ok) revalidatePath('/trials');
   return result;
 }

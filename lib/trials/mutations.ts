@@ -3,16 +3,17 @@ import 'server-only';
 import type { EntityManager } from '@mikro-orm/postgresql';
 import { LockMode } from '@mikro-orm/core';
 import { getEm, lockForTransaction } from '@/lib/db';
-import { Formula, FormulaRevision, Measurement, MeasurementChange, Trial, TrialStatusChange, Variant } from '@/entities';
+import { AuditEvent, Formula, FormulaRevision, Measurement, MeasurementChange, Trial, TrialStatusChange, Variant } from '@/entities';
+import { describePoint, formulaAtPoint } from '@/lib/modelling/proposals';
 import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
 import { Conflict, ValidationFailed } from '@/lib/errors';
 import { resolveLines } from '@/lib/chemistry';
 import { prepareRevision } from '@/lib/formulas/mutations';
 import type { RevisionLine, RevisionSummary, FormulaSettingsInput } from '@/lib/formulas/schema';
 import { computeFormula } from '@/lib/formulas/compute';
-import { applyFactorLevels, measureFactor, planRuns, PlanError, variantLinesKey, type FactorLevel, type MassLine } from './plan';
+import { applyFactorLevels, measureFactor, planRuns, PlanError, targetSolidsOf, variantLinesKey, type FactorLevel, type MassLine } from './plan';
 import { TRIAL_STATUS_LABELS, TRIAL_TRANSITIONS, type TrialStatus } from './vocabulary';
-import { cookReadingProblems, cookValues, type CookReadings, type CorrectMeasurementInput, type CreateTrialInput, type ManualVariantInput, type MeasurementInput, type PlanInput } from './schema';
+import { cookReadingProblems, cookValues, type CookReadings, type CorrectMeasurementInput, type CreateTrialInput, type ManualVariantInput, type MeasurementInput, type PlanInput, type ProposalTrialInput } from './schema';
 
 /** A, B, … Z, AA, AB, … in creation order; A is always the base. */
 export function variantLabel(index: number): string {
@@ -43,7 +44,18 @@ async function loadTrialForUpdate(tx: EntityManager, actor: Actor, trialId: stri
   return trial;
 }
 
-export async function createTrial(actor: Actor, input: CreateTrialInput): Promise<{ trialId: string; code: string }> {
+interface ExtraVariant {
+  description: string;
+  settings: FormulaSettingsInput;
+  lines: RevisionLine[];
+}
+
+/** Creates the trial with its base variant (the formula's revision) and, when given, more variants in the same transaction. */
+export async function createTrial(
+  actor: Actor,
+  input: CreateTrialInput,
+  extra: { variants: ExtraVariant[]; audit?: { action: string; summary: string } } = { variants: [] },
+): Promise<{ trialId: string; code: string }> {
   const em = await getEm();
   const formula = await em.findOne(Formula, { ...inWorkspace(actor), id: input.formulaId, archivedAt: null });
   if (!formula) throw new ValidationFailed('Choose a base formula of this workspace.', { formulaId: ['Choose a base formula of this workspace.'] });
@@ -64,22 +76,54 @@ export async function createTrial(actor: Actor, input: CreateTrialInput): Promis
       baseFormula: formula.id,
       baseRevision: number,
     });
-    tx.create(Variant, {
-      workspace: actor.workspaceId,
-      trial,
-      label: variantLabel(0),
-      isBase: true,
-      description: `Base: ${formula.name}, revision ${number}`,
-      factorLevels: [],
-      settings: revision.settings,
-      lines: revision.lines,
-      summary: revision.summary,
-      position: 0,
-      createdBy: actor.userId,
+    const variants = [{ description: `Base: ${formula.name}, revision ${number}`, settings: revision.settings, lines: revision.lines }, ...extra.variants];
+    variants.forEach((v, position) => {
+      tx.create(Variant, {
+        workspace: actor.workspaceId,
+        trial,
+        label: variantLabel(position),
+        isBase: position === 0,
+        description: v.description,
+        factorLevels: [],
+        settings: v.settings,
+        lines: v.lines,
+        summary: position === 0 ? revision.summary : summarise(v.settings, v.lines),
+        position,
+        createdBy: actor.userId,
+      });
     });
     tx.create(TrialStatusChange, { workspace: actor.workspaceId, trial, fromStatus: null, toStatus: 'planning', changedBy: actor.userId });
+    if (extra.audit) {
+      await tx.flush(); // the trial's id comes from the insert
+      tx.create(AuditEvent, {
+        workspace: actor.workspaceId, actor: actor.userId, actorName: actor.name, actorRole: actor.role,
+        action: extra.audit.action, subjectType: 'trial', subjectId: trial.id, promotionRequestId: null, summary: extra.audit.summary,
+      });
+    }
     await tx.flush();
     return { trialId: trial.id, code: `T-${String(trial.number).padStart(3, '0')}` };
+  });
+}
+
+/**
+ * A trial from the optimiser's proposal: the base formula's latest revision as variant A, then the
+ * proposal and the points around it, each the base formula moved to that point (lib/modelling/
+ * proposals.ts). The points come from the browser; the lines are built here from the stored revision.
+ */
+export async function createProposalTrial(actor: Actor, input: ProposalTrialInput): Promise<{ trialId: string; code: string }> {
+  const em = await getEm();
+  const formula = await em.findOne(Formula, { ...inWorkspace(actor), id: input.formulaId, archivedAt: null });
+  if (!formula) throw new ValidationFailed('Choose a base formula of this workspace.', { formulaId: ['Choose a base formula of this workspace.'] });
+  const revision = await em.findOneOrFail(FormulaRevision, { ...inWorkspace(actor), formula: formula.id, number: formula.latestRevision });
+  const base = { settings: revision.settings, lines: revision.lines };
+  const variants = input.points.map((point, i) => {
+    const made = formulaAtPoint(base, point);
+    if (!made.ok) throw new ValidationFailed(made.message, { [`points.${i}`]: [made.message] });
+    return { description: `${i === 0 ? 'Proposal' : 'Near the proposal'}: ${describePoint(point)}`, settings: made.settings, lines: made.lines };
+  });
+  return createTrial(actor, { title: input.title, question: input.question, formulaId: formula.id, baseRevision: formula.latestRevision }, {
+    variants,
+    audit: { action: 'trial.from_proposal', summary: `Trial from the optimiser's proposal on ${formula.name}, revision ${formula.latestRevision}: ${variants.length} variant(s) besides the base.` },
   });
 }
 
@@ -109,8 +153,12 @@ function massLinesOf(lines: RevisionLine[]): MassLine[] {
   return resolved.map((r) => ({ ingredient: r.ingredient, massG: r.massG }));
 }
 
-/** Generates the planned variants from the base variant; the base gets its own factor levels recorded. */
-/** Runs that would repeat a variant already added to the trial (same lines) are skipped and named; if every run would, nothing is added (422). */
+/**
+ * Generates the planned variants from the base variant; the base gets its own factor levels recorded.
+ * Runs that would repeat a variant already in the trial (same lines, same target soluble solids) are
+ * skipped and named, one existing variant per repeated run, so a design's replicated centre runs are
+ * all added the first time and none the second; if every run would repeat, nothing is added (422).
+ */
 export async function planVariants(actor: Actor, trialId: string, plan: PlanInput): Promise<{ created: string[]; skipped: string[] }> {
   const em = await getEm();
   return em.transactional(async (tx) => {
@@ -122,8 +170,8 @@ export async function planVariants(actor: Actor, trialId: string, plan: PlanInpu
     let baseMass: MassLine[];
     try {
       baseMass = massLinesOf(base.lines);
-      const baseLevels = Object.fromEntries(plan.factors.map((f) => [f.factor, measureFactor(baseMass, f.factor)]));
-      runs = planRuns(plan.kind, plan.factors, { centrePoint: plan.centrePoint, baseLevels });
+      const baseLevels = Object.fromEntries(plan.factors.map((f) => [f.factor, measureFactor(baseMass, f.factor, base.settings)]));
+      runs = planRuns(plan.kind, plan.factors, { centrePoint: plan.centrePoint, centreRuns: plan.centreRuns, baseLevels });
       base.factorLevels = plan.factors.map((f) => {
         const half = (f.high - f.low) / 2;
         return { factor: f.factor, value: baseLevels[f.factor], coded: (baseLevels[f.factor] - (f.low + f.high) / 2) / half };
@@ -134,10 +182,13 @@ export async function planVariants(actor: Actor, trialId: string, plan: PlanInpu
     }
     // The base is left out: a run at the base's own levels is a deliberate replicate of it.
     const active = await tx.find(Variant, { ...inWorkspace(actor), trial: trialId, removedAt: null, isBase: false }, { orderBy: { position: 'asc' } });
-    const labelByKey = new Map(active.map((v) => [variantLinesKey(v.lines), v.label]));
-    const created: string[] = [];
+    const labelsByKey = new Map<string, string[]>();
+    for (const v of active) {
+      const key = variantLinesKey(v.lines, v.settings.targetSolidsPct);
+      labelsByKey.set(key, [...(labelsByKey.get(key) ?? []), v.label]);
+    }
     const skipped: string[] = [];
-    const fresh: Array<{ run: (typeof runs)[number]; lines: RevisionLine[] }> = [];
+    const fresh: Array<{ run: (typeof runs)[number]; lines: RevisionLine[]; settings: typeof base.settings }> = [];
     for (const run of runs) {
       let scaled: MassLine[];
       try {
@@ -147,19 +198,19 @@ export async function planVariants(actor: Actor, trialId: string, plan: PlanInpu
         throw err;
       }
       const lines: RevisionLine[] = base.lines.map((l, j) => ({ ...l, quantity: scaled[j].massG, unit: 'g' }));
-      const same = labelByKey.get(variantLinesKey(lines));
+      const settings = { ...base.settings, targetSolidsPct: targetSolidsOf(run.levels, base.settings.targetSolidsPct) };
+      const same = labelsByKey.get(variantLinesKey(lines, settings.targetSolidsPct))?.shift();
       if (same) {
-        if (!skipped.includes(same)) skipped.push(same);
+        skipped.push(same);
         continue;
       }
-      labelByKey.set(variantLinesKey(lines), '(this plan)');
-      fresh.push({ run, lines });
+      fresh.push({ run, lines, settings });
     }
     if (!fresh.length) {
       const message = `These variants are already in the trial (${skipped.join(', ')}): nothing was added.`;
       throw new ValidationFailed(message, { factors: [message] });
     }
-    fresh.forEach(({ run, lines }, i) => {
+    const created = fresh.map(({ run, lines, settings }, i) => {
       const label = variantLabel(existing + i);
       tx.create(Variant, {
         workspace: actor.workspaceId,
@@ -168,13 +219,13 @@ export async function planVariants(actor: Actor, trialId: string, plan: PlanInpu
         isBase: false,
         description: run.description,
         factorLevels: run.levels as FactorLevel[],
-        settings: base.settings,
+        settings,
         lines,
-        summary: summarise(base.settings, lines),
+        summary: summarise(settings, lines),
         position: existing + i,
         createdBy: actor.userId,
       });
-      created.push(label);
+      return label;
     });
     trial.updatedAt = new Date();
     await tx.flush();

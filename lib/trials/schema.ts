@@ -3,7 +3,8 @@ import { z } from 'zod';
 import { isoDate, longText, name, searchText, text, versionNumber, wholeNumber } from '@/lib/input';
 import { formulaLineSchema, formulaSettingsSchema, PRODUCT_CLASSES, type FormulaSettingsInput, type RevisionLine, type RevisionSummary } from '@/lib/formulas/schema';
 import { SET_TEST_METHODS, SYNERESIS_LEVELS, TRIAL_FACTORS, TRIAL_STATUSES, type TrialStatus } from './vocabulary';
-import type { FactorLevel } from './plan';
+import { CENTRE_RUNS, DESIGN_KINDS, type FactorLevel } from './plan';
+import { factorPointSchema } from '@/lib/modelling/schema';
 import type { BatchComputation } from '@/lib/chemistry';
 import type { CookComparison } from './compare';
 
@@ -24,7 +25,7 @@ export const transitionSchema = z.object({ to: z.enum(TRIAL_STATUSES, { error: '
 
 export const planSchema = z
   .object({
-    kind: z.enum(['one_factor_at_a_time', 'full_factorial'], { error: 'Choose a design.' }),
+    kind: z.enum(DESIGN_KINDS, { error: 'Choose a design.' }),
     factors: z
       .array(
         z.object({
@@ -34,10 +35,23 @@ export const planSchema = z
         }).strict(),
       )
       .min(1, 'Choose at least one factor.')
-      .max(3, 'At most three factors.'),
+      .max(TRIAL_FACTORS.length, `At most ${TRIAL_FACTORS.length} factors.`),
     centrePoint: z.boolean().default(false),
+    /** Replicated centre runs of a central composite or Box–Behnken design. */
+    centreRuns: wholeNumber('The number of centre runs', CENTRE_RUNS.min, CENTRE_RUNS.max).optional(),
   })
   .strict();
+
+/** The optimiser's proposal and the points around it, as a new trial on the formula they came from. */
+export const proposalTrialSchema = z
+  .object({
+    formulaId: z.uuid('Choose a base formula.'),
+    title: name('Give the trial a title.', 160),
+    question: longText(4000, { min: 1, required: 'Say what the trial should find out.' }),
+    points: z.array(factorPointSchema, { error: 'Choose the proposal.' }).min(1, 'Choose the proposal.').max(9, 'At most nine variants besides the base.'),
+  })
+  .strict();
+export type ProposalTrialInput = z.infer<typeof proposalTrialSchema>;
 
 export const manualVariantSchema = z
   .object({

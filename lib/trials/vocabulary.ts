@@ -22,13 +22,14 @@ export const TRIAL_TRANSITIONS: Record<TrialStatus, TrialStatus[]> = {
 };
 
 /** The factors the plan helper varies. */
-export const TRIAL_FACTORS = ['sugar_ratio', 'acid_dose', 'pectin_dose'] as const;
+export const TRIAL_FACTORS = ['sugar_ratio', 'acid_dose', 'pectin_dose', 'target_solids'] as const;
 export type TrialFactor = (typeof TRIAL_FACTORS)[number];
 
 export const FACTOR_LABELS: Record<TrialFactor, { name: string; unit: string; help: string }> = {
   sugar_ratio: { name: 'Sugar ratio', unit: 'g sweetener per g fruit', help: 'All sweetener lines together, scaled to this multiple of the fruit mass.' },
   acid_dose: { name: 'Acid dose', unit: 'g per kg fruit', help: 'All acid lines together, scaled to this many grams per kilogram of fruit.' },
   pectin_dose: { name: 'Pectin dose', unit: 'g per kg fruit', help: 'All pectin lines together, scaled to this many grams per kilogram of fruit.' },
+  target_solids: { name: 'Target soluble solids', unit: '°Brix', help: 'The soluble solids the batch is boiled to; the lines stay as they are.' },
 };
 
 /** A small scale of our own for the cold-plate, spoon and flake set tests. */

@@ -117,6 +117,12 @@ export const TRIALS_ROUTE_CASES: RouteCase[] = [
 
 export const TRIALS_ACTION_CASES: ActionCase[] = [
   { action: 'lib/trials/actions.ts#createTrialAction', allowed: WRITE, otherWorkspace: 422, argsAsync: async (a) => [{ title: 'Matrix', question: 'Q', formulaId: await createFixtureFormula(a) }] },
+  {
+    action: 'lib/trials/actions.ts#createProposalTrialAction',
+    allowed: WRITE,
+    otherWorkspace: 422,
+    argsAsync: async (a) => [{ formulaId: await createFixtureFormula(a), title: 'Matrix proposal', question: 'Q', points: [{ sugarRatio: 0.9, targetSolidsPct: 62 }] }],
+  },
   { action: 'lib/trials/actions.ts#transitionTrialAction', allowed: WRITE, otherWorkspace: 404, argsAsync: async (a) => [(await trialWithVariants(a)).trialId, { to: 'cooking' }] },
   {
     action: 'lib/trials/actions.ts#planVariantsAction',

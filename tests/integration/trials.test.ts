@@ -80,6 +80,29 @@ describe('planning variants', () => {
     expect(wider.body).toMatchObject({ created: ['D'], skipped: ['B', 'C'] });
   });
 
+  it('a face-centred central composite over sugar ratio and target soluble solids adds its replicated centre runs once', async () => {
+    const trialId = await newTrial();
+    const body = { kind: 'central_composite_face_centred', factors: [{ factor: 'sugar_ratio', low: 0.8, high: 1.0 }, { factor: 'target_solids', low: 58, high: 64 }], centreRuns: 3 };
+    const first = await callRoute(planRoute.POST, { method: 'POST', path: '', caller: dev(), params: { trialId }, body });
+    expect(first.status, JSON.stringify(first.body)).toBe(201);
+    // 4 corners + 4 face runs + 3 centre runs (Montgomery ch. 11, CCD for k = 2 (memory)).
+    expect(first.body.created).toHaveLength(11);
+    const t = await overview(trialId);
+    const added = t.variants.slice(1);
+    expect(added.map((v: any) => v.settings.targetSolidsPct)).toEqual([58, 58, 64, 64, 61, 61, 58, 64, 61, 61, 61]);
+    expect(added.slice(8).map((v: any) => v.description)).toEqual(['centre point (1 of 3)', 'centre point (2 of 3)', 'centre point (3 of 3)']);
+    // Target solids is a setting: the corners at the same sugar ratio share their lines.
+    const sugarOf = (v: any) => v.lines.find((l: any) => l.ingredient.kind === 'sweetener').quantity;
+    expect(sugarOf(added[0])).toBeCloseTo(sugarOf(added[2]), 9);
+    const again = await callRoute(planRoute.POST, { method: 'POST', path: '', caller: dev(), params: { trialId }, body });
+    expect(again.status).toBe(422);
+    expect((await overview(trialId)).variants).toHaveLength(12);
+    // Five centre runs where three exist: two more replicates.
+    const more = await callRoute(planRoute.POST, { method: 'POST', path: '', caller: dev(), params: { trialId }, body: { ...body, centreRuns: 5 } });
+    expect(more.status, JSON.stringify(more.body)).toBe(201);
+    expect(more.body.created).toEqual(['M', 'N']);
+  });
+
   it('refuses a factor the base formula cannot carry, and writes nothing', async () => {
     const trialId = await newTrial();
     const before = (await overview(trialId)).variants.length;

@@ -1,5 +1,6 @@
 'use client';
 
+import type { ReactNode } from 'react';
 import type { OverallComplianceStatus, UnitPreference } from '@/lib/chemistry';
 import type { ComputeOutcome } from '@/lib/formulas/compute';
 import { showMass, showNumber, showTemperature, type TemperatureUnit } from '../editor-state';
@@ -28,12 +29,15 @@ export function KeyResultsBar({
   massUnits,
   temperatureUnit,
   resultsAnchor,
+  children,
 }: {
   outcome: ComputeOutcome | null;
   massUnits: UnitPreference;
   temperatureUnit: TemperatureUnit;
   /** The id of the full results panel, linked from the bar. */
   resultsAnchor: string;
+  /** More key figures under the chemistry's (the predictions from the family's model). */
+  children?: ReactNode;
 }) {
   const c = outcome?.ok ? outcome.computation : null;
   return (
@@ -57,6 +61,7 @@ export function KeyResultsBar({
       ) : (
         <p className="text-xs text-rind-600">{outcome && !outcome.ok ? outcome.message : 'Results appear here as you type the lines.'}</p>
       )}
+      {children}
       <a href={`#${resultsAnchor}`} className="mt-1 inline-flex min-h-8 items-center text-xs font-semibold text-damson-700 underline underline-offset-2">
         All results and cautions
       </a>

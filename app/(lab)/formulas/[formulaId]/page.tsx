@@ -9,6 +9,7 @@ import { ResultsPanel } from '@/components/formulas/ResultsPanel';
 import { FormulaPrintSheet } from '@/components/formulas/FormulaPrintSheet';
 import { editorCostBasis } from '@/lib/costs/queries';
 import { packFormatOfFormulas } from '@/lib/pricing/queries';
+import { editorModels } from '@/lib/modelling/editor-models';
 
 export const dynamic = 'force-dynamic';
 export const metadata = { title: 'Formula' };
@@ -18,14 +19,15 @@ export default async function FormulaPage({ params }: { params: Promise<{ formul
   const writer = can(actor.role, 'formulas.write');
   const formulaId = pageId((await params).formulaId);
   // Every read at once, each on its own forked EntityManager: the formula (a 404 decides the page),
-  // and for writers the library, the prices and the formula's pack format (all workspace-scoped,
-  // so a formula of another workspace reveals nothing through them).
+  // and for writers the library, the prices, the formula's pack format and the family models (all
+  // workspace-scoped, so a formula of another workspace reveals nothing through them).
   const prices = writer && can(actor.role, 'prices.read');
-  const [formula, fullLibrary, costBasis, packFormats] = await Promise.all([
+  const [formula, fullLibrary, costBasis, packFormats, models] = await Promise.all([
     orNotFound(getFormula(actor, formulaId)),
     writer ? listIngredients(actor, { archived: 'include' }) : Promise.resolve([]),
     prices ? editorCostBasis(actor) : Promise.resolve(null),
     prices ? packFormatOfFormulas(actor.workspaceId, [formulaId]) : Promise.resolve(null),
+    writer && can(actor.role, 'trials.read') ? editorModels(actor) : Promise.resolve([]),
   ]);
   const c = formula.current;
 
@@ -62,6 +64,7 @@ export default async function FormulaPage({ params }: { params: Promise<{ formul
         massUnits={actor.massUnits}
         temperatureUnit={actor.temperatureUnit}
         cost={cost}
+        models={models}
       />
     </>
   );

@@ -3,13 +3,15 @@ import { listIngredients } from '@/lib/ingredients/queries';
 import { FormulaEditor } from '@/components/formulas/FormulaEditor';
 import { PageHeader } from '@/components/ui/Card';
 import { todayIso } from '@/lib/format/dates';
+import { can } from '@/lib/permissions';
+import { editorModels } from '@/lib/modelling/editor-models';
 
 export const dynamic = 'force-dynamic';
 export const metadata = { title: 'New formula' };
 
 export default async function NewFormulaPage() {
   const actor = await requirePage('formulas.write');
-  const ingredients = await listIngredients(actor);
+  const [ingredients, models] = await Promise.all([listIngredients(actor), can(actor.role, 'trials.read') ? editorModels(actor) : Promise.resolve([])]);
   return (
     <>
       <PageHeader title="New formula" lead="Pick ingredients from your library; the results update as you type. Saving creates revision 1." />
@@ -19,6 +21,7 @@ export default async function NewFormulaPage() {
         massUnits={actor.massUnits}
         temperatureUnit={actor.temperatureUnit}
         defaults={{ ruleDate: todayIso(), targetSolidsPct: 65, jarNetFillG: 340 }}
+        models={models}
       />
     </>
   );

@@ -24,11 +24,11 @@ import { formatDate, formatDateTime } from '@/lib/format/dates';
 export const dynamic = 'force-dynamic';
 export const metadata = { title: 'Trial' };
 
-function baseLevelsOf(lines: MassLine[]): Record<TrialFactor, number | null> {
+function baseLevelsOf(lines: MassLine[], settings: { targetSolidsPct: number }): Record<TrialFactor, number | null> {
   return Object.fromEntries(
     TRIAL_FACTORS.map((f) => {
       try {
-        const v = measureFactor(lines, f);
+        const v = measureFactor(lines, f, settings);
         return [f, v > 0 || f === 'sugar_ratio' ? v : null];
       } catch {
         return [f, null];
@@ -76,7 +76,7 @@ export default async function TrialPage({ params }: { params: Promise<{ trialId:
             <VariantsTable trialId={trial.id} variants={trial.variants} massUnits={actor.massUnits} temperatureUnit={actor.temperatureUnit} costPerJar={costPerJar} />
             <p className="mt-2 text-xs text-rind-500">Measured values are coloured against their prediction: green within tolerance, amber worth a look, red out of window; a red block means a food-safety limit.</p>
           </section>
-          {editable ? <PlanHelper trialId={trial.id} baseLevels={baseLevelsOf(baseMass)} /> : canEdit ? (
+          {editable ? <PlanHelper trialId={trial.id} baseLevels={baseLevelsOf(baseMass, base.settings)} /> : canEdit ? (
             <p className="text-sm text-rind-600">Variants are fixed while the trial is “{TRIAL_STATUS_LABELS[trial.status]}”. Move it back to “{TRIAL_STATUS_LABELS.cooking}” to change them.</p>
           ) : null}
           <section aria-labelledby="panels-title" className="rounded-card bg-pith-50 p-5 ring-1 ring-pith-300">

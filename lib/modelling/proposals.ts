@@ -1,0 +1,276 @@
+/**
+ * From goals to formulas: the optimiser (lib/models/optimise.ts, Derringer–Suich desirability) over a
+ * family model, with the constraints a developer states — the rule set's fruit minimum, the pH
+ * window, sugar-ratio and soluble-solids ranges (reduced-sugar work) — and each proposal written
+ * back into the base formula's own lines. PURE: the proposal screen runs it in the browser and the
+ * trial action runs formulaAtPoint() on the server to build the variants.
+ *
+ * A cost ceiling per jar is not offered: the cost needs the day's prices of every line (lib/costing)
+ * and the pack format, which the optimiser's pure search does not have; the trial's variants show
+ * their cost per jar once created.
+ */
+import { RULES, type BatchComputation } from '@/lib/chemistry';
+import { computeFormula } from '@/lib/formulas/compute';
+import type { FormulaSettingsInput, RevisionLine } from '@/lib/formulas/schema';
+import { ModelSpecError, optimise, predictResponse, windowConstraint, type Constraint, type Goal, type Interval } from '@/lib/models';
+import { FACTOR_INFO, type FamilyModel, type ModelFactor, type ResponseKey } from './schema';
+
+export interface ProposalBase {
+  settings: FormulaSettingsInput;
+  lines: RevisionLine[];
+}
+
+export type FormulaAtPoint =
+  | { ok: true; settings: FormulaSettingsInput; lines: RevisionLine[]; computation: BatchComputation }
+  | { ok: false; message: string };
+
+type ScaledKind = 'sweetener' | 'pectin' | 'acid';
+
+interface KindTotals {
+  massG: number;
+  solidsG: number;
+  /** Acid as citric acid (each line's acidity; a powder without one counts whole). */
+  citricG: number;
+}
+
+export interface PointSolver {
+  /** Finished mass and the new total of each scaled kind at a point; null when the point cannot be made. */
+  at(point: Partial<Record<ModelFactor, number>>): { finishedMassG: number; fruitPer1000g: number; totals: Record<ScaledKind, number> } | null;
+}
+
+/**
+ * The mass balance solved for a point, without iterating: the finished mass is the soluble solids
+ * over the target (lib/chemistry/mass-balance.ts), and pectin and acid are shares of that mass, so
+ * F = (fixed solids + r·fruit·σ_sweetener) / (t − p·σ_pectin − a·σ_acid/acidity). Lines of one kind
+ * keep their proportions. Cheap enough for every step of the optimiser's search.
+ */
+export function pointSolver(base: ProposalBase): PointSolver | string {
+  const outcome = computeFormula(base.settings, base.lines);
+  if (!outcome.ok) return outcome.message;
+  const mb = outcome.computation.massBalance;
+  const fruit = mb.fruitMassG;
+  if (!(fruit > 0)) return 'The base formula has no fruit line.';
+  const totals: Record<ScaledKind | 'other', KindTotals> = { sweetener: { massG: 0, solidsG: 0, citricG: 0 }, pectin: { massG: 0, solidsG: 0, citricG: 0 }, acid: { massG: 0, solidsG: 0, citricG: 0 }, other: { massG: 0, solidsG: 0, citricG: 0 } };
+  for (const l of mb.lines) {
+    const kind = l.ingredient.kind === 'sweetener' || l.ingredient.kind === 'pectin' || l.ingredient.kind === 'acid' ? l.ingredient.kind : 'other';
+    totals[kind].massG += l.massG;
+    totals[kind].solidsG += l.solidsG;
+    if (kind === 'acid') totals.acid.citricG += (l.massG * (l.ingredient.acidPct ?? 100)) / 100;
+  }
+  const perGram = (k: ScaledKind) => (totals[k].massG > 0 ? totals[k].solidsG / totals[k].massG : 0);
+  return {
+    at(point: Partial<Record<ModelFactor, number>>) {
+      const t = (point.targetSolidsPct ?? base.settings.targetSolidsPct) / 100;
+      let fixed = totals.other.solidsG;
+      let shares = 0;
+      const sweetener = point.sugarRatio !== undefined ? point.sugarRatio * fruit : totals.sweetener.massG;
+      if (sweetener > 0 && totals.sweetener.massG <= 0) return null;
+      fixed += sweetener * perGram('sweetener');
+      if (point.pectinPct !== undefined) {
+        if (point.pectinPct > 0 && totals.pectin.massG <= 0) return null;
+        shares += (point.pectinPct / 100) * perGram('pectin');
+      } else fixed += totals.pectin.solidsG;
+      const acidity = totals.acid.massG > 0 ? totals.acid.citricG / totals.acid.massG : 0;
+      if (point.acidPct !== undefined) {
+        if (point.acidPct > 0 && !(acidity > 0)) return null;
+        if (point.acidPct > 0) shares += ((point.acidPct / 100) * perGram('acid')) / acidity;
+      } else fixed += totals.acid.solidsG;
+      const denominator = t - shares;
+      if (!(denominator > 0) || !(fixed > 0)) return null;
+      const finishedMassG = fixed / denominator;
+      return {
+        finishedMassG,
+        fruitPer1000g: (fruit / finishedMassG) * 1000,
+        totals: {
+          sweetener,
+          pectin: point.pectinPct !== undefined ? (point.pectinPct / 100) * finishedMassG : totals.pectin.massG,
+          acid: point.acidPct !== undefined ? (acidity > 0 ? ((point.acidPct / 100) * finishedMassG) / acidity : 0) : totals.acid.massG,
+        },
+      };
+    },
+  };
+}
+
+/**
+ * The base formula moved to a point of the model's factors: sweetener lines scaled to the sugar
+ * ratio, the target soluble solids set, pectin and acid lines scaled to their share of the finished
+ * product (acid counted as citric acid, as the features count it). Fruit and every other line stay.
+ */
+export function formulaAtPoint(base: ProposalBase, point: Partial<Record<ModelFactor, number>>, solver?: PointSolver): FormulaAtPoint {
+  const solved = solver ?? pointSolver(base);
+  if (typeof solved === 'string') return { ok: false, message: solved };
+  const at = solved.at(point);
+  if (!at) return { ok: false, message: 'This combination cannot be made from the base formula: a line it needs is missing, or the pectin or acid share is out of reach at this soluble solids.' };
+  const settings = { ...base.settings, ...(point.targetSolidsPct !== undefined ? { targetSolidsPct: point.targetSolidsPct } : {}) };
+  const first = computeFormula(base.settings, base.lines);
+  if (!first.ok) return { ok: false, message: first.message };
+  // In grams from here on, so "% of fruit" lines scale like the rest.
+  const grams = base.lines.map((l, i) => ({ ...l, quantity: first.computation.massBalance.lines[i].massG, unit: 'g' as const }));
+  const current = (kind: ScaledKind) => grams.filter((l) => l.ingredient.kind === kind).reduce((sum, l) => sum + l.quantity, 0);
+  const factor = { sweetener: at.totals.sweetener / current('sweetener'), pectin: at.totals.pectin / current('pectin'), acid: at.totals.acid / current('acid') };
+  const lines = grams.map((l) => {
+    const kind = l.ingredient.kind;
+    return kind === 'sweetener' || kind === 'pectin' || kind === 'acid' ? { ...l, quantity: l.quantity * factor[kind] } : l;
+  });
+  if (lines.some((l) => !(l.quantity > 0))) return { ok: false, message: 'This combination would leave a line of the base formula at nothing; take that line out of the formula first.' };
+  const outcome = computeFormula(settings, lines);
+  if (!outcome.ok) return { ok: false, message: outcome.message };
+  return { ok: true, settings, lines, computation: outcome.computation };
+}
+
+export interface FruitMinimum {
+  /** g fruit per 1000 g of finished product. */
+  value: number;
+  /** Where the figure comes from, in words. */
+  basis: string;
+}
+
+const PER_1000G = 'fruit_per_1000g_finished';
+
+/**
+ * The fruit minimum of the formula's rule set, from its own compliance check. Where the product class
+ * has none (a reduced-sugar spread under the EU rules), the jam minimum of the same rule set is
+ * offered as the benchmark, said so; null where the rule is a ratio to sweetener (US), not per 1000 g.
+ */
+export function fruitMinimumOf(base: ProposalBase): FruitMinimum | null {
+  const own = computeFormula(base.settings, base.lines);
+  const find = (computation: BatchComputation) =>
+    computation.compliance.results.find((r) => r.requiredValue !== null && RULES.find((rule) => rule.id === r.ruleId)?.metric === PER_1000G);
+  if (!own.ok) return null;
+  const rule = find(own.computation);
+  if (rule) return { value: rule.requiredValue!, basis: `${rule.title} (${rule.source})` };
+  const asJam = computeFormula({ ...base.settings, productClass: 'jam' }, base.lines);
+  const jam = asJam.ok ? find(asJam.computation) : undefined;
+  return jam ? { value: jam.requiredValue!, basis: `No fruit minimum for this product class in the rule set; the jam minimum is the benchmark: ${jam.title} (${jam.source})` } : null;
+}
+
+export interface GoalInput {
+  response: ResponseKey;
+  goal: Goal;
+  importance: number;
+}
+
+export interface ProposalRequest {
+  factors: Array<{ name: ModelFactor; low: number; high: number }>;
+  goals: GoalInput[];
+  fruitMinimumPer1000g?: number;
+  ph?: { low: number; high: number };
+  proposals?: number;
+}
+
+export interface ProposedResponse {
+  key: ResponseKey;
+  name: string;
+  unit: string;
+  decimals: number;
+  estimate: number;
+  prediction: Interval | null;
+  desirability: number;
+}
+
+export interface ProposedFormula {
+  point: Record<ModelFactor, number>;
+  desirability: number;
+  responses: ProposedResponse[];
+  fruitPer1000g: number;
+  /** Predicted measured pH, when the family has a pH model. */
+  ph: { estimate: number; prediction: Interval | null } | null;
+}
+
+export interface ProposalOutcome {
+  proposals: ProposedFormula[];
+  message: string | null;
+  /** What the search could not hold to, in words (no pH model, for instance). */
+  notes: string[];
+}
+
+const PH_KEY: ResponseKey = 'lab:measuredPh';
+
+/** The best formulas inside the data's region for the goals and constraints; the request is checked first. */
+export function proposeFormulas(model: FamilyModel, base: ProposalBase, request: ProposalRequest): ProposalOutcome {
+  const notes: string[] = [];
+  for (const f of request.factors) {
+    if (!Number.isFinite(f.low) || !Number.isFinite(f.high) || !(f.high > f.low)) {
+      throw new ModelSpecError(`The lowest ${FACTOR_INFO[f.name].name.toLowerCase()} must be below the highest.`);
+    }
+  }
+  const goals = request.goals.map((g) => {
+    const response = model.responses.find((r) => r.key === g.response);
+    if (!response) throw new ModelSpecError('A goal names a response the family has no model for.');
+    if (!Number.isFinite(g.importance) || g.importance <= 0) throw new ModelSpecError(`The importance of ${response.name} must be above 0.`);
+    return { name: response.name, surface: response.surface, goal: g.goal, importance: g.importance, response };
+  });
+  const constraints: Constraint[] = [];
+  const solver = pointSolver(base);
+  if (typeof solver === 'string') throw new ModelSpecError(solver);
+  const fruitOf = (point: Readonly<Record<string, number>>) => solver.at(point)?.fruitPer1000g ?? Number.NaN;
+  // A point the base formula cannot be moved to is no proposal.
+  constraints.push(windowConstraint('formula can be made', (p) => (solver.at(p) ? 0 : Number.NaN), { low: 0 }));
+  if (request.fruitMinimumPer1000g !== undefined) {
+    constraints.push(windowConstraint('fruit minimum', fruitOf, { low: request.fruitMinimumPer1000g }));
+  }
+  const phModel = model.responses.find((r) => r.key === PH_KEY);
+  if (request.ph) {
+    if (!(request.ph.high > request.ph.low)) throw new ModelSpecError('The lowest pH must be below the highest.');
+    if (phModel) {
+      constraints.push(windowConstraint('pH window', (p) => {
+        const prediction = predictResponse(phModel.surface, p);
+        return prediction.inRegion ? prediction.estimate : Number.NaN;
+      }, request.ph));
+    } else {
+      notes.push('This family has no model of measured pH yet, so the pH window could not be held to: measure the pH of every cook of the proposal.');
+    }
+  }
+  const result = optimise({ factors: request.factors, goals, constraints, proposals: request.proposals ?? 3 });
+  const proposals = result.proposals.map((p): ProposedFormula => {
+    const ph = phModel ? predictResponse(phModel.surface, p.point) : null;
+    return {
+      point: p.point as Record<ModelFactor, number>,
+      desirability: p.desirability,
+      responses: p.responses.map((r, i) => ({
+        key: goals[i].response.key,
+        name: r.name,
+        unit: goals[i].response.unit,
+        decimals: goals[i].response.decimals,
+        estimate: r.estimate,
+        prediction: r.prediction,
+        desirability: r.desirability,
+      })),
+      fruitPer1000g: fruitOf(p.point),
+      ph: ph && ph.inRegion ? { estimate: ph.estimate, prediction: ph.prediction } : null,
+    };
+  });
+  return { proposals, message: result.message, notes };
+}
+
+/**
+ * A few points around a proposal for the trial: each factor one step (a tenth of its allowed range)
+ * down and up with the others held, kept only where every model still predicts (inside the data's
+ * region) and the formula can be made; at most `count`.
+ */
+export function pointsAround(
+  model: FamilyModel,
+  base: ProposalBase,
+  proposal: Record<ModelFactor, number>,
+  ranges: ReadonlyArray<{ name: ModelFactor; low: number; high: number }>,
+  count = 4,
+): Array<Record<ModelFactor, number>> {
+  const around: Array<Record<ModelFactor, number>> = [];
+  for (const range of ranges) {
+    for (const sign of [-1, 1]) {
+      if (around.length >= count) return around;
+      const point = { ...proposal, [range.name]: proposal[range.name] + (sign * (range.high - range.low)) / 10 };
+      const inside = model.responses.every((r) => predictResponse(r.surface, point).inRegion);
+      if (inside && point[range.name] >= 0 && formulaAtPoint(base, point).ok) around.push(point);
+    }
+  }
+  return around;
+}
+
+/** "sugar ratio 0.36, target soluble solids 45.0 %, …" for a variant's description. */
+export function describePoint(point: Partial<Record<ModelFactor, number>>): string {
+  return (Object.keys(FACTOR_INFO) as ModelFactor[])
+    .filter((f) => point[f] !== undefined)
+    .map((f) => `${FACTOR_INFO[f].name.toLowerCase()} ${point[f]!.toFixed(FACTOR_INFO[f].decimals)}`)
+    .join(', ');
+}

@@ -1,0 +1,34 @@
+import { describe, expect, it } from 'vitest';
+import { fitResponseSurface, leverageAt } from '@/lib/models';
+import { outsideReason } from '@/lib/modelling/editor-predictions';
+
+// Runs along a diagonal band: sugar ratio and pectin rose together in the trials.
+const band = [
+  [0.3, 0.4], [0.32, 0.44], [0.35, 0.5], [0.38, 0.56], [0.4, 0.6], [0.42, 0.64], [0.45, 0.7], [0.48, 0.76], [0.5, 0.8],
+  [0.31, 0.43], [0.36, 0.5], [0.44, 0.67], [0.49, 0.77],
+];
+const surface = fitResponseSurface({
+  factors: ['sugarRatio', 'pectinPct'],
+  kind: 'two_factor_interactions',
+  runs: band.map(([s, p], i) => ({ point: { sugarRatio: s, pectinPct: p }, response: 3 + 2 * p + s + 0.05 * Math.sin(i) })),
+});
+
+describe('why the editor withdraws a prediction, in words', () => {
+  it('inside the data it gives no reason', () => {
+    expect(outsideReason(surface, { sugarRatio: 0.4, pectinPct: 0.6 })).toBeNull();
+  });
+
+  it('names the factor, its value and the range the trials covered when a factor leaves the box', () => {
+    expect(outsideReason(surface, { sugarRatio: 0.4, pectinPct: 0.95 })).toBe(
+      'Pectin at 0.950 % of finished product is above anything the trials covered (0.400 to 0.800 % of finished product), so the model cannot say.',
+    );
+    expect(outsideReason(surface, { sugarRatio: 0.2, pectinPct: 0.6 })).toMatch(/^Sugar ratio at 0\.200 g sweetener per g fruit is below anything the trials covered/);
+  });
+
+  it('names the leverage test for a combination unlike the trials though each factor is in range', () => {
+    // Low sugar with high pectin: both inside their ranges, far off the band.
+    const point = { sugarRatio: 0.3, pectinPct: 0.8 };
+    expect(leverageAt(surface, point)).toBeGreaterThan(surface.fit.basis.maxLeverage);
+    expect(outsideReason(surface, point)).toMatch(/^Each factor is within what the trials covered, but not in this combination: .*\(leverage test\)/);
+  });
+});
