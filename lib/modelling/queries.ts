@@ -1,3 +1,4 @@
+import 'server-only';
 /**
  * Reads for modelling: the data set of a product family (or of chosen trials), the fitted family
  * model, and the family of a formula. Every read is scoped to the caller's workspace; the callers

@@ -20,6 +20,12 @@ const library: IngredientView[] = LIBRARY.map((v) =>
       : v);
 
 const type = (label: string, value: string) => fireEvent.change(screen.getByLabelText(label), { target: { value } });
+/** The picker takes focus before it opens (it builds its list then), as with Tab or a tap. */
+function pick(line: number, id: string) {
+  const picker = screen.getByLabelText(`Line ${line}: ingredient`);
+  fireEvent.focus(picker);
+  fireEvent.change(picker, { target: { value: id } });
+}
 const liveRow = (header: string) => {
   const eu = within(document.getElementById('live-label')!).getByRole('region', { name: 'EU nutrition declaration' });
   return within(eu).getByRole('rowheader', { name: header }).closest('tr')!.textContent ?? '';
@@ -31,7 +37,7 @@ describe('the live label in the formula editor', () => {
     expect(screen.getByText('The label appears once the formula has results.')).toBeTruthy();
     type('Target final soluble solids (%)', '65');
     [IDS.fruit, IDS.sugar].forEach(() => fireEvent.click(screen.getByRole('button', { name: 'Add line' })));
-    [IDS.fruit, IDS.sugar].forEach((id, i) => fireEvent.change(screen.getByLabelText(`Line ${i + 1}: ingredient`), { target: { value: id } }));
+    [IDS.fruit, IDS.sugar].forEach((id, i) => pick(i + 1, id));
     type('Line 1: quantity', '1000');
     type('Line 2: quantity', '1000');
     const live = document.getElementById('live-label')!;
@@ -49,7 +55,7 @@ describe('the live label in the formula editor', () => {
     render(<FormulaEditor mode="create" ingredients={library} massUnits="metric" temperatureUnit="C" />);
     type('Target final soluble solids (%)', '65');
     [IDS.fruit, IDS.sugar, IDS.pectin].forEach(() => fireEvent.click(screen.getByRole('button', { name: 'Add line' })));
-    [IDS.fruit, IDS.sugar, IDS.pectin].forEach((id, i) => fireEvent.change(screen.getByLabelText(`Line ${i + 1}: ingredient`), { target: { value: id } }));
+    [IDS.fruit, IDS.sugar, IDS.pectin].forEach((id, i) => pick(i + 1, id));
     type('Line 1: quantity', '1000');
     type('Line 2: quantity', '1000');
     type('Line 3: quantity', '10');
