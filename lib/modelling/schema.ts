@@ -193,12 +193,14 @@ export const trialIdsSchema = z
   .max(MAX_SELECTED_TRIALS, `Choose at most ${MAX_SELECTED_TRIALS} trials.`);
 
 /** Fit options shared by the page and the API. */
-export const fitOptionsSchema = z.object({
-  factors: factorListSchema.optional(),
-  kind: modelKindSchema.optional(),
-  /** Only these trials of the family (else every trial of the family). */
-  trialIds: trialIdsSchema.optional(),
-});
+export const fitOptionsSchema = z
+  .object({
+    factors: factorListSchema.optional(),
+    kind: modelKindSchema.optional(),
+    /** Only these trials of the family (else every trial of the family). */
+    trialIds: trialIdsSchema.optional(),
+  })
+  .strict();
 export type FitOptions = z.infer<typeof fitOptionsSchema>;
 
 /* ---------- the fitted family model ---------- */

@@ -29,7 +29,7 @@ describe.each(people.flatMap((person) => WINDOWS.map(([size, viewport]) => ({ pe
     await page.getByRole('heading', { name: 'Overall liking: full quadratic' }).waitFor();
     for (const id of ['model-dataset', 'model-coefficients', 'model-anova', 'model-history']) await page.getByTestId(id).waitFor();
     await page.getByTestId('residuals-fitted').locator('canvas').waitFor();
-    await page.getByTestId('contour-plot').locator('canvas').waitFor();
+    await page.getByTestId('contour-plot').getByRole('img', { name: /^Predicted / }).waitFor();
     expect(await page.getByTestId('model-history').locator('tbody tr').count()).toBe(4);
     await walk.stop('model');
 
@@ -41,7 +41,7 @@ describe.each(people.flatMap((person) => WINDOWS.map(([size, viewport]) => ({ pe
     await form.getByRole('button', { name: 'Fit' }).click();
     await page.getByRole('heading', { name: 'Set firmness: full quadratic' }).waitFor();
     expect(new URL(page.url()).searchParams.get('x')).toBe('pectinPct');
-    await page.getByTestId('contour-plot').locator('canvas').waitFor();
+    await page.getByTestId('contour-plot').getByRole('img', { name: /^Predicted / }).waitFor();
     await walk.stop('firmness-contour');
 
     const dataset = await page.request.get(await page.getByRole('link', { name: 'Download the data set (CSV)' }).getAttribute('href') ?? '');
