@@ -113,7 +113,7 @@ describe.each(WINDOWS)('predictions and a proposed formula (%s)', (size, viewpor
 
     await best.getByRole('button', { name: 'Make a trial of this proposal' }).click();
     // The trial page, or the action's refusal named (a clearer failure than a timeout).
-    const refused = page.locator('[role="alert"]');
+    const refused = page.locator('section[aria-labelledby="proposals-title"] [role="alert"]');
     await Promise.race([page.waitForURL(/\/trials\/[0-9a-f-]{36}$/, { timeout: 60_000 }), refused.first().waitFor({ timeout: 60_000 })]);
     if (!/\/trials\//.test(page.url())) throw new Error(`no trial: ${await refused.first().textContent()}`);
     const variants = page.getByTestId('variants-table');
