@@ -10,6 +10,9 @@ import type { EditorComputation, LineDraft } from './editor-state';
 
 export const PREDICTIONS_ANCHOR = 'formula-predictions';
 
+/** Sensory attributes by their library key, in the order the phone's bar shows them. */
+const FIRST_SHOWN = ['overall-liking', 'set-firmness', 'tartness'];
+
 export interface PredictionInputs {
   /** The workspace's fitted family models (the page reads them once; nothing is fetched while typing). */
   models: readonly FamilyModel[];
@@ -115,13 +118,15 @@ function PanelBody({ prediction }: { prediction: EditorPrediction }) {
 export function PredictionSummary(props: PredictionInputs) {
   const prediction = useFormulaPrediction(props);
   if (prediction.state !== 'ready') return null;
-  const shown = prediction.responses.slice(0, 2);
+  // What a developer checks first: liking and the set, then the rest in the model's order.
+  const rank = (key: string | null) => { const i = FIRST_SHOWN.indexOf(key ?? ''); return i < 0 ? FIRST_SHOWN.length : i; };
+  const shown = [...prediction.responses].sort((a, b) => rank(a.response.libraryKey) - rank(b.response.libraryKey)).slice(0, 2);
   return (
     <p className="mt-1 truncate text-xs" data-testid="prediction-summary">
       <a href={`#${PREDICTIONS_ANCHOR}`} className="font-semibold text-damson-700 underline underline-offset-2">Predicted</a>{' '}
       {prediction.outside
         ? <span className="text-amberline-700">none: outside the trials</span>
-        : shown.map((r) => `${r.response.name.toLowerCase()} ${r.value.inRegion ? fixed(r.value.estimate, r.response.decimals) : '–'}`).join(' · ')}
+        : shown.map((r) => `${r.response.name} ${r.value.inRegion ? fixed(r.value.estimate, r.response.decimals) : '–'}`).join(' · ')}
     </p>
   );
 }

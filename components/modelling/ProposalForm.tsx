@@ -45,7 +45,7 @@ export function ProposalForm({ model, base, formulaId, formulaName, fruitMinimum
   const [errors, setErrors] = useState<Record<string, string>>({});
   const [result, setResult] = useState<{ outcome: ProposalOutcome; request: ProposalRequest } | null>(null);
   const [searchError, setSearchError] = useState<string>();
-  const { pending, error: trialError, run } = useFormAction(createProposalTrialAction);
+  const { pending, error: trialError, fields: trialFields, run } = useFormAction(createProposalTrialAction);
 
   const setGoal = (key: string, patch: Partial<GoalDraft>) => setDraft((d) => ({ ...d, goals: { ...d.goals, [key]: { ...d.goals[key], ...patch } } }));
   const setFactor = (name: ModelFactor, side: 'low' | 'high', value: string) => setDraft((d) => ({ ...d, factors: { ...d.factors, [name]: { ...d.factors[name], [side]: value } } }));
@@ -74,7 +74,8 @@ export function ProposalForm({ model, base, formulaId, formulaName, fruitMinimum
       formulaId,
       title: `Proposal for ${formulaName}`.slice(0, 160),
       question: `Does the proposed formula (${describePoint(proposal.point)}) give the predicted result, and how do the points around it compare?`,
-      points: [proposal.point, ...around],
+      // Plain objects: the optimiser's points have no prototype, which a server action cannot receive.
+      points: [proposal.point, ...around].map((point) => ({ ...point })),
     });
     if (res?.ok) router.push(`/trials/${res.data.trialId}`);
   }
@@ -187,7 +188,7 @@ export function ProposalForm({ model, base, formulaId, formulaName, fruitMinimum
               ) : null}
             </article>
           ))}
-          {trialError ? <Notice tone="danger">{trialError}</Notice> : null}
+          {trialError ? <Notice tone="danger">{trialError} {Object.values(trialFields).flat().join(' ')}</Notice> : null}
           <p className="text-xs text-rind-500">The trial gets the base formula as variant A, the proposal as B and up to four points around it (one factor a tenth of its range down or up), each inside what the trials covered.</p>
         </section>
       ) : null}

@@ -18,7 +18,7 @@ export type PredictedValue =
   | { inRegion: false; reason: string };
 
 export interface ResponsePredictionView {
-  response: Pick<ResponseModel, 'key' | 'name' | 'unit' | 'decimals' | 'scale'>;
+  response: Pick<ResponseModel, 'key' | 'name' | 'unit' | 'decimals' | 'scale' | 'libraryKey'>;
   value: PredictedValue;
 }
 
@@ -72,7 +72,7 @@ export function predictForFormula(
     const value: PredictedValue = prediction.inRegion
       ? { inRegion: true, estimate: prediction.estimate, interval: prediction.prediction }
       : { inRegion: false, reason: outsideReason(response.surface, point) ?? 'Outside what the trials covered.' };
-    return { response: { key: response.key, name: response.name, unit: response.unit, decimals: response.decimals, scale: response.scale }, value };
+    return { response: { key: response.key, name: response.name, unit: response.unit, decimals: response.decimals, scale: response.scale, libraryKey: response.libraryKey }, value };
   });
   // One reason for the whole panel when every response is refused for the same one.
   const reasons = new Set(responses.map((r) => (r.value.inRegion ? null : r.value.reason)));

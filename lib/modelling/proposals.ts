@@ -13,7 +13,7 @@ import { RULES, type BatchComputation } from '@/lib/chemistry';
 import { computeFormula } from '@/lib/formulas/compute';
 import type { FormulaSettingsInput, RevisionLine } from '@/lib/formulas/schema';
 import { ModelSpecError, optimise, predictResponse, windowConstraint, type Constraint, type Goal, type Interval } from '@/lib/models';
-import { FACTOR_INFO, type FamilyModel, type ModelFactor, type ResponseKey } from './schema';
+import { FACTOR_INFO, type FamilyModel, type ModelFactor, type ResponseKey, type ResponseModel } from './schema';
 
 export interface ProposalBase {
   settings: FormulaSettingsInput;
@@ -186,6 +186,12 @@ export interface ProposalOutcome {
 
 const PH_KEY: ResponseKey = 'lab:measuredPh';
 
+/** The 95 % prediction interval of one new variant at a point, with the response's new-run weight. */
+function newRunInterval(response: ResponseModel, point: Readonly<Record<string, number>>): Interval | null {
+  const prediction = predictResponse(response.surface, point, response.newRunWeight === null ? {} : { newRunWeight: response.newRunWeight });
+  return prediction.inRegion ? prediction.prediction : null;
+}
+
 /** The best formulas inside the data's region for the goals and constraints; the request is checked first. */
 export function proposeFormulas(model: FamilyModel, base: ProposalBase, request: ProposalRequest): ProposalOutcome {
   const notes: string[] = [];
@@ -225,7 +231,7 @@ export function proposeFormulas(model: FamilyModel, base: ProposalBase, request:
   const proposals = result.proposals.map((p): ProposedFormula => {
     const ph = phModel ? predictResponse(phModel.surface, p.point) : null;
     return {
-      point: p.point as Record<ModelFactor, number>,
+      point: Object.fromEntries(model.factors.map((f) => [f, p.point[f]])) as Record<ModelFactor, number>,
       desirability: p.desirability,
       responses: p.responses.map((r, i) => ({
         key: goals[i].response.key,
@@ -233,7 +239,8 @@ export function proposeFormulas(model: FamilyModel, base: ProposalBase, request:
         unit: goals[i].response.unit,
         decimals: goals[i].response.decimals,
         estimate: r.estimate,
-        prediction: r.prediction,
+        // The interval of one new variant's mean: a panel mean carries its panel's weight (fit.ts).
+        prediction: newRunInterval(goals[i].response, p.point),
         desirability: r.desirability,
       })),
       fruitPer1000g: fruitOf(p.point),

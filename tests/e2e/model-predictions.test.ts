@@ -112,11 +112,14 @@ describe.each(WINDOWS)('predictions and a proposed formula (%s)', (size, viewpor
     await walk.stop('proposal');
 
     await best.getByRole('button', { name: 'Make a trial of this proposal' }).click();
-    await page.waitForURL(/\/trials\/[0-9a-f-]{36}$/, { timeout: 30_000 });
+    // The trial page, or the action's refusal named (a clearer failure than a timeout).
+    const refused = page.locator('section[aria-labelledby="proposals-title"] [role="alert"]');
+    await Promise.race([page.waitForURL(/\/trials\/[0-9a-f-]{36}$/, { timeout: 60_000 }), refused.first().waitFor({ timeout: 60_000 })]);
+    if (!/\/trials\//.test(page.url())) throw new Error(`no trial: ${await refused.first().textContent()}`);
     const variants = page.getByTestId('variants-table');
     await variants.getByText(/^Proposal: sugar ratio 0\.\d{3}, target soluble solids 4[234]\.\d/).first().waitFor();
     expect(await variants.getByText(/^Near the proposal:/).count()).toBeGreaterThanOrEqual(1);
     await walk.stop('trial-from-proposal');
     await walk.close();
-  });
+  }, 240_000);
 });

@@ -83,7 +83,7 @@ describe('PredictionPanel in the formula editor', () => {
     expect(values).toHaveLength(2);
     expect(within(panel).queryByTestId('prediction-withdrawn')).toBeNull();
     // The phone's sticky bar carries the first two, linking to the panel.
-    expect(screen.getByTestId('prediction-summary').textContent).toContain(`set firmness ${expected.estimate.toFixed(1)}`);
+    expect(screen.getByTestId('prediction-summary').textContent).toContain(`Overall liking ${(predictResponse(liking, centre) as { estimate: number }).estimate.toFixed(1)} · Set firmness ${expected.estimate.toFixed(1)}`);
   });
 
   it('withdraws every number when a keystroke takes the pectin beyond the data, and says why in plain words', () => {

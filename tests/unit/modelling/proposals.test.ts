@@ -176,3 +176,19 @@ describe('the proposal form checks goals before it searches', () => {
     expect(read.ok || read.errors.goals).toBe('State at least one goal.');
   });
 });
+
+describe('a proposal states the interval of one new variant', () => {
+  it('uses the response model\'s new-run weight (a panel mean), as the editor does', () => {
+    const weighted: FamilyModel = { ...MODEL, responses: MODEL.responses.map((r, i) => (i === 0 ? { ...r, newRunWeight: 9 } : r)) };
+    const goals = [{ response: LIKING, goal: { kind: 'maximise' as const, low: 5, high: 8 }, importance: 1 }];
+    const outcome = proposeFormulas(weighted, base, { factors: ranges, goals });
+    const p = outcome.proposals[0];
+    const expected = predictResponse(liking, p.point, { newRunWeight: 9 });
+    if (!expected.inRegion || !expected.prediction) throw new Error('should predict');
+    expect(p.responses[0].prediction!.low).toBeCloseTo(expected.prediction.low, 12);
+    expect(p.responses[0].prediction!.high).toBeCloseTo(expected.prediction.high, 12);
+    const unweighted = predictResponse(liking, p.point);
+    if (!unweighted.inRegion || !unweighted.prediction) throw new Error('should predict');
+    expect(p.responses[0].prediction!.high - p.responses[0].prediction!.low).toBeLessThan(unweighted.prediction.high - unweighted.prediction.low);
+  });
+});
