@@ -53,6 +53,7 @@ const MODEL: FamilyModel = {
     { key: 'attribute:00000000-0000-4000-8000-000000000002', name: 'Overall liking', unit: '9-point hedonic, 1–9', kind: 'sensory', decimals: 1, libraryKey: 'overall-liking', scale: { min: 1, max: 9 }, surface: liking, weighting: 'unweighted', newRunWeight: null },
   ],
   unfitted: [],
+  fruitContent: null,
   fittedAt: '2026-12-03T12:00:00.000Z',
 };
 

@@ -54,6 +54,7 @@ const MODEL: FamilyModel = {
     response('lab:measuredPh', 'Measured pH', ph, null, null),
   ],
   unfitted: [],
+  fruitContent: null,
   fittedAt: '2026-12-03T12:00:00.000Z',
 };
 const LIKING = MODEL.responses[0].key;
