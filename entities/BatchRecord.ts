@@ -3,7 +3,7 @@ import { randomUUID } from 'node:crypto';
 import { Workspace } from './Workspace';
 import { User } from './User';
 import { Product } from './Product';
-import { ProductionFormula } from './ProductionFormula';
+import { ProductVersion } from './ProductVersion';
 import { BATCH_OUTCOMES, DISPOSITIONS } from '../lib/production/vocabulary';
 import type { QcCheck } from '../lib/chemistry/qc';
 
@@ -15,7 +15,7 @@ export const BatchRecord = defineEntity({
     id: p.uuid().primary().onCreate(() => randomUUID()),
     workspace: p.manyToOne(Workspace),
     product: p.manyToOne(Product),
-    productionFormula: p.manyToOne(ProductionFormula),
+    productVersion: p.manyToOne(ProductVersion),
     lotCode: p.string().length(16),
     batchDate: p.date(),
     batchSizeG: p.double().$type<number>(),

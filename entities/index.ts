@@ -12,19 +12,19 @@ import { FormulaRevision } from './FormulaRevision';
 import { Trial } from './Trial';
 import { TrialStatusChange } from './TrialStatusChange';
 import { Variant } from './Variant';
-import { Measurement } from './Measurement';
-import { MeasurementChange } from './MeasurementChange';
+import { Cook } from './Cook';
+import { CookChange } from './CookChange';
 import { Upload } from './Upload';
 import { NotebookEntry } from './NotebookEntry';
 import { NotebookConflict } from './NotebookConflict';
 import { SensoryAttributeDef } from './SensoryAttributeDef';
-import { PanelSession } from './PanelSession';
-import { PanelSample } from './PanelSample';
-import { PanelSeat } from './PanelSeat';
-import { PanelAnswer } from './PanelAnswer';
+import { Tasting } from './Tasting';
+import { TastingSample } from './TastingSample';
+import { TastingSeat } from './TastingSeat';
+import { TastingAnswer } from './TastingAnswer';
 import { Product } from './Product';
 import { PromotionRequest } from './PromotionRequest';
-import { ProductionFormula } from './ProductionFormula';
+import { ProductVersion } from './ProductVersion';
 import { BatchRecord } from './BatchRecord';
 import { AuditEvent } from './AuditEvent';
 import { BatchDecision } from './BatchDecision';
@@ -37,9 +37,9 @@ import { PackFormatItem } from './PackFormatItem';
 
 export {
   Workspace, User, Membership, Invitation, PasswordReset, ApiToken, RateLimitBucket, Ingredient, Formula, FormulaRevision,
-  Trial, TrialStatusChange, Variant, Measurement, MeasurementChange, Upload, NotebookEntry, NotebookConflict,
-  SensoryAttributeDef, PanelSession, PanelSample, PanelSeat, PanelAnswer,
-  Product, PromotionRequest, ProductionFormula, BatchRecord, BatchDecision, AuditEvent,
+  Trial, TrialStatusChange, Variant, Cook, CookChange, Upload, NotebookEntry, NotebookConflict,
+  SensoryAttributeDef, Tasting, TastingSample, TastingSeat, TastingAnswer,
+  Product, PromotionRequest, ProductVersion, BatchRecord, BatchDecision, AuditEvent,
   CostSettings, IngredientPrice, PackagingItem, PackagingPrice, PackFormat, PackFormatItem,
 };
 export { ROLES } from './Membership';
@@ -47,8 +47,8 @@ export { ROLES } from './Membership';
 export const allEntities = [
   Workspace, User, Membership, Invitation, PasswordReset, ApiToken, RateLimitBucket,
   Ingredient, Formula, FormulaRevision,
-  Trial, TrialStatusChange, Variant, Measurement, MeasurementChange, Upload, NotebookEntry, NotebookConflict,
-  SensoryAttributeDef, PanelSession, PanelSample, PanelSeat, PanelAnswer,
-  Product, PromotionRequest, ProductionFormula, BatchRecord, BatchDecision, AuditEvent,
+  Trial, TrialStatusChange, Variant, Cook, CookChange, Upload, NotebookEntry, NotebookConflict,
+  SensoryAttributeDef, Tasting, TastingSample, TastingSeat, TastingAnswer,
+  Product, PromotionRequest, ProductVersion, BatchRecord, BatchDecision, AuditEvent,
   CostSettings, IngredientPrice, PackagingItem, PackagingPrice, PackFormat, PackFormatItem,
 ];

@@ -32,10 +32,10 @@ const GRANTS = {
   'calc.run': STAFF,
   'trials.read': ['admin', 'developer', 'head_of_product'],
   'trials.write': ['admin', 'developer'],
-  'panels.read': ['admin', 'developer', 'head_of_product'],
+  'tastings.read': ['admin', 'developer', 'head_of_product'],
   /** Response-surface models of the workspace's trials: data sets, fits, predictions, proposals. */
   'models.read': ['admin', 'developer', 'head_of_product'],
-  'panels.run': ['admin', 'developer'],
+  'tastings.run': ['admin', 'developer'],
   'promotion.read': ['admin', 'developer', 'head_of_product'],
   'promotion.request': ['admin', 'developer'],
   'promotion.decide': ['head_of_product'],

@@ -64,7 +64,7 @@ function tasterRequest(seats: Setup['seats']) {
     const seat = seats[counter++ % seats.length];
     const attributeId = setup.attributeIds[counter % setup.attributeIds.length];
     const values = setup.values[attributeId];
-    req.path = `/api/v1/tasting/${seat.token}/answers`;
+    req.path = `/api/v1/tastings/seats/${seat.token}/answers`;
     req.body = JSON.stringify({ idempotencyKey: randomUUID(), code: seat.codes[counter % seat.codes.length], attributeId, value: values[counter % values.length] });
     return req;
   };

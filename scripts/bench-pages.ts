@@ -61,7 +61,7 @@ async function staffPages(cookies: Record<'developer' | 'head' | 'production', s
   const { trials } = await api<{ trials: Array<{ id: string }> }>(dev, '/api/v1/trials');
   let largest: { id: string; trialId: string; seats: number } | null = null;
   for (const t of trials) {
-    const { sessions } = await api<{ sessions: Array<{ id: string; trialId: string; seats: number }> }>(dev, `/api/v1/trials/${t.id}/panels`);
+    const { sessions } = await api<{ sessions: Array<{ id: string; trialId: string; seats: number }> }>(dev, `/api/v1/trials/${t.id}/tastings`);
     for (const s of sessions) if (!largest || s.seats > largest.seats) largest = s;
   }
   if (!largest) throw new Error('the demo has no tasting');
@@ -77,7 +77,7 @@ async function staffPages(cookies: Record<'developer' | 'head' | 'production', s
     { name: 'home', path: '/home', cookie: dev },
     { name: 'formula_editor', path: `/formulas/${formulaId}`, cookie: dev },
     { name: 'trial', path: `/trials/${largest.trialId}`, cookie: dev },
-    { name: 'tasting_results', path: `/panels/${largest.id}/results`, cookie: dev },
+    { name: 'tasting_results', path: `/tastings/${largest.id}/results`, cookie: dev },
     { name: 'review', path: `/production/reviews/${promotions[0].id}`, cookie: cookies.head },
     { name: 'batch_sheet', path: `/production/versions/${version.id}/sheet`, cookie: cookies.production },
   ];
@@ -183,10 +183,10 @@ async function main() {
     line('pages.non_2xx_or_errors', failures, '0', 0);
 
     // The phone: a guest seat of the bench tasting, notice accepted, loaded cold PHONE_LOADS times.
-    const joined = await fetch(`${base}/api/v1/tasting/join`, { method: 'POST', headers: { 'content-type': 'application/json', origin: base }, body: JSON.stringify({ joinCode: setup.joinCode, displayName: 'Bench phone' }) });
+    const joined = await fetch(`${base}/api/v1/tastings/join`, { method: 'POST', headers: { 'content-type': 'application/json', origin: base }, body: JSON.stringify({ joinCode: setup.joinCode, displayName: 'Bench phone' }) });
     if (joined.status !== 201) throw new Error(`join answered ${joined.status}: ${await joined.text()}`);
     const { seatToken } = (await joined.json()) as { seatToken: string };
-    const consent = await fetch(`${base}/api/v1/tasting/${seatToken}/consent`, { method: 'POST', headers: { origin: base } });
+    const consent = await fetch(`${base}/api/v1/tastings/seats/${seatToken}/consent`, { method: 'POST', headers: { origin: base } });
     if (!consent.ok) throw new Error(`consent answered ${consent.status}`);
     const lcps: number[] = [];
     let last: Page | null = null;

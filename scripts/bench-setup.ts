@@ -9,9 +9,9 @@ import { randomUUID } from 'node:crypto';
 import { getOrm, closeOrm } from '../lib/db';
 import { Membership, User, Workspace } from '../entities';
 import { addStarterLibrary } from '../lib/ingredients/mutations';
-import { addDefaultAttributes, createPanelSession, joinAsGuest, openPanelSession } from '../lib/panels/mutations';
-import { listAttributes } from '../lib/panels/queries';
-import { recordConsent, tasterView } from '../lib/panels/taster';
+import { addDefaultAttributes, createTasting, joinAsGuest, openTasting } from '../lib/tastings/mutations';
+import { listAttributes } from '../lib/tastings/queries';
+import { recordConsent, tasterView } from '../lib/taster/seat';
 import { createFormula } from '../lib/formulas/mutations';
 import { createTrial, planVariants } from '../lib/trials/mutations';
 import { listVariants } from '../lib/trials/queries';
@@ -42,10 +42,10 @@ async function main() {
   const variants = await listVariants(actor, trialId);
   const attrs = await listAttributes(actor);
   const attributeIds = ['overall-liking', 'set-firmness', 'sweetness'].map((k) => attrs.find((a) => a.libraryKey === k)!.id);
-  const { sessionId } = await createPanelSession(actor, trialId, {
+  const { tastingId } = await createTasting(actor, trialId, {
     title: 'Bench tasting', method: 'rated', variantIds: variants.map((v) => v.id), attributeIds, notice: 'Invented benchmark tasting.',
   });
-  const { joinCode } = await openPanelSession(actor, sessionId);
+  const { joinCode } = await openTasting(actor, tastingId);
   const seats: Array<{ token: string; codes: string[] }> = [];
   for (let i = 0; i < SEATS; i++) {
     const { seatToken } = await joinAsGuest({ joinCode, displayName: `Bench taster ${i + 1}` });
@@ -55,7 +55,7 @@ async function main() {
   // Values every default attribute scale accepts (the hedonic 1–9, the 0–10 line, the JAR 1–5).
   const values: Record<string, number[]> = Object.fromEntries(attributeIds.map((id) => [id, [1, 2, 3, 4, 5]]));
   await orm.em.getConnection().execute('create table if not exists bench_floor (id uuid primary key default gen_random_uuid(), seat text not null, body jsonb not null, created_at timestamptz not null default now())');
-  fs.writeFileSync(out, JSON.stringify({ sessionId, joinCode, attributeIds, values, seats }, null, 2));
+  fs.writeFileSync(out, JSON.stringify({ tastingId, joinCode, attributeIds, values, seats }, null, 2));
   console.log(`bench set-up: ${seats.length} seats, ${seats[0].codes.length} samples, ${attributeIds.length} attributes`);
   await closeOrm();
 }

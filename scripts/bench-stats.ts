@@ -9,15 +9,15 @@ import path from 'node:path';
 import { randomUUID } from 'node:crypto';
 import { performance } from 'node:perf_hooks';
 import { getOrm, closeOrm } from '../lib/db';
-import { loadPanelData } from '../lib/results/queries';
-import { analysePanel } from '../lib/results/analysis';
+import { loadTastingData } from '../lib/results/queries';
+import { analyseTasting } from '../lib/results/analysis';
 import type { Actor } from '../lib/permissions';
 
 const SAMPLES = 12;
 const ATTRIBUTES = 8;
 const REPEATS = 5;
 
-async function buildSession(tasters: number): Promise<{ actor: Actor; sessionId: string }> {
+async function buildSession(tasters: number): Promise<{ actor: Actor; tastingId: string }> {
   const orm = await getOrm();
   const conn = orm.em.getConnection();
   const ws = randomUUID();
@@ -61,7 +61,7 @@ async function buildSession(tasters: number): Promise<{ actor: Actor; sessionId:
     await conn.execute(`insert into panel_answers (id, workspace_id, session_id, seat_id, kind, item, attribute, sample_id, value, idempotency_key, idempotency_keys, created_at, updated_at) values ${rows.join(',')}`, values);
   }
   const actor: Actor = { userId: user, email: '', name: 'Bench', workspaceId: ws, workspaceName: 'Bench', role: 'developer', via: 'session', massUnits: 'metric', temperatureUnit: 'C' };
-  return { actor, sessionId: session };
+  return { actor, tastingId: session };
 }
 
 function median(xs: number[]): number {
@@ -70,14 +70,14 @@ function median(xs: number[]): number {
 }
 
 async function measure(tasters: number) {
-  const { actor, sessionId } = await buildSession(tasters);
+  const { actor, tastingId } = await buildSession(tasters);
   const fetchMs: number[] = [];
   const analyseMs: number[] = [];
   for (let r = 0; r < REPEATS; r++) {
     const t0 = performance.now();
-    const { data } = await loadPanelData(actor, sessionId);
+    const { data } = await loadTastingData(actor, tastingId);
     const t1 = performance.now();
-    analysePanel(data);
+    analyseTasting(data);
     const t2 = performance.now();
     fetchMs.push(t1 - t0);
     analyseMs.push(t2 - t1);

@@ -7,15 +7,15 @@
  */
 import { performance } from 'node:perf_hooks';
 import { getOrm, closeOrm } from '../lib/db';
-import { Formula, PanelAnswer, PanelSeat, PanelSession, Trial, User, Workspace } from '../entities';
+import { Formula, TastingAnswer, TastingSeat, Tasting, Trial, User, Workspace } from '../entities';
 import type { Actor } from '../lib/permissions';
 import { getTrialOverview } from '../lib/trials/queries';
 import { getEntry } from '../lib/notebook/queries';
 import { listUploads } from '../lib/uploads/queries';
-import { listPanelSessions } from '../lib/panels/queries';
+import { listTrialTastings } from '../lib/tastings/queries';
 import { getFormula } from '../lib/formulas/queries';
 import { listIngredients } from '../lib/ingredients/queries';
-import { getPanelResults } from '../lib/results/queries';
+import { getTastingResults } from '../lib/results/queries';
 import { trialCosts, editorCostBasis } from '../lib/costs/queries';
 import { packFormatOfFormulas } from '../lib/pricing/queries';
 import { computeFormula } from '../lib/formulas/compute';
@@ -50,10 +50,10 @@ async function main() {
   const user = await em.findOneOrFail(User, { email: developer.email });
   const actor: Actor = { userId: user.id, email: user.email, name: user.name, workspaceId: workspace.id, workspaceName: workspace.name, role: 'developer', via: 'session', massUnits: 'metric', temperatureUnit: 'C' };
   let largest = { id: '', trialId: '', seats: -1, answers: -1 };
-  for (const s of await em.find(PanelSession, { workspace: workspace.id })) {
+  for (const s of await em.find(Tasting, { workspace: workspace.id })) {
     // The most seats, then the most answers (the demo's rated tasting over its triangle test of as many seats).
-    const seats = await em.count(PanelSeat, { session: s.id });
-    const answers = await em.count(PanelAnswer, { session: s.id });
+    const seats = await em.count(TastingSeat, { session: s.id });
+    const answers = await em.count(TastingAnswer, { session: s.id });
     if (seats > largest.seats || (seats === largest.seats && answers > largest.answers)) largest = { id: s.id, trialId: (s.trial as unknown as { id: string }).id, seats, answers };
   }
   if (!largest.id) throw new Error('the database has no demo tasting: run npm run db:seed first');
@@ -64,7 +64,7 @@ async function main() {
   await timed('trial: getTrialOverview', () => getTrialOverview(actor, largest.trialId));
   await timed('trial: getEntry (notebook)', () => getEntry(actor, largest.trialId, null));
   await timed('trial: listUploads', () => listUploads(actor, largest.trialId));
-  await timed('trial: listPanelSessions', () => listPanelSessions(actor, largest.trialId));
+  await timed('trial: listTrialTastings', () => listTrialTastings(actor, largest.trialId));
   await timed('trial: trialCosts', () => trialCosts(actor, largest.trialId));
   const overview = await getTrialOverview(actor, largest.trialId);
   await timed(`trial: computeFormula × ${overview.variants.length} variants`, async () => overview.variants.map((v) => computeFormula(v.settings, v.lines)).length);
@@ -72,7 +72,7 @@ async function main() {
   await timed('formula editor: editorCostBasis', () => editorCostBasis(actor));
   await timed('formula editor: packFormatOfFormulas', () => packFormatOfFormulas(workspace.id, [formulaId]));
   await timed('formula editor: listIngredients (incl. archived)', () => listIngredients(actor, { archived: 'include' }));
-  await timed('results: getPanelResults', () => getPanelResults(actor, largest.id));
+  await timed('results: getTastingResults', () => getTastingResults(actor, largest.id));
   await closeOrm();
 }
 

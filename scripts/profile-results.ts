@@ -6,11 +6,11 @@
  */
 import { performance } from 'node:perf_hooks';
 import { getOrm, closeOrm } from '../lib/db';
-import { PanelAnswer, PanelSeat, PanelSession, User, Workspace } from '../entities';
+import { TastingAnswer, TastingSeat, Tasting, User, Workspace } from '../entities';
 import type { Actor } from '../lib/permissions';
-import { getPanelSession } from '../lib/panels/queries';
-import { getPanelResults, loadPanelData } from '../lib/results/queries';
-import { analysePanel } from '../lib/results/analysis';
+import { getTasting } from '../lib/tastings/queries';
+import { getTastingResults, loadTastingData } from '../lib/results/queries';
+import { analyseTasting } from '../lib/results/analysis';
 import { DEMO_USERS, DEMO_WORKSPACE } from '../lib/seed/demo';
 
 const RUNS = Number(process.env.PROFILE_RUNS ?? 20);
@@ -36,23 +36,23 @@ async function main() {
   const user = await em.findOneOrFail(User, { email: developer.email });
   const actor: Actor = { userId: user.id, email: user.email, name: user.name, workspaceId: workspace.id, workspaceName: workspace.name, role: 'developer', via: 'session', massUnits: 'metric', temperatureUnit: 'C' };
   let largest = { id: '', seats: -1, answers: -1 };
-  for (const s of await em.find(PanelSession, { workspace: workspace.id })) {
+  for (const s of await em.find(Tasting, { workspace: workspace.id })) {
     // The most seats, then the most answers (the demo's rated tasting over its triangle test of as many seats).
-    const seats = await em.count(PanelSeat, { session: s.id });
-    const answers = await em.count(PanelAnswer, { session: s.id });
+    const seats = await em.count(TastingSeat, { session: s.id });
+    const answers = await em.count(TastingAnswer, { session: s.id });
     if (seats > largest.seats || (seats === largest.seats && answers > largest.answers)) largest = { id: s.id, seats, answers };
   }
   if (!largest.id) throw new Error('the database has no demo tasting: run npm run db:seed first');
-  const { data } = await loadPanelData(actor, largest.id);
+  const { data } = await loadTastingData(actor, largest.id);
   let queries = 0;
   orm.em.getConnection().getKnex().on('query', () => queries++);
-  await getPanelResults(actor, largest.id);
+  await getTastingResults(actor, largest.id);
   console.log(`tasting ${largest.id}: ${largest.seats} seats, ${data.answers.length} answers, ${data.attributes.length} attributes, ${data.samples.length} samples; ${queries} queries per load`);
-  await timed('session view (getPanelSession)', () => getPanelSession(actor, largest.id));
-  await timed('reads (loadPanelData)', () => loadPanelData(actor, largest.id));
-  await timed('analysis (analysePanel)', () => analysePanel(data));
-  await timed('analysis with pooled penalty', () => analysePanel(data, { pooledPenalty: true }));
-  await timed('whole load (getPanelResults)', () => getPanelResults(actor, largest.id));
+  await timed('session view (getTasting)', () => getTasting(actor, largest.id));
+  await timed('reads (loadTastingData)', () => loadTastingData(actor, largest.id));
+  await timed('analysis (analyseTasting)', () => analyseTasting(data));
+  await timed('analysis with pooled penalty', () => analyseTasting(data, { pooledPenalty: true }));
+  await timed('whole load (getTastingResults)', () => getTastingResults(actor, largest.id));
   await closeOrm();
 }
 

@@ -1,7 +1,7 @@
 /**
  * The taster soak (run by scripts/soak.sh, which starts the cluster and `next start`).
  *
- * 1. Sets up one open rated tasting with guest seats through lib/panels (the organiser's side).
+ * 1. Sets up one open rated tasting with guest seats through lib/tastings (the organiser's side).
  * 2. Every simulated taster, concurrently, does what the phone does over HTTP: reads its seat,
  *    consents, answers every sample × attribute with random pauses (PUT …/answers with an
  *    idempotency key), then submits. 10 % of answers are sent twice with the same key, half as a
@@ -28,13 +28,13 @@ import { Pool } from 'pg';
 import { getEm, closeOrm } from '../lib/db';
 import { Membership, User, Variant, Workspace, Ingredient } from '../entities';
 import { addStarterLibrary } from '../lib/ingredients/mutations';
-import { addDefaultAttributes, createPanelSession, openPanelSession, joinAsGuest } from '../lib/panels/mutations';
-import { listAttributes } from '../lib/panels/queries';
+import { addDefaultAttributes, createTasting, openTasting, joinAsGuest } from '../lib/tastings/mutations';
+import { listAttributes } from '../lib/tastings/queries';
 import { createFormula } from '../lib/formulas/mutations';
 import { createTrial, planVariants } from '../lib/trials/mutations';
 import { hashSecret } from '../lib/secrets';
 import type { Actor } from '../lib/permissions';
-import type { TasterView } from '../lib/panels/schema';
+import type { TasterView } from '../lib/tastings/schema';
 
 const SHORT = process.argv.includes('--short');
 const PLAN = SHORT
@@ -59,7 +59,7 @@ const pause = () => sleep(randomInt(PLAN.pauseMs[0], PLAN.pauseMs[1]));
 
 // ---- 1. the session, set up through the organiser's code paths ----
 
-async function setUpSession(): Promise<{ sessionId: string; seats: Array<{ token: string; seatId: string }> }> {
+async function setUpSession(): Promise<{ tastingId: string; seats: Array<{ token: string; seatId: string }> }> {
   const em = await getEm();
   const tag = randomUUID().slice(0, 8);
   const workspace = em.create(Workspace, { name: `Soak kitchen ${tag}`, slug: `soak-${tag}` });
@@ -90,17 +90,17 @@ async function setUpSession(): Promise<{ sessionId: string; seats: Array<{ token
   });
   const variants = await em.fork().find(Variant, { trial: trialId }, { orderBy: { position: 'asc' } });
   const attributes = (await listAttributes(actor)).slice(0, PLAN.attributes);
-  const { sessionId } = await createPanelSession(actor, trialId, {
+  const { tastingId } = await createTasting(actor, trialId, {
     title: 'Soak tasting', method: 'rated', notice: 'Simulated tasters only.',
     variantIds: variants.slice(0, PLAN.samples).map((v) => v.id), attributeIds: attributes.map((a) => a.id),
   });
-  const { joinCode } = await openPanelSession(actor, sessionId);
+  const { joinCode } = await openTasting(actor, tastingId);
   // Joining through lib skips the per-address join limit, which 200 phones behind one address would hit.
   const tokens: string[] = [];
   for (let i = 0; i < PLAN.tasters; i++) tokens.push((await joinAsGuest({ joinCode, displayName: `Taster ${i + 1}` })).seatToken);
-  const rows = await em.getConnection().execute<Array<{ id: string; token_hash: string }>>('select id, token_hash from panel_seats where session_id = ?', [sessionId]);
+  const rows = await em.getConnection().execute<Array<{ id: string; token_hash: string }>>('select id, token_hash from panel_seats where session_id = ?', [tastingId]);
   const byHash = new Map(rows.map((r) => [r.token_hash, r.id]));
-  return { sessionId, seats: tokens.map((token) => ({ token, seatId: byHash.get(hashSecret(token))! })) };
+  return { tastingId, seats: tokens.map((token) => ({ token, seatId: byHash.get(hashSecret(token))! })) };
 }
 
 // ---- 2./3. the tasters and the restart ----
@@ -209,7 +209,7 @@ function randomValueOn(scale: TasterView['attributes'][number]['scale']): number
 type AnswerReply = { stored: boolean; duplicate: boolean; stale: boolean };
 
 async function taster(seat: { token: string; seatId: string }, home: number, doubled: Set<number>, changed: Set<number>, firstIndex: number): Promise<void> {
-  const base = `/api/v1/tasting/${seat.token}`;
+  const base = `/api/v1/tastings/seats/${seat.token}`;
   const other = home + 1;
   await pause();
   const view = await call<TasterView>(home, 'GET', base);
@@ -293,16 +293,16 @@ async function restartPostgresWhenDue(total: number, stop: () => boolean): Promi
 
 // ---- 4. the checks ----
 
-async function checkDatabase(sessionId: string) {
+async function checkDatabase(tastingId: string) {
   const pool = new Pool({ connectionString: process.env.DATABASE_URL, max: 1 });
   try {
     const { rows } = await pool.query<{ seat_id: string; item: string; attribute: string; value: number | null; idempotency_key: string; copies: number }>(
       `select seat_id, item, attribute, value::float8 as value, idempotency_key,
               count(*) over (partition by seat_id, item, attribute)::int as copies
          from panel_answers where session_id = $1`,
-      [sessionId],
+      [tastingId],
     );
-    const seats = await pool.query<{ submitted: number }>('select count(*) filter (where submitted_at is not null)::int as submitted from panel_seats where session_id = $1', [sessionId]);
+    const seats = await pool.query<{ submitted: number }>('select count(*) filter (where submitted_at is not null)::int as submitted from panel_seats where session_id = $1', [tastingId]);
     let missing = 0;
     let wrongValue = 0;
     let regressed = 0;
@@ -338,7 +338,7 @@ function scanAppLogs(seats: Array<{ token: string }>) {
 
 async function main() {
   const started = Date.now();
-  const { sessionId, seats } = await setUpSession();
+  const { tastingId, seats } = await setUpSession();
   await closeOrm();
   const perTaster = PLAN.samples * PLAN.attributes;
   const total = PLAN.tasters * perTaster;
@@ -358,7 +358,7 @@ async function main() {
   const loadSeconds = (Date.now() - load) / 1000;
   const problems = results.flatMap((r) => (r.status === 'rejected' ? [String((r.reason as Error).message)] : []));
 
-  const db = await checkDatabase(sessionId);
+  const db = await checkDatabase(tastingId);
   const logScan = scanAppLogs(seats);
   const kinds = [...failureKinds].map(([k, f]) => `${k} ×${f.n}`).join(', ') || 'none';
   const when = [...failureKinds].map(([k, f]) => `${k} from +${(f.first / 1000).toFixed(1)} s to +${(f.last / 1000).toFixed(1)} s`).join(', ');

@@ -21,7 +21,7 @@ export function DecisionForm({ requestId, code, outcome }: { requestId: string; 
     const res = await run(requestId, { decision, comment });
     setConfirming(false);
     if (res?.ok) {
-      router.push(res.data.productionFormulaId ? `/production/versions/${res.data.productionFormulaId}` : `/production/reviews/${requestId}`);
+      router.push(res.data.productVersionId ? `/production/versions/${res.data.productVersionId}` : `/production/reviews/${requestId}`);
       router.refresh();
     }
   }

@@ -1,5 +1,5 @@
 import Link from 'next/link';
-import type { PanelAnalysis } from '@/lib/results/analysis';
+import type { TastingAnalysis } from '@/lib/results/analysis';
 import { formatP } from '@/lib/results/analysis';
 import type { PenaltyAnalysisResult } from '@/lib/stats';
 import { SCALE_RANGES, groupByScale } from '@/lib/results/chart-data';
@@ -59,7 +59,7 @@ function VerdictBox({ verdict }: { verdict: { headline: string; differs: boolean
  * The analysis of one session, for staff (unblinded). `pooledPenalty` carries the links that switch
  * the pooled penalty analysis on and off (it is shown only when asked for).
  */
-export function ResultsView({ analysis, pooledPenalty }: { analysis: PanelAnalysis; pooledPenalty?: { showHref: string; hideHref: string } }) {
+export function ResultsView({ analysis, pooledPenalty }: { analysis: TastingAnalysis; pooledPenalty?: { showHref: string; hideHref: string } }) {
   const profiles = groupByScale(analysis.attributes);
   return (
     <div className="space-y-8">

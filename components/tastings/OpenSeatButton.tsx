@@ -1,18 +1,18 @@
 'use client';
 
 import { useState } from 'react';
-import { renewMySeatAction } from '@/lib/panels/actions';
+import { renewMySeatAction } from '@/lib/tastings/actions';
 import { Button } from '@/components/ui/Button';
 
 /** Opens the signed-in taster's own seat with a fresh link (the e-mailed one stops working). */
-export function OpenSeatButton({ sessionId }: { sessionId: string }) {
+export function OpenSeatButton({ tastingId }: { tastingId: string }) {
   const [busy, setBusy] = useState(false);
   const [error, setError] = useState<string>();
   async function open() {
     setBusy(true);
     setError(undefined);
     try {
-      const res = await renewMySeatAction(sessionId);
+      const res = await renewMySeatAction(tastingId);
       if (res.ok) {
         window.location.assign(res.data.path);
         return;

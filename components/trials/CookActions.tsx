@@ -3,14 +3,14 @@
 import { useState } from 'react';
 import { useRouter } from 'next/navigation';
 import type { UnitPreference } from '@/lib/chemistry';
-import type { MeasurementView } from '@/lib/trials/schema';
-import { withdrawMeasurementAction } from '@/lib/trials/actions';
+import type { CookView } from '@/lib/trials/schema';
+import { withdrawCookAction } from '@/lib/trials/actions';
 import { ConfirmDialog } from '@/components/ui/ConfirmDialog';
 import { inputClass } from '@/components/ui/Field';
 import { RecordCookForm } from './RecordCookForm';
 
 /** Correct (the form, starting from the stored values) or withdraw (with a reason) one cook. */
-export function CookActions({ trialId, cook, massUnits, temperatureUnit }: { trialId: string; cook: MeasurementView; massUnits: UnitPreference; temperatureUnit: 'C' | 'F' }) {
+export function CookActions({ trialId, cook, massUnits, temperatureUnit }: { trialId: string; cook: CookView; massUnits: UnitPreference; temperatureUnit: 'C' | 'F' }) {
   const router = useRouter();
   const [correcting, setCorrecting] = useState(false);
   const [withdrawing, setWithdrawing] = useState(false);
@@ -22,7 +22,7 @@ export function CookActions({ trialId, cook, massUnits, temperatureUnit }: { tri
   async function withdraw() {
     if (!reason.trim()) return setError('Say why the cook is withdrawn (it is kept with its history).');
     setBusy(true);
-    const res = await withdrawMeasurementAction(trialId, cook.id, { reason });
+    const res = await withdrawCookAction(trialId, cook.id, { reason });
     setBusy(false);
     if (!res.ok) return setError(res.error);
     setWithdrawing(false);

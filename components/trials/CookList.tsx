@@ -1,6 +1,6 @@
 import type { UnitPreference } from '@/lib/chemistry';
 import { SET_TEST_METHOD_LABELS, SET_TEST_SCALE, SYNERESIS_LABELS } from '@/lib/trials/vocabulary';
-import type { MeasurementView } from '@/lib/trials/schema';
+import type { CookView } from '@/lib/trials/schema';
 import { EmptyState } from '@/components/ui/Card';
 import { FLAG_CLASS, massText, numText, tempText } from './format';
 import { CookActions } from './CookActions';
@@ -13,7 +13,7 @@ const FIELD_LABELS: Record<string, string> = {
 };
 
 /** What a correction replaced, in words: "pH 3.40, yield 1.50 kg". */
-function beforeText(before: Partial<MeasurementView>, massUnits: UnitPreference, temperatureUnit: 'C' | 'F'): string {
+function beforeText(before: Partial<CookView>, massUnits: UnitPreference, temperatureUnit: 'C' | 'F'): string {
   return Object.entries(before).map(([key, v]) => {
     const value = v == null || v === '' ? 'blank'
       : key === 'batchSizeG' || key === 'yieldG' ? massText(v as number, massUnits)
@@ -26,7 +26,7 @@ function beforeText(before: Partial<MeasurementView>, massUnits: UnitPreference,
   }).join(', ');
 }
 
-function CookHistory({ cook, massUnits, temperatureUnit }: { cook: MeasurementView; massUnits: UnitPreference; temperatureUnit: 'C' | 'F' }) {
+function CookHistory({ cook, massUnits, temperatureUnit }: { cook: CookView; massUnits: UnitPreference; temperatureUnit: 'C' | 'F' }) {
   const corrections = cook.changes.filter((c) => c.kind === 'corrected');
   if (!corrections.length) return null;
   return (
@@ -46,7 +46,7 @@ const FLAG_WORD: Record<string, string> = { ok: 'within', watch: 'check', out: '
 
 /** Each cook with its measurements beside the predictions for the batch actually cooked. */
 export function CookList({ trialId, cooks, massUnits, temperatureUnit, canEdit, withdrawn = false }: {
-  trialId: string; cooks: MeasurementView[]; massUnits: UnitPreference; temperatureUnit: 'C' | 'F'; canEdit: boolean; withdrawn?: boolean;
+  trialId: string; cooks: CookView[]; massUnits: UnitPreference; temperatureUnit: 'C' | 'F'; canEdit: boolean; withdrawn?: boolean;
 }) {
   if (!cooks.length && withdrawn) return null;
   if (!cooks.length) return <EmptyState title="Not cooked yet">Record the cook below: what the refractometer read, the pH, the end point and the yield.</EmptyState>;

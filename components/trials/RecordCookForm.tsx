@@ -7,8 +7,8 @@ import { Button } from '@/components/ui/Button';
 import { Notice } from '@/components/ui/Notice';
 import { Field, SelectField, inputClass } from '@/components/ui/Field';
 import { SET_TEST_METHODS, SET_TEST_METHOD_LABELS, SET_TEST_SCALE, SYNERESIS_LABELS, SYNERESIS_LEVELS } from '@/lib/trials/vocabulary';
-import { correctMeasurementAction, recordMeasurementAction } from '@/lib/trials/actions';
-import { cookReadingProblems, type MeasurementView } from '@/lib/trials/schema';
+import { correctCookAction, recordCookAction } from '@/lib/trials/actions';
+import { cookReadingProblems, type CookView } from '@/lib/trials/schema';
 import { todayIso } from '@/lib/format/dates';
 import { readDecimal } from '@/lib/format/numbers';
 
@@ -19,7 +19,7 @@ const round = (n: number, places: number) => String(Number(n.toFixed(places)));
  * stored as read. With `cook` the form corrects that cook: it starts from the stored values and asks why.
  */
 export function RecordCookForm({ trialId, variantId, massUnits, temperatureUnit, cook, onDone }: {
-  trialId: string; variantId: string; massUnits: UnitPreference; temperatureUnit: 'C' | 'F'; cook?: MeasurementView; onDone?: () => void;
+  trialId: string; variantId: string; massUnits: UnitPreference; temperatureUnit: 'C' | 'F'; cook?: CookView; onDone?: () => void;
 }) {
   const router = useRouter();
   const [fields, setFields] = useState<Record<string, string[]>>({});
@@ -80,7 +80,7 @@ export function RecordCookForm({ trialId, variantId, massUnits, temperatureUnit,
     setBusy(true);
     setFields({});
     setMessage(undefined);
-    const res = cook ? await correctMeasurementAction(trialId, cook.id, { ...readings, reason }) : await recordMeasurementAction(trialId, { variantId, ...readings });
+    const res = cook ? await correctCookAction(trialId, cook.id, { ...readings, reason }) : await recordCookAction(trialId, { variantId, ...readings });
     setBusy(false);
     if (res.ok) {
       if (!cook) formEl.reset();

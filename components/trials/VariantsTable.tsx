@@ -47,7 +47,7 @@ export function VariantsTable({ trialId, variants, massUnits, temperatureUnit, c
         <tbody className="divide-y divide-pith-200">
           {variants.map((v) => {
             const c = v.computation;
-            const cook = v.measurements.at(-1);
+            const cook = v.cooks.at(-1);
             const flag = (key: string) => cook?.comparison.rows.find((r) => r.key === key)?.flag ?? 'unknown';
             const danger = v.summary.dangerCount > 0;
             return (

@@ -174,9 +174,9 @@ export async function productCosts(actor: Actor, productId: string, asOf: string
 /** A batch's cost: the version costed on the batch's day, and per good jar from its charge and jars. */
 export async function batchCost(actor: Actor, batchId: string): Promise<BatchCost> {
   const em = await getEm();
-  const batch = await em.findOne(BatchRecord, { ...inWorkspace(actor), id: batchId }, { populate: ['productionFormula'] });
+  const batch = await em.findOne(BatchRecord, { ...inWorkspace(actor), id: batchId }, { populate: ['productVersion'] });
   if (!batch) throw notFound('batch');
-  const version = batch.productionFormula as unknown as { settings: FormulaSettingsInput; lines: RevisionLine[]; packFormat: unknown };
+  const version = batch.productVersion as unknown as { settings: FormulaSettingsInput; lines: RevisionLine[]; packFormat: unknown };
   const day = isoDate(batch.batchDate);
   const packFormatId = refId(version.packFormat);
   const basis = await loadCostBasis(actor.workspaceId, { ingredientIds: ingredientIdsOf([version]), packFormatIds: packFormatId ? [packFormatId] : [], from: day, to: day });

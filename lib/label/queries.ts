@@ -5,7 +5,7 @@ import 'server-only';
  * production version freezes its label at approval.
  */
 import type { EntityManager } from '@mikro-orm/postgresql';
-import { Ingredient, ProductionFormula } from '@/entities';
+import { Ingredient, ProductVersion } from '@/entities';
 import { getEm } from '@/lib/db';
 import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
 import { ValidationFailed } from '@/lib/errors';
@@ -71,7 +71,7 @@ export async function variantLabel(actor: Actor, trialId: string, variantId: str
 /** A production version's label: frozen at approval, or computed now for versions approved before labels were frozen. */
 export async function versionLabel(actor: Actor, versionId: string): Promise<LabelView> {
   const em = await getEm();
-  const v = await em.findOne(ProductionFormula, { ...inWorkspace(actor), id: versionId }, { populate: ['product'] });
+  const v = await em.findOne(ProductVersion, { ...inWorkspace(actor), id: versionId }, { populate: ['product'] });
   if (!v) throw notFound('production version');
   const product = v.product as unknown as { name: string; code: string };
   const subject = { kind: 'version' as const, id: v.id, name: `${product.name} v${v.version}` };
@@ -96,12 +96,12 @@ export interface LabelComparison {
  */
 export async function promotionLabelComparison(
   actor: Actor,
-  request: { productionFormulaId: string | null; formula: { settings: FormulaSettingsInput; lines: RevisionLine[] } | null; baseline: { id: string; version: number } | null },
+  request: { productVersionId: string | null; formula: { settings: FormulaSettingsInput; lines: RevisionLine[] } | null; baseline: { id: string; version: number } | null },
 ): Promise<LabelComparison | null> {
   if (!request.baseline || !request.formula) return null;
   const before = await versionLabel(actor, request.baseline.id);
-  const after = request.productionFormulaId
-    ? await versionLabel(actor, request.productionFormulaId)
+  const after = request.productVersionId
+    ? await versionLabel(actor, request.productVersionId)
     : view(await labelOfStored(await getEm(), actor, request.formula.settings, request.formula.lines), 'live', { kind: 'variant', id: '', name: '' }, null);
   const base = { baselineVersion: request.baseline.version, baselineKept: before.kept };
   if (!before.label || !after.label) return { ...base, changes: [], problem: before.problem ?? after.problem };

@@ -5,7 +5,7 @@ import 'server-only';
  * (pages, the API) have asked lib/permissions first. Nothing is stored: fitting on read is cheap.
  */
 import { getEm } from '@/lib/db';
-import { Formula, FormulaRevision, Measurement, PanelAnswer, PanelSample, SensoryAttributeDef, Variant } from '@/entities';
+import { Formula, FormulaRevision, Cook, TastingAnswer, TastingSample, SensoryAttributeDef, Variant } from '@/entities';
 import { correctBrixTo20C } from '@/lib/chemistry';
 import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
 import { trialCode } from '@/lib/trials/access';
@@ -125,14 +125,14 @@ export async function modelDataset(scope: Scope, selection: DatasetSelection): P
   const variantIds = featured.map((f) => f.variant.id);
   const [cooks, samples, attributes] = variantIds.length
     ? await Promise.all([
-        em.find(Measurement, { ...inWorkspace(scope), variant: { $in: variantIds }, withdrawnAt: null }, { orderBy: { cookDate: 'asc' } }),
-        em.find(PanelSample, { ...inWorkspace(scope), variant: { $in: variantIds }, session: { state: { $ne: 'draft' } } }, { fields: ['variant', 'id'] }),
+        em.find(Cook, { ...inWorkspace(scope), variant: { $in: variantIds }, withdrawnAt: null }, { orderBy: { cookDate: 'asc' } }),
+        em.find(TastingSample, { ...inWorkspace(scope), variant: { $in: variantIds }, session: { state: { $ne: 'draft' } } }, { fields: ['variant', 'id'] }),
         em.find(SensoryAttributeDef, inWorkspace(scope), { orderBy: { createdAt: 'asc' } }),
       ])
     : [[], [], []];
   const answers = samples.length
     ? await em.find(
-        PanelAnswer,
+        TastingAnswer,
         { ...inWorkspace(scope), kind: 'rating', sampleId: { $in: samples.map((s) => s.id) }, value: { $ne: null } },
         { fields: ['sampleId', 'attribute', 'value'] },
       )
@@ -251,7 +251,7 @@ export async function listFamilies(scope: Scope): Promise<FamilySummary[]> {
   const em = await getEm();
   const variants = await loadVariants(scope);
   const cooks = variants.length
-    ? await em.find(Measurement, { ...inWorkspace(scope), withdrawnAt: null, variant: { $in: variants.map((v) => v.id) } }, { fields: ['variant', 'cookDate'] })
+    ? await em.find(Cook, { ...inWorkspace(scope), withdrawnAt: null, variant: { $in: variants.map((v) => v.id) } }, { fields: ['variant', 'cookDate'] })
     : [];
   const lastCookOf = new Map<string, string>();
   for (const cook of cooks) {

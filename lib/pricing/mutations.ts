@@ -3,7 +3,7 @@ import 'server-only';
 import type { EntityManager } from '@mikro-orm/postgresql';
 import { getEm } from '@/lib/db';
 import {
-  AuditEvent, CostSettings, Formula, Ingredient, IngredientPrice, PackagingItem, PackagingPrice, PackFormat, PackFormatItem, ProductionFormula,
+  AuditEvent, CostSettings, Formula, Ingredient, IngredientPrice, PackagingItem, PackagingPrice, PackFormat, PackFormatItem, ProductVersion,
 } from '@/entities';
 import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
 import { Conflict, ValidationFailed } from '@/lib/errors';
@@ -200,10 +200,10 @@ export async function setFormulaPackFormat(actor: Actor, formulaId: string, pack
 export async function setVersionPackFormat(actor: Actor, versionId: string, packFormatId: string | null): Promise<void> {
   const em = await getEm();
   await em.transactional(async (tx) => {
-    const version = await tx.findOne(ProductionFormula, { ...inWorkspace(actor), id: versionId }, { populate: ['product'] });
+    const version = await tx.findOne(ProductVersion, { ...inWorkspace(actor), id: versionId }, { populate: ['product'] });
     if (!version) throw notFound('production version');
     const format = await pickableFormat(tx, actor, packFormatId);
-    await tx.nativeUpdate(ProductionFormula, { ...inWorkspace(actor), id: versionId }, { packFormat: packFormatId });
+    await tx.nativeUpdate(ProductVersion, { ...inWorkspace(actor), id: versionId }, { packFormat: packFormatId });
     const product = version.product as unknown as { code: string };
     audit(tx, actor, 'version.pack_format', { type: 'production_formula', id: versionId },
       `Pack format of ${product.code} v${version.version}: ${format ? format.name : 'none'}`);

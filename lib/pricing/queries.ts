@@ -8,7 +8,7 @@ import 'server-only';
  */
 import { getEm } from '@/lib/db';
 import { sql } from '@/lib/sql';
-import { CostSettings, Formula, Ingredient, IngredientPrice, PackagingItem, PackagingPrice, PackFormat, PackFormatItem, ProductionFormula } from '@/entities';
+import { CostSettings, Formula, Ingredient, IngredientPrice, PackagingItem, PackagingPrice, PackFormat, PackFormatItem, ProductVersion } from '@/entities';
 import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
 import { calendarDateProblem } from '@/lib/input';
 import { isoDate, todayIso } from '@/lib/format/dates';
@@ -255,7 +255,7 @@ export async function packFormatOfVersions(workspaceId: string, versionIds: read
   const ids = cleanIds(versionIds);
   if (!ids.length) return new Map();
   const em = await getEm();
-  const rows = await em.find(ProductionFormula, { workspace: workspaceId, id: { $in: ids } }, { fields: ['id', 'packFormat'] });
+  const rows = await em.find(ProductVersion, { workspace: workspaceId, id: { $in: ids } }, { fields: ['id', 'packFormat'] });
   return new Map(rows.map((r) => [r.id, (r.packFormat as { id: string } | null)?.id ?? null]));
 }
 

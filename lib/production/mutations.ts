@@ -7,7 +7,7 @@ import 'server-only';
 import type { EntityManager } from '@mikro-orm/postgresql';
 import { LockMode } from '@mikro-orm/core';
 import { getEm, lockForTransaction } from '@/lib/db';
-import { AuditEvent, BatchDecision, BatchRecord, Membership, Product, ProductionFormula, PromotionRequest, Trial, User, Variant } from '@/entities';
+import { AuditEvent, BatchDecision, BatchRecord, Membership, Product, ProductVersion, PromotionRequest, Trial, User, Variant } from '@/entities';
 import { authorizeDecision, authorizeWithdrawal, inWorkspace, notFound, type Actor } from '@/lib/permissions';
 import { Conflict, ValidationFailed } from '@/lib/errors';
 import { computeFormula } from '@/lib/formulas/compute';
@@ -68,7 +68,7 @@ function buildEvidence(comparison: Awaited<ReturnType<typeof getTrialComparison>
         : null,
       means: comparison.means,
       verdicts: comparison.sessions.flatMap((s) => s.verdicts.map((v) => ({ session: s.title, method: s.method, attribute: v.attribute, verdict: v.verdict.headline }))),
-      lab: comparison.trial.variants.flatMap((v) => v.measurements.map((m) => ({
+      lab: comparison.trial.variants.flatMap((v) => v.cooks.map((m) => ({
         label: v.label, cookDate: m.cookDate, ph: m.ph ?? null, brix20: m.comparison.correctedBrix ?? m.brixReading ?? null, endPointTempC: m.endPointTempC ?? null, setTestScore: m.setTestScore ?? null,
       }))),
       compliance: {
@@ -156,7 +156,7 @@ async function costBeforeDecision(actor: Actor, requestId: string) {
   return costForApproval(actor.workspaceId, { settings: variant.settings, lines: variant.lines, trialId: request.trial.id }, todayIso());
 }
 
-export async function decidePromotion(actor: Actor, requestId: string, input: DecisionInput): Promise<{ status: 'approved' | 'sent_back'; productionFormulaId: string | null }> {
+export async function decidePromotion(actor: Actor, requestId: string, input: DecisionInput): Promise<{ status: 'approved' | 'sent_back'; productVersionId: string | null }> {
   const em = await getEm();
   // Today's cost reads prices on connections of its own, so it is read before the transaction: a
   // transaction waiting for the version lock must never need a second connection from the pool.
@@ -177,7 +177,7 @@ export async function decidePromotion(actor: Actor, requestId: string, input: De
       await tx.flush();
       await audit(tx, actor, 'promotion.sent_back', { type: 'promotion_request', id: request.id }, request.id, `${code}: ${input.comment}`);
       await tx.flush();
-      return { status: 'sent_back' as const, productionFormulaId: null, code, requestedById };
+      return { status: 'sent_back' as const, productVersionId: null, code, requestedById };
     }
 
     const variant = await tx.findOne(Variant, { ...inWorkspace(actor), id: request.variantId });
@@ -199,8 +199,8 @@ export async function decidePromotion(actor: Actor, requestId: string, input: De
     const labelOutcome = await labelOfStored(tx, actor, variant.settings, variant.lines);
     // Serialise versioning per product; the one-current index is the backstop.
     await lockForTransaction(tx, `product-version:${productId}`);
-    const current = await tx.findOne(ProductionFormula, { ...inWorkspace(actor), product: productId, status: 'current' });
-    const latest = await tx.findOne(ProductionFormula, { ...inWorkspace(actor), product: productId }, { orderBy: { version: 'desc' } });
+    const current = await tx.findOne(ProductVersion, { ...inWorkspace(actor), product: productId, status: 'current' });
+    const latest = await tx.findOne(ProductVersion, { ...inWorkspace(actor), product: productId }, { orderBy: { version: 'desc' } });
     const version = (latest?.version ?? 0) + 1;
     if (current) {
       current.status = 'superseded';
@@ -210,7 +210,7 @@ export async function decidePromotion(actor: Actor, requestId: string, input: De
       await audit(tx, actor, 'version.superseded', { type: 'production_formula', id: current.id }, request.id, `v${current.version} superseded by v${version} (${code})`);
     }
     const { packFormatId, costAtApproval } = frozenCost ?? { packFormatId: null, costAtApproval: null };
-    const created = tx.create(ProductionFormula, {
+    const created = tx.create(ProductVersion, {
       workspace: actor.workspaceId, product: productId, version, status: 'current', packFormat: packFormatId, costAtApproval,
       settings: variant.settings, lines: variant.lines, process: request.process, compliance: computation.compliance, spec: request.spec,
       label: labelOutcome.ok ? labelOutcome.label : null,
@@ -219,12 +219,12 @@ export async function decidePromotion(actor: Actor, requestId: string, input: De
     });
     await tx.flush();
     request.status = 'approved';
-    request.productionFormulaId = created.id;
+    request.productVersionId = created.id;
     await tx.flush();
     await audit(tx, actor, 'promotion.approved', { type: 'promotion_request', id: request.id }, request.id, `${code}${input.comment ? `: ${input.comment}` : ''}`);
     await audit(tx, actor, 'version.created', { type: 'production_formula', id: created.id }, request.id, `v${version} from variant ${variant.label} (${code})`);
     await tx.flush();
-    return { status: 'approved' as const, productionFormulaId: created.id, code, requestedById };
+    return { status: 'approved' as const, productVersionId: created.id, code, requestedById };
   });
 
   const requester = await em.fork().findOne(Membership, { ...inWorkspace(actor), user: outcome.requestedById }, { populate: ['user'] });
@@ -234,9 +234,9 @@ export async function decidePromotion(actor: Actor, requestId: string, input: De
       [outcome.status === 'approved'
         ? `${actor.name} approved ${outcome.code}; it is now the production version.`
         : `${actor.name} sent ${outcome.code} back: ${input.comment}`],
-      outcome.productionFormulaId ? `/production/versions/${outcome.productionFormulaId}` : `/production/reviews/${requestId}`);
+      outcome.productVersionId ? `/production/versions/${outcome.productVersionId}` : `/production/reviews/${requestId}`);
   }
-  return { status: outcome.status, productionFormulaId: outcome.productionFormulaId };
+  return { status: outcome.status, productVersionId: outcome.productVersionId };
 }
 
 /** The requester takes back a request that is still waiting. */
@@ -259,7 +259,7 @@ export async function withdrawPromotion(actor: Actor, requestId: string, comment
 
 export async function recordBatch(actor: Actor, versionId: string, input: BatchRecordInput): Promise<{ batchId: string; outcome: BatchOutcome }> {
   const em = await getEm();
-  const version = await em.findOne(ProductionFormula, { ...inWorkspace(actor), id: versionId }, { populate: ['product'] });
+  const version = await em.findOne(ProductVersion, { ...inWorkspace(actor), id: versionId }, { populate: ['product'] });
   if (!version) throw notFound('production version');
   if (version.status !== 'current') throw new Conflict(`v${version.version} is superseded: record batches against the version in production.`);
 
@@ -288,7 +288,7 @@ export async function recordBatch(actor: Actor, versionId: string, input: BatchR
 
   return em.transactional(async (tx) => {
     const batch = tx.create(BatchRecord, {
-      workspace: actor.workspaceId, product: version.product.id, productionFormula: version.id, lotCode: input.lotCode, batchDate: input.batchDate,
+      workspace: actor.workspaceId, product: version.product.id, productVersion: version.id, lotCode: input.lotCode, batchDate: input.batchDate,
       batchSizeG: input.batchSizeG, brixReading: input.brixReading, brixSampleTempC: input.brixSampleTempC, brix20: result.correctedBrix20C,
       ph: input.ph, fillTempC: input.fillTempC, netFillMeanG: input.netFillMeanG ?? null, netFillMinG: input.netFillMinG ?? null,
       setTestScore: input.setTestScore ?? null, jarsFilled: input.jarsFilled, jarsRejected: input.jarsRejected, notes: input.notes ?? null,
@@ -311,7 +311,7 @@ export async function recordBatch(actor: Actor, versionId: string, input: BatchR
 async function lockedStanding(tx: EntityManager, actor: Actor, batchId: string) {
   const batch = await tx.findOne(BatchRecord, { ...inWorkspace(actor), id: batchId }, { lockMode: LockMode.PESSIMISTIC_WRITE });
   if (!batch) throw notFound('batch');
-  const version = await tx.findOneOrFail(ProductionFormula, { ...inWorkspace(actor), id: batch.productionFormula.id });
+  const version = await tx.findOneOrFail(ProductVersion, { ...inWorkspace(actor), id: batch.productVersion.id });
   const decisions: BatchDecisionFact[] = (await tx.find(BatchDecision, { ...inWorkspace(actor), batch: batch.id }, { orderBy: { createdAt: 'asc' } }))
     .map((d) => ({ kind: d.kind, readings: d.readings ?? null, checks: d.checks ?? null }));
   const readings = {

@@ -1,7 +1,7 @@
 import 'server-only';
 /** Production reads: the review queue, products and their versions, batch records, the audit trail. */
 import { getEm } from '@/lib/db';
-import { AuditEvent, BatchDecision, BatchRecord, Product, ProductionFormula, PromotionRequest, Trial, Variant } from '@/entities';
+import { AuditEvent, BatchDecision, BatchRecord, Product, ProductVersion, PromotionRequest, Trial, Variant } from '@/entities';
 import { awaitsAnotherDecider, inWorkspace, mayDecide, mayWithdraw, notFound, type Actor } from '@/lib/permissions';
 import { trialCode } from '@/lib/trials/access';
 import { toCsv } from '@/lib/csv';
@@ -22,7 +22,7 @@ type RequestRow = {
   id: string; number: number; status: PromotionStatus; trial: { id: string; number: number; title: string }; variantId: string; variantLabel: string;
   product: { id: string; code: string; name: string } | null; newProductName: string | null; newProductCode: string | null; rationale: string;
   process: ProductionProcess; spec: QcSpec; evidence: PromotionEvidence; requestedBy: Named; requestedAt: Date; decidedBy: Named | null;
-  decidedAt: Date | null; decisionComment: string | null; productionFormulaId: string | null;
+  decidedAt: Date | null; decisionComment: string | null; productVersionId: string | null;
 };
 
 function summary(r: RequestRow): PromotionSummary {
@@ -68,7 +68,7 @@ export async function getPromotionRequest(actor: Actor, requestId: string): Prom
     newProduct: r.product ? null : { name: r.newProductName ?? '', code: r.newProductCode ?? '' },
     rationale: r.rationale, process: r.process, spec: r.spec, evidence: r.evidence,
     requestedById: r.requestedBy.id,
-    decidedBy: r.decidedBy?.name ?? null, decisionComment: r.decisionComment ?? null, productionFormulaId: r.productionFormulaId ?? null,
+    decidedBy: r.decidedBy?.name ?? null, decisionComment: r.decisionComment ?? null, productVersionId: r.productVersionId ?? null,
     canDecide: pending && mayDecide(actor, { requestedById: r.requestedBy.id }),
     awaitsAnotherDecider: pending && awaitsAnotherDecider(actor, { requestedById: r.requestedBy.id }),
     canWithdraw: pending && mayWithdraw(actor, { requestedById: r.requestedBy.id }),
@@ -82,13 +82,13 @@ type VersionLines = { id: string; version: number; status: VersionStatus; settin
 /** The formula a request puts into production and the version it stands beside. */
 async function promotionComparison(actor: Actor, r: RequestRow): Promise<Pick<PromotionView, 'outcome' | 'formula' | 'baseline'>> {
   const em = await getEm();
-  const created = r.productionFormulaId
-    ? ((await em.findOne(ProductionFormula, { ...inWorkspace(actor), id: r.productionFormulaId })) as unknown as VersionLines | null)
+  const created = r.productVersionId
+    ? ((await em.findOne(ProductVersion, { ...inWorkspace(actor), id: r.productVersionId })) as unknown as VersionLines | null)
     : null;
   const source = created ?? ((await em.findOne(Variant, { ...inWorkspace(actor), id: r.variantId })) as unknown as { settings: FormulaSettingsInput; lines: RevisionLine[] } | null);
   const formula = source ? { settings: source.settings, lines: source.lines, weighed: weighLines(source.settings, source.lines) } : null;
   if (!r.product) return { outcome: { kind: 'new_product', name: r.newProductName ?? '', code: r.newProductCode ?? '' }, formula, baseline: null };
-  const versions = (await em.find(ProductionFormula, { ...inWorkspace(actor), product: r.product.id }, { orderBy: { version: 'asc' } })) as unknown as VersionLines[];
+  const versions = (await em.find(ProductVersion, { ...inWorkspace(actor), product: r.product.id }, { orderBy: { version: 'asc' } })) as unknown as VersionLines[];
   // A request that created its product (approved as a new product) has no earlier version to compare with.
   const before = created ? versions.filter((v) => v.version < created.version).at(-1) ?? null : versions.find((v) => v.status === 'current') ?? null;
   const current = versions.find((v) => v.status === 'current') ?? null;
@@ -115,7 +115,7 @@ type VersionRow = {
 };
 
 type BatchRow = {
-  id: string; product: Ref; productionFormula: { id: string; version: number; spec: QcSpec }; lotCode: string; batchDate: string; batchSizeG: number;
+  id: string; product: Ref; productVersion: { id: string; version: number; spec: QcSpec }; lotCode: string; batchDate: string; batchSizeG: number;
   brixReading: number; brixSampleTempC: number; brix20: number; ph: number; fillTempC: number; netFillMeanG: number | null; netFillMinG: number | null;
   setTestScore: number | null; jarsFilled: number; jarsRejected: number; notes: string | null; checks: QcCheck[]; outcome: BatchOutcome;
   disposition: Disposition | null; dispositionComment: string | null; recordedBy: Named; createdAt: Date;
@@ -131,7 +131,7 @@ export async function listProducts(actor: Actor): Promise<ProductSummary[]> {
   const products = await em.find(Product, inWorkspace(actor), { orderBy: { name: 'asc' } });
   if (!products.length) return [];
   const ids = products.map((p) => p.id);
-  const versions = (await em.find(ProductionFormula, { ...inWorkspace(actor), product: { $in: ids } }, { fields: ['product', 'version', 'status', 'approvedAt'] })) as unknown as Array<{ id: string; product: Ref; version: number; status: VersionStatus; approvedAt: Date }>;
+  const versions = (await em.find(ProductVersion, { ...inWorkspace(actor), product: { $in: ids } }, { fields: ['product', 'version', 'status', 'approvedAt'] })) as unknown as Array<{ id: string; product: Ref; version: number; status: VersionStatus; approvedAt: Date }>;
   const batches = (await em.find(BatchRecord, { ...inWorkspace(actor), product: { $in: ids } }, { fields: ['product', 'checks', 'batchDate'] })) as unknown as Array<{ product: Ref; checks: QcCheck[]; batchDate: string }>;
   return products.map((p) => {
     const mine = versions.filter((v) => v.product.id === p.id);
@@ -156,7 +156,7 @@ function versionSummary(v: VersionRow): VersionSummary {
 }
 
 function batchView(b: BatchRow, decisionRows: DecisionRow[]): BatchView {
-  const s = b.productionFormula.spec;
+  const s = b.productVersion.spec;
   const decisions: BatchDecisionView[] = decisionRows.map((d) => ({
     id: d.id, kind: d.kind, readings: d.readings ?? null, checks: d.checks ?? null, outcome: d.outcome ?? null, comment: d.comment, decidedBy: d.decidedBy.name, at: d.createdAt.toISOString(),
   }));
@@ -165,7 +165,7 @@ function batchView(b: BatchRow, decisionRows: DecisionRow[]): BatchView {
     checks: b.checks, disposition: b.disposition ?? null,
   }, decisions);
   return {
-    id: b.id, lotCode: b.lotCode, batchDate: b.batchDate, version: b.productionFormula.version, versionId: b.productionFormula.id, batchSizeG: b.batchSizeG,
+    id: b.id, lotCode: b.lotCode, batchDate: b.batchDate, version: b.productVersion.version, versionId: b.productVersion.id, batchSizeG: b.batchSizeG,
     brixReading: b.brixReading, brixSampleTempC: b.brixSampleTempC, brix20: b.brix20, ph: b.ph, fillTempC: b.fillTempC,
     netFillMeanG: b.netFillMeanG ?? null, netFillMinG: b.netFillMinG ?? null, setTestScore: b.setTestScore ?? null, jarsFilled: b.jarsFilled, jarsRejected: b.jarsRejected,
     notes: b.notes ?? null, checks: b.checks, outcome: outcomeOfChecks(b.checks), disposition: b.disposition ?? null, dispositionComment: b.dispositionComment ?? null,
@@ -177,20 +177,20 @@ function batchView(b: BatchRow, decisionRows: DecisionRow[]): BatchView {
 }
 
 const VERSION_POPULATE = ['product', 'sourceTrial', 'approvedBy'] as const;
-const BATCH_POPULATE = ['productionFormula', 'recordedBy'] as const;
+const BATCH_POPULATE = ['productVersion', 'recordedBy'] as const;
 
 export async function getProduct(actor: Actor, productId: string): Promise<{ product: { id: string; code: string; name: string }; versions: VersionSummary[]; batches: BatchView[] }> {
   const em = await getEm();
   const p = await em.findOne(Product, { ...inWorkspace(actor), id: productId });
   if (!p) throw notFound('product');
-  const versions = (await em.find(ProductionFormula, { ...inWorkspace(actor), product: p.id }, { populate: VERSION_POPULATE, orderBy: { version: 'desc' } })) as unknown as VersionRow[];
+  const versions = (await em.find(ProductVersion, { ...inWorkspace(actor), product: p.id }, { populate: VERSION_POPULATE, orderBy: { version: 'desc' } })) as unknown as VersionRow[];
   return { product: { id: p.id, code: p.code, name: p.name }, versions: versions.map(versionSummary), batches: await listBatches(actor, { productId: p.id }) };
 }
 
 export async function listBatches(actor: Actor, filter: { productId?: string; versionId?: string }): Promise<BatchView[]> {
   const em = await getEm();
   const rows = (await em.find(BatchRecord, {
-    ...inWorkspace(actor), ...(filter.productId ? { product: filter.productId } : {}), ...(filter.versionId ? { productionFormula: filter.versionId } : {}),
+    ...inWorkspace(actor), ...(filter.productId ? { product: filter.productId } : {}), ...(filter.versionId ? { productVersion: filter.versionId } : {}),
   }, { populate: BATCH_POPULATE, orderBy: { batchDate: 'asc', createdAt: 'asc' }, limit: 5000 })) as unknown as BatchRow[];
   return withDecisions(actor, rows);
 }
@@ -209,7 +209,7 @@ export async function getBatch(actor: Actor, batchId: string): Promise<{ batch: 
   if (!row) throw notFound('batch');
   const [batch] = await withDecisions(actor, [row]);
   const events = await em.find(AuditEvent, { ...inWorkspace(actor), subjectId: row.id }, { orderBy: { at: 'asc' } });
-  return { batch, product: { id: row.product.id, code: row.product.code, name: row.product.name }, spec: row.productionFormula.spec, audit: events.map(toAuditView) };
+  return { batch, product: { id: row.product.id, code: row.product.code, name: row.product.name }, spec: row.productVersion.spec, audit: events.map(toAuditView) };
 }
 
 /** Lot codes already used for a product, so the batch form can propose the next free batch of a day. */
@@ -221,7 +221,7 @@ export async function takenLotCodes(actor: Actor, productId: string): Promise<st
 
 export async function getProductionVersion(actor: Actor, versionId: string): Promise<VersionView> {
   const em = await getEm();
-  const v = (await em.findOne(ProductionFormula, { ...inWorkspace(actor), id: versionId }, { populate: VERSION_POPULATE })) as unknown as VersionRow | null;
+  const v = (await em.findOne(ProductVersion, { ...inWorkspace(actor), id: versionId }, { populate: VERSION_POPULATE })) as unknown as VersionRow | null;
   if (!v) throw notFound('production version');
   const events = await em.find(AuditEvent, { ...inWorkspace(actor), $or: [{ subjectId: v.id }, { promotionRequestId: v.promotionRequestId }] }, { orderBy: { at: 'asc' } });
   return {
@@ -239,7 +239,7 @@ export async function getProductionVersion(actor: Actor, versionId: string): Pro
  */
 export async function getSheetVersion(actor: Actor, versionId: string): Promise<SheetVersion> {
   const em = await getEm();
-  const v = await em.findOne(ProductionFormula, { ...inWorkspace(actor), id: versionId }, { populate: ['product'] });
+  const v = await em.findOne(ProductVersion, { ...inWorkspace(actor), id: versionId }, { populate: ['product'] });
   if (!v) throw notFound('production version');
   return {
     id: v.id, version: v.version, status: v.status, product: { id: v.product.id, code: v.product.code, name: v.product.name },
@@ -267,7 +267,7 @@ export async function listPromotableProducts(actor: Actor): Promise<PromotionTar
   const em = await getEm();
   const rows = await em.find(Product, inWorkspace(actor), { orderBy: { name: 'asc' } });
   if (!rows.length) return [];
-  const versions = (await em.find(ProductionFormula, { ...inWorkspace(actor), product: { $in: rows.map((p) => p.id) } }, {
+  const versions = (await em.find(ProductVersion, { ...inWorkspace(actor), product: { $in: rows.map((p) => p.id) } }, {
     fields: ['product', 'version', 'status', 'settings', 'lines'],
   })) as unknown as Array<{ product: Ref; version: number; status: VersionStatus; settings: FormulaSettingsInput; lines: RevisionLine[] }>;
   return rows.map((p) => {

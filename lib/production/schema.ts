@@ -220,7 +220,7 @@ export interface PromotionView extends PromotionSummary {
   requestedById: string;
   decidedBy: string | null;
   decisionComment: string | null;
-  productionFormulaId: string | null;
+  productVersionId: string | null;
   /** The permissions module decides; the page only shows what it allows. */
   canDecide: boolean;
   /** The viewer holds the deciding role but made this request: another head of product decides it. */

@@ -1,5 +1,5 @@
 /** Pure: remembers recent analyses (no framework or database imports). */
-import { analysePanel, type AnalysisOptions, type PanelAnalysis, type PanelData } from './analysis';
+import { analyseTasting, type AnalysisOptions, type TastingAnalysis, type TastingData } from './analysis';
 
 /**
  * Recent analyses by their exact input. The analysis is pure and the heaviest step of the results
@@ -9,9 +9,9 @@ import { analysePanel, type AnalysisOptions, type PanelAnalysis, type PanelData 
  * the shared result.
  */
 export const ANALYSIS_MEMO_SIZE = 16;
-const analysisMemo = new Map<string, PanelAnalysis>();
+const analysisMemo = new Map<string, TastingAnalysis>();
 
-export function analyseRemembered(data: PanelData, options: AnalysisOptions = {}): PanelAnalysis {
+export function analyseRemembered(data: TastingData, options: AnalysisOptions = {}): TastingAnalysis {
   const key = JSON.stringify([data, options]);
   const hit = analysisMemo.get(key);
   if (hit) {
@@ -20,7 +20,7 @@ export function analyseRemembered(data: PanelData, options: AnalysisOptions = {}
     analysisMemo.set(key, hit);
     return hit;
   }
-  const analysis = analysePanel(data, options);
+  const analysis = analyseTasting(data, options);
   analysisMemo.set(key, analysis);
   if (analysisMemo.size > ANALYSIS_MEMO_SIZE) analysisMemo.delete(analysisMemo.keys().next().value!);
   return analysis;

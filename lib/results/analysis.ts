@@ -7,14 +7,14 @@ import {
   type AnovaResult, type ComparisonResult, type DiscriminationResult, type FriedmanResult, type GroupDescription, type PenaltyAnalysisResult,
 } from '@/lib/stats';
 
-export interface PanelDataSample {
+export interface TastingDataSample {
   sampleId: string;
   /** The variant label (A, B, …), shown only to staff. */
   label: string;
   description: string;
 }
 
-export interface PanelDataAttribute {
+export interface TastingDataAttribute {
   id: string;
   name: string;
   /** 'liking' (hedonic), 'just-about-right' or 'intensity'. */
@@ -23,7 +23,7 @@ export interface PanelDataAttribute {
   highAnchor?: string;
 }
 
-export interface PanelDataAnswer {
+export interface TastingDataAnswer {
   seatIndex: number;
   kind: 'rating' | 'ranking' | 'triangle';
   attribute: string;
@@ -34,11 +34,11 @@ export interface PanelDataAnswer {
   correct: boolean | null;
 }
 
-export interface PanelData {
+export interface TastingData {
   method: 'rated' | 'ranking' | 'triangle';
-  samples: PanelDataSample[];
-  attributes: PanelDataAttribute[];
-  answers: PanelDataAnswer[];
+  samples: TastingDataSample[];
+  attributes: TastingDataAttribute[];
+  answers: TastingDataAnswer[];
   seatCount: number;
   submittedSeats: number;
 }
@@ -51,7 +51,7 @@ export interface Verdict {
 }
 
 export interface AttributeAnalysis {
-  attribute: PanelDataAttribute;
+  attribute: TastingDataAttribute;
   descriptive: GroupDescription[];
   anova: AnovaResult;
   comparison: ComparisonResult;
@@ -73,8 +73,8 @@ export interface AnalysisOptions {
   pooledPenalty?: boolean;
 }
 
-export interface PanelAnalysis {
-  method: PanelData['method'];
+export interface TastingAnalysis {
+  method: TastingData['method'];
   attributes: AttributeAnalysis[];
   ranking?: { friedman: FriedmanResult; verdict: Verdict };
   triangle?: { result: DiscriminationResult; verdict: Verdict };
@@ -96,14 +96,14 @@ function list(labels: string[]): string {
   return labels.length <= 1 ? labels.join('') : `${labels.slice(0, -1).join(', ')} and ${labels.at(-1)}`;
 }
 
-function comparative(attr: PanelDataAttribute): string {
+function comparative(attr: TastingDataAttribute): string {
   if (attr.purpose === 'liking') return 'liked more';
   if (attr.purpose === 'just-about-right') return `scored further towards “too much” ${attr.name.toLowerCase()}`;
   const word = (attr.highAnchor ?? attr.name).toLowerCase().replace(/^very\s+/, '');
   return `rated higher for ${attr.name.toLowerCase()}${word && word !== attr.name.toLowerCase() ? ` (towards “${word}”)` : ''}`;
 }
 
-function verdictFor(attr: PanelDataAttribute, anova: AnovaResult, cmp: ComparisonResult, assessors: number): Verdict {
+function verdictFor(attr: TastingDataAttribute, anova: AnovaResult, cmp: ComparisonResult, assessors: number): Verdict {
   const cautions: string[] = [];
   if (assessors < SMALL_PANEL) cautions.push(`Only ${assessors} assessor${assessors === 1 ? '' : 's'}: treat the result as a first look (common practice is at least ${SMALL_PANEL}).`);
   if (anova.incomplete) cautions.push(anova.message ?? 'Some assessors did not score every sample; sums of squares are adjusted.');
@@ -127,9 +127,9 @@ function verdictFor(attr: PanelDataAttribute, anova: AnovaResult, cmp: Compariso
  * per sample: a drop in liking means something only within one product (pooling lets one sample's
  * "too sweet" tasters and another's low liking make a penalty neither has).
  */
-export function analysePanel(data: PanelData, options: AnalysisOptions = {}): PanelAnalysis {
+export function analyseTasting(data: TastingData, options: AnalysisOptions = {}): TastingAnalysis {
   const labelOf = new Map(data.samples.map((s) => [s.sampleId, s.label]));
-  const out: PanelAnalysis = { method: data.method, attributes: [], jarShares: [] };
+  const out: TastingAnalysis = { method: data.method, attributes: [], jarShares: [] };
 
   if (data.method === 'rated') {
     const liking = data.attributes.find((a) => a.purpose === 'liking');

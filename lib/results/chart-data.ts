@@ -3,7 +3,7 @@
  * cut at the ends of the scale, diverging just-about-right shares, and the attributes grouped by the
  * scale they were scored on. Pure.
  */
-import type { PanelDataAttribute } from './analysis';
+import type { TastingDataAttribute } from './analysis';
 
 export interface ScaleRange {
   min: number;
@@ -13,7 +13,7 @@ export interface ScaleRange {
 }
 
 /** The scales tasters answer on: 9-point hedonic liking, 5-point just-about-right, 0–10 intensity line. */
-export const SCALE_RANGES: Record<PanelDataAttribute['purpose'], ScaleRange> = {
+export const SCALE_RANGES: Record<TastingDataAttribute['purpose'], ScaleRange> = {
   liking: { min: 1, max: 9, name: 'Liking, 1–9 hedonic scale' },
   'just-about-right': { min: 1, max: 5, name: 'Just about right, 1–5 (3 = just right)' },
   intensity: { min: 0, max: 10, name: 'Intensity, 0–10 line scale' },
@@ -83,7 +83,7 @@ export function jarDiverging(rows: readonly JarShareRow[]): { labels: string[]; 
 }
 
 /** Attributes grouped by the scale they were scored on, in the order liking, JAR, intensity. */
-export function groupByScale<T extends { attribute: Pick<PanelDataAttribute, 'purpose'> }>(items: readonly T[]): Array<{ purpose: PanelDataAttribute['purpose']; scale: ScaleRange; items: T[] }> {
+export function groupByScale<T extends { attribute: Pick<TastingDataAttribute, 'purpose'> }>(items: readonly T[]): Array<{ purpose: TastingDataAttribute['purpose']; scale: ScaleRange; items: T[] }> {
   return (['liking', 'just-about-right', 'intensity'] as const)
     .map((purpose) => ({ purpose, scale: SCALE_RANGES[purpose], items: items.filter((x) => x.attribute.purpose === purpose) }))
     .filter((g) => g.items.length > 0);

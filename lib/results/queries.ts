@@ -1,35 +1,35 @@
 import 'server-only';
 /** Loads a session's answers for analysis and export. Staff only: this is where samples are unblinded. */
 import { getEm } from '@/lib/db';
-import { PanelSeat } from '@/entities';
+import { TastingSeat } from '@/entities';
 import type { Actor } from '@/lib/permissions';
-import { loadPanelSessionRows, panelSessionView, type PanelSessionView } from '@/lib/panels/queries';
+import { loadTastingRows, tastingView, type TastingView } from '@/lib/tastings/queries';
 import { toCsv } from '@/lib/csv';
-import { type AnalysisOptions, type PanelAnalysis, type PanelData } from './analysis';
+import { type AnalysisOptions, type TastingAnalysis, type TastingData } from './analysis';
 import { analyseRemembered } from './analysis-memo';
 
-type AnswerRow = { seat_id: string; kind: PanelData['answers'][number]['kind']; attribute: string; sample_id: string | null; value: number | null; ranking: string[] | null; correct: boolean | null };
+type AnswerRow = { seat_id: string; kind: TastingData['answers'][number]['kind']; attribute: string; sample_id: string | null; value: number | null; ranking: string[] | null; correct: boolean | null };
 
 /**
  * A session's answers as plain rows, only the columns the analysis reads (an answer row also keeps
  * every idempotency key it had): a full tasting is hundreds of rows, and making each an entity in
  * the identity map cost more than the query.
  */
-async function answerRows(actor: Actor, sessionId: string): Promise<Array<AnswerRow & { seat: { id: string } }>> {
+async function answerRows(actor: Actor, tastingId: string): Promise<Array<AnswerRow & { seat: { id: string } }>> {
   const em = await getEm();
   const rows = await em.execute<AnswerRow[]>(
     'select seat_id, kind, attribute, sample_id, value, ranking, correct from panel_answers where workspace_id = ? and session_id = ?',
-    [actor.workspaceId, sessionId],
+    [actor.workspaceId, tastingId],
   );
-  // panelSessionView counts answers per seat through `seat.id`, as on the entity.
+  // tastingView counts answers per seat through `seat.id`, as on the entity.
   return rows.map((r) => ({ ...r, seat: { id: r.seat_id } }));
 }
 
-export async function loadPanelData(actor: Actor, sessionId: string): Promise<{ data: PanelData; session: PanelSessionView }> {
+export async function loadTastingData(actor: Actor, tastingId: string): Promise<{ data: TastingData; session: TastingView }> {
   // One set of reads serves both the session view and the analysis.
-  const [rows, answers] = await Promise.all([loadPanelSessionRows(actor, sessionId), answerRows(actor, sessionId)]);
+  const [rows, answers] = await Promise.all([loadTastingRows(actor, tastingId), answerRows(actor, tastingId)]);
   const { s, attrs, seats } = rows;
-  const session = panelSessionView(rows, answers);
+  const session = tastingView(rows, answers);
   const seatIndex = new Map(seats.map((x) => [x.id, x.seatIndex]));
   const codeToSample = new Map<string, string>(seats.flatMap((x) => x.servingOrder.map((c) => [`${x.id}|${c.code}`, c.sampleId] as [string, string])));
   return {
@@ -61,16 +61,16 @@ export async function loadPanelData(actor: Actor, sessionId: string): Promise<{ 
   };
 }
 
-export async function getPanelResults(actor: Actor, sessionId: string, options: AnalysisOptions = {}): Promise<{ session: PanelSessionView; analysis: PanelAnalysis; data: PanelData }> {
-  const { data, session } = await loadPanelData(actor, sessionId);
+export async function getTastingResults(actor: Actor, tastingId: string, options: AnalysisOptions = {}): Promise<{ session: TastingView; analysis: TastingAnalysis; data: TastingData }> {
+  const { data, session } = await loadTastingData(actor, tastingId);
   return { session, data, analysis: analyseRemembered(data, options) };
 }
 
 /** Raw answers, one row per answer: session, seat, code, variant, attribute, value. */
-export async function answersCsv(actor: Actor, sessionId: string): Promise<string> {
-  const { data, session } = await loadPanelData(actor, sessionId);
+export async function answersCsv(actor: Actor, tastingId: string): Promise<string> {
+  const { data, session } = await loadTastingData(actor, tastingId);
   const em = await getEm();
-  const seats = await em.find(PanelSeat, { session: sessionId });
+  const seats = await em.find(TastingSeat, { session: tastingId });
   const codeOf = new Map(seats.flatMap((x) => x.servingOrder.map((c) => [`${x.seatIndex}|${c.sampleId}`, c.code] as const)));
   const label = new Map(data.samples.map((x) => [x.sampleId, x.label]));
   const attrName = new Map(data.attributes.map((a) => [a.id, a.name]));
@@ -88,8 +88,8 @@ export const SUMMARY_TABLES = ['means', 'anova', 'penalty', 'triangle', 'ranking
 export type SummaryTable = (typeof SUMMARY_TABLES)[number];
 
 /** Every summary table of the results page as CSV: means (default), anova, penalty, triangle, ranking. */
-export async function summaryCsv(actor: Actor, sessionId: string, table: SummaryTable = 'means'): Promise<string> {
-  const { analysis } = await getPanelResults(actor, sessionId);
+export async function summaryCsv(actor: Actor, tastingId: string, table: SummaryTable = 'means'): Promise<string> {
+  const { analysis } = await getTastingResults(actor, tastingId);
   if (table === 'anova') {
     const rows = analysis.attributes.flatMap((a) => a.anova.rows.map((r) => ({ a, r })));
     return toCsv(rows, [

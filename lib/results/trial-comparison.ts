@@ -3,8 +3,8 @@ import { getEm } from '@/lib/db';
 import { Trial, User } from '@/entities';
 import { inWorkspace, type Actor } from '@/lib/permissions';
 import { getTrialOverview } from '@/lib/trials/queries';
-import { listPanelSessions } from '@/lib/panels/queries';
-import { getPanelResults } from './queries';
+import { listTrialTastings } from '@/lib/tastings/queries';
+import { getTastingResults } from './queries';
 import { compareVariants, type ComparedVariant, type SensoryMean } from './comparison';
 import type { Verdict } from './analysis';
 
@@ -20,11 +20,11 @@ export interface TrialComparison {
 
 export async function getTrialComparison(actor: Actor, trialId: string): Promise<TrialComparison> {
   const trial = await getTrialOverview(actor, trialId);
-  const sessions = (await listPanelSessions(actor, trialId)).filter((s) => s.seats > 0);
+  const sessions = (await listTrialTastings(actor, trialId)).filter((s) => s.seats > 0);
   const candidates: Array<SensoryMean & { n: number }> = [];
   const verdicts: TrialComparison['sessions'] = [];
   for (const s of sessions) {
-    const { analysis } = await getPanelResults(actor, s.id);
+    const { analysis } = await getTastingResults(actor, s.id);
     verdicts.push({
       id: s.id, title: s.title, method: s.method,
       verdicts: [
@@ -44,7 +44,7 @@ export async function getTrialComparison(actor: Actor, trialId: string): Promise
     if (!means.some((m) => m.attribute === c.attribute && m.label === c.label)) means.push({ attribute: c.attribute, label: c.label, mean: c.mean });
   }
   const variants: ComparedVariant[] = trial.variants.map((v) => {
-    const cook = v.measurements.at(-1);
+    const cook = v.cooks.at(-1);
     const mass = cook?.comparison.rows.find((r) => r.key === 'finished_mass');
     return {
       label: v.label,

@@ -9,12 +9,12 @@ import { hashSecret, newSecret } from '@/lib/secrets';
 import { hashPassword } from '@/lib/passwords';
 import type { Actor, Role } from '@/lib/permissions';
 import { addStarterLibrary } from '@/lib/ingredients/mutations';
-import { addDefaultAttributes } from '@/lib/panels/mutations';
+import { addDefaultAttributes } from '@/lib/tastings/mutations';
 import { seedDemoFormulas } from './formulas';
 import { seedDemoPrices } from './prices';
 import { seedDemoTrials } from './trials';
 import { seedDemoNotebooks } from './notebook';
-import { seedDemoPanels } from './panels';
+import { seedDemoTastings } from './tastings';
 import { seedDemoProduction } from './production';
 import { seedDemoModelHistory } from './model-history';
 
@@ -72,7 +72,7 @@ export async function seedDemo(em: EntityManager): Promise<SeedReport> {
   await seedDemoFormulas(em.fork(), actor);
   const trials = await seedDemoTrials(em.fork(), actor);
   await seedDemoNotebooks(actor, trials);
-  await seedDemoPanels(actor, trials);
+  await seedDemoTastings(actor, trials);
   const person = async (index: number, role: Role) => demoActor(await em.fork().findOneOrFail(User, { email: DEMO_USERS[index].email }), report.workspaceId, role);
   // Prices before production: approving a version freezes its cost and takes its formula's pack format.
   await seedDemoPrices(em.fork(), { admin: await person(0, 'admin'), production: await person(3, 'production'), developer: actor });

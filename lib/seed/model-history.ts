@@ -14,7 +14,7 @@
  */
 import { randomUUID } from 'node:crypto';
 import type { EntityManager } from '@mikro-orm/postgresql';
-import { Formula, FormulaRevision, Ingredient, Measurement, PanelAnswer, PanelSample, PanelSeat, PanelSession, SensoryAttributeDef, Trial, TrialStatusChange, Variant } from '@/entities';
+import { Formula, FormulaRevision, Ingredient, Cook, TastingAnswer, TastingSample, TastingSeat, Tasting, SensoryAttributeDef, Trial, TrialStatusChange, Variant } from '@/entities';
 import { compositionOf } from '@/lib/ingredients/queries';
 import { computeFormula } from '@/lib/formulas/compute';
 import type { RevisionLine } from '@/lib/formulas/schema';
@@ -172,7 +172,7 @@ export async function seedDemoModelHistory(em: EntityManager, developer: Actor):
       const s = seed++;
       const weeping = TRUTH.weeping(coded) + noise(s * 7 + 4) * 0.25;
       const finishedG = computation.massBalance.finishedMassG * (3000 / computation.massBalance.totalChargeG);
-      em.create(Measurement, {
+      em.create(Cook, {
         workspace: ws, variant, cookDate: history.cookDay, batchSizeG: 3000,
         brixReading: Math.round((settings.targetSolidsPct - 0.2 + noise(s * 7 + 1) * 0.5) * 10) / 10, brixSampleTempC: 20,
         ph: Math.round((TRUTH.ph(coded) + noise(s * 7 + 2) * 0.03) * 100) / 100,
@@ -191,7 +191,7 @@ export async function seedDemoModelHistory(em: EntityManager, developer: Actor):
     for (let sitting = 0; sitting * SAMPLES_PER_SITTING < variants.length; sitting++) {
       const group = variants.slice(sitting * SAMPLES_PER_SITTING, (sitting + 1) * SAMPLES_PER_SITTING);
       const opened = at(history.panelDay, 10 + sitting * 3);
-      const session = em.create(PanelSession, {
+      const session = em.create(Tasting, {
         workspace: ws, trial, title: `Spread tasting, ${history.panelDay.slice(8)}/${history.panelDay.slice(5, 7)}, sitting ${sitting + 1}`,
         place: 'Tasting room', startsAt: opened, method: 'rated', state: 'closed', notice: NOTICE, attributeIds: rated.map((r) => r.id),
         rankingAttributeId: null, design: {}, joinCode: null, createdBy: developer.userId, createdAt: daysBefore(history.panelDay, 1),
@@ -200,14 +200,14 @@ export async function seedDemoModelHistory(em: EntityManager, developer: Actor):
       // Three-digit codes, distinct within the sitting (a step of 173 never repeats within 900).
       const samples = group.map((g, i) => ({
         ...g,
-        sample: em.create(PanelSample, {
+        sample: em.create(TastingSample, {
           id: randomUUID(), workspace: ws, session, variant: g.variant, code: String(100 + ((number * 331 + sitting * 97 + i * 173) % 900)), position: i,
         }),
       }));
       session.design = { treatments: samples.map((s, i) => ({ letter: label(i), sampleId: s.sample.id })) };
       TASTERS.forEach((name, t) => {
         const order = samples.map((_, i) => samples[(i + t) % samples.length]);
-        const seat = em.create(PanelSeat, {
+        const seat = em.create(TastingSeat, {
           workspace: ws, session, seatIndex: t, kind: 'guest', user: null, displayName: name, tokenHash: hashSecret(newSecret()),
           servingOrder: order.map((s) => ({ code: s.sample.code!, sampleId: s.sample.id })), designRow: order.map((_, i) => label((i + t) % order.length)).join(''),
           consentedAt: opened, submittedAt: new Date(opened.getTime() + 3_600_000), lastSeenAt: null, createdAt: opened,
@@ -216,7 +216,7 @@ export async function seedDemoModelHistory(em: EntityManager, developer: Actor):
         for (const s of order) {
           for (const [k, attribute] of rated.entries()) {
             const key = randomUUID();
-            em.create(PanelAnswer, {
+            em.create(TastingAnswer, {
               workspace: ws, session, seat, kind: 'rating', item: s.sample.code!, attribute: attribute.id, sampleId: s.sample.id,
               value: attribute.round(attribute.truth(s.coded) + bias + noise(s.seed * 131 + t * 17 + k * 5) * attribute.spread),
               ranking: null, oddCode: null, correct: null, confidence: null, comment: null, idempotencyKey: key, idempotencyKeys: [key],

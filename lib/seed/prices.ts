@@ -5,7 +5,7 @@
  * moves every dependent figure; one raspberry price was typed wrong and is withdrawn.
  */
 import type { EntityManager } from '@mikro-orm/postgresql';
-import { Formula, Ingredient, ProductionFormula } from '@/entities';
+import { Formula, Ingredient, ProductVersion } from '@/entities';
 import type { Actor } from '@/lib/permissions';
 import { isoDate } from '@/lib/format/dates';
 import {
@@ -85,5 +85,5 @@ export async function seedDemoPrices(em: EntityManager, people: { admin: Actor; 
   const { packFormatId } = await createPackFormat(production, { name: '340 g jar, case of 12', netFillG: 340, items });
 
   for (const f of await em.find(Formula, { workspace: admin.workspaceId })) await setFormulaPackFormat(developer, f.id, packFormatId);
-  for (const v of await em.find(ProductionFormula, { workspace: admin.workspaceId })) await setVersionPackFormat(production, v.id, packFormatId);
+  for (const v of await em.find(ProductVersion, { workspace: admin.workspaceId })) await setVersionPackFormat(production, v.id, packFormatId);
 }

@@ -28,10 +28,10 @@ export async function seedDemoProduction(people: { developer: Actor; head: Actor
   await recommendVariant(developer, blackcurrant.trialId, { variantId: blackcurrant.variantIds.A, rationale: blackcurrantWhy });
   const approved = await request(developer, blackcurrant, 'A', { name: 'Blackcurrant jam', code: 'BCJ' }, blackcurrantWhy,
     'Bring the fruit to a rolling boil before the sugar goes in; skim once, just before filling.');
-  const { productionFormulaId } = await decidePromotion(head, approved.requestId, { decision: 'approve', comment: 'Set and solids held across three cooks. Approved for the 50 kg kettle.' });
+  const { productVersionId } = await decidePromotion(head, approved.requestId, { decision: 'approve', comment: 'Set and solids held across three cooks. Approved for the 50 kg kettle.' });
   await transitionTrial(developer, blackcurrant.trialId, 'decided', 'Base recipe promoted to production');
 
-  const version = await getProductionVersion(production, productionFormulaId!);
+  const version = await getProductionVersion(production, productVersionId!);
   const s = version.spec;
   const midBrix = (s.solidsMinBrix + s.solidsMaxBrix) / 2;
   const midPh = (s.phMin + s.phMax) / 2;

@@ -5,7 +5,7 @@
  */
 import type { EntityManager } from '@mikro-orm/postgresql';
 import { Formula } from '@/entities';
-import { createTrial, planVariants, recordMeasurement, transitionTrial } from '@/lib/trials/mutations';
+import { createTrial, planVariants, recordCook, transitionTrial } from '@/lib/trials/mutations';
 import { listVariants } from '@/lib/trials/queries';
 import type { Actor } from '@/lib/permissions';
 
@@ -27,7 +27,7 @@ async function cookAll(developer: Actor, trialId: string, labels: string[], day:
     const mb = v.computation.massBalance;
     const batch = 3000;
     const scale = batch / mb.totalChargeG;
-    await recordMeasurement(developer, trialId, {
+    await recordCook(developer, trialId, {
       variantId: v.id,
       cookDate: day,
       batchSizeG: batch,

@@ -3,9 +3,9 @@
 import { revalidatePath } from 'next/cache';
 import { z } from 'zod';
 import { runAction } from '@/lib/actions';
-import { correctMeasurementSchema, createTrialSchema, manualVariantSchema, measurementSchema, planSchema, proposalTrialSchema, transitionSchema, withdrawMeasurementSchema } from './schema';
-import { addVariant, correctMeasurement, createProposalTrial, createTrial, planVariants, recordMeasurement, removeVariant, transitionTrial, withdrawMeasurement } from './mutations';
-import { importMeasurementsCsv } from './csv';
+import { correctCookSchema, createTrialSchema, manualVariantSchema, cookSchema, planSchema, proposalTrialSchema, transitionSchema, withdrawCookSchema } from './schema';
+import { addVariant, correctCook, createProposalTrial, createTrial, planVariants, recordCook, removeVariant, transitionTrial, withdrawCook } from './mutations';
+import { importCooksCsv } from './csv';
 
 const trialId = z.uuid('Unknown trial.');
 const refresh = (id: unknown) => revalidatePath(`/trials/${String(id)}`, 'layout');
@@ -49,29 +49,29 @@ export async function removeVariantAction(id: unknown, variantId: unknown) {
   return result;
 }
 
-export async function recordMeasurementAction(id: unknown, input: unknown) {
-  const result = await runAction('trials.write', z.object({ id: trialId, cook: measurementSchema }), { id, cook: input }, (actor, d) => recordMeasurement(actor, d.id, d.cook));
+export async function recordCookAction(id: unknown, input: unknown) {
+  const result = await runAction('trials.write', z.object({ id: trialId, cook: cookSchema }), { id, cook: input }, (actor, d) => recordCook(actor, d.id, d.cook));
   if (result.ok) refresh(id);
   return result;
 }
 
-export async function correctMeasurementAction(id: unknown, measurementId: unknown, input: unknown) {
-  const schema = z.object({ id: trialId, measurementId: z.uuid('Unknown cook.'), change: correctMeasurementSchema });
-  const result = await runAction('trials.write', schema, { id, measurementId, change: input }, (actor, d) => correctMeasurement(actor, d.id, d.measurementId, d.change));
+export async function correctCookAction(id: unknown, cookId: unknown, input: unknown) {
+  const schema = z.object({ id: trialId, cookId: z.uuid('Unknown cook.'), change: correctCookSchema });
+  const result = await runAction('trials.write', schema, { id, cookId, change: input }, (actor, d) => correctCook(actor, d.id, d.cookId, d.change));
   if (result.ok) refresh(id);
   return result;
 }
 
-export async function withdrawMeasurementAction(id: unknown, measurementId: unknown, input: unknown) {
-  const schema = z.object({ id: trialId, measurementId: z.uuid('Unknown cook.'), change: withdrawMeasurementSchema });
-  const result = await runAction('trials.write', schema, { id, measurementId, change: input }, (actor, d) => withdrawMeasurement(actor, d.id, d.measurementId, d.change.reason));
+export async function withdrawCookAction(id: unknown, cookId: unknown, input: unknown) {
+  const schema = z.object({ id: trialId, cookId: z.uuid('Unknown cook.'), change: withdrawCookSchema });
+  const result = await runAction('trials.write', schema, { id, cookId, change: input }, (actor, d) => withdrawCook(actor, d.id, d.cookId, d.change.reason));
   if (result.ok) refresh(id);
   return result;
 }
 
-export async function importMeasurementsAction(id: unknown, csv: unknown) {
+export async function importCooksAction(id: unknown, csv: unknown) {
   const schema = z.object({ id: trialId, csv: z.string().min(1, 'Choose a CSV file.').max(2_000_000, 'The file is too large (2 MB at most).') });
-  const result = await runAction('trials.write', schema, { id, csv }, (actor, d) => importMeasurementsCsv(actor, d.id, d.csv));
+  const result = await runAction('trials.write', schema, { id, csv }, (actor, d) => importCooksCsv(actor, d.id, d.csv));
   if (result.ok) refresh(id);
   return result;
 }

@@ -1,21 +1,21 @@
 /**
- * Measurements in and out as CSV. Import is all-or-nothing: every row is checked first,
+ * Cooks in and out as CSV. Import is all-or-nothing: every row is checked first,
  * errors are reported by row and column, and nothing lands unless every row is good.
  */
 import Papa from 'papaparse';
 import { getEm } from '@/lib/db';
-import { Measurement, Trial, Variant } from '@/entities';
+import { Cook, Trial, Variant } from '@/entities';
 import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
 import { ValidationFailed } from '@/lib/errors';
 import { toCsv } from '@/lib/csv';
 import { parseDecimal } from '@/lib/input';
-import { measurementSchema } from './schema';
-import { measurementColumns } from './mutations';
+import { cookSchema } from './schema';
+import { cookColumns } from './mutations';
 import { getTrialOverview } from './queries';
 import { FACTOR_LABELS, TRIAL_FACTORS } from './vocabulary';
 
 /** CSV column → measurement field, with the parser for the cell text. */
-export const MEASUREMENT_CSV_COLUMNS = [
+export const COOK_CSV_COLUMNS = [
   { column: 'variant', field: 'variant', kind: 'text' },
   { column: 'cook_date', field: 'cookDate', kind: 'text' },
   { column: 'batch_size_g', field: 'batchSizeG', kind: 'number' },
@@ -42,11 +42,11 @@ export interface CsvRowError {
 }
 
 /** Parses and checks; returns the rows ready to insert or every error found. Pure apart from the label map. */
-export function parseMeasurementCsv(text: string, variantIdByLabel: Map<string, string>): { rows: Array<Parameters<typeof measurementColumns>[0] & { variantId: string }>; errors: CsvRowError[] } {
+export function parseCookCsv(text: string, variantIdByLabel: Map<string, string>): { rows: Array<Parameters<typeof cookColumns>[0] & { variantId: string }>; errors: CsvRowError[] } {
   const parsed = Papa.parse<Record<string, string>>(text.replace(/^\uFEFF/, ''), { header: true, skipEmptyLines: 'greedy', transformHeader: (h) => h.trim().toLowerCase() });
   const errors: CsvRowError[] = [];
   const headers = parsed.meta.fields ?? [];
-  const known = new Set<string>(MEASUREMENT_CSV_COLUMNS.map((c) => c.column));
+  const known = new Set<string>(COOK_CSV_COLUMNS.map((c) => c.column));
   for (const h of headers) if (!known.has(h)) errors.push({ row: 1, column: h, message: `Unknown column “${h}”. Known columns: ${[...known].join(', ')}.` });
   for (const required of ['variant', 'cook_date']) if (!headers.includes(required)) errors.push({ row: 1, column: required, message: `The column “${required}” is required.` });
   for (const e of parsed.errors) errors.push({ row: (e.row ?? 0) + 2, column: '', message: e.message });
@@ -54,12 +54,12 @@ export function parseMeasurementCsv(text: string, variantIdByLabel: Map<string, 
   if (parsed.data.length === 0) return { rows: [], errors: [{ row: 2, column: '', message: 'The file has a header but no rows.' }] };
   if (parsed.data.length > MAX_IMPORT_ROWS) return { rows: [], errors: [{ row: MAX_IMPORT_ROWS + 2, column: '', message: `At most ${MAX_IMPORT_ROWS} rows per import.` }] };
 
-  const rows: Array<Parameters<typeof measurementColumns>[0] & { variantId: string }> = [];
+  const rows: Array<Parameters<typeof cookColumns>[0] & { variantId: string }> = [];
   parsed.data.forEach((record, i) => {
     const rowNumber = i + 2; // the header is row 1, as a spreadsheet shows it
     const candidate: Record<string, unknown> = {};
     let rowOk = true;
-    for (const col of MEASUREMENT_CSV_COLUMNS) {
+    for (const col of COOK_CSV_COLUMNS) {
       const raw = (record[col.column] ?? '').trim();
       if (col.field === 'variant') {
         const id = variantIdByLabel.get(raw.toUpperCase());
@@ -79,11 +79,11 @@ export function parseMeasurementCsv(text: string, variantIdByLabel: Map<string, 
       } else candidate[col.field] = raw;
     }
     if (!rowOk) return;
-    const result = measurementSchema.safeParse(candidate);
+    const result = cookSchema.safeParse(candidate);
     if (!result.success) {
       for (const issue of result.error.issues) {
         const field = String(issue.path[0] ?? '');
-        const column = MEASUREMENT_CSV_COLUMNS.find((c) => c.field === field)?.column ?? field;
+        const column = COOK_CSV_COLUMNS.find((c) => c.field === field)?.column ?? field;
         errors.push({ row: rowNumber, column, message: issue.message });
       }
       return;
@@ -94,12 +94,12 @@ export function parseMeasurementCsv(text: string, variantIdByLabel: Map<string, 
   return { rows: errors.length ? [] : rows, errors };
 }
 
-export async function importMeasurementsCsv(actor: Actor, trialId: string, text: string): Promise<{ imported: number }> {
+export async function importCooksCsv(actor: Actor, trialId: string, text: string): Promise<{ imported: number }> {
   const em = await getEm();
   const trial = await em.findOne(Trial, { ...inWorkspace(actor), id: trialId });
   if (!trial) throw notFound('trial');
   const variants = await em.find(Variant, { ...inWorkspace(actor), trial: trialId, removedAt: null });
-  const { rows, errors } = parseMeasurementCsv(text, new Map(variants.map((v) => [v.label.toUpperCase(), v.id])));
+  const { rows, errors } = parseCookCsv(text, new Map(variants.map((v) => [v.label.toUpperCase(), v.id])));
   if (errors.length) {
     const fields: Record<string, string[]> = {};
     for (const e of errors) (fields[`row ${e.row}${e.column ? `, ${e.column}` : ''}`] ??= []).push(e.message);
@@ -108,7 +108,7 @@ export async function importMeasurementsCsv(actor: Actor, trialId: string, text:
   await em.transactional(async (tx) => {
     for (const r of rows) {
       const { variantId, ...rest } = r;
-      tx.create(Measurement, { workspace: actor.workspaceId, variant: variantId, recordedBy: actor.userId, ...measurementColumns(rest) });
+      tx.create(Cook, { workspace: actor.workspaceId, variant: variantId, recordedBy: actor.userId, ...cookColumns(rest) });
     }
   });
   return { imported: rows.length };
@@ -117,8 +117,8 @@ export async function importMeasurementsCsv(actor: Actor, trialId: string, text:
 /** One row per cook (variants without a cook get one row of predictions), long enough for any statistics package. */
 export async function exportTrialCsv(actor: Actor, trialId: string): Promise<{ filename: string; csv: string }> {
   const t = await getTrialOverview(actor, trialId);
-  type Row = { v: (typeof t.variants)[number]; m: (typeof t.variants)[number]['measurements'][number] | null };
-  const rows: Row[] = t.variants.flatMap((v): Row[] => (v.measurements.length ? v.measurements.map((m) => ({ v, m })) : [{ v, m: null }]));
+  type Row = { v: (typeof t.variants)[number]; m: (typeof t.variants)[number]['cooks'][number] | null };
+  const rows: Row[] = t.variants.flatMap((v): Row[] => (v.cooks.length ? v.cooks.map((m) => ({ v, m })) : [{ v, m: null }]));
   const level = (r: Row, f: (typeof TRIAL_FACTORS)[number]) => r.v.factorLevels.find((l) => l.factor === f)?.value ?? '';
   const predicted = (r: Row, key: string) => r.m?.comparison.rows.find((x) => x.key === key)?.predicted ?? '';
   const csv = toCsv(rows, [
@@ -148,5 +148,5 @@ export async function exportTrialCsv(actor: Actor, trialId: string): Promise<{ f
     { header: 'colour_notes', value: (r) => r.m?.colourNotes ?? '' },
     { header: 'notes', value: (r) => r.m?.notes ?? '' },
   ]);
-  return { filename: `${t.code}-measurements.csv`, csv };
+  return { filename: `${t.code}-cooks.csv`, csv };
 }

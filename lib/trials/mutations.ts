@@ -3,7 +3,7 @@ import 'server-only';
 import type { EntityManager } from '@mikro-orm/postgresql';
 import { LockMode } from '@mikro-orm/core';
 import { getEm, lockForTransaction } from '@/lib/db';
-import { AuditEvent, Formula, FormulaRevision, Measurement, MeasurementChange, Trial, TrialStatusChange, Variant } from '@/entities';
+import { AuditEvent, Formula, FormulaRevision, Cook, CookChange, Trial, TrialStatusChange, Variant } from '@/entities';
 import { describePoint, formulaAtPoint } from '@/lib/modelling/proposals';
 import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
 import { Conflict, ValidationFailed } from '@/lib/errors';
@@ -13,7 +13,7 @@ import type { RevisionLine, RevisionSummary, FormulaSettingsInput } from '@/lib/
 import { computeFormula } from '@/lib/formulas/compute';
 import { applyFactorLevels, measureFactor, planRuns, PlanError, targetSolidsOf, variantLinesKey, type FactorLevel, type MassLine } from './plan';
 import { TRIAL_STATUS_LABELS, TRIAL_TRANSITIONS, type TrialStatus } from './vocabulary';
-import { cookReadingProblems, cookValues, type CookReadings, type CorrectMeasurementInput, type CreateTrialInput, type ManualVariantInput, type MeasurementInput, type PlanInput, type ProposalTrialInput } from './schema';
+import { cookReadingProblems, cookValues, type CookReadings, type CorrectCookInput, type CreateTrialInput, type ManualVariantInput, type CookInput, type PlanInput, type ProposalTrialInput } from './schema';
 
 /** A, B, … Z, AA, AB, … in creation order; A is always the base. */
 export function variantLabel(index: number): string {
@@ -270,11 +270,11 @@ export async function removeVariant(actor: Actor, trialId: string, variantId: st
   });
 }
 
-export function measurementColumns(m: Omit<MeasurementInput, 'variantId'>) {
+export function cookColumns(m: Omit<CookInput, 'variantId'>) {
   return { cookDate: m.cookDate, ...cookValues(m) };
 }
 
-export async function recordMeasurement(actor: Actor, trialId: string, input: MeasurementInput): Promise<{ measurementId: string }> {
+export async function recordCook(actor: Actor, trialId: string, input: CookInput): Promise<{ cookId: string }> {
   const em = await getEm();
   const trial = await em.findOne(Trial, { ...inWorkspace(actor), id: trialId });
   if (!trial) throw notFound('trial');
@@ -282,16 +282,16 @@ export async function recordMeasurement(actor: Actor, trialId: string, input: Me
   if (!variant) throw new ValidationFailed('Choose a variant of this trial.', { variantId: ['Choose a variant of this trial.'] });
   const { variantId: _ignored, ...rest } = input;
   void _ignored;
-  const m = em.create(Measurement, { workspace: actor.workspaceId, variant, recordedBy: actor.userId, ...measurementColumns(rest) });
+  const m = em.create(Cook, { workspace: actor.workspaceId, variant, recordedBy: actor.userId, ...cookColumns(rest) });
   trial.updatedAt = new Date();
   await em.flush();
-  return { measurementId: m.id };
+  return { cookId: m.id };
 }
 
-type CookColumns = ReturnType<typeof measurementColumns>;
+type CookColumns = ReturnType<typeof cookColumns>;
 
-async function loadCookForChange(tx: EntityManager, actor: Actor, trialId: string, measurementId: string) {
-  const m = await tx.findOne(Measurement, { ...inWorkspace(actor), id: measurementId, variant: { trial: trialId } }, { lockMode: LockMode.PESSIMISTIC_WRITE });
+async function loadCookForChange(tx: EntityManager, actor: Actor, trialId: string, cookId: string) {
+  const m = await tx.findOne(Cook, { ...inWorkspace(actor), id: cookId, variant: { trial: trialId } }, { lockMode: LockMode.PESSIMISTIC_WRITE });
   if (!m) throw notFound('cook');
   if (m.withdrawnAt) throw new Conflict('This cook was withdrawn; it stays on record as it was. Record a new cook instead.');
   return m;
@@ -302,13 +302,13 @@ async function loadCookForChange(tx: EntityManager, actor: Actor, trialId: strin
  * values replaced are kept in a measurement_changes row with the reason. A change that changes
  * nothing is refused, so the history never fills with empty corrections.
  */
-export async function correctMeasurement(actor: Actor, trialId: string, measurementId: string, input: CorrectMeasurementInput): Promise<void> {
+export async function correctCook(actor: Actor, trialId: string, cookId: string, input: CorrectCookInput): Promise<void> {
   const em = await getEm();
   await em.transactional(async (tx) => {
-    const m = await loadCookForChange(tx, actor, trialId, measurementId);
+    const m = await loadCookForChange(tx, actor, trialId, cookId);
     const { reason, ...sent } = input;
     const stored: CookColumns = { cookDate: m.cookDate, ...cookValues(m) };
-    const next = measurementColumns({ ...stored, ...sent } as CookReadings);
+    const next = cookColumns({ ...stored, ...sent } as CookReadings);
     const problems = cookReadingProblems(next);
     if (problems.length) {
       throw new ValidationFailed(problems[0].message, Object.fromEntries(problems.map((p) => [p.path, [p.message]])));
@@ -318,7 +318,7 @@ export async function correctMeasurement(actor: Actor, trialId: string, measurem
       if (next[key] !== stored[key]) (before as Record<string, unknown>)[key] = stored[key];
     }
     if (!Object.keys(before).length) throw new ValidationFailed('Nothing changed: the cook already reads like that.', { readings: ['Change at least one value.'] });
-    tx.create(MeasurementChange, { workspace: actor.workspaceId, measurement: m, kind: 'corrected', before, reason, changedBy: actor.userId });
+    tx.create(CookChange, { workspace: actor.workspaceId, cook: m, kind: 'corrected', before, reason, changedBy: actor.userId });
     tx.assign(m, next);
     await touchTrial(tx, actor, trialId);
     await tx.flush();
@@ -326,11 +326,11 @@ export async function correctMeasurement(actor: Actor, trialId: string, measurem
 }
 
 /** Withdraws a cook: it stays on record, marked, and leaves every comparison and the promotion evidence. */
-export async function withdrawMeasurement(actor: Actor, trialId: string, measurementId: string, reason: string): Promise<void> {
+export async function withdrawCook(actor: Actor, trialId: string, cookId: string, reason: string): Promise<void> {
   const em = await getEm();
   await em.transactional(async (tx) => {
-    const m = await loadCookForChange(tx, actor, trialId, measurementId);
-    tx.create(MeasurementChange, { workspace: actor.workspaceId, measurement: m, kind: 'withdrawn', before: {}, reason, changedBy: actor.userId });
+    const m = await loadCookForChange(tx, actor, trialId, cookId);
+    tx.create(CookChange, { workspace: actor.workspaceId, cook: m, kind: 'withdrawn', before: {}, reason, changedBy: actor.userId });
     m.withdrawnAt = new Date();
     await touchTrial(tx, actor, trialId);
     await tx.flush();

@@ -1,13 +1,13 @@
 import 'server-only';
 import { getEm } from '@/lib/db';
-import { Formula, FormulaRevision, Measurement, MeasurementChange, Trial, TrialStatusChange, Variant } from '@/entities';
+import { Formula, FormulaRevision, Cook, CookChange, Trial, TrialStatusChange, Variant } from '@/entities';
 import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
 import { computeFormula } from '@/lib/formulas/compute';
 import { compareCook } from './compare';
 import { trialCode } from './access';
 import type { Loaded } from '@mikro-orm/core';
-import type { MeasurementEntity } from '@/entities/Measurement';
-import { cookValues, type CookChangeView, type MeasurementView, type TrialListQuery, type TrialOverview, type TrialSummary, type VariantView } from './schema';
+import type { CookEntity } from '@/entities/Cook';
+import { cookValues, type CookChangeView, type CookView, type TrialListQuery, type TrialOverview, type TrialSummary, type VariantView } from './schema';
 
 export async function listTrials(actor: Actor, query: TrialListQuery = {}): Promise<TrialSummary[]> {
   const em = await getEm();
@@ -48,10 +48,10 @@ export async function listTrials(actor: Actor, query: TrialListQuery = {}): Prom
     .filter((t) => !query.product || t.productClass === query.product);
 }
 
-type MeasurementRow = Loaded<MeasurementEntity, 'recordedBy'>;
-type ChangeRow = { measurement: { id: string }; kind: CookChangeView['kind']; before: CookChangeView['before']; reason: string; changedBy: { name: string }; changedAt: Date };
+type CookRow = Loaded<CookEntity, 'recordedBy'>;
+type ChangeRow = { cook: { id: string }; kind: CookChangeView['kind']; before: CookChangeView['before']; reason: string; changedBy: { name: string }; changedAt: Date };
 
-function toMeasurementView(m: MeasurementRow, v: VariantView, changeRows: ChangeRow[]): MeasurementView {
+function toCookView(m: CookRow, v: VariantView, changeRows: ChangeRow[]): CookView {
   const changes: CookChangeView[] = changeRows.map((c) => ({ kind: c.kind, reason: c.reason, byName: c.changedBy.name, at: c.changedAt.toISOString(), before: c.before }));
   const withdrawal = changes.find((c) => c.kind === 'withdrawn');
   const readings = cookValues(m);
@@ -73,12 +73,12 @@ export async function listVariants(actor: Actor, trialId: string): Promise<Varia
   const em = await getEm();
   const rows = (await em.find(Variant, { ...inWorkspace(actor), trial: trialId, removedAt: null }, { orderBy: { position: 'asc' } }));
   const measurements = (await em.find(
-    Measurement,
+    Cook,
     { ...inWorkspace(actor), variant: { $in: rows.map((r) => r.id) } },
     { populate: ['recordedBy'], orderBy: { cookDate: 'asc', createdAt: 'asc' } },
   ));
-  const changeRows = measurements.length
-    ? ((await em.find(MeasurementChange, { ...inWorkspace(actor), measurement: { $in: measurements.map((m) => m.id) } }, { populate: ['changedBy'], orderBy: { changedAt: 'asc' } })))
+  const changeRows = cooks.length
+    ? ((await em.find(CookChange, { ...inWorkspace(actor), cook: { $in: cooks.map((m) => m.id) } }, { populate: ['changedBy'], orderBy: { changedAt: 'asc' } })))
     : [];
   return rows.map((r) => {
     const outcome = computeFormula(r.settings, r.lines);
@@ -93,12 +93,12 @@ export async function listVariants(actor: Actor, trialId: string): Promise<Varia
       summary: r.summary,
       computation: outcome.ok ? outcome.computation : null,
       computationError: outcome.ok ? null : outcome.message,
-      measurements: [],
-      withdrawnMeasurements: [],
+      cooks: [],
+      withdrawnCooks: [],
     };
-    const cooks = measurements.filter((m) => m.variant.id === r.id).map((m) => toMeasurementView(m, view, changeRows.filter((c) => c.measurement.id === m.id)));
-    view.measurements = cooks.filter((m) => !m.withdrawn);
-    view.withdrawnMeasurements = cooks.filter((m) => m.withdrawn);
+    const cooks = cooks.filter((m) => m.variant.id === r.id).map((m) => toCookView(m, view, changeRows.filter((c) => c.cook.id === m.id)));
+    view.cooks = cooks.filter((m) => !m.withdrawn);
+    view.withdrawnCooks = cooks.filter((m) => m.withdrawn);
     return view;
   });
 }
@@ -154,7 +154,7 @@ export async function trialsAtTheStove(actor: Actor): Promise<StoveItem[]> {
   if (!trials.length) return [];
   const variants = (await em.find(Variant, { ...inWorkspace(actor), trial: { $in: trials.map((t) => t.id) }, removedAt: null }, { orderBy: { position: 'asc' }, fields: ['trial', 'label'] }));
   const cooked = variants.length
-    ? new Set(((await em.find(Measurement, { ...inWorkspace(actor), variant: { $in: variants.map((v) => v.id) }, withdrawnAt: null }, { fields: ['variant'] }))).map((m) => m.variant.id))
+    ? new Set(((await em.find(Cook, { ...inWorkspace(actor), variant: { $in: variants.map((v) => v.id) }, withdrawnAt: null }, { fields: ['variant'] }))).map((m) => m.variant.id))
     : new Set<string>();
   return trials.map((t) => ({
     id: t.id, code: trialCode(t.number), title: t.title,

@@ -99,7 +99,7 @@ const checkCook = (m: ReadingsLike, ctx: z.RefinementCtx) => {
   for (const p of cookReadingProblems(m)) ctx.addIssue({ code: 'custom', path: [p.path], message: p.message });
 };
 
-export const measurementSchema = z
+export const cookSchema = z
   .object({ variantId: z.uuid('Choose the variant that was cooked.'), ...cookReadings })
   .strict()
   .superRefine(checkCook);
@@ -110,17 +110,17 @@ const changeReason = longText(500, { min: 1, required: 'Say why (it is kept with
  * PATCH a cook: the fields sent replace the stored ones (null clears one), the rest stay. The result
  * must still be a cook (checked in the mutation); the previous values are kept in measurement_changes.
  */
-export const correctMeasurementSchema = z
+export const correctCookSchema = z
   .object(cookReadings)
   .partial()
   .extend({ reason: changeReason })
   .strict()
   .refine((c) => Object.keys(c).some((k) => k !== 'reason'), { path: ['readings'], message: 'Change at least one value.' });
 
-export const withdrawMeasurementSchema = z.object({ reason: changeReason }).strict();
+export const withdrawCookSchema = z.object({ reason: changeReason }).strict();
 
-/** POST /api/v1/trials/{trialId}/measurements/import: the CSV as text (the API's 1 MB body limit is the tighter bound). */
-export const importMeasurementsSchema = z.object({ csv: z.string().min(1, 'Send the CSV text.').max(2_000_000, 'At most 2 MB.') }).strict();
+/** POST /api/v1/trials/{trialId}/cooks/import: the CSV as text (the API's 1 MB body limit is the tighter bound). */
+export const importCooksSchema = z.object({ csv: z.string().min(1, 'Send the CSV text.').max(2_000_000, 'At most 2 MB.') }).strict();
 
 export const trialListQuerySchema = z.object({
   status: z.enum(TRIAL_STATUSES).optional(),
@@ -134,8 +134,8 @@ export const trialListQuerySchema = z.object({
 export type CreateTrialInput = z.infer<typeof createTrialSchema>;
 export type PlanInput = z.infer<typeof planSchema>;
 export type ManualVariantInput = z.infer<typeof manualVariantSchema>;
-export type MeasurementInput = z.infer<typeof measurementSchema>;
-export type CorrectMeasurementInput = z.infer<typeof correctMeasurementSchema>;
+export type CookInput = z.infer<typeof cookSchema>;
+export type CorrectCookInput = z.infer<typeof correctCookSchema>;
 export type TrialListQuery = z.infer<typeof trialListQuerySchema>;
 
 export interface TrialSummary {
@@ -152,7 +152,7 @@ export interface TrialSummary {
   updatedAt: string;
 }
 
-export type CookReadings = Omit<MeasurementInput, 'variantId'>;
+export type CookReadings = Omit<CookInput, 'variantId'>;
 
 /** Every stored value of a cook besides its date, in one list: storing, viewing and correcting copy exactly these. */
 export const COOK_VALUE_FIELDS = Object.keys(cookReadings).filter((k) => k !== 'cookDate') as Array<Exclude<keyof CookReadings, 'cookDate'>>;
@@ -175,7 +175,7 @@ export interface CookChangeView {
   before: Partial<CookReadings>;
 }
 
-export interface MeasurementView extends CookReadings {
+export interface CookView extends CookReadings {
   id: string;
   variantId: string;
   recordedByName: string;
@@ -197,9 +197,9 @@ export interface VariantView {
   summary: RevisionSummary;
   computation: BatchComputation | null;
   computationError: string | null;
-  /** Cooks that count: withdrawn ones are in `withdrawnMeasurements`. */
-  measurements: MeasurementView[];
-  withdrawnMeasurements: MeasurementView[];
+  /** Cooks that count: withdrawn ones are in `withdrawnCooks`. */
+  cooks: CookView[];
+  withdrawnCooks: CookView[];
 }
 
 export interface StatusChangeView {

@@ -2,7 +2,7 @@ import 'server-only';
 /** Upload writes, shared by the API and any server action: checks, object storage, then the row. */
 import { randomUUID } from 'node:crypto';
 import { getEm } from '@/lib/db';
-import { Measurement, Upload } from '@/entities';
+import { Cook, Upload } from '@/entities';
 import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
 import { isUuid } from '@/lib/ids';
 import { logger } from '@/lib/log';
@@ -13,11 +13,11 @@ import { findUploadRow, toUploadView } from './queries';
 import { UPLOAD_LIMITS, uploadFieldsSchema, type CreateUploadInput, type UploadLimits, type UploadView } from './schema';
 
 /** 404 unless the cook belongs to that trial (and to that variant, when one is named). */
-async function assertMeasurementOfTrial(actor: Actor, trialId: string, measurementId: string, variantId?: string): Promise<void> {
+async function assertCookOfTrial(actor: Actor, trialId: string, cookId: string, variantId?: string): Promise<void> {
   const em = await getEm();
-  const where: Record<string, unknown> = { ...inWorkspace(actor), id: measurementId, variant: { trial: trialId } };
+  const where: Record<string, unknown> = { ...inWorkspace(actor), id: cookId, variant: { trial: trialId } };
   if (variantId) where.variant = { id: variantId, trial: trialId };
-  const n = await em.count(Measurement, where);
+  const n = await em.count(Cook, where);
   if (!n) throw notFound('measurement');
 }
 
@@ -31,11 +31,11 @@ export async function createUpload(actor: Actor, input: CreateUploadInput, limit
   await loadTrial(actor, input.trialId);
   const fields = uploadFieldsSchema.parse({
     variantId: input.variantId ?? undefined,
-    measurementId: input.measurementId ?? undefined,
+    cookId: input.cookId ?? undefined,
     subject: input.subject ?? undefined,
   });
   if (fields.variantId) await assertVariantOfTrial(actor, input.trialId, fields.variantId);
-  if (fields.measurementId) await assertMeasurementOfTrial(actor, input.trialId, fields.measurementId, fields.variantId);
+  if (fields.cookId) await assertCookOfTrial(actor, input.trialId, fields.cookId, fields.variantId);
 
   const cleanName = cleanFileName(input.file.name);
   const inspected = await inspectUpload(cleanName, input.file.bytes, limits);
@@ -58,7 +58,7 @@ export async function createUpload(actor: Actor, input: CreateUploadInput, limit
       workspace: actor.workspaceId,
       trial: input.trialId,
       variantId: fields.variantId ?? null,
-      measurementId: fields.measurementId ?? null,
+      cookId: fields.cookId ?? null,
       kind: inspected.kind,
       subject: fields.subject ?? null,
       originalName,

@@ -14,7 +14,7 @@ export interface UploadRow {
   kind: UploadKind;
   subject?: string | null;
   variantId?: string | null;
-  measurementId?: string | null;
+  cookId?: string | null;
   originalName: string;
   contentType: string;
   sizeBytes: number;
@@ -32,7 +32,7 @@ export function toUploadView(row: UploadRow, uploadedByName?: string): UploadVie
     kind: row.kind,
     subject: (row.subject as UploadSubject | null | undefined) ?? null,
     variantId: row.variantId ?? null,
-    measurementId: row.measurementId ?? null,
+    cookId: row.cookId ?? null,
     // Cleaned again on the way out: rows stored before the name rules are shown safely too.
     originalName: cleanFileName(row.originalName),
     contentType: row.contentType,
@@ -61,7 +61,7 @@ export async function readUploads(actor: Actor, trialId: string, query: UploadLi
   const em = await getEm();
   const where: Record<string, unknown> = { ...inWorkspace(actor), trial: trialId };
   if (filter.variantId) where.variantId = filter.variantId;
-  if (filter.measurementId) where.measurementId = filter.measurementId;
+  if (filter.cookId) where.cookId = filter.cookId;
   const rows = await em.find(Upload, where, { populate: ['uploadedBy'], orderBy: { createdAt: 'asc', id: 'asc' }, limit: 1000 });
   return rows.map((r) => toUploadView(r));
 }

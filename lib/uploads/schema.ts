@@ -52,7 +52,7 @@ const optionalId = (what: string) => z.preprocess(blankToUndefined, z.uuid(`must
 /** The text fields sent beside the file. */
 export const uploadFieldsSchema = z.object({
   variantId: optionalId('variant'),
-  measurementId: optionalId('measurement'),
+  cookId: optionalId('measurement'),
   subject: z.preprocess(
     blankToUndefined,
     z.enum(UPLOAD_SUBJECTS, `must be one of: ${UPLOAD_SUBJECTS.join(', ')}`).optional(),
@@ -63,7 +63,7 @@ export type UploadFields = z.infer<typeof uploadFieldsSchema>;
 /** Narrows a trial's uploads (query string of the list). */
 export const uploadListQuerySchema = z.object({
   variantId: optionalId('variant'),
-  measurementId: optionalId('measurement'),
+  cookId: optionalId('measurement'),
 });
 export type UploadListQuery = z.infer<typeof uploadListQuerySchema>;
 
@@ -76,7 +76,7 @@ export interface UploadFile {
 export interface CreateUploadInput {
   trialId: string;
   variantId?: string | null;
-  measurementId?: string | null;
+  cookId?: string | null;
   subject?: string | null;
   file: UploadFile;
 }
@@ -87,7 +87,7 @@ export interface UploadView {
   kind: UploadKind;
   subject: UploadSubject | null;
   variantId: string | null;
-  measurementId: string | null;
+  cookId: string | null;
   originalName: string;
   /** The type sniffed from the bytes, e.g. image/jpeg, application/pdf, text/csv. */
   contentType: string;

@@ -9,7 +9,7 @@ import { getEm } from '@/lib/db';
 import { currentActor } from '@/lib/auth';
 import { isUuid } from '@/lib/ids';
 import { can, ROLE_LABELS, type Actor, type Permission } from '@/lib/permissions';
-import { BatchRecord, Formula, Ingredient, PackagingItem, PanelSession, Product, ProductionFormula, PromotionRequest, Trial } from '@/entities';
+import { BatchRecord, Formula, Ingredient, PackagingItem, Tasting, Product, ProductVersion, PromotionRequest, Trial } from '@/entities';
 import type { WorkspaceEntity } from '@/entities/Workspace';
 import { listMyWorkspaces } from './queries';
 import { REQUEST_PATH_HEADER } from './record-path';
@@ -19,11 +19,11 @@ import { REQUEST_PATH_HEADER } from './record-path';
 const RECORD_ROUTES = [
   { prefix: '/trials/', kind: 'trial', entity: Trial, permission: 'trials.read', opens: 'trials' },
   { prefix: '/formulas/', kind: 'formula', entity: Formula, permission: 'formulas.read', opens: 'formulas' },
-  { prefix: '/panels/', kind: 'tasting session', entity: PanelSession, permission: 'panels.read', opens: 'tasting sessions' },
+  { prefix: '/tastings/', kind: 'tasting', entity: Tasting, permission: 'tastings.read', opens: 'tastings' },
   { prefix: '/production/reviews/', kind: 'promotion request', entity: PromotionRequest, permission: 'promotion.read', opens: 'promotion requests' },
   { prefix: '/production/products/', kind: 'product', entity: Product, permission: 'production.read', opens: 'products' },
   { prefix: '/production/batches/', kind: 'batch', entity: BatchRecord, permission: 'production.read', opens: 'batches' },
-  { prefix: '/production/versions/', kind: 'production version', entity: ProductionFormula, permission: 'production.read', opens: 'production versions' },
+  { prefix: '/production/versions/', kind: 'production version', entity: ProductVersion, permission: 'production.read', opens: 'production versions' },
   { prefix: '/ingredients/', kind: 'ingredient', entity: Ingredient, permission: 'ingredients.write', opens: 'ingredient entries' },
   { prefix: '/prices/packaging/', kind: 'packaging item', entity: PackagingItem, permission: 'prices.read', opens: 'prices' },
   { prefix: '/prices/', kind: 'ingredient’s prices', entity: Ingredient, permission: 'prices.read', opens: 'prices' },

@@ -224,7 +224,7 @@ export async function watchCsp(page: Page): Promise<Violation[]> {
  * the organiser and opened; a staff taster seated when named. Tests that need an open tasting make
  * their own, so the seeded ones (which other tests close) stay as they are.
  */
-export async function openApricotTasting(browser: Browser, o: { organiserEmail: string; title: string; attribute: string | string[]; seat?: string }): Promise<{ joinCode: string; sessionId: string }> {
+export async function openApricotTasting(browser: Browser, o: { organiserEmail: string; title: string; attribute: string | string[]; seat?: string }): Promise<{ joinCode: string; tastingId: string }> {
   const ctx = await newContext(browser);
   const page = await ctx.newPage();
   await signIn(page, o.organiserEmail);
@@ -237,22 +237,22 @@ export async function openApricotTasting(browser: Browser, o: { organiserEmail: 
   const { attributes } = await (await page.request.get('/api/v1/attributes')).json();
   const wanted = Array.isArray(o.attribute) ? o.attribute : [o.attribute];
   const attributeIds = wanted.map((name) => (attributes as Array<{ id: string; name: string }>).find((a) => a.name === name)!.id);
-  const created = await page.request.post(`/api/v1/trials/${trialId}/panels`, {
+  const created = await page.request.post(`/api/v1/trials/${trialId}/tastings`, {
     ...write,
     data: { title: o.title, method: 'rated', variantIds: variants.slice(0, 2).map((v: { id: string }) => v.id), attributeIds, notice: 'Apricot spreads with fruit, sugar and pectin.' },
   });
   if (created.status() !== 201) throw new Error(`tasting not created: ${await created.text()}`);
-  const { sessionId } = await created.json();
-  const { joinCode } = await (await page.request.post(`/api/v1/panels/${sessionId}/open`, write)).json();
+  const { tastingId } = await created.json();
+  const { joinCode } = await (await page.request.post(`/api/v1/tastings/${tastingId}/open`, write)).json();
   if (o.seat) {
-    await page.goto(`/panels/${sessionId}`);
+    await page.goto(`/tastings/${tastingId}`);
     const invite = page.getByRole('region', { name: 'Invite staff tasters' });
     await invite.getByRole('checkbox', { name: new RegExp(o.seat) }).check();
     await invite.getByRole('button', { name: 'Send invitations' }).click();
     await page.getByText('Invitations sent.').waitFor();
   }
   await ctx.close();
-  return { joinCode, sessionId };
+  return { joinCode, tastingId };
 }
 
 /** Starts a trial of the test's own from a demo formula (signed in as a developer) and waits for its page. */

@@ -56,7 +56,7 @@ describe('Content Security Policy', () => {
     const trialUrl = page.url();
 
     // Results: chart.js draws into canvases.
-    await page.getByTestId('panel-list').getByRole('link', { name: 'Spread tasting, 19 November' }).click();
+    await page.getByTestId('tasting-list').getByRole('link', { name: 'Spread tasting, 19 November' }).click();
     await page.getByRole('link', { name: 'Results' }).click();
     const canvas = page.getByTestId('means-chart').first().locator('canvas');
     await canvas.waitFor();
@@ -69,13 +69,13 @@ describe('Content Security Policy', () => {
     const write = { headers: { origin: new URL(trialUrl).origin } };
     const { variants } = await (await api.get(`/api/v1/trials/${trialId}/variants`)).json();
     const { attributes } = await (await api.get('/api/v1/attributes')).json();
-    const created = await api.post(`/api/v1/trials/${trialId}/panels`, {
+    const created = await api.post(`/api/v1/trials/${trialId}/tastings`, {
       ...write,
       data: { title: 'Policy check tasting', method: 'rated', variantIds: variants.slice(0, 2).map((v: { id: string }) => v.id), attributeIds: [attributes[0].id], notice: 'Contains fruit and sugar.' },
     });
     expect(created.status(), await created.text()).toBe(201);
-    const { sessionId } = await created.json();
-    const { joinCode } = await (await api.post(`/api/v1/panels/${sessionId}/open`, write)).json();
+    const { tastingId } = await created.json();
+    const { joinCode } = await (await api.post(`/api/v1/tastings/${tastingId}/open`, write)).json();
     const phoneCtx = await newContext(browser(), { width: 360, height: 740 });
     const phone = await phoneCtx.newPage();
     const phoneViolations = await watchCsp(phone);
@@ -108,7 +108,7 @@ describe('Content Security Policy', () => {
 
     expect(violations).toEqual([]);
     expect(phoneViolations).toEqual([]);
-    await api.post(`/api/v1/panels/${sessionId}/close`, write);
+    await api.post(`/api/v1/tastings/${tastingId}/close`, write);
     await phoneCtx.close();
     await ctx.close();
   });

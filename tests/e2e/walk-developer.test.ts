@@ -68,7 +68,7 @@ describe.each(WINDOWS)('the developer walks the loop (%s)', (size, viewport) => 
     // A closed tasting's results, then the comparison of the variants.
     await walk.nav('Trials');
     await page.getByRole('link', { name: /Apricot spread: how low can the sugar go\?/ }).first().click();
-    await page.getByTestId('panel-list').getByRole('link', { name: 'Spread tasting, 19 November' }).click();
+    await page.getByTestId('tasting-list').getByRole('link', { name: 'Spread tasting, 19 November' }).click();
     await page.getByRole('link', { name: 'Results' }).click();
     await page.getByTestId('verdict').first().waitFor();
     await page.getByTestId('means-chart').first().locator('canvas').waitFor();

@@ -58,7 +58,7 @@ describe('tastings', () => {
     const page = await ctx.newPage();
     const problems = await watch(page);
     await signIn(page, user('developer').email);
-    await page.goto('/panels');
+    await page.goto('/tastings');
     await page.getByTestId('tasting-list').waitFor();
     await page.getByLabel('State').selectOption({ label: 'Taking answers' });
     await page.getByRole('button', { name: 'Show' }).click();
@@ -75,7 +75,7 @@ describe('tastings', () => {
     const page = await ctx.newPage();
     const problems = await watch(page);
     await signIn(page, user('taster').email);
-    await page.goto('/tastings');
+    await page.goto('/tastings/mine');
     await page.getByTestId('my-seats').getByText('Second look: two spreads').waitFor();
     await noSidewaysScroll(page);
     await screenshot(page, 'my-tastings-phone');

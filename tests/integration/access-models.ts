@@ -8,7 +8,7 @@ import type { WorkspaceFixture } from './harness';
 import { actorOf } from './harness';
 import type { Role } from '@/lib/permissions';
 import { createFixtureFormula } from './fixtures';
-import { createTrial, planVariants, recordMeasurement } from '@/lib/trials/mutations';
+import { createTrial, planVariants, recordCook } from '@/lib/trials/mutations';
 import { listVariants } from '@/lib/trials/queries';
 import { familyOfFormula, modelDataset } from '@/lib/modelling/queries';
 
@@ -33,7 +33,7 @@ export function modelFamily(a: WorkspaceFixture) {
       for (const [i, v] of variants.entries()) {
         const acid = v.factorLevels.find((l) => l.factor === 'acid_dose')?.coded ?? 0;
         const pectin = v.factorLevels.find((l) => l.factor === 'pectin_dose')?.coded ?? 0;
-        await recordMeasurement(actor, trialId, {
+        await recordCook(actor, trialId, {
           variantId: v.id, cookDate: '2026-10-01', brixReading: 64.5 + (i % 3) * 0.3, brixSampleTempC: 20,
           ph: Math.round((3.2 - 0.12 * acid + 0.02 * ((i * 7) % 5 - 2)) * 100) / 100, setTestScore: Math.max(1, Math.min(5, Math.round(3 + pectin + ((i * 3) % 3 - 1) * 0.4))),
         });

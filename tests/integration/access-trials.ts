@@ -23,11 +23,11 @@ export async function trialWithVariants(a: WorkspaceFixture): Promise<{ trialId:
 const cook = (variantId: string) => ({ variantId, cookDate: '2026-11-20', brixReading: 64.5, brixSampleTempC: 18, ph: 3.2, yieldG: 1500 });
 
 /** A trial with one cook recorded, as the params of the cook's routes. */
-async function recordedCook(a: WorkspaceFixture): Promise<{ trialId: string; measurementId: string }> {
+async function recordedCook(a: WorkspaceFixture): Promise<{ trialId: string; cookId: string }> {
   const t = await trialWithVariants(a);
-  const { recordMeasurement } = await import('@/lib/trials/mutations');
-  const { measurementId } = await recordMeasurement(actorOf(a, 'developer'), t.trialId, cook(t.otherId));
-  return { trialId: t.trialId, measurementId };
+  const { recordCook } = await import('@/lib/trials/mutations');
+  const { cookId } = await recordCook(actorOf(a, 'developer'), t.trialId, cook(t.otherId));
+  return { trialId: t.trialId, cookId };
 }
 
 export const TRIALS_ROUTE_CASES: RouteCase[] = [
@@ -84,9 +84,9 @@ export const TRIALS_ROUTE_CASES: RouteCase[] = [
       return { params: { trialId: t.trialId, variantId: t.otherId } };
     },
   },
-  { route: 'GET /api/v1/trials/[trialId]/measurements', allowed: READ, otherWorkspace: 404, prepare: async (a) => ({ params: { trialId: (await trialWithVariants(a)).trialId } }) },
+  { route: 'GET /api/v1/trials/[trialId]/cooks', allowed: READ, otherWorkspace: 404, prepare: async (a) => ({ params: { trialId: (await trialWithVariants(a)).trialId } }) },
   {
-    route: 'POST /api/v1/trials/[trialId]/measurements',
+    route: 'POST /api/v1/trials/[trialId]/cooks',
     allowed: WRITE,
     otherWorkspace: 404,
     prepare: async (a) => {
@@ -95,19 +95,19 @@ export const TRIALS_ROUTE_CASES: RouteCase[] = [
     },
   },
   {
-    route: 'PATCH /api/v1/trials/[trialId]/measurements/[measurementId]',
+    route: 'PATCH /api/v1/trials/[trialId]/cooks/[cookId]',
     allowed: WRITE,
     otherWorkspace: 404,
     prepare: async (a) => ({ params: await recordedCook(a), body: { ph: 3.3, reason: 'Re-read after calibrating the meter.' } }),
   },
   {
-    route: 'POST /api/v1/trials/[trialId]/measurements/[measurementId]/withdraw',
+    route: 'POST /api/v1/trials/[trialId]/cooks/[cookId]/withdraw',
     allowed: WRITE,
     otherWorkspace: 404,
     prepare: async (a) => ({ params: await recordedCook(a), body: { reason: 'Measured the wrong jar.' } }),
   },
   {
-    route: 'POST /api/v1/trials/[trialId]/measurements/import',
+    route: 'POST /api/v1/trials/[trialId]/cooks/import',
     allowed: WRITE,
     otherWorkspace: 404,
     prepare: async (a) => ({ params: { trialId: (await trialWithVariants(a)).trialId }, body: { csv: 'variant,cook_date,ph\nB,2026-11-20,3.2\n' } }),
@@ -141,19 +141,19 @@ export const TRIALS_ACTION_CASES: ActionCase[] = [
     },
   },
   { action: 'lib/trials/actions.ts#removeVariantAction', allowed: WRITE, otherWorkspace: 404, argsAsync: async (a) => { const t = await trialWithVariants(a); return [t.trialId, t.otherId]; } },
-  { action: 'lib/trials/actions.ts#recordMeasurementAction', allowed: WRITE, otherWorkspace: 404, argsAsync: async (a) => { const t = await trialWithVariants(a); return [t.trialId, cook(t.otherId)]; } },
+  { action: 'lib/trials/actions.ts#recordCookAction', allowed: WRITE, otherWorkspace: 404, argsAsync: async (a) => { const t = await trialWithVariants(a); return [t.trialId, cook(t.otherId)]; } },
   {
-    action: 'lib/trials/actions.ts#correctMeasurementAction',
+    action: 'lib/trials/actions.ts#correctCookAction',
     allowed: WRITE,
     otherWorkspace: 404,
-    argsAsync: async (a) => { const c = await recordedCook(a); return [c.trialId, c.measurementId, { ph: 3.3, reason: 'Re-read after calibrating the meter.' }]; },
+    argsAsync: async (a) => { const c = await recordedCook(a); return [c.trialId, c.cookId, { ph: 3.3, reason: 'Re-read after calibrating the meter.' }]; },
   },
   {
-    action: 'lib/trials/actions.ts#withdrawMeasurementAction',
+    action: 'lib/trials/actions.ts#withdrawCookAction',
     allowed: WRITE,
     otherWorkspace: 404,
-    argsAsync: async (a) => { const c = await recordedCook(a); return [c.trialId, c.measurementId, { reason: 'Measured the wrong jar.' }]; },
+    argsAsync: async (a) => { const c = await recordedCook(a); return [c.trialId, c.cookId, { reason: 'Measured the wrong jar.' }]; },
   },
-  { action: 'lib/trials/actions.ts#importMeasurementsAction', allowed: WRITE, otherWorkspace: 404, argsAsync: async (a) => [(await trialWithVariants(a)).trialId, 'variant,cook_date,ph\nB,2026-11-20,3.2\n'] },
+  { action: 'lib/trials/actions.ts#importCooksAction', allowed: WRITE, otherWorkspace: 404, argsAsync: async (a) => [(await trialWithVariants(a)).trialId, 'variant,cook_date,ph\nB,2026-11-20,3.2\n'] },
 ];
 

@@ -9,15 +9,15 @@ import { randomUUID } from 'node:crypto';
 import { createWorkspace, callRoute, actorOf, type WorkspaceFixture } from './harness';
 import { createFixtureFormula } from './fixtures';
 import { createTrial, planVariants } from '@/lib/trials/mutations';
-import { createPanelSession, openPanelSession, joinAsGuest } from '@/lib/panels/mutations';
-import { listAttributes } from '@/lib/panels/queries';
-import { MAX_KEYS_PER_ANSWER, recordConsent, tasterView } from '@/lib/panels/taster';
-import * as answersRoute from '@/app/api/v1/tasting/[seatToken]/answers/route';
+import { createTasting, openTasting, joinAsGuest } from '@/lib/tastings/mutations';
+import { listAttributes } from '@/lib/tastings/queries';
+import { MAX_KEYS_PER_ANSWER, recordConsent, tasterView } from '@/lib/taster/seat';
+import * as answersRoute from '@/app/api/v1/tastings/seats/[seatToken]/answers/route';
 import { getEm } from '@/lib/db';
-import { PanelAnswer, Variant } from '@/entities';
+import { TastingAnswer, Variant } from '@/entities';
 
 let a: WorkspaceFixture;
-let session: { sessionId: string; joinCode: string; likingId: string };
+let session: { tastingId: string; joinCode: string; likingId: string };
 
 beforeAll(async () => {
   a = await createWorkspace('Answers forward');
@@ -26,9 +26,9 @@ beforeAll(async () => {
   await planVariants(dev, trialId, { kind: 'full_factorial', factors: [{ factor: 'sugar_ratio', low: 0.8, high: 1.2 }], centrePoint: false });
   const variants = await (await getEm()).find(Variant, { trial: trialId }, { orderBy: { position: 'asc' } });
   const liking = (await listAttributes(dev)).find((x) => x.libraryKey === 'overall-liking')!;
-  const { sessionId } = await createPanelSession(dev, trialId, { title: 'Replays', method: 'rated', variantIds: variants.slice(0, 2).map((v) => v.id), attributeIds: [liking.id], notice: 'Contains fruit.' });
-  const { joinCode } = await openPanelSession(dev, sessionId);
-  session = { sessionId, joinCode, likingId: liking.id };
+  const { tastingId } = await createTasting(dev, trialId, { title: 'Replays', method: 'rated', variantIds: variants.slice(0, 2).map((v) => v.id), attributeIds: [liking.id], notice: 'Contains fruit.' });
+  const { joinCode } = await openTasting(dev, tastingId);
+  session = { tastingId, joinCode, likingId: liking.id };
 });
 
 async function newSeat() {
@@ -55,7 +55,7 @@ describe('answers only move forward', () => {
     expect((await put(k2, 8)).body).toEqual({ stored: true, duplicate: true, stale: false });
     const view = await tasterView(seatToken);
     expect(view.answers.filter((x) => x.code === code)).toEqual([{ code, attributeId: session.likingId, value: 8 }]);
-    const rows = await (await getEm()).find(PanelAnswer, { session: session.sessionId, item: code, idempotencyKey: { $in: [k1, k2] } });
+    const rows = await (await getEm()).find(TastingAnswer, { session: session.tastingId, item: code, idempotencyKey: { $in: [k1, k2] } });
     expect(rows.map((r) => [r.value, r.idempotencyKey])).toEqual([[8, k2]]);
     expect(rows[0].idempotencyKeys).toEqual([k1, k2]);
   });

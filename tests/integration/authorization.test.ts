@@ -10,7 +10,7 @@ import { ROUTE_CASES, EXEMPT_ROUTES, BENCH_ONLY_ROUTES, ACTION_CASES, type Route
 import { discoverActions, discoverRoutes, operationKey } from './routes';
 import { API_OPERATIONS } from '@/lib/api/openapi';
 import { ROLES } from '@/lib/permissions';
-import { seatFixture } from './access-panels';
+import { seatFixture } from './access-tastings';
 
 let a: WorkspaceFixture;
 let b: WorkspaceFixture;

@@ -2,13 +2,13 @@
 import { describe, it, expect, beforeAll } from 'vitest';
 import { createWorkspace, callRoute, actorOf, type WorkspaceFixture } from './harness';
 import { createPromotableTrial, freshProductCode, promotionInput } from './production-fixtures';
-import * as measurementsRoute from '@/app/api/v1/trials/[trialId]/measurements/route';
-import * as measurementRoute from '@/app/api/v1/trials/[trialId]/measurements/[measurementId]/route';
-import * as withdrawRoute from '@/app/api/v1/trials/[trialId]/measurements/[measurementId]/withdraw/route';
-import * as importRoute from '@/app/api/v1/trials/[trialId]/measurements/import/route';
+import * as cooksRoute from '@/app/api/v1/trials/[trialId]/cooks/route';
+import * as cookRoute from '@/app/api/v1/trials/[trialId]/cooks/[cookId]/route';
+import * as withdrawRoute from '@/app/api/v1/trials/[trialId]/cooks/[cookId]/withdraw/route';
+import * as importRoute from '@/app/api/v1/trials/[trialId]/cooks/import/route';
 import * as trialRoute from '@/app/api/v1/trials/[trialId]/route';
 import { getEm } from '@/lib/db';
-import { Measurement, MeasurementChange, PromotionRequest } from '@/entities';
+import { Cook, CookChange, PromotionRequest } from '@/entities';
 import { getTrialComparison } from '@/lib/results/trial-comparison';
 import { requestPromotion } from '@/lib/production/mutations';
 import { NO_READING_MESSAGE } from '@/lib/trials/schema';
@@ -21,18 +21,18 @@ beforeAll(async () => {
 });
 
 const overview = async (trialId: string) => (await callRoute(trialRoute.GET, { method: 'GET', path: '', caller: dev(), params: { trialId } })).body.trial;
-const count = (trialId: string) => getEm().then((em) => em.fork().count(Measurement, { workspace: a.workspaceId, variant: { trial: trialId } }));
+const count = (trialId: string) => getEm().then((em) => em.fork().count(Cook, { workspace: a.workspaceId, variant: { trial: trialId } }));
 
 async function recordCook(trialId: string, variantId: string, readings: Record<string, unknown>) {
-  const res = await callRoute(measurementsRoute.POST, { method: 'POST', path: '', caller: dev(), params: { trialId }, body: { variantId, cookDate: '2026-11-20', ...readings } });
+  const res = await callRoute(cooksRoute.POST, { method: 'POST', path: '', caller: dev(), params: { trialId }, body: { variantId, cookDate: '2026-11-20', ...readings } });
   expect(res.status, JSON.stringify(res.body)).toBe(201);
-  return res.body.measurementId as string;
+  return res.body.cookId as string;
 }
 
 describe('a cook needs at least one reading', () => {
   it('refuses a cook with only a date and a batch size, by the API and the CSV import, and stores nothing', async () => {
     const { trialId, variantId } = await createPromotableTrial(a);
-    const empty = await callRoute(measurementsRoute.POST, { method: 'POST', path: '', caller: dev(), params: { trialId }, body: { variantId, cookDate: '2026-11-20', batchSizeG: 2000, notes: 'went fine' } });
+    const empty = await callRoute(cooksRoute.POST, { method: 'POST', path: '', caller: dev(), params: { trialId }, body: { variantId, cookDate: '2026-11-20', batchSizeG: 2000, notes: 'went fine' } });
     expect(empty.status).toBe(422);
     expect(empty.body.error.fields.readings).toEqual([NO_READING_MESSAGE]);
     const csv = await callRoute(importRoute.POST, { method: 'POST', path: '', caller: dev(), params: { trialId }, body: { csv: 'variant,cook_date,batch_size_g\nA,2026-11-20,2000\n' } });
@@ -49,22 +49,22 @@ describe('correcting a cook', () => {
   it('replaces the values sent, keeps the ones it replaced with the reason, and refuses a correction that empties the cook', async () => {
     const { trialId, variantId } = await createPromotableTrial(a);
     const id = await recordCook(trialId, variantId, { ph: 3.4, yieldG: 1500 });
-    const fixed = await callRoute(measurementRoute.PATCH, { method: 'PATCH', path: '', caller: dev(), params: { trialId, measurementId: id }, body: { ph: 3.14, reason: 'Meter was not calibrated; re-read after calibration.' } });
+    const fixed = await callRoute(cookRoute.PATCH, { method: 'PATCH', path: '', caller: dev(), params: { trialId, cookId: id }, body: { ph: 3.14, reason: 'Meter was not calibrated; re-read after calibration.' } });
     expect(fixed.status, JSON.stringify(fixed.body)).toBe(200);
-    const cook = (await overview(trialId)).variants[0].measurements[0];
+    const cook = (await overview(trialId)).variants[0].cooks[0];
     expect(cook.ph).toBe(3.14);
     expect(cook.yieldG).toBe(1500);
     expect(cook.changes).toEqual([expect.objectContaining({ kind: 'corrected', reason: 'Meter was not calibrated; re-read after calibration.', before: { ph: 3.4 } })]);
 
-    const emptied = await callRoute(measurementRoute.PATCH, { method: 'PATCH', path: '', caller: dev(), params: { trialId, measurementId: id }, body: { ph: null, yieldG: null, reason: 'oops' } });
+    const emptied = await callRoute(cookRoute.PATCH, { method: 'PATCH', path: '', caller: dev(), params: { trialId, cookId: id }, body: { ph: null, yieldG: null, reason: 'oops' } });
     expect(emptied.status).toBe(422);
     expect(emptied.body.error.fields.readings).toEqual([NO_READING_MESSAGE]);
-    const same = await callRoute(measurementRoute.PATCH, { method: 'PATCH', path: '', caller: dev(), params: { trialId, measurementId: id }, body: { ph: 3.14, reason: 'again' } });
+    const same = await callRoute(cookRoute.PATCH, { method: 'PATCH', path: '', caller: dev(), params: { trialId, cookId: id }, body: { ph: 3.14, reason: 'again' } });
     expect(same.status).toBe(422);
-    const noReason = await callRoute(measurementRoute.PATCH, { method: 'PATCH', path: '', caller: dev(), params: { trialId, measurementId: id }, body: { ph: 3.2 } });
+    const noReason = await callRoute(cookRoute.PATCH, { method: 'PATCH', path: '', caller: dev(), params: { trialId, cookId: id }, body: { ph: 3.2 } });
     expect(noReason.status).toBe(422);
     expect(noReason.body.error.fields).toHaveProperty(['reason']);
-    const after = (await overview(trialId)).variants[0].measurements[0];
+    const after = (await overview(trialId)).variants[0].cooks[0];
     expect(after.ph).toBe(3.14);
     expect(after.changes).toHaveLength(1);
   });
@@ -72,11 +72,11 @@ describe('correcting a cook', () => {
   it('keeps the change history insert-only', async () => {
     const { trialId, variantId } = await createPromotableTrial(a);
     const id = await recordCook(trialId, variantId, { ph: 3.4 });
-    await callRoute(measurementRoute.PATCH, { method: 'PATCH', path: '', caller: dev(), params: { trialId, measurementId: id }, body: { ph: 3.3, reason: 'typo' } });
+    await callRoute(cookRoute.PATCH, { method: 'PATCH', path: '', caller: dev(), params: { trialId, cookId: id }, body: { ph: 3.3, reason: 'typo' } });
     const em = (await getEm()).fork();
     await expect(em.getConnection().execute(`update measurement_changes set reason = 'rewritten' where measurement_id = ?`, [id])).rejects.toThrow(/insert-only/);
     await expect(em.getConnection().execute(`delete from measurement_changes where measurement_id = ?`, [id])).rejects.toThrow(/insert-only/);
-    expect(await em.count(MeasurementChange, { measurement: id })).toBe(1);
+    expect(await em.count(CookChange, { cook: id })).toBe(1);
   });
 });
 
@@ -88,14 +88,14 @@ describe('withdrawing a cook', () => {
     // Before: the newest cook (pH 4.1) is the one the comparison uses.
     expect((await getTrialComparison(actorOf(a, 'developer'), trialId)).variants[0].lab.ph).toBe(4.1);
 
-    const noReason = await callRoute(withdrawRoute.POST, { method: 'POST', path: '', caller: dev(), params: { trialId, measurementId: bad }, body: { reason: '  ' } });
+    const noReason = await callRoute(withdrawRoute.POST, { method: 'POST', path: '', caller: dev(), params: { trialId, cookId: bad }, body: { reason: '  ' } });
     expect(noReason.status).toBe(422);
-    const res = await callRoute(withdrawRoute.POST, { method: 'POST', path: '', caller: dev(), params: { trialId, measurementId: bad }, body: { reason: 'Measured the wrong jar.' } });
+    const res = await callRoute(withdrawRoute.POST, { method: 'POST', path: '', caller: dev(), params: { trialId, cookId: bad }, body: { reason: 'Measured the wrong jar.' } });
     expect(res.status, JSON.stringify(res.body)).toBe(200);
 
     const variant = (await overview(trialId)).variants[0];
-    expect(variant.measurements.map((m: any) => m.ph)).toEqual([3.2]);
-    expect(variant.withdrawnMeasurements).toEqual([expect.objectContaining({ ph: 4.1, withdrawn: expect.objectContaining({ reason: 'Measured the wrong jar.' }) })]);
+    expect(variant.cooks.map((m: any) => m.ph)).toEqual([3.2]);
+    expect(variant.withdrawnCooks).toEqual([expect.objectContaining({ ph: 4.1, withdrawn: expect.objectContaining({ reason: 'Measured the wrong jar.' }) })]);
     expect(await count(trialId)).toBe(2);
     expect((await getTrialComparison(actorOf(a, 'developer'), trialId)).variants[0].lab.ph).toBe(3.2);
 
@@ -105,9 +105,9 @@ describe('withdrawing a cook', () => {
     expect((request.evidence as { lab: Array<{ ph: number | null }> }).lab.map((l) => l.ph)).toEqual([3.2]);
 
     // A withdrawn cook is final: no correction, no second withdrawal.
-    const again = await callRoute(withdrawRoute.POST, { method: 'POST', path: '', caller: dev(), params: { trialId, measurementId: bad }, body: { reason: 'twice' } });
+    const again = await callRoute(withdrawRoute.POST, { method: 'POST', path: '', caller: dev(), params: { trialId, cookId: bad }, body: { reason: 'twice' } });
     expect(again.status).toBe(409);
-    const fix = await callRoute(measurementRoute.PATCH, { method: 'PATCH', path: '', caller: dev(), params: { trialId, measurementId: bad }, body: { ph: 3.3, reason: 'late fix' } });
+    const fix = await callRoute(cookRoute.PATCH, { method: 'PATCH', path: '', caller: dev(), params: { trialId, cookId: bad }, body: { ph: 3.3, reason: 'late fix' } });
     expect(fix.status).toBe(409);
   });
 
@@ -115,7 +115,7 @@ describe('withdrawing a cook', () => {
     const one = await createPromotableTrial(a);
     const two = await createPromotableTrial(a);
     const id = await recordCook(one.trialId, one.variantId, { ph: 3.2 });
-    const res = await callRoute(withdrawRoute.POST, { method: 'POST', path: '', caller: dev(), params: { trialId: two.trialId, measurementId: id }, body: { reason: 'x' } });
+    const res = await callRoute(withdrawRoute.POST, { method: 'POST', path: '', caller: dev(), params: { trialId: two.trialId, cookId: id }, body: { reason: 'x' } });
     expect(res.status).toBe(404);
   });
 });

@@ -8,7 +8,7 @@ import * as trialCostsRoute from '@/app/api/v1/trials/[trialId]/costs/route';
 import * as productCostsRoute from '@/app/api/v1/products/[productId]/costs/route';
 import * as batchCostRoute from '@/app/api/v1/batches/[batchId]/cost/route';
 import { getEm } from '@/lib/db';
-import { Ingredient, ProductionFormula } from '@/entities';
+import { Ingredient, ProductVersion } from '@/entities';
 import { createTrial } from '@/lib/trials/mutations';
 import { listVariants } from '@/lib/trials/queries';
 import { decidePromotion, recordBatch, requestPromotion } from '@/lib/production/mutations';
@@ -117,12 +117,12 @@ describe('a production version: frozen at approval, today, and the warning', () 
     const [base] = await listVariants(dev(), trialId);
     const input = await promotionInput(a, trialId, base.id, { code: freshProductCode() });
     const { requestId } = await requestPromotion(dev(), input);
-    ({ productionFormulaId: versionId } = (await decidePromotion(actorOf(a, 'head_of_product'), requestId, { decision: 'approve', comment: '' })) as { productionFormulaId: string });
+    ({ productVersionId: versionId } = (await decidePromotion(actorOf(a, 'head_of_product'), requestId, { decision: 'approve', comment: '' })) as { productVersionId: string });
     productId = (await getProductionVersion(actorOf(a, 'production'), versionId)).product.id;
   });
 
   it('takes its formula’s pack format and freezes the cost of the approval day with the version', async () => {
-    const row = await (await getEm()).findOneOrFail(ProductionFormula, { id: versionId });
+    const row = await (await getEm()).findOneOrFail(ProductVersion, { id: versionId });
     expect((row.packFormat as unknown as { id: string }).id).toBe((await trialCosts(dev(), trialId)).packFormat!.id);
     const today = await trialCosts(dev(), trialId, todayIso());
     const [v] = today.variants;

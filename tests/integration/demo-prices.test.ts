@@ -4,7 +4,7 @@ import { getEm } from '@/lib/db';
 import { seedDemo } from '@/lib/seed/demo';
 import { DEMO_CURRENCY } from '@/lib/seed/prices';
 import { todayIso } from '@/lib/format/dates';
-import { Formula, Ingredient, PackagingItem, ProductionFormula } from '@/entities';
+import { Formula, Ingredient, PackagingItem, ProductVersion } from '@/entities';
 import { costSettings, packagingPricesAsOf, packFormatOfFormulas, packFormatOfVersions, packFormatsByIds, priceHistory, pricesAsOf } from '@/lib/pricing/queries';
 
 let workspaceId: string;
@@ -37,7 +37,7 @@ describe('demo prices', () => {
   it('costs every seeded formula and production version in the 340 g jar with a case of 12', async () => {
     const em = await getEm();
     const formulas = await em.find(Formula, { workspace: workspaceId });
-    const versions = await em.find(ProductionFormula, { workspace: workspaceId });
+    const versions = await em.find(ProductVersion, { workspace: workspaceId });
     expect(formulas.length).toBeGreaterThan(0);
     expect(versions.length).toBeGreaterThan(0);
     const chosen = new Set([...(await packFormatOfFormulas(workspaceId, formulas.map((f) => f.id))).values(), ...(await packFormatOfVersions(workspaceId, versions.map((v) => v.id))).values()]);

@@ -300,7 +300,7 @@ const QUERY_VALUES: Record<string, string[]> = {
 
 /** Every query key a page, export or list of the app reads. */
 export const QUERY_KEYS = [
-  'q', 'kind', 'sort', 'dir', 'archived', 'status', 'owner', 'product', 'from', 'to', 'variantId', 'measurementId', 'table', 'limit', 'offset',
+  'q', 'kind', 'sort', 'dir', 'archived', 'status', 'owner', 'product', 'from', 'to', 'variantId', 'cookId', 'table', 'limit', 'offset',
   'target', 'amount', 'unit', 'step', 'stepUnit', 'altitudeM', 'paper', 'a', 'b', 'formula', 'code', 'error', 'reset', 'joined',
 ];
 

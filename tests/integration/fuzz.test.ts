@@ -136,7 +136,7 @@ async function sendAndCheck(
 ) {
   // The state after one request is the state before the next (nothing else writes meanwhile).
   const before = EACH ? (lastSnapshot ?? (await snapshot())) : undefined;
-  const headers: Record<string, string> = op.path === '/api/v1/tasting/join' ? { 'x-forwarded-for': fuzzAddress() } : {};
+  const headers: Record<string, string> = op.path === '/api/v1/tastings/join' ? { 'x-forwarded-for': fuzzAddress() } : {};
   const res = await callRoute(routes.get(operationKey(op))!, {
     method: op.method.toUpperCase(),
     path: pathWith(op, req.params) + (req.query ? `?${req.query}` : ''),
@@ -425,15 +425,15 @@ interface PageCase {
 }
 
 const PAGE_CASES: PageCase[] = [
-  { page: '(tasting)/join/page.tsx', caller: 'outsider', keys: ['code'] },
+  { page: '(taster)/join/page.tsx', caller: 'outsider', keys: ['code'] },
   { page: '(auth)/sign-in/page.tsx', caller: 'outsider', keys: ['error', 'reset', 'joined'] },
   { page: '(lab)/formulas/page.tsx', caller: 'developer', keys: ['q'] },
   { page: '(lab)/formulas/[formulaId]/history/page.tsx', caller: 'developer', keys: ['a', 'b'], paramsFrom: 'GET /api/v1/formulas/[formulaId]' },
   { page: '(lab)/trials/page.tsx', caller: 'developer', keys: ['status', 'owner', 'product', 'from', 'to', 'q'] },
   { page: '(lab)/trials/new/page.tsx', caller: 'developer', keys: ['formula'] },
   { page: '(lab)/ingredients/page.tsx', caller: 'developer', keys: ['q', 'kind', 'sort', 'dir', 'archived'] },
-  { page: '(lab)/panels/page.tsx', caller: 'developer', keys: ['state', 'trial'] },
-  { page: '(lab)/panels/[sessionId]/results/page.tsx', caller: 'developer', keys: ['penalty'], paramsFrom: 'GET /api/v1/panels/[sessionId]/results' },
+  { page: '(lab)/tastings/page.tsx', caller: 'developer', keys: ['state', 'trial'] },
+  { page: '(lab)/tastings/[tastingId]/results/page.tsx', caller: 'developer', keys: ['penalty'], paramsFrom: 'GET /api/v1/tastings/[tastingId]/results' },
   { page: '(lab)/formulas/[formulaId]/label/page.tsx', caller: 'developer', keys: ['reference'], paramsFrom: 'GET /api/v1/formulas/[formulaId]/label' },
   { page: '(lab)/trials/[trialId]/variants/[variantId]/label/page.tsx', caller: 'developer', keys: ['reference'], paramsFrom: 'GET /api/v1/trials/[trialId]/variants/[variantId]/label' },
   { page: '(lab)/models/[family]/page.tsx', caller: 'developer', keys: ['response', 'kind', 'x', 'y', 'trials'], paramsFrom: 'GET /api/v1/models/[family]/dataset' },

@@ -15,7 +15,7 @@ import { hashSecret, newSecret } from '@/lib/secrets';
 import { API_TOKEN_PREFIX, type authOptions } from '@/lib/auth';
 import { ROLES, type Actor, type Role } from '@/lib/permissions';
 import { addStarterLibrary } from '@/lib/ingredients/mutations';
-import { addDefaultAttributes } from '@/lib/panels/mutations';
+import { addDefaultAttributes } from '@/lib/tastings/mutations';
 
 // Server actions read the request through next/headers; tests set it per call.
 const requestState = vi.hoisted(() => ({ headers: new Headers(), setCookies: [] as Array<{ name: string; value: string; options?: Record<string, unknown> }> }));

@@ -18,12 +18,12 @@ import { Client } from 'pg';
 import knex from 'knex';
 import { callRoute, asCaller, sessionCookieFor } from './harness';
 import { describeError, isDatabaseUnavailable, RETRY_AFTER_SECONDS } from '@/lib/api/errors';
-import * as answersRoute from '@/app/api/v1/tasting/[seatToken]/answers/route';
-import * as joinRoute from '@/app/api/v1/tasting/join/route';
+import * as answersRoute from '@/app/api/v1/tastings/seats/[seatToken]/answers/route';
+import * as joinRoute from '@/app/api/v1/tastings/join/route';
 import * as trialsRoute from '@/app/api/v1/trials/route';
 import * as healthRoute from '@/app/api/health/route';
 import { createTrialAction } from '@/lib/trials/actions';
-import { SEAT_TOKEN_PREFIX } from '@/lib/panels/mutations';
+import { SEAT_TOKEN_PREFIX } from '@/lib/tastings/mutations';
 import { API_TOKEN_PREFIX } from '@/lib/auth';
 
 const servers: net.Server[] = [];
@@ -159,7 +159,7 @@ describe('honest failure: the app with its database unreachable', () => {
 
   it('the taster answer (plain pg pool) answers 503 with Retry-After, in the error shape', async () => {
     const res = await callRoute(answersRoute.PUT, {
-      method: 'PUT', path: '/api/v1/tasting/x/answers', caller: { kind: 'outsider' }, params: { seatToken: `${SEAT_TOKEN_PREFIX}${'b'.repeat(40)}` },
+      method: 'PUT', path: '/api/v1/tastings/seats/x/answers', caller: { kind: 'outsider' }, params: { seatToken: `${SEAT_TOKEN_PREFIX}${'b'.repeat(40)}` },
       body: { idempotencyKey: randomUUID(), code: '123', attributeId: randomUUID(), value: 5 },
     });
     expect(res.status).toBe(503);
@@ -167,7 +167,7 @@ describe('honest failure: the app with its database unreachable', () => {
   });
 
   it('joining with a code (public) and a token-authenticated read (ORM) answer 503 with Retry-After', async () => {
-    const join = await joinRoute.POST(new Request('http://localhost:3100/api/v1/tasting/join', {
+    const join = await joinRoute.POST(new Request('http://localhost:3100/api/v1/tastings/join', {
       method: 'POST', headers: { 'content-type': 'application/json' }, body: JSON.stringify({ joinCode: 'ABC123', displayName: 'Pat' }),
     }));
     const trials = await trialsRoute.GET(new Request('http://localhost:3100/api/v1/trials', { headers: { authorization: `Bearer ${token}` } }), { params: Promise.resolve({}) });

@@ -39,7 +39,7 @@ async function refused(route: string, edit: (spec: { params: Record<string, stri
   const [method, pattern] = route.split(' ');
   const path = pattern.replace(/\[(\w+)\]/g, (_, k: string) => spec.params[k]) + (spec.query ? `?${spec.query}` : '');
   const before = await rowCounts();
-  const headers = route === 'POST /api/v1/tasting/join' ? { 'x-forwarded-for': '198.51.100.77' } : undefined;
+  const headers = route === 'POST /api/v1/tastings/join' ? { 'x-forwarded-for': '198.51.100.77' } : undefined;
   const res = await callRoute(routes.get(route)!, { method, path, caller, params: spec.params, body: spec.body, headers });
   expect(res.status, JSON.stringify(res.body)).toBeGreaterThanOrEqual(400);
   expect(res.status, JSON.stringify(res.body)).toBeLessThan(500);
@@ -50,7 +50,7 @@ async function refused(route: string, edit: (spec: { params: Record<string, stri
 
 describe('NUL and control characters', () => {
   it('a NUL in the display name of the unauthenticated tasting join is a 422, not a 500', async () => {
-    const res = await refused('POST /api/v1/tasting/join', (s) => (s.body.displayName = 'Ann\u0000'));
+    const res = await refused('POST /api/v1/tastings/join', (s) => (s.body.displayName = 'Ann\u0000'));
     expect(res.status).toBe(422);
   });
 
@@ -60,18 +60,18 @@ describe('NUL and control characters', () => {
   });
 
   it('a bidi override in a cook note is refused', async () => {
-    await refused('POST /api/v1/trials/[trialId]/measurements', (s) => (s.body.notes = 'fine\u202Eenif'));
+    await refused('POST /api/v1/trials/[trialId]/cooks', (s) => (s.body.notes = 'fine\u202Eenif'));
   });
 });
 
 describe('impossible calendar dates', () => {
   it.each(['2026-02-30', '2026-04-31', '0000-01-01'])('a cook dated %s is a 422', async (date) => {
-    const res = await refused('POST /api/v1/trials/[trialId]/measurements', (s) => (s.body.cookDate = date));
+    const res = await refused('POST /api/v1/trials/[trialId]/cooks', (s) => (s.body.cookDate = date));
     expect(res.body.error.fields.cookDate).toBeDefined();
   });
 
   it('a CSV import with a cook dated 30 February names the row and the column', async () => {
-    const res = await refused('POST /api/v1/trials/[trialId]/measurements/import', (s) => (s.body.csv = 'variant,cook_date,ph\nB,2026-02-30,3.2\n'));
+    const res = await refused('POST /api/v1/trials/[trialId]/cooks/import', (s) => (s.body.csv = 'variant,cook_date,ph\nB,2026-02-30,3.2\n'));
     expect(Object.keys(res.body.error.fields)).toEqual(['row 2, cook_date']);
   });
 

@@ -7,7 +7,7 @@ import * as formulaLabelRoute from '@/app/api/v1/formulas/[formulaId]/label/rout
 import * as variantLabelRoute from '@/app/api/v1/trials/[trialId]/variants/[variantId]/label/route';
 import * as versionLabelRoute from '@/app/api/v1/production-versions/[versionId]/label/route';
 import { getEm } from '@/lib/db';
-import { Ingredient, ProductionFormula, Variant } from '@/entities';
+import { Ingredient, ProductVersion, Variant } from '@/entities';
 import { createFormula } from '@/lib/formulas/mutations';
 import { addVariant } from '@/lib/trials/mutations';
 import { requestPromotion } from '@/lib/production/mutations';
@@ -34,7 +34,7 @@ describe('freezing the label with a production version', () => {
   it('stores the label at approval and serves it unchanged after the library changes', async () => {
     const { versionId } = await createApprovedVersion(a);
     const em = await getEm();
-    const row = await em.findOneOrFail(ProductionFormula, { id: versionId });
+    const row = await em.findOneOrFail(ProductVersion, { id: versionId });
     expect(row.label).not.toBeNull();
     const before = await getVersionLabel(versionId);
     expect(before.status).toBe(200);

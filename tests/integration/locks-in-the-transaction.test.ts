@@ -12,7 +12,7 @@ import { createApprovedVersion, createPromotableTrial, promotionInput } from './
 import { createTrial } from '@/lib/trials/mutations';
 import { decidePromotion, requestPromotion } from '@/lib/production/mutations';
 import { getEm } from '@/lib/db';
-import { ProductionFormula, PromotionRequest, Trial } from '@/entities';
+import { ProductVersion, PromotionRequest, Trial } from '@/entities';
 
 const N = 20;
 let a: WorkspaceFixture;
@@ -64,7 +64,7 @@ describe('locks in the transaction', () => {
     const head = actorOf(a, 'head_of_product');
     const first = await createApprovedVersion(a);
     const em = await getEm();
-    const productId = ((await em.findOneOrFail(ProductionFormula, { id: first.versionId })).product as unknown as { id: string }).id;
+    const productId = ((await em.findOneOrFail(ProductVersion, { id: first.versionId })).product as unknown as { id: string }).id;
     const requestIds: string[] = [];
     for (let i = 0; i < N; i++) {
       const { trialId, variantId } = await createPromotableTrial(a);
@@ -73,7 +73,7 @@ describe('locks in the transaction', () => {
     const { values, failures } = await allSettled(requestIds.map((id) => () => decidePromotion(head, id, { decision: 'approve', comment: '' })));
     expect(failures).toEqual([]);
     expect(values.every((v) => v.status === 'approved')).toBe(true);
-    const versions = await (await getEm()).find(ProductionFormula, { product: productId }, { orderBy: { version: 'asc' } });
+    const versions = await (await getEm()).find(ProductVersion, { product: productId }, { orderBy: { version: 'asc' } });
     expect(versions.map((v) => v.version)).toEqual([1, ...consecutive(2)]);
     expect(versions.filter((v) => v.status === 'current').map((v) => v.version)).toEqual([N + 1]);
     // Each superseded version names the one that replaced it: the chain has no fork.

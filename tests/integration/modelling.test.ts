@@ -6,7 +6,7 @@
 import { describe, it, expect, beforeAll } from 'vitest';
 import { getEm } from '@/lib/db';
 import { seedDemo } from '@/lib/seed/demo';
-import { Formula, Measurement, Trial } from '@/entities';
+import { Formula, Cook, Trial } from '@/entities';
 import { familyModel, familyOfFormula, listFamilies, modelDataset } from '@/lib/modelling/queries';
 import { fitFamilyModel, modelHistory } from '@/lib/modelling/fit';
 import { predictResponse } from '@/lib/models';
@@ -147,7 +147,7 @@ describe('workspace scoping', () => {
     const em = (await getEm()).fork();
     const dataset = await modelDataset({ workspaceId }, { family: apricot });
     const row = dataset.rows[0];
-    const cook = await em.findOneOrFail(Measurement, { workspace: workspaceId, variant: row.variantId });
+    const cook = await em.findOneOrFail(Cook, { workspace: workspaceId, variant: row.variantId });
     cook.withdrawnAt = new Date();
     await em.flush();
     try {

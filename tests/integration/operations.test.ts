@@ -93,7 +93,7 @@ describe('logs', () => {
     const route = publicRoute<{ seatToken: string }>(async () => {
       throw dbError;
     });
-    const req = new Request(`http://127.0.0.1/api/v1/tasting/${token}/answers?k=${token}`, {
+    const req = new Request(`http://127.0.0.1/api/v1/tastings/seats/${token}/answers?k=${token}`, {
       method: 'PUT', headers: { 'content-type': 'application/json', authorization: `Bearer ${token}` },
       body: JSON.stringify({ idempotencyKey: key, code: '427', attributeId: randomUUID(), value: 7 }),
     });
@@ -103,7 +103,7 @@ describe('logs', () => {
     const { log, text } = capturingLogger();
     log.error(...(calls[0] as [object, string]));
     const out = text();
-    expect(out).toContain('/api/v1/tasting/sws_[redacted]/answers');
+    expect(out).toContain('/api/v1/tastings/seats/sws_[redacted]/answers');
     for (const secret of [token, token.slice(4), hashSecret(token), key, marker]) expect(out).not.toContain(secret);
     expect(out).not.toMatch(/"value":\s*7/);
   });
@@ -111,7 +111,7 @@ describe('logs', () => {
   it('masks tokens in any logged path and redacts fields named like secrets', () => {
     expect(pathForLog('http://x/accept-invite/abcDEF123?x=1')).toBe('/accept-invite/[redacted]');
     expect(pathForLog('http://x/reset-password/zzz')).toBe('/reset-password/[redacted]');
-    expect(pathForLog('http://x/api/v1/tasting/sws_Ab-9_x/submit')).toBe('/api/v1/tasting/sws_[redacted]/submit');
+    expect(pathForLog('http://x/api/v1/tastings/seats/sws_Ab-9_x/submit')).toBe('/api/v1/tastings/seats/sws_[redacted]/submit');
     expect(pathForLog('http://x/api/v1/formulas?token=swt_abc')).toBe('/api/v1/formulas');
     const { log, text } = capturingLogger();
     log.info({ password: 'hunter2-pass', user: { passwordHash: 'h4sh', token: 'swt_zzz' }, authorization: 'Bearer swt_yyy', answer: { value: 8, idempotencyKey: 'k-123' } }, 'test line');

@@ -12,7 +12,7 @@ import * as settingsRoute from '@/app/api/v1/cost-settings/route';
 import * as packFormatsRoute from '@/app/api/v1/pack-formats/route';
 import * as versionPackRoute from '@/app/api/v1/production-versions/[versionId]/pack-format/route';
 import { getEm } from '@/lib/db';
-import { AuditEvent, Ingredient, IngredientPrice, ProductionFormula } from '@/entities';
+import { AuditEvent, Ingredient, IngredientPrice, ProductVersion } from '@/entities';
 import {
   costingData, costSettings, packagingPriceHistory, packagingPricesAsOf, packagingPricesAsOfDates, packFormatsByIds, priceHistory, pricesAsOf, pricesAsOfDates, refuseShares,
 } from '@/lib/pricing/queries';
@@ -322,7 +322,7 @@ describe('pack formats', () => {
     const res = await callRoute(versionPackRoute.PUT, { method: 'PUT', path: '', caller: { kind: 'session', person: a.people.production }, params: { versionId }, body: { packFormatId } });
     expect(res.status, JSON.stringify(res.body)).toBe(200);
     const em = await getEm();
-    const v = await em.findOneOrFail(ProductionFormula, { id: versionId });
+    const v = await em.findOneOrFail(ProductVersion, { id: versionId });
     expect((v.packFormat as unknown as { id: string }).id).toBe(packFormatId);
     expect(await em.count(AuditEvent, { subjectId: versionId, action: 'version.pack_format' })).toBe(1);
     await expect(em.execute('update production_formulas set pack_format_id = null, version = version + 100 where id = ?', [versionId])).rejects.toThrow(/immutable/);

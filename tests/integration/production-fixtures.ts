@@ -43,7 +43,7 @@ export async function createApprovedVersion(fx: WorkspaceFixture, product?: { pr
   const code = freshProductCode();
   const input = await promotionInput(fx, trialId, variantId, product ?? { code });
   const { requestId } = await requestPromotion(actorOf(fx, 'developer'), input);
-  const { productionFormulaId } = await decidePromotion(actorOf(fx, 'head_of_product'), requestId, { decision: 'approve', comment: '' });
-  const version = await getProductionVersion(actorOf(fx, 'production'), productionFormulaId!);
+  const { productVersionId } = await decidePromotion(actorOf(fx, 'head_of_product'), requestId, { decision: 'approve', comment: '' });
+  const version = await getProductionVersion(actorOf(fx, 'production'), productVersionId!);
   return { versionId: version.id, requestId, productCode: version.product.code, trialId };
 }

@@ -18,7 +18,7 @@ import * as batchRoute from '@/app/api/v1/batches/[batchId]/route';
 import * as retestsRoute from '@/app/api/v1/batches/[batchId]/retests/route';
 import * as batchDecisionRoute from '@/app/api/v1/batches/[batchId]/decision/route';
 import { getEm } from '@/lib/db';
-import { AuditEvent, BatchDecision, BatchRecord, Membership, ProductionFormula, PromotionRequest } from '@/entities';
+import { AuditEvent, BatchDecision, BatchRecord, Membership, ProductVersion, PromotionRequest } from '@/entities';
 import { createFormula } from '@/lib/formulas/mutations';
 import { createTrial } from '@/lib/trials/mutations';
 import { listVariants } from '@/lib/trials/queries';
@@ -128,7 +128,7 @@ describe('who may decide', () => {
     }
     const row = await (await getEm()).fork().findOneOrFail(PromotionRequest, { id: requestId });
     expect(row.status).toBe('pending');
-    expect(await (await getEm()).fork().count(ProductionFormula, { promotionRequestId: requestId })).toBe(0);
+    expect(await (await getEm()).fork().count(ProductVersion, { promotionRequestId: requestId })).toBe(0);
   });
 
   it('nobody approves their own request, even after becoming head of product', async () => {
@@ -181,7 +181,7 @@ describe('approval and the production version', () => {
     const { requestId, variantId, input } = await newRequest();
     const res = await decide(as('head_of_product'), requestId, { decision: 'approve', comment: 'Good evidence.' });
     expect(res.status, JSON.stringify(res.body)).toBe(200);
-    const versionId = res.body.productionFormulaId;
+    const versionId = res.body.productVersionId;
     const v = (await callRoute(versionRoute.GET, { method: 'GET', path: '', caller: as('production'), params: { versionId } })).body.version;
     expect(v.version).toBe(1);
     expect(v.status).toBe('current');

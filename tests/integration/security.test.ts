@@ -11,7 +11,7 @@
  * - The mail outbox across workspaces, what a password reset ends, sign out everywhere, reset limits, sign-in
  *   error codes: tests/integration/account-security.test.ts, tests/unit/security/sign-in-errors.test.ts,
  *   tests/e2e/accounts.test.ts
- * - Join-code guesses rate-limited per address: tests/integration/panels.test.ts ("join-code guesses are rate-limited")
+ * - Join-code guesses rate-limited per address: tests/integration/tastings.test.ts ("join-code guesses are rate-limited")
  * - Invitation links stored as SHA-256 only: members-and-accounts.test.ts ("Only the hash is stored")
  * - Uploads typed by their bytes (renamed programs, archives, HEIC, NUL-byte CSV; 413/415): tests/integration/uploads.test.ts
  * - Rich text validated node by node and rendered through the schema (no <script>, no onerror, javascript: links refused):
@@ -25,15 +25,15 @@ import { describe, it, expect, beforeAll } from 'vitest';
 import { asCaller, callRoute, createWorkspace, lastSetCookies, waitForMail, signInThroughNextAuth, TEST_PASSWORD, type WorkspaceFixture } from './harness';
 import { createHash } from 'node:crypto';
 import { getEm } from '@/lib/db';
-import { ApiToken, PanelSeat, PasswordReset, User } from '@/entities';
+import { ApiToken, TastingSeat, PasswordReset, User } from '@/entities';
 import { authOptions } from '@/lib/auth';
 import { hashPassword } from '@/lib/passwords';
 import { passwordSchema, PASSWORD_RULES } from '@/lib/password-rules';
 import { updatePreferencesAction, requestPasswordResetAction } from '@/lib/account/actions';
 import { switchWorkspaceAction } from '@/lib/workspaces/actions';
 import * as tokensRoute from '@/app/api/v1/tokens/route';
-import * as joinRoute from '@/app/api/v1/tasting/join/route';
-import { panelFixture } from './access-panels';
+import * as joinRoute from '@/app/api/v1/tastings/join/route';
+import { tastingFixture } from './access-tastings';
 
 const sha256 = (s: string) => createHash('sha256').update(s).digest('hex');
 
@@ -163,17 +163,17 @@ describe('secrets are stored as SHA-256 only', () => {
   });
 
   it("a taster's seat token: the phone gets it, the row holds only its hash", async () => {
-    const p = await panelFixture(a);
+    const p = await tastingFixture(a);
     const res = await callRoute(joinRoute.POST, {
       method: 'POST',
-      path: '/api/v1/tasting/join',
+      path: '/api/v1/tastings/join',
       caller: { kind: 'outsider' },
       body: { joinCode: p.joinCode, displayName: 'Hash guest' },
       headers: { 'x-forwarded-for': '192.0.2.44' },
     });
     expect(res.status).toBe(201);
     const seatToken: string = res.body.seatToken;
-    const row = await (await getEm()).findOneOrFail(PanelSeat, { tokenHash: sha256(seatToken) });
+    const row = await (await getEm()).findOneOrFail(TastingSeat, { tokenHash: sha256(seatToken) });
     expect(await rowText('panel_seats', row.id)).not.toContain(seatToken);
   });
 });

@@ -6,11 +6,11 @@ import * as trialsRoute from '@/app/api/v1/trials/route';
 import * as trialRoute from '@/app/api/v1/trials/[trialId]/route';
 import * as statusRoute from '@/app/api/v1/trials/[trialId]/status/route';
 import * as planRoute from '@/app/api/v1/trials/[trialId]/plan/route';
-import * as importRoute from '@/app/api/v1/trials/[trialId]/measurements/import/route';
-import * as measurementsRoute from '@/app/api/v1/trials/[trialId]/measurements/route';
+import * as importRoute from '@/app/api/v1/trials/[trialId]/cooks/import/route';
+import * as cooksRoute from '@/app/api/v1/trials/[trialId]/cooks/route';
 import * as exportRoute from '@/app/api/v1/trials/[trialId]/export/route';
 import { getEm } from '@/lib/db';
-import { Measurement } from '@/entities';
+import { Cook } from '@/entities';
 import { diffRevisions } from '@/lib/formulas/diff';
 
 let a: WorkspaceFixture;
@@ -136,7 +136,7 @@ describe('cooks and CSV', () => {
     const trialId = await newTrial();
     await callRoute(planRoute.POST, { method: 'POST', path: '', caller: dev(), params: { trialId }, body: { kind: 'full_factorial', factors: [{ factor: 'sugar_ratio', low: 0.8, high: 1.0 }] } });
     const em = await getEm();
-    const count = () => em.fork().count(Measurement, { workspace: a.workspaceId, variant: { trial: trialId } });
+    const count = () => em.fork().count(Cook, { workspace: a.workspaceId, variant: { trial: trialId } });
 
     const bad = 'variant,cook_date,brix_reading,brix_sample_temp_c,ph,yield_g\nB,2026-11-18,64.8,18,3.15,1480\nC,2026-11-18,sixty,18,3.2,1500\nZ,2026-11-19,65,20,3.1,1490\n';
     const refused = await callRoute(importRoute.POST, { method: 'POST', path: '', caller: dev(), params: { trialId }, body: { csv: bad } });
@@ -153,8 +153,8 @@ describe('cooks and CSV', () => {
     expect(ok.body.imported).toBe(2);
     expect(await count()).toBe(2);
 
-    const cooks = await callRoute(measurementsRoute.GET, { method: 'GET', path: '', caller: dev(), params: { trialId } });
-    const b = cooks.body.measurements.find((m: any) => m.variantLabel === 'B');
+    const cooks = await callRoute(cooksRoute.GET, { method: 'GET', path: '', caller: dev(), params: { trialId } });
+    const b = cooks.body.cooks.find((m: any) => m.variantLabel === 'B');
     // Stored raw; shown corrected to 20 °C. Source: OIV-MA-AS2-02 Table I — below 20 °C a sucrose
     // refractometer reads high, so the correction is subtracted (−0.38 at 15 °C / 65 %).
     expect(b.brixReading).toBe(64.8);
@@ -168,13 +168,13 @@ describe('cooks and CSV', () => {
   it('a pH above 4.6 is flagged as a danger on the cook', async () => {
     const trialId = await newTrial();
     const t = await overview(trialId);
-    const res = await callRoute(measurementsRoute.POST, {
+    const res = await callRoute(cooksRoute.POST, {
       method: 'POST', path: '', caller: dev(), params: { trialId },
       body: { variantId: t.variants[0].id, cookDate: '2026-11-20', ph: 4.8 },
     });
     expect(res.status).toBe(201);
     const after = await overview(trialId);
-    const ph = after.variants[0].measurements[0].comparison.rows.find((r: any) => r.key === 'ph');
+    const ph = after.variants[0].cooks[0].comparison.rows.find((r: any) => r.key === 'ph');
     expect(ph.flag).toBe('danger');
     expect(ph.note).toContain('Local food-safety codes and licensed practice govern.');
   });
@@ -183,10 +183,10 @@ describe('cooks and CSV', () => {
     const trialId = await newTrial();
     const other = await newTrial();
     const t = await overview(other);
-    const r1 = await callRoute(measurementsRoute.POST, { method: 'POST', path: '', caller: dev(), params: { trialId }, body: { variantId: t.variants[0].id, cookDate: '2026-11-20', brixReading: 64 } });
+    const r1 = await callRoute(cooksRoute.POST, { method: 'POST', path: '', caller: dev(), params: { trialId }, body: { variantId: t.variants[0].id, cookDate: '2026-11-20', brixReading: 64 } });
     expect(r1.status).toBe(422);
     expect(r1.body.error.fields).toHaveProperty(['brixSampleTempC']);
-    const r2 = await callRoute(measurementsRoute.POST, { method: 'POST', path: '', caller: dev(), params: { trialId }, body: { variantId: t.variants[0].id, cookDate: '2026-11-20', ph: 3.2 } });
+    const r2 = await callRoute(cooksRoute.POST, { method: 'POST', path: '', caller: dev(), params: { trialId }, body: { variantId: t.variants[0].id, cookDate: '2026-11-20', ph: 3.2 } });
     expect(r2.status).toBe(422);
     expect(r2.body.error.fields).toHaveProperty(['variantId']);
   });
@@ -194,7 +194,7 @@ describe('cooks and CSV', () => {
   it('exports variants and cooks as CSV, one row per cook', async () => {
     const trialId = await newTrial();
     const t = await overview(trialId);
-    await callRoute(measurementsRoute.POST, { method: 'POST', path: '', caller: dev(), params: { trialId }, body: { variantId: t.variants[0].id, cookDate: '2026-11-21', yieldG: 1600, ph: 3.1 } });
+    await callRoute(cooksRoute.POST, { method: 'POST', path: '', caller: dev(), params: { trialId }, body: { variantId: t.variants[0].id, cookDate: '2026-11-21', yieldG: 1600, ph: 3.1 } });
     const res = await exportRoute.GET(new Request('http://127.0.0.1/x', { headers: { cookie: a.people.developer.sessionCookie } }), { params: Promise.resolve({ trialId }) });
     const lines = (await res.text()).trim().split('\n');
     expect(lines[0]).toContain('variant,description,sugar_ratio');

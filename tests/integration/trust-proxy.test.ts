@@ -18,7 +18,7 @@ import { clientAddress, installPeerAddressHook, PEER_ADDRESS_HEADER } from '@/li
 import { assertSameOrigin } from '@/lib/api/route';
 import { signInWithPassword } from '@/lib/auth';
 import { JOIN_LIMIT, SIGN_IN_LIMITS } from '@/lib/rate-limit';
-import * as joinRoute from '@/app/api/v1/tasting/join/route';
+import * as joinRoute from '@/app/api/v1/tastings/join/route';
 import * as tokensRoute from '@/app/api/v1/tokens/route';
 
 let a: WorkspaceFixture;
@@ -47,7 +47,7 @@ describe('the client address without a trusted proxy', () => {
     const statuses: number[] = [];
     for (let i = 0; i <= JOIN_LIMIT.points; i++) {
       const res = await callRoute(joinRoute.POST, {
-        method: 'POST', path: '/api/v1/tasting/join', caller: { kind: 'outsider' },
+        method: 'POST', path: '/api/v1/tastings/join', caller: { kind: 'outsider' },
         body: { joinCode: 'ZZZZZ9', displayName: 'Walker' },
         headers: { [PEER_ADDRESS_HEADER]: peer, 'x-forwarded-for': `203.0.113.${i + 1}` },
       });
@@ -57,7 +57,7 @@ describe('the client address without a trusted proxy', () => {
     expect(statuses.at(-1)).toBe(429);
     // Another socket address has its own count.
     const other = await callRoute(joinRoute.POST, {
-      method: 'POST', path: '/api/v1/tasting/join', caller: { kind: 'outsider' },
+      method: 'POST', path: '/api/v1/tastings/join', caller: { kind: 'outsider' },
       body: { joinCode: 'ZZZZZ9', displayName: 'Neighbour' },
       headers: { [PEER_ADDRESS_HEADER]: '192.0.2.202', 'x-forwarded-for': '203.0.113.1' },
     });

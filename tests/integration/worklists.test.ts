@@ -1,16 +1,16 @@
 /** Tastings as a list (filters, edit and discard while set up, my seats with a way back) and each role's worklist. */
 import { describe, it, expect, beforeAll } from 'vitest';
 import { createWorkspace, callRoute, actorOf, type WorkspaceFixture } from './harness';
-import { panelFixture } from './access-panels';
+import { tastingFixture } from './access-tastings';
 import { trialWithVariants } from './access-trials';
 import { createApprovedVersion } from './production-fixtures';
-import * as panelRoute from '@/app/api/v1/panels/[sessionId]/route';
+import * as tastingRoute from '@/app/api/v1/tastings/[tastingId]/route';
 import { getEm } from '@/lib/db';
-import { PanelSample, PanelSession } from '@/entities';
-import { closePanelSession, inviteStaffTasters, renewMySeatLink } from '@/lib/panels/mutations';
-import { getPanelSession, listMySeats, listTastings } from '@/lib/panels/queries';
-import { tasterView } from '@/lib/panels/taster';
-import { recordMeasurement, transitionTrial, withdrawMeasurement } from '@/lib/trials/mutations';
+import { TastingSample, Tasting } from '@/entities';
+import { closeTasting, inviteStaffTasters, renewMySeatLink } from '@/lib/tastings/mutations';
+import { getTasting, listMySeats, listTastings } from '@/lib/tastings/queries';
+import { tasterView } from '@/lib/taster/seat';
+import { recordCook, transitionTrial, withdrawCook } from '@/lib/trials/mutations';
 import { trialsAtTheStove } from '@/lib/trials/queries';
 import { decideBatch, recordBatch, retestBatch } from '@/lib/production/mutations';
 import { batchWorklist } from '@/lib/production/queries';
@@ -25,41 +25,41 @@ beforeAll(async () => {
 
 describe('the workspace list of tastings', () => {
   it('filters by state and by trial', async () => {
-    const draft = await panelFixture(a, false);
-    const open = await panelFixture(a, true);
+    const draft = await tastingFixture(a, false);
+    const open = await tastingFixture(a, true);
     const developer = actorOf(a, 'developer');
     const drafts = await listTastings(developer, { state: 'draft' });
-    expect(drafts.map((t) => t.id)).toContain(draft.sessionId);
-    expect(drafts.map((t) => t.id)).not.toContain(open.sessionId);
+    expect(drafts.map((t) => t.id)).toContain(draft.tastingId);
+    expect(drafts.map((t) => t.id)).not.toContain(open.tastingId);
     expect(drafts.every((t) => t.state === 'draft')).toBe(true);
     const ofTrial = await listTastings(developer, { trialId: open.trialId });
-    expect(ofTrial.map((t) => t.id)).toEqual([open.sessionId]);
+    expect(ofTrial.map((t) => t.id)).toEqual([open.tastingId]);
     expect(ofTrial[0].trial.code).toMatch(/^T-\d{3}$/);
   });
 
   it('changes and discards a tasting while it is being set up, and refuses both once it has opened', async () => {
-    const p = await panelFixture(a, false);
+    const p = await tastingFixture(a, false);
     const body = { title: 'Friday tasting', place: 'Tasting room', method: 'rated', variantIds: [p.variantIds[1], p.variantIds[0]], attributeIds: [p.attributeId], notice: 'Contains fruit and sugar.' };
-    const changed = await callRoute(panelRoute.PATCH, { method: 'PATCH', path: '', caller: dev(), params: { sessionId: p.sessionId }, body });
+    const changed = await callRoute(tastingRoute.PATCH, { method: 'PATCH', path: '', caller: dev(), params: { tastingId: p.tastingId }, body });
     expect(changed.status, JSON.stringify(changed.body)).toBe(200);
-    const view = await getPanelSession(actorOf(a, 'developer'), p.sessionId);
+    const view = await getTasting(actorOf(a, 'developer'), p.tastingId);
     expect(view.title).toBe('Friday tasting');
     expect(view.place).toBe('Tasting room');
     expect(view.samples.map((s) => s.variantId)).toEqual([p.variantIds[1], p.variantIds[0]]);
     expect(view.samples.every((s) => /^\d{3}$/.test(s.code ?? ''))).toBe(true);
 
-    const discarded = await callRoute(panelRoute.DELETE, { method: 'DELETE', path: '', caller: dev(), params: { sessionId: p.sessionId } });
+    const discarded = await callRoute(tastingRoute.DELETE, { method: 'DELETE', path: '', caller: dev(), params: { tastingId: p.tastingId } });
     expect(discarded.status).toBe(200);
     const em = (await getEm()).fork();
-    expect(await em.count(PanelSession, { id: p.sessionId })).toBe(0);
-    expect(await em.count(PanelSample, { session: p.sessionId })).toBe(0);
+    expect(await em.count(Tasting, { id: p.tastingId })).toBe(0);
+    expect(await em.count(TastingSample, { session: p.tastingId })).toBe(0);
 
-    const opened = await panelFixture(a, true);
-    const before = await getPanelSession(actorOf(a, 'developer'), opened.sessionId);
+    const opened = await tastingFixture(a, true);
+    const before = await getTasting(actorOf(a, 'developer'), opened.tastingId);
     const openBody = { ...body, variantIds: opened.variantIds };
-    expect((await callRoute(panelRoute.PATCH, { method: 'PATCH', path: '', caller: dev(), params: { sessionId: opened.sessionId }, body: openBody })).status).toBe(409);
-    expect((await callRoute(panelRoute.DELETE, { method: 'DELETE', path: '', caller: dev(), params: { sessionId: opened.sessionId } })).status).toBe(409);
-    const after = await getPanelSession(actorOf(a, 'developer'), opened.sessionId);
+    expect((await callRoute(tastingRoute.PATCH, { method: 'PATCH', path: '', caller: dev(), params: { tastingId: opened.tastingId }, body: openBody })).status).toBe(409);
+    expect((await callRoute(tastingRoute.DELETE, { method: 'DELETE', path: '', caller: dev(), params: { tastingId: opened.tastingId } })).status).toBe(409);
+    const after = await getTasting(actorOf(a, 'developer'), opened.tastingId);
     expect(after.title).toBe(before.title);
     expect(after.samples).toEqual(before.samples);
   });
@@ -69,28 +69,28 @@ describe('my tastings', () => {
   it('lists the signed-in taster’s seats, open ones first, and gives a fresh link to the seat (the old one stops working)', async () => {
     const taster = actorOf(a, 'taster');
     expect(await listMySeats(taster)).toEqual([]);
-    const closed = await panelFixture(a, true);
-    const open = await panelFixture(a, true);
-    await inviteStaffTasters(actorOf(a, 'developer'), closed.sessionId, [a.people.taster.userId]);
-    await closePanelSession(actorOf(a, 'developer'), closed.sessionId);
-    await inviteStaffTasters(actorOf(a, 'developer'), open.sessionId, [a.people.taster.userId]);
+    const closed = await tastingFixture(a, true);
+    const open = await tastingFixture(a, true);
+    await inviteStaffTasters(actorOf(a, 'developer'), closed.tastingId, [a.people.taster.userId]);
+    await closeTasting(actorOf(a, 'developer'), closed.tastingId);
+    await inviteStaffTasters(actorOf(a, 'developer'), open.tastingId, [a.people.taster.userId]);
 
     const seats = await listMySeats(taster);
-    expect(seats.map((s) => [s.sessionId, s.waiting])).toEqual([[open.sessionId, true], [closed.sessionId, false]]);
+    expect(seats.map((s) => [s.tastingId, s.waiting])).toEqual([[open.tastingId, true], [closed.tastingId, false]]);
     // Only what a taster may see: no variant, trial or sample fields.
-    expect(Object.keys(seats[0]).sort()).toEqual(['place', 'sessionId', 'startsAt', 'state', 'submitted', 'title', 'waiting']);
+    expect(Object.keys(seats[0]).sort()).toEqual(['place', 'tastingId', 'startsAt', 'state', 'submitted', 'title', 'waiting']);
     expect(await listMySeats(actorOf(a, 'developer'))).toEqual([]);
 
-    const first = await renewMySeatLink(taster, open.sessionId);
+    const first = await renewMySeatLink(taster, open.tastingId);
     expect(first.path).toMatch(/^\/t\/sws_/);
     expect((await tasterView(first.path.slice(3))).seat.displayName).toBeTruthy();
-    const second = await renewMySeatLink(taster, open.sessionId);
+    const second = await renewMySeatLink(taster, open.tastingId);
     await expect(tasterView(first.path.slice(3))).rejects.toMatchObject({ status: 404 });
     expect((await tasterView(second.path.slice(3))).session.state).toBe('open');
 
     // Nobody else's seat, and no link to a closed tasting.
-    await expect(renewMySeatLink(actorOf(a, 'developer'), open.sessionId)).rejects.toMatchObject({ status: 404 });
-    await expect(renewMySeatLink(taster, closed.sessionId)).rejects.toMatchObject({ name: 'Conflict' });
+    await expect(renewMySeatLink(actorOf(a, 'developer'), open.tastingId)).rejects.toMatchObject({ status: 404 });
+    await expect(renewMySeatLink(taster, closed.tastingId)).rejects.toMatchObject({ name: 'Conflict' });
   });
 });
 
@@ -102,9 +102,9 @@ describe('worklists', () => {
     await transitionTrial(developer, t.trialId, 'cooking');
     const item = () => trialsAtTheStove(developer).then((list) => list.find((x) => x.id === t.trialId));
     expect((await item())?.uncooked).toEqual(['A', 'B', 'C']);
-    const { measurementId } = await recordMeasurement(developer, t.trialId, { variantId: t.baseId, cookDate: '2026-11-20', ph: 3.2 });
+    const { cookId } = await recordCook(developer, t.trialId, { variantId: t.baseId, cookDate: '2026-11-20', ph: 3.2 });
     expect((await item())?.uncooked).toEqual(['B', 'C']);
-    await withdrawMeasurement(developer, t.trialId, measurementId, 'Wrong jar.');
+    await withdrawCook(developer, t.trialId, cookId, 'Wrong jar.');
     expect((await item())?.uncooked).toEqual(['A', 'B', 'C']);
     // Only the owner's trials: the admin has none at the stove.
     expect((await trialsAtTheStove(actorOf(a, 'admin'))).map((x) => x.id)).not.toContain(t.trialId);

@@ -5,9 +5,9 @@ import { ROLE_LABELS, can, isStaff } from '@/lib/permissions';
 import { batchWorklist, listProducts, reviewQueue } from '@/lib/production/queries';
 import { type BatchWorkItem } from '@/lib/production/schema';
 import { trialsAtTheStove } from '@/lib/trials/queries';
-import { listMySeats, listTastings } from '@/lib/panels/queries';
+import { listMySeats, listTastings } from '@/lib/tastings/queries';
 import { listMembers } from '@/lib/members/queries';
-import { PANEL_STATE_LABELS } from '@/lib/panels/vocabulary';
+import { TASTING_STATE_LABELS } from '@/lib/tastings/vocabulary';
 import { formatDate, todayIso } from '@/lib/format/dates';
 
 export const dynamic = 'force-dynamic';
@@ -24,7 +24,7 @@ export default async function HomePage() {
   const today = todayIso();
   const [stove, tastings, reviews, batches, kitchen, seats, members] = await Promise.all([
     can(actor.role, 'trials.write') ? trialsAtTheStove(actor) : null,
-    can(actor.role, 'panels.run') ? listTastings(actor) : null,
+    can(actor.role, 'tastings.run') ? listTastings(actor) : null,
     can(actor.role, 'promotion.decide') ? reviewQueue(actor) : null,
     can(actor.role, 'batches.record') ? batchWorklist(actor, today) : null,
     can(actor.role, 'batches.record') ? listProducts(actor) : null,
@@ -47,11 +47,11 @@ export default async function HomePage() {
   if (tastings) {
     const live = tastings.filter((t) => t.state !== 'closed');
     sections.push(
-      <WorkList key="tastings" title="Tastings being set up or taking answers" more={{ href: '/panels', label: 'All tastings' }}
+      <WorkList key="tastings" title="Tastings being set up or taking answers" more={{ href: '/tastings', label: 'All tastings' }}
         empty="No tasting is being set up or taking answers. Start one from a trial once its variants are cooked."
         items={live.map((t) => ({
-          key: t.id, href: `/panels/${t.id}`, label: `${t.title} (${t.trial.code})`,
-          detail: t.state === 'open' ? `${PANEL_STATE_LABELS.open}: ${t.submitted} of ${t.seats} tasters finished` : `${PANEL_STATE_LABELS.draft}${t.startsAt ? `, planned for ${formatDate(t.startsAt)}` : ''}`,
+          key: t.id, href: `/tastings/${t.id}`, label: `${t.title} (${t.trial.code})`,
+          detail: t.state === 'open' ? `${TASTING_STATE_LABELS.open}: ${t.submitted} of ${t.seats} tasters finished` : `${TASTING_STATE_LABELS.draft}${t.startsAt ? `, planned for ${formatDate(t.startsAt)}` : ''}`,
         }))} />,
     );
   }
@@ -84,9 +84,9 @@ export default async function HomePage() {
   // Everyone can be seated at a tasting; staff see the part only when a seat waits for them.
   if (waitingSeats.length || !isStaff(actor.role)) {
     sections.push(
-      <WorkList key="seats" title="Tastings waiting for your answers" more={{ href: '/tastings', label: 'My tastings' }}
+      <WorkList key="seats" title="Tastings waiting for your answers" more={{ href: '/tastings/mine', label: 'My tastings' }}
         empty="No tasting is waiting for you. When an organiser seats you, it appears here and you get an e-mail with your link."
-        items={waitingSeats.map((s) => ({ key: s.sessionId, href: '/tastings', label: s.title, detail: s.place ? `In ${s.place}` : undefined }))} />,
+        items={waitingSeats.map((s) => ({ key: s.tastingId, href: '/tastings/mine', label: s.title, detail: s.place ? `In ${s.place}` : undefined }))} />,
     );
   }
 

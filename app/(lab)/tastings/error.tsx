@@ -3,5 +3,5 @@
 import { AreaError } from '@/components/shell/AreaError';
 
 export default function AreaErrorPage({ reset }: { error: Error; reset: () => void }) {
-  return <AreaError what="Your tastings" reset={reset} />;
+  return <AreaError what="Tastings" reset={reset} />;
 }

@@ -1,5 +1,5 @@
 import { describe, it, expect } from 'vitest';
-import { analysePanel, type PanelData } from '@/lib/results/analysis';
+import { analyseTasting, type TastingData } from '@/lib/results/analysis';
 import { ANALYSIS_MEMO_SIZE, analyseRemembered } from '@/lib/results/analysis-memo';
 
 // Source: Montgomery, Design and Analysis of Experiments, Example 4.1 (vascular graft, RCBD):
@@ -11,7 +11,7 @@ const MONTGOMERY = {
   D: [82.5, 89.5, 85.6, 87.4, 78.9, 90.7],
 };
 
-function ratedData(): PanelData {
+function ratedData(): TastingData {
   const samples = Object.keys(MONTGOMERY).map((l) => ({ sampleId: `s-${l}`, label: l, description: '' }));
   const answers = Object.entries(MONTGOMERY).flatMap(([l, values]) =>
     values.map((value, seatIndex) => ({ seatIndex, kind: 'rating' as const, attribute: 'firm', sampleId: `s-${l}`, value, rankingSampleIds: null, correct: null })),
@@ -19,12 +19,12 @@ function ratedData(): PanelData {
   return { method: 'rated', samples, attributes: [{ id: 'firm', name: 'Set firmness', purpose: 'intensity', highAnchor: 'Very firm' }], answers, seatCount: 6, submittedSeats: 6 };
 }
 
-const treatmentsF = (data: PanelData) => analyseRemembered(data).attributes[0].anova.rows.find((r) => r.source === 'treatments')!.f;
+const treatmentsF = (data: TastingData) => analyseRemembered(data).attributes[0].anova.rows.find((r) => r.source === 'treatments')!.f;
 
 describe('remembered analyses', () => {
   it('gives the same analysis as a fresh one, and the same object for the same input', () => {
     const first = analyseRemembered(ratedData());
-    expect(first).toEqual(analysePanel(ratedData()));
+    expect(first).toEqual(analyseTasting(ratedData()));
     expect(treatmentsF(ratedData())).toBeCloseTo(8.10708, 4);
     // A separately built but equal input (another request's reads) is a hit.
     expect(analyseRemembered(ratedData())).toBe(first);

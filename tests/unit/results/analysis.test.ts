@@ -1,5 +1,5 @@
 import { describe, it, expect } from 'vitest';
-import { analysePanel, formatP, type PanelData } from '@/lib/results/analysis';
+import { analyseTasting, formatP, type TastingData } from '@/lib/results/analysis';
 
 // Source: Montgomery, Design and Analysis of Experiments, Example 4.1 (vascular graft, RCBD):
 // four treatments × six blocks; treatments F = 8.10708, p = 0.0019163. Here the treatments are
@@ -11,7 +11,7 @@ const MONTGOMERY = {
   D: [82.5, 89.5, 85.6, 87.4, 78.9, 90.7],
 };
 
-function ratedData(): PanelData {
+function ratedData(): TastingData {
   const samples = Object.keys(MONTGOMERY).map((l) => ({ sampleId: `s-${l}`, label: l, description: '' }));
   const answers = Object.entries(MONTGOMERY).flatMap(([l, values]) =>
     values.map((value, seatIndex) => ({ seatIndex, kind: 'rating' as const, attribute: 'firm', sampleId: `s-${l}`, value, rankingSampleIds: null, correct: null })),
@@ -21,7 +21,7 @@ function ratedData(): PanelData {
 
 describe('rated panels', () => {
   it('runs the blocked ANOVA and words a verdict with the p-value', () => {
-    const a = analysePanel(ratedData()).attributes[0];
+    const a = analyseTasting(ratedData()).attributes[0];
     const treat = a.anova.rows.find((r) => r.source === 'treatments')!;
     expect(treat.f).toBeCloseTo(8.10708, 4);
     expect(treat.p).toBeCloseTo(0.0019163, 6);
@@ -35,7 +35,7 @@ describe('rated panels', () => {
   it('says "no clear difference" when there is none, and never prints NaN', () => {
     const data = ratedData();
     data.answers = data.answers.map((x) => ({ ...x, value: 5 + (x.seatIndex % 3) }));
-    const a = analysePanel(data).attributes[0];
+    const a = analyseTasting(data).attributes[0];
     expect(JSON.stringify(a)).not.toContain('NaN');
     expect(a.verdict.differs).not.toBe(true);
   });
@@ -50,7 +50,7 @@ describe('rated panels', () => {
       { seatIndex: i, kind: 'rating' as const, attribute: 'sweet', sampleId: 'x', value: v, rankingSampleIds: null, correct: null },
       { seatIndex: i, kind: 'rating' as const, attribute: 'like', sampleId: 'x', value: like[i], rankingSampleIds: null, correct: null },
     ]);
-    const r = analysePanel({
+    const r = analyseTasting({
       method: 'rated', samples, answers, seatCount: 5, submittedSeats: 5,
       attributes: [{ id: 'like', name: 'Overall liking', purpose: 'liking' }, { id: 'sweet', name: 'Sweetness', purpose: 'just-about-right' }],
     });
@@ -78,13 +78,13 @@ describe('penalty analysis, one per sample', () => {
     { seatIndex: i, kind: 'rating' as const, attribute: 'sweet', sampleId, value: v, rankingSampleIds: null, correct: null },
     { seatIndex: i, kind: 'rating' as const, attribute: 'like', sampleId, value: like[sampleId][i], rankingSampleIds: null, correct: null },
   ]));
-  const data: PanelData = {
+  const data: TastingData = {
     method: 'rated', samples, answers, seatCount: 5, submittedSeats: 5,
     attributes: [{ id: 'like', name: 'Overall liking', purpose: 'liking' }, { id: 'sweet', name: 'Sweetness', purpose: 'just-about-right' }],
   };
 
   it('runs one analysis per sample by default and no pooled one', () => {
-    const a = analysePanel(data).attributes[1];
+    const a = analyseTasting(data).attributes[1];
     expect(a.pooledPenalty).toBeUndefined();
     const [pa, pb] = a.penalties!;
     expect([pa.label, pb.label]).toEqual(['A', 'B']);
@@ -103,7 +103,7 @@ describe('penalty analysis, one per sample', () => {
   });
 
   it('pools all samples only when asked', () => {
-    const pooled = analysePanel(data, { pooledPenalty: true }).attributes[1].pooledPenalty!;
+    const pooled = analyseTasting(data, { pooledPenalty: true }).attributes[1].pooledPenalty!;
     expect(pooled.respondentCount).toBe(10);
     expect(pooled.groups.justAboutRight.meanLiking).toBeCloseTo(41 / 6, 12);
     expect(pooled.groups.tooMuch.weightedPenalty).toBeCloseTo(0.2 * (41 / 6 - 5.5), 12);
@@ -116,10 +116,10 @@ describe('triangle panels', () => {
     // Source: ISO 4120 / FAO docrep V7180E Appendix A: n = 24 needs 13 at α = 0.05;
     // P(X ≥ 13 | n = 24, p = 1/3) = 0.0284411281.
     const answers = Array.from({ length: 24 }, (_, i) => ({ seatIndex: i, kind: 'triangle' as const, attribute: '*', sampleId: null, value: null, rankingSampleIds: null, correct: i < 13 }));
-    const r = analysePanel({ method: 'triangle', samples: [], attributes: [], answers, seatCount: 24, submittedSeats: 24 });
+    const r = analyseTasting({ method: 'triangle', samples: [], attributes: [], answers, seatCount: 24, submittedSeats: 24 });
     expect(r.triangle!.result.pValue).toBeCloseTo(0.0284411281, 9);
     expect(r.triangle!.verdict.headline).toBe('13 of 24 tasters picked the odd sample: a perceptible difference, p = 0.028 (at least 13 were needed).');
-    const twelve = analysePanel({ method: 'triangle', samples: [], attributes: [], answers: answers.map((x, i) => ({ ...x, correct: i < 12 })), seatCount: 24, submittedSeats: 24 });
+    const twelve = analyseTasting({ method: 'triangle', samples: [], attributes: [], answers: answers.map((x, i) => ({ ...x, correct: i < 12 })), seatCount: 24, submittedSeats: 24 });
     expect(twelve.triangle!.verdict.differs).toBe(false);
   });
 });

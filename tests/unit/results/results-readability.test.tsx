@@ -1,7 +1,7 @@
 // @vitest-environment jsdom
 import { describe, it, expect, vi, afterEach } from 'vitest';
 import { render, screen, cleanup, within } from '@testing-library/react';
-import { analysePanel, type PanelData } from '@/lib/results/analysis';
+import { analyseTasting, type TastingData } from '@/lib/results/analysis';
 import { clipInterval, jarDiverging } from '@/lib/results/chart-data';
 
 // chart.js has no canvas under jsdom: the charts render as stand-ins that keep the props they were given.
@@ -24,7 +24,7 @@ afterEach(() => {
 const LIKING = { a: [9, 9, 9, 5], b: [6, 7, 6, 5] };
 const SWEET = { a: [3, 3, 4, 5], b: [1, 3, 3, 2] };
 const FIRM = { a: [6, 7, 5.5, 6], b: [4, 3.5, 5, 4] };
-function data(): PanelData {
+function data(): TastingData {
   const samples = [{ sampleId: 'a', label: 'A', description: '' }, { sampleId: 'b', label: 'B', description: '' }];
   const answers = (['a', 'b'] as const).flatMap((sampleId) => [0, 1, 2, 3].flatMap((seatIndex) => [
     { seatIndex, kind: 'rating' as const, attribute: 'like', sampleId, value: LIKING[sampleId][seatIndex], rankingSampleIds: null, correct: null },
@@ -43,7 +43,7 @@ function data(): PanelData {
 
 describe('results that read well', () => {
   it('tables have real columns: one header per column, padded cells, numbers in their own cells, and a box that scrolls sideways', () => {
-    render(<ResultsView analysis={analysePanel(data())} />);
+    render(<ResultsView analysis={analyseTasting(data())} />);
     const summary = screen.getAllByTestId('summary-table')[0];
     expect(summary.parentElement!.className).toContain('overflow-x-auto');
     expect(within(summary).getAllByRole('columnheader').map((h) => h.textContent)).toEqual(['Sample', 'n', 'Mean', '95 % CI', 'SD', 'Group']);
@@ -67,7 +67,7 @@ describe('results that read well', () => {
   it('cuts whiskers at the end of the scale and says so', () => {
     // Sample A liking 9, 9, 9, 5: mean 8, SD 2, t(0.975, 3) = 3.182 → 95 % CI 4.82 to 11.18, past the 1–9 scale.
     // Source: Student t quantile t(0.975, 3) = 3.182 (NIST/SEMATECH e-Handbook, Table 1.3.6.7.2).
-    render(<ResultsView analysis={analysePanel(data())} />);
+    render(<ResultsView analysis={analyseTasting(data())} />);
     const liking = charts.props.find((p) => p.data.datasets[0]?.label === 'Overall liking')!;
     const [a] = liking.options.plugins.setwellErrorBars.intervals;
     expect(a.upper).toBe(9);
@@ -81,7 +81,7 @@ describe('results that read well', () => {
   });
 
   it('draws one profile chart per scale, each on its own axis', () => {
-    render(<ResultsView analysis={analysePanel(data())} />);
+    render(<ResultsView analysis={analyseTasting(data())} />);
     const profiles = screen.getAllByTestId('profile-chart');
     expect(profiles.map((p) => p.getAttribute('aria-label'))).toEqual([
       'Profile, Liking, 1–9 hedonic scale: mean score of each sample on each attribute',
@@ -97,19 +97,19 @@ describe('results that read well', () => {
     expect(jarDiverging([{ label: 'B', tooLittle: 2, justAboutRight: 2, tooMuch: 0, n: 4 }])).toEqual({
       labels: ['B'], justRightLeft: [-25], tooLittle: [-50], justRightRight: [25], tooMuch: [0],
     });
-    render(<ResultsView analysis={analysePanel(data())} />);
+    render(<ResultsView analysis={analyseTasting(data())} />);
     const jar = charts.props.find((p) => p.data.datasets[0]?.label === 'Just about right')!;
     expect(jar.options.scales.x.min).toBe(-100);
     expect(jar.data.datasets.map((d: any) => d.data[1])).toEqual([-25, -50, 25, 0]);
   });
 
   it('the pooled penalty analysis appears only when asked for', () => {
-    const links = { showHref: '/panels/x/results?penalty=pooled', hideHref: '/panels/x/results' };
-    render(<ResultsView analysis={analysePanel(data())} pooledPenalty={links} />);
+    const links = { showHref: '/tastings/x/results?penalty=pooled', hideHref: '/tastings/x/results' };
+    render(<ResultsView analysis={analyseTasting(data())} pooledPenalty={links} />);
     expect(screen.queryByTestId('pooled-penalty-table')).toBeNull();
     expect(screen.getByRole('link', { name: 'Also show all samples pooled' }).getAttribute('href')).toBe(links.showHref);
     cleanup();
-    render(<ResultsView analysis={analysePanel(data(), { pooledPenalty: true })} pooledPenalty={links} />);
+    render(<ResultsView analysis={analyseTasting(data(), { pooledPenalty: true })} pooledPenalty={links} />);
     expect(screen.getByTestId('pooled-penalty-table')).toBeTruthy();
     expect(screen.getByRole('link', { name: 'Hide the pooled analysis' })).toBeTruthy();
   });

@@ -1,7 +1,7 @@
 // @vitest-environment jsdom
 import { describe, it, expect, vi, afterEach } from 'vitest';
 import { render, screen, cleanup, within } from '@testing-library/react';
-import { analysePanel } from '@/lib/results/analysis';
+import { analyseTasting } from '@/lib/results/analysis';
 
 // chart.js has no canvas under jsdom: the charts render as labelled stand-ins.
 vi.mock('react-chartjs-2', () => ({ Bar: (props: { data: { labels: string[] } }) => <div data-testid="bar">{props.data.labels.join('|')}</div> }));
@@ -20,7 +20,7 @@ const DATA = {
 
 describe('the results view', () => {
   it('shows the verdict, the summary table with letters, and the ANOVA table', () => {
-    const analysis = analysePanel({
+    const analysis = analyseTasting({
       method: 'rated',
       samples: Object.keys(DATA).map((l) => ({ sampleId: l, label: l, description: '' })),
       attributes: [{ id: 'f', name: 'Set firmness', purpose: 'intensity', highAnchor: 'Very firm' }],

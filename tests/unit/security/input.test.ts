@@ -26,15 +26,15 @@ import {
   versionNumber,
   wholeNumber,
 } from '@/lib/input';
-import { createTrialSchema, measurementSchema, trialListQuerySchema } from '@/lib/trials/schema';
+import { createTrialSchema, cookSchema, trialListQuerySchema } from '@/lib/trials/schema';
 import { batchRecordSchema, batchSheetQuerySchema } from '@/lib/production/schema';
 import { reviseFormulaSchema, formulaListQuerySchema } from '@/lib/formulas/schema';
-import { joinSchema, createPanelSchema } from '@/lib/panels/schema';
+import { joinSchema, createTastingSchema } from '@/lib/tastings/schema';
 import { requestResetSchema } from '@/lib/account/schema';
 import { inviteMemberSchema } from '@/lib/members/schema';
 import { ingredientListQuerySchema } from '@/lib/ingredients/schema';
 import { findDocProblems } from '@/lib/notebook/schema';
-import { parseMeasurementCsv } from '@/lib/trials/csv';
+import { parseCookCsv } from '@/lib/trials/csv';
 
 const ok = (schema: z.ZodType, value: unknown) => schema.safeParse(value).success;
 
@@ -108,13 +108,13 @@ describe('impossible calendar dates', () => {
     expect(ok(isoDate, value)).toBe(true);
   });
   it('refuses them in cooks, batch records, the cook CSV and tasting times', () => {
-    expect(ok(measurementSchema, { variantId: '6f1c0b9e-8a47-4d7e-9a59-3c1f2a7b9e10', cookDate: '2026-02-30' })).toBe(false);
+    expect(ok(cookSchema, { variantId: '6f1c0b9e-8a47-4d7e-9a59-3c1f2a7b9e10', cookDate: '2026-02-30' })).toBe(false);
     expect(batchRecordSchema.safeParse({ batchDate: '2026-04-31' }).error?.issues.some((i) => i.path[0] === 'batchDate')).toBe(true);
     expect(ok(isoDateTime, '2026-02-30T10:00:00Z')).toBe(false);
     expect(ok(isoDateTime, '0000-01-01T10:00:00Z')).toBe(false);
     expect(ok(isoDateTime, '2026-06-14T10:00:00+02:00')).toBe(true);
-    expect(createPanelSchema.safeParse({ startsAt: '2026-02-30T10:00:00Z' }).error?.issues.some((i) => i.path[0] === 'startsAt')).toBe(true);
-    const { errors } = parseMeasurementCsv('variant,cook_date,ph\nA,2026-02-30,3.2\n', new Map([['A', '6f1c0b9e-8a47-4d7e-9a59-3c1f2a7b9e10']]));
+    expect(createTastingSchema.safeParse({ startsAt: '2026-02-30T10:00:00Z' }).error?.issues.some((i) => i.path[0] === 'startsAt')).toBe(true);
+    const { errors } = parseCookCsv('variant,cook_date,ph\nA,2026-02-30,3.2\n', new Map([['A', '6f1c0b9e-8a47-4d7e-9a59-3c1f2a7b9e10']]));
     expect(errors).toEqual([expect.objectContaining({ row: 2, column: 'cook_date' })]);
   });
 });

@@ -4,7 +4,7 @@ import { cleanup, render, screen } from '@testing-library/react';
 
 vi.mock('next/navigation', () => ({ useRouter: () => ({ push: vi.fn(), refresh: vi.fn() }) }));
 
-import { NewPanelForm } from '@/components/panels/NewPanelForm';
+import { NewTastingForm } from '@/components/tastings/NewTastingForm';
 import { SET_FIRMNESS_LINE, scaleNote } from '@/lib/sensory/scales';
 
 afterEach(cleanup);
@@ -17,7 +17,7 @@ describe('attribute labels', () => {
 
   it('the new-tasting form says "Set firmness", not "Set firmness (Set firmness)"', () => {
     render(
-      <NewPanelForm
+      <NewTastingForm
         trialId="t1"
         variants={[{ id: 'v1', label: 'A', description: 'Base' }, { id: 'v2', label: 'B', description: 'Less sugar' }]}
         attributes={[{ id: 'a1', name: 'Set firmness', scaleName: SET_FIRMNESS_LINE.name }, { id: 'a2', name: 'Overall liking', scaleName: '9-point hedonic' }]}

@@ -1,15 +1,15 @@
 import { requirePage } from '@/lib/page-guard';
 import { can } from '@/lib/permissions';
-import { listAttributes } from '@/lib/panels/queries';
+import { listAttributes } from '@/lib/tastings/queries';
 import { PageHeader } from '@/components/ui/Card';
 import { scaleNote } from '@/lib/sensory/scales';
-import { AttributeForm } from '@/components/panels/AttributeForm';
+import { AttributeForm } from '@/components/tastings/AttributeForm';
 
 export const dynamic = 'force-dynamic';
 export const metadata = { title: 'Tasting attributes' };
 
 export default async function AttributesPage() {
-  const actor = await requirePage('panels.read');
+  const actor = await requirePage('tastings.read');
   const attributes = await listAttributes(actor);
   return (
     <>
@@ -22,7 +22,7 @@ export default async function AttributesPage() {
           </li>
         ))}
       </ul>
-      {can(actor.role, 'panels.run') ? <AttributeForm /> : null}
+      {can(actor.role, 'tastings.run') ? <AttributeForm /> : null}
     </>
   );
 }

@@ -16,8 +16,8 @@ import { PlanHelper } from '@/components/trials/PlanHelper';
 import { CsvImport } from '@/components/trials/CsvImport';
 import { Attachments } from '@/components/trials/Attachments';
 import { NotebookEditor } from '@/components/notebook/NotebookEditor';
-import { listPanelSessions } from '@/lib/panels/queries';
-import { PANEL_METHOD_LABELS, PANEL_STATE_LABELS } from '@/lib/panels/vocabulary';
+import { listTrialTastings } from '@/lib/tastings/queries';
+import { TASTING_METHOD_LABELS, TASTING_STATE_LABELS } from '@/lib/tastings/vocabulary';
 import { buttonClass } from '@/components/ui/Button';
 import { formatDate, formatDateTime } from '@/lib/format/dates';
 
@@ -48,7 +48,7 @@ export default async function TrialPage({ params }: { params: Promise<{ trialId:
       getTrialOverview(actor, trialId),
       readEntry(actor, trialId, null),
       readUploads(actor, trialId),
-      can(actor.role, 'panels.read') ? listPanelSessions(actor, trialId) : Promise.resolve([]),
+      can(actor.role, 'tastings.read') ? listTrialTastings(actor, trialId) : Promise.resolve([]),
       can(actor.role, 'prices.read') ? trialCosts(actor, trialId) : Promise.resolve(null),
     ]),
   );
@@ -65,7 +65,7 @@ export default async function TrialPage({ params }: { params: Promise<{ trialId:
           {canEdit ? <StatusControls trialId={trial.id} status={trial.status} /> : null}
           <a href={`/api/v1/trials/${trial.id}/export`} className={buttonClass('ghost')}>Download CSV</a>
           <Link href={`/trials/${trial.id}/print`} className={buttonClass('ghost')}>Print view</Link>
-          {can(actor.role, 'panels.read') ? <Link href={`/trials/${trial.id}/compare`} className={buttonClass('ghost')}>Compare variants</Link> : null}
+          {can(actor.role, 'tastings.read') ? <Link href={`/trials/${trial.id}/compare`} className={buttonClass('ghost')}>Compare variants</Link> : null}
         </div>
       </TrialHeader>
 
@@ -82,16 +82,16 @@ export default async function TrialPage({ params }: { params: Promise<{ trialId:
           <section aria-labelledby="panels-title" className="rounded-card bg-pith-50 p-5 ring-1 ring-pith-300">
             <div className="flex flex-wrap items-center justify-between gap-2">
               <h2 id="panels-title" className="text-lg font-semibold">Tastings</h2>
-              {can(actor.role, 'panels.run') ? <Link href={`/trials/${trial.id}/panels/new`} className={buttonClass('secondary')}>New tasting</Link> : null}
+              {can(actor.role, 'tastings.run') ? <Link href={`/trials/${trial.id}/tastings/new`} className={buttonClass('secondary')}>New tasting</Link> : null}
             </div>
             {panels.length === 0 ? (
               <p className="mt-2 text-sm text-rind-600">No tasting yet. When the variants are cooked, set up a blind tasting: codes and serving orders are drawn for you.</p>
             ) : (
-              <ul className="mt-3 divide-y divide-pith-200 text-sm" data-testid="panel-list">
+              <ul className="mt-3 divide-y divide-pith-200 text-sm" data-testid="tasting-list">
                 {panels.map((p) => (
                   <li key={p.id} className="flex flex-wrap items-center justify-between gap-2 py-2">
-                    <Link href={`/panels/${p.id}`} className="font-medium text-damson-800 underline-offset-2 hover:underline">{p.title}</Link>
-                    <span className="text-rind-600">{PANEL_METHOD_LABELS[p.method]} · {PANEL_STATE_LABELS[p.state]} · {p.submitted} of {p.seats} seats submitted</span>
+                    <Link href={`/tastings/${p.id}`} className="font-medium text-damson-800 underline-offset-2 hover:underline">{p.title}</Link>
+                    <span className="text-rind-600">{TASTING_METHOD_LABELS[p.method]} · {TASTING_STATE_LABELS[p.state]} · {p.submitted} of {p.seats} seats submitted</span>
                   </li>
                 ))}
               </ul>
@@ -107,7 +107,7 @@ export default async function TrialPage({ params }: { params: Promise<{ trialId:
                   at: h.at,
                   text: `${h.from ? `${TRIAL_STATUS_LABELS[h.from]} → ` : ''}${TRIAL_STATUS_LABELS[h.to]} by ${h.byName}${h.note ? ` (“${h.note}”)` : ''}`,
                 })),
-                ...trial.variants.flatMap((v) => [...v.measurements, ...v.withdrawnMeasurements].flatMap((m) => m.changes.map((c) => ({
+                ...trial.variants.flatMap((v) => [...v.cooks, ...v.withdrawnCooks].flatMap((m) => m.changes.map((c) => ({
                   at: c.at,
                   text: `Cook of ${formatDate(m.cookDate)} (variant ${v.label}) ${c.kind === 'withdrawn' ? 'withdrawn' : 'corrected'} by ${c.byName} (“${c.reason}”)`,
                 })))),

@@ -40,7 +40,7 @@ export default async function PromotionRequestPage({ params }: { params: Promise
       />
       <p className="-mt-3 mb-6 text-sm">
         <Link href={`/trials/${r.trial.id}/compare`} className="text-damson-700 underline">Live comparison of {r.trial.code}</Link>
-        {r.productionFormulaId ? <> · <Link href={`/production/versions/${r.productionFormulaId}`} className="text-damson-700 underline">The production version it created</Link></> : null}
+        {r.productVersionId ? <> · <Link href={`/production/versions/${r.productVersionId}`} className="text-damson-700 underline">The production version it created</Link></> : null}
       </p>
       {r.status !== 'pending' ? (
         <div className="mb-6">

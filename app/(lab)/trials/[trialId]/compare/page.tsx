@@ -21,7 +21,7 @@ export const metadata = { title: 'Compare variants' };
 const n2 = (x: number | null | undefined, d = 2) => (x === null || x === undefined || !Number.isFinite(x) ? '—' : x.toFixed(d));
 
 export default async function ComparePage({ params }: { params: Promise<{ trialId: string }> }) {
-  const actor = await requirePage('panels.read');
+  const actor = await requirePage('tastings.read');
   const c = await orNotFound(getTrialComparison(actor, pageId((await params).trialId)));
   const attributes = [...new Set(c.means.map((m) => m.attribute))];
   const labels = c.trial.variants.map((v) => v.label);
@@ -42,7 +42,7 @@ export default async function ComparePage({ params }: { params: Promise<{ trialI
         {c.sessions.length === 0 ? <p className="text-sm text-rind-600">No tasting with answers yet.</p> : null}
         {c.sessions.map((s) => (
           <div key={s.id} className="mb-3 rounded-card bg-pith-50 p-4 ring-1 ring-pith-300">
-            <p className="font-medium"><Link href={`/panels/${s.id}/results`} className="underline">{s.title}</Link></p>
+            <p className="font-medium"><Link href={`/tastings/${s.id}/results`} className="underline">{s.title}</Link></p>
             <ul className="mt-1 space-y-1 text-sm" data-testid="comparison-verdicts">
               {s.verdicts.map((v) => <li key={v.attribute}><strong>{v.attribute}:</strong> {v.verdict.headline}{v.verdict.cautions.length ? <span className="text-amberline-700"> ⚠ {v.verdict.cautions.join(' ')}</span> : null}</li>)}
             </ul>

@@ -36,7 +36,7 @@ export default async function TrialPrintPage({ params }: { params: Promise<{ tri
         <section key={v.id} className="mb-6 break-before-page">
           <h2 className="mb-1 text-xl font-semibold">Variant {v.label}{v.isBase ? ' (base)' : ''}</h2>
           <p className="mb-3 text-sm text-rind-700">{v.description}</p>
-          <CookList trialId={trial.id} cooks={v.measurements} massUnits={actor.massUnits} temperatureUnit={actor.temperatureUnit} canEdit={false} />
+          <CookList trialId={trial.id} cooks={v.cooks} massUnits={actor.massUnits} temperatureUnit={actor.temperatureUnit} canEdit={false} />
           <h3 className="mb-1 mt-4 font-semibold">Notes</h3>
           <NotebookView doc={entries[i + 1].doc} />
         </section>

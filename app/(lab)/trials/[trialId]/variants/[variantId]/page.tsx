@@ -71,12 +71,12 @@ export default async function VariantPage({ params }: { params: Promise<{ trialI
           )}
           <section aria-labelledby="cooks-title">
             <h3 id="cooks-title" className="mb-2 text-lg font-semibold">Cooks: measured against predicted</h3>
-            <CookList trialId={trialId} cooks={variant.measurements} massUnits={actor.massUnits} temperatureUnit={actor.temperatureUnit} canEdit={canEdit} />
+            <CookList trialId={trialId} cooks={variant.cooks} massUnits={actor.massUnits} temperatureUnit={actor.temperatureUnit} canEdit={canEdit} />
           </section>
-          {variant.withdrawnMeasurements.length ? (
+          {variant.withdrawnCooks.length ? (
             <section aria-labelledby="withdrawn-title">
               <h3 id="withdrawn-title" className="mb-2 text-lg font-semibold">Withdrawn cooks</h3>
-              <CookList trialId={trialId} cooks={variant.withdrawnMeasurements} massUnits={actor.massUnits} temperatureUnit={actor.temperatureUnit} canEdit={false} withdrawn />
+              <CookList trialId={trialId} cooks={variant.withdrawnCooks} massUnits={actor.massUnits} temperatureUnit={actor.temperatureUnit} canEdit={false} withdrawn />
             </section>
           ) : null}
           {canEdit ? <RecordCookForm trialId={trialId} variantId={variant.id} massUnits={actor.massUnits} temperatureUnit={actor.temperatureUnit} /> : null}

@@ -14,10 +14,10 @@ export const GET = apiRoute<Params>('trials.read', async ({ actor, params, req }
   return json({ uploads: await listUploads(actor, trialId, query) });
 });
 
-/** multipart/form-data: file, and optionally variantId, measurementId, subject. The type is read from the bytes. */
+/** multipart/form-data: file, and optionally variantId, cookId, subject. The type is read from the bytes. */
 export const POST = apiRoute<Params>('trials.write', async ({ actor, params, req }) => {
   const trialId = uuidParam(params.trialId, 'trial');
   const { file, fields } = await readUploadForm(req);
-  const upload = await createUpload(actor, { trialId, variantId: fields.variantId, measurementId: fields.measurementId, subject: fields.subject, file });
+  const upload = await createUpload(actor, { trialId, variantId: fields.variantId, cookId: fields.cookId, subject: fields.subject, file });
   return json({ upload }, 201);
 });

@@ -1,5 +1,0 @@
-import { MissingRecord } from '@/components/shell/MissingRecord';
-
-export default function NotFound() {
-  return <MissingRecord kind="tasting" />;
-}

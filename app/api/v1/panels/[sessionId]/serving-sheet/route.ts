@@ -1,9 +1,0 @@
-import { apiRoute, json, uuidParam } from '@/lib/api/route';
-import { getServingSheet } from '@/lib/panels/queries';
-
-export const dynamic = 'force-dynamic';
-
-/** Which code is which variant, seat by seat: for the staff who run the panel only. */
-export const GET = apiRoute<{ sessionId: string }>('panels.run', async ({ actor, params }) =>
-  json({ sheet: await getServingSheet(actor, uuidParam(params.sessionId, 'tasting')) }),
-);

@@ -1,9 +1,0 @@
-import { publicRoute, json } from '@/lib/api/route';
-import { recordConsent } from '@/lib/panels/taster';
-
-export const dynamic = 'force-dynamic';
-
-export const POST = publicRoute<{ seatToken: string }>(async ({ params }) => {
-  await recordConsent(params.seatToken);
-  return json({ ok: true });
-});

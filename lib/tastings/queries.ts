@@ -1,0 +1,209 @@
+import 'server-only';
+/** The organiser's reads: sessions, live progress and the kitchen serving sheet (staff only). */
+import { getEm } from '@/lib/db';
+import { TastingAnswer, TastingSample, TastingSeat, Tasting, SensoryAttributeDef, Variant } from '@/entities';
+import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
+import { trialCode } from '@/lib/trials/access';
+import type { TastingMethod, TastingState } from './vocabulary';
+
+export interface SeatProgress {
+  seatIndex: number;
+  displayName: string;
+  kind: 'staff' | 'guest';
+  answered: number;
+  expected: number;
+  consented: boolean;
+  status: 'joined' | 'answering' | 'submitted' | 'partial';
+  lastSeenAt: string | null;
+}
+
+export interface TastingView {
+  id: string;
+  trialId: string;
+  title: string;
+  place: string | null;
+  startsAt: string | null;
+  method: TastingMethod;
+  state: TastingState;
+  notice: string;
+  joinCode: string | null;
+  samples: Array<{ sampleId: string; variantId: string; variantLabel: string; variantDescription: string; code: string | null }>;
+  attributes: Array<{ id: string; name: string }>;
+  /** The set-up as chosen: the rated attributes and, for a ranking, the attribute ranked by. */
+  ratedAttributeIds: string[];
+  rankingAttributeId: string | null;
+  seats: SeatProgress[];
+  createdAt: string;
+  openedAt: string | null;
+  closedAt: string | null;
+}
+
+type SessionRow = {
+  id: string; trial: { id: string }; title: string; place?: string | null; startsAt?: Date | null; method: TastingMethod; state: TastingState; notice: string;
+  joinCode?: string | null; attributeIds: string[]; rankingAttributeId?: string | null; createdAt: Date; openedAt?: Date | null; closedAt?: Date | null;
+};
+
+export async function listAttributes(actor: Actor) {
+  const em = await getEm();
+  const rows = await em.find(SensoryAttributeDef, inWorkspace(actor), { orderBy: { createdAt: 'asc' } });
+  return rows.map((r) => ({ id: r.id, name: r.name, instruction: r.instruction, modality: r.modality, scaleName: r.scale.name, libraryKey: r.libraryKey ?? null }));
+}
+
+export async function listTrialTastings(actor: Actor, trialId?: string) {
+  const em = await getEm();
+  const rows = (await em.find(Tasting, { ...inWorkspace(actor), ...(trialId ? { trial: trialId } : {}) }, { orderBy: { createdAt: 'desc' } })) as unknown as SessionRow[];
+  // Seats counted by PostgreSQL, not loaded one entity per seat.
+  const counts = rows.length
+    ? await em.execute<Array<{ session_id: string; seats: number; submitted: number }>>(
+        'select session_id, count(*)::int as seats, count(submitted_at)::int as submitted from panel_seats where workspace_id = ? and session_id in (?) group by session_id',
+        [actor.workspaceId, rows.map((r) => r.id)],
+      )
+    : [];
+  const bySession = new Map(counts.map((c) => [c.session_id, c]));
+  return rows.map((r) => {
+    const mine = bySession.get(r.id);
+    return { id: r.id, trialId: r.trial.id, title: r.title, method: r.method, state: r.state, seats: mine?.seats ?? 0, submitted: mine?.submitted ?? 0, createdAt: r.createdAt.toISOString() };
+  });
+}
+
+/** The rows a session's views are built from (its answers are loaded by the caller: all of them for results, only their seats for progress). */
+export async function loadTastingRows(actor: Actor, tastingId: string) {
+  const em = await getEm();
+  // Two waves of reads instead of five in a row: everything keyed by the session id goes at once
+  // (each scoped to the workspace, so nothing of another workspace's session is read).
+  const [found, samples, seats] = await Promise.all([
+    em.findOne(Tasting, { ...inWorkspace(actor), id: tastingId }),
+    em.find(TastingSample, { ...inWorkspace(actor), session: tastingId }, { orderBy: { position: 'asc' } }),
+    em.find(TastingSeat, { ...inWorkspace(actor), session: tastingId }, { orderBy: { seatIndex: 'asc' } }),
+  ]);
+  const s = found as unknown as SessionRow | null;
+  if (!s) throw notFound('tasting');
+  const attrIds = [...s.attributeIds, ...(s.rankingAttributeId ? [s.rankingAttributeId] : [])];
+  const [variants, attrs] = await Promise.all([
+    em.find(Variant, { ...inWorkspace(actor), id: { $in: samples.map((x) => x.variant.id) } }),
+    attrIds.length ? em.find(SensoryAttributeDef, { ...inWorkspace(actor), id: { $in: attrIds } }) : Promise.resolve([]),
+  ]);
+  return { s, samples, variants, attrs, seats };
+}
+
+export async function getTasting(actor: Actor, tastingId: string): Promise<TastingView> {
+  const rows = await loadTastingRows(actor, tastingId);
+  const answers = await (await getEm()).find(TastingAnswer, { session: rows.s.id }, { fields: ['seat'] });
+  return tastingView(rows, answers);
+}
+
+/** The organiser's view of a session from its rows; `answers` need only their seat. */
+export function tastingView({ s, samples, variants, attrs, seats }: Awaited<ReturnType<typeof loadTastingRows>>, answers: ReadonlyArray<{ seat: { id: string } }>): TastingView {
+  const vById = new Map(variants.map((v) => [v.id, v]));
+  const attrIds = [...s.attributeIds, ...(s.rankingAttributeId ? [s.rankingAttributeId] : [])];
+  const countBySeat = new Map<string, number>();
+  for (const a of answers) {
+    const id = a.seat.id;
+    countBySeat.set(id, (countBySeat.get(id) ?? 0) + 1);
+  }
+  const expectedFor = (cups: number) => (s.method === 'rated' ? cups * s.attributeIds.length : 1);
+  return {
+    id: s.id,
+    trialId: s.trial.id,
+    title: s.title,
+    place: s.place ?? null,
+    startsAt: s.startsAt ? s.startsAt.toISOString() : null,
+    method: s.method,
+    state: s.state,
+    notice: s.notice,
+    joinCode: s.joinCode ?? null,
+    samples: samples.map((x) => {
+      const v = vById.get(x.variant.id)!;
+      return { sampleId: x.id, variantId: v.id, variantLabel: v.label, variantDescription: v.description, code: x.code ?? null };
+    }),
+    attributes: attrIds.map((id) => attrs.find((a) => a.id === id)).filter((a): a is NonNullable<typeof a> => !!a).map((a) => ({ id: a.id, name: a.name })),
+    ratedAttributeIds: s.attributeIds,
+    rankingAttributeId: s.rankingAttributeId ?? null,
+    seats: seats.map((seat) => {
+      const answered = countBySeat.get(seat.id) ?? 0;
+      const expected = expectedFor(seat.servingOrder.length);
+      const status: SeatProgress['status'] = seat.submittedAt ? 'submitted' : s.state === 'closed' ? 'partial' : answered > 0 ? 'answering' : 'joined';
+      return {
+        seatIndex: seat.seatIndex, displayName: seat.displayName, kind: seat.kind, answered, expected, consented: !!seat.consentedAt, status,
+        lastSeenAt: seat.lastSeenAt ? seat.lastSeenAt.toISOString() : null,
+      };
+    }),
+    createdAt: s.createdAt.toISOString(),
+    openedAt: s.openedAt ? s.openedAt.toISOString() : null,
+    closedAt: s.closedAt ? s.closedAt.toISOString() : null,
+  };
+}
+
+/** Seat by seat: the codes in serving order and which variant each is. For the kitchen only. */
+export async function getServingSheet(actor: Actor, tastingId: string) {
+  const view = await getTasting(actor, tastingId);
+  const em = await getEm();
+  const seats = await em.find(TastingSeat, { session: tastingId }, { orderBy: { seatIndex: 'asc' } });
+  const bySample = new Map(view.samples.map((x) => [x.sampleId, x]));
+  return {
+    session: { id: view.id, title: view.title, method: view.method, place: view.place, startsAt: view.startsAt },
+    samples: view.samples,
+    seats: seats.map((seat) => ({
+      seatNumber: seat.seatIndex + 1,
+      displayName: seat.displayName,
+      designRow: seat.designRow,
+      cups: seat.servingOrder.map((c, i) => ({ position: i + 1, code: c.code, variantLabel: bySample.get(c.sampleId)?.variantLabel ?? '?' })),
+    })),
+  };
+}
+
+export interface TastingSummary {
+  id: string;
+  title: string;
+  method: TastingMethod;
+  state: TastingState;
+  trial: { id: string; code: string; title: string };
+  place: string | null;
+  startsAt: string | null;
+  seats: number;
+  submitted: number;
+  createdAt: string;
+}
+
+/** The workspace's tastings, newest first; filters come from the URL (state, trial). */
+export async function listTastings(actor: Actor, filter: { state?: TastingState; trialId?: string } = {}): Promise<TastingSummary[]> {
+  const em = await getEm();
+  const rows = (await em.find(
+    Tasting,
+    { ...inWorkspace(actor), ...(filter.state ? { state: filter.state } : {}), ...(filter.trialId ? { trial: filter.trialId } : {}) },
+    { populate: ['trial'], orderBy: { createdAt: 'desc' }, limit: 500 },
+  )) as unknown as Array<SessionRow & { trial: { id: string; number: number; title: string } }>;
+  const seats = rows.length ? await em.find(TastingSeat, { ...inWorkspace(actor), session: { $in: rows.map((r) => r.id) } }, { fields: ['session', 'submittedAt'] }) : [];
+  return rows.map((r) => {
+    const mine = seats.filter((s) => s.session.id === r.id);
+    return {
+      id: r.id, title: r.title, method: r.method, state: r.state, place: r.place ?? null, startsAt: r.startsAt ? r.startsAt.toISOString() : null,
+      trial: { id: r.trial.id, code: trialCode(r.trial.number), title: r.trial.title },
+      seats: mine.length, submitted: mine.filter((s) => s.submittedAt).length, createdAt: r.createdAt.toISOString(),
+    };
+  });
+}
+
+export interface MySeat {
+  tastingId: string;
+  title: string;
+  place: string | null;
+  startsAt: string | null;
+  state: TastingState;
+  submitted: boolean;
+  /** Open and not yet submitted: the taster still has answers to give. */
+  waiting: boolean;
+}
+
+/** The signed-in person's seats in this workspace: the ones still to answer first, then by date. Only what a taster may see. */
+export async function listMySeats(actor: Actor): Promise<MySeat[]> {
+  const em = await getEm();
+  const seats = (await em.find(TastingSeat, { ...inWorkspace(actor), user: actor.userId }, { populate: ['session'], orderBy: { createdAt: 'desc' }, limit: 200 })) as unknown as Array<{
+    submittedAt?: Date | null; createdAt: Date; session: { id: string; title: string; place?: string | null; startsAt?: Date | null; state: TastingState };
+  }>;
+  const view = seats.map((s) => ({
+    tastingId: s.session.id, title: s.session.title, place: s.session.place ?? null, startsAt: s.session.startsAt ? s.session.startsAt.toISOString() : null,
+    state: s.session.state, submitted: !!s.submittedAt, waiting: s.session.state === 'open' && !s.submittedAt,
+  }));
+  return [...view.filter((s) => s.waiting), ...view.filter((s) => !s.waiting)];
+}
