@@ -15,7 +15,7 @@ export const BatchRecord = defineEntity({
     id: p.uuid().primary().onCreate(() => randomUUID()),
     workspace: p.manyToOne(Workspace),
     product: p.manyToOne(Product),
-    productVersion: p.manyToOne(ProductVersion),
+    productVersion: p.manyToOne(ProductVersion).fieldName('production_formula_id'),
     lotCode: p.string().length(16),
     batchDate: p.date(),
     batchSizeG: p.double().$type<number>(),

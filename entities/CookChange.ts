@@ -16,13 +16,13 @@ export const CookChange = defineEntity({
   properties: (p) => ({
     id: p.uuid().primary().onCreate(() => randomUUID()),
     workspace: p.manyToOne(Workspace),
-    cook: p.manyToOne(Cook),
+    cook: p.manyToOne(Cook).fieldName('measurement_id'),
     kind: p.enum([...COOK_CHANGE_KINDS]),
     before: p.json<Record<string, unknown>>(),
     reason: p.text(),
     changedBy: p.manyToOne(User),
     changedAt: p.datetime().onCreate(() => new Date()),
   }),
-  indexes: [{ properties: ['workspace', 'measurement'] }],
+  indexes: [{ properties: ['workspace', 'cook'] }],
 });
 export type CookChangeEntity = InferEntity<typeof CookChange>;

@@ -37,7 +37,7 @@ export const PromotionRequest = defineEntity({
     decidedBy: p.manyToOne(User).nullable(),
     decidedAt: p.datetime().nullable(),
     decisionComment: p.text().nullable(),
-    productVersionId: p.uuid().nullable(),
+    productVersionId: p.uuid().nullable().fieldName('production_formula_id'),
   }),
   uniques: [{ properties: ['workspace', 'number'] }],
   indexes: [{ properties: ['workspace', 'status'] }],

@@ -14,7 +14,7 @@ export const Upload = defineEntity({
     trial: p.manyToOne(Trial),
     /** Optional links: the variant or the cook the file documents. */
     variantId: p.uuid().nullable(),
-    cookId: p.uuid().nullable(),
+    cookId: p.uuid().nullable().fieldName('measurement_id'),
     kind: p.enum(['photo', 'file']),
     /** What it shows, for photos: jar, set test, spread, other. */
     subject: p.string().length(40).nullable(),

@@ -72,13 +72,13 @@ function toCookView(m: CookRow, v: VariantView, changeRows: ChangeRow[]): CookVi
 export async function listVariants(actor: Actor, trialId: string): Promise<VariantView[]> {
   const em = await getEm();
   const rows = (await em.find(Variant, { ...inWorkspace(actor), trial: trialId, removedAt: null }, { orderBy: { position: 'asc' } }));
-  const measurements = (await em.find(
+  const cookRows = (await em.find(
     Cook,
     { ...inWorkspace(actor), variant: { $in: rows.map((r) => r.id) } },
     { populate: ['recordedBy'], orderBy: { cookDate: 'asc', createdAt: 'asc' } },
   ));
-  const changeRows = cooks.length
-    ? ((await em.find(CookChange, { ...inWorkspace(actor), cook: { $in: cooks.map((m) => m.id) } }, { populate: ['changedBy'], orderBy: { changedAt: 'asc' } })))
+  const changeRows = cookRows.length
+    ? ((await em.find(CookChange, { ...inWorkspace(actor), cook: { $in: cookRows.map((m) => m.id) } }, { populate: ['changedBy'], orderBy: { changedAt: 'asc' } })))
     : [];
   return rows.map((r) => {
     const outcome = computeFormula(r.settings, r.lines);
@@ -96,9 +96,9 @@ export async function listVariants(actor: Actor, trialId: string): Promise<Varia
       cooks: [],
       withdrawnCooks: [],
     };
-    const cooks = cooks.filter((m) => m.variant.id === r.id).map((m) => toCookView(m, view, changeRows.filter((c) => c.cook.id === m.id)));
-    view.cooks = cooks.filter((m) => !m.withdrawn);
-    view.withdrawnCooks = cooks.filter((m) => m.withdrawn);
+    const variantCooks = cookRows.filter((m) => m.variant.id === r.id).map((m) => toCookView(m, view, changeRows.filter((c) => c.cook.id === m.id)));
+    view.cooks = variantCooks.filter((m) => !m.withdrawn);
+    view.withdrawnCooks = variantCooks.filter((m) => m.withdrawn);
     return view;
   });
 }
