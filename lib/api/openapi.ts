@@ -22,6 +22,8 @@ import {
 import { fitOptionsSchema, optimiseRequestSchema, predictRequestSchema } from '@/lib/modelling/schema';
 import { batchDecisionSchema, batchRecordSchema, batchRetestSchema, decisionSchema, requestPromotionSchema, withdrawSchema } from '@/lib/production/schema';
 
+import { deprecatedAliasOf } from '@/lib/api/deprecated-paths';
+
 export interface ApiOperation {
   method: 'get' | 'post' | 'patch' | 'put' | 'delete';
   /** OpenAPI path, with {param} placeholders. */
@@ -36,6 +38,8 @@ export interface ApiOperation {
   /** Media types of a success response that is not JSON (downloads). */
   okMediaTypes?: string[];
   okStatus?: number;
+  /** An old path kept for one release (lib/api/deprecated-paths.ts): same handler as the path it names. */
+  deprecated?: boolean;
 }
 
 const UPLOAD_FORM: NonNullable<ApiOperation['multipart']> = {
@@ -48,7 +52,7 @@ const UPLOAD_FORM: NonNullable<ApiOperation['multipart']> = {
   },
 };
 
-export const API_OPERATIONS: ApiOperation[] = [
+const CURRENT_OPERATIONS: ApiOperation[] = [
   { method: 'get', path: '/api/v1/me', summary: 'The caller, their current workspace and role, and the workspaces they can switch to', tag: 'Account', permission: 'account.self' },
   { method: 'get', path: '/api/v1/members', summary: 'Members and open invitations of the workspace', tag: 'Members', permission: 'members.manage' },
   { method: 'post', path: '/api/v1/members', summary: 'Invite a member by e-mail with a role', tag: 'Members', permission: 'members.manage', request: inviteMemberSchema, okStatus: 201 },
@@ -170,6 +174,15 @@ export const API_OPERATIONS: ApiOperation[] = [
   { method: 'put', path: '/api/v1/production-versions/{versionId}/pack-format', summary: 'Choose the pack format a production version is filled in (the one change a version accepts; audited)', tag: 'Prices', permission: 'prices.write', request: packFormatChoiceSchema },
 ];
 
+/** Every operation, then the deprecated aliases of the renamed ones (answered by the same handlers). */
+export const API_OPERATIONS: ApiOperation[] = [
+  ...CURRENT_OPERATIONS,
+  ...CURRENT_OPERATIONS.flatMap((op): ApiOperation[] => {
+    const old = deprecatedAliasOf(op.path);
+    return old ? [{ ...op, path: old, deprecated: true, summary: `Deprecated: use ${op.path} (this path goes in the next release). ${op.summary}` }] : [];
+  }),
+];
+
 const errorSchema = {
   type: 'object',
   required: ['error'],
@@ -204,6 +217,7 @@ export function buildOpenApiDocument(serverUrl: string) {
     paths[op.path][op.method] = {
       summary: op.summary,
       tags: [op.tag],
+      ...(op.deprecated ? { deprecated: true } : {}),
       ...(op.permission
         ? { security: [{ bearerToken: [] }, { sessionCookie: [] }], 'x-setwell-roles': rolesWith(op.permission) }
         : { security: [] }),

@@ -252,3 +252,13 @@ import { COSTS_ROUTE_CASES } from './access-costs';
 ROUTE_CASES.push(...COSTS_ROUTE_CASES);
 import { MODELS_ROUTE_CASES } from './access-models';
 ROUTE_CASES.push(...MODELS_ROUTE_CASES);
+
+// A deprecated alias of a renamed path (lib/api/deprecated-paths.ts) gets the row of the path it names.
+import { deprecatedAliasOf } from '@/lib/api/deprecated-paths';
+ROUTE_CASES.push(
+  ...ROUTE_CASES.flatMap((c): RouteCase[] => {
+    const [method, route] = c.route.split(' ');
+    const old = deprecatedAliasOf(route.replace(/\[(\w+)\]/g, '{$1}'));
+    return old ? [{ ...c, route: `${method} ${old.replace(/\{(\w+)\}/g, '[$1]')}` }] : [];
+  }),
+);

@@ -9,6 +9,7 @@ import { createWorkspace, callRoute, asCaller, addPerson, type WorkspaceFixture,
 import { ROUTE_CASES, EXEMPT_ROUTES, BENCH_ONLY_ROUTES, ACTION_CASES, type RouteCase } from './access-table';
 import { discoverActions, discoverRoutes, operationKey } from './routes';
 import { API_OPERATIONS } from '@/lib/api/openapi';
+import { DEPRECATED_API_PATHS } from '@/lib/api/deprecated-paths';
 import { ROLES } from '@/lib/permissions';
 import { seatFixture } from './access-tastings';
 
@@ -43,6 +44,21 @@ describe('the table covers everything that exists', () => {
     const stale = [...listed].filter((k) => !actions.has(k));
     expect(missing, 'server actions missing from the table').toEqual([]);
     expect(stale).toEqual([]);
+  });
+
+  it('answers each deprecated alias with the very handlers of the path it names, marked deprecated in the OpenAPI document', () => {
+    expect(DEPRECATED_API_PATHS.length).toBeGreaterThan(0);
+    for (const { old, now } of DEPRECATED_API_PATHS) {
+      const nowOps = API_OPERATIONS.filter((op) => op.path === now && !op.deprecated);
+      expect(nowOps.length, now).toBeGreaterThan(0);
+      for (const op of nowOps) {
+        const alias = API_OPERATIONS.find((o) => o.path === old && o.method === op.method);
+        expect(alias?.deprecated, `${op.method} ${old}`).toBe(true);
+        const handler = routes.get(operationKey(op));
+        expect(handler, operationKey(op)).toBeTypeOf('function');
+        expect(routes.get(operationKey({ method: op.method, path: old })), `${op.method} ${old}`).toBe(handler);
+      }
+    }
   });
 
   it('describes every /api/v1 route in the OpenAPI document', () => {

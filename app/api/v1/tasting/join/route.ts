@@ -1,0 +1,4 @@
+// words-codemod: keep — deprecated alias of /api/v1/tastings/join (lib/api/deprecated-paths.ts), for one release.
+export { POST } from '@/app/api/v1/tastings/join/route';
+
+export const dynamic = 'force-dynamic';

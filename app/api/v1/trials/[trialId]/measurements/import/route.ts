@@ -1,0 +1,4 @@
+// words-codemod: keep — deprecated alias of /api/v1/trials/{trialId}/cooks/import (lib/api/deprecated-paths.ts), for one release.
+export { POST } from '@/app/api/v1/trials/[trialId]/cooks/import/route';
+
+export const dynamic = 'force-dynamic';

@@ -1,0 +1,4 @@
+// words-codemod: keep — deprecated alias of /api/v1/trials/{trialId}/tastings (lib/api/deprecated-paths.ts), for one release.
+export { GET, POST } from '@/app/api/v1/trials/[trialId]/tastings/route';
+
+export const dynamic = 'force-dynamic';
