@@ -16,6 +16,16 @@ const nextConfig = {
   distDir: process.env.SETWELL_NEXT_DIST_DIR || '.next',
   experimental: { authInterrupts: true },
   typedRoutes: false,
+  // Old page addresses, still in e-mails and bookmarks, after issue 18 renamed them (one word per thing):
+  // permanent, and Next.js passes the query string on. The old "My tastings" (/tastings) is now the
+  // workspace's list; app/(lab)/tastings/page.tsx sends a taster who cannot read it to /tastings/mine.
+  async redirects() {
+    return [
+      { source: '/panels', destination: '/tastings', permanent: true },
+      { source: '/panels/:path*', destination: '/tastings/:path*', permanent: true },
+      { source: '/trials/:trialId/panels/:path*', destination: '/trials/:trialId/tastings/:path*', permanent: true },
+    ];
+  },
   // Baseline headers on every response. Pages get their full Content-Security-Policy (with a
   // per-request script nonce) from proxy.ts; the API and downloads keep the baseline policy.
   async headers() {

@@ -1,5 +1,7 @@
 import Link from 'next/link';
+import { redirect } from 'next/navigation';
 import { requirePage } from '@/lib/page-guard';
+import { can } from '@/lib/permissions';
 import { listTastings } from '@/lib/tastings/queries';
 import { tastingListQuerySchema } from '@/lib/tastings/schema';
 import { listTrials } from '@/lib/trials/queries';
@@ -15,7 +17,9 @@ const select = 'block w-full rounded-lg bg-white px-3 py-2 text-sm ring-1 ring-i
 
 /** Every tasting of the workspace; the filters live in the URL so a filtered list can be shared. */
 export default async function TastingsPage({ searchParams }: { searchParams: Promise<Record<string, string | undefined>> }) {
-  const actor = await requirePage('tastings.read');
+  const actor = await requirePage('tastings.own');
+  // Before issue 18 this address was "My tastings": whoever cannot read the workspace's tastings is sent there.
+  if (!can(actor.role, 'tastings.read')) redirect('/tastings/mine');
   const raw = Object.fromEntries(Object.entries(await searchParams).filter(([, v]) => v !== ''));
   const parsed = tastingListQuerySchema.safeParse(raw);
   const query = parsed.success ? parsed.data : {};
