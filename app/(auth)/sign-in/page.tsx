@@ -17,7 +17,7 @@ export default async function SignInPage({ searchParams }: { searchParams: Promi
   return (
     <>
       <h1 className="mb-1 text-2xl font-semibold">Sign in</h1>
-      <p className="mb-6 text-sm text-rind-600">{note ?? 'Your formulas, trials and panels are waiting.'}</p>
+      <p className="mb-6 text-sm text-rind-600">{note ?? 'Your formulas, trials and tastings are waiting.'}</p>
       <SignInForm initialError={error} />
     </>
   );

@@ -16,7 +16,7 @@ const areas = readdirSync(LAB).filter((name) => statSync(path.join(LAB, name)).i
 
 describe('area boundaries', () => {
   it('finds the areas', () => {
-    expect(areas).toEqual(expect.arrayContaining(['formulas', 'trials', 'panels', 'production', 'ingredients', 'settings', 'home', 'tastings', 'prices']));
+    expect(areas).toEqual(expect.arrayContaining(['formulas', 'trials', 'production', 'ingredients', 'settings', 'home', 'tastings', 'prices']));
   });
 
   it.each(areas)('%s has error.tsx and not-found.tsx, and no loading.tsx that would turn its 404s into 200s', (area) => {
