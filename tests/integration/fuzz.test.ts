@@ -136,7 +136,7 @@ async function sendAndCheck(
 ) {
   // The state after one request is the state before the next (nothing else writes meanwhile).
   const before = EACH ? (lastSnapshot ?? (await snapshot())) : undefined;
-  const headers: Record<string, string> = op.path === '/api/v1/tastings/join' ? { 'x-forwarded-for': fuzzAddress() } : {};
+  const headers: Record<string, string> = op.path.endsWith('/join') ? { 'x-forwarded-for': fuzzAddress() } : {};
   const res = await callRoute(routes.get(operationKey(op))!, {
     method: op.method.toUpperCase(),
     path: pathWith(op, req.params) + (req.query ? `?${req.query}` : ''),
