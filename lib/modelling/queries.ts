@@ -14,6 +14,7 @@ import { formulaFeatures, type FormulaFeatures } from './features';
 import { fitFamilyModel, fitResponse, varyingFactors } from './fit';
 import { ValidationFailed } from '@/lib/errors';
 import {
+import { isoDate } from '@/lib/format/dates';
   DEFAULT_MODEL_FACTORS,
   familySlug,
   LAB_RESPONSE_INFO,
@@ -41,10 +42,6 @@ function summarise(values: readonly number[]): ResponseValue | undefined {
   const mean = values.reduce((s, v) => s + v, 0) / n;
   const sd = n >= 2 ? Math.sqrt(values.reduce((s, v) => s + (v - mean) ** 2, 0) / (n - 1)) : null;
   return { mean, n, sd };
-}
-
-function isoDay(value: Date | string): string {
-  return typeof value === 'string' ? value.slice(0, 10) : value.toISOString().slice(0, 10);
 }
 
 /** Soluble solids at 20 °C: the reading corrected when its temperature is known and inside the table, else as read. */
@@ -161,7 +158,7 @@ export async function modelDataset(scope: Scope, selection: DatasetSelection): P
   const firstCookOfTrial = new Map<string, string>();
   for (const cook of cooks) {
     const trialId = featured.find((f) => f.variant.id === cook.variant.id)!.variant.trial.id;
-    const day = isoDay(cook.cookDate);
+    const day = isoDate(cook.cookDate);
     const known = firstCookOfTrial.get(trialId);
     if (!known || day < known) firstCookOfTrial.set(trialId, day);
   }
@@ -196,7 +193,7 @@ export async function modelDataset(scope: Scope, selection: DatasetSelection): P
       trialId: variant.trial.id,
       trialCode: trialCode(variant.trial.number),
       trialTitle: variant.trial.title,
-      trialDate: firstCookOfTrial.get(variant.trial.id) ?? isoDay(variant.trial.createdAt),
+      trialDate: firstCookOfTrial.get(variant.trial.id) ?? isoDate(variant.trial.createdAt),
       variantId: variant.id,
       variantLabel: variant.label,
       pectinFamily: features.pectinFamily,
@@ -255,7 +252,7 @@ export async function listFamilies(scope: Scope): Promise<FamilySummary[]> {
     : [];
   const lastCookOf = new Map<string, string>();
   for (const cook of cooks) {
-    const day = isoDay(cook.cookDate);
+    const day = isoDate(cook.cookDate);
     if ((lastCookOf.get(cook.variant.id) ?? '') < day) lastCookOf.set(cook.variant.id, day);
   }
   const families = new Map<string, FamilySummary & { trialIds: Set<string> }>();
