@@ -13,8 +13,8 @@ import type { SensoryScale } from '@/lib/sensory';
 import { formulaFeatures, type FormulaFeatures } from './features';
 import { fitFamilyModel, fitResponse, varyingFactors } from './fit';
 import { ValidationFailed } from '@/lib/errors';
-import {
 import { isoDate } from '@/lib/format/dates';
+import {
   DEFAULT_MODEL_FACTORS,
   familySlug,
   LAB_RESPONSE_INFO,
