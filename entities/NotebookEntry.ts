@@ -2,7 +2,7 @@ import { defineEntity, type InferEntity } from '@mikro-orm/core';
 import { randomUUID } from 'node:crypto';
 import { Workspace } from './Workspace';
 import { User } from './User';
-import type { TiptapDoc } from '../lib/notebook/schema';
+import type { TiptapDoc } from '../lib/notebook/shape';
 import { Trial } from './Trial';
 
 /**

@@ -11,7 +11,7 @@ import { createElement } from 'react';
 import { renderToStaticMarkup } from 'react-dom/server';
 import { NotebookView } from '../components/notebook/NotebookView';
 import { docFigures, largestNotebookDoc } from '../lib/notebook/largest-doc';
-import { findDocProblems } from '../lib/notebook/schema';
+import { findDocProblems } from '../lib/notebook/document';
 
 const REPEATS = 7;
 

@@ -3,7 +3,8 @@
 /** A save that arrived after someone else's: both versions side by side, and the writer's choice. */
 import type { ReactNode } from 'react';
 import { clockTime } from '@/lib/notebook/autosave';
-import type { NotebookConflictView, TiptapDoc } from '@/lib/notebook/schema';
+import type { TiptapDoc } from '@/lib/notebook/shape';
+import type { NotebookConflictView } from '@/lib/notebook/schema';
 import { Button } from '@/components/ui/Button';
 import { NotebookView } from './NotebookView';
 

@@ -8,7 +8,7 @@
 import { useEffect, useRef, useState } from 'react';
 import { Extension } from '@tiptap/core';
 import { EditorContent, useEditor, type Editor } from '@tiptap/react';
-import { sanitizeDoc } from '@/lib/notebook/schema';
+import { sanitizeDoc } from '@/lib/notebook/document';
 import { clockTime, saveStateLabel } from '@/lib/notebook/autosave';
 import { notebookExtensions } from './extensions';
 import { NOTEBOOK_PROSE_CLASS, NotebookView } from './NotebookView';

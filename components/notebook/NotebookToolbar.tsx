@@ -3,7 +3,7 @@
 /** The notebook's formatting toolbar: headings, marks, lists, tables, links and photos, each with its shortcut. */
 import { useId, useRef, useState, useSyncExternalStore, type ReactNode } from 'react';
 import { useEditorState, type Editor } from '@tiptap/react';
-import { isAllowedLinkHref } from '@/lib/notebook/schema';
+import { isAllowedLinkHref } from '@/lib/notebook/links';
 import { normaliseLinkInput } from '@/lib/notebook/autosave';
 import { ConfirmDialog } from '@/components/ui/ConfirmDialog';
 import { uploadPhoto } from './uploadImage';

@@ -7,7 +7,9 @@
 import type { ReactNode } from 'react';
 import { renderToReactElement } from '@tiptap/static-renderer/pm/react';
 import { notebookExtensions } from './extensions';
-import { linkPresentation, sanitizeDoc, type TiptapDoc, type TiptapNode } from '@/lib/notebook/schema';
+import { type TiptapDoc, type TiptapNode } from '@/lib/notebook/shape';
+import { linkPresentation } from '@/lib/notebook/links';
+import { sanitizeDoc } from '@/lib/notebook/document';
 
 /** Our own prose styles, applied to the plain elements the renderer produces. */
 export const NOTEBOOK_PROSE_CLASS = [

@@ -8,7 +8,7 @@ import Link from '@tiptap/extension-link';
 import { TaskItem, TaskList } from '@tiptap/extension-list';
 import { TableKit } from '@tiptap/extension-table';
 import Image from '@tiptap/extension-image';
-import { isAllowedLinkHref, linkPresentation } from '@/lib/notebook/schema';
+import { isAllowedLinkHref, linkPresentation } from '@/lib/notebook/links';
 
 /**
  * Links whose target and rel are ours: never read from pasted HTML or a stored document, always

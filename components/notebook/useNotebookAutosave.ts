@@ -8,7 +8,9 @@
 import { useCallback, useEffect, useRef, useState, type RefObject } from 'react';
 import type { Editor } from '@tiptap/react';
 import { resolveNotebookConflictAction, saveNotebookAction } from '@/lib/notebook/actions';
-import { sanitizeDoc, type NotebookConflictView, type TiptapDoc } from '@/lib/notebook/schema';
+import { type TiptapDoc } from '@/lib/notebook/shape';
+import { sanitizeDoc } from '@/lib/notebook/document';
+import { type NotebookConflictView } from '@/lib/notebook/schema';
 import { AUTOSAVE_DELAY_MS, hasUnsavedWork, retryDelayMs, type SaveState } from '@/lib/notebook/autosave';
 import { useUnsavedWarning } from '@/components/ui/useUnsavedWarning';
 import type { EntrySnapshot } from './ConflictPanel';

@@ -5,7 +5,7 @@
  * bound test renders it on the server and in the editor, and `npm run bench` times it.
  * Pure: no framework.
  */
-import { NOTEBOOK_LIMITS as L, type TiptapDoc, type TiptapNode } from './schema';
+import { NOTEBOOK_LIMITS as L, type TiptapDoc, type TiptapNode } from './shape';
 
 const PHOTO = '/api/v1/uploads/5d1c2b3a-4e5f-4a6b-9c7d-8e9f0a1b2c3d';
 const text = (t: string): TiptapNode => ({ type: 'text', text: t });

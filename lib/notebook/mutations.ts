@@ -14,15 +14,9 @@ import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
 import { Conflict, ValidationFailed } from '@/lib/errors';
 import { assertNotebookScope } from './queries';
 import { formatDateTime } from '@/lib/format/dates';
-import {
-  EMPTY_NOTEBOOK_DOC,
-  findDocProblems,
-  mergeKeepingBoth,
-  type ResolveNotebookConflictInput,
-  type SaveNotebookInput,
-  type SaveNotebookResult,
-  type TiptapDoc,
-} from './schema';
+import { EMPTY_NOTEBOOK_DOC, type TiptapDoc } from './shape';
+import { findDocProblems, mergeKeepingBoth } from './document';
+import { type ResolveNotebookConflictInput, type SaveNotebookInput, type SaveNotebookResult } from './schema';
 
 async function nameOf(tx: EntityManager, userId: string | undefined | null): Promise<string | null> {
   if (!userId) return null;

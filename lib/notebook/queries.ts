@@ -5,7 +5,8 @@ import { NotebookConflict, NotebookEntry } from '@/entities';
 import type { NotebookConflictEntity } from '@/entities/NotebookConflict';
 import { inWorkspace, type Actor } from '@/lib/permissions';
 import { assertVariantOfTrial, loadTrial } from '@/lib/trials/access';
-import { EMPTY_NOTEBOOK_DOC, type NotebookConflictView, type NotebookEntryView } from './schema';
+import { EMPTY_NOTEBOOK_DOC } from './shape';
+import { type NotebookConflictView, type NotebookEntryView } from './schema';
 
 type ConflictRow = Pick<NotebookConflictEntity, 'id' | 'doc' | 'baseVersion' | 'createdAt'> & { savedBy: { name: string } };
 

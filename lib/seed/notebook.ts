@@ -3,7 +3,7 @@
  * the pictures are drawn by makeDemoPhoto, never taken from anywhere.
  */
 import { saveEntry } from '@/lib/notebook/mutations';
-import type { TiptapNode } from '@/lib/notebook/schema';
+import type { TiptapNode } from '@/lib/notebook/shape';
 import { createUpload } from '@/lib/uploads/mutations';
 import type { Actor } from '@/lib/permissions';
 import { makeDemoPhoto } from './photos';

@@ -8,7 +8,7 @@ import { describe, it, expect } from 'vitest';
 import { sharedBrowser, newContext, signIn, watchCsp } from './browser';
 import { DEMO_USERS } from '@/lib/seed/demo';
 import { largestNotebookDoc } from '@/lib/notebook/largest-doc';
-import { NOTEBOOK_LIMITS as L } from '@/lib/notebook/schema';
+import { NOTEBOOK_LIMITS as L } from '@/lib/notebook/shape';
 
 const browser = sharedBrowser();
 const developer = DEMO_USERS.find((u) => u.role === 'developer')!;

@@ -1,7 +1,7 @@
 /** Authorisation-table rows for the notebook feature (merged into access-table.ts). */
 import type { Role } from '@/lib/permissions';
 import { saveEntry } from '@/lib/notebook/mutations';
-import type { TiptapDoc } from '@/lib/notebook/schema';
+import type { TiptapDoc } from '@/lib/notebook/shape';
 import type { ActionCase, RouteCase } from './access-table';
 import { actorOf, type WorkspaceFixture } from './harness';
 import { createFixtureTrial } from './fixtures';

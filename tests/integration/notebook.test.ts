@@ -11,7 +11,7 @@ import { NotebookConflict, NotebookEntry, Variant } from '@/entities';
 import { GET, PUT } from '@/app/api/v1/trials/[trialId]/notebook/route';
 import { resolveNotebookConflictAction, saveNotebookAction } from '@/lib/notebook/actions';
 import { saveEntry } from '@/lib/notebook/mutations';
-import type { TiptapDoc, TiptapNode } from '@/lib/notebook/schema';
+import type { TiptapDoc, TiptapNode } from '@/lib/notebook/shape';
 import { createFixtureTrial, strawberryJamInput } from './fixtures';
 
 let a: WorkspaceFixture;

@@ -8,7 +8,7 @@ import { performance } from 'node:perf_hooks';
 import { afterEach, beforeAll, describe, expect, it, vi } from 'vitest';
 import { cleanup, render, waitFor } from '@testing-library/react';
 import { largestNotebookDoc } from '@/lib/notebook/largest-doc';
-import { NOTEBOOK_LIMITS as L, type TiptapDoc } from '@/lib/notebook/schema';
+import { NOTEBOOK_LIMITS as L, type TiptapDoc } from '@/lib/notebook/shape';
 
 const actions = vi.hoisted(() => ({ saveNotebookAction: vi.fn(), resolveNotebookConflictAction: vi.fn() }));
 vi.mock('next/navigation', () => ({ useRouter: () => ({ refresh: vi.fn(), push: vi.fn() }), usePathname: () => '/' }));

@@ -11,7 +11,9 @@ import { describe, expect, it } from 'vitest';
 import { renderToStaticMarkup } from 'react-dom/server';
 import { NotebookView } from '@/components/notebook/NotebookView';
 import { docFigures, largestNotebookDoc } from '@/lib/notebook/largest-doc';
-import { NOTEBOOK_LIMITS as L, findDocProblems, sanitizeDoc, saveNotebookSchema, type TiptapDoc, type TiptapNode } from '@/lib/notebook/schema';
+import { NOTEBOOK_LIMITS as L, type TiptapDoc, type TiptapNode } from '@/lib/notebook/shape';
+import { findDocProblems, sanitizeDoc } from '@/lib/notebook/document';
+import { saveNotebookSchema } from '@/lib/notebook/schema';
 
 const TRIAL_ID = '6b1f4c9e-2d3a-4e5f-8a7b-9c0d1e2f3a4b';
 const PHOTO = '/api/v1/uploads/5d1c2b3a-4e5f-4a6b-9c7d-8e9f0a1b2c3d';

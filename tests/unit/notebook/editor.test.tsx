@@ -1,7 +1,9 @@
 // @vitest-environment jsdom
 import { afterEach, beforeAll, beforeEach, describe, expect, it, vi } from 'vitest';
 import { act, cleanup, fireEvent, render, screen, within } from '@testing-library/react';
-import { findDocProblems, type NotebookConflictView, type TiptapDoc } from '@/lib/notebook/schema';
+import { type TiptapDoc } from '@/lib/notebook/shape';
+import { findDocProblems } from '@/lib/notebook/document';
+import { type NotebookConflictView } from '@/lib/notebook/schema';
 import { clockTime } from '@/lib/notebook/autosave';
 
 const actions = vi.hoisted(() => ({ saveNotebookAction: vi.fn(), resolveNotebookConflictAction: vi.fn() }));

@@ -1,15 +1,8 @@
 import { describe, expect, it } from 'vitest';
-import {
-  NOTEBOOK_LIMITS,
-  findDocProblems,
-  isAllowedLinkHref,
-  isOwnUploadSrc,
-  mergeKeepingBoth,
-  sanitizeDoc,
-  saveNotebookSchema,
-  type TiptapDoc,
-  type TiptapNode,
-} from '@/lib/notebook/schema';
+import { NOTEBOOK_LIMITS, type TiptapDoc, type TiptapNode } from '@/lib/notebook/shape';
+import { isAllowedLinkHref, isOwnUploadSrc } from '@/lib/notebook/links';
+import { findDocProblems, mergeKeepingBoth, sanitizeDoc } from '@/lib/notebook/document';
+import { saveNotebookSchema } from '@/lib/notebook/schema';
 import { normaliseLinkInput, retryDelayMs } from '@/lib/notebook/autosave';
 
 const TRIAL_ID = '6b1f4c9e-2d3a-4e5f-8a7b-9c0d1e2f3a4b';

@@ -33,7 +33,7 @@ import { joinSchema, createTastingSchema } from '@/lib/tastings/schema';
 import { requestResetSchema } from '@/lib/account/schema';
 import { inviteMemberSchema } from '@/lib/members/schema';
 import { ingredientListQuerySchema } from '@/lib/ingredients/schema';
-import { findDocProblems } from '@/lib/notebook/schema';
+import { findDocProblems } from '@/lib/notebook/document';
 import { parseCookCsv } from '@/lib/trials/csv';
 
 const ok = (schema: z.ZodType, value: unknown) => schema.safeParse(value).success;
