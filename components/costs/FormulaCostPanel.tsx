@@ -7,7 +7,8 @@ import type { UnitPreference } from '@/lib/chemistry';
 import { apiFetch, ApiClientError } from '@/components/api/client';
 import { Notice } from '@/components/ui/Notice';
 import { TableBox } from '@/components/ui/TableBox';
-import { showMass, type EditorComputation, type LineDraft } from '@/components/formulas/editor-state';
+import { type EditorComputation, type LineDraft } from '@/components/formulas/editor-state';
+import { showMass } from '@/lib/format/quantities';
 import { CostSummary } from './CostSummary';
 
 const SENSITIVITY_ROWS = 5;

@@ -4,7 +4,8 @@ import { useId, useState } from 'react';
 import { BRIX_CORRECTION_RANGE, BRIX_TEMPERATURE_CORRECTIONS, ChemistryInputError, celsiusToFahrenheit, correctBrixTo20C, fahrenheitToCelsius, type BrixCorrection } from '@/lib/chemistry';
 import { inputClass } from '@/components/ui/Field';
 import { Notice } from '@/components/ui/Notice';
-import { formatSigned, parseDecimal, type TemperatureUnit } from './editor-state';
+import { parseDecimal } from './editor-state';
+import { formatSigned, type TemperatureUnit } from '@/lib/format/quantities';
 
 /** Rows of the correction table that were recalled rather than read, e.g. "18, 19, 21–25 °C". */
 const RECALLED_ROWS_C = BRIX_TEMPERATURE_CORRECTIONS.filter((r) => r.fromMemory).map((r) => r.tempC);

@@ -30,34 +30,8 @@ import { UnitToggle } from './editor/UnitToggle';
 import { FormulaCostPanel } from '@/components/costs/FormulaCostPanel';
 import type { EditorCostBasis } from '@/lib/costs/schema';
 import { useUnsavedWarning } from '@/components/ui/useUnsavedWarning';
-import {
-  altitudeScale,
-  computeEditor,
-  convertLineForSystem,
-  convertSettingsForSystem,
-  convertSettingsForTemperature,
-  draftFromText,
-  EMPTY_FIELD_ERRORS,
-  hasFieldErrors,
-  ingredientIndex,
-  initialSettingsDraft,
-  issuesToFieldErrors,
-  jarFillScale,
-  lineDraftFromStored,
-  linesForSave,
-  mapFieldErrors,
-  moveItem,
-  newLineDraft,
-  settingsFromDraft,
-  settingsTextToDraft,
-  showMass,
-  temperatureScale,
-  type LineDraft,
-  type MappedFieldErrors,
-  type MeasuredDraft,
-  type SettingsDraft,
-  type TemperatureUnit,
-} from './editor-state';
+import { computeEditor, convertLineForSystem, convertSettingsForSystem, convertSettingsForTemperature, EMPTY_FIELD_ERRORS, hasFieldErrors, ingredientIndex, initialSettingsDraft, issuesToFieldErrors, lineDraftFromStored, linesForSave, mapFieldErrors, moveItem, newLineDraft, settingsFromDraft, settingsTextToDraft, type LineDraft, type MappedFieldErrors, type SettingsDraft } from './editor-state';
+import { altitudeScale, draftFromText, jarFillScale, showMass, temperatureScale, type MeasuredDraft, type TemperatureUnit } from '@/lib/format/quantities';
 
 export interface FormulaEditorProps {
   mode: 'create' | 'revise';

@@ -7,7 +7,8 @@ import { Notice } from '@/components/ui/Notice';
 import { CautionList } from '@/components/ui/CautionList';
 import { ComplianceTable } from './editor/ComplianceTable';
 import { ResultRow } from './editor/ResultRow';
-import { showMass, showNumber, showTemperature, sucroseTableSourcesFor, type TemperatureUnit } from './editor-state';
+import { sucroseTableSourcesFor } from './editor-state';
+import { showMass, showNumber, showTemperature, type TemperatureUnit } from '@/lib/format/quantities';
 
 const WATER_BASIS_LABELS: Record<WaterBoilingBasis, string> = {
   measured: 'measured by you',

@@ -13,7 +13,8 @@ import { toChemistrySettings, type ComputableLine } from '@/lib/formulas/compute
 import type { FormulaSettingsInput } from '@/lib/formulas/schema';
 import { inputClass } from '@/components/ui/Field';
 import { Notice } from '@/components/ui/Notice';
-import { formatEntryNumber, friendlyComputeMessage, parseDecimal, showMass, showMassDelta, showNumber, formatSigned } from './editor-state';
+import { friendlyComputeMessage, parseDecimal } from './editor-state';
+import { formatEntryNumber, showMass, showMassDelta, showNumber, formatSigned } from '@/lib/format/quantities';
 import { TableBox } from '@/components/ui/TableBox';
 
 type TargetKind = 'total_charge' | 'finished_mass' | 'jar_count';

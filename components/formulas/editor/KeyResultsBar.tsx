@@ -3,7 +3,7 @@
 import type { ReactNode } from 'react';
 import type { OverallComplianceStatus, UnitPreference } from '@/lib/chemistry';
 import type { ComputeOutcome } from '@/lib/formulas/compute';
-import { showMass, showNumber, showTemperature, type TemperatureUnit } from '../editor-state';
+import { showMass, showNumber, showTemperature, type TemperatureUnit } from '@/lib/format/quantities';
 
 const COMPLIANCE_SHORT: Record<OverallComplianceStatus, string> = {
   compliant: 'Meets the rules',

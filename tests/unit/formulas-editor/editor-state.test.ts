@@ -1,27 +1,7 @@
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import {
-  convertLineForSystem,
-  convertSettingsForSystem,
-  convertSettingsForTemperature,
-  draftFromText,
-  formatSigned,
-  friendlyComputeMessage,
-  initialSettingsDraft,
-  lineDraftFromStored,
-  lineQuantityForSave,
-  mapFieldErrors,
-  parseDecimal,
-  setLineText,
-  setLineUnit,
-  settingsFromDraft,
-  showNumber,
-  sucroseTableSourcesFor,
-  temperatureScale,
-  computeEditor,
-  ingredientIndex,
-  newLineDraft,
-} from '@/components/formulas/editor-state';
+import { convertLineForSystem, convertSettingsForSystem, convertSettingsForTemperature, friendlyComputeMessage, initialSettingsDraft, lineDraftFromStored, lineQuantityForSave, mapFieldErrors, parseDecimal, setLineText, setLineUnit, settingsFromDraft, sucroseTableSourcesFor, computeEditor, ingredientIndex, newLineDraft } from '@/components/formulas/editor-state';
+import { draftFromText, formatSigned, showNumber, temperatureScale } from '@/lib/format/quantities';
 import { IDS, LIBRARY } from './fixtures';
 
 describe('typed numbers', () => {
