@@ -2,21 +2,13 @@
 
 import { useMemo, useRef, useState } from 'react';
 import { useRouter } from 'next/navigation';
-import { PRESERVATION_LABELS, PRESERVATION_METHODS, type UnitPreference } from '@/lib/chemistry';
+import type { UnitPreference } from '@/lib/chemistry';
 import { createFormulaAction, reviseFormulaAction } from '@/lib/formulas/actions';
-import {
-  createFormulaSchema,
-  PRODUCT_CLASS_LABELS,
-  PRODUCT_CLASSES,
-  reviseFormulaSchema,
-  RULE_SET_LABELS,
-  RULE_SETS,
-  type FormulaSettingsInput,
-} from '@/lib/formulas/schema';
+import { createFormulaSchema, reviseFormulaSchema, type FormulaSettingsInput } from '@/lib/formulas/schema';
 import type { IngredientView } from '@/lib/ingredients/schema';
 import { Button } from '@/components/ui/Button';
 import { Card } from '@/components/ui/Card';
-import { Field, FieldErrorText, SelectField } from '@/components/ui/Field';
+import { Field, FieldErrorText } from '@/components/ui/Field';
 import { Notice } from '@/components/ui/Notice';
 import { BrixHelper } from './BrixHelper';
 import { ResultsPanel } from './ResultsPanel';
@@ -30,8 +22,9 @@ import { UnitToggle } from './editor/UnitToggle';
 import { FormulaCostPanel } from '@/components/costs/FormulaCostPanel';
 import type { EditorCostBasis } from '@/lib/costs/schema';
 import { useUnsavedWarning } from '@/components/ui/useUnsavedWarning';
-import { computeEditor, convertLineForSystem, convertSettingsForSystem, convertSettingsForTemperature, EMPTY_FIELD_ERRORS, hasFieldErrors, ingredientIndex, initialSettingsDraft, issuesToFieldErrors, lineDraftFromStored, linesForSave, mapFieldErrors, moveItem, newLineDraft, settingsFromDraft, settingsTextToDraft, type LineDraft, type MappedFieldErrors, type SettingsDraft } from './editor-state';
-import { altitudeScale, draftFromText, jarFillScale, showMass, temperatureScale, type MeasuredDraft, type TemperatureUnit } from '@/lib/format/quantities';
+import { computeEditor, convertLineForSystem, convertSettingsForSystem, convertSettingsForTemperature, EMPTY_FIELD_ERRORS, hasFieldErrors, ingredientIndex, initialSettingsDraft, issuesToFieldErrors, lineDraftFromStored, linesForSave, mapFieldErrors, moveItem, newLineDraft, settingsFromDraft, type LineDraft, type MappedFieldErrors, type SettingsDraft } from './editor-state';
+import { showMass, type TemperatureUnit } from '@/lib/format/quantities';
+import { SettingsCard } from './editor/SettingsCard';
 
 export interface FormulaEditorProps {
   mode: 'create' | 'revise';
@@ -70,14 +63,6 @@ const TEMPERATURE_OPTIONS = [
   { value: 'C', label: '°C' },
   { value: 'F', label: '°F' },
 ] as const;
-
-const productClassOptions = PRODUCT_CLASSES.map((c) => ({ value: c, label: PRODUCT_CLASS_LABELS[c] }));
-const ruleSetOptions = RULE_SETS.map((r) => ({ value: r, label: RULE_SET_LABELS[r] }));
-
-/** Local complaint for a number box that holds something unreadable. */
-function numberProblem(draft: MeasuredDraft): string[] {
-  return draft.base !== null && Number.isNaN(draft.base) ? ['Enter a number.'] : [];
-}
 
 /** The formula editor: settings, lines and live results; saves a new formula or a new revision. */
 export function FormulaEditor({ mode, initial, ingredients, massUnits, temperatureUnit, defaults, cost, models = [] }: FormulaEditorProps) {
@@ -219,13 +204,6 @@ export function FormulaEditor({ mode, initial, ingredients, massUnits, temperatu
   const resultsNotice =
     skipped > 0 ? `${skipped} incomplete line${skipped === 1 ? ' is' : 's are'} left out until it has an ingredient and a quantity.` : undefined;
 
-  const jarScale = jarFillScale(system);
-  const altScale = altitudeScale(system);
-  const bpScale = temperatureScale(tempUnit);
-  const fieldErrors = (key: string, draft?: MeasuredDraft) => {
-    const list = [...(draft ? numberProblem(draft) : []), ...(errors.fields[key] ?? [])];
-    return list.length ? list : undefined;
-  };
   const saving = status.kind === 'saving';
 
   return (
@@ -262,124 +240,7 @@ export function FormulaEditor({ mode, initial, ingredients, massUnits, temperatu
             />
           </Card>
 
-          <Card title="Settings">
-            <div className="grid gap-4 sm:grid-cols-2">
-              <SelectField
-                label="Product class"
-                name="settings.productClass"
-                id="setting-productClass"
-                value={settings.productClass}
-                options={productClassOptions}
-                onChange={(e) => updateSettings({ productClass: e.target.value as SettingsDraft['productClass'] }, 'settings.productClass')}
-                errors={errors.fields['settings.productClass']}
-              />
-              <SelectField
-                label="Market rule set"
-                name="settings.ruleSet"
-                id="setting-ruleSet"
-                value={settings.ruleSet}
-                options={ruleSetOptions}
-                onChange={(e) => updateSettings({ ruleSet: e.target.value as SettingsDraft['ruleSet'] }, 'settings.ruleSet')}
-                errors={errors.fields['settings.ruleSet']}
-              />
-              <Field
-                label="Rule date (production or labelling)"
-                name="settings.ruleDate"
-                id="setting-ruleDate"
-                type="date"
-                value={settings.ruleDate}
-                onChange={(e) => updateSettings({ ruleDate: e.target.value }, 'settings.ruleDate')}
-                errors={errors.fields['settings.ruleDate']}
-                hint="Selects the edition of the rules, e.g. the EU minimums that change on 14 June 2026."
-              />
-              <Field
-                label="Target final soluble solids (%)"
-                name="settings.targetSolidsPct"
-                id="setting-targetSolidsPct"
-                inputMode="decimal"
-                value={settings.targetSolids.text}
-                onChange={(e) => updateSettings({ targetSolids: settingsTextToDraft(e.target.value) }, 'settings.targetSolidsPct')}
-                errors={fieldErrors('settings.targetSolidsPct', settings.targetSolids)}
-              />
-              <Field
-                label={`Jar net fill (${jarScale.unitLabel})`}
-                name="settings.jarNetFillG"
-                id="setting-jarNetFill"
-                inputMode="decimal"
-                value={settings.jarFill.text}
-                onChange={(e) => updateSettings({ jarFill: draftFromText(e.target.value, jarScale) }, 'settings.jarNetFillG')}
-                errors={fieldErrors('settings.jarNetFillG', settings.jarFill)}
-              />
-              <Field
-                label="Planned pH (optional)"
-                name="settings.plannedPh"
-                id="setting-plannedPh"
-                inputMode="decimal"
-                value={settings.plannedPh.text}
-                onChange={(e) => updateSettings({ plannedPh: settingsTextToDraft(e.target.value) }, 'settings.plannedPh')}
-                errors={fieldErrors('settings.plannedPh', settings.plannedPh)}
-              />
-              <SelectField
-                label="Preservation besides sugar"
-                name="settings.preservation"
-                id="setting-preservation"
-                value={settings.preservation}
-                options={[{ value: '', label: 'Not stated (sugar and acidity alone)' }, ...PRESERVATION_METHODS.map((m) => ({ value: m, label: PRESERVATION_LABELS[m] }))]}
-                onChange={(e) => updateSettings({ preservation: e.target.value as SettingsDraft['preservation'] }, 'settings.preservation')}
-                errors={errors.fields['settings.preservation']}
-              />
-              <fieldset className="sm:col-span-2">
-                <legend className="mb-1 text-sm font-medium text-rind-700">Where does water boil in your kitchen?</legend>
-                <div className="flex flex-wrap gap-x-6 gap-y-1">
-                  <label className="inline-flex min-h-10 items-center gap-2 text-sm">
-                    <input
-                      type="radio"
-                      name="boilingReference"
-                      value="altitude"
-                      checked={settings.boilingReference === 'altitude'}
-                      onChange={() => updateSettings({ boilingReference: 'altitude' }, 'settings.measuredWaterBoilingC')}
-                    />
-                    From the kitchen altitude
-                  </label>
-                  <label className="inline-flex min-h-10 items-center gap-2 text-sm">
-                    <input
-                      type="radio"
-                      name="boilingReference"
-                      value="measured"
-                      checked={settings.boilingReference === 'measured'}
-                      onChange={() => updateSettings({ boilingReference: 'measured' }, 'settings.altitudeM')}
-                    />
-                    I measured it
-                  </label>
-                </div>
-                <div className="mt-2 max-w-xs">
-                  {settings.boilingReference === 'altitude' ? (
-                    <Field
-                      label={`Kitchen altitude (${altScale.unitLabel})`}
-                      name="settings.altitudeM"
-                      id="setting-altitude"
-                      inputMode="decimal"
-                      value={settings.altitude.text}
-                      onChange={(e) => updateSettings({ altitude: draftFromText(e.target.value, altScale) }, 'settings.altitudeM')}
-                      errors={fieldErrors('settings.altitudeM', settings.altitude)}
-                      hint="Leave empty for sea level."
-                    />
-                  ) : (
-                    <Field
-                      label={`Measured water boiling point (${bpScale.unitLabel})`}
-                      name="settings.measuredWaterBoilingC"
-                      id="setting-measuredBoiling"
-                      inputMode="decimal"
-                      value={settings.measuredBoiling.text}
-                      onChange={(e) => updateSettings({ measuredBoiling: draftFromText(e.target.value, bpScale) }, 'settings.measuredWaterBoilingC')}
-                      errors={fieldErrors('settings.measuredWaterBoilingC', settings.measuredBoiling)}
-                      hint="Boil plain water in your pan and read the thermometer; it captures the day's weather too."
-                    />
-                  )}
-                </div>
-              </fieldset>
-            </div>
-          </Card>
+          <SettingsCard settings={settings} system={system} temperatureUnit={tempUnit} errors={errors.fields} onChange={updateSettings} />
 
           <Card
             title="Lines"
