@@ -11,7 +11,7 @@ import { familyModel, familyOfFormula, listFamilies, modelDataset } from '@/lib/
 import { fitFamilyModel, modelHistory } from '@/lib/modelling/fit';
 import { predictResponse } from '@/lib/models';
 import type { FamilyInfo } from '@/lib/modelling/schema';
-import { optimiseFamily } from '@/lib/modelling/predict';
+import { optimiseFamily } from '@/lib/modelling/optimise';
 import { User } from '@/entities';
 import { DEMO_USERS } from '@/lib/seed/demo';
 import { callRoute, sessionCookieFor, type Person } from './harness';
@@ -217,7 +217,7 @@ describe('predictions and proposals on the demo', () => {
     const outside = await callRoute(predictRoute.POST, { method: 'POST', path: `/api/v1/models/${apricot.slug}/predict`, caller: { kind: 'session', person: head }, params: { family: apricot.slug }, body: { point: { ...point, pectinPct: 2.5 } } });
     const withdrawn = outside.body.predictions.find((p: { name: string }) => p.name === 'Overall liking');
     expect(withdrawn.inRegion).toBe(false);
-    expect(withdrawn.reason).toMatch(/^pectin 2\.5 is outside the data/);
+    expect(withdrawn.reason).toMatch(/^Pectin at 2\.500 % of finished product is above anything the trials covered/);
     expect(withdrawn.estimate).toBeUndefined();
   });
 

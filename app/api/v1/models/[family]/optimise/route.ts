@@ -1,6 +1,6 @@
 import { apiRoute, json } from '@/lib/api/route';
 import { familyModelOrNotFound } from '@/lib/modelling/queries';
-import { optimiseFamily } from '@/lib/modelling/predict';
+import { optimiseFamily } from '@/lib/modelling/optimise';
 import { familyParam } from '@/lib/modelling/respond';
 import { optimiseRequestSchema } from '@/lib/modelling/schema';
 
