@@ -97,7 +97,7 @@ export function searchFamily(model: FamilyModel, request: SearchRequest, sources
 
 export interface FamilyProposal {
   point: Partial<FactorValues>;
-  /** Fruit per 1000 g of finished product at the point (from the fruit-content surface), when known. */
+  /** Fruit per 1000 g of finished product at the point (base formula's mass balance, else the fruit-content surface), when known. */
   fruitPer1000g: number | null;
   desirability: number;
   /** Every modelled response at the point, goals first. */
@@ -110,13 +110,17 @@ export interface FamilyOptimum {
   message: string | null;
 }
 
-/** POST /api/v1/models/{family}/optimise: no base formula, so the fruit minimum holds on the fitted fruit-content surface. */
-export function optimiseFamily(model: FamilyModel, request: OptimiseRequest): FamilyOptimum {
-  const fruitOf = model.fruitContent ? (p: Readonly<Record<string, number>>) => estimateAt(model.fruitContent, p) : null;
+/**
+ * POST /api/v1/models/{family}/optimise. With a base formula (`fromBase`, proposals.ts
+ * baseFormulaSources) the fruit minimum holds on its exact mass balance, as on the Propose screen;
+ * without one, on the family's fitted fruit-content surface.
+ */
+export function optimiseFamily(model: FamilyModel, request: OptimiseRequest, fromBase?: Pick<SearchSources, 'fruitPer1000g' | 'constraints'>): FamilyOptimum {
+  const fruitOf = fromBase ? fromBase.fruitPer1000g : model.fruitContent ? (p: Readonly<Record<string, number>>) => estimateAt(model.fruitContent, p) : null;
   const { result } = searchFamily(
     model,
     { factors: request.factors, goals: request.goals, fruitMinimumPer1000g: request.constraints?.fruitMinimumPer1000g, ph: request.constraints?.ph, proposals: request.proposals },
-    { fruitPer1000g: fruitOf, withoutPhModel: 'refuse' },
+    { fruitPer1000g: fruitOf, constraints: fromBase?.constraints, withoutPhModel: 'refuse' },
   );
   const goalKeys = request.goals.map((g) => g.response);
   const ordered = [...model.responses].sort((a, b) => Number(goalKeys.includes(b.key)) - Number(goalKeys.includes(a.key)));

@@ -12,7 +12,7 @@ import { RULES, type BatchComputation } from '@/lib/chemistry';
 import { computeFormula } from '@/lib/formulas/compute';
 import type { FormulaSettingsInput, RevisionLine } from '@/lib/formulas/schema';
 import { ValidationFailed } from '@/lib/errors';
-import { predictResponse, windowConstraint, type Interval } from '@/lib/models';
+import { predictResponse, windowConstraint, type Constraint, type Interval } from '@/lib/models';
 import { searchFamily, type SearchRequest } from './optimise';
 import { predictOne } from './predict';
 import { FACTOR_INFO, type FamilyModel, type ModelFactor, type ResponseKey } from './schema';
@@ -178,17 +178,27 @@ export interface ProposalOutcome {
 }
 
 /**
+ * The fruit content and the "can be made" constraint from a base formula: its mass balance solved at
+ * each point — exact, better than the fitted fruit-content surface the API falls back on without one.
+ */
+export function baseFormulaSources(base: ProposalBase): { fruitPer1000g: (point: Readonly<Record<string, number>>) => number; constraints: Constraint[] } {
+  const solver = pointSolver(base);
+  if (typeof solver === 'string') throw new ValidationFailed(solver, { baseFormulaId: [solver] });
+  return {
+    fruitPer1000g: (point) => solver.at(point)?.fruitPer1000g ?? Number.NaN,
+    // A point the base formula cannot be moved to is no proposal.
+    constraints: [windowConstraint('formula can be made', (p) => (solver.at(p) ? 0 : Number.NaN), { low: 0 })],
+  };
+}
+
+/**
  * The best formulas inside the data's region for the goals and constraints, through the one
- * optimisation core (optimise.ts). The fruit minimum holds on the base formula's mass balance solved
- * at each point — exact, better than the fitted fruit-content surface the API falls back on.
+ * optimisation core (optimise.ts), with the fruit minimum on the base formula's exact mass balance.
  */
 export function proposeFormulas(model: FamilyModel, base: ProposalBase, request: ProposalRequest): ProposalOutcome {
-  const solver = pointSolver(base);
-  if (typeof solver === 'string') throw new ValidationFailed(solver, { base: [solver] });
-  const fruitOf = (point: Readonly<Record<string, number>>) => solver.at(point)?.fruitPer1000g ?? Number.NaN;
-  // A point the base formula cannot be moved to is no proposal.
-  const canMake = windowConstraint('formula can be made', (p) => (solver.at(p) ? 0 : Number.NaN), { low: 0 });
-  const { result, goalModels, phModel, notes } = searchFamily(model, request, { fruitPer1000g: fruitOf, constraints: [canMake], withoutPhModel: 'note' });
+  const sources = baseFormulaSources(base);
+  const fruitOf = sources.fruitPer1000g;
+  const { result, goalModels, phModel, notes } = searchFamily(model, request, { ...sources, withoutPhModel: 'note' });
   const proposals = result.proposals.map((p): ProposedFormula => {
     const point = Object.fromEntries(model.factors.map((f) => [f, p.point[f]])) as Record<ModelFactor, number>;
     const ph = phModel ? predictOne(phModel, point) : null;
