@@ -1,8 +1,7 @@
 /**
- * From goals to formulas: the optimiser (lib/models/optimise.ts, Derringer–Suich desirability) over a
- * family model, with the constraints a developer states — the rule set's fruit minimum, the pH
- * window, sugar-ratio and soluble-solids ranges (reduced-sugar work) — and each proposal written
- * back into the base formula's own lines. PURE: the proposal screen runs it in the browser and the
+ * From goals to formulas: the optimisation core (optimise.ts) over a family model with the base
+ * formula known — the rule set's fruit minimum on its exact mass balance, the pH window, the factor
+ * ranges (reduced-sugar work) — and each proposal written back into the base formula's own lines. PURE: the proposal screen runs it in the browser and the
  * trial action runs formulaAtPoint() on the server to build the variants.
  *
  * A cost ceiling per jar is not offered: the cost needs the day's prices of every line (lib/costing)
@@ -12,8 +11,11 @@
 import { RULES, type BatchComputation } from '@/lib/chemistry';
 import { computeFormula } from '@/lib/formulas/compute';
 import type { FormulaSettingsInput, RevisionLine } from '@/lib/formulas/schema';
-import { ModelSpecError, optimise, predictResponse, windowConstraint, type Constraint, type Goal, type Interval } from '@/lib/models';
-import { FACTOR_INFO, type FamilyModel, type ModelFactor, type ResponseKey, type ResponseModel } from './schema';
+import { ValidationFailed } from '@/lib/errors';
+import { predictResponse, windowConstraint, type Constraint, type Interval } from '@/lib/models';
+import { searchFamily, type SearchRequest } from './optimise';
+import { predictOne } from './predict';
+import { FACTOR_INFO, type FamilyModel, type ModelFactor, type ResponseKey } from './schema';
 
 export interface ProposalBase {
   settings: FormulaSettingsInput;
@@ -144,19 +146,10 @@ export function fruitMinimumOf(base: ProposalBase): FruitMinimum | null {
   return jam ? { value: jam.requiredValue!, basis: `No fruit minimum for this product class in the rule set; the jam minimum is the benchmark: ${jam.title} (${jam.source})` } : null;
 }
 
-export interface GoalInput {
-  response: ResponseKey;
-  goal: Goal;
-  importance: number;
-}
+export type GoalInput = SearchRequest['goals'][number];
 
-export interface ProposalRequest {
-  factors: Array<{ name: ModelFactor; low: number; high: number }>;
-  goals: GoalInput[];
-  fruitMinimumPer1000g?: number;
-  ph?: { low: number; high: number };
-  proposals?: number;
-}
+/** What the Propose screen asks (the optimisation core's request). */
+export type ProposalRequest = SearchRequest;
 
 export interface ProposedResponse {
   key: ResponseKey;
@@ -184,65 +177,40 @@ export interface ProposalOutcome {
   notes: string[];
 }
 
-const PH_KEY: ResponseKey = 'lab:measuredPh';
-
-/** The 95 % prediction interval of one new variant at a point, with the response's new-run weight. */
-function newRunInterval(response: ResponseModel, point: Readonly<Record<string, number>>): Interval | null {
-  const prediction = predictResponse(response.surface, point, response.newRunWeight === null ? {} : { newRunWeight: response.newRunWeight });
-  return prediction.inRegion ? prediction.prediction : null;
+/**
+ * The fruit content and the "can be made" constraint from a base formula: its mass balance solved at
+ * each point — exact, better than the fitted fruit-content surface the API falls back on without one.
+ */
+export function baseFormulaSources(base: ProposalBase): { fruitPer1000g: (point: Readonly<Record<string, number>>) => number; constraints: Constraint[] } {
+  const solver = pointSolver(base);
+  if (typeof solver === 'string') throw new ValidationFailed(solver, { baseFormulaId: [solver] });
+  return {
+    fruitPer1000g: (point) => solver.at(point)?.fruitPer1000g ?? Number.NaN,
+    // A point the base formula cannot be moved to is no proposal.
+    constraints: [windowConstraint('formula can be made', (p) => (solver.at(p) ? 0 : Number.NaN), { low: 0 })],
+  };
 }
 
-/** The best formulas inside the data's region for the goals and constraints; the request is checked first. */
+/**
+ * The best formulas inside the data's region for the goals and constraints, through the one
+ * optimisation core (optimise.ts), with the fruit minimum on the base formula's exact mass balance.
+ */
 export function proposeFormulas(model: FamilyModel, base: ProposalBase, request: ProposalRequest): ProposalOutcome {
-  const notes: string[] = [];
-  for (const f of request.factors) {
-    if (!Number.isFinite(f.low) || !Number.isFinite(f.high) || !(f.high > f.low)) {
-      throw new ModelSpecError(`The lowest ${FACTOR_INFO[f.name].name.toLowerCase()} must be below the highest.`);
-    }
-  }
-  const goals = request.goals.map((g) => {
-    const response = model.responses.find((r) => r.key === g.response);
-    if (!response) throw new ModelSpecError('A goal names a response the family has no model for.');
-    if (!Number.isFinite(g.importance) || g.importance <= 0) throw new ModelSpecError(`The importance of ${response.name} must be above 0.`);
-    return { name: response.name, surface: response.surface, goal: g.goal, importance: g.importance, response };
-  });
-  const constraints: Constraint[] = [];
-  const solver = pointSolver(base);
-  if (typeof solver === 'string') throw new ModelSpecError(solver);
-  const fruitOf = (point: Readonly<Record<string, number>>) => solver.at(point)?.fruitPer1000g ?? Number.NaN;
-  // A point the base formula cannot be moved to is no proposal.
-  constraints.push(windowConstraint('formula can be made', (p) => (solver.at(p) ? 0 : Number.NaN), { low: 0 }));
-  if (request.fruitMinimumPer1000g !== undefined) {
-    constraints.push(windowConstraint('fruit minimum', fruitOf, { low: request.fruitMinimumPer1000g }));
-  }
-  const phModel = model.responses.find((r) => r.key === PH_KEY);
-  if (request.ph) {
-    if (!(request.ph.high > request.ph.low)) throw new ModelSpecError('The lowest pH must be below the highest.');
-    if (phModel) {
-      constraints.push(windowConstraint('pH window', (p) => {
-        const prediction = predictResponse(phModel.surface, p);
-        return prediction.inRegion ? prediction.estimate : Number.NaN;
-      }, request.ph));
-    } else {
-      notes.push('This family has no model of measured pH yet, so the pH window could not be held to: measure the pH of every cook of the proposal.');
-    }
-  }
-  const result = optimise({ factors: request.factors, goals, constraints, proposals: request.proposals ?? 3 });
+  const sources = baseFormulaSources(base);
+  const fruitOf = sources.fruitPer1000g;
+  const { result, goalModels, phModel, notes } = searchFamily(model, request, { ...sources, withoutPhModel: 'note' });
   const proposals = result.proposals.map((p): ProposedFormula => {
-    const ph = phModel ? predictResponse(phModel.surface, p.point) : null;
+    const point = Object.fromEntries(model.factors.map((f) => [f, p.point[f]])) as Record<ModelFactor, number>;
+    const ph = phModel ? predictOne(phModel, point) : null;
     return {
-      point: Object.fromEntries(model.factors.map((f) => [f, p.point[f]])) as Record<ModelFactor, number>,
+      point,
       desirability: p.desirability,
-      responses: p.responses.map((r, i) => ({
-        key: goals[i].response.key,
-        name: r.name,
-        unit: goals[i].response.unit,
-        decimals: goals[i].response.decimals,
-        estimate: r.estimate,
+      responses: p.responses.map((r, i) => {
         // The interval of one new variant's mean: a panel mean carries its panel's weight (fit.ts).
-        prediction: newRunInterval(goals[i].response, p.point),
-        desirability: r.desirability,
-      })),
+        const predicted = predictOne(goalModels[i], point);
+        const response = goalModels[i];
+        return { key: response.key, name: r.name, unit: response.unit, decimals: response.decimals, estimate: r.estimate, prediction: predicted.inRegion ? predicted.prediction : null, desirability: r.desirability };
+      }),
       fruitPer1000g: fruitOf(p.point),
       ph: ph && ph.inRegion ? { estimate: ph.estimate, prediction: ph.prediction } : null,
     };

@@ -10,7 +10,9 @@ import { correctBrixTo20C } from '@/lib/chemistry';
 import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
 import { trialCode } from '@/lib/trials/access';
 import type { SensoryScale } from '@/lib/sensory';
+import { getFormula } from '@/lib/formulas/queries';
 import { formulaFeatures, type FormulaFeatures } from './features';
+import type { ProposalBase } from './proposals';
 import { fitFamilyModel, fitResponse, varyingFactors } from './fit';
 import { ValidationFailed } from '@/lib/errors';
 import { isoDate } from '@/lib/format/dates';
@@ -224,6 +226,15 @@ export async function familyModel(scope: Scope, family: FamilyKey, options: FitO
   const rows = options.trialIds ? dataset.rows.filter((r) => options.trialIds!.includes(r.trialId)) : dataset.rows;
   if (!dataset.family) return null;
   return fitFamilyModel({ ...dataset, rows, family: dataset.family }, { factors: options.factors, kind: options.kind });
+}
+
+/** A formula's latest revision as the optimiser's base; 404 for an unknown formula, 422 for one of another family. */
+export async function baseFormulaOfFamily(actor: Actor, family: FamilyKey, formulaId: string): Promise<ProposalBase> {
+  const [formula, own] = await Promise.all([getFormula(actor, formulaId), familyOfFormula(actor, formulaId)]);
+  if (!own || own.slug !== familySlug(family)) {
+    throw new ValidationFailed('The base formula is not of this product family.', { baseFormulaId: ['The base formula is not of this product family.'] });
+  }
+  return { settings: formula.current.settings, lines: formula.current.lines };
 }
 
 /** The family of a formula's latest revision; 404 for a formula of another workspace, null without a fruit line. */

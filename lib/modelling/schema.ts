@@ -313,6 +313,8 @@ export const optimiseRequestSchema = z
       .strict()
       .optional(),
     proposals: z.number({ error: 'Ask for 1 to 5 proposals.' }).int('Ask for 1 to 5 proposals.').min(1, 'Ask for 1 to 5 proposals.').max(5, 'Ask for 1 to 5 proposals.').optional(),
+    /** A formula of the family whose exact mass balance gives the fruit content (else the fitted surface). */
+    baseFormulaId: id('Unknown formula.').optional(),
     options: fitOptionsSchema.optional(),
   })
   .strict();

@@ -6,12 +6,13 @@
 import { describe, it, expect, beforeAll } from 'vitest';
 import { getEm } from '@/lib/db';
 import { seedDemo } from '@/lib/seed/demo';
-import { Formula, Cook, Trial } from '@/entities';
-import { familyModel, familyOfFormula, listFamilies, modelDataset } from '@/lib/modelling/queries';
+import { Formula, Measurement, Trial } from '@/entities';
+import { baseFormulaOfFamily, familyModel, familyOfFormula, listFamilies, modelDataset } from '@/lib/modelling/queries';
+import { formulaAtPoint } from '@/lib/modelling/proposals';
 import { fitFamilyModel, modelHistory } from '@/lib/modelling/fit';
 import { predictResponse } from '@/lib/models';
 import type { FamilyInfo } from '@/lib/modelling/schema';
-import { optimiseFamily } from '@/lib/modelling/predict';
+import { optimiseFamily } from '@/lib/modelling/optimise';
 import { User } from '@/entities';
 import { DEMO_USERS } from '@/lib/seed/demo';
 import { callRoute, sessionCookieFor, type Person } from './harness';
@@ -217,7 +218,7 @@ describe('predictions and proposals on the demo', () => {
     const outside = await callRoute(predictRoute.POST, { method: 'POST', path: `/api/v1/models/${apricot.slug}/predict`, caller: { kind: 'session', person: head }, params: { family: apricot.slug }, body: { point: { ...point, pectinPct: 2.5 } } });
     const withdrawn = outside.body.predictions.find((p: { name: string }) => p.name === 'Overall liking');
     expect(withdrawn.inRegion).toBe(false);
-    expect(withdrawn.reason).toMatch(/^pectin 2\.5 is outside the data/);
+    expect(withdrawn.reason).toMatch(/^Pectin at 2\.500 % of finished product is above anything the trials covered/);
     expect(withdrawn.estimate).toBeUndefined();
   });
 
@@ -234,6 +235,41 @@ describe('predictions and proposals on the demo', () => {
     expect((await call(JSON.parse(`{"factors": ${JSON.stringify(factors)}, "goals": [${JSON.stringify(goal)}], "__proto__": {"polluted": true}}`))).status).toBe(422);
     expect(({} as Record<string, unknown>).polluted).toBeUndefined();
     expect((await call({ factors, goals: [goal] }, await demoPerson(4))).status).toBe(403);
+  });
+
+  it('optimises through the API on a base formula’s exact mass balance, and refuses a formula of another family or an unknown one', async () => {
+    const developer = await demoPerson(1);
+    const call = (body: unknown) =>
+      callRoute(optimiseRoute.POST, { method: 'POST', path: `/api/v1/models/${apricot.slug}/optimise`, caller: { kind: 'session', person: developer }, params: { family: apricot.slug }, body });
+    const em = (await getEm()).fork();
+    const formula = await em.findOneOrFail(Formula, { workspace: workspaceId, name: 'Apricot spread, reduced sugar' });
+    const model = (await familyModel({ workspaceId }, apricot))!;
+    const box = (name: string) => model.responses[0].surface.dataBox.find((r) => r.name === name)!;
+    const factors = (['sugarRatio', 'targetSolidsPct', 'pectinPct', 'acidPct'] as const).map((name) => ({ name, low: box(name).low, high: box(name).high }));
+    const liking = model.responses.find((r) => r.libraryKey === 'overall-liking')!;
+    const body = { factors, goals: [{ response: liking.key, goal: { kind: 'maximise', low: 5, high: 7.5 } }], constraints: { fruitMinimumPer1000g: 450 }, proposals: 2, baseFormulaId: formula.id };
+    const res = await call(body);
+    expect(res.status).toBe(200);
+    expect(res.body.proposals.length).toBeGreaterThanOrEqual(1);
+    const actor = { userId: developer.userId, email: developer.email, name: 'Developer', workspaceId, workspaceName: '', role: developer.role, via: 'session' as const, massUnits: 'metric' as const, temperatureUnit: 'C' as const };
+    const base = await baseFormulaOfFamily(actor, apricot, formula.id);
+    for (const proposal of res.body.proposals) {
+      // The reported fruit content is the base formula's own mass balance moved to the point, and holds the minimum.
+      const made = formulaAtPoint(base, proposal.point);
+      expect(made.ok).toBe(true);
+      if (made.ok) expect(proposal.fruitPer1000g).toBeCloseTo(made.computation.massBalance.fruitPer1000gFinishedG, 6);
+      expect(proposal.fruitPer1000g).toBeGreaterThanOrEqual(450 - 1e-6);
+    }
+    let otherFamilyId: string | undefined;
+    for (const f of await em.find(Formula, { workspace: workspaceId })) {
+      const family = await familyOfFormula({ workspaceId }, f.id);
+      if (family && family.slug !== apricot.slug) { otherFamilyId = f.id; break; }
+    }
+    expect(otherFamilyId).toBeDefined();
+    expect((await call({ ...body, baseFormulaId: otherFamilyId })).status).toBe(422);
+    // A formula this workspace does not have (the other workspace's ids are as unknown) is missing.
+    expect((await call({ ...body, baseFormulaId: '00000000-0000-4000-8000-000000000000' })).status).toBe(404);
+    expect((await call({ ...body, baseFormulaId: 'not-an-id' })).status).toBe(422);
   });
 
   it('exports the coefficients of every fitted response as CSV', async () => {

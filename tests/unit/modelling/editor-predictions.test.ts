@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { fitResponseSurface, leverageAt } from '@/lib/models';
-import { outsideReason } from '@/lib/modelling/editor-predictions';
+import { outsideReason } from '@/lib/modelling/predict';
 
 // Runs along a diagonal band: sugar ratio and pectin rose together in the trials.
 const band = [
