@@ -6,7 +6,7 @@
 import { describe, it, expect, beforeAll } from 'vitest';
 import { getEm } from '@/lib/db';
 import { seedDemo } from '@/lib/seed/demo';
-import { Formula, Measurement, Trial } from '@/entities';
+import { Formula, Cook, Trial } from '@/entities';
 import { baseFormulaOfFamily, familyModel, familyOfFormula, listFamilies, modelDataset } from '@/lib/modelling/queries';
 import { formulaAtPoint } from '@/lib/modelling/proposals';
 import { fitFamilyModel, modelHistory } from '@/lib/modelling/fit';
