@@ -41,14 +41,16 @@ function labelColumns(d: IngredientLabelFields): [string, string][] {
 export class Migration20261203140000 extends Migration {
 
   override async up(): Promise<void> {
-    const nutrients = Object.values(NUTRIENT_COLUMNS).map((c) => `add column "${c}" double precision null`).join(', ');
-    this.addSql(`alter table "ingredients" add column "label_name" varchar(120) null, ${nutrients}, add column "eu_allergens" jsonb not null default '[]', add column "us_allergens" jsonb not null default '[]', add column "sulphite_mg_per_kg" double precision null, add column "e_number" varchar(12) null, add column "additive_class" text check ("additive_class" in ('gelling_agent', 'thickener', 'stabiliser', 'firming_agent', 'acid', 'acidity_regulator', 'preservative', 'antioxidant', 'colour', 'sweetener', 'sequestrant', 'anti_foaming_agent', 'humectant', 'emulsifier')) null, add column "is_added_water" boolean not null default false, add column "composition_source" text null;`);
+    // `if not exists`: a rollback keeps the columns (see down), so running up again must not fail on them.
+    const nutrients = Object.values(NUTRIENT_COLUMNS).map((c) => `add column if not exists "${c}" double precision null`).join(', ');
+    this.addSql(`alter table "ingredients" add column if not exists "label_name" varchar(120) null, ${nutrients}, add column if not exists "eu_allergens" jsonb not null default '[]', add column if not exists "us_allergens" jsonb not null default '[]', add column if not exists "sulphite_mg_per_kg" double precision null, add column if not exists "e_number" varchar(12) null, add column if not exists "additive_class" text check ("additive_class" in ('gelling_agent', 'thickener', 'stabiliser', 'firming_agent', 'acid', 'acidity_regulator', 'preservative', 'antioxidant', 'colour', 'sweetener', 'sequestrant', 'anti_foaming_agent', 'humectant', 'emulsifier')) null, add column if not exists "is_added_water" boolean not null default false, add column if not exists "composition_source" text null;`);
 
     for (const t of TYPICAL_INGREDIENTS) {
       const data = STARTER_LABEL_DATA[t.key];
       if (!data) continue;
       const sets = labelColumns(data).map(([c, v]) => `"${c}" = ${v}`).join(', ');
-      this.addSql(`update "ingredients" set ${sets} where "typical_key" = ${literal(t.key)} and "origin" in ('typical', 'edited');`);
+      // Only rows that carry no label data yet: what someone entered (or an earlier run filled) stays.
+      this.addSql(`update "ingredients" set ${sets} where "typical_key" = ${literal(t.key)} and "origin" in ('typical', 'edited') and "composition_source" is null;`);
     }
 
     // Starter entries added since a workspace was created: insert them, with their chemistry and label data.
@@ -67,9 +69,8 @@ export class Migration20261203140000 extends Migration {
   }
 
   override async down(): Promise<void> {
-    // The potassium sorbate entries stay: formulas and price lists may use them by now (no data is lost).
-    const drops = ['label_name', ...Object.values(NUTRIENT_COLUMNS), 'eu_allergens', 'us_allergens', 'sulphite_mg_per_kg', 'e_number', 'additive_class', 'is_added_water', 'composition_source'];
-    this.addSql(`alter table "ingredients" ${drops.map((c) => `drop column "${c}"`).join(', ')};`);
+    // Rolling back leaves the label columns, their data and the potassium sorbate entries in place:
+    // older code ignores them, and dropping them would delete what users entered (no data is lost).
   }
 
 }

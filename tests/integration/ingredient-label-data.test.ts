@@ -168,13 +168,15 @@ describe('migration Migration20261203140000', () => {
     };
     await run('down');
     try {
-      // Rolling back keeps the sorbate entry: formulas and price lists may use it (no data is lost).
-      const kept = await em.getConnection().execute(`select count(*) as n from ingredients where workspace_id = ? and typical_key = 'potassium_sorbate'`, [fx.workspaceId]);
+      // Rolling back keeps the label columns, their data and the sorbate entry: formulas and price
+      // lists may use them (no data is lost).
+      const kept = await em.getConnection().execute(`select count(*) as n from ingredients where workspace_id = ? and typical_key = 'potassium_sorbate' and e_number = 'E202'`, [fx.workspaceId]);
       expect(Number(kept[0].n)).toBe(1);
-      // A workspace from before the entry existed has none: the migration adds it.
-      await em.getConnection().execute(`delete from ingredients where workspace_id = ? and typical_key = 'potassium_sorbate'`, [fx.workspaceId]);
       const columns = await em.getConnection().execute(`select count(*) as n from information_schema.columns where table_name = 'ingredients' and column_name = 'water_g'`);
-      expect(Number(columns[0].n)).toBe(0);
+      expect(Number(columns[0].n)).toBe(1);
+      // This workspace now looks like one from before the migration: no label data, no sorbate entry.
+      await em.getConnection().execute(`delete from ingredients where workspace_id = ? and typical_key = 'potassium_sorbate'`, [fx.workspaceId]);
+      await em.getConnection().execute(`update ingredients set water_g = null, sugars_g = null, sucrose_g = null, e_number = null, additive_class = null, composition_source = null where workspace_id = ?`, [fx.workspaceId]);
     } finally {
       await run('up');
     }
