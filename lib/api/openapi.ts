@@ -179,7 +179,7 @@ export const API_OPERATIONS: ApiOperation[] = [
   ...CURRENT_OPERATIONS,
   ...CURRENT_OPERATIONS.flatMap((op): ApiOperation[] => {
     const old = deprecatedAliasOf(op.path);
-    return old ? [{ ...op, path: old, deprecated: true, summary: `Deprecated: use ${op.path} (this path goes in the next release). ${op.summary}` }] : [];
+    return old ? [{ ...op, path: old, deprecated: true, summary: `Deprecated: use ${op.path} (this path goes in the next release; its fields already carry the new names: tastingId, cookId, cooks, productVersionId). ${op.summary}` }] : [];
   }),
 ];
 
