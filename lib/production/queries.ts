@@ -1,29 +1,25 @@
 import 'server-only';
 /** Production reads: the review queue, products and their versions, batch records, the audit trail. */
+import type { Loaded } from '@mikro-orm/core';
 import { getEm } from '@/lib/db';
 import { AuditEvent, BatchDecision, BatchRecord, Product, ProductVersion, PromotionRequest, Trial, Variant } from '@/entities';
+import type { BatchDecisionEntity } from '@/entities/BatchDecision';
+import type { BatchRecordEntity } from '@/entities/BatchRecord';
+import type { ProductVersionEntity } from '@/entities/ProductVersion';
+import type { PromotionRequestEntity } from '@/entities/PromotionRequest';
 import { awaitsAnotherDecider, inWorkspace, mayDecide, mayWithdraw, notFound, type Actor } from '@/lib/permissions';
 import { trialCode } from '@/lib/trials/access';
 import { toCsv } from '@/lib/csv';
-import { defaultQcSpec, estimateEndPoint, outcomeOfChecks, qcSpecCautions, type ComplianceReport, type QcCheck, type QcSpec } from '@/lib/chemistry';
+import { defaultQcSpec, estimateEndPoint, outcomeOfChecks, qcSpecCautions, type QcSpec } from '@/lib/chemistry';
 import { getTrialOverview } from '@/lib/trials/queries';
-import type { FormulaSettingsInput, RevisionLine } from '@/lib/formulas/schema';
-import { DEFAULT_FILL_TEMP_C, type AuditView, type BatchDecisionView, type BatchSheetQuery, type BatchView, type BatchWorkItem, type ProductSummary, type ProductionProcess, type PromotionDraftVariant, type PromotionEvidence, type PromotionSummary, type PromotionTargetProduct, type PromotionView, type SheetVersion, type VersionSummary, type VersionView } from './schema';
+import { DEFAULT_FILL_TEMP_C, type AuditView, type BatchDecisionView, type BatchSheetQuery, type BatchView, type BatchWorkItem, type ProductSummary, type PromotionDraftVariant, type PromotionSummary, type PromotionTargetProduct, type PromotionView, type SheetVersion, type VersionSummary, type VersionView } from './schema';
 import { buildBatchSheet, type BatchSheet } from './sheet';
 import { fruitsOf, weighLines } from './review';
-import { promotionCode, type BatchDecisionKind, type BatchOutcome, type Disposition, type PromotionStatus, type VersionStatus } from './vocabulary';
-import { batchStanding, type BatchRetestReadings } from './holds';
+import { promotionCode, type PromotionStatus } from './vocabulary';
+import { batchStanding } from './holds';
 
-type Ref = { id: string };
-
-type Named = { id: string; name: string };
-
-type RequestRow = {
-  id: string; number: number; status: PromotionStatus; trial: { id: string; number: number; title: string }; variantId: string; variantLabel: string;
-  product: { id: string; code: string; name: string } | null; newProductName: string | null; newProductCode: string | null; rationale: string;
-  process: ProductionProcess; spec: QcSpec; evidence: PromotionEvidence; requestedBy: Named; requestedAt: Date; decidedBy: Named | null;
-  decidedAt: Date | null; decisionComment: string | null; productVersionId: string | null;
-};
+const REQUEST_POPULATE = ['trial', 'product', 'requestedBy', 'decidedBy'] as const;
+type RequestRow = Loaded<PromotionRequestEntity, (typeof REQUEST_POPULATE)[number]>;
 
 function summary(r: RequestRow): PromotionSummary {
   return {
@@ -35,13 +31,11 @@ function summary(r: RequestRow): PromotionSummary {
   };
 }
 
-const REQUEST_POPULATE = ['trial', 'product', 'requestedBy', 'decidedBy'] as const;
-
 export async function listPromotionRequests(actor: Actor, filter: { status?: PromotionStatus } = {}): Promise<PromotionSummary[]> {
   const em = await getEm();
   const rows = (await em.find(PromotionRequest, { ...inWorkspace(actor), ...(filter.status ? { status: filter.status } : {}) }, {
     populate: REQUEST_POPULATE, orderBy: { requestedAt: 'desc' }, limit: 500,
-  })) as unknown as RequestRow[];
+  }));
   return rows.map(summary);
 }
 
@@ -54,9 +48,9 @@ function toAuditView(e: { id: string; at: Date; actorName: string; actorRole: st
 
 export async function getPromotionRequest(actor: Actor, requestId: string): Promise<PromotionView> {
   const em = await getEm();
-  const r = (await em.findOne(PromotionRequest, { ...inWorkspace(actor), id: requestId }, { populate: REQUEST_POPULATE })) as unknown as RequestRow | null;
+  const r = (await em.findOne(PromotionRequest, { ...inWorkspace(actor), id: requestId }, { populate: REQUEST_POPULATE }));
   if (!r) throw notFound('promotion request');
-  const history = (await em.find(PromotionRequest, { ...inWorkspace(actor), trial: r.trial.id, id: { $ne: r.id } }, { populate: REQUEST_POPULATE, orderBy: { number: 'asc' } })) as unknown as RequestRow[];
+  const history = (await em.find(PromotionRequest, { ...inWorkspace(actor), trial: r.trial.id, id: { $ne: r.id } }, { populate: REQUEST_POPULATE, orderBy: { number: 'asc' } }));
   const events = await em.find(AuditEvent, { ...inWorkspace(actor), promotionRequestId: r.id }, { orderBy: { at: 'asc' } });
   const pending = r.status === 'pending';
   const { outcome, formula, baseline } = await promotionComparison(actor, r);
@@ -77,18 +71,16 @@ export async function getPromotionRequest(actor: Actor, requestId: string): Prom
   };
 }
 
-type VersionLines = { id: string; version: number; status: VersionStatus; settings: FormulaSettingsInput; lines: RevisionLine[] };
-
 /** The formula a request puts into production and the version it stands beside. */
 async function promotionComparison(actor: Actor, r: RequestRow): Promise<Pick<PromotionView, 'outcome' | 'formula' | 'baseline'>> {
   const em = await getEm();
   const created = r.productVersionId
-    ? ((await em.findOne(ProductVersion, { ...inWorkspace(actor), id: r.productVersionId })) as unknown as VersionLines | null)
+    ? ((await em.findOne(ProductVersion, { ...inWorkspace(actor), id: r.productVersionId })))
     : null;
-  const source = created ?? ((await em.findOne(Variant, { ...inWorkspace(actor), id: r.variantId })) as unknown as { settings: FormulaSettingsInput; lines: RevisionLine[] } | null);
+  const source = created ?? ((await em.findOne(Variant, { ...inWorkspace(actor), id: r.variantId })));
   const formula = source ? { settings: source.settings, lines: source.lines, weighed: weighLines(source.settings, source.lines) } : null;
   if (!r.product) return { outcome: { kind: 'new_product', name: r.newProductName ?? '', code: r.newProductCode ?? '' }, formula, baseline: null };
-  const versions = (await em.find(ProductVersion, { ...inWorkspace(actor), product: r.product.id }, { orderBy: { version: 'asc' } })) as unknown as VersionLines[];
+  const versions = (await em.find(ProductVersion, { ...inWorkspace(actor), product: r.product.id }, { orderBy: { version: 'asc' } }));
   // A request that created its product (approved as a new product) has no earlier version to compare with.
   const before = created ? versions.filter((v) => v.version < created.version).at(-1) ?? null : versions.find((v) => v.status === 'current') ?? null;
   const current = versions.find((v) => v.status === 'current') ?? null;
@@ -104,35 +96,17 @@ async function promotionComparison(actor: Actor, r: RequestRow): Promise<Pick<Pr
 /** Open requests for the head of product's queue, oldest first; those they made themselves are marked. */
 export async function reviewQueue(actor: Actor): Promise<Array<PromotionSummary & { ownRequest: boolean }>> {
   const em = await getEm();
-  const rows = (await em.find(PromotionRequest, { ...inWorkspace(actor), status: 'pending' }, { populate: REQUEST_POPULATE, orderBy: { requestedAt: 'asc' } })) as unknown as RequestRow[];
+  const rows = (await em.find(PromotionRequest, { ...inWorkspace(actor), status: 'pending' }, { populate: REQUEST_POPULATE, orderBy: { requestedAt: 'asc' } }));
   return rows.map((r) => ({ ...summary(r), ownRequest: r.requestedBy.id === actor.userId }));
 }
-
-type VersionRow = {
-  id: string; product: { id: string; code: string; name: string }; version: number; status: VersionStatus; settings: FormulaSettingsInput; lines: RevisionLine[];
-  process: ProductionProcess; compliance: ComplianceReport; spec: QcSpec; sourceTrial: { id: string; number: number; title: string }; sourceVariantId: string;
-  sourceVariantLabel: string; promotionRequestId: string; approvedBy: Named; approvedAt: Date; supersededAt: Date | null; supersededByVersion: number | null;
-};
-
-type BatchRow = {
-  id: string; product: Ref; productVersion: { id: string; version: number; spec: QcSpec }; lotCode: string; batchDate: string; batchSizeG: number;
-  brixReading: number; brixSampleTempC: number; brix20: number; ph: number; fillTempC: number; netFillMeanG: number | null; netFillMinG: number | null;
-  setTestScore: number | null; jarsFilled: number; jarsRejected: number; notes: string | null; checks: QcCheck[]; outcome: BatchOutcome;
-  disposition: Disposition | null; dispositionComment: string | null; recordedBy: Named; createdAt: Date;
-};
-
-type DecisionRow = {
-  id: string; batch: Ref; kind: BatchDecisionKind; readings: BatchRetestReadings | null; checks: QcCheck[] | null; outcome: BatchOutcome | null;
-  comment: string; decidedBy: Named; createdAt: Date;
-};
 
 export async function listProducts(actor: Actor): Promise<ProductSummary[]> {
   const em = await getEm();
   const products = await em.find(Product, inWorkspace(actor), { orderBy: { name: 'asc' } });
   if (!products.length) return [];
   const ids = products.map((p) => p.id);
-  const versions = (await em.find(ProductVersion, { ...inWorkspace(actor), product: { $in: ids } }, { fields: ['product', 'version', 'status', 'approvedAt'] })) as unknown as Array<{ id: string; product: Ref; version: number; status: VersionStatus; approvedAt: Date }>;
-  const batches = (await em.find(BatchRecord, { ...inWorkspace(actor), product: { $in: ids } }, { fields: ['product', 'checks', 'batchDate'] })) as unknown as Array<{ product: Ref; checks: QcCheck[]; batchDate: string }>;
+  const versions = (await em.find(ProductVersion, { ...inWorkspace(actor), product: { $in: ids } }, { fields: ['product', 'version', 'status', 'approvedAt'] }));
+  const batches = (await em.find(BatchRecord, { ...inWorkspace(actor), product: { $in: ids } }, { fields: ['product', 'checks', 'batchDate'] }));
   return products.map((p) => {
     const mine = versions.filter((v) => v.product.id === p.id);
     const current = mine.find((v) => v.status === 'current');
@@ -178,12 +152,15 @@ function batchView(b: BatchRow, decisionRows: DecisionRow[]): BatchView {
 
 const VERSION_POPULATE = ['product', 'sourceTrial', 'approvedBy'] as const;
 const BATCH_POPULATE = ['productVersion', 'recordedBy'] as const;
+type VersionRow = Loaded<ProductVersionEntity, (typeof VERSION_POPULATE)[number]>;
+type BatchRow = Loaded<BatchRecordEntity, (typeof BATCH_POPULATE)[number]>;
+type DecisionRow = Loaded<BatchDecisionEntity, 'decidedBy'>;
 
 export async function getProduct(actor: Actor, productId: string): Promise<{ product: { id: string; code: string; name: string }; versions: VersionSummary[]; batches: BatchView[] }> {
   const em = await getEm();
   const p = await em.findOne(Product, { ...inWorkspace(actor), id: productId });
   if (!p) throw notFound('product');
-  const versions = (await em.find(ProductVersion, { ...inWorkspace(actor), product: p.id }, { populate: VERSION_POPULATE, orderBy: { version: 'desc' } })) as unknown as VersionRow[];
+  const versions = (await em.find(ProductVersion, { ...inWorkspace(actor), product: p.id }, { populate: VERSION_POPULATE, orderBy: { version: 'desc' } }));
   return { product: { id: p.id, code: p.code, name: p.name }, versions: versions.map(versionSummary), batches: await listBatches(actor, { productId: p.id }) };
 }
 
@@ -191,21 +168,21 @@ export async function listBatches(actor: Actor, filter: { productId?: string; ve
   const em = await getEm();
   const rows = (await em.find(BatchRecord, {
     ...inWorkspace(actor), ...(filter.productId ? { product: filter.productId } : {}), ...(filter.versionId ? { productVersion: filter.versionId } : {}),
-  }, { populate: BATCH_POPULATE, orderBy: { batchDate: 'asc', createdAt: 'asc' }, limit: 5000 })) as unknown as BatchRow[];
+  }, { populate: BATCH_POPULATE, orderBy: { batchDate: 'asc', createdAt: 'asc' }, limit: 5000 }));
   return withDecisions(actor, rows);
 }
 
 async function withDecisions(actor: Actor, rows: BatchRow[]): Promise<BatchView[]> {
   if (!rows.length) return [];
   const em = await getEm();
-  const decisions = (await em.find(BatchDecision, { ...inWorkspace(actor), batch: { $in: rows.map((r) => r.id) } }, { populate: ['decidedBy'], orderBy: { createdAt: 'asc' } })) as unknown as DecisionRow[];
+  const decisions = (await em.find(BatchDecision, { ...inWorkspace(actor), batch: { $in: rows.map((r) => r.id) } }, { populate: ['decidedBy'], orderBy: { createdAt: 'asc' } }));
   return rows.map((r) => batchView(r, decisions.filter((d) => d.batch.id === r.id)));
 }
 
 /** One batch with its re-tests and decisions, the version it was made to and its spec. */
 export async function getBatch(actor: Actor, batchId: string): Promise<{ batch: BatchView; product: { id: string; code: string; name: string }; spec: QcSpec; audit: AuditView[] }> {
   const em = await getEm();
-  const row = (await em.findOne(BatchRecord, { ...inWorkspace(actor), id: batchId }, { populate: [...BATCH_POPULATE, 'product'] })) as unknown as (BatchRow & { product: { id: string; code: string; name: string } }) | null;
+  const row = (await em.findOne(BatchRecord, { ...inWorkspace(actor), id: batchId }, { populate: [...BATCH_POPULATE, 'product'] }));
   if (!row) throw notFound('batch');
   const [batch] = await withDecisions(actor, [row]);
   const events = await em.find(AuditEvent, { ...inWorkspace(actor), subjectId: row.id }, { orderBy: { at: 'asc' } });
@@ -221,7 +198,7 @@ export async function takenLotCodes(actor: Actor, productId: string): Promise<st
 
 export async function getProductionVersion(actor: Actor, versionId: string): Promise<VersionView> {
   const em = await getEm();
-  const v = (await em.findOne(ProductVersion, { ...inWorkspace(actor), id: versionId }, { populate: VERSION_POPULATE })) as unknown as VersionRow | null;
+  const v = (await em.findOne(ProductVersion, { ...inWorkspace(actor), id: versionId }, { populate: VERSION_POPULATE }));
   if (!v) throw notFound('production version');
   const events = await em.find(AuditEvent, { ...inWorkspace(actor), $or: [{ subjectId: v.id }, { promotionRequestId: v.promotionRequestId }] }, { orderBy: { at: 'asc' } });
   return {
@@ -269,7 +246,7 @@ export async function listPromotableProducts(actor: Actor): Promise<PromotionTar
   if (!rows.length) return [];
   const versions = (await em.find(ProductVersion, { ...inWorkspace(actor), product: { $in: rows.map((p) => p.id) } }, {
     fields: ['product', 'version', 'status', 'settings', 'lines'],
-  })) as unknown as Array<{ product: Ref; version: number; status: VersionStatus; settings: FormulaSettingsInput; lines: RevisionLine[] }>;
+  }));
   return rows.map((p) => {
     const mine = versions.filter((v) => v.product.id === p.id);
     const current = mine.find((v) => v.status === 'current');
@@ -364,7 +341,7 @@ export async function batchWorklist(actor: Actor, today: string): Promise<{ held
     BatchRecord,
     { ...inWorkspace(actor), $or: [{ outcome: { $ne: 'pass' } }, { batchDate: today }] },
     { populate: [...BATCH_POPULATE, 'product'], orderBy: { batchDate: 'desc', createdAt: 'desc' }, limit: 200 },
-  )) as unknown as Array<BatchRow & { product: { id: string; name: string } }>;
+  ));
   const views = await withDecisions(actor, rows);
   const items = views.map((v, i) => ({
     id: v.id, lotCode: v.lotCode, batchDate: v.batchDate, productId: rows[i].product.id, productName: rows[i].product.name,

@@ -22,7 +22,6 @@ const ALLOWED: Record<string, number> = {
   'lib/pricing/csv.ts': 1, // populated reads typed by hand; to go
   'lib/pricing/mutations.ts': 3, // populated reads typed by hand; to go
   'lib/pricing/queries.ts': 3, // populated reads typed by hand; to go
-  'lib/production/queries.ts': 16, // populated reads typed by hand; to go
   'lib/rate-limit.ts': 1, // a process-wide cache on globalThis (survives hot reload)
   'lib/sql.ts': 1, // a process-wide cache on globalThis (survives hot reload)
   'lib/storage.ts': 1, // a process-wide cache on globalThis (survives hot reload)
