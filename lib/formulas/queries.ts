@@ -1,16 +1,13 @@
 import 'server-only';
+import type { Loaded } from '@mikro-orm/core';
 import { getEm } from '@/lib/db';
 import { Formula, FormulaRevision } from '@/entities';
+import type { FormulaRevisionEntity } from '@/entities/FormulaRevision';
 import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
 import { computeFormula } from './compute';
-import type { FormulaDetail, FormulaRevisionView, FormulaSummary, FormulaSettingsInput, RevisionLine, RevisionSummary } from './schema';
+import type { FormulaDetail, FormulaRevisionView, FormulaSummary } from './schema';
 
-type RevisionRow = {
-  number: number; name: string; settings: FormulaSettingsInput; lines: RevisionLine[]; note?: string | null;
-  createdAt: Date; createdBy: { id: string; name: string }; formula: { id: string };
-  summary: RevisionSummary;
-};
-type FormulaRow = { id: string; name: string; description?: string | null; latestRevision: number; updatedAt: Date; updatedBy: { name: string } };
+type RevisionRow = Loaded<FormulaRevisionEntity, 'createdBy'>;
 
 export function toRevisionView(r: RevisionRow): FormulaRevisionView {
   return {
@@ -29,12 +26,12 @@ export async function listFormulas(actor: Actor, opts: { q?: string } = {}): Pro
   const em = await getEm();
   const where: Record<string, unknown> = { ...inWorkspace(actor), archivedAt: null };
   if (opts.q?.trim()) where.name = { $ilike: `%${opts.q.trim().replace(/[%_\\]/g, (c) => `\\${c}`)}%` };
-  const formulas = (await em.find(Formula, where, { populate: ['updatedBy'], orderBy: { updatedAt: 'desc' }, limit: 500 })) as unknown as FormulaRow[];
+  const formulas = (await em.find(Formula, where, { populate: ['updatedBy'], orderBy: { updatedAt: 'desc' }, limit: 500 }));
   if (!formulas.length) return [];
   const revisions = (await em.find(FormulaRevision, {
     ...inWorkspace(actor),
     $or: formulas.map((f) => ({ formula: f.id, number: f.latestRevision })),
-  })) as unknown as RevisionRow[];
+  }));
   const byFormula = new Map(revisions.map((r) => [r.formula.id, r]));
   return formulas.flatMap((f) => {
     const r = byFormula.get(f.id);
@@ -55,18 +52,17 @@ export async function listFormulas(actor: Actor, opts: { q?: string } = {}): Pro
   });
 }
 
-async function loadFormula(actor: Actor, formulaId: string): Promise<FormulaRow> {
+async function loadFormula(actor: Actor, formulaId: string): Promise<void> {
   const em = await getEm();
   const f = await em.findOne(Formula, { ...inWorkspace(actor), id: formulaId, archivedAt: null }, { populate: ['updatedBy'] });
   if (!f) throw notFound('formula');
-  return f as unknown as FormulaRow;
 }
 
 export async function getRevision(actor: Actor, formulaId: string, number: number): Promise<FormulaRevisionView> {
   const em = await getEm();
   const r = await em.findOne(FormulaRevision, { ...inWorkspace(actor), formula: formulaId, number }, { populate: ['createdBy'] });
   if (!r) throw notFound('revision');
-  return toRevisionView(r as unknown as RevisionRow);
+  return toRevisionView(r);
 }
 
 /** The formula at its latest revision, with the full computation redone from the stored snapshot. */
@@ -94,5 +90,5 @@ export async function listRevisions(actor: Actor, formulaId: string): Promise<Fo
   await loadFormula(actor, formulaId);
   const em = await getEm();
   const rows = await em.find(FormulaRevision, { ...inWorkspace(actor), formula: formulaId }, { populate: ['createdBy'], orderBy: { number: 'desc' } });
-  return (rows as unknown as RevisionRow[]).map(toRevisionView);
+  return rows.map(toRevisionView);
 }
