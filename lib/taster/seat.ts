@@ -22,9 +22,9 @@ const closed = () => new ApiError(409, 'closed', 'This tasting has closed, so an
 async function seatFor(token: string): Promise<{ seat: SeatRow; session: SessionRow }> {
   if (!token.startsWith(SEAT_TOKEN_PREFIX) || token.length > 100) throw notFound('tasting');
   const em = await getEm();
-  const seat = (await em.findOne(TastingSeat, { tokenHash: hashSecret(token) })) as unknown as SeatRow | null;
+  const seat = (await em.findOne(TastingSeat, { tokenHash: hashSecret(token) }));
   if (!seat) throw notFound('tasting');
-  const session = (await em.findOneOrFail(Tasting, { id: seat.session.id })) as unknown as SessionRow;
+  const session = (await em.findOneOrFail(Tasting, { id: seat.session.id }));
   if (session.state === 'draft') throw notFound('tasting');
   return { seat, session };
 }

@@ -123,7 +123,7 @@ export async function renewMySeatLink(actor: Actor, tastingId: string): Promise<
   const em = await getEm();
   const seat = await em.findOne(TastingSeat, { ...inWorkspace(actor), session: tastingId, user: actor.userId }, { populate: ['session'] });
   if (!seat) throw notFound('seat');
-  if ((seat.session as unknown as { state: string }).state !== 'open') throw new Conflict('This tasting is not taking answers.');
+  if (seat.session.state !== 'open') throw new Conflict('This tasting is not taking answers.');
   if (seat.submittedAt) throw new Conflict('You have already sent your answers for this tasting.');
   const token = newSecret(SEAT_TOKEN_PREFIX);
   seat.tokenHash = hashSecret(token);
@@ -222,7 +222,7 @@ export async function inviteStaffTasters(actor: Actor, tastingId: string, userId
   const skip = new Set(already.map((s) => s.user?.id));
   let invited = 0;
   for (const m of members) {
-    const user = m.user as unknown as { id: string; name: string; email: string };
+    const user = m.user;
     if (skip.has(user.id)) continue;
     const { token } = await em.transactional((tx) => addSeat(tx, tastingId, { kind: 'staff', userId: user.id, displayName: user.name }));
     const link = `${env().APP_URL}/t/${token}`;

@@ -38,20 +38,19 @@ export interface TastingView {
   closedAt: string | null;
 }
 
-type SessionRow = {
-  id: string; trial: { id: string }; title: string; place?: string | null; startsAt?: Date | null; method: TastingMethod; state: TastingState; notice: string;
-  joinCode?: string | null; attributeIds: string[]; rankingAttributeId?: string | null; createdAt: Date; openedAt?: Date | null; closedAt?: Date | null;
-};
-
 export async function listAttributes(actor: Actor) {
   const em = await getEm();
   const rows = await em.find(SensoryAttributeDef, inWorkspace(actor), { orderBy: { createdAt: 'asc' } });
   return rows.map((r) => ({ id: r.id, name: r.name, instruction: r.instruction, modality: r.modality, scaleName: r.scale.name, libraryKey: r.libraryKey ?? null }));
 }
 
-export async function listTrialTastings(actor: Actor, trialId?: string) {
+export interface TrialTastingRow {
+  id: string; trialId: string; title: string; method: TastingMethod; state: TastingState; seats: number; submitted: number; createdAt: string;
+}
+
+export async function listTrialTastings(actor: Actor, trialId?: string): Promise<TrialTastingRow[]> {
   const em = await getEm();
-  const rows = (await em.find(Tasting, { ...inWorkspace(actor), ...(trialId ? { trial: trialId } : {}) }, { orderBy: { createdAt: 'desc' } })) as unknown as SessionRow[];
+  const rows = (await em.find(Tasting, { ...inWorkspace(actor), ...(trialId ? { trial: trialId } : {}) }, { orderBy: { createdAt: 'desc' } }));
   // Seats counted by PostgreSQL, not loaded one entity per seat.
   const counts = rows.length
     ? await em.execute<Array<{ session_id: string; seats: number; submitted: number }>>(
@@ -76,7 +75,7 @@ export async function loadTastingRows(actor: Actor, tastingId: string) {
     em.find(TastingSample, { ...inWorkspace(actor), session: tastingId }, { orderBy: { position: 'asc' } }),
     em.find(TastingSeat, { ...inWorkspace(actor), session: tastingId }, { orderBy: { seatIndex: 'asc' } }),
   ]);
-  const s = found as unknown as SessionRow | null;
+  const s = found;
   if (!s) throw notFound('tasting');
   const attrIds = [...s.attributeIds, ...(s.rankingAttributeId ? [s.rankingAttributeId] : [])];
   const [variants, attrs] = await Promise.all([
@@ -172,7 +171,7 @@ export async function listTastings(actor: Actor, filter: { state?: TastingState;
     Tasting,
     { ...inWorkspace(actor), ...(filter.state ? { state: filter.state } : {}), ...(filter.trialId ? { trial: filter.trialId } : {}) },
     { populate: ['trial'], orderBy: { createdAt: 'desc' }, limit: 500 },
-  )) as unknown as Array<SessionRow & { trial: { id: string; number: number; title: string } }>;
+  ));
   const seats = rows.length ? await em.find(TastingSeat, { ...inWorkspace(actor), session: { $in: rows.map((r) => r.id) } }, { fields: ['session', 'submittedAt'] }) : [];
   return rows.map((r) => {
     const mine = seats.filter((s) => s.session.id === r.id);
@@ -198,9 +197,7 @@ export interface MySeat {
 /** The signed-in person's seats in this workspace: the ones still to answer first, then by date. Only what a taster may see. */
 export async function listMySeats(actor: Actor): Promise<MySeat[]> {
   const em = await getEm();
-  const seats = (await em.find(TastingSeat, { ...inWorkspace(actor), user: actor.userId }, { populate: ['session'], orderBy: { createdAt: 'desc' }, limit: 200 })) as unknown as Array<{
-    submittedAt?: Date | null; createdAt: Date; session: { id: string; title: string; place?: string | null; startsAt?: Date | null; state: TastingState };
-  }>;
+  const seats = (await em.find(TastingSeat, { ...inWorkspace(actor), user: actor.userId }, { populate: ['session'], orderBy: { createdAt: 'desc' }, limit: 200 }));
   const view = seats.map((s) => ({
     tastingId: s.session.id, title: s.session.title, place: s.session.place ?? null, startsAt: s.session.startsAt ? s.session.startsAt.toISOString() : null,
     state: s.session.state, submitted: !!s.submittedAt, waiting: s.session.state === 'open' && !s.submittedAt,
