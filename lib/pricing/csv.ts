@@ -132,8 +132,7 @@ export async function exportPricesCsv(actor: Actor): Promise<{ filename: string;
   const { currency } = await costSettings(actor.workspaceId);
   const em = await getEm();
   const points = await em.find(IngredientPrice, { ...inWorkspace(actor), withdrawnAt: null }, { populate: ['ingredient'], orderBy: { ingredient: { name: 'asc' }, validFrom: 'asc', enteredAt: 'asc' }, limit: 200_000 });
-  type Point = { validFrom: string; packPriceMinor: number; packSizeG: number; supplier: string | null; ingredient: { name: string } };
-  const csv = toCsv(points as unknown as Point[], [
+  const csv = toCsv(points, [
     { header: 'ingredient', value: (p) => p.ingredient.name },
     { header: 'valid_from', value: (p) => p.validFrom },
     { header: 'pack_price', value: (p) => (currency ? amountText(Number(p.packPriceMinor), currency) : '') },

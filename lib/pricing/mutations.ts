@@ -85,16 +85,17 @@ async function withdrawPoint(actor: Actor, kind: 'ingredient' | 'packaging', pri
   const em = await getEm();
   await em.transactional(async (tx) => {
     const entity = kind === 'ingredient' ? IngredientPrice : PackagingPrice;
-    const row = (await tx.findOne(entity as typeof IngredientPrice, { ...inWorkspace(actor), id: priceId }, { populate: [kind === 'ingredient' ? 'ingredient' : 'packagingItem'] as never })) as unknown as
-      { id: string; validFrom: string; packPriceMinor: number; withdrawnAt: Date | null; ingredient?: { name: string }; packagingItem?: { name: string } } | null;
+    const where = { ...inWorkspace(actor), id: priceId };
+    const row = kind === 'ingredient'
+      ? await tx.findOne(IngredientPrice, where, { populate: ['ingredient'] }).then((r) => r && { validFrom: r.validFrom, packPriceMinor: r.packPriceMinor, withdrawnAt: r.withdrawnAt, subject: r.ingredient.name })
+      : await tx.findOne(PackagingPrice, where, { populate: ['packagingItem'] }).then((r) => r && { validFrom: r.validFrom, packPriceMinor: r.packPriceMinor, withdrawnAt: r.withdrawnAt, subject: r.packagingItem.name });
     if (!row) throw notFound('price');
     if (row.withdrawnAt) throw new Conflict('This price was already withdrawn.');
     const n = await tx.nativeUpdate(entity as typeof IngredientPrice, { ...inWorkspace(actor), id: priceId, withdrawnAt: null }, { withdrawnAt: new Date(), withdrawnBy: actor.userId, withdrawReason: reason });
     if (n === 0) throw new Conflict('This price was already withdrawn.');
     const currency = await currencyOf(tx, actor.workspaceId);
-    const subject = row.ingredient?.name ?? row.packagingItem?.name ?? '';
     audit(tx, actor, 'price.withdrawn', { type: `${kind}_price`, id: priceId },
-      `Withdrew the price of ${subject} from ${row.validFrom} (${formatMoney(row.packPriceMinor, currency)}): ${reason}`);
+      `Withdrew the price of ${row.subject} from ${row.validFrom} (${formatMoney(row.packPriceMinor, currency)}): ${reason}`);
   });
 }
 
@@ -204,8 +205,7 @@ export async function setVersionPackFormat(actor: Actor, versionId: string, pack
     if (!version) throw notFound('production version');
     const format = await pickableFormat(tx, actor, packFormatId);
     await tx.nativeUpdate(ProductVersion, { ...inWorkspace(actor), id: versionId }, { packFormat: packFormatId });
-    const product = version.product as unknown as { code: string };
     audit(tx, actor, 'version.pack_format', { type: 'production_formula', id: versionId },
-      `Pack format of ${product.code} v${version.version}: ${format ? format.name : 'none'}`);
+      `Pack format of ${version.product.code} v${version.version}: ${format ? format.name : 'none'}`);
   });
 }

@@ -315,7 +315,7 @@ export async function ingredientPriceDetail(actor: Actor, ingredientId: string):
   });
   return {
     ingredient: { id: ingredient.id, name: ingredient.name, refusePct: ingredient.refusePct, archived: !!ingredient.archivedAt },
-    points: (rows as unknown as (PointRow & { packSizeG: number })[]).map((r) => ({ ...pointView(r), packSizeG: r.packSizeG })),
+    points: rows.map((r) => ({ ...pointView(r), packSizeG: r.packSizeG })),
   };
 }
 
@@ -347,7 +347,7 @@ export async function packagingItemDetail(actor: Actor, packagingItemId: string)
   });
   return {
     item: { id: item.id, name: item.name, kind: item.kind as PackagingKind, archived: !!item.archivedAt },
-    points: (rows as unknown as (PointRow & { piecesPerPack: number })[]).map((r) => ({ ...pointView(r), piecesPerPack: r.piecesPerPack })),
+    points: rows.map((r) => ({ ...pointView(r), piecesPerPack: r.piecesPerPack })),
   };
 }
 
@@ -361,7 +361,7 @@ async function loadPackFormats(workspaceId: string, where: Record<string, unknow
     items: items
       .filter((i) => (i.packFormat as { id: string }).id === f.id)
       .map((i) => {
-        const item = i.packagingItem as unknown as { id: string; name: string; kind: PackagingKind };
+        const item = i.packagingItem;
         return { packagingItemId: item.id, name: item.name, kind: item.kind, pieces: i.pieces, perJars: i.perJars };
       }),
   }));

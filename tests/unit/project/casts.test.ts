@@ -15,9 +15,6 @@ const ALLOWED: Record<string, number> = {
   'lib/db.ts': 1, // a process-wide cache on globalThis (survives hot reload)
   'lib/label/queries.ts': 2, // populated reads typed by hand; to go
   'lib/mail.ts': 1, // a process-wide cache on globalThis (survives hot reload)
-  'lib/pricing/csv.ts': 1, // populated reads typed by hand; to go
-  'lib/pricing/mutations.ts': 3, // populated reads typed by hand; to go
-  'lib/pricing/queries.ts': 3, // populated reads typed by hand; to go
   'lib/rate-limit.ts': 1, // a process-wide cache on globalThis (survives hot reload)
   'lib/sql.ts': 1, // a process-wide cache on globalThis (survives hot reload)
   'lib/storage.ts': 1, // a process-wide cache on globalThis (survives hot reload)
