@@ -21,12 +21,14 @@ const pointLabels: Plugin<'scatter'> = {
   afterDatasetsDraw(chart) {
     const { ctx } = chart;
     const meta = chart.getDatasetMeta(0);
-    const data = chart.data.datasets[0]?.data as unknown as Array<{ label?: string }>;
+    const data = chart.data.datasets[0]?.data ?? [];
+    // Each point carries its variant's label beside x and y (see the dataset below).
+    const labelOf = (p: (typeof data)[number]) => (typeof p === 'object' && p !== null && 'label' in p && typeof p.label === 'string' ? p.label : '');
     ctx.save();
     ctx.fillStyle = '#2f1729';
     ctx.font = '600 12px sans-serif';
     ctx.textBaseline = 'middle';
-    meta.data.forEach((point, i) => ctx.fillText(data[i]?.label ?? '', point.x + 8, point.y));
+    meta.data.forEach((point, i) => ctx.fillText(labelOf(data[i]), point.x + 8, point.y));
     ctx.restore();
   },
 };

@@ -59,7 +59,6 @@ export function costOn(basis: CostBasis, settings: FormulaSettingsInput, lines: 
 }
 
 const ingredientIdsOf = (formulas: Array<{ lines: RevisionLine[] }>) => [...new Set(formulas.flatMap((f) => f.lines.map((l) => l.ingredientId)))];
-const refId = (ref: unknown) => (ref as { id: string } | null)?.id ?? null;
 
 /** The editor's prices on one day, for every ingredient and (not archived) pack format of the workspace: two round trips. */
 export async function editorCostBasis(actor: Actor, asOf: string = todayIso()): Promise<EditorCostBasis> {
@@ -129,7 +128,7 @@ export async function costForApproval(
 ): Promise<{ packFormatId: string | null; costAtApproval: FrozenCost | null }> {
   const em = await getEm();
   const trial = await em.findOne(Trial, { workspace: workspaceId, id: formula.trialId }, { fields: ['id', 'baseFormula'], populate: ['baseFormula'] });
-  const packFormatId = refId((trial?.baseFormula as unknown as { packFormat?: unknown } | null)?.packFormat);
+  const packFormatId = trial?.baseFormula.packFormat?.id ?? null;
   const basis = await loadCostBasis(workspaceId, { ingredientIds: ingredientIdsOf([formula]), packFormatIds: packFormatId ? [packFormatId] : [], from: day, to: day });
   const name = packFormatId ? (basis.packFormats.get(packFormatId)?.name ?? null) : null;
   return { packFormatId, costAtApproval: freeze(costOn(basis, formula.settings, formula.lines, packFormatId, day), basis.currency, name) };
@@ -176,9 +175,9 @@ export async function batchCost(actor: Actor, batchId: string): Promise<BatchCos
   const em = await getEm();
   const batch = await em.findOne(BatchRecord, { ...inWorkspace(actor), id: batchId }, { populate: ['productVersion'] });
   if (!batch) throw notFound('batch');
-  const version = batch.productVersion as unknown as { settings: FormulaSettingsInput; lines: RevisionLine[]; packFormat: unknown };
+  const version = batch.productVersion;
   const day = isoDate(batch.batchDate);
-  const packFormatId = refId(version.packFormat);
+  const packFormatId = version.packFormat?.id ?? null;
   const basis = await loadCostBasis(actor.workspaceId, { ingredientIds: ingredientIdsOf([version]), packFormatIds: packFormatId ? [packFormatId] : [], from: day, to: day });
   const planned = costOn(basis, version.settings, version.lines, packFormatId, day);
   return {

@@ -24,7 +24,7 @@ import type { LabelQuery, LabelView } from './schema';
 export async function labelDataForLines(em: EntityManager, actor: Actor, lines: readonly RevisionLine[]): Promise<Array<IngredientLabelData | null>> {
   const ids = [...new Set(lines.map((l) => l.ingredientId))];
   const rows = ids.length ? await em.find(Ingredient, { ...inWorkspace(actor), id: { $in: ids } }) : [];
-  const byId = new Map((rows as unknown as Parameters<typeof toIngredientView>[0][]).map((r) => [r.id, toLabelData(toIngredientView(r))]));
+  const byId = new Map(rows.map((r) => [r.id, toLabelData(toIngredientView(r))]));
   return lines.map((l) => byId.get(l.ingredientId) ?? null);
 }
 
@@ -73,7 +73,7 @@ export async function versionLabel(actor: Actor, versionId: string): Promise<Lab
   const em = await getEm();
   const v = await em.findOne(ProductVersion, { ...inWorkspace(actor), id: versionId }, { populate: ['product'] });
   if (!v) throw notFound('production version');
-  const product = v.product as unknown as { name: string; code: string };
+  const product = v.product;
   const subject = { kind: 'version' as const, id: v.id, name: `${product.name} v${v.version}` };
   const frozen = v.label as Label | null;
   if (frozen) return { label: frozen, problem: null, kept: 'frozen', reference: { choice: 'typical', name: frozen.claims.reference ?? TYPICAL_JAM_REFERENCE.name }, subject };

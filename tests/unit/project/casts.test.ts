@@ -9,11 +9,8 @@ import { describe, expect, it } from 'vitest';
 
 const ALLOWED: Record<string, number> = {
   'app/api/bench/floor/route.ts': 1, // a process-wide cache on globalThis (survives hot reload)
-  'components/costs/CostLikingChart.tsx': 1, // populated reads typed by hand; to go
   'lib/client-address.ts': 1, // a process-wide cache on globalThis (survives hot reload)
-  'lib/costs/queries.ts': 2, // populated reads typed by hand; to go
   'lib/db.ts': 1, // a process-wide cache on globalThis (survives hot reload)
-  'lib/label/queries.ts': 2, // populated reads typed by hand; to go
   'lib/mail.ts': 1, // a process-wide cache on globalThis (survives hot reload)
   'lib/rate-limit.ts': 1, // a process-wide cache on globalThis (survives hot reload)
   'lib/sql.ts': 1, // a process-wide cache on globalThis (survives hot reload)
