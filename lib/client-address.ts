@@ -15,7 +15,8 @@ export const PEER_ADDRESS_HEADER = 'x-setwell-peer-address';
 /** The one bucket for requests whose address is unknown (handlers called outside a server, as in tests). */
 export const UNKNOWN_ADDRESS = 'unknown';
 
-const state = globalThis as unknown as { setwellPeerHook?: boolean };
+/** Typed in lib/process-cache.ts. */
+const state = globalThis;
 
 /** Records every incoming request's socket address in PEER_ADDRESS_HEADER. Idempotent. */
 export function installPeerAddressHook(): void {

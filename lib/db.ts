@@ -13,7 +13,8 @@ import { logger, withoutStatement } from '@/lib/log';
  * running at that moment fail once with a 503 and Retry-After (lib/api/errors.ts), and the phone's
  * queue resends them with the same idempotency key. scripts/soak.ts checks this under load.
  */
-const cache = globalThis as unknown as { setwellOrm?: Promise<MikroORM> };
+/** Typed in lib/process-cache.ts. */
+const cache = globalThis;
 
 /** knex's own warnings ("Connection Error: …") as structured log lines instead of bare console text. */
 const knexLog = {

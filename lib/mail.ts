@@ -19,7 +19,8 @@ export interface OutgoingMail {
   html?: string;
 }
 
-const cache = globalThis as unknown as { setwellMailer?: Transporter };
+/** Typed in lib/process-cache.ts. */
+const cache = globalThis;
 
 function transport(): Transporter {
   cache.setwellMailer ??= nodemailer.createTransport(env().SMTP_URL);

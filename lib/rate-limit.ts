@@ -32,8 +32,9 @@ export class RateLimited extends Error {
 }
 
 type LimiterName = 'signInAccount' | 'signInIp' | 'resetAccount' | 'resetIp' | 'join';
-type Limiters = Record<LimiterName, RateLimiterPostgres> & { pool: Pool };
-const cache = globalThis as unknown as { setwellLimiters?: Limiters };
+export type Limiters = Record<LimiterName, RateLimiterPostgres> & { pool: Pool };
+/** Typed in lib/process-cache.ts. */
+const cache = globalThis;
 
 function limiters(): Limiters {
   if (cache.setwellLimiters) return cache.setwellLimiters;

@@ -6,7 +6,8 @@
 import { Pool, type QueryResultRow } from 'pg';
 import { env } from '@/lib/env';
 
-const cache = globalThis as unknown as { setwellSqlPool?: Pool };
+/** Typed in lib/process-cache.ts. */
+const cache = globalThis;
 
 function pool(): Pool {
   if (!cache.setwellSqlPool) {

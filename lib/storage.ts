@@ -16,7 +16,8 @@ import {
 } from '@aws-sdk/client-s3';
 import { storageEnv } from '@/lib/env';
 
-const cache = globalThis as unknown as { setwellS3?: S3Client };
+/** Typed in lib/process-cache.ts. */
+const cache = globalThis;
 
 /** One client per process, cached on globalThis so dev-server reloads do not open new sockets. */
 export function storageClient(): S3Client {

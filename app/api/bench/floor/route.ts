@@ -8,7 +8,8 @@ import { json } from '@/lib/api/route';
 
 export const dynamic = 'force-dynamic';
 
-const cache = globalThis as unknown as { setwellBenchPool?: Pool };
+/** Typed in lib/process-cache.ts. */
+const cache = globalThis;
 
 function pool(): Pool {
   if (!cache.setwellBenchPool) {
