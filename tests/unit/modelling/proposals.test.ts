@@ -8,7 +8,8 @@ import { describe, it, expect } from 'vitest';
 import { findTypicalIngredient, type IngredientComposition } from '@/lib/chemistry';
 import { fitResponseSurface, predictResponse } from '@/lib/models';
 import { formulaFeatures } from '@/lib/modelling/features';
-import { formulaAtPoint, fruitMinimumOf, pointsAround, proposeFormulas, type ProposalBase } from '@/lib/modelling/proposals';
+import { costAtPoint, costCeilingConstraint, formulaAtPoint, fruitMinimumOf, pointsAround, proposalCosting, proposeFormulas, type ProposalBase } from '@/lib/modelling/proposals';
+import type { EditorCostBasis } from '@/lib/costs/schema';
 import { DEFAULT_MODEL_FACTORS, type FamilyModel, type ModelFactor } from '@/lib/modelling/schema';
 import type { RevisionLine } from '@/lib/formulas/schema';
 import { defaultDraft, readProposalDraft } from '@/components/modelling/proposal-draft';
@@ -191,5 +192,93 @@ describe('a proposal states the interval of one new variant', () => {
     const unweighted = predictResponse(liking, p.point);
     if (!unweighted.inRegion || !unweighted.prediction) throw new Error('should predict');
     expect(p.responses[0].prediction!.high - p.responses[0].prediction!.low).toBeLessThan(unweighted.prediction.high - unweighted.prediction.low);
+  });
+});
+
+describe('the cost ceiling per jar', () => {
+  const id = (n: number) => `00000000-0000-4000-8000-00000000000${n}`;
+  // Invented prices (minor units): apricot 300 per 1000 g, sucrose 100 per 1000 g, pectin 2000 per 100 g,
+  // calcium citrate 500 per 100 g, lemon juice 200 per 1000 g; a jar 30 and a lid 8; no overfill, no refuse.
+  const price = (n: number, packPriceMinor: number, packSizeG: number) => ({ ingredientId: id(n), validFrom: '2026-01-01', packPriceMinor, packSizeG, supplier: null });
+  const basis: EditorCostBasis = {
+    currency: 'EUR',
+    asOf: '2026-12-03',
+    overfillPct: 0,
+    ingredientPrices: [price(1, 300, 1000), price(2, 100, 1000), price(3, 2000, 100), price(4, 500, 100), price(5, 200, 1000)],
+    packagingPrices: [
+      { packagingItemId: 'jar', validFrom: '2026-01-01', unitPriceMinor: 30, supplier: null },
+      { packagingItemId: 'lid', validFrom: '2026-01-01', unitPriceMinor: 8, supplier: null },
+    ],
+    refuse: [],
+    packFormats: [{ id: 'pf', name: '250 g jar', netFillG: 250, items: [{ packagingItemId: 'jar', name: 'Jar', perJar: 1 }, { packagingItemId: 'lid', name: 'Lid', perJar: 1 }] }],
+  };
+  const costing = proposalCosting(basis, 'pf');
+  // Hand-worked. Soluble solids of the base: apricot 1000 g × 11.7 % + sucrose 400 + pectin 10 + calcium
+  // citrate 1 + lemon juice 40 g × 4.5 % = 529.8 g; at 46 % target the finished mass is 529.8 / 0.46 g.
+  // Ingredients per batch 300 + 40 + 200 + 5 + 8 = 553; per 250 g jar 553 × 250 / finished mass, plus 38 of packaging.
+  const atBase = (553 * 250) / (529.8 / 0.46) + 38; // 158.04
+  // At sugar ratio 0.3 (sucrose 300 g): solids 429.8 g, ingredients 543 per batch — less sugar, fewer jars, dearer jars.
+  const atLowSugar = (543 * 250) / (429.8 / 0.46) + 38; // 183.29
+
+  it('prices the formula at a point as the editor does, with hand-worked figures', () => {
+    const here = costAtPoint(base, {}, costing);
+    const low = costAtPoint(base, { sugarRatio: 0.3 }, costing);
+    if (!here.ok || !low.ok) throw new Error('should cost');
+    expect(here.cost.perJar).toEqual({ minor: expect.closeTo(atBase, 6), complete: true });
+    expect(low.cost.perJar!.minor).toBeCloseTo(atLowSugar, 6);
+  });
+
+  it('excludes the points whose cost per jar is above the ceiling', () => {
+    const ceiling = costCeilingConstraint(base, costing, 170);
+    expect(ceiling.violation({})).toBe(0);
+    expect(ceiling.violation({ sugarRatio: 0.3 })).toBeCloseTo(atLowSugar - 170, 6);
+    // Every proposal under a ceiling costs at most the ceiling, and the ceiling bites: the free search's best is dearer.
+    const goals = [{ response: LIKING, goal: { kind: 'minimise' as const, low: 4, high: 8 }, importance: 1 }];
+    const free = proposeFormulas(MODEL, base, { factors: ranges, goals }, costing);
+    const freeCost = free.proposals[0].costPerJarMinor!;
+    const cap = freeCost - 3;
+    const held = proposeFormulas(MODEL, base, { factors: ranges, goals, costCeilingPerJarMinor: cap }, costing);
+    expect(held.proposals.length).toBeGreaterThan(0);
+    for (const p of held.proposals) {
+      expect(p.costPerJarMinor!).toBeLessThanOrEqual(cap + 1e-9);
+      const priced = costAtPoint(base, p.point, costing);
+      expect(priced.ok && priced.cost.perJar!.minor).toBeCloseTo(p.costPerJarMinor!, 9);
+    }
+    expect(held.proposals[0].desirability).toBeLessThan(free.proposals[0].desirability);
+  });
+
+  it('refuses a ceiling when a price is unknown, naming the line, and never counts it as zero', () => {
+    const noPectin = proposalCosting({ ...basis, ingredientPrices: basis.ingredientPrices.filter((p) => p.ingredientId !== id(3)) }, 'pf');
+    expect(() => costCeilingConstraint(base, noPectin, 170)).toThrow(/incomplete on 2026-12-03: no price for .*pectin/i);
+    const noLid = proposalCosting({ ...basis, packagingPrices: basis.packagingPrices.slice(0, 1) }, 'pf');
+    expect(() => costCeilingConstraint(base, noLid, 170)).toThrow(/no price for Lid/);
+    // Without a ceiling the proposals still come, without a cost per jar.
+    const goals = [{ response: LIKING, goal: { kind: 'maximise' as const, low: 5, high: 8 }, importance: 1 }];
+    expect(proposeFormulas(MODEL, base, { factors: ranges, goals }, noPectin).proposals[0].costPerJarMinor).toBeNull();
+  });
+
+  it('refuses a ceiling without a pack format, a currency or prices to see', () => {
+    expect(() => costCeilingConstraint(base, proposalCosting(basis, null), 170)).toThrow('This formula has no pack format, so it has no cost per jar: choose its pack format (jar and packaging) first.');
+    expect(() => costCeilingConstraint(base, proposalCosting({ ...basis, currency: null }, 'pf'), 170)).toThrow(/workspace currency/);
+    expect(() => costCeilingConstraint(base, null, 170)).toThrow(/permission to see prices/);
+  });
+
+  it('the form reads the ceiling in the workspace currency, decimal comma accepted', () => {
+    const draft = defaultDraft(MODEL, 450);
+    const read = readProposalDraft(MODEL, { ...draft, costCeiling: '1,65' }, 'EUR');
+    expect(read.ok && read.request.costCeilingPerJarMinor).toBeCloseTo(165, 9);
+    const blank = readProposalDraft(MODEL, draft, 'EUR');
+    expect(blank.ok && blank.request.costCeilingPerJarMinor).toBeUndefined();
+    for (const [text, message] of [
+      ['0', 'The cost ceiling per jar must be above 0.'],
+      ['-1', 'The cost ceiling per jar must be above 0.'],
+      ['abc', 'Cost ceiling per jar: enter a number.'],
+      ['1e300', 'The cost ceiling per jar must be at most 1,000,000.'],
+    ]) {
+      const bad = readProposalDraft(MODEL, { ...draft, costCeiling: text }, 'EUR');
+      expect(bad.ok || bad.errors.costCeiling).toBe(message);
+    }
+    const noCurrency = readProposalDraft(MODEL, { ...draft, costCeiling: '2' }, null);
+    expect(noCurrency.ok || noCurrency.errors.costCeiling).toMatch(/workspace currency/);
   });
 });
