@@ -38,6 +38,8 @@ interface KindTotals {
 }
 
 export interface PointSolver {
+  /** The base formula's lines in grams (so "% of fruit" lines scale like the rest), computed once. */
+  grams: RevisionLine[];
   /** Finished mass and the new total of each scaled kind at a point; null when the point cannot be made. */
   at(point: Partial<Record<ModelFactor, number>>): { finishedMassG: number; fruitPer1000g: number; totals: Record<ScaledKind, number> } | null;
 }
@@ -63,6 +65,7 @@ export function pointSolver(base: ProposalBase): PointSolver | string {
   }
   const perGram = (k: ScaledKind) => (totals[k].massG > 0 ? totals[k].solidsG / totals[k].massG : 0);
   return {
+    grams: base.lines.map((l, i) => ({ ...l, quantity: mb.lines[i].massG, unit: 'g' as const })),
     at(point: Partial<Record<ModelFactor, number>>) {
       const t = (point.targetSolidsPct ?? base.settings.targetSolidsPct) / 100;
       let fixed = totals.other.solidsG;
@@ -106,10 +109,7 @@ export function formulaAtPoint(base: ProposalBase, point: Partial<Record<ModelFa
   const at = solved.at(point);
   if (!at) return { ok: false, message: 'This combination cannot be made from the base formula: a line it needs is missing, or the pectin or acid share is out of reach at this soluble solids.' };
   const settings = { ...base.settings, ...(point.targetSolidsPct !== undefined ? { targetSolidsPct: point.targetSolidsPct } : {}) };
-  const first = computeFormula(base.settings, base.lines);
-  if (!first.ok) return { ok: false, message: first.message };
-  // In grams from here on, so "% of fruit" lines scale like the rest.
-  const grams = base.lines.map((l, i) => ({ ...l, quantity: first.computation.massBalance.lines[i].massG, unit: 'g' as const }));
+  const grams = solved.grams;
   const current = (kind: ScaledKind) => grams.filter((l) => l.ingredient.kind === kind).reduce((sum, l) => sum + l.quantity, 0);
   const factor = { sweetener: at.totals.sweetener / current('sweetener'), pectin: at.totals.pectin / current('pectin'), acid: at.totals.acid / current('acid') };
   const lines = grams.map((l) => {
