@@ -8,7 +8,7 @@ import { inputClass } from '@/components/ui/Field';
 import { useFormAction } from '@/components/ui/useFormAction';
 import { createProposalTrialAction } from '@/lib/trials/actions';
 import { FACTOR_INFO, type FamilyModel, type ModelFactor } from '@/lib/modelling/schema';
-import { describePoint, pointsAround, proposalCosting, proposeFormulas, type FruitMinimum, type ProposalBase, type ProposalOutcome, type ProposalRequest } from '@/lib/modelling/proposals';
+import { costPerJarProblem, describePoint, pointsAround, proposalCosting, proposeFormulas, type FruitMinimum, type ProposalBase, type ProposalOutcome, type ProposalRequest } from '@/lib/modelling/proposals';
 import { formatCost } from '@/lib/costing';
 import type { EditorCostBasis } from '@/lib/costs/schema';
 import { defaultDraft, GOAL_KIND_LABELS, readProposalDraft, type GoalDraft, type GoalKind, type ProposalDraft } from './proposal-draft';
@@ -47,6 +47,7 @@ export function ProposalForm({ model, base, formulaId, formulaName, fruitMinimum
 }) {
   const costing = useMemo(() => (cost ? proposalCosting(cost.basis, cost.packFormatId) : null), [cost]);
   const currency = costing?.currency ?? null;
+  const costProblem = useMemo(() => (costing ? costPerJarProblem(base, costing) : null), [base, costing]);
   const router = useRouter();
   const [draft, setDraft] = useState<ProposalDraft>(() => defaultDraft(model, fruitMinimum?.value ?? null));
   const [errors, setErrors] = useState<Record<string, string>>({});
@@ -162,11 +163,7 @@ export function ProposalForm({ model, base, formulaId, formulaName, fruitMinimum
             <div className="rounded-lg bg-white p-3 ring-1 ring-pith-300">
               <NumberBox id="cost-ceiling" label={`Cost ceiling per jar${currency ? ` (${currency})` : ''}, optional`} value={draft.costCeiling} onChange={(v) => setDraft((d) => ({ ...d, costCeiling: v }))} error={!!errors.costCeiling} />
               <p className="mt-1 text-xs text-rind-500">
-                {!currency
-                  ? 'Costs appear once an administrator sets the workspace currency and enters prices.'
-                  : costing.prices.packFormat
-                    ? `Ingredients and packaging of ${costing.prices.packFormat.name} at the prices of ${costing.prices.asOf}, as the formula’s cost panel shows them.`
-                    : 'This formula has no pack format yet, so it has no cost per jar.'}
+                {costProblem ?? `Ingredients and packaging of ${costing.prices.packFormat?.name ?? ''} at the prices of ${costing.prices.asOf}, as the formula’s cost panel shows them.`}
               </p>
               <ErrorText id="cost-ceiling-error" message={errors.costCeiling} />
             </div>

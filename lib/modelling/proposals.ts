@@ -193,24 +193,34 @@ function knownCostPerJar(outcome: FormulaCostOutcome): number | null {
   return outcome.ok && outcome.cost.complete && outcome.cost.perJar?.complete ? outcome.cost.perJar.minor : null;
 }
 
+/**
+ * Why the formula has no known cost per jar, naming what is missing (the currency, the pack format,
+ * the lines without a price on the day); null when it has one. Every point keeps the base formula's
+ * lines and packaging, so the base answers for all of them.
+ */
+export function costPerJarProblem(base: ProposalBase, costing: ProposalCosting): string | null {
+  if (!costing.currency) return 'Costs need the workspace currency: an administrator sets it, then enters prices.';
+  if (!costing.prices.packFormat) return 'This formula has no pack format, so it has no cost per jar: choose its pack format (jar and packaging) first.';
+  const atBase = costAtPoint(base, {}, costing);
+  if (!atBase.ok) return `The cost per jar cannot be worked out: ${atBase.message}`;
+  if (atBase.cost.missing.length) return `The cost per jar is incomplete on ${atBase.cost.asOf}: no price for ${atBase.cost.missing.join(', ')}.`;
+  return null;
+}
+
 function refuseCeiling(message: string): never {
   throw new ValidationFailed(message, { costCeilingPerJarMinor: [message] });
 }
 
 /**
  * The cost ceiling as a constraint: the cost per jar of the formula at each point at most the
- * ceiling. Refused, naming what is missing, when the cost per jar cannot be known (no currency, no
- * pack format, a price unknown): an unknown price is never a zero. Every point keeps the base
- * formula's lines and packaging, so what is priced at the base is priced everywhere.
+ * ceiling. Refused, naming what is missing, when the cost per jar cannot be known
+ * (costPerJarProblem): an unknown price is never a zero.
  */
 export function costCeilingConstraint(base: ProposalBase, costing: ProposalCosting | null, ceilingMinor: number): Constraint {
   if (!costing) refuseCeiling('A cost ceiling needs the permission to see prices.');
   if (!(Number.isFinite(ceilingMinor) && ceilingMinor > 0)) refuseCeiling('The cost ceiling per jar must be a positive amount.');
-  if (!costing.currency) refuseCeiling('A cost ceiling needs the workspace currency: an administrator sets it, then enters prices.');
-  if (!costing.prices.packFormat) refuseCeiling('This formula has no pack format, so it has no cost per jar: choose its pack format (jar and packaging) first.');
-  const atBase = costAtPoint(base, {}, costing);
-  if (!atBase.ok) refuseCeiling(`The cost per jar cannot be worked out: ${atBase.message}`);
-  if (atBase.cost.missing.length) refuseCeiling(`The cost per jar is incomplete on ${atBase.cost.asOf}: no price for ${atBase.cost.missing.join(', ')}. Enter those prices to search under a cost ceiling.`);
+  const problem = costPerJarProblem(base, costing);
+  if (problem) refuseCeiling(`${problem} Until then the search cannot hold a cost ceiling.`);
   const solver = pointSolver(base);
   const reusable = typeof solver === 'string' ? undefined : solver;
   return windowConstraint('cost ceiling per jar', (p) => knownCostPerJar(costAtPoint(base, p, costing, reusable)) ?? Number.NaN, { high: ceilingMinor });

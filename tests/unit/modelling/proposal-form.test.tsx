@@ -47,7 +47,7 @@ describe('the cost ceiling on the Propose form', () => {
 
   it('names a bad ceiling and a missing pack format, and searches nothing', () => {
     render(<ProposalForm {...props} cost={{ basis, packFormatId: null }} />);
-    expect(screen.getByText('This formula has no pack format yet, so it has no cost per jar.')).toBeTruthy();
+    expect(screen.getByText('This formula has no pack format, so it has no cost per jar: choose its pack format (jar and packaging) first.')).toBeTruthy();
     const field = screen.getByLabelText(/Cost ceiling per jar/);
     fireEvent.change(field, { target: { value: '0' } });
     fireEvent.click(screen.getByRole('button', { name: 'Find the best formula' }));
@@ -56,7 +56,7 @@ describe('the cost ceiling on the Propose form', () => {
     expect(screen.queryAllByTestId('proposal')).toHaveLength(0);
     fireEvent.change(field, { target: { value: '2' } });
     fireEvent.click(screen.getByRole('button', { name: 'Find the best formula' }));
-    expect(screen.getByText('This formula has no pack format, so it has no cost per jar: choose its pack format (jar and packaging) first.')).toBeTruthy();
+    expect(screen.getByText('This formula has no pack format, so it has no cost per jar: choose its pack format (jar and packaging) first. Until then the search cannot hold a cost ceiling.')).toBeTruthy();
     expect(screen.queryAllByTestId('proposal')).toHaveLength(0);
   });
 });

@@ -7,7 +7,7 @@
 import { describe, it, expect } from 'vitest';
 import { predictResponse } from '@/lib/models';
 import { formulaFeatures } from '@/lib/modelling/features';
-import { costAtPoint, costCeilingConstraint, formulaAtPoint, fruitMinimumOf, pointsAround, proposalCosting, proposeFormulas } from '@/lib/modelling/proposals';
+import { costAtPoint, costCeilingConstraint, costPerJarProblem, formulaAtPoint, fruitMinimumOf, pointsAround, proposalCosting, proposeFormulas } from '@/lib/modelling/proposals';
 import { base, basis, centre, id, liking, LIKING, MODEL, ranges } from './fixtures';
 import type { FamilyModel } from '@/lib/modelling/schema';
 import { defaultDraft, readProposalDraft } from '@/components/modelling/proposal-draft';
@@ -196,6 +196,7 @@ describe('the cost ceiling per jar', () => {
     expect(() => costCeilingConstraint(base, proposalCosting(basis, null), 170)).toThrow('This formula has no pack format, so it has no cost per jar: choose its pack format (jar and packaging) first.');
     expect(() => costCeilingConstraint(base, proposalCosting({ ...basis, currency: null }, 'pf'), 170)).toThrow(/workspace currency/);
     expect(() => costCeilingConstraint(base, null, 170)).toThrow(/permission to see prices/);
+    expect(costPerJarProblem(base, costing)).toBeNull();
   });
 
   it('the form reads the ceiling in the workspace currency, decimal comma accepted', () => {
