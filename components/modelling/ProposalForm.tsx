@@ -1,6 +1,6 @@
 'use client';
 
-import { useState } from 'react';
+import { useMemo, useState } from 'react';
 import { useRouter } from 'next/navigation';
 import { Button } from '@/components/ui/Button';
 import { Notice } from '@/components/ui/Notice';
@@ -8,7 +8,9 @@ import { inputClass } from '@/components/ui/Field';
 import { useFormAction } from '@/components/ui/useFormAction';
 import { createProposalTrialAction } from '@/lib/trials/actions';
 import { FACTOR_INFO, type FamilyModel, type ModelFactor } from '@/lib/modelling/schema';
-import { describePoint, pointsAround, proposeFormulas, type FruitMinimum, type ProposalBase, type ProposalOutcome, type ProposalRequest } from '@/lib/modelling/proposals';
+import { costPerJarProblem, describePoint, pointsAround, proposalCosting, proposeFormulas, type FruitMinimum, type ProposalBase, type ProposalOutcome, type ProposalRequest } from '@/lib/modelling/proposals';
+import { formatCost } from '@/lib/costing';
+import type { EditorCostBasis } from '@/lib/costs/schema';
 import { defaultDraft, GOAL_KIND_LABELS, readProposalDraft, type GoalDraft, type GoalKind, type ProposalDraft } from './proposal-draft';
 
 const GOAL_KINDS = Object.keys(GOAL_KIND_LABELS) as GoalKind[];
@@ -28,18 +30,24 @@ function NumberBox({ label, value, onChange, error, id }: { label: string; value
 
 /**
  * "Propose a formula": goals per response, the ranges the search may use, the fruit minimum and the
- * pH window; the best formulas inside the data's region with their predictions; one click makes a
- * trial of the proposal and a few points around it. The search runs here, on the family's fitted
- * surfaces; only the trial is a request.
+ * pH window and, for users who may see prices, a cost ceiling per jar; the best formulas inside the
+ * data's region with their predictions (and cost per jar); one click makes a trial of the proposal
+ * and a few points around it. The search runs here, on the family's fitted surfaces; only the trial
+ * is a request.
  */
-export function ProposalForm({ model, base, formulaId, formulaName, fruitMinimum, canCreateTrial }: {
+export function ProposalForm({ model, base, formulaId, formulaName, fruitMinimum, canCreateTrial, cost }: {
   model: FamilyModel;
   base: ProposalBase;
   formulaId: string;
   formulaName: string;
   fruitMinimum: FruitMinimum | null;
   canCreateTrial: boolean;
+  /** The day's prices and the formula's pack format; absent for users who may not see prices. */
+  cost?: { basis: EditorCostBasis; packFormatId: string | null };
 }) {
+  const costing = useMemo(() => (cost ? proposalCosting(cost.basis, cost.packFormatId) : null), [cost]);
+  const currency = costing?.currency ?? null;
+  const costProblem = useMemo(() => (costing ? costPerJarProblem(base, costing) : null), [base, costing]);
   const router = useRouter();
   const [draft, setDraft] = useState<ProposalDraft>(() => defaultDraft(model, fruitMinimum?.value ?? null));
   const [errors, setErrors] = useState<Record<string, string>>({});
@@ -52,14 +60,14 @@ export function ProposalForm({ model, base, formulaId, formulaName, fruitMinimum
 
   function search() {
     setSearchError(undefined);
-    const read = readProposalDraft(model, draft);
+    const read = readProposalDraft(model, draft, currency);
     if (!read.ok) {
       setErrors(read.errors);
       return;
     }
     setErrors({});
     try {
-      setResult({ outcome: proposeFormulas(model, base, read.request), request: read.request });
+      setResult({ outcome: proposeFormulas(model, base, read.request, costing), request: read.request });
     } catch (err) {
       setResult(null);
       setSearchError(err instanceof Error ? err.message : 'The search failed.');
@@ -151,8 +159,16 @@ export function ProposalForm({ model, base, formulaId, formulaName, fruitMinimum
             <p className="mt-1 text-xs text-rind-500">Held on the model of measured pH. Above pH 4.6 a preserve needs a validated process; follow your local codes and licensed practice.</p>
             <ErrorText id="ph-error" message={errors.ph} />
           </div>
+          {costing ? (
+            <div className="rounded-lg bg-white p-3 ring-1 ring-pith-300">
+              <NumberBox id="cost-ceiling" label={`Cost ceiling per jar${currency ? ` (${currency})` : ''}, optional`} value={draft.costCeiling} onChange={(v) => setDraft((d) => ({ ...d, costCeiling: v }))} error={!!errors.costCeiling} />
+              <p className="mt-1 text-xs text-rind-500">
+                {costProblem ?? `Ingredients and packaging of ${costing.prices.packFormat?.name ?? ''} at the prices of ${costing.prices.asOf}, as the formula’s cost panel shows them.`}
+              </p>
+              <ErrorText id="cost-ceiling-error" message={errors.costCeiling} />
+            </div>
+          ) : null}
         </div>
-        <p className="mt-3 text-xs text-rind-500">A cost ceiling per jar is not part of the search: the cost depends on the day’s prices and the pack, which the search does not see. The trial shows each variant’s cost per jar.</p>
         <Button className="mt-4" type="button" onClick={search}>Find the best formula</Button>
         {Object.keys(errors).length ? <div className="mt-3"><Notice tone="danger">Some fields need attention; they are marked above. Nothing was searched.</Notice></div> : null}
         {searchError ? <div className="mt-3"><Notice tone="danger">{searchError}</Notice></div> : null}
@@ -171,6 +187,7 @@ export function ProposalForm({ model, base, formulaId, formulaName, fruitMinimum
                   <div key={f} className="min-w-0"><dt className="inline text-rind-600">{FACTOR_INFO[f].name}: </dt><dd className="inline font-medium">{p.point[f].toFixed(FACTOR_INFO[f].decimals)} {FACTOR_INFO[f].unit}</dd></div>
                 ))}
                 <div className="min-w-0"><dt className="inline text-rind-600">Fruit: </dt><dd className="inline font-medium">{p.fruitPer1000g.toFixed(0)} g per 1000 g{result.request.fruitMinimumPer1000g !== undefined ? ` (at least ${result.request.fruitMinimumPer1000g})` : ''}</dd></div>
+                {p.costPerJarMinor !== null && currency ? <div className="min-w-0"><dt className="inline text-rind-600">Cost per jar: </dt><dd className="inline font-medium">{formatCost(p.costPerJarMinor, currency)}{result.request.costCeilingPerJarMinor !== undefined ? ` (at most ${formatCost(result.request.costCeilingPerJarMinor, currency)})` : ''}</dd></div> : null}
                 {p.ph ? <div className="min-w-0"><dt className="inline text-rind-600">Predicted pH: </dt><dd className="inline font-medium">{p.ph.estimate.toFixed(2)}{p.ph.prediction ? ` (95 % prediction interval ${p.ph.prediction.low.toFixed(2)} to ${p.ph.prediction.high.toFixed(2)})` : ''}</dd></div> : null}
               </dl>
               <ul className="mt-3 space-y-1 text-sm">

@@ -7,6 +7,10 @@ import { readDecimal } from '@/lib/format/numbers';
 import type { Goal } from '@/lib/models';
 import { FACTOR_INFO, type FamilyModel, type ModelFactor, type ResponseModel } from '@/lib/modelling/schema';
 import type { ProposalRequest } from '@/lib/modelling/proposals';
+import { minorDigits } from '@/lib/pricing/money';
+
+/** Far above any jar's cost; keeps the minor units a safe integer. */
+const MAX_COST_CEILING = 1_000_000;
 
 export type GoalKind = 'none' | 'maximise' | 'minimise' | 'target' | 'band';
 
@@ -36,6 +40,8 @@ export interface ProposalDraft {
   fruitMinimum: string;
   phLow: string;
   phHigh: string;
+  /** Cost ceiling per jar in the workspace currency (blank: none). */
+  costCeiling: string;
 }
 
 const fmt = (v: number, d: number) => v.toFixed(d);
@@ -75,13 +81,17 @@ export function defaultDraft(model: FamilyModel, fruitMinimum: number | null): P
     fruitMinimum: fruitMinimum === null ? '' : String(fruitMinimum),
     phLow: '3.0',
     phHigh: '3.6',
+    costCeiling: '',
   };
 }
 
 export type DraftOutcome = { ok: true; request: ProposalRequest } | { ok: false; errors: Record<string, string> };
 
-/** Reads the draft; `errors` is keyed by field ("goal.<key>.low", "factor.<name>.high", "fruitMinimum", "ph"). */
-export function readProposalDraft(model: FamilyModel, draft: ProposalDraft): DraftOutcome {
+/**
+ * Reads the draft; `errors` is keyed by field ("goal.<key>.low", "factor.<name>.high", "fruitMinimum",
+ * "ph", "costCeiling"). `currency` is the workspace's, for the cost ceiling (null: none set).
+ */
+export function readProposalDraft(model: FamilyModel, draft: ProposalDraft, currency: string | null = null): DraftOutcome {
   const errors: Record<string, string> = {};
   const number = (field: string, text: string, what: string): number => {
     const value = readDecimal(text);
@@ -141,6 +151,14 @@ export function readProposalDraft(model: FamilyModel, draft: ProposalDraft): Dra
     else if (low >= high) errors.ph = 'The lowest pH must be below the highest.';
     ph = { low, high };
   }
+  let costCeilingPerJarMinor: number | undefined;
+  if (draft.costCeiling.trim() !== '') {
+    const ceiling = number('costCeiling', draft.costCeiling, 'Cost ceiling per jar');
+    if (!currency) errors.costCeiling = 'A cost ceiling needs the workspace currency: an administrator sets it, then enters prices.';
+    else if (!(ceiling > 0)) errors.costCeiling ??= 'The cost ceiling per jar must be above 0.';
+    else if (ceiling > MAX_COST_CEILING) errors.costCeiling = `The cost ceiling per jar must be at most ${MAX_COST_CEILING.toLocaleString('en')}.`;
+    else costCeilingPerJarMinor = ceiling * 10 ** minorDigits(currency);
+  }
   if (Object.keys(errors).length) return { ok: false, errors };
-  return { ok: true, request: { factors, goals, fruitMinimumPer1000g, ph, proposals: 3 } };
+  return { ok: true, request: { factors, goals, fruitMinimumPer1000g, ph, costCeilingPerJarMinor, proposals: 3 } };
 }

@@ -1,17 +1,19 @@
 /**
  * From goals to formulas: the optimisation core (optimise.ts) over a family model with the base
  * formula known — the rule set's fruit minimum on its exact mass balance, the pH window, the factor
- * ranges (reduced-sugar work) — and each proposal written back into the base formula's own lines. PURE: the proposal screen runs it in the browser and the
- * trial action runs formulaAtPoint() on the server to build the variants.
+ * ranges (reduced-sugar work), a cost ceiling per jar — and each proposal written back into the base
+ * formula's own lines. PURE: the proposal screen runs it in the browser and the trial action runs
+ * formulaAtPoint() on the server to build the variants.
  *
- * A cost ceiling per jar is not offered: the cost needs the day's prices of every line (lib/costing)
- * and the pack format, which the optimiser's pure search does not have; the trial's variants show
- * their cost per jar once created.
+ * The cost per jar at a point is the editor's own costing (lib/costing costComputation) of the
+ * formula at that point, with the prices and pack format the page read for a user who may see prices.
  */
 import { RULES, type BatchComputation } from '@/lib/chemistry';
 import { computeFormula } from '@/lib/formulas/compute';
 import type { FormulaSettingsInput, RevisionLine } from '@/lib/formulas/schema';
 import { ValidationFailed } from '@/lib/errors';
+import { costComputation, historiesBy, type FormulaCostOutcome, type FormulaPrices } from '@/lib/costing';
+import type { EditorCostBasis } from '@/lib/costs/schema';
 import { predictResponse, windowConstraint, type Constraint, type Interval } from '@/lib/models';
 import { searchFamily, type SearchRequest } from './optimise';
 import { predictOne } from './predict';
@@ -36,6 +38,8 @@ interface KindTotals {
 }
 
 export interface PointSolver {
+  /** The base formula's lines in grams (so "% of fruit" lines scale like the rest), computed once. */
+  grams: RevisionLine[];
   /** Finished mass and the new total of each scaled kind at a point; null when the point cannot be made. */
   at(point: Partial<Record<ModelFactor, number>>): { finishedMassG: number; fruitPer1000g: number; totals: Record<ScaledKind, number> } | null;
 }
@@ -61,6 +65,7 @@ export function pointSolver(base: ProposalBase): PointSolver | string {
   }
   const perGram = (k: ScaledKind) => (totals[k].massG > 0 ? totals[k].solidsG / totals[k].massG : 0);
   return {
+    grams: base.lines.map((l, i) => ({ ...l, quantity: mb.lines[i].massG, unit: 'g' as const })),
     at(point: Partial<Record<ModelFactor, number>>) {
       const t = (point.targetSolidsPct ?? base.settings.targetSolidsPct) / 100;
       let fixed = totals.other.solidsG;
@@ -104,10 +109,7 @@ export function formulaAtPoint(base: ProposalBase, point: Partial<Record<ModelFa
   const at = solved.at(point);
   if (!at) return { ok: false, message: 'This combination cannot be made from the base formula: a line it needs is missing, or the pectin or acid share is out of reach at this soluble solids.' };
   const settings = { ...base.settings, ...(point.targetSolidsPct !== undefined ? { targetSolidsPct: point.targetSolidsPct } : {}) };
-  const first = computeFormula(base.settings, base.lines);
-  if (!first.ok) return { ok: false, message: first.message };
-  // In grams from here on, so "% of fruit" lines scale like the rest.
-  const grams = base.lines.map((l, i) => ({ ...l, quantity: first.computation.massBalance.lines[i].massG, unit: 'g' as const }));
+  const grams = solved.grams;
   const current = (kind: ScaledKind) => grams.filter((l) => l.ingredient.kind === kind).reduce((sum, l) => sum + l.quantity, 0);
   const factor = { sweetener: at.totals.sweetener / current('sweetener'), pectin: at.totals.pectin / current('pectin'), acid: at.totals.acid / current('acid') };
   const lines = grams.map((l) => {
@@ -148,8 +150,81 @@ export function fruitMinimumOf(base: ProposalBase): FruitMinimum | null {
 
 export type GoalInput = SearchRequest['goals'][number];
 
-/** What the Propose screen asks (the optimisation core's request). */
-export type ProposalRequest = SearchRequest;
+/** What the Propose screen asks: the optimisation core's request and, for users who may see prices, a cost ceiling. */
+export type ProposalRequest = SearchRequest & {
+  /** The highest cost per jar, in the workspace currency's minor units. */
+  costCeilingPerJarMinor?: number;
+};
+
+/** The day's prices and the formula's pack format, as the formula editor's cost panel uses them. */
+export interface ProposalCosting {
+  /** Null until an admin picks the workspace's currency. */
+  currency: string | null;
+  prices: FormulaPrices;
+  /** Refuse/trim % per ingredient id. */
+  refuse: ReadonlyMap<string, number>;
+}
+
+/** The page's cost basis and the formula's pack format (null: none chosen) → the costing of proposals. */
+export function proposalCosting(basis: EditorCostBasis, packFormatId: string | null): ProposalCosting {
+  return {
+    currency: basis.currency,
+    prices: {
+      asOf: basis.asOf,
+      packFormat: basis.packFormats.find((f) => f.id === packFormatId) ?? null,
+      overfillPct: basis.overfillPct,
+      ingredientPrices: historiesBy(basis.ingredientPrices, (p) => p.ingredientId),
+      packagingPrices: historiesBy(basis.packagingPrices, (p) => p.packagingItemId),
+    },
+    refuse: new Map(basis.refuse),
+  };
+}
+
+/** The cost of the base formula moved to a point (formulaAtPoint), priced as the editor prices it. */
+export function costAtPoint(base: ProposalBase, point: Partial<Record<ModelFactor, number>>, costing: ProposalCosting, solver?: PointSolver): FormulaCostOutcome {
+  const at = formulaAtPoint(base, point, solver);
+  if (!at.ok) return at;
+  const lines = at.lines.map((l) => ({ ingredientId: l.ingredientId, name: l.ingredient.name, refusePct: costing.refuse.get(l.ingredientId) ?? 0 }));
+  return costComputation(at.computation, lines, costing.prices);
+}
+
+/** The complete cost per jar at a point, in minor units; null where it is not known. */
+function knownCostPerJar(outcome: FormulaCostOutcome): number | null {
+  return outcome.ok && outcome.cost.complete && outcome.cost.perJar?.complete ? outcome.cost.perJar.minor : null;
+}
+
+/**
+ * Why the formula has no known cost per jar, naming what is missing (the currency, the pack format,
+ * the lines without a price on the day); null when it has one. Every point keeps the base formula's
+ * lines and packaging, so the base answers for all of them.
+ */
+export function costPerJarProblem(base: ProposalBase, costing: ProposalCosting): string | null {
+  if (!costing.currency) return 'Costs need the workspace currency: an administrator sets it, then enters prices.';
+  if (!costing.prices.packFormat) return 'This formula has no pack format, so it has no cost per jar: choose its pack format (jar and packaging) first.';
+  const atBase = costAtPoint(base, {}, costing);
+  if (!atBase.ok) return `The cost per jar cannot be worked out: ${atBase.message}`;
+  if (atBase.cost.missing.length) return `The cost per jar is incomplete on ${atBase.cost.asOf}: no price for ${atBase.cost.missing.join(', ')}.`;
+  return null;
+}
+
+function refuseCeiling(message: string): never {
+  throw new ValidationFailed(message, { costCeilingPerJarMinor: [message] });
+}
+
+/**
+ * The cost ceiling as a constraint: the cost per jar of the formula at each point at most the
+ * ceiling. Refused, naming what is missing, when the cost per jar cannot be known
+ * (costPerJarProblem): an unknown price is never a zero.
+ */
+export function costCeilingConstraint(base: ProposalBase, costing: ProposalCosting | null, ceilingMinor: number): Constraint {
+  if (!costing) refuseCeiling('A cost ceiling needs the permission to see prices.');
+  if (!(Number.isFinite(ceilingMinor) && ceilingMinor > 0)) refuseCeiling('The cost ceiling per jar must be a positive amount.');
+  const problem = costPerJarProblem(base, costing);
+  if (problem) refuseCeiling(`${problem} Until then the search cannot hold a cost ceiling.`);
+  const solver = pointSolver(base);
+  const reusable = typeof solver === 'string' ? undefined : solver;
+  return windowConstraint('cost ceiling per jar', (p) => knownCostPerJar(costAtPoint(base, p, costing, reusable)) ?? Number.NaN, { high: ceilingMinor });
+}
 
 export interface ProposedResponse {
   key: ResponseKey;
@@ -168,6 +243,8 @@ export interface ProposedFormula {
   fruitPer1000g: number;
   /** Predicted measured pH, when the family has a pH model. */
   ph: { estimate: number; prediction: Interval | null } | null;
+  /** Cost per jar in minor units with the day's prices, when costing is given and every price is known. */
+  costPerJarMinor: number | null;
 }
 
 export interface ProposalOutcome {
@@ -195,10 +272,12 @@ export function baseFormulaSources(base: ProposalBase): { fruitPer1000g: (point:
  * The best formulas inside the data's region for the goals and constraints, through the one
  * optimisation core (optimise.ts), with the fruit minimum on the base formula's exact mass balance.
  */
-export function proposeFormulas(model: FamilyModel, base: ProposalBase, request: ProposalRequest): ProposalOutcome {
+export function proposeFormulas(model: FamilyModel, base: ProposalBase, request: ProposalRequest, costing: ProposalCosting | null = null): ProposalOutcome {
   const sources = baseFormulaSources(base);
   const fruitOf = sources.fruitPer1000g;
-  const { result, goalModels, phModel, notes } = searchFamily(model, request, { ...sources, withoutPhModel: 'note' });
+  const { costCeilingPerJarMinor, ...searchRequest } = request;
+  if (costCeilingPerJarMinor !== undefined) sources.constraints.push(costCeilingConstraint(base, costing, costCeilingPerJarMinor));
+  const { result, goalModels, phModel, notes } = searchFamily(model, searchRequest, { ...sources, withoutPhModel: 'note' });
   const proposals = result.proposals.map((p): ProposedFormula => {
     const point = Object.fromEntries(model.factors.map((f) => [f, p.point[f]])) as Record<ModelFactor, number>;
     const ph = phModel ? predictOne(phModel, point) : null;
@@ -213,6 +292,7 @@ export function proposeFormulas(model: FamilyModel, base: ProposalBase, request:
       }),
       fruitPer1000g: fruitOf(p.point),
       ph: ph && ph.inRegion ? { estimate: ph.estimate, prediction: ph.prediction } : null,
+      costPerJarMinor: costing?.currency ? knownCostPerJar(costAtPoint(base, point, costing)) : null,
     };
   });
   return { proposals, message: result.message, notes };

@@ -5,60 +5,12 @@
  * (1980) in tests/unit/models/desirability.test.ts; here the glue is checked.
  */
 import { describe, it, expect } from 'vitest';
-import { findTypicalIngredient, type IngredientComposition } from '@/lib/chemistry';
-import { fitResponseSurface, predictResponse } from '@/lib/models';
+import { predictResponse } from '@/lib/models';
 import { formulaFeatures } from '@/lib/modelling/features';
-import { formulaAtPoint, fruitMinimumOf, pointsAround, proposeFormulas, type ProposalBase } from '@/lib/modelling/proposals';
-import { DEFAULT_MODEL_FACTORS, type FamilyModel, type ModelFactor } from '@/lib/modelling/schema';
-import type { RevisionLine } from '@/lib/formulas/schema';
+import { costAtPoint, costCeilingConstraint, costPerJarProblem, formulaAtPoint, fruitMinimumOf, pointsAround, proposalCosting, proposeFormulas } from '@/lib/modelling/proposals';
+import { base, basis, centre, id, liking, LIKING, MODEL, ranges } from './fixtures';
+import type { FamilyModel } from '@/lib/modelling/schema';
 import { defaultDraft, readProposalDraft } from '@/components/modelling/proposal-draft';
-
-function composition(key: string): IngredientComposition {
-  const { key: _key, source: _source, ...rest } = findTypicalIngredient(key)!;
-  void _key; void _source;
-  return rest;
-}
-const line = (key: string, grams: number, n: number): RevisionLine => ({ ingredientId: `00000000-0000-4000-8000-00000000000${n}`, ingredient: composition(key), quantity: grams, unit: 'g' });
-
-const base: ProposalBase = {
-  settings: { productClass: 'reduced_sugar_spread', ruleSet: 'eu', ruleDate: '2026-11-20', targetSolidsPct: 46, jarNetFillG: 250, altitudeM: null, measuredWaterBoilingC: null, plannedPh: null, preservation: null },
-  lines: [line('apricot', 1000, 1), line('sucrose', 400, 2), line('pectin_lm_amidated', 10, 3), line('calcium_citrate', 1, 4), line('lemon_juice', 40, 5)],
-};
-const features = formulaFeatures(base.settings, base.lines);
-if (!features.ok || !features.features.family) throw new Error('base has no family');
-const centre = features.features.factors;
-
-// Invented runs: a 2⁴ factorial at ±15 % around the base plus three centre runs, with fixed scatter.
-const points: Array<Record<ModelFactor, number>> = [];
-for (let r = 0; r < 16; r++) points.push(Object.fromEntries(DEFAULT_MODEL_FACTORS.map((f, j) => [f, centre[f] * ((r >> j) & 1 ? 1.15 : 0.85)])) as Record<ModelFactor, number>);
-for (let c = 0; c < 3; c++) points.push({ ...centre });
-const scatter = (i: number) => 0.04 * Math.sin(3 * i + 1);
-const coded = (p: Record<ModelFactor, number>, f: ModelFactor) => (p[f] / centre[f] - 1) / 0.15;
-const fit = (truth: (p: Record<ModelFactor, number>) => number) =>
-  fitResponseSurface({ factors: [...DEFAULT_MODEL_FACTORS], kind: 'two_factor_interactions', runs: points.map((point, i) => ({ point, response: truth(point) + scatter(i) })) });
-
-const liking = fit((p) => 6 + 0.6 * coded(p, 'sugarRatio') + 0.3 * coded(p, 'pectinPct') - 0.2 * coded(p, 'acidPct'));
-const firmness = fit((p) => 5 + 1.5 * coded(p, 'pectinPct') + 0.6 * coded(p, 'targetSolidsPct'));
-const ph = fit((p) => 3.55 - 0.15 * coded(p, 'acidPct') - 0.02 * coded(p, 'sugarRatio'));
-
-const response = (key: string, name: string, surface: typeof liking, libraryKey: string | null, scale: { min: number; max: number } | null) => ({
-  key: key as `lab:measuredPh`, name, unit: 'u', kind: scale ? ('sensory' as const) : ('lab' as const), decimals: 2, libraryKey, scale, surface, weighting: '', newRunWeight: null,
-});
-const MODEL: FamilyModel = {
-  family: features.features.family,
-  factors: [...DEFAULT_MODEL_FACTORS],
-  runs: points.length,
-  responses: [
-    response('attribute:00000000-0000-4000-8000-0000000000a1', 'Overall liking', liking, 'overall-liking', { min: 1, max: 9 }),
-    response('attribute:00000000-0000-4000-8000-0000000000a2', 'Set firmness', firmness, 'set-firmness', { min: 0, max: 10 }),
-    response('lab:measuredPh', 'Measured pH', ph, null, null),
-  ],
-  unfitted: [],
-  fruitContent: null,
-  fittedAt: '2026-12-03T12:00:00.000Z',
-};
-const LIKING = MODEL.responses[0].key;
-const ranges = DEFAULT_MODEL_FACTORS.map((name) => ({ name, low: centre[name] * 0.85, high: centre[name] * 1.15 }));
 
 describe('formulaAtPoint', () => {
   it('writes a point back into the base formula: its features are the point', () => {
@@ -191,5 +143,78 @@ describe('a proposal states the interval of one new variant', () => {
     const unweighted = predictResponse(liking, p.point);
     if (!unweighted.inRegion || !unweighted.prediction) throw new Error('should predict');
     expect(p.responses[0].prediction!.high - p.responses[0].prediction!.low).toBeLessThan(unweighted.prediction.high - unweighted.prediction.low);
+  });
+});
+
+describe('the cost ceiling per jar', () => {
+  const costing = proposalCosting(basis, 'pf');
+  // Hand-worked. Soluble solids of the base: apricot 1000 g × 11.7 % + sucrose 400 + pectin 10 + calcium
+  // citrate 1 + lemon juice 40 g × 4.5 % = 529.8 g; at 46 % target the finished mass is 529.8 / 0.46 g.
+  // Ingredients per batch 300 + 40 + 200 + 5 + 8 = 553; per 250 g jar 553 × 250 / finished mass, plus 38 of packaging.
+  const atBase = (553 * 250) / (529.8 / 0.46) + 38; // 158.04
+  // At sugar ratio 0.3 (sucrose 300 g): solids 429.8 g, ingredients 543 per batch — less sugar, fewer jars, dearer jars.
+  const atLowSugar = (543 * 250) / (429.8 / 0.46) + 38; // 183.29
+
+  it('prices the formula at a point as the editor does, with hand-worked figures', () => {
+    const here = costAtPoint(base, {}, costing);
+    const low = costAtPoint(base, { sugarRatio: 0.3 }, costing);
+    if (!here.ok || !low.ok) throw new Error('should cost');
+    expect(here.cost.perJar).toEqual({ minor: expect.closeTo(atBase, 6), complete: true });
+    expect(low.cost.perJar!.minor).toBeCloseTo(atLowSugar, 6);
+  });
+
+  it('excludes the points whose cost per jar is above the ceiling', () => {
+    const ceiling = costCeilingConstraint(base, costing, 170);
+    expect(ceiling.violation({})).toBe(0);
+    expect(ceiling.violation({ sugarRatio: 0.3 })).toBeCloseTo(atLowSugar - 170, 6);
+    // Every proposal under a ceiling costs at most the ceiling, and the ceiling bites: the free search's best is dearer.
+    const goals = [{ response: LIKING, goal: { kind: 'minimise' as const, low: 4, high: 8 }, importance: 1 }];
+    const free = proposeFormulas(MODEL, base, { factors: ranges, goals }, costing);
+    const freeCost = free.proposals[0].costPerJarMinor!;
+    const cap = freeCost - 3;
+    const held = proposeFormulas(MODEL, base, { factors: ranges, goals, costCeilingPerJarMinor: cap }, costing);
+    expect(held.proposals.length).toBeGreaterThan(0);
+    for (const p of held.proposals) {
+      expect(p.costPerJarMinor!).toBeLessThanOrEqual(cap + 1e-9);
+      const priced = costAtPoint(base, p.point, costing);
+      expect(priced.ok && priced.cost.perJar!.minor).toBeCloseTo(p.costPerJarMinor!, 9);
+    }
+    expect(held.proposals[0].desirability).toBeLessThan(free.proposals[0].desirability);
+  });
+
+  it('refuses a ceiling when a price is unknown, naming the line, and never counts it as zero', () => {
+    const noPectin = proposalCosting({ ...basis, ingredientPrices: basis.ingredientPrices.filter((p) => p.ingredientId !== id(3)) }, 'pf');
+    expect(() => costCeilingConstraint(base, noPectin, 170)).toThrow(/incomplete on 2026-12-03: no price for .*pectin/i);
+    const noLid = proposalCosting({ ...basis, packagingPrices: basis.packagingPrices.slice(0, 1) }, 'pf');
+    expect(() => costCeilingConstraint(base, noLid, 170)).toThrow(/no price for Lid/);
+    // Without a ceiling the proposals still come, without a cost per jar.
+    const goals = [{ response: LIKING, goal: { kind: 'maximise' as const, low: 5, high: 8 }, importance: 1 }];
+    expect(proposeFormulas(MODEL, base, { factors: ranges, goals }, noPectin).proposals[0].costPerJarMinor).toBeNull();
+  });
+
+  it('refuses a ceiling without a pack format, a currency or prices to see', () => {
+    expect(() => costCeilingConstraint(base, proposalCosting(basis, null), 170)).toThrow('This formula has no pack format, so it has no cost per jar: choose its pack format (jar and packaging) first.');
+    expect(() => costCeilingConstraint(base, proposalCosting({ ...basis, currency: null }, 'pf'), 170)).toThrow(/workspace currency/);
+    expect(() => costCeilingConstraint(base, null, 170)).toThrow(/permission to see prices/);
+    expect(costPerJarProblem(base, costing)).toBeNull();
+  });
+
+  it('the form reads the ceiling in the workspace currency, decimal comma accepted', () => {
+    const draft = defaultDraft(MODEL, 450);
+    const read = readProposalDraft(MODEL, { ...draft, costCeiling: '1,65' }, 'EUR');
+    expect(read.ok && read.request.costCeilingPerJarMinor).toBeCloseTo(165, 9);
+    const blank = readProposalDraft(MODEL, draft, 'EUR');
+    expect(blank.ok && blank.request.costCeilingPerJarMinor).toBeUndefined();
+    for (const [text, message] of [
+      ['0', 'The cost ceiling per jar must be above 0.'],
+      ['-1', 'The cost ceiling per jar must be above 0.'],
+      ['abc', 'Cost ceiling per jar: enter a number.'],
+      ['1e300', 'The cost ceiling per jar must be at most 1,000,000.'],
+    ]) {
+      const bad = readProposalDraft(MODEL, { ...draft, costCeiling: text }, 'EUR');
+      expect(bad.ok || bad.errors.costCeiling).toBe(message);
+    }
+    const noCurrency = readProposalDraft(MODEL, { ...draft, costCeiling: '2' }, null);
+    expect(noCurrency.ok || noCurrency.errors.costCeiling).toMatch(/workspace currency/);
   });
 });
