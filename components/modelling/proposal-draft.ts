@@ -156,7 +156,7 @@ export function readProposalDraft(model: FamilyModel, draft: ProposalDraft, curr
     const ceiling = number('costCeiling', draft.costCeiling, 'Cost ceiling per jar');
     if (!currency) errors.costCeiling = 'A cost ceiling needs the workspace currency: an administrator sets it, then enters prices.';
     else if (!(ceiling > 0)) errors.costCeiling ??= 'The cost ceiling per jar must be above 0.';
-    else if (ceiling > MAX_COST_CEILING) errors.costCeiling = `The cost ceiling per jar must be at most ${MAX_COST_CEILING.toLocaleString('en')}.`;
+    else if (ceiling > MAX_COST_CEILING) errors.costCeiling = 'The cost ceiling per jar must be at most 1,000,000.';
     else costCeilingPerJarMinor = ceiling * 10 ** minorDigits(currency);
   }
   if (Object.keys(errors).length) return { ok: false, errors };

@@ -264,3 +264,13 @@ export async function startOwnTrial(page: Page, trial: { title: string; question
   await page.getByRole('button', { name: 'Start the trial' }).click();
   await page.getByRole('heading', { level: 1, name: new RegExp(trial.title) }).waitFor();
 }
+
+/** Sets a formula editor line: the ingredient by its name (the picker builds its list as it takes focus), the quantity, and the unit if given. */
+export async function setFormulaLine(page: Page, n: number, ingredient: string, quantity: string, unit?: string) {
+  const picker = page.getByLabel(`Line ${n}: ingredient`);
+  await picker.focus();
+  const value = await picker.locator('option').filter({ hasText: new RegExp(`^${ingredient.replace(/[()]/g, '\\$&')} \\(`) }).first().getAttribute('value');
+  await picker.selectOption(value!);
+  await page.getByLabel(`Line ${n}: quantity`).fill(quantity);
+  if (unit) await page.getByLabel(`Line ${n}: unit`).selectOption(unit);
+}

@@ -3,23 +3,12 @@
  * change, switches to imperial units, saves, revises and compares the two revisions.
  */
 import { describe, it, expect } from 'vitest';
-import type { Page } from 'playwright-core';
-import { sharedBrowser, newContext, signIn, screenshot } from './browser';
+import { sharedBrowser, newContext, signIn, screenshot, setFormulaLine } from './browser';
 import { DEMO_USERS } from '@/lib/seed/demo';
 
 const browser = sharedBrowser();
 
 const developer = DEMO_USERS.find((u) => u.role === 'developer')!;
-
-async function setLine(page: Page, n: number, ingredient: string, quantity: string, unit?: string) {
-  const picker = page.getByLabel(`Line ${n}: ingredient`);
-  // The picker builds its list as it takes focus, before it opens (components/formulas/editor/IngredientPicker.tsx).
-  await picker.focus();
-  const value = await picker.locator('option').filter({ hasText: new RegExp(`^${ingredient.replace(/[()]/g, '\\$&')} \\(`) }).first().getAttribute('value');
-  await picker.selectOption(value!);
-  await page.getByLabel(`Line ${n}: quantity`).fill(quantity);
-  if (unit) await page.getByLabel(`Line ${n}: unit`).selectOption(unit);
-}
 
 describe('the formula editor', () => {
   it('builds, saves, revises and compares a formula', async () => {
@@ -36,9 +25,9 @@ describe('the formula editor', () => {
     await page.getByLabel('Name').fill(name);
     await page.getByLabel('Target final soluble solids (%)').fill('65');
     await page.getByRole('button', { name: 'Add line' }).click();
-    await setLine(page, 1, 'Plum', '1000');
+    await setFormulaLine(page, 1, 'Plum', '1000');
     await page.getByRole('button', { name: 'Add line' }).click();
-    await setLine(page, 2, 'Sucrose (white sugar)', '800');
+    await setFormulaLine(page, 2, 'Sucrose (white sugar)', '800');
 
     // Source: mass balance (Practical Action technical brief "Jams, jellies and marmalade"):
     // solids = 1000 g × 14.3 % (plum, starter library) + 800 g × 100 % = 943 g; at 65 % → 1450.8 g.
@@ -46,7 +35,7 @@ describe('the formula editor', () => {
     await expect.poll(async () => (await finished.textContent())?.replace(/\s/g, '')).toMatch(/^1[,.]?45[01]/);
 
     await page.getByRole('button', { name: 'Add line' }).click();
-    await setLine(page, 3, 'Sucrose (white sugar)', '100');
+    await setFormulaLine(page, 3, 'Sucrose (white sugar)', '100');
     // 1043 g solids at 65 % → 1604.6 g: the panel follows the typing.
     await expect.poll(async () => (await finished.textContent())?.replace(/\s/g, '')).toMatch(/^1[,.]?60[45]/);
     await page.getByRole('button', { name: 'Remove line 3' }).click();

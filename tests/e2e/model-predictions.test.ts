@@ -9,7 +9,7 @@
  */
 import { describe, it, expect } from 'vitest';
 import type { Page } from 'playwright-core';
-import { sharedBrowser, signIn, screenshot, startWalk, WINDOWS } from './browser';
+import { sharedBrowser, signIn, screenshot, startWalk, WINDOWS, setFormulaLine } from './browser';
 import { DEMO_USERS } from '@/lib/seed/demo';
 
 const browser = sharedBrowser();
@@ -17,10 +17,7 @@ const developer = DEMO_USERS.find((u) => u.role === 'developer')!;
 
 async function addLine(page: Page, n: number, ingredient: string, quantity: string) {
   await page.getByRole('button', { name: 'Add line' }).click();
-  const picker = page.getByLabel(`Line ${n}: ingredient`);
-  const value = await picker.locator('option').filter({ hasText: new RegExp(`^${ingredient.replace(/[()]/g, '\\$&')} \\(`) }).first().getAttribute('value');
-  await picker.selectOption(value!);
-  await page.getByLabel(`Line ${n}: quantity`).fill(quantity);
+  await setFormulaLine(page, n, ingredient, quantity);
 }
 
 const number = (text: string, pattern: RegExp) => {
