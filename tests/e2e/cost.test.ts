@@ -100,7 +100,8 @@ describe.each(WINDOWS)('costs (%s)', (size, viewport) => {
     const { page } = walk;
     await signIn(page, developer.email);
     await page.goto(`${BASE_URL}/formulas`);
-    await page.getByRole('main').getByRole('link').filter({ hasText: /jam|spread|marmalade/i }).first().click();
+    // A demo formula by name: formulas other walks create have no pack format, and the list puts the newest first.
+    await page.getByRole('main').getByRole('link', { name: /Hedgerow strawberry jam/ }).first().click();
     const panel = page.getByTestId('formula-cost');
     await panel.waitFor();
     await expect(panel.getByTestId('cost-summary-per-jar').textContent()).resolves.toMatch(/GBP \d+\.\d{2}/);
