@@ -2,9 +2,11 @@ import 'server-only';
 /**
  * Reads for modelling: the data set of a product family (or of chosen trials), the fitted family
  * model, and the family of a formula. Every read is scoped to the caller's workspace; the callers
- * (pages, the API) have asked lib/permissions first. Nothing is stored: fitting on read is cheap.
+ * (pages, the API) have asked lib/permissions first. Nothing is stored in the database: a fit is
+ * made on read (the formula editor keeps its fits in memory, keyed by modelDataVersion()).
  */
 import { getEm } from '@/lib/db';
+import { sql } from '@/lib/sql';
 import { Formula, FormulaRevision, Cook, TastingAnswer, TastingSample, SensoryAttributeDef, Variant } from '@/entities';
 import { correctBrixTo20C } from '@/lib/chemistry';
 import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
@@ -133,7 +135,8 @@ export async function modelDataset(scope: Scope, selection: DatasetSelection): P
     ? await em.find(
         TastingAnswer,
         { ...inWorkspace(scope), kind: 'rating', sampleId: { $in: samples.map((s) => s.id) }, value: { $ne: null } },
-        { fields: ['sampleId', 'attribute', 'value'] },
+        // In a fixed order, so the same data always give the same fit to the last digit.
+        { fields: ['sampleId', 'attribute', 'value'], orderBy: { id: 'asc' } },
       )
     : [];
 
@@ -286,6 +289,28 @@ export async function listFamilies(scope: Scope): Promise<FamilySummary[]> {
       return rest;
     })
     .sort((a, b) => b.variants - a.variants || a.name.localeCompare(b.name));
+}
+
+/**
+ * A digest of everything a workspace's data sets are built from: its variants and trials, cooks,
+ * tasting samples (with their tasting's state), answers and attributes, row by row. Any change to a
+ * row changes it, so a fit kept under it is never stale. PostgreSQL computes it in one statement,
+ * far cheaper than reading the rows themselves.
+ */
+export async function modelDataVersion(scope: Scope): Promise<string> {
+  const [row] = await sql<{ version: string }>(
+    `select md5(concat_ws('/',
+       (select string_agg(md5(x::text), '' order by x.id) from variants x where x.workspace_id = $1),
+       (select string_agg(md5(x::text), '' order by x.id) from trials x where x.workspace_id = $1),
+       (select string_agg(md5(x::text), '' order by x.id) from measurements x where x.workspace_id = $1),
+       (select string_agg(md5(s::text || t.state), '' order by s.id) from panel_samples s join panel_sessions t on t.id = s.session_id where s.workspace_id = $1),
+       (select string_agg(md5(x::text), '' order by x.id) from panel_answers x where x.workspace_id = $1),
+       (select string_agg(md5(x::text), '' order by x.id) from sensory_attributes x where x.workspace_id = $1)
+     )) as version`,
+    [scope.workspaceId],
+    'model-data-version',
+  );
+  return row.version;
 }
 
 /** The family's data set, or 404 when the workspace has no cooked variant of it; optionally only some trials. */

@@ -1,0 +1,106 @@
+/**
+ * The formula editor's models are kept per workspace and refitted only when their data change
+ * (lib/modelling/editor-models.ts): a second load reuses the fit, and any change to a row the data
+ * set is built from (a cook recorded or withdrawn, an answer changed, a variant removed) gives a fit
+ * of the new data, equal to one made from scratch. Another workspace's changes leave the fit alone.
+ */
+import { describe, it, expect, beforeAll } from 'vitest';
+import { getEm } from '@/lib/db';
+import { sql } from '@/lib/sql';
+import { seedDemo, DEMO_USERS } from '@/lib/seed/demo';
+import { Formula, User, Variant } from '@/entities';
+import { editorModels } from '@/lib/modelling/editor-models';
+import { familyModel, familyOfFormula, modelDataset, modelDataVersion } from '@/lib/modelling/queries';
+import { recordCook, withdrawCook } from '@/lib/trials/mutations';
+import type { Actor } from '@/lib/permissions';
+import type { FamilyInfo, FamilyModel } from '@/lib/modelling/schema';
+
+let workspaceId: string;
+let otherWorkspaceId: string;
+let apricot: FamilyInfo;
+let developer: Actor;
+
+/** A model without the moment it was fitted, to compare fits of the same data. */
+const withoutTime = (models: FamilyModel[]) => models.map(({ fittedAt: _at, ...rest }) => (void _at, rest));
+
+beforeAll(async () => {
+  const report = await seedDemo((await getEm()).fork());
+  workspaceId = report.workspaceId;
+  otherWorkspaceId = report.otherWorkspaceId;
+  const em = (await getEm()).fork();
+  const formula = await em.findOneOrFail(Formula, { workspace: workspaceId, name: 'Apricot spread, reduced sugar' });
+  apricot = (await familyOfFormula({ workspaceId }, formula.id))!;
+  const person = DEMO_USERS.find((u) => u.role === 'developer')!;
+  const user = await em.findOneOrFail(User, { email: person.email });
+  developer = { userId: user.id, email: user.email, name: user.name, workspaceId, workspaceName: '', role: 'developer', via: 'session', massUnits: 'metric', temperatureUnit: 'C' };
+}, 600_000);
+
+/** A variant of the apricot family that is in its data set already (cooked and tasted). */
+async function apricotVariant() {
+  const { rows } = await modelDataset({ workspaceId }, { family: apricot });
+  return (await getEm()).fork().findOneOrFail(Variant, { workspace: workspaceId, id: rows[0].variantId }, { populate: ['trial'] });
+}
+
+describe('the editor’s models', () => {
+  it('are fitted once and reused while nothing changes', async () => {
+    const first = await editorModels(developer);
+    const second = await editorModels(developer);
+    expect(second).toBe(first);
+    expect(first.map((m) => m.family.slug)).toContain(apricot.slug);
+    // What is kept is the fit of today's data: the same as a fit from scratch.
+    expect(withoutTime(first.filter((m) => m.family.slug === apricot.slug))).toEqual(withoutTime([(await familyModel({ workspaceId }, apricot))!]));
+  });
+
+  it('are refitted after a cook is recorded, and again after it is withdrawn', async () => {
+    const before = await editorModels(developer);
+    const versionBefore = await modelDataVersion(developer);
+    const variant = await apricotVariant();
+    const { cookId } = await recordCook(developer, variant.trial.id, { variantId: variant.id, cookDate: '2026-11-30', brixReading: 47.5, ph: 3.4 });
+    const versionAfter = await modelDataVersion(developer);
+    expect(versionAfter).not.toBe(versionBefore);
+    const after = await editorModels(developer);
+    expect(after).not.toBe(before);
+    expect(withoutTime(after)).not.toEqual(withoutTime(before));
+    const apricotAfter = after.find((m) => m.family.slug === apricot.slug)!;
+    expect(withoutTime([apricotAfter])).toEqual(withoutTime([(await familyModel({ workspaceId }, apricot))!]));
+
+    await withdrawCook(developer, variant.trial.id, cookId, 'Recorded by the editor-models test.');
+    const withdrawn = await editorModels(developer);
+    expect(withdrawn).not.toBe(after);
+    // The withdrawn cook leaves the data: the fit is the one from before it was recorded.
+    expect(withoutTime(withdrawn)).toEqual(withoutTime(before));
+  });
+
+  it('are refitted when an answer is changed outside the application (the digest reads the rows themselves)', async () => {
+    const before = await editorModels(developer);
+    const [answer] = await sql<{ id: string; value: number }>(
+      `select a.id, a.value from panel_answers a join panel_samples s on s.id = a.sample_id where a.workspace_id = $1 and a.kind = 'rating' and a.value is not null and s.variant_id in (select id from variants where workspace_id = $1) order by a.id limit 1`,
+      [workspaceId],
+    );
+    await sql(`update panel_answers set value = $2 where id = $1`, [answer.id, answer.value + 0.5]);
+    try {
+      const after = await editorModels(developer);
+      expect(after).not.toBe(before);
+    } finally {
+      await sql(`update panel_answers set value = $2 where id = $1`, [answer.id, answer.value]);
+    }
+    const restored = await editorModels(developer);
+    expect(withoutTime(restored)).toEqual(withoutTime(before));
+  });
+
+  it('are left alone by another workspace’s changes', async () => {
+    const version = await modelDataVersion(developer);
+    const kept = await editorModels(developer);
+    const otherVersion = await modelDataVersion({ workspaceId: otherWorkspaceId });
+    // Every workspace starts with the sensory attribute library; rename one of the other's.
+    const [attribute] = await sql<{ id: string; name: string }>(`select id, name from sensory_attributes where workspace_id = $1 order by id limit 1`, [otherWorkspaceId]);
+    await sql(`update sensory_attributes set name = $2 where id = $1`, [attribute.id, `${attribute.name} (renamed)`]);
+    try {
+      expect(await modelDataVersion({ workspaceId: otherWorkspaceId })).not.toBe(otherVersion);
+      expect(await modelDataVersion(developer)).toBe(version);
+      expect(await editorModels(developer)).toBe(kept);
+    } finally {
+      await sql(`update sensory_attributes set name = $2 where id = $1`, [attribute.id, attribute.name]);
+    }
+  });
+});
