@@ -16,7 +16,7 @@ import { ScalePanel } from './ScalePanel';
 import { LiveLabel } from '@/components/label/LiveLabel';
 import { KeyResultsBar } from './editor/KeyResultsBar';
 import { PredictionPanel, PredictionSummary } from './PredictionPanel';
-import type { FamilyModel } from '@/lib/modelling/schema';
+import type { EditorFamilyModel } from '@/lib/modelling/schema';
 import { LineRow } from './editor/LineRow';
 import { UnitToggle } from './editor/UnitToggle';
 import { FormulaCostPanel } from '@/components/costs/FormulaCostPanel';
@@ -44,7 +44,7 @@ export interface FormulaEditorProps {
   /** Prices for the live cost; absent for roles that may not see prices. */
   cost?: { basis: EditorCostBasis; packFormatId: string | null };
   /** The workspace's fitted family models, for predictions while typing (none: no panel). */
-  models?: readonly FamilyModel[];
+  models?: readonly EditorFamilyModel[];
 }
 
 type SaveStatus =

@@ -2,7 +2,7 @@
 
 import { useMemo } from 'react';
 import type { FormulaSettingsInput } from '@/lib/formulas/schema';
-import type { FamilyModel } from '@/lib/modelling/schema';
+import type { EditorFamilyModel } from '@/lib/modelling/schema';
 import { predictForFormula, type EditorPrediction, type ResponsePredictionView } from '@/lib/modelling/editor-predictions';
 import type { FeatureLine } from '@/lib/modelling/features';
 import { Notice } from '@/components/ui/Notice';
@@ -15,7 +15,7 @@ const FIRST_SHOWN = ['overall-liking', 'set-firmness', 'tartness'];
 
 export interface PredictionInputs {
   /** The workspace's fitted family models (the page reads them once; nothing is fetched while typing). */
-  models: readonly FamilyModel[];
+  models: readonly EditorFamilyModel[];
   computed: EditorComputation;
   drafts: readonly LineDraft[];
   settings: FormulaSettingsInput;

@@ -3,7 +3,7 @@ import 'server-only';
  * The models the formula editor predicts from: every product family's default fit, read once with the
  * page so the editor predicts in the browser without a request per keystroke. The formula's family
  * can change while it is typed (another fruit, another product class), so all families come along;
- * a workspace has a handful.
+ * a workspace has a handful. Each is cut to what a prediction needs (editorModelOf).
  *
  * Reading every family's data set and fitting it costs far more than the rest of the page, and the
  * data change only with a cook, an answer or a revised variant. So the fits are kept per workspace
@@ -11,7 +11,8 @@ import 'server-only';
  * load after any change refits. Concurrent loads share one fit.
  */
 import { familyModel, listFamilies, modelDataVersion } from './queries';
-import type { FamilyModel } from './schema';
+import { editorModelOf } from './editor-predictions';
+import type { EditorFamilyModel, FamilyModel } from './schema';
 import type { Actor } from '@/lib/permissions';
 
 /** Families past this many are left out of the editor (the most-tried first). */
@@ -19,15 +20,15 @@ const MAX_EDITOR_FAMILIES = 6;
 /** Workspaces whose fits are kept; the least recently used goes first. */
 const KEPT_WORKSPACES = 100;
 
-const kept = new Map<string, { version: string; models: Promise<FamilyModel[]> }>();
+const kept = new Map<string, { version: string; models: Promise<EditorFamilyModel[]> }>();
 
-async function fitAll(actor: Pick<Actor, 'workspaceId'>): Promise<FamilyModel[]> {
+async function fitAll(actor: Pick<Actor, 'workspaceId'>): Promise<EditorFamilyModel[]> {
   const families = (await listFamilies(actor)).slice(0, MAX_EDITOR_FAMILIES);
   const models = await Promise.all(families.map((f) => familyModel(actor, f)));
-  return models.filter((m): m is FamilyModel => m !== null && m.responses.length > 0);
+  return models.filter((m): m is FamilyModel => m !== null && m.responses.length > 0).map(editorModelOf);
 }
 
-export async function editorModels(actor: Pick<Actor, 'workspaceId'>): Promise<FamilyModel[]> {
+export async function editorModels(actor: Pick<Actor, 'workspaceId'>): Promise<EditorFamilyModel[]> {
   const version = await modelDataVersion(actor);
   const entry = kept.get(actor.workspaceId);
   kept.delete(actor.workspaceId);

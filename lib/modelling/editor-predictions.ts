@@ -8,7 +8,7 @@ import type { BatchComputation } from '@/lib/chemistry';
 import type { FormulaSettingsInput } from '@/lib/formulas/schema';
 import { formulaFeatures, type FeatureLine } from './features';
 import { predictOne } from './predict';
-import type { FamilyInfo, FamilyModel, ModelFactor, ResponseModel } from './schema';
+import type { EditorFamilyModel, FamilyInfo, FamilyModel, ModelFactor, ResponseModel } from './schema';
 
 export type PredictedValue =
   | { inRegion: true; estimate: number; interval: { low: number; high: number } | null }
@@ -24,9 +24,21 @@ export type EditorPrediction =
   | { state: 'no_model'; family: FamilyInfo | null }
   | { state: 'ready'; family: FamilyInfo; factors: Partial<Record<ModelFactor, number>>; responses: ResponsePredictionView[]; outside: string | null };
 
+/** A fitted family model cut to what the editor predicts from (built field by field, so nothing else is sent). */
+export function editorModelOf(model: FamilyModel): EditorFamilyModel {
+  return {
+    family: model.family,
+    factors: model.factors,
+    responses: model.responses.map((r) => ({
+      key: r.key, name: r.name, unit: r.unit, decimals: r.decimals, newRunWeight: r.newRunWeight, scale: r.scale, libraryKey: r.libraryKey,
+      surface: { factors: r.surface.factors, coding: r.surface.coding, dataBox: r.surface.dataBox, terms: r.surface.terms, fit: { basis: r.surface.fit.basis } },
+    })),
+  };
+}
+
 /** The editor's predictions for a formula; `computation` is the editor's own chemistry result. */
 export function predictForFormula(
-  models: readonly FamilyModel[],
+  models: readonly EditorFamilyModel[],
   settings: FormulaSettingsInput,
   lines: readonly FeatureLine[],
   computation: BatchComputation,

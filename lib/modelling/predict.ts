@@ -7,8 +7,8 @@
  * lowest…highest value the trials covered (the box), or when the combination lies farther from the
  * runs than any run itself (the leverage rule).
  */
-import { checkRegion, predictResponse, type Interval, type ResponseSurface } from '@/lib/models';
-import { FACTOR_INFO, inFactorWords, type FactorValues, type FamilyModel, type ModelFactor, type ResponseKey, type ResponseModel } from './schema';
+import { checkRegion, predictResponse, type Interval, type PredictionSurface } from '@/lib/models';
+import { FACTOR_INFO, inFactorWords, type FactorValues, type FamilyModel, type ModelFactor, type PredictionModel, type ResponseKey } from './schema';
 
 export type ResponsePrediction =
   | { key: ResponseKey; name: string; unit: string; decimals: number; inRegion: true; estimate: number; confidence: Interval | null; prediction: Interval | null; leverage: number }
@@ -25,7 +25,7 @@ function isModelFactor(name: string): name is ModelFactor {
 }
 
 /** Why a point has no prediction, in words: which factor leaves the trials' range, or which rule refuses it. */
-export function outsideReason(surface: ResponseSurface, point: Readonly<Record<string, number>>): string | null {
+export function outsideReason(surface: PredictionSurface, point: Readonly<Record<string, number>>): string | null {
   const region = checkRegion(surface, point);
   if (region.inRegion) return null;
   if (region.leverage === null) return 'The trials so far cannot tell this model’s effects apart, so it predicts nothing yet; more varied trials are needed.';
@@ -42,14 +42,14 @@ export function outsideReason(surface: ResponseSurface, point: Readonly<Record<s
 }
 
 /** The estimate of a surface at a point inside the data; NaN outside it or without a surface (for constraints). */
-export function estimateAt(surface: ResponseSurface | null, point: Readonly<Record<string, number>>): number {
+export function estimateAt(surface: PredictionSurface | null, point: Readonly<Record<string, number>>): number {
   if (!surface) return Number.NaN;
   const check = checkRegion(surface, point);
   return check.inRegion ? check.estimate : Number.NaN;
 }
 
 /** One response at a natural point, with 95 % intervals (a new variant's panel mean for sensory responses), or the reason there is none. */
-export function predictOne(model: ResponseModel, point: Partial<FactorValues>): ResponsePrediction {
+export function predictOne(model: PredictionModel, point: Partial<FactorValues>): ResponsePrediction {
   const base = { key: model.key, name: model.name, unit: model.unit, decimals: model.decimals };
   const missing = model.surface.factors.find((f) => !Number.isFinite(point[f as ModelFactor]));
   if (missing) return { ...base, inRegion: false, reason: `${FACTOR_INFO[missing as ModelFactor].name} is not known for this formula.` };

@@ -293,8 +293,9 @@ export async function listFamilies(scope: Scope): Promise<FamilySummary[]> {
 
 /**
  * A digest of everything a workspace's data sets are built from: its variants and trials, cooks,
- * tasting samples (with their tasting's state), answers and attributes, row by row. Any change to a
- * row changes it, so a fit kept under it is never stale. PostgreSQL computes it in one statement,
+ * tasting samples (with their tasting's state), answers (the columns a data set reads: the rest of
+ * an answer row is the taster's bookkeeping) and attributes, row by row. Any change to what a data
+ * set reads changes it, so a fit kept under it is never stale. PostgreSQL computes it in one statement,
  * far cheaper than reading the rows themselves.
  */
 export async function modelDataVersion(scope: Scope): Promise<string> {
@@ -304,7 +305,7 @@ export async function modelDataVersion(scope: Scope): Promise<string> {
        (select string_agg(md5(x::text), '' order by x.id) from trials x where x.workspace_id = $1),
        (select string_agg(md5(x::text), '' order by x.id) from measurements x where x.workspace_id = $1),
        (select string_agg(md5(s::text || t.state), '' order by s.id) from panel_samples s join panel_sessions t on t.id = s.session_id where s.workspace_id = $1),
-       (select string_agg(md5(x::text), '' order by x.id) from panel_answers x where x.workspace_id = $1),
+       (select string_agg(md5(concat_ws('|', x.id, x.kind, x.sample_id, x.attribute, x.value)), '' order by x.id) from panel_answers x where x.workspace_id = $1),
        (select string_agg(md5(x::text), '' order by x.id) from sensory_attributes x where x.workspace_id = $1)
      )) as version`,
     [scope.workspaceId],

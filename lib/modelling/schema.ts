@@ -10,7 +10,7 @@
  * reduced-sugar spread of the same fruit do not (different pectin chemistry, different solids).
  */
 import { z } from 'zod';
-import type { ResponseSurface } from '@/lib/models';
+import type { PredictionSurface, ResponseSurface } from '@/lib/models';
 import { PRODUCT_CLASSES } from '@/lib/formulas/schema';
 import { boundedNumber, id } from '@/lib/input';
 
@@ -243,6 +243,21 @@ export interface FamilyModel {
   unfitted: UnfittedResponse[];
   /** ISO date-time. */
   fittedAt: string;
+}
+
+/** What predicting one response needs (a ResponseModel is one): predictOne() takes this. */
+export interface PredictionModel extends Pick<ResponseModel, 'key' | 'name' | 'unit' | 'decimals' | 'newRunWeight'> {
+  surface: PredictionSurface;
+}
+
+/**
+ * A family model as the formula editor receives it: per response only what a prediction and its
+ * label need, none of the per-run diagnostics (residuals, ANOVA, runs) the model page shows.
+ */
+export interface EditorFamilyModel {
+  family: FamilyInfo;
+  factors: ModelFactor[];
+  responses: Array<PredictionModel & Pick<ResponseModel, 'scale' | 'libraryKey'>>;
 }
 
 /* ---------- prediction and optimisation requests ---------- */

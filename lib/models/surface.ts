@@ -56,6 +56,13 @@ export interface ResponseSurface {
   codedRuns: number[][];
 }
 
+/**
+ * What a prediction reads of a surface: the coding, the data's box, the terms and the prediction
+ * basis. A fitted ResponseSurface is one; the formula editor ships only this much to the browser
+ * (the per-run diagnostics stay on the server).
+ */
+export type PredictionSurface = Pick<ResponseSurface, 'factors' | 'coding' | 'dataBox' | 'terms'> & { fit: Pick<RegressionFit, 'basis'> };
+
 export function fitResponseSurface(input: SurfaceInput): ResponseSurface {
   const factors = [...input.factors];
   if (input.runs.length === 0) throw new ModelSpecError('There are no runs to fit.');
@@ -96,7 +103,7 @@ function shortNumber(value: number): string {
   return String(Number(value.toPrecision(6)));
 }
 
-function boxViolation(surface: ResponseSurface, point: Readonly<Record<string, number>>): string | null {
+function boxViolation(surface: PredictionSurface, point: Readonly<Record<string, number>>): string | null {
   for (const range of surface.dataBox) {
     const value = point[range.name];
     const slack = BOX_TOLERANCE * (range.high - range.low);
@@ -108,7 +115,7 @@ function boxViolation(surface: ResponseSurface, point: Readonly<Record<string, n
 }
 
 /** Leverage of a natural point under the surface's fit. */
-export function leverageAt(surface: ResponseSurface, point: Readonly<Record<string, number>>): number {
+export function leverageAt(surface: PredictionSurface, point: Readonly<Record<string, number>>): number {
   return estimateRow(surface.fit.basis, designRow(surface.terms, codePoint(surface.coding, point))).leverage;
 }
 
@@ -121,8 +128,11 @@ export type RegionCheck =
   | { inRegion: true; estimate: number; leverage: number }
   | { inRegion: false; reason: string; leverage: number | null };
 
-/** The estimate at a natural point if it lies inside the data's region (see the module note), else the reason. */
-export function checkRegion(surface: ResponseSurface, point: Readonly<Record<string, number>>, rules: RegionRules = {}): RegionCheck {
+/**
+ * The estimate at a natural point if it lies inside the data's region (see the module note), else the
+ * reason. The hull rule needs the runs, so it takes a whole ResponseSurface.
+ */
+export function checkRegion(surface: PredictionSurface & Partial<Pick<ResponseSurface, 'codedRuns'>>, point: Readonly<Record<string, number>>, rules: RegionRules = {}): RegionCheck {
   if (surface.fit.basis.hasAliasedTerms) {
     return { inRegion: false, reason: 'The model has terms the data cannot separate; simplify the model or add runs first.', leverage: null };
   }
@@ -138,7 +148,8 @@ export function checkRegion(surface: ResponseSurface, point: Readonly<Record<str
       leverage,
     };
   }
-  if (rules.hull && !insideConvexHull(surface.codedRuns, coded)) {
+  if (rules.hull && !surface.codedRuns) throw new ModelSpecError('The convex-hull rule needs the surface’s runs.');
+  if (rules.hull && surface.codedRuns && !insideConvexHull(surface.codedRuns, coded)) {
     return { inRegion: false, reason: 'This combination lies outside the runs the model learned from (beyond their convex hull).', leverage };
   }
   return { inRegion: true, estimate, leverage };
@@ -150,7 +161,7 @@ export function checkRegion(surface: ResponseSurface, point: Readonly<Record<str
  * (its predictions depend on a choice the data cannot make).
  */
 export function predictResponse(
-  surface: ResponseSurface,
+  surface: PredictionSurface & Partial<Pick<ResponseSurface, 'codedRuns'>>,
   point: Readonly<Record<string, number>>,
   options: { level?: number; newRunWeight?: number } & RegionRules = {},
 ): SurfacePrediction {

@@ -1,6 +1,8 @@
 import { describe, expect, it } from 'vitest';
 import { fitResponseSurface, leverageAt } from '@/lib/models';
-import { outsideReason } from '@/lib/modelling/predict';
+import { outsideReason, predictOne } from '@/lib/modelling/predict';
+import { editorModelOf } from '@/lib/modelling/editor-predictions';
+import { MODEL, centre } from './fixtures';
 
 // Runs along a diagonal band: sugar ratio and pectin rose together in the trials.
 const band = [
@@ -30,5 +32,33 @@ describe('why the editor withdraws a prediction, in words', () => {
     const point = { sugarRatio: 0.3, pectinPct: 0.8 };
     expect(leverageAt(surface, point)).toBeGreaterThan(surface.fit.basis.maxLeverage);
     expect(outsideReason(surface, point)).toMatch(/^Each factor is within what the trials covered, but not in this combination: .*\(leverage test\)/);
+  });
+});
+
+describe('the editor’s cut of a family model (editorModelOf)', () => {
+  // Invented runs around a reduced-sugar apricot base (tests/unit/modelling/fixtures.ts).
+  const slim = JSON.parse(JSON.stringify(editorModelOf(MODEL))) as ReturnType<typeof editorModelOf>;
+  const points = [
+    centre,
+    { ...centre, sugarRatio: centre.sugarRatio * 1.1, pectinPct: centre.pectinPct * 0.9 },
+    { ...centre, acidPct: centre.acidPct * 1.5 },
+    { ...centre, sugarRatio: centre.sugarRatio * 1.15, pectinPct: centre.pectinPct * 0.85, targetSolidsPct: centre.targetSolidsPct * 1.15, acidPct: centre.acidPct * 0.85 },
+  ];
+
+  it('predicts exactly as the whole model, after the trip to the browser as JSON, inside and outside the data', () => {
+    for (const point of points) {
+      MODEL.responses.forEach((full, i) => expect(predictOne(slim.responses[i], point)).toEqual(predictOne(full, point)));
+    }
+    // The points cover both outcomes, so both paths were compared.
+    const outcomes = points.map((p) => predictOne(slim.responses[0], p).inRegion);
+    expect(outcomes).toContain(true);
+    expect(outcomes).toContain(false);
+  });
+
+  it('leaves out the per-run diagnostics and the fitting time, and keeps the labels', () => {
+    const sent = JSON.stringify(slim);
+    for (const field of ['residuals', 'leverages', 'fitted', 'codedRuns', 'anova', 'lackOfFit', 'fittedAt', 'weighting']) expect(sent).not.toContain(`"${field}"`);
+    expect(sent.length).toBeLessThan(JSON.stringify(MODEL).length / 2);
+    expect(slim.responses.map((r) => [r.name, r.libraryKey, r.scale])).toEqual(MODEL.responses.map((r) => [r.name, r.libraryKey, r.scale]));
   });
 });
