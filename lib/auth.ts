@@ -10,6 +10,7 @@ import Credentials from 'next-auth/providers/credentials';
 import { decode } from 'next-auth/jwt';
 import { z } from 'zod';
 import { getEm } from '@/lib/db';
+import { sql } from '@/lib/sql';
 import { env } from '@/lib/env';
 import { Membership, User, ApiToken } from '@/entities';
 import { verifyPassword } from '@/lib/passwords';
@@ -139,41 +140,62 @@ async function sessionFromCookies(cookieHeader: string | null | undefined): Prom
   return null;
 }
 
-/**
- * The actor, read fresh: role, deactivation and (for a session) the session epoch are checked on
- * every request, so a role change, a deactivation, a password reset or "sign out everywhere"
- * takes effect at once.
- */
-async function actorFor(userId: string, preferredWorkspaceId: string | undefined, via: Actor['via'], sessionEpoch?: number): Promise<Actor | null> {
-  const em = await getEm();
-  const user = await em.findOne(User, { id: userId });
-  if (!user) return null;
-  if (sessionEpoch !== undefined && sessionEpoch !== user.sessionEpoch) return null;
-  const memberships = await em.find(
-    Membership,
-    { user: userId, active: true },
-    { populate: ['workspace'], orderBy: { createdAt: 'asc' } },
-  );
-  const chosen = memberships.find((m) => m.workspace.id === preferredWorkspaceId) ?? memberships[0];
-  if (!chosen) return null;
-  return {
-    userId: user.id,
-    email: user.email,
-    name: user.name,
-    workspaceId: chosen.workspace.id,
-    workspaceName: chosen.workspace.name,
-    role: chosen.role,
-    via,
-    massUnits: user.massUnits,
-    temperatureUnit: user.temperatureUnit,
-  };
+/** A workspace the signed-in person belongs to, for the workspace switcher. */
+export interface MyWorkspace {
+  workspaceId: string;
+  name: string;
+  role: Actor['role'];
+}
+
+interface SignedIn {
+  actor: Actor;
+  /** Every active membership, oldest first. */
+  workspaces: MyWorkspace[];
 }
 
 /**
- * The actor behind a request: a personal API token (Authorization: Bearer swt_…) or the
- * session cookie plus the chosen-workspace cookie. Null when neither is valid.
+ * The actor, read fresh: role, deactivation and (for a session) the session epoch are checked on
+ * every request, so a role change, a deactivation, a password reset or "sign out everywhere"
+ * takes effect at once. One plain statement (user and active memberships together): every page and
+ * request pays for it, and the ORM's per-entity work showed there.
  */
-export async function actorFromHeaders(headers: Headers): Promise<Actor | null> {
+async function readSignedIn(userId: string, preferredWorkspaceId: string | undefined, via: Actor['via'], sessionEpoch?: number): Promise<SignedIn | null> {
+  const rows = await sql<{
+    email: string; name: string; session_epoch: number; mass_units: Actor['massUnits']; temperature_unit: Actor['temperatureUnit'];
+    role: Actor['role'] | null; workspace_id: string | null; workspace_name: string | null;
+  }>(
+    `select u.email, u.name, u.session_epoch, u.mass_units, u.temperature_unit, m.role, w.id as workspace_id, w.name as workspace_name
+       from users u
+       left join memberships m on m.user_id = u.id and m.active
+       left join workspaces w on w.id = m.workspace_id
+      where u.id = $1
+      order by m.created_at asc, m.id asc`,
+    [userId],
+    'signed-in-actor',
+  );
+  const user = rows[0];
+  if (!user) return null;
+  if (sessionEpoch !== undefined && sessionEpoch !== user.session_epoch) return null;
+  const workspaces: MyWorkspace[] = rows.flatMap((r) => (r.workspace_id && r.workspace_name && r.role ? [{ workspaceId: r.workspace_id, name: r.workspace_name, role: r.role }] : []));
+  const chosen = workspaces.find((w) => w.workspaceId === preferredWorkspaceId) ?? workspaces[0];
+  if (!chosen) return null;
+  return {
+    actor: {
+      userId,
+      email: user.email,
+      name: user.name,
+      workspaceId: chosen.workspaceId,
+      workspaceName: chosen.name,
+      role: chosen.role,
+      via,
+      massUnits: user.mass_units,
+      temperatureUnit: user.temperature_unit,
+    },
+    workspaces,
+  };
+}
+
+async function signedInFromHeaders(headers: Headers): Promise<SignedIn | null> {
   const authz = headers.get('authorization');
   if (authz?.startsWith('Bearer ')) {
     const secret = authz.slice(7).trim();
@@ -182,24 +204,38 @@ export async function actorFromHeaders(headers: Headers): Promise<Actor | null> 
     const token = await em.findOne(ApiToken, { tokenHash: hashSecret(secret), revokedAt: null });
     if (!token) return null;
     const workspaceId = token.workspace.id;
-    const actor = await actorFor(token.user.id, workspaceId, 'token');
+    const signedIn = await readSignedIn(token.user.id, workspaceId, 'token');
     // A token only ever acts in its own workspace.
-    if (!actor || actor.workspaceId !== workspaceId) return null;
+    if (!signedIn || signedIn.actor.workspaceId !== workspaceId) return null;
     await em.nativeUpdate(ApiToken, { id: token.id }, { lastUsedAt: new Date() });
-    return actor;
+    return signedIn;
   }
   const cookieHeader = headers.get('cookie');
   const claim = await sessionFromCookies(cookieHeader);
   if (!claim) return null;
-  return actorFor(claim.userId, readCookie(cookieHeader, WORKSPACE_COOKIE), 'session', claim.epoch);
+  return readSignedIn(claim.userId, readCookie(cookieHeader, WORKSPACE_COOKIE), 'session', claim.epoch);
 }
 
 /**
- * The actor in a server component or server action, from the incoming request's headers. Once per
- * rendered request (React `cache`): the layout and the page both ask, and each read decodes the
- * session cookie and queries the user and memberships (~12 ms). Outside a render it reads every time.
+ * The actor behind a request: a personal API token (Authorization: Bearer swt_…) or the
+ * session cookie plus the chosen-workspace cookie. Null when neither is valid.
  */
-export const currentActor = cache(async (): Promise<Actor | null> => {
+export async function actorFromHeaders(headers: Headers): Promise<Actor | null> {
+  return (await signedInFromHeaders(headers))?.actor ?? null;
+}
+
+/**
+ * The signed-in person of a server component or server action, from the incoming request's
+ * headers. Once per rendered request (React `cache`): the layout and the page both ask, and each
+ * read decodes the session cookie and queries the user and memberships. Outside a render it reads
+ * every time.
+ */
+const currentSignedIn = cache(async (): Promise<SignedIn | null> => {
   const { headers } = await import('next/headers');
-  return actorFromHeaders(new Headers(await headers()));
+  return signedInFromHeaders(new Headers(await headers()));
 });
+
+export const currentActor = cache(async (): Promise<Actor | null> => (await currentSignedIn())?.actor ?? null);
+
+/** The current person's workspaces, from the same read as currentActor() (the layout's switcher). */
+export const currentWorkspaces = cache(async (): Promise<MyWorkspace[]> => (await currentSignedIn())?.workspaces ?? []);
