@@ -338,7 +338,8 @@ export type ExportQuery = z.infer<typeof exportQuerySchema>;
 
 /** Reads the export query from a URL's search parameters (the same key may repeat for trials). */
 export function readExportQuery(params: URLSearchParams): z.ZodSafeParseResult<ExportQuery> {
-  const raw: Record<string, unknown> = {};
+  // No prototype: a "__proto__" key is an own (unknown) key the strict schema refuses, not a prototype set.
+  const raw: Record<string, unknown> = Object.create(null);
   for (const key of new Set(params.keys())) raw[key] = key === 'trials' ? params.getAll(key) : params.get(key);
   return exportQuerySchema.safeParse(raw);
 }
