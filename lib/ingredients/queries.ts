@@ -16,7 +16,7 @@ type Row = IngredientEntity;
 const OPTIONAL_KEYS = ['phMin', 'phMax', 'acidPct', 'pectinLevel', 'euFruitGroup', 'usFruitGroup', 'pectinType', 'pectinGrade', 'sweetenerType', 'acidType'] as const;
 
 /** The composition fields of a library row, a view of one, or an ingredient sent with a request; a value nobody gave is null or absent. */
-export type CompositionFields = Pick<IngredientComposition, 'kind' | 'name' | 'solidsPct'>
+export type CompositionSource = Pick<IngredientComposition, 'kind' | 'name' | 'solidsPct'>
   & { [K in (typeof OPTIONAL_KEYS)[number]]?: IngredientComposition[K] | null }
   & { calciumSource?: boolean | null };
 
@@ -26,7 +26,7 @@ export type CompositionFields = Pick<IngredientComposition, 'kind' | 'name' | 's
  * row's own columns): a view's or a request's fields alone do not carry it, and a line stored
  * without it would estimate water activity from the ingredient kinds.
  */
-export function compositionOf(fields: CompositionFields, sugars: SugarValues): IngredientComposition {
+export function compositionOf(fields: CompositionSource, sugars: SugarValues): IngredientComposition {
   const c: IngredientComposition = { kind: fields.kind, name: fields.name, solidsPct: fields.solidsPct };
   Object.assign(c, Object.fromEntries(OPTIONAL_KEYS.filter((key) => fields[key] != null).map((key) => [key, fields[key]])));
   if (fields.calciumSource) c.calciumSource = true;
