@@ -8,7 +8,7 @@ import { inputClass } from '@/components/ui/Field';
 import { useFormAction } from '@/components/ui/useFormAction';
 import { createProposalTrialAction } from '@/lib/trials/actions';
 import { FACTOR_INFO, type FamilyModel, type ModelFactor } from '@/lib/modelling/schema';
-import { costPerJarProblem, describePoint, pointsAround, proposalCosting, proposeFormulas, type FruitMinimum, type ProposalBase, type ProposalOutcome, type ProposalRequest } from '@/lib/modelling/proposals';
+import { costPerJarProblem, describePoint, pointsAround, proposalCosting, proposeFormulas, type FruitMinimum, type PointsAround, type ProposalBase, type ProposalOutcome, type ProposalRequest } from '@/lib/modelling/proposals';
 import { formatCost } from '@/lib/costing';
 import type { EditorCostBasis } from '@/lib/costs/schema';
 import { defaultDraft, GOAL_KIND_LABELS, readProposalDraft, type GoalDraft, type GoalKind, type ProposalDraft } from './proposal-draft';
@@ -51,7 +51,7 @@ export function ProposalForm({ model, base, formulaId, formulaName, fruitMinimum
   const router = useRouter();
   const [draft, setDraft] = useState<ProposalDraft>(() => defaultDraft(model, fruitMinimum?.value ?? null));
   const [errors, setErrors] = useState<Record<string, string>>({});
-  const [result, setResult] = useState<{ outcome: ProposalOutcome; request: ProposalRequest } | null>(null);
+  const [result, setResult] = useState<{ outcome: ProposalOutcome; request: ProposalRequest; around: PointsAround[] } | null>(null);
   const [searchError, setSearchError] = useState<string>();
   const { pending, error: trialError, fields: trialFields, run } = useFormAction(createProposalTrialAction);
 
@@ -67,7 +67,11 @@ export function ProposalForm({ model, base, formulaId, formulaName, fruitMinimum
     }
     setErrors({});
     try {
-      setResult({ outcome: proposeFormulas(model, base, read.request, costing), request: read.request });
+      const outcome = proposeFormulas(model, base, read.request, costing);
+      // The trial's points around each proposal, held to the cost ceiling as the proposal is.
+      const ceiling = costing && read.request.costCeilingPerJarMinor !== undefined ? { costing, perJarMinor: read.request.costCeilingPerJarMinor } : undefined;
+      const around = outcome.proposals.map((p) => pointsAround(model, base, p.point, read.request.factors, { ceiling }));
+      setResult({ outcome, request: read.request, around });
     } catch (err) {
       setResult(null);
       setSearchError(err instanceof Error ? err.message : 'The search failed.');
@@ -77,7 +81,7 @@ export function ProposalForm({ model, base, formulaId, formulaName, fruitMinimum
   async function makeTrial(index: number) {
     if (!result) return;
     const proposal = result.outcome.proposals[index];
-    const around = pointsAround(model, base, proposal.point, result.request.factors);
+    const around = result.around[index].points;
     const res = await run({
       formulaId,
       title: `Proposal for ${formulaName}`.slice(0, 160),
@@ -198,6 +202,11 @@ export function ProposalForm({ model, base, formulaId, formulaName, fruitMinimum
                   </li>
                 ))}
               </ul>
+              {canCreateTrial && result.around[i].overCeiling > 0 ? (
+                <p className="mt-3 text-xs text-rind-600" data-testid="around-over-ceiling">
+                  {result.around[i].overCeiling === 1 ? '1 point' : `${result.around[i].overCeiling} points`} around this proposal cost more per jar than the ceiling and are left out of its trial.
+                </p>
+              ) : null}
               {canCreateTrial ? (
                 <Button className="mt-4" type="button" disabled={pending} onClick={() => void makeTrial(i)}>
                   {pending ? 'Creating the trial…' : 'Make a trial of this proposal'}
@@ -206,7 +215,7 @@ export function ProposalForm({ model, base, formulaId, formulaName, fruitMinimum
             </article>
           ))}
           {trialError ? <Notice tone="danger">{trialError} {Object.values(trialFields).flat().join(' ')}</Notice> : null}
-          <p className="text-xs text-rind-500">The trial gets the base formula as variant A, the proposal as B and up to four points around it (one factor a tenth of its range down or up), each inside what the trials covered.</p>
+          <p className="text-xs text-rind-500">The trial gets the base formula as variant A, the proposal as B and up to four points around it (one factor a tenth of its range down or up), each inside what the trials covered and, with a cost ceiling, at or under it.</p>
         </section>
       ) : null}
     </div>

@@ -6,11 +6,8 @@
 import { readDecimal } from '@/lib/format/numbers';
 import type { Goal } from '@/lib/models';
 import { FACTOR_INFO, type FamilyModel, type ModelFactor, type ResponseModel } from '@/lib/modelling/schema';
-import type { ProposalRequest } from '@/lib/modelling/proposals';
+import { COST_CEILING_TOO_HIGH, MAX_COST_CEILING_PER_JAR, type ProposalRequest } from '@/lib/modelling/proposals';
 import { minorDigits } from '@/lib/pricing/money';
-
-/** Far above any jar's cost; keeps the minor units a safe integer. */
-const MAX_COST_CEILING = 1_000_000;
 
 export type GoalKind = 'none' | 'maximise' | 'minimise' | 'target' | 'band';
 
@@ -156,7 +153,7 @@ export function readProposalDraft(model: FamilyModel, draft: ProposalDraft, curr
     const ceiling = number('costCeiling', draft.costCeiling, 'Cost ceiling per jar');
     if (!currency) errors.costCeiling = 'A cost ceiling needs the workspace currency: an administrator sets it, then enters prices.';
     else if (!(ceiling > 0)) errors.costCeiling ??= 'The cost ceiling per jar must be above 0.';
-    else if (ceiling > MAX_COST_CEILING) errors.costCeiling = 'The cost ceiling per jar must be at most 1,000,000.';
+    else if (ceiling > MAX_COST_CEILING_PER_JAR) errors.costCeiling = COST_CEILING_TOO_HIGH;
     else costCeilingPerJarMinor = ceiling * 10 ** minorDigits(currency);
   }
   if (Object.keys(errors).length) return { ok: false, errors };

@@ -5,7 +5,7 @@ import { getEm } from '@/lib/db';
 import { Formula, FormulaRevision, User } from '@/entities';
 import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
 import { Conflict, ValidationFailed, type FieldErrors } from '@/lib/errors';
-import { compositionOf, ingredientsByIds } from '@/lib/ingredients/queries';
+import { compositionOfView, ingredientsByIds } from '@/lib/ingredients/queries';
 import { chemistryFieldPath, computeFormula, normaliseQuantity } from './compute';
 import type { CreateFormulaInput, FormulaLineInputData, FormulaSettingsInput, ReviseFormulaInput, RevisionLine } from './schema';
 
@@ -24,7 +24,7 @@ export async function prepareRevision(actor: Actor, settings: FormulaSettingsInp
     } else if (ingredient.archived) {
       fields[`lines.${i}.ingredientId`] = [`${ingredient.name} is archived; restore it or pick another ingredient.`];
     } else {
-      stored.push({ ingredientId: line.ingredientId, ingredient: compositionOf(ingredient), ...normaliseQuantity(line.quantity, line.unit) });
+      stored.push({ ingredientId: line.ingredientId, ingredient: compositionOfView(ingredient), ...normaliseQuantity(line.quantity, line.unit) });
     }
   });
   if (Object.keys(fields).length) throw new ValidationFailed('Some lines are not valid.', fields);

@@ -8,29 +8,36 @@ import type { IngredientComposition } from '@/lib/chemistry';
 import { NUTRIENT_KEYS, type NutrientKey, type NutrientValues } from '@/lib/label/types';
 import type { IngredientListQuery, IngredientView } from './schema';
 import type { IngredientLabelFields } from './label-data';
+import { fullSugarProfile, type SugarValues } from '@/lib/label/water-activity';
 
 /** A library row as the views read it; `updatedBy` is populated where the name is shown. */
 type Row = IngredientEntity;
 
 const OPTIONAL_KEYS = ['phMin', 'phMax', 'acidPct', 'pectinLevel', 'euFruitGroup', 'usFruitGroup', 'pectinType', 'pectinGrade', 'sweetenerType', 'acidType'] as const;
 
-/**
- * What a composition is read from: a library row, or a view of one. A value nobody gave is null or
- * absent; the three sugars come from the row's label columns.
- */
+/** The composition fields of a library row, a view of one, or an ingredient sent with a request; a value nobody gave is null or absent. */
 export type CompositionSource = Pick<IngredientComposition, 'kind' | 'name' | 'solidsPct'>
   & { [K in (typeof OPTIONAL_KEYS)[number]]?: IngredientComposition[K] | null }
-  & { calciumSource?: boolean | null } & Partial<Record<'sucroseG' | 'glucoseG' | 'fructoseG', number | null>>;
+  & { calciumSource?: boolean | null };
 
-/** The composition the chemistry module reads, without nulls or library bookkeeping. */
-export function compositionOf(row: CompositionSource): IngredientComposition {
-  const c: IngredientComposition = { kind: row.kind, name: row.name, solidsPct: row.solidsPct };
-  Object.assign(c, Object.fromEntries(OPTIONAL_KEYS.filter((key) => row[key] != null).map((key) => [key, row[key]])));
-  if (row.calciumSource) c.calciumSource = true;
-  // Only a full profile is passed on: a sugar the library does not know is never taken as zero.
-  const { sucroseG, glucoseG, fructoseG } = row;
-  if (typeof sucroseG === 'number' && typeof glucoseG === 'number' && typeof fructoseG === 'number') c.sugars = { sucroseG, glucoseG, fructoseG };
+/**
+ * The composition the chemistry module reads, without nulls or library bookkeeping. The sugar
+ * profile is a required argument, always the ingredient's label data (`labelData.nutrients`, or a
+ * row's own columns): a view's or a request's fields alone do not carry it, and a line stored
+ * without it would estimate water activity from the ingredient kinds.
+ */
+export function compositionOf(fields: CompositionSource, sugars: SugarValues): IngredientComposition {
+  const c: IngredientComposition = { kind: fields.kind, name: fields.name, solidsPct: fields.solidsPct };
+  Object.assign(c, Object.fromEntries(OPTIONAL_KEYS.filter((key) => fields[key] != null).map((key) => [key, fields[key]])));
+  if (fields.calciumSource) c.calciumSource = true;
+  const profile = fullSugarProfile(sugars);
+  if (profile) c.sugars = profile;
   return c;
+}
+
+/** A library ingredient as a formula line stores it: its composition with the sugars of its label data. */
+export function compositionOfView(view: IngredientView): IngredientComposition {
+  return compositionOf(view, view.labelData.nutrients);
 }
 
 /** The label columns of a library row: one per nutrient, the allergen lists, the additive's two. */
@@ -55,13 +62,14 @@ export function labelDataOf(row: LabelColumns): IngredientLabelFields {
 }
 
 export function toIngredientView(row: Row): IngredientView {
+  const labelData = labelDataOf(row);
   return {
-    ...compositionOf(row),
+    ...compositionOf(row, labelData.nutrients),
     id: row.id,
     origin: row.origin,
     source: row.source ?? null,
     notes: row.notes ?? null,
-    labelData: labelDataOf(row),
+    labelData,
     archived: !!row.archivedAt,
     updatedAt: row.updatedAt.toISOString(),
     updatedByName: row.updatedBy?.name ?? null,

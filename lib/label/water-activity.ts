@@ -6,13 +6,23 @@ import { ChemistryInputError } from '@/lib/chemistry/errors';
 import { estimateWaterActivityFromSugars } from '@/lib/chemistry/water-activity';
 import type { ResolvedLine } from '@/lib/chemistry/mass-balance';
 import type { SugarMixEstimate, SugarMixOptions, SugarProfile, SugarProfileLine } from '@/lib/chemistry/water-activity';
-import type { IngredientLabelData, LabelLine } from './types';
+import type { IngredientLabelData, LabelLine, NutrientValues } from './types';
+
+/** The three sugars as an ingredient's label data holds them, g per 100 g; null is not known. */
+export type SugarValues = Pick<NutrientValues, 'sucroseG' | 'glucoseG' | 'fructoseG'>;
+
+/**
+ * The one reading of a sugar profile, for the label and for the stored formula lines alike: all
+ * three sugars, or null unless all three are known (an unknown sugar is never taken as zero).
+ */
+export function fullSugarProfile({ sucroseG, glucoseG, fructoseG }: SugarValues): { sucroseG: number; glucoseG: number; fructoseG: number } | null {
+  if (sucroseG === null || glucoseG === null || fructoseG === null) return null;
+  return { sucroseG, glucoseG, fructoseG };
+}
 
 /** The ingredient's sugar profile, or null unless all three sugars are known (unknown is never zero). */
 export function sugarProfileOf(ingredient: IngredientLabelData): SugarProfile | null {
-  const { sucroseG, glucoseG, fructoseG } = ingredient.nutrients;
-  if (sucroseG === null || glucoseG === null || fructoseG === null) return null;
-  return { sucroseG, glucoseG, fructoseG };
+  return fullSugarProfile(ingredient.nutrients);
 }
 
 /**

@@ -35,6 +35,21 @@ export interface SearchSources {
   withoutPhModel: 'refuse' | 'note';
 }
 
+/** What a base formula gives a search (proposals.ts baseFormulaSources): exact fruit content, "can be made", and a cost ceiling when asked. */
+export interface BaseSources {
+  fruitPer1000g: (point: Readonly<Record<string, number>>) => number;
+  constraints: Constraint[];
+  /** Present when the search holds a cost ceiling per jar. */
+  cost?: {
+    currency: string;
+    asOf: string;
+    packFormat: string;
+    ceilingPerJarMinor: number;
+    /** The complete cost per jar at a point, in minor units; null where it is not known. */
+    perJarAt: (point: Readonly<Record<string, number>>) => number | null;
+  };
+}
+
 export interface FamilySearch {
   result: OptimiseResult;
   /** The response model of each goal, in the goals' order. */
@@ -99,6 +114,8 @@ export interface FamilyProposal {
   point: Partial<FactorValues>;
   /** Fruit per 1000 g of finished product at the point (base formula's mass balance, else the fruit-content surface), when known. */
   fruitPer1000g: number | null;
+  /** With a cost ceiling: the base formula's cost per jar at the point, in minor units (at most the ceiling). */
+  costPerJarMinor?: number | null;
   desirability: number;
   /** Every modelled response at the point, goals first. */
   responses: ResponsePrediction[];
@@ -108,29 +125,39 @@ export interface FamilyOptimum {
   proposals: FamilyProposal[];
   searchBox: Array<{ name: ModelFactor; low: number; high: number }>;
   message: string | null;
+  /** With a cost ceiling: what the costs are in and of (the day's prices, the base formula's pack format). */
+  cost?: { currency: string; asOf: string; packFormat: string; ceilingPerJarMinor: number };
 }
 
 /**
  * POST /api/v1/models/{family}/optimise. With a base formula (`fromBase`, proposals.ts
  * baseFormulaSources) the fruit minimum holds on its exact mass balance, as on the Propose screen;
- * without one, on the family's fitted fruit-content surface.
+ * without one, on the family's fitted fruit-content surface. A cost ceiling per jar is the base
+ * formula's cost (with its pack format), so it needs one: refused (422) without.
  */
-export function optimiseFamily(model: FamilyModel, request: OptimiseRequest, fromBase?: Pick<SearchSources, 'fruitPer1000g' | 'constraints'>): FamilyOptimum {
+export function optimiseFamily(model: FamilyModel, request: OptimiseRequest, fromBase?: BaseSources): FamilyOptimum {
+  if (request.constraints?.costCeilingPerJarMinor !== undefined && !fromBase?.cost) {
+    refuse('constraints.costCeilingPerJarMinor', 'A cost ceiling per jar needs a base formula (baseFormulaId): the cost is that formula’s, with its pack format, moved to each point.');
+  }
   const fruitOf = fromBase ? fromBase.fruitPer1000g : model.fruitContent ? (p: Readonly<Record<string, number>>) => estimateAt(model.fruitContent, p) : null;
   const { result } = searchFamily(
     model,
     { factors: request.factors, goals: request.goals, fruitMinimumPer1000g: request.constraints?.fruitMinimumPer1000g, ph: request.constraints?.ph, proposals: request.proposals },
     { fruitPer1000g: fruitOf, constraints: fromBase?.constraints, withoutPhModel: 'refuse' },
   );
+  const cost = fromBase?.cost;
   const goalKeys = request.goals.map((g) => g.response);
   const ordered = [...model.responses].sort((a, b) => Number(goalKeys.includes(b.key)) - Number(goalKeys.includes(a.key)));
   return {
     proposals: result.proposals.map((p) => {
       const point = p.point as Partial<FactorValues>;
       const fruit = fruitOf ? fruitOf(p.point) : Number.NaN;
-      return { point, fruitPer1000g: Number.isFinite(fruit) ? fruit : null, desirability: p.desirability, responses: ordered.map((r) => predictOne(r, point)) };
+      const proposal: FamilyProposal = { point, fruitPer1000g: Number.isFinite(fruit) ? fruit : null, desirability: p.desirability, responses: ordered.map((r) => predictOne(r, point)) };
+      if (cost) proposal.costPerJarMinor = cost.perJarAt(p.point);
+      return proposal;
     }),
     searchBox: result.searchBox.map((r) => ({ name: r.name as ModelFactor, low: r.low, high: r.high })),
     message: result.message,
+    ...(cost ? { cost: { currency: cost.currency, asOf: cost.asOf, packFormat: cost.packFormat, ceilingPerJarMinor: cost.ceilingPerJarMinor } } : {}),
   };
 }

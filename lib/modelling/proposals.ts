@@ -15,7 +15,8 @@ import { ValidationFailed } from '@/lib/errors';
 import { costComputation, historiesBy, type FormulaCostOutcome, type FormulaPrices } from '@/lib/costing';
 import type { EditorCostBasis } from '@/lib/costs/schema';
 import { predictResponse, windowConstraint, type Constraint, type Interval } from '@/lib/models';
-import { searchFamily, type SearchRequest } from './optimise';
+import { minorDigits } from '@/lib/pricing/money';
+import { searchFamily, type BaseSources, type SearchRequest } from './optimise';
 import { predictOne } from './predict';
 import { FACTOR_INFO, type FamilyModel, type ModelFactor, type ResponseKey } from './schema';
 
@@ -193,6 +194,19 @@ function knownCostPerJar(outcome: FormulaCostOutcome): number | null {
   return outcome.ok && outcome.cost.complete && outcome.cost.perJar?.complete ? outcome.cost.perJar.minor : null;
 }
 
+/** The complete cost per jar of the base formula moved to a point, in minor units; null where it is not known. */
+export function costPerJarAt(base: ProposalBase, point: Partial<Record<ModelFactor, number>>, costing: ProposalCosting, solver?: PointSolver): number | null {
+  return knownCostPerJar(costAtPoint(base, point, costing, solver));
+}
+
+/** The highest cost ceiling per jar, in the currency's major units: far above any jar's cost, and its minor units a safe integer. */
+export const MAX_COST_CEILING_PER_JAR = 1_000_000;
+
+export const COST_CEILING_TOO_HIGH = 'The cost ceiling per jar must be at most 1,000,000.';
+
+/** The field a refused ceiling is named by, on the screen and in the optimise API alike. */
+export const COST_CEILING_FIELD = 'constraints.costCeilingPerJarMinor';
+
 /**
  * Why the formula has no known cost per jar, naming what is missing (the currency, the pack format,
  * the lines without a price on the day); null when it has one. Every point keeps the base formula's
@@ -208,7 +222,7 @@ export function costPerJarProblem(base: ProposalBase, costing: ProposalCosting):
 }
 
 function refuseCeiling(message: string): never {
-  throw new ValidationFailed(message, { costCeilingPerJarMinor: [message] });
+  throw new ValidationFailed(message, { [COST_CEILING_FIELD]: [message] });
 }
 
 /**
@@ -221,6 +235,7 @@ export function costCeilingConstraint(base: ProposalBase, costing: ProposalCosti
   if (!(Number.isFinite(ceilingMinor) && ceilingMinor > 0)) refuseCeiling('The cost ceiling per jar must be a positive amount.');
   const problem = costPerJarProblem(base, costing);
   if (problem) refuseCeiling(`${problem} Until then the search cannot hold a cost ceiling.`);
+  if (ceilingMinor > MAX_COST_CEILING_PER_JAR * 10 ** minorDigits(costing.currency!)) refuseCeiling(COST_CEILING_TOO_HIGH);
   const solver = pointSolver(base);
   const reusable = typeof solver === 'string' ? undefined : solver;
   return windowConstraint('cost ceiling per jar', (p) => knownCostPerJar(costAtPoint(base, p, costing, reusable)) ?? Number.NaN, { high: ceilingMinor });
@@ -254,18 +269,38 @@ export interface ProposalOutcome {
   notes: string[];
 }
 
+/** A cost ceiling asked of a search: the costing the caller may see (null without prices.read) and the ceiling. */
+export interface CeilingRequest {
+  costing: ProposalCosting | null;
+  perJarMinor: number;
+}
+
 /**
  * The fruit content and the "can be made" constraint from a base formula: its mass balance solved at
  * each point — exact, better than the fitted fruit-content surface the API falls back on without one.
+ * With a ceiling, the cost ceiling per jar as a constraint (refused by name when the cost per jar
+ * cannot be known, costCeilingConstraint) and each point's cost: the screen and the API alike.
  */
-export function baseFormulaSources(base: ProposalBase): { fruitPer1000g: (point: Readonly<Record<string, number>>) => number; constraints: Constraint[] } {
+export function baseFormulaSources(base: ProposalBase, ceiling?: CeilingRequest): BaseSources {
   const solver = pointSolver(base);
   if (typeof solver === 'string') throw new ValidationFailed(solver, { baseFormulaId: [solver] });
-  return {
+  const sources: BaseSources = {
     fruitPer1000g: (point) => solver.at(point)?.fruitPer1000g ?? Number.NaN,
     // A point the base formula cannot be moved to is no proposal.
     constraints: [windowConstraint('formula can be made', (p) => (solver.at(p) ? 0 : Number.NaN), { low: 0 })],
   };
+  if (!ceiling) return sources;
+  sources.constraints.push(costCeilingConstraint(base, ceiling.costing, ceiling.perJarMinor));
+  // costCeilingConstraint refused anything without a currency and a pack format.
+  const costing = ceiling.costing!;
+  sources.cost = {
+    currency: costing.currency!,
+    asOf: costing.prices.asOf,
+    packFormat: costing.prices.packFormat!.name,
+    ceilingPerJarMinor: ceiling.perJarMinor,
+    perJarAt: (point) => costPerJarAt(base, point, costing, solver),
+  };
+  return sources;
 }
 
 /**
@@ -273,10 +308,9 @@ export function baseFormulaSources(base: ProposalBase): { fruitPer1000g: (point:
  * optimisation core (optimise.ts), with the fruit minimum on the base formula's exact mass balance.
  */
 export function proposeFormulas(model: FamilyModel, base: ProposalBase, request: ProposalRequest, costing: ProposalCosting | null = null): ProposalOutcome {
-  const sources = baseFormulaSources(base);
-  const fruitOf = sources.fruitPer1000g;
   const { costCeilingPerJarMinor, ...searchRequest } = request;
-  if (costCeilingPerJarMinor !== undefined) sources.constraints.push(costCeilingConstraint(base, costing, costCeilingPerJarMinor));
+  const sources = baseFormulaSources(base, costCeilingPerJarMinor !== undefined ? { costing, perJarMinor: costCeilingPerJarMinor } : undefined);
+  const fruitOf = sources.fruitPer1000g;
   const { result, goalModels, phModel, notes } = searchFamily(model, searchRequest, { ...sources, withoutPhModel: 'note' });
   const proposals = result.proposals.map((p): ProposedFormula => {
     const point = Object.fromEntries(model.factors.map((f) => [f, p.point[f]])) as Record<ModelFactor, number>;
@@ -292,31 +326,49 @@ export function proposeFormulas(model: FamilyModel, base: ProposalBase, request:
       }),
       fruitPer1000g: fruitOf(p.point),
       ph: ph && ph.inRegion ? { estimate: ph.estimate, prediction: ph.prediction } : null,
-      costPerJarMinor: costing?.currency ? knownCostPerJar(costAtPoint(base, point, costing)) : null,
+      costPerJarMinor: costing?.currency ? costPerJarAt(base, point, costing) : null,
     };
   });
   return { proposals, message: result.message, notes };
 }
 
+/** The points around a proposal, and how many were left out for costing more per jar than the ceiling. */
+export interface PointsAround {
+  points: Array<Record<ModelFactor, number>>;
+  overCeiling: number;
+}
+
 /**
  * A few points around a proposal for the trial: each factor one step (a tenth of its allowed range)
  * down and up with the others held, kept only where every model still predicts (inside the data's
- * region) and the formula can be made; at most `count`.
+ * region) and the formula can be made, and — with a cost ceiling — where the cost per jar is known
+ * and at most the ceiling (the others are counted in `overCeiling`); at most `count`.
  */
 export function pointsAround(
   model: FamilyModel,
   base: ProposalBase,
   proposal: Record<ModelFactor, number>,
   ranges: ReadonlyArray<{ name: ModelFactor; low: number; high: number }>,
-  count = 4,
-): Array<Record<ModelFactor, number>> {
-  const around: Array<Record<ModelFactor, number>> = [];
+  options: { count?: number; ceiling?: { costing: ProposalCosting; perJarMinor: number } } = {},
+): PointsAround {
+  const count = options.count ?? 4;
+  const ceiling = options.ceiling;
+  const around: PointsAround = { points: [], overCeiling: 0 };
   for (const range of ranges) {
     for (const sign of [-1, 1]) {
-      if (around.length >= count) return around;
+      if (around.points.length >= count) return around;
       const point = { ...proposal, [range.name]: proposal[range.name] + (sign * (range.high - range.low)) / 10 };
       const inside = model.responses.every((r) => predictResponse(r.surface, point).inRegion);
-      if (inside && point[range.name] >= 0 && formulaAtPoint(base, point).ok) around.push(point);
+      if (!inside || !(point[range.name] >= 0) || !formulaAtPoint(base, point).ok) continue;
+      if (ceiling) {
+        const cost = costPerJarAt(base, point, ceiling.costing);
+        // An unknown cost is never taken as under the ceiling.
+        if (cost === null || cost > ceiling.perJarMinor) {
+          around.overCeiling += 1;
+          continue;
+        }
+      }
+      around.points.push(point);
     }
   }
   return around;

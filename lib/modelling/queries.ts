@@ -14,7 +14,9 @@ import { trialCode } from '@/lib/trials/access';
 import type { SensoryScale } from '@/lib/sensory';
 import { getFormula } from '@/lib/formulas/queries';
 import { formulaFeatures, type FormulaFeatures } from './features';
-import type { ProposalBase } from './proposals';
+import { proposalCosting, type ProposalBase, type ProposalCosting } from './proposals';
+import { editorCostBasis } from '@/lib/costs/queries';
+import { packFormatOfFormulas } from '@/lib/pricing/queries';
 import { fitFamilyModel, fitResponse, varyingFactors } from './fit';
 import { ValidationFailed } from '@/lib/errors';
 import { isoDate } from '@/lib/format/dates';
@@ -238,6 +240,15 @@ export async function baseFormulaOfFamily(actor: Actor, family: FamilyKey, formu
     throw new ValidationFailed('The base formula is not of this product family.', { baseFormulaId: ['The base formula is not of this product family.'] });
   }
   return { settings: formula.current.settings, lines: formula.current.lines };
+}
+
+/**
+ * The costing of proposals on a formula, as the Propose page reads it: today's prices and the
+ * formula's pack format (null when none is chosen). Callers hold prices.read.
+ */
+export async function proposalCostingOf(actor: Actor, formulaId: string): Promise<ProposalCosting> {
+  const [basis, packFormats] = await Promise.all([editorCostBasis(actor), packFormatOfFormulas(actor.workspaceId, [formulaId])]);
+  return proposalCosting(basis, packFormats.get(formulaId) ?? null);
 }
 
 /** The family of a formula's latest revision; 404 for a formula of another workspace, null without a fruit line. */

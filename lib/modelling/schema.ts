@@ -12,7 +12,7 @@
 import { z } from 'zod';
 import type { PredictionSurface, ResponseSurface } from '@/lib/models';
 import { PRODUCT_CLASSES } from '@/lib/formulas/schema';
-import { boundedNumber, id } from '@/lib/input';
+import { boundedNumber, id, wholeNumber } from '@/lib/input';
 
 /* ---------- factors ---------- */
 
@@ -324,6 +324,12 @@ export const optimiseRequestSchema = z
         fruitMinimumPer1000g: boundedNumber('The fruit minimum', 0, 1000).optional(),
         /** The pH window, on the model of measured pH. */
         ph: z.object({ low: boundedNumber('The lowest pH', 0, 14), high: boundedNumber('The highest pH', 0, 14) }).strict().optional(),
+        /**
+         * The highest cost per jar of the base formula moved to a point, in minor units of the workspace
+         * currency (as the Propose screen's ceiling): needs baseFormulaId, its pack format and a price for
+         * every line and packaging item on the day; at most 1,000,000 in major units.
+         */
+        costCeilingPerJarMinor: wholeNumber('The cost ceiling per jar (minor units)', 1, 1_000_000_000).optional(),
       })
       .strict()
       .optional(),
@@ -347,7 +353,8 @@ export type ExportQuery = z.infer<typeof exportQuerySchema>;
 
 /** Reads the export query from a URL's search parameters (the same key may repeat for trials). */
 export function readExportQuery(params: URLSearchParams): z.ZodSafeParseResult<ExportQuery> {
-  const raw: Record<string, unknown> = {};
+  // No prototype: a "__proto__" key is an own (unknown) key the strict schema refuses, not a prototype set.
+  const raw: Record<string, unknown> = Object.create(null);
   for (const key of new Set(params.keys())) raw[key] = key === 'trials' ? params.getAll(key) : params.get(key);
   return exportQuerySchema.safeParse(raw);
 }

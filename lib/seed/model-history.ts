@@ -15,7 +15,7 @@
 import { randomUUID } from 'node:crypto';
 import type { EntityManager } from '@mikro-orm/postgresql';
 import { Formula, FormulaRevision, Ingredient, Cook, TastingAnswer, TastingSample, TastingSeat, Tasting, SensoryAttributeDef, Trial, TrialStatusChange, Variant } from '@/entities';
-import { compositionOf } from '@/lib/ingredients/queries';
+import { compositionOf, labelDataOf } from '@/lib/ingredients/queries';
 import { computeFormula } from '@/lib/formulas/compute';
 import type { RevisionLine } from '@/lib/formulas/schema';
 import type { FactorLevel } from '@/lib/trials/plan';
@@ -112,7 +112,7 @@ export async function seedDemoModelHistory(em: EntityManager, developer: Actor):
   const byKey = new Map(ingredients.map((i) => [i.typicalKey!, i]));
   const line = (key: string, grams: number): RevisionLine => {
     const row = byKey.get(key)!;
-    return { ingredientId: row.id, ingredient: compositionOf(row), quantity: grams, unit: 'g' };
+    return { ingredientId: row.id, ingredient: compositionOf(row, labelDataOf(row).nutrients), quantity: grams, unit: 'g' };
   };
   const base = await em.findOneOrFail(Formula, { workspace: ws, name: 'Apricot spread, reduced sugar' });
   const baseRevision = await em.findOneOrFail(FormulaRevision, { formula: base.id }, { orderBy: { number: 'asc' } });

@@ -120,3 +120,62 @@ describe.each(WINDOWS)('predictions and a proposed formula (%s)', (size, viewpor
     await walk.close();
   }, 240_000);
 });
+
+/**
+ * The cost ceiling per jar on the Propose screen, on the demo's own apricot spread formula (its 340 g
+ * jar and the demo's GBP prices): a ceiling the search must hold, then one no jar can meet. It only
+ * searches (in the browser); no trial is made and no demo record changes.
+ */
+describe.each(WINDOWS)('the cost ceiling on the Propose screen (%s)', (size, viewport) => {
+  it('holds the proposal at or under the ceiling, and says plainly when no formula can meet it', async () => {
+    const walk = await startWalk(browser(), `propose-ceiling-${size}`, viewport);
+    const { page } = walk;
+    await signIn(page, developer.email);
+    await page.goto('/formulas');
+    await page.getByTestId('formula-list').getByRole('link', { name: /Apricot spread, reduced sugar/ }).click();
+    await page.waitForURL(/\/formulas\/[0-9a-f-]{36}$/);
+    await page.getByRole('link', { name: 'Propose', exact: true }).click();
+    await page.getByRole('heading', { name: 'Propose a formula' }).waitFor();
+    const ceilingBox = page.locator('#cost-ceiling');
+    expect(await page.getByText('Cost ceiling per jar (GBP), optional').count()).toBe(1);
+    // The formula has a pack format and every price: the field names what the cost is of.
+    await page.getByText(/Ingredients and packaging of 340 g jar, case of 12 at the prices of \d{4}-\d{2}-\d{2}/).waitFor();
+    await walk.stop('propose-with-ceiling-field');
+
+    // First without a ceiling: the best proposal's own cost per jar.
+    const find = page.getByRole('button', { name: 'Find the best formula' });
+    await find.click();
+    const best = page.getByTestId('proposal').first();
+    await best.waitFor({ timeout: 30_000 });
+    const free = number((await best.textContent()) ?? '', /Cost per jar: GBP (\d+\.\d\d)/);
+    expect(free).toBeGreaterThan(0);
+
+    // A ceiling a penny under the free search's best: every proposal is held at or under it.
+    const ceiling = Math.round(free * 100 - 1) / 100;
+    await ceilingBox.fill(ceiling.toFixed(2));
+    await find.click();
+    await expect.poll(async () => (await best.textContent()) ?? '', { timeout: 30_000 }).toMatch(new RegExp(`\\(at most GBP ${ceiling.toFixed(2).replace('.', '\\.')}\\)`));
+    const proposals = page.getByTestId('proposal');
+    const outcome = (await page.locator('section[aria-labelledby="proposals-title"]').textContent()) ?? '';
+    if ((await proposals.count()) === 0) throw new Error(`no proposal under GBP ${ceiling}: ${outcome}`);
+    for (let i = 0; i < (await proposals.count()); i++) {
+      const cost = number((await proposals.nth(i).textContent()) ?? '', /Cost per jar: GBP (\d+\.\d\d)/);
+      expect(cost).toBeLessThanOrEqual(ceiling);
+    }
+    await walk.stop('proposal-under-the-ceiling');
+
+    // A penny a jar: no formula can be made for that. Plain words, no proposal.
+    await ceilingBox.fill('0.01');
+    await find.click();
+    await page.getByText('No setting inside the data meets every constraint.').waitFor({ timeout: 30_000 });
+    expect(await proposals.count()).toBe(0);
+    await walk.stop('impossible-ceiling');
+
+    // A ceiling that is no amount is refused at the field, and nothing is searched.
+    await ceilingBox.fill('0');
+    await find.click();
+    await page.getByText('The cost ceiling per jar must be above 0.').waitFor();
+    await walk.stop('ceiling-refused');
+    await walk.close();
+  }, 240_000);
+});

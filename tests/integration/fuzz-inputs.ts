@@ -79,6 +79,28 @@ export const POISON_NUMBERS = [Number.NaN, Infinity, -Infinity, ...HUGE_NUMBERS.
 /** Keys that reach an object's prototype, and built-ins of every object. */
 export const PROTOTYPE_KEYS = ['__proto__', 'constructor', 'prototype', 'valueOf', 'hasOwnProperty', 'toString', '__defineGetter__', 'isPrototypeOf'];
 
+/**
+ * One value per class of bad input, named, for the deterministic sweeps (every key of a page or
+ * export given each class in turn): controls, lone surrogates, bidi, huge numbers, prototype names,
+ * an impossible date and a huge length. `seed` is a plausible value the class is put into.
+ */
+export function badInputClasses(seed: string): Array<[string, string]> {
+  return [
+    ['NUL', `${seed}\u0000`],
+    ['a control character', `\u0007${seed}`],
+    ['escape', `${seed}\u001B[31m`],
+    ['DEL', `${seed}\u007F`],
+    ['a lone high surrogate', `${seed}\uD800`],
+    ['a lone low surrogate', `\uDFFF${seed}`],
+    ['a bidi override', `\u202E${seed}`],
+    ['a bidi isolate', `\u2066${seed}\u2069`],
+    ...HUGE_NUMBERS.map((n): [string, string] => [`the number ${n}`, n]),
+    ...PROTOTYPE_KEYS.slice(0, 4).map((k): [string, string] => [`the name ${k}`, k]),
+    ['an impossible date', IMPOSSIBLE_DATES[0]],
+    ['a huge length', seed.repeat(Math.ceil(200_000 / Math.max(1, seed.length)))],
+  ];
+}
+
 const DATE_IN_TEXT = /\d{4}-\d{2}-\d{2}/;
 
 /** A copy of a string made invalid: a forbidden character at its start, middle or end, or an impossible date in place of its date. */

@@ -20,6 +20,7 @@ import { createWorkspace, callRoute, asCaller, type Caller, type WorkspaceFixtur
 import { ROUTE_CASES, ACTION_CASES, type ActionCase, type CallSpec, type RouteCase } from './access-table';
 import { discoverActions, discoverRoutes, operationKey, pagesReadingSearchParams, ROOT, routesReadingJsonBody, type RouteHandler, type ServerAction } from './routes';
 import {
+  badInputClasses,
   badParam,
   describeSample,
   encodeQuery,
@@ -475,5 +476,29 @@ describe.each(PAGE_CASES.map((p) => ({ p, name: p.page })))('$name query', ({ p 
         { seed: SEED, numRuns: RUNS.page, endOnFailure: true },
       ),
     );
+  }, BATCH_TIMEOUT_MS);
+
+  it('takes each class of bad input in each key it reads, alone and repeated, and changes nothing', async () => {
+    const mod = (await import(path.join(ROOT, 'app', p.page))) as { default: (props: { params: Promise<unknown>; searchParams: Promise<unknown> }) => Promise<unknown> };
+    const caller: Caller = p.caller === 'outsider' ? { kind: 'outsider' } : { kind: 'session', person: ws.people[p.caller] };
+    const params = p.paramsFrom ? ((await casesByRoute.get(p.paramsFrom)!.prepare!(ws, caller.kind === 'session' ? caller.person : null)).params ?? {}) : {};
+    lastSnapshot = undefined;
+    await expectNoWrites(`${p.page} query classes`, async () => {
+      for (const key of p.keys) {
+        for (const [what, value] of badInputClasses('1')) {
+          for (const pairs of [[[key, value]], [[key, value], [key, value]]] as Array<Array<[string, string]>>) {
+            count(`page ${p.page}`, 'query classes');
+            let failure: unknown;
+            try {
+              await asCaller(caller, () => mod.default({ params: Promise.resolve(params), searchParams: Promise.resolve(searchParamsOf(pairs)) }));
+            } catch (err) {
+              if (!isNavigation(err)) failure = err;
+            }
+            expect(failure, `${p.page} ?${key}= ${what}${pairs.length > 1 ? ' (twice)' : ''}`).toBeUndefined();
+          }
+        }
+      }
+      expect(({} as Record<string, unknown>).polluted).toBeUndefined();
+    });
   }, BATCH_TIMEOUT_MS);
 });

@@ -7,8 +7,12 @@ import { describe, it, expect, beforeAll } from 'vitest';
 import { getEm } from '@/lib/db';
 import { seedDemo } from '@/lib/seed/demo';
 import { Formula, Cook, Trial } from '@/entities';
-import { baseFormulaOfFamily, familyModel, familyOfFormula, listFamilies, modelDataset } from '@/lib/modelling/queries';
-import { formulaAtPoint } from '@/lib/modelling/proposals';
+import { baseFormulaOfFamily, familyModel, familyOfFormula, listFamilies, modelDataset, proposalCostingOf } from '@/lib/modelling/queries';
+import { costPerJarAt, formulaAtPoint } from '@/lib/modelling/proposals';
+import { createFormula } from '@/lib/formulas/mutations';
+import { createIngredient } from '@/lib/ingredients/mutations';
+import { setFormulaPackFormat } from '@/lib/pricing/mutations';
+import { packFormatOfFormulas } from '@/lib/pricing/queries';
 import { fitFamilyModel, modelHistory } from '@/lib/modelling/fit';
 import { predictResponse } from '@/lib/models';
 import type { FamilyInfo } from '@/lib/modelling/schema';
@@ -270,6 +274,100 @@ describe('predictions and proposals on the demo', () => {
     // A formula this workspace does not have (the other workspace's ids are as unknown) is missing.
     expect((await call({ ...body, baseFormulaId: '00000000-0000-4000-8000-000000000000' })).status).toBe(404);
     expect((await call({ ...body, baseFormulaId: 'not-an-id' })).status).toBe(422);
+  });
+
+  describe('the cost ceiling per jar through the API', () => {
+    const ACTOR_OF = (person: Person) => ({ userId: person.userId, email: person.email, name: 'Developer', workspaceId, workspaceName: '', role: person.role, via: 'session' as const, massUnits: 'metric' as const, temperatureUnit: 'C' as const });
+    async function setup() {
+      const developer = await demoPerson(1);
+      const em = (await getEm()).fork();
+      const formula = await em.findOneOrFail(Formula, { workspace: workspaceId, name: 'Apricot spread, reduced sugar' });
+      const model = (await familyModel({ workspaceId }, apricot))!;
+      const box = (name: string) => model.responses[0].surface.dataBox.find((r) => r.name === name)!;
+      const factors = (['sugarRatio', 'targetSolidsPct', 'pectinPct', 'acidPct'] as const).map((name) => ({ name, low: box(name).low, high: box(name).high }));
+      const liking = model.responses.find((r) => r.libraryKey === 'overall-liking')!;
+      const body = { factors, goals: [{ response: liking.key, goal: { kind: 'minimise', low: 4, high: 8 } }], proposals: 2, baseFormulaId: formula.id };
+      const call = (b: unknown) =>
+        callRoute(optimiseRoute.POST, { method: 'POST', path: `/api/v1/models/${apricot.slug}/optimise`, caller: { kind: 'session', person: developer }, params: { family: apricot.slug }, body: b });
+      return { developer, formula, body, call };
+    }
+
+    it('holds every proposal at or under the ceiling, costed as the Propose screen costs it', async () => {
+      const { developer, formula, body, call } = await setup();
+      // A ceiling far above any jar: the free search, with each proposal's cost per jar.
+      const free = await call({ ...body, constraints: { costCeilingPerJarMinor: 100_000_000 } });
+      expect(free.status, JSON.stringify(free.body)).toBe(200);
+      // The demo prices are in pounds sterling (lib/seed/prices.ts), its formulas in a 340 g jar.
+      expect(free.body.cost).toMatchObject({ currency: 'GBP', packFormat: '340 g jar, case of 12', ceilingPerJarMinor: 100_000_000 });
+      const freeCost: number = free.body.proposals[0].costPerJarMinor;
+      expect(freeCost).toBeGreaterThan(0);
+      const cap = Math.floor(freeCost) - 2;
+      const held = await call({ ...body, constraints: { costCeilingPerJarMinor: cap } });
+      expect(held.status, JSON.stringify(held.body)).toBe(200);
+      expect(held.body.proposals.length).toBeGreaterThanOrEqual(1);
+      const actor = ACTOR_OF(developer);
+      const base = await baseFormulaOfFamily(actor, apricot, formula.id);
+      const costing = await proposalCostingOf(actor, formula.id);
+      for (const proposal of held.body.proposals) {
+        expect(proposal.costPerJarMinor).toBeLessThanOrEqual(cap + 1e-9);
+        // The same figure as the screen's own costing of the base formula moved to the point.
+        expect(proposal.costPerJarMinor).toBeCloseTo(costPerJarAt(base, proposal.point, costing)!, 9);
+      }
+      // The ceiling bites: without it the best proposal costs more than the cap.
+      expect(freeCost).toBeGreaterThan(cap);
+    });
+
+    it('answers an impossible ceiling with no proposal and the reason in words', async () => {
+      const { body, call } = await setup();
+      const res = await call({ ...body, constraints: { costCeilingPerJarMinor: 1 } });
+      expect(res.status).toBe(200);
+      expect(res.body.proposals).toEqual([]);
+      expect(res.body.message).toBe('No setting inside the data meets every constraint.');
+    });
+
+    it('refuses a ceiling without a base formula, without a pack format, or with an unpriced line, by name (422)', async () => {
+      const { developer, formula, body, call } = await setup();
+      const withoutBase = { ...body, baseFormulaId: undefined };
+      const noBase = await call({ ...withoutBase, constraints: { costCeilingPerJarMinor: 500 } });
+      expect(noBase.status).toBe(422);
+      expect(noBase.body.error.fields['constraints.costCeilingPerJarMinor'][0]).toMatch(/needs a base formula \(baseFormulaId\)/);
+
+      // A formula of the same family without a pack format.
+      const actor = ACTOR_OF(developer);
+      const base = await baseFormulaOfFamily(actor, apricot, formula.id);
+      const lines = base.lines.map((l) => ({ ingredientId: l.ingredientId, quantity: l.quantity, unit: l.unit }));
+      const { formulaId: unpacked } = await createFormula(actor, { name: 'Apricot spread, no pack format yet', settings: base.settings, lines });
+      const noPack = await call({ ...body, baseFormulaId: unpacked, constraints: { costCeilingPerJarMinor: 500 } });
+      expect(noPack.status).toBe(422);
+      expect(noPack.body.error.fields['constraints.costCeilingPerJarMinor'][0]).toMatch(/no pack format/);
+
+      // The same family with a line nobody priced: named, never counted as zero.
+      const { ingredientId } = await createIngredient(actor, { name: 'Own-press apricot kernel extract', kind: 'other', solidsPct: 5 });
+      const { formulaId: unpriced } = await createFormula(actor, { name: 'Apricot spread, unpriced extract', settings: base.settings, lines: [...lines, { ingredientId, quantity: 2, unit: 'g' }] });
+      await setFormulaPackFormat(actor, unpriced, (await packFormatOfFormulas(workspaceId, [formula.id])).get(formula.id)!);
+      const noPrice = await call({ ...body, baseFormulaId: unpriced, constraints: { costCeilingPerJarMinor: 500 } });
+      expect(noPrice.status, JSON.stringify(noPrice.body)).toBe(422);
+      expect(noPrice.body.error.fields['constraints.costCeilingPerJarMinor'][0]).toMatch(/no price for Own-press apricot kernel extract/);
+      // Without a ceiling the same formula is a fine base.
+      expect((await call({ ...body, baseFormulaId: unpriced })).status).toBe(200);
+    });
+
+    it('refuses hostile ceilings with 422 and changes nothing', async () => {
+      const { body, call } = await setup();
+      const em = (await getEm()).fork();
+      const before = { formulas: await em.count(Formula, { workspace: workspaceId }), trials: await em.count(Trial, { workspace: workspaceId }) };
+      for (const ceiling of [0, -1, 1.5, 2 ** 31, 2 ** 53, 2 ** 53 + 2, 1e308, 5e-324, '500', null, [500], { value: 500 }, 'NaN', true]) {
+        const res = await call({ ...body, constraints: { costCeilingPerJarMinor: ceiling } });
+        expect(res.status, JSON.stringify(ceiling)).toBe(422);
+        expect(res.body.error.fields).toHaveProperty(['constraints.costCeilingPerJarMinor']);
+      }
+      // Above 1,000,000 pounds (100,000,000 pence; GBP has two minor digits, ISO 4217) though inside the schema's bound.
+      const tooHigh = await call({ ...body, constraints: { costCeilingPerJarMinor: 100_000_001 } });
+      expect(tooHigh.status).toBe(422);
+      expect(tooHigh.body.error.fields['constraints.costCeilingPerJarMinor'][0]).toBe('The cost ceiling per jar must be at most 1,000,000.');
+      const fresh = (await getEm()).fork();
+      expect({ formulas: await fresh.count(Formula, { workspace: workspaceId }), trials: await fresh.count(Trial, { workspace: workspaceId }) }).toEqual(before);
+    });
   });
 
   it('exports the coefficients of every fitted response as CSV', async () => {

@@ -104,9 +104,9 @@ describe('the batch computation uses the ingredients’ sugars (issue 15, part 7
 
   it('the library passes a profile on only when all three sugars are known', async () => {
     const { compositionOf } = await import('@/lib/ingredients/queries');
-    const base = { kind: 'fruit', name: 'Strawberry', solidsPct: 8 };
-    expect(compositionOf({ ...base, sucroseG: 0.47, glucoseG: 1.99, fructoseG: 2.44 } as never).sugars).toEqual({ sucroseG: 0.47, glucoseG: 1.99, fructoseG: 2.44 });
+    const base = { kind: 'fruit' as const, name: 'Strawberry', solidsPct: 8 };
+    expect(compositionOf(base, { sucroseG: 0.47, glucoseG: 1.99, fructoseG: 2.44 }).sugars).toEqual({ sucroseG: 0.47, glucoseG: 1.99, fructoseG: 2.44 });
     // Source: docs/nutrition-check-values.md — SR28 gives blackcurrant no sugars; unknown is never zero.
-    expect(compositionOf({ ...base, sucroseG: null, glucoseG: 1.99, fructoseG: 2.44 } as never).sugars).toBeUndefined();
+    expect(compositionOf(base, { sucroseG: null, glucoseG: 1.99, fructoseG: 2.44 }).sugars).toBeUndefined();
   });
 });

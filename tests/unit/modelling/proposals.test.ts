@@ -76,7 +76,8 @@ describe('proposeFormulas', () => {
 
   it('gives a few points around a proposal, all inside the data', () => {
     const outcome = proposeFormulas(MODEL, base, { factors: ranges, goals });
-    const around = pointsAround(MODEL, base, outcome.proposals[0].point, ranges);
+    const { points: around, overCeiling } = pointsAround(MODEL, base, outcome.proposals[0].point, ranges);
+    expect(overCeiling).toBe(0);
     expect(around.length).toBeGreaterThan(0);
     expect(around.length).toBeLessThanOrEqual(4);
     for (const p of around) for (const r of MODEL.responses) expect(predictResponse(r.surface, p).inRegion).toBe(true);
@@ -180,6 +181,34 @@ describe('the cost ceiling per jar', () => {
       expect(priced.ok && priced.cost.perJar!.minor).toBeCloseTo(p.costPerJarMinor!, 9);
     }
     expect(held.proposals[0].desirability).toBeLessThan(free.proposals[0].desirability);
+  });
+
+  it('holds the trial\'s points around a proposal to the ceiling, and counts those left out', () => {
+    const goals = [{ response: LIKING, goal: { kind: 'minimise' as const, low: 4, high: 8 }, importance: 1 }];
+    const free = proposeFormulas(MODEL, base, { factors: ranges, goals }, costing);
+    const cap = free.proposals[0].costPerJarMinor! - 3;
+    const held = proposeFormulas(MODEL, base, { factors: ranges, goals, costCeilingPerJarMinor: cap }, costing);
+    const proposal = held.proposals[0].point;
+    // Every step of every factor (count 8 = four factors down and up), with and without the ceiling.
+    const all = pointsAround(MODEL, base, proposal, ranges, { count: 8 });
+    const kept = pointsAround(MODEL, base, proposal, ranges, { count: 8, ceiling: { costing, perJarMinor: cap } });
+    // The proposal sits on the ceiling: a step towards less sugar (dearer jars, see above) breaks it.
+    expect(kept.overCeiling).toBeGreaterThan(0);
+    expect(kept.points.length + kept.overCeiling).toBe(all.points.length);
+    for (const point of kept.points) {
+      const priced = costAtPoint(base, point, costing);
+      expect(priced.ok && priced.cost.perJar!.minor).toBeLessThanOrEqual(cap);
+    }
+    for (const point of all.points.filter((p) => !kept.points.some((k) => JSON.stringify(k) === JSON.stringify(p)))) {
+      const priced = costAtPoint(base, point, costing);
+      expect(priced.ok && priced.cost.perJar!.minor).toBeGreaterThan(cap);
+    }
+  });
+
+  it('refuses a ceiling above 1,000,000 in the currency\'s major units (the screen\'s own bound)', () => {
+    // EUR has two minor digits (ISO 4217): 1,000,000.00 EUR is 100,000,000 minor units.
+    expect(costCeilingConstraint(base, costing, 100_000_000).violation({})).toBe(0);
+    expect(() => costCeilingConstraint(base, costing, 100_000_001)).toThrow('The cost ceiling per jar must be at most 1,000,000.');
   });
 
   it('refuses a ceiling when a price is unknown, naming the line, and never counts it as zero', () => {
