@@ -18,7 +18,7 @@ const OPTIONAL_KEYS = ['phMin', 'phMax', 'acidPct', 'pectinLevel', 'euFruitGroup
  * What a composition is read from: a library row, or a view of one. A value nobody gave is null or
  * absent; the three sugars come from the row's label columns.
  */
-export type CompositionSource = Pick<IngredientComposition, 'kind' | 'name' | 'solidsPct'>
+type CompositionSource = Pick<IngredientComposition, 'kind' | 'name' | 'solidsPct'>
   & { [K in (typeof OPTIONAL_KEYS)[number]]?: IngredientComposition[K] | null }
   & { calciumSource?: boolean | null } & Partial<Record<'sucroseG' | 'glucoseG' | 'fructoseG', number | null>>;
 
@@ -34,7 +34,7 @@ export function compositionOf(row: CompositionSource): IngredientComposition {
 }
 
 /** The label columns of a library row: one per nutrient, the allergen lists, the additive's two. */
-export type LabelColumns = Pick<IngredientEntity, NutrientKey | 'labelName' | 'euAllergens' | 'usAllergens' | 'sulphiteMgPerKg' | 'eNumber' | 'additiveClass' | 'isAddedWater' | 'compositionSource'>;
+type LabelColumns = Pick<IngredientEntity, NutrientKey | 'labelName' | 'euAllergens' | 'usAllergens' | 'sulphiteMgPerKg' | 'eNumber' | 'additiveClass' | 'isAddedWater' | 'compositionSource'>;
 
 /** The stored label data of a row (columns per nutrient, allergen lists, the additive's two columns). */
 export function labelDataOf(row: LabelColumns): IngredientLabelFields {

@@ -142,6 +142,13 @@ export interface FamilyInfo extends FamilyKey {
   fruitName: string;
 }
 
+/** A family on the models page: how much of the workspace's history it pools. */
+export interface FamilySummary extends FamilyInfo {
+  trials: number;
+  variants: number;
+  lastCook: string | null;
+}
+
 /* ---------- the data set ---------- */
 
 export interface DatasetRow {

@@ -3,10 +3,12 @@ import 'server-only';
 import { getEm } from '@/lib/db';
 import { TastingSeat } from '@/entities';
 import type { Actor } from '@/lib/permissions';
-import { loadTastingRows, tastingView, type TastingView } from '@/lib/tastings/queries';
+import { loadTastingRows, tastingView } from '@/lib/tastings/queries';
+import type { TastingView } from '@/lib/tastings/schema';
 import { toCsv } from '@/lib/csv';
 import { type AnalysisOptions, type TastingAnalysis, type TastingData } from './analysis';
 import { analyseRemembered } from './analysis-memo';
+import type { SummaryTable } from './schema';
 
 type AnswerRow = { seat_id: string; kind: TastingData['answers'][number]['kind']; attribute: string; sample_id: string | null; value: number | null; ranking: string[] | null; correct: boolean | null };
 
@@ -83,9 +85,6 @@ export async function answersCsv(actor: Actor, tastingId: string): Promise<strin
     { header: 'value', value: (a) => (a.kind === 'rating' ? a.value : a.kind === 'ranking' ? (a.rankingSampleIds ?? []).map((id) => label.get(id) ?? id).join('>') : a.correct ? 'correct' : 'wrong') },
   ]);
 }
-
-export const SUMMARY_TABLES = ['means', 'anova', 'penalty', 'triangle', 'ranking'] as const;
-export type SummaryTable = (typeof SUMMARY_TABLES)[number];
 
 /** Every summary table of the results page as CSV: means (default), anova, penalty, triangle, ranking. */
 export async function summaryCsv(actor: Actor, tastingId: string, table: SummaryTable = 'means'): Promise<string> {

@@ -7,3 +7,11 @@ export const recommendationSchema = z
     rationale: longText(2000, { min: 10, required: 'Say why, in a sentence or two: the evidence travels with the recommendation.' }),
   })
   .strict();
+
+/** The results page's summary tables, each downloadable as CSV (?table=…). */
+export const SUMMARY_TABLES = ['means', 'anova', 'penalty', 'triangle', 'ranking'] as const;
+export type SummaryTable = (typeof SUMMARY_TABLES)[number];
+
+export function isSummaryTable(value: string): value is SummaryTable {
+  return SUMMARY_TABLES.some((table) => table === value);
+}
