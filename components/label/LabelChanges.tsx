@@ -1,5 +1,5 @@
 /** What a new version changes on the pack: the verdict and the rows whose printed text differs. */
-import type { LabelComparison } from '@/lib/label/queries';
+import type { LabelComparison } from '@/lib/label/schema';
 import { labelChangeVerdict } from '@/lib/production/review';
 import { Notice } from '@/components/ui/Notice';
 import { TableBox } from '@/components/ui/TableBox';

@@ -2,7 +2,7 @@ import Link from 'next/link';
 import { SetwellWordmark } from '@/components/brand/SetwellMark';
 import { ROLE_LABELS, type Actor } from '@/lib/permissions';
 import type { NavItem } from '@/lib/navigation';
-import type { WorkspaceChoice } from '@/lib/workspaces/queries';
+import type { WorkspaceChoice } from '@/lib/workspaces/schema';
 import { NavLinks } from './NavLinks';
 import { WorkspaceSwitcher } from './WorkspaceSwitcher';
 import { MobileNav } from './MobileNav';

@@ -4,7 +4,7 @@ import { useTransition, useState } from 'react';
 import { useRouter } from 'next/navigation';
 import { switchWorkspaceAction } from '@/lib/workspaces/actions';
 import { ROLE_LABELS } from '@/lib/permissions';
-import type { WorkspaceChoice } from '@/lib/workspaces/queries';
+import type { WorkspaceChoice } from '@/lib/workspaces/schema';
 
 export function WorkspaceSwitcher({ current, workspaces }: { current: string; workspaces: WorkspaceChoice[] }) {
   const router = useRouter();

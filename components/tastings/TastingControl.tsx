@@ -9,7 +9,7 @@ import { Notice } from '@/components/ui/Notice';
 import { ConfirmDialog } from '@/components/ui/ConfirmDialog';
 import { EmptyState } from '@/components/ui/Card';
 import { TASTING_METHOD_LABELS, TASTING_STATE_LABELS } from '@/lib/tastings/vocabulary';
-import type { TastingView } from '@/lib/tastings/queries';
+import type { TastingView } from '@/lib/tastings/schema';
 import { DiscardTastingButton } from './DiscardTastingButton';
 import { TableBox } from '@/components/ui/TableBox';
 

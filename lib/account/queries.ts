@@ -3,13 +3,7 @@ import 'server-only';
 import { getEm } from '@/lib/db';
 import { Invitation, User } from '@/entities';
 import { hashSecret } from '@/lib/secrets';
-
-export interface InvitationPreview {
-  email: string;
-  workspaceName: string;
-  role: string;
-  hasAccount: boolean;
-}
+import type { InvitationPreview } from './schema';
 
 /** What the accept page shows before the invitee commits. Null when the link is not usable. */
 export async function previewInvitation(token: string): Promise<InvitationPreview | null> {

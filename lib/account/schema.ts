@@ -40,3 +40,11 @@ export const preferencesSchema = z.object({
 export type AcceptInvitationInput = z.infer<typeof acceptInvitationSchema>;
 export type ResetPasswordInput = z.infer<typeof resetPasswordSchema>;
 export type PreferencesInput = z.infer<typeof preferencesSchema>;
+
+/** What the accept page shows before the invitee commits. */
+export interface InvitationPreview {
+  email: string;
+  workspaceName: string;
+  role: string;
+  hasAccount: boolean;
+}

@@ -15,7 +15,7 @@ import { costingData } from '@/lib/pricing/queries';
 import type { BatchCost, CostResult, EditorCostBasis, FrozenCost, ProductCosts, TrialCosts, VersionCost } from './schema';
 
 /** Everything costFormula needs for some formulas over a range of days. */
-export interface CostBasis {
+interface CostBasis {
   currency: string | null;
   overfillPct: number;
   warningPct: number;

@@ -16,7 +16,7 @@ type Row = IngredientEntity;
 const OPTIONAL_KEYS = ['phMin', 'phMax', 'acidPct', 'pectinLevel', 'euFruitGroup', 'usFruitGroup', 'pectinType', 'pectinGrade', 'sweetenerType', 'acidType'] as const;
 
 /** The composition fields of a library row, a view of one, or an ingredient sent with a request; a value nobody gave is null or absent. */
-export type CompositionSource = Pick<IngredientComposition, 'kind' | 'name' | 'solidsPct'>
+type CompositionSource = Pick<IngredientComposition, 'kind' | 'name' | 'solidsPct'>
   & { [K in (typeof OPTIONAL_KEYS)[number]]?: IngredientComposition[K] | null }
   & { calciumSource?: boolean | null };
 
@@ -41,7 +41,7 @@ export function compositionOfView(view: IngredientView): IngredientComposition {
 }
 
 /** The label columns of a library row: one per nutrient, the allergen lists, the additive's two. */
-export type LabelColumns = Pick<IngredientEntity, NutrientKey | 'labelName' | 'euAllergens' | 'usAllergens' | 'sulphiteMgPerKg' | 'eNumber' | 'additiveClass' | 'isAddedWater' | 'compositionSource'>;
+type LabelColumns = Pick<IngredientEntity, NutrientKey | 'labelName' | 'euAllergens' | 'usAllergens' | 'sulphiteMgPerKg' | 'eNumber' | 'additiveClass' | 'isAddedWater' | 'compositionSource'>;
 
 /** The stored label data of a row (columns per nutrient, allergen lists, the additive's two columns). */
 export function labelDataOf(row: LabelColumns): IngredientLabelFields {

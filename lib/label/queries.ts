@@ -17,8 +17,8 @@ import type { FormulaSettingsInput, RevisionLine } from '@/lib/formulas/schema';
 import { TYPICAL_JAM_REFERENCE, type ClaimReference } from './claims';
 import type { IngredientLabelData } from './types';
 import { claimReferenceFrom, labelForLines, type LabelOptions, type LabelOutcome } from './index';
-import { labelChanges, type Label, type LabelChange } from './label';
-import type { LabelQuery, LabelView } from './schema';
+import { labelChanges, type Label } from './label';
+import type { LabelComparison, LabelQuery, LabelView } from './schema';
 
 /** The library's label data for each stored line, in line order; null for an ingredient no longer there. */
 export async function labelDataForLines(em: EntityManager, actor: Actor, lines: readonly RevisionLine[]): Promise<Array<IngredientLabelData | null>> {
@@ -79,15 +79,6 @@ export async function versionLabel(actor: Actor, versionId: string): Promise<Lab
   if (frozen) return { label: frozen, problem: null, kept: 'frozen', reference: { choice: 'typical', name: frozen.claims.reference ?? TYPICAL_JAM_REFERENCE.name }, subject };
   const outcome = await labelOfStored(em, actor, v.settings, v.lines);
   return view(outcome, 'not_frozen', subject, { choice: 'typical', name: TYPICAL_JAM_REFERENCE.name });
-}
-
-export interface LabelComparison {
-  baselineVersion: number;
-  /** How the baseline's label was kept: frozen at approval, or computed now. */
-  baselineKept: LabelView['kept'];
-  changes: LabelChange[];
-  /** Set when either label cannot be computed; then there are no changes to show. */
-  problem: string | null;
 }
 
 /**

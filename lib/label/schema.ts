@@ -1,6 +1,7 @@
 /** Query parameters of the label pages and endpoints. */
 import { z } from 'zod';
 import { id } from '@/lib/input';
+import type { LabelChange } from './label';
 
 /** The product a "reduced sugars" claim is measured against: a typical jam, or another formula (its id). */
 export const claimReferenceChoice = z.union([z.literal('typical'), id('Choose a formula of this workspace as the reference.')]);
@@ -24,4 +25,14 @@ export interface LabelView {
   reference: { choice: string; name: string } | null;
   /** What the label belongs to, for headings and file names. */
   subject: { kind: 'formula' | 'variant' | 'version'; id: string; name: string };
+}
+
+/** A promotion's label beside the label of the version it replaces. */
+export interface LabelComparison {
+  baselineVersion: number;
+  /** How the baseline's label was kept: frozen at approval, or computed now. */
+  baselineKept: LabelView['kept'];
+  changes: LabelChange[];
+  /** Set when either label cannot be computed; then there are no changes to show. */
+  problem: string | null;
 }

@@ -29,6 +29,7 @@ import {
   type DatasetRow,
   type DatasetSelection,
   type FamilyInfo,
+  type FamilySummary,
   type FamilyKey,
   type FamilyModel,
   type FitOptions,
@@ -260,12 +261,6 @@ export async function familyOfFormula(scope: Scope, formulaId: string): Promise<
   if (!revision) return null;
   const outcome = formulaFeatures(revision.settings, revision.lines);
   return outcome.ok ? outcome.features.family : null;
-}
-
-export interface FamilySummary extends FamilyInfo {
-  trials: number;
-  variants: number;
-  lastCook: string | null;
 }
 
 /** Every family with at least one cooked or tasted variant, most variants first. */

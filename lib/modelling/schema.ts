@@ -142,6 +142,13 @@ export interface FamilyInfo extends FamilyKey {
   fruitName: string;
 }
 
+/** A family on the models page: how much of the workspace's history it pools. */
+export interface FamilySummary extends FamilyInfo {
+  trials: number;
+  variants: number;
+  lastCook: string | null;
+}
+
 /* ---------- the data set ---------- */
 
 export interface DatasetRow {
@@ -205,14 +212,8 @@ export type FitOptions = z.infer<typeof fitOptionsSchema>;
 
 /* ---------- the fitted family model ---------- */
 
-export interface ResponseModel {
-  key: ResponseKey;
-  name: string;
-  unit: string;
-  kind: ResponseKind;
-  decimals: number;
-  libraryKey: string | null;
-  scale: { min: number; max: number } | null;
+/** A response with its fitted model. */
+export interface ResponseModel extends ResponseInfo {
   /** Plain JSON: serialisable to the client, where predictResponse() runs on it. */
   surface: ResponseSurface;
   /** How the runs were weighted, in words for the page. */

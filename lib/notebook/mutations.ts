@@ -16,7 +16,7 @@ import { assertNotebookScope } from './queries';
 import { formatDateTime } from '@/lib/format/dates';
 import { EMPTY_NOTEBOOK_DOC, type TiptapDoc } from './shape';
 import { findDocProblems, mergeKeepingBoth } from './document';
-import { type ResolveNotebookConflictInput, type SaveNotebookInput, type SaveNotebookResult } from './schema';
+import { type ConflictResolution, type ResolveNotebookConflictInput, type SaveNotebookInput, type SaveNotebookResult } from './schema';
 
 async function nameOf(tx: EntityManager, userId: string | undefined | null): Promise<string | null> {
   if (!userId) return null;
@@ -84,15 +84,6 @@ export async function saveEntry(actor: Actor, input: SaveNotebookInput): Promise
  * appends the kept document under a heading naming its author and time. The conflict row
  * stays, marked resolved, so the history of what was kept is never lost.
  */
-export interface ConflictResolution {
-  entryId: string;
-  trialId: string;
-  variantId: string | null;
-  /** The entry's version afterwards (unchanged for 'theirs'). */
-  version: number;
-  keep: ResolveNotebookConflictInput['keep'];
-}
-
 export async function resolveConflict(actor: Actor, input: ResolveNotebookConflictInput): Promise<ConflictResolution> {
   const em = await getEm();
   return em.transactional(async (tx) => {

@@ -70,3 +70,12 @@ export type SaveNotebookResult =
       current: { doc: TiptapDoc; updatedByName: string | null; updatedAt: string | null };
     };
 
+/** What resolving a conflict did (lib/notebook/mutations.ts resolveConflict). */
+export interface ConflictResolution {
+  entryId: string;
+  trialId: string;
+  variantId: string | null;
+  /** The entry's version afterwards (unchanged for 'theirs'). */
+  version: number;
+  keep: ResolveNotebookConflictInput['keep'];
+}

@@ -98,7 +98,7 @@ async function pointsBetween(source: Source, workspaceId: string, subjectIds: re
 }
 
 /** What costing some formulas needs, read in one statement (lib/costs loadCostBasis). */
-export interface CostingData {
+interface CostingData {
   settings: CostSettingsView;
   refuse: Map<string, number>;
   packFormats: Map<string, PackFormatData>;

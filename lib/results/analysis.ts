@@ -6,6 +6,7 @@ import {
   analyseDiscriminationTest, blockedAnova, compareTreatmentMeans, describeTreatments, friedmanTest, penaltyAnalysis,
   type AnovaResult, type ComparisonResult, type DiscriminationResult, type FriedmanResult, type GroupDescription, type PenaltyAnalysisResult,
 } from '@/lib/stats';
+import type { SummaryTable } from './schema';
 
 export interface TastingDataSample {
   sampleId: string;
@@ -122,6 +123,21 @@ function verdictFor(attr: TastingDataAttribute, anova: AnovaResult, cmp: Compari
   return { headline, differs: true, cautions };
 }
 
+/** A rated tasting with a liking attribute runs a penalty analysis on each just-about-right attribute. */
+function likingForPenalties(data: Pick<TastingData, 'method' | 'attributes'>): TastingDataAttribute | undefined {
+  return data.method === 'rated' ? data.attributes.find((a) => a.purpose === 'liking') : undefined;
+}
+
+/**
+ * The summary tables a tasting gives, known from its set-up before any answer is read: the results
+ * page links their CSVs while the statistics are still loading. Means and ANOVA always (empty for a
+ * ranking or a triangle), penalties, triangle and ranking as analyseTasting() fills them.
+ */
+export function summaryTablesOf(data: Pick<TastingData, 'method' | 'attributes'>): SummaryTable[] {
+  const penalties = likingForPenalties(data) !== undefined && data.attributes.some((a) => a.purpose === 'just-about-right');
+  return ['means', 'anova', ...(penalties ? (['penalty'] as const) : []), ...(data.method === 'triangle' ? (['triangle'] as const) : []), ...(data.method === 'ranking' ? (['ranking'] as const) : [])];
+}
+
 /**
  * Pairs each JAR answer with the same taster's liking of the same sample. Penalty analysis is run
  * per sample: a drop in liking means something only within one product (pooling lets one sample's
@@ -132,7 +148,7 @@ export function analyseTasting(data: TastingData, options: AnalysisOptions = {})
   const out: TastingAnalysis = { method: data.method, attributes: [], jarShares: [] };
 
   if (data.method === 'rated') {
-    const liking = data.attributes.find((a) => a.purpose === 'liking');
+    const liking = likingForPenalties(data);
     for (const attr of data.attributes) {
       const obs = data.answers
         .filter((a) => a.kind === 'rating' && a.attribute === attr.id && a.sampleId && a.value !== null)

@@ -3,10 +3,12 @@ import 'server-only';
 import { getEm } from '@/lib/db';
 import { TastingSeat } from '@/entities';
 import type { Actor } from '@/lib/permissions';
-import { loadTastingRows, tastingView, type TastingView } from '@/lib/tastings/queries';
+import { loadTastingRows, tastingView } from '@/lib/tastings/queries';
+import type { TastingView } from '@/lib/tastings/schema';
 import { toCsv } from '@/lib/csv';
-import { type AnalysisOptions, type TastingAnalysis, type TastingData } from './analysis';
+import { summaryTablesOf, type AnalysisOptions, type TastingAnalysis, type TastingData, type TastingDataAttribute } from './analysis';
 import { analyseRemembered } from './analysis-memo';
+import type { ResultsSetup, SummaryTable } from './schema';
 
 type AnswerRow = { seat_id: string; kind: TastingData['answers'][number]['kind']; attribute: string; sample_id: string | null; value: number | null; ranking: string[] | null; correct: boolean | null };
 
@@ -25,45 +27,76 @@ async function answerRows(actor: Actor, tastingId: string): Promise<Array<Answer
   return rows.map((r) => ({ ...r, seat: { id: r.seat_id } }));
 }
 
+/** The set-up of a tasting's results from its rows: everything but the answers (the tasting's 404 is decided reading the rows). */
+function resultsSetupOf(rows: Awaited<ReturnType<typeof loadTastingRows>>): ResultsSetup {
+  const { s, attrs, seats } = rows;
+  // Seat progress is not shown with the results: no answers are needed for the rest of the view.
+  const { title, state, samples } = tastingView(rows, []);
+  const attributes: TastingDataAttribute[] = s.attributeIds.map((id) => attrs.find((a) => a.id === id)).filter((a): a is NonNullable<typeof a> => !!a).map((a) => ({
+    id: a.id,
+    name: a.name,
+    purpose: a.scale.purpose === 'liking' ? 'liking' : a.scale.purpose === 'just-about-right' ? 'just-about-right' : 'intensity',
+    highAnchor: a.scale.kind === 'line' ? a.scale.highAnchor : undefined,
+  }));
+  return {
+    tastingId: s.id,
+    session: { title, state, samples },
+    method: s.method,
+    attributes,
+    seats: seats.map((x) => ({ id: x.id, seatIndex: x.seatIndex, servingOrder: x.servingOrder.map((c) => ({ code: c.code, sampleId: c.sampleId })) })),
+    seatCount: seats.length,
+    submittedSeats: seats.filter((x) => x.submittedAt).length,
+    tables: summaryTablesOf({ method: s.method, attributes }),
+  };
+}
+
+/** The analysis's input: the set-up with its answers (a ranking's codes read as samples through each seat's serving order). */
+function tastingDataOf(setup: ResultsSetup, answers: AnswerRow[]): TastingData {
+  const seatIndex = new Map(setup.seats.map((x) => [x.id, x.seatIndex]));
+  const codeToSample = new Map<string, string>(setup.seats.flatMap((x) => x.servingOrder.map((c) => [`${x.id}|${c.code}`, c.sampleId] as [string, string])));
+  return {
+    method: setup.method,
+    samples: setup.session.samples.map((x) => ({ sampleId: x.sampleId, label: x.variantLabel, description: x.variantDescription })),
+    attributes: setup.attributes,
+    answers: answers.map((a) => {
+      const seatId = a.seat_id;
+      return {
+        seatIndex: seatIndex.get(seatId) ?? -1,
+        kind: a.kind,
+        attribute: a.attribute,
+        sampleId: a.sample_id ?? null,
+        value: a.value ?? null,
+        rankingSampleIds: a.ranking ? a.ranking.map((code) => codeToSample.get(`${seatId}|${code}`) ?? code) : null,
+        correct: a.correct ?? null,
+      };
+    }),
+    seatCount: setup.seatCount,
+    submittedSeats: setup.submittedSeats,
+  };
+}
+
 export async function loadTastingData(actor: Actor, tastingId: string): Promise<{ data: TastingData; session: TastingView }> {
   // One set of reads serves both the session view and the analysis.
   const [rows, answers] = await Promise.all([loadTastingRows(actor, tastingId), answerRows(actor, tastingId)]);
-  const { s, attrs, seats } = rows;
-  const session = tastingView(rows, answers);
-  const seatIndex = new Map(seats.map((x) => [x.id, x.seatIndex]));
-  const codeToSample = new Map<string, string>(seats.flatMap((x) => x.servingOrder.map((c) => [`${x.id}|${c.code}`, c.sampleId] as [string, string])));
-  return {
-    session,
-    data: {
-      method: s.method,
-      samples: session.samples.map((x) => ({ sampleId: x.sampleId, label: x.variantLabel, description: x.variantDescription })),
-      attributes: s.attributeIds.map((id) => attrs.find((a) => a.id === id)).filter((a): a is NonNullable<typeof a> => !!a).map((a) => ({
-        id: a.id,
-        name: a.name,
-        purpose: a.scale.purpose === 'liking' ? 'liking' : a.scale.purpose === 'just-about-right' ? 'just-about-right' : 'intensity',
-        highAnchor: a.scale.kind === 'line' ? a.scale.highAnchor : undefined,
-      })),
-      answers: answers.map((a) => {
-        const seatId = a.seat_id;
-        return {
-          seatIndex: seatIndex.get(seatId) ?? -1,
-          kind: a.kind,
-          attribute: a.attribute,
-          sampleId: a.sample_id ?? null,
-          value: a.value ?? null,
-          rankingSampleIds: a.ranking ? a.ranking.map((code) => codeToSample.get(`${seatId}|${code}`) ?? code) : null,
-          correct: a.correct ?? null,
-        };
-      }),
-      seatCount: seats.length,
-      submittedSeats: seats.filter((x) => x.submittedAt).length,
-    },
-  };
+  return { session: tastingView(rows, answers), data: tastingDataOf(resultsSetupOf(rows), answers) };
 }
 
 export async function getTastingResults(actor: Actor, tastingId: string, options: AnalysisOptions = {}): Promise<{ session: TastingView; analysis: TastingAnalysis; data: TastingData }> {
   const { data, session } = await loadTastingData(actor, tastingId);
   return { session, data, analysis: analyseRemembered(data, options) };
+}
+
+/**
+ * The results page in two steps: the set-up first (the tasting of this workspace, or 404), shown
+ * at once; then the answers and their analysis (analyseResults), which never decide a 404.
+ */
+export async function loadResultsSetup(actor: Actor, tastingId: string): Promise<ResultsSetup> {
+  return resultsSetupOf(await loadTastingRows(actor, tastingId));
+}
+
+/** The statistics of a set-up loadResultsSetup() returned: its answers read (scoped to the workspace) and analysed. */
+export async function analyseResults(actor: Actor, setup: ResultsSetup, options: AnalysisOptions = {}): Promise<TastingAnalysis> {
+  return analyseRemembered(tastingDataOf(setup, await answerRows(actor, setup.tastingId)), options);
 }
 
 /** Raw answers, one row per answer: session, seat, code, variant, attribute, value. */
@@ -83,9 +116,6 @@ export async function answersCsv(actor: Actor, tastingId: string): Promise<strin
     { header: 'value', value: (a) => (a.kind === 'rating' ? a.value : a.kind === 'ranking' ? (a.rankingSampleIds ?? []).map((id) => label.get(id) ?? id).join('>') : a.correct ? 'correct' : 'wrong') },
   ]);
 }
-
-export const SUMMARY_TABLES = ['means', 'anova', 'penalty', 'triangle', 'ranking'] as const;
-export type SummaryTable = (typeof SUMMARY_TABLES)[number];
 
 /** Every summary table of the results page as CSV: means (default), anova, penalty, triangle, ranking. */
 export async function summaryCsv(actor: Actor, tastingId: string, table: SummaryTable = 'means'): Promise<string> {

@@ -4,48 +4,13 @@ import { getEm } from '@/lib/db';
 import { TastingAnswer, TastingSample, TastingSeat, Tasting, SensoryAttributeDef, Variant } from '@/entities';
 import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
 import { trialCode } from '@/lib/trials/access';
-import type { TastingMethod, TastingState } from './vocabulary';
-
-export interface SeatProgress {
-  seatIndex: number;
-  displayName: string;
-  kind: 'staff' | 'guest';
-  answered: number;
-  expected: number;
-  consented: boolean;
-  status: 'joined' | 'answering' | 'submitted' | 'partial';
-  lastSeenAt: string | null;
-}
-
-export interface TastingView {
-  id: string;
-  trialId: string;
-  title: string;
-  place: string | null;
-  startsAt: string | null;
-  method: TastingMethod;
-  state: TastingState;
-  notice: string;
-  joinCode: string | null;
-  samples: Array<{ sampleId: string; variantId: string; variantLabel: string; variantDescription: string; code: string | null }>;
-  attributes: Array<{ id: string; name: string }>;
-  /** The set-up as chosen: the rated attributes and, for a ranking, the attribute ranked by. */
-  ratedAttributeIds: string[];
-  rankingAttributeId: string | null;
-  seats: SeatProgress[];
-  createdAt: string;
-  openedAt: string | null;
-  closedAt: string | null;
-}
+import type { TastingState } from './vocabulary';
+import type { MySeat, SeatProgress, TastingSummary, TastingView, TrialTastingRow } from './schema';
 
 export async function listAttributes(actor: Actor) {
   const em = await getEm();
   const rows = await em.find(SensoryAttributeDef, inWorkspace(actor), { orderBy: { createdAt: 'asc' } });
   return rows.map((r) => ({ id: r.id, name: r.name, instruction: r.instruction, modality: r.modality, scaleName: r.scale.name, libraryKey: r.libraryKey ?? null }));
-}
-
-export interface TrialTastingRow {
-  id: string; trialId: string; title: string; method: TastingMethod; state: TastingState; seats: number; submitted: number; createdAt: string;
 }
 
 export async function listTrialTastings(actor: Actor, trialId?: string): Promise<TrialTastingRow[]> {
@@ -151,19 +116,6 @@ export async function getServingSheet(actor: Actor, tastingId: string) {
   };
 }
 
-export interface TastingSummary {
-  id: string;
-  title: string;
-  method: TastingMethod;
-  state: TastingState;
-  trial: { id: string; code: string; title: string };
-  place: string | null;
-  startsAt: string | null;
-  seats: number;
-  submitted: number;
-  createdAt: string;
-}
-
 /** The workspace's tastings, newest first; filters come from the URL (state, trial). */
 export async function listTastings(actor: Actor, filter: { state?: TastingState; trialId?: string } = {}): Promise<TastingSummary[]> {
   const em = await getEm();
@@ -181,17 +133,6 @@ export async function listTastings(actor: Actor, filter: { state?: TastingState;
       seats: mine.length, submitted: mine.filter((s) => s.submittedAt).length, createdAt: r.createdAt.toISOString(),
     };
   });
-}
-
-export interface MySeat {
-  tastingId: string;
-  title: string;
-  place: string | null;
-  startsAt: string | null;
-  state: TastingState;
-  submitted: boolean;
-  /** Open and not yet submitted: the taster still has answers to give. */
-  waiting: boolean;
 }
 
 /** The signed-in person's seats in this workspace: the ones still to answer first, then by date. Only what a taster may see. */

@@ -1,6 +1,7 @@
 /** Tastings and taster answers: zod schemas shared by the API, actions and the phone flow. */
 import { z } from 'zod';
 import { TASTING_METHODS, TASTING_STATES } from './vocabulary';
+import type { TastingMethod, TastingState } from './vocabulary';
 import { isoDateTime, longText, name, text } from '@/lib/input';
 
 const code = z.string().regex(/^\d{3}$/, 'A sample code has three digits.');
@@ -76,3 +77,61 @@ export interface TasterView {
 export type TasterScale =
   | { kind: 'category'; points: Array<{ value: number; label: string }> }
   | { kind: 'line'; min: number; max: number; step: number; lowAnchor: string; highAnchor: string };
+
+/* The organiser's views (lib/tastings/queries.ts reads them). */
+
+export interface SeatProgress {
+  seatIndex: number;
+  displayName: string;
+  kind: 'staff' | 'guest';
+  answered: number;
+  expected: number;
+  consented: boolean;
+  status: 'joined' | 'answering' | 'submitted' | 'partial';
+  lastSeenAt: string | null;
+}
+export interface TastingView {
+  id: string;
+  trialId: string;
+  title: string;
+  place: string | null;
+  startsAt: string | null;
+  method: TastingMethod;
+  state: TastingState;
+  notice: string;
+  joinCode: string | null;
+  samples: Array<{ sampleId: string; variantId: string; variantLabel: string; variantDescription: string; code: string | null }>;
+  attributes: Array<{ id: string; name: string }>;
+  /** The set-up as chosen: the rated attributes and, for a ranking, the attribute ranked by. */
+  ratedAttributeIds: string[];
+  rankingAttributeId: string | null;
+  seats: SeatProgress[];
+  createdAt: string;
+  openedAt: string | null;
+  closedAt: string | null;
+}
+export interface TrialTastingRow {
+  id: string; trialId: string; title: string; method: TastingMethod; state: TastingState; seats: number; submitted: number; createdAt: string;
+}
+export interface TastingSummary {
+  id: string;
+  title: string;
+  method: TastingMethod;
+  state: TastingState;
+  trial: { id: string; code: string; title: string };
+  place: string | null;
+  startsAt: string | null;
+  seats: number;
+  submitted: number;
+  createdAt: string;
+}
+export interface MySeat {
+  tastingId: string;
+  title: string;
+  place: string | null;
+  startsAt: string | null;
+  state: TastingState;
+  submitted: boolean;
+  /** Open and not yet submitted: the taster still has answers to give. */
+  waiting: boolean;
+}

@@ -7,7 +7,7 @@ import { compareCook } from './compare';
 import { trialCode } from './access';
 import type { Loaded } from '@mikro-orm/core';
 import type { CookEntity } from '@/entities/Cook';
-import { cookValues, type CookChangeView, type CookView, type TrialListQuery, type TrialOverview, type TrialSummary, type VariantView } from './schema';
+import { cookValues, type CookChangeView, type CookView, type StoveItem, type TrialListQuery, type TrialOverview, type TrialSummary, type VariantView } from './schema';
 
 export async function listTrials(actor: Actor, query: TrialListQuery = {}): Promise<TrialSummary[]> {
   const em = await getEm();
@@ -137,14 +137,6 @@ export async function listTrialBases(actor: Actor): Promise<Array<{ formulaId: s
 export async function revisionExists(actor: Actor, formulaId: string, number: number): Promise<boolean> {
   const em = await getEm();
   return (await em.count(FormulaRevision, { ...inWorkspace(actor), formula: formulaId, number })) > 0;
-}
-
-export interface StoveItem {
-  id: string;
-  code: string;
-  title: string;
-  /** Variants still in the trial with no cook that counts (withdrawn cooks do not). */
-  uncooked: string[];
 }
 
 /** The developer's trials at the stove (status cooking) and which of their variants are not cooked yet. */

@@ -222,3 +222,12 @@ export interface TrialOverview {
   variants: VariantView[];
   history: StatusChangeView[];
 }
+
+/** A trial at the stove on the developer's home page. */
+export interface StoveItem {
+  id: string;
+  code: string;
+  title: string;
+  /** Variants still in the trial with no cook that counts (withdrawn cooks do not). */
+  uncooked: string[];
+}

@@ -7,9 +7,9 @@ import { isUuid } from '@/lib/ids';
 import { loadTrial } from '@/lib/trials/access';
 import { getObject } from '@/lib/storage';
 import { cleanFileName, contentDisposition, PHOTO_CONTENT_TYPES } from './content';
-import { thumbnailUrl, uploadUrl, uploadListQuerySchema, type UploadKind, type UploadListQuery, type UploadSubject, type UploadView } from './schema';
+import { thumbnailUrl, uploadUrl, uploadListQuerySchema, type UploadDownload, type UploadKind, type UploadListQuery, type UploadSubject, type UploadView } from './schema';
 
-export interface UploadRow {
+interface UploadRow {
   id: string;
   kind: UploadKind;
   subject?: string | null;
@@ -77,11 +77,6 @@ export async function findUploadRow(actor: Actor, uploadId: string): Promise<Upl
 
 export async function getUpload(actor: Actor, uploadId: string): Promise<UploadView> {
   return toUploadView(await findUploadRow(actor, uploadId));
-}
-
-export interface UploadDownload {
-  body: ReadableStream<Uint8Array>;
-  headers: Record<string, string>;
 }
 
 /**

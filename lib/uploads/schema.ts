@@ -110,3 +110,9 @@ export function uploadUrl(uploadId: string): string {
 export function thumbnailUrl(uploadId: string): string {
   return `/api/v1/uploads/${uploadId}/thumbnail`;
 }
+
+/** A stored file as a download answers it. */
+export interface UploadDownload {
+  body: ReadableStream<Uint8Array>;
+  headers: Record<string, string>;
+}

@@ -1,13 +1,7 @@
 import 'server-only';
 import { getEm } from '@/lib/db';
 import { Membership } from '@/entities';
-import type { Role } from '@/lib/permissions';
-
-export interface WorkspaceChoice {
-  workspaceId: string;
-  name: string;
-  role: Role;
-}
+import type { WorkspaceChoice } from './schema';
 
 /** The workspaces a user can switch between: their active memberships only. */
 export async function listMyWorkspaces(userId: string): Promise<WorkspaceChoice[]> {

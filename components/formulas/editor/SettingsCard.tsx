@@ -2,7 +2,7 @@
 
 import { PRESERVATION_LABELS, PRESERVATION_METHODS, type UnitPreference } from '@/lib/chemistry';
 import { PRODUCT_CLASS_LABELS, PRODUCT_CLASSES, RULE_SET_LABELS, RULE_SETS } from '@/lib/formulas/schema';
-import { altitudeScale, draftFromText, jarFillScale, temperatureScale, type MeasuredDraft, type TemperatureUnit } from '@/lib/format/quantities';
+import { altitudeScale, draftFromText, jarFillScale, temperatureScale, type DisplayScale, type MeasuredDraft, type TemperatureUnit } from '@/lib/format/quantities';
 import { Card } from '@/components/ui/Card';
 import { Field, SelectField } from '@/components/ui/Field';
 import { settingsTextToDraft, type SettingsDraft } from '../editor-state';
@@ -10,6 +10,40 @@ import { settingsTextToDraft, type SettingsDraft } from '../editor-state';
 const productClassOptions = PRODUCT_CLASSES.map((c) => ({ value: c, label: PRODUCT_CLASS_LABELS[c] }));
 const ruleSetOptions = RULE_SETS.map((r) => ({ value: r, label: RULE_SET_LABELS[r] }));
 const preservationOptions = [{ value: '', label: 'Not stated (sugar and acidity alone)' }, ...PRESERVATION_METHODS.map((m) => ({ value: m, label: PRESERVATION_LABELS[m] }))];
+
+/** The settings typed as numbers; each keeps its draft (typed text + value in storage units) under this key. */
+type NumericSettingKey = 'targetSolids' | 'jarFill' | 'plannedPh' | 'altitude' | 'measuredBoiling';
+/** The user's display unit of a setting kept in storage units (g, m, °C). */
+type SettingScale = 'jarFill' | 'altitude' | 'boiling';
+
+interface NumericSetting {
+  /** The schema's field (`settings.…`): the input's name and the key of its errors. */
+  name: string;
+  id: string;
+  label: string;
+  /** A unit that never changes, or the display scale the unit and the conversion come from; neither for a plain number. */
+  unit?: string;
+  scale?: SettingScale;
+  hint?: string;
+}
+
+/** One row per numeric setting; the bounds are the shared schema's (formulaSettingsSchema), checked on every change. */
+const NUMERIC_SETTINGS: Record<NumericSettingKey, NumericSetting> = {
+  targetSolids: { name: 'settings.targetSolidsPct', id: 'setting-targetSolidsPct', label: 'Target final soluble solids', unit: '%' },
+  jarFill: { name: 'settings.jarNetFillG', id: 'setting-jarNetFill', label: 'Jar net fill', scale: 'jarFill' },
+  plannedPh: { name: 'settings.plannedPh', id: 'setting-plannedPh', label: 'Planned pH (optional)' },
+  altitude: { name: 'settings.altitudeM', id: 'setting-altitude', label: 'Kitchen altitude', scale: 'altitude', hint: 'Leave empty for sea level.' },
+  measuredBoiling: {
+    name: 'settings.measuredWaterBoilingC',
+    id: 'setting-measuredBoiling',
+    label: 'Measured water boiling point',
+    scale: 'boiling',
+    hint: "Boil plain water in your pan and read the thermometer; it captures the day's weather too.",
+  },
+};
+/** Shown in the grid, in this order; the boiling point's two ways sit in their own fieldset. */
+const GRID_SETTINGS: NumericSettingKey[] = ['targetSolids', 'jarFill', 'plannedPh'];
+const BOILING_SETTING: Record<SettingsDraft['boilingReference'], NumericSettingKey> = { altitude: 'altitude', measured: 'measuredBoiling' };
 
 /** A typed value that is not a number, before the server is asked. */
 function numberProblem(draft: MeasuredDraft): string[] {
@@ -32,14 +66,31 @@ export function SettingsCard({
   /** A change to the settings; `errorKey` names the field whose error it clears. */
   onChange: (patch: Partial<SettingsDraft>, errorKey?: string) => void;
 }) {
-  const jarScale = jarFillScale(system);
-  const altScale = altitudeScale(system);
-  const bpScale = temperatureScale(temperatureUnit);
+  const scales: Record<SettingScale, DisplayScale> = { jarFill: jarFillScale(system), altitude: altitudeScale(system), boiling: temperatureScale(temperatureUnit) };
   const fieldErrors = (key: string, draft?: MeasuredDraft) => {
     const list = [...(draft ? numberProblem(draft) : []), ...(errors[key] ?? [])];
     return list.length ? list : undefined;
   };
   const updateSettings = onChange;
+  const numericField = (key: NumericSettingKey) => {
+    const setting = NUMERIC_SETTINGS[key];
+    const scale = setting.scale ? scales[setting.scale] : null;
+    const unit = scale ? scale.unitLabel : setting.unit;
+    const draft = settings[key];
+    return (
+      <Field
+        key={key}
+        label={unit ? `${setting.label} (${unit})` : setting.label}
+        name={setting.name}
+        id={setting.id}
+        inputMode="decimal"
+        value={draft.text}
+        onChange={(e) => updateSettings({ [key]: scale ? draftFromText(e.target.value, scale) : settingsTextToDraft(e.target.value) }, setting.name)}
+        errors={fieldErrors(setting.name, draft)}
+        hint={setting.hint}
+      />
+    );
+  };
   return (
     <Card title="Settings">
       <div className="grid gap-4 sm:grid-cols-2">
@@ -71,33 +122,7 @@ export function SettingsCard({
           errors={errors['settings.ruleDate']}
           hint="Selects the edition of the rules, e.g. the EU minimums that change on 14 June 2026."
         />
-        <Field
-          label="Target final soluble solids (%)"
-          name="settings.targetSolidsPct"
-          id="setting-targetSolidsPct"
-          inputMode="decimal"
-          value={settings.targetSolids.text}
-          onChange={(e) => updateSettings({ targetSolids: settingsTextToDraft(e.target.value) }, 'settings.targetSolidsPct')}
-          errors={fieldErrors('settings.targetSolidsPct', settings.targetSolids)}
-        />
-        <Field
-          label={`Jar net fill (${jarScale.unitLabel})`}
-          name="settings.jarNetFillG"
-          id="setting-jarNetFill"
-          inputMode="decimal"
-          value={settings.jarFill.text}
-          onChange={(e) => updateSettings({ jarFill: draftFromText(e.target.value, jarScale) }, 'settings.jarNetFillG')}
-          errors={fieldErrors('settings.jarNetFillG', settings.jarFill)}
-        />
-        <Field
-          label="Planned pH (optional)"
-          name="settings.plannedPh"
-          id="setting-plannedPh"
-          inputMode="decimal"
-          value={settings.plannedPh.text}
-          onChange={(e) => updateSettings({ plannedPh: settingsTextToDraft(e.target.value) }, 'settings.plannedPh')}
-          errors={fieldErrors('settings.plannedPh', settings.plannedPh)}
-        />
+        {GRID_SETTINGS.map(numericField)}
         <SelectField
           label="Preservation besides sugar"
           name="settings.preservation"
@@ -132,29 +157,7 @@ export function SettingsCard({
             </label>
           </div>
           <div className="mt-2 max-w-xs">
-            {settings.boilingReference === 'altitude' ? (
-              <Field
-                label={`Kitchen altitude (${altScale.unitLabel})`}
-                name="settings.altitudeM"
-                id="setting-altitude"
-                inputMode="decimal"
-                value={settings.altitude.text}
-                onChange={(e) => updateSettings({ altitude: draftFromText(e.target.value, altScale) }, 'settings.altitudeM')}
-                errors={fieldErrors('settings.altitudeM', settings.altitude)}
-                hint="Leave empty for sea level."
-              />
-            ) : (
-              <Field
-                label={`Measured water boiling point (${bpScale.unitLabel})`}
-                name="settings.measuredWaterBoilingC"
-                id="setting-measuredBoiling"
-                inputMode="decimal"
-                value={settings.measuredBoiling.text}
-                onChange={(e) => updateSettings({ measuredBoiling: draftFromText(e.target.value, bpScale) }, 'settings.measuredWaterBoilingC')}
-                errors={fieldErrors('settings.measuredWaterBoilingC', settings.measuredBoiling)}
-                hint="Boil plain water in your pan and read the thermometer; it captures the day's weather too."
-              />
-            )}
+            {numericField(BOILING_SETTING[settings.boilingReference])}
           </div>
         </fieldset>
       </div>

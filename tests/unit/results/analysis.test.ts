@@ -1,5 +1,5 @@
 import { describe, it, expect } from 'vitest';
-import { analyseTasting, formatP, type TastingData } from '@/lib/results/analysis';
+import { analyseTasting, formatP, summaryTablesOf, type TastingData, type TastingDataAttribute } from '@/lib/results/analysis';
 
 // Source: Montgomery, Design and Analysis of Experiments, Example 4.1 (vascular graft, RCBD):
 // four treatments × six blocks; treatments F = 8.10708, p = 0.0019163. Here the treatments are
@@ -129,5 +129,42 @@ describe('p-value wording', () => {
     expect(formatP(0.0019163)).toBe('p = 0.002');
     expect(formatP(0.00001)).toBe('p < 0.001');
     expect(formatP(null)).toBe('p not available');
+  });
+});
+
+describe('summary tables known from the set-up', () => {
+  // The results page links the CSV tables before the answers are analysed: the set-up alone must
+  // name exactly the tables the analysis then fills, with or without answers.
+  const LIKING: TastingDataAttribute = { id: 'like', name: 'Overall liking', purpose: 'liking' };
+  const JAR: TastingDataAttribute = { id: 'sweet', name: 'Sweetness', purpose: 'just-about-right' };
+  const FIRM: TastingDataAttribute = { id: 'firm', name: 'Set firmness', purpose: 'intensity' };
+  const samples = [{ sampleId: 'x', label: 'A', description: '' }, { sampleId: 'y', label: 'B', description: '' }];
+  const setups: Array<Pick<TastingData, 'method' | 'attributes'>> = [
+    { method: 'rated', attributes: [] },
+    { method: 'rated', attributes: [FIRM] },
+    { method: 'rated', attributes: [JAR] },
+    { method: 'rated', attributes: [LIKING] },
+    { method: 'rated', attributes: [LIKING, JAR] },
+    { method: 'rated', attributes: [JAR, FIRM, LIKING] },
+    { method: 'ranking', attributes: [LIKING, JAR] },
+    { method: 'triangle', attributes: [] },
+  ];
+  const answersFor = (setup: Pick<TastingData, 'method' | 'attributes'>): TastingData['answers'] =>
+    setup.method === 'rated'
+      ? setup.attributes.flatMap((a) => samples.flatMap((s, i) => [0, 1, 2].map((seatIndex) => ({ seatIndex, kind: 'rating' as const, attribute: a.id, sampleId: s.sampleId, value: 2 + ((seatIndex + i) % 3), rankingSampleIds: null, correct: null }))))
+      : setup.method === 'ranking'
+        ? [0, 1, 2].map((seatIndex) => ({ seatIndex, kind: 'ranking' as const, attribute: 'ranking', sampleId: null, value: null, rankingSampleIds: seatIndex ? ['x', 'y'] : ['y', 'x'], correct: null }))
+        : [0, 1, 2].map((seatIndex) => ({ seatIndex, kind: 'triangle' as const, attribute: 'triangle', sampleId: null, value: null, rankingSampleIds: null, correct: seatIndex > 0 }));
+
+  it.each(setups.flatMap((setup) => [{ setup, answered: false }, { setup, answered: true }]))('$setup.method with $setup.attributes.length attributes (answered: $answered)', ({ setup, answered }) => {
+    const analysis = analyseTasting({ ...setup, samples, answers: answered ? answersFor(setup) : [], seatCount: 3, submittedSeats: answered ? 3 : 0 });
+    const filled = ['means', 'anova', ...(analysis.attributes.some((a) => a.penalties) ? ['penalty'] : []), ...(analysis.triangle ? ['triangle'] : []), ...(analysis.ranking ? ['ranking'] : [])];
+    expect(summaryTablesOf(setup)).toEqual(filled);
+  });
+
+  it('names penalties only for a rated tasting with liking and a just-about-right attribute', () => {
+    expect(summaryTablesOf({ method: 'rated', attributes: [LIKING, JAR] })).toContain('penalty');
+    expect(summaryTablesOf({ method: 'rated', attributes: [JAR] })).not.toContain('penalty');
+    expect(summaryTablesOf({ method: 'ranking', attributes: [LIKING, JAR] })).toEqual(['means', 'anova', 'ranking']);
   });
 });

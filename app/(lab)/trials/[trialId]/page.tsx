@@ -1,6 +1,7 @@
+import { Suspense } from 'react';
 import Link from 'next/link';
 import { requirePage, orNotFound, pageId } from '@/lib/page-guard';
-import { can } from '@/lib/permissions';
+import { can, type Actor } from '@/lib/permissions';
 import { getTrialOverview } from '@/lib/trials/queries';
 import { measureFactor, type MassLine } from '@/lib/trials/plan';
 import { TRIAL_FACTORS, TRIAL_STATUS_LABELS, type TrialFactor } from '@/lib/trials/vocabulary';
@@ -20,6 +21,7 @@ import { listTrialTastings } from '@/lib/tastings/queries';
 import { TASTING_METHOD_LABELS, TASTING_STATE_LABELS } from '@/lib/tastings/vocabulary';
 import { buttonClass } from '@/components/ui/Button';
 import { formatDate, formatDateTime } from '@/lib/format/dates';
+import { Skeleton } from '@/components/ui/Skeleton';
 
 export const dynamic = 'force-dynamic';
 export const metadata = { title: 'Trial' };
@@ -40,15 +42,14 @@ function baseLevelsOf(lines: MassLine[], settings: { targetSolidsPct: number }):
 export default async function TrialPage({ params }: { params: Promise<{ trialId: string }> }) {
   const actor = await requirePage('trials.read');
   const trialId = pageId((await params).trialId);
-  // All five reads at once, each on its own forked EntityManager. The overview checks the trial (a
-  // 404 otherwise); the notebook, the uploads, the tastings and the costs are workspace-scoped reads
-  // of the same trial, so they skip their own check of it.
-  const [trial, notebook, uploads, panels, costs] = await orNotFound(
+  // Four reads at once, each on its own forked EntityManager. The overview checks the trial (a 404
+  // otherwise); the notebook, the uploads and the costs are workspace-scoped reads of the same
+  // trial, so they skip their own check of it. The tastings list streams in below (TrialTastings).
+  const [trial, notebook, uploads, costs] = await orNotFound(
     Promise.all([
       getTrialOverview(actor, trialId),
       readEntry(actor, trialId, null),
       readUploads(actor, trialId),
-      can(actor.role, 'tastings.read') ? listTrialTastings(actor, trialId) : Promise.resolve([]),
       can(actor.role, 'prices.read') ? trialCosts(actor, trialId) : Promise.resolve(null),
     ]),
   );
@@ -84,18 +85,11 @@ export default async function TrialPage({ params }: { params: Promise<{ trialId:
               <h2 id="panels-title" className="text-lg font-semibold">Tastings</h2>
               {can(actor.role, 'tastings.run') ? <Link href={`/trials/${trial.id}/tastings/new`} className={buttonClass('secondary')}>New tasting</Link> : null}
             </div>
-            {panels.length === 0 ? (
-              <p className="mt-2 text-sm text-rind-600">No tasting yet. When the variants are cooked, set up a blind tasting: codes and serving orders are drawn for you.</p>
-            ) : (
-              <ul className="mt-3 divide-y divide-pith-200 text-sm" data-testid="tasting-list">
-                {panels.map((p) => (
-                  <li key={p.id} className="flex flex-wrap items-center justify-between gap-2 py-2">
-                    <Link href={`/tastings/${p.id}`} className="font-medium text-damson-800 underline-offset-2 hover:underline">{p.title}</Link>
-                    <span className="text-rind-600">{TASTING_METHOD_LABELS[p.method]} · {TASTING_STATE_LABELS[p.state]} · {p.submitted} of {p.seats} seats submitted</span>
-                  </li>
-                ))}
-              </ul>
-            )}
+            {can(actor.role, 'tastings.read') ? (
+              <Suspense fallback={<div className="mt-3"><Skeleton what="the tastings" lines={2} /></div>}>
+                <TrialTastings actor={actor} trialId={trial.id} />
+              </Suspense>
+            ) : <NoTastingYet />}
           </section>
           {canEdit ? <CsvImport trialId={trial.id} /> : null}
           <Attachments trialId={trial.id} uploads={uploads} canEdit={canEdit} />
@@ -122,5 +116,28 @@ export default async function TrialPage({ params }: { params: Promise<{ trialId:
         </aside>
       </div>
     </>
+  );
+}
+
+function NoTastingYet() {
+  return <p className="mt-2 text-sm text-rind-600">No tasting yet. When the variants are cooked, set up a blind tasting: codes and serving orders are drawn for you.</p>;
+}
+
+/**
+ * The trial's tastings, read while the rest of the page is already on screen. It decides no 404
+ * or 403 (the page did, before streaming began; one decided here would go out as HTTP 200).
+ */
+async function TrialTastings({ actor, trialId }: { actor: Actor; trialId: string }) {
+  const tastings = await listTrialTastings(actor, trialId);
+  if (tastings.length === 0) return <NoTastingYet />;
+  return (
+    <ul className="mt-3 divide-y divide-pith-200 text-sm" data-testid="tasting-list">
+      {tastings.map((p) => (
+        <li key={p.id} className="flex flex-wrap items-center justify-between gap-2 py-2">
+          <Link href={`/tastings/${p.id}`} className="font-medium text-damson-800 underline-offset-2 hover:underline">{p.title}</Link>
+          <span className="text-rind-600">{TASTING_METHOD_LABELS[p.method]} · {TASTING_STATE_LABELS[p.state]} · {p.submitted} of {p.seats} seats submitted</span>
+        </li>
+      ))}
+    </ul>
   );
 }
