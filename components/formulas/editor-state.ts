@@ -119,6 +119,8 @@ export interface SettingsDraft {
   altitude: MeasuredDraft;
   measuredBoiling: MeasuredDraft;
   plannedPh: MeasuredDraft;
+  /** % of the sucrose inverted during the boil; empty: none assumed. */
+  sucroseInversion: MeasuredDraft;
   /** '' while not stated. */
   preservation: PreservationMethod | '';
 }
@@ -152,6 +154,7 @@ export function initialSettingsDraft(options: {
     altitude: draftFromBase(s.altitudeM, altitudeScale(options.system)),
     measuredBoiling: draftFromBase(s.measuredWaterBoilingC, temperatureScale(options.temperatureUnit)),
     plannedPh: draftFromBase(s.plannedPh, IDENTITY_SCALE),
+    sucroseInversion: draftFromBase(s.sucroseInversionPct, IDENTITY_SCALE),
     preservation: s.preservation ?? '',
   };
 }
@@ -186,6 +189,7 @@ export function settingsFromDraft(draft: SettingsDraft): FormulaSettingsInput {
     measuredWaterBoilingC: useAltitude ? null : draft.measuredBoiling.base,
     plannedPh: draft.plannedPh.base,
     preservation: draft.preservation || null,
+    sucroseInversionPct: draft.sucroseInversion.base,
   };
 }
 
@@ -208,6 +212,7 @@ const SETTING_LABELS: Record<string, string> = {
   'settings.altitudeM': 'Kitchen altitude',
   'settings.measuredWaterBoilingC': 'Measured water boiling point',
   'settings.plannedPh': 'Planned pH',
+  'settings.sucroseInversionPct': 'Sucrose inverted in the boil',
   'settings.ruleDate': 'Rule date',
   lines: 'Lines',
 };
@@ -283,6 +288,7 @@ export const PLACEABLE_FIELDS: readonly string[] = [
   'settings.altitudeM',
   'settings.measuredWaterBoilingC',
   'settings.plannedPh',
+  'settings.sucroseInversionPct',
 ];
 
 /** reviseFormulaAction wraps its input as `change`, other callers as `data`. */

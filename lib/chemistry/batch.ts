@@ -28,10 +28,12 @@ export function computeBatch(lines: FormulaLineInput[], settings: FormulaSetting
     measuredWaterBoilingC: settings.measuredWaterBoilingC,
   });
   // The real mix of sucrose, glucose and fructose where the library knows an ingredient's sugars;
-  // modelled from the ingredient's kind elsewhere (no inversion during the boil is assumed).
+  // modelled from the ingredient's kind elsewhere; with the stated share of sucrose inverted during
+  // the boil (none unless the settings say so).
   const waterActivity = estimateWaterActivityFromSugars(
     massBalance.lines.map((line) => ({ line, sugars: lines[line.index]?.ingredient.sugars ?? null })),
     massBalance.finishedMassG,
+    { sucroseInversionFraction: (settings.sucroseInversionPct ?? 0) / 100 },
   );
   const compliance = checkCompliance(massBalance, settings);
   const cautions = buildGuidance({ massBalance, settings, aw: waterActivity.aw });

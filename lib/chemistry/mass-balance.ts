@@ -85,6 +85,10 @@ export function validateSettings(settings: FormulaSettings): void {
     const ph = requireFiniteNumber(settings.plannedPh, 'settings.plannedPh');
     if (ph < 0 || ph > 14) throw new ChemistryInputError('settings.plannedPh', 'pH must be between 0 and 14');
   }
+  if (settings.sucroseInversionPct !== undefined) {
+    const inverted = requireFiniteNumber(settings.sucroseInversionPct, 'settings.sucroseInversionPct');
+    if (inverted < 0 || inverted > 100) throw new ChemistryInputError('settings.sucroseInversionPct', 'the inverted share of sucrose must be between 0 and 100 %');
+  }
 }
 
 /**

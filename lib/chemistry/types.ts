@@ -87,4 +87,9 @@ export interface FormulaSettings {
   plannedPh?: number;
   /** How a reduced-sugar product is kept (guidance.ts PRESERVATION_METHODS); unset when not stated. */
   preservation?: 'heat_processed' | 'preservative' | 'chilled';
+  /**
+   * Share of the sucrose taken as inverted to glucose and fructose during the boil, % (0–100), for
+   * the water-activity estimate. Unset: none, which errs high (the safe side for the cautions).
+   */
+  sucroseInversionPct?: number;
 }

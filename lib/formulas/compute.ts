@@ -23,6 +23,7 @@ export function toChemistrySettings(s: FormulaSettingsInput): FormulaSettings {
     ...(s.measuredWaterBoilingC != null ? { measuredWaterBoilingC: s.measuredWaterBoilingC } : {}),
     ...(s.plannedPh != null ? { plannedPh: s.plannedPh } : {}),
     ...(s.preservation != null ? { preservation: s.preservation } : {}),
+    ...(s.sucroseInversionPct != null ? { sucroseInversionPct: s.sucroseInversionPct } : {}),
   };
 }
 

@@ -68,6 +68,7 @@ export const SETTINGS_FIELD_LABELS: Record<SettingsField, string> = {
   measuredWaterBoilingC: 'Measured water boiling point (°C)',
   plannedPh: 'Planned pH',
   preservation: 'Preservation (reduced sugar)',
+  sucroseInversionPct: 'Sucrose inverted in the boil (%)',
 };
 
 export const COMPOSITION_FIELD_LABELS: Record<CompositionField, string> = {

@@ -37,6 +37,7 @@ export const formulaSettingsSchema = z
     measuredWaterBoilingC: z.number({ error: 'Boiling point must be a number.' }).min(60, 'A water boiling point below 60 °C is not plausible.').max(105, 'A water boiling point above 105 °C is not plausible.').nullable().optional(),
     plannedPh: z.number({ error: 'pH must be a number.' }).min(1, 'pH must be at least 1.').max(8, 'pH must be at most 8.').nullable().optional(),
     preservation: z.enum(PRESERVATION_METHODS, { error: 'Choose how the product is preserved.' }).nullable().optional(),
+    sucroseInversionPct: z.number({ error: 'The inverted share must be a number.' }).min(0, 'The inverted share runs from 0 to 100 %.').max(100, 'The inverted share runs from 0 to 100 %.').nullable().optional(),
   })
   .strict();
 

@@ -121,3 +121,35 @@ describe('the batch calculator uses each ingredient\'s sugar profile', () => {
     expect(res.body.computation.waterActivity.linesFromKind).toEqual([0]);
   });
 });
+
+describe('the share of sucrose inverted in the boil (a formula setting)', () => {
+  it('is stored with the revision, read back, and used by the water-activity estimate; out of range is a 422 that stores nothing', async () => {
+    const input = await strawberryJamInput(a);
+    const created = await callRoute(formulasRoute.POST, {
+      method: 'POST', path: '/api/v1/formulas', caller: dev(),
+      body: { ...input, name: 'Strawberry, quarter inverted', settings: { ...input.settings, sucroseInversionPct: 25 } },
+    });
+    expect(created.status, JSON.stringify(created.body)).toBe(201);
+    const formulaId: string = created.body.formulaId;
+    const detail = await callRoute(formulaRoute.GET, { method: 'GET', path: `/api/v1/formulas/${formulaId}`, caller: dev(), params: { formulaId } });
+    expect(detail.body.formula.current.settings.sucroseInversionPct).toBe(25);
+    const { waterActivity, massBalance } = detail.body.formula.computation;
+    // Source: lib/chemistry/water-activity.ts estimateWaterActivityFromSugars (tested against the stoichiometry in tests/unit/chemistry).
+    const expected = estimateWaterActivityFromSugars(massBalance.lines.map((line: ResolvedLine, i: number) => ({ line, sugars: LINE_SUGARS[i] })), massBalance.finishedMassG, { sucroseInversionFraction: 0.25 }).aw;
+    expect(waterActivity.aw).toBeCloseTo(expected, 12);
+    expect(waterActivity.aw).toBeLessThan(expectedAw(massBalance.lines, massBalance.finishedMassG));
+    expect(waterActivity.model).toMatch(/25 % of the sucrose taken as inverted/);
+
+    const em = (await getEm()).fork();
+    const before = await em.count(FormulaRevision, { workspace: a.workspaceId });
+    for (const bad of [-5, 100.01, '25', 1e308]) {
+      const refused = await callRoute(formulasRoute.POST, {
+        method: 'POST', path: '/api/v1/formulas', caller: dev(),
+        body: { ...input, name: 'Strawberry, bad inversion', settings: { ...input.settings, sucroseInversionPct: bad } },
+      });
+      expect(refused.status).toBe(422);
+      expect(JSON.stringify(refused.body)).toContain('sucroseInversionPct');
+    }
+    expect(await em.count(FormulaRevision, { workspace: a.workspaceId })).toBe(before);
+  });
+});

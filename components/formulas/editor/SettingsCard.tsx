@@ -12,7 +12,7 @@ const ruleSetOptions = RULE_SETS.map((r) => ({ value: r, label: RULE_SET_LABELS[
 const preservationOptions = [{ value: '', label: 'Not stated (sugar and acidity alone)' }, ...PRESERVATION_METHODS.map((m) => ({ value: m, label: PRESERVATION_LABELS[m] }))];
 
 /** The settings typed as numbers; each keeps its draft (typed text + value in storage units) under this key. */
-type NumericSettingKey = 'targetSolids' | 'jarFill' | 'plannedPh' | 'altitude' | 'measuredBoiling';
+type NumericSettingKey = 'targetSolids' | 'jarFill' | 'plannedPh' | 'sucroseInversion' | 'altitude' | 'measuredBoiling';
 /** The user's display unit of a setting kept in storage units (g, m, °C). */
 type SettingScale = 'jarFill' | 'altitude' | 'boiling';
 
@@ -32,6 +32,13 @@ const NUMERIC_SETTINGS: Record<NumericSettingKey, NumericSetting> = {
   targetSolids: { name: 'settings.targetSolidsPct', id: 'setting-targetSolidsPct', label: 'Target final soluble solids', unit: '%' },
   jarFill: { name: 'settings.jarNetFillG', id: 'setting-jarNetFill', label: 'Jar net fill', scale: 'jarFill' },
   plannedPh: { name: 'settings.plannedPh', id: 'setting-plannedPh', label: 'Planned pH (optional)' },
+  sucroseInversion: {
+    name: 'settings.sucroseInversionPct',
+    id: 'setting-sucroseInversion',
+    label: 'Sucrose inverted in the boil',
+    unit: '%',
+    hint: 'Optional, for the water-activity estimate: acid and a long boil split sucrose into glucose and fructose. Leave empty to assume none; the estimate then errs high, on the safe side.',
+  },
   altitude: { name: 'settings.altitudeM', id: 'setting-altitude', label: 'Kitchen altitude', scale: 'altitude', hint: 'Leave empty for sea level.' },
   measuredBoiling: {
     name: 'settings.measuredWaterBoilingC',
@@ -42,7 +49,7 @@ const NUMERIC_SETTINGS: Record<NumericSettingKey, NumericSetting> = {
   },
 };
 /** Shown in the grid, in this order; the boiling point's two ways sit in their own fieldset. */
-const GRID_SETTINGS: NumericSettingKey[] = ['targetSolids', 'jarFill', 'plannedPh'];
+const GRID_SETTINGS: NumericSettingKey[] = ['targetSolids', 'jarFill', 'plannedPh', 'sucroseInversion'];
 const BOILING_SETTING: Record<SettingsDraft['boilingReference'], NumericSettingKey> = { altitude: 'altitude', measured: 'measuredBoiling' };
 
 /** A typed value that is not a number, before the server is asked. */

@@ -102,6 +102,38 @@ describe('the batch computation uses the ingredients’ sugars (issue 15, part 7
     expect(withoutProfiles.waterActivity.model).toMatch(/modelled from the ingredient kinds/);
   });
 
+  it('takes the share of sucrose inverted in the boil from the formula’s settings, and refuses a share outside 0–100 %', async () => {
+    const { computeBatch, ChemistryInputError } = await import('@/lib/chemistry');
+    // Source: as above (USDA SR28 sugars); the inversion arithmetic is the stoichiometry tested in this file's second case.
+    const lines = [
+      { ingredient: { ...STRAWBERRY, sugars: { sucroseG: 0.47, glucoseG: 1.99, fructoseG: 2.44 } }, quantity: 1000, unit: 'g' as const },
+      { ingredient: { ...SUGAR, sugars: { sucroseG: 99.8, glucoseG: 0, fructoseG: 0 } }, quantity: 1000, unit: 'g' as const },
+    ];
+    const none = computeBatch(lines, settings({ targetSolidsPct: 65 }));
+    const quarter = computeBatch(lines, settings({ targetSolidsPct: 65, sucroseInversionPct: 25 }));
+    const { mb, lines: profiled } = strawberryJam(65);
+    expect(quarter.waterActivity.aw).toBeCloseTo(estimateWaterActivityFromSugars(profiled, mb.finishedMassG, { sucroseInversionFraction: 0.25 }).aw, 12);
+    expect(quarter.waterActivity.aw).toBeLessThan(none.waterActivity.aw);
+    expect(quarter.waterActivity.model).toMatch(/25 % of the sucrose taken as inverted/);
+    expect(none.waterActivity.model).not.toMatch(/inverted/);
+    for (const bad of [-1, 100.5, Number.NaN, Number.POSITIVE_INFINITY]) {
+      expect(() => computeBatch(lines, settings({ targetSolidsPct: 65, sucroseInversionPct: bad }))).toThrow(ChemistryInputError);
+    }
+  });
+
+  it('the settings schema takes the inverted share as an optional % and names the field when it is out of range', async () => {
+    const { formulaSettingsSchema } = await import('@/lib/formulas/schema');
+    const base = { productClass: 'jam', ruleSet: 'eu', ruleDate: '2026-12-01', targetSolidsPct: 65, jarNetFillG: 340 };
+    expect(formulaSettingsSchema.safeParse(base).success).toBe(true);
+    expect(formulaSettingsSchema.safeParse({ ...base, sucroseInversionPct: null }).success).toBe(true);
+    expect(formulaSettingsSchema.safeParse({ ...base, sucroseInversionPct: 30 }).success).toBe(true);
+    for (const bad of [-0.1, 101, 2 ** 53, '30']) {
+      const parsed = formulaSettingsSchema.safeParse({ ...base, sucroseInversionPct: bad });
+      expect(parsed.success).toBe(false);
+      expect(parsed.error?.issues[0].path).toEqual(['sucroseInversionPct']);
+    }
+  });
+
   it('the library passes a profile on only when all three sugars are known', async () => {
     const { compositionOf } = await import('@/lib/ingredients/queries');
     const base = { kind: 'fruit' as const, name: 'Strawberry', solidsPct: 8 };

@@ -34,6 +34,7 @@ describe('SettingsCard numeric settings', () => {
       ['Target final soluble solids (%)', 'setting-targetSolidsPct', 'settings.targetSolidsPct', '68'],
       ['Jar net fill (g)', 'setting-jarNetFill', 'settings.jarNetFillG', '340'],
       ['Planned pH (optional)', 'setting-plannedPh', 'settings.plannedPh', ''],
+      ['Sucrose inverted in the boil (%)', 'setting-sucroseInversion', 'settings.sucroseInversionPct', ''],
       ['Kitchen altitude (m)', 'setting-altitude', 'settings.altitudeM', ''],
     ];
     for (const [label, id, name, value] of expected) {
@@ -42,9 +43,10 @@ describe('SettingsCard numeric settings', () => {
     }
     expect(describedText(input('Kitchen altitude (m)'))).toBe('Leave empty for sea level.');
     expect(screen.queryByLabelText(/Measured water boiling point/)).toBeNull();
-    // The grid keeps its order: the three numbers after the rule date, before the preservation choice.
+    expect(describedText(input('Sucrose inverted in the boil (%)'))).toMatch(/^Optional, for the water-activity estimate: .*Leave empty to assume none; the estimate then errs high, on the safe side\.$/);
+    // The grid keeps its order: the four numbers after the rule date, before the preservation choice.
     const order = [...document.querySelectorAll('input, select')].map((e) => e.id);
-    expect(order.slice(0, 7)).toEqual(['setting-productClass', 'setting-ruleSet', 'setting-ruleDate', 'setting-targetSolidsPct', 'setting-jarNetFill', 'setting-plannedPh', 'setting-preservation']);
+    expect(order.slice(0, 8)).toEqual(['setting-productClass', 'setting-ruleSet', 'setting-ruleDate', 'setting-targetSolidsPct', 'setting-jarNetFill', 'setting-plannedPh', 'setting-sucroseInversion', 'setting-preservation']);
   });
 
   it('shows the measured boiling point instead of the altitude, in the user’s units (imperial, °F)', () => {
@@ -70,6 +72,8 @@ describe('SettingsCard numeric settings', () => {
     expect(onChange.mock.lastCall?.[1]).toBe('settings.measuredWaterBoilingC');
     fireEvent.change(input('Planned pH (optional)'), { target: { value: '3.4' } });
     expect(onChange).toHaveBeenLastCalledWith({ plannedPh: { text: '3.4', base: 3.4 } }, 'settings.plannedPh');
+    fireEvent.change(input('Sucrose inverted in the boil (%)'), { target: { value: '25,5' } });
+    expect(onChange).toHaveBeenLastCalledWith({ sucroseInversion: { text: '25,5', base: 25.5 } }, 'settings.sucroseInversionPct');
     fireEvent.change(input('Jar net fill (oz)'), { target: { value: '' } });
     expect(onChange).toHaveBeenLastCalledWith({ jarFill: { text: '', base: null } }, 'settings.jarNetFillG');
   });
