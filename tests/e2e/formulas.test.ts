@@ -34,6 +34,16 @@ describe('the formula editor', () => {
     const finished = page.getByTestId('result-finished-mass');
     await expect.poll(async () => (await finished.textContent())?.replace(/\s/g, '')).toMatch(/^1[,.]?45[01]/);
 
+    // The share of sucrose inverted in the boil lowers the water-activity estimate, which says so.
+    // Source: colligative principle (one sucrose gives two monosaccharides), tests/unit/chemistry/water-activity-sugars.test.ts.
+    const aw = page.getByTestId('result-water-activity');
+    const awBefore = Number((await aw.textContent())?.replace(',', '.').match(/0[.,]\d{3}/)?.[0]);
+    await page.getByLabel('Sucrose inverted in the boil (%)').fill('30');
+    await page.getByText(/30 % of the sucrose taken as inverted/).first().waitFor();
+    await expect.poll(async () => Number((await aw.textContent())?.replace(',', '.').match(/0[.,]\d{3}/)?.[0])).toBeLessThan(awBefore);
+    await page.getByLabel('Sucrose inverted in the boil (%)').fill('');
+    await expect.poll(async () => Number((await aw.textContent())?.replace(',', '.').match(/0[.,]\d{3}/)?.[0])).toBe(awBefore);
+
     await page.getByRole('button', { name: 'Add line' }).click();
     await setFormulaLine(page, 3, 'Sucrose (white sugar)', '100');
     // 1043 g solids at 65 % → 1604.6 g: the panel follows the typing.
