@@ -1,8 +1,23 @@
 'use client';
 
-import Link from 'next/link';
+import Link, { useLinkStatus } from 'next/link';
 import { usePathname } from 'next/navigation';
 import type { NavItem } from '@/lib/navigation';
+
+/**
+ * A pulsing dot beside the link while its page loads: pages have no loading.tsx (it would stream a
+ * 404 or 403 as HTTP 200), so this is the feedback that the click was taken.
+ */
+export function PendingMark() {
+  const { pending } = useLinkStatus();
+  if (!pending) return null;
+  return (
+    <span role="status" className="ml-2 inline-flex items-center align-middle" data-testid="nav-pending">
+      <span aria-hidden="true" className="h-2 w-2 animate-pulse rounded-full bg-current motion-reduce:animate-none" />
+      <span className="sr-only">Loading…</span>
+    </span>
+  );
+}
 
 export function NavLinks({ items, onNavigate }: { items: NavItem[]; onNavigate?: () => void }) {
   const path = usePathname();
@@ -35,6 +50,7 @@ export function NavLinks({ items, onNavigate }: { items: NavItem[]; onNavigate?:
                       }`}
                     >
                       {item.label}
+                      <PendingMark />
                     </Link>
                   </li>
                 );
