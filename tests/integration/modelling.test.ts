@@ -3,7 +3,7 @@
  * trials plus the open reduced-sugar trial), its default models, and workspace scoping (the other
  * workspace sees none of it, and a formula of another workspace is a 404).
  */
-import { describe, it, expect, beforeAll } from 'vitest';
+import { describe, it, expect, beforeAll, afterAll } from 'vitest';
 import { getEm } from '@/lib/db';
 import { seedDemo } from '@/lib/seed/demo';
 import { Formula, Cook, Trial } from '@/entities';
@@ -277,6 +277,23 @@ describe('predictions and proposals on the demo', () => {
   });
 
   describe('the cost ceiling per jar through the API', () => {
+    // The formulas and the ingredient made here live in the shared demo workspace; other files
+    // (tests/integration/demo-prices.test.ts, seed-label-data.test.ts) check that workspace's own
+    // records, so they go again afterwards, whichever order the files run in. Revisions are
+    // guarded against deletion; the guard is lifted for this one statement, in one transaction.
+    afterAll(async () => {
+      const names = ['Apricot spread, no pack format yet', 'Apricot spread, unpriced extract'];
+      const em = (await getEm()).fork();
+      await em.transactional(async (tx) => {
+        const run = (statement: string, params: unknown[] = []) => tx.getConnection().execute(statement, params, 'run', tx.getTransactionContext());
+        await run('alter table formula_revisions disable trigger formula_revisions_no_change');
+        await run('delete from formula_revisions where formula_id in (select id from formulas where workspace_id = ? and name in (?, ?))', [workspaceId, ...names]);
+        await run('alter table formula_revisions enable trigger formula_revisions_no_change');
+        await run('delete from formulas where workspace_id = ? and name in (?, ?)', [workspaceId, ...names]);
+        await run(`delete from ingredients where workspace_id = ? and name = 'Own-press apricot kernel extract'`, [workspaceId]);
+      });
+    });
+
     const ACTOR_OF = (person: Person) => ({ userId: person.userId, email: person.email, name: 'Developer', workspaceId, workspaceName: '', role: person.role, via: 'session' as const, massUnits: 'metric' as const, temperatureUnit: 'C' as const });
     async function setup() {
       const developer = await demoPerson(1);
