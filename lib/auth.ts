@@ -20,6 +20,7 @@ import { consumeSignInAttempt, signInSucceeded, RateLimited } from '@/lib/rate-l
 import { tooManyAttemptsCode, type SignInErrorCode } from '@/lib/sign-in-errors';
 import { logger } from '@/lib/log';
 import type { Actor } from '@/lib/permissions';
+import type { WorkspaceChoice } from '@/lib/workspaces/schema';
 
 export const WORKSPACE_COOKIE = 'setwell-workspace';
 export const API_TOKEN_PREFIX = 'swt_';
@@ -140,17 +141,10 @@ async function sessionFromCookies(cookieHeader: string | null | undefined): Prom
   return null;
 }
 
-/** A workspace the signed-in person belongs to, for the workspace switcher. */
-export interface MyWorkspace {
-  workspaceId: string;
-  name: string;
-  role: Actor['role'];
-}
-
 interface SignedIn {
   actor: Actor;
   /** Every active membership, oldest first. */
-  workspaces: MyWorkspace[];
+  workspaces: WorkspaceChoice[];
 }
 
 /**
@@ -176,7 +170,7 @@ async function readSignedIn(userId: string, preferredWorkspaceId: string | undef
   const user = rows[0];
   if (!user) return null;
   if (sessionEpoch !== undefined && sessionEpoch !== user.session_epoch) return null;
-  const workspaces: MyWorkspace[] = rows.flatMap((r) => (r.workspace_id && r.workspace_name && r.role ? [{ workspaceId: r.workspace_id, name: r.workspace_name, role: r.role }] : []));
+  const workspaces: WorkspaceChoice[] = rows.flatMap((r) => (r.workspace_id && r.workspace_name && r.role ? [{ workspaceId: r.workspace_id, name: r.workspace_name, role: r.role }] : []));
   const chosen = workspaces.find((w) => w.workspaceId === preferredWorkspaceId) ?? workspaces[0];
   if (!chosen) return null;
   return {
@@ -238,4 +232,4 @@ const currentSignedIn = cache(async (): Promise<SignedIn | null> => {
 export const currentActor = cache(async (): Promise<Actor | null> => (await currentSignedIn())?.actor ?? null);
 
 /** The current person's workspaces, from the same read as currentActor() (the layout's switcher). */
-export const currentWorkspaces = cache(async (): Promise<MyWorkspace[]> => (await currentSignedIn())?.workspaces ?? []);
+export const currentWorkspaces = cache(async (): Promise<WorkspaceChoice[]> => (await currentSignedIn())?.workspaces ?? []);
