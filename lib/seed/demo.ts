@@ -49,10 +49,15 @@ export async function seedDemo(em: EntityManager): Promise<SeedReport> {
   const report = await em.transactional(async (tx) => {
     const demo = tx.create(Workspace, DEMO_WORKSPACE);
     const brackenfold = tx.create(Workspace, OTHER_WORKSPACE);
+    // A person's first membership is the workspace they land in without a choice. Created in one
+    // flush, both would share a timestamp and the tie would fall to random ids, so the second
+    // workspace is joined a day later, as it would have been.
+    const joinedLater = new Date();
+    const joinedHere = new Date(joinedLater.getTime() - 24 * 3600 * 1000);
     for (const u of DEMO_USERS) {
       const user = tx.create(User, { email: u.email, name: u.name, passwordHash });
-      tx.create(Membership, { workspace: demo, user, role: u.role });
-      if (u.alsoIn) tx.create(Membership, { workspace: brackenfold, user, role: u.alsoIn });
+      tx.create(Membership, { workspace: demo, user, role: u.role, createdAt: joinedHere });
+      if (u.alsoIn) tx.create(Membership, { workspace: brackenfold, user, role: u.alsoIn, createdAt: joinedLater });
     }
     const otherAdmin = tx.create(User, { email: OTHER_ADMIN.email, name: OTHER_ADMIN.name, passwordHash });
     tx.create(Membership, { workspace: brackenfold, user: otherAdmin, role: 'admin' });
