@@ -1,5 +1,6 @@
 import 'server-only';
 import { getEm } from '@/lib/db';
+import { sql } from '@/lib/sql';
 import { Formula, FormulaRevision, Cook, CookChange, Trial, TrialStatusChange, Variant } from '@/entities';
 import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
 import { computeFormula } from '@/lib/formulas/compute';
@@ -141,15 +142,20 @@ export async function revisionExists(actor: Actor, formulaId: string, number: nu
 
 /** The developer's trials at the stove (status cooking) and which of their variants are not cooked yet. */
 export async function trialsAtTheStove(actor: Actor): Promise<StoveItem[]> {
-  const em = await getEm();
-  const trials = await em.find(Trial, { ...inWorkspace(actor), owner: actor.userId, status: 'cooking' }, { orderBy: { updatedAt: 'desc' }, limit: 50 });
-  if (!trials.length) return [];
-  const variants = (await em.find(Variant, { ...inWorkspace(actor), trial: { $in: trials.map((t) => t.id) }, removedAt: null }, { orderBy: { position: 'asc' }, fields: ['trial', 'label'] }));
-  const cooked = variants.length
-    ? new Set(((await em.find(Cook, { ...inWorkspace(actor), variant: { $in: variants.map((v) => v.id) }, withdrawnAt: null }, { fields: ['variant'] }))).map((m) => m.variant.id))
-    : new Set<string>();
-  return trials.map((t) => ({
-    id: t.id, code: trialCode(t.number), title: t.title,
-    uncooked: variants.filter((v) => v.trial.id === t.id && !cooked.has(v.id)).map((v) => v.label),
-  }));
+  // One plain statement: the developer's home page asks for it on every visit.
+  const rows = await sql<{ id: string; number: number; title: string; uncooked: string[] }>(
+    `select t.id, t.number, t.title,
+            coalesce(array_agg(v.label order by v.position) filter (
+              where v.id is not null and not exists (select 1 from measurements m where m.variant_id = v.id and m.workspace_id = t.workspace_id and m.withdrawn_at is null)
+            ), '{}') as uncooked
+       from trials t
+       left join variants v on v.trial_id = t.id and v.workspace_id = t.workspace_id and v.removed_at is null
+      where t.workspace_id = $1 and t.owner_id = $2 and t.status = 'cooking'
+      group by t.id
+      order by t.updated_at desc, t.id
+      limit 50`,
+    [actor.workspaceId, actor.userId],
+    'trials-at-the-stove',
+  );
+  return rows.map((r) => ({ id: r.id, code: trialCode(r.number), title: r.title, uncooked: r.uncooked }));
 }
