@@ -1,14 +1,12 @@
 import 'server-only';
 import { getEm } from '@/lib/db';
 import { sql } from '@/lib/sql';
-import { Formula, FormulaRevision, Cook, CookChange, Trial, TrialStatusChange, Variant } from '@/entities';
+import { Formula, FormulaRevision, Trial, Variant } from '@/entities';
 import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
 import { computeFormula } from '@/lib/formulas/compute';
 import { compareCook } from './compare';
 import { trialCode } from './access';
-import type { Loaded } from '@mikro-orm/core';
-import type { CookEntity } from '@/entities/Cook';
-import { cookValues, type CookChangeView, type CookView, type StoveItem, type TrialListQuery, type TrialOverview, type TrialSummary, type VariantView } from './schema';
+import { cookValues, type CookChangeView, type CookValues, type CookView, type StoveItem, type TrialListQuery, type TrialOverview, type TrialSummary, type VariantView } from './schema';
 
 export async function listTrials(actor: Actor, query: TrialListQuery = {}): Promise<TrialSummary[]> {
   const em = await getEm();
@@ -49,19 +47,20 @@ export async function listTrials(actor: Actor, query: TrialListQuery = {}): Prom
     .filter((t) => !query.product || t.productClass === query.product);
 }
 
-type CookRow = Loaded<CookEntity, 'recordedBy'>;
-type ChangeRow = { cook: { id: string }; kind: CookChangeView['kind']; before: CookChangeView['before']; reason: string; changedBy: { name: string }; changedAt: Date };
+/** A cook as the plain statement below reads it: the readings under their view names. */
+type CookRow = CookValues & { id: string; variantId: string; cookDate: string; recordedByName: string; createdAt: Date; withdrawnAt: Date | null; changes: Array<Omit<CookChangeView, 'at'> & { at: string }> };
 
-function toCookView(m: CookRow, v: VariantView, changeRows: ChangeRow[]): CookView {
-  const changes: CookChangeView[] = changeRows.map((c) => ({ kind: c.kind, reason: c.reason, byName: c.changedBy.name, at: c.changedAt.toISOString(), before: c.before }));
+function toCookView(m: CookRow, v: VariantView): CookView {
+  // PostgreSQL's JSON timestamps carry microseconds and an offset: shown as every other timestamp is.
+  const changes: CookChangeView[] = m.changes.map((c) => ({ kind: c.kind, reason: c.reason, byName: c.byName, at: new Date(c.at).toISOString(), before: c.before }));
   const withdrawal = changes.find((c) => c.kind === 'withdrawn');
   const readings = cookValues(m);
   return {
     id: m.id,
-    variantId: m.variant.id,
+    variantId: m.variantId,
     cookDate: m.cookDate,
     ...readings,
-    recordedByName: m.recordedBy.name,
+    recordedByName: m.recordedByName,
     createdAt: m.createdAt.toISOString(),
     comparison: compareCook(v.computation, readings, v.settings.plannedPh),
     withdrawn: m.withdrawnAt ? { reason: withdrawal?.reason ?? '', byName: withdrawal?.byName ?? '', at: withdrawal?.at ?? m.withdrawnAt.toISOString() } : null,
@@ -69,26 +68,46 @@ function toCookView(m: CookRow, v: VariantView, changeRows: ChangeRow[]): CookVi
   };
 }
 
-/** Variants with their recomputed chemistry and every cook beside its prediction. */
+/**
+ * Variants with their recomputed chemistry and every cook beside its prediction. Two plain
+ * statements (the variants; the cooks with their recorder and changes): the trial page reads this
+ * on every visit, and the ORM's per-entity work was the largest part of that page's time.
+ */
 export async function listVariants(actor: Actor, trialId: string): Promise<VariantView[]> {
-  const em = await getEm();
-  const rows = (await em.find(Variant, { ...inWorkspace(actor), trial: trialId, removedAt: null }, { orderBy: { position: 'asc' } }));
-  const cookRows = (await em.find(
-    Cook,
-    { ...inWorkspace(actor), variant: { $in: rows.map((r) => r.id) } },
-    { populate: ['recordedBy'], orderBy: { cookDate: 'asc', createdAt: 'asc' } },
-  ));
-  const changeRows = cookRows.length
-    ? ((await em.find(CookChange, { ...inWorkspace(actor), cook: { $in: cookRows.map((m) => m.id) } }, { populate: ['changedBy'], orderBy: { changedAt: 'asc' } })))
-    : [];
+  const [rows, cookRows] = await Promise.all([
+    sql<{ id: string; label: string; is_base: boolean; description: string; factor_levels: VariantView['factorLevels']; settings: VariantView['settings']; lines: VariantView['lines']; summary: VariantView['summary'] }>(
+      `select id, label, is_base, description, factor_levels, settings, lines, summary
+         from variants
+        where workspace_id = $1 and trial_id = $2 and removed_at is null
+        order by position, id`,
+      [actor.workspaceId, trialId],
+      'trial-variants',
+    ),
+    sql<CookRow>(
+      `select m.id, m.variant_id as "variantId", m.cook_date::text as "cookDate", m.batch_size_g as "batchSizeG", m.brix_reading as "brixReading",
+              m.brix_sample_temp_c as "brixSampleTempC", m.ph, m.end_point_temp_c as "endPointTempC", m.boil_time_min as "boilTimeMin",
+              m.set_test_score as "setTestScore", m.set_test_method as "setTestMethod", m.syneresis, m.colour_notes as "colourNotes",
+              m.yield_jars as "yieldJars", m.yield_g as "yieldG", m.notes, u.name as "recordedByName", m.created_at as "createdAt", m.withdrawn_at as "withdrawnAt",
+              coalesce((select json_agg(json_build_object('kind', c.kind, 'reason', c.reason, 'byName', cu.name, 'at', c.changed_at, 'before', c.before) order by c.changed_at, c.id)
+                          from measurement_changes c join users cu on cu.id = c.changed_by_id
+                         where c.measurement_id = m.id and c.workspace_id = m.workspace_id), '[]'::json) as changes
+         from measurements m
+         join variants v on v.id = m.variant_id and v.workspace_id = m.workspace_id
+         join users u on u.id = m.recorded_by_id
+        where m.workspace_id = $1 and v.trial_id = $2 and v.removed_at is null
+        order by m.cook_date, m.created_at, m.id`,
+      [actor.workspaceId, trialId],
+      'trial-cooks',
+    ),
+  ]);
   return rows.map((r) => {
     const outcome = computeFormula(r.settings, r.lines);
     const view: VariantView = {
       id: r.id,
       label: r.label,
-      isBase: r.isBase,
+      isBase: r.is_base,
       description: r.description,
-      factorLevels: r.factorLevels,
+      factorLevels: r.factor_levels,
       settings: r.settings,
       lines: r.lines,
       summary: r.summary,
@@ -97,7 +116,7 @@ export async function listVariants(actor: Actor, trialId: string): Promise<Varia
       cooks: [],
       withdrawnCooks: [],
     };
-    const variantCooks = cookRows.filter((m) => m.variant.id === r.id).map((m) => toCookView(m, view, changeRows.filter((c) => c.cook.id === m.id)));
+    const variantCooks = cookRows.filter((m) => m.variantId === r.id).map((m) => toCookView(m, view));
     view.cooks = variantCooks.filter((m) => !m.withdrawn);
     view.withdrawnCooks = variantCooks.filter((m) => m.withdrawn);
     return view;
@@ -105,12 +124,25 @@ export async function listVariants(actor: Actor, trialId: string): Promise<Varia
 }
 
 export async function getTrialOverview(actor: Actor, trialId: string): Promise<TrialOverview> {
-  const em = await getEm();
-  // The trial, its history and its variants are read at once (each scoped to the workspace); a
-  // trial of another workspace finds nothing in any of them.
-  const [t, history, variants] = await Promise.all([
-    em.findOne(Trial, { ...inWorkspace(actor), id: trialId }, { populate: ['owner', 'baseFormula'] }),
-    em.find(TrialStatusChange, { ...inWorkspace(actor), trial: trialId }, { populate: ['changedBy'], orderBy: { changedAt: 'asc' } }),
+  // The trial with its owner, base formula and status history in one statement, the variants
+  // beside it (each scoped to the workspace); a trial of another workspace finds nothing.
+  const [[t], variants] = await Promise.all([
+    sql<{
+      id: string; number: number; title: string; question: string; status: TrialOverview['status']; base_revision: number; created_at: Date;
+      owner_id: string; owner_name: string; formula_id: string; formula_name: string;
+      history: Array<{ from: TrialOverview['status'] | null; to: TrialOverview['status']; note: string | null; byName: string; at: string }>;
+    }>(
+      `select t.id, t.number, t.title, t.question, t.status, t.base_revision, t.created_at, o.id as owner_id, o.name as owner_name, f.id as formula_id, f.name as formula_name,
+              coalesce((select json_agg(json_build_object('from', h.from_status, 'to', h.to_status, 'note', h.note, 'byName', hu.name, 'at', h.changed_at) order by h.changed_at, h.id)
+                          from trial_status_changes h join users hu on hu.id = h.changed_by_id
+                         where h.trial_id = t.id and h.workspace_id = t.workspace_id), '[]'::json) as history
+         from trials t
+         join users o on o.id = t.owner_id
+         join formulas f on f.id = t.base_formula_id and f.workspace_id = t.workspace_id
+        where t.workspace_id = $1 and t.id = $2`,
+      [actor.workspaceId, trialId],
+      'trial-overview',
+    ),
     listVariants(actor, trialId),
   ]);
   if (!t) throw notFound('trial');
@@ -120,11 +152,11 @@ export async function getTrialOverview(actor: Actor, trialId: string): Promise<T
     title: t.title,
     question: t.question,
     status: t.status,
-    owner: { id: t.owner.id, name: t.owner.name },
-    baseFormula: { id: t.baseFormula.id, name: t.baseFormula.name, revision: t.baseRevision },
-    createdAt: t.createdAt.toISOString(),
+    owner: { id: t.owner_id, name: t.owner_name },
+    baseFormula: { id: t.formula_id, name: t.formula_name, revision: t.base_revision },
+    createdAt: t.created_at.toISOString(),
     variants,
-    history: history.map((h) => ({ from: h.fromStatus ?? null, to: h.toStatus, note: h.note ?? null, byName: h.changedBy.name, at: h.changedAt.toISOString() })),
+    history: t.history.map((h) => ({ from: h.from ?? null, to: h.to, note: h.note ?? null, byName: h.byName, at: new Date(h.at).toISOString() })),
   };
 }
 
