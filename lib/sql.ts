@@ -1,6 +1,7 @@
 /**
- * A plain `pg` pool for the few hot statements where the ORM's per-query work shows under load
- * (a full tasting room's answers). Everything else goes through MikroORM. Same database, same
+ * A plain `pg` pool for the hot statements where the ORM's per-query work shows under load (a full
+ * tasting room's answers, the reads every staff page or the busiest ones make; DEVELOPERS.md lists
+ * them). Everything else goes through MikroORM. Same database, same
  * pool size setting; a dead connection (say, after a PostgreSQL restart) is dropped by pg itself.
  */
 import { Pool, type QueryResultRow } from 'pg';
