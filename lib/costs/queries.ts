@@ -4,7 +4,7 @@ import 'server-only';
  * range of days asked) and costs them with lib/costing. Callers hold `prices.read`.
  */
 import { getEm } from '@/lib/db';
-import { BatchRecord, Ingredient, PackFormat, Trial } from '@/entities';
+import { BatchRecord, Trial } from '@/entities';
 import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
 import { todayIso, isoDate } from '@/lib/format/dates';
 import { batchActualCostPerJar, changePct, costStoredFormula, historiesBy, type IngredientPricePoint, type PackagingPricePoint, type PackFormatData } from '@/lib/costing';
@@ -62,12 +62,16 @@ const ingredientIdsOf = (formulas: Array<{ lines: RevisionLine[] }>) => [...new 
 
 /** The editor's prices on one day, for every ingredient and (not archived) pack format of the workspace: two round trips. */
 export async function editorCostBasis(actor: Actor, asOf: string = todayIso()): Promise<EditorCostBasis> {
-  const [ingredients, formats] = await Promise.all([
-    getEm().then((em) => em.find(Ingredient, { ...inWorkspace(actor) }, { fields: ['id'], limit: 5000 })),
-    getEm().then((em) => em.find(PackFormat, { ...inWorkspace(actor), archivedAt: null }, { fields: ['id'], orderBy: { name: 'asc' }, limit: 500 })),
-  ]);
+  // The ids in one plain statement (every editor load asks; the ORM made an entity of each id).
+  const [ids] = await sql<{ ingredient_ids: string[]; pack_format_ids: string[] }>(
+    `select (select coalesce(array_agg(i.id::text), '{}') from (select id from ingredients where workspace_id = $1 limit 5000) i) as ingredient_ids,
+            (select coalesce(array_agg(f.id::text order by f.name, f.id), '{}') from (select id, name from pack_formats where workspace_id = $1 and archived_at is null order by name, id limit 500) f) as pack_format_ids`,
+    [actor.workspaceId],
+    'editor-cost-basis-ids',
+  );
+  const formats = ids.pack_format_ids;
   // From = to = asOf: each ingredient's and packaging item's one point in force that day.
-  const data = await costingData(actor.workspaceId, { ingredientIds: ingredients.map((i) => i.id), packFormatIds: formats.map((f) => f.id), from: asOf, to: asOf });
+  const data = await costingData(actor.workspaceId, { ingredientIds: ids.ingredient_ids, packFormatIds: formats, from: asOf, to: asOf });
   return {
     currency: data.settings.currency,
     asOf,
@@ -75,7 +79,7 @@ export async function editorCostBasis(actor: Actor, asOf: string = todayIso()): 
     ingredientPrices: data.ingredientPoints,
     packagingPrices: data.packagingPoints,
     refuse: [...data.refuse.entries()],
-    packFormats: formats.map((f) => data.packFormats.get(f.id)).filter((f): f is PackFormatData => !!f),
+    packFormats: formats.map((id) => data.packFormats.get(id)).filter((f): f is PackFormatData => !!f),
   };
 }
 

@@ -1,6 +1,8 @@
 import 'server-only';
 import type { Loaded } from '@mikro-orm/core';
 import { getEm } from '@/lib/db';
+import { sql } from '@/lib/sql';
+import { isUuid } from '@/lib/ids';
 import { Formula, FormulaRevision } from '@/entities';
 import type { FormulaRevisionEntity } from '@/entities/FormulaRevision';
 import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
@@ -67,18 +69,39 @@ export async function getRevision(actor: Actor, formulaId: string, number: numbe
 
 /** The formula at its latest revision, with the full computation redone from the stored snapshot. */
 export async function getFormula(actor: Actor, formulaId: string): Promise<FormulaDetail> {
-  // One round trip: the formula's newest revision with the formula joined (revisions only ever
-  // grow, so the newest is the formula's latest).
-  const em = await getEm();
-  const r = await em.findOne(FormulaRevision, { ...inWorkspace(actor), formula: { id: formulaId, archivedAt: null } }, { populate: ['createdBy', 'formula'], orderBy: { number: 'desc' } });
+  // One plain statement: the formula with its newest revision (revisions only ever grow) and who
+  // wrote it. The editor and the label read it on every load.
+  if (!isUuid(formulaId)) throw notFound('formula');
+  const [r] = await sql<{
+    id: string; name: string; description: string | null; number: number; revision_name: string; settings: FormulaRevisionView['settings'];
+    lines: FormulaRevisionView['lines']; note: string | null; created_at: Date; created_by_id: string; created_by_name: string;
+  }>(
+    `select f.id, f.name, f.description, r.number, r.name as revision_name, r.settings, r.lines, r.note, r.created_at, u.id as created_by_id, u.name as created_by_name
+       from formulas f
+       join lateral (
+         select * from formula_revisions x where x.formula_id = f.id and x.workspace_id = f.workspace_id order by x.number desc limit 1
+       ) r on true
+       join users u on u.id = r.created_by_id
+      where f.workspace_id = $1 and f.id = $2 and f.archived_at is null`,
+    [actor.workspaceId, formulaId],
+    'formula-with-latest-revision',
+  );
   if (!r) throw notFound('formula');
-  const f = r.formula;
-  const current = toRevisionView(r);
+  const current: FormulaRevisionView = {
+    formulaId: r.id,
+    number: r.number,
+    name: r.revision_name,
+    settings: r.settings,
+    lines: r.lines,
+    note: r.note,
+    createdAt: r.created_at.toISOString(),
+    createdBy: { id: r.created_by_id, name: r.created_by_name },
+  };
   const outcome = computeFormula(current.settings, current.lines);
   return {
-    id: f.id,
-    name: f.name,
-    description: f.description ?? null,
+    id: r.id,
+    name: r.name,
+    description: r.description,
     current,
     computation: outcome.ok ? outcome.computation : null,
     computationError: outcome.ok ? null : outcome.message,

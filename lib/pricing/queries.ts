@@ -8,7 +8,7 @@ import 'server-only';
  */
 import { getEm } from '@/lib/db';
 import { sql } from '@/lib/sql';
-import { CostSettings, Formula, Ingredient, IngredientPrice, PackagingItem, PackagingPrice, PackFormat, PackFormatItem, ProductVersion } from '@/entities';
+import { CostSettings, Ingredient, IngredientPrice, PackagingItem, PackagingPrice, PackFormat, PackFormatItem, ProductVersion } from '@/entities';
 import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
 import { calendarDateProblem } from '@/lib/input';
 import { isoDate, todayIso } from '@/lib/format/dates';
@@ -245,9 +245,12 @@ export async function packFormatsByIds(workspaceId: string, packFormatIds: reado
 export async function packFormatOfFormulas(workspaceId: string, formulaIds: readonly string[]): Promise<Map<string, string | null>> {
   const ids = cleanIds(formulaIds);
   if (!ids.length) return new Map();
-  const em = await getEm();
-  const rows = await em.find(Formula, { workspace: workspaceId, id: { $in: ids } }, { fields: ['id', 'packFormat'] });
-  return new Map(rows.map((r) => [r.id, (r.packFormat as { id: string } | null)?.id ?? null]));
+  const rows = await sql<{ id: string; pack_format_id: string | null }>(
+    'select id, pack_format_id from formulas where workspace_id = $1 and id = any($2::uuid[])',
+    [workspaceId, ids],
+    'pack-format-of-formulas',
+  );
+  return new Map(rows.map((r) => [r.id, r.pack_format_id]));
 }
 
 /** The pack format each production version is filled in (null: none picked). */
