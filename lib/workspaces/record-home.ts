@@ -4,14 +4,16 @@
  * active workspaces holds the record, so that page can offer to switch. Someone who is not a member
  * of the record's workspace learns nothing: the look-up only searches their own memberships.
  */
+import { cache } from 'react';
 import { headers } from 'next/headers';
 import { getEm } from '@/lib/db';
-import { currentActor } from '@/lib/auth';
+import { currentActor, currentWorkspaces } from '@/lib/auth';
 import { isUuid } from '@/lib/ids';
 import { can, ROLE_LABELS, type Actor, type Permission } from '@/lib/permissions';
 import { BatchRecord, Formula, Ingredient, PackagingItem, Tasting, Product, ProductVersion, PromotionRequest, Trial } from '@/entities';
 import type { WorkspaceEntity } from '@/entities/Workspace';
 import { listMyWorkspaces } from './queries';
+import type { WorkspaceChoice } from './schema';
 import { REQUEST_PATH_HEADER } from './record-path';
 
 
@@ -57,11 +59,14 @@ export function recordInPath(path: string): { route: RecordRoute; id: string; re
   return null;
 }
 
-/** The user's other active workspace that holds the record the path points at, or null. */
-export async function findRecordHome(actor: Pick<Actor, 'userId' | 'workspaceId'>, path: string): Promise<RecordHome | null> {
+/**
+ * The user's other active workspace that holds the record the path points at, or null. `workspaces`
+ * are the user's active memberships when the caller has read them already (the signed-in read).
+ */
+export async function findRecordHome(actor: Pick<Actor, 'userId' | 'workspaceId'>, path: string, workspaces?: WorkspaceChoice[]): Promise<RecordHome | null> {
   const target = recordInPath(path);
   if (!target) return null;
-  const others = (await listMyWorkspaces(actor.userId)).filter((w) => w.workspaceId !== actor.workspaceId);
+  const others = (workspaces ?? (await listMyWorkspaces(actor.userId))).filter((w) => w.workspaceId !== actor.workspaceId);
   if (others.length === 0) return null;
   const em = await getEm();
   // Every record route's entity belongs to a workspace: looked up by its entity name as that shared
@@ -84,11 +89,16 @@ export async function findRecordHome(actor: Pick<Actor, 'userId' | 'workspaceId'
   };
 }
 
-/** For the not-found and forbidden pages: the record home of this request, if the signed-in user has one. */
-export async function recordHomeOfRequest(): Promise<RecordHome | null> {
+/**
+ * For the not-found and forbidden pages: the record home of this request, if the signed-in user has
+ * one. Next.js renders every segment's not-found page with each page (ready in case the page calls
+ * notFound()), so this runs on every staff page load: once per request (React `cache`), from the
+ * memberships the signed-in read already holds, and a look-up only for someone with another workspace.
+ */
+export const recordHomeOfRequest = cache(async (): Promise<RecordHome | null> => {
   const path = (await headers()).get(REQUEST_PATH_HEADER);
   if (!path) return null;
   const actor = await currentActor();
   if (!actor) return null;
-  return findRecordHome(actor, path);
-}
+  return findRecordHome(actor, path, await currentWorkspaces());
+});
