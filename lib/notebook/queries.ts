@@ -1,9 +1,8 @@
 import 'server-only';
 /** Reading notebook entries: always scoped to the actor's workspace and the trial (404 otherwise). */
-import { getEm } from '@/lib/db';
-import { NotebookConflict, NotebookEntry } from '@/entities';
+import { sql } from '@/lib/sql';
 import type { NotebookConflictEntity } from '@/entities/NotebookConflict';
-import { inWorkspace, type Actor } from '@/lib/permissions';
+import type { Actor } from '@/lib/permissions';
 import { assertVariantOfTrial, loadTrial } from '@/lib/trials/access';
 import { EMPTY_NOTEBOOK_DOC } from './shape';
 import { type NotebookConflictView, type NotebookEntryView } from './schema';
@@ -31,27 +30,31 @@ export async function getEntry(actor: Actor, trialId: string, variantId: string 
  * (the trial page). Still scoped to the actor's workspace.
  */
 export async function readEntry(actor: Actor, trialId: string, variantId: string | null): Promise<NotebookEntryView> {
-  const em = await getEm();
-  const entry = await em.findOne(
-    NotebookEntry,
-    { ...inWorkspace(actor), trial: trialId, variantId },
-    { populate: ['updatedBy'] },
+  // One plain statement, the unresolved conflicts as JSON: the trial page reads it on every load.
+  const [entry] = await sql<{
+    id: string; doc: NotebookEntryView['doc']; version: number; updated_at: Date; updated_by_name: string | null;
+    conflicts: Array<Omit<NotebookConflictView, 'createdAt'> & { createdAt: string }>;
+  }>(
+    `select e.id, e.doc, e.version, e.updated_at, u.name as updated_by_name,
+            coalesce((select json_agg(json_build_object('conflictId', c.id, 'doc', c.doc, 'baseVersion', c.base_version, 'savedByName', su.name, 'createdAt', c.created_at) order by c.created_at, c.id)
+                        from notebook_conflicts c join users su on su.id = c.saved_by_id
+                       where c.entry_id = e.id and c.workspace_id = e.workspace_id and c.resolved_at is null), '[]'::json) as conflicts
+       from notebook_entries e left join users u on u.id = e.updated_by_id
+      where e.workspace_id = $1 and e.trial_id = $2 and e.variant_id is not distinct from $3::uuid`,
+    [actor.workspaceId, trialId, variantId],
+    'notebook-entry',
   );
   if (!entry) {
     return { entryId: null, doc: structuredClone(EMPTY_NOTEBOOK_DOC), version: 0, updatedAt: null, updatedByName: null, conflicts: [] };
   }
-  const conflicts = await em.find(
-    NotebookConflict,
-    { ...inWorkspace(actor), entry: entry.id, resolvedAt: null },
-    { populate: ['savedBy'], orderBy: { createdAt: 'asc' } },
-  );
   return {
     entryId: entry.id,
     doc: entry.doc,
     version: entry.version,
     // A row created only to lock it (version 0) has not really been written by anyone yet.
-    updatedAt: entry.version > 0 ? entry.updatedAt.toISOString() : null,
-    updatedByName: entry.updatedBy?.name ?? null,
-    conflicts: conflicts.map(toConflictView),
+    updatedAt: entry.version > 0 ? entry.updated_at.toISOString() : null,
+    updatedByName: entry.updated_by_name,
+    // PostgreSQL's JSON timestamps carry microseconds and an offset: shown as every other timestamp is.
+    conflicts: entry.conflicts.map((c) => ({ ...c, createdAt: new Date(c.createdAt).toISOString() })),
   };
 }

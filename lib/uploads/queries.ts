@@ -1,6 +1,7 @@
 import 'server-only';
 /** Upload reads, scoped to the actor's workspace; another workspace's upload is a plain 404. */
 import { getEm } from '@/lib/db';
+import { sql } from '@/lib/sql';
 import { Upload } from '@/entities';
 import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
 import { isUuid } from '@/lib/ids';
@@ -58,12 +59,19 @@ export async function listUploads(actor: Actor, trialId: string, query: UploadLi
  */
 export async function readUploads(actor: Actor, trialId: string, query: UploadListQuery = {}): Promise<UploadView[]> {
   const filter = uploadListQuerySchema.parse(query);
-  const em = await getEm();
-  const where: Record<string, unknown> = { ...inWorkspace(actor), trial: trialId };
-  if (filter.variantId) where.variantId = filter.variantId;
-  if (filter.cookId) where.cookId = filter.cookId;
-  const rows = await em.find(Upload, where, { populate: ['uploadedBy'], orderBy: { createdAt: 'asc', id: 'asc' }, limit: 1000 });
-  return rows.map((r) => toUploadView(r));
+  // One plain statement (the trial page reads it on every load); the optional filters are null when not asked.
+  const rows = await sql<UploadRow & { uploadedByName: string | null }>(
+    `select x.id, x.kind, x.subject, x.variant_id as "variantId", x.measurement_id as "cookId", x.original_name as "originalName",
+            x.content_type as "contentType", x.size_bytes as "sizeBytes", x.storage_key as "storageKey", x.thumbnail_key as "thumbnailKey",
+            x.width, x.height, x.created_at as "createdAt", u.name as "uploadedByName"
+       from uploads x left join users u on u.id = x.uploaded_by_id
+      where x.workspace_id = $1 and x.trial_id = $2 and ($3::uuid is null or x.variant_id = $3) and ($4::uuid is null or x.measurement_id = $4)
+      order by x.created_at, x.id
+      limit 1000`,
+    [actor.workspaceId, trialId, filter.variantId ?? null, filter.cookId ?? null],
+    'trial-uploads',
+  );
+  return rows.map((r) => toUploadView(r, r.uploadedByName ?? undefined));
 }
 
 /** The row itself (storage keys included), for the download and delete paths only. */
