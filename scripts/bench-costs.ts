@@ -37,8 +37,8 @@ async function build() {
   const conn = em.getConnection();
   const tag = randomUUID().slice(0, 8);
   const ws = em.create(Workspace, { name: `Bench costing ${tag}`, slug: `bench-cost-${tag}` });
-  const user = em.create(User, { email: `bench.cost.${tag}@bench.example`, name: 'Bench developer' } as never) as unknown as { id: string };
-  em.create(Membership, { workspace: ws, user, role: 'developer' } as never);
+  const user = em.create(User, { email: `bench.cost.${tag}@bench.example`, name: 'Bench developer', passwordHash: null });
+  em.create(Membership, { workspace: ws, user, role: 'developer' });
   await em.flush();
   await addStarterLibrary(em, ws.id);
   const actor: Actor = { userId: user.id, email: '', name: 'Bench developer', workspaceId: ws.id, workspaceName: ws.name, role: 'developer', via: 'session', massUnits: 'metric', temperatureUnit: 'C' };

@@ -60,7 +60,7 @@ function cpuUse(before: CpuTicks, after: CpuTicks, seconds: number): CpuUse {
 
 let counter = 0;
 function tasterRequest(seats: Setup['seats']) {
-  return (req: Record<string, unknown>) => {
+  return (req: autocannon.Request): autocannon.Request => {
     const seat = seats[counter++ % seats.length];
     const attributeId = setup.attributeIds[counter % setup.attributeIds.length];
     const values = setup.values[attributeId];
@@ -71,10 +71,10 @@ function tasterRequest(seats: Setup['seats']) {
 }
 
 function floorRequest(seats: Setup['seats']) {
-  return (req: Record<string, unknown>) => {
+  return (req: autocannon.Request): autocannon.Request => {
     const seat = seats[counter++ % seats.length];
     req.path = '/api/bench/floor';
-    req.headers = { ...(req.headers as object), 'x-bench-seat': seat.token.slice(0, 12) };
+    req.headers = { ...req.headers, 'x-bench-seat': seat.token.slice(0, 12) };
     req.body = JSON.stringify({ idempotencyKey: randomUUID(), code: seat.codes[0], value: counter % 9 });
     return req;
   };
@@ -102,7 +102,7 @@ async function load(kind: 'taster' | 'floor', urls: string[], seconds: number): 
     return new Promise<void>((resolve, reject) => {
       const instance = autocannon({
         url, connections: perUrl, duration: seconds, pipelining: 1,
-        requests: [{ method: kind === 'taster' ? 'PUT' : 'POST', headers: { 'content-type': 'application/json' }, setupRequest: setupRequest as never }],
+        requests: [{ method: kind === 'taster' ? 'PUT' : 'POST', headers: { 'content-type': 'application/json' }, setupRequest }],
       }, (err) => (err ? reject(err) : resolve()));
       instance.on('response', (_client, status, _bytes, ms) => {
         requests += 1;

@@ -143,7 +143,7 @@ async function tapTimes(page: Page, option: string): Promise<{ onPhone: number; 
   `);
   await page.getByRole('radio', { name: option, exact: true }).first().click();
   // A function, not a string: the page's CSP refuses string evaluation in the page.
-  await page.waitForFunction(() => (window as unknown as { __sent: number }).__sent > 0, undefined, { timeout: 30_000 });
+  await page.waitForFunction(() => Number(Reflect.get(window, '__sent')) > 0, undefined, { timeout: 30_000 });
   return page.evaluate<{ onPhone: number; confirmed: number }>('({ onPhone: window.__onPhone - window.__tap, confirmed: window.__sent - window.__tap })');
 }
 

@@ -26,8 +26,8 @@ async function main() {
   const em = orm.em.fork();
   const tag = randomUUID().slice(0, 8);
   const ws = em.create(Workspace, { name: `Bench kitchen ${tag}`, slug: `bench-${tag}` });
-  const user = em.create(User, { email: `bench.dev.${tag}@bench.example`, name: 'Bench developer' } as never) as unknown as { id: string };
-  em.create(Membership, { workspace: ws, user, role: 'developer' } as never);
+  const user = em.create(User, { email: `bench.dev.${tag}@bench.example`, name: 'Bench developer', passwordHash: null });
+  em.create(Membership, { workspace: ws, user, role: 'developer' });
   await em.flush();
   await addStarterLibrary(em, ws.id);
   await addDefaultAttributes(em, ws.id);

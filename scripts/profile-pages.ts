@@ -54,11 +54,11 @@ async function main() {
     // The most seats, then the most answers (the demo's rated tasting over its triangle test of as many seats).
     const seats = await em.count(TastingSeat, { session: s.id });
     const answers = await em.count(TastingAnswer, { session: s.id });
-    if (seats > largest.seats || (seats === largest.seats && answers > largest.answers)) largest = { id: s.id, trialId: (s.trial as unknown as { id: string }).id, seats, answers };
+    if (seats > largest.seats || (seats === largest.seats && answers > largest.answers)) largest = { id: s.id, trialId: s.trial.id, seats, answers };
   }
   if (!largest.id) throw new Error('the database has no demo tasting: run npm run db:seed first');
   const trial = await em.findOneOrFail(Trial, { id: largest.trialId });
-  const formulaId = (trial.baseFormula as unknown as { id: string }).id;
+  const formulaId = trial.baseFormula.id;
   await em.findOneOrFail(Formula, { id: formulaId });
   console.log(`trial ${largest.trialId}, formula ${formulaId}, tasting ${largest.id} (${largest.seats} seats)`);
   await timed('trial: getTrialOverview', () => getTrialOverview(actor, largest.trialId));

@@ -63,8 +63,8 @@ async function setUpSession(): Promise<{ tastingId: string; seats: Array<{ token
   const em = await getEm();
   const tag = randomUUID().slice(0, 8);
   const workspace = em.create(Workspace, { name: `Soak kitchen ${tag}`, slug: `soak-${tag}` });
-  const user = em.create(User, { email: `organiser.${tag}@soak.example`, name: 'Soak organiser' } as never) as unknown as { id: string; email: string };
-  em.create(Membership, { workspace, user, role: 'developer' } as never);
+  const user = em.create(User, { email: `organiser.${tag}@soak.example`, name: 'Soak organiser', passwordHash: null });
+  em.create(Membership, { workspace, user, role: 'developer' });
   await em.flush();
   await addStarterLibrary(em, workspace.id);
   await addDefaultAttributes(em, workspace.id);

@@ -10,7 +10,7 @@ import { describe, expect, it } from 'vitest';
 // Empty: every file holds none. A file that truly needs one is listed here with its count and its reason.
 const ALLOWED: Record<string, number> = {};
 
-const ROOTS = ['lib', 'app', 'components', 'entities'];
+const ROOTS = ['lib', 'app', 'components', 'entities', 'scripts'];
 const CAST = /\bas unknown as\b|\bas never\b/g;
 
 function files(dir: string): string[] {
