@@ -22,6 +22,8 @@ export const HM_GEL_MIN_SOLIDS_PCT = 55;
 export const HM_GEL_MAX_PH = 3.5;
 export const SET_PH_MIN = 2.8;
 export const SET_PH_MAX = 3.5;
+/** Low end of the low-methoxyl setting range (LM pectin gels with calcium at pH 2.5–6.5; from memory, no published source to hand). */
+export const LM_SET_PH_MIN = 2.5;
 export const ACID_FOOD_MAX_PH = 4.6;
 export const LOW_ACID_AW_LIMIT = 0.85;
 export const HM_OPTIMUM = { phMin: 2.8, phMax: 3.3, solidsMinPct: 65, solidsMaxPct: 69 } as const;
@@ -49,6 +51,17 @@ export interface GuidanceInput {
   aw?: number;
   /** A measured pH wins over the planned pH. */
   measuredPh?: number;
+}
+
+/**
+ * The pH window in which the formula's pectin sets. High-methoxyl pectin (and a fruit's own pectin,
+ * which is mostly high-methoxyl) needs acid: 2.8–3.5. Low-methoxyl pectin sets with calcium instead,
+ * from pH 2.5 up; above 4.6 the acid-food limit, not the set, is what matters.
+ */
+export function setPhWindow(lines: Pick<MassBalance, 'lines'>['lines']): { min: number; max: number; lowMethoxylOnly: boolean } {
+  const pectins = lines.filter((l) => l.ingredient.kind === 'pectin' && l.massG > 0).map((l) => l.ingredient.pectinType ?? '');
+  const lowMethoxylOnly = pectins.length > 0 && pectins.every((t) => t.startsWith('lm'));
+  return lowMethoxylOnly ? { min: LM_SET_PH_MIN, max: ACID_FOOD_MAX_PH, lowMethoxylOnly } : { min: SET_PH_MIN, max: SET_PH_MAX, lowMethoxylOnly };
 }
 
 /** Set and safety cautions for a batch. Hot filling is always noted because every batch is filled. */
@@ -102,14 +115,24 @@ export function buildGuidance(input: GuidanceInput): Caution[] {
       source: 'LM pectin gels with calcium from 10–80 % solids, pH 2.5–6.5',
     });
   }
-  if (ph !== undefined && (ph < SET_PH_MIN || ph > SET_PH_MAX)) {
-    cautions.push({
-      code: 'PH_OUTSIDE_SET_RANGE',
-      severity: 'warning',
-      title: 'pH outside the setting range',
-      message: `${phLabel} pH ${ph.toFixed(2)} is outside ${SET_PH_MIN}–${SET_PH_MAX}. Below it the gel weeps (syneresis); above it an HM pectin will not set.`,
-      source: 'McGee, On Food and Cooking (2004): HM pectin gels at pH 2.8–3.5',
-    });
+  // One caution per cause: an HM pectin at too high a pH already has its own warning above.
+  const window = setPhWindow(massBalance.lines);
+  if (ph !== undefined && (ph < window.min || (ph > window.max && !window.lowMethoxylOnly && !(hmPectin && ph >= HM_GEL_MAX_PH)))) {
+    cautions.push(window.lowMethoxylOnly
+      ? {
+          code: 'PH_OUTSIDE_SET_RANGE',
+          severity: 'warning',
+          title: 'pH below the setting range',
+          message: `${phLabel} pH ${ph.toFixed(2)} is below ${window.min}, where even a low-methoxyl pectin with calcium sets poorly and the gel weeps (syneresis).`,
+          source: 'LM pectin gels with calcium from 10–80 % solids, pH 2.5–6.5',
+        }
+      : {
+          code: 'PH_OUTSIDE_SET_RANGE',
+          severity: 'warning',
+          title: 'pH outside the setting range',
+          message: `${phLabel} pH ${ph.toFixed(2)} is outside ${window.min}–${window.max}. Below it the gel weeps (syneresis); above it the fruit's own and any high-methoxyl pectin will not set.`,
+          source: 'McGee, On Food and Cooking (2004): HM pectin gels at pH 2.8–3.5',
+        });
   }
   // Graded by what is known: DANGER only where a limit is crossed; an unknown pH is asked for, not alarmed on.
   if (ph === undefined) {

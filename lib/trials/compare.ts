@@ -3,7 +3,7 @@
  * of thumb (common practice, no published source); the pH limits are published (see guidance).
  */
 import { correctBrixTo20C, ChemistryInputError, type BatchComputation } from '@/lib/chemistry';
-import { ACID_FOOD_MAX_PH, SET_PH_MAX, SET_PH_MIN } from '@/lib/chemistry';
+import { ACID_FOOD_MAX_PH, LM_SET_PH_MIN, setPhWindow } from '@/lib/chemistry';
 import { compareStatedSugar, statedTotalSugar } from '@/lib/label/statements';
 
 export type ComparisonFlag = 'ok' | 'watch' | 'out' | 'danger' | 'unknown';
@@ -36,9 +36,6 @@ export interface CookReadings {
   yieldJars?: number | null;
   yieldG?: number | null;
 }
-
-/** Low end of the low-methoxyl setting range (references: LM pectin gels with calcium at pH 2.5–6.5). */
-export const LM_SET_PH_MIN = 2.5;
 
 /** Common practice, no published source: how far a measurement may sit from its prediction. */
 export const TOLERANCES = { massPct: 5, solidsBrix: 1, endPointC: 1 } as const;
@@ -93,11 +90,10 @@ export function compareCook(computation: BatchComputation | null, cook: CookRead
     epOff ? 'More than 1 °C from the predicted end point (common practice): check the thermometer and the water boiling point.' : 'Against the predicted end point for this kitchen.'));
   const ph = cook.ph ?? null;
   // The setting window depends on the pectin: high-methoxyl needs acid, low-methoxyl sets with calcium.
-  const pectins = mb?.lines.filter((l) => l.ingredient.kind === 'pectin').map((l) => l.ingredient.pectinType ?? '') ?? [];
-  const lowMethoxylOnly = pectins.length > 0 && pectins.every((t) => t.startsWith('lm'));
-  const window = lowMethoxylOnly
-    ? { min: LM_SET_PH_MIN, max: ACID_FOOD_MAX_PH, why: `low-methoxyl pectin sets with calcium across pH ${LM_SET_PH_MIN}–6.5, and ${ACID_FOOD_MAX_PH} is the acid-food limit (21 CFR 114.3)` }
-    : { min: SET_PH_MIN, max: SET_PH_MAX, why: 'where high-methoxyl pectin sets (McGee, On Food and Cooking)' };
+  const set = setPhWindow(mb?.lines ?? []);
+  const window = set.lowMethoxylOnly
+    ? { ...set, why: `low-methoxyl pectin sets with calcium across pH ${LM_SET_PH_MIN}–6.5, and ${ACID_FOOD_MAX_PH} is the acid-food limit (21 CFR 114.3)` }
+    : { ...set, why: 'where high-methoxyl pectin sets (McGee, On Food and Cooking)' };
   let phFlag: ComparisonFlag = 'unknown';
   let phNote = 'No pH measured.';
   if (ph !== null) {

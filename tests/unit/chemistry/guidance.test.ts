@@ -52,6 +52,31 @@ describe('set guidance', () => {
     // Source: McGee, On Food and Cooking (2004): HM pectin gels at pH 2.8–3.5
     expect(codes(PRACTICAL_ACTION_LINES, settings({ plannedPh: 2.6 }))).toContain('PH_OUTSIDE_SET_RANGE');
     expect(codes(PRACTICAL_ACTION_LINES, settings({ plannedPh: 3.0 }))).not.toContain('PH_OUTSIDE_SET_RANGE');
+    // With no added pectin the fruit's own (mostly high-methoxyl) pectin sets, in the same window.
+    const fruitAndSugar: FormulaLineInput[] = [{ ingredient: fruit(10), quantity: 1000, unit: 'g' }, { ingredient: SUGAR, quantity: 1000, unit: 'g' }];
+    expect(codes(fruitAndSugar, settings({ plannedPh: 3.6 }))).toContain('PH_OUTSIDE_SET_RANGE');
+  });
+
+  it('gives one caution per cause: an HM pectin above pH 3.5 is not warned twice', () => {
+    // Source: McGee, On Food and Cooking (2004): HM pectin gels at pH < 3.5
+    const found = codes(PRACTICAL_ACTION_LINES, settings({ plannedPh: 3.6 }));
+    expect(found).toContain('HM_PECTIN_PH_TOO_HIGH');
+    expect(found).not.toContain('PH_OUTSIDE_SET_RANGE');
+  });
+
+  it('holds a low-methoxyl pectin with calcium to its own window, pH 2.5 up, not the HM one', () => {
+    // Source: low-methoxyl pectin gels with calcium (10–80 % solids, pH 2.5–6.5); from memory, no published source to hand
+    const lm: FormulaLineInput[] = [
+      { ingredient: fruit(10), quantity: 1000, unit: 'g' },
+      { ingredient: SUGAR, quantity: 500, unit: 'g' },
+      { ingredient: LM_PECTIN, quantity: 12, unit: 'g' },
+      { ingredient: CALCIUM, quantity: 1, unit: 'g' },
+    ];
+    expect(codes(lm, settings({ targetSolidsPct: 45, plannedPh: 3.7 }))).not.toContain('PH_OUTSIDE_SET_RANGE');
+    expect(codes(lm, settings({ targetSolidsPct: 45, plannedPh: 4.4 }))).not.toContain('PH_OUTSIDE_SET_RANGE');
+    const low = guidanceFor(lm, settings({ targetSolidsPct: 45, plannedPh: 2.4 })).find((c) => c.code === 'PH_OUTSIDE_SET_RANGE');
+    expect(low?.title).toBe('pH below the setting range');
+    expect(low?.message).toContain('below 2.5');
   });
 });
 

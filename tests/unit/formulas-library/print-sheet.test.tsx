@@ -95,8 +95,8 @@ describe('FormulaPrintSheet', () => {
     expect(alert.textContent).toContain('pH above 4.6');
     expect(alert.textContent).toContain('Local food-safety codes and licensed practice govern.');
     expect(items[0].contains(alert)).toBe(true); // danger first
-    // Source: McGee, On Food and Cooking (2004): HM pectin gels at pH 2.8–3.5, so 4.8 is outside the set range
-    expect(within(box).getByText(/Warning: pH outside the setting range/)).toBeTruthy();
+    // Source: McGee, On Food and Cooking (2004): HM pectin gels at pH < 3.5, so at 4.8 this HM formula will not set
+    expect(within(box).getByText(/Warning: pH too high for a high-methoxyl set/)).toBeTruthy();
     expect(within(box).getByText(/Note: Hot filling/)).toBeTruthy();
     const computed = detail(PRACTICAL_ACTION_LINES, settings({ plannedPh: 4.8 })).computation;
     expect(items).toHaveLength(computed?.cautions.length ?? -1);
