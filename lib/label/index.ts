@@ -130,7 +130,7 @@ export function buildLabel(input: LabelInput, options: LabelOptions = {}): Label
   const claims = sugarClaimChecks(input, { nutrients, energyKj: eu.energyKj, energyIncomplete: energyRow?.incomplete ?? false }, reference).map(claimView);
   const additives = additiveLimitChecks(input).map(additiveView);
   const usNotes = [
-    ...(us.addedSugarsStatement ? [us.addedSugarsStatement] : []),
+    ...us.notSignificantStatements,
     ...us.rows.filter((r) => r.amount === null && !r.incomplete && r.note).map((r) => r.note as string),
   ];
   return {

@@ -63,8 +63,12 @@ export interface UsNutritionFacts {
   /** How calories are computed, in words. */
   caloriesMethod: string;
   rows: UsFactsRow[];
-  /** Per 21 CFR 101.9(c)(6)(iii): under 1 g of added sugars per serving this statement may replace the row. */
-  addedSugarsStatement: string | null;
+  /**
+   * "Not a significant source of …" lines for the foot of the panel: trans fat when it need not be
+   * declared (21 CFR 101.9(c)(2)(ii), its row is then left off), added sugars under 1 g a serving
+   * (101.9(c)(6)(iii), where the statement may replace the row).
+   */
+  notSignificantStatements: string[];
   complete: boolean;
 }
 
@@ -205,6 +209,13 @@ function facts(spec: RowSpec, servingG: number): UsFactsRow {
   };
 }
 
+/**
+ * 21 CFR 101.9(c)(2)(ii): trans fat need not be declared for a food with less than 0.5 g total fat a
+ * serving that makes no claim about fat, fatty acids or cholesterol; the panel then carries "Not a
+ * significant source of trans fat". Setwell checks only sugar claims, so no fat claim is ever made.
+ */
+export const US_TRANS_FAT_EXEMPT_BELOW_FAT_G = 0.5;
+
 /** The Nutrition Facts per serving, with % DV. Throws ChemistryInputError on a bad jar fill. */
 export function usNutritionFacts(n: FinishedNutrients, input: LabelInput): UsNutritionFacts {
   const added = addedSugarsPer100g(input);
@@ -212,12 +223,15 @@ export function usNutritionFacts(n: FinishedNutrients, input: LabelInput): UsNut
   const serving = usServingsPerContainer(input.settings.jarNetFillG);
   const servingG = serving.servingG;
   const unknown = (key: NutrientKey) => n.unknownFrom[key] ?? [];
+  // Only a fat figure known for every ingredient can lift the trans fat declaration.
+  const fatPerServingG = n.fatG === null || unknown('fatG').length > 0 ? null : (n.fatG * servingG) / 100;
+  const transFatExempt = fatPerServingG !== null && fatPerServingG < US_TRANS_FAT_EXEMPT_BELOW_FAT_G;
   // Sodium is held in mg per 100 g; the others in g.
   const specs: RowSpec[] = [
     { nutrient: 'totalFat', name: 'Total Fat', indent: 0, unit: 'g', per100: n.fatG, unknownFrom: unknown('fatG'), round: usFatAmount, dailyValue: US_DAILY_VALUES.totalFat },
     { nutrient: 'saturatedFat', name: 'Saturated Fat', indent: 1, unit: 'g', per100: n.saturatesG, unknownFrom: unknown('saturatesG'), round: usFatAmount, dailyValue: US_DAILY_VALUES.saturatedFat },
-    { nutrient: 'transFat', name: 'Trans Fat', indent: 1, unit: 'g', per100: null, unknownFrom: [], round: usFatAmount, dailyValue: null,
-      missingReason: 'Not known: the ingredient data holds no trans fat figures' },
+    ...(transFatExempt ? [] : [{ nutrient: 'transFat', name: 'Trans Fat', indent: 1, unit: 'g', per100: null, unknownFrom: [], round: usFatAmount, dailyValue: null,
+      missingReason: 'Not known: the ingredient data holds no trans fat figures' } satisfies RowSpec]),
     { nutrient: 'cholesterol', name: 'Cholesterol', indent: 0, unit: 'mg', per100: null, unknownFrom: [], round: usCholesterolAmount, dailyValue: US_DAILY_VALUES.cholesterol,
       missingReason: 'Not known: the ingredient data holds no cholesterol figures' },
     { nutrient: 'sodium', name: 'Sodium', indent: 0, unit: 'mg', per100: n.sodiumMg, unknownFrom: unknown('sodiumMg'), round: usSodiumAmount, dailyValue: US_DAILY_VALUES.sodium },
@@ -238,7 +252,10 @@ export function usNutritionFacts(n: FinishedNutrients, input: LabelInput): UsNut
 
   const addedRow = rows.find((r) => r.nutrient === 'addedSugars');
   // 101.9(c)(6)(iii): below 1 g per serving the row may be left off, with this statement instead.
-  const addedSugarsStatement = addedRow?.amount && addedRow.amount.value < 1 && !addedRow.incomplete ? 'Not a significant source of added sugars' : null;
+  const notSignificantStatements = [
+    ...(transFatExempt ? ['Not a significant source of trans fat'] : []),
+    ...(addedRow?.amount && addedRow.amount.value < 1 && !addedRow.incomplete ? ['Not a significant source of added sugars'] : []),
+  ];
 
   return {
     servingSizeG: servingG,
@@ -255,8 +272,8 @@ export function usNutritionFacts(n: FinishedNutrients, input: LabelInput): UsNut
     },
     caloriesMethod: US_CALORIES_METHOD,
     rows,
-    addedSugarsStatement,
-    // Trans fat and cholesterol are never known from our data; their rows say so, and `complete`
+    notSignificantStatements,
+    // Cholesterol, and trans fat where it must be declared, are never known from our data; their rows say so, and `complete`
     // speaks only of the figures that are computed.
     complete: caloriesUnknown.length === 0 && rows.every((r) => !r.incomplete),
   };

@@ -61,7 +61,7 @@ describe('US Nutrition Facts: example (a) strawberry jam 1:1 in a 340 g jar', ()
     // Total sugars: REF 65.43125 g/100 g × 0.2 = 13.08625 g → 13 g; no % DV (CFR (c)(6)(ii)).
     expect(rowOf(f, 'totalSugars').label).toBe('13 g');
     expect(rowOf(f, 'totalSugars').dailyValuePct).toBeNull();
-    expect(f.addedSugarsStatement).toBeNull();
+    expect(f.notSignificantStatements).not.toContain('Not a significant source of added sugars');
   });
 
   it('rounds the small amounts to zero and says what is not known', () => {
@@ -69,7 +69,6 @@ describe('US Nutrition Facts: example (a) strawberry jam 1:1 in a 340 g jar', ()
     expect(f.rows.map((r) => [r.name, r.label, r.dailyValuePct])).toEqual([
       ['Total Fat', '0 g', 0],
       ['Saturated Fat', '0 g', 0],
-      ['Trans Fat', 'not known', null],
       ['Cholesterol', 'not known', null],
       ['Sodium', '0 mg', 0],
       ['Total Carbohydrate', '14 g', 5],
@@ -78,7 +77,10 @@ describe('US Nutrition Facts: example (a) strawberry jam 1:1 in a 340 g jar', ()
       ['Includes Added Sugars', '12 g', 24],
       ['Protein', '0 g', null],
     ]);
-    expect(rowOf(f, 'transFat').note).toBe('Not known: the ingredient data holds no trans fat figures');
+    // Source: CFR (c)(2)(ii): under 0.5 g total fat a serving (here 0.0379 g) and no fat claim, trans fat
+    // need not be declared, and the panel says "Not a significant source of trans fat".
+    expect(f.rows.some((r) => r.nutrient === 'transFat')).toBe(false);
+    expect(f.notSignificantStatements).toEqual(['Not a significant source of trans fat']);
     // Sugars are incomplete (pectin has no figure in SR28), as in the EU table.
     expect(rowOf(f, 'totalSugars').note).toBe('Incomplete: no figure for pectin');
     expect(f.complete).toBe(false);
@@ -133,9 +135,40 @@ describe('US added sugars: what counts as added in a jam', () => {
     const f = facts(fruitOnly);
     expect(rowOf(f, 'addedSugars').label).toBe('0 g');
     // Source: CFR (c)(6)(iii): under 1 g per serving, "Not a significant source of added sugars" may replace the row.
-    expect(f.addedSugarsStatement).toBe('Not a significant source of added sugars');
+    expect(f.notSignificantStatements).toContain('Not a significant source of added sugars');
     const unknownSyrup = labelInput([line(1000, labelData('apricots', 'fruit', SR28.apricot)), line(500, labelData('syrup', 'sweetener', { ...SR28.sugar, sugarsG: null }))]);
     expect(addedSugarsPer100g(unknownSyrup).unknownFrom).toEqual(['syrup']);
+  });
+});
+
+describe('US trans fat: declared unless the fat is known to be under 0.5 g a serving', () => {
+  // Source: 21 CFR 101.9(c)(2)(ii): not required under 0.5 g total fat per serving without a fat,
+  // fatty acid or cholesterol claim. 1000 g apricots (SR28 09021: 0.39 g fat/100 g) and 1000 g sugar
+  // carrying F g fat/100 g, finished at 1600 g: (3.9 + 10 F) g fat in 1600 g, so (3.9 + 10 F) / 80 g a
+  // 20 g serving; 0.5 g is reached at F = 3.61.
+  const withFat = (fatG: number | null) => facts(labelInput([
+    line(1000, labelData('apricots', 'fruit', SR28.apricot)),
+    line(1000, labelData('sugar', 'sweetener', { ...SR28.sugar, fatG })),
+  ], { finishedMassG: 1600 }));
+
+  it('keeps the row, marked unknown, at 0.5 g a serving and above', () => {
+    const f = withFat(4);
+    expect(rowOf(f, 'totalFat').amount?.value).toBeCloseTo(43.9 / 80, 9);
+    expect(rowOf(f, 'transFat').note).toBe('Not known: the ingredient data holds no trans fat figures');
+    expect(f.notSignificantStatements).not.toContain('Not a significant source of trans fat');
+  });
+
+  it('keeps the row while the fat of any ingredient is not known', () => {
+    const f = withFat(null);
+    expect(rowOf(f, 'transFat').label).toBe('not known');
+    expect(f.notSignificantStatements).not.toContain('Not a significant source of trans fat');
+  });
+
+  it('leaves it off, with the statement, just under 0.5 g a serving', () => {
+    const f = withFat(3.5);
+    expect(rowOf(f, 'totalFat').amount?.value).toBeCloseTo(38.9 / 80, 9);
+    expect(f.rows.some((r) => r.nutrient === 'transFat')).toBe(false);
+    expect(f.notSignificantStatements).toContain('Not a significant source of trans fat');
   });
 });
 
