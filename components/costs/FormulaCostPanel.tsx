@@ -10,6 +10,7 @@ import { TableBox } from '@/components/ui/TableBox';
 import { type EditorComputation, type LineDraft } from '@/components/formulas/editor-state';
 import { showMass } from '@/lib/format/quantities';
 import { CostSummary } from './CostSummary';
+import { DateInput } from '@/components/ui/DateInput';
 
 const SENSITIVITY_ROWS = 5;
 const pct = (v: number | null) => (v === null ? '—' : `${v.toFixed(1)} %`);
@@ -89,17 +90,17 @@ export function FormulaCostPanel({
     <section aria-labelledby="formula-cost-title" data-testid="formula-cost">
       <header className="mb-4 flex flex-wrap items-end justify-between gap-3">
         <h2 id="formula-cost-title" className="text-lg font-semibold">Cost</h2>
-        <div className="flex flex-wrap items-end gap-3">
-          <label className="text-sm">
-            <span className="mb-1 block font-medium text-rind-700">Prices as of</span>
-            <input
-              type="date"
+        <div className="flex flex-wrap items-start gap-3">
+          <div className="text-sm">
+            <label htmlFor="cost-as-of" className="mb-1 block font-medium text-rind-700">Prices as of</label>
+            <DateInput
+              id="cost-as-of"
               className="min-h-10 rounded-md border border-pith-400 bg-white px-2"
               value={asOfText}
               onChange={(e) => void changeDay(e.target.value)}
               aria-describedby={problem ? 'cost-day-problem' : undefined}
             />
-          </label>
+          </div>
           <label className="text-sm">
             <span className="mb-1 block font-medium text-rind-700">Pack format</span>
             <select className="min-h-10 max-w-full rounded-md border border-pith-400 bg-white px-2" value={formatId} onChange={(e) => setFormatId(e.target.value)}>

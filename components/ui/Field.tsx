@@ -1,4 +1,5 @@
 import type { InputHTMLAttributes, ReactNode, SelectHTMLAttributes } from 'react';
+import { DateInput } from './DateInput';
 
 const inputBase =
   'block w-full rounded-lg border-0 bg-white px-3 py-2 text-base text-rind-900 ring-1 ring-inset ring-rind-300 placeholder:text-rind-400 focus:ring-2 focus:ring-damson-500 aria-[invalid=true]:ring-ember-600';
@@ -22,12 +23,13 @@ interface FieldProps extends InputHTMLAttributes<HTMLInputElement> {
 /** A labelled input whose server-side field errors sit right under it. */
 export function Field({ label, name, errors, hint, id, ...rest }: FieldProps) {
   const fieldId = id ?? `f-${name}`;
+  const Input = rest.type === 'date' ? DateInput : 'input';
   return (
     <div>
       <label htmlFor={fieldId} className="mb-1 block text-sm font-medium text-rind-700">
         {label}
       </label>
-      <input
+      <Input
         id={fieldId}
         name={name}
         aria-invalid={errors?.length ? true : undefined}
