@@ -40,7 +40,15 @@ export async function prepareRevision(actor: Actor, settings: FormulaSettingsInp
   return { stored, summary };
 }
 
-export async function createFormula(actor: Actor, input: CreateFormulaInput): Promise<{ formulaId: string; revision: number }> {
+/**
+ * When a revision was saved. `savedAt` is for formulas brought in from earlier records (the demo's
+ * story, which cooks them on dated days); it never comes from a request.
+ */
+export interface SaveOptions {
+  savedAt?: Date;
+}
+
+export async function createFormula(actor: Actor, input: CreateFormulaInput, options: SaveOptions = {}): Promise<{ formulaId: string; revision: number }> {
   const { stored, summary } = await prepareRevision(actor, input.settings, input.lines);
   const em = await getEm();
   return em.transactional(async (tx) => {
@@ -51,6 +59,7 @@ export async function createFormula(actor: Actor, input: CreateFormulaInput): Pr
       latestRevision: 1,
       createdBy: actor.userId,
       updatedBy: actor.userId,
+      ...(options.savedAt ? { createdAt: options.savedAt, updatedAt: options.savedAt } : {}),
     });
     tx.create(FormulaRevision, {
       workspace: actor.workspaceId,
@@ -62,6 +71,7 @@ export async function createFormula(actor: Actor, input: CreateFormulaInput): Pr
       note: input.note || 'First version',
       summary,
       createdBy: actor.userId,
+      ...(options.savedAt ? { createdAt: options.savedAt } : {}),
     });
     await tx.flush();
     return { formulaId: formula.id, revision: 1 };
@@ -73,7 +83,7 @@ export async function createFormula(actor: Actor, input: CreateFormulaInput): Pr
  * both win: the second gets 409 unless it explicitly asks to save on top (force), in which
  * case both versions remain in the history.
  */
-export async function reviseFormula(actor: Actor, formulaId: string, input: ReviseFormulaInput): Promise<{ formulaId: string; revision: number }> {
+export async function reviseFormula(actor: Actor, formulaId: string, input: ReviseFormulaInput, options: SaveOptions = {}): Promise<{ formulaId: string; revision: number }> {
   const em = await getEm();
   // 404 before 422: a formula of another workspace must not reveal whether the body was valid.
   if (!(await em.count(Formula, { ...inWorkspace(actor), id: formulaId, archivedAt: null }))) throw notFound('formula');
@@ -99,11 +109,12 @@ export async function reviseFormula(actor: Actor, formulaId: string, input: Revi
       note: input.note || null,
       summary,
       createdBy: actor.userId,
+      ...(options.savedAt ? { createdAt: options.savedAt } : {}),
     });
     formula.latestRevision = number;
     formula.name = name;
     formula.updatedBy = tx.getReference(User, actor.userId);
-    formula.updatedAt = new Date();
+    formula.updatedAt = options.savedAt ?? new Date();
     await tx.flush();
     return { formulaId, revision: number };
   });

@@ -61,25 +61,32 @@ export async function seedDemoFormulas(em: EntityManager, developer: Actor): Pro
   const ids = Object.fromEntries(rows.map((r) => [r.typicalKey!, r.id]));
   const today = '2026-11-20';
   await completeDemoComposition(developer, ids);
+  // The story's days: the formulas are written up in February, one a day, before the first trial of
+  // the apricot spread's history (lib/seed/model-history.ts, from March). One a day keeps the list's
+  // newest-first order free of ties.
+  let day = 16;
+  const written = () => ({ savedAt: new Date(Date.UTC(2026, 1, day++, 9)) });
 
   const strawberry = await createFormula(
     developer,
     input(ids, 'Hedgerow strawberry jam', { productClass: 'jam', ruleSet: 'eu', ruleDate: today, targetSolidsPct: 65, jarNetFillG: 340, altitudeM: 120, plannedPh: 3.2 }, [
       ['strawberry', 1000], ['sucrose', 1000], ['pectin_hm_rapid_150', 7], ['citric_acid_anhydrous', 5],
     ], 'First kitchen batch, one-to-one fruit and sugar', 'House strawberry jam for the farm shop; soft set.'),
+    written(),
   );
   await reviseFormula(developer, strawberry.formulaId, {
     baseRevision: 1,
     settings: { productClass: 'jam', ruleSet: 'eu', ruleDate: today, targetSolidsPct: 65, jarNetFillG: 340, altitudeM: 120, plannedPh: 3.1 },
     lines: linesOf(ids, [['strawberry', 1000], ['sucrose', 850], ['pectin_hm_rapid_150', 8], ['citric_acid_anhydrous', 6], ['lemon_juice', 30]]),
     note: 'Less sugar, a little more pectin and lemon for a brighter set',
-  });
+  }, written());
 
   await createFormula(
     developer,
     input(ids, 'Raspberry jam, economy trial', { productClass: 'jam', ruleSet: 'eu', ruleDate: today, targetSolidsPct: 65, jarNetFillG: 340, altitudeM: 120, plannedPh: 3.1 }, [
       ['raspberry', 600], ['sucrose', 1000], ['pectin_hm_rapid_150', 6], ['citric_acid_anhydrous', 4],
     ], 'Cost-down idea: less fruit', 'Checks how far fruit can drop. Under the rules in force since 14 June 2026 it is too little fruit to be called jam.'),
+    written(),
   );
 
   await createFormula(
@@ -87,6 +94,7 @@ export async function seedDemoFormulas(em: EntityManager, developer: Actor): Pro
     input(ids, 'Apricot spread, reduced sugar', { productClass: 'reduced_sugar_spread', ruleSet: 'eu', ruleDate: today, targetSolidsPct: 45, jarNetFillG: 250, altitudeM: 120, plannedPh: 3.7 }, [
       ['apricot', 1000], ['sucrose', 420], ['pectin_lm_amidated', 10], ['calcium_citrate', 1], ['lemon_juice', 40],
     ], 'Low-methoxyl set at 45 % solids', 'Reduced-sugar line for the deli. Needs refrigeration after opening and a preservation step; see the cautions.'),
+    written(),
   );
 
   await createFormula(
@@ -94,6 +102,7 @@ export async function seedDemoFormulas(em: EntityManager, developer: Actor): Pro
     input(ids, 'Blackcurrant jam', { productClass: 'jam', ruleSet: 'eu', ruleDate: today, targetSolidsPct: 67, jarNetFillG: 340, altitudeM: 120, plannedPh: 3.0 }, [
       ['blackcurrant', 900], ['sucrose', 1100], ['water', 250], ['pectin_hm_rapid_150', 3],
     ], 'Blackcurrant sets on its own pectin; a little added for safety'),
+    written(),
   );
 
   await createFormula(
@@ -101,6 +110,7 @@ export async function seedDemoFormulas(em: EntityManager, developer: Actor): Pro
     input(ids, 'Bitter orange marmalade', { productClass: 'marmalade', ruleSet: 'eu', ruleDate: today, targetSolidsPct: 67, jarNetFillG: 340, altitudeM: 120, plannedPh: 3.0 }, [
       ['bitter_orange', 800], ['sucrose', 1200], ['water', 900], ['lemon_juice', 60],
     ], 'Thick-cut, long boil'),
+    written(),
   );
 
   // Potassium sorbate: 1.5 g gives about 0.91 g sorbic acid per kg of the about 1.23 kg made, near but under
@@ -111,6 +121,7 @@ export async function seedDemoFormulas(em: EntityManager, developer: Actor): Pro
     input(ids, 'Strawberry spread, less sugar', { productClass: 'reduced_sugar_spread', ruleSet: 'eu', ruleDate: today, targetSolidsPct: 42, jarNetFillG: 250, altitudeM: 120, plannedPh: 3.3, preservation: 'preservative' }, [
       ['strawberry', 1000], ['sucrose', 420], ['pectin_lm_amidated', 12], ['calcium_citrate', 1.5], ['citric_acid_anhydrous', 3], ['potassium_sorbate', 1.5],
     ], 'Low-methoxyl set at 42 % solids, kept with sorbate', 'Deli line with about a third less sugar than the house strawberry jam; the sorbate dose sits close to its limit.'),
+    written(),
   );
   return 6;
 }

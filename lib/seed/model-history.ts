@@ -21,6 +21,7 @@ import type { RevisionLine } from '@/lib/formulas/schema';
 import type { FactorLevel } from '@/lib/trials/plan';
 import { hashSecret, newSecret } from '@/lib/secrets';
 import type { Actor } from '@/lib/permissions';
+import { formatDate } from '@/lib/format/dates';
 
 /** Deterministic scatter in [-1, 1]. */
 function noise(seed: number): number {
@@ -192,7 +193,7 @@ export async function seedDemoModelHistory(em: EntityManager, developer: Actor):
       const group = variants.slice(sitting * SAMPLES_PER_SITTING, (sitting + 1) * SAMPLES_PER_SITTING);
       const opened = at(history.panelDay, 10 + sitting * 3);
       const session = em.create(Tasting, {
-        workspace: ws, trial, title: `Spread tasting, ${history.panelDay.slice(8)}/${history.panelDay.slice(5, 7)}, sitting ${sitting + 1}`,
+        workspace: ws, trial, title: `Spread tasting, ${formatDate(history.panelDay)}, sitting ${sitting + 1}`,
         place: 'Tasting room', startsAt: opened, method: 'rated', state: 'closed', notice: NOTICE, attributeIds: rated.map((r) => r.id),
         rankingAttributeId: null, design: {}, joinCode: null, createdBy: developer.userId, createdAt: daysBefore(history.panelDay, 1),
         openedAt: opened, closedAt: new Date(opened.getTime() + 2 * 3_600_000),

@@ -47,6 +47,41 @@ async function cookAll(developer: Actor, trialId: string, labels: string[], day:
   }
 }
 
+/**
+ * The demo's cooks carry their story's days (12 Nov, 26 Nov, 2 Dec) but the rows are written today.
+ * So that no trial starts after its own cooks, each trial is dated two days before its first cook,
+ * with its variants; its move to the stove is dated the first cook day and its move to the panel the
+ * last. Only ever earlier: a date already before its story day stays. (The formulas carry their
+ * story's days from lib/seed/formulas.ts: revisions cannot be changed once written.)
+ */
+async function backdateToTheCooks(em: EntityManager, workspaceId: string) {
+  const connection = em.getConnection();
+  const cooks = `SELECT v.trial_id, min(m.cook_date) AS first_day, max(m.cook_date) AS last_day
+                   FROM measurements m JOIN variants v ON v.id = m.variant_id
+                  WHERE m.workspace_id = ? GROUP BY v.trial_id`;
+  await connection.execute(
+    `UPDATE trials t SET created_at = ((c.first_day - 2) + time '09:00') AT TIME ZONE 'UTC'
+       FROM (${cooks}) c WHERE t.id = c.trial_id AND t.workspace_id = ? AND t.created_at > ((c.first_day - 2) + time '09:00') AT TIME ZONE 'UTC'`,
+    [workspaceId, workspaceId],
+  );
+  await connection.execute(
+    `UPDATE variants v SET created_at = t.created_at, updated_at = t.created_at
+       FROM trials t WHERE v.trial_id = t.id AND t.workspace_id = ? AND v.created_at > t.created_at`,
+    [workspaceId],
+  );
+  await connection.execute(
+    `UPDATE trial_status_changes s
+        SET changed_at = CASE WHEN s.to_status = 'cooking' THEN (c.first_day + time '08:00') AT TIME ZONE 'UTC'
+                              WHEN s.to_status = 'tasting' THEN (c.last_day + time '17:00') AT TIME ZONE 'UTC'
+                              ELSE t.created_at END
+       FROM (${cooks}) c, trials t
+      WHERE s.trial_id = c.trial_id AND t.id = c.trial_id AND t.workspace_id = ?
+        AND (s.to_status IN ('cooking', 'tasting') OR s.from_status IS NULL)
+        AND s.changed_at > t.created_at`,
+    [workspaceId, workspaceId],
+  );
+}
+
 export async function seedDemoTrials(em: EntityManager, developer: Actor): Promise<SeededTrial[]> {
   const formulas = await em.find(Formula, { workspace: developer.workspaceId });
   const byName = (name: string) => formulas.find((f) => f.name === name)!.id;
@@ -88,6 +123,8 @@ export async function seedDemoTrials(em: EntityManager, developer: Actor): Promi
   await planVariants(developer, strawberry.trialId, { kind: 'one_factor_at_a_time', factors: [{ factor: 'acid_dose', low: 3, high: 5 }], centrePoint: false });
   await transitionTrial(developer, strawberry.trialId, 'cooking');
   await cookAll(developer, strawberry.trialId, ['A'], '2026-12-02', { A: 4 }, { A: 3.2 });
+
+  await backdateToTheCooks(em, developer.workspaceId);
 
   for (const t of [apricot, blackcurrant]) {
     const variants = await listVariants(developer, t.trialId);
