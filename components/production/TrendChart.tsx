@@ -3,6 +3,7 @@
 import { Chart as ChartJS, CategoryScale, LinearScale, LineElement, PointElement, Tooltip, Legend } from 'chart.js';
 import { Line } from 'react-chartjs-2';
 import { RUN_RULE_LABELS, RUN_RULE_SET, runRuleSignals } from '@/lib/stats/run-rules';
+import { nameWithUnit } from '@/lib/format/quantities';
 
 ChartJS.register(CategoryScale, LinearScale, LineElement, PointElement, Tooltip, Legend);
 ChartJS.defaults.animation = false;
@@ -41,7 +42,7 @@ export function TrendChart({ title, unit, points, decimals }: { title: string; u
             labels,
             datasets: [
               {
-                label: `${title} (${unit})`, data: points.map((p) => p.value), borderColor: DAMSON, borderWidth: 2,
+                label: nameWithUnit(title, unit), data: points.map((p) => p.value), borderColor: DAMSON, borderWidth: 2,
                 pointRadius: points.map((_, i) => (flagged.has(i) ? 8 : 5)),
                 pointStyle: points.map((_, i) => (flagged.has(i) ? 'triangle' : 'circle')),
                 pointBackgroundColor: points.map((p) => (p.ok ? LEAF : EMBER)), pointBorderColor: points.map((p, i) => (flagged.has(i) ? EMBER : p.ok ? LEAF : EMBER)),

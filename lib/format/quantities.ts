@@ -108,3 +108,8 @@ export function redisplayDraft(draft: MeasuredDraft, scale: DisplayScale): Measu
 }
 
 /* ---------- lines ---------- */
+
+/** "Soluble solids (°Brix)", but "pH", not "pH (pH)": a unit that only repeats the name is left off. */
+export function nameWithUnit(name: string, unit: string): string {
+  return !unit || unit.trim().toLowerCase() === name.trim().toLowerCase() ? name : `${name} (${unit})`;
+}
