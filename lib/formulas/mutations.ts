@@ -1,5 +1,6 @@
 import 'server-only';
 /** Formula writes. Every save is a new immutable revision; the formula row tracks the latest number. */
+import { momentOf, type RecordedAt } from '@/lib/recorded-at';
 import { LockMode } from '@mikro-orm/core';
 import { getEm } from '@/lib/db';
 import { Formula, FormulaRevision, User } from '@/entities';
@@ -40,15 +41,7 @@ export async function prepareRevision(actor: Actor, settings: FormulaSettingsInp
   return { stored, summary };
 }
 
-/**
- * When a revision was saved. `savedAt` is for formulas brought in from earlier records (the demo's
- * story, which cooks them on dated days); it never comes from a request.
- */
-export interface SaveOptions {
-  savedAt?: Date;
-}
-
-export async function createFormula(actor: Actor, input: CreateFormulaInput, options: SaveOptions = {}): Promise<{ formulaId: string; revision: number }> {
+export async function createFormula(actor: Actor, input: CreateFormulaInput, options: RecordedAt = {}): Promise<{ formulaId: string; revision: number }> {
   const { stored, summary } = await prepareRevision(actor, input.settings, input.lines);
   const em = await getEm();
   return em.transactional(async (tx) => {
@@ -59,7 +52,7 @@ export async function createFormula(actor: Actor, input: CreateFormulaInput, opt
       latestRevision: 1,
       createdBy: actor.userId,
       updatedBy: actor.userId,
-      ...(options.savedAt ? { createdAt: options.savedAt, updatedAt: options.savedAt } : {}),
+      createdAt: momentOf(options), updatedAt: momentOf(options),
     });
     tx.create(FormulaRevision, {
       workspace: actor.workspaceId,
@@ -71,7 +64,7 @@ export async function createFormula(actor: Actor, input: CreateFormulaInput, opt
       note: input.note || 'First version',
       summary,
       createdBy: actor.userId,
-      ...(options.savedAt ? { createdAt: options.savedAt } : {}),
+      createdAt: momentOf(options),
     });
     await tx.flush();
     return { formulaId: formula.id, revision: 1 };
@@ -83,7 +76,7 @@ export async function createFormula(actor: Actor, input: CreateFormulaInput, opt
  * both win: the second gets 409 unless it explicitly asks to save on top (force), in which
  * case both versions remain in the history.
  */
-export async function reviseFormula(actor: Actor, formulaId: string, input: ReviseFormulaInput, options: SaveOptions = {}): Promise<{ formulaId: string; revision: number }> {
+export async function reviseFormula(actor: Actor, formulaId: string, input: ReviseFormulaInput, options: RecordedAt = {}): Promise<{ formulaId: string; revision: number }> {
   const em = await getEm();
   // 404 before 422: a formula of another workspace must not reveal whether the body was valid.
   if (!(await em.count(Formula, { ...inWorkspace(actor), id: formulaId, archivedAt: null }))) throw notFound('formula');
@@ -109,12 +102,12 @@ export async function reviseFormula(actor: Actor, formulaId: string, input: Revi
       note: input.note || null,
       summary,
       createdBy: actor.userId,
-      ...(options.savedAt ? { createdAt: options.savedAt } : {}),
+      createdAt: momentOf(options),
     });
     formula.latestRevision = number;
     formula.name = name;
     formula.updatedBy = tx.getReference(User, actor.userId);
-    formula.updatedAt = options.savedAt ?? new Date();
+    formula.updatedAt = momentOf(options);
     await tx.flush();
     return { formulaId, revision: number };
   });

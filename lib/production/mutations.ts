@@ -4,6 +4,7 @@ import 'server-only';
  * Every step writes an audit event in the same transaction, so the trail and the change stand or
  * fall together.
  */
+import { momentOf, type RecordedAt } from '@/lib/recorded-at';
 import type { EntityManager } from '@mikro-orm/postgresql';
 import { LockMode } from '@mikro-orm/core';
 import { getEm, lockForTransaction } from '@/lib/db';
@@ -28,11 +29,11 @@ import { AUDIT_ACTIONS, dayOfYear, promotionCode, type AuditAction, type BatchOu
 async function audit(
   tx: EntityManager, actor: Actor, action: AuditAction,
   subject: { type: 'promotion_request' | 'production_formula' | 'batch_record'; id: string },
-  promotionRequestId: string | null, summary: string,
+  promotionRequestId: string | null, summary: string, options: RecordedAt = {},
 ): Promise<void> {
   tx.create(AuditEvent, {
     workspace: actor.workspaceId, actor: actor.userId, actorName: actor.name, actorRole: actor.role,
-    action, subjectType: subject.type, subjectId: subject.id, promotionRequestId, summary: `${AUDIT_ACTIONS[action]}: ${summary}`,
+    action, subjectType: subject.type, subjectId: subject.id, promotionRequestId, summary: `${AUDIT_ACTIONS[action]}: ${summary}`, at: momentOf(options),
   });
 }
 
@@ -100,7 +101,7 @@ async function headsOfProduct(em: EntityManager, actor: Actor): Promise<string[]
   return members.filter((m) => m.user.id !== actor.userId).map((m) => m.user.email);
 }
 
-export async function requestPromotion(actor: Actor, input: RequestPromotionInput): Promise<{ requestId: string; code: string }> {
+export async function requestPromotion(actor: Actor, input: RequestPromotionInput, options: RecordedAt = {}): Promise<{ requestId: string; code: string }> {
   const em = await getEm();
   const trial = await em.findOne(Trial, { ...inWorkspace(actor), id: input.trialId });
   if (!trial) throw notFound('trial');
@@ -131,10 +132,11 @@ export async function requestPromotion(actor: Actor, input: RequestPromotionInpu
       product: input.target === 'existing_product' ? input.productId : null,
       newProductName: input.target === 'new_product' ? input.newProductName : null, newProductCode: input.target === 'new_product' ? input.newProductCode : null,
       rationale: input.rationale, process: input.process, spec: input.spec, evidence: built.evidence, status: 'pending', requestedBy: actor.userId,
+      requestedAt: momentOf(options),
     });
     await tx.flush();
     await audit(tx, actor, 'promotion.requested', { type: 'promotion_request', id: request.id }, request.id,
-      `${promotionCode(request.number)} for ${trialCode(trial.number)} variant ${variant.label}`);
+      `${promotionCode(request.number)} for ${trialCode(trial.number)} variant ${variant.label}`, options);
     await tx.flush();
     return { requestId: request.id, code: promotionCode(request.number) };
   });
@@ -147,20 +149,20 @@ export async function requestPromotion(actor: Actor, input: RequestPromotionInpu
 }
 
 /** The cost a version would be frozen with if this request were approved now; null when the request cannot be approved. */
-async function costBeforeDecision(actor: Actor, requestId: string) {
+async function costBeforeDecision(actor: Actor, requestId: string, day: string) {
   const em = await getEm();
   const request = await em.findOne(PromotionRequest, { ...inWorkspace(actor), id: requestId });
   if (!request || request.status !== 'pending') return null;
   const variant = await em.findOne(Variant, { ...inWorkspace(actor), id: request.variantId });
   if (!variant || variant.removedAt) return null;
-  return costForApproval(actor.workspaceId, { settings: variant.settings, lines: variant.lines, trialId: request.trial.id }, todayIso());
+  return costForApproval(actor.workspaceId, { settings: variant.settings, lines: variant.lines, trialId: request.trial.id }, day);
 }
 
-export async function decidePromotion(actor: Actor, requestId: string, input: DecisionInput): Promise<{ status: 'approved' | 'sent_back'; productVersionId: string | null }> {
+export async function decidePromotion(actor: Actor, requestId: string, input: DecisionInput, options: RecordedAt = {}): Promise<{ status: 'approved' | 'sent_back'; productVersionId: string | null }> {
   const em = await getEm();
   // Today's cost reads prices on connections of its own, so it is read before the transaction: a
   // transaction waiting for the version lock must never need a second connection from the pool.
-  const frozenCost = input.decision === 'approve' ? await costBeforeDecision(actor, requestId) : null;
+  const frozenCost = input.decision === 'approve' ? await costBeforeDecision(actor, requestId, todayIso(momentOf(options))) : null;
   const outcome = await em.transactional(async (tx) => {
     const request = await tx.findOne(PromotionRequest, { ...inWorkspace(actor), id: requestId }, { lockMode: LockMode.PESSIMISTIC_WRITE });
     if (!request) throw notFound('promotion request');
@@ -169,13 +171,13 @@ export async function decidePromotion(actor: Actor, requestId: string, input: De
     if (request.status !== 'pending') throw new Conflict(`This request was already decided (${request.status.replace('_', ' ')}).`);
     const code = promotionCode(request.number);
     request.decidedBy = tx.getReference(User, actor.userId);
-    request.decidedAt = new Date();
+    request.decidedAt = momentOf(options);
     request.decisionComment = input.comment || null;
 
     if (input.decision === 'send_back') {
       request.status = 'sent_back';
       await tx.flush();
-      await audit(tx, actor, 'promotion.sent_back', { type: 'promotion_request', id: request.id }, request.id, `${code}: ${input.comment}`);
+      await audit(tx, actor, 'promotion.sent_back', { type: 'promotion_request', id: request.id }, request.id, `${code}: ${input.comment}`, options);
       await tx.flush();
       return { status: 'sent_back' as const, productVersionId: null, code, requestedById };
     }
@@ -204,10 +206,10 @@ export async function decidePromotion(actor: Actor, requestId: string, input: De
     const version = (latest?.version ?? 0) + 1;
     if (current) {
       current.status = 'superseded';
-      current.supersededAt = new Date();
+      current.supersededAt = momentOf(options);
       current.supersededByVersion = version;
       await tx.flush();
-      await audit(tx, actor, 'version.superseded', { type: 'production_formula', id: current.id }, request.id, `v${current.version} superseded by v${version} (${code})`);
+      await audit(tx, actor, 'version.superseded', { type: 'production_formula', id: current.id }, request.id, `v${current.version} superseded by v${version} (${code})`, options);
     }
     const { packFormatId, costAtApproval } = frozenCost ?? { packFormatId: null, costAtApproval: null };
     const created = tx.create(ProductVersion, {
@@ -215,14 +217,14 @@ export async function decidePromotion(actor: Actor, requestId: string, input: De
       settings: variant.settings, lines: variant.lines, process: request.process, compliance: computation.compliance, spec: request.spec,
       label: labelOutcome.ok ? labelOutcome.label : null,
       sourceTrial: request.trial.id, sourceVariantId: variant.id, sourceVariantLabel: variant.label,
-      promotionRequestId: request.id, approvedBy: actor.userId,
+      promotionRequestId: request.id, approvedBy: actor.userId, approvedAt: momentOf(options),
     });
     await tx.flush();
     request.status = 'approved';
     request.productVersionId = created.id;
     await tx.flush();
-    await audit(tx, actor, 'promotion.approved', { type: 'promotion_request', id: request.id }, request.id, `${code}${input.comment ? `: ${input.comment}` : ''}`);
-    await audit(tx, actor, 'version.created', { type: 'production_formula', id: created.id }, request.id, `v${version} from variant ${variant.label} (${code})`);
+    await audit(tx, actor, 'promotion.approved', { type: 'promotion_request', id: request.id }, request.id, `${code}${input.comment ? `: ${input.comment}` : ''}`, options);
+    await audit(tx, actor, 'version.created', { type: 'production_formula', id: created.id }, request.id, `v${version} from variant ${variant.label} (${code})`, options);
     await tx.flush();
     return { status: 'approved' as const, productVersionId: created.id, code, requestedById };
   });

@@ -1,12 +1,13 @@
 import 'server-only';
 /** Writes of the results feature: the developer's recommendation of a trial's variant. */
+import { momentOf, type RecordedAt } from '@/lib/recorded-at';
 import { getEm } from '@/lib/db';
 import { Trial, User, Variant } from '@/entities';
 import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
 import { ValidationFailed } from '@/lib/errors';
 
 /** The product developer marks the variant to promote, with the reasons; the promotion step reads it. */
-export async function recommendVariant(actor: Actor, trialId: string, input: { variantId: string; rationale: string }): Promise<void> {
+export async function recommendVariant(actor: Actor, trialId: string, input: { variantId: string; rationale: string }, options: RecordedAt = {}): Promise<void> {
   const em = await getEm();
   const trial = await em.findOne(Trial, { ...inWorkspace(actor), id: trialId });
   if (!trial) throw notFound('trial');
@@ -15,7 +16,7 @@ export async function recommendVariant(actor: Actor, trialId: string, input: { v
   trial.recommendedVariantId = variant.id;
   trial.recommendationRationale = input.rationale;
   trial.recommendedBy = em.getReference(User, actor.userId);
-  trial.recommendedAt = new Date();
-  trial.updatedAt = new Date();
+  trial.recommendedAt = momentOf(options);
+  trial.updatedAt = momentOf(options);
   await em.flush();
 }

@@ -65,7 +65,7 @@ export async function seedDemoFormulas(em: EntityManager, developer: Actor): Pro
   // the apricot spread's history (lib/seed/model-history.ts, from March). One a day keeps the list's
   // newest-first order free of ties.
   let day = 16;
-  const written = () => ({ savedAt: new Date(Date.UTC(2026, 1, day++, 9)) });
+  const written = () => ({ at: new Date(Date.UTC(2026, 1, day++, 9)) });
 
   const strawberry = await createFormula(
     developer,

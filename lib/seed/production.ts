@@ -10,14 +10,15 @@ import { decideBatch, decidePromotion, recordBatch, requestPromotion, retestBatc
 import { lotCodeFor } from '@/lib/production/vocabulary';
 import type { Actor } from '@/lib/permissions';
 import type { SeededTrial } from './trials';
+import type { RecordedAt } from '@/lib/recorded-at';
 
-async function request(developer: Actor, trial: SeededTrial, label: string, product: { name: string; code: string }, rationale: string, cookNotes: string) {
+async function request(developer: Actor, trial: SeededTrial, label: string, product: { name: string; code: string }, rationale: string, cookNotes: string, options: RecordedAt = {}) {
   const draft = await getPromotionDraft(developer, trial.trialId);
   const variant = draft.variants.find((v) => v.label === label)!;
   return requestPromotion(developer, {
     trialId: trial.trialId, variantId: variant.id, target: 'new_product', newProductName: product.name, newProductCode: product.code, rationale,
     process: { ...variant.defaults!.process, cookNotes }, spec: variant.defaults!.spec,
-  });
+  }, options);
 }
 
 export async function seedDemoProduction(people: { developer: Actor; head: Actor; production: Actor }, trials: SeededTrial[]): Promise<void> {
@@ -25,11 +26,14 @@ export async function seedDemoProduction(people: { developer: Actor; head: Actor
   const { developer, head, production } = people;
 
   const blackcurrantWhy = 'The base recipe set cleanly on the cold plate at every cook; less pectin softened it and more sugar added nothing the kitchen wanted.';
-  await recommendVariant(developer, blackcurrant.trialId, { variantId: blackcurrant.variantIds.A, rationale: blackcurrantWhy });
+  // The story's days: cooked on 19 November (trials.ts), requested on the 23rd, approved on the 25th,
+  // first production batch on the 27th.
+  const day = (d: number, hour: number) => ({ at: new Date(Date.UTC(2026, 10, d, hour)) });
+  await recommendVariant(developer, blackcurrant.trialId, { variantId: blackcurrant.variantIds.A, rationale: blackcurrantWhy }, day(23, 10));
   const approved = await request(developer, blackcurrant, 'A', { name: 'Blackcurrant jam', code: 'BCJ' }, blackcurrantWhy,
-    'Bring the fruit to a rolling boil before the sugar goes in; skim once, just before filling.');
-  const { productVersionId } = await decidePromotion(head, approved.requestId, { decision: 'approve', comment: 'Set and solids held across three cooks. Approved for the 50 kg kettle.' });
-  await transitionTrial(developer, blackcurrant.trialId, 'decided', 'Base recipe promoted to production');
+    'Bring the fruit to a rolling boil before the sugar goes in; skim once, just before filling.', day(23, 11));
+  const { productVersionId } = await decidePromotion(head, approved.requestId, { decision: 'approve', comment: 'Set and solids held across three cooks. Approved for the 50 kg kettle.' }, day(25, 14));
+  await transitionTrial(developer, blackcurrant.trialId, 'decided', 'Base recipe promoted to production', day(25, 15));
 
   const version = await getProductionVersion(production, productVersionId!);
   const s = version.spec;

@@ -48,7 +48,7 @@ async function cookAll(developer: Actor, trialId: string, labels: string[], day:
 }
 
 /**
- * The demo's cooks carry their story's days (12 Nov, 26 Nov, 2 Dec) but the rows are written today.
+ * The demo's cooks carry their story's days (12 Nov, 19 Nov, 2 Dec) but the rows are written today.
  * So that no trial starts after its own cooks, each trial is dated two days before its first cook,
  * with its variants; its move to the stove is dated the first cook day and its move to the panel the
  * last. Only ever earlier: a date already before its story day stays. (The formulas carry their
@@ -112,7 +112,7 @@ export async function seedDemoTrials(em: EntityManager, developer: Actor): Promi
     centrePoint: false,
   });
   await transitionTrial(developer, blackcurrant.trialId, 'cooking');
-  await cookAll(developer, blackcurrant.trialId, ['A', 'B', 'C'], '2026-11-26', { A: 4, B: 3, C: 4 }, { A: 3.0, B: 3.05, C: 2.95 });
+  await cookAll(developer, blackcurrant.trialId, ['A', 'B', 'C'], '2026-11-19', { A: 4, B: 3, C: 4 }, { A: 3.0, B: 3.05, C: 2.95 });
 
   // At the stove: the base is cooked, the two variants are not yet (the developer's worklist shows them).
   const strawberry = await createTrial(developer, {

@@ -1,5 +1,6 @@
 import 'server-only';
 /** Trial writes, shared by the server actions and the API. */
+import { momentOf, type RecordedAt } from '@/lib/recorded-at';
 import type { EntityManager } from '@mikro-orm/postgresql';
 import { LockMode } from '@mikro-orm/core';
 import { getEm, lockForTransaction } from '@/lib/db';
@@ -127,7 +128,7 @@ export async function createProposalTrial(actor: Actor, input: ProposalTrialInpu
   });
 }
 
-export async function transitionTrial(actor: Actor, trialId: string, to: TrialStatus, note?: string): Promise<void> {
+export async function transitionTrial(actor: Actor, trialId: string, to: TrialStatus, note?: string, options: RecordedAt = {}): Promise<void> {
   const em = await getEm();
   await em.transactional(async (tx) => {
     const trial = await loadTrialForUpdate(tx, actor, trialId);
@@ -135,9 +136,9 @@ export async function transitionTrial(actor: Actor, trialId: string, to: TrialSt
     if (!TRIAL_TRANSITIONS[from].includes(to)) {
       throw new Conflict(`A trial that is “${TRIAL_STATUS_LABELS[from]}” cannot move to “${TRIAL_STATUS_LABELS[to]}”.`);
     }
-    tx.create(TrialStatusChange, { workspace: actor.workspaceId, trial, fromStatus: trial.status, toStatus: to, note: note || null, changedBy: actor.userId });
+    tx.create(TrialStatusChange, { workspace: actor.workspaceId, trial, fromStatus: trial.status, toStatus: to, note: note || null, changedBy: actor.userId, changedAt: momentOf(options) });
     trial.status = to;
-    trial.updatedAt = new Date();
+    trial.updatedAt = momentOf(options);
     await tx.flush();
   });
 }

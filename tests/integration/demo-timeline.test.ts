@@ -1,7 +1,8 @@
 /**
  * The demo reads as one story: no trial starts after its own cooks, it moves to the stove on its
  * first cook day and to the panel after its last, and the formula revision it cooks was saved before
- * it started. The cooks carry their story's days while the rows are written on the day of the seed.
+ * it started; a version is requested after its trial's cooks and approved, with its cost of that day,
+ * before its first batch. The story's days are fixed while the rows are written on the day of the seed.
  */
 import { describe, it, expect, beforeAll } from 'vitest';
 import { getEm } from '@/lib/db';
@@ -43,6 +44,26 @@ describe('the demo timeline', () => {
     for (const r of rows) {
       if (r.to_status === 'cooking') expect(r.changed <= r.first_cook, `T-${r.code} to the stove ${r.changed}`).toBe(true);
       else expect(r.changed >= r.last_cook, `T-${r.code} to the panel ${r.changed}`).toBe(true);
+    }
+  });
+
+  it('approves a version, costed that day, after its trial was cooked and before its first batch', async () => {
+    const rows = await sql<{ code: string; version: number; last_cook: string; requested: string; approved: string; costed: string | null; first_batch: string }>(
+      `SELECT p.code, v.version, (SELECT max(m.cook_date) FROM measurements m JOIN variants x ON x.id = m.variant_id WHERE x.trial_id = v.source_trial_id)::text AS last_cook,
+              r.requested_at::date::text AS requested, v.approved_at::date::text AS approved, v.cost_at_approval->>'asOf' AS costed,
+              min(b.batch_date)::text AS first_batch
+         FROM production_formulas v JOIN products p ON p.id = v.product_id JOIN promotion_requests r ON r.id = v.promotion_request_id
+         JOIN batch_records b ON b.production_formula_id = v.id
+        WHERE v.workspace_id = $1 GROUP BY p.code, v.id, r.requested_at`,
+      [workspaceId],
+    );
+    expect(rows.length).toBeGreaterThanOrEqual(1);
+    for (const r of rows) {
+      const where = `${r.code} v${r.version}`;
+      expect(r.last_cook < r.requested, `${where} requested ${r.requested}, last cook ${r.last_cook}`).toBe(true);
+      expect(r.requested <= r.approved, `${where} approved ${r.approved}`).toBe(true);
+      expect(r.approved < r.first_batch, `${where} first batch ${r.first_batch}`).toBe(true);
+      if (r.costed !== null) expect(r.costed, where).toBe(r.approved);
     }
   });
 });
