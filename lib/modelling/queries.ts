@@ -11,7 +11,7 @@ import { Formula, FormulaRevision, Cook, TastingAnswer, TastingSample, SensoryAt
 import { correctBrixTo20C } from '@/lib/chemistry';
 import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
 import { trialCode } from '@/lib/trials/access';
-import type { SensoryScale } from '@/lib/sensory';
+import { scaleNote, type SensoryScale } from '@/lib/sensory';
 import { getFormula } from '@/lib/formulas/queries';
 import { formulaFeatures, type FormulaFeatures } from './features';
 import { proposalCosting, type ProposalBase, type ProposalCosting } from './proposals';
@@ -221,7 +221,9 @@ export async function modelDataset(scope: Scope, selection: DatasetSelection): P
     const key: ResponseKey = `attribute:${attribute.id}`;
     if (!seenResponses.has(key)) continue;
     const ends = scaleEnds(attribute.scale);
-    responses.push({ key, name: attribute.name, unit: `${attribute.scale.name}, ${ends.min}–${ends.max}`, kind: 'sensory', decimals: 1, libraryKey: attribute.libraryKey ?? null, scale: ends });
+    // An intensity line is named after its attribute: "Set firmness (0–10)", not "(Set firmness, 0–10)".
+    const unit = [scaleNote(attribute.name, attribute.scale.name), `${ends.min}–${ends.max}`].filter(Boolean).join(', ');
+    responses.push({ key, name: attribute.name, unit, kind: 'sensory', decimals: 1, libraryKey: attribute.libraryKey ?? null, scale: ends });
   }
   return { family, rows, responses, excluded };
 }

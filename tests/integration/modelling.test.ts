@@ -62,6 +62,9 @@ describe('the apricot spread family', () => {
     const liking = dataset.responses.find((r) => r.libraryKey === 'overall-liking')!;
     expect(liking.kind).toBe('sensory');
     expect(liking.scale).toEqual({ min: 1, max: 9 });
+    // The unit names the scale and its ends; an intensity line, named after its attribute, only its ends.
+    expect(liking.unit).toBe('9-point hedonic, 1–9');
+    expect(dataset.responses.find((r) => r.libraryKey === 'set-firmness')?.unit).toBe('0–10');
     // Each history variant was tasted by ten; the November panel had 24 seats.
     expect(centre.responses[liking.key]!.n).toBe(10);
     expect(centre.responses[liking.key]!.sd).not.toBeNull();
