@@ -4,6 +4,8 @@ import { useMemo } from 'react';
 import type { FormulaSettingsInput } from '@/lib/formulas/schema';
 import type { EditorFamilyModel } from '@/lib/modelling/schema';
 import { predictForFormula, type EditorPrediction, type ResponsePredictionView } from '@/lib/modelling/editor-predictions';
+import { intervalText, responseRange } from '@/lib/modelling/predict';
+import { unitNote } from '@/lib/format/quantities';
 import type { FeatureLine } from '@/lib/modelling/features';
 import { Notice } from '@/components/ui/Notice';
 import type { EditorComputation, LineDraft } from './editor-state';
@@ -46,14 +48,14 @@ function PredictedRow({ row }: { row: ResponsePredictionView }) {
   return (
     <div className="min-w-0 border-t border-pith-200 py-2 first:border-t-0">
       <dt className="text-sm font-medium text-rind-700">
-        {response.name} <span className="text-xs font-normal text-rind-500">({response.unit})</span>
+        {response.name}{unitNote(response.name, response.unit) ? <span className="text-xs font-normal text-rind-500"> ({response.unit})</span> : null}
       </dt>
       {value.inRegion ? (
         <dd className="mt-0.5 text-sm">
           <span className="text-lg font-semibold tabular-nums text-damson-900" data-testid="predicted-value">{fixed(value.estimate, response.decimals)}</span>
           {value.interval ? (
             <span className="ml-2 text-rind-600">
-              95 % prediction interval {fixed(value.interval.low, response.decimals)} to {fixed(value.interval.high, response.decimals)}
+              95 % prediction interval {intervalText(value.interval, responseRange(response), response.decimals)}
             </span>
           ) : (
             <span className="ml-2 text-rind-600">no interval: the trials leave no spread to estimate it from</span>

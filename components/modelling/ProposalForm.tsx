@@ -8,6 +8,8 @@ import { inputClass } from '@/components/ui/Field';
 import { useFormAction } from '@/components/ui/useFormAction';
 import { createProposalTrialAction } from '@/lib/trials/actions';
 import { FACTOR_INFO, type FamilyModel, type ModelFactor } from '@/lib/modelling/schema';
+import { intervalText, responseRange } from '@/lib/modelling/predict';
+import { unitNote } from '@/lib/format/quantities';
 import { costPerJarProblem, describePoint, pointsAround, proposalCosting, proposeFormulas, type FruitMinimum, type PointsAround, type ProposalBase, type ProposalOutcome, type ProposalRequest } from '@/lib/modelling/proposals';
 import { formatCost } from '@/lib/costing';
 import type { EditorCostBasis } from '@/lib/costs/schema';
@@ -106,7 +108,7 @@ export function ProposalForm({ model, base, formulaId, formulaName, fruitMinimum
             const fieldId = (f: string) => `${key}.${f}`.replace(/[^a-zA-Z0-9]/g, '-');
             return (
               <fieldset key={response.key} className="rounded-lg bg-white p-3 ring-1 ring-pith-300">
-                <legend className="px-1 text-sm font-medium">{response.name} <span className="text-xs font-normal text-rind-500">({response.unit})</span></legend>
+                <legend className="px-1 text-sm font-medium">{response.name}{unitNote(response.name, response.unit) ? <span className="text-xs font-normal text-rind-500"> ({response.unit})</span> : null}</legend>
                 <div className="grid grid-cols-2 gap-3 sm:grid-cols-6">
                   <label className="col-span-2 block text-xs text-rind-600">
                     Goal
@@ -192,13 +194,13 @@ export function ProposalForm({ model, base, formulaId, formulaName, fruitMinimum
                 ))}
                 <div className="min-w-0"><dt className="inline text-rind-600">Fruit: </dt><dd className="inline font-medium">{p.fruitPer1000g.toFixed(0)} g per 1000 g{result.request.fruitMinimumPer1000g !== undefined ? ` (at least ${result.request.fruitMinimumPer1000g})` : ''}</dd></div>
                 {p.costPerJarMinor !== null && currency ? <div className="min-w-0"><dt className="inline text-rind-600">Cost per jar: </dt><dd className="inline font-medium">{formatCost(p.costPerJarMinor, currency)}{result.request.costCeilingPerJarMinor !== undefined ? ` (at most ${formatCost(result.request.costCeilingPerJarMinor, currency)})` : ''}</dd></div> : null}
-                {p.ph ? <div className="min-w-0"><dt className="inline text-rind-600">Predicted pH: </dt><dd className="inline font-medium">{p.ph.estimate.toFixed(2)}{p.ph.prediction ? ` (95 % prediction interval ${p.ph.prediction.low.toFixed(2)} to ${p.ph.prediction.high.toFixed(2)})` : ''}</dd></div> : null}
+                {p.ph ? <div className="min-w-0"><dt className="inline text-rind-600">Predicted pH: </dt><dd className="inline font-medium">{p.ph.estimate.toFixed(2)}{p.ph.prediction ? ` (95 % prediction interval ${intervalText(p.ph.prediction, responseRange({ key: 'lab:measuredPh', scale: null }), 2)})` : ''}</dd></div> : null}
               </dl>
               <ul className="mt-3 space-y-1 text-sm">
                 {p.responses.map((r) => (
                   <li key={r.key}>
                     <span className="text-rind-600">{r.name}:</span> <span className="font-semibold">{r.estimate.toFixed(r.decimals)}</span>
-                    {r.prediction ? <span className="text-rind-600"> (95 % prediction interval {r.prediction.low.toFixed(r.decimals)} to {r.prediction.high.toFixed(r.decimals)})</span> : null}
+                    {r.prediction ? <span className="text-rind-600"> (95 % prediction interval {intervalText(r.prediction, responseRange({ key: r.key, scale: model.responses.find((m) => m.key === r.key)?.scale ?? null }), r.decimals)})</span> : null}
                   </li>
                 ))}
               </ul>

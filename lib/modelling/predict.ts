@@ -8,7 +8,7 @@
  * runs than any run itself (the leverage rule).
  */
 import { checkRegion, predictResponse, type Interval, type PredictionSurface } from '@/lib/models';
-import { FACTOR_INFO, inFactorWords, type FactorValues, type FamilyModel, type ModelFactor, type PredictionModel, type ResponseKey } from './schema';
+import { FACTOR_INFO, LAB_RESPONSE_INFO, LAB_RESPONSES, inFactorWords, type FactorValues, type FamilyModel, type ModelFactor, type PredictionModel, type ResponseKey } from './schema';
 
 export type ResponsePrediction =
   | { key: ResponseKey; name: string; unit: string; decimals: number; inRegion: true; estimate: number; confidence: Interval | null; prediction: Interval | null; leverage: number }
@@ -57,6 +57,25 @@ export function predictOne(model: PredictionModel, point: Partial<FactorValues>)
   const prediction = predictResponse(model.surface, natural, model.newRunWeight ? { newRunWeight: model.newRunWeight } : {});
   if (!prediction.inRegion) return { ...base, inRegion: false, reason: outsideReason(model.surface, natural) ?? inFactorWords(prediction.reason) };
   return { ...base, inRegion: true, estimate: prediction.estimate, confidence: prediction.confidence, prediction: prediction.prediction, leverage: prediction.leverage };
+}
+
+/** The values a response can take: a sensory attribute's scale, a lab measure's own range. */
+export function responseRange(response: { key: ResponseKey; scale: { min: number; max: number } | null }): { min: number; max: number } | null {
+  if (response.scale) return response.scale;
+  const lab = LAB_RESPONSES.find((k) => response.key === `lab:${k}`);
+  return lab ? LAB_RESPONSE_INFO[lab].range : null;
+}
+
+/**
+ * A prediction interval as a person reads it: "4.1 to 6.8", or cut where the response cannot go
+ * ("0.00 to 1.62, cut at the end of the scale" for −0.08 to 1.62 on a 0–2 scale). The API keeps the
+ * statistical interval; only the words on screen are cut.
+ */
+export function intervalText(interval: Interval, range: { min: number; max: number } | null, decimals: number): string {
+  const low = range ? Math.max(range.min, interval.low) : interval.low;
+  const high = range ? Math.min(range.max, interval.high) : interval.high;
+  const cut = low !== interval.low || high !== interval.high;
+  return `${low.toFixed(decimals)} to ${high.toFixed(decimals)}${cut ? ', cut at the end of the scale' : ''}`;
 }
 
 /** Every modelled response at a point. */

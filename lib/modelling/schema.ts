@@ -67,11 +67,12 @@ export const PECTIN_FAMILY_LABELS: Record<PectinFamily, string> = {
 export const LAB_RESPONSES = ['measuredSolids', 'measuredPh', 'setTest', 'syneresis'] as const;
 export type LabResponse = (typeof LAB_RESPONSES)[number];
 
-export const LAB_RESPONSE_INFO: Record<LabResponse, { name: string; unit: string; decimals: number }> = {
-  measuredSolids: { name: 'Measured soluble solids', unit: '°Brix at 20 °C', decimals: 1 },
-  measuredPh: { name: 'Measured pH', unit: 'pH', decimals: 2 },
-  setTest: { name: 'Set test score', unit: 'score 1–5', decimals: 1 },
-  syneresis: { name: 'Weeping (syneresis)', unit: '0 none, 1 slight, 2 marked', decimals: 2 },
+/** `range`: the values a measure can take, where a prediction interval is cut on screen. */
+export const LAB_RESPONSE_INFO: Record<LabResponse, { name: string; unit: string; decimals: number; range: { min: number; max: number } }> = {
+  measuredSolids: { name: 'Measured soluble solids', unit: '°Brix at 20 °C', decimals: 1, range: { min: 0, max: 100 } },
+  measuredPh: { name: 'Measured pH', unit: 'pH', decimals: 2, range: { min: 0, max: 14 } },
+  setTest: { name: 'Set test score', unit: 'score 1–5', decimals: 1, range: { min: 1, max: 5 } },
+  syneresis: { name: 'Weeping (syneresis)', unit: '0 none, 1 slight, 2 marked', decimals: 2, range: { min: 0, max: 2 } },
 };
 
 /** `lab:<measure>` or `attribute:<attribute id>` (a sensory attribute's variant mean). */

@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { nameWithUnit } from '@/lib/format/quantities';
+import { nameWithUnit, unitNote } from '@/lib/format/quantities';
 
 describe('a name with its unit', () => {
   it('puts the unit in brackets after the name', () => {
@@ -10,5 +10,7 @@ describe('a name with its unit', () => {
     expect(nameWithUnit('pH', 'pH')).toBe('pH');
     expect(nameWithUnit('Set firmness', 'set firmness ')).toBe('Set firmness');
     expect(nameWithUnit('Score', '')).toBe('Score');
+    expect(unitNote('Measured pH', 'pH')).toBeNull();
+    expect(unitNote('Set test score', 'score 1–5')).toBe('score 1–5');
   });
 });

@@ -1,6 +1,6 @@
 import { describe, expect, it } from 'vitest';
 import { fitResponseSurface, leverageAt } from '@/lib/models';
-import { outsideReason, predictOne } from '@/lib/modelling/predict';
+import { intervalText, outsideReason, predictOne, responseRange } from '@/lib/modelling/predict';
 import { editorModelOf } from '@/lib/modelling/editor-predictions';
 import { MODEL, centre } from './fixtures';
 
@@ -60,5 +60,29 @@ describe('the editor’s cut of a family model (editorModelOf)', () => {
     for (const field of ['residuals', 'leverages', 'fitted', 'codedRuns', 'anova', 'lackOfFit', 'fittedAt', 'weighting']) expect(sent).not.toContain(`"${field}"`);
     expect(sent.length).toBeLessThan(JSON.stringify(MODEL).length / 2);
     expect(slim.responses.map((r) => [r.name, r.libraryKey, r.scale])).toEqual(MODEL.responses.map((r) => [r.name, r.libraryKey, r.scale]));
+  });
+});
+
+describe('a prediction interval on screen', () => {
+  it('is cut where the response cannot go, and says so', () => {
+    // A made-up interval below a 0–2 scale's end (the demo's weeping: −0.08 to 1.62); the scale ends
+    // are the response's definition (0 none, 1 slight, 2 marked), not a statistic.
+    const weeping = responseRange({ key: 'lab:syneresis', scale: null });
+    expect(weeping).toEqual({ min: 0, max: 2 });
+    expect(intervalText({ low: -0.08, high: 1.62 }, weeping, 2)).toBe('0.00 to 1.62, cut at the end of the scale');
+    expect(intervalText({ low: 0.2, high: 1.62 }, weeping, 2)).toBe('0.20 to 1.62');
+  });
+
+  it('takes a sensory attribute’s own scale, cutting either end', () => {
+    const liking = responseRange({ key: 'attribute:00000000-0000-4000-8000-000000000001', scale: { min: 1, max: 9 } });
+    expect(intervalText({ low: 7.9, high: 10.48 }, liking, 1)).toBe('7.9 to 9.0, cut at the end of the scale');
+    expect(intervalText({ low: 0.5, high: 9.5 }, liking, 1)).toBe('1.0 to 9.0, cut at the end of the scale');
+  });
+
+  it('knows every lab measure’s range and leaves an interval whole without one', () => {
+    expect(responseRange({ key: 'lab:setTest', scale: null })).toEqual({ min: 1, max: 5 });
+    expect(responseRange({ key: 'lab:measuredPh', scale: null })).toEqual({ min: 0, max: 14 });
+    expect(responseRange({ key: 'lab:measuredSolids', scale: null })).toEqual({ min: 0, max: 100 });
+    expect(intervalText({ low: -1, high: 1 }, null, 1)).toBe('-1.0 to 1.0');
   });
 });
