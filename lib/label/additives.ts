@@ -23,6 +23,7 @@ import type { OverallComplianceStatus, RuleCheckResult } from '@/lib/chemistry/c
 import type { ProductClass } from '@/lib/chemistry/types';
 import type { LabelInput } from './types';
 import { validateLabelInput } from './validate';
+import { firstUpper } from '@/lib/format/words';
 
 export type FoodCategory = '04.2.5.1' | '04.2.5.2' | '04.2.5.3';
 
@@ -188,7 +189,7 @@ export function additiveLimitChecks(input: LabelInput): AdditiveCheck[] {
   if (settings.ruleSet !== 'eu') {
     return [...masses.entries()].map(([eNumber, m]) => result({
       ruleId: `additives.${eNumber}`,
-      title: m.names.join(', '),
+      title: firstUpper(m.names.join(', ')),
       requirement: 'Additive limits are checked against the EU rules only',
       actual: `${round1(m.mgPerKg)} mg/kg`,
       actualValue: m.mgPerKg,
@@ -212,7 +213,7 @@ export function additiveLimitChecks(input: LabelInput): AdditiveCheck[] {
     covered.add(eNumber);
     checks.push(result({
       ruleId: `eu.additives.withdrawn.${eNumber}`,
-      title: m.names.join(', '),
+      title: firstUpper(m.names.join(', ')),
       requirement: 'Not authorised',
       actual: `${round1(m.mgPerKg)} mg/kg`,
       actualValue: m.mgPerKg,
@@ -282,7 +283,7 @@ export function additiveLimitChecks(input: LabelInput): AdditiveCheck[] {
     if (covered.has(eNumber)) continue;
     checks.push(result({
       ruleId: `eu.additives.unknown.${eNumber}`,
-      title: m.names.join(', '),
+      title: firstUpper(m.names.join(', ')),
       requirement: `The conditions of use in ${categoryName}`,
       actual: `${round1(m.mgPerKg)} mg/kg`,
       actualValue: m.mgPerKg,

@@ -9,6 +9,7 @@
  * sugar, solids, pectin and acid alike, so their trials pool into one data set; a jam and a
  * reduced-sugar spread of the same fruit do not (different pectin chemistry, different solids).
  */
+import { firstUpper } from '@/lib/format/words';
 import { z } from 'zod';
 import type { PredictionSurface, ResponseSurface } from '@/lib/models';
 import { PRODUCT_CLASSES } from '@/lib/formulas/schema';
@@ -25,7 +26,7 @@ export function inFactorWords(text: string): string {
 export function termInWords(term: string): string {
   if (term === '1') return 'Intercept';
   const words = inFactorWords(term);
-  return words.charAt(0).toUpperCase() + words.slice(1);
+  return firstUpper(words);
 }
 
 /** Factors computed from a variant's formula (features.ts). */

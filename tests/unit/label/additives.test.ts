@@ -89,6 +89,8 @@ describe('quantum satis and unknown additives', () => {
     const report = additiveReport(spread([{ composition: { kind: 'other', name: 'Anthocyanins', solidsPct: 100 }, label: colour, grams: 0.5 }]));
     expect(report.checks.find((c) => c.eNumbers.includes('E163'))?.status).toBe('not_evaluable');
     expect(report.overall).toBe('incomplete');
+    // Named as the label names it ("colour"), starting with a capital like the rule rows.
+    expect(report.checks.find((c) => c.eNumbers.includes('E163'))?.title).toBe('Colour');
   });
 
   it('leaves other markets to their own rules', () => {
