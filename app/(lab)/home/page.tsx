@@ -71,7 +71,7 @@ export default async function HomePage() {
     }));
     sections.push(
       <WorkList key="held" title="Batches on hold" empty="No batch is on hold." items={held} />,
-      <WorkList key="today" title="Today’s batches" empty="No batch recorded today yet." items={[...todays, ...sheets]} more={{ href: '/production', label: 'Products and batch sheets' }} />,
+      <WorkList key="today" title="Today’s batches" empty="No batch recorded today yet." items={todays} actions={sheets} more={{ href: '/production', label: 'Products and batch sheets' }} />,
     );
   }
   if (members) {
