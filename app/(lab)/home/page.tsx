@@ -8,7 +8,7 @@ import { trialsAtTheStove } from '@/lib/trials/queries';
 import { listMySeats, listTastings } from '@/lib/tastings/queries';
 import { listMembers } from '@/lib/members/queries';
 import { TASTING_STATE_LABELS } from '@/lib/tastings/vocabulary';
-import { formatDate, todayIso } from '@/lib/format/dates';
+import { formatDate, todayIso, formatDateTime } from '@/lib/format/dates';
 
 export const dynamic = 'force-dynamic';
 
@@ -86,7 +86,7 @@ export default async function HomePage() {
     sections.push(
       <WorkList key="seats" title="Tastings waiting for your answers" more={{ href: '/tastings/mine', label: 'My tastings' }}
         empty="No tasting is waiting for you. When an organiser seats you, it appears here and you get an e-mail with your link."
-        items={waitingSeats.map((s) => ({ key: s.tastingId, href: '/tastings/mine', label: s.title, detail: s.place ? `In ${s.place}` : undefined }))} />,
+        items={waitingSeats.map((s) => ({ key: s.tastingId, href: '/tastings/mine', label: s.title, detail: [s.place, s.startsAt ? formatDateTime(s.startsAt) : null].filter(Boolean).join(' · ') || undefined }))} />,
     );
   }
 
