@@ -5,7 +5,8 @@ import { sql } from '@/lib/sql';
 import { TastingAnswer, TastingSample, TastingSeat, Tasting, SensoryAttributeDef, Variant } from '@/entities';
 import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
 import { trialCode } from '@/lib/trials/access';
-import type { TastingState } from './vocabulary';
+import { isUuid } from '@/lib/ids';
+import type { TastingMethod, TastingState } from './vocabulary';
 import type { MySeat, SeatProgress, TastingSummary, TastingView, TrialTastingRow } from './schema';
 
 export async function listAttributes(actor: Actor) {
@@ -15,20 +16,19 @@ export async function listAttributes(actor: Actor) {
 }
 
 export async function listTrialTastings(actor: Actor, trialId?: string): Promise<TrialTastingRow[]> {
-  const em = await getEm();
-  const rows = (await em.find(Tasting, { ...inWorkspace(actor), ...(trialId ? { trial: trialId } : {}) }, { orderBy: { createdAt: 'desc' } }));
-  // Seats counted by PostgreSQL, not loaded one entity per seat.
-  const counts = rows.length
-    ? await em.execute<Array<{ session_id: string; seats: number; submitted: number }>>(
-        'select session_id, count(*)::int as seats, count(submitted_at)::int as submitted from panel_seats where workspace_id = ? and session_id in (?) group by session_id',
-        [actor.workspaceId, rows.map((r) => r.id)],
-      )
-    : [];
-  const bySession = new Map(counts.map((c) => [c.session_id, c]));
-  return rows.map((r) => {
-    const mine = bySession.get(r.id);
-    return { id: r.id, trialId: r.trial.id, title: r.title, method: r.method, state: r.state, seats: mine?.seats ?? 0, submitted: mine?.submitted ?? 0, createdAt: r.createdAt.toISOString() };
-  });
+  if (trialId !== undefined && !isUuid(trialId)) return [];
+  // One statement (the trial page's): each tasting with its seats counted by PostgreSQL.
+  const rows = await sql<{ id: string; trial_id: string; title: string; method: TastingMethod; state: TastingState; seats: number; submitted: number; created_at: Date }>(
+    `select t.id, t.trial_id, t.title, t.method, t.state, c.seats, c.submitted, t.created_at
+       from panel_sessions t
+       cross join lateral (select count(*)::int as seats, count(s.submitted_at)::int as submitted
+                             from panel_seats s where s.workspace_id = t.workspace_id and s.session_id = t.id) c
+      where t.workspace_id = $1 and ($2::uuid is null or t.trial_id = $2::uuid)
+      order by t.created_at desc, t.id`,
+    [actor.workspaceId, trialId ?? null],
+    'trial-tastings',
+  );
+  return rows.map((r) => ({ id: r.id, trialId: r.trial_id, title: r.title, method: r.method, state: r.state, seats: r.seats, submitted: r.submitted, createdAt: r.created_at.toISOString() }));
 }
 
 /** The rows a session's views are built from (its answers are loaded by the caller: all of them for results, only their seats for progress). */

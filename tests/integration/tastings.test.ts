@@ -7,7 +7,7 @@ import { createWorkspace, callRoute, actorOf, waitForMail, type WorkspaceFixture
 import { createFixtureFormula } from './fixtures';
 import { createTrial, planVariants } from '@/lib/trials/mutations';
 import { createTasting, openTasting, closeTasting, joinAsGuest, inviteStaffTasters } from '@/lib/tastings/mutations';
-import { listAttributes, getTasting, getServingSheet } from '@/lib/tastings/queries';
+import { listAttributes, getTasting, getServingSheet, listTrialTastings } from '@/lib/tastings/queries';
 import { recordAnswer, recordConsent, tasterView, submitSeat } from '@/lib/taster/seat';
 import * as joinRoute from '@/app/api/v1/tastings/join/route';
 import * as viewRoute from '@/app/api/v1/tastings/seats/[seatToken]/route';
@@ -19,8 +19,10 @@ import { TastingAnswer, Variant, Formula } from '@/entities';
 import { isAllowedBlindingCode } from '@/lib/sensory';
 
 let a: WorkspaceFixture;
+let b: WorkspaceFixture;
 beforeAll(async () => {
   a = await createWorkspace('Panels');
+  b = await createWorkspace('Other panels');
 });
 
 async function trialWith(n: number) {
@@ -130,6 +132,12 @@ describe('answers', () => {
     const progress = await getTasting(actorOf(a, 'developer'), s.tastingId);
     expect(progress.seats.map((x) => x.status)).toEqual(['submitted', 'partial']);
     expect(await (await getEm()).count(TastingAnswer, { session: s.tastingId })).toBe(1);
+    // The trial page's list counts the seats and the submitted ones, scoped to the workspace.
+    const listed = await listTrialTastings(actorOf(a, 'developer'), s.trialId);
+    expect(listed.map((t) => [t.id, t.trialId, t.state, t.seats, t.submitted])).toEqual([[s.tastingId, s.trialId, 'closed', 2, 1]]);
+    expect((await listTrialTastings(actorOf(a, 'developer'))).map((t) => t.id)).toContain(s.tastingId);
+    expect(await listTrialTastings(actorOf(b, 'developer'), s.trialId)).toEqual([]);
+    expect(await listTrialTastings(actorOf(a, 'developer'), 'not-a-uuid')).toEqual([]);
   });
 
   it('answers survive a PostgreSQL restart during the session', async () => {
