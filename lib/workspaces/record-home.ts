@@ -6,12 +6,11 @@
  */
 import { cache } from 'react';
 import { headers } from 'next/headers';
-import { getEm } from '@/lib/db';
+import { sql } from '@/lib/sql';
 import { currentActor, currentWorkspaces } from '@/lib/auth';
 import { isUuid } from '@/lib/ids';
 import { can, ROLE_LABELS, type Actor, type Permission } from '@/lib/permissions';
 import { BatchRecord, Formula, Ingredient, PackagingItem, Tasting, Product, ProductVersion, PromotionRequest, Trial } from '@/entities';
-import type { WorkspaceEntity } from '@/entities/Workspace';
 import { listMyWorkspaces } from './queries';
 import type { WorkspaceChoice } from './schema';
 import { REQUEST_PATH_HEADER } from './record-path';
@@ -32,7 +31,6 @@ const RECORD_ROUTES = [
 ] as const satisfies ReadonlyArray<{ prefix: string; kind: string; entity: unknown; permission: Permission; opens: string }>;
 
 type RecordRoute = (typeof RECORD_ROUTES)[number];
-type RecordInWorkspace = { id: string; workspace: WorkspaceEntity };
 
 export interface RecordHome {
   /** "trial", "formula" … as the page names the record. */
@@ -68,15 +66,15 @@ export async function findRecordHome(actor: Pick<Actor, 'userId' | 'workspaceId'
   if (!target) return null;
   const others = (workspaces ?? (await listMyWorkspaces(actor.userId))).filter((w) => w.workspaceId !== actor.workspaceId);
   if (others.length === 0) return null;
-  const em = await getEm();
-  // Every record route's entity belongs to a workspace: looked up by its entity name as that shared
-  // shape (the entity schemas themselves differ, so no one schema type covers them all).
-  const found = await em.findOne<RecordInWorkspace, never, 'workspace'>(
-    target.route.entity.meta.className,
-    { id: target.id, workspace: { $in: others.map((w) => w.workspaceId) } },
-    { fields: ['workspace'] },
+  // A plain statement (this runs on every staff page of a person with another workspace): the table
+  // name is the route's entity's own, never taken from the path; the id is a checked UUID.
+  const table = target.route.entity.meta.tableName;
+  const [found] = await sql<{ workspace_id: string }>(
+    `select workspace_id from "${table}" where id = $1 and workspace_id = any($2::uuid[]) limit 1`,
+    [target.id, others.map((w) => w.workspaceId)],
+    `record-home-${table}`,
   );
-  const home = found && others.find((w) => w.workspaceId === found.workspace.id);
+  const home = found && others.find((w) => w.workspaceId === found.workspace_id);
   if (!home) return null;
   return {
     kind: target.route.kind,
