@@ -25,6 +25,8 @@ declare module 'jstat' {
       cdf(x: number, mean: number, sd: number): number;
       inv(p: number, mean: number, sd: number): number;
     };
+    /** log Γ(x) (Lanczos), as the studentized range cdf uses it. */
+    gammaln(x: number): number;
   }
   const jStat: JStatStatic;
   export default jStat;

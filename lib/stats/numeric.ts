@@ -10,7 +10,8 @@
  * - chi-square, normal: the regularized upper incomplete gamma Q(a, x) by series or
  *   continued fraction, again directly for the small side.
  * - binomial: the exact sum of probability terms P(X = i) for i ≥ k in log space.
- * - studentized range: jstat's `tukey.cdf` (a port of R's ptukey) gives only the
+ * - studentized range: jstat's `tukey.cdf` (a port of R's ptukey), recomputed without its per-call
+ *   allocations in ./studentized-range.ts, gives only the
  *   lower tail, so the upper tail is 1 − cdf there; its absolute accuracy is about
  *   1e-8, adequate for adjusted p-values reported to 4 decimals. Quantiles are
  *   refined by bisection on that cdf because `tukey.inv` stops at 1e-4.
@@ -23,6 +24,7 @@
  * offset (Montgomery's 160 W group shifted by 1e12: sampleVariance 400.700000003, ours 400.7 as
  * by hand). Its distributions are tables or one-sided approximations, hence jstat and the tails below.
  */
+import { studentizedRangeCdfExact } from './studentized-range';
 import jStat from 'jstat';
 import { sum } from 'simple-statistics';
 
@@ -288,12 +290,12 @@ export function binomialLowerTail(k: number, n: number, p: number): number {
   return Math.min(1, compensatedSum(terms));
 }
 
-/** Studentized-range cdf P(Q ≤ q) for `numberOfMeans` means and `df` error df (jstat ptukey port). */
+/** Studentized-range cdf P(Q ≤ q) for `numberOfMeans` means and `df` error df (jstat's ptukey port, ./studentized-range.ts). */
 export function studentizedRangeCdf(q: number, numberOfMeans: number, df: number): number {
   if (q <= 0) return 0;
   if (!Number.isFinite(q)) return 1;
   try {
-    const value = jStat.tukey.cdf(q, numberOfMeans, df);
+    const value = studentizedRangeCdfExact(q, numberOfMeans, df);
     return Number.isFinite(value) ? Math.min(1, Math.max(0, value)) : 1;
   } catch {
     // The port throws when its integral does not converge, which happens only far in the tail.
