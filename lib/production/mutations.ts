@@ -259,7 +259,7 @@ export async function withdrawPromotion(actor: Actor, requestId: string, comment
   });
 }
 
-export async function recordBatch(actor: Actor, versionId: string, input: BatchRecordInput): Promise<{ batchId: string; outcome: BatchOutcome }> {
+export async function recordBatch(actor: Actor, versionId: string, input: BatchRecordInput, options: RecordedAt = {}): Promise<{ batchId: string; outcome: BatchOutcome }> {
   const em = await getEm();
   const version = await em.findOne(ProductVersion, { ...inWorkspace(actor), id: versionId }, { populate: ['product'] });
   if (!version) throw notFound('production version');
@@ -296,14 +296,14 @@ export async function recordBatch(actor: Actor, versionId: string, input: BatchR
       setTestScore: input.setTestScore ?? null, jarsFilled: input.jarsFilled, jarsRejected: input.jarsRejected, notes: input.notes ?? null,
       checks: result.checks, outcome: result.outcome,
       disposition: result.outcome === 'fail' ? input.disposition : null, dispositionComment: result.outcome === 'fail' ? input.dispositionComment : null,
-      recordedBy: actor.userId,
+      recordedBy: actor.userId, createdAt: momentOf(options),
     });
     await tx.flush();
     const failed = result.checks.filter((c) => c.status === 'fail').map((c) => c.label);
     const missing = result.checks.filter((c) => c.status === 'not_measured').map((c) => c.label.toLowerCase());
     await audit(tx, actor, result.outcome === 'fail' ? 'batch.failed' : result.outcome === 'incomplete' ? 'batch.incomplete' : 'batch.recorded', { type: 'batch_record', id: batch.id }, version.promotionRequestId,
       result.outcome === 'fail' ? `${input.lotCode} failed ${failed.join(', ')}; ${input.disposition}: ${input.dispositionComment}`
-        : result.outcome === 'incomplete' ? `${input.lotCode} held: ${missing.join(' and ')} not measured` : `${input.lotCode} passed`);
+        : result.outcome === 'incomplete' ? `${input.lotCode} held: ${missing.join(' and ')} not measured` : `${input.lotCode} passed`, options);
     await tx.flush();
     return { batchId: batch.id, outcome: result.outcome };
   });
@@ -326,7 +326,7 @@ async function lockedStanding(tx: EntityManager, actor: Actor, batchId: string) 
 const NOT_HELD = { passed: 'This batch passed at recording; it is not on hold.', discarded: 'This batch was discarded at recording.', released: 'This batch was already released.', rejected: 'This batch was already rejected.' } as const;
 
 /** New readings of a held batch, checked against the spec of the version it was made to. */
-export async function retestBatch(actor: Actor, batchId: string, input: BatchRetestInput): Promise<{ decisionId: string; outcome: BatchOutcome }> {
+export async function retestBatch(actor: Actor, batchId: string, input: BatchRetestInput, options: RecordedAt = {}): Promise<{ decisionId: string; outcome: BatchOutcome }> {
   const em = await getEm();
   return em.transactional(async (tx) => {
     const { batch, version, standing } = await lockedStanding(tx, actor, batchId);
@@ -335,18 +335,19 @@ export async function retestBatch(actor: Actor, batchId: string, input: BatchRet
     const result = checkRetest(version.spec, standing.readings, retest);
     const decision = tx.create(BatchDecision, {
       workspace: actor.workspaceId, batch: batch.id, kind: 'retest', readings: retest, checks: result.checks, outcome: result.outcome, comment, decidedBy: actor.userId,
+      createdAt: momentOf(options),
     });
     await tx.flush();
     const failed = result.checks.filter((c) => c.status !== 'pass').map((c) => `${c.label.toLowerCase()} ${c.status === 'fail' ? 'failed' : 'not measured'}`);
     await audit(tx, actor, 'batch.retested', { type: 'batch_record', id: batch.id }, version.promotionRequestId,
-      `${batch.lotCode} ${result.outcome === 'pass' ? 'passed every check' : failed.join(', ')}: ${comment}`);
+      `${batch.lotCode} ${result.outcome === 'pass' ? 'passed every check' : failed.join(', ')}: ${comment}`, options);
     await tx.flush();
     return { decisionId: decision.id, outcome: result.outcome };
   });
 }
 
 /** Release (only once the latest checks pass) or reject a held batch. Final. */
-export async function decideBatch(actor: Actor, batchId: string, input: BatchDecisionInput): Promise<{ decisionId: string; status: 'released' | 'rejected' }> {
+export async function decideBatch(actor: Actor, batchId: string, input: BatchDecisionInput, options: RecordedAt = {}): Promise<{ decisionId: string; status: 'released' | 'rejected' }> {
   const em = await getEm();
   return em.transactional(async (tx) => {
     const { batch, version, standing } = await lockedStanding(tx, actor, batchId);
@@ -358,10 +359,11 @@ export async function decideBatch(actor: Actor, batchId: string, input: BatchDec
     }
     const decision = tx.create(BatchDecision, {
       workspace: actor.workspaceId, batch: batch.id, kind: input.decision, readings: null, checks: null, outcome: null, comment: input.comment, decidedBy: actor.userId,
+      createdAt: momentOf(options),
     });
     await tx.flush();
     await audit(tx, actor, input.decision === 'release' ? 'batch.released' : 'batch.rejected', { type: 'batch_record', id: batch.id }, version.promotionRequestId,
-      `${batch.lotCode}: ${input.comment}`);
+      `${batch.lotCode}: ${input.comment}`, options);
     await tx.flush();
     return { decisionId: decision.id, status: input.decision === 'release' ? 'released' as const : 'rejected' as const };
   });

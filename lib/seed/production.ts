@@ -51,17 +51,19 @@ export async function seedDemoProduction(people: { developer: Actor; head: Actor
       disposition: 'hold' as const, dispositionComment: 'Held: jars filled below the hot-fill minimum. Decide whether to re-process or discard.' },
   ];
   const recorded: Array<{ batchId: string }> = [];
+  // Each batch is recorded on its own day, after filling; the re-test and release on 1 December.
+  const afterFilling = (date: string) => ({ at: new Date(`${date}T16:00:00Z`) });
   for (const b of batches) {
     recorded.push(await recordBatch(production, version.id, {
       lotCode: lotCodeFor(version.product.code, b.date, 1), batchDate: b.date, batchSizeG: 50_000,
       brixReading: Math.round(b.brix * 10) / 10, brixSampleTempC: b.temp, ph: Math.round(b.ph * 100) / 100, fillTempC: b.fill,
       netFillMeanG: Math.round(b.mean * 10) / 10, netFillMinG: Math.round(b.min * 10) / 10, setTestScore: 4, jarsFilled: b.jars, jarsRejected: b.rejected, notes: b.notes,
       disposition: 'disposition' in b ? b.disposition : null, dispositionComment: 'dispositionComment' in b ? b.dispositionComment : null,
-    }));
+    }, afterFilling(b.date)));
   }
   // The reworked lot: re-tested within the window, then released.
-  await retestBatch(production, recorded[2].batchId, { ph: Math.round((midPh + 0.03) * 100) / 100, comment: 'Re-acidified and re-boiled on 1 December; pH read again on a cooled sample.' });
-  await decideBatch(production, recorded[2].batchId, { decision: 'release', comment: 'Re-test within spec on every check.' });
+  await retestBatch(production, recorded[2].batchId, { ph: Math.round((midPh + 0.03) * 100) / 100, comment: 'Re-acidified and re-boiled on 1 December; pH read again on a cooled sample.' }, { at: new Date('2026-12-01T10:00:00Z') });
+  await decideBatch(production, recorded[2].batchId, { decision: 'release', comment: 'Re-test within spec on every check.' }, { at: new Date('2026-12-01T11:00:00Z') });
 
   const apricotWhy = 'Variant E (more pectin at the higher sugar ratio) set firmest and scored best on overall liking; the panel did not find it too sweet.';
   await recommendVariant(developer, apricot.trialId, { variantId: apricot.variantIds.E, rationale: apricotWhy });

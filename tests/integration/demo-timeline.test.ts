@@ -66,4 +66,19 @@ describe('the demo timeline', () => {
       if (r.costed !== null) expect(r.costed, where).toBe(r.approved);
     }
   });
+
+  it('records each batch on its own day and decides about it on or after that day', async () => {
+    const rows = await sql<{ lot_code: string; batch_date: string; recorded: string; decided: string | null }>(
+      `SELECT b.lot_code, b.batch_date::text, b.created_at::date::text AS recorded, min(d.created_at)::date::text AS decided
+         FROM batch_records b LEFT JOIN batch_decisions d ON d.batch_id = b.id
+        WHERE b.workspace_id = $1 GROUP BY b.id`,
+      [workspaceId],
+    );
+    expect(rows.length).toBeGreaterThanOrEqual(5);
+    expect(rows.some((r) => r.decided !== null)).toBe(true);
+    for (const r of rows) {
+      expect(r.recorded, `${r.lot_code} recorded`).toBe(r.batch_date);
+      if (r.decided !== null) expect(r.decided >= r.batch_date, `${r.lot_code} decided ${r.decided}`).toBe(true);
+    }
+  });
 });
