@@ -5,7 +5,7 @@ import type { FormulaSettingsInput } from '@/lib/formulas/schema';
 import type { EditorFamilyModel } from '@/lib/modelling/schema';
 import { predictForFormula, type EditorPrediction, type ResponsePredictionView } from '@/lib/modelling/editor-predictions';
 import { intervalText, responseRange } from '@/lib/modelling/predict';
-import { unitNote } from '@/lib/format/quantities';
+import { unitNote } from '@/lib/format/words';
 import type { FeatureLine } from '@/lib/modelling/features';
 import { Notice } from '@/components/ui/Notice';
 import type { EditorComputation, LineDraft } from './editor-state';

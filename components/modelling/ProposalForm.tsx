@@ -9,7 +9,7 @@ import { useFormAction } from '@/components/ui/useFormAction';
 import { createProposalTrialAction } from '@/lib/trials/actions';
 import { FACTOR_INFO, type FamilyModel, type ModelFactor } from '@/lib/modelling/schema';
 import { intervalText, responseRange } from '@/lib/modelling/predict';
-import { unitNote } from '@/lib/format/quantities';
+import { unitNote } from '@/lib/format/words';
 import { costPerJarProblem, describePoint, pointsAround, proposalCosting, proposeFormulas, type FruitMinimum, type PointsAround, type ProposalBase, type ProposalOutcome, type ProposalRequest } from '@/lib/modelling/proposals';
 import { formatCost } from '@/lib/costing';
 import type { EditorCostBasis } from '@/lib/costs/schema';

@@ -3,7 +3,7 @@
 import { Chart as ChartJS, CategoryScale, LinearScale, LineElement, PointElement, Tooltip, Legend } from 'chart.js';
 import { Line } from 'react-chartjs-2';
 import { RUN_RULE_LABELS, RUN_RULE_SET, runRuleSignals } from '@/lib/stats/run-rules';
-import { nameWithUnit } from '@/lib/format/quantities';
+import { nameWithUnit } from '@/lib/format/words';
 
 ChartJS.register(CategoryScale, LinearScale, LineElement, PointElement, Tooltip, Legend);
 ChartJS.defaults.animation = false;

@@ -22,7 +22,7 @@ export const HM_GEL_MIN_SOLIDS_PCT = 55;
 export const HM_GEL_MAX_PH = 3.5;
 export const SET_PH_MIN = 2.8;
 export const SET_PH_MAX = 3.5;
-/** Low end of the low-methoxyl setting range (LM pectin gels with calcium at pH 2.5–6.5; from memory, no published source to hand). */
+/** Low end of the low-methoxyl setting range: LM pectin gels with calcium at pH 2.5–6.5, as the project's reference notes give it (they name no published source). */
 export const LM_SET_PH_MIN = 2.5;
 export const ACID_FOOD_MAX_PH = 4.6;
 export const LOW_ACID_AW_LIMIT = 0.85;

@@ -4,3 +4,15 @@
 export function firstUpper(text: string): string {
   return text.charAt(0).toUpperCase() + text.slice(1);
 }
+
+/** The unit to show after a name, or null when the name already says it ("pH", "Measured pH") or there is none. */
+export function unitNote(name: string, unit: string): string | null {
+  const u = unit.trim().toLowerCase();
+  return !u || name.trim().toLowerCase().endsWith(u) ? null : unit;
+}
+
+/** "Soluble solids (°Brix)", but "pH", not "pH (pH)". */
+export function nameWithUnit(name: string, unit: string): string {
+  const note = unitNote(name, unit);
+  return note ? `${name} (${note})` : name;
+}

@@ -2,6 +2,7 @@
  * Scale definitions as plain data, so the tasting screen, the serving sheet and the
  * analysis all read the same anchors and bounds.
  */
+import { unitNote } from '@/lib/format/words';
 
 export interface CategoryPoint {
   value: number;
@@ -164,5 +165,5 @@ export function snapLineValue(scale: LineScale, rawValue: number): number {
 
 /** The scale's name beside an attribute's, unless it only repeats it (an intensity line is named after its attribute). */
 export function scaleNote(attributeName: string, scaleName: string): string | null {
-  return attributeName.trim().toLowerCase() === scaleName.trim().toLowerCase() ? null : scaleName;
+  return unitNote(attributeName, scaleName);
 }

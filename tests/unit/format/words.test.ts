@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { nameWithUnit, unitNote } from '@/lib/format/quantities';
+import { nameWithUnit, unitNote } from '@/lib/format/words';
 
 describe('a name with its unit', () => {
   it('puts the unit in brackets after the name', () => {
