@@ -4,7 +4,7 @@ import { getEm } from '@/lib/db';
 import { TastingSeat } from '@/entities';
 import type { Actor } from '@/lib/permissions';
 import { loadTastingRows, tastingView } from '@/lib/tastings/queries';
-import type { TastingView } from '@/lib/tastings/schema';
+import type { TastingRows, TastingView } from '@/lib/tastings/schema';
 import { toCsv } from '@/lib/csv';
 import { summaryTablesOf, type AnalysisOptions, type TastingAnalysis, type TastingData, type TastingDataAttribute } from './analysis';
 import { analyseRemembered } from './analysis-memo';
@@ -28,7 +28,7 @@ async function answerRows(actor: Actor, tastingId: string): Promise<Array<Answer
 }
 
 /** The set-up of a tasting's results from its rows: everything but the answers (the tasting's 404 is decided reading the rows). */
-function resultsSetupOf(rows: Awaited<ReturnType<typeof loadTastingRows>>): ResultsSetup {
+function resultsSetupOf(rows: TastingRows): ResultsSetup {
   const { s, attrs, seats } = rows;
   // Seat progress is not shown with the results: no answers are needed for the rest of the view.
   const { title, state, samples } = tastingView(rows, []);

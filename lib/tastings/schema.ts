@@ -1,7 +1,8 @@
 /** Tastings and taster answers: zod schemas shared by the API, actions and the phone flow. */
 import { z } from 'zod';
 import { TASTING_METHODS, TASTING_STATES } from './vocabulary';
-import type { TastingMethod, TastingState } from './vocabulary';
+import type { ServedCup, TastingMethod, TastingState } from './vocabulary';
+import type { SensoryScale } from '@/lib/sensory';
 import { isoDateTime, longText, name, text } from '@/lib/input';
 
 const code = z.string().regex(/^\d{3}$/, 'A sample code has three digits.');
@@ -109,6 +110,23 @@ export interface TastingView {
   createdAt: string;
   openedAt: string | null;
   closedAt: string | null;
+}
+/**
+ * A tasting's set-up as read in one statement (lib/tastings/queries.ts loadTastingRows): the session,
+ * its samples with their variants, the attributes it uses and its seats. Times are ISO strings.
+ */
+export interface TastingRows {
+  s: {
+    id: string; trialId: string; title: string; place: string | null; startsAt: string | null; method: TastingMethod; state: TastingState;
+    notice: string; joinCode: string | null; attributeIds: string[]; rankingAttributeId: string | null;
+    createdAt: string; openedAt: string | null; closedAt: string | null;
+  };
+  samples: Array<{ id: string; variantId: string; code: string | null; variantLabel: string; variantDescription: string }>;
+  attrs: Array<{ id: string; name: string; scale: SensoryScale }>;
+  seats: Array<{
+    id: string; seatIndex: number; kind: SeatProgress['kind']; displayName: string; servingOrder: ServedCup[];
+    consentedAt: string | null; submittedAt: string | null; lastSeenAt: string | null;
+  }>;
 }
 export interface TrialTastingRow {
   id: string; trialId: string; title: string; method: TastingMethod; state: TastingState; seats: number; submitted: number; createdAt: string;

@@ -131,6 +131,12 @@ describe('answers', () => {
     expect(res.body.error.message).toMatch(/closed/);
     const progress = await getTasting(actorOf(a, 'developer'), s.tastingId);
     expect(progress.seats.map((x) => x.status)).toEqual(['submitted', 'partial']);
+    // The set-up is read in one statement: seats in seat order with their answers counted, times as ISO strings.
+    expect(progress.seats.map((x) => [x.seatIndex, x.displayName, x.answered, x.consented])).toEqual([[0, 'Done', 1, true], [1, 'Late', 0, true]]);
+    const times = [progress.createdAt, progress.openedAt, progress.closedAt, ...progress.seats.map((x) => x.lastSeenAt).filter((t) => t !== null)];
+    expect(times.length).toBeGreaterThan(3);
+    for (const t of times) expect(t).toBe(new Date(String(t)).toISOString());
+    await expect(getTasting(actorOf(b, 'developer'), s.tastingId)).rejects.toMatchObject({ status: 404 });
     expect(await (await getEm()).count(TastingAnswer, { session: s.tastingId })).toBe(1);
     // The trial page's list counts the seats and the submitted ones, scoped to the workspace.
     const listed = await listTrialTastings(actorOf(a, 'developer'), s.trialId);
