@@ -2,7 +2,10 @@ import 'server-only';
 /** Production reads: the review queue, products and their versions, batch records, the audit trail. */
 import type { Loaded } from '@mikro-orm/core';
 import { getEm } from '@/lib/db';
-import { AuditEvent, BatchDecision, BatchRecord, Product, ProductVersion, PromotionRequest, Trial, Variant } from '@/entities';
+import { sql } from '@/lib/sql';
+import { isUuid } from '@/lib/ids';
+import type { FormulaSettingsInput, RevisionLine } from '@/lib/formulas/schema';
+import { AuditEvent, BatchDecision, BatchRecord, Product, ProductVersion, PromotionRequest, Trial } from '@/entities';
 import type { BatchDecisionEntity } from '@/entities/BatchDecision';
 import type { BatchRecordEntity } from '@/entities/BatchRecord';
 import type { ProductVersionEntity } from '@/entities/ProductVersion';
@@ -12,7 +15,7 @@ import { trialCode } from '@/lib/trials/access';
 import { toCsv } from '@/lib/csv';
 import { defaultQcSpec, estimateEndPoint, outcomeOfChecks, qcSpecCautions, type QcSpec } from '@/lib/chemistry';
 import { getTrialOverview } from '@/lib/trials/queries';
-import { DEFAULT_FILL_TEMP_C, type AuditView, type BatchDecisionView, type BatchSheetQuery, type BatchView, type BatchWorkItem, type ProductSummary, type PromotionDraftVariant, type PromotionSummary, type PromotionTargetProduct, type PromotionView, type SheetVersion, type VersionSummary, type VersionView } from './schema';
+import { DEFAULT_FILL_TEMP_C, type AuditView, type ProductionProcess, type PromotionEvidence, type BatchDecisionView, type BatchSheetQuery, type BatchView, type BatchWorkItem, type ProductSummary, type PromotionDraftVariant, type PromotionSummary, type PromotionTargetProduct, type PromotionView, type SheetVersion, type VersionSummary, type VersionView } from './schema';
 import { buildBatchSheet, type BatchSheet } from './sheet';
 import { fruitsOf, weighLines } from './review';
 import { promotionCode, type PromotionStatus } from './vocabulary';
@@ -22,13 +25,11 @@ const REQUEST_POPULATE = ['trial', 'product', 'requestedBy', 'decidedBy'] as con
 type RequestRow = Loaded<PromotionRequestEntity, (typeof REQUEST_POPULATE)[number]>;
 
 function summary(r: RequestRow): PromotionSummary {
-  return {
-    id: r.id, code: promotionCode(r.number), status: r.status,
-    trial: { id: r.trial.id, code: trialCode(r.trial.number), title: r.trial.title },
-    variantLabel: r.variantLabel,
-    productLabel: r.product ? `${r.product.name} (${r.product.code})` : `${r.newProductName} (${r.newProductCode}, new)`,
+  return summaryOf({
+    id: r.id, number: r.number, status: r.status, variantLabel: r.variantLabel, trial: r.trial, product: r.product ?? null,
+    newProductName: r.newProductName, newProductCode: r.newProductCode,
     requestedBy: r.requestedBy.name, requestedAt: r.requestedAt.toISOString(), decidedAt: r.decidedAt?.toISOString() ?? null,
-  };
+  });
 }
 
 export async function listPromotionRequests(actor: Actor, filter: { status?: PromotionStatus } = {}): Promise<PromotionSummary[]> {
@@ -46,50 +47,125 @@ function toAuditView(e: { id: string; at: Date; actorName: string; actorRole: st
   };
 }
 
-export async function getPromotionRequest(actor: Actor, requestId: string): Promise<PromotionView> {
-  const em = await getEm();
-  const r = (await em.findOne(PromotionRequest, { ...inWorkspace(actor), id: requestId }, { populate: REQUEST_POPULATE }));
-  if (!r) throw notFound('promotion request');
-  const history = (await em.find(PromotionRequest, { ...inWorkspace(actor), trial: r.trial.id, id: { $ne: r.id } }, { populate: REQUEST_POPULATE, orderBy: { number: 'asc' } }));
-  const events = await em.find(AuditEvent, { ...inWorkspace(actor), promotionRequestId: r.id }, { orderBy: { at: 'asc' } });
-  const pending = r.status === 'pending';
-  const { outcome, formula, baseline } = await promotionComparison(actor, r);
+/** The columns of a request a summary shows, from the ORM (lists) or from one statement (a request's page). */
+interface SummaryFields {
+  id: string; number: number; status: PromotionStatus; variantLabel: string;
+  trial: { id: string; number: number; title: string };
+  product: { name: string; code: string } | null; newProductName?: string | null; newProductCode?: string | null;
+  requestedBy: string; requestedAt: string; decidedAt: string | null;
+}
+function summaryOf(r: SummaryFields): PromotionSummary {
   return {
-    outcome, formula, baseline,
-    ...summary(r),
-    variantId: r.variantId,
-    product: r.product ? { id: r.product.id, code: r.product.code, name: r.product.name } : null,
-    newProduct: r.product ? null : { name: r.newProductName ?? '', code: r.newProductCode ?? '' },
-    rationale: r.rationale, process: r.process, spec: r.spec, evidence: r.evidence,
-    requestedById: r.requestedBy.id,
-    decidedBy: r.decidedBy?.name ?? null, decisionComment: r.decisionComment ?? null, productVersionId: r.productVersionId ?? null,
-    canDecide: pending && mayDecide(actor, { requestedById: r.requestedBy.id }),
-    awaitsAnotherDecider: pending && awaitsAnotherDecider(actor, { requestedById: r.requestedBy.id }),
-    canWithdraw: pending && mayWithdraw(actor, { requestedById: r.requestedBy.id }),
-    history: history.map(summary),
-    audit: events.map(toAuditView),
+    id: r.id, code: promotionCode(r.number), status: r.status,
+    trial: { id: r.trial.id, code: trialCode(r.trial.number), title: r.trial.title },
+    variantLabel: r.variantLabel,
+    productLabel: r.product ? `${r.product.name} (${r.product.code})` : `${r.newProductName} (${r.newProductCode}, new)`,
+    requestedBy: r.requestedBy, requestedAt: r.requestedAt, decidedAt: r.decidedAt,
   };
 }
 
+type FormulaColumns = { settings: FormulaSettingsInput; lines: RevisionLine[] };
+type RequestRecord = {
+  id: string; number: number; status: PromotionStatus; variant_id: string; variant_label: string;
+  new_product_name: string | null; new_product_code: string | null; rationale: string;
+  process: ProductionProcess; spec: QcSpec; evidence: PromotionEvidence;
+  requested_at: Date; decided_at: Date | null; decision_comment: string | null; product_version_id: string | null;
+  requested_by_id: string; requested_by_name: string; decided_by_name: string | null;
+  trial_id: string; trial_number: number; trial_title: string;
+  product_id: string | null; product_name: string | null; product_code: string | null;
+  history: Array<Omit<SummaryFields, 'trial'>>;
+  audit: Array<Omit<AuditView, 'promotionRequestId'> & { promotionRequestId: string | null }>;
+  variant: FormulaColumns | null;
+  created: (FormulaColumns & { version: number }) | null;
+  versions: Array<FormulaColumns & { id: string; version: number; status: string }>;
+};
+
+/**
+ * A request with everything its review page shows, in one statement scoped to the workspace: the
+ * request, its trial, product and people, the trial's other requests, its audit trail, and the
+ * formulas it compares (the variant, the version it created, the product's versions). As eight ORM
+ * reads it was a third of the review page's server time.
+ */
+export async function getPromotionRequest(actor: Actor, requestId: string): Promise<PromotionView> {
+  if (!isUuid(requestId)) throw notFound('promotion request');
+  const [r] = await sql<RequestRecord>(
+    `select r.id, r.number, r.status, r.variant_id, r.variant_label, r.new_product_name, r.new_product_code, r.rationale, r.process, r.spec, r.evidence,
+            r.requested_at, r.decided_at, r.decision_comment, r.production_formula_id as product_version_id,
+            r.requested_by_id, rb.name as requested_by_name, db.name as decided_by_name,
+            t.id as trial_id, t.number as trial_number, t.title as trial_title,
+            p.id as product_id, p.name as product_name, p.code as product_code,
+            coalesce((select json_agg(json_build_object(
+                        'id', h.id, 'number', h.number, 'status', h.status, 'variantLabel', h.variant_label,
+                        'product', case when hp.id is null then null else json_build_object('name', hp.name, 'code', hp.code) end,
+                        'newProductName', h.new_product_name, 'newProductCode', h.new_product_code,
+                        'requestedBy', hb.name, 'requestedAt', h.requested_at, 'decidedAt', h.decided_at) order by h.number)
+                        from promotion_requests h
+                        join users hb on hb.id = h.requested_by_id
+                        left join products hp on hp.id = h.product_id and hp.workspace_id = h.workspace_id
+                       where h.workspace_id = r.workspace_id and h.trial_id = r.trial_id and h.id <> r.id), '[]') as history,
+            coalesce((select json_agg(json_build_object(
+                        'id', e.id, 'at', e.at, 'actorName', e.actor_name, 'actorRole', e.actor_role, 'action', e.action, 'summary', e.summary,
+                        'subjectType', e.subject_type, 'subjectId', e.subject_id, 'promotionRequestId', e.promotion_request_id) order by e.at)
+                        from audit_events e where e.workspace_id = r.workspace_id and e.promotion_request_id = r.id), '[]') as audit,
+            (select json_build_object('settings', v.settings, 'lines', v.lines)
+               from variants v where v.workspace_id = r.workspace_id and v.id = r.variant_id) as variant,
+            (select json_build_object('version', c.version, 'settings', c.settings, 'lines', c.lines)
+               from production_formulas c where c.workspace_id = r.workspace_id and c.id = r.production_formula_id) as created,
+            coalesce((select json_agg(json_build_object('id', pv.id, 'version', pv.version, 'status', pv.status, 'settings', pv.settings, 'lines', pv.lines) order by pv.version)
+                        from production_formulas pv where pv.workspace_id = r.workspace_id and pv.product_id = r.product_id), '[]') as versions
+       from promotion_requests r
+       join trials t on t.id = r.trial_id and t.workspace_id = r.workspace_id
+       join users rb on rb.id = r.requested_by_id
+       left join users db on db.id = r.decided_by_id
+       left join products p on p.id = r.product_id and p.workspace_id = r.workspace_id
+      where r.workspace_id = $1 and r.id = $2`,
+    [actor.workspaceId, requestId],
+    'promotion-request',
+  );
+  if (!r) throw notFound('promotion request');
+  const pending = r.status === 'pending';
+  const trial = { id: r.trial_id, number: r.trial_number, title: r.trial_title };
+  const product = r.product_id && r.product_name !== null && r.product_code !== null ? { id: r.product_id, code: r.product_code, name: r.product_name } : null;
+  const parties = { requestedById: r.requested_by_id };
+  return {
+    ...promotionComparison(r, product),
+    ...summaryOf({
+      id: r.id, number: r.number, status: r.status, variantLabel: r.variant_label, trial, product,
+      newProductName: r.new_product_name, newProductCode: r.new_product_code,
+      requestedBy: r.requested_by_name, requestedAt: r.requested_at.toISOString(), decidedAt: r.decided_at?.toISOString() ?? null,
+    }),
+    variantId: r.variant_id,
+    product,
+    newProduct: product ? null : { name: r.new_product_name ?? '', code: r.new_product_code ?? '' },
+    rationale: r.rationale, process: r.process, spec: r.spec, evidence: r.evidence,
+    requestedById: r.requested_by_id,
+    decidedBy: r.decided_by_name, decisionComment: r.decision_comment, productVersionId: r.product_version_id,
+    canDecide: pending && mayDecide(actor, parties),
+    awaitsAnotherDecider: pending && awaitsAnotherDecider(actor, parties),
+    canWithdraw: pending && mayWithdraw(actor, parties),
+    history: r.history.map((h) => summaryOf({ ...h, trial, requestedAt: isoOfJson(h.requestedAt), decidedAt: h.decidedAt === null ? null : isoOfJson(h.decidedAt) })),
+    audit: r.audit.map((e) => ({ ...e, at: isoOfJson(e.at) })),
+  };
+}
+
+/** A time PostgreSQL wrote into JSON ("…+00:00") in the form every other time is sent in. */
+const isoOfJson = (t: string) => new Date(t).toISOString();
+
 /** The formula a request puts into production and the version it stands beside. */
-async function promotionComparison(actor: Actor, r: RequestRow): Promise<Pick<PromotionView, 'outcome' | 'formula' | 'baseline'>> {
-  const em = await getEm();
-  const created = r.productVersionId
-    ? ((await em.findOne(ProductVersion, { ...inWorkspace(actor), id: r.productVersionId })))
-    : null;
-  const source = created ?? ((await em.findOne(Variant, { ...inWorkspace(actor), id: r.variantId })));
+function promotionComparison(r: RequestRecord, product: { name: string; code: string } | null): Pick<PromotionView, 'outcome' | 'formula' | 'baseline'> {
+  const { created, versions } = r;
+  const source = created ?? r.variant;
   const formula = source ? { settings: source.settings, lines: source.lines, weighed: weighLines(source.settings, source.lines) } : null;
-  if (!r.product) return { outcome: { kind: 'new_product', name: r.newProductName ?? '', code: r.newProductCode ?? '' }, formula, baseline: null };
-  const versions = (await em.find(ProductVersion, { ...inWorkspace(actor), product: r.product.id }, { orderBy: { version: 'asc' } }));
+  if (!product) return { outcome: { kind: 'new_product', name: r.new_product_name ?? '', code: r.new_product_code ?? '' }, formula, baseline: null };
   // A request that created its product (approved as a new product) has no earlier version to compare with.
   const before = created ? versions.filter((v) => v.version < created.version).at(-1) ?? null : versions.find((v) => v.status === 'current') ?? null;
   const current = versions.find((v) => v.status === 'current') ?? null;
   return {
     outcome: created && !before
-      ? { kind: 'new_product', name: r.product.name, code: r.product.code }
-      : { kind: 'existing_product', name: r.product.name, code: r.product.code, nextVersion: created?.version ?? (versions.at(-1)?.version ?? 0) + 1, currentVersion: created ? before?.version ?? null : current?.version ?? null },
+      ? { kind: 'new_product', name: product.name, code: product.code }
+      : { kind: 'existing_product', name: product.name, code: product.code, nextVersion: created?.version ?? (versions.at(-1)?.version ?? 0) + 1, currentVersion: created ? before?.version ?? null : current?.version ?? null },
     formula,
-    baseline: before ? { id: before.id, version: before.version, productName: r.product.name, settings: before.settings, lines: before.lines } : null,
+    baseline: before ? { id: before.id, version: before.version, productName: product.name, settings: before.settings, lines: before.lines } : null,
   };
 }
 

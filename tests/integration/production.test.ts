@@ -162,6 +162,15 @@ describe('who may decide', () => {
     expect(second.status, JSON.stringify(second.body)).toBe(201);
     const view = (await callRoute(promotionRoute.GET, { method: 'GET', path: '', caller: as('head_of_product'), params: { requestId: second.body.requestId } })).body.promotion;
     expect(view.history.map((h: any) => [h.id, h.status])).toEqual([[requestId, 'sent_back']]);
+    // The history and the audit trail (read as JSON inside one statement) carry the same fields and
+    // ISO times as every other view.
+    const [earlier] = view.history;
+    expect(earlier).toMatchObject({ trial: view.trial, variantLabel: view.variantLabel, requestedBy: view.requestedBy });
+    expect(earlier.code).toMatch(/^PR-\d{3}$/);
+    expect(earlier.requestedAt).toMatch(/^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}:\d{2}\.\d{3}Z$/);
+    expect(earlier.decidedAt).toMatch(/^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}:\d{2}\.\d{3}Z$/);
+    expect(view.audit.map((e: any) => e.at)).toEqual(view.audit.map((e: any) => new Date(e.at).toISOString()));
+    expect(view.audit.map((e: any) => e.promotionRequestId)).toEqual(view.audit.map(() => second.body.requestId));
     const code = (await (await getEm()).fork().findOneOrFail(PromotionRequest, { id: requestId })).number;
     const sentBackMail = await waitForMail(a.people.developer.email, 5000, `Promotion PR-${String(code).padStart(3, '0')} sent back`);
     expect(sentBackMail.text).toContain('Tighten the pH window');
