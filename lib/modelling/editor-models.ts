@@ -7,7 +7,7 @@ import 'server-only';
  *
  * Reading every family's data set and fitting it costs far more than the rest of the page, and the
  * data change only with a cook, an answer or a revised variant. So the fits are kept per workspace
- * under modelDataVersion(), a digest of those rows: a page load costs one digest query, and the first
+ * under modelDataVersion(), a fingerprint of those rows: a page load costs one fingerprint query, and the first
  * load after any change refits. Concurrent loads share one fit.
  */
 import { familyModel, listFamilies, modelDataVersion } from './queries';

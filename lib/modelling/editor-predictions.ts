@@ -24,15 +24,46 @@ export type EditorPrediction =
   | { state: 'no_model'; family: FamilyInfo | null }
   | { state: 'ready'; family: FamilyInfo; factors: Partial<Record<ModelFactor, number>>; responses: ResponsePredictionView[]; outside: string | null };
 
-/** A fitted family model cut to what the editor predicts from (built field by field, so nothing else is sent). */
+/**
+ * One object for all equal values: `one(x)` returns the first value given that serialises like x.
+ * React's server payload writes an object it has already written as a reference to the first copy,
+ * so responses fitted on the same runs send their design (terms, coding, the inverse R factor) once.
+ */
+function sharing<T>(): (value: T) => T {
+  const seen = new Map<string, T>();
+  return (value) => {
+    const key = JSON.stringify(value);
+    const first = seen.get(key);
+    if (first !== undefined) return first;
+    seen.set(key, value);
+    return value;
+  };
+}
+
+/**
+ * A fitted family model cut to what the editor predicts from (built field by field, so nothing else
+ * is sent). Equal parts of the responses' surfaces are one object (see sharing()): responses fitted
+ * on the same runs share their design, and all share their terms, so the page sends each once.
+ */
 export function editorModelOf(model: FamilyModel): EditorFamilyModel {
+  const names = sharing<string[]>();
+  const ranges = sharing<FamilyModel['responses'][number]['surface']['coding']>();
+  const terms = sharing<FamilyModel['responses'][number]['surface']['terms']>();
+  const columns = sharing<number[]>();
+  const matrices = sharing<number[][]>();
   return {
     family: model.family,
     factors: model.factors,
-    responses: model.responses.map((r) => ({
-      key: r.key, name: r.name, unit: r.unit, decimals: r.decimals, newRunWeight: r.newRunWeight, scale: r.scale, libraryKey: r.libraryKey,
-      surface: { factors: r.surface.factors, coding: r.surface.coding, dataBox: r.surface.dataBox, terms: r.surface.terms, fit: { basis: r.surface.fit.basis } },
-    })),
+    responses: model.responses.map((r) => {
+      const { basis } = r.surface.fit;
+      return {
+        key: r.key, name: r.name, unit: r.unit, decimals: r.decimals, newRunWeight: r.newRunWeight, scale: r.scale, libraryKey: r.libraryKey,
+        surface: {
+          factors: names(r.surface.factors), coding: ranges(r.surface.coding), dataBox: ranges(r.surface.dataBox), terms: terms(r.surface.terms),
+          fit: { basis: { ...basis, estimableColumns: columns(basis.estimableColumns), inverseR: matrices(basis.inverseR) } },
+        },
+      };
+    }),
   };
 }
 

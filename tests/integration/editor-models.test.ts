@@ -55,6 +55,24 @@ describe('the editor’s models', () => {
     for (const field of ['residuals', 'leverages', 'codedRuns', 'anova', 'fruitContent']) expect(sent).not.toContain(`"${field}"`);
   });
 
+  it('share one object for each equal part of their surfaces, so the page sends it once', async () => {
+    const model = (await familyModel({ workspaceId }, apricot))!;
+    const cut = editorModelOf(model);
+    const surfaces = cut.responses.map((r) => r.surface);
+    // Still the full cut, value for value.
+    model.responses.forEach(({ surface: s }, i) => expect(surfaces[i]).toEqual({ factors: s.factors, coding: s.coding, dataBox: s.dataBox, terms: s.terms, fit: { basis: s.fit.basis } }));
+    // As many objects as distinct values: the demo's responses were not all measured on the same runs.
+    const distinct = (parts: unknown[]) => [new Set(parts).size, new Set(parts.map((x) => JSON.stringify(x))).size];
+    const matrices = distinct(surfaces.map((x) => x.fit.basis.inverseR));
+    expect(matrices[0]).toBe(matrices[1]);
+    expect(matrices[0]).toBeLessThan(surfaces.length);
+    expect(distinct(surfaces.map((x) => x.terms))).toEqual([1, 1]);
+    const ranges = distinct(surfaces.flatMap((x) => [x.coding, x.dataBox]));
+    expect(ranges[0]).toBe(ranges[1]);
+    // Coefficients are each response's own.
+    expect(new Set(surfaces.map((x) => x.fit.basis.coefficients)).size).toBe(surfaces.length);
+  });
+
   it('are refitted after a cook is recorded, and again once it is gone', async () => {
     const before = await editorModels(developer);
     const versionBefore = await modelDataVersion(developer);
@@ -74,12 +92,12 @@ describe('the editor’s models', () => {
     }
     const gone = await editorModels(developer);
     // Without the cook the data are as before, and so is the fit (a refit: recording it also
-    // touched the trial's row, which the digest reads too).
+    // touched the trial's row, which the fingerprint reads too).
     expect(gone).not.toBe(before);
     expect(gone).toEqual(before);
   });
 
-  it('are refitted when an answer is changed outside the application (the digest reads the rows themselves)', async () => {
+  it('are refitted when an answer is changed outside the application (the fingerprint reads the rows themselves)', async () => {
     const before = await editorModels(developer);
     const [answer] = await sql<{ id: string; value: number }>(
       `select a.id, a.value from panel_answers a join panel_samples s on s.id = a.sample_id where a.workspace_id = $1 and a.kind = 'rating' and a.value is not null and s.variant_id in (select id from variants where workspace_id = $1) order by a.id limit 1`,
