@@ -17,9 +17,18 @@ export function currencyChoices(): { code: string; label: string }[] {
   return [...CODES].sort().map((code) => ({ code, label: `${code} — ${names.of(code) ?? code}` }));
 }
 
+/** Per currency code: making an Intl.NumberFormat costs far more than the figure it is asked for. */
+const DIGITS = new Map<string, number>();
+
 /** Decimals of the currency's minor unit (EUR 2, JPY 0, BHD 3). */
 export function minorDigits(currency: string): number {
-  return new Intl.NumberFormat('en', { style: 'currency', currency }).resolvedOptions().maximumFractionDigits ?? 2;
+  let digits = DIGITS.get(currency);
+  if (digits === undefined) {
+    digits = new Intl.NumberFormat('en', { style: 'currency', currency }).resolvedOptions().maximumFractionDigits ?? 2;
+    // Bounded: a malformed code throws above, and there are 26³ well-formed ones at most.
+    DIGITS.set(currency, digits);
+  }
+  return digits;
 }
 
 const AMOUNT = /^\d{1,12}(?:[.,]\d+)?$/;
@@ -50,9 +59,9 @@ export function amountText(minor: number, currency: string): string {
 
 /** Minor units for a screen, with the currency stated: "EUR 12.50". */
 export function formatMoney(minor: number, currency: string, extraDigits = 0): string {
-  const digits = minorDigits(currency) + extraDigits;
+  const minorUnit = minorDigits(currency);
   // No locale: the server and the browser print the same text, thousands grouped with commas.
-  const [whole, fraction] = (minor / 10 ** minorDigits(currency)).toFixed(digits).split('.');
+  const [whole, fraction] = (minor / 10 ** minorUnit).toFixed(minorUnit + extraDigits).split('.');
   return `${currency} ${whole.replace(/\B(?=(\d{3})+(?!\d))/g, ',')}${fraction ? `.${fraction}` : ''}`;
 }
 
