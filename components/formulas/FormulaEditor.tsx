@@ -5,7 +5,7 @@ import { useRouter } from 'next/navigation';
 import type { UnitPreference } from '@/lib/chemistry';
 import { createFormulaAction, reviseFormulaAction } from '@/lib/formulas/actions';
 import { createFormulaSchema, reviseFormulaSchema, type FormulaSettingsInput } from '@/lib/formulas/schema';
-import type { IngredientView } from '@/lib/ingredients/schema';
+import type { EditorIngredient } from '@/lib/ingredients/schema';
 import { Button } from '@/components/ui/Button';
 import { Card } from '@/components/ui/Card';
 import { Field, FieldErrorText } from '@/components/ui/Field';
@@ -36,7 +36,7 @@ export interface FormulaEditorProps {
     lines: Array<{ ingredientId: string; quantity: number; unit: 'g' | 'pct_fruit' }>;
   };
   /** Workspace library, not archived. */
-  ingredients: IngredientView[];
+  ingredients: EditorIngredient[];
   massUnits: UnitPreference;
   temperatureUnit: TemperatureUnit;
   /** Settings for a new formula. */

@@ -15,7 +15,7 @@ import {
 } from '@/lib/chemistry';
 import { computeFormula, type ComputableLine, type ComputeOutcome } from '@/lib/formulas/compute';
 import type { FormulaSettingsInput } from '@/lib/formulas/schema';
-import type { IngredientView } from '@/lib/ingredients/schema';
+import type { EditorIngredient } from '@/lib/ingredients/schema';
 import { readDecimal } from '@/lib/format/numbers';
 import { type DisplayScale, ENTRY_DECIMALS, type MeasuredDraft, type TemperatureUnit, altitudeScale, draftFromBase, draftFromText, formatEntryNumber, jarFillScale, redisplayDraft, temperatureScale } from '@/lib/format/quantities';
 
@@ -229,12 +229,12 @@ export function friendlyComputeMessage(field: string, message: string, lineLabel
   return label ? `${label}: ${detail}` : detail.charAt(0).toUpperCase() + detail.slice(1);
 }
 
-export function ingredientIndex(ingredients: IngredientView[]): Map<string, IngredientView> {
+export function ingredientIndex(ingredients: EditorIngredient[]): Map<string, EditorIngredient> {
   return new Map(ingredients.map((i) => [i.id, i]));
 }
 
 /** Runs computeFormula on the lines that are complete enough; incomplete ones are reported, not guessed. */
-export function computeEditor(settings: SettingsDraft, lines: LineDraft[], ingredientsById: Map<string, IngredientView>): EditorComputation {
+export function computeEditor(settings: SettingsDraft, lines: LineDraft[], ingredientsById: Map<string, EditorIngredient>): EditorComputation {
   const computable: ComputableLine[] = [];
   const lineKeys: string[] = [];
   const lineLabels: string[] = [];

@@ -10,11 +10,11 @@ import { ChemistryInputError } from '@/lib/chemistry';
 import { toLabelData } from '@/lib/ingredients/label-data';
 import type { ComputableLine, ComputeOutcome } from '@/lib/formulas/compute';
 import type { FormulaSettingsInput } from '@/lib/formulas/schema';
-import type { IngredientView } from '@/lib/ingredients/schema';
+import type { EditorIngredient } from '@/lib/ingredients/schema';
 import { LabelPanel } from './LabelPanel';
 
 /** The editor's lines carry library views; a line without label data counts as unknown. */
-const labelDataOf = (line: ComputableLine) => ('labelData' in line.ingredient ? toLabelData(line.ingredient as IngredientView) : null);
+const labelDataOf = (line: ComputableLine) => ('labelData' in line.ingredient ? toLabelData(line.ingredient as EditorIngredient) : null);
 
 export function LiveLabel({ settings, outcome, lines }: { settings: FormulaSettingsInput; outcome: ComputeOutcome | null; lines: ComputableLine[] }) {
   const result = useMemo(() => {

@@ -157,7 +157,7 @@ function known<T extends string>(list: readonly T[], values: readonly string[]):
 }
 
 /** The label's view of one library ingredient. */
-export function toLabelData(ingredient: { name: string; kind: IngredientKind; labelData: IngredientLabelFields }): IngredientLabelData {
+export function toLabelData(ingredient: { name: string; kind: IngredientKind; labelData: Omit<IngredientLabelFields, 'source'> & { source?: string | null } }): IngredientLabelData {
   const d = ingredient.labelData;
   return {
     labelName: d.labelName ?? ingredient.name,
@@ -168,6 +168,6 @@ export function toLabelData(ingredient: { name: string; kind: IngredientKind; la
     sulphiteMgPerKg: d.sulphiteMgPerKg,
     additive: d.additive ? { eNumber: d.additive.eNumber, className: ADDITIVE_CLASS_LABELS[d.additive.functionalClass].toLowerCase() } : null,
     isAddedWater: d.isAddedWater,
-    source: d.source,
+    source: d.source ?? null,
   };
 }

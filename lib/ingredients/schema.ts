@@ -165,6 +165,22 @@ export interface IngredientView extends IngredientComposition {
   updatedByName: string | null;
 }
 
+/**
+ * An ingredient as the formula editor receives it: what the chemistry, the label and the picker
+ * read. The provenance texts and the edit history stay on the ingredient pages; they were half of
+ * what every editor load sent for the library.
+ */
+export type EditorIngredient = Omit<IngredientView, 'origin' | 'source' | 'notes' | 'updatedAt' | 'updatedByName' | 'labelData'> & {
+  labelData: Omit<IngredientLabelFields, 'source'>;
+};
+
+export function editorIngredientOf(view: IngredientView): EditorIngredient {
+  const { origin: _origin, source: _source, notes: _notes, updatedAt: _updatedAt, updatedByName: _updatedByName, labelData, ...composition } = view;
+  const { source: _labelSource, ...label } = labelData;
+  void [_origin, _source, _notes, _updatedAt, _updatedByName, _labelSource];
+  return { ...composition, labelData: label };
+}
+
 export const ingredientListQuerySchema = z.object({
   q: searchText.optional(),
   kind: z.enum(INGREDIENT_KINDS).optional(),

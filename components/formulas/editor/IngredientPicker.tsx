@@ -1,11 +1,11 @@
 'use client';
 
 import { useMemo, useState } from 'react';
-import { INGREDIENT_KINDS, KIND_LABELS, type IngredientView } from '@/lib/ingredients/schema';
+import { INGREDIENT_KINDS, KIND_LABELS, type EditorIngredient } from '@/lib/ingredients/schema';
 import { inputClass } from '@/components/ui/Field';
 
 /** Ingredients grouped by kind in <optgroup>s, names in alphabetical order; a native select stays keyboard- and phone-friendly. */
-export function groupIngredients(ingredients: IngredientView[]): Array<{ kind: (typeof INGREDIENT_KINDS)[number]; label: string; items: IngredientView[] }> {
+export function groupIngredients(ingredients: EditorIngredient[]): Array<{ kind: (typeof INGREDIENT_KINDS)[number]; label: string; items: EditorIngredient[] }> {
   return INGREDIENT_KINDS.map((kind) => ({
     kind,
     label: KIND_LABELS[kind],
@@ -13,7 +13,7 @@ export function groupIngredients(ingredients: IngredientView[]): Array<{ kind: (
   })).filter((g) => g.items.length > 0);
 }
 
-function optionText(i: IngredientView): string {
+function optionText(i: EditorIngredient): string {
   return `${i.name} (${i.solidsPct} % solids)`;
 }
 
@@ -34,7 +34,7 @@ export function IngredientPicker({
 }: {
   id: string;
   value: string;
-  ingredients: IngredientView[];
+  ingredients: EditorIngredient[];
   onChange: (ingredientId: string) => void;
   invalid?: boolean;
   describedBy?: string;

@@ -2,7 +2,7 @@
 
 import type { LineUnit } from '@/lib/chemistry';
 import { LINE_UNITS } from '@/lib/formulas/schema';
-import type { IngredientView } from '@/lib/ingredients/schema';
+import type { EditorIngredient } from '@/lib/ingredients/schema';
 import { FieldErrorText, inputClass } from '@/components/ui/Field';
 import { Button } from '@/components/ui/Button';
 import { IngredientPicker } from './IngredientPicker';
@@ -12,8 +12,8 @@ export interface LineRowProps {
   line: LineDraft;
   index: number;
   count: number;
-  ingredients: IngredientView[];
-  ingredient: IngredientView | undefined;
+  ingredients: EditorIngredient[];
+  ingredient: EditorIngredient | undefined;
   errors?: Partial<Record<LineField, string[]>>;
   /** The line's mass as the computation resolved it, e.g. "= 60.0 g" for a % of fruit line. */
   massHint?: string;

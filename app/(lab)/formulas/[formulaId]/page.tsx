@@ -3,6 +3,7 @@ import { can } from '@/lib/permissions';
 import { getFormula } from '@/lib/formulas/queries';
 import { computeFormula } from '@/lib/formulas/compute';
 import { listIngredients } from '@/lib/ingredients/queries';
+import { editorIngredientOf } from '@/lib/ingredients/schema';
 import { FormulaEditor } from '@/components/formulas/FormulaEditor';
 import { FormulaHeader } from '@/components/formulas/FormulaHeader';
 import { ResultsPanel } from '@/components/formulas/ResultsPanel';
@@ -60,7 +61,7 @@ export default async function FormulaPage({ params }: { params: Promise<{ formul
           settings: c.settings,
           lines: c.lines.map((l) => ({ ingredientId: l.ingredientId, quantity: l.quantity, unit: l.unit })),
         }}
-        ingredients={library}
+        ingredients={library.map(editorIngredientOf)}
         massUnits={actor.massUnits}
         temperatureUnit={actor.temperatureUnit}
         cost={cost}

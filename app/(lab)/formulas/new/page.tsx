@@ -1,5 +1,6 @@
 import { requirePage } from '@/lib/page-guard';
 import { listIngredients } from '@/lib/ingredients/queries';
+import { editorIngredientOf } from '@/lib/ingredients/schema';
 import { FormulaEditor } from '@/components/formulas/FormulaEditor';
 import { PageHeader } from '@/components/ui/Card';
 import { todayIso } from '@/lib/format/dates';
@@ -17,7 +18,7 @@ export default async function NewFormulaPage() {
       <PageHeader title="New formula" lead="Pick ingredients from your library; the results update as you type. Saving creates revision 1." />
       <FormulaEditor
         mode="create"
-        ingredients={ingredients}
+        ingredients={ingredients.map(editorIngredientOf)}
         massUnits={actor.massUnits}
         temperatureUnit={actor.temperatureUnit}
         defaults={{ ruleDate: todayIso(), targetSolidsPct: 65, jarNetFillG: 340 }}
