@@ -1,12 +1,9 @@
 /**
- * The bridge from the label's ingredient data to the sugar-based water activity of
- * lib/chemistry: each formula line's sucrose, glucose and fructose per 100 g, where known. PURE.
+ * An ingredient's sugar profile from its label data: the sucrose, glucose and fructose per 100 g
+ * that the sugar-based water activity of lib/chemistry reads (the library stores the profile on the
+ * ingredient's composition, lib/ingredients/queries.ts). PURE.
  */
-import { ChemistryInputError } from '@/lib/chemistry/errors';
-import { estimateWaterActivityFromSugars } from '@/lib/chemistry/water-activity';
-import type { ResolvedLine } from '@/lib/chemistry/mass-balance';
-import type { SugarMixEstimate, SugarMixOptions, SugarProfile, SugarProfileLine } from '@/lib/chemistry/water-activity';
-import type { IngredientLabelData, LabelLine, NutrientValues } from './types';
+import type { NutrientValues } from './types';
 
 /** The three sugars as an ingredient's label data holds them, g per 100 g; null is not known. */
 export type SugarValues = Pick<NutrientValues, 'sucroseG' | 'glucoseG' | 'fructoseG'>;
@@ -20,28 +17,3 @@ export function fullSugarProfile({ sucroseG, glucoseG, fructoseG }: SugarValues)
   return { sucroseG, glucoseG, fructoseG };
 }
 
-/** The ingredient's sugar profile, or null unless all three sugars are known (unknown is never zero). */
-export function sugarProfileOf(ingredient: IngredientLabelData): SugarProfile | null {
-  return fullSugarProfile(ingredient.nutrients);
-}
-
-/**
- * Pairs the mass balance's resolved lines with the label lines of the same formula, in the same
- * order (line i of the formula is `resolved[i]` and `labelLines[i]`).
- */
-export function sugarProfileLines(resolved: readonly ResolvedLine[], labelLines: readonly LabelLine[]): SugarProfileLine[] {
-  if (resolved.length !== labelLines.length) {
-    throw new ChemistryInputError('lines', 'the label lines must match the formula lines one for one');
-  }
-  return resolved.map((line, i) => ({ line, sugars: sugarProfileOf(labelLines[i].ingredient) }));
-}
-
-/** aw of the finished product from the sugars the ingredients hold (lib/chemistry/water-activity.ts). */
-export function waterActivityFromLabelLines(
-  resolved: readonly ResolvedLine[],
-  labelLines: readonly LabelLine[],
-  finishedMassG: number,
-  options: SugarMixOptions = {},
-): SugarMixEstimate {
-  return estimateWaterActivityFromSugars(sugarProfileLines(resolved, labelLines), finishedMassG, options);
-}
