@@ -87,14 +87,14 @@ export function searchFamily(model: FamilyModel, request: SearchRequest, sources
   if (request.fruitMinimumPer1000g !== undefined) {
     const fruitOf = sources.fruitPer1000g;
     if (!fruitOf) refuse('constraints.fruitMinimumPer1000g', 'The fruit content cannot be computed over this model’s factors.');
-    constraints.push(windowConstraint('fruit minimum', fruitOf, { low: request.fruitMinimumPer1000g }));
+    constraints.push(windowConstraint(`fruit minimum (${request.fruitMinimumPer1000g} g per 1000 g)`, fruitOf, { low: request.fruitMinimumPer1000g }));
   }
   const phModel = model.responses.find((r) => r.key === PH_KEY) ?? null;
   const ph = request.ph;
   if (ph) {
     // A window of no width can never be met by a continuous estimate.
     if (!(ph.high > ph.low)) refuse('constraints.ph', 'The lowest pH must be below the highest.');
-    if (phModel) constraints.push(windowConstraint('pH window', (p) => estimateAt(phModel.surface, p), ph));
+    if (phModel) constraints.push(windowConstraint(`pH window (${ph.low}–${ph.high})`, (p) => estimateAt(phModel.surface, p), ph));
     else if (sources.withoutPhModel === 'refuse') refuse('constraints.ph', 'There is no model of measured pH yet, so a pH window cannot be kept.');
     else notes.push('This family has no model of measured pH yet, so the pH window could not be held to: measure the pH of every cook of the proposal.');
   }

@@ -15,7 +15,7 @@ import { ValidationFailed } from '@/lib/errors';
 import { costComputation, historiesBy, type FormulaCostOutcome, type FormulaPrices } from '@/lib/costing';
 import type { EditorCostBasis } from '@/lib/costs/schema';
 import { predictResponse, windowConstraint, type Constraint, type Interval } from '@/lib/models';
-import { minorDigits } from '@/lib/pricing/money';
+import { formatMoney, minorDigits } from '@/lib/pricing/money';
 import { searchFamily, type BaseSources, type SearchRequest } from './optimise';
 import { predictOne } from './predict';
 import { FACTOR_INFO, type FamilyModel, type ModelFactor, type ResponseKey } from './schema';
@@ -238,7 +238,7 @@ export function costCeilingConstraint(base: ProposalBase, costing: ProposalCosti
   if (ceilingMinor > MAX_COST_CEILING_PER_JAR * 10 ** minorDigits(costing.currency!)) refuseCeiling(COST_CEILING_TOO_HIGH);
   const solver = pointSolver(base);
   const reusable = typeof solver === 'string' ? undefined : solver;
-  return windowConstraint('cost ceiling per jar', (p) => knownCostPerJar(costAtPoint(base, p, costing, reusable)) ?? Number.NaN, { high: ceilingMinor });
+  return windowConstraint(`cost ceiling per jar (${formatMoney(ceilingMinor, costing.currency!)})`, (p) => knownCostPerJar(costAtPoint(base, p, costing, reusable)) ?? Number.NaN, { high: ceilingMinor });
 }
 
 export interface ProposedResponse {
@@ -287,7 +287,7 @@ export function baseFormulaSources(base: ProposalBase, ceiling?: CeilingRequest)
   const sources: BaseSources = {
     fruitPer1000g: (point) => solver.at(point)?.fruitPer1000g ?? Number.NaN,
     // A point the base formula cannot be moved to is no proposal.
-    constraints: [windowConstraint('formula can be made', (p) => (solver.at(p) ? 0 : Number.NaN), { low: 0 })],
+    constraints: [windowConstraint('the base formula can be made', (p) => (solver.at(p) ? 0 : Number.NaN), { low: 0 })],
   };
   if (!ceiling) return sources;
   sources.constraints.push(costCeilingConstraint(base, ceiling.costing, ceiling.perJarMinor));

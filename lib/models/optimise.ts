@@ -60,6 +60,12 @@ export function windowConstraint(
   };
 }
 
+/** Why no setting qualifies, naming the constraints no setting tried met (they are what to relax). */
+function noSettingMeets(neverMet: readonly Constraint[]): string {
+  const base = 'No setting inside the data meets every constraint.';
+  return neverMet.length ? `${base} Not met at any setting tried: ${neverMet.map((c) => c.name).join('; ')}.` : base;
+}
+
 export interface PredictedResponse {
   name: string;
   estimate: number;
@@ -191,6 +197,8 @@ export function optimise(input: OptimiseInput): OptimiseResult {
     return point;
   };
   let evaluations = 0;
+  // The constraints some evaluated setting met: one no setting met is named when nothing qualifies.
+  const everMet = new Set<Constraint>();
   const evaluate = (unit: readonly number[]): Evaluation => {
     evaluations++;
     const point = toNatural(unit);
@@ -205,7 +213,11 @@ export function optimise(input: OptimiseInput): OptimiseResult {
       }
       parts.push({ desirability: desirability(g.goal, region.estimate), importance: g.importance });
     }
-    for (const c of constraints) offBy += Math.max(0, c.violation(point));
+    for (const c of constraints) {
+      const violation = c.violation(point);
+      if (violation <= 0) everMet.add(c);
+      else offBy += violation;
+    }
     if (offBy > 0) return { score: -1 - offBy, feasible: false, desirability: 0 };
     const d = overallDesirability(parts);
     return { score: d, feasible: true, desirability: d };
@@ -270,7 +282,7 @@ export function optimise(input: OptimiseInput): OptimiseResult {
     ? null
     : anyFeasible
       ? 'Inside the data and the constraints, some response is always outside its acceptable limits.'
-      : 'No setting inside the data meets every constraint.';
+      : noSettingMeets(constraints.filter((c) => !everMet.has(c)));
   return { proposals, searchBox, evaluations, message };
 }
 

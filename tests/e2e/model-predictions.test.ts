@@ -167,7 +167,7 @@ describe.each(WINDOWS)('the cost ceiling on the Propose screen (%s)', (size, vie
     // A penny a jar: no formula can be made for that. Plain words, no proposal.
     await ceilingBox.fill('0.01');
     await find.click();
-    await page.getByText('No setting inside the data meets every constraint.').waitFor({ timeout: 30_000 });
+    await page.getByText('No setting inside the data meets every constraint. Not met at any setting tried: cost ceiling per jar (GBP 0.01).').waitFor({ timeout: 30_000 });
     expect(await proposals.count()).toBe(0);
     await walk.stop('impossible-ceiling');
 

@@ -342,7 +342,8 @@ describe('predictions and proposals on the demo', () => {
       const res = await call({ ...body, constraints: { costCeilingPerJarMinor: 1 } });
       expect(res.status).toBe(200);
       expect(res.body.proposals).toEqual([]);
-      expect(res.body.message).toBe('No setting inside the data meets every constraint.');
+      // The ceiling is named with its amount, as the one constraint no setting met.
+      expect(res.body.message).toMatch(/^No setting inside the data meets every constraint\. Not met at any setting tried: cost ceiling per jar \([A-Z]{3} 0\.01\)\.$/);
     });
 
     it('refuses a ceiling without a base formula, without a pack format, or with an unpriced line, by name (422)', async () => {

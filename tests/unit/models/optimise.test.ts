@@ -100,7 +100,14 @@ describe('optimiser', () => {
       constraints: [linearConstraint('too early', { time: 1 }, '<=', 60)],
     });
     expect(impossible.proposals).toEqual([]);
-    expect(impossible.message).toMatch(/No setting inside the data meets every constraint/);
+    expect(impossible.message).toBe('No setting inside the data meets every constraint. Not met at any setting tried: too early.');
+    // Only the constraint no setting met is named; one that some settings met is not what to relax.
+    const oneOfTwo = optimise({
+      factors: wide,
+      goals: [{ name: 'yield', surface: yieldSurface, goal: { kind: 'maximise', low: 75, high: 81 } }],
+      constraints: [linearConstraint('not too short', { time: 1 }, '>=', wide[0].low), linearConstraint('too early', { time: 1 }, '<=', 60)],
+    });
+    expect(oneOfTwo.message).toBe('No setting inside the data meets every constraint. Not met at any setting tried: too early.');
     const unreachable = optimise({ factors: wide, goals: [{ name: 'yield', surface: yieldSurface, goal: { kind: 'maximise', low: 90, high: 95 } }] });
     expect(unreachable.proposals).toEqual([]);
     expect(unreachable.message).toMatch(/always outside its acceptable limits/);
