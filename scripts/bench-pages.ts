@@ -23,7 +23,7 @@ const [seatsFile, base] = process.argv.slice(2);
 const setup = JSON.parse(fs.readFileSync(seatsFile, 'utf8')) as { joinCode: string };
 const USERS = 10;
 const LOADS_PER_USER = Number(process.env.BENCH_PAGE_LOADS ?? 8);
-const ROUNDS = Number(process.env.BENCH_PAGE_ROUNDS ?? 3);
+const ROUNDS = Number(process.env.BENCH_PAGE_ROUNDS ?? 5);
 const PHONE_LOADS = Number(process.env.BENCH_PHONE_LOADS ?? 5);
 const TAPS = 8;
 /** The slow mobile network, stated in the README: 400 kbit/s each way, 400 ms round trip. */

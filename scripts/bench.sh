@@ -34,7 +34,7 @@ pg_cluster_start "$SETWELL_PG_DATA" "$SETWELL_PG_PORT" "$SETWELL_PG_DURABLE"
 pg_ensure_database "$SETWELL_PG_DATA" "$SETWELL_PG_PORT" "$SETWELL_DB_NAME" setwell "$SETWELL_DB_PASSWORD"
 export NEXTAUTH_SECRET=bench-only-secret-bench-only-secret-0000 LOG_LEVEL=silent
 npm run --silent db:migrate >/dev/null
-log "statistics: 60 tasters × 12 samples × 8 attributes, then twice the tasters (median of 5 runs)"
+log "statistics: 60 tasters × 12 samples × 8 attributes, then twice the tasters, in turns (median of 9)"
 node --require ./scripts/outside-next.cjs --import tsx scripts/bench-stats.ts
 log "notebook: the largest accepted entry rendered read-only on the server (production React, median of 7)"
 NODE_ENV=production node --require ./scripts/outside-next.cjs --import tsx scripts/bench-notebook.ts
