@@ -32,19 +32,19 @@ export function CostAgainstLiking({ costs, means }: { costs: TrialCosts; means: 
       <div className="grid grid-cols-1 gap-4 lg:grid-cols-[minmax(0,20rem)_minmax(0,1fr)]">
         <TableBox label="Cost per jar and overall liking">
           <table className="w-full border-collapse text-sm" data-testid="cost-liking-table">
-            <thead className="border-b border-pith-300 text-left text-xs uppercase tracking-wider text-rind-500">
+            <thead className="data-head">
               <tr>
-                <th scope="col" className="px-3 py-2 font-medium">Variant</th>
-                <th scope="col" className="px-3 py-2 text-right font-medium">Cost per jar</th>
-                <th scope="col" className="px-3 py-2 text-right font-medium">Overall liking</th>
+                <th scope="col" className="data-th">Variant</th>
+                <th scope="col" className="data-th-num">Cost per jar</th>
+                <th scope="col" className="data-th-num">Overall liking</th>
               </tr>
             </thead>
             <tbody className="divide-y divide-pith-200">
               {costs.variants.map((v) => (
                 <tr key={v.variantId}>
-                  <th scope="row" className="px-3 py-1.5 text-left font-semibold">{v.label}</th>
-                  <td className="px-3 py-1.5 text-right tabular-nums" data-testid="compare-cost">{perJarText(v.result, currency)}</td>
-                  <td className="px-3 py-1.5 text-right tabular-nums" data-testid="compare-liking">{liking.has(v.label) ? liking.get(v.label)!.toFixed(2) : 'not tasted'}</td>
+                  <th scope="row" className="data-cell text-left font-semibold">{v.label}</th>
+                  <td className="data-num" data-testid="compare-cost">{perJarText(v.result, currency)}</td>
+                  <td className="data-num" data-testid="compare-liking">{liking.has(v.label) ? liking.get(v.label)!.toFixed(2) : 'not tasted'}</td>
                 </tr>
               ))}
             </tbody>

@@ -138,42 +138,42 @@ function CostDetail({ cost, currency, massUnits }: { cost: FormulaCost; currency
         </p>
       ) : null}
       <TableBox label="Cost of each line" framed={false}>
-        <table className="w-full min-w-max border-collapse text-sm" data-testid="cost-lines">
-          <thead className="border-b border-pith-300 text-left text-xs uppercase tracking-wider text-rind-500">
+        <table className="data-table" data-testid="cost-lines">
+          <thead className="data-head">
             <tr>
-              <th scope="col" className="px-3 py-2 font-medium">Line</th>
-              <th scope="col" className="px-3 py-2 text-right font-medium">Bought</th>
-              <th scope="col" className="px-3 py-2 text-right font-medium">Price per kg</th>
-              <th scope="col" className="px-3 py-2 text-right font-medium">Per batch</th>
-              <th scope="col" className="px-3 py-2 text-right font-medium">{cost.perJar ? 'Per jar' : 'Per kg'}</th>
-              <th scope="col" className="px-3 py-2 text-right font-medium">Share</th>
+              <th scope="col" className="data-th">Line</th>
+              <th scope="col" className="data-th-num">Bought</th>
+              <th scope="col" className="data-th-num">Price per kg</th>
+              <th scope="col" className="data-th-num">Per batch</th>
+              <th scope="col" className="data-th-num">{cost.perJar ? 'Per jar' : 'Per kg'}</th>
+              <th scope="col" className="data-th-num">Share</th>
             </tr>
           </thead>
           <tbody className="divide-y divide-pith-200">
             {cost.ingredients.map((l, i) => (
               <tr key={`i${i}`}>
-                <th scope="row" className="px-3 py-1.5 text-left font-normal">
+                <th scope="row" className="data-cell text-left font-normal">
                   {l.name}
                   {l.refusePct > 0 ? <span className="block text-xs text-rind-500">{l.refusePct} % trimmed away</span> : null}
                 </th>
-                <td className="px-3 py-1.5 text-right tabular-nums">{showMass(l.boughtG, massUnits)}</td>
-                <td className="px-3 py-1.5 text-right tabular-nums">{l.price ? formatCost(l.price.perKgMinor, currency) : <Unknown />}</td>
-                <td className="px-3 py-1.5 text-right tabular-nums">{l.batchMinor === null ? <Unknown /> : formatCost(l.batchMinor, currency)}</td>
-                <td className="px-3 py-1.5 text-right tabular-nums">{(cost.perJar ? l.perJarMinor : l.perKgMinor) === null ? <Unknown /> : formatCost((cost.perJar ? l.perJarMinor : l.perKgMinor)!, currency)}</td>
-                <td className="px-3 py-1.5 text-right tabular-nums">{pct(l.sharePct)}</td>
+                <td className="data-num">{showMass(l.boughtG, massUnits)}</td>
+                <td className="data-num">{l.price ? formatCost(l.price.perKgMinor, currency) : <Unknown />}</td>
+                <td className="data-num">{l.batchMinor === null ? <Unknown /> : formatCost(l.batchMinor, currency)}</td>
+                <td className="data-num">{(cost.perJar ? l.perJarMinor : l.perKgMinor) === null ? <Unknown /> : formatCost((cost.perJar ? l.perJarMinor : l.perKgMinor)!, currency)}</td>
+                <td className="data-num">{pct(l.sharePct)}</td>
               </tr>
             ))}
             {cost.packaging.map((p, i) => (
               <tr key={`p${i}`}>
-                <th scope="row" className="px-3 py-1.5 text-left font-normal">
+                <th scope="row" className="data-cell text-left font-normal">
                   {p.name}
                   <span className="block text-xs text-rind-500">Packaging, {p.perJar === 1 ? 'one per jar' : `${Number(p.perJar.toFixed(4))} per jar`}</span>
                 </th>
-                <td className="px-3 py-1.5 text-right">—</td>
-                <td className="px-3 py-1.5 text-right">—</td>
-                <td className="px-3 py-1.5 text-right">—</td>
-                <td className="px-3 py-1.5 text-right tabular-nums">{p.perJarMinor === null ? <Unknown /> : formatCost(p.perJarMinor, currency)}</td>
-                <td className="px-3 py-1.5 text-right tabular-nums">{pct(p.sharePct)}</td>
+                <td className="data-cell text-right">—</td>
+                <td className="data-cell text-right">—</td>
+                <td className="data-cell text-right">—</td>
+                <td className="data-num">{p.perJarMinor === null ? <Unknown /> : formatCost(p.perJarMinor, currency)}</td>
+                <td className="data-num">{pct(p.sharePct)}</td>
               </tr>
             ))}
           </tbody>

@@ -26,24 +26,24 @@ export function ProductCostCard({ costs }: { costs: ProductCosts }) {
           </Notice>
         ) : null}
         <TableBox label="Cost per jar of each version" framed={false}>
-          <table className="w-full min-w-max border-collapse text-sm">
-            <thead className="border-b border-pith-300 text-left text-xs uppercase tracking-wider text-rind-500">
+          <table className="data-table">
+            <thead className="data-head">
               <tr>
-                <th scope="col" className="px-3 py-2 font-medium">Version</th>
-                <th scope="col" className="px-3 py-2 text-right font-medium">At approval</th>
-                <th scope="col" className="px-3 py-2 text-right font-medium">Today ({formatDate(costs.asOf)})</th>
-                <th scope="col" className="px-3 py-2 text-right font-medium">Change</th>
+                <th scope="col" className="data-th">Version</th>
+                <th scope="col" className="data-th-num">At approval</th>
+                <th scope="col" className="data-th-num">Today ({formatDate(costs.asOf)})</th>
+                <th scope="col" className="data-th-num">Change</th>
               </tr>
             </thead>
             <tbody className="divide-y divide-pith-200">
               {costs.versions.map((v) => (
                 <tr key={v.versionId}>
-                  <th scope="row" className="px-3 py-1.5 text-left font-normal">v{v.version}{v.status === 'current' ? ' (current)' : ''}</th>
-                  <td className="px-3 py-1.5 text-right tabular-nums" data-testid="cost-at-approval">
+                  <th scope="row" className="data-cell text-left font-normal">v{v.version}{v.status === 'current' ? ' (current)' : ''}</th>
+                  <td className="data-num" data-testid="cost-at-approval">
                     {approvalText(v)}
                     {v.atApproval ? <span className="block text-xs text-rind-500">{formatDate(v.atApproval.asOf)}</span> : null}
                   </td>
-                  <td className="px-3 py-1.5 text-right tabular-nums" data-testid="cost-today">{perJarText(v.today, costs.currency)}</td>
+                  <td className="data-num" data-testid="cost-today">{perJarText(v.today, costs.currency)}</td>
                   <td className={`px-3 py-1.5 text-right tabular-nums ${v.warn ? 'font-semibold text-ember-700' : ''}`}>
                     {v.movedPct === null ? '—' : `${v.movedPct > 0 ? '+' : v.movedPct < 0 ? '−' : ''}${Math.abs(v.movedPct).toFixed(1)} %`}
                   </td>

@@ -1,4 +1,6 @@
 // @vitest-environment jsdom
+import { readFileSync } from 'node:fs';
+import { resolve } from 'node:path';
 import { describe, it, expect, vi, afterEach } from 'vitest';
 import { render, screen, cleanup, within } from '@testing-library/react';
 import { analyseTasting, type TastingData } from '@/lib/results/analysis';
@@ -50,7 +52,11 @@ describe('results that read well', () => {
     const rowA = within(summary).getByRole('row', { name: /^A/ });
     const cells = [...rowA.children].map((c) => c.textContent);
     expect(cells.slice(0, 3)).toEqual(['A', '4', '8.00']); // mean of 9, 9, 9, 5
-    for (const cell of rowA.children) expect(cell.className).toMatch(/px-3/);
+    // Each cell is one of the data table's padded kinds (defined once in app/globals.css, below).
+    for (const cell of rowA.children) expect(cell.className).toMatch(/\bdata-(cell|num)\b/);
+    const css = readFileSync(resolve(__dirname, '../../../app/globals.css'), 'utf8');
+    for (const kind of ['data-cell', 'data-num', 'data-th', 'data-th-num']) expect(css).toMatch(new RegExp(`\\.${kind} \\{\\s*@apply px-3 py-`));
+    expect(css).toMatch(/\.data-num \{\s*@apply [^;]*text-right tabular-nums/);
 
     const penalty = screen.getByTestId('penalty-table');
     expect(penalty.parentElement!.className).toContain('overflow-x-auto');
