@@ -10,6 +10,8 @@ import { Button } from '@/components/ui/Button';
 import { Card } from '@/components/ui/Card';
 import { Field, FieldErrorText } from '@/components/ui/Field';
 import { Notice } from '@/components/ui/Notice';
+import { Skeleton } from '@/components/ui/Skeleton';
+import { useHydrated } from '@/components/ui/useHydrated';
 import { BrixHelper } from './BrixHelper';
 import { ResultsPanel } from './ResultsPanel';
 import { ScalePanel } from './ScalePanel';
@@ -67,6 +69,7 @@ const TEMPERATURE_OPTIONS = [
 /** The formula editor: settings, lines and live results; saves a new formula or a new revision. */
 export function FormulaEditor({ mode, initial, ingredients, massUnits, temperatureUnit, defaults, cost, models = [] }: FormulaEditorProps) {
   const router = useRouter();
+  const hydrated = useHydrated();
   const nextKey = useRef(initial?.lines.length ?? 0);
   const makeKey = () => `l${nextKey.current++}`;
 
@@ -345,28 +348,37 @@ export function FormulaEditor({ mode, initial, ingredients, massUnits, temperatu
         </aside>
       </div>
 
-      {cost ? (
-        <Card>
-          <FormulaCostPanel initialBasis={cost.basis} computed={computed} drafts={lines} packFormatId={cost.packFormatId} massUnits={system} />
-        </Card>
-      ) : null}
+      {/* Below the lines and their results: drawn by the browser once the script runs (a placeholder
+          until then). They are live panels the browser recomputes on every keystroke anyway, and
+          rendering them on the server too was a third of the editor's HTML. */}
+      {hydrated ? (
+        <>
+          {cost ? (
+            <Card>
+              <FormulaCostPanel initialBasis={cost.basis} computed={computed} drafts={lines} packFormatId={cost.packFormatId} massUnits={system} />
+            </Card>
+          ) : null}
 
-      <div className="grid gap-6 xl:grid-cols-2">
-        <Card>
-          {outcome?.ok ? (
-            <ScalePanel lines={computed.lines} settings={settingsInput} massUnits={system} />
-          ) : (
-            <p className="text-sm text-rind-600">Scaling opens once the formula has results.</p>
-          )}
-        </Card>
-        <Card>
-          <BrixHelper temperatureUnit={tempUnit} />
-        </Card>
-      </div>
+          <div className="grid gap-6 xl:grid-cols-2">
+            <Card>
+              {outcome?.ok ? (
+                <ScalePanel lines={computed.lines} settings={settingsInput} massUnits={system} />
+              ) : (
+                <p className="text-sm text-rind-600">Scaling opens once the formula has results.</p>
+              )}
+            </Card>
+            <Card>
+              <BrixHelper temperatureUnit={tempUnit} />
+            </Card>
+          </div>
 
-      <Card>
-        <LiveLabel settings={settingsInput} outcome={outcome} lines={computed.lines} />
-      </Card>
+          <Card>
+            <LiveLabel settings={settingsInput} outcome={outcome} lines={computed.lines} />
+          </Card>
+        </>
+      ) : (
+        <Skeleton what="the cost, scaling and label" lines={6} />
+      )}
     </div>
   );
 }

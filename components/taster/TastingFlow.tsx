@@ -1,6 +1,7 @@
 'use client';
 
-import { useEffect, useRef, useState, useSyncExternalStore } from 'react';
+import { useEffect, useRef, useState } from 'react';
+import { useHydrated } from '@/components/ui/useHydrated';
 import { Button } from '@/components/ui/Button';
 import { Notice } from '@/components/ui/Notice';
 import {
@@ -45,20 +46,6 @@ function forgetLastSeat(seatToken: string) {
   } catch {
     // Nothing to forget without storage.
   }
-}
-
-const noSubscription = () => () => {};
-
-/**
- * False in the server's HTML and until this script has taken the page over: controls painted
- * before then would take a tap nobody records, so they stay disabled for that moment.
- */
-function useHydrated(): boolean {
-  return useSyncExternalStore(
-    noSubscription,
-    () => true,
-    () => false,
-  );
 }
 
 /**

@@ -1,6 +1,7 @@
 // @vitest-environment jsdom
 import { afterEach, beforeEach, describe, expect, it, vi } from 'vitest';
 import { cleanup, fireEvent, render, screen } from '@testing-library/react';
+import { renderToString } from 'react-dom/server';
 import { waitFor, within } from '@testing-library/dom';
 import { BASE_SETTINGS, FORMULA_ID, IDS, LIBRARY, PRACTICAL_ACTION_STORED_LINES } from './fixtures';
 
@@ -36,16 +37,20 @@ function choose(n: number, ingredientId: string) {
   fireEvent.change(picker, { target: { value: ingredientId } });
 }
 
-function renderRevise(overrides: { lines?: typeof PRACTICAL_ACTION_STORED_LINES; massUnits?: 'metric' | 'imperial' } = {}) {
-  return render(
+function reviseEditor(overrides: { lines?: typeof PRACTICAL_ACTION_STORED_LINES; massUnits?: 'metric' | 'imperial' } = {}) {
+  return (
     <FormulaEditor
       mode="revise"
       initial={{ formulaId: FORMULA_ID, name: 'Plum jam, trial', revision: 3, settings: { ...BASE_SETTINGS }, lines: overrides.lines ?? PRACTICAL_ACTION_STORED_LINES }}
       ingredients={LIBRARY}
       massUnits={overrides.massUnits ?? 'metric'}
       temperatureUnit="C"
-    />,
+    />
   );
+}
+
+function renderRevise(overrides: { lines?: typeof PRACTICAL_ACTION_STORED_LINES; massUnits?: 'metric' | 'imperial' } = {}) {
+  return render(reviseEditor(overrides));
 }
 
 /** The number shown in a result cell, e.g. "16.346 kg" → 16.346. */
@@ -131,6 +136,23 @@ describe('FormulaEditor: live results', () => {
     // Danger comes before every warning and note.
     const cautions = within(screen.getByRole('list', { name: 'Cautions' })).getAllByRole('listitem');
     expect(cautions[0].getAttribute('data-severity')).toBe('danger');
+  });
+});
+
+describe('FormulaEditor: what the server sends', () => {
+  it('renders the lines and their batch results on the server, and the panels below them only in the browser', () => {
+    const html = renderToString(reviseEditor());
+    // The first screen: the lines and the live results beside them.
+    expect(html).toContain('id="line-l0-ingredient"');
+    expect(html).toContain('data-testid="result-finished-mass"');
+    // Below them, a placeholder that says what is coming instead of the scaling, refractometer and label panels.
+    expect(html).toMatch(/Loading (<!-- -->)?the cost, scaling and label(<!-- -->)?…/);
+    expect(html).not.toContain('id="live-label-title"');
+    expect(html).not.toMatch(/Scale this formula|Refractometer/);
+
+    renderRevise();
+    expect(screen.getByRole('heading', { name: 'Label' })).toBeTruthy();
+    expect(screen.queryByText('Loading the cost, scaling and label…')).toBeNull();
   });
 });
 
