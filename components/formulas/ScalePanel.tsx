@@ -81,13 +81,14 @@ export function ScalePanel({ lines, settings, massUnits }: ScalePanelProps) {
   const field = (suffix: string) => `${uid}-${suffix}`;
 
   return (
-    <section aria-labelledby={field('title')} className="space-y-4">
+    <section aria-labelledby={field('title')} className="@container space-y-4">
       <h2 id={field('title')} className="font-display text-xl text-damson-900">
         Scale this formula
       </h2>
       {lines.length === 0 ? <p className="text-sm text-rind-600">Add ingredients with quantities to scale the formula.</p> : null}
 
-      <div className="grid gap-3 sm:grid-cols-2 lg:grid-cols-4">
+      {/* Columns follow the card, not the window: beside the refractometer card it is half the page wide. */}
+      <div className="grid gap-3 @sm:grid-cols-2 @3xl:grid-cols-4">
         <div>
           <label htmlFor={field('kind')} className="mb-1 block text-sm font-medium text-rind-700">
             Scale to
