@@ -62,16 +62,8 @@ const ingredientIdsOf = (formulas: Array<{ lines: RevisionLine[] }>) => [...new 
 
 /** The editor's prices on one day, for every ingredient and (not archived) pack format of the workspace: two round trips. */
 export async function editorCostBasis(actor: Actor, asOf: string = todayIso()): Promise<EditorCostBasis> {
-  // The ids in one plain statement (every editor load asks; the ORM made an entity of each id).
-  const [ids] = await sql<{ ingredient_ids: string[]; pack_format_ids: string[] }>(
-    `select (select coalesce(array_agg(i.id::text), '{}') from (select id from ingredients where workspace_id = $1 limit 5000) i) as ingredient_ids,
-            (select coalesce(array_agg(f.id::text order by f.name, f.id), '{}') from (select id, name from pack_formats where workspace_id = $1 and archived_at is null order by name, id limit 500) f) as pack_format_ids`,
-    [actor.workspaceId],
-    'editor-cost-basis-ids',
-  );
-  const formats = ids.pack_format_ids;
-  // From = to = asOf: each ingredient's and packaging item's one point in force that day.
-  const data = await costingData(actor.workspaceId, { ingredientIds: ids.ingredient_ids, packFormatIds: formats, from: asOf, to: asOf });
+  // Every ingredient's and every pack format's prices in force that day (from = to = asOf), in one statement.
+  const data = await costingData(actor.workspaceId, { ingredientIds: 'workspace', packFormatIds: 'workspace', from: asOf, to: asOf });
   return {
     currency: data.settings.currency,
     asOf,
@@ -79,7 +71,8 @@ export async function editorCostBasis(actor: Actor, asOf: string = todayIso()): 
     ingredientPrices: data.ingredientPoints,
     packagingPrices: data.packagingPoints,
     refuse: [...data.refuse.entries()],
-    packFormats: formats.map((id) => data.packFormats.get(id)).filter((f): f is PackFormatData => !!f),
+    // In name order, as the statement lists them.
+    packFormats: [...data.packFormats.values()],
   };
 }
 

@@ -113,10 +113,19 @@ interface CostingData {
  */
 export async function costingData(
   workspaceId: string,
-  need: { ingredientIds: readonly string[]; packFormatIds: readonly string[]; from?: string; to?: string },
+  need: { ingredientIds: readonly string[] | 'workspace'; packFormatIds: readonly string[] | 'workspace'; from?: string; to?: string },
 ): Promise<CostingData> {
-  const ingredientIds = cleanIds(need.ingredientIds);
-  const packFormatIds = cleanIds(need.packFormatIds);
+  const ingredientIds = need.ingredientIds === 'workspace' ? [] : cleanIds(need.ingredientIds);
+  const packFormatIds = need.packFormatIds === 'workspace' ? [] : cleanIds(need.packFormatIds);
+  // 'workspace': every ingredient, and every pack format in use by name, chosen inside the same
+  // statement (the formula editor's basis), so the page waits for one round trip instead of two.
+  // $2 and $3 are then the empty lists an empty workspace falls back to.
+  const ingredientIdsSql = need.ingredientIds === 'workspace'
+    ? `(select coalesce(jsonb_agg(x.id), $2::jsonb) from (select id from ingredients where workspace_id = $1 limit 5000) x)`
+    : '$2::jsonb';
+  const packFormatIdsSql = need.packFormatIds === 'workspace'
+    ? `(select coalesce(jsonb_agg(x.id order by x.name, x.id), $3::jsonb) from (select id, name from pack_formats where workspace_id = $1 and archived_at is null order by name, id limit 500) x)`
+    : '$3::jsonb';
   const { from, to } = rangeOf(need);
   type Row = {
     settings: { currency: string; overfillPct: number; costWarningPct: number } | null;
@@ -133,9 +142,11 @@ export async function costingData(
         ${source === 'ingredient' ? `'pack_size_g', p.pack_size_g` : `'pieces_per_pack', p.pieces_per_pack`}, 'supplier', p.supplier) order by p.subject_id, p.valid_from), '[]')
        from (${pointsBetweenSql(source, { workspace: '$1', ids, from: '$4', to: '$5' })}) p)`;
   const [row] = await sql<Row>(
-    `with fmt as (
+    `with ing_ids as (
+       select ${ingredientIdsSql} as ids
+     ), fmt as (
        select f.id, f.name, f.net_fill_g from pack_formats f
-        where f.workspace_id = $1 and f.id in (select value::uuid from jsonb_array_elements_text($3::jsonb))
+        where f.workspace_id = $1 and f.id in (select value::uuid from jsonb_array_elements_text(${packFormatIdsSql}))
      ), item as (
        select i.pack_format_id, i.packaging_item_id, p.name, i.pieces, i.per_jars, i.position
          from pack_format_items i join packaging_items p on p.id = i.packaging_item_id
@@ -147,13 +158,15 @@ export async function costingData(
        (select json_build_object('currency', c.currency, 'overfillPct', c.overfill_pct, 'costWarningPct', c.cost_warning_pct)
           from cost_settings c where c.workspace_id = $1) as settings,
        (select coalesce(json_agg(json_build_array(i.id, i.refuse_pct)), '[]') from ingredients i
-         where i.workspace_id = $1 and i.id in (select value::uuid from jsonb_array_elements_text($2::jsonb))) as refuse,
+         where i.workspace_id = $1 and i.id in (select value::uuid from jsonb_array_elements_text((select ids from ing_ids)))) as refuse,
        (select coalesce(json_agg(json_build_object('id', f.id, 'name', f.name, 'netFillG', f.net_fill_g, 'items',
           (select coalesce(json_agg(json_build_object('packagingItemId', x.packaging_item_id, 'name', x.name, 'pieces', x.pieces, 'perJars', x.per_jars) order by x.position), '[]')
-             from item x where x.pack_format_id = f.id))), '[]') from fmt f) as formats,
-       ${points('ingredient', '$2')} as ingredient_points,
+             from item x where x.pack_format_id = f.id)) order by f.name, f.id), '[]') from fmt f) as formats,
+       ${points('ingredient', '(select ids from ing_ids)')} as ingredient_points,
        ${points('packaging', '(select ids from item_ids)')} as packaging_points`,
-    [workspaceId, JSON.stringify(ingredientIds), JSON.stringify(packFormatIds), from, to], 'costing_data',
+    [workspaceId, JSON.stringify(ingredientIds), JSON.stringify(packFormatIds), from, to],
+    // One prepared statement per text: each choice of lists is its own.
+    `costing_data_${need.ingredientIds === 'workspace' ? 'all' : 'ids'}_${need.packFormatIds === 'workspace' ? 'all' : 'ids'}`,
   );
   return {
     settings: row.settings ?? noCostSettings(),

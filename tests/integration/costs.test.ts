@@ -1,5 +1,6 @@
 /** Costs from dated prices: as of a day, frozen at approval against today, the threshold warning, a batch's actual cost, and who may see them. */
-import { describe, it, expect, beforeAll } from 'vitest';
+import { describe, it, expect, beforeAll, vi } from 'vitest';
+import { Pool } from 'pg';
 import { createWorkspace, callRoute, actorOf, type WorkspaceFixture } from './harness';
 import { createFixtureFormula, starterIds } from './fixtures';
 import { promotionInput, freshProductCode } from './production-fixtures';
@@ -53,6 +54,17 @@ beforeAll(async () => {
 });
 
 describe('the formula editor\'s prices of a day', () => {
+  it('come in one statement, so the editor waits for one round trip for them', async () => {
+    const query = vi.spyOn(Pool.prototype, 'query');
+    try {
+      const basis = await editorCostBasis(dev(), '2026-02-01');
+      expect(basis.packFormats.length).toBeGreaterThan(0);
+      expect(query).toHaveBeenCalledTimes(1);
+    } finally {
+      query.mockRestore();
+    }
+  });
+
   it('hold each ingredient\'s and packaging item\'s point in force that day, every refuse share and the pack formats not archived', async () => {
     const other = await createPackFormat(dev(), { name: 'Archived 200 g', netFillG: 200, items: [] });
     await setPackagingArchived(dev(), 'format', other.packFormatId, true);
