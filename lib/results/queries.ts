@@ -8,16 +8,15 @@ import type { TastingRows, TastingView } from '@/lib/tastings/schema';
 import { toCsv } from '@/lib/csv';
 import { summaryTablesOf, type AnalysisOptions, type TastingAnalysis, type TastingData, type TastingDataAttribute } from './analysis';
 import { analyseRemembered } from './analysis-memo';
-import type { ResultsSetup, SummaryTable } from './schema';
+import type { AnswerRead, AnswerRow, ResultsSetup, SummaryTable } from './schema';
 
-type AnswerRow = { seat_id: string; kind: TastingData['answers'][number]['kind']; attribute: string; sample_id: string | null; value: number | null; ranking: string[] | null; correct: boolean | null };
 
 /**
  * A session's answers as plain rows, only the columns the analysis reads (an answer row also keeps
  * every idempotency key it had): a full tasting is hundreds of rows, and making each an entity in
  * the identity map cost more than the query.
  */
-async function answerRows(actor: Actor, tastingId: string): Promise<Array<AnswerRow & { seat: { id: string } }>> {
+async function answerRows(actor: Actor, tastingId: string): AnswerRead {
   const em = await getEm();
   const rows = await em.execute<AnswerRow[]>(
     'select seat_id, kind, attribute, sample_id, value, ranking, correct from panel_answers where workspace_id = ? and session_id = ?',
@@ -95,8 +94,19 @@ export async function loadResultsSetup(actor: Actor, tastingId: string): Promise
 }
 
 /** The statistics of a set-up loadResultsSetup() returned: its answers read (scoped to the workspace) and analysed. */
-export async function analyseResults(actor: Actor, setup: ResultsSetup, options: AnalysisOptions = {}): Promise<TastingAnalysis> {
-  return analyseRemembered(tastingDataOf(setup, await answerRows(actor, setup.tastingId)), options);
+export async function analyseResults(actor: Actor, setup: ResultsSetup, options: AnalysisOptions = {}, answers: AnswerRead = answerRows(actor, setup.tastingId)): Promise<TastingAnalysis> {
+  return analyseRemembered(tastingDataOf(setup, await answers), options);
+}
+
+/**
+ * The answers, read while the page checks the tasting itself (loadResultsSetup), so the page waits
+ * for one round trip instead of two. The read is scoped to the workspace: when the tasting turns out
+ * not to exist, nothing was revealed, and nobody awaits the read, so its failure is nobody's.
+ */
+export function readAnswers(actor: Actor, tastingId: string): AnswerRead {
+  const read = answerRows(actor, tastingId);
+  read.catch(() => undefined);
+  return read;
 }
 
 /** Raw answers, one row per answer: session, seat, code, variant, attribute, value. */

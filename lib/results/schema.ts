@@ -10,6 +10,11 @@ export const recommendationSchema = z
   })
   .strict();
 
+/** One answer as the analysis reads it (the columns answerRows selects). */
+export type AnswerRow = { seat_id: string; kind: TastingData['answers'][number]['kind']; attribute: string; sample_id: string | null; value: number | null; ranking: string[] | null; correct: boolean | null };
+/** A tasting's answers being read (readAnswers), with each seat as the analysis counts it. */
+export type AnswerRead = Promise<Array<AnswerRow & { seat: { id: string } }>>;
+
 /** The results page's summary tables, each downloadable as CSV (?table=…). */
 export const SUMMARY_TABLES = ['means', 'anova', 'penalty', 'triangle', 'ranking'] as const;
 export type SummaryTable = (typeof SUMMARY_TABLES)[number];

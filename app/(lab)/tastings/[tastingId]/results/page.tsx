@@ -2,8 +2,8 @@ import { Suspense } from 'react';
 import Link from 'next/link';
 import { requirePage, orNotFound, pageId } from '@/lib/page-guard';
 import type { Actor } from '@/lib/permissions';
-import { analyseResults, loadResultsSetup } from '@/lib/results/queries';
-import type { ResultsSetup } from '@/lib/results/schema';
+import { analyseResults, loadResultsSetup, readAnswers } from '@/lib/results/queries';
+import type { AnswerRead, ResultsSetup } from '@/lib/results/schema';
 import { TASTING_STATE_LABELS } from '@/lib/tastings/vocabulary';
 import { PageHeader } from '@/components/ui/Card';
 import { Notice } from '@/components/ui/Notice';
@@ -20,7 +20,9 @@ export default async function TastingResultsPage({ params, searchParams }: { par
   const id = pageId((await params).tastingId);
   // Penalty analysis is per sample; the pooled view is an explicit option (?penalty=pooled), anything else is ignored.
   const pooled = (await searchParams).penalty === 'pooled';
-  // The tasting itself (or the 404) before anything is sent; the statistics stream in below.
+  // The tasting itself (or the 404) before anything is sent; the statistics stream in below. The
+  // answers are read at the same time.
+  const answers = readAnswers(actor, id);
   const setup = await orNotFound(loadResultsSetup(actor, id));
   const { session, tables } = setup;
   const partial = setup.seatCount - setup.submittedSeats;
@@ -50,7 +52,7 @@ export default async function TastingResultsPage({ params, searchParams }: { par
       {session.state !== 'closed' ? <div className="mb-4"><Notice tone="warning">The tasting is still taking answers: these results will change.</Notice></div> : null}
       {partial > 0 ? <div className="mb-4"><Notice tone="info">{partial} seat{partial === 1 ? '' : 's'} did not submit; their answers so far are included, and the analysis adjusts for the missing cells.</Notice></div> : null}
       <Suspense fallback={<Skeleton what="the statistics" lines={8} />}>
-        <Statistics actor={actor} setup={setup} pooled={pooled} />
+        <Statistics actor={actor} setup={setup} pooled={pooled} answers={answers} />
       </Suspense>
     </>
   );
@@ -60,8 +62,8 @@ export default async function TastingResultsPage({ params, searchParams }: { par
  * The answers read and analysed while the page above is already on screen. It decides no 404 or
  * 403 (the page did, before streaming began; one decided here would go out as HTTP 200).
  */
-async function Statistics({ actor, setup, pooled }: { actor: Actor; setup: ResultsSetup; pooled: boolean }) {
-  const analysis = await analyseResults(actor, setup, { pooledPenalty: pooled });
+async function Statistics({ actor, setup, pooled, answers }: { actor: Actor; setup: ResultsSetup; pooled: boolean; answers: AnswerRead }) {
+  const analysis = await analyseResults(actor, setup, { pooledPenalty: pooled }, answers);
   const path = `/tastings/${setup.tastingId}/results`;
   return <ResultsView analysis={analysis} pooledPenalty={{ showHref: `${path}?penalty=pooled`, hideHref: path }} />;
 }
