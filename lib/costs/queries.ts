@@ -28,7 +28,7 @@ interface CostBasis {
 /** The price rows the formulas' ingredients and pack formats need from `from` to `to`: one statement. */
 export async function loadCostBasis(
   workspaceId: string,
-  need: { ingredientIds: readonly string[]; packFormatIds: readonly string[]; from: string; to: string },
+  need: { ingredientIds: readonly string[] | 'workspace'; packFormatIds: readonly string[] | 'workspace'; from: string; to: string },
 ): Promise<CostBasis> {
   const data = await costingData(workspaceId, need);
   return {
@@ -78,20 +78,27 @@ export async function editorCostBasis(actor: Actor, asOf: string = todayIso()): 
 
 /** Each variant of a trial costed on `asOf` in the pack format of the trial's base formula. */
 export async function trialCosts(actor: Actor, trialId: string, asOf: string = todayIso()): Promise<TrialCosts> {
-  // The trial, its base formula's pack format and its variants in one statement; then the prices in one more.
-  const rows = isUuid(trialId) ? await sql<{ pack_format_id: string | null; id: string | null; label: string; settings: FormulaSettingsInput; lines: RevisionLine[] }>(
-    `select f.pack_format_id, v.id, v.label, v.settings, v.lines
-       from trials t
-       left join formulas f on f.id = t.base_formula_id
-       left join variants v on v.trial_id = t.id and v.workspace_id = t.workspace_id and v.removed_at is null
-      where t.workspace_id = $1 and t.id = $2
-      order by v.position`,
-    [actor.workspaceId, trialId], 'trial_costs_variants',
-  ) : [];
+  // The trial, its base formula's pack format and its variants in one statement, and at the same
+  // time the day's prices of every ingredient and pack format in use (one round trip, not two).
+  const [rows, inUse] = await Promise.all([
+    isUuid(trialId) ? sql<{ pack_format_id: string | null; id: string | null; label: string; settings: FormulaSettingsInput; lines: RevisionLine[] }>(
+      `select f.pack_format_id, v.id, v.label, v.settings, v.lines
+         from trials t
+         left join formulas f on f.id = t.base_formula_id
+         left join variants v on v.trial_id = t.id and v.workspace_id = t.workspace_id and v.removed_at is null
+        where t.workspace_id = $1 and t.id = $2
+        order by v.position`,
+      [actor.workspaceId, trialId], 'trial_costs_variants',
+    ) : Promise.resolve([]),
+    loadCostBasis(actor.workspaceId, { ingredientIds: 'workspace', packFormatIds: 'workspace', from: asOf, to: asOf }),
+  ]);
   if (!rows.length) throw notFound('trial');
   const packFormatId = rows[0].pack_format_id;
   const variants = rows.filter((r) => r.id !== null);
-  const basis = await loadCostBasis(actor.workspaceId, { ingredientIds: ingredientIdsOf(variants), packFormatIds: packFormatId ? [packFormatId] : [], from: asOf, to: asOf });
+  // A pack format archived since the formula took it is not among those in use: then read by id.
+  const basis = packFormatId && !inUse.packFormats.has(packFormatId)
+    ? await loadCostBasis(actor.workspaceId, { ingredientIds: ingredientIdsOf(variants), packFormatIds: [packFormatId], from: asOf, to: asOf })
+    : inUse;
   const format = packFormatId ? basis.packFormats.get(packFormatId) : undefined;
   return {
     currency: basis.currency,

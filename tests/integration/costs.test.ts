@@ -26,6 +26,7 @@ let ids: Record<string, string>;
 let trialId: string;
 let productId: string;
 let versionId: string;
+let jarFormatId: string;
 
 const dev = () => actorOf(a, 'developer');
 /** Every ingredient of the workspace: the editor's prices cover them all. */
@@ -50,6 +51,7 @@ beforeAll(async () => {
   const { packFormatId } = await createPackFormat(dev(), { name: '340 g jar', netFillG: 340, items: [{ packagingItemId: jar, pieces: 1, perJars: 1 }, { packagingItemId: lid, pieces: 1, perJars: 1 }] });
   const formulaId = await createFixtureFormula(a);
   await setFormulaPackFormat(dev(), formulaId, packFormatId);
+  jarFormatId = packFormatId;
   ({ trialId } = await createTrial(dev(), { title: 'Cost trial', question: 'What does a jar cost?', formulaId }));
 });
 
@@ -114,6 +116,21 @@ describe('a trial costed as of a day', () => {
     expect(c.perJar!.minor - janA.result.cost.perJar!.minor).toBeCloseTo((100 * 346.8) / c.finishedMassG, 9);
     // Packaging: jar 30 p + lid 8 p.
     expect(c.packaging.map((p) => p.perJarMinor)).toEqual([30, 8]);
+  });
+
+  it('keeps the base formula\'s pack format after it is archived, and reads its prices by id', async () => {
+    const before = await trialCosts(dev(), trialId, '2026-02-15');
+    await setPackagingArchived(dev(), 'format', jarFormatId, true);
+    try {
+      const after = await trialCosts(dev(), trialId, '2026-02-15');
+      expect(after.packFormat?.name).toBe('340 g jar');
+      const [v] = after.variants;
+      if (!v.result.ok) throw new Error('not costed');
+      expect(v.result.cost.packaging.map((p) => p.perJarMinor)).toEqual([30, 8]);
+      expect(after).toEqual(before);
+    } finally {
+      await setPackagingArchived(dev(), 'format', jarFormatId, false);
+    }
   });
 
   it('is complete once every line has a price', async () => {

@@ -1,7 +1,7 @@
 import { Suspense } from 'react';
 import Link from 'next/link';
 import { requirePage, orNotFound, pageId } from '@/lib/page-guard';
-import { can, type Actor } from '@/lib/permissions';
+import { can } from '@/lib/permissions';
 import { getTrialOverview } from '@/lib/trials/queries';
 import { measureFactor, type MassLine } from '@/lib/trials/plan';
 import { TRIAL_FACTORS, TRIAL_STATUS_LABELS, type TrialFactor } from '@/lib/trials/vocabulary';
@@ -18,6 +18,7 @@ import { CsvImport } from '@/components/trials/CsvImport';
 import { Attachments } from '@/components/trials/Attachments';
 import { NotebookEditor } from '@/components/notebook/NotebookEditor';
 import { listTrialTastings } from '@/lib/tastings/queries';
+import type { TrialTastingRow } from '@/lib/tastings/schema';
 import { TASTING_METHOD_LABELS, TASTING_STATE_LABELS } from '@/lib/tastings/vocabulary';
 import { buttonClass } from '@/components/ui/Button';
 import { formatDate, formatDateTime } from '@/lib/format/dates';
@@ -42,6 +43,10 @@ function baseLevelsOf(lines: MassLine[], settings: { targetSolidsPct: number }):
 export default async function TrialPage({ params }: { params: Promise<{ trialId: string }> }) {
   const actor = await requirePage('trials.read');
   const trialId = pageId((await params).trialId);
+  // The tastings list streams in below, but its read starts now, beside the others (scoped to the
+  // workspace, so it reveals nothing when the trial turns out not to exist; nobody awaits it then).
+  const tastings = can(actor.role, 'tastings.read') ? listTrialTastings(actor, trialId) : null;
+  tastings?.catch(() => undefined);
   // Four reads at once, each on its own forked EntityManager. The overview checks the trial (a 404
   // otherwise); the notebook, the uploads and the costs are workspace-scoped reads of the same
   // trial, so they skip their own check of it. The tastings list streams in below (TrialTastings).
@@ -85,9 +90,9 @@ export default async function TrialPage({ params }: { params: Promise<{ trialId:
               <h2 id="panels-title" className="text-lg font-semibold">Tastings</h2>
               {can(actor.role, 'tastings.run') ? <Link href={`/trials/${trial.id}/tastings/new`} className={buttonClass('secondary')}>New tasting</Link> : null}
             </div>
-            {can(actor.role, 'tastings.read') ? (
+            {tastings ? (
               <Suspense fallback={<div className="mt-3"><Skeleton what="the tastings" lines={2} /></div>}>
-                <TrialTastings actor={actor} trialId={trial.id} />
+                <TrialTastings read={tastings} />
               </Suspense>
             ) : <NoTastingYet />}
           </section>
@@ -127,8 +132,8 @@ function NoTastingYet() {
  * The trial's tastings, read while the rest of the page is already on screen. It decides no 404
  * or 403 (the page did, before streaming began; one decided here would go out as HTTP 200).
  */
-async function TrialTastings({ actor, trialId }: { actor: Actor; trialId: string }) {
-  const tastings = await listTrialTastings(actor, trialId);
+async function TrialTastings({ read }: { read: Promise<TrialTastingRow[]> }) {
+  const tastings = await read;
   if (tastings.length === 0) return <NoTastingYet />;
   return (
     <ul className="mt-3 divide-y divide-pith-200 text-sm" data-testid="tasting-list">
