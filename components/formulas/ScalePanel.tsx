@@ -120,7 +120,7 @@ export function ScalePanel({ lines, settings, massUnits }: ScalePanelProps) {
                 aria-label="Target unit"
                 value={targetUnit}
                 onChange={(e) => setTargetUnit(e.target.value as MassUnit)}
-                className={`${inputClass} min-h-10 w-24`}
+                className={`${inputClass} min-h-10 max-w-24`}
               >
                 {MASS_UNITS.map((u) => (
                   <option key={u} value={u}>
@@ -150,7 +150,7 @@ export function ScalePanel({ lines, settings, massUnits }: ScalePanelProps) {
               aria-describedby={stepError ? field('step-err') : undefined}
               className={`${inputClass} min-h-10 max-w-32`}
             />
-            <select aria-label="Scale step unit" value={stepUnit} onChange={(e) => setStepUnit(e.target.value as MassUnit)} className={`${inputClass} min-h-10 w-24`}>
+            <select aria-label="Scale step unit" value={stepUnit} onChange={(e) => setStepUnit(e.target.value as MassUnit)} className={`${inputClass} min-h-10 max-w-24`}>
               {MASS_UNITS.map((u) => (
                 <option key={u} value={u}>
                   {u}
