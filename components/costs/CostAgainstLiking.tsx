@@ -5,6 +5,7 @@ import { TableBox } from '@/components/ui/TableBox';
 import { formatDate } from '@/lib/format/dates';
 import { CostLikingChart, type CostLikingPoint } from './CostLikingChart';
 import { perJarText } from './CostSummary';
+import { HEAD, TH, NUM_TH, CELL, NUM } from '@/components/results/DataTable';
 
 /** The attribute the trade-off is read against (the library's 9-point hedonic "Overall liking"). */
 export const LIKING_ATTRIBUTE = /^overall liking$/i;
@@ -32,19 +33,19 @@ export function CostAgainstLiking({ costs, means }: { costs: TrialCosts; means: 
       <div className="grid grid-cols-1 gap-4 lg:grid-cols-[minmax(0,20rem)_minmax(0,1fr)]">
         <TableBox label="Cost per jar and overall liking">
           <table className="w-full border-collapse text-sm" data-testid="cost-liking-table">
-            <thead className="data-head">
+            <thead className={HEAD}>
               <tr>
-                <th scope="col" className="data-th">Variant</th>
-                <th scope="col" className="data-th-num">Cost per jar</th>
-                <th scope="col" className="data-th-num">Overall liking</th>
+                <th scope="col" className={TH}>Variant</th>
+                <th scope="col" className={NUM_TH}>Cost per jar</th>
+                <th scope="col" className={NUM_TH}>Overall liking</th>
               </tr>
             </thead>
             <tbody className="divide-y divide-pith-200">
               {costs.variants.map((v) => (
                 <tr key={v.variantId}>
-                  <th scope="row" className="data-cell text-left font-semibold">{v.label}</th>
-                  <td className="data-num" data-testid="compare-cost">{perJarText(v.result, currency)}</td>
-                  <td className="data-num" data-testid="compare-liking">{liking.has(v.label) ? liking.get(v.label)!.toFixed(2) : 'not tasted'}</td>
+                  <th scope="row" className={`${CELL} text-left font-semibold`}>{v.label}</th>
+                  <td className={NUM} data-testid="compare-cost">{perJarText(v.result, currency)}</td>
+                  <td className={NUM} data-testid="compare-liking">{liking.has(v.label) ? liking.get(v.label)!.toFixed(2) : 'not tasted'}</td>
                 </tr>
               ))}
             </tbody>

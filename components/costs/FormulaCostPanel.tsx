@@ -11,6 +11,7 @@ import { type EditorComputation, type LineDraft } from '@/components/formulas/ed
 import { showMass } from '@/lib/format/quantities';
 import { CostSummary } from './CostSummary';
 import { DateInput } from '@/components/ui/DateInput';
+import { TABLE, HEAD, TH, NUM_TH, CELL, NUM } from '@/components/results/DataTable';
 
 const SENSITIVITY_ROWS = 5;
 const pct = (v: number | null) => (v === null ? '—' : `${v.toFixed(1)} %`);
@@ -138,42 +139,42 @@ function CostDetail({ cost, currency, massUnits }: { cost: FormulaCost; currency
         </p>
       ) : null}
       <TableBox label="Cost of each line" framed={false}>
-        <table className="data-table" data-testid="cost-lines">
-          <thead className="data-head">
+        <table className={TABLE} data-testid="cost-lines">
+          <thead className={HEAD}>
             <tr>
-              <th scope="col" className="data-th">Line</th>
-              <th scope="col" className="data-th-num">Bought</th>
-              <th scope="col" className="data-th-num">Price per kg</th>
-              <th scope="col" className="data-th-num">Per batch</th>
-              <th scope="col" className="data-th-num">{cost.perJar ? 'Per jar' : 'Per kg'}</th>
-              <th scope="col" className="data-th-num">Share</th>
+              <th scope="col" className={TH}>Line</th>
+              <th scope="col" className={NUM_TH}>Bought</th>
+              <th scope="col" className={NUM_TH}>Price per kg</th>
+              <th scope="col" className={NUM_TH}>Per batch</th>
+              <th scope="col" className={NUM_TH}>{cost.perJar ? 'Per jar' : 'Per kg'}</th>
+              <th scope="col" className={NUM_TH}>Share</th>
             </tr>
           </thead>
           <tbody className="divide-y divide-pith-200">
             {cost.ingredients.map((l, i) => (
               <tr key={`i${i}`}>
-                <th scope="row" className="data-cell text-left font-normal">
+                <th scope="row" className={`${CELL} text-left font-normal`}>
                   {l.name}
                   {l.refusePct > 0 ? <span className="block text-xs text-rind-500">{l.refusePct} % trimmed away</span> : null}
                 </th>
-                <td className="data-num">{showMass(l.boughtG, massUnits)}</td>
-                <td className="data-num">{l.price ? formatCost(l.price.perKgMinor, currency) : <Unknown />}</td>
-                <td className="data-num">{l.batchMinor === null ? <Unknown /> : formatCost(l.batchMinor, currency)}</td>
-                <td className="data-num">{(cost.perJar ? l.perJarMinor : l.perKgMinor) === null ? <Unknown /> : formatCost((cost.perJar ? l.perJarMinor : l.perKgMinor)!, currency)}</td>
-                <td className="data-num">{pct(l.sharePct)}</td>
+                <td className={NUM}>{showMass(l.boughtG, massUnits)}</td>
+                <td className={NUM}>{l.price ? formatCost(l.price.perKgMinor, currency) : <Unknown />}</td>
+                <td className={NUM}>{l.batchMinor === null ? <Unknown /> : formatCost(l.batchMinor, currency)}</td>
+                <td className={NUM}>{(cost.perJar ? l.perJarMinor : l.perKgMinor) === null ? <Unknown /> : formatCost((cost.perJar ? l.perJarMinor : l.perKgMinor)!, currency)}</td>
+                <td className={NUM}>{pct(l.sharePct)}</td>
               </tr>
             ))}
             {cost.packaging.map((p, i) => (
               <tr key={`p${i}`}>
-                <th scope="row" className="data-cell text-left font-normal">
+                <th scope="row" className={`${CELL} text-left font-normal`}>
                   {p.name}
                   <span className="block text-xs text-rind-500">Packaging, {p.perJar === 1 ? 'one per jar' : `${Number(p.perJar.toFixed(4))} per jar`}</span>
                 </th>
-                <td className="data-cell text-right">—</td>
-                <td className="data-cell text-right">—</td>
-                <td className="data-cell text-right">—</td>
-                <td className="data-num">{p.perJarMinor === null ? <Unknown /> : formatCost(p.perJarMinor, currency)}</td>
-                <td className="data-num">{pct(p.sharePct)}</td>
+                <td className={`${CELL} text-right`}>—</td>
+                <td className={`${CELL} text-right`}>—</td>
+                <td className={`${CELL} text-right`}>—</td>
+                <td className={NUM}>{p.perJarMinor === null ? <Unknown /> : formatCost(p.perJarMinor, currency)}</td>
+                <td className={NUM}>{pct(p.sharePct)}</td>
               </tr>
             ))}
           </tbody>

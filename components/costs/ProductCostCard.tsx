@@ -5,6 +5,7 @@ import { Card } from '@/components/ui/Card';
 import { Notice } from '@/components/ui/Notice';
 import { TableBox } from '@/components/ui/TableBox';
 import { perJarText } from './CostSummary';
+import { TABLE, HEAD, TH, NUM_TH, CELL, NUM } from '@/components/results/DataTable';
 
 function approvalText(v: VersionCost): string {
   const a = v.atApproval;
@@ -26,24 +27,24 @@ export function ProductCostCard({ costs }: { costs: ProductCosts }) {
           </Notice>
         ) : null}
         <TableBox label="Cost per jar of each version" framed={false}>
-          <table className="data-table">
-            <thead className="data-head">
+          <table className={TABLE}>
+            <thead className={HEAD}>
               <tr>
-                <th scope="col" className="data-th">Version</th>
-                <th scope="col" className="data-th-num">At approval</th>
-                <th scope="col" className="data-th-num">Today ({formatDate(costs.asOf)})</th>
-                <th scope="col" className="data-th-num">Change</th>
+                <th scope="col" className={TH}>Version</th>
+                <th scope="col" className={NUM_TH}>At approval</th>
+                <th scope="col" className={NUM_TH}>Today ({formatDate(costs.asOf)})</th>
+                <th scope="col" className={NUM_TH}>Change</th>
               </tr>
             </thead>
             <tbody className="divide-y divide-pith-200">
               {costs.versions.map((v) => (
                 <tr key={v.versionId}>
-                  <th scope="row" className="data-cell text-left font-normal">v{v.version}{v.status === 'current' ? ' (current)' : ''}</th>
-                  <td className="data-num" data-testid="cost-at-approval">
+                  <th scope="row" className={`${CELL} text-left font-normal`}>v{v.version}{v.status === 'current' ? ' (current)' : ''}</th>
+                  <td className={NUM} data-testid="cost-at-approval">
                     {approvalText(v)}
                     {v.atApproval ? <span className="block text-xs text-rind-500">{formatDate(v.atApproval.asOf)}</span> : null}
                   </td>
-                  <td className="data-num" data-testid="cost-today">{perJarText(v.today, costs.currency)}</td>
+                  <td className={NUM} data-testid="cost-today">{perJarText(v.today, costs.currency)}</td>
                   <td className={`px-3 py-1.5 text-right tabular-nums ${v.warn ? 'font-semibold text-ember-700' : ''}`}>
                     {v.movedPct === null ? '—' : `${v.movedPct > 0 ? '+' : v.movedPct < 0 ? '−' : ''}${Math.abs(v.movedPct).toFixed(1)} %`}
                   </td>
