@@ -377,7 +377,7 @@ export function FormulaEditor({ mode, initial, ingredients, massUnits, temperatu
           </Card>
         </>
       ) : (
-        <Skeleton what="the cost, scaling and label" lines={6} />
+        <Skeleton what={cost ? 'the cost, scaling and label' : 'the scaling and label'} lines={6} />
       )}
     </div>
   );

@@ -145,14 +145,16 @@ describe('FormulaEditor: what the server sends', () => {
     // The first screen: the lines and the live results beside them.
     expect(html).toContain('id="line-l0-ingredient"');
     expect(html).toContain('data-testid="result-finished-mass"');
-    // Below them, a placeholder that says what is coming instead of the scaling, refractometer and label panels.
-    expect(html).toMatch(/Loading (<!-- -->)?the cost, scaling and label(<!-- -->)?…/);
+    // Below them, a placeholder that says what is coming instead of the scaling, refractometer and label
+    // panels (no cost here: this editor is given no prices).
+    expect(html).toMatch(/Loading (<!-- -->)?the scaling and label(<!-- -->)?…/);
+    expect(html).not.toMatch(/Loading (<!-- -->)?the cost/);
     expect(html).not.toContain('id="live-label-title"');
     expect(html).not.toMatch(/Scale this formula|Refractometer/);
 
     renderRevise();
     expect(screen.getByRole('heading', { name: 'Label' })).toBeTruthy();
-    expect(screen.queryByText('Loading the cost, scaling and label…')).toBeNull();
+    expect(screen.queryByText('Loading the scaling and label…')).toBeNull();
   });
 });
 
