@@ -55,6 +55,7 @@ export const Ingredient = defineEntity({
     polyolsG: p.double().$type<number>().nullable(),
     organicAcidsG: p.double().$type<number>().nullable(),
     sodiumMg: p.double().$type<number>().nullable(),
+    cholesterolMg: p.double().$type<number>().nullable(),
     euAllergens: p.json<EuAllergen[]>().default('[]'),
     usAllergens: p.json<UsAllergen[]>().default('[]'),
     sulphiteMgPerKg: p.double().$type<number>().nullable(),

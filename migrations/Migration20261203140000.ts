@@ -1,15 +1,16 @@
 import { Migration } from '@mikro-orm/migrations';
-import { NUTRIENT_KEYS } from '../lib/label/types';
 import { STARTER_LABEL_DATA } from '../lib/ingredients/starter-composition';
 import { TYPICAL_INGREDIENTS } from '../lib/chemistry/typical-ingredients';
 import type { IngredientLabelFields } from '../lib/ingredients/label-data';
 
-const NUTRIENT_COLUMNS: Record<(typeof NUTRIENT_KEYS)[number], string> = {
+/** The nutrients this migration added, frozen as they were: later nutrients have migrations of their own. */
+const NUTRIENT_COLUMNS = {
   waterG: 'water_g', energyKcal: 'energy_kcal', energyKj: 'energy_kj', proteinG: 'protein_g', fatG: 'fat_g',
   saturatesG: 'saturates_g', carbohydrateG: 'carbohydrate_g', sugarsG: 'sugars_g', sucroseG: 'sucrose_g',
   glucoseG: 'glucose_g', fructoseG: 'fructose_g', fibreG: 'fibre_g', polyolsG: 'polyols_g',
   organicAcidsG: 'organic_acids_g', sodiumMg: 'sodium_mg',
-};
+} as const;
+const NUTRIENT_KEYS = Object.keys(NUTRIENT_COLUMNS) as Array<keyof typeof NUTRIENT_COLUMNS>;
 
 function literal(value: string | number | boolean | null): string {
   if (value === null) return 'null';

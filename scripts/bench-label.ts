@@ -27,7 +27,7 @@ const settings: FormulaSettingsInput = { productClass: 'jam', ruleSet: 'eu', rul
 function nutrientsFor(kind: IngredientLabelData['kind'], i: number): NutrientValues {
   const base: NutrientValues = {
     waterG: 85, energyKcal: 50, energyKj: 210, proteinG: 0.8, fatG: 0.3, saturatesG: 0.02, carbohydrateG: 12,
-    sugarsG: 8, sucroseG: 2, glucoseG: 3, fructoseG: 3, fibreG: 2, polyolsG: null, organicAcidsG: null, sodiumMg: 1,
+    sugarsG: 8, sucroseG: 2, glucoseG: 3, fructoseG: 3, fibreG: 2, polyolsG: null, organicAcidsG: null, sodiumMg: 1, cholesterolMg: 0,
   };
   if (kind === 'sweetener') return { ...base, waterG: 0.02, carbohydrateG: 99.98, sugarsG: 99.8, fibreG: 0, proteinG: 0, fatG: 0, sodiumMg: 1 };
   if (kind === 'pectin') return { ...base, waterG: 8.7, carbohydrateG: 90.4, sugarsG: null, fibreG: 8.6, sodiumMg: 200 };

@@ -16,7 +16,7 @@ const NUTRIENT_COLUMNS: Record<NutrientKey, string> = {
   waterG: 'water_g', energyKcal: 'energy_kcal', energyKj: 'energy_kj', proteinG: 'protein_g', fatG: 'fat_g',
   saturatesG: 'saturates_g', carbohydrateG: 'carbohydrate_g', sugarsG: 'sugars_g', sucroseG: 'sucrose_g',
   glucoseG: 'glucose_g', fructoseG: 'fructose_g', fibreG: 'fibre_g', polyolsG: 'polyols_g',
-  organicAcidsG: 'organic_acids_g', sodiumMg: 'sodium_mg',
+  organicAcidsG: 'organic_acids_g', sodiumMg: 'sodium_mg', cholesterolMg: 'cholesterol_mg',
 };
 
 type Cell = string | number | null;

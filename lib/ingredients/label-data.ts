@@ -64,12 +64,14 @@ export const NUTRIENT_LABELS: Record<NutrientKey, { label: string; unit: string 
   polyolsG: { label: 'Polyols', unit: 'g' },
   organicAcidsG: { label: 'Organic acids', unit: 'g' },
   sodiumMg: { label: 'Sodium', unit: 'mg' },
+  cholesterolMg: { label: 'Cholesterol', unit: 'mg' },
 };
 
 /**
  * The nutrients without which a finished product's declaration cannot be computed: the EU Annex XV
  * list (energy via its parts, fat, saturates, carbohydrate, sugars, protein, salt from sodium), fibre,
- * and water for the mass balance. Individual sugars, polyols and organic acids are optional detail.
+ * and water for the mass balance. Individual sugars, polyols and organic acids are optional detail;
+ * cholesterol only the US panel asks for, and it names the ingredients that lack it.
  */
 export const REQUIRED_NUTRIENTS: readonly NutrientKey[] = [
   'waterG', 'energyKj', 'energyKcal', 'proteinG', 'fatG', 'saturatesG', 'carbohydrateG', 'sugarsG', 'fibreG', 'sodiumMg',

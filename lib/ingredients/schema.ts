@@ -48,7 +48,7 @@ const optionalNumber = (min: number, max: number, what: string) =>
  */
 const NUTRIENT_MAX: Record<NutrientKey, number> = {
   waterG: 100, energyKcal: 950, energyKj: 4000, proteinG: 100, fatG: 100, saturatesG: 100, carbohydrateG: 100, sugarsG: 100,
-  sucroseG: 100, glucoseG: 100, fructoseG: 100, fibreG: 100, polyolsG: 100, organicAcidsG: 100, sodiumMg: 100_000,
+  sucroseG: 100, glucoseG: 100, fructoseG: 100, fibreG: 100, polyolsG: 100, organicAcidsG: 100, sodiumMg: 100_000, cholesterolMg: 100_000,
 };
 export const SULPHITE_MAX_MG_PER_KG = 1_000_000;
 /**

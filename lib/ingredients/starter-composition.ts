@@ -4,8 +4,9 @@
  *
  * Foods: USDA ARS, USDA National Nutrient Database for Standard Reference, Legacy Release 28
  * (SR28, public domain), nutrients 255, 208, 268, 203, 204, 606, 205, 291, 269, 307 and 210/211/212,
- * as listed in docs/nutrition-check-values.md. A value SR28 does not give stays null
- * (unknown), never zero. Additives and water are not in SR28: their composition follows from what they
+ * as listed in docs/nutrition-check-values.md, and 601 (cholesterol). A value SR28 does not give stays null
+ * (unknown), never zero. The cholesterol figures (0 mg for every food here: fruits, sugars, honey,
+ * pectin) are from memory of SR28, not read off its tables here; no plant food carries cholesterol. Additives and water are not in SR28: their composition follows from what they
  * are, and their energy from the Regulation (EU) 1169/2011 Annex XIV factor for organic acids.
  */
 import type { NutrientValues } from '@/lib/label/types';
@@ -17,37 +18,37 @@ const SR28 = 'USDA National Nutrient Database for Standard Reference, Legacy Rel
 interface Sr28Food {
   ndb: string;
   description: string;
-  // water, kcal, kJ, protein, fat, saturates, carbohydrate (by difference), fibre, sugars, sodium mg
-  values: [number, number, number, number, number, number | null, number, number | null, number | null, number];
+  // water, kcal, kJ, protein, fat, saturates, carbohydrate (by difference), fibre, sugars, sodium mg, cholesterol mg
+  values: [number, number, number, number, number, number | null, number, number | null, number | null, number, number];
   /** Sucrose, glucose, fructose where SR28 lists them. */
   sugars?: [number, number, number];
 }
 
 /** The SR28 foods the starter library uses, keyed by their name in the reference notes. */
 export const SR28_FOODS = {
-  strawberry: { ndb: '09316', description: 'Strawberries, raw', values: [90.95, 32, 136, 0.67, 0.30, 0.015, 7.68, 2.0, 4.89, 1], sugars: [0.47, 1.99, 2.44] },
-  raspberry: { ndb: '09302', description: 'Raspberries, raw', values: [85.75, 52, 220, 1.20, 0.65, 0.019, 11.94, 6.5, 4.42, 1], sugars: [0.20, 1.86, 2.35] },
-  apricot: { ndb: '09021', description: 'Apricots, raw', values: [86.35, 48, 201, 1.40, 0.39, 0.027, 11.12, 2.0, 9.24, 1], sugars: [5.87, 2.37, 0.94] },
-  blackcurrant: { ndb: '09083', description: 'Currants, european black, raw', values: [81.96, 63, 264, 1.40, 0.41, 0.034, 15.38, null, null, 2] },
-  redcurrant: { ndb: '09084', description: 'Currants, red and white, raw', values: [83.95, 56, 234, 1.40, 0.20, 0.017, 13.80, 4.3, 7.37, 1], sugars: [0.61, 3.22, 3.53] },
-  apple: { ndb: '09003', description: 'Apples, raw, with skin', values: [85.56, 52, 218, 0.26, 0.17, 0.028, 13.81, 2.4, 10.39, 1], sugars: [2.07, 2.43, 5.90] },
-  quince: { ndb: '09296', description: 'Quinces, raw', values: [83.80, 57, 238, 0.40, 0.10, 0.010, 15.30, 1.9, null, 4] },
-  plum: { ndb: '09279', description: 'Plums, raw', values: [87.23, 46, 192, 0.70, 0.28, 0.017, 11.42, 1.4, 9.92, 0], sugars: [1.57, 5.07, 3.07] },
-  blackberry: { ndb: '09042', description: 'Blackberries, raw', values: [88.15, 43, 181, 1.39, 0.49, 0.014, 9.61, 5.3, 4.88, 1], sugars: [0.07, 2.31, 2.40] },
-  orange: { ndb: '09200', description: 'Oranges, raw, all commercial varieties', values: [86.75, 47, 197, 0.94, 0.12, 0.015, 11.75, 2.4, 9.35, 0] },
-  lemon_juice: { ndb: '09152', description: 'Lemon juice, raw', values: [92.31, 22, 91, 0.35, 0.24, 0.040, 6.90, 0.3, 2.52, 1], sugars: [0.43, 0.99, 1.10] },
-  sugar_granulated: { ndb: '19335', description: 'Sugars, granulated', values: [0.02, 387, 1618, 0.00, 0.00, 0.000, 99.98, 0.0, 99.80, 1], sugars: [99.80, 0.00, 0.00] },
-  corn_syrup_light: { ndb: '19350', description: 'Syrups, corn, light', values: [22.81, 283, 1182, 0.00, 0.20, 0.000, 76.79, 0.0, 76.77, 62] },
-  honey: { ndb: '19296', description: 'Honey', values: [17.10, 304, 1272, 0.30, 0.00, 0.000, 82.40, 0.2, 82.12, 4], sugars: [0.89, 35.75, 40.94] },
-  pectin_dry: { ndb: '19310', description: 'Pectin, unsweetened, dry mix', values: [8.70, 325, 1360, 0.30, 0.30, 0.050, 90.40, 8.6, null, 200] },
+  strawberry: { ndb: '09316', description: 'Strawberries, raw', values: [90.95, 32, 136, 0.67, 0.30, 0.015, 7.68, 2.0, 4.89, 1, 0], sugars: [0.47, 1.99, 2.44] },
+  raspberry: { ndb: '09302', description: 'Raspberries, raw', values: [85.75, 52, 220, 1.20, 0.65, 0.019, 11.94, 6.5, 4.42, 1, 0], sugars: [0.20, 1.86, 2.35] },
+  apricot: { ndb: '09021', description: 'Apricots, raw', values: [86.35, 48, 201, 1.40, 0.39, 0.027, 11.12, 2.0, 9.24, 1, 0], sugars: [5.87, 2.37, 0.94] },
+  blackcurrant: { ndb: '09083', description: 'Currants, european black, raw', values: [81.96, 63, 264, 1.40, 0.41, 0.034, 15.38, null, null, 2, 0] },
+  redcurrant: { ndb: '09084', description: 'Currants, red and white, raw', values: [83.95, 56, 234, 1.40, 0.20, 0.017, 13.80, 4.3, 7.37, 1, 0], sugars: [0.61, 3.22, 3.53] },
+  apple: { ndb: '09003', description: 'Apples, raw, with skin', values: [85.56, 52, 218, 0.26, 0.17, 0.028, 13.81, 2.4, 10.39, 1, 0], sugars: [2.07, 2.43, 5.90] },
+  quince: { ndb: '09296', description: 'Quinces, raw', values: [83.80, 57, 238, 0.40, 0.10, 0.010, 15.30, 1.9, null, 4, 0] },
+  plum: { ndb: '09279', description: 'Plums, raw', values: [87.23, 46, 192, 0.70, 0.28, 0.017, 11.42, 1.4, 9.92, 0, 0], sugars: [1.57, 5.07, 3.07] },
+  blackberry: { ndb: '09042', description: 'Blackberries, raw', values: [88.15, 43, 181, 1.39, 0.49, 0.014, 9.61, 5.3, 4.88, 1, 0], sugars: [0.07, 2.31, 2.40] },
+  orange: { ndb: '09200', description: 'Oranges, raw, all commercial varieties', values: [86.75, 47, 197, 0.94, 0.12, 0.015, 11.75, 2.4, 9.35, 0, 0] },
+  lemon_juice: { ndb: '09152', description: 'Lemon juice, raw', values: [92.31, 22, 91, 0.35, 0.24, 0.040, 6.90, 0.3, 2.52, 1, 0], sugars: [0.43, 0.99, 1.10] },
+  sugar_granulated: { ndb: '19335', description: 'Sugars, granulated', values: [0.02, 387, 1618, 0.00, 0.00, 0.000, 99.98, 0.0, 99.80, 1, 0], sugars: [99.80, 0.00, 0.00] },
+  corn_syrup_light: { ndb: '19350', description: 'Syrups, corn, light', values: [22.81, 283, 1182, 0.00, 0.20, 0.000, 76.79, 0.0, 76.77, 62, 0] },
+  honey: { ndb: '19296', description: 'Honey', values: [17.10, 304, 1272, 0.30, 0.00, 0.000, 82.40, 0.2, 82.12, 4, 0], sugars: [0.89, 35.75, 40.94] },
+  pectin_dry: { ndb: '19310', description: 'Pectin, unsweetened, dry mix', values: [8.70, 325, 1360, 0.30, 0.30, 0.050, 90.40, 8.6, null, 200, 0] },
 } satisfies Record<string, Sr28Food>;
 export type Sr28Key = keyof typeof SR28_FOODS;
 
 function sr28Nutrients(food: Sr28Food): NutrientValues {
-  const [waterG, energyKcal, energyKj, proteinG, fatG, saturatesG, carbohydrateG, fibreG, sugarsG, sodiumMg] = food.values;
+  const [waterG, energyKcal, energyKj, proteinG, fatG, saturatesG, carbohydrateG, fibreG, sugarsG, sodiumMg, cholesterolMg] = food.values;
   const [sucroseG, glucoseG, fructoseG] = food.sugars ?? [null, null, null];
   // SR28 has no polyol or organic-acid figure for these foods: both stay unknown.
-  return { waterG, energyKcal, energyKj, proteinG, fatG, saturatesG, carbohydrateG, sugarsG, sucroseG, glucoseG, fructoseG, fibreG, polyolsG: null, organicAcidsG: null, sodiumMg };
+  return { waterG, energyKcal, energyKj, proteinG, fatG, saturatesG, carbohydrateG, sugarsG, sucroseG, glucoseG, fructoseG, fibreG, polyolsG: null, organicAcidsG: null, sodiumMg, cholesterolMg };
 }
 
 function fromSr28(key: Sr28Key, labelName: string, note?: string): IngredientLabelFields {
@@ -64,7 +65,7 @@ function fromSr28(key: Sr28Key, labelName: string, note?: string): IngredientLab
 
 const noAllergens = { euAllergens: [], usAllergens: [], sulphiteMgPerKg: null } as const satisfies Partial<IngredientLabelFields>;
 
-/** A pure substance with no protein, fat, carbohydrate, fibre, polyols or sodium. Energy from organic acid at 13 kJ / 3 kcal per g (1169/2011 Annex XIV). */
+/** A pure substance with no protein, fat, carbohydrate, fibre, polyols, sodium or cholesterol. Energy from organic acid at 13 kJ / 3 kcal per g (1169/2011 Annex XIV). */
 function pureSubstance(labelName: string, organicAcidsG: number, sourceDetail: string, additive: { eNumber: string; functionalClass: AdditiveClass } | null): IngredientLabelFields {
   return {
     ...noAllergens,
@@ -72,7 +73,7 @@ function pureSubstance(labelName: string, organicAcidsG: number, sourceDetail: s
     labelName,
     nutrients: {
       waterG: 0, energyKj: round1(organicAcidsG * 13), energyKcal: round1(organicAcidsG * 3), proteinG: 0, fatG: 0, saturatesG: 0,
-      carbohydrateG: 0, sugarsG: 0, sucroseG: 0, glucoseG: 0, fructoseG: 0, fibreG: 0, polyolsG: 0, organicAcidsG, sodiumMg: 0,
+      carbohydrateG: 0, sugarsG: 0, sucroseG: 0, glucoseG: 0, fructoseG: 0, fibreG: 0, polyolsG: 0, organicAcidsG, sodiumMg: 0, cholesterolMg: 0,
     },
     additive,
     isAddedWater: false,
@@ -128,7 +129,7 @@ export const STARTER_LABEL_DATA: Readonly<Record<string, IngredientLabelFields>>
     labelName: 'water',
     nutrients: {
       waterG: 100, energyKcal: 0, energyKj: 0, proteinG: 0, fatG: 0, saturatesG: 0, carbohydrateG: 0, sugarsG: 0,
-      sucroseG: 0, glucoseG: 0, fructoseG: 0, fibreG: 0, polyolsG: 0, organicAcidsG: 0, sodiumMg: 0,
+      sucroseG: 0, glucoseG: 0, fructoseG: 0, fibreG: 0, polyolsG: 0, organicAcidsG: 0, sodiumMg: 0, cholesterolMg: 0,
     },
     additive: null,
     isAddedWater: true,

@@ -17,12 +17,12 @@ export const MAX_LINE_GRAMS = 1e9;
 /**
  * Upper bounds per 100 g of an ingredient. Grams cannot pass 100; energy cannot pass pure fat
  * (37 kJ/9 kcal per g, Regulation (EU) 1169/2011 Annex XIV); sodium cannot pass pure sodium
- * chloride (39.3 % sodium, from the atomic masses 22.99 and 35.45).
+ * chloride (39.3 % sodium, from the atomic masses 22.99 and 35.45); cholesterol cannot pass 100 g.
  */
 const NUTRIENT_MAXIMUM: Record<NutrientKey, number> = {
   waterG: 100, energyKcal: 900, energyKj: 3700, proteinG: 100, fatG: 100, saturatesG: 100,
   carbohydrateG: 100, sugarsG: 100, sucroseG: 100, glucoseG: 100, fructoseG: 100, fibreG: 100,
-  polyolsG: 100, organicAcidsG: 100, sodiumMg: 39340,
+  polyolsG: 100, organicAcidsG: 100, sodiumMg: 39340, cholesterolMg: 100_000,
 };
 
 function requireLines(input: LabelInput): LabelLine[] {

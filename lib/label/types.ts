@@ -9,7 +9,7 @@ import type { FormulaSettings, IngredientKind } from '@/lib/chemistry/types';
 /** Nutrients held per 100 g of an ingredient as used. Grams unless the name says otherwise. */
 export const NUTRIENT_KEYS = [
   'waterG', 'energyKcal', 'energyKj', 'proteinG', 'fatG', 'saturatesG', 'carbohydrateG',
-  'sugarsG', 'sucroseG', 'glucoseG', 'fructoseG', 'fibreG', 'polyolsG', 'organicAcidsG', 'sodiumMg',
+  'sugarsG', 'sucroseG', 'glucoseG', 'fructoseG', 'fibreG', 'polyolsG', 'organicAcidsG', 'sodiumMg', 'cholesterolMg',
 ] as const;
 export type NutrientKey = (typeof NUTRIENT_KEYS)[number];
 /**

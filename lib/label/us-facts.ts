@@ -232,8 +232,8 @@ export function usNutritionFacts(n: FinishedNutrients, input: LabelInput): UsNut
     { nutrient: 'saturatedFat', name: 'Saturated Fat', indent: 1, unit: 'g', per100: n.saturatesG, unknownFrom: unknown('saturatesG'), round: usFatAmount, dailyValue: US_DAILY_VALUES.saturatedFat },
     ...(transFatExempt ? [] : [{ nutrient: 'transFat', name: 'Trans Fat', indent: 1, unit: 'g', per100: null, unknownFrom: [], round: usFatAmount, dailyValue: null,
       missingReason: 'Not known: the ingredient data holds no trans fat figures' } satisfies RowSpec]),
-    { nutrient: 'cholesterol', name: 'Cholesterol', indent: 0, unit: 'mg', per100: null, unknownFrom: [], round: usCholesterolAmount, dailyValue: US_DAILY_VALUES.cholesterol,
-      missingReason: 'Not known: the ingredient data holds no cholesterol figures' },
+    // 101.9(c)(3): under 2 mg a serving it may be stated as zero, which is what usCholesterolAmount gives.
+    { nutrient: 'cholesterol', name: 'Cholesterol', indent: 0, unit: 'mg', per100: n.cholesterolMg, unknownFrom: unknown('cholesterolMg'), round: usCholesterolAmount, dailyValue: US_DAILY_VALUES.cholesterol },
     { nutrient: 'sodium', name: 'Sodium', indent: 0, unit: 'mg', per100: n.sodiumMg, unknownFrom: unknown('sodiumMg'), round: usSodiumAmount, dailyValue: US_DAILY_VALUES.sodium },
     { nutrient: 'totalCarbohydrate', name: 'Total Carbohydrate', indent: 0, unit: 'g', per100: n.carbohydrateG, unknownFrom: unknown('carbohydrateG'), round: usGramAmount, dailyValue: US_DAILY_VALUES.totalCarbohydrate },
     { nutrient: 'dietaryFiber', name: 'Dietary Fiber', indent: 1, unit: 'g', per100: n.fibreG, unknownFrom: unknown('fibreG'), round: usGramAmount, dailyValue: US_DAILY_VALUES.dietaryFiber },
@@ -273,7 +273,7 @@ export function usNutritionFacts(n: FinishedNutrients, input: LabelInput): UsNut
     caloriesMethod: US_CALORIES_METHOD,
     rows,
     notSignificantStatements,
-    // Cholesterol, and trans fat where it must be declared, are never known from our data; their rows say so, and `complete`
+    // Trans fat, where it must be declared, is never known from our data; its row says so, and `complete`
     // speaks only of the figures that are computed.
     complete: caloriesUnknown.length === 0 && rows.every((r) => !r.incomplete),
   };

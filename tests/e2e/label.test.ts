@@ -33,6 +33,9 @@ describe.each(WINDOWS)('the live label (%s)', (size, viewport) => {
     await live.getByRole('region', { name: 'EU nutrition declaration' }).waitFor();
     await live.scrollIntoViewIfNeeded();
     await walk.stop('live-label');
+    // Cholesterol comes from the ingredients: every line of the spread is a plant food or an additive.
+    const us = live.getByRole('region', { name: 'US nutrition facts' });
+    expect(await rowText(us, 'Cholesterol')).toMatch(/^Cholesterol\s+0 mg\s/);
 
     const eu = live.getByRole('region', { name: 'EU nutrition declaration' });
     const additives = live.getByRole('region', { name: 'Additive limits' });

@@ -9,7 +9,9 @@ import * as importRoute from '@/app/api/v1/ingredients/import/route';
 import { saveIngredientAction } from '@/lib/ingredients/actions';
 import { getEm, getOrm } from '@/lib/db';
 import { STARTER_LABEL_DATA } from '@/lib/ingredients/starter-composition';
+import type { Migration } from '@mikro-orm/migrations';
 import { Migration20261203140000 } from '@/migrations/Migration20261203140000';
+import { Migration20261204190000 } from '@/migrations/Migration20261204190000';
 
 let a: WorkspaceFixture;
 const dev = () => ({ kind: 'session' as const, person: a.people.developer });
@@ -97,7 +99,7 @@ describe('CSV', () => {
   it('exports the label columns, and the export imports back changing nothing', async () => {
     const csv = await exportCsv();
     const header = csv.split('\n')[0];
-    for (const col of ['label_name', 'water_g', 'energy_kj', 'sugars_g', 'sucrose_g', 'sodium_mg', 'eu_allergens', 'us_allergens', 'sulphite_mg_per_kg', 'e_number', 'additive_class', 'added_water', 'composition_source']) {
+    for (const col of ['label_name', 'water_g', 'energy_kj', 'sugars_g', 'sucrose_g', 'sodium_mg', 'cholesterol_mg', 'eu_allergens', 'us_allergens', 'sulphite_mg_per_kg', 'e_number', 'additive_class', 'added_water', 'composition_source']) {
       expect(header.split(',')).toContain(col);
     }
     expect(csv).toContain('E440,gelling_agent');
@@ -150,6 +152,16 @@ describe('CSV', () => {
   });
 });
 
+/** One step of a migration: its own statements, as the migrator runs them (in one transaction). */
+async function runStep(migration: Migration, step: 'up' | 'down'): Promise<void> {
+  migration.reset();
+  await migration[step]();
+  const em = await getEm();
+  await em.transactional(async (tx) => {
+    for (const q of migration.getQueries()) await tx.execute(q as string);
+  });
+}
+
 describe('migration Migration20261203140000', () => {
   it('backfills the starter entries of an existing workspace by their key and adds potassium sorbate', async () => {
     const fx = await createWorkspace('Before label data');
@@ -159,13 +171,7 @@ describe('migration Migration20261203140000', () => {
     // The migration's own statements, down then up, as the migrator runs them (in one transaction each).
     const orm = await getOrm();
     const migration = new Migration20261203140000(orm.em.getDriver(), orm.config);
-    const run = async (step: 'up' | 'down') => {
-      migration.reset();
-      await migration[step]();
-      await em.transactional(async (tx) => {
-        for (const q of migration.getQueries()) await tx.execute(q as string);
-      });
-    };
+    const run = (step: 'up' | 'down') => runStep(migration, step);
     await run('down');
     try {
       // Rolling back keeps the label columns, their data and the sorbate entry: formulas and price
@@ -194,5 +200,31 @@ describe('migration Migration20261203140000', () => {
     const own = rows.find((r: Record<string, unknown>) => r.id === custom.body.ingredientId);
     expect(own).toMatchObject({ water_g: null, composition_source: null, is_added_water: false });
     expect(Object.keys(STARTER_LABEL_DATA).every((k) => byKey.has(k))).toBe(true);
+  });
+});
+
+describe('migration Migration20261204190000', () => {
+  it('gives the starter foods of an existing workspace 0 mg cholesterol and leaves every other figure as it was', async () => {
+    const fx = await createWorkspace('Before cholesterol');
+    const em = await getEm();
+    const ids = await starterIds(fx);
+    const custom = await callRoute(ingredientsRoute.POST, { method: 'POST', path: '/api/v1/ingredients', caller: { kind: 'session', person: fx.people.developer }, body: { name: 'Butter for the foam', kind: 'other', solidsPct: 84 } });
+    const sql = (text: string, values: unknown[] = []) => em.getConnection().execute(text, values);
+    // This workspace now looks like one from before the migration: no cholesterol anywhere, except a
+    // figure someone entered on an edited starter entry (kept) and one on their own entry (kept).
+    await sql(`update ingredients set cholesterol_mg = null where workspace_id = ?`, [fx.workspaceId]);
+    await sql(`update ingredients set origin = 'edited', cholesterol_mg = 3 where id = ?`, [ids.apricot]);
+    await sql(`update ingredients set cholesterol_mg = 215 where id = ?`, [custom.body.ingredientId]);
+    const orm = await getOrm();
+    const migration = new Migration20261204190000(orm.em.getDriver(), orm.config);
+    for (const step of ['down', 'up', 'up'] as const) await runStep(migration, step);
+    const rows = await sql(`select id, typical_key, cholesterol_mg from ingredients where workspace_id = ?`, [fx.workspaceId]);
+    const byKey = new Map(rows.map((r: Record<string, unknown>) => [r.typical_key, r.cholesterol_mg]));
+    expect(byKey.get('strawberry')).toBe(0);
+    expect(byKey.get('sucrose')).toBe(0);
+    expect(byKey.get('water')).toBe(0);
+    expect(byKey.get('invert_syrup')).toBeNull();
+    expect(byKey.get('apricot')).toBe(3);
+    expect(rows.find((r: Record<string, unknown>) => r.id === custom.body.ingredientId)?.cholesterol_mg).toBe(215);
   });
 });

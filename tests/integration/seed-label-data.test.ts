@@ -29,6 +29,8 @@ describe('demo seed label data', () => {
     const rows = await (await getEm()).find(Ingredient, { workspace: report.workspaceId, id: { $in: ids } });
     expect(rows).toHaveLength(ids.length);
     for (const row of rows) expect(missingNutrients(labelDataOf(row)), row.name).toEqual([]);
+    // Cholesterol is optional for the EU but asked by the US panel: the demo's panels have it too.
+    for (const row of rows) expect(labelDataOf(row).nutrients.cholesterolMg, row.name).not.toBeNull();
   });
 
   it('seeds one reduced-sugar spread with potassium sorbate close under 1,000 mg/kg as sorbic acid', () => {

@@ -4,6 +4,7 @@ import { STARTER_LABEL_DATA } from '@/lib/ingredients/starter-composition';
 import { emptyLabelFields, missingNutrients, toLabelData, E_NUMBER_PATTERN } from '@/lib/ingredients/label-data';
 import { ingredientInputSchema, labelDataSchema } from '@/lib/ingredients/schema';
 import { NUTRIENT_KEYS } from '@/lib/label/types';
+import { STARTER_KEYS_WITHOUT_CHOLESTEROL } from '@/migrations/Migration20261204190000';
 
 const SR28 = 'USDA National Nutrient Database for Standard Reference, Legacy Release 28';
 
@@ -49,6 +50,14 @@ describe('starter label data', () => {
       expect(n.organicAcidsG).toBeNull();
       expect(STARTER_LABEL_DATA[key].source).toContain(`${SR28}, NDB ${ref.ndb}`);
     }
+  });
+
+  it('gives 0 mg cholesterol to every starter food but invert syrup, the keys the migration fills', () => {
+    // SR28 nutrient 601 is 0 mg for these fruits, sugars, honey and pectin (from memory, not re-read
+    // here); the additives and water are pure substances. Invert syrup has no figures at all.
+    const zero = Object.entries(STARTER_LABEL_DATA).filter(([, d]) => d.nutrients.cholesterolMg === 0).map(([k]) => k);
+    expect(zero.sort()).toEqual([...STARTER_KEYS_WITHOUT_CHOLESTEROL].sort());
+    expect(STARTER_LABEL_DATA.invert_syrup.nutrients.cholesterolMg).toBeNull();
   });
 
   it('says in words that additives are pure substances, with their E-number and class', () => {

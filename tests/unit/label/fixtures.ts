@@ -5,18 +5,19 @@ import type { IngredientLabelData, LabelInput, LabelLine, NutrientValues } from 
 export const NO_FIGURES: NutrientValues = {
   waterG: null, energyKcal: null, energyKj: null, proteinG: null, fatG: null, saturatesG: null,
   carbohydrateG: null, sugarsG: null, sucroseG: null, glucoseG: null, fructoseG: null, fibreG: null,
-  polyolsG: null, organicAcidsG: null, sodiumMg: null,
+  polyolsG: null, organicAcidsG: null, sodiumMg: null, cholesterolMg: null,
 };
 
-// Source: docs/nutrition-check-values.md, table (USDA SR28 per 100 g edible portion).
+// Source: docs/nutrition-check-values.md, table (USDA SR28 per 100 g edible portion). Cholesterol
+// (SR28 nutrient 601) is 0 mg for all of these: from memory of SR28, not in that table.
 export const SR28 = {
-  strawberry: { ...NO_FIGURES, waterG: 90.95, energyKcal: 32, energyKj: 136, proteinG: 0.67, fatG: 0.30, saturatesG: 0.015, carbohydrateG: 7.68, fibreG: 2.0, sugarsG: 4.89, sodiumMg: 1, sucroseG: 0.47, glucoseG: 1.99, fructoseG: 2.44 },
-  apricot: { ...NO_FIGURES, waterG: 86.35, energyKcal: 48, energyKj: 201, proteinG: 1.40, fatG: 0.39, saturatesG: 0.027, carbohydrateG: 11.12, fibreG: 2.0, sugarsG: 9.24, sodiumMg: 1, sucroseG: 5.87, glucoseG: 2.37, fructoseG: 0.94 },
-  sugar: { ...NO_FIGURES, waterG: 0.02, energyKcal: 387, energyKj: 1618, proteinG: 0, fatG: 0, saturatesG: 0, carbohydrateG: 99.98, fibreG: 0, sugarsG: 99.80, sodiumMg: 1, sucroseG: 99.80, glucoseG: 0, fructoseG: 0 },
-  honey: { ...NO_FIGURES, waterG: 17.10, energyKcal: 304, energyKj: 1272, proteinG: 0.30, fatG: 0, saturatesG: 0, carbohydrateG: 82.40, fibreG: 0.2, sugarsG: 82.12, sodiumMg: 4, sucroseG: 0.89, glucoseG: 35.75, fructoseG: 40.94 },
+  strawberry: { ...NO_FIGURES, waterG: 90.95, energyKcal: 32, energyKj: 136, proteinG: 0.67, fatG: 0.30, saturatesG: 0.015, carbohydrateG: 7.68, fibreG: 2.0, sugarsG: 4.89, sodiumMg: 1, cholesterolMg: 0, sucroseG: 0.47, glucoseG: 1.99, fructoseG: 2.44 },
+  apricot: { ...NO_FIGURES, waterG: 86.35, energyKcal: 48, energyKj: 201, proteinG: 1.40, fatG: 0.39, saturatesG: 0.027, carbohydrateG: 11.12, fibreG: 2.0, sugarsG: 9.24, sodiumMg: 1, cholesterolMg: 0, sucroseG: 5.87, glucoseG: 2.37, fructoseG: 0.94 },
+  sugar: { ...NO_FIGURES, waterG: 0.02, energyKcal: 387, energyKj: 1618, proteinG: 0, fatG: 0, saturatesG: 0, carbohydrateG: 99.98, fibreG: 0, sugarsG: 99.80, sodiumMg: 1, cholesterolMg: 0, sucroseG: 99.80, glucoseG: 0, fructoseG: 0 },
+  honey: { ...NO_FIGURES, waterG: 17.10, energyKcal: 304, energyKj: 1272, proteinG: 0.30, fatG: 0, saturatesG: 0, carbohydrateG: 82.40, fibreG: 0.2, sugarsG: 82.12, sodiumMg: 4, cholesterolMg: 0, sucroseG: 0.89, glucoseG: 35.75, fructoseG: 40.94 },
   // SR28 19310 gives no sugars for pectin: it stays unknown here.
-  pectin: { ...NO_FIGURES, waterG: 8.70, energyKcal: 325, energyKj: 1360, proteinG: 0.30, fatG: 0.30, saturatesG: 0.050, carbohydrateG: 90.40, fibreG: 8.6, sodiumMg: 200 },
-  jamsAndPreserves19297: { ...NO_FIGURES, waterG: 30.47, energyKcal: 278, energyKj: 1163, proteinG: 0.37, fatG: 0.07, saturatesG: 0.010, carbohydrateG: 68.86, fibreG: 1.1, sugarsG: 48.50, sodiumMg: 32 },
+  pectin: { ...NO_FIGURES, waterG: 8.70, energyKcal: 325, energyKj: 1360, proteinG: 0.30, fatG: 0.30, saturatesG: 0.050, carbohydrateG: 90.40, fibreG: 8.6, sodiumMg: 200, cholesterolMg: 0 },
+  jamsAndPreserves19297: { ...NO_FIGURES, waterG: 30.47, energyKcal: 278, energyKj: 1163, proteinG: 0.37, fatG: 0.07, saturatesG: 0.010, carbohydrateG: 68.86, fibreG: 1.1, sugarsG: 48.50, sodiumMg: 32, cholesterolMg: 0 },
 } satisfies Record<string, NutrientValues>;
 
 /**
@@ -25,7 +26,7 @@ export const SR28 = {
  */
 export const CITRIC_ACID_NOTHING: NutrientValues = {
   ...NO_FIGURES, waterG: 0, energyKcal: 0, energyKj: 0, proteinG: 0, fatG: 0, saturatesG: 0, carbohydrateG: 0,
-  sugarsG: 0, sucroseG: 0, glucoseG: 0, fructoseG: 0, fibreG: 0, polyolsG: 0, organicAcidsG: 0, sodiumMg: 0,
+  sugarsG: 0, sucroseG: 0, glucoseG: 0, fructoseG: 0, fibreG: 0, polyolsG: 0, organicAcidsG: 0, sodiumMg: 0, cholesterolMg: 0,
 };
 
 export function labelData(labelName: string, kind: IngredientLabelData['kind'], nutrients: NutrientValues): IngredientLabelData {

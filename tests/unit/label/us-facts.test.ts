@@ -69,7 +69,8 @@ describe('US Nutrition Facts: example (a) strawberry jam 1:1 in a 340 g jar', ()
     expect(f.rows.map((r) => [r.name, r.label, r.dailyValuePct])).toEqual([
       ['Total Fat', '0 g', 0],
       ['Saturated Fat', '0 g', 0],
-      ['Cholesterol', 'not known', null],
+      // CFR (c)(3): under 2 mg a serving it may be stated as zero; strawberries, sugar and pectin carry 0 mg (SR28 601, from memory).
+      ['Cholesterol', '0 mg', 0],
       ['Sodium', '0 mg', 0],
       ['Total Carbohydrate', '14 g', 5],
       ['Dietary Fiber', '0 g', 0],
@@ -169,6 +170,43 @@ describe('US trans fat: declared unless the fat is known to be under 0.5 g a ser
     expect(rowOf(f, 'totalFat').amount?.value).toBeCloseTo(38.9 / 80, 9);
     expect(f.rows.some((r) => r.nutrient === 'transFat')).toBe(false);
     expect(f.notSignificantStatements).toContain('Not a significant source of trans fat');
+  });
+});
+
+describe('US cholesterol: from the ingredients, and named where a figure is missing', () => {
+  // 1000 g apricots and 1000 g sugar (0 mg, SR28 09021 and 19335, from memory) with B g of butter
+  // skimmed in against foam; butter carries 215 mg/100 g (SR28 01001 Butter, salted: from memory).
+  // Finished at 1600 g, a 20 g serving holds 2.15 B / 80 mg. The butter borrows sugar's other figures:
+  // only its cholesterol is under test.
+  const withButter = (butterG: number, cholesterolMg: number | null = 215) => facts(labelInput([
+    line(1000, labelData('apricots', 'fruit', SR28.apricot)),
+    line(1000, labelData('sugar', 'sweetener', SR28.sugar)),
+    line(butterG, labelData('butter', 'other', { ...SR28.sugar, cholesterolMg })),
+  ], { finishedMassG: 1600 }));
+
+  it('states zero under 2 mg a serving', () => {
+    // Source: CFR (c)(3): under 2 mg → "0 mg". 20 g butter: 43 / 80 = 0.5375 mg.
+    const row = rowOf(withButter(20), 'cholesterol');
+    expect(row.amount?.value).toBeCloseTo(0.5375, 9);
+    expect([row.label, row.dailyValuePct, row.incomplete]).toEqual(['0 mg', 0, false]);
+  });
+
+  it('says "less than 5 mg" from 2 to 5 mg, and the nearest 5 mg above', () => {
+    // Source: CFR (c)(3). 100 g butter: 215 / 80 = 2.6875 mg; 200 g: 430 / 80 = 5.375 mg → 5 mg.
+    expect(rowOf(withButter(100), 'cholesterol').label).toBe('less than 5 mg');
+    const more = rowOf(withButter(200), 'cholesterol');
+    expect(more.amount?.value).toBeCloseTo(5.375, 9);
+    expect(more.label).toBe('5 mg');
+    // Source: CFR (c)(9) DRV 300 mg: 5 ÷ 300 = 1.7 % → 2 %.
+    expect(more.dailyValuePct).toBe(2);
+  });
+
+  it('names the ingredient whose figure is missing, and the panel is then incomplete', () => {
+    const f = withButter(20, null);
+    const row = rowOf(f, 'cholesterol');
+    expect(row.unknownFrom).toEqual(['butter']);
+    expect(row.note).toBe('Incomplete: no figure for butter');
+    expect(f.complete).toBe(false);
   });
 });
 
