@@ -1,4 +1,4 @@
-/** Sign-in per role, the invitation round trip through the mail fake, wrong passwords and the rate limit. */
+/** Sign-in per role, the navigation's pending mark, the invitation round trip through the mail fake, wrong passwords and the rate limit. */
 import { describe, it, expect } from 'vitest';
 import { sharedBrowser, newContext, signIn, mailTo, screenshot } from './browser';
 import { DEMO_USERS } from '@/lib/seed/demo';
@@ -20,6 +20,29 @@ describe('each demo role signs in and sees its own navigation', () => {
     expect(labels).toEqual(navFor(user.role).map((n) => n.label));
     await expect(page.getByTestId('actor-name').first().textContent()).resolves.toBe(user.name);
     if (user.role === 'admin') await screenshot(page, 'home-admin');
+    await ctx.close();
+  });
+
+  it('marks the navigation link that was clicked while its page is on its way', async () => {
+    const ctx = await newContext(browser());
+    const page = await ctx.newPage();
+    await signIn(page, DEMO_USERS.find((u) => u.role === 'developer')!.email);
+    // Hold the navigation's request for the trials page (not a prefetch) until the mark has been seen.
+    let release = () => {};
+    const held = new Promise<void>((resolve) => { release = resolve; });
+    await page.route((url) => url.pathname === '/trials', async (route) => {
+      const headers = route.request().headers();
+      if (headers.rsc === '1' && !headers['next-router-prefetch']) await held;
+      await route.continue();
+    });
+    const nav = page.getByTestId('main-nav').first();
+    await nav.getByRole('link', { name: 'Trials' }).click();
+    const mark = nav.getByTestId('nav-pending');
+    await mark.waitFor();
+    expect(await nav.getByRole('link', { name: 'Trials' }).getByRole('status').textContent()).toBe('Loading…');
+    release();
+    await page.waitForURL('**/trials');
+    await mark.waitFor({ state: 'detached' });
     await ctx.close();
   });
 
