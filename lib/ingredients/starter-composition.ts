@@ -4,10 +4,11 @@
  *
  * Foods: USDA ARS, USDA National Nutrient Database for Standard Reference, Legacy Release 28
  * (SR28, public domain), nutrients 255, 208, 268, 203, 204, 606, 205, 291, 269, 307 and 210/211/212,
- * as listed in docs/nutrition-check-values.md, and 601 (cholesterol). A value SR28 does not give stays null
- * (unknown), never zero. The cholesterol figures (0 mg for every food here: fruits, sugars, honey,
- * pectin) are from memory of SR28, not read off its tables here; no plant food carries cholesterol. Additives and water are not in SR28: their composition follows from what they
- * are, and their energy from the Regulation (EU) 1169/2011 Annex XIV factor for organic acids.
+ * as listed in docs/nutrition-check-values.md, and 601 (cholesterol). A value SR28 does not give
+ * stays null (unknown), never zero. The cholesterol figures (0 mg for every food here: fruits,
+ * sugars, honey, pectin) are from memory of SR28, not read off its tables here. Additives and water
+ * are not in SR28: their composition follows from what they are, and their energy from the
+ * Regulation (EU) 1169/2011 Annex XIV factor for organic acids.
  */
 import type { NutrientValues } from '@/lib/label/types';
 import { emptyLabelFields, type AdditiveClass, type IngredientLabelFields } from './label-data';
