@@ -162,17 +162,21 @@ async function runStep(migration: Migration, step: 'up' | 'down'): Promise<void>
   });
 }
 
+/** A new workspace with its starter library and one entry of its own, for a migration to run over. */
+async function workspaceWithOwnEntry(name: string, own: { name: string; kind: string; solidsPct: number }) {
+  const fx = await createWorkspace(name);
+  const ids = await starterIds(fx);
+  const created = await callRoute(ingredientsRoute.POST, { method: 'POST', path: '/api/v1/ingredients', caller: { kind: 'session', person: fx.people.developer }, body: own });
+  expect(created.status).toBe(201);
+  const orm = await getOrm();
+  return { fx, ids, ownId: created.body.ingredientId as string, em: await getEm(), migrationArgs: [orm.em.getDriver(), orm.config] as const };
+}
+
 describe('migration Migration20261203140000', () => {
   it('backfills the starter entries of an existing workspace by their key and adds potassium sorbate', async () => {
-    const fx = await createWorkspace('Before label data');
-    const em = await getEm();
-    const ids = await starterIds(fx);
-    const custom = await callRoute(ingredientsRoute.POST, { method: 'POST', path: '/api/v1/ingredients', caller: { kind: 'session', person: fx.people.developer }, body: { name: 'Own quince', kind: 'fruit', solidsPct: 13 } });
-    // The migration's own statements, down then up, as the migrator runs them (in one transaction each).
-    const orm = await getOrm();
-    const migration = new Migration20261203140000(orm.em.getDriver(), orm.config);
-    const run = (step: 'up' | 'down') => runStep(migration, step);
-    await run('down');
+    const { fx, ids, ownId, em, migrationArgs } = await workspaceWithOwnEntry('Before label data', { name: 'Own quince', kind: 'fruit', solidsPct: 13 });
+    const migration = new Migration20261203140000(...migrationArgs);
+    await runStep(migration, 'down');
     try {
       // Rolling back keeps the label columns, their data and the sorbate entry: formulas and price
       // lists may use them (no data is lost).
@@ -184,7 +188,7 @@ describe('migration Migration20261203140000', () => {
       await em.getConnection().execute(`delete from ingredients where workspace_id = ? and typical_key = 'potassium_sorbate'`, [fx.workspaceId]);
       await em.getConnection().execute(`update ingredients set water_g = null, sugars_g = null, sucrose_g = null, e_number = null, additive_class = null, composition_source = null where workspace_id = ?`, [fx.workspaceId]);
     } finally {
-      await run('up');
+      await runStep(migration, 'up');
     }
     const rows = await em.getConnection().execute(`select id, typical_key, origin, water_g, sugars_g, sucrose_g, e_number, additive_class, composition_source, is_added_water from ingredients where workspace_id = ?`, [fx.workspaceId]);
     const byKey = new Map(rows.map((r: Record<string, unknown>) => [r.typical_key, r]));
@@ -197,7 +201,7 @@ describe('migration Migration20261203140000', () => {
     expect(byKey.get('water')).toMatchObject({ is_added_water: true, water_g: 100 });
     expect(byKey.get('potassium_sorbate')).toMatchObject({ origin: 'typical', e_number: 'E202', additive_class: 'preservative' });
     expect(rows.filter((r: Record<string, unknown>) => r.typical_key === 'potassium_sorbate')).toHaveLength(1);
-    const own = rows.find((r: Record<string, unknown>) => r.id === custom.body.ingredientId);
+    const own = rows.find((r: Record<string, unknown>) => r.id === ownId);
     expect(own).toMatchObject({ water_g: null, composition_source: null, is_added_water: false });
     expect(Object.keys(STARTER_LABEL_DATA).every((k) => byKey.has(k))).toBe(true);
   });
@@ -205,18 +209,14 @@ describe('migration Migration20261203140000', () => {
 
 describe('migration Migration20261204190000', () => {
   it('gives the starter foods of an existing workspace 0 mg cholesterol and leaves every other figure as it was', async () => {
-    const fx = await createWorkspace('Before cholesterol');
-    const em = await getEm();
-    const ids = await starterIds(fx);
-    const custom = await callRoute(ingredientsRoute.POST, { method: 'POST', path: '/api/v1/ingredients', caller: { kind: 'session', person: fx.people.developer }, body: { name: 'Butter for the foam', kind: 'other', solidsPct: 84 } });
+    const { fx, ids, ownId, em, migrationArgs } = await workspaceWithOwnEntry('Before cholesterol', { name: 'Butter for the foam', kind: 'other', solidsPct: 84 });
     const sql = (text: string, values: unknown[] = []) => em.getConnection().execute(text, values);
     // This workspace now looks like one from before the migration: no cholesterol anywhere, except a
     // figure someone entered on an edited starter entry (kept) and one on their own entry (kept).
     await sql(`update ingredients set cholesterol_mg = null where workspace_id = ?`, [fx.workspaceId]);
     await sql(`update ingredients set origin = 'edited', cholesterol_mg = 3 where id = ?`, [ids.apricot]);
-    await sql(`update ingredients set cholesterol_mg = 215 where id = ?`, [custom.body.ingredientId]);
-    const orm = await getOrm();
-    const migration = new Migration20261204190000(orm.em.getDriver(), orm.config);
+    await sql(`update ingredients set cholesterol_mg = 215 where id = ?`, [ownId]);
+    const migration = new Migration20261204190000(...migrationArgs);
     for (const step of ['down', 'up', 'up'] as const) await runStep(migration, step);
     const rows = await sql(`select id, typical_key, cholesterol_mg from ingredients where workspace_id = ?`, [fx.workspaceId]);
     const byKey = new Map(rows.map((r: Record<string, unknown>) => [r.typical_key, r.cholesterol_mg]));
@@ -225,6 +225,6 @@ describe('migration Migration20261204190000', () => {
     expect(byKey.get('water')).toBe(0);
     expect(byKey.get('invert_syrup')).toBeNull();
     expect(byKey.get('apricot')).toBe(3);
-    expect(rows.find((r: Record<string, unknown>) => r.id === custom.body.ingredientId)?.cholesterol_mg).toBe(215);
+    expect(rows.find((r: Record<string, unknown>) => r.id === ownId)?.cholesterol_mg).toBe(215);
   });
 });
