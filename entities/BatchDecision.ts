@@ -29,5 +29,8 @@ export const BatchDecision = defineEntity({
     createdAt: p.datetime().onCreate(() => new Date()),
   }),
   indexes: [{ properties: ['workspace', 'batch'] }],
+  // Written by hand in a migration; declared here so `migration:create` knows them (and does not drop them).
+  // One final decision (release or reject) per batch.
+  uniques: [{ name: 'batch_decisions_one_final', expression: `create unique index "batch_decisions_one_final" on "batch_decisions" ("batch_id") where "kind" in ('release', 'reject')` }],
 });
 export type BatchDecisionEntity = InferEntity<typeof BatchDecision>;

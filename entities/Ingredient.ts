@@ -69,5 +69,8 @@ export const Ingredient = defineEntity({
     updatedAt: p.datetime().onCreate(() => new Date()).onUpdate(() => new Date()),
   }),
   indexes: [{ properties: ['workspace', 'name'] }],
+  // Written by hand in a migration; declared here so `migration:create` knows them (and does not drop them).
+  // A double column's bound is spelled as PostgreSQL prints it back (`(0)::double precision`): the generator compares that text.
+  checks: [{ name: 'ingredients_refuse_pct_check', expression: '"refuse_pct" >= (0)::double precision and "refuse_pct" <= (95)::double precision' }],
 });
 export type IngredientEntity = InferEntity<typeof Ingredient>;

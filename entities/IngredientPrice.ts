@@ -26,5 +26,13 @@ export const IngredientPrice = defineEntity({
     withdrawnBy: p.manyToOne(User).nullable(),
     withdrawReason: p.text().nullable(),
   }),
+  // Written by hand in a migration; declared here so `migration:create` knows them (and does not drop them).
+  // A double column's bound is spelled as PostgreSQL prints it back (`(0)::double precision`): the generator compares that text.
+  // The price in force on a day (the newest valid_from, then the newest entry, not withdrawn) and a history by date.
+  indexes: [
+    { name: 'ingredient_prices_as_of_index', expression: 'create index "ingredient_prices_as_of_index" on "ingredient_prices" ("workspace_id", "ingredient_id", "valid_from" desc, "entered_at" desc) where "withdrawn_at" is null' },
+    { name: 'ingredient_prices_history_index', properties: ['workspace', 'ingredient', 'validFrom'] },
+  ],
+  checks: [{ name: 'ingredient_prices_amounts_check', expression: '"pack_price_minor" >= 0 and "pack_size_g" > (0)::double precision' }],
 });
 export type IngredientPriceEntity = InferEntity<typeof IngredientPrice>;

@@ -15,5 +15,8 @@ export const PackFormat = defineEntity({
     createdAt: p.datetime().onCreate(() => new Date()),
   }),
   indexes: [{ properties: ['workspace', 'name'] }],
+  // Written by hand in a migration; declared here so `migration:create` knows them (and does not drop them).
+  // A double column's bound is spelled as PostgreSQL prints it back (`(0)::double precision`): the generator compares that text.
+  checks: [{ name: 'pack_formats_net_fill_check', expression: '"net_fill_g" > (0)::double precision' }],
 });
 export type PackFormatEntity = InferEntity<typeof PackFormat>;

@@ -18,5 +18,7 @@ export const PackFormatItem = defineEntity({
     position: p.integer(),
   }),
   uniques: [{ properties: ['packFormat', 'packagingItem'] }],
+  // Written by hand in a migration; declared here so `migration:create` knows them (and does not drop them).
+  checks: [{ name: 'pack_format_items_share_check', expression: '"pieces" > 0 and "per_jars" > 0' }],
 });
 export type PackFormatItemEntity = InferEntity<typeof PackFormatItem>;

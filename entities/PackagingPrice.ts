@@ -25,5 +25,12 @@ export const PackagingPrice = defineEntity({
     withdrawnBy: p.manyToOne(User).nullable(),
     withdrawReason: p.text().nullable(),
   }),
+  // Written by hand in a migration; declared here so `migration:create` knows them (and does not drop them).
+  // The price in force on a day (the newest valid_from, then the newest entry, not withdrawn) and a history by date.
+  indexes: [
+    { name: 'packaging_prices_as_of_index', expression: 'create index "packaging_prices_as_of_index" on "packaging_prices" ("workspace_id", "packaging_item_id", "valid_from" desc, "entered_at" desc) where "withdrawn_at" is null' },
+    { name: 'packaging_prices_history_index', properties: ['workspace', 'packagingItem', 'validFrom'] },
+  ],
+  checks: [{ name: 'packaging_prices_amounts_check', expression: '"pack_price_minor" >= 0 and "pieces_per_pack" > 0' }],
 });
 export type PackagingPriceEntity = InferEntity<typeof PackagingPrice>;

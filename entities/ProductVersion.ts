@@ -46,7 +46,12 @@ export const ProductVersion = defineEntity({
     /** The cost on the approval day, frozen at approval (lib/costs); null without a workspace currency. */
     costAtApproval: p.json<FrozenCost>().nullable(),
   }),
-  uniques: [{ properties: ['product', 'version'] }],
   indexes: [{ properties: ['workspace', 'status'] }],
+  // Written by hand in a migration; declared here so `migration:create` knows them (and does not drop them).
+  // One current version per product.
+  uniques: [
+    { properties: ['product', 'version'] },
+    { name: 'production_formulas_one_current', expression: `create unique index "production_formulas_one_current" on "production_formulas" ("product_id") where "status" = 'current'` },
+  ],
 });
 export type ProductVersionEntity = InferEntity<typeof ProductVersion>;

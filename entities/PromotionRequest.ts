@@ -39,7 +39,12 @@ export const PromotionRequest = defineEntity({
     decisionComment: p.text().nullable(),
     productVersionId: p.uuid().nullable().fieldName('production_formula_id'),
   }),
-  uniques: [{ properties: ['workspace', 'number'] }],
   indexes: [{ properties: ['workspace', 'status'] }],
+  // Written by hand in a migration; declared here so `migration:create` knows them (and does not drop them).
+  // One pending request per trial.
+  uniques: [
+    { properties: ['workspace', 'number'] },
+    { name: 'promotion_requests_one_pending', expression: `create unique index "promotion_requests_one_pending" on "promotion_requests" ("trial_id") where "status" = 'pending'` },
+  ],
 });
 export type PromotionRequestEntity = InferEntity<typeof PromotionRequest>;
