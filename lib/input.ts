@@ -14,7 +14,7 @@
  * - ids: UUIDs.
  */
 import { z } from 'zod';
-import { readDecimal } from '@/lib/format/numbers';
+import { isAmbiguousComma, readDecimal, unreadableNumberMessage } from '@/lib/format/numbers';
 
 /** Calendar dates and date-times are accepted from this year… */
 export const YEAR_MIN = 1900;
@@ -158,7 +158,7 @@ export function numberFromText<S extends z.ZodType<number, number>>(what: string
     .transform((s, ctx) => {
       const n = parseDecimal(s);
       if (Number.isNaN(n)) {
-        ctx.addIssue({ code: 'custom', message: `Give ${what.toLowerCase()} as a number.` });
+        ctx.addIssue({ code: 'custom', message: isAmbiguousComma(s) ? `${what}: ${unreadableNumberMessage(s)}` : `Give ${what.toLowerCase()} as a number.` });
         return z.NEVER;
       }
       return n;

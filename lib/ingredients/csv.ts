@@ -8,6 +8,7 @@ import Papa from 'papaparse';
 import { z } from 'zod';
 import { toCsv } from '@/lib/csv';
 import { parseDecimal } from '@/lib/input';
+import { unreadableNumberMessage } from '@/lib/format/numbers';
 import { NUTRIENT_KEYS, type NutrientKey } from '@/lib/label/types';
 import { ingredientInputSchema, type IngredientInput, type IngredientView } from './schema';
 
@@ -35,7 +36,7 @@ const blankToNull = (raw: string) => (raw === '' ? null : raw);
 function numberCell(raw: string): { value: number | null; problem: string | null } {
   if (raw === '') return { value: null, problem: null };
   const n = parseDecimal(raw);
-  return Number.isFinite(n) ? { value: n, problem: null } : { value: null, problem: `“${raw}” is not a number.` };
+  return Number.isFinite(n) ? { value: n, problem: null } : { value: null, problem: unreadableNumberMessage(raw) };
 }
 const yes = (raw: string) => ['yes', 'true', '1', 'y'].includes(raw.toLowerCase());
 const list = (raw: string) => raw.split(/[;,]/).map((s) => s.trim()).filter(Boolean);

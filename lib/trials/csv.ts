@@ -9,6 +9,7 @@ import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
 import { ValidationFailed } from '@/lib/errors';
 import { toCsv } from '@/lib/csv';
 import { parseDecimal } from '@/lib/input';
+import { unreadableNumberMessage } from '@/lib/format/numbers';
 import { cookSchema } from './schema';
 import { cookColumns } from './mutations';
 import { getTrialOverview } from './queries';
@@ -73,7 +74,7 @@ export function parseCookCsv(text: string, variantIdByLabel: Map<string, string>
       if (col.kind === 'number') {
         const n = parseDecimal(raw);
         if (!Number.isFinite(n)) {
-          errors.push({ row: rowNumber, column: col.column, message: `“${raw}” is not a number.` });
+          errors.push({ row: rowNumber, column: col.column, message: unreadableNumberMessage(raw) });
           rowOk = false;
         } else candidate[col.field] = n;
       } else candidate[col.field] = raw;

@@ -4,6 +4,7 @@ import type { LineUnit } from '@/lib/chemistry';
 import { LINE_UNITS } from '@/lib/formulas/schema';
 import type { EditorIngredient } from '@/lib/ingredients/schema';
 import { FieldErrorText, inputClass } from '@/components/ui/Field';
+import { isAmbiguousComma, unreadableNumberMessage } from '@/lib/format/numbers';
 import { Button } from '@/components/ui/Button';
 import { IngredientPicker } from './IngredientPicker';
 import { LINE_UNIT_LABELS, setLineText, setLineUnit, type LineDraft, type LineField } from '../editor-state';
@@ -25,7 +26,7 @@ export interface LineRowProps {
 export function LineRow({ line, index, count, ingredients, ingredient, errors, massHint, onChange, onRemove, onMove }: LineRowProps) {
   const base = `line-${line.key}`;
   const number = index + 1;
-  const localQuantityError = line.base !== null && Number.isNaN(line.base) ? ['Enter a number, e.g. 250 or 1.5.'] : [];
+  const localQuantityError = line.base !== null && Number.isNaN(line.base) ? [isAmbiguousComma(line.text) ? unreadableNumberMessage(line.text) : 'Enter a number, e.g. 250 or 1.5.'] : [];
   const quantityErrors = [...localQuantityError, ...(errors?.quantity ?? [])];
   const ingredientErrors = errors?.ingredientId ?? [];
   const unitErrors = errors?.unit ?? [];

@@ -2,6 +2,7 @@
 
 import { PRESERVATION_LABELS, PRESERVATION_METHODS, type UnitPreference } from '@/lib/chemistry';
 import { PRODUCT_CLASS_LABELS, PRODUCT_CLASSES, RULE_SET_LABELS, RULE_SETS } from '@/lib/formulas/schema';
+import { isAmbiguousComma, unreadableNumberMessage } from '@/lib/format/numbers';
 import { altitudeScale, draftFromText, jarFillScale, temperatureScale, type DisplayScale, type MeasuredDraft, type TemperatureUnit } from '@/lib/format/quantities';
 import { Card } from '@/components/ui/Card';
 import { Field, SelectField } from '@/components/ui/Field';
@@ -54,7 +55,7 @@ const BOILING_SETTING: Record<SettingsDraft['boilingReference'], NumericSettingK
 
 /** A typed value that is not a number, before the server is asked. */
 function numberProblem(draft: MeasuredDraft): string[] {
-  return draft.base !== null && Number.isNaN(draft.base) ? ['Enter a number.'] : [];
+  return draft.base !== null && Number.isNaN(draft.base) ? [isAmbiguousComma(draft.text) ? unreadableNumberMessage(draft.text) : 'Enter a number.'] : [];
 }
 
 /** The formula's settings: product class, rules, solids target, jar, pH, preservation and where water boils. */
