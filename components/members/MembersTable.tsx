@@ -13,7 +13,11 @@ import { formatDate } from '@/lib/format/dates';
 import { TableBox } from '@/components/ui/TableBox';
 
 type MembersPayload = { members: MemberRow[]; invitations: PendingInvitation[] };
-type Pending = { kind: 'deactivate' | 'reactivate'; member: MemberRow } | { kind: 'revoke'; invitation: PendingInvitation } | null;
+type Pending =
+  | { kind: 'deactivate' | 'reactivate'; member: MemberRow }
+  | { kind: 'role'; member: MemberRow; role: Role }
+  | { kind: 'revoke'; invitation: PendingInvitation }
+  | null;
 
 const roleOptions = ROLES.map((r) => ({ value: r, label: ROLE_LABELS[r] }));
 
@@ -104,7 +108,7 @@ export function MembersTable({ currentUserId }: { currentUserId: string }) {
                     id={`role-${m.membershipId}`}
                     value={m.role}
                     disabled={busy || !m.active}
-                    onChange={(e) => changeRole(m, e.target.value as Role)}
+                    onChange={(e) => setPending({ kind: 'role', member: m, role: e.target.value as Role })}
                     className="rounded-md border-0 bg-white py-1 pl-2 pr-7 text-sm ring-1 ring-inset ring-rind-300"
                   >
                     {roleOptions.map((o) => <option key={o.value} value={o.value}>{o.label}</option>)}
@@ -136,20 +140,16 @@ export function MembersTable({ currentUserId }: { currentUserId: string }) {
       <ConfirmDialog
         open={pending !== null}
         busy={busy}
-        tone={pending?.kind === 'reactivate' ? 'primary' : 'danger'}
-        title={pending?.kind === 'revoke' ? 'Revoke this invitation?' : pending?.kind === 'deactivate' ? 'Deactivate this member?' : 'Reactivate this member?'}
-        body={
-          pending?.kind === 'revoke'
-            ? `The link sent to ${pending.invitation.email} will stop working.`
-            : pending?.kind === 'deactivate'
-              ? `${pending.member.name} will no longer be able to open this workspace. Their work stays, and you can reactivate them later.`
-              : pending ? `${pending.member.name} gets their access back with the role ${ROLE_LABELS[pending.member.role]}.` : null
-        }
-        confirmLabel={pending?.kind === 'revoke' ? 'Revoke' : pending?.kind === 'deactivate' ? 'Deactivate' : 'Reactivate'}
+        tone={pending?.kind === 'reactivate' || (pending?.kind === 'role' && pending.member.userId !== currentUserId) ? 'primary' : 'danger'}
+        title={pending ? confirmTitle(pending, currentUserId) : ''}
+        body={pending ? confirmBody(pending, currentUserId) : null}
+        confirmLabel={pending?.kind === 'revoke' ? 'Revoke' : pending?.kind === 'deactivate' ? 'Deactivate' : pending?.kind === 'role' ? 'Change role' : 'Reactivate'}
         onCancel={() => setPending(null)}
         onConfirm={() => {
           if (!pending) return;
-          if (pending.kind === 'revoke') {
+          if (pending.kind === 'role') {
+            void changeRole(pending.member, pending.role);
+          } else if (pending.kind === 'revoke') {
             void run(() => apiFetch(`/api/v1/invitations/${pending.invitation.invitationId}`, { method: 'DELETE' }), 'Invitation revoked.');
           } else {
             const active = pending.kind === 'reactivate';
@@ -162,4 +162,25 @@ export function MembersTable({ currentUserId }: { currentUserId: string }) {
       />
     </div>
   );
+}
+
+function confirmTitle(pending: NonNullable<Pending>, currentUserId: string): string {
+  switch (pending.kind) {
+    case 'revoke': return 'Revoke this invitation?';
+    case 'deactivate': return 'Deactivate this member?';
+    case 'reactivate': return 'Reactivate this member?';
+    case 'role': return pending.member.userId === currentUserId ? 'Change your own role?' : `Make ${pending.member.name} ${ROLE_LABELS[pending.role]}?`;
+  }
+}
+
+function confirmBody(pending: NonNullable<Pending>, currentUserId: string): string {
+  switch (pending.kind) {
+    case 'revoke': return `The link sent to ${pending.invitation.email} will stop working.`;
+    case 'deactivate': return `${pending.member.name} will no longer be able to open this workspace. Their work stays, and you can reactivate them later.`;
+    case 'reactivate': return `${pending.member.name} gets their access back with the role ${ROLE_LABELS[pending.member.role]}.`;
+    case 'role':
+      return pending.member.userId === currentUserId && pending.member.role === 'admin'
+        ? `You become ${ROLE_LABELS[pending.role]} at once and lose the administration of this workspace, this page included. Only another administrator can give it back.`
+        : `${pending.member.name} changes from ${ROLE_LABELS[pending.member.role]} to ${ROLE_LABELS[pending.role]} at their next click. The change goes in the audit trail.`;
+  }
 }

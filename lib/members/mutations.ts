@@ -2,6 +2,7 @@ import 'server-only';
 /** Member administration. The API handlers and the server actions both call these. */
 import { LockMode } from '@mikro-orm/core';
 import { getEm } from '@/lib/db';
+import { writeAudit } from '@/lib/audit';
 import { Invitation, Membership, User, Workspace } from '@/entities';
 import { inWorkspace, notFound, ROLE_LABELS, type Actor } from '@/lib/permissions';
 import { Conflict } from '@/lib/errors';
@@ -21,17 +22,21 @@ export async function inviteMember(actor: Actor, input: InviteMemberInput): Prom
   }
   const token = newSecret();
   const expiresAt = new Date(Date.now() + INVITATION_LIFETIME_HOURS * 3600_000);
-  // A new invitation replaces any earlier open one for the same address.
-  await em.nativeUpdate(Invitation, { ...inWorkspace(actor), email: input.email, acceptedAt: null, revokedAt: null }, { revokedAt: new Date() });
-  const invitation = em.create(Invitation, {
-    workspace: actor.workspaceId,
-    email: input.email,
-    role: input.role,
-    tokenHash: hashSecret(token),
-    invitedBy: actor.userId,
-    expiresAt,
+  const invitation = await em.transactional(async (tx) => {
+    // A new invitation replaces any earlier open one for the same address.
+    await tx.nativeUpdate(Invitation, { ...inWorkspace(actor), email: input.email, acceptedAt: null, revokedAt: null }, { revokedAt: new Date() });
+    const created = tx.create(Invitation, {
+      workspace: actor.workspaceId,
+      email: input.email,
+      role: input.role,
+      tokenHash: hashSecret(token),
+      invitedBy: actor.userId,
+      expiresAt,
+    });
+    await tx.flush();
+    writeAudit(tx, actor, 'member.invited', { type: 'invitation', id: created.id }, `Invited ${input.email} as ${ROLE_LABELS[input.role]}`);
+    return created;
   });
-  await em.flush();
 
   const workspace = await em.findOneOrFail(Workspace, { id: actor.workspaceId });
   const link = `${env().APP_URL}/accept-invite/${token}`;
@@ -56,12 +61,12 @@ export async function inviteMember(actor: Actor, input: InviteMemberInput): Prom
 
 export async function revokeInvitation(actor: Actor, invitationId: string): Promise<void> {
   const em = await getEm();
-  const updated = await em.nativeUpdate(
-    Invitation,
-    { ...inWorkspace(actor), id: invitationId, acceptedAt: null, revokedAt: null },
-    { revokedAt: new Date() },
-  );
-  if (updated === 0) throw notFound('invitation');
+  await em.transactional(async (tx) => {
+    const invitation = await tx.findOne(Invitation, { ...inWorkspace(actor), id: invitationId, acceptedAt: null, revokedAt: null }, { lockMode: LockMode.PESSIMISTIC_WRITE });
+    if (!invitation) throw notFound('invitation');
+    invitation.revokedAt = new Date();
+    writeAudit(tx, actor, 'member.invitation_revoked', { type: 'invitation', id: invitation.id }, `Revoked the invitation to ${invitation.email}`);
+  });
 }
 
 /**
@@ -81,7 +86,15 @@ export async function updateMember(actor: Actor, membershipId: string, input: Up
         throw new Conflict('A workspace always needs an active administrator. Make someone else an administrator first.');
       }
     }
-    if (input.role) target.role = input.role;
-    if (input.active !== undefined) target.active = input.active;
+    const user = await tx.findOneOrFail(User, { id: target.user.id }, { fields: ['name', 'email'] });
+    const who = `${user.name} (${user.email})`;
+    if (input.role && input.role !== target.role) {
+      writeAudit(tx, actor, 'member.role_changed', { type: 'membership', id: target.id }, `${who}: ${ROLE_LABELS[target.role]} → ${ROLE_LABELS[input.role]}`);
+      target.role = input.role;
+    }
+    if (input.active !== undefined && input.active !== target.active) {
+      writeAudit(tx, actor, input.active ? 'member.reactivated' : 'member.deactivated', { type: 'membership', id: target.id }, `${input.active ? 'Reactivated' : 'Deactivated'} ${who}`);
+      target.active = input.active;
+    }
   });
 }

@@ -2,8 +2,9 @@ import 'server-only';
 /** Price and packaging writes, shared by the server actions and the API. Every point is an insert; a withdrawal is the only change. */
 import type { EntityManager } from '@mikro-orm/postgresql';
 import { getEm } from '@/lib/db';
+import { writeAudit } from '@/lib/audit';
 import {
-  AuditEvent, CostSettings, Formula, Ingredient, IngredientPrice, PackagingItem, PackagingPrice, PackFormat, PackFormatItem, ProductVersion,
+  CostSettings, Formula, Ingredient, IngredientPrice, PackagingItem, PackagingPrice, PackFormat, PackFormatItem, ProductVersion,
 } from '@/entities';
 import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
 import { Conflict, ValidationFailed } from '@/lib/errors';
@@ -13,12 +14,6 @@ import type { CostSettingsInput, IngredientPriceInput, PackagingItemInput, Packa
 
 export const NO_CURRENCY_MESSAGE = 'Choose the workspace currency first (Settings → Costs and currency); every price is stated in it.';
 
-function audit(tx: EntityManager, actor: Actor, action: string, subject: { type: string; id: string }, summary: string): void {
-  tx.create(AuditEvent, {
-    workspace: actor.workspaceId, actor: actor.userId, actorName: actor.name, actorRole: actor.role,
-    action, subjectType: subject.type, subjectId: subject.id, promotionRequestId: null, summary,
-  });
-}
 
 /** Saves currency, overfill and warning threshold. The currency is fixed once a price exists: prices are never converted. */
 export async function saveCostSettings(actor: Actor, input: CostSettingsInput): Promise<void> {
@@ -33,7 +28,7 @@ export async function saveCostSettings(actor: Actor, input: CostSettingsInput): 
     if (row) tx.assign(row, columns);
     else tx.create(CostSettings, { ...columns, workspace: actor.workspaceId });
     await tx.flush();
-    audit(tx, actor, 'costs.settings_saved', { type: 'workspace', id: actor.workspaceId },
+    writeAudit(tx, actor, 'costs.settings_saved', { type: 'workspace', id: actor.workspaceId },
       `Cost settings: ${input.currency}, overfill ${input.overfillPct} %, warning above ${input.costWarningPct} %`);
   });
 }
@@ -94,7 +89,7 @@ async function withdrawPoint(actor: Actor, kind: 'ingredient' | 'packaging', pri
     const n = await tx.nativeUpdate(entity as typeof IngredientPrice, { ...inWorkspace(actor), id: priceId, withdrawnAt: null }, { withdrawnAt: new Date(), withdrawnBy: actor.userId, withdrawReason: reason });
     if (n === 0) throw new Conflict('This price was already withdrawn.');
     const currency = await currencyOf(tx, actor.workspaceId);
-    audit(tx, actor, 'price.withdrawn', { type: `${kind}_price`, id: priceId },
+    writeAudit(tx, actor, 'price.withdrawn', { type: `${kind}_price`, id: priceId },
       `Withdrew the price of ${row.subject} from ${row.validFrom} (${formatMoney(row.packPriceMinor, currency)}): ${reason}`);
   });
 }
@@ -205,7 +200,7 @@ export async function setVersionPackFormat(actor: Actor, versionId: string, pack
     if (!version) throw notFound('production version');
     const format = await pickableFormat(tx, actor, packFormatId);
     await tx.nativeUpdate(ProductVersion, { ...inWorkspace(actor), id: versionId }, { packFormat: packFormatId });
-    audit(tx, actor, 'version.pack_format', { type: 'production_formula', id: versionId },
+    writeAudit(tx, actor, 'version.pack_format', { type: 'production_formula', id: versionId },
       `Pack format of ${version.product.code} v${version.version}: ${format ? format.name : 'none'}`);
   });
 }

@@ -100,6 +100,28 @@ describe('invitations', () => {
     await gp.goto(path);
     await gp.getByRole('heading', { name: 'This invitation cannot be used' }).waitFor();
     await guest.close();
+
+    // A role change asks first (a walk found one stray click demoting the admin themself), and goes in the audit trail.
+    await page.reload();
+    const role = page.getByLabel('Role of Pia Newcomb');
+    await role.selectOption('taster');
+    const dialog = page.getByRole('dialog');
+    await dialog.getByRole('heading', { name: 'Make Pia Newcomb Taster?' }).waitFor();
+    await dialog.getByRole('button', { name: 'Cancel' }).click();
+    await expect.poll(() => role.inputValue()).toBe('production');
+    await role.selectOption('taster');
+    await dialog.getByRole('button', { name: 'Change role' }).click();
+    await page.getByText('Pia Newcomb is now Taster.').waitFor();
+    await expect.poll(() => role.inputValue()).toBe('taster');
+    const own = page.getByLabel(`Role of ${DEMO_USERS[0].name}`);
+    await own.selectOption('developer');
+    await dialog.getByRole('heading', { name: 'Change your own role?' }).waitFor();
+    expect(await dialog.innerText()).toContain('lose the administration of this workspace');
+    await dialog.getByRole('button', { name: 'Cancel' }).click();
+    await expect.poll(() => own.inputValue()).toBe('admin');
+    await page.goto('/production/audit');
+    await page.getByTestId('audit-trail').getByText(`Pia Newcomb (${invitee}): Production lead → Taster`).waitFor();
+    await page.getByTestId('audit-trail').getByText(`Invited ${invitee} as Production lead`).waitFor();
     await ctx.close();
   });
 });

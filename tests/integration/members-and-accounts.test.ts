@@ -5,7 +5,8 @@ import * as membersRoute from '@/app/api/v1/members/route';
 import * as memberRoute from '@/app/api/v1/members/[membershipId]/route';
 import { acceptInvitationAction, requestPasswordResetAction, resetPasswordAction } from '@/lib/account/actions';
 import { getEm } from '@/lib/db';
-import { Invitation, Membership, User } from '@/entities';
+import { AuditEvent, Invitation, Membership, User } from '@/entities';
+import * as invitationRoute from '@/app/api/v1/invitations/[invitationId]/route';
 import { verifyPassword } from '@/lib/passwords';
 import { consumeSignInAttempt, signInSucceeded, RateLimited, SIGN_IN_LIMITS } from '@/lib/rate-limit';
 
@@ -124,6 +125,47 @@ describe('the last administrator', () => {
     const me = await import('@/app/api/v1/me/route');
     const res = await callRoute(me.GET, { method: 'GET', path: '/api/v1/me', caller: { kind: 'session', person: ws.people.production } });
     expect(res.status).toBe(401);
+  });
+});
+
+describe('membership changes in the audit trail', () => {
+  // A walk found role changes nowhere in the trail: who made whom an administrator must be on record.
+  it('records invitations, revocations, role changes and (de)activations, with who did them, and nothing for a no-op', async () => {
+    const ws = await createWorkspace('Audited members');
+    const caller = { kind: 'session' as const, person: ws.people.admin };
+    const em = await getEm();
+    const m = await em.findOneOrFail(Membership, { workspace: ws.workspaceId, user: ws.people.taster.userId });
+    const patch = (body: object) => callRoute(memberRoute.PATCH, { method: 'PATCH', path: `/api/v1/members/${m.id}`, caller, params: { membershipId: m.id }, body });
+
+    expect((await patch({ role: 'production' })).status).toBe(200);
+    expect((await patch({ role: 'production' })).status).toBe(200);
+    expect((await patch({ active: false })).status).toBe(200);
+    expect((await patch({ active: true })).status).toBe(200);
+    const email = `audited.${Date.now()}@test.example`;
+    const invited = await callRoute(membersRoute.POST, { method: 'POST', path: '/api/v1/members', caller, body: { email, role: 'developer' } });
+    expect(invited.status).toBe(201);
+    const invitationId = (invited.body as { invitation: { invitationId: string } }).invitation.invitationId;
+    const revoked = await callRoute(invitationRoute.DELETE, { method: 'DELETE', path: `/api/v1/invitations/${invitationId}`, caller, params: { invitationId } });
+    expect(revoked.status).toBe(200);
+
+    const events = await em.fork().find(AuditEvent, { workspace: ws.workspaceId }, { orderBy: { at: 'asc' } });
+    const adminName = (await em.fork().findOneOrFail(User, { id: ws.people.admin.userId })).name;
+    const tasterName = (await em.fork().findOneOrFail(User, { id: ws.people.taster.userId })).name;
+    expect(events.map((e) => e.action)).toEqual(['member.role_changed', 'member.deactivated', 'member.reactivated', 'member.invited', 'member.invitation_revoked']);
+    expect(events.every((e) => e.actorName === adminName && e.actorRole === 'admin')).toBe(true);
+    expect(events[0].summary).toBe(`${tasterName} (${ws.people.taster.email}): Taster → Production lead`);
+    expect(events[0].subjectId).toBe(m.id);
+    expect(events[3].summary).toBe(`Invited ${email} as Product developer`);
+    expect(events[4].summary).toBe(`Revoked the invitation to ${email}`);
+  });
+
+  it('a refused change (the last administrator) writes nothing', async () => {
+    const ws = await createWorkspace('Audited refusal');
+    const em = await getEm();
+    const own = await em.findOneOrFail(Membership, { workspace: ws.workspaceId, user: ws.people.admin.userId });
+    const res = await callRoute(memberRoute.PATCH, { method: 'PATCH', path: `/api/v1/members/${own.id}`, caller: { kind: 'session', person: ws.people.admin }, params: { membershipId: own.id }, body: { role: 'taster' } });
+    expect(res.status).toBe(409);
+    expect(await em.fork().count(AuditEvent, { workspace: ws.workspaceId })).toBe(0);
   });
 });
 

@@ -11,7 +11,7 @@ export default async function AuditPage() {
   const events = await listAuditEvents(actor);
   return (
     <>
-      <PageHeader title="Audit trail" lead="Every promotion step and batch record, newest first. The trail is written with each change and no one can edit it." />
+      <PageHeader title="Audit trail" lead="Every promotion step, batch record, price change and change of membership, newest first. The trail is written with each change and no one can edit it." />
       <Card><AuditTrail events={events} showRequest /></Card>
     </>
   );
