@@ -95,7 +95,8 @@ export function answerRequestBody(item: QueuedAnswer): Record<string, unknown> {
     case 'rated':
       return { idempotencyKey: item.idempotencyKey, code: a.code, attributeId: a.attributeId, value: a.value };
     case 'ranking':
-      return { idempotencyKey: item.idempotencyKey, attributeId: a.attributeId, ranking: [...a.ranking] };
+      // A preference ranking has no attribute: the field is left out, never sent empty (the contract wants a UUID or nothing).
+      return { idempotencyKey: item.idempotencyKey, ...(a.attributeId ? { attributeId: a.attributeId } : {}), ranking: [...a.ranking] };
     case 'triangle': {
       const body: Record<string, unknown> = { idempotencyKey: item.idempotencyKey, oddCode: a.oddCode };
       if (a.confidence !== undefined) body.confidence = a.confidence;

@@ -195,9 +195,38 @@ export async function recordAnswer(token: string, input: AnswerInput): Promise<{
   return { stored: true, duplicate: false, stale: false };
 }
 
+/**
+ * What a seat still lacks before it can be submitted, in the taster's words; empty when complete.
+ * PURE. The phone asks for the same before it offers "Submit", but only the stored answers count: an
+ * answer the phone holds and the server refused must not end in "Thank you".
+ */
+export function missingBeforeSubmit(
+  method: SessionRow['method'],
+  stored: ReadonlyArray<{ kind: string; item: string; attribute: string }>,
+  need: { consented: boolean; codes: readonly string[]; attributeIds: readonly string[] },
+): string | null {
+  if (!need.consented) return 'Agree to take part first.';
+  if (method === 'ranking') return stored.some((a) => a.kind === 'ranking') ? null : 'Your order of the samples has not reached the organiser yet: save it again, then submit.';
+  if (method === 'triangle') return stored.some((a) => a.kind === 'triangle') ? null : 'Your choice of the odd sample has not reached the organiser yet: choose it again, then submit.';
+  const have = new Set(stored.filter((a) => a.kind === 'rating').map((a) => `${a.item}\u0000${a.attribute}`));
+  const missing = need.codes.flatMap((code) => need.attributeIds.filter((id) => !have.has(`${code}\u0000${id}`)).map(() => code));
+  if (!missing.length) return null;
+  const samples = [...new Set(missing)];
+  return `Some answers have not reached the organiser yet (sample${samples.length === 1 ? '' : 's'} ${samples.join(', ')}): answer them again, then submit.`;
+}
+
 export async function submitSeat(token: string): Promise<void> {
   const { seat, session } = await seatFor(token);
   if (session.state !== 'open') throw closed();
+  const stored = await sql<{ kind: string; item: string; attribute: string }>(
+    'select kind, item, attribute from panel_answers where seat_id = $1',
+    [seat.id],
+    'setwell_submit_answers',
+  );
+  const missing = missingBeforeSubmit(session.method, stored, {
+    consented: !!seat.consentedAt, codes: seat.servingOrder.map((c) => c.code), attributeIds: session.attributeIds,
+  });
+  if (missing) throw new ValidationFailed(missing, { answers: [missing] });
   const em = await getEm();
   await em.nativeUpdate(TastingSeat, { id: seat.id, submittedAt: null }, { submittedAt: new Date() });
 }

@@ -224,7 +224,7 @@ export async function watchCsp(page: Page): Promise<Violation[]> {
  * the organiser and opened; a staff taster seated when named. Tests that need an open tasting make
  * their own, so the seeded ones (which other tests close) stay as they are.
  */
-export async function openApricotTasting(browser: Browser, o: { organiserEmail: string; title: string; attribute: string | string[]; seat?: string }): Promise<{ joinCode: string; tastingId: string }> {
+export async function openApricotTasting(browser: Browser, o: { organiserEmail: string; title: string; attribute: string | string[]; seat?: string; method?: 'rated' | 'ranking'; samples?: number }): Promise<{ joinCode: string; tastingId: string }> {
   const ctx = await newContext(browser);
   const page = await ctx.newPage();
   await signIn(page, o.organiserEmail);
@@ -239,7 +239,7 @@ export async function openApricotTasting(browser: Browser, o: { organiserEmail: 
   const attributeIds = wanted.map((name) => (attributes as Array<{ id: string; name: string }>).find((a) => a.name === name)!.id);
   const created = await page.request.post(`/api/v1/trials/${trialId}/tastings`, {
     ...write,
-    data: { title: o.title, method: 'rated', variantIds: variants.slice(0, 2).map((v: { id: string }) => v.id), attributeIds, notice: 'Apricot spreads with fruit, sugar and pectin.' },
+    data: { title: o.title, method: o.method ?? 'rated', variantIds: variants.slice(0, o.samples ?? 2).map((v: { id: string }) => v.id), attributeIds, notice: 'Apricot spreads with fruit, sugar and pectin.' },
   });
   if (created.status() !== 201) throw new Error(`tasting not created: ${await created.text()}`);
   const { tastingId } = await created.json();

@@ -70,6 +70,42 @@ describe('a tasting on phones', () => {
   });
 });
 
+describe('a preference ranking on a phone', () => {
+  // A walk found every preference order refused by the server while the phone said "Thank you".
+  it('puts three samples in order, submits, and the organiser sees the seat submitted with its rank sums', async () => {
+    const { tastingId, joinCode } = await openApricotTasting(browser(), { organiserEmail: developer.email, title: 'Phone walk: which do you prefer', attribute: [], method: 'ranking', samples: 3 });
+    const phoneCtx = await newContext(browser(), { width: 390, height: 844 });
+    const phone = await phoneCtx.newPage();
+    const csp = await watchCsp(phone);
+    await phone.goto(`/join?code=${joinCode}`);
+    await phone.getByLabel('Your name').fill('Ranking guest');
+    await phone.getByRole('button', { name: 'Join the tasting' }).click();
+    await phone.waitForURL(/\/t\/sws_/);
+    await phone.getByRole('button', { name: 'I agree, start' }).click();
+    await phone.getByRole('heading', { name: 'Put them in order' }).waitFor();
+    const order = phone.getByRole('list', { name: 'Your order, best first' });
+    const before = (await order.getByRole('listitem').allTextContents()).map((t) => t.replace(/\D/g, '').slice(0, 3));
+    await phone.getByRole('button', { name: `Move ${before[2]} up` }).click();
+    await phone.getByRole('button', { name: 'Save this order' }).click();
+    await phone.getByRole('button', { name: 'Submit my answers' }).click();
+    await phone.getByRole('heading', { name: 'Thank you!' }).waitFor();
+    expect(await phone.getByText('not valid').count()).toBe(0);
+    await screenshot(phone, 'phone-ranking-thanks');
+    expect(csp).toEqual([]);
+
+    const desk = await newContext(browser());
+    const organiser = await desk.newPage();
+    await signIn(organiser, developer.email);
+    await organiser.goto(`/tastings/${tastingId}`);
+    await expect.poll(async () => organiser.getByTestId('seat-progress').textContent(), { timeout: 15_000 }).toMatch(/Ranking guest.*Submitted/);
+    await organiser.goto(`/tastings/${tastingId}/results`);
+    await organiser.getByRole('heading', { name: 'Ranking' }).waitFor();
+    await organiser.getByText('Only 1 ranking: a first look').waitFor();
+    await phoneCtx.close();
+    await desk.close();
+  });
+});
+
 describe('answers given without a connection', () => {
   it('keeps an offline answer on the phone and sends it on reconnecting, and after a reload; the first screen is in the HTML', async () => {
     const { joinCode } = await openApricotTasting(browser(), { organiserEmail: developer.email, title: 'Offline check', attribute: 'Overall liking' });

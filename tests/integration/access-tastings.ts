@@ -5,7 +5,7 @@ import { actorOf, type WorkspaceFixture } from './harness';
 import { createTasting, inviteStaffTasters, openTasting } from '@/lib/tastings/mutations';
 import { listAttributes } from '@/lib/tastings/queries';
 import { joinAsGuest } from '@/lib/tastings/mutations';
-import { recordConsent } from '@/lib/taster/seat';
+import { recordAnswer, recordConsent } from '@/lib/taster/seat';
 import { randomUUID } from 'node:crypto';
 import type { Role } from '@/lib/permissions';
 
@@ -29,6 +29,20 @@ export async function seatFixture(a: WorkspaceFixture) {
   const p = await tastingFixture(a);
   const { seatToken } = await joinAsGuest({ joinCode: p.joinCode!, displayName: 'Guest taster' });
   return { ...p, seatToken };
+}
+
+/** A seat that has agreed and answered every question, so it may be submitted. */
+async function completeSeatFixture(a: WorkspaceFixture) {
+  const s = await seatFixture(a);
+  await recordConsent(s.seatToken);
+  const { tasterView } = await import('@/lib/taster/seat');
+  const view = await tasterView(s.seatToken);
+  for (const sample of view.samples) {
+    for (const attribute of view.attributes) {
+      await recordAnswer(s.seatToken, { idempotencyKey: randomUUID(), code: sample.code, attributeId: attribute.id, value: attribute.scale.kind === 'category' ? attribute.scale.points[0].value : attribute.scale.min });
+    }
+  }
+  return s;
 }
 
 export const TASTINGS_ROUTE_CASES: RouteCase[] = [
@@ -94,7 +108,7 @@ export const TASTINGS_ROUTE_CASES: RouteCase[] = [
       return { params: { seatToken: s.seatToken }, body: { idempotencyKey: randomUUID(), code: view.samples[0].code, attributeId: s.attributeId, value: 7 } };
     },
   },
-  { route: 'POST /api/v1/tastings/seats/[seatToken]/submit', allowed: 'public', otherWorkspace: 'public', prepare: async (a) => ({ params: { seatToken: (await seatFixture(a)).seatToken } }) },
+  { route: 'POST /api/v1/tastings/seats/[seatToken]/submit', allowed: 'public', otherWorkspace: 'public', prepare: async (a) => ({ params: { seatToken: (await completeSeatFixture(a)).seatToken } }) },
 ];
 
 /** An open tasting where every person of workspace A holds a staff seat, so each can ask for their own seat link. */

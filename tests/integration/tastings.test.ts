@@ -12,6 +12,8 @@ import { recordAnswer, recordConsent, tasterView, submitSeat } from '@/lib/taste
 import * as joinRoute from '@/app/api/v1/tastings/join/route';
 import * as viewRoute from '@/app/api/v1/tastings/seats/[seatToken]/route';
 import * as answersRoute from '@/app/api/v1/tastings/seats/[seatToken]/answers/route';
+import * as submitRoute from '@/app/api/v1/tastings/seats/[seatToken]/submit/route';
+import { answerRequestBody } from '@/lib/taster/answer-queue';
 import * as summaryRoute from '@/app/api/v1/tastings/[tastingId]/summary.csv/route';
 import * as rawRoute from '@/app/api/v1/tastings/[tastingId]/answers.csv/route';
 import { getEm } from '@/lib/db';
@@ -51,6 +53,50 @@ const seat = async (joinCode: string, name = 'Guest') => {
   await recordConsent(seatToken);
   return seatToken;
 };
+
+describe('submitting a seat', () => {
+  // A walk found a preference ranking lost on every phone: the phone sent attributeId "" (refused, 422),
+  // then "Submit" still answered "Thank you" with nothing stored. Only stored answers may be submitted.
+  it('a preference ranking sent as the phone sends it is stored, and the seat can then be submitted', async () => {
+    const dev = actorOf(a, 'developer');
+    const t = await trialWith(3);
+    const { tastingId } = await createTasting(dev, t.trialId, { title: 'Preference order', method: 'ranking', variantIds: t.variantIds, attributeIds: [], notice: 'Contains fruit.' });
+    const { joinCode } = await openTasting(dev, tastingId);
+    const token = await seat(joinCode, 'Ranker');
+    const view = await tasterView(token);
+    expect(view.ranking?.attributeId).toBeNull();
+    const submit = () => callRoute(submitRoute.POST, { method: 'POST', path: '', caller: { kind: 'outsider' }, params: { seatToken: token } });
+
+    const early = await submit();
+    expect(early.status).toBe(422);
+    expect(early.body.error.message).toBe('Your order of the samples has not reached the organiser yet: save it again, then submit.');
+
+    const order = view.samples.map((x) => x.code).reverse();
+    const body = answerRequestBody({ idempotencyKey: randomUUID(), answer: { kind: 'ranking', attributeId: view.ranking?.attributeId ?? '', ranking: order }, attempts: 0 });
+    const put = await callRoute(answersRoute.PUT, { method: 'PUT', path: '', caller: { kind: 'outsider' }, params: { seatToken: token }, body });
+    expect(put.status, JSON.stringify(put.body)).toBe(200);
+    expect((await submit()).status).toBe(200);
+    const rows = await (await getEm()).fork().find(TastingAnswer, { session: tastingId });
+    expect(rows.map((r) => r.ranking)).toEqual([order]);
+  });
+
+  it('refuses a seat that has not agreed, or whose answers are incomplete, and marks nothing submitted', async () => {
+    const s = await ratedSession(2);
+    const { seatToken: unconsented } = await joinAsGuest({ joinCode: s.joinCode, displayName: 'Not agreed' });
+    await expect(submitSeat(unconsented)).rejects.toThrow('Agree to take part first.');
+    const half = await seat(s.joinCode, 'Half done');
+    const v = await tasterView(half);
+    await recordAnswer(half, { idempotencyKey: randomUUID(), code: v.samples[0].code, attributeId: s.liking.id, value: 6 });
+    await recordAnswer(half, { idempotencyKey: randomUUID(), code: v.samples[0].code, attributeId: s.firmness.id, value: 5 });
+    await recordAnswer(half, { idempotencyKey: randomUUID(), code: v.samples[1].code, attributeId: s.liking.id, value: 6 });
+    await expect(submitSeat(half)).rejects.toThrow(`Some answers have not reached the organiser yet (sample ${v.samples[1].code}): answer them again, then submit.`);
+    const progress = await getTasting(actorOf(a, 'developer'), s.tastingId);
+    expect(progress.seats.map((x) => x.status)).not.toContain('submitted');
+    await recordAnswer(half, { idempotencyKey: randomUUID(), code: v.samples[1].code, attributeId: s.firmness.id, value: 5 });
+    await submitSeat(half);
+    expect((await getTasting(actorOf(a, 'developer'), s.tastingId)).seats.find((x) => x.displayName === 'Half done')?.status).toBe('submitted');
+  });
+});
 
 describe('blinding and serving orders', () => {
   it('gives each sample a unique allowed three-digit code and Williams-balanced orders seat by seat', async () => {
@@ -119,7 +165,10 @@ describe('answers', () => {
     const done = await seat(s.joinCode, 'Done');
     const late = await seat(s.joinCode, 'Late');
     const v = await tasterView(done);
-    await recordAnswer(done, { idempotencyKey: randomUUID(), code: v.samples[0].code, attributeId: s.liking.id, value: 6 });
+    for (const sample of v.samples) {
+      await recordAnswer(done, { idempotencyKey: randomUUID(), code: sample.code, attributeId: s.liking.id, value: 6 });
+      await recordAnswer(done, { idempotencyKey: randomUUID(), code: sample.code, attributeId: s.firmness.id, value: 5 });
+    }
     await submitSeat(done);
     const { openSeats } = await closeTasting(actorOf(a, 'developer'), s.tastingId);
     expect(openSeats).toBe(1);
@@ -132,12 +181,12 @@ describe('answers', () => {
     const progress = await getTasting(actorOf(a, 'developer'), s.tastingId);
     expect(progress.seats.map((x) => x.status)).toEqual(['submitted', 'partial']);
     // The set-up is read in one statement: seats in seat order with their answers counted, times as ISO strings.
-    expect(progress.seats.map((x) => [x.seatIndex, x.displayName, x.answered, x.consented])).toEqual([[0, 'Done', 1, true], [1, 'Late', 0, true]]);
+    expect(progress.seats.map((x) => [x.seatIndex, x.displayName, x.answered, x.consented])).toEqual([[0, 'Done', 4, true], [1, 'Late', 0, true]]);
     const times = [progress.createdAt, progress.openedAt, progress.closedAt, ...progress.seats.map((x) => x.lastSeenAt).filter((t) => t !== null)];
     expect(times.length).toBeGreaterThan(3);
     for (const t of times) expect(t).toBe(new Date(String(t)).toISOString());
     await expect(getTasting(actorOf(b, 'developer'), s.tastingId)).rejects.toMatchObject({ status: 404 });
-    expect(await (await getEm()).count(TastingAnswer, { session: s.tastingId })).toBe(1);
+    expect(await (await getEm()).count(TastingAnswer, { session: s.tastingId })).toBe(4);
     // The trial page's list counts the seats and the submitted ones, scoped to the workspace.
     const listed = await listTrialTastings(actorOf(a, 'developer'), s.trialId);
     expect(listed.map((t) => [t.id, t.trialId, t.state, t.seats, t.submitted])).toEqual([[s.tastingId, s.trialId, 'closed', 2, 1]]);

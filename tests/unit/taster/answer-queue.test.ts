@@ -284,6 +284,8 @@ describe('AnswerQueue', () => {
       ranking: ['1', '2'],
     });
     expect(answerRequestBody({ idempotencyKey: 'k', attempts: 0, answer: { kind: 'triangle', oddCode: '615' } })).toEqual({ idempotencyKey: 'k', oddCode: '615' });
+    // A preference ranking has no attribute: the field is left out, not sent as "" (which the server refuses).
+    expect(answerRequestBody({ idempotencyKey: 'k', attempts: 0, answer: { kind: 'ranking', attributeId: '', ranking: ['1', '2'] } })).toEqual({ idempotencyKey: 'k', ranking: ['1', '2'] });
   });
 });
 
