@@ -111,12 +111,15 @@ function verdictFor(attr: TastingDataAttribute, anova: AnovaResult, cmp: Compari
   const treat = anova.rows.find((r) => r.source === 'treatments');
   if (!treat || treat.p === null) return { headline: anova.message ?? 'These answers do not allow a test.', differs: null, cautions };
   if (treat.p >= ALPHA) return { headline: `No clear difference between the samples on ${attr.name.toLowerCase()} (${formatP(treat.p)}).`, differs: false, cautions };
-  // Name the top sample(s) and those significantly below them.
+  // Name only pairs the letters separate: samples sharing no letter differ (Tukey HSD). `below` are those
+  // apart from the top sample; the samples named above them are the top one and any other that is
+  // apart from every one of them too. A sample tied with the top but sharing a letter with one below
+  // it is named on neither side.
   const top = cmp.orderedLabels[0];
-  const topLetters = cmp.letters[top] ?? '';
-  const tiedWithTop = cmp.orderedLabels.filter((l) => [...(cmp.letters[l] ?? '')].some((c) => topLetters.includes(c)));
-  const below = cmp.orderedLabels.filter((l) => !tiedWithTop.includes(l));
-  const who = tiedWithTop.length === 1 ? `Sample ${top} is` : `Samples ${list(tiedWithTop)} are`;
+  const apart = (x: string, y: string) => ![...(cmp.letters[x] ?? '')].some((c) => (cmp.letters[y] ?? '').includes(c));
+  const below = cmp.orderedLabels.filter((l) => apart(l, top));
+  const above = cmp.orderedLabels.filter((l) => !below.includes(l) && below.every((b) => apart(l, b)));
+  const who = above.length === 1 ? `Sample ${above[0]} is` : `Samples ${list(above)} are`;
   const headline = below.length
     ? `${who} ${comparative(attr)} than ${list(below)}; the difference is unlikely to be chance, ${formatP(treat.p)}.`
     : `The samples differ on ${attr.name.toLowerCase()} overall (${formatP(treat.p)}), but no single pair stands apart after Tukey's adjustment.`;
@@ -187,7 +190,7 @@ export function analyseTasting(data: TastingData, options: AnalysisOptions = {})
       .filter((a) => a.kind === 'ranking' && a.rankingSampleIds)
       .map((a) => ({ block: `seat-${a.seatIndex}`, values: Object.fromEntries(a.rankingSampleIds!.map((id, i) => [labelOf.get(id) ?? id, i + 1])) }));
     const friedman = friedmanTest(blocks, { treatments: data.samples.map((s) => s.label) });
-    const cautions = blocks.length < SMALL_PANEL ? [`Only ${blocks.length} rankings: a first look (common practice is at least ${SMALL_PANEL}).`] : [];
+    const cautions = blocks.length < SMALL_PANEL ? [`Only ${blocks.length} ranking${blocks.length === 1 ? '' : 's'}: a first look (common practice is at least ${SMALL_PANEL}).`] : [];
     const best = [...friedman.treatments].sort((x, y) => friedman.rankSums[x] - friedman.rankSums[y])[0];
     const verdict: Verdict =
       friedman.p === null

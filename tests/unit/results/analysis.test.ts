@@ -32,6 +32,13 @@ describe('rated panels', () => {
     expect(a.comparison.letters.A).toContain('a');
   });
 
+  it('names only pairs the Tukey letters separate (a walk found a sample sharing a letter with one "below" it named above it)', () => {
+    const a = analyseTasting(ratedData()).attributes[0];
+    // Montgomery Example 4.1 with Tukey HSD at α = 0.05: A and B apart from D; C shares a letter with both sides.
+    expect(a.comparison.letters).toEqual({ A: 'a', B: 'a', C: 'ab', D: 'b' });
+    expect(a.verdict.headline).toBe('Samples A and B are rated higher for set firmness (towards “firm”) than D; the difference is unlikely to be chance, p = 0.002.');
+  });
+
   it('says "no clear difference" when there is none, and never prints NaN', () => {
     const data = ratedData();
     data.answers = data.answers.map((x) => ({ ...x, value: 5 + (x.seatIndex % 3) }));
