@@ -1,14 +1,13 @@
 'use client';
 
 import { useId, useState } from 'react';
-import { BRIX_CORRECTION_RANGE, BRIX_TEMPERATURE_CORRECTIONS, ChemistryInputError, celsiusToFahrenheit, correctBrixTo20C, fahrenheitToCelsius, type BrixCorrection } from '@/lib/chemistry';
+import { BRIX_CORRECTION_RANGE, ChemistryInputError, celsiusToFahrenheit, correctBrixTo20C, correctionCaution, fahrenheitToCelsius, type BrixCorrection } from '@/lib/chemistry';
 import { inputClass } from '@/components/ui/Field';
 import { Notice } from '@/components/ui/Notice';
 import { parseDecimal } from './editor-state';
 import { formatSigned, type TemperatureUnit } from '@/lib/format/quantities';
 
 /** Rows of the correction table that were recalled rather than read, e.g. "18, 19, 21–25 °C". */
-const RECALLED_ROWS_C = BRIX_TEMPERATURE_CORRECTIONS.filter((r) => r.fromMemory).map((r) => r.tempC);
 
 type BrixOutcome = { ok: true; correction: BrixCorrection } | { ok: false; field: 'readingBrix' | 'sampleTempC'; message: string } | null;
 
@@ -112,12 +111,9 @@ export function BrixHelper({ temperatureUnit }: { temperatureUnit: TemperatureUn
               </dd>
             </div>
             <p className="text-xs text-rind-500 sm:col-span-2">Source: {outcome.correction.source}</p>
-            {outcome.correction.usedRecalledValues ? (
+            {correctionCaution(outcome.correction) ? (
               <div className="sm:col-span-2">
-                <Notice tone="warning">
-                  At {RECALLED_ROWS_C.join(', ')} °C this correction is approximate. Check it against the printed table, or cool the sample to 20 °C
-                  and read again.
-                </Notice>
+                <Notice tone="info">{correctionCaution(outcome.correction)}</Notice>
               </div>
             ) : null}
           </dl>

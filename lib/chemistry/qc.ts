@@ -4,7 +4,7 @@
  * Readings are compared at instrument resolution (°Brix and °C to 0.1, pH to 0.01), so a reading
  * shown as on the limit is on the limit.
  */
-import { correctBrixTo20C } from './refractometer';
+import { correctBrixTo20C, correctionCaution } from './refractometer';
 import { rulesInForce } from './rule-sets';
 import { ACID_FOOD_MAX_PH, HM_OPTIMUM, HOT_FILL_MIN_C, PRESERVATION_LABELS, REDUCED_SUGAR_BELOW_PCT, SAFETY_GOVERNANCE_SENTENCE, TRADE_PRACTICE_SOURCE, type Caution, type PreservationMethod } from './guidance';
 
@@ -274,7 +274,6 @@ export function checkBatchAgainstSpec(spec: QcSpec, r: BatchReadings): BatchChec
     outcome: outcomeOfChecks(checks),
     checks,
     correctedBrix20C: brix,
-    // The correction table rows at these temperatures were recalled, not read (lib/chemistry/refractometer.ts).
-    brixCorrectionNote: correction.usedRecalledValues ? 'The correction to 20 °C at this sample temperature is approximate: near a limit, cool the sample to 20 °C and read again.' : null,
+    brixCorrectionNote: correctionCaution(correction),
   };
 }

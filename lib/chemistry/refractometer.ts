@@ -93,3 +93,18 @@ export function correctBrixTo20C(readingBrix: number, sampleTempC: number): Brix
     source: 'OIV-MA-AS2-02, Table I (temperature correction for sucrose refractometry)',
   };
 }
+
+/**
+ * Beyond this distance from 20 °C a corrected reading close to a limit is worth reading again at
+ * 20 °C: the table's step and the sample warming or cooling on the prism both grow with the gap.
+ * Common practice, no published source. (Which rows were recalled is kept in `usedRecalledValues`
+ * for code and tests; a screen does not speak of it.)
+ */
+export const CORRECTION_CAUTION_FROM_C = 3;
+
+/** The one caution a screen shows beside a corrected reading, or null. */
+export function correctionCaution(correction: Pick<BrixCorrection, 'sampleTempC'>): string | null {
+  const gap = correction.sampleTempC - 20;
+  if (Math.abs(gap) < CORRECTION_CAUTION_FROM_C) return null;
+  return `Read ${Math.abs(gap).toLocaleString('en-GB', { maximumFractionDigits: 1 })} °C ${gap > 0 ? 'above' : 'below'} 20 °C: if the result is close to a limit, bring the sample to 20 °C and read again.`;
+}

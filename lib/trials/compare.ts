@@ -2,7 +2,7 @@
  * A cook's measurements beside the formula's predictions. Pure. Tolerances are kitchen rules
  * of thumb (common practice, no published source); the pH limits are published (see guidance).
  */
-import { correctBrixTo20C, ChemistryInputError, type BatchComputation } from '@/lib/chemistry';
+import { correctBrixTo20C, correctionCaution, ChemistryInputError, type BatchComputation } from '@/lib/chemistry';
 import { ACID_FOOD_MAX_PH, LM_SET_PH_MIN, setPhWindow } from '@/lib/chemistry';
 import { compareStatedSugar, statedTotalSugar } from '@/lib/label/statements';
 
@@ -54,7 +54,8 @@ export function compareCook(computation: BatchComputation | null, cook: CookRead
     try {
       const c = correctBrixTo20C(cook.brixReading, cook.brixSampleTempC);
       correctedBrix = c.correctedBrix20C;
-      brixNote = `Corrected to 20 °C from ${cook.brixReading} °Brix at ${cook.brixSampleTempC} °C (${c.source})${c.usedRecalledValues ? '; approximate at this sample temperature: near a limit, cool the sample to 20 °C and read again' : ''}.`;
+      const caution = correctionCaution(c);
+      brixNote = `Corrected to 20 °C from ${cook.brixReading} °Brix at ${cook.brixSampleTempC} °C (${c.source}).${caution ? ` ${caution}` : ''}`;
     } catch (err) {
       if (!(err instanceof ChemistryInputError)) throw err;
       brixNote = `Not corrected: ${err.message}. Raw reading shown.`;

@@ -1,5 +1,5 @@
 import { describe, it, expect } from 'vitest';
-import { ChemistryInputError, correctBrixTo20C } from '@/lib/chemistry';
+import { ChemistryInputError, correctBrixTo20C, correctionCaution } from '@/lib/chemistry';
 
 describe('refractometer temperature correction to 20 °C', () => {
   it('subtracts 0.38 °Brix from a 65 °Brix reading at 15 °C', () => {
@@ -34,5 +34,17 @@ describe('refractometer temperature correction to 20 °C', () => {
   it('refuses readings outside the table', () => {
     expect(() => correctBrixTo20C(65, 35)).toThrow(ChemistryInputError);
     expect(() => correctBrixTo20C(80, 15)).toThrow(/10–70 °Brix/);
+  });
+});
+
+describe('the caution beside a corrected reading', () => {
+  // The 3 °C threshold is common practice, no published source; the point tested is that the caution
+  // follows the temperature gap and not which table rows were recalled (rows 18–25 °C are).
+  it('says nothing within 3 °C of 20 °C, recalled rows or not, and asks for a reading at 20 °C beyond', () => {
+    expect(correctBrixTo20C(65, 22).usedRecalledValues).toBe(true);
+    expect(correctionCaution(correctBrixTo20C(65, 22))).toBeNull();
+    expect(correctionCaution(correctBrixTo20C(65, 17.5))).toBeNull();
+    expect(correctionCaution(correctBrixTo20C(65, 15))).toBe('Read 5 °C below 20 °C: if the result is close to a limit, bring the sample to 20 °C and read again.');
+    expect(correctionCaution(correctBrixTo20C(65, 23.5))).toBe('Read 3.5 °C above 20 °C: if the result is close to a limit, bring the sample to 20 °C and read again.');
   });
 });

@@ -97,12 +97,15 @@ describe('BrixHelper', () => {
     expect(screen.getByTestId('brix-correction').textContent).toBe('−0.38 °Brix');
   });
 
-  it('notes approximate (recalled) table values without provenance words, and shows the module message out of range', () => {
+  it('cautions by the distance from 20 °C, never by where a table row came from, and shows the module message out of range', () => {
     render(<BrixHelper temperatureUnit="C" />);
     fireEvent.change(screen.getByLabelText('Reading (°Brix)'), { target: { value: '65' } });
     fireEvent.change(screen.getByLabelText('Sample temperature (°C)'), { target: { value: '22' } });
-    expect(screen.getByText(/this correction is approximate/)).toBeTruthy();
-    expect(document.body.textContent).not.toMatch(/memory|recalled/i);
+    // A walk found "approximate … near a limit" at 22 °C, driven by which rows were recalled: no caution 2 °C from 20 °C.
+    expect(screen.queryByText(/bring the sample to 20 °C/)).toBeNull();
+    expect(document.body.textContent).not.toMatch(/memory|recalled|approximate/i);
+    fireEvent.change(screen.getByLabelText('Sample temperature (°C)'), { target: { value: '24' } });
+    expect(screen.getByText('Read 4 °C above 20 °C: if the result is close to a limit, bring the sample to 20 °C and read again.')).toBeTruthy();
     fireEvent.change(screen.getByLabelText('Sample temperature (°C)'), { target: { value: '30' } });
     expect(screen.getByRole('alert').textContent).toBe('The correction table covers 10–25 °C; bring the sample nearer 20 °C');
     fireEvent.change(screen.getByLabelText('Sample temperature (°C)'), { target: { value: '20' } });
