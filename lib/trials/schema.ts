@@ -2,7 +2,7 @@
 import { z } from 'zod';
 import { isoDate, longText, name, searchText, text, versionNumber, wholeNumber } from '@/lib/input';
 import { formulaLineSchema, formulaSettingsSchema, PRODUCT_CLASSES, type FormulaSettingsInput, type RevisionLine, type RevisionSummary } from '@/lib/formulas/schema';
-import { SET_TEST_METHODS, SYNERESIS_LEVELS, TRIAL_FACTORS, TRIAL_STATUSES, type TrialStatus } from './vocabulary';
+import { FACTOR_LABELS, FACTOR_LEVEL_BOUNDS, SET_TEST_METHODS, SYNERESIS_LEVELS, TRIAL_FACTORS, TRIAL_STATUSES, type TrialStatus } from './vocabulary';
 import { CENTRE_RUNS, DESIGN_KINDS, type FactorLevel } from './plan';
 import { factorPointSchema } from '@/lib/modelling/schema';
 import type { BatchComputation } from '@/lib/chemistry';
@@ -30,9 +30,15 @@ export const planSchema = z
       .array(
         z.object({
           factor: z.enum(TRIAL_FACTORS, { error: 'Unknown factor.' }),
-          low: num('The low level').min(0, 'Levels cannot be negative.').max(10_000),
-          high: num('The high level').min(0, 'Levels cannot be negative.').max(10_000),
-        }).strict(),
+          low: num('The low level').finite('The low level must be a number.').min(0, 'Levels cannot be negative.'),
+          high: num('The high level').finite('The high level must be a number.').min(0, 'Levels cannot be negative.'),
+        }).strict().superRefine((f, ctx) => {
+          const { min, max } = FACTOR_LEVEL_BOUNDS[f.factor];
+          const { name, unit } = FACTOR_LABELS[f.factor];
+          for (const level of ['low', 'high'] as const) {
+            if (f[level] < min || f[level] > max) ctx.addIssue({ code: 'custom', path: [level], message: `${name}: the ${level} level must be between ${min} and ${max} ${unit}.` });
+          }
+        }),
       )
       .min(1, 'Choose at least one factor.')
       .max(TRIAL_FACTORS.length, `At most ${TRIAL_FACTORS.length} factors.`),

@@ -32,6 +32,17 @@ export const FACTOR_LABELS: Record<TrialFactor, { name: string; unit: string; he
   target_solids: { name: 'Target soluble solids', unit: '°Brix', help: 'The soluble solids the batch is boiled to; the lines stay as they are.' },
 };
 
+/**
+ * The widest levels a plan accepts per factor: far outside any preserve, so a slip of the keyboard
+ * (5000 for 0.5) is refused rather than planned. Generous bounds, common practice, no published source.
+ */
+export const FACTOR_LEVEL_BOUNDS: Record<TrialFactor, { min: number; max: number }> = {
+  sugar_ratio: { min: 0, max: 3 },
+  acid_dose: { min: 0, max: 200 },
+  pectin_dose: { min: 0, max: 60 },
+  target_solids: { min: 20, max: 80 },
+};
+
 /** A small scale of our own for the cold-plate, spoon and flake set tests. */
 export const SET_TEST_SCALE = [
   { value: 1, label: 'Runs freely', hint: 'No skin, floods back at once' },
