@@ -84,7 +84,8 @@ describe('a preference ranking on a phone', () => {
     await phone.getByRole('button', { name: 'I agree, start' }).click();
     await phone.getByRole('heading', { name: 'Put them in order' }).waitFor();
     const order = phone.getByRole('list', { name: 'Your order, best first' });
-    const before = (await order.getByRole('listitem').allTextContents()).map((t) => t.replace(/\D/g, '').slice(0, 3));
+    const before = await order.getByRole('button', { name: /^Move \d{3} up$/ }).evaluateAll((buttons) => buttons.map((b) => b.getAttribute('aria-label')!.split(' ')[1]));
+    expect(before).toHaveLength(3);
     await phone.getByRole('button', { name: `Move ${before[2]} up` }).click();
     await phone.getByRole('button', { name: 'Save this order' }).click();
     await phone.getByRole('button', { name: 'Submit my answers' }).click();
