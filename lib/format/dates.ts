@@ -53,3 +53,8 @@ export function isoDateTime(value: Date | string): string {
 export function todayIso(now: Date = new Date()): string {
   return isoDate(now);
 }
+
+/** The calendar date `days` after an ISO date ("2026-12-31" + 1 → "2027-01-01"; negative goes back). */
+export function addDaysIso(day: string, days: number): string {
+  return new Date(Date.parse(`${day}T00:00:00Z`) + days * 86_400_000).toISOString().slice(0, 10);
+}

@@ -1,5 +1,6 @@
 /** Trials, variants and cooks: zod schemas shared by forms, actions and the API, and the plain views. */
 import { z } from 'zod';
+import { todayIso, addDaysIso } from '@/lib/format/dates';
 import { isoDate, longText, name, searchText, text, versionNumber, wholeNumber } from '@/lib/input';
 import { formulaLineSchema, formulaSettingsSchema, PRODUCT_CLASSES, type FormulaSettingsInput, type RevisionLine, type RevisionSummary } from '@/lib/formulas/schema';
 import { FACTOR_LABELS, FACTOR_LEVEL_BOUNDS, SET_TEST_METHODS, SYNERESIS_LEVELS, TRIAL_FACTORS, TRIAL_STATUSES, type TrialStatus } from './vocabulary';
@@ -89,14 +90,24 @@ const cookReadings = {
 export const COOK_READING_FIELDS = ['brixReading', 'ph', 'endPointTempC', 'boilTimeMin', 'setTestScore', 'syneresis', 'yieldJars', 'yieldG', 'colourNotes'] as const;
 export const NO_READING_MESSAGE = 'Record at least one reading: refractometer, pH, end point, boil time, set test, syneresis, yield or colour.';
 
-type ReadingsLike = { [K in (typeof COOK_READING_FIELDS)[number]]?: unknown } & { brixReading?: number | null; brixSampleTempC?: number | null };
+type ReadingsLike = { [K in (typeof COOK_READING_FIELDS)[number]]?: unknown } & {
+  brixReading?: number | null; brixSampleTempC?: number | null; cookDate?: string; batchSizeG?: number | null; yieldG?: number | null;
+};
 
-/** The cross-field rules of a cook, for a new one and for the result of a correction alike. */
-export function cookReadingProblems(m: ReadingsLike): Array<{ path: string; message: string }> {
+/** The cross-field rules of a cook, for a new one and for the result of a correction alike. `today` is the server's (or the browser's) date. */
+export function cookReadingProblems(m: ReadingsLike, today: string = todayIso()): Array<{ path: string; message: string }> {
   const problems: Array<{ path: string; message: string }> = [];
   if (!COOK_READING_FIELDS.some((f) => m[f] != null && m[f] !== '')) problems.push({ path: 'readings', message: NO_READING_MESSAGE });
   if ((m.brixReading == null) !== (m.brixSampleTempC == null)) {
     problems.push({ path: 'brixSampleTempC', message: 'Give the sample temperature with the refractometer reading (it is corrected to 20 °C).' });
+  }
+  // A day of slack: the kitchen's calendar may be a time zone ahead of the server's.
+  if (typeof m.cookDate === 'string' && /^\d{4}-\d{2}-\d{2}$/.test(m.cookDate) && m.cookDate > addDaysIso(today, 1)) {
+    problems.push({ path: 'cookDate', message: 'A cook cannot be dated in the future.' });
+  }
+  // Boiling only drives water off: a batch never weighs more after the cook than its charge did.
+  if (m.batchSizeG != null && m.yieldG != null && m.yieldG > m.batchSizeG) {
+    problems.push({ path: 'yieldG', message: 'The yield cannot be more than the batch size: boiling only takes water away. Check both.' });
   }
   return problems;
 }
