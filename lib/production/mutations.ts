@@ -83,6 +83,7 @@ function buildEvidence(comparison: Awaited<ReturnType<typeof getTrialComparison>
         targetSolidsPct: computation.settings.targetSolidsPct,
         plannedPh: computation.settings.plannedPh ?? null,
         endPointC: computation.endPoint.endPointC,
+        waterBoilingC: computation.endPoint.waterBoilingC,
         finishedMassG: computation.massBalance.finishedMassG,
         aw: computation.waterActivity.aw,
         preservation: computation.settings.preservation ?? null,

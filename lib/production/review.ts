@@ -87,3 +87,15 @@ export function labelChangeVerdict(changedRows: number, baselineVersion: number)
     ? 'The declaration changes: relabel before this batch.'
     : `The label reads the same as version ${baselineVersion}'s: no relabelling is needed.`;
 }
+
+/**
+ * The evidence's predicted end point where the trial's water boils, with its sea-level equivalent: the
+ * spec states the end point at sea level, and the two must not read as two answers to one question.
+ * A sucrose solution's boiling-point elevation barely moves with pressure over kitchen altitudes, so
+ * the sea-level figure adds back the drop in water's boiling point (as lib/chemistry/end-point.ts does).
+ */
+export function predictedEndPointText(p: { endPointC: number; waterBoilingC?: number }, show: (celsius: number) => string): string {
+  if (p.waterBoilingC === undefined) return `${show(p.endPointC)} at the trial's altitude`;
+  if (Math.abs(p.waterBoilingC - 100) < 0.05) return `${show(p.endPointC)} at sea level`;
+  return `${show(p.endPointC)} where water boils at ${show(p.waterBoilingC)} (${show(p.endPointC - p.waterBoilingC + 100)} at sea level)`;
+}

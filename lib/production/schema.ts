@@ -29,7 +29,14 @@ export interface PromotionEvidence {
   lab: Array<{ label: string; cookDate: string; ph: number | null; brix20: number | null; endPointTempC: number | null; setTestScore: number | null }>;
   compliance: { overall: string; edition: string; failing: string[] };
   cautions: Array<{ code: string; severity: string; title: string }>;
-  predicted: { productClass: string; targetSolidsPct: number; plannedPh: number | null; endPointC: number; finishedMassG: number; aw: number; /** Absent on requests made before it was captured. */ preservation?: PreservationMethod | null };
+  predicted: {
+    productClass: string; targetSolidsPct: number; plannedPh: number | null;
+    /** Where the trial's water boils (its altitude or measured boiling point), not at sea level. */
+    endPointC: number;
+    finishedMassG: number; aw: number;
+    /** Absent on requests made before it was captured. */ preservation?: PreservationMethod | null;
+    /** Absent on requests made before it was captured. */ waterBoilingC?: number;
+  };
 }
 
 const num = (what: string) => z.number({ error: `${what} must be a number.` }).refine(Number.isFinite, `${what} must be a finite number.`);

@@ -10,12 +10,13 @@ import { SpecTable } from '@/components/production/SpecTable';
 import { CautionList } from '@/components/ui/CautionList';
 import { AuditTrail } from '@/components/production/AuditTrail';
 import { DecisionForm } from '@/components/production/DecisionForm';
-import { approvalConsequence } from '@/lib/production/review';
+import { approvalConsequence, predictedEndPointText } from '@/lib/production/review';
 import { PromotionFormula } from '@/components/production/PromotionFormula';
 import { WithdrawButton } from '@/components/production/WithdrawButton';
 import { formatDate } from '@/lib/format/dates';
 import { promotionLabelComparison } from '@/lib/label/queries';
 import { LabelChanges } from '@/components/label/LabelChanges';
+import { LabReadings } from '@/components/production/LabReadings';
 
 export const dynamic = 'force-dynamic';
 export const metadata = { title: 'Promotion request' };
@@ -69,7 +70,7 @@ export default async function PromotionRequestPage({ params }: { params: Promise
           <Card title="Compliance and predicted chemistry">
             <p className="text-sm"><strong>{e.compliance.edition}:</strong> {e.compliance.overall.replace('_', ' ')}</p>
             {e.compliance.failing.length ? <ul className="mt-1 list-disc pl-5 text-sm text-ember-700">{e.compliance.failing.map((f) => <li key={f}>{f}</li>)}</ul> : null}
-            <p className="mt-2 text-sm text-rind-600">Target {e.predicted.targetSolidsPct.toFixed(1)} % solids, planned pH {n(e.predicted.plannedPh, 2)}, predicted end point {formatTemperature(e.predicted.endPointC, temps)} at sea level, about {formatMass(e.predicted.finishedMassG, units)} per batch, estimated aw {e.predicted.aw.toFixed(3)}.</p>
+            <p className="mt-2 text-sm text-rind-600">Target {e.predicted.targetSolidsPct.toFixed(1)} % solids, planned pH {n(e.predicted.plannedPh, 2)}, predicted end point {predictedEndPointText(e.predicted, (c) => formatTemperature(c, temps))}, about {formatMass(e.predicted.finishedMassG, units)} per batch, estimated aw {e.predicted.aw.toFixed(3)}.</p>
             {e.cautions.filter((c) => c.severity !== 'info').length ? (
               <ul className="mt-2 list-disc pl-5 text-sm">{e.cautions.filter((c) => c.severity !== 'info').map((c) => <li key={c.code}><span className={c.severity === 'danger' ? 'text-ember-700' : 'text-amberline-700'}>{c.title}</span></li>)}</ul>
             ) : null}
@@ -90,16 +91,7 @@ export default async function PromotionRequestPage({ params }: { params: Promise
             ) : null}
           </Card>
           <Card title="Lab readings">
-            {e.lab.length === 0 ? <p className="text-sm text-rind-600">No cooks were recorded.</p> : (
-<div className="overflow-x-auto">
-              <table className="w-full text-sm">
-                <thead><tr className="border-b border-pith-300 text-left text-rind-600"><th className="py-1 pr-3 font-medium">Variant</th><th className="py-1 pr-3 font-medium">Cooked</th><th className="py-1 pr-3 font-medium">°Brix at 20 °C</th><th className="py-1 pr-3 font-medium">pH</th><th className="py-1 pr-3 font-medium">End point</th><th className="py-1 font-medium">Set</th></tr></thead>
-                <tbody>{e.lab.map((m, i) => (
-                  <tr key={i} className={`border-b border-pith-200 ${m.label === r.variantLabel ? 'font-semibold' : ''}`}><td className="py-1 pr-3">{m.label}</td><td className="py-1 pr-3">{formatDate(m.cookDate)}</td><td className="py-1 pr-3 tabular-nums">{n(m.brix20, 1)}</td><td className="py-1 pr-3 tabular-nums">{n(m.ph, 2)}</td><td className="py-1 pr-3">{m.endPointTempC === null ? '—' : formatTemperature(m.endPointTempC, temps)}</td><td className="py-1">{m.setTestScore ?? '—'}</td></tr>
-                ))}</tbody>
-              </table>
-              </div>
-            )}
+            <LabReadings lab={e.lab} variantLabel={r.variantLabel} temperatures={temps} />
           </Card>
         </div>
         <div className="min-w-0 space-y-6">
