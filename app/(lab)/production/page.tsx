@@ -35,7 +35,7 @@ export default async function ProductionPage() {
                 {p.current ? <>In production: <Link className="text-damson-700 underline" href={`/production/versions/${p.current.id}`}>v{p.current.version}</Link>, approved {formatDate(p.current.approvedAt)}</> : 'No version in production'}
                 {' · '}{p.versionCount} version{p.versionCount === 1 ? '' : 's'}
               </p>
-              <p className="mt-1 text-sm text-rind-600">{p.batchCount} batch{p.batchCount === 1 ? '' : 'es'}{p.failedCount ? <>, <span className="font-medium text-ember-700">{p.failedCount} failed</span></> : null}{p.lastBatchDate ? `, last ${p.lastBatchDate}` : ''}</p>
+              <p className="mt-1 text-sm text-rind-600">{p.batchCount} batch{p.batchCount === 1 ? '' : 'es'}{p.failedCount ? <>, <span className="font-medium text-ember-700">{p.failedCount} failed</span></> : null}{p.lastBatchDate ? `, last ${formatDate(p.lastBatchDate)}` : ''}</p>
               {p.current && can(actor.role, 'batches.record') ? (
                 <div className="mt-3 flex flex-wrap gap-2">
                   <Link href={`/production/versions/${p.current.id}/sheet`} className={buttonClass('secondary')}>Batch sheet</Link>
