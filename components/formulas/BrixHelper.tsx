@@ -1,7 +1,7 @@
 'use client';
 
 import { useId, useState } from 'react';
-import { BRIX_CORRECTION_RANGE, ChemistryInputError, celsiusToFahrenheit, correctBrixTo20C, correctionCaution, fahrenheitToCelsius, type BrixCorrection } from '@/lib/chemistry';
+import { BRIX_CORRECTION_RANGE, ChemistryInputError, plainChemistryMessage, celsiusToFahrenheit, correctBrixTo20C, correctionCaution, fahrenheitToCelsius, type BrixCorrection } from '@/lib/chemistry';
 import { inputClass } from '@/components/ui/Field';
 import { Notice } from '@/components/ui/Notice';
 import { parseDecimal } from './editor-state';
@@ -10,12 +10,6 @@ import { formatSigned, type TemperatureUnit } from '@/lib/format/quantities';
 /** Rows of the correction table that were recalled rather than read, e.g. "18, 19, 21–25 °C". */
 
 type BrixOutcome = { ok: true; correction: BrixCorrection } | { ok: false; field: 'readingBrix' | 'sampleTempC'; message: string } | null;
-
-/** The chemistry message without its field path ("sampleTempC: the table covers…" → "The table covers…"). */
-function plainMessage(err: ChemistryInputError): string {
-  const detail = err.message.startsWith(`${err.field}: `) ? err.message.slice(err.field.length + 2) : err.message;
-  return detail.charAt(0).toUpperCase() + detail.slice(1);
-}
 
 export function correctReading(readingText: string, temperatureText: string, unit: TemperatureUnit): BrixOutcome {
   const reading = parseDecimal(readingText);
@@ -29,7 +23,7 @@ export function correctReading(readingText: string, temperatureText: string, uni
   } catch (err) {
     if (err instanceof ChemistryInputError) {
       const field = err.field === 'readingBrix' ? 'readingBrix' : 'sampleTempC';
-      let message = plainMessage(err);
+      let message = plainChemistryMessage(err);
       if (field === 'sampleTempC' && unit === 'F') {
         message += ` (${celsiusToFahrenheit(BRIX_CORRECTION_RANGE.minTempC).toFixed(0)}–${celsiusToFahrenheit(BRIX_CORRECTION_RANGE.maxTempC).toFixed(0)} °F).`;
       }

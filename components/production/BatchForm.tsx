@@ -7,7 +7,7 @@ import { Field, FieldErrorText, SelectField, inputClass } from '@/components/ui/
 import { Notice } from '@/components/ui/Notice';
 import { useFormAction } from '@/components/ui/useFormAction';
 import { CheckList } from './CheckList';
-import { checkBatchAgainstSpec, toGrams, type QcSpec } from '@/lib/chemistry';
+import { ChemistryInputError, checkBatchAgainstSpec, plainChemistryMessage, toGrams, type QcSpec } from '@/lib/chemistry';
 import { DISPOSITIONS, DISPOSITION_LABELS, nextLotCode } from '@/lib/production/vocabulary';
 import { recordBatchAction } from '@/lib/production/actions';
 import { fromDisplayTemperature, parseNumber, type TemperatureUnit } from './temperature';
@@ -38,13 +38,15 @@ export function BatchForm({ versionId, spec, productCode, takenLotCodes, today, 
     fillTempC: fromDisplayTemperature(v.fillTemp, temperatureUnit), netFillMeanG: parseNumber(v.netFillMeanG), netFillMinG: parseNumber(v.netFillMinG),
     setTestScore: parseNumber(v.setTestScore),
   };
-  const live = useMemo(() => {
+  const { live, liveProblem } = useMemo(() => {
     const { brixReading, brixSampleTempC, ph, fillTempC } = readings;
-    if (brixReading === null || brixSampleTempC === null || ph === null || fillTempC === null) return null;
+    if (brixReading === null || brixSampleTempC === null || ph === null || fillTempC === null) return { live: null, liveProblem: null };
     try {
-      return checkBatchAgainstSpec(spec, { ...readings, brixReading, brixSampleTempC, ph, fillTempC });
-    } catch {
-      return null; // Outside the correction table: the server explains which field.
+      return { live: checkBatchAgainstSpec(spec, { ...readings, brixReading, brixSampleTempC, ph, fillTempC }), liveProblem: null };
+    } catch (err) {
+      // Outside the correction table, say: the reading cannot be checked as it stands, and this says why.
+      if (err instanceof ChemistryInputError) return { live: null, liveProblem: `No checks yet. ${plainChemistryMessage(err)}.` };
+      throw err;
     }
     // eslint-disable-next-line react-hooks/exhaustive-deps
   }, [v, spec]);
@@ -106,7 +108,8 @@ export function BatchForm({ versionId, spec, productCode, takenLotCodes, today, 
             ) : null}
             {live.brixCorrectionNote ? <p className="mt-2 text-xs text-rind-500">{live.brixCorrectionNote}</p> : null}
           </>
-        ) : <p className="text-sm text-rind-600">Enter the refractometer reading and its temperature, the pH and the fill temperature to see the checks.</p>}
+        ) : liveProblem ? <p className="text-sm text-amberline-700" data-testid="live-problem">{liveProblem}</p>
+          : <p className="text-sm text-rind-600">Enter the refractometer reading and its temperature, the pH and the fill temperature to see the checks.</p>}
         {live?.outcome === 'fail' || fields.disposition ? (
           <div className="mt-4 grid gap-3 sm:grid-cols-2">
             <SelectField label="Disposition" name="disposition" value={v.disposition} onChange={set('disposition')} errors={fields.disposition}

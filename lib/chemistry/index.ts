@@ -1,6 +1,6 @@
 /** Public API of the pure batch-chemistry module. */
 export * from './types';
-export { ChemistryInputError } from './errors';
+export { ChemistryInputError, plainChemistryMessage } from './errors';
 export * from './units';
 export * from './mass-balance';
 export * from './end-point';

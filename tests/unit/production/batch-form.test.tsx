@@ -57,6 +57,16 @@ describe('the batch form', () => {
     expect(screen.getByLabelText('Disposition')).toBeTruthy();
   });
 
+  it('says why there are no checks when the sample temperature is outside the correction table (a walk saw "enter the readings" with all of them entered)', () => {
+    renderForm();
+    type('Refractometer (°Brix, as read)', '67');
+    type('Sample temperature (°C)', '30');
+    type('pH', '3.1');
+    type('Fill temperature (°C)', '88');
+    expect(screen.getByTestId('live-problem').textContent).toBe('No checks yet. The correction table covers 10–25 °C; bring the sample nearer 20 °C.');
+    expect(screen.queryByText(/Enter the refractometer reading/)).toBeNull();
+  });
+
   it('takes temperatures in °F and sends °C', async () => {
     actions.recordBatchAction.mockResolvedValue({ ok: true, data: { batchId: 'b', outcome: 'pass' } });
     renderForm('F');
