@@ -126,6 +126,15 @@ describe('the review page shows the formula and what it changes', () => {
     expect(screen.getByText(/nothing to compare the lines with/)).toBeTruthy();
   });
 
+  it('keeps the decimals of a small line: 0.5 g of acid in a 2 kg batch is not "0.0 %"', () => {
+    // 1000 g fruit + 1000 g sugar + 0.5 g citric acid: charge 2000.5 g; the acid is 0.5 / 2000.5 = 0.025 % of it.
+    const lines = [line(IDS.fruit, PRACTICAL_ACTION_LINES[0].ingredient, 1000), line(IDS.sugar, SUGAR, 1000), line(IDS.citric, PRACTICAL_ACTION_LINES[3].ingredient, 0.5)];
+    const weighed = weighLines(settings(), lines)!;
+    render(<PromotionFormula formula={{ settings: settings(), lines, weighed }} baseline={null} variantLabel="B" massUnits="metric" temperatureUnit="C" />);
+    const rows = within(screen.getByTestId('promotion-lines')).getAllByRole('row').slice(1).map((r) => [...r.children].map((c) => c.textContent));
+    expect(rows[2].slice(1)).toEqual(['0.50 g', '0.02 %']);
+  });
+
   it('diffs the lines against the version in production', () => {
     const variantLines = [line(IDS.fruit, PRACTICAL_ACTION_LINES[0].ingredient, 10_000), line(IDS.sugar, SUGAR, 8_000), line(IDS.pectin, PECTIN_200, 60)];
     render(
