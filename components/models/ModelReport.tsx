@@ -135,7 +135,7 @@ function ModelSection({ data, slug, trialQuery }: { data: ModelPageData; slug: s
     const needed = fit.unfitted.runsNeeded;
     return (
       <EmptyState title={`Too few variants to model ${response.name.toLowerCase()}`}>
-        {fit.unfitted.reason} {needed > 0 ? `Cook and test ${needed} more variant${needed === 1 ? '' : 's'} that change ${factors.map((f) => FACTOR_INFO[f].name.toLowerCase()).join(', ')}. A full quadratic in ${factors.length} factors needs ${runsNeeded(factors.length, 'full_quadratic')}.` : ''}
+        {fit.unfitted.reason} {needed > 0 ? `Cook and test ${needed} more variant${needed === 1 ? '' : 's'} that change ${factors.map((f) => FACTOR_INFO[f].name.toLowerCase()).join(', ')}. A full quadratic in ${factors.length} factor${factors.length === 1 ? '' : 's'} needs ${runsNeeded(factors.length, 'full_quadratic')}.` : ''}
       </EmptyState>
     );
   }

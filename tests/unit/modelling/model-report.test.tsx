@@ -10,6 +10,7 @@ vi.mock('react-chartjs-2', () => ({ Scatter: () => <div data-testid="scatter" />
 
 import { ModelReport } from '@/components/models/ModelReport';
 import { fitResponse } from '@/lib/modelling/fit';
+import { datasetCsv } from '@/lib/modelling/export';
 import type { ModelPageData } from '@/lib/modelling/page-query';
 import type { DatasetRow, ModelFactor, ResponseInfo } from '@/lib/modelling/schema';
 
@@ -53,5 +54,23 @@ describe('the model report of weighted panel means', () => {
     expect(screen.getByTestId('model-weighted-scatter').textContent).toContain(`${fit.residualStandardError!.toFixed(2)} times the standard error`);
     expect(screen.getByRole('columnheader', { name: 'Weighted sum of squares' })).toBeTruthy();
     expect(screen.getByTestId('model-anova-weighted').textContent).toContain('not in the response’s units');
+  });
+});
+
+describe('the model report with too few variants', () => {
+  it('says “1 factor”, not “1 factors”', () => {
+    const data = { ...page(rows.slice(0, 3)), kind: 'full_quadratic' as const };
+    data.fit = fitResponse(rows.slice(0, 3), LIKING, FACTORS, 'full_quadratic');
+    render(<ModelReport data={data} />);
+    expect(screen.getByText(/A full quadratic in 1 factor needs 6\./)).toBeTruthy();
+    expect(screen.queryByText(/1 factors/)).toBeNull();
+  });
+});
+
+describe('the data set CSV', () => {
+  it('names each factor with its unit in one pair of brackets', () => {
+    const header = datasetCsv({ family: null, rows, responses: [LIKING], excluded: [] }).split('\n')[0];
+    expect(header).toContain('Target soluble solids (°Brix)');
+    expect(header).not.toMatch(/\([^)]*\(/);
   });
 });

@@ -4,7 +4,7 @@ import { cleanup, fireEvent, render, screen, within } from '@testing-library/rea
 import { defaultQcSpec, computeBatch } from '@/lib/chemistry';
 import { toChemistrySettings } from '@/lib/formulas/compute';
 import { weighLines, identityDifferences, fruitsOf } from '@/lib/production/review';
-import type { PromotionDraftVariant, PromotionTargetProduct } from '@/lib/production/schema';
+import { requestPromotionSchema, type PromotionDraftVariant, type PromotionTargetProduct } from '@/lib/production/schema';
 import { IDS, PRACTICAL_ACTION_LINES, SUGAR, PECTIN_200, line, settings } from '../formulas-library/fixtures';
 
 const { push } = vi.hoisted(() => ({ push: vi.fn() }));
@@ -94,6 +94,24 @@ describe('requesting promotion: where the variant goes', () => {
     expect(identityDifferences({ productClass: 'jam', fruits: ['Blackcurrant'] }, { productClass: 'jam', fruits: ['blackcurrant'] }, 'Blackcurrant jam v1')).toEqual([]);
     expect(identityDifferences({ productClass: 'extra_jam', fruits: ['Blackcurrant'] }, { productClass: 'jam', fruits: ['Blackcurrant'] }, 'Blackcurrant jam v1'))
       .toEqual(['Different product class: the variant is extra jam; Blackcurrant jam v1 is jam.']);
+  });
+});
+
+describe('a new product without a name or code', () => {
+  const request = (extra: Record<string, unknown>) => requestPromotionSchema.safeParse({
+    trialId: '6a0e3f7c-1111-4c1e-9d1a-0b1c2d3e4f51', variantId: variant.id, target: 'new_product',
+    rationale: 'Variant B set cleanly and scored best.', process: variant.defaults!.process, spec: variant.defaults!.spec, ...extra,
+  });
+  const messagesOf = (result: ReturnType<typeof request>, field: string) => (result.success ? [] : result.error.issues.filter((i) => i.path[0] === field).map((i) => i.message));
+
+  it('says once to name it, whether the name is left out or left blank', () => {
+    expect(messagesOf(request({ newProductCode: 'STJ' }), 'newProductName')).toEqual(['Name the new product.']);
+    expect(messagesOf(request({ newProductName: '  ', newProductCode: 'STJ' }), 'newProductName')).toEqual(['Name the new product, in at least 2 characters.']);
+  });
+
+  it('says once what is wrong with the code', () => {
+    expect(messagesOf(request({ newProductName: 'Strawberry jam' }), 'newProductCode')).toEqual(['Give the new product a code.']);
+    expect(messagesOf(request({ newProductName: 'Strawberry jam', newProductCode: '' }), 'newProductCode')).toEqual(['Use 2–5 capital letters, e.g. QMJ.']);
   });
 });
 
