@@ -223,7 +223,8 @@ export function costFormula(input: CostingInput): FormulaCost {
 // Fills are entered in whole grams or converted from ounces: a difference under 0.05 g is the same jar.
 const SAME_FILL_G = 0.05;
 
-function fillMismatchOf(packFormat: PackFormatData | null, formulaJarFillG: number | undefined): FillMismatch | null {
+/** The pack format's fill against the formula's jar fill when they differ (see CostingInput.formulaJarFillG). */
+export function fillMismatchOf(packFormat: Pick<PackFormatData, 'netFillG'> | null, formulaJarFillG: number | undefined): FillMismatch | null {
   if (!packFormat || formulaJarFillG === undefined || !Number.isFinite(formulaJarFillG)) return null;
   if (Math.abs(packFormat.netFillG - formulaJarFillG) < SAME_FILL_G) return null;
   return { packFormatNetFillG: packFormat.netFillG, formulaJarFillG };
