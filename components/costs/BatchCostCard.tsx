@@ -1,6 +1,6 @@
 import type { BatchCost } from '@/lib/costs/schema';
 import { Card } from '@/components/ui/Card';
-import { costText, perJarText } from './CostSummary';
+import { costText, FillMismatchNotice, perJarText } from './CostSummary';
 
 /** A batch's cost per jar: planned (the version at that day's prices) and actual (its charge over its good jars). */
 export function BatchCostCard({ cost, goodJars }: { cost: BatchCost; goodJars: number }) {
@@ -17,6 +17,7 @@ export function BatchCostCard({ cost, goodJars }: { cost: BatchCost; goodJars: n
           <dd className="text-lg font-semibold tabular-nums" data-testid="batch-actual-cost">{currency && cost.actualPerJar ? costText(cost.actualPerJar, currency) : '—'}</dd>
         </div>
       </dl>
+      <div className="mt-2"><FillMismatchNotice results={[{ label: 'This batch', result: cost.planned }]} testId="batch-cost-fill" /></div>
       <p className="mt-2 text-xs text-rind-500">Actual: the raw materials of the kettle charge plus packaging for every jar filled, divided by the jars that passed.</p>
     </Card>
   );

@@ -1,4 +1,4 @@
-import { formatCost, type CostTotal, type FormulaCost } from '@/lib/costing';
+import { fillMismatchText, formatCost, type CostTotal, type FormulaCost } from '@/lib/costing';
 import { formatDate } from '@/lib/format/dates';
 import { Notice } from '@/components/ui/Notice';
 import type { CostResult, TrialCosts } from '@/lib/costs/schema';
@@ -18,6 +18,11 @@ export function CostSummary({ cost, currency, testId }: { cost: FormulaCost; cur
         <Figure label="Per kg of finished product" value={costText(cost.perKg, currency)} />
         <Figure label={cost.perJar ? 'Per jar, with packaging' : 'Per jar'} value={cost.perJar ? costText(cost.perJar, currency) : 'No pack format'} testId={testId ? `${testId}-per-jar` : undefined} />
       </dl>
+      {cost.fillMismatch ? (
+        <div data-testid={testId ? `${testId}-fill-mismatch` : undefined}>
+          <Notice tone="warning" title="Another jar size">{fillMismatchText(cost.fillMismatch)}</Notice>
+        </div>
+      ) : null}
       {!cost.complete ? (
         <Notice tone="warning" title="Incomplete">
           No price on {formatDate(cost.asOf)} for {cost.missing.join(', ')}. The figures count only the priced lines.
@@ -46,4 +51,24 @@ export function perJarText(result: CostResult, currency: string | null): string 
 /** The trial's variants' costs per jar, by variant id, for the variants table. */
 export function variantCostTexts(costs: TrialCosts): Map<string, string> {
   return new Map(costs.variants.map((v) => [v.variantId, perJarText(v.result, costs.currency)]));
+}
+
+/**
+ * The costs per jar that are for another jar than their formula's, one line each, named by `label`
+ * (variants, versions); nothing when every pack format fills the formula's own jar.
+ */
+export function FillMismatchNotice({ results, testId }: { results: Array<{ label: string; result: CostResult }>; testId?: string }) {
+  const rows = results.flatMap((r) => (r.result.ok && r.result.cost.perJar && r.result.cost.fillMismatch ? [{ label: r.label, mismatch: r.result.cost.fillMismatch }] : []));
+  if (rows.length === 0) return null;
+  return (
+    <div data-testid={testId}>
+      <Notice tone="warning" title="Costed for another jar size">
+        <ul className="space-y-1">
+          {rows.map((r) => (
+            <li key={r.label}>{r.label}: {fillMismatchText(r.mismatch)}</li>
+          ))}
+        </ul>
+      </Notice>
+    </div>
+  );
 }

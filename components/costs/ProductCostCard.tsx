@@ -4,7 +4,7 @@ import { formatDate } from '@/lib/format/dates';
 import { Card } from '@/components/ui/Card';
 import { Notice } from '@/components/ui/Notice';
 import { TableBox } from '@/components/ui/TableBox';
-import { perJarText } from './CostSummary';
+import { FillMismatchNotice, perJarText } from './CostSummary';
 import { TABLE, HEAD, TH, NUM_TH, CELL, NUM } from '@/components/results/DataTable';
 
 function approvalText(v: VersionCost): string {
@@ -26,6 +26,7 @@ export function ProductCostCard({ costs }: { costs: ProductCosts }) {
             the workspace warns beyond {costs.warningPct} %.
           </Notice>
         ) : null}
+        <FillMismatchNotice results={costs.versions.map((v) => ({ label: `v${v.version}`, result: v.today }))} testId="product-cost-fill" />
         <TableBox label="Cost per jar of each version" framed={false}>
           <table className={TABLE}>
             <thead className={HEAD}>

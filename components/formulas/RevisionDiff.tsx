@@ -3,6 +3,7 @@ import { diffRevisions, type CompositionChange, type LineDiff, type LineSnapshot
 import { PRODUCT_CLASS_LABELS, RULE_SET_LABELS, type FormulaRevisionView } from '@/lib/formulas/schema';
 import { EU_GROUP_LABELS, KIND_LABELS, PECTIN_TYPE_LABELS } from '@/lib/ingredients/schema';
 import { TableBox } from '@/components/ui/TableBox';
+import { showLineMass } from '@/lib/format/quantities';
 
 /** Stored numbers shown without float noise or padded zeros (10.5, not 10.500000001). */
 function decimal(value: number, maxDecimals = 2): string {
@@ -48,7 +49,7 @@ function describeComposition(change: CompositionChange, side: 'before' | 'after'
 }
 
 function quantityText(line: LineSnapshot, massUnits: UnitPreference): string {
-  return line.unit === 'pct_fruit' ? `${decimal(line.quantity)} % of fruit` : formatMass(line.quantity, massUnits, massUnits === 'metric' && line.quantity < 1000 ? 0 : 2);
+  return line.unit === 'pct_fruit' ? `${decimal(line.quantity)} % of fruit` : showLineMass(line.quantity, massUnits);
 }
 
 const CHANGED_CELL = 'bg-quince-100 font-semibold text-rind-900';

@@ -9,6 +9,8 @@ import { PrintButton } from '@/components/ui/PrintButton';
 import { SelectField } from '@/components/ui/Field';
 import { Button } from '@/components/ui/Button';
 import { LabelPanel } from './LabelPanel';
+import { RULE_SET_LABELS } from '@/lib/formulas/schema';
+import { formatDate, formatDateTime } from '@/lib/format/dates';
 
 export const KEPT_NOTES: Record<LabelView['kept'], string> = {
   live: 'Computed now from the latest lines and the ingredient library; it changes when either does.',
@@ -25,8 +27,30 @@ export function LabelExportLinks({ apiPath, fileName }: { apiPath: string; fileN
   );
 }
 
-export function LabelPageBody({ view, apiPath, references, referenceError }: {
+/**
+ * On paper only (the screen has the page's own header): what the label is of, which revision or
+ * version, the rules it was checked against, and when it was printed.
+ */
+export function LabelPrintHeader({ subject, printedAt }: { subject: LabelView['subject']; printedAt: string }) {
+  return (
+    <header className="hidden border-b-2 border-black pb-2 text-black print:block" data-testid="label-print-header">
+      <p className="text-xs uppercase tracking-widest">Setwell label</p>
+      <p className="font-display text-2xl">{subject.name}</p>
+      <p className="text-sm">
+        {[
+          subject.state,
+          subject.rules ? `${RULE_SET_LABELS[subject.rules.ruleSet]}, rules of ${formatDate(subject.rules.ruleDate)}` : null,
+          `Printed ${formatDateTime(printedAt)}`,
+        ].filter(Boolean).join(' · ')}
+      </p>
+    </header>
+  );
+}
+
+export function LabelPageBody({ view, apiPath, references, referenceError, printedAt = new Date().toISOString() }: {
   view: LabelView;
+  /** When the page was made (the printed header's date); now by default. */
+  printedAt?: string;
   apiPath: string;
   /** Formulas that may serve as the claim reference; absent for a frozen label. */
   references?: Array<{ value: string; label: string }>;
@@ -35,6 +59,7 @@ export function LabelPageBody({ view, apiPath, references, referenceError }: {
   const fileName = `label-${view.subject.name.replace(/[^\w.-]+/g, '-').toLowerCase()}`;
   return (
     <div className="space-y-4">
+      <LabelPrintHeader subject={view.subject} printedAt={printedAt} />
       <div className="no-print space-y-4">
         <p className="text-sm text-rind-600">{KEPT_NOTES[view.kept]}</p>
         {references ? (

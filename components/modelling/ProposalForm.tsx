@@ -11,7 +11,7 @@ import { FACTOR_INFO, type FamilyModel, type ModelFactor } from '@/lib/modelling
 import { intervalText, responseRange } from '@/lib/modelling/predict';
 import { unitNote } from '@/lib/format/words';
 import { costPerJarProblem, describePoint, pointsAround, proposalCosting, proposeFormulas, type FruitMinimum, type PointsAround, type ProposalBase, type ProposalOutcome, type ProposalRequest } from '@/lib/modelling/proposals';
-import { formatCost } from '@/lib/costing';
+import { fillMismatchOf, fillMismatchText, formatCost } from '@/lib/costing';
 import type { EditorCostBasis } from '@/lib/costs/schema';
 import { defaultDraft, GOAL_KIND_LABELS, readProposalDraft, type GoalDraft, type GoalKind, type ProposalDraft } from './proposal-draft';
 
@@ -50,6 +50,7 @@ export function ProposalForm({ model, base, formulaId, formulaName, fruitMinimum
   const costing = useMemo(() => (cost ? proposalCosting(cost.basis, cost.packFormatId) : null), [cost]);
   const currency = costing?.currency ?? null;
   const costProblem = useMemo(() => (costing ? costPerJarProblem(base, costing) : null), [base, costing]);
+  const fillMismatch = costing ? fillMismatchOf(costing.prices.packFormat, base.settings.jarNetFillG) : null;
   const router = useRouter();
   const [draft, setDraft] = useState<ProposalDraft>(() => defaultDraft(model, fruitMinimum?.value ?? null));
   const [errors, setErrors] = useState<Record<string, string>>({});
@@ -171,6 +172,7 @@ export function ProposalForm({ model, base, formulaId, formulaName, fruitMinimum
               <p className="mt-1 text-xs text-rind-500">
                 {costProblem ?? `Ingredients and packaging of ${costing.prices.packFormat?.name ?? ''} at the prices of ${costing.prices.asOf}, as the formula’s cost panel shows them.`}
               </p>
+              {fillMismatch ? <p className="mt-1 text-xs text-amberline-700" data-testid="proposal-cost-fill">{fillMismatchText(fillMismatch)}</p> : null}
               <ErrorText id="cost-ceiling-error" message={errors.costCeiling} />
             </div>
           ) : null}

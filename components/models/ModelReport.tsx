@@ -135,7 +135,7 @@ function ModelSection({ data, slug, trialQuery }: { data: ModelPageData; slug: s
     const needed = fit.unfitted.runsNeeded;
     return (
       <EmptyState title={`Too few variants to model ${response.name.toLowerCase()}`}>
-        {fit.unfitted.reason} {needed > 0 ? `Cook and test ${needed} more variant${needed === 1 ? '' : 's'} that change ${factors.map((f) => FACTOR_INFO[f].name.toLowerCase()).join(', ')}. A full quadratic in ${factors.length} factors needs ${runsNeeded(factors.length, 'full_quadratic')}.` : ''}
+        {fit.unfitted.reason} {needed > 0 ? `Cook and test ${needed} more variant${needed === 1 ? '' : 's'} that change ${factors.map((f) => FACTOR_INFO[f].name.toLowerCase()).join(', ')}. A full quadratic in ${factors.length} factor${factors.length === 1 ? '' : 's'} needs ${runsNeeded(factors.length, 'full_quadratic')}.` : ''}
       </EmptyState>
     );
   }
@@ -160,8 +160,17 @@ function ModelSection({ data, slug, trialQuery }: { data: ModelPageData; slug: s
           <div><dt className="text-rind-600">R²</dt><dd className="text-lg font-semibold">{n(f.rSquared, 3)}</dd></div>
           <div><dt className="text-rind-600">Adjusted R²</dt><dd className="text-lg font-semibold">{n(f.adjustedRSquared, 3)}</dd></div>
           <div><dt className="text-rind-600">Predicted R² (PRESS)</dt><dd className="text-lg font-semibold">{n(f.predictedRSquared, 3)}</dd></div>
-          <div><dt className="text-rind-600">Residual SD</dt><dd className="text-lg font-semibold">{n(f.residualStandardError, response.decimals + 1)}</dd></div>
+          <div>
+            <dt className="text-rind-600">Residual SD</dt>
+            <dd className="text-lg font-semibold" data-testid="model-residual-sd">{n(f.residualSdOnScale, response.decimals + 1)}</dd>
+            {response.unit ? <dd className="text-xs text-rind-500">{response.unit}</dd> : null}
+          </div>
         </dl>
+        {f.weighted && f.residualStandardError !== null ? (
+          <p className="mb-4 text-sm text-rind-600" data-testid="model-weighted-scatter">
+            The residual SD is the typical miss of a variant’s mean, in the response’s own units. Weighed by the panels’ own spread, the misses are {n(f.residualStandardError, 2)} times the standard error each panel gives its mean (1 would mean the means scatter just as the panels predict); the intervals of predictions allow for this.
+          </p>
+        ) : null}
         <div className="mb-2 flex flex-wrap items-baseline justify-between gap-2">
           <h3 className="font-semibold">Coefficients</h3>
           <a href={coefficientsHref} className="text-sm text-damson-700 underline" download>Download the coefficients (CSV)</a>
@@ -188,7 +197,7 @@ function ModelSection({ data, slug, trialQuery }: { data: ModelPageData; slug: s
         <h3 id="anova-title" className="mb-2 font-semibold">Analysis of variance</h3>
         <TableBox label="Analysis of variance">
           <table className={TABLE} data-testid="model-anova">
-            <thead className={HEAD}><tr><th scope="col" className={TH}>Source</th><th scope="col" className={NUM_TH}>Sum of squares</th><th scope="col" className={NUM_TH}>df</th><th scope="col" className={NUM_TH}>Mean square</th><th scope="col" className={NUM_TH}>F</th><th scope="col" className={NUM_TH}>p</th></tr></thead>
+            <thead className={HEAD}><tr><th scope="col" className={TH}>Source</th><th scope="col" className={NUM_TH}>{f.weighted ? 'Weighted sum of squares' : 'Sum of squares'}</th><th scope="col" className={NUM_TH}>df</th><th scope="col" className={NUM_TH}>Mean square</th><th scope="col" className={NUM_TH}>F</th><th scope="col" className={NUM_TH}>p</th></tr></thead>
             <tbody className="divide-y divide-pith-200">
               {f.anova ? (
                 <>
@@ -203,6 +212,11 @@ function ModelSection({ data, slug, trialQuery }: { data: ModelPageData; slug: s
             </tbody>
           </table>
         </TableBox>
+        {f.weighted ? (
+          <p className="mt-2 text-sm text-rind-600" data-testid="model-anova-weighted">
+            The sums of squares are weighted: each variant’s squared miss counts n / s², its panel size over the spread of its scores, so they are not in the response’s units. The F tests and R² are worked from these weighted sums.
+          </p>
+        ) : null}
         <p className="mt-2 text-sm text-rind-600">
           {f.lackOfFit ? (f.lackOfFit.p !== null && f.lackOfFit.p < 0.05 ? 'Lack of fit is significant: the model misses a pattern the replicates show; try a larger model or look for an outlier. ' : 'No significant lack of fit: the model’s misses are about as large as the spread between replicate cooks. ') : 'No lack-of-fit test: no variant was repeated at the same formula. '}
           {data.curvature

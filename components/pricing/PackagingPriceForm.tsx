@@ -19,7 +19,7 @@ export function PackagingPriceForm({ currency, items, fixedItemId, today }: { cu
         onChange={change('packagingItemId')} errors={form.fields.packagingItemId} options={items} />
       <div className="grid grid-cols-1 gap-4 sm:grid-cols-2">
         <Field label={`Price of one pack (${currency})`} name="packPrice" inputMode="decimal" autoComplete="off" value={values.packPrice} onChange={change('packPrice')} errors={form.fields.packPrice} placeholder="e.g. 61.00" />
-        <Field label="Pieces in the pack" name="piecesPerPack" inputMode="numeric" value={values.piecesPerPack} onChange={change('piecesPerPack')} errors={form.fields.piecesPerPack} hint="Labels by the thousand: 1000." />
+        <Field label="Pieces in the pack" name="piecesPerPack" inputMode="numeric" value={values.piecesPerPack} onChange={change('piecesPerPack')} errors={form.fields.piecesPerPack} hint="How many pieces the price buys: 12 for a tray of 12 jars, 1000 for a roll of 1000 labels." />
         <Field label="Supplier (optional)" name="supplier" value={values.supplier} onChange={change('supplier')} errors={form.fields.supplier} />
         <Field label="Valid from" name="validFrom" type="date" value={values.validFrom} onChange={change('validFrom')} errors={form.fields.validFrom} />
       </div>

@@ -2,14 +2,12 @@ import { formatMass, type UnitPreference } from '@/lib/chemistry';
 import type { PromotionView } from '@/lib/production/schema';
 import type { FormulaRevisionView, FormulaSettingsInput, RevisionLine } from '@/lib/formulas/schema';
 import { RevisionDiff } from '@/components/formulas/RevisionDiff';
+import { showLineMass, showSharePct } from '@/lib/format/quantities';
 
 /** The diff compares revisions; the two sides here are a production version and a variant, under one name. */
 const asRevision = (name: string, number: number, f: { settings: FormulaSettingsInput; lines: RevisionLine[] }): FormulaRevisionView => ({
   formulaId: '', number, name, settings: f.settings, lines: f.lines, note: null, createdAt: '', createdBy: { id: '', name: '' },
 });
-
-/** Pectin and acid to a tenth of a gram, the rest to the gram; kilograms to 10 g. */
-const massDecimals = (grams: number, units: UnitPreference) => (units !== 'metric' ? 2 : grams < 100 ? 1 : grams < 1000 ? 0 : 2);
 
 /** The formula the head of product approves, line by line, and what it changes against the version in production. */
 export function PromotionFormula({ formula, baseline, variantLabel, massUnits, temperatureUnit }: {
@@ -38,8 +36,8 @@ export function PromotionFormula({ formula, baseline, variantLabel, massUnits, t
               {weighed.lines.map((l, i) => (
                 <tr key={`${l.name}-${i}`} className="border-b border-pith-200">
                   <th scope="row" className="py-1 pr-4 text-left font-normal">{l.name}</th>
-                  <td className="whitespace-nowrap py-1 pr-4 text-right tabular-nums">{formatMass(l.grams, massUnits, massDecimals(l.grams, massUnits))}</td>
-                  <td className="whitespace-nowrap py-1 text-right tabular-nums">{l.pctOfBatch.toFixed(1)} %</td>
+                  <td className="whitespace-nowrap py-1 pr-4 text-right tabular-nums">{showLineMass(l.grams, massUnits)}</td>
+                  <td className="whitespace-nowrap py-1 text-right tabular-nums">{showSharePct(l.pctOfBatch)}</td>
                 </tr>
               ))}
             </tbody>

@@ -26,6 +26,11 @@ export interface CostingInput {
   finishedMassG: number;
   /** Without a pack format there is no cost per jar. */
   packFormat: PackFormatData | null;
+  /**
+   * The formula's own jar net fill (its settings), which the label's jar and serving counts use.
+   * The cost per jar is for the pack format's jar; when the two differ the cost says so.
+   */
+  formulaJarFillG?: number;
   /** Filling overfill, % of the net fill (the workspace's setting). */
   overfillPct: number;
   /** Histories sorted by day (price-history.ts historiesBy), by ingredient id / packaging item id. */
@@ -77,6 +82,11 @@ export interface SensitivityRow {
   deltaMinor: number;
 }
 
+export interface FillMismatch {
+  packFormatNetFillG: number;
+  formulaJarFillG: number;
+}
+
 export interface FormulaCost {
   asOf: string;
   ingredients: IngredientCost[];
@@ -92,6 +102,8 @@ export interface FormulaCost {
   filledPerJarG: number | null;
   /** Jars (not rounded) from one batch at that fill. */
   jarsPerBatch: number | null;
+  /** The pack format's net fill against the formula's jar fill, when they differ; otherwise null. */
+  fillMismatch: FillMismatch | null;
   chargeG: number;
   finishedMassG: number;
   stepPct: number;
@@ -200,11 +212,28 @@ export function costFormula(input: CostingInput): FormulaCost {
     perJar,
     filledPerJarG,
     jarsPerBatch: filledPerJarG === null ? null : finishedMassG / filledPerJarG,
+    fillMismatch: fillMismatchOf(input.packFormat, input.formulaJarFillG),
     chargeG,
     finishedMassG,
     stepPct,
     sensitivity,
   };
+}
+
+// Fills are entered in whole grams or converted from ounces: a difference under 0.05 g is the same jar.
+const SAME_FILL_G = 0.05;
+
+/** The pack format's fill against the formula's jar fill when they differ (see CostingInput.formulaJarFillG). */
+export function fillMismatchOf(packFormat: Pick<PackFormatData, 'netFillG'> | null, formulaJarFillG: number | undefined): FillMismatch | null {
+  if (!packFormat || formulaJarFillG === undefined || !Number.isFinite(formulaJarFillG)) return null;
+  if (Math.abs(packFormat.netFillG - formulaJarFillG) < SAME_FILL_G) return null;
+  return { packFormatNetFillG: packFormat.netFillG, formulaJarFillG };
+}
+
+/** The warning beside every cost per jar whose pack format fills another jar than the formula's. */
+export function fillMismatchText(m: FillMismatch): string {
+  const g = (v: number) => `${Number(v.toFixed(1))} g`;
+  return `The pack format fills ${g(m.packFormatNetFillG)} jars, but the formula’s jar net fill is ${g(m.formulaJarFillG)} (the label and the jar count use ${g(m.formulaJarFillG)}). This cost per jar is for a ${g(m.packFormatNetFillG)} jar: pick a pack format that fills ${g(m.formulaJarFillG)}, or change the formula’s jar net fill.`;
 }
 
 function sum(values: Array<number | null>): number {

@@ -33,6 +33,7 @@ export function costComputation(
         lines: lines.map((l, i) => ({ ingredientId: l.ingredientId, name: l.name, grams: mb.lines[i].massG, refusePct: l.refusePct })),
         chargeG: mb.totalChargeG,
         finishedMassG: mb.finishedMassG,
+        formulaJarFillG: computation.settings.jarNetFillG,
       }),
     };
   } catch (err) {

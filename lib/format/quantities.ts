@@ -37,6 +37,30 @@ export function formatSigned(value: number, decimals: number, plus = true): stri
   return body;
 }
 
+/**
+ * Decimals for a formula line's mass: small additions (acid, pectin, calcium) weighed on a fine
+ * scale keep their tenths and hundredths (0.83 g, never "1 g"); kilograms to 10 g.
+ */
+export function lineMassDecimals(massG: number, system: UnitPreference): number {
+  if (system !== 'metric') return 2;
+  const magnitude = Math.abs(massG);
+  return magnitude < 1 ? 2 : magnitude < 100 ? 1 : magnitude < 1000 ? 0 : 2;
+}
+
+/** A formula line's mass with lineMassDecimals(). */
+export function showLineMass(massG: number, system: UnitPreference): string {
+  return formatMass(massG, system, lineMassDecimals(massG, system));
+}
+
+/** A line's share of a batch, %: a tenth, with more decimals for small lines so 0.5 g in 2 kg is not "0.0 %". */
+export function showSharePct(pct: number): string {
+  if (!Number.isFinite(pct)) return '—';
+  const magnitude = Math.abs(pct);
+  if (magnitude === 0) return '0 %';
+  if (magnitude < 0.001) return '< 0.001 %';
+  return `${pct.toFixed(magnitude < 0.01 ? 3 : magnitude < 0.1 ? 2 : 1)} %`;
+}
+
 /** Mass for the results: kg/lb to the gram or so, small masses to a tenth. */
 export function showMass(massG: number | null | undefined, system: UnitPreference): string {
   if (massG === null || massG === undefined || !Number.isFinite(massG)) return '—';

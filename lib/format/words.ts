@@ -16,3 +16,9 @@ export function nameWithUnit(name: string, unit: string): string {
   const note = unitNote(name, unit);
   return note ? `${name} (${note})` : name;
 }
+
+/** Text closed as a sentence: a full stop unless it already ends in one, "?" or "!" ("Same set?", never "Same set?."). */
+export function sentence(text: string): string {
+  const trimmed = text.trimEnd();
+  return /[.!?…]["'”’)]*$/.test(trimmed) ? trimmed : `${trimmed}.`;
+}

@@ -178,7 +178,11 @@ export function checkReducedSugars(subject: ClaimSubject, reference: ClaimRefere
   if (ref <= 0) return { ...base, status: 'not_met', figures, note: 'The reference has no sugar to reduce.' };
 
   const reduction = (ref - own) / ref;
-  figures.push({ label: 'Reduction', value: reduction * 100, unit: '%' }, { label: 'Required reduction', value: REDUCED_MIN_FRACTION * 100, unit: '%' });
+  // A negative reduction is an increase: said as such, never as "-28.3 % lower".
+  figures.push(
+    reduction < 0 ? { label: 'Increase', value: -reduction * 100, unit: '%' } : { label: 'Reduction', value: reduction * 100, unit: '%' },
+    { label: 'Required reduction', value: REDUCED_MIN_FRACTION * 100, unit: '%' },
+  );
   // Our sugar is a lower bound when incomplete (the true reduction is smaller); the reference's
   // is a lower bound when incomplete (the true reduction is larger).
   const reductionMet = reduction >= REDUCED_MIN_FRACTION - 1e-12;
@@ -195,13 +199,19 @@ export function checkReducedSugars(subject: ClaimSubject, reference: ClaimRefere
     : atMost(subject.energyKj, subject.energyIncomplete === true, reference.energyKj);
 
   const notes: string[] = [];
-  if (sugarStatus !== 'met') notes.push(reductionMet ? 'Some sugar values are missing; the reduction may be smaller.' : sugarStatus === 'not_met' ? `Sugar is ${round1(reduction * 100)} % lower; at least 30 % is needed.` : 'The reference\'s sugar figure is incomplete.');
+  if (sugarStatus !== 'met') notes.push(reductionMet ? 'Some sugar values are missing; the reduction may be smaller.' : sugarStatus === 'not_met' ? sugarShortfall(reduction, reference.name) : 'The reference\'s sugar figure is incomplete.');
   if (energyStatus === 'not_met') notes.push('The energy is higher than the reference\'s, which the claim does not allow.');
   if (energyStatus === 'cannot_tell') notes.push('The energy of one of the two products is not known.');
   const status: ClaimStatus = sugarStatus === 'not_met' || energyStatus === 'not_met'
     ? 'not_met'
     : sugarStatus === 'met' && energyStatus === 'met' ? 'met' : 'cannot_tell';
   return { ...base, status, figures, note: notes.length ? notes.join(' ') : undefined };
+}
+
+function sugarShortfall(reduction: number, referenceName: string): string {
+  if (reduction < 0) return `Sugar is ${round1(-reduction * 100)} % higher than in ${referenceName}, not lower: the claim does not apply.`;
+  if (reduction === 0) return `Sugar is the same as in ${referenceName}: the claim does not apply.`;
+  return `Sugar is ${round1(reduction * 100)} % lower; at least 30 % is needed.`;
 }
 
 function round1(value: number): number {

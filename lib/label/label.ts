@@ -97,6 +97,8 @@ export interface LabelRow {
   section: string;
   item: string;
   value: string;
+  /** On the pack (lists, statements, declarations) rather than a check behind it (claims allowed, additive limits). */
+  printed: boolean;
 }
 
 const UNKNOWN = 'unknown';
@@ -116,22 +118,22 @@ const ADDITIVE_ROW_TEXT: Record<LabelAdditiveCheck['status'], (a: LabelAdditiveC
 /** The label flattened to rows, in the order the view shows it. */
 export function labelRows(label: Label): LabelRow[] {
   const rows: LabelRow[] = [
-    { id: 'ingredients.eu', section: 'Ingredients (EU)', item: 'List', value: runsText(label.ingredients.eu) },
-    { id: 'ingredients.us', section: 'Ingredients (US)', item: 'List', value: runsText(label.ingredients.us) },
+    { id: 'ingredients.eu', section: 'Ingredients (EU)', item: 'List', value: runsText(label.ingredients.eu), printed: true },
+    { id: 'ingredients.us', section: 'Ingredients (US)', item: 'List', value: runsText(label.ingredients.us), printed: true },
   ];
-  if (label.ingredients.us.contains) rows.push({ id: 'ingredients.us.contains', section: 'Ingredients (US)', item: 'Contains', value: label.ingredients.us.contains });
+  if (label.ingredients.us.contains) rows.push({ id: 'ingredients.us.contains', section: 'Ingredients (US)', item: 'Contains', value: label.ingredients.us.contains, printed: true });
   for (const s of label.statements) {
-    rows.push({ id: `statement.${s.kind}`, section: 'Statements', item: s.kind === 'fruit' ? 'Fruit' : 'Total sugar', value: s.text ?? UNKNOWN });
+    rows.push({ id: `statement.${s.kind}`, section: 'Statements', item: s.kind === 'fruit' ? 'Fruit' : 'Total sugar', value: s.text ?? UNKNOWN, printed: true });
   }
-  for (const r of label.eu.rows) rows.push({ id: `eu.${r.key}`, section: `EU declaration, ${label.eu.per}`, item: r.name, value: r.label ?? UNKNOWN });
+  for (const r of label.eu.rows) rows.push({ id: `eu.${r.key}`, section: `EU declaration, ${label.eu.per}`, item: r.name, value: r.label ?? UNKNOWN, printed: true });
   for (const r of label.us.rows) {
-    rows.push({ id: `us.${r.key}`, section: `US facts, ${label.us.serving}`, item: r.name, value: `${r.label ?? UNKNOWN}${r.dailyValue ? `, ${r.dailyValue} DV` : ''}` });
+    rows.push({ id: `us.${r.key}`, section: `US facts, ${label.us.serving}`, item: r.name, value: `${r.label ?? UNKNOWN}${r.dailyValue ? `, ${r.dailyValue} DV` : ''}`, printed: true });
   }
   for (const c of label.claims.items) {
-    rows.push({ id: `claim.${c.claim}`, section: 'Claims', item: c.claim, value: c.holds === null ? UNKNOWN : c.holds ? 'may be made' : 'may not be made' });
+    rows.push({ id: `claim.${c.claim}`, section: 'Claims', item: c.claim, value: c.holds === null ? UNKNOWN : c.holds ? 'may be made' : 'may not be made', printed: false });
   }
   for (const a of label.additives) {
-    rows.push({ id: `additive.${a.name}`, section: 'Additive limits', item: a.name, value: ADDITIVE_ROW_TEXT[a.status](a) });
+    rows.push({ id: `additive.${a.name}`, section: 'Additive limits', item: a.name, value: ADDITIVE_ROW_TEXT[a.status](a), printed: false });
   }
   return rows;
 }
@@ -141,6 +143,8 @@ export interface LabelChange {
   item: string;
   before: string | null;
   after: string | null;
+  /** A printed part of the pack changes (only these call for a new label); else a check behind it. */
+  printed: boolean;
 }
 
 /**
@@ -154,9 +158,9 @@ export function labelChanges(before: Label, after: Label): LabelChange[] {
   for (const r of labelRows(after)) {
     seen.add(r.id);
     const was = old.get(r.id);
-    if (!was) changes.push({ section: r.section, item: r.item, before: null, after: r.value });
-    else if (was.value !== r.value) changes.push({ section: r.section, item: r.item, before: was.value, after: r.value });
+    if (!was) changes.push({ section: r.section, item: r.item, before: null, after: r.value, printed: r.printed });
+    else if (was.value !== r.value) changes.push({ section: r.section, item: r.item, before: was.value, after: r.value, printed: r.printed });
   }
-  for (const [k, r] of old) if (!seen.has(k)) changes.push({ section: r.section, item: r.item, before: r.value, after: null });
+  for (const [k, r] of old) if (!seen.has(k)) changes.push({ section: r.section, item: r.item, before: r.value, after: null, printed: r.printed });
   return changes;
 }

@@ -14,6 +14,7 @@ import { getTrialOverview } from '@/lib/trials/queries';
 import { toIngredientView } from '@/lib/ingredients/queries';
 import { toLabelData } from '@/lib/ingredients/label-data';
 import type { FormulaSettingsInput, RevisionLine } from '@/lib/formulas/schema';
+import { formatDate } from '@/lib/format/dates';
 import { TYPICAL_JAM_REFERENCE, type ClaimReference } from './claims';
 import type { IngredientLabelData } from './types';
 import { claimReferenceFrom, labelForLines, type LabelOptions, type LabelOutcome } from './index';
@@ -44,6 +45,10 @@ async function resolveReference(actor: Actor, choice: LabelQuery['reference']): 
   return { reference, choice };
 }
 
+function rulesOf(settings: FormulaSettingsInput): LabelView['subject']['rules'] {
+  return { ruleSet: settings.ruleSet, ruleDate: settings.ruleDate };
+}
+
 function view(outcome: LabelOutcome, kept: LabelView['kept'], subject: LabelView['subject'], reference: LabelView['reference']): LabelView {
   return outcome.ok
     ? { label: outcome.label, problem: null, kept, reference, subject }
@@ -55,7 +60,8 @@ export async function formulaLabel(actor: Actor, formulaId: string, query: Label
   const formula = await getFormula(actor, formulaId);
   const { reference, choice } = await resolveReference(actor, query.reference);
   const outcome = await labelOfStored(await getEm(), actor, formula.current.settings, formula.current.lines, { claimReference: reference });
-  return view(outcome, 'live', { kind: 'formula', id: formula.id, name: formula.name }, { choice, name: reference.name });
+  const state = `Revision ${formula.current.number}, saved ${formatDate(formula.current.createdAt)}`;
+  return view(outcome, 'live', { kind: 'formula', id: formula.id, name: formula.name, state, rules: rulesOf(formula.current.settings) }, { choice, name: reference.name });
 }
 
 /** The live label of one variant of a trial. */
@@ -65,7 +71,8 @@ export async function variantLabel(actor: Actor, trialId: string, variantId: str
   if (!variant) throw notFound('variant');
   const { reference, choice } = await resolveReference(actor, query.reference);
   const outcome = await labelOfStored(await getEm(), actor, variant.settings, variant.lines, { claimReference: reference });
-  return { ...view(outcome, 'live', { kind: 'variant', id: variant.id, name: `${trial.code} variant ${variant.label}` }, { choice, name: reference.name }), trialCode: trial.code };
+  const subject = { kind: 'variant' as const, id: variant.id, name: `${trial.code} variant ${variant.label}`, state: `Trial ${trial.code}: ${trial.title}`, rules: rulesOf(variant.settings) };
+  return { ...view(outcome, 'live', subject, { choice, name: reference.name }), trialCode: trial.code };
 }
 
 /** A production version's label: frozen at approval, or computed now for versions approved before labels were frozen. */
@@ -74,7 +81,7 @@ export async function versionLabel(actor: Actor, versionId: string): Promise<Lab
   const v = await em.findOne(ProductVersion, { ...inWorkspace(actor), id: versionId }, { populate: ['product'] });
   if (!v) throw notFound('production version');
   const product = v.product;
-  const subject = { kind: 'version' as const, id: v.id, name: `${product.name} v${v.version}` };
+  const subject = { kind: 'version' as const, id: v.id, name: `${product.name} v${v.version}`, state: `Version ${v.version}, approved ${formatDate(v.approvedAt.toISOString())}`, rules: rulesOf(v.settings) };
   const frozen = v.label as Label | null;
   if (frozen) return { label: frozen, problem: null, kept: 'frozen', reference: { choice: 'typical', name: frozen.claims.reference ?? TYPICAL_JAM_REFERENCE.name }, subject };
   const outcome = await labelOfStored(em, actor, v.settings, v.lines);
@@ -93,7 +100,7 @@ export async function promotionLabelComparison(
   const before = await versionLabel(actor, request.baseline.id);
   const after = request.productVersionId
     ? await versionLabel(actor, request.productVersionId)
-    : view(await labelOfStored(await getEm(), actor, request.formula.settings, request.formula.lines), 'live', { kind: 'variant', id: '', name: '' }, null);
+    : view(await labelOfStored(await getEm(), actor, request.formula.settings, request.formula.lines), 'live', { kind: 'variant', id: '', name: '', state: null, rules: null }, null);
   const base = { baselineVersion: request.baseline.version, baselineKept: before.kept };
   if (!before.label || !after.label) return { ...base, changes: [], problem: before.problem ?? after.problem };
   return { ...base, changes: labelChanges(before.label, after.label), problem: null };

@@ -2,6 +2,7 @@
 import { z } from 'zod';
 import { id } from '@/lib/input';
 import type { LabelChange } from './label';
+import type { FormulaSettingsInput } from '@/lib/formulas/schema';
 
 /** The product a "reduced sugars" claim is measured against: a typical jam, or another formula (its id). */
 export const claimReferenceChoice = z.union([z.literal('typical'), id('Choose a formula of this workspace as the reference.')]);
@@ -23,8 +24,18 @@ export interface LabelView {
   kept: LabelKept;
   /** The claim reference as chosen ('typical' or a formula id) and its name. */
   reference: { choice: string; name: string } | null;
-  /** What the label belongs to, for headings and file names. */
-  subject: { kind: 'formula' | 'variant' | 'version'; id: string; name: string };
+  /** What the label belongs to, for headings, file names and the printed page's header. */
+  subject: LabelSubject;
+}
+
+export interface LabelSubject {
+  kind: 'formula' | 'variant' | 'version';
+  id: string;
+  name: string;
+  /** Which state of it: "Revision 4, saved 3 Dec 2026", "Version 2, approved …"; null when none applies. */
+  state: string | null;
+  /** The market rules the label was checked against. */
+  rules: { ruleSet: FormulaSettingsInput['ruleSet']; ruleDate: string } | null;
 }
 
 /** A promotion's label beside the label of the version it replaces. */

@@ -35,7 +35,7 @@ export type ModelFactor = (typeof MODEL_FACTORS)[number];
 
 export const FACTOR_INFO: Record<ModelFactor, { name: string; unit: string; decimals: number; help: string }> = {
   sugarRatio: { name: 'Sugar ratio', unit: 'g sweetener per g fruit', decimals: 3, help: 'All sweetener lines as weighed, over the fruit mass.' },
-  targetSolidsPct: { name: 'Target soluble solids', unit: '% (°Brix)', decimals: 1, help: 'The soluble solids the cook is taken to.' },
+  targetSolidsPct: { name: 'Target soluble solids', unit: '°Brix', decimals: 1, help: 'The soluble solids the cook is taken to.' },
   pectinPct: { name: 'Pectin', unit: '% of finished product', decimals: 3, help: 'All pectin lines over the finished mass.' },
   acidPct: { name: 'Added acid', unit: '% of finished product, as citric acid', decimals: 3, help: 'Acid lines counted as citric acid (lemon juice by its acidity) over the finished mass.' },
   fruitPer1000g: { name: 'Fruit', unit: 'g per 1000 g of finished product', decimals: 0, help: 'Fruit as weighed per 1000 g of finished product.' },

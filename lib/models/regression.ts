@@ -92,7 +92,16 @@ export interface RegressionFit {
   /** Number of estimable coefficients (the rank). */
   parameterCount: number;
   residualDf: number;
+  /**
+   * √(Σ wᵢeᵢ² / df), R's sigma. With weights n/s² it is in units of the panels' own standard error
+   * (about 1 when the means scatter as the panels predict), not in the response's units.
+   */
   residualStandardError: number | null;
+  /**
+   * √(Σ eᵢ² / df): the residual SD of the runs in the response's own units. The same as
+   * residualStandardError without weights.
+   */
+  residualSdOnScale: number | null;
   rSquared: number | null;
   adjustedRSquared: number | null;
   /** 1 − PRESS / total SS. */
@@ -294,6 +303,7 @@ export function fitRegression(input: RegressionInput): RegressionFit {
     parameterCount: rank,
     residualDf,
     residualStandardError: s,
+    residualSdOnScale: input.weights === undefined ? s : residualDf > 0 ? Math.sqrt(compensatedSum(residuals.map((e) => e * e)) / residualDf) : null,
     rSquared,
     adjustedRSquared,
     predictedRSquared,

@@ -81,11 +81,15 @@ export function approvalConsequence(outcome: PromotionOutcome): string {
     : `The variant becomes version ${outcome.nextVersion} of ${outcome.name} (${outcome.code}) and supersedes version ${outcome.currentVersion} now in production.`;
 }
 
-/** The review's verdict on the label: whether the pack must change before the first batch of the new version. */
-export function labelChangeVerdict(changedRows: number, baselineVersion: number): string {
-  return changedRows > 0
-    ? 'The declaration changes: relabel before this batch.'
-    : `The label reads the same as version ${baselineVersion}'s: no relabelling is needed.`;
+/**
+ * The review's verdict on the label: whether the pack must change before the first batch of the new
+ * version. Only printed rows call for a new label; a claim that may no longer be made or an additive
+ * limit is a check behind the pack, said as such.
+ */
+export function labelChangeVerdict(changes: ReadonlyArray<{ printed: boolean }>, baselineVersion: number): string {
+  if (changes.some((c) => c.printed)) return 'The declaration changes: relabel before this batch.';
+  if (changes.length > 0) return `The printed label reads the same as version ${baselineVersion}'s: no relabelling is needed. Some checks behind it change (below).`;
+  return `The label reads the same as version ${baselineVersion}'s: no relabelling is needed.`;
 }
 
 /**

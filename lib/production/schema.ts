@@ -75,7 +75,7 @@ export const requestPromotionSchema = z
     /** Chosen by the developer, never defaulted: a new product, or a new version of an existing one. */
     target: z.enum(PROMOTION_TARGETS, { error: 'Choose whether this is a new product or a new version of an existing one.' }),
     productId: z.uuid('Choose a product.').optional(),
-    newProductName: text({ min: 2, max: 120, required: 'Name the product.' }).optional(),
+    newProductName: text({ min: 2, max: 120, required: 'Name the new product, in at least 2 characters.' }).optional(),
     newProductCode: z.string().trim().regex(PRODUCT_CODE_PATTERN, 'Use 2–5 capital letters, e.g. QMJ.').optional(),
     rationale: longText(4000, { min: 10, required: 'Say why, in a sentence or two.' }),
     process: processSchema,
@@ -91,8 +91,9 @@ export const requestPromotionSchema = z
       return;
     }
     if (r.productId) ctx.addIssue({ code: 'custom', path: ['productId'], message: 'A new product is not a version of an existing one: leave the product out.' });
-    if (!r.newProductName) ctx.addIssue({ code: 'custom', path: ['newProductName'], message: 'Name the new product.' });
-    if (!r.newProductCode) ctx.addIssue({ code: 'custom', path: ['newProductCode'], message: 'Give the new product a code.' });
+    // Only when left out: a name or code given but refused already carries its field's own message.
+    if (r.newProductName === undefined) ctx.addIssue({ code: 'custom', path: ['newProductName'], message: 'Name the new product.' });
+    if (r.newProductCode === undefined) ctx.addIssue({ code: 'custom', path: ['newProductCode'], message: 'Give the new product a code.' });
   });
 export type RequestPromotionInput = z.infer<typeof requestPromotionSchema>;
 

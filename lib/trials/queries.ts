@@ -26,9 +26,27 @@ export async function listTrials(actor: Actor, query: TrialListQuery = {}): Prom
   const variants = await em.find(Variant, { ...inWorkspace(actor), trial: { $in: trials.map((t) => t.id) }, removedAt: null }, { fields: ['trial', 'settings', 'isBase'] });
   const counts = new Map<string, number>();
   const productOf = new Map<string, TrialSummary['productClass']>();
+  const classesOf = new Map<string, Set<TrialSummary['productClass']>>();
   for (const v of variants) {
     counts.set(v.trial.id, (counts.get(v.trial.id) ?? 0) + 1);
     if (v.isBase) productOf.set(v.trial.id, v.settings.productClass);
+    classesOf.set(v.trial.id, (classesOf.get(v.trial.id) ?? new Set()).add(v.settings.productClass));
+  }
+  // Without a base variant (a proposal's trial) the trial's product is its variants' common class,
+  // else that of the formula revision it started from: never a guess.
+  for (const [trialId, classes] of classesOf) if (!productOf.has(trialId) && classes.size === 1) productOf.set(trialId, [...classes][0]);
+  const unclassed = trials.filter((t) => !productOf.has(t.id));
+  if (unclassed.length) {
+    const revisions = await em.find(
+      FormulaRevision,
+      { ...inWorkspace(actor), $or: unclassed.map((t) => ({ formula: t.baseFormula.id, number: t.baseRevision })) },
+      { fields: ['formula', 'number', 'settings'] },
+    );
+    const classOfRevision = new Map(revisions.map((r) => [`${r.formula.id}:${r.number}`, r.settings.productClass]));
+    for (const t of unclassed) {
+      const productClass = classOfRevision.get(`${t.baseFormula.id}:${t.baseRevision}`);
+      if (productClass) productOf.set(t.id, productClass);
+    }
   }
   return trials
     .map((t) => ({
@@ -39,7 +57,7 @@ export async function listTrials(actor: Actor, query: TrialListQuery = {}): Prom
       ownerId: t.owner.id,
       ownerName: t.owner.name,
       baseFormulaName: t.baseFormula.name,
-      productClass: productOf.get(t.id) ?? 'jam',
+      productClass: productOf.get(t.id) ?? null,
       variantCount: counts.get(t.id) ?? 0,
       createdAt: t.createdAt.toISOString(),
       updatedAt: t.updatedAt.toISOString(),

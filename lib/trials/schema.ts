@@ -163,7 +163,8 @@ export interface TrialSummary {
   ownerId: string;
   ownerName: string;
   baseFormulaName: string;
-  productClass: (typeof PRODUCT_CLASSES)[number];
+  /** The base variant's class, else the variants' common class, else the base formula revision's; null if none says. */
+  productClass: (typeof PRODUCT_CLASSES)[number] | null;
   variantCount: number;
   createdAt: string;
   updatedAt: string;

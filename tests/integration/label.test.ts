@@ -120,7 +120,7 @@ describe('label endpoints', () => {
     const path = `/api/v1/formulas/${formulaId}/label`;
     const view = await callRoute(formulaLabelRoute.GET, { method: 'GET', path, caller: as(a, 'developer'), params: { formulaId } });
     expect(view.status).toBe(200);
-    expect(view.body.subject).toMatchObject({ kind: 'formula', id: formulaId });
+    expect(view.body.subject).toMatchObject({ kind: 'formula', id: formulaId, state: expect.stringMatching(/^Revision 1, saved \d{1,2} \w{3} \d{4}$/), rules: { ruleSet: 'eu', ruleDate: '2026-03-01' } });
     expect(view.body.reference).toMatchObject({ choice: 'typical' });
     const csv = await callRoute(formulaLabelRoute.GET, { method: 'GET', path: `${path}?format=csv`, caller: as(a, 'developer'), params: { formulaId } });
     expect(csv.status).toBe(200);

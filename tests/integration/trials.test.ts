@@ -1,7 +1,8 @@
 /** Trials end to end through the real handlers: plan, variants, cooks, CSV in and out, status moves. */
 import { describe, it, expect, beforeAll } from 'vitest';
 import { createWorkspace, callRoute, actorOf, type WorkspaceFixture } from './harness';
-import { createFixtureFormula } from './fixtures';
+import { createFixtureFormula, strawberryJamInput } from './fixtures';
+import { createFormula } from '@/lib/formulas/mutations';
 import * as trialsRoute from '@/app/api/v1/trials/route';
 import * as trialRoute from '@/app/api/v1/trials/[trialId]/route';
 import * as statusRoute from '@/app/api/v1/trials/[trialId]/status/route';
@@ -10,7 +11,7 @@ import * as importRoute from '@/app/api/v1/trials/[trialId]/cooks/import/route';
 import * as cooksRoute from '@/app/api/v1/trials/[trialId]/cooks/route';
 import * as exportRoute from '@/app/api/v1/trials/[trialId]/export/route';
 import { getEm } from '@/lib/db';
-import { Cook } from '@/entities';
+import { Cook, Variant } from '@/entities';
 import { diffRevisions } from '@/lib/formulas/diff';
 
 let a: WorkspaceFixture;
@@ -214,5 +215,37 @@ describe('the trial list', () => {
     expect(nobody.body.trials).toEqual([]);
     const mine = await callRoute(trialsRoute.GET, { method: 'GET', path: `/api/v1/trials?owner=${actorOf(a, 'developer').userId}`, caller: dev() });
     expect(mine.body.trials.length).toBeGreaterThan(0);
+  });
+});
+
+describe('the trial list’s product class without a base variant', () => {
+  // The walk's T-004..T-006: every variant a reduced-sugar spread, none the base; they were listed as
+  // "(Jam)" and dropped out of ?product=reduced_sugar_spread.
+  const listed = async (product: string) => (await callRoute(trialsRoute.GET, { method: 'GET', path: `/api/v1/trials?product=${product}`, caller: dev() })).body.trials as Array<{ id: string; productClass: string | null }>;
+
+  it('takes the variants’ common class', async () => {
+    const trialId = await newTrial();
+    const em = (await getEm()).fork();
+    const base = await em.findOneOrFail(Variant, { trial: trialId, isBase: true });
+    base.isBase = false;
+    base.settings = { ...base.settings, productClass: 'reduced_sugar_spread' };
+    await em.flush();
+    const spreads = await listed('reduced_sugar_spread');
+    expect(spreads.find((t) => t.id === trialId)?.productClass).toBe('reduced_sugar_spread');
+    expect((await listed('jam')).map((t) => t.id)).not.toContain(trialId);
+  });
+
+  it('takes the base formula revision’s class when the variants do not say', async () => {
+    const input = await strawberryJamInput(a, { name: 'Apricot spread, reduced sugar' });
+    const { formulaId } = await createFormula(actorOf(a, 'developer'), { ...input, settings: { ...input.settings, productClass: 'reduced_sugar_spread', targetSolidsPct: 45 } });
+    const res = await callRoute(trialsRoute.POST, { method: 'POST', path: '/api/v1/trials', caller: dev(), body: { title: 'Spread without base', question: 'Which pectin?', formulaId } });
+    expect(res.status, JSON.stringify(res.body)).toBe(201);
+    const trialId = res.body.trialId as string;
+    const em = (await getEm()).fork();
+    const base = await em.findOneOrFail(Variant, { trial: trialId, isBase: true });
+    base.removedAt = new Date();
+    base.isBase = false;
+    await em.flush();
+    expect((await listed('reduced_sugar_spread')).find((t) => t.id === trialId)?.productClass).toBe('reduced_sugar_spread');
   });
 });

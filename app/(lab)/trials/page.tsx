@@ -63,7 +63,7 @@ export default async function TrialsPage({ searchParams }: { searchParams: Promi
                     </Link>
                   </td>
                   <td className="px-4 py-3"><StatusBadge status={t.status} /></td>
-                  <td className="px-4 py-3">{t.baseFormulaName} <span className="text-xs text-rind-500">({PRODUCT_CLASS_LABELS[t.productClass]})</span></td>
+                  <td className="px-4 py-3">{t.baseFormulaName}{t.productClass ? <> <span className="text-xs text-rind-500">({PRODUCT_CLASS_LABELS[t.productClass]})</span></> : null}</td>
                   <td className="px-4 py-3 tabular-nums">{t.variantCount}</td>
                   <td className="px-4 py-3">{t.ownerName}</td>
                   <td className="px-4 py-3 text-rind-600">{formatDate(t.createdAt)}</td>

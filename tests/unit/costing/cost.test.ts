@@ -3,6 +3,7 @@ import {
   batchActualCostPerJar,
   costFormula,
   costStoredFormula,
+  fillMismatchText,
   historiesBy,
   roundMinor,
   type CostingInput,
@@ -50,8 +51,8 @@ const JAR_340: PackFormatData = {
   ],
 };
 
-function settings(targetSolidsPct: number): FormulaSettingsInput {
-  return { productClass: 'jam', ruleSet: 'eu', ruleDate: '2026-01-15', targetSolidsPct, jarNetFillG: 340 };
+function settings(targetSolidsPct: number, jarNetFillG = 340): FormulaSettingsInput {
+  return { productClass: 'jam', ruleSet: 'eu', ruleDate: '2026-01-15', targetSolidsPct, jarNetFillG };
 }
 
 const LINES = [
@@ -163,6 +164,26 @@ describe('cost of the Practical Action batch', () => {
     expect(c.ingredients[0].boughtG).toBeCloseTo(12_500, 9);
     expect(c.ingredients[0].batchMinor).toBeCloseTo(2250, 9);
     expect(c.batch.minor).toBeCloseTo(3305, 9);
+  });
+});
+
+describe('a pack format that fills another jar than the formula', () => {
+  // The walk's case: a formula for 250 g jars costed with a 340 g pack format. The cost per jar is the
+  // pack format's jar (what is filled); the formula's 250 g drives the label. Both are named.
+  it('is costed for the pack format’s jar and says the formula’s jar fill differs, naming both', () => {
+    const outcome = costStoredFormula(settings(68, 250), LINES, prices);
+    if (!outcome.ok) throw new Error(outcome.message);
+    expect(outcome.cost.filledPerJarG).toBeCloseTo(346.8, 9);
+    expect(outcome.cost.fillMismatch).toEqual({ packFormatNetFillG: 340, formulaJarFillG: 250 });
+    const text = fillMismatchText(outcome.cost.fillMismatch!);
+    expect(text).toContain('fills 340 g jars');
+    expect(text).toContain('jar net fill is 250 g');
+  });
+
+  it('says nothing when the pack format fills the formula’s own jar, or there is no pack format', () => {
+    expect(cost(68).fillMismatch).toBeNull();
+    const unpacked = costStoredFormula(settings(68, 250), LINES, { ...prices, packFormat: null });
+    expect(unpacked.ok && unpacked.cost.fillMismatch).toBeNull();
   });
 });
 

@@ -16,6 +16,9 @@ vi.mock('react-chartjs-2', () => ({
 
 import { FormulaEditor } from '@/components/formulas/FormulaEditor';
 import { CostAgainstLiking } from '@/components/costs/CostAgainstLiking';
+import { ProductCostCard } from '@/components/costs/ProductCostCard';
+import { BatchCostCard } from '@/components/costs/BatchCostCard';
+import { FillMismatchNotice } from '@/components/costs/CostSummary';
 
 afterEach(() => {
   cleanup();
@@ -41,11 +44,11 @@ function basis(asOf: string, sugarPackMinor = 2250): EditorCostBasis {
   };
 }
 
-function renderEditor(b: EditorCostBasis | undefined) {
+function renderEditor(b: EditorCostBasis | undefined, jarNetFillG: number = BASE_SETTINGS.jarNetFillG) {
   return render(
     <FormulaEditor
       mode="revise"
-      initial={{ formulaId: FORMULA_ID, name: 'Plum jam', revision: 1, settings: { ...BASE_SETTINGS }, lines: PRACTICAL_ACTION_STORED_LINES }}
+      initial={{ formulaId: FORMULA_ID, name: 'Plum jam', revision: 1, settings: { ...BASE_SETTINGS, jarNetFillG }, lines: PRACTICAL_ACTION_STORED_LINES }}
       ingredients={LIBRARY}
       massUnits="metric"
       temperatureUnit="C"
@@ -83,6 +86,18 @@ describe('the cost panel in the formula editor', () => {
     expect(String(fetchMock.mock.calls[0]?.[0 as never])).toBe('/api/v1/costs/basis?asOf=2026-03-01');
   });
 
+  it('warns, naming both fills, when the pack format fills another jar than the formula’s jar net fill', () => {
+    renderEditor(basis('2026-06-01'), 250);
+    const warning = screen.getByTestId('cost-summary-fill-mismatch');
+    expect(warning.textContent).toContain('The pack format fills 340 g jars, but the formula’s jar net fill is 250 g');
+    expect(warning.textContent).toContain('This cost per jar is for a 340 g jar');
+  });
+
+  it('gives no jar-size warning when the pack format fills the formula’s jar', () => {
+    renderEditor(basis('2026-06-01'));
+    expect(screen.queryByTestId('cost-summary-fill-mismatch')).toBeNull();
+  });
+
   it('is not there without prices (roles without the price permission)', () => {
     renderEditor(undefined);
     expect(screen.queryByTestId('formula-cost')).toBeNull();
@@ -111,5 +126,32 @@ describe('cost against liking on the Compare page', () => {
     // Sugar at 90 p/kg filled 340 g per jar: 30.6 p → GBP 0.31 (30.6 rounds to 31).
     expect(rows.map((r) => r.textContent)).toEqual(['VariantCost per jarOverall liking', 'AGBP 0.316.50', 'BGBP 0.317.25', 'Cat least GBP 0.00not tasted']);
     expect(screen.getByTestId('scatter').textContent).toBe('A:0.31:6.5|B:0.31:7.25');
+  });
+});
+
+describe('a cost per jar for another jar than the formula’s', () => {
+  // A 250 g formula costed with the 340 g pack format (the walk's apricot spread).
+  const prices = { ingredientPrices: historiesBy(basis('2026-06-01').ingredientPrices, (p) => p.ingredientId), packagingPrices: new Map(), overfillPct: 0, asOf: '2026-06-01', packFormat: { id: PACK, name: '340 g jar', netFillG: 340, items: [] } };
+  const line = [{ ingredientId: IDS.sugar, name: 'Sugar', grams: 1000, refusePct: 0 }];
+  const for250 = costFormula({ ...prices, lines: line, chargeG: 1000, finishedMassG: 1000, formulaJarFillG: 250 });
+  const for340 = costFormula({ ...prices, lines: line, chargeG: 1000, finishedMassG: 1000, formulaJarFillG: 340 });
+
+  it('the trial’s variants: one line per variant costed for another jar, none for the others', () => {
+    render(<FillMismatchNotice testId="fill" results={[{ label: 'Variant A', result: { ok: true, cost: for250 } }, { label: 'Variant B', result: { ok: true, cost: for340 } }]} />);
+    const items = within(screen.getByTestId('fill')).getAllByRole('listitem').map((li) => li.textContent);
+    expect(items).toHaveLength(1);
+    expect(items[0]).toMatch(/^Variant A: The pack format fills 340 g jars, but the formula’s jar net fill is 250 g/);
+  });
+
+  it('nothing at all when every variant fills its own jar', () => {
+    const { container } = render(<FillMismatchNotice results={[{ label: 'Variant B', result: { ok: true, cost: for340 } }]} />);
+    expect(container.textContent).toBe('');
+  });
+
+  it('the product’s versions and a batch say it too', () => {
+    render(<ProductCostCard costs={{ currency: 'GBP', asOf: '2026-06-01', warningPct: 5, versions: [{ versionId: 'v1', version: 1, status: 'current', approvedAt: '2026-05-01', atApproval: null, today: { ok: true, cost: for250 }, movedPct: null, warn: false }] }} />);
+    expect(screen.getByTestId('product-cost-fill').textContent).toContain('v1: The pack format fills 340 g jars, but the formula’s jar net fill is 250 g');
+    render(<BatchCostCard cost={{ currency: 'GBP', planned: { ok: true, cost: for250 }, actualPerJar: null }} goodJars={10} />);
+    expect(screen.getByTestId('batch-cost-fill').textContent).toContain('This batch: The pack format fills 340 g jars');
   });
 });

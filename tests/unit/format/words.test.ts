@@ -1,5 +1,5 @@
 import { describe, expect, it } from 'vitest';
-import { nameWithUnit, unitNote } from '@/lib/format/words';
+import { nameWithUnit, sentence, unitNote } from '@/lib/format/words';
 
 describe('a name with its unit', () => {
   it('puts the unit in brackets after the name', () => {
@@ -12,5 +12,15 @@ describe('a name with its unit', () => {
     expect(nameWithUnit('Score', '')).toBe('Score');
     expect(unitNote('Measured pH', 'pH')).toBeNull();
     expect(unitNote('Set test score', 'score 1–5')).toBe('score 1–5');
+  });
+});
+
+describe('a title closed as a sentence', () => {
+  it('adds a full stop, but not after a question mark or one already there', () => {
+    expect(sentence('Strawberry jam: less acid, same set?')).toBe('Strawberry jam: less acid, same set?');
+    expect(sentence('Apricot spread trial')).toBe('Apricot spread trial.');
+    expect(sentence('Done.')).toBe('Done.');
+    expect(sentence('Strawberry jam (STJ, new)')).toBe('Strawberry jam (STJ, new).');
+    expect(sentence('Does it set?”')).toBe('Does it set?”');
   });
 });

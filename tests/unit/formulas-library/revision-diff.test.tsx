@@ -21,6 +21,17 @@ describe('RevisionDiff', () => {
     expect(screen.queryByRole('table')).toBeNull();
   });
 
+  it('shows a small line to its hundredths: 0.5 g → 0.83 g of citric acid is not "1 g → 1 g"', () => {
+    const before = revision(1, [line(IDS.fruit, FRUIT_10, 1000), line(IDS.citric, CITRIC, 0.5)]);
+    const after = revision(2, [line(IDS.fruit, FRUIT_10, 1000), line(IDS.citric, CITRIC, 0.83)]);
+    render(<RevisionDiff before={before} after={after} massUnits="metric" />);
+    const citric = rowOf('Citric acid');
+    expect(citric.getAttribute('data-status')).toBe('changed');
+    expect(within(citric).getByText('0.50 g')).toBeTruthy();
+    expect([...citric.querySelectorAll('[data-changed]')].map((c) => c.textContent)).toEqual(['0.83 g']);
+    expect(within(rowOf('Orchard fruit pulp')).getAllByText('1.00 kg').length).toBe(2);
+  });
+
   it('shows added, removed and changed lines and the changed settings', () => {
     const before = revision(1, PRACTICAL_ACTION_LINES);
     const after = revision(2, [

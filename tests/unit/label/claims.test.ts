@@ -81,6 +81,16 @@ describe('reduced sugars', () => {
     expect(check.note).toMatch(/29\.9 % lower/);
   });
 
+  it('says “higher”, and that the claim does not apply, when the sugar is above the reference’s', () => {
+    // Source: Regulation (EC) No 1924/2006 Annex, REDUCED [NUTRIENT]; (62.225 − 48.5) / 48.5 = 28.3 % more sugar than the reference.
+    const check = checkReducedSugars(subject(62.225, 900), TYPICAL_JAM_REFERENCE);
+    expect(check.status).toBe('not_met');
+    expect(check.note).toMatch(/^Sugar is 28\.3 % higher than in .+, not lower: the claim does not apply\.$/);
+    expect(check.note).not.toMatch(/-|−/);
+    expect(check.figures.find((f) => f.label === 'Increase')?.value).toBeCloseTo(28.299, 3);
+    expect(check.figures.find((f) => f.label === 'Reduction')).toBeUndefined();
+  });
+
   it('is not met when the energy is higher than the reference, however low the sugar', () => {
     // Source: Regulation (EU) No 1047/2012, amending the Annex of 1924/2006: "reduced sugars" only if energy ≤ the similar product's
     expect(checkReducedSugars(subject(20, 1169.6), TYPICAL_JAM_REFERENCE).status).toBe('met');

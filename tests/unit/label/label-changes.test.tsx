@@ -41,6 +41,19 @@ describe('the label changes of a new version', () => {
     expect(screen.queryByRole('region', { name: 'Label rows that change' })).toBeNull();
   });
 
+  it('does not ask to relabel when only the additive limits (not printed on the pack) differ', () => {
+    const before = sampleLabel();
+    const after = sampleLabel();
+    after.additives = [...after.additives, { ...after.additives[0], name: 'Calcium citrate (E 333)' }];
+    const changes = labelChanges(before, after);
+    expect(changes.map((c) => [c.section, c.printed])).toEqual([['Additive limits', false]]);
+    render(<LabelChanges comparison={{ baselineVersion: 4, baselineKept: 'frozen', changes, problem: null }} />);
+    expect(screen.queryByText(/relabel before this batch/)).toBeNull();
+    expect(screen.getByText("The printed label reads the same as version 4's: no relabelling is needed. Some checks behind it change (below).")).toBeTruthy();
+    const table = screen.getByRole('region', { name: 'Label rows that change' });
+    expect(within(table).getByText('not printed on the pack')).toBeTruthy();
+  });
+
   it('says when the labels cannot be compared instead of claiming no change', () => {
     const comparison: Comparison = { baselineVersion: 1, baselineKept: 'frozen', changes: [], problem: 'The proposed formula has an ingredient without label data.' };
     render(<LabelChanges comparison={comparison} />);

@@ -21,8 +21,8 @@ describe('label rows and changes', () => {
     after.additives[0] = { ...after.additives[0], status: 'within', amount: '900 mg/kg as sorbic acid' };
     const changes = labelChanges(sampleLabel(), after);
     expect(changes).toEqual([
-      { section: 'EU declaration, 100 g', item: 'of which sugars', before: '44 g', after: '40 g' },
-      { section: 'Additive limits', item: 'Sorbic acid and sorbates', before: '1100 mg/kg as sorbic acid (over: 1000 mg/kg)', after: '900 mg/kg as sorbic acid (within: 1000 mg/kg)' },
+      { section: 'EU declaration, 100 g', item: 'of which sugars', before: '44 g', after: '40 g', printed: true },
+      { section: 'Additive limits', item: 'Sorbic acid and sorbates', before: '1100 mg/kg as sorbic acid (over: 1000 mg/kg)', after: '900 mg/kg as sorbic acid (within: 1000 mg/kg)', printed: false },
     ]);
   });
 
@@ -31,8 +31,8 @@ describe('label rows and changes', () => {
     after.additives = [];
     after.claims.items.push({ claim: 'Low sugars', holds: false, figures: '44.1 g per 100 g; at most 5 g', rule: 'Regulation (EC) 1924/2006, Annex' });
     const changes = labelChanges(sampleLabel(), after);
-    expect(changes).toContainEqual({ section: 'Claims', item: 'Low sugars', before: null, after: 'may not be made' });
-    expect(changes).toContainEqual({ section: 'Additive limits', item: 'Sorbic acid and sorbates', before: '1100 mg/kg as sorbic acid (over: 1000 mg/kg)', after: null });
+    expect(changes).toContainEqual({ section: 'Claims', item: 'Low sugars', before: null, after: 'may not be made', printed: false });
+    expect(changes).toContainEqual({ section: 'Additive limits', item: 'Sorbic acid and sorbates', before: '1100 mg/kg as sorbic acid (over: 1000 mg/kg)', after: null, printed: false });
   });
 
   it('exports every row to CSV with the unrounded figure, unknowns left as "unknown"', () => {

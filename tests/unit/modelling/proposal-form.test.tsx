@@ -45,6 +45,15 @@ describe('the cost ceiling on the Propose form', () => {
     }
   });
 
+  it('says when the pack format fills another jar than the formula’s, naming both fills', () => {
+    const jar340 = { ...basis, packFormats: [{ ...basis.packFormats[0], id: 'pf340', name: '340 g jar', netFillG: 340 }] };
+    render(<ProposalForm {...props} cost={{ basis: jar340, packFormatId: 'pf340' }} />);
+    expect(screen.getByTestId('proposal-cost-fill').textContent).toContain('The pack format fills 340 g jars, but the formula’s jar net fill is 250 g');
+    cleanup();
+    render(<ProposalForm {...props} cost={{ basis, packFormatId: 'pf' }} />);
+    expect(screen.queryByTestId('proposal-cost-fill')).toBeNull();
+  });
+
   it('names a bad ceiling and a missing pack format, and searches nothing', () => {
     render(<ProposalForm {...props} cost={{ basis, packFormatId: null }} />);
     expect(screen.getByText('This formula has no pack format, so it has no cost per jar: choose its pack format (jar and packaging) first.')).toBeTruthy();

@@ -117,6 +117,47 @@ describe('least squares against R lm()', () => {
   });
 });
 
+describe('weighted least squares by hand: which figures are in the response’s units', () => {
+  // Weighted least squares: b = (XᵀWX)⁻¹XᵀWy, residual variance Σwᵢeᵢ²/(n − p) (Draper & Smith,
+  // Applied Regression Analysis, 3rd ed., ch. 9 — from memory; NIST/SEMATECH e-Handbook of Statistical
+  // Methods §4.1.4.3, weighted least squares). Worked here by hand for a straight line:
+  //   x = 0, 1, 2, 3; y = 1, 3, 4, 8; w = 1, 2, 2, 1.
+  //   Σw = 6, Σwx = 9, Σwy = 23, Σwx² = 19, Σwxy = 46; x̄w = 3/2, ȳw = 23/6.
+  //   slope = (46 − 6·3/2·23/6) / (19 − 6·9/4) = (23/2) / (11/2) = 23/11; intercept = 23/6 − 23/11·3/2 = 23/33.
+  //   residuals e = 10/33, 7/33, −29/33, 34/33.
+  //   Σwe² = (100 + 98 + 1682 + 1156)/1089 = 92/33 → s = √(92/33 / 2) = 1.18065 (weighted units).
+  //   Σe² = (100 + 49 + 841 + 1156)/1089 = 2146/1089 → residual SD on the y scale √(2146/1089 / 2) = 0.99263.
+  //   Weighted total SS Σw(y − ȳw)² = 161/6; weighted regression SS = 161/6 − 92/33 = 529/22.
+  const input = { termNames: ['1', 'x'], rows: [0, 1, 2, 3].map((x) => [1, x]), response: [1, 3, 4, 8], weights: [1, 2, 2, 1] };
+
+  it('the fit, the weighted sums of squares and both residual SDs', () => {
+    const fit = fitRegression(input);
+    expect(fit.terms[0].estimate).toBeCloseTo(23 / 33, 12);
+    expect(fit.terms[1].estimate).toBeCloseTo(23 / 11, 12);
+    fit.residuals.forEach((e, i) => expect(e).toBeCloseTo([10, 7, -29, 34][i] / 33, 12));
+    expect(fit.anova!.residual.sumOfSquares).toBeCloseTo(92 / 33, 12);
+    expect(fit.anova!.total.sumOfSquares).toBeCloseTo(161 / 6, 12);
+    expect(fit.anova!.regression.sumOfSquares).toBeCloseTo(529 / 22, 12);
+    expect(fit.residualStandardError).toBeCloseTo(Math.sqrt(92 / 33 / 2), 12);
+    expect(fit.residualSdOnScale).toBeCloseTo(Math.sqrt(2146 / 1089 / 2), 12);
+    expect(fit.residualSdOnScale).toBeCloseTo(0.99263, 5);
+  });
+
+  it('unweighted, the two residual SDs are one', () => {
+    const fit = fitRegression({ ...input, weights: undefined });
+    expect(fit.residualSdOnScale).toBe(fit.residualStandardError);
+  });
+
+  it('the prediction interval of a new run of weight w₀ is t·s·√(1/w₀ + h₀), on the y scale', () => {
+    // At x = 1.5 (= x̄w) the leverage is 1/Σw = 1/6; t(0.975, 2) = 4.302653.
+    const fit = fitRegression(input);
+    const at = predictRow(fit.basis, [1, 1.5], { newRunWeight: 2 });
+    expect(at.estimate).toBeCloseTo(23 / 6, 12);
+    expect(at.leverage).toBeCloseTo(1 / 6, 12);
+    expect(at.prediction!.high - at.estimate).toBeCloseTo(4.302653 * Math.sqrt(92 / 33 / 2) * Math.sqrt(1 / 2 + 1 / 6), 5);
+  });
+});
+
 describe('warnings instead of numbers', () => {
   it('names the aliased terms: a column that is the sum of two others', () => {
     const rows = [[1, 1, 0, 1], [1, 0, 1, 1], [1, 1, 1, 2], [1, 0, 0, 0], [1, 2, 1, 3]];

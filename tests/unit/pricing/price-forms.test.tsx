@@ -75,6 +75,15 @@ describe('the packaging price form', () => {
   });
 });
 
+describe('the packaging price form’s hint', () => {
+  it('fits any packaging item, not only labels (a jar’s own price page showed “Labels by the thousand”)', () => {
+    render(<PackagingPriceForm currency="GBP" items={[{ id: LID, name: 'Jar 340 g' }]} fixedItemId={LID} today="2026-12-03" />);
+    const hint = screen.getByText(/How many pieces the price buys/);
+    expect(hint.textContent).toContain('12 for a tray of 12 jars');
+    expect(screen.queryByText(/Labels by the thousand/)).toBeNull();
+  });
+});
+
 describe('the cost settings and refuse forms', () => {
   it('keep what was saved on screen, and blank or junk numbers go to the server as NaN for its message', async () => {
     actions.saveCostSettingsAction.mockResolvedValueOnce({ ok: true, data: undefined });

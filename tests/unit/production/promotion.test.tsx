@@ -4,7 +4,7 @@ import { cleanup, fireEvent, render, screen, within } from '@testing-library/rea
 import { defaultQcSpec, computeBatch } from '@/lib/chemistry';
 import { toChemistrySettings } from '@/lib/formulas/compute';
 import { weighLines, identityDifferences, fruitsOf } from '@/lib/production/review';
-import type { PromotionDraftVariant, PromotionTargetProduct } from '@/lib/production/schema';
+import { requestPromotionSchema, type PromotionDraftVariant, type PromotionTargetProduct } from '@/lib/production/schema';
 import { IDS, PRACTICAL_ACTION_LINES, SUGAR, PECTIN_200, line, settings } from '../formulas-library/fixtures';
 
 const { push } = vi.hoisted(() => ({ push: vi.fn() }));
@@ -97,6 +97,24 @@ describe('requesting promotion: where the variant goes', () => {
   });
 });
 
+describe('a new product without a name or code', () => {
+  const request = (extra: Record<string, unknown>) => requestPromotionSchema.safeParse({
+    trialId: '6a0e3f7c-1111-4c1e-9d1a-0b1c2d3e4f51', variantId: variant.id, target: 'new_product',
+    rationale: 'Variant B set cleanly and scored best.', process: variant.defaults!.process, spec: variant.defaults!.spec, ...extra,
+  });
+  const messagesOf = (result: ReturnType<typeof request>, field: string) => (result.success ? [] : result.error.issues.filter((i) => i.path[0] === field).map((i) => i.message));
+
+  it('says once to name it, whether the name is left out or left blank', () => {
+    expect(messagesOf(request({ newProductCode: 'STJ' }), 'newProductName')).toEqual(['Name the new product.']);
+    expect(messagesOf(request({ newProductName: '  ', newProductCode: 'STJ' }), 'newProductName')).toEqual(['Name the new product, in at least 2 characters.']);
+  });
+
+  it('says once what is wrong with the code', () => {
+    expect(messagesOf(request({ newProductName: 'Strawberry jam' }), 'newProductCode')).toEqual(['Give the new product a code.']);
+    expect(messagesOf(request({ newProductName: 'Strawberry jam', newProductCode: '' }), 'newProductCode')).toEqual(['Use 2–5 capital letters, e.g. QMJ.']);
+  });
+});
+
 describe('the approval dialog follows the choice', () => {
   it('a new product: becomes version 1, supersedes nothing', () => {
     render(<DecisionForm requestId="r1" code="PR-004" outcome={{ kind: 'new_product', name: 'Strawberry jam', code: 'STJ' }} />);
@@ -124,6 +142,15 @@ describe('the review page shows the formula and what it changes', () => {
     expect(rows[0]).toEqual(['Orchard fruit pulp', '10.00 kg', '49.7 %']);
     expect(rows[2]).toEqual(['HM pectin grade 200', '60.0 g', '0.3 %']);
     expect(screen.getByText(/nothing to compare the lines with/)).toBeTruthy();
+  });
+
+  it('keeps the decimals of a small line: 0.5 g of acid in a 2 kg batch is not "0.0 %"', () => {
+    // 1000 g fruit + 1000 g sugar + 0.5 g citric acid: charge 2000.5 g; the acid is 0.5 / 2000.5 = 0.025 % of it.
+    const lines = [line(IDS.fruit, PRACTICAL_ACTION_LINES[0].ingredient, 1000), line(IDS.sugar, SUGAR, 1000), line(IDS.citric, PRACTICAL_ACTION_LINES[3].ingredient, 0.5)];
+    const weighed = weighLines(settings(), lines)!;
+    render(<PromotionFormula formula={{ settings: settings(), lines, weighed }} baseline={null} variantLabel="B" massUnits="metric" temperatureUnit="C" />);
+    const rows = within(screen.getByTestId('promotion-lines')).getAllByRole('row').slice(1).map((r) => [...r.children].map((c) => c.textContent));
+    expect(rows[2].slice(1)).toEqual(['0.50 g', '0.02 %']);
   });
 
   it('diffs the lines against the version in production', () => {

@@ -12,7 +12,7 @@ import { TrialHeader } from '@/components/trials/TrialHeader';
 import { StatusControls } from '@/components/trials/StatusControls';
 import { VariantsTable } from '@/components/trials/VariantsTable';
 import { trialCosts } from '@/lib/costs/queries';
-import { variantCostTexts } from '@/components/costs/CostSummary';
+import { FillMismatchNotice, variantCostTexts } from '@/components/costs/CostSummary';
 import { PlanHelper } from '@/components/trials/PlanHelper';
 import { CsvImport } from '@/components/trials/CsvImport';
 import { Attachments } from '@/components/trials/Attachments';
@@ -80,6 +80,7 @@ export default async function TrialPage({ params }: { params: Promise<{ trialId:
           <section aria-labelledby="variants-title">
             <h2 id="variants-title" className="mb-3 text-xl font-semibold">Variants</h2>
             <VariantsTable trialId={trial.id} variants={trial.variants} massUnits={actor.massUnits} temperatureUnit={actor.temperatureUnit} costPerJar={costPerJar} />
+            {costs ? <div className="mt-2"><FillMismatchNotice results={costs.variants.map((v) => ({ label: `Variant ${v.label}`, result: v.result }))} testId="variant-cost-fill" /></div> : null}
             <p className="mt-2 text-xs text-rind-500">Measured values are coloured against their prediction: green within tolerance, amber worth a look, red out of window; a red block means a food-safety limit.</p>
           </section>
           {editable ? <PlanHelper trialId={trial.id} baseLevels={baseLevelsOf(baseMass, base.settings)} /> : canEdit ? (

@@ -17,6 +17,7 @@ import { formatDate } from '@/lib/format/dates';
 import { promotionLabelComparison } from '@/lib/label/queries';
 import { LabelChanges } from '@/components/label/LabelChanges';
 import { LabReadings } from '@/components/production/LabReadings';
+import { sentence } from '@/lib/format/words';
 
 export const dynamic = 'force-dynamic';
 export const metadata = { title: 'Promotion request' };
@@ -36,7 +37,7 @@ export default async function PromotionRequestPage({ params }: { params: Promise
     <>
       <PageHeader
         title={`${r.code}: variant ${r.variantLabel} of ${r.trial.code}`}
-        lead={`${r.productLabel}. Requested by ${r.requestedBy} on ${formatDate(r.requestedAt)}.${r.status === 'pending' ? ` On approval, ${approvalConsequence(r.outcome).replace(/^T/, 't')}` : ''}`}
+        lead={`${sentence(r.productLabel)} Requested by ${r.requestedBy} on ${formatDate(r.requestedAt)}.${r.status === 'pending' ? ` On approval, ${approvalConsequence(r.outcome).replace(/^T/, 't')}` : ''}`}
         actions={<StatusBadge status={r.status} />}
       />
       <p className="-mt-3 mb-6 text-sm">

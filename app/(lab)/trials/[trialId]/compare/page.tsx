@@ -12,7 +12,7 @@ import { DataTable, CELL, HEAD, NUM, NUM_TH, TH } from '@/components/results/Dat
 import { Notice } from '@/components/ui/Notice';
 import { formatDate } from '@/lib/format/dates';
 import { trialCosts } from '@/lib/costs/queries';
-import { variantCostTexts } from '@/components/costs/CostSummary';
+import { FillMismatchNotice, variantCostTexts } from '@/components/costs/CostSummary';
 import { CostAgainstLiking } from '@/components/costs/CostAgainstLiking';
 
 export const dynamic = 'force-dynamic';
@@ -36,6 +36,7 @@ export default async function ComparePage({ params }: { params: Promise<{ trialI
       <section className="mb-6">
         <h2 className="mb-2 text-xl font-semibold">Predicted and measured</h2>
         <VariantsTable trialId={c.trial.id} variants={c.trial.variants} massUnits={actor.massUnits} temperatureUnit={actor.temperatureUnit} costPerJar={costs ? variantCostTexts(costs) : undefined} />
+        {costs ? <div className="mt-2"><FillMismatchNotice results={costs.variants.map((v) => ({ label: `Variant ${v.label}`, result: v.result }))} testId="variant-cost-fill" /></div> : null}
       </section>
       <section className="mb-6" aria-labelledby="sensory-title">
         <h2 id="sensory-title" className="mb-2 text-xl font-semibold">What tasters said</h2>

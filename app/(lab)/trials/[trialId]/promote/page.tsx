@@ -4,6 +4,7 @@ import { getPromotionDraft } from '@/lib/production/queries';
 import { PageHeader } from '@/components/ui/Card';
 import { Notice } from '@/components/ui/Notice';
 import { PromotionForm } from '@/components/production/PromotionForm';
+import { sentence } from '@/lib/format/words';
 
 export const dynamic = 'force-dynamic';
 export const metadata = { title: 'Request promotion' };
@@ -13,7 +14,7 @@ export default async function PromotePage({ params }: { params: Promise<{ trialI
   const draft = await orNotFound(getPromotionDraft(actor, pageId((await params).trialId)));
   return (
     <>
-      <PageHeader title={`Promote from ${draft.trial.code}`} lead={`${draft.trial.title}. The head of product reviews the request with its evidence and approves or sends it back.`} />
+      <PageHeader title={`Promote from ${draft.trial.code}`} lead={`${sentence(draft.trial.title)} The head of product reviews the request with its evidence and approves or sends it back.`} />
       <p className="-mt-3 mb-6 text-sm"><Link href={`/trials/${draft.trial.id}/compare`} className="text-damson-700 underline">Back to the comparison</Link></p>
       {draft.pending ? (
         <Notice tone="info" title={`${draft.pending.code} is awaiting review`}>

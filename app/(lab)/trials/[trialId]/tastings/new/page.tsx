@@ -4,6 +4,7 @@ import { listAttributes } from '@/lib/tastings/queries';
 import { NewTastingForm } from '@/components/tastings/NewTastingForm';
 import { suggestAttributes } from '@/lib/sensory';
 import { PageHeader } from '@/components/ui/Card';
+import { sentence } from '@/lib/format/words';
 
 export const dynamic = 'force-dynamic';
 export const metadata = { title: 'New tasting' };
@@ -14,7 +15,7 @@ export default async function NewTastingPage({ params }: { params: Promise<{ tri
   const attributes = await listAttributes(actor);
   return (
     <>
-      <PageHeader title={`New tasting for ${trial.code}`} lead={`${trial.title}. Samples get random three-digit codes and balanced serving orders.`} />
+      <PageHeader title={`New tasting for ${trial.code}`} lead={`${sentence(trial.title)} Samples get random three-digit codes and balanced serving orders.`} />
       <NewTastingForm trialId={trial.id} variants={trial.variants.map((v) => ({ id: v.id, label: v.label, description: v.description }))} attributes={attributes}
         suggestedAttributeIds={suggestAttributes(attributes, [...new Set(trial.variants.flatMap((v) => v.factorLevels.map((l) => l.factor)))])} />
     </>
