@@ -106,5 +106,5 @@ export const CORRECTION_CAUTION_FROM_C = 3;
 export function correctionCaution(correction: Pick<BrixCorrection, 'sampleTempC'>): string | null {
   const gap = correction.sampleTempC - 20;
   if (Math.abs(gap) < CORRECTION_CAUTION_FROM_C) return null;
-  return `Read ${Math.abs(gap).toLocaleString('en-GB', { maximumFractionDigits: 1 })} °C ${gap > 0 ? 'above' : 'below'} 20 °C: if the result is close to a limit, bring the sample to 20 °C and read again.`;
+  return `Read ${Math.round(Math.abs(gap) * 10) / 10} °C ${gap > 0 ? 'above' : 'below'} 20 °C: if the result is close to a limit, bring the sample to 20 °C and read again.`;
 }
