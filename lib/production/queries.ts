@@ -221,7 +221,7 @@ function batchView(b: BatchRow, decisionRows: DecisionRow[]): BatchView {
     notes: b.notes ?? null, checks: b.checks, outcome: outcomeOfChecks(b.checks), disposition: b.disposition ?? null, dispositionComment: b.dispositionComment ?? null,
     recordedBy: b.recordedBy.name,
     status: standing.status, latestOutcome: standing.outcome, latestChecks: [...standing.checks],
-    canRetest: standing.canRetest, canRelease: standing.canRelease, canReject: standing.canReject, decisions,
+    canRetest: standing.canRetest, canRelease: standing.canRelease, canReject: standing.canReject, staleSinceRework: standing.staleSinceRework, decisions,
     limits: { solidsMin: s.solidsMinBrix, solidsMax: s.solidsMaxBrix, phMin: s.phMin, phMax: s.phMax },
   };
 }

@@ -329,6 +329,8 @@ export interface BatchView {
   canRetest: boolean;
   canRelease: boolean;
   canReject: boolean;
+  /** A batch kept for rework: the checks not measured again since the rework (empty otherwise). */
+  staleSinceRework: string[];
   decisions: BatchDecisionView[];
   /** The spec this batch was checked against, for the trend chart's limits. */
   limits: { solidsMin: number; solidsMax: number; phMin: number; phMax: number };

@@ -13,7 +13,7 @@ function batch(overrides: Partial<BatchView>): BatchView {
     ph: 3.1, fillTempC: 88, netFillMeanG: 342, netFillMinG: 336, setTestScore: null, jarsFilled: 100, jarsRejected: 0, notes: null,
     checks: [check('solids', 'pass'), check('set', 'not_measured')], outcome: 'incomplete', disposition: null, dispositionComment: null, recordedBy: 'Prod',
     status: 'held', latestOutcome: 'incomplete', latestChecks: [check('solids', 'pass'), check('set', 'not_measured')],
-    canRetest: true, canRelease: false, canReject: true, decisions: [], limits: { solidsMin: 64, solidsMax: 66, phMin: 2.9, phMax: 3.3 },
+    canRetest: true, canRelease: false, canReject: true, staleSinceRework: [], decisions: [], limits: { solidsMin: 64, solidsMax: 66, phMin: 2.9, phMax: 3.3 },
     ...overrides,
   };
 }

@@ -41,7 +41,9 @@ export default async function BatchPage({ params }: { params: Promise<{ batchId:
       {b.status === 'held' ? (
         <div className="mb-6">
           <Notice tone="warning" title="On hold">
-            {b.latestOutcome === 'incomplete'
+            {b.latestOutcome === 'incomplete' && b.staleSinceRework.length
+              ? `Reworked, and not measured again since: ${b.staleSinceRework.join(', ').toLowerCase()}. A re-boil or blend changes the batch, so the readings before it do not count: re-test ${b.staleSinceRework.length > 1 ? 'them' : 'it'} before the batch can be released.`
+              : b.latestOutcome === 'incomplete'
               ? 'A check the spec requires was not measured: re-test it before the batch can be released.'
               : b.latestOutcome === 'fail' ? 'The latest checks failed: rework and re-test, or reject the batch.' : 'The latest re-test passed every check: the batch can be released.'}
           </Notice>
@@ -76,7 +78,7 @@ export default async function BatchPage({ params }: { params: Promise<{ batchId:
         </Card>
       </div>
       {b.status === 'held' && can(actor.role, 'batches.record') ? (
-        <div className="mt-6"><BatchHoldPanel batchId={b.id} lotCode={b.lotCode} canRelease={b.canRelease} temperatureUnit={actor.temperatureUnit} /></div>
+        <div className="mt-6"><BatchHoldPanel batchId={b.id} lotCode={b.lotCode} canRelease={b.canRelease} reworked={b.disposition === 'rework'} temperatureUnit={actor.temperatureUnit} /></div>
       ) : null}
       <div className="mt-6"><Card title="Audit trail"><AuditTrail events={audit} /></Card></div>
     </>
