@@ -51,6 +51,11 @@ export interface BatchStanding {
   staleSinceRework: string[];
 }
 
+/** The jars a batch can sell: none once it is rejected or discarded (every jar goes with it), else those filled less those rejected. */
+export function goodJarsOf(status: BatchStatus, jarsFilled: number, jarsRejected: number): number {
+  return status === 'rejected' || status === 'discarded' ? 0 : Math.max(0, jarsFilled - jarsRejected);
+}
+
 /** The recorded readings with a re-test's values laid over them. */
 export function mergeRetest(readings: BatchReadings, retest: BatchRetestReadings): BatchReadings {
   const merged: BatchReadings = { ...readings };

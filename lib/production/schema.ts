@@ -315,6 +315,8 @@ export interface BatchView {
   setTestScore: number | null;
   jarsFilled: number;
   jarsRejected: number;
+  /** Jars that can be sold: none for a rejected or discarded batch (goodJarsOf). */
+  goodJars: number;
   notes: string | null;
   checks: QcCheck[];
   /** The outcome at recording: a missing required check shows as incomplete, even on rows stored before that rule. */

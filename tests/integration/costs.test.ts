@@ -12,7 +12,7 @@ import { getEm } from '@/lib/db';
 import { Ingredient, ProductVersion } from '@/entities';
 import { createTrial } from '@/lib/trials/mutations';
 import { listVariants } from '@/lib/trials/queries';
-import { decidePromotion, recordBatch, requestPromotion } from '@/lib/production/mutations';
+import { decideBatch, decidePromotion, recordBatch, requestPromotion } from '@/lib/production/mutations';
 import { getProductionVersion } from '@/lib/production/queries';
 import { lotCodeFor } from '@/lib/production/vocabulary';
 import { addIngredientPrice, addPackagingPrice, createPackagingItem, createPackFormat, saveCostSettings, setFormulaPackFormat, setPackagingArchived } from '@/lib/pricing/mutations';
@@ -198,6 +198,26 @@ describe('a production version: frozen at approval, today, and the warning', () 
     const expected = (planned.batch.minor * (20_000 / planned.chargeG) + 38 * 50) / 48;
     expect(cost.actualPerJar?.minor).toBeCloseTo(expected, 9);
     expect(cost.actualPerJar?.complete).toBe(true);
+    expect(cost.goodJars).toBe(48);
+  });
+
+  it('a rejected batch has no good jars and no cost per good jar', async () => {
+    // The walk: a rejected batch still showed "Actual, over 105 good jars" and a cost per jar.
+    const version = await getProductionVersion(actorOf(a, 'production'), versionId);
+    const date = '2026-03-11';
+    const production = actorOf(a, 'production');
+    const { batchId } = await recordBatch(production, versionId, {
+      lotCode: lotCodeFor(version.product.code, date, 1), batchDate: date, batchSizeG: 20_000, brixReading: 65, brixSampleTempC: 20, ph: 3.1, fillTempC: 70, jarsFilled: 50, jarsRejected: 0,
+      disposition: 'hold', dispositionComment: 'Filled cold; holding for a decision.',
+    });
+    expect((await batchCost(production, batchId)).goodJars).toBe(50);
+    await decideBatch(production, batchId, { decision: 'reject', comment: 'Filled cold; the lot is destroyed.' });
+    const cost = await batchCost(production, batchId);
+    expect(cost.goodJars).toBe(0);
+    expect(cost.actualPerJar).toBeNull();
+    const batch = (await getProductionVersion(production, versionId)).batches.find((b) => b.id === batchId)!;
+    expect(batch.status).toBe('rejected');
+    expect(batch.goodJars).toBe(0);
   });
 });
 

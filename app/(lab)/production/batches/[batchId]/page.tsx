@@ -31,7 +31,7 @@ export default async function BatchPage({ params }: { params: Promise<{ batchId:
     <>
       <PageHeader
         title={`Batch ${b.lotCode}`}
-        lead={`${product.name}, made to v${b.version} on ${formatDate(b.batchDate)}; ${formatMass(b.batchSizeG, actor.massUnits)}, ${b.jarsFilled} jars (${b.jarsRejected} rejected). Recorded by ${b.recordedBy}.`}
+        lead={`${product.name}, made to v${b.version} on ${formatDate(b.batchDate)}; ${formatMass(b.batchSizeG, actor.massUnits)}, ${b.status === 'rejected' || b.status === 'discarded' ? `${b.jarsFilled} jars filled, none good: the batch was ${b.status}` : `${b.jarsFilled} jars (${b.jarsRejected} rejected)`}. Recorded by ${b.recordedBy}.`}
         actions={<StatusBadge status={b.status} />}
       />
       <p className="-mt-3 mb-6 flex flex-wrap gap-3 text-sm">
@@ -49,7 +49,7 @@ export default async function BatchPage({ params }: { params: Promise<{ batchId:
           </Notice>
         </div>
       ) : null}
-      {cost ? <div className="mb-6"><BatchCostCard cost={cost} goodJars={b.jarsFilled - b.jarsRejected} /></div> : null}
+      {cost ? <div className="mb-6"><BatchCostCard cost={cost} writtenOff={b.status === 'rejected' || b.status === 'discarded' ? b.status : null} /></div> : null}
       <div className="grid gap-6 lg:grid-cols-2">
         <Card title="Checks at recording">
           <div className="mb-2"><StatusBadge status={b.outcome} /></div>
