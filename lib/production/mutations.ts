@@ -23,6 +23,7 @@ import { costForApproval } from '@/lib/costs/queries';
 import { todayIso } from '@/lib/format/dates';
 import type { FormulaSettingsInput, RevisionLine } from '@/lib/formulas/schema';
 import type { BatchDecisionInput, BatchRecordInput, BatchRetestInput, DecisionInput, PromotionEvidence, RequestPromotionInput } from './schema';
+import { batchRecordProblems } from './schema';
 import { batchStanding, checkRetest, type BatchDecisionFact } from './holds';
 import { AUDIT_ACTIONS, dayOfYear, promotionCode, type AuditAction, type BatchOutcome } from './vocabulary';
 
@@ -264,6 +265,11 @@ export async function recordBatch(actor: Actor, versionId: string, input: BatchR
   const version = await em.findOne(ProductVersion, { ...inWorkspace(actor), id: versionId }, { populate: ['product'] });
   if (!version) throw notFound('production version');
   if (version.status !== 'current') throw new Conflict(`v${version.version} is superseded: record batches against the version in production.`);
+  const impossible = batchRecordProblems(input, {
+    today: todayIso(momentOf(options)), version: version.version, approvedOn: todayIso(version.approvedAt),
+    netFillG: version.spec.netFillG, netFillToleranceG: version.spec.netFillToleranceG,
+  });
+  if (Object.keys(impossible).length) throw new ValidationFailed('This batch cannot have been made as entered.', impossible);
 
   const [prefix, dateSegment] = input.lotCode.split('-');
   const expectedSegment = `${input.batchDate.slice(2, 4)}${String(dayOfYear(input.batchDate)).padStart(3, '0')}`;

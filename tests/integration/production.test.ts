@@ -1,6 +1,7 @@
 /** Promotion to production through the real handlers: the four-eyes rule, immutable versions, superseding, batch checks, the audit trail. */
 import { describe, it, expect, beforeAll } from 'vitest';
-import { createWorkspace, callRoute, actorOf, waitForMail, type WorkspaceFixture, type Caller } from './harness';
+import { asCaller, createWorkspace, callRoute, actorOf, waitForMail, type WorkspaceFixture, type Caller } from './harness';
+import { recordBatchAction } from '@/lib/production/actions';
 import { strawberryJamInput } from './fixtures';
 import { createApprovedVersion, createPromotableTrial, freshProductCode, promotionInput } from './production-fixtures';
 import * as promotionsRoute from '@/app/api/v1/promotions/route';
@@ -322,6 +323,29 @@ describe('batch records against the spec', () => {
     expect(wrongPrefix.body.error.fields.lotCode.join(' ')).toMatch(new RegExp(`starts with ${code}`));
     const wrongDate = await post(as('production'), { ...goodBatch(code, '2026-11-03', 1), lotCode: lotCodeFor(code, '2026-11-04', 1) });
     expect(wrongDate.body.error.fields.lotCode.join(' ')).toMatch(/26307/);
+  });
+
+  it('refuses a batch that cannot have happened, from the API and the form alike, and stores nothing', async () => {
+    // The walk: future dates, a date before the version's approval, and a 1 kg batch of 1,000,000 jars of 340 g
+    // were all accepted. The fixture's version was approved on 2 Jan 2025 (FIXTURE_APPROVED_AT).
+    const em = (await getEm()).fork();
+    const before = await em.count(BatchRecord, {});
+    for (const date of ['2031-06-15', '2099-01-01']) {
+      const res = await post(as('production'), goodBatch(code, date, 1));
+      expect(res.status, date).toBe(422);
+      expect(res.body.error.fields.batchDate.join(' ')).toMatch(/is in the future \(today is /);
+    }
+    const early = await post(as('production'), goodBatch(code, '2020-01-01', 1));
+    expect(early.status).toBe(422);
+    expect(early.body.error.fields.batchDate).toEqual(['v1 was approved on 2 Jan 2025: a batch made to it cannot be dated 1 Jan 2020, before that.']);
+    const jars = await post(as('production'), goodBatch(code, '2026-11-06', 1, { batchSizeG: 1000, jarsFilled: 1_000_000 }));
+    expect(jars.status).toBe(422);
+    expect(jars.body.error.fields.jarsFilled.join(' ')).toMatch(/A batch of 1 kg fills at most \d+ jars of \d+ g/);
+    // The form's server action runs the same rule.
+    const fromForm = await asCaller(as('production'), () => recordBatchAction(versionId, goodBatch(code, '2099-01-01', 1)));
+    expect(fromForm.ok).toBe(false);
+    expect(fromForm.ok ? null : fromForm.status).toBe(422);
+    expect(await em.count(BatchRecord, {})).toBe(before);
   });
 
   it('only production records batches', async () => {
