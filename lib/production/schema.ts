@@ -1,7 +1,8 @@
 /** Input schemas and shared shapes of the production feature. */
 import { z } from 'zod';
 import { boundedNumber, isoDate, longText, numberFromText, text, wholeNumber } from '@/lib/input';
-import { formatDate } from '@/lib/format/dates';
+import { formatDate, todayIso } from '@/lib/format/dates';
+import { showNumber } from '@/lib/format/quantities';
 import { qcSpecProblems, type QcSpec } from '@/lib/chemistry/qc';
 import type { PreservationMethod } from '@/lib/chemistry/guidance';
 import { DISPOSITIONS, LOT_CODE_PATTERN, PRODUCT_CODE_PATTERN, PROMOTION_STATUSES, PROMOTION_TARGETS } from './vocabulary';
@@ -156,7 +157,7 @@ export interface BatchRecordContext {
 function addDays(isoDay: string, days: number): string {
   const d = new Date(`${isoDay}T00:00:00Z`);
   d.setUTCDate(d.getUTCDate() + days);
-  return d.toISOString().slice(0, 10);
+  return todayIso(d);
 }
 
 /** The most jars a batch of this mass can fill (the batch size is the kettle or the finished mass: either bounds what went into jars). */
@@ -180,7 +181,7 @@ export function batchRecordProblems(b: Pick<BatchRecordInput, 'batchDate' | 'bat
   const most = mostJarsFor(b.batchSizeG, c.netFillG, c.netFillToleranceG);
   if (b.jarsFilled > most) {
     problems.jarsFilled = [
-      `A batch of ${formatKg(b.batchSizeG)} fills at most ${most.toLocaleString('en-GB')} jars of ${c.netFillG} g (at the lightest accepted fill, with ${JAR_COUNT_ALLOWANCE * 100} % to spare); ${b.jarsFilled.toLocaleString('en-GB')} were entered. Check the jars and the batch size.`,
+      `A batch of ${formatKg(b.batchSizeG)} fills at most ${showNumber(most, 0)} jars of ${c.netFillG} g (at the lightest accepted fill, with ${JAR_COUNT_ALLOWANCE * 100} % to spare); ${showNumber(b.jarsFilled, 0)} were entered. Check the jars and the batch size.`,
     ];
   }
   return problems;
