@@ -3,6 +3,7 @@
 import { useId, useState } from 'react';
 import {
   ChemistryInputError,
+  ROUNDING_SHARE_LIMIT,
   scaleFormula,
   toGrams,
   type MassUnit,
@@ -168,15 +169,20 @@ export function ScalePanel({ lines, settings, massUnits }: ScalePanelProps) {
 
       {lines.length > 0 && targetText.trim() === '' ? <p className="text-sm text-rind-600">Enter a target to see the weights to put on the scale.</p> : null}
       {result && !result.ok ? <Notice tone="danger">{result.message}</Notice> : null}
-      {result && result.ok ? <ScaledTable scaled={result.scaled} massUnits={massUnits} targetSolidsPct={settings.targetSolidsPct} /> : null}
+      {result && result.ok ? <ScaledTable scaled={result.scaled} massUnits={massUnits} targetSolidsPct={settings.targetSolidsPct} jarsAsked={kind === 'jar_count' && 'value' in target ? target.value : null} /> : null}
     </section>
   );
 }
 
-function ScaledTable({ scaled, massUnits, targetSolidsPct }: { scaled: ScaledFormula; massUnits: UnitPreference; targetSolidsPct: number }) {
+/** Decimals of a step written in its unit: 5 → 0, 0.1 → 1, 0.05 → 2. */
+function decimalsOf(step: number): number {
+  return Math.min(6, Math.max(0, -Math.floor(Math.log10(step) + 1e-9)));
+}
+
+function ScaledTable({ scaled, massUnits, targetSolidsPct, jarsAsked }: { scaled: ScaledFormula; massUnits: UnitPreference; targetSolidsPct: number; jarsAsked: number | null }) {
   const unit = scaled.resolution.unit;
-  const stepDecimals = Math.min(6, Math.max(0, -Math.floor(Math.log10(scaled.resolution.step) + 1e-9)));
   const effect = scaled.effectOfRounding;
+  const finer = scaled.lines.filter((l) => l.finerStep);
   return (
     <div className="space-y-4" data-testid="scale-result">
       <p className="text-sm text-rind-600">Scale factor × {showNumber(scaled.scaleFactor, 4)}</p>
@@ -188,6 +194,7 @@ function ScaledTable({ scaled, massUnits, targetSolidsPct }: { scaled: ScaledFor
               <th scope="col" className="px-3 py-2">Ingredient</th>
               <th scope="col" className="px-3 py-2 text-right">Exact</th>
               <th scope="col" className="px-3 py-2 text-right">Weigh out ({unit})</th>
+              <th scope="col" className="px-3 py-2 text-right">Step</th>
               <th scope="col" className="px-3 py-2 text-right">Rounding error</th>
             </tr>
           </thead>
@@ -197,7 +204,10 @@ function ScaledTable({ scaled, massUnits, targetSolidsPct }: { scaled: ScaledFor
                 <th scope="row" className="px-3 py-2 text-left font-medium">{l.name}</th>
                 <td className="px-3 py-2 text-right tabular-nums">{showMass(l.exactG, massUnits)}</td>
                 <td className="px-3 py-2 text-right font-semibold tabular-nums">
-                  {formatEntryNumber(l.roundedInResolutionUnit, stepDecimals + 2)} {unit}
+                  {formatEntryNumber(l.roundedInResolutionUnit, decimalsOf(l.stepInResolutionUnit) + 2)} {unit}
+                </td>
+                <td className={`px-3 py-2 text-right tabular-nums ${l.finerStep ? 'font-semibold' : 'text-rind-500'}`}>
+                  {formatEntryNumber(l.stepInResolutionUnit, 6)} {unit}{l.finerStep ? ', finer scale' : ''}
                 </td>
                 <td className="px-3 py-2 text-right tabular-nums">{showMassDelta(l.roundingErrorG, massUnits)}</td>
               </tr>
@@ -216,8 +226,14 @@ function ScaledTable({ scaled, massUnits, targetSolidsPct }: { scaled: ScaledFor
           </dd>
         </div>
       </dl>
+      {finer.length || effect.noticeableLines.length ? (
+        <p className="text-sm text-rind-700" data-testid="scale-finer-lines">
+          {finer.length ? <>Weighed on a finer scale, so rounding moves no line by more than {ROUNDING_SHARE_LIMIT * 100} %: {finer.map((l) => l.name).join(', ')}. </> : null}
+          {effect.noticeableLines.length ? <strong>Rounding changes {effect.noticeableLines.map((l) => `${l.name} by ${formatSigned(l.roundingErrorPct, 0)} %`).join(', ')} of its exact weight.</strong> : null}
+        </p>
+      ) : null}
       <p className="text-xs text-rind-500">
-        Rounded weights are the exact ones rounded to the nearest {formatEntryNumber(scaled.resolution.step, 6)} {unit} ({showMass(toGrams(scaled.resolution.step, unit), massUnits)}). Jars:{' '}
+        Rounded weights are the exact ones rounded to the nearest {formatEntryNumber(scaled.resolution.step, 6)} {unit} ({showMass(toGrams(scaled.resolution.step, unit), massUnits)}){finer.length ? ', or to the finer step shown' : ''}{jarsAsked !== null ? `, and up where needed so the batch fills the ${showNumber(jarsAsked, 0)} jars` : ''}. Jars:{' '}
         {showNumber(scaled.exact.jarsFilled, 0)} exact, {showNumber(scaled.rounded.jarsFilled, 0)} rounded.
       </p>
     </div>

@@ -14,8 +14,8 @@ import { fromDisplayTemperature, parseNumber, type TemperatureUnit } from './tem
 const RETEST_RENAMES = { brixSampleTempC: 'brixSampleTemp', fillTempC: 'fillTemp' };
 
 /** A held batch: re-test the readings, then release (once the latest checks pass) or reject. */
-export function BatchHoldPanel({ batchId, lotCode, canRelease, temperatureUnit }: {
-  batchId: string; lotCode: string; canRelease: boolean; temperatureUnit: TemperatureUnit;
+export function BatchHoldPanel({ batchId, lotCode, canRelease, reworked, temperatureUnit }: {
+  batchId: string; lotCode: string; canRelease: boolean; reworked: boolean; temperatureUnit: TemperatureUnit;
 }) {
   const router = useRouter();
   const deg = temperatureUnit === 'F' ? '°F' : '°C';
@@ -54,12 +54,16 @@ export function BatchHoldPanel({ batchId, lotCode, canRelease, temperatureUnit }
     <div className="grid gap-6 lg:grid-cols-2">
       <form onSubmit={submitRetest} className="space-y-3 rounded-card bg-pith-50 p-5 ring-1 ring-pith-300" aria-label="Re-test the batch" noValidate>
         <h2 className="text-lg font-semibold">Re-test</h2>
-        <p className="text-sm text-rind-600">Enter the readings taken again; the others keep their recorded values. They are checked against the same spec.</p>
+        <p className="text-sm text-rind-600">
+          {reworked
+            ? 'This batch was reworked: take every reading again — refractometer, pH, fill temperature, net fill and set. A re-boil or blend changes the batch, so a reading from before it does not count. They are checked against the same spec.'
+            : 'Enter the readings taken again; the others keep their recorded values. They are checked against the same spec.'}
+        </p>
         <div className="grid gap-3 sm:grid-cols-2">
           <Field label="Refractometer (°Brix, as read)" name="brixReading" inputMode="decimal" value={v.brixReading} onChange={set('brixReading')} errors={retest.fields.brixReading} />
           <Field label={`Sample temperature (${deg})`} name="brixSampleTemp" inputMode="decimal" value={v.brixSampleTemp} onChange={set('brixSampleTemp')} errors={retest.fields.brixSampleTemp} />
           <Field label="pH" name="ph" inputMode="decimal" value={v.ph} onChange={set('ph')} errors={retest.fields.ph} />
-          <Field label={`Fill temperature (${deg})`} name="fillTemp" inputMode="decimal" value={v.fillTemp} onChange={set('fillTemp')} errors={retest.fields.fillTemp} hint="Only after a re-fill." />
+          <Field label={`Fill temperature (${deg})`} name="fillTemp" inputMode="decimal" value={v.fillTemp} onChange={set('fillTemp')} errors={retest.fields.fillTemp} hint={reworked ? undefined : 'Only after a re-fill.'} />
           <Field label="Mean net fill (g)" name="netFillMeanG" inputMode="decimal" value={v.netFillMeanG} onChange={set('netFillMeanG')} errors={retest.fields.netFillMeanG} />
           <Field label="Lightest jar (g)" name="netFillMinG" inputMode="decimal" value={v.netFillMinG} onChange={set('netFillMinG')} errors={retest.fields.netFillMinG} />
           <Field label="Set test score (1–5)" name="setTestScore" inputMode="numeric" value={v.setTestScore} onChange={set('setTestScore')} errors={retest.fields.setTestScore} />

@@ -1,4 +1,4 @@
-import { formatMass, formatTemperature, fromGrams, type UnitPreference } from '@/lib/chemistry';
+import { formatMass, formatTemperature, fromGrams, ROUNDING_SHARE_LIMIT, type UnitPreference } from '@/lib/chemistry';
 import type { BatchSheet } from '@/lib/production/sheet';
 import { SpecTable } from './SpecTable';
 import { TableBox } from '@/components/ui/TableBox';
@@ -9,16 +9,18 @@ const box = 'inline-block h-4 w-4 border border-rind-700 align-middle';
 export function BatchSheetView({ sheet, paper, massUnits, temperatures, superseded }: { sheet: BatchSheet; paper: 'a4' | 'letter'; massUnits: UnitPreference; temperatures: UnitPreference; superseded: boolean }) {
   const s = sheet.scaled;
   const unit = s.resolution.unit;
-  const decimals = Math.max(0, -Math.floor(Math.log10(s.resolution.step)));
-  // One unit on the sheet: the scale's own, so "Weigh out" and "Exact" read side by side.
-  const rounded = (g: number) => `${fromGrams(g, unit).toFixed(decimals)} ${unit}`;
-  const exact = (g: number) => `${fromGrams(g, unit).toFixed(decimals + 1)} ${unit}`;
+  const decimals = stepDecimals(s.resolution.step);
+  // One unit on the sheet: the scale's own, so "Weigh out" and "Exact" read side by side; a line on a
+  // finer step is written to that step's decimals.
+  const rounded = (g: number, places = decimals) => `${fromGrams(g, unit).toFixed(places)} ${unit}`;
+  const exact = (g: number, places = decimals) => `${fromGrams(g, unit).toFixed(places + 1)} ${unit}`;
+  const finer = s.lines.filter((l) => l.finerStep);
   return (
     <article className={`batch-sheet sheet-${paper} rounded-card bg-white p-6 text-sm ring-1 ring-pith-300 print:rounded-none print:p-0 print:ring-0`} data-testid="batch-sheet">
       <header className="mb-4 flex flex-wrap items-start justify-between gap-4 border-b-2 border-rind-800 pb-3">
         <div>
           <h1 className="text-2xl font-semibold">{sheet.title}</h1>
-          <p className="text-rind-600">Batch sheet{superseded ? ' — SUPERSEDED, reference only' : ''}. Scale factor {s.scaleFactor.toFixed(3)}; weights rounded to {s.resolution.step} {unit}.</p>
+          <p className="text-rind-600">Batch sheet{superseded ? ' — SUPERSEDED, reference only' : ''}. Scale factor {s.scaleFactor.toFixed(3)}; weights rounded to {s.resolution.step} {unit}{finer.length ? ', small additions to a finer step' : ''}.</p>
         </div>
         <TableBox label="Batch" framed={false}>
           <table className="text-sm">
@@ -35,22 +37,27 @@ export function BatchSheetView({ sheet, paper, massUnits, temperatures, supersed
         <h2 className="mb-1 text-lg font-semibold">Ingredients</h2>
         <TableBox label="Ingredients to weigh" framed={false}>
           <table className="w-full" data-testid="sheet-ingredients">
-            <thead><tr className="border-b border-rind-500 text-left"><th className="w-8 py-1">✓</th><th className="py-1">Ingredient</th><th className="py-1 text-right">Weigh out</th><th className="py-1 text-right text-rind-500">Exact</th><th className="py-1 pl-4">Weighed (actual)</th></tr></thead>
+            <thead><tr className="border-b border-rind-500 text-left"><th className="w-8 py-1">✓</th><th className="py-1">Ingredient</th><th className="py-1 text-right">Weigh out</th><th className="py-1 pl-3 text-left">Scale step</th><th className="py-1 text-right text-rind-500">Exact</th><th className="py-1 pl-4">Weighed (actual)</th></tr></thead>
             <tbody>
               {s.lines.map((l) => (
                 <tr key={l.index} className="border-b border-pith-300">
                   <td className="py-1.5"><span className={box} aria-hidden /></td>
                   <td className="py-1.5">{l.name}</td>
-                  <td className="py-1.5 text-right font-semibold tabular-nums">{rounded(l.roundedG)}</td>
-                  <td className="py-1.5 text-right tabular-nums text-rind-500">{exact(l.exactG)}</td>
+                  <td className="py-1.5 text-right font-semibold tabular-nums">{rounded(l.roundedG, stepDecimals(l.stepInResolutionUnit))}</td>
+                  <td className={`py-1.5 pl-3 tabular-nums ${l.finerStep ? 'font-semibold' : 'text-rind-500'}`} data-testid="line-step">
+                    {l.stepInResolutionUnit.toFixed(stepDecimals(l.stepInResolutionUnit))} {unit}{l.finerStep ? ', finer scale' : ''}
+                  </td>
+                  <td className="py-1.5 text-right tabular-nums text-rind-500">{exact(l.exactG, stepDecimals(l.stepInResolutionUnit))}</td>
                   <td className="py-1.5 pl-4"><span className="inline-block w-28 border-b border-rind-400">&nbsp;</span></td>
                 </tr>
               ))}
-              <tr className="font-medium"><td /><td className="py-1.5">Kettle charge</td><td className="py-1.5 text-right tabular-nums">{rounded(s.rounded.totalChargeG)}</td><td className="py-1.5 text-right tabular-nums text-rind-500">{exact(s.exact.totalChargeG)}</td><td /></tr>
+              <tr className="font-medium"><td /><td className="py-1.5">Kettle charge</td><td className="py-1.5 text-right tabular-nums">{rounded(s.rounded.totalChargeG, Math.max(decimals, ...s.lines.map((l) => stepDecimals(l.stepInResolutionUnit))))}</td><td /><td className="py-1.5 text-right tabular-nums text-rind-500">{exact(s.exact.totalChargeG)}</td><td /></tr>
             </tbody>
           </table>
         </TableBox>
         <p className="mt-2 text-rind-700" data-testid="rounding-effect">
+          {finer.length ? <>Weighed on a finer scale, so rounding moves no line by more than {ROUNDING_SHARE_LIMIT * 100} %: {finer.map((l) => l.name).join(', ')}. </> : null}
+          {s.effectOfRounding.noticeableLines.length ? <strong>Rounding changes {s.effectOfRounding.noticeableLines.map((l) => `${l.name} by ${signed(l.roundingErrorPct)} %`).join(', ')} of its exact weight: weigh {s.effectOfRounding.noticeableLines.length > 1 ? 'them' : 'it'} as closely as your scale allows. </strong> : null}
           Effect of rounding: charge {signed(s.effectOfRounding.totalChargeDeltaG)} g, soluble solids {signed(s.effectOfRounding.solubleSolidsDeltaG)} g.
           Cooked to the same target it gives {formatMass(s.rounded.finishedMassG, massUnits)} ({signed(s.effectOfRounding.finishedMassDeltaG)} g), about {s.rounded.jarsFilled} jars;
           boiled off by the planned amount instead it would finish at {s.effectOfRounding.solidsPctIfPlannedEvaporation.toFixed(2)} % solids ({signed(s.effectOfRounding.solidsPctDeltaIfPlannedEvaporation, 2)} points). Cook to the refractometer, not the clock.
@@ -93,6 +100,11 @@ export function BatchSheetView({ sheet, paper, massUnits, temperatures, supersed
       ) : null}
     </article>
   );
+}
+
+/** Decimals of a step written in its unit: 5 → 0, 0.1 → 1, 0.05 → 2. */
+function stepDecimals(step: number): number {
+  return Math.min(6, Math.max(0, -Math.floor(Math.log10(step) + 1e-9)));
 }
 
 function signed(x: number, decimals = 0): string {

@@ -28,7 +28,7 @@ export interface TrendPoint {
  */
 export function TrendChart({ title, unit, points, decimals }: { title: string; unit: string; points: TrendPoint[]; decimals: number }) {
   const labels = points.map((p) => p.lotCode);
-  const signals = runRuleSignals(points);
+  const signals = runRuleSignals(points, { resolution: 10 ** -decimals });
   const flagged = new Set(signals.map((s) => s.index));
   const limitLine = (label: string, data: number[]) => ({
     label, data, borderColor: LIMIT, borderDash: [6, 4], borderWidth: 1.5, pointRadius: 0, stepped: 'middle' as const, fill: false,

@@ -4,7 +4,8 @@ import 'server-only';
  * range of days asked) and costs them with lib/costing. Callers hold `prices.read`.
  */
 import { getEm } from '@/lib/db';
-import { BatchRecord, Trial } from '@/entities';
+import { BatchDecision, BatchRecord, Trial } from '@/entities';
+import { goodJarsOf } from '@/lib/production/holds';
 import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
 import { todayIso, isoDate } from '@/lib/format/dates';
 import { batchActualCostPerJar, changePct, costStoredFormula, historiesBy, type IngredientPricePoint, type PackagingPricePoint, type PackFormatData } from '@/lib/costing';
@@ -184,9 +185,14 @@ export async function batchCost(actor: Actor, batchId: string): Promise<BatchCos
   const packFormatId = version.packFormat?.id ?? null;
   const basis = await loadCostBasis(actor.workspaceId, { ingredientIds: ingredientIdsOf([version]), packFormatIds: packFormatId ? [packFormatId] : [], from: day, to: day });
   const planned = costOn(basis, version.settings, version.lines, packFormatId, day);
+  const rejected = await em.count(BatchDecision, { ...inWorkspace(actor), batch: batch.id, kind: 'reject' });
+  const status = rejected ? 'rejected' : batch.disposition === 'discard' ? 'discarded' : 'passed';
+  const goodJars = goodJarsOf(status, batch.jarsFilled, batch.jarsRejected);
   return {
     currency: basis.currency,
     planned,
-    actualPerJar: planned.ok ? batchActualCostPerJar(planned.cost, { chargeG: batch.batchSizeG, jarsFilled: batch.jarsFilled, jarsRejected: batch.jarsRejected }) : null,
+    goodJars,
+    // A rejected or discarded batch writes every jar off: no cost per good jar.
+    actualPerJar: planned.ok ? batchActualCostPerJar(planned.cost, { chargeG: batch.batchSizeG, jarsFilled: batch.jarsFilled, jarsRejected: batch.jarsFilled - goodJars }) : null,
   };
 }

@@ -73,6 +73,8 @@ export interface BatchCost {
   currency: string | null;
   /** The formula costed with the prices on the batch's day. */
   planned: CostResult;
+  /** Jars that can be sold: none once the batch is rejected or discarded. */
+  goodJars: number;
   /** Per good jar from the batch's charge and jars; null without a pack format or good jars. */
   actualPerJar: { minor: number; complete: boolean } | null;
 }

@@ -23,6 +23,7 @@ import { costForApproval } from '@/lib/costs/queries';
 import { todayIso } from '@/lib/format/dates';
 import type { FormulaSettingsInput, RevisionLine } from '@/lib/formulas/schema';
 import type { BatchDecisionInput, BatchRecordInput, BatchRetestInput, DecisionInput, PromotionEvidence, RequestPromotionInput } from './schema';
+import { batchRecordProblems } from './schema';
 import { batchStanding, checkRetest, type BatchDecisionFact } from './holds';
 import { AUDIT_ACTIONS, dayOfYear, promotionCode, type AuditAction, type BatchOutcome } from './vocabulary';
 
@@ -265,6 +266,11 @@ export async function recordBatch(actor: Actor, versionId: string, input: BatchR
   const version = await em.findOne(ProductVersion, { ...inWorkspace(actor), id: versionId }, { populate: ['product'] });
   if (!version) throw notFound('production version');
   if (version.status !== 'current') throw new Conflict(`v${version.version} is superseded: record batches against the version in production.`);
+  const impossible = batchRecordProblems(input, {
+    today: todayIso(momentOf(options)), version: version.version, approvedOn: todayIso(version.approvedAt),
+    netFillG: version.spec.netFillG, netFillToleranceG: version.spec.netFillToleranceG,
+  });
+  if (Object.keys(impossible).length) throw new ValidationFailed('This batch cannot have been made as entered.', impossible);
 
   const [prefix, dateSegment] = input.lotCode.split('-');
   const expectedSegment = `${input.batchDate.slice(2, 4)}${String(dayOfYear(input.batchDate)).padStart(3, '0')}`;
@@ -321,7 +327,7 @@ async function lockedStanding(tx: EntityManager, actor: Actor, batchId: string) 
     brixReading: batch.brixReading, brixSampleTempC: batch.brixSampleTempC, ph: batch.ph, fillTempC: batch.fillTempC,
     netFillMeanG: batch.netFillMeanG, netFillMinG: batch.netFillMinG, setTestScore: batch.setTestScore,
   };
-  return { batch, version, standing: batchStanding({ readings, checks: batch.checks, disposition: batch.disposition ?? null }, decisions) };
+  return { batch, version, decisions, standing: batchStanding({ readings, checks: batch.checks, disposition: batch.disposition ?? null }, decisions) };
 }
 
 const NOT_HELD = { passed: 'This batch passed at recording; it is not on hold.', discarded: 'This batch was discarded at recording.', released: 'This batch was already released.', rejected: 'This batch was already rejected.' } as const;
@@ -330,16 +336,19 @@ const NOT_HELD = { passed: 'This batch passed at recording; it is not on hold.',
 export async function retestBatch(actor: Actor, batchId: string, input: BatchRetestInput, options: RecordedAt = {}): Promise<{ decisionId: string; outcome: BatchOutcome }> {
   const em = await getEm();
   return em.transactional(async (tx) => {
-    const { batch, version, standing } = await lockedStanding(tx, actor, batchId);
+    const { batch, version, decisions, standing } = await lockedStanding(tx, actor, batchId);
     if (!standing.canRetest) throw new Conflict(standing.status === 'held' ? 'This batch cannot be re-tested.' : NOT_HELD[standing.status]);
     const { comment, ...retest } = input;
-    const result = checkRetest(version.spec, standing.readings, retest);
+    const rework = batch.disposition === 'rework'
+      ? { earlierRetests: decisions.flatMap((d) => (d.kind === 'retest' && d.readings ? [d.readings] : [])) }
+      : null;
+    const result = checkRetest(version.spec, standing.readings, retest, rework);
     const decision = tx.create(BatchDecision, {
       workspace: actor.workspaceId, batch: batch.id, kind: 'retest', readings: retest, checks: result.checks, outcome: result.outcome, comment, decidedBy: actor.userId,
       createdAt: momentOf(options),
     });
     await tx.flush();
-    const failed = result.checks.filter((c) => c.status !== 'pass').map((c) => `${c.label.toLowerCase()} ${c.status === 'fail' ? 'failed' : 'not measured'}`);
+    const failed = result.checks.filter((c) => c.status !== 'pass').map((c) => `${c.label.toLowerCase()} ${c.status === 'fail' ? 'failed' : rework ? 'not measured since the rework' : 'not measured'}`);
     await audit(tx, actor, 'batch.retested', { type: 'batch_record', id: batch.id }, version.promotionRequestId,
       `${batch.lotCode} ${result.outcome === 'pass' ? 'passed every check' : failed.join(', ')}: ${comment}`, options);
     await tx.flush();
@@ -356,7 +365,9 @@ export async function decideBatch(actor: Actor, batchId: string, input: BatchDec
     if (input.decision === 'release' && !standing.canRelease) {
       throw new Conflict(standing.outcome === 'fail'
         ? 'The latest checks of this batch failed: re-test it after rework, or reject it.'
-        : 'A check the spec requires is still missing: re-test it before release.');
+        : standing.staleSinceRework.length
+          ? `This batch was reworked: ${standing.staleSinceRework.join(', ').toLowerCase()} ${standing.staleSinceRework.length > 1 ? 'have' : 'has'} not been measured again since. Re-test ${standing.staleSinceRework.length > 1 ? 'them' : 'it'} before release.`
+          : 'A check the spec requires is still missing: re-test it before release.');
     }
     const decision = tx.create(BatchDecision, {
       workspace: actor.workspaceId, batch: batch.id, kind: input.decision, readings: null, checks: null, outcome: null, comment: input.comment, decidedBy: actor.userId,

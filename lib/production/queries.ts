@@ -19,7 +19,7 @@ import { DEFAULT_FILL_TEMP_C, type AuditView, type ProductionProcess, type Promo
 import { buildBatchSheet, type BatchSheet } from './sheet';
 import { fruitsOf, weighLines } from './review';
 import { promotionCode, type PromotionStatus } from './vocabulary';
-import { batchStanding } from './holds';
+import { batchStanding, goodJarsOf } from './holds';
 
 const REQUEST_POPULATE = ['trial', 'product', 'requestedBy', 'decidedBy'] as const;
 type RequestRow = Loaded<PromotionRequestEntity, (typeof REQUEST_POPULATE)[number]>;
@@ -218,10 +218,11 @@ function batchView(b: BatchRow, decisionRows: DecisionRow[]): BatchView {
     id: b.id, lotCode: b.lotCode, batchDate: b.batchDate, version: b.productVersion.version, versionId: b.productVersion.id, batchSizeG: b.batchSizeG,
     brixReading: b.brixReading, brixSampleTempC: b.brixSampleTempC, brix20: b.brix20, ph: b.ph, fillTempC: b.fillTempC,
     netFillMeanG: b.netFillMeanG ?? null, netFillMinG: b.netFillMinG ?? null, setTestScore: b.setTestScore ?? null, jarsFilled: b.jarsFilled, jarsRejected: b.jarsRejected,
+    goodJars: goodJarsOf(standing.status, b.jarsFilled, b.jarsRejected),
     notes: b.notes ?? null, checks: b.checks, outcome: outcomeOfChecks(b.checks), disposition: b.disposition ?? null, dispositionComment: b.dispositionComment ?? null,
     recordedBy: b.recordedBy.name,
     status: standing.status, latestOutcome: standing.outcome, latestChecks: [...standing.checks],
-    canRetest: standing.canRetest, canRelease: standing.canRelease, canReject: standing.canReject, decisions,
+    canRetest: standing.canRetest, canRelease: standing.canRelease, canReject: standing.canReject, staleSinceRework: standing.staleSinceRework, decisions,
     limits: { solidsMin: s.solidsMinBrix, solidsMax: s.solidsMaxBrix, phMin: s.phMin, phMax: s.phMax },
   };
 }

@@ -1,6 +1,8 @@
 /** Input schemas and shared shapes of the production feature. */
 import { z } from 'zod';
 import { boundedNumber, isoDate, longText, numberFromText, text, wholeNumber } from '@/lib/input';
+import { formatDate, todayIso } from '@/lib/format/dates';
+import { showNumber } from '@/lib/format/quantities';
 import { qcSpecProblems, type QcSpec } from '@/lib/chemistry/qc';
 import type { PreservationMethod } from '@/lib/chemistry/guidance';
 import { DISPOSITIONS, LOT_CODE_PATTERN, PRODUCT_CODE_PATTERN, PROMOTION_STATUSES, PROMOTION_TARGETS } from './vocabulary';
@@ -140,6 +142,62 @@ export const batchRecordSchema = z
     if (b.jarsRejected > b.jarsFilled) ctx.addIssue({ code: 'custom', path: ['jarsRejected'], message: 'More jars rejected than filled.' });
   });
 export type BatchRecordInput = z.infer<typeof batchRecordSchema>;
+
+/** A clock or a time zone a day ahead of the server's: a batch may be dated one day past the server's today. */
+export const BATCH_DATE_SLACK_DAYS = 1;
+/**
+ * Jars filled may exceed what the batch can fill at the lightest accepted jar (net fill less its
+ * tolerance) by this share: short-filled jars that were then rejected. Common practice, no published source.
+ */
+export const JAR_COUNT_ALLOWANCE = 0.05;
+
+/** What a batch is checked against besides its own fields: the day, and the version it was made to. */
+export interface BatchRecordContext {
+  /** The server's today, YYYY-MM-DD (UTC). */
+  today: string;
+  version: number;
+  /** The day the version was approved, YYYY-MM-DD (UTC). */
+  approvedOn: string;
+  netFillG: number;
+  netFillToleranceG: number;
+}
+
+function addDays(isoDay: string, days: number): string {
+  const d = new Date(`${isoDay}T00:00:00Z`);
+  d.setUTCDate(d.getUTCDate() + days);
+  return todayIso(d);
+}
+
+/** The most jars a batch of this mass can fill (the batch size is the kettle or the finished mass: either bounds what went into jars). */
+export function mostJarsFor(batchSizeG: number, netFillG: number, netFillToleranceG: number): number {
+  const lightestG = netFillG - netFillToleranceG > 0 ? netFillG - netFillToleranceG : netFillG;
+  return Math.floor((batchSizeG * (1 + JAR_COUNT_ALLOWANCE)) / lightestG + 1e-9);
+}
+
+/**
+ * The one rule for a batch that cannot have happened: dated after today (with a day of slack) or
+ * before its version was approved (the same day of slack, for time zones), or more jars than its mass
+ * fills. recordBatch() applies it to the form's and the API's batches alike; field → messages.
+ */
+export function batchRecordProblems(b: Pick<BatchRecordInput, 'batchDate' | 'batchSizeG' | 'jarsFilled'>, c: BatchRecordContext): Record<string, string[]> {
+  const problems: Record<string, string[]> = {};
+  if (b.batchDate > addDays(c.today, BATCH_DATE_SLACK_DAYS)) {
+    problems.batchDate = [`The batch date ${formatDate(b.batchDate)} is in the future (today is ${formatDate(c.today)}): record a batch once it is made.`];
+  } else if (b.batchDate < addDays(c.approvedOn, -BATCH_DATE_SLACK_DAYS)) {
+    problems.batchDate = [`v${c.version} was approved on ${formatDate(c.approvedOn)}: a batch made to it cannot be dated ${formatDate(b.batchDate)}, before that.`];
+  }
+  const most = mostJarsFor(b.batchSizeG, c.netFillG, c.netFillToleranceG);
+  if (b.jarsFilled > most) {
+    problems.jarsFilled = [
+      `A batch of ${formatKg(b.batchSizeG)} fills at most ${showNumber(most, 0)} jars of ${c.netFillG} g (at the lightest accepted fill, with ${JAR_COUNT_ALLOWANCE * 100} % to spare); ${showNumber(b.jarsFilled, 0)} were entered. Check the jars and the batch size.`,
+    ];
+  }
+  return problems;
+}
+
+function formatKg(g: number): string {
+  return g >= 1000 ? `${Number((g / 1000).toFixed(3))} kg` : `${Number(g.toFixed(1))} g`;
+}
 
 /** The finest scale resolution a batch sheet rounds to, in the chosen unit (finer is no kitchen scale, and only drives the arithmetic). */
 export const SHEET_STEP_MIN = 0.001;
@@ -323,6 +381,8 @@ export interface BatchView {
   setTestScore: number | null;
   jarsFilled: number;
   jarsRejected: number;
+  /** Jars that can be sold: none for a rejected or discarded batch (goodJarsOf). */
+  goodJars: number;
   notes: string | null;
   checks: QcCheck[];
   /** The outcome at recording: a missing required check shows as incomplete, even on rows stored before that rule. */
@@ -337,6 +397,8 @@ export interface BatchView {
   canRetest: boolean;
   canRelease: boolean;
   canReject: boolean;
+  /** A batch kept for rework: the checks not measured again since the rework (empty otherwise). */
+  staleSinceRework: string[];
   decisions: BatchDecisionView[];
   /** The spec this batch was checked against, for the trend chart's limits. */
   limits: { solidsMin: number; solidsMax: number; phMin: number; phMax: number };

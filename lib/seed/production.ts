@@ -61,8 +61,12 @@ export async function seedDemoProduction(people: { developer: Actor; head: Actor
       disposition: 'disposition' in b ? b.disposition : null, dispositionComment: 'dispositionComment' in b ? b.dispositionComment : null,
     }, afterFilling(b.date)));
   }
-  // The reworked lot: re-tested within the window, then released.
-  await retestBatch(production, recorded[2].batchId, { ph: Math.round((midPh + 0.03) * 100) / 100, comment: 'Re-acidified and re-boiled on 1 December; pH read again on a cooled sample.' }, { at: new Date('2026-12-01T10:00:00Z') });
+  // The reworked lot: re-boiled and filled again, every reading taken afresh within the window, then released.
+  await retestBatch(production, recorded[2].batchId, {
+    brixReading: Math.round((midBrix + 0.1) * 10) / 10, brixSampleTempC: 20, ph: Math.round((midPh + 0.03) * 100) / 100, fillTempC: 88.4,
+    netFillMeanG: Math.round((s.netFillG + 2) * 10) / 10, netFillMinG: Math.round((s.netFillG - 2.5) * 10) / 10, setTestScore: 4,
+    comment: 'Re-acidified and re-boiled on 1 December, filled again; every reading taken afresh on cooled samples.',
+  }, { at: new Date('2026-12-01T10:00:00Z') });
   await decideBatch(production, recorded[2].batchId, { decision: 'release', comment: 'Re-test within spec on every check.' }, { at: new Date('2026-12-01T11:00:00Z') });
 
   const apricotWhy = 'Variant E (more pectin at the higher sugar ratio) set firmest and scored best on overall liking; the panel did not find it too sweet.';

@@ -89,10 +89,17 @@ describe('promotion to production, three roles', () => {
     const sheet = page.getByTestId('batch-sheet');
     await sheet.waitFor();
     await expect.poll(() => sheet.getByTestId('rounding-effect').textContent()).toMatch(/Effect of rounding/);
-    // 50 kg on a scale reading to 10 g: every weight is a whole number of 10 g.
-    const weights = await sheet.getByTestId('sheet-ingredients').locator('tbody tr td:nth-child(3)').allTextContents();
-    expect(weights.filter(Boolean).length).toBeGreaterThanOrEqual(4);
-    for (const w of weights.filter((x) => / g$/.test(x))) expect(Number(w.replace(/[^\d.]/g, '')) % 10).toBe(0);
+    // 50 kg on a scale reading to 10 g: every weight is a whole number of its line's step (10 g, or finer for a small addition).
+    const rows = sheet.getByTestId('sheet-ingredients').locator('tbody tr:has([data-testid="line-step"])');
+    const weights = await rows.locator('td:nth-child(3)').allTextContents();
+    const steps = await rows.getByTestId('line-step').allTextContents();
+    expect(weights.length).toBeGreaterThanOrEqual(4);
+    expect(steps).toContain('10 g');
+    weights.forEach((w, i) => {
+      const step = Number.parseFloat(steps[i]);
+      const n = Number(w.replace(/[^\d.]/g, '')) / step;
+      expect(Math.abs(n - Math.round(n))).toBeLessThan(1e-6);
+    });
     // Print view: the navigation and the scale form are left off the paper.
     await page.emulateMedia({ media: 'print' });
     expect(await page.getByRole('form', { name: 'Scale the batch sheet' }).isVisible()).toBe(false);

@@ -12,7 +12,7 @@ import { getEm } from '@/lib/db';
 import { Ingredient, ProductVersion } from '@/entities';
 import { createTrial } from '@/lib/trials/mutations';
 import { listVariants } from '@/lib/trials/queries';
-import { decidePromotion, recordBatch, requestPromotion } from '@/lib/production/mutations';
+import { decideBatch, decidePromotion, recordBatch, requestPromotion } from '@/lib/production/mutations';
 import { getProductionVersion } from '@/lib/production/queries';
 import { lotCodeFor } from '@/lib/production/vocabulary';
 import { addIngredientPrice, addPackagingPrice, createPackagingItem, createPackFormat, saveCostSettings, setFormulaPackFormat, setPackagingArchived } from '@/lib/pricing/mutations';
@@ -184,20 +184,41 @@ describe('a production version: frozen at approval, today, and the warning', () 
 
   it('gives a batch its actual cost per good jar from its charge and jars', async () => {
     const version = await getProductionVersion(actorOf(a, 'production'), versionId);
-    const date = '2026-03-10';
+    // Made today: a batch cannot be dated before its version's approval (today, above).
+    const date = todayIso();
     const { batchId } = await recordBatch(actorOf(a, 'production'), versionId, {
       lotCode: lotCodeFor(version.product.code, date, 1), batchDate: date, batchSizeG: 20_000, brixReading: 65, brixSampleTempC: 20, ph: 3.1, fillTempC: 88, jarsFilled: 50, jarsRejected: 2,
     });
     const cost = await batchCost(actorOf(a, 'production'), batchId);
     if (!cost.planned.ok) throw new Error('not costed');
     const planned = cost.planned.cost;
-    // On 10 March sugar is 200 p/kg. Charge 20,000 g over the formula's charge → raw materials scaled;
-    // packaging 38 p for each of the 50 jars filled; divided by the 48 good jars.
+    // Today sugar is 400 p/kg (doubled in the test above). Charge 20,000 g over the formula's charge → raw
+    // materials scaled; packaging 38 p for each of the 50 jars filled; divided by the 48 good jars.
     expect(planned.asOf).toBe(date);
-    expect(planned.ingredients.find((l) => l.ingredientId === ids.sucrose)!.batchMinor).toBeCloseTo(200, 9);
+    expect(planned.ingredients.find((l) => l.ingredientId === ids.sucrose)!.batchMinor).toBeCloseTo(400, 9);
     const expected = (planned.batch.minor * (20_000 / planned.chargeG) + 38 * 50) / 48;
     expect(cost.actualPerJar?.minor).toBeCloseTo(expected, 9);
     expect(cost.actualPerJar?.complete).toBe(true);
+    expect(cost.goodJars).toBe(48);
+  });
+
+  it('a rejected batch has no good jars and no cost per good jar', async () => {
+    // The walk: a rejected batch still showed "Actual, over 105 good jars" and a cost per jar.
+    const version = await getProductionVersion(actorOf(a, 'production'), versionId);
+    const date = todayIso();
+    const production = actorOf(a, 'production');
+    const { batchId } = await recordBatch(production, versionId, {
+      lotCode: lotCodeFor(version.product.code, date, 2), batchDate: date, batchSizeG: 20_000, brixReading: 65, brixSampleTempC: 20, ph: 3.1, fillTempC: 70, jarsFilled: 50, jarsRejected: 0,
+      disposition: 'hold', dispositionComment: 'Filled cold; holding for a decision.',
+    });
+    expect((await batchCost(production, batchId)).goodJars).toBe(50);
+    await decideBatch(production, batchId, { decision: 'reject', comment: 'Filled cold; the lot is destroyed.' });
+    const cost = await batchCost(production, batchId);
+    expect(cost.goodJars).toBe(0);
+    expect(cost.actualPerJar).toBeNull();
+    const batch = (await getProductionVersion(production, versionId)).batches.find((b) => b.id === batchId)!;
+    expect(batch.status).toBe('rejected');
+    expect(batch.goodJars).toBe(0);
   });
 });
 

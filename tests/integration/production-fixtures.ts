@@ -37,13 +37,20 @@ export async function promotionInput(fx: WorkspaceFixture, trialId: string, vari
   };
 }
 
-/** Developer requests, head of product approves: returns the new production version. */
+/**
+ * When the fixture's versions are requested and approved: early, so the tests' batches (dated from
+ * 2025 on) are made after their version's approval, as recordBatch() requires.
+ */
+export const FIXTURE_REQUESTED_AT = new Date('2025-01-02T09:00:00Z');
+export const FIXTURE_APPROVED_AT = new Date('2025-01-02T10:00:00Z');
+
+/** Developer requests, head of product approves (on FIXTURE_APPROVED_AT): returns the new production version. */
 export async function createApprovedVersion(fx: WorkspaceFixture, product?: { productId: string }): Promise<{ versionId: string; requestId: string; productCode: string; trialId: string }> {
   const { trialId, variantId } = await createPromotableTrial(fx);
   const code = freshProductCode();
   const input = await promotionInput(fx, trialId, variantId, product ?? { code });
-  const { requestId } = await requestPromotion(actorOf(fx, 'developer'), input);
-  const { productVersionId } = await decidePromotion(actorOf(fx, 'head_of_product'), requestId, { decision: 'approve', comment: '' });
+  const { requestId } = await requestPromotion(actorOf(fx, 'developer'), input, { at: FIXTURE_REQUESTED_AT });
+  const { productVersionId } = await decidePromotion(actorOf(fx, 'head_of_product'), requestId, { decision: 'approve', comment: '' }, { at: FIXTURE_APPROVED_AT });
   const version = await getProductionVersion(actorOf(fx, 'production'), productVersionId!);
   return { versionId: version.id, requestId, productCode: version.product.code, trialId };
 }

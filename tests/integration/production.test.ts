@@ -1,6 +1,7 @@
 /** Promotion to production through the real handlers: the four-eyes rule, immutable versions, superseding, batch checks, the audit trail. */
 import { describe, it, expect, beforeAll } from 'vitest';
-import { createWorkspace, callRoute, actorOf, waitForMail, type WorkspaceFixture, type Caller } from './harness';
+import { asCaller, createWorkspace, callRoute, actorOf, waitForMail, type WorkspaceFixture, type Caller } from './harness';
+import { recordBatchAction } from '@/lib/production/actions';
 import { strawberryJamInput } from './fixtures';
 import { createApprovedVersion, createPromotableTrial, freshProductCode, promotionInput } from './production-fixtures';
 import * as promotionsRoute from '@/app/api/v1/promotions/route';
@@ -324,6 +325,29 @@ describe('batch records against the spec', () => {
     expect(wrongDate.body.error.fields.lotCode.join(' ')).toMatch(/26307/);
   });
 
+  it('refuses a batch that cannot have happened, from the API and the form alike, and stores nothing', async () => {
+    // The walk: future dates, a date before the version's approval, and a 1 kg batch of 1,000,000 jars of 340 g
+    // were all accepted. The fixture's version was approved on 2 Jan 2025 (FIXTURE_APPROVED_AT).
+    const em = (await getEm()).fork();
+    const before = await em.count(BatchRecord, {});
+    for (const date of ['2031-06-15', '2099-01-01']) {
+      const res = await post(as('production'), goodBatch(code, date, 1));
+      expect(res.status, date).toBe(422);
+      expect(res.body.error.fields.batchDate.join(' ')).toMatch(/is in the future \(today is /);
+    }
+    const early = await post(as('production'), goodBatch(code, '2020-01-01', 1));
+    expect(early.status).toBe(422);
+    expect(early.body.error.fields.batchDate).toEqual(['v1 was approved on 2 Jan 2025: a batch made to it cannot be dated 1 Jan 2020, before that.']);
+    const jars = await post(as('production'), goodBatch(code, '2026-11-06', 1, { batchSizeG: 1000, jarsFilled: 1_000_000 }));
+    expect(jars.status).toBe(422);
+    expect(jars.body.error.fields.jarsFilled.join(' ')).toMatch(/A batch of 1 kg fills at most \d+ jars of \d+ g/);
+    // The form's server action runs the same rule.
+    const fromForm = await asCaller(as('production'), () => recordBatchAction(versionId, goodBatch(code, '2099-01-01', 1)));
+    expect(fromForm.ok).toBe(false);
+    expect(fromForm.ok ? null : fromForm.status).toBe(422);
+    expect(await em.count(BatchRecord, {})).toBe(before);
+  });
+
   it('only production records batches', async () => {
     for (const role of ['developer', 'head_of_product', 'admin', 'taster'] as const) {
       expect((await post(as(role), goodBatch(code, '2026-11-05', 1))).status, role).toBe(403);
@@ -412,6 +436,25 @@ describe('held batches: incomplete, re-test, release or reject', () => {
     expect((await view(batchId)).status).toBe('rejected');
   });
 
+  it('a reworked batch re-tested on pH alone stays incomplete and held; release opens once every reading is taken again', async () => {
+    // The walk: failed on pH, kept for rework (re-boil), re-tested on pH alone — release opened on Brix from before the re-boil.
+    const { batchId } = await record({ ...goodBatch(code, '2026-10-06', 1, { ph: 3.6 }), disposition: 'rework', dispositionComment: 'Re-acidify and re-boil.' });
+    const phOnly = await retest(batchId, { ph: 3.1, comment: 'Re-boiled; pH read again.' });
+    expect(phOnly.status, JSON.stringify(phOnly.body)).toBe(201);
+    expect(phOnly.body.outcome).toBe('incomplete');
+    let b = await view(batchId);
+    expect(b.canRelease).toBe(false);
+    expect(b.staleSinceRework).toEqual(['Soluble solids', 'Fill temperature', 'Net fill', 'Set test']);
+    const early = await decide(batchId, { decision: 'release', comment: 'pH is fine now.' });
+    expect(early.status).toBe(409);
+    expect(early.body.error.message).toMatch(/reworked: soluble solids, fill temperature, net fill, set test have not been measured again since/);
+    const rest = await retest(batchId, { brixReading: 65, brixSampleTempC: 20, fillTempC: 88, netFillMeanG: 343, netFillMinG: 336, setTestScore: 4, comment: 'Refilled; the rest read again.' });
+    expect(rest.body.outcome).toBe('pass');
+    b = await view(batchId);
+    expect(b.canRelease).toBe(true);
+    expect((await decide(batchId, { decision: 'release', comment: 'Every check taken again after the rework.' })).status).toBe(201);
+  });
+
   it('refuses a re-test of a passed or discarded batch, empty or lopsided re-tests, and other roles; nothing is written', async () => {
     const passed = await record(goodBatch(code, '2026-10-04', 1));
     expect(passed.outcome).toBe('pass');
@@ -450,7 +493,13 @@ describe('the batch sheet', () => {
     const res = await callRoute(sheetRoute.GET, { method: 'GET', path: `/api/v1/production-versions/${versionId}/batch-sheet?target=total_charge&amount=50&unit=kg&step=10&stepUnit=g&altitudeM=600`, caller: as('production'), params: { versionId } });
     expect(res.status, JSON.stringify(res.body)).toBe(200);
     const sheet = res.body.sheet;
-    for (const l of sheet.scaled.lines) expect(Math.round(l.roundedG) % 10).toBe(0);
+    // On the 10 g step, or (a small addition) a finer one that keeps its rounding within 2 % (common practice, no published source).
+    for (const l of sheet.scaled.lines) {
+      const steps = l.roundedG / l.stepG;
+      expect(Math.abs(steps - Math.round(steps))).toBeLessThan(1e-6);
+      expect(l.stepG === 10 || (l.finerStep && Math.abs(l.roundingErrorG) <= 0.02 * l.exactG)).toBe(true);
+    }
+    expect(sheet.scaled.lines[0].stepG).toBe(10);
     const v = (await callRoute(versionRoute.GET, { method: 'GET', path: '', caller: as('production'), params: { versionId } })).body.version;
     const expected = scaleFormula(v.lines, toChemistrySettings(v.settings), { kind: 'total_charge', mass: 50, unit: 'kg' }, { step: 10, unit: 'g' });
     expect(sheet.scaled.rounded.solubleSolidsInG).toBeCloseTo(expected.rounded.solubleSolidsInG, 6);

@@ -15,21 +15,28 @@ describe('scaling a formula', () => {
   it('rounds to the scale resolution and reports the error per line', () => {
     const scaled = scaleFormula(PRACTICAL_ACTION_LINES, settings(), { kind: 'total_charge', mass: 10, unit: 'kg' }, { step: 5, unit: 'g' });
     for (const line of scaled.lines) {
-      expect(line.roundedG % 5).toBe(0);
-      expect(Math.abs(line.roundingErrorG)).toBeLessThanOrEqual(2.5 + 1e-9);
+      const steps = line.roundedG / line.stepG;
+      expect(Math.abs(steps - Math.round(steps))).toBeLessThan(1e-6);
+      expect(Math.abs(line.roundingErrorG)).toBeLessThanOrEqual(line.stepG / 2 + 1e-9);
       expect(line.roundingErrorG).toBeCloseTo(line.roundedG - line.exactG, 9);
     }
-    // Citric acid: 55 g × 10/20.115 = 27.34 g → 25 g.
-    expect(scaled.lines[3].roundedG).toBe(25);
+    // Fruit and sugar: 4971.4 g each on the 5 g step.
+    expect(scaled.lines[0].stepG).toBe(5);
+    // Citric acid: 55 g × 10/20.115 = 27.34 g; half of 5 g is 9 % of it, half of 1 g 1.8 % → 27 g on a 1 g step.
+    expect(scaled.lines[3].stepG).toBe(1);
+    expect(scaled.lines[3].roundedG).toBe(27);
   });
 
   it('rounds in pounds when the scale reads 0.01 lb', () => {
     const scaled = scaleFormula(PRACTICAL_ACTION_LINES, settings(), { kind: 'total_charge', mass: 20, unit: 'lb' }, { step: 0.01, unit: 'lb' });
     expect(scaled.exact.totalChargeG).toBeCloseTo(20 * GRAMS_PER_POUND, 6);
     for (const line of scaled.lines) {
-      const hundredths = line.roundedInResolutionUnit * 100;
-      expect(Math.abs(hundredths - Math.round(hundredths))).toBeLessThan(1e-6);
+      // On the 0.01 lb step, or a finer power of ten of a pound for the pectin and acid.
+      const steps = line.roundedInResolutionUnit / line.stepInResolutionUnit;
+      expect(Math.abs(steps - Math.round(steps))).toBeLessThan(1e-6);
+      expect([0.01, 0.001, 0.0001].some((s) => Math.abs(line.stepInResolutionUnit - s) < 1e-12)).toBe(true);
     }
+    expect(scaled.lines[0].stepInResolutionUnit).toBeCloseTo(0.01, 12);
   });
 
   it('shows the effect of rounding on finished mass and solids', () => {

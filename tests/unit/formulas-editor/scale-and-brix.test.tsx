@@ -31,16 +31,22 @@ describe('ScalePanel', () => {
     // Source: Practical Action technical brief "Jams, jellies and marmalade" (20.115 kg charge); the scaling and
     // rounding to the nearest 5 g are plain arithmetic (common practice, no published source).
     const factor = 10000 / 20115;
+    // Citric acid and pectin (27.3 g, 29.8 g) go to a 1 g step: half of 5 g would move them 9 % and 8 %,
+    // more than the 2 % a line may move (common practice, no published source).
     const citric = cells(screen.getByTestId('scaled-line-3'));
     expect(Number.parseFloat(citric[0])).toBeCloseTo(55 * factor, 1); // 27.3 g exact
-    expect(citric[1]).toBe('25 g');
-    expect(citric[2]).toBe('−2.3 g');
+    expect(citric[1]).toBe('27 g');
+    expect(citric[2]).toBe('1 g, finer scale');
+    expect(citric[3]).toBe('−0.3 g');
+    expect(cells(screen.getByTestId('scaled-line-2'))[1]).toBe('30 g');
     const fruit = cells(screen.getByTestId('scaled-line-0'));
     expect(fruit[1]).toBe('4970 g'); // 4971.4 g → 4970 g
+    expect(fruit[2]).toBe('5 g');
+    expect(screen.getByTestId('scale-finer-lines').textContent).toMatch(new RegExp(`no line by more than 2 %: ${LIBRARY[2].name}, ${LIBRARY[3].name}\.`));
 
-    // Rounded batch: 4970 + 4970 + 30 + 25 g, solids 497 + 4970 + 30 + 25 g; the planned evaporation is the exact one.
-    const roundedCharge = 4970 + 4970 + 30 + 25;
-    const roundedSolids = 497 + 4970 + 30 + 25;
+    // Rounded batch: 4970 + 4970 + 30 + 27 g, solids 497 + 4970 + 30 + 27 g; the planned evaporation is the exact one.
+    const roundedCharge = 4970 + 4970 + 30 + 27;
+    const roundedSolids = 497 + 4970 + 30 + 27;
     const exactFinished = (11115 * factor) / 0.68;
     const plannedEvaporation = 10000 - exactFinished;
     const expectedPct = (roundedSolids / (roundedCharge - plannedEvaporation)) * 100;
@@ -54,6 +60,9 @@ describe('ScalePanel', () => {
     fireEvent.change(screen.getByLabelText('Jars'), { target: { value: '24' } });
     // 24 jars × 340 g = 8160 g of finished product (arithmetic on the jar fill).
     expect(screen.getByText(/8\.160 kg exact/)).toBeTruthy();
+    // On a 5 g scale the rounded batch still fills all 24 (it gave 23 when every line rounded to the nearest step).
+    fireEvent.change(screen.getByLabelText('Scale step (the smallest change your scale shows)'), { target: { value: '5' } });
+    expect(screen.getByText(/Jars: 24 exact, 24 rounded\./)).toBeTruthy();
   });
 
   it('explains invalid targets and steps', () => {

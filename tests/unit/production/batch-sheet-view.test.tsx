@@ -27,13 +27,29 @@ describe('the batch sheet on screen', () => {
     const table = screen.getByTestId('sheet-ingredients');
     const rows = within(table).getAllByRole('row').slice(1);
     for (const row of rows) {
-      const cells = within(row).getAllByRole('cell');
+      const cells = within(row).getAllByRole('cell').filter((c) => c.dataset.testid !== 'line-step');
       const weights = cells.map((c) => c.textContent ?? '').filter((t) => /\d g$|kg$/.test(t));
       expect(weights.length, row.textContent ?? '').toBe(2);
-      for (const w of weights) expect(w).toMatch(/^\d+(\.\d)? g$/);
+      for (const w of weights) expect(w).toMatch(/^\d+(\.\d+)? g$/);
     }
     expect(table.textContent).not.toMatch(/kg/);
-    // The charge asked for, exactly, beside the sum of the rounded weights.
-    expect(rows.at(-1)!.textContent).toMatch(/Kettle charge362\d0 g36200\.0 g/);
+    // The charge asked for, exactly, beside the sum of the rounded weights (the pectin and acid on a 1 g step).
+    expect(rows.at(-1)!.textContent).toMatch(/Kettle charge362\d\d g36200\.0 g/);
+  });
+
+  it('gives each line its scale step, names the small additions weighed finer, and drops none to 0 g', () => {
+    // The walk's strawberry sheet: 0.8 g of citric acid and 8 g of pectin on a 5 g scale (the 2 % share is
+    // common practice, no published source; the rest is arithmetic).
+    const small: RevisionLine[] = [
+      { ...lines[0], quantity: 1000 }, { ...lines[1], quantity: 850 }, { ...lines[2], quantity: 8 }, { ...lines[3], quantity: 0.8 },
+    ];
+    const sheet = buildBatchSheet({ ...source, lines: small }, batchSheetQuerySchema.parse({ step: '5', stepUnit: 'g' }));
+    render(<BatchSheetView sheet={sheet} paper="a4" massUnits="metric" temperatures="metric" superseded={false} />);
+    const rows = within(screen.getByTestId('sheet-ingredients')).getAllByRole('row').slice(1, 5);
+    const row = (i: number) => within(rows[i]).getAllByRole('cell').map((c) => c.textContent ?? '');
+    expect(row(3).slice(1, 4)).toEqual(['Citric acid', '0.80 g', '0.01 g, finer scale']);
+    expect(row(2).slice(1, 4)).toEqual(['HM pectin grade 200', '8.0 g', '0.1 g, finer scale']);
+    expect(row(0).slice(2, 4)).toEqual(['1000 g', '5 g']);
+    expect(screen.getByTestId('rounding-effect').textContent).toMatch(/Weighed on a finer scale, so rounding moves no line by more than 2 %: HM pectin grade 200, Citric acid\./);
   });
 });

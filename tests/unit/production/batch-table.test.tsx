@@ -10,10 +10,10 @@ const check = (key: QcCheck['key'], status: QcCheck['status']): QcCheck => ({ ke
 function batch(overrides: Partial<BatchView>): BatchView {
   return {
     id: 'b1', lotCode: 'QMJ-26337-1', batchDate: '2026-12-03', version: 1, versionId: 'v1', batchSizeG: 40_000, brixReading: 65, brixSampleTempC: 20, brix20: 65,
-    ph: 3.1, fillTempC: 88, netFillMeanG: 342, netFillMinG: 336, setTestScore: null, jarsFilled: 100, jarsRejected: 0, notes: null,
+    ph: 3.1, fillTempC: 88, netFillMeanG: 342, netFillMinG: 336, setTestScore: null, jarsFilled: 100, jarsRejected: 0, goodJars: 100, notes: null,
     checks: [check('solids', 'pass'), check('set', 'not_measured')], outcome: 'incomplete', disposition: null, dispositionComment: null, recordedBy: 'Prod',
     status: 'held', latestOutcome: 'incomplete', latestChecks: [check('solids', 'pass'), check('set', 'not_measured')],
-    canRetest: true, canRelease: false, canReject: true, decisions: [], limits: { solidsMin: 64, solidsMax: 66, phMin: 2.9, phMax: 3.3 },
+    canRetest: true, canRelease: false, canReject: true, staleSinceRework: [], decisions: [], limits: { solidsMin: 64, solidsMax: 66, phMin: 2.9, phMax: 3.3 },
     ...overrides,
   };
 }

@@ -28,10 +28,13 @@ describe('the batch sheet', () => {
     const sheet = buildBatchSheet(source, query({ target: 'total_charge', amount: '100', unit: 'lb', step: '0.05', stepUnit: 'lb' }));
     expect(sheet.scaled.exact.totalChargeG).toBeCloseTo(100 * GRAMS_PER_POUND, 6);
     for (const l of sheet.scaled.lines) {
-      const steps = l.roundedInResolutionUnit / 0.05;
+      const steps = l.roundedInResolutionUnit / l.stepInResolutionUnit;
       expect(Math.abs(steps - Math.round(steps))).toBeLessThan(1e-6);
-      expect(Math.abs(l.roundingErrorG)).toBeLessThanOrEqual((0.05 * GRAMS_PER_POUND) / 2 + 1e-9);
+      expect(Math.abs(l.roundingErrorG)).toBeLessThanOrEqual(l.stepG / 2 + 1e-9);
     }
+    // Fruit and sugar (49.7 lb) on the 0.05 lb step; the pectin (0.30 lb) and acid (0.27 lb) on 0.01 lb,
+    // where half a step is 1.7 % and 1.8 % of them (half of 0.05 lb would be 8 % and 9 %).
+    expect(sheet.scaled.lines.map((l) => Number(l.stepInResolutionUnit.toFixed(6)))).toEqual([0.05, 0.05, 0.01, 0.01]);
     // Rounding the sugar and fruit to 0.05 lb moves the solids by less than 0.1 point at this size.
     expect(Math.abs(sheet.scaled.effectOfRounding.solidsPctDeltaIfPlannedEvaporation)).toBeLessThan(0.1);
   });
@@ -40,6 +43,9 @@ describe('the batch sheet', () => {
     const sheet = buildBatchSheet(source, query({ target: 'jar_count', amount: '240', step: '5', stepUnit: 'g' }));
     expect(sheet.scaled.exact.finishedMassG).toBeCloseTo(240 * 340, 6);
     expect(sheet.scaled.exact.jarsFilled).toBe(240);
+    // Rounded to the 5 g scale the batch still fills them (the walk's 200 jars gave "about 199").
+    expect(sheet.scaled.rounded.jarsFilled).toBeGreaterThanOrEqual(240);
+    expect(buildBatchSheet(source, query({ target: 'jar_count', amount: '200', step: '5', stepUnit: 'g' })).scaled.rounded.jarsFilled).toBeGreaterThanOrEqual(200);
   });
 
   it('lowers the end point by the drop in the boiling point of water at the kitchen’s altitude', () => {

@@ -31,7 +31,7 @@ export default async function BatchPage({ params }: { params: Promise<{ batchId:
     <>
       <PageHeader
         title={`Batch ${b.lotCode}`}
-        lead={`${product.name}, made to v${b.version} on ${formatDate(b.batchDate)}; ${formatMass(b.batchSizeG, actor.massUnits)}, ${b.jarsFilled} jars (${b.jarsRejected} rejected). Recorded by ${b.recordedBy}.`}
+        lead={`${product.name}, made to v${b.version} on ${formatDate(b.batchDate)}; ${formatMass(b.batchSizeG, actor.massUnits)}, ${b.status === 'rejected' || b.status === 'discarded' ? `${b.jarsFilled} jars filled, none good: the batch was ${b.status}` : `${b.jarsFilled} jars (${b.jarsRejected} rejected)`}. Recorded by ${b.recordedBy}.`}
         actions={<StatusBadge status={b.status} />}
       />
       <p className="-mt-3 mb-6 flex flex-wrap gap-3 text-sm">
@@ -41,13 +41,15 @@ export default async function BatchPage({ params }: { params: Promise<{ batchId:
       {b.status === 'held' ? (
         <div className="mb-6">
           <Notice tone="warning" title="On hold">
-            {b.latestOutcome === 'incomplete'
+            {b.latestOutcome === 'incomplete' && b.staleSinceRework.length
+              ? `Reworked, and not measured again since: ${b.staleSinceRework.join(', ').toLowerCase()}. A re-boil or blend changes the batch, so the readings before it do not count: re-test ${b.staleSinceRework.length > 1 ? 'them' : 'it'} before the batch can be released.`
+              : b.latestOutcome === 'incomplete'
               ? 'A check the spec requires was not measured: re-test it before the batch can be released.'
               : b.latestOutcome === 'fail' ? 'The latest checks failed: rework and re-test, or reject the batch.' : 'The latest re-test passed every check: the batch can be released.'}
           </Notice>
         </div>
       ) : null}
-      {cost ? <div className="mb-6"><BatchCostCard cost={cost} goodJars={b.jarsFilled - b.jarsRejected} /></div> : null}
+      {cost ? <div className="mb-6"><BatchCostCard cost={cost} writtenOff={b.status === 'rejected' || b.status === 'discarded' ? b.status : null} /></div> : null}
       <div className="grid gap-6 lg:grid-cols-2">
         <Card title="Checks at recording">
           <div className="mb-2"><StatusBadge status={b.outcome} /></div>
@@ -76,7 +78,7 @@ export default async function BatchPage({ params }: { params: Promise<{ batchId:
         </Card>
       </div>
       {b.status === 'held' && can(actor.role, 'batches.record') ? (
-        <div className="mt-6"><BatchHoldPanel batchId={b.id} lotCode={b.lotCode} canRelease={b.canRelease} temperatureUnit={actor.temperatureUnit} /></div>
+        <div className="mt-6"><BatchHoldPanel batchId={b.id} lotCode={b.lotCode} canRelease={b.canRelease} reworked={b.disposition === 'rework'} temperatureUnit={actor.temperatureUnit} /></div>
       ) : null}
       <div className="mt-6"><Card title="Audit trail"><AuditTrail events={audit} /></Card></div>
     </>
