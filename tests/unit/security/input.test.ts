@@ -11,6 +11,8 @@ import { describe, it, expect } from 'vitest';
 import { z } from 'zod';
 import {
   boundedNumber,
+  hasVisibleContent,
+  INVISIBLE_TEXT_MESSAGE,
   calendarDateProblem,
   email,
   INT32_MAX,
@@ -32,7 +34,9 @@ import { reviseFormulaSchema, formulaListQuerySchema } from '@/lib/formulas/sche
 import { joinSchema, createTastingSchema } from '@/lib/tastings/schema';
 import { requestResetSchema } from '@/lib/account/schema';
 import { inviteMemberSchema } from '@/lib/members/schema';
-import { ingredientListQuerySchema } from '@/lib/ingredients/schema';
+import { ingredientInputSchema, ingredientListQuerySchema } from '@/lib/ingredients/schema';
+import { ingredientPriceSchema, packagingItemSchema } from '@/lib/pricing/schema';
+import { createFormulaSchema } from '@/lib/formulas/schema';
 import { findDocProblems } from '@/lib/notebook/document';
 import { parseCookCsv } from '@/lib/trials/csv';
 
@@ -93,6 +97,39 @@ describe('bidi overrides and isolates', () => {
   });
   it('keeps right-to-left text itself', () => {
     expect(ok(text({ max: 40 }), 'مربى المشمش')).toBe(true);
+  });
+});
+
+// Unicode Standard §5.21 and DerivedCoreProperties.txt (Default_Ignorable_Code_Point); §23.2 (Cf format characters).
+describe('text that shows nothing', () => {
+  const invisible = [
+    '\u200B', '\u200C', '\u200D', '\u200E', '\u200F', '\u2060', '\u2061', '\u2064', '\uFEFF', '\u180E', '\u00AD', '\u034F',
+    '\uFE0F', '\u{E0100}', '\u{E0041}\u{E007F}', '\u3164', '\u115F', '\u2800', '\u0301', '\uE000', ' \u200B\u00A0\u3000\u200B ',
+  ];
+  it.each(invisible)('refuses a name made only of %j, with the field’s own message', (value) => {
+    expect(hasVisibleContent(value)).toBe(false);
+    const r = name('Give it a name.').safeParse(value);
+    expect(r.error?.issues.map((i) => i.message)).toEqual(['Give it a name.']);
+  });
+  it('refuses it in optional text too, which may be left empty instead', () => {
+    const optional = text({ max: 40 });
+    expect(optional.safeParse('\u200B\u2060').error?.issues.map((i) => i.message)).toEqual([INVISIBLE_TEXT_MESSAGE]);
+    expect(optional.parse('')).toBe('');
+    expect(ok(text({ max: 40, multiline: true }), '\u200B\n\u200B')).toBe(false);
+  });
+  it('keeps invisible characters inside visible text (Persian ZWNJ, joined emoji, flags, Thai word breaks)', () => {
+    for (const value of ['می\u200Cخواهم', '👩\u200D🍳', '❤\uFE0F', '🏴\u{E0067}\u{E0062}\u{E0065}\u{E006E}\u{E0067}\u{E007F}', 'แยม\u200Bส้ม', 'A', '7', '%', '€']) {
+      expect(ok(name('Give it a name.'), value), value).toBe(true);
+    }
+  });
+  it('the feature schemas the walk found refuse a zero-width name or supplier', () => {
+    const named = (schema: z.ZodType, body: object, field: string) => schema.safeParse(body).error?.issues.find((i) => i.path[0] === field)?.message;
+    expect(named(ingredientInputSchema, { name: '\u200B', kind: 'fruit', solidsPct: 10 }, 'name')).toBe('Give the ingredient a name.');
+    expect(named(packagingItemSchema, { name: '\uFEFF\u200D', kind: 'jar' }, 'name')).toBe('Give the packaging item a name.');
+    expect(named(createFormulaSchema, { name: '\u200B' }, 'name')).toBe('Give the formula a name.');
+    const price = { ingredientId: '6f1c0b9e-8a47-4d7e-9a59-3c1f2a7b9e10', packPrice: '24.50', packSize: 25, packUnit: 'kg', validFrom: '2026-06-01' };
+    expect(named(ingredientPriceSchema, { ...price, supplier: '\u200B' }, 'supplier')).toBe(INVISIBLE_TEXT_MESSAGE);
+    expect(ok(ingredientPriceSchema, { ...price, supplier: 'Ferme du Clos' })).toBe(true);
   });
 });
 
