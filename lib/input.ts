@@ -149,12 +149,33 @@ export const isoDateTime = z.iso.datetime({ offset: true, error: 'Use a date and
   if (why) ctx.addIssue({ code: 'custom', message: why });
 });
 
-/** A finite number within [min, max]. */
+/** A finite number within [min, max]; −0 is read as 0. */
 export function boundedNumber(what: string, min: number, max: number) {
   return z
     .number({ error: `${what} must be a number.` })
     .min(min, `${what} must be at least ${min}.`)
-    .max(max, `${what} must be at most ${max}.`);
+    .max(max, `${what} must be at most ${max}.`)
+    .overwrite(positiveZero);
+}
+
+/** −0 (JSON allows "-0") as 0, so it is stored and shown as 0, never as "−0". */
+function positiveZero(v: number): number {
+  return v + 0;
+}
+
+/**
+ * The finest step anything is weighed, read or costed in: a thousandth (1 mg, 0.001 %, 0.001 pH).
+ * Common practice, no published source.
+ */
+export const SMALLEST_AMOUNT = 0.001;
+
+/**
+ * An amount that is 0 or at least SMALLEST_AMOUNT either side of it, with −0 read as 0: a value like
+ * 1e-320 is a slip, and it printed as "× 0.0 g" and "2.628e-320 kcal". For fields where 0 means
+ * something (no refuse, no overfill, water's soluble solids); a field that cannot be 0 takes a min.
+ */
+export function noTinyAmount(schema: z.ZodNumber, what: string, unit = ''): z.ZodNumber {
+  return schema.overwrite(positiveZero).refine((v) => v === 0 || Math.abs(v) >= SMALLEST_AMOUNT, `${what} must be 0 or at least ${SMALLEST_AMOUNT}${unit}.`);
 }
 
 /** A whole number within [min, max], which must fit a PostgreSQL integer column. */

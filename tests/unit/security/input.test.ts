@@ -35,8 +35,9 @@ import { joinSchema, createTastingSchema } from '@/lib/tastings/schema';
 import { requestResetSchema } from '@/lib/account/schema';
 import { inviteMemberSchema } from '@/lib/members/schema';
 import { ingredientInputSchema, ingredientListQuerySchema } from '@/lib/ingredients/schema';
-import { ingredientPriceSchema, packagingItemSchema } from '@/lib/pricing/schema';
-import { createFormulaSchema } from '@/lib/formulas/schema';
+import { costSettingsSchema, ingredientPriceSchema, packagingItemSchema, refuseBodySchema } from '@/lib/pricing/schema';
+import { createFormulaSchema, formulaLineSchema, formulaSettingsSchema } from '@/lib/formulas/schema';
+import { correctCookSchema } from '@/lib/trials/schema';
 import { findDocProblems } from '@/lib/notebook/document';
 import { parseCookCsv } from '@/lib/trials/csv';
 
@@ -186,6 +187,42 @@ describe('tiny and huge floats', () => {
     expect(ok(batchSheetQuerySchema, { target: 'jar_count', amount: '12.5' })).toBe(false);
     expect(ok(batchSheetQuerySchema, { target: 'jar_count', amount: '12' })).toBe(true);
     expect(ok(batchSheetQuerySchema, { amount: '0x10' })).toBe(false);
+  });
+});
+
+// Each was accepted by the user walk and printed nonsense ("Jars filled — × 0.0 g", "Serving size
+// 1 container (0g)", "2.628e-320 kcal"). 1e-320 is a subnormal double (IEEE 754-2019 §3.4).
+describe('tiny non-zero amounts and −0', () => {
+  const issue = (schema: z.ZodType, value: unknown, field: string) => schema.safeParse(value).error?.issues.find((i) => i.path.includes(field))?.message;
+  const settings = { productClass: 'jam', ruleSet: 'eu', ruleDate: '2026-01-01', targetSolidsPct: 65, jarNetFillG: 340 };
+  const line = { ingredientId: '6f1c0b9e-8a47-4d7e-9a59-3c1f2a7b9e10', quantity: 500, unit: 'g' };
+  it('a jar fill is at least 1 g, as a pack format’s', () => {
+    expect(issue(formulaSettingsSchema, { ...settings, jarNetFillG: 1e-320 }, 'jarNetFillG')).toBe('Jar fill must be at least 1 g.');
+    expect(issue(formulaSettingsSchema, { ...settings, jarNetFillG: 0.5 }, 'jarNetFillG')).toBe('Jar fill must be at least 1 g.');
+    expect(ok(formulaSettingsSchema, { ...settings, jarNetFillG: 1 })).toBe(true);
+  });
+  it('a line quantity is at least 0.001', () => {
+    expect(issue(formulaLineSchema, { ...line, quantity: 1e-320 }, 'quantity')).toBe('Quantity must be at least 0.001.');
+    expect(ok(formulaLineSchema, { ...line, quantity: 0.001 })).toBe(true);
+  });
+  it('a cook’s pH below 1 (−0, 1e-320) and a batch below 1 g are refused; a lemony pH 2.1 is kept', () => {
+    const reason = 'Typed again.';
+    for (const ph of [1e-320, -0, 0, 0.5]) expect(issue(correctCookSchema, { ph, reason }, 'ph')).toBe('A preserve’s pH below 1 is not plausible: check the reading.');
+    expect(ok(correctCookSchema, { ph: 2.1, reason })).toBe(true);
+    expect(issue(correctCookSchema, { batchSizeG: 1e-320, reason }, 'batchSizeG')).toBe('Batch size must be at least 1 g.');
+    expect(issue(correctCookSchema, { yieldG: 1e-320, reason }, 'yieldG')).toBe('Yield must be 0 or at least 0.001 g.');
+    expect(ok(correctCookSchema, { yieldG: 0, reason })).toBe(true);
+  });
+  it('where 0 is meaningful it stays (water’s solids, no refuse, no overfill) and −0 becomes 0; 1e-320 is refused', () => {
+    const water = { name: 'Water', kind: 'water', solidsPct: 0 };
+    expect(issue(ingredientInputSchema, { ...water, solidsPct: 1e-320 }, 'solidsPct')).toBe('Soluble solids must be 0 or at least 0.001 %.');
+    expect(issue(ingredientInputSchema, { ...water, phMin: 1e-320 }, 'phMin')).toBe('pH must be 0 or at least 0.001.');
+    expect(Object.is(ingredientInputSchema.parse({ ...water, solidsPct: -0, phMin: -0 }).solidsPct, 0)).toBe(true);
+    expect(Object.is(ingredientInputSchema.parse({ ...water, phMin: -0 }).phMin, 0)).toBe(true);
+    expect(issue(refuseBodySchema, { refusePct: 1e-320 }, 'refusePct')).toBe('The refuse/trim share must be 0 or at least 0.001 %.');
+    expect(ok(refuseBodySchema, { refusePct: 0 })).toBe(true);
+    expect(issue(costSettingsSchema, { currency: 'GBP', overfillPct: 1e-320, costWarningPct: 5 }, 'overfillPct')).toBe('The overfill must be 0 or at least 0.001 %.');
+    expect(Object.is(costSettingsSchema.parse({ currency: 'GBP', overfillPct: -0, costWarningPct: 5 }).overfillPct, 0)).toBe(true);
   });
 });
 
