@@ -3,7 +3,7 @@ import { z } from 'zod';
 import type { BatchComputation, IngredientComposition } from '@/lib/chemistry';
 import { PRESERVATION_METHODS } from '@/lib/chemistry/guidance';
 import { ingredientInputSchema } from '@/lib/ingredients/schema';
-import { isoDate, longText, name, noTinyAmount, searchText, SMALLEST_AMOUNT, versionNumber } from '@/lib/input';
+import { calendarDateProblem, isoDate, longText, name, noTinyAmount, searchText, SMALLEST_AMOUNT, versionNumber } from '@/lib/input';
 
 export const PRODUCT_CLASSES = ['jam', 'extra_jam', 'jelly', 'marmalade', 'reduced_sugar_spread'] as const;
 export const RULE_SETS = ['eu', 'us', 'codex'] as const;
@@ -26,11 +26,22 @@ export const RULE_SET_LABELS: Record<(typeof RULE_SETS)[number], string> = {
 /** Calendar dates come from lib/input.ts (real dates in the years it states); re-exported for older imports. */
 export { isoDate };
 
+/**
+ * The rule date's window. The rules held start with Directive 2001/113/EC and any earlier day was
+ * judged by it (1850 showed the 2001 edition); a day after 2099 is a slip. Project limits, no published source.
+ */
+export const RULE_DATE_MIN = '2000-01-01';
+export const RULE_DATE_MAX = '2099-12-31';
+const ruleDateSchema = isoDate.refine(
+  (day) => calendarDateProblem(day) !== null || (day >= RULE_DATE_MIN && day <= RULE_DATE_MAX),
+  'Choose a rule date from 1 Jan 2000 to 31 Dec 2099.',
+);
+
 export const formulaSettingsSchema = z
   .object({
     productClass: z.enum(PRODUCT_CLASSES, { error: 'Choose a product class.' }),
     ruleSet: z.enum(RULE_SETS, { error: 'Choose a market rule set.' }),
-    ruleDate: isoDate,
+    ruleDate: ruleDateSchema,
     targetSolidsPct: z.number({ error: 'Target solids must be a number.' }).min(SMALLEST_AMOUNT, `Target solids must be at least ${SMALLEST_AMOUNT} %.`).lt(100, 'Target solids must be below 100 %.'),
     // At least 1 g, as a pack format's net fill (lib/pricing/schema.ts).
     jarNetFillG: z.number({ error: 'Jar fill must be a number.' }).min(1, 'Jar fill must be at least 1 g.').max(50_000, 'Jar fill must be at most 50 kg.'),
