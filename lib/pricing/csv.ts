@@ -3,12 +3,11 @@
  * errors are reported by row and column, and nothing lands unless every row is good.
  * Ingredients are named as in the library (case does not matter); amounts are in the workspace currency.
  */
-import Papa from 'papaparse';
 import { getEm, lockForTransaction } from '@/lib/db';
 import { Ingredient, IngredientPrice } from '@/entities';
 import { inWorkspace, type Actor } from '@/lib/permissions';
 import { ValidationFailed } from '@/lib/errors';
-import { toCsv } from '@/lib/csv';
+import { readCsv, toCsv } from '@/lib/csv';
 import { todayIso } from '@/lib/format/dates';
 import { parseDecimal, unsafeTextReason } from '@/lib/input';
 import { costSettings } from './queries';
@@ -33,7 +32,7 @@ type Columns = ReturnType<typeof ingredientPriceColumns>;
 export function parsePriceCsv(text: string, ingredientIdsByName: Map<string, string[]>, currency: string): { rows: Columns[]; errors: CsvRowError[] } {
   const unsafe = unsafeTextReason(text.replace(/^\uFEFF/, ''), true);
   if (unsafe) return { rows: [], errors: [{ row: 1, column: '', message: unsafe }] };
-  const parsed = Papa.parse<Record<string, string>>(text.replace(/^\uFEFF/, ''), { header: true, skipEmptyLines: 'greedy', transformHeader: (h) => h.trim().toLowerCase() });
+  const parsed = readCsv(text);
   const errors: CsvRowError[] = [];
   const headers = parsed.meta.fields ?? [];
   const known = new Set<string>(PRICE_CSV_COLUMNS);
