@@ -45,3 +45,23 @@ describe('each import reads the guard back', () => {
     expect(rows[0].notes).toBe('-- too runny');
   });
 });
+
+describe('price CSV rows are numbered as a spreadsheet shows them (the header is row 1)', () => {
+  // User walk: a U+202E in the one data row was reported as "row 1", a bad date in the same place as "row 2".
+  const names = new Map([['sucrose', ['6f1c0b9e-8a47-4d7e-9a59-3c1f2a7b9e10']]]);
+  const header = 'ingredient,valid_from,pack_price,pack_size,pack_unit,supplier\n';
+  it.each([
+    ['a text-direction override', 'sucrose,2026-08-01,31.00,25,kg,Mill\u202E\n', 'supplier'],
+    ['a NUL', 'sucrose\u0000,2026-08-01,31.00,25,kg,Mill\n', 'ingredient'],
+    ['an impossible date', 'sucrose,2026-02-30,31.00,25,kg,Mill\n', 'valid_from'],
+  ])('%s in the first data row is row 2, in its column', (_what, line, column) => {
+    const { rows, errors } = parsePriceCsv(header + line, names, 'EUR');
+    expect(rows).toEqual([]);
+    expect(errors).toEqual([expect.objectContaining({ row: 2, column })]);
+  });
+  it('the third data row is row 4, and a poisoned header is row 1', () => {
+    const good = 'sucrose,2026-08-01,31.00,25,kg,Mill\n';
+    expect(parsePriceCsv(header + good + good + 'sucrose,2026-08-03,31.00,25,kg,\uD800\n', names, 'EUR').errors).toEqual([expect.objectContaining({ row: 4, column: 'supplier' })]);
+    expect(parsePriceCsv('ingredient\u202E,valid_from,pack_price,pack_size,pack_unit\n' + good, names, 'EUR').errors).toEqual(expect.arrayContaining([expect.objectContaining({ row: 1 })]));
+  });
+});
