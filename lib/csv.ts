@@ -1,11 +1,34 @@
-/** CSV out for people who analyse in spreadsheets. Cells that a spreadsheet would run as a formula are defused. */
+/**
+ * CSV out for people who analyse in spreadsheets, and back in. Cells that a spreadsheet would run as
+ * a formula are defused on the way out (OWASP "CSV Injection": a leading apostrophe); readCsv takes
+ * exactly that apostrophe off again, so an exported file imports back unchanged.
+ */
 import Papa from 'papaparse';
 
-const FORMULA_START = /^[=+\-@\t\r]/;
+// Apostrophes before a formula start are guarded too, so a name that truly begins "'+" survives the round trip.
+const FORMULA_START = /^'*[=+\-@\t\r]/;
 
-function defuse(value: unknown): unknown {
+export function defuse(value: unknown): unknown {
   if (typeof value === 'string' && FORMULA_START.test(value)) return `'${value}`;
   return value;
+}
+
+/** A cell as it was before defuse(): the one apostrophe export put before a formula start comes off, nothing else. */
+export function undefuse(cell: string): string {
+  return cell.startsWith("'") && FORMULA_START.test(cell.slice(1)) ? cell.slice(1) : cell;
+}
+
+/**
+ * The imports' one reader: a header row (names trimmed, lower case), blank lines skipped, a byte-order
+ * mark ignored, and every cell undefused.
+ */
+export function readCsv(text: string): Papa.ParseResult<Record<string, string>> {
+  return Papa.parse<Record<string, string>>(text.replace(/^\uFEFF/, ''), {
+    header: true,
+    skipEmptyLines: 'greedy',
+    transformHeader: (h) => h.trim().toLowerCase(),
+    transform: (value) => undefuse(value),
+  });
 }
 
 export function toCsv<T>(rows: T[], columns: Array<{ header: string; value: (row: T) => unknown }>): string {

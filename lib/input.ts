@@ -6,7 +6,7 @@
  *
  * - text: trimmed, bounded, no NUL or other control characters (newline, carriage return and tab
  *   only where several lines are allowed), no text-direction overrides or isolates, no lone
- *   surrogates or noncharacters.
+ *   surrogates or noncharacters; text that is not empty shows something (hasVisibleContent).
  * - dates: YYYY-MM-DD that exist on the calendar (no 30 February, no 31 April) in the years
  *   1900–2200 (PostgreSQL has no year 0, and nothing in a preserve kitchen is dated outside them).
  * - numbers: finite and within a stated range; whole numbers that go to an integer column stay
@@ -33,9 +33,27 @@ const LONE_SURROGATE = /[\uD800-\uDBFF](?![\uDC00-\uDFFF])|(?<![\uD800-\uDBFF])[
 /** Line and paragraph breaks and tabs: allowed in multi-line text only. */
 const LINE_BREAK = /[\t\n\r\u2028\u2029]/;
 
+// What shows on a screen: a letter, digit, punctuation mark or symbol that is not default-ignorable
+// (Unicode §5.21: zero-width spaces and joiners, U+2060–U+2064, U+FEFF, U+180E, the soft hyphen,
+// the combining grapheme joiner, variation selectors, tag characters, the Hangul fillers) and not
+// the blank braille cell U+2800. Whitespace, format characters (Cf), private-use characters and
+// combining marks without a base character never count on their own.
+const VISIBLE = /(?![\p{Default_Ignorable_Code_Point}\u2800])[\p{L}\p{N}\p{P}\p{S}]/u;
+
+/**
+ * True when the text shows at least one character. Invisible characters INSIDE otherwise visible
+ * text are kept on purpose: the zero-width joiner and non-joiner shape Persian and Indic words and
+ * join emoji, variation selectors and tag characters finish emoji and flags, U+200B marks word
+ * breaks in Thai and Khmer. What must not pass is a name that shows as a blank row or option.
+ */
+export function hasVisibleContent(value: string): boolean {
+  return VISIBLE.test(value);
+}
+
 export const UNSAFE_TEXT_MESSAGE = 'Remove the invisible control characters (such as NUL or text-direction overrides).';
 export const BROKEN_TEXT_MESSAGE = 'The text contains a broken character; type or paste it again.';
 export const LINE_BREAK_MESSAGE = 'Keep this on one line.';
+export const INVISIBLE_TEXT_MESSAGE = 'This holds only invisible characters: type the text, or leave it empty.';
 
 /** Why a text cannot be accepted, or null when it is safe. */
 export function unsafeTextReason(value: string, multiline = false): string | null {
@@ -62,13 +80,19 @@ export interface TextOptions {
   tooLong?: string;
 }
 
-/** Trimmed, bounded text without control or direction-override characters. */
+/**
+ * Trimmed, bounded text without control or direction-override characters. Text that is not empty
+ * must show something: a required one is refused with its own `required` message, an optional one
+ * is told to leave it empty.
+ */
 export function text({ max, min = 0, multiline = false, required, tooLong }: TextOptions) {
+  const requiredMessage = required ?? (min === 1 ? 'This field is required.' : `Use at least ${min} characters.`);
   let s = z.string({ error: 'Enter text here.' }).trim();
-  if (min > 0) s = s.min(min, required ?? (min === 1 ? 'This field is required.' : `Use at least ${min} characters.`));
+  if (min > 0) s = s.min(min, requiredMessage);
   return s.max(max, tooLong ?? `Use at most ${max} characters.`).superRefine((value, ctx) => {
     const why = unsafeTextReason(value, multiline);
     if (why) ctx.addIssue({ code: 'custom', message: why });
+    else if (value.length >= Math.max(min, 1) && !hasVisibleContent(value)) ctx.addIssue({ code: 'custom', message: min > 0 ? requiredMessage : INVISIBLE_TEXT_MESSAGE });
   });
 }
 
@@ -125,12 +149,33 @@ export const isoDateTime = z.iso.datetime({ offset: true, error: 'Use a date and
   if (why) ctx.addIssue({ code: 'custom', message: why });
 });
 
-/** A finite number within [min, max]. */
+/** A finite number within [min, max]; −0 is read as 0. */
 export function boundedNumber(what: string, min: number, max: number) {
   return z
     .number({ error: `${what} must be a number.` })
     .min(min, `${what} must be at least ${min}.`)
-    .max(max, `${what} must be at most ${max}.`);
+    .max(max, `${what} must be at most ${max}.`)
+    .overwrite(positiveZero);
+}
+
+/** −0 (JSON allows "-0") as 0, so it is stored and shown as 0, never as "−0". */
+function positiveZero(v: number): number {
+  return v + 0;
+}
+
+/**
+ * The finest step anything is weighed, read or costed in: a thousandth (1 mg, 0.001 %, 0.001 pH).
+ * Common practice, no published source.
+ */
+export const SMALLEST_AMOUNT = 0.001;
+
+/**
+ * An amount that is 0 or at least SMALLEST_AMOUNT either side of it, with −0 read as 0: a value like
+ * 1e-320 is a slip, and it printed as "× 0.0 g" and "2.628e-320 kcal". For fields where 0 means
+ * something (no refuse, no overfill, water's soluble solids); a field that cannot be 0 takes a min.
+ */
+export function noTinyAmount(schema: z.ZodNumber, what: string, unit = ''): z.ZodNumber {
+  return schema.overwrite(positiveZero).refine((v) => v === 0 || Math.abs(v) >= SMALLEST_AMOUNT, `${what} must be 0 or at least ${SMALLEST_AMOUNT}${unit}.`);
 }
 
 /** A whole number within [min, max], which must fit a PostgreSQL integer column. */

@@ -243,7 +243,7 @@ export function FormulaEditor({ mode, initial, ingredients, massUnits, temperatu
             />
           </Card>
 
-          <SettingsCard settings={settings} system={system} temperatureUnit={tempUnit} errors={errors.fields} onChange={updateSettings} />
+          <SettingsCard settings={settings} system={system} temperatureUnit={tempUnit} errors={errors.fields} liveErrors={computed.settingsErrors} onChange={updateSettings} />
 
           <Card
             title="Lines"

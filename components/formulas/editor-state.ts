@@ -14,7 +14,7 @@ import {
   type UnitPreference,
 } from '@/lib/chemistry';
 import { computeFormula, type ComputableLine, type ComputeOutcome } from '@/lib/formulas/compute';
-import type { FormulaSettingsInput } from '@/lib/formulas/schema';
+import { formulaSettingsSchema, type FormulaSettingsInput } from '@/lib/formulas/schema';
 import type { EditorIngredient } from '@/lib/ingredients/schema';
 import { readDecimal } from '@/lib/format/numbers';
 import { type DisplayScale, ENTRY_DECIMALS, type MeasuredDraft, type TemperatureUnit, altitudeScale, draftFromBase, draftFromText, formatEntryNumber, jarFillScale, redisplayDraft, temperatureScale } from '@/lib/format/quantities';
@@ -204,6 +204,8 @@ export interface EditorComputation {
   lineKeys: string[];
   /** Lines left out because they lack an ingredient or a readable quantity. */
   skippedLineKeys: string[];
+  /** The settings' errors by the save schema (`settings.…` → messages), shown at their fields as they are typed. */
+  settingsErrors: Record<string, string[]>;
 }
 
 const SETTING_LABELS: Record<string, string> = {
@@ -233,8 +235,23 @@ export function ingredientIndex(ingredients: EditorIngredient[]): Map<string, Ed
   return new Map(ingredients.map((i) => [i.id, i]));
 }
 
-/** Runs computeFormula on the lines that are complete enough; incomplete ones are reported, not guessed. */
+/**
+ * The settings' field errors by formulaSettingsSchema, the rule saving applies. The chemistry accepts
+ * wider ranges (any pH 0–14, altitude to 11 km), so without this the results showed what saving refuses.
+ */
+export function settingsFieldErrors(settings: FormulaSettingsInput): Record<string, string[]> {
+  const check = formulaSettingsSchema.safeParse(settings);
+  if (check.success) return {};
+  return issuesToFieldErrors(check.error.issues.map((issue) => ({ ...issue, path: ['settings', ...issue.path] })));
+}
+
+/**
+ * Runs computeFormula on the lines that are complete enough; incomplete ones are reported, not guessed.
+ * Settings the save would refuse give no results, only their message.
+ */
 export function computeEditor(settings: SettingsDraft, lines: LineDraft[], ingredientsById: Map<string, EditorIngredient>): EditorComputation {
+  const settingsInput = settingsFromDraft(settings);
+  const settingsErrors = settingsFieldErrors(settingsInput);
   const computable: ComputableLine[] = [];
   const lineKeys: string[] = [];
   const lineLabels: string[] = [];
@@ -253,13 +270,16 @@ export function computeEditor(settings: SettingsDraft, lines: LineDraft[], ingre
     lineKeys.push(line.key);
     lineLabels.push(`Line ${index + 1} (${ingredient.name})`);
   });
-  if (computable.length === 0) return { outcome: null, lines: computable, lineKeys, skippedLineKeys };
+  const parts = { lines: computable, lineKeys, skippedLineKeys, settingsErrors };
+  if (computable.length === 0) return { outcome: null, ...parts };
   if (!computable.some((l) => l.ingredient.kind === 'fruit')) {
-    return { outcome: { ok: false, field: 'lines', message: 'Add a fruit line to see results.' }, lines: computable, lineKeys, skippedLineKeys };
+    return { outcome: { ok: false, field: 'lines', message: 'Add a fruit line to see results.' }, ...parts };
   }
-  const outcome = computeFormula(settingsFromDraft(settings), computable);
-  if (outcome.ok) return { outcome, lines: computable, lineKeys, skippedLineKeys };
-  return { outcome: { ...outcome, message: friendlyComputeMessage(outcome.field, outcome.message, lineLabels) }, lines: computable, lineKeys, skippedLineKeys };
+  const [settingField, messages] = Object.entries(settingsErrors)[0] ?? [];
+  if (settingField) return { outcome: { ok: false, field: settingField, message: friendlyComputeMessage(settingField, messages[0], lineLabels) }, ...parts };
+  const outcome = computeFormula(settingsInput, computable);
+  if (outcome.ok) return { outcome, ...parts };
+  return { outcome: { ...outcome, message: friendlyComputeMessage(outcome.field, outcome.message, lineLabels) }, ...parts };
 }
 
 /* ---------- field errors from the server (or the shared schema) ---------- */

@@ -84,6 +84,11 @@ export async function reviseFormula(actor: Actor, formulaId: string, input: Revi
   return em.transactional(async (tx) => {
     const formula = await tx.findOne(Formula, { ...inWorkspace(actor), id: formulaId, archivedAt: null }, { lockMode: LockMode.PESSIMISTIC_WRITE });
     if (!formula) throw notFound('formula');
+    // A base that was never saved is bad input, not someone else's newer save (and force cannot mend it).
+    if (input.baseRevision > formula.latestRevision) {
+      const message = `This formula has no revision ${input.baseRevision}; its latest is revision ${formula.latestRevision}.`;
+      throw new ValidationFailed(message, { baseRevision: [message] });
+    }
     if (formula.latestRevision !== input.baseRevision && !input.force) {
       const by = await tx.findOne(User, { id: formula.updatedBy.id });
       throw new Conflict(

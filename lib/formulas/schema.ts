@@ -3,7 +3,7 @@ import { z } from 'zod';
 import type { BatchComputation, IngredientComposition } from '@/lib/chemistry';
 import { PRESERVATION_METHODS } from '@/lib/chemistry/guidance';
 import { ingredientInputSchema } from '@/lib/ingredients/schema';
-import { isoDate, longText, name, searchText, versionNumber } from '@/lib/input';
+import { calendarDateProblem, isoDate, longText, name, noTinyAmount, searchText, SMALLEST_AMOUNT, versionNumber } from '@/lib/input';
 
 export const PRODUCT_CLASSES = ['jam', 'extra_jam', 'jelly', 'marmalade', 'reduced_sugar_spread'] as const;
 export const RULE_SETS = ['eu', 'us', 'codex'] as const;
@@ -26,25 +26,37 @@ export const RULE_SET_LABELS: Record<(typeof RULE_SETS)[number], string> = {
 /** Calendar dates come from lib/input.ts (real dates in the years it states); re-exported for older imports. */
 export { isoDate };
 
+/**
+ * The rule date's window. The rules held start with Directive 2001/113/EC and any earlier day was
+ * judged by it (1850 showed the 2001 edition); a day after 2099 is a slip. Project limits, no published source.
+ */
+export const RULE_DATE_MIN = '2000-01-01';
+export const RULE_DATE_MAX = '2099-12-31';
+const ruleDateSchema = isoDate.refine(
+  (day) => calendarDateProblem(day) !== null || (day >= RULE_DATE_MIN && day <= RULE_DATE_MAX),
+  'Choose a rule date from 1 Jan 2000 to 31 Dec 2099.',
+);
+
 export const formulaSettingsSchema = z
   .object({
     productClass: z.enum(PRODUCT_CLASSES, { error: 'Choose a product class.' }),
     ruleSet: z.enum(RULE_SETS, { error: 'Choose a market rule set.' }),
-    ruleDate: isoDate,
-    targetSolidsPct: z.number({ error: 'Target solids must be a number.' }).gt(0, 'Target solids must be above 0 %.').lt(100, 'Target solids must be below 100 %.'),
-    jarNetFillG: z.number({ error: 'Jar fill must be a number.' }).positive('Jar fill must be more than 0 g.').max(50_000, 'Jar fill must be at most 50 kg.'),
+    ruleDate: ruleDateSchema,
+    targetSolidsPct: z.number({ error: 'Target solids must be a number.' }).min(SMALLEST_AMOUNT, `Target solids must be at least ${SMALLEST_AMOUNT} %.`).lt(100, 'Target solids must be below 100 %.'),
+    // At least 1 g, as a pack format's net fill (lib/pricing/schema.ts).
+    jarNetFillG: z.number({ error: 'Jar fill must be a number.' }).min(1, 'Jar fill must be at least 1 g.').max(50_000, 'Jar fill must be at most 50 kg.'),
     altitudeM: z.number({ error: 'Altitude must be a number.' }).min(-500, 'Altitude must be at least −500 m.').max(5000, 'Altitude must be at most 5000 m.').nullable().optional(),
     measuredWaterBoilingC: z.number({ error: 'Boiling point must be a number.' }).min(60, 'A water boiling point below 60 °C is not plausible.').max(105, 'A water boiling point above 105 °C is not plausible.').nullable().optional(),
     plannedPh: z.number({ error: 'pH must be a number.' }).min(1, 'pH must be at least 1.').max(8, 'pH must be at most 8.').nullable().optional(),
     preservation: z.enum(PRESERVATION_METHODS, { error: 'Choose how the product is preserved.' }).nullable().optional(),
-    sucroseInversionPct: z.number({ error: 'The inverted share must be a number.' }).min(0, 'The inverted share runs from 0 to 100 %.').max(100, 'The inverted share runs from 0 to 100 %.').nullable().optional(),
+    sucroseInversionPct: noTinyAmount(z.number({ error: 'The inverted share must be a number.' }).min(0, 'The inverted share runs from 0 to 100 %.').max(100, 'The inverted share runs from 0 to 100 %.'), 'The inverted share', ' %').nullable().optional(),
   })
   .strict();
 
 export const formulaLineSchema = z
   .object({
     ingredientId: z.uuid('Choose an ingredient from the library.'),
-    quantity: z.number({ error: 'Quantity must be a number.' }).positive('Quantity must be more than 0.').max(10_000_000, 'Quantity is implausibly large.'),
+    quantity: z.number({ error: 'Quantity must be a number.' }).min(SMALLEST_AMOUNT, `Quantity must be at least ${SMALLEST_AMOUNT}.`).max(10_000_000, 'Quantity is implausibly large.'),
     unit: z.enum(LINE_UNITS, { error: 'Use g, kg, lb, oz or % of fruit.' }),
   })
   .strict();

@@ -4,9 +4,8 @@
  * by row and column, and nothing lands unless every row is good. A row replaces the values of the
  * ingredient its id names or, without an id, the one its name matches (ignoring case); any other row adds one.
  */
-import Papa from 'papaparse';
 import { z } from 'zod';
-import { toCsv } from '@/lib/csv';
+import { readCsv, toCsv } from '@/lib/csv';
 import { parseDecimal } from '@/lib/input';
 import { unreadableNumberMessage } from '@/lib/format/numbers';
 import { NUTRIENT_KEYS, type NutrientKey } from '@/lib/label/types';
@@ -130,7 +129,7 @@ export interface IngredientCsvRow {
  * naming an ingredient of `library` starts from its values: only the file's columns change it.
  */
 export function parseIngredientCsv(text: string, library: IngredientView[] = []): { rows: IngredientCsvRow[]; errors: CsvRowError[] } {
-  const parsed = Papa.parse<Record<string, string>>(text.replace(/^\uFEFF/, ''), { header: true, skipEmptyLines: 'greedy', transformHeader: (h) => h.trim().toLowerCase() });
+  const parsed = readCsv(text);
   const errors: CsvRowError[] = [];
   const headers = parsed.meta.fields ?? [];
   const known = new Set(INGREDIENT_CSV_COLUMNS.map((c) => c.header));

@@ -1,7 +1,7 @@
 /** Ingredient library: the zod schemas shared by forms and the API, and the plain types pages receive. */
 import { z } from 'zod';
 import type { IngredientComposition } from '@/lib/chemistry';
-import { boundedNumber, longText, name, searchText, text } from '@/lib/input';
+import { boundedNumber, longText, name, noTinyAmount, searchText, text } from '@/lib/input';
 import { EU_ALLERGENS, NUTRIENT_KEYS, US_ALLERGENS, type NutrientKey } from '@/lib/label/types';
 import {
   ADDITIVE_CLASSES, E_NUMBER_MESSAGE, E_NUMBER_PATTERN, NUTRIENT_LABELS, normaliseENumber, type IngredientLabelFields,
@@ -38,8 +38,8 @@ export const EU_GROUP_LABELS: Record<(typeof EU_FRUIT_GROUPS)[number], string> =
   citrus: 'Citrus (marmalade)',
 };
 
-const optionalNumber = (min: number, max: number, what: string) =>
-  z.number({ error: `${what} must be a number.` }).min(min, `${what} must be at least ${min}.`).max(max, `${what} must be at most ${max}.`).nullable().optional();
+const optionalNumber = (min: number, max: number, what: string, unit = '') =>
+  noTinyAmount(z.number({ error: `${what} must be a number.` }).min(min, `${what} must be at least ${min}.`).max(max, `${what} must be at most ${max}.`), what, unit).nullable().optional();
 
 /**
  * Bounds per 100 g. A mass cannot exceed the 100 g it is part of; energy bounds sit above pure fat
@@ -119,10 +119,10 @@ export const ingredientInputSchema = z
   .object({
     name: name('Give the ingredient a name.'),
     kind: z.enum(INGREDIENT_KINDS, { error: 'Choose a kind.' }),
-    solidsPct: z.number({ error: 'Soluble solids must be a number.' }).min(0, 'Soluble solids cannot be negative.').max(100, 'Soluble solids cannot exceed 100 %.'),
+    solidsPct: noTinyAmount(z.number({ error: 'Soluble solids must be a number.' }).min(0, 'Soluble solids cannot be negative.').max(100, 'Soluble solids cannot exceed 100 %.'), 'Soluble solids', ' %'),
     phMin: optionalNumber(0, 14, 'pH'),
     phMax: optionalNumber(0, 14, 'pH'),
-    acidPct: optionalNumber(0, 100, 'Acid content'),
+    acidPct: optionalNumber(0, 100, 'Acid content', ' %'),
     pectinLevel: z.enum(PECTIN_LEVELS).nullable().optional(),
     euFruitGroup: z.enum(EU_FRUIT_GROUPS).nullable().optional(),
     usFruitGroup: z.enum(US_FRUIT_GROUPS).nullable().optional(),

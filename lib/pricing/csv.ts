@@ -3,12 +3,11 @@
  * errors are reported by row and column, and nothing lands unless every row is good.
  * Ingredients are named as in the library (case does not matter); amounts are in the workspace currency.
  */
-import Papa from 'papaparse';
 import { getEm, lockForTransaction } from '@/lib/db';
 import { Ingredient, IngredientPrice } from '@/entities';
 import { inWorkspace, type Actor } from '@/lib/permissions';
 import { ValidationFailed } from '@/lib/errors';
-import { toCsv } from '@/lib/csv';
+import { readCsv, toCsv } from '@/lib/csv';
 import { todayIso } from '@/lib/format/dates';
 import { parseDecimal, unsafeTextReason } from '@/lib/input';
 import { costSettings } from './queries';
@@ -31,13 +30,15 @@ type Columns = ReturnType<typeof ingredientPriceColumns>;
 
 /** Checks every row; returns the points ready to insert or every error found. Pure apart from the name map. */
 export function parsePriceCsv(text: string, ingredientIdsByName: Map<string, string[]>, currency: string): { rows: Columns[]; errors: CsvRowError[] } {
-  const unsafe = unsafeTextReason(text.replace(/^\uFEFF/, ''), true);
-  if (unsafe) return { rows: [], errors: [{ row: 1, column: '', message: unsafe }] };
-  const parsed = Papa.parse<Record<string, string>>(text.replace(/^\uFEFF/, ''), { header: true, skipEmptyLines: 'greedy', transformHeader: (h) => h.trim().toLowerCase() });
+  const parsed = readCsv(text);
   const errors: CsvRowError[] = [];
   const headers = parsed.meta.fields ?? [];
   const known = new Set<string>(PRICE_CSV_COLUMNS);
-  for (const h of headers) if (!known.has(h)) errors.push({ row: 1, column: h, message: `Unknown column “${h}”. Known columns: ${PRICE_CSV_COLUMNS.join(', ')}.` });
+  for (const h of headers) {
+    const unsafe = unsafeTextReason(h, true);
+    if (unsafe) errors.push({ row: 1, column: '', message: unsafe });
+    else if (!known.has(h)) errors.push({ row: 1, column: h, message: `Unknown column “${h}”. Known columns: ${PRICE_CSV_COLUMNS.join(', ')}.` });
+  }
   for (const required of REQUIRED) if (!headers.includes(required)) errors.push({ row: 1, column: required, message: `The column “${required}” is required.` });
   for (const e of parsed.errors) errors.push({ row: (e.row ?? 0) + 2, column: '', message: e.message });
   if (errors.length) return { rows: [], errors };
@@ -49,6 +50,11 @@ export function parsePriceCsv(text: string, ingredientIdsByName: Map<string, str
     const row = i + 2; // the header is row 1, as a spreadsheet shows it
     const cell = (column: string) => (Object.prototype.hasOwnProperty.call(record, column) ? String(record[column] ?? '') : '').trim();
     const fail = (column: string, message: string) => errors.push({ row, column, message });
+    // Checked per cell, so the row is numbered as every other problem is (the header is row 1).
+    for (const [column, value] of Object.entries(record)) {
+      const unsafe = unsafeTextReason(String(value ?? ''), true);
+      if (unsafe) return fail(known.has(column) ? column : '', unsafe);
+    }
     const rowCurrency = cell('currency');
     if (rowCurrency && rowCurrency.toUpperCase() !== currency) return fail('currency', `Prices here are in ${currency}; this row says ${rowCurrency}. Setwell does not convert currencies.`);
     const name = cell('ingredient');

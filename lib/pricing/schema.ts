@@ -1,6 +1,6 @@
 /** Prices and packaging: the zod schemas shared by forms, actions, the API and the CSV import, and the plain types pages receive. */
 import { z } from 'zod';
-import { boundedNumber, id, isoDate, longText, name, text, wholeNumber } from '@/lib/input';
+import { boundedNumber, id, isoDate, longText, name, noTinyAmount, text, wholeNumber } from '@/lib/input';
 import { PACK_UNITS, PACKAGING_KINDS, PRICE_LIMITS, type PackagingKind } from './vocabulary';
 
 /** A typed amount ("24.50"); whether its decimals suit the workspace currency is checked by lib/pricing/money.ts. */
@@ -8,12 +8,13 @@ const amount = text({ min: 1, max: 20, required: 'Give the price.' }).superRefin
   if (value.startsWith('-')) ctx.addIssue({ code: 'custom', message: 'A price cannot be negative.' });
   else if (value && !/^\d+(?:[.,]\d+)?$/.test(value)) ctx.addIssue({ code: 'custom', message: 'Give the price as a number, e.g. 24.50.' });
 });
+const refusePct = noTinyAmount(boundedNumber('The refuse/trim share', 0, PRICE_LIMITS.maxRefusePct), 'The refuse/trim share', ' %');
 const supplier = text({ max: PRICE_LIMITS.maxSupplierLength }).nullable().optional();
 
 export const costSettingsSchema = z
   .object({
     currency: z.string({ error: 'Choose a currency.' }).regex(/^[A-Z]{3}$/, 'Choose a currency from the list.'),
-    overfillPct: boundedNumber('The overfill', 0, PRICE_LIMITS.maxOverfillPct),
+    overfillPct: noTinyAmount(boundedNumber('The overfill', 0, PRICE_LIMITS.maxOverfillPct), 'The overfill', ' %'),
     costWarningPct: boundedNumber('The warning threshold', 0.1, PRICE_LIMITS.maxWarningPct),
   })
   .strict();
@@ -34,12 +35,12 @@ export type IngredientPriceInput = z.infer<typeof ingredientPriceSchema>;
 export const refuseSchema = z
   .object({
     ingredientId: id('Unknown ingredient.'),
-    refusePct: boundedNumber('The refuse/trim share', 0, PRICE_LIMITS.maxRefusePct),
+    refusePct,
   })
   .strict();
 
 /** The refuse/trim share alone, for the API path that names the ingredient. */
-export const refuseBodySchema = z.object({ refusePct: boundedNumber('The refuse/trim share', 0, PRICE_LIMITS.maxRefusePct) }).strict();
+export const refuseBodySchema = z.object({ refusePct }).strict();
 
 export const withdrawSchema = z
   .object({

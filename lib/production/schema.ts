@@ -50,7 +50,7 @@ export const qcSpecSchema = z
     phMin: num('pH minimum').min(2, 'pH minimum must be at least 2.').max(4.6, 'pH minimum must be at most 4.6.'),
     phMax: num('pH maximum').min(2, 'pH maximum must be at least 2.').max(7, 'pH maximum must be at most 7.'),
     minFillTempC: num('Minimum fill temperature').min(60, 'A fill below 60 °C is not a hot fill.').max(100, 'Fill temperature must be at most 100 °C.'),
-    netFillG: num('Net fill').positive('Net fill must be more than 0 g.').max(10_000, 'Net fill must be at most 10 kg.'),
+    netFillG: num('Net fill').min(1, 'Net fill must be at least 1 g.').max(10_000, 'Net fill must be at most 10 kg.'),
     netFillToleranceG: num('Fill tolerance').min(0, 'Fill tolerance cannot be negative.').max(1000, 'Fill tolerance must be at most 1 kg.'),
     setMinScore: wholeNumber('Set score', 1, 5),
     setDescription: text({ min: 3, max: 200, required: 'Describe the expected set.' }),
@@ -120,7 +120,7 @@ export const batchRecordSchema = z
   .object({
     lotCode: z.string().trim().toUpperCase().regex(LOT_CODE_PATTERN, 'Use the lot code scheme: product code, year and day of year, batch of the day — e.g. QMJ-26336-1.'),
     batchDate: isoDate,
-    batchSizeG: num('Batch size').positive('Batch size must be more than 0.').max(5_000_000, 'Batch size must be at most 5 t.'),
+    batchSizeG: num('Batch size').min(1, 'Batch size must be at least 1 g.').max(5_000_000, 'Batch size must be at most 5 t.'),
     brixReading: num('Refractometer reading').min(10, 'The correction table covers 10–70 °Brix.').max(70, 'The correction table covers 10–70 °Brix.'),
     brixSampleTempC: num('Sample temperature').min(10, 'Bring the sample to 10–25 °C before reading.').max(25, 'Bring the sample to 10–25 °C before reading.'),
     ph: num('pH').min(1, 'pH must be at least 1.').max(8, 'pH must be at most 8.'),

@@ -2,12 +2,11 @@
  * Cooks in and out as CSV. Import is all-or-nothing: every row is checked first,
  * errors are reported by row and column, and nothing lands unless every row is good.
  */
-import Papa from 'papaparse';
 import { getEm } from '@/lib/db';
 import { Cook, Trial, Variant } from '@/entities';
 import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
 import { ValidationFailed } from '@/lib/errors';
-import { toCsv } from '@/lib/csv';
+import { readCsv, toCsv } from '@/lib/csv';
 import { parseDecimal } from '@/lib/input';
 import { unreadableNumberMessage } from '@/lib/format/numbers';
 import { cookSchema } from './schema';
@@ -44,7 +43,7 @@ export interface CsvRowError {
 
 /** Parses and checks; returns the rows ready to insert or every error found. Pure apart from the label map. */
 export function parseCookCsv(text: string, variantIdByLabel: Map<string, string>): { rows: Array<Parameters<typeof cookColumns>[0] & { variantId: string }>; errors: CsvRowError[] } {
-  const parsed = Papa.parse<Record<string, string>>(text.replace(/^\uFEFF/, ''), { header: true, skipEmptyLines: 'greedy', transformHeader: (h) => h.trim().toLowerCase() });
+  const parsed = readCsv(text);
   const errors: CsvRowError[] = [];
   const headers = parsed.meta.fields ?? [];
   const known = new Set<string>(COOK_CSV_COLUMNS.map((c) => c.column));

@@ -1,7 +1,7 @@
 /** Trials, variants and cooks: zod schemas shared by forms, actions and the API, and the plain views. */
 import { z } from 'zod';
 import { todayIso, addDaysIso } from '@/lib/format/dates';
-import { isoDate, longText, name, searchText, text, versionNumber, wholeNumber } from '@/lib/input';
+import { isoDate, longText, name, noTinyAmount, searchText, text, versionNumber, wholeNumber } from '@/lib/input';
 import { formulaLineSchema, formulaSettingsSchema, PRODUCT_CLASSES, type FormulaSettingsInput, type RevisionLine, type RevisionSummary } from '@/lib/formulas/schema';
 import { FACTOR_LABELS, FACTOR_LEVEL_BOUNDS, SET_TEST_METHODS, SYNERESIS_LEVELS, TRIAL_FACTORS, TRIAL_STATUSES, type TrialStatus } from './vocabulary';
 import { CENTRE_RUNS, DESIGN_KINDS, type FactorLevel } from './plan';
@@ -71,18 +71,20 @@ export const manualVariantSchema = z
 /** The readings of a cook, as one shape for recording and correcting. */
 const cookReadings = {
   cookDate: isoDate,
-  batchSizeG: opt(num('Batch size').positive('Batch size must be more than 0.').max(5_000_000)),
-  brixReading: opt(num('The refractometer reading').min(0, 'A Brix reading cannot be negative.').max(95, 'A Brix reading above 95 is not plausible.')),
+  batchSizeG: opt(num('Batch size').min(1, 'Batch size must be at least 1 g.').max(5_000_000)),
+  brixReading: opt(noTinyAmount(num('The refractometer reading').min(0, 'A Brix reading cannot be negative.').max(95, 'A Brix reading above 95 is not plausible.'), 'A Brix reading')),
   brixSampleTempC: opt(num('The sample temperature').min(0, 'Sample temperature must be at least 0 °C.').max(60, 'Sample temperature must be at most 60 °C.')),
-  ph: opt(num('pH').min(0, 'pH runs from 0 to 14.').max(14, 'pH runs from 0 to 14.')),
+  // pH meters read 0–14, but no fruit preserve is below pH 1 (lemon juice is about 2.0–2.6;
+  // values from memory, no published source cited): lower is a slip, or −0 or 1e-320 sent as a probe.
+  ph: opt(num('pH').min(1, 'A preserve’s pH below 1 is not plausible: check the reading.').max(14, 'pH runs from 0 to 14.')),
   endPointTempC: opt(num('The end-point temperature').min(60, 'An end point below 60 °C is not plausible.').max(130, 'An end point above 130 °C is not plausible.')),
-  boilTimeMin: opt(num('Boil time').min(0, 'Boil time cannot be negative.').max(600, 'Boil time must be at most 600 minutes.')),
+  boilTimeMin: opt(noTinyAmount(num('Boil time').min(0, 'Boil time cannot be negative.').max(600, 'Boil time must be at most 600 minutes.'), 'Boil time', ' minutes')),
   setTestScore: wholeNumber('The set-test score', 1, 5).nullable().optional(),
   setTestMethod: z.enum(SET_TEST_METHODS, { error: 'Use cold_plate, spoon or flake.' }).nullable().optional(),
   syneresis: z.enum(SYNERESIS_LEVELS, { error: 'Use none, slight or marked.' }).nullable().optional(),
   colourNotes: longText(500).nullable().optional(),
   yieldJars: wholeNumber('Jars', 0, 100_000).nullable().optional(),
-  yieldG: opt(num('Yield').min(0, 'Yield cannot be negative.').max(5_000_000)),
+  yieldG: opt(noTinyAmount(num('Yield').min(0, 'Yield cannot be negative.').max(5_000_000), 'Yield', ' g')),
   notes: longText(2000).nullable().optional(),
 };
 

@@ -113,6 +113,21 @@ describe('revisions', () => {
     expect(history.body.revisions[1].lines[1].quantity).toBe(850);
   });
 
+  it('a base revision that was never saved is a 422 naming baseRevision, with force too, and writes nothing (it was a 409 blaming a colleague)', async () => {
+    const input = await strawberryJamInput(a);
+    const created = await callRoute(formulasRoute.POST, { method: 'POST', path: '/api/v1/formulas', caller: dev(), body: input });
+    const formulaId = created.body.formulaId;
+    const path = `/api/v1/formulas/${formulaId}/revisions`;
+    const params = { formulaId };
+    for (const force of [false, true]) {
+      const res = await callRoute(revisionsRoute.POST, { method: 'POST', path, caller: dev(), params, body: { baseRevision: 99, force, settings: input.settings, lines: input.lines } });
+      expect(res.status).toBe(422);
+      expect(res.body.error.fields.baseRevision).toEqual(['This formula has no revision 99; its latest is revision 1.']);
+    }
+    const history = await callRoute(revisionsRoute.GET, { method: 'GET', path, caller: dev(), params });
+    expect(history.body.revisions.map((r: any) => r.number)).toEqual([1]);
+  });
+
   it('a revision keeps the ingredient values it was saved with, even after the library changes', async () => {
     const ids = await starterIds(a);
     const input = await strawberryJamInput(a);

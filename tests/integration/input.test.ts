@@ -23,7 +23,7 @@ beforeAll(async () => {
 /** Total rows in the tables a refused request could have written to. */
 async function rowCounts(): Promise<Record<string, number>> {
   const conn = (await getEm()).getConnection();
-  const tables = ['measurements', 'batch_records', 'formula_revisions', 'panel_seats', 'trials', 'users', 'formulas'];
+  const tables = ['measurements', 'batch_records', 'formula_revisions', 'panel_seats', 'trials', 'users', 'formulas', 'ingredients', 'ingredient_prices', 'packaging_items'];
   const rows = (await conn.execute(tables.map((t) => `select '${t}' as t, count(*)::int as n from "${t}"`).join(' union all '))) as Array<{ t: string; n: number }>;
   return Object.fromEntries(rows.map((r) => [r.t, r.n]));
 }
@@ -61,6 +61,21 @@ describe('NUL and control characters', () => {
 
   it('a bidi override in a cook note is refused', async () => {
     await refused('POST /api/v1/trials/[trialId]/cooks', (s) => (s.body.notes = 'fine\u202Eenif'));
+  });
+});
+
+describe('names that show nothing', () => {
+  // Each answered 201 and listed a blank row or option (user walk). Default-ignorable code points: Unicode §5.21.
+  it.each([
+    ['POST /api/v1/ingredients', 'name', 'Give the ingredient a name.'],
+    ['PATCH /api/v1/ingredients/[ingredientId]', 'name', 'Give the ingredient a name.'],
+    ['POST /api/v1/packaging-items', 'name', 'Give the packaging item a name.'],
+    ['POST /api/v1/formulas', 'name', 'Give the formula a name.'],
+    ['POST /api/v1/prices', 'supplier', 'This holds only invisible characters: type the text, or leave it empty.'],
+  ])('%s with a %s of zero-width characters is a 422 naming the field', async (route, field, message) => {
+    const res = await refused(route, (s) => (s.body[field] = '\u200B\u2060\uFEFF'));
+    expect(res.status).toBe(422);
+    expect(res.body.error.fields[field]).toEqual([message]);
   });
 });
 

@@ -17,6 +17,7 @@ import {
   costingData, costSettings, packagingPriceHistory, packagingPricesAsOf, packagingPricesAsOfDates, packFormatsByIds, priceHistory, pricesAsOf, pricesAsOfDates, refuseShares,
 } from '@/lib/pricing/queries';
 import { historiesBy, priceOn } from '@/lib/costing';
+import { createIngredient } from '@/lib/ingredients/mutations';
 import { addIngredientPrice, addPackagingPrice, createPackagingItem, createPackFormat, saveCostSettings, withdrawIngredientPrice } from '@/lib/pricing/mutations';
 
 let a: WorkspaceFixture;
@@ -238,6 +239,27 @@ describe('CSV re-import adds nothing already on record', () => {
     expect(both.map((r) => r.body.imported).sort()).toEqual([0, 2]);
     expect(both.map((r) => r.body.alreadyPresent).sort()).toEqual([0, 2]);
     expect(await points()).toBe(8);
+  });
+});
+
+describe('CSV export imports back unchanged', () => {
+  // User walk: a supplier "+…" came back as "'+…" (the export's formula guard, lib/csv.ts), so
+  // re-importing the export added a duplicate point although the page promises it would not.
+  it('names and suppliers starting with + = - @ lose only the export’s apostrophe, so a re-import adds nothing', async () => {
+    const w = await createWorkspace('Prices round trip');
+    await saveCostSettings(actorOf(w, 'admin'), { currency: 'EUR', overfillPct: 0, costWarningPct: 5 });
+    const { ingredientId } = await createIngredient(actorOf(w, 'admin'), { name: '+WalkA plus', kind: 'fruit', solidsPct: 12 });
+    for (const supplier of ['+Walk mill', '=Walk farm', '-Walk co-op', '@walk', null]) {
+      await addIngredientPrice(actorOf(w, 'developer'), { ingredientId, packPrice: '10.00', packSize: 5, packUnit: 'kg', supplier, validFrom: '2026-05-01' });
+    }
+    const caller = { kind: 'session' as const, person: w.people.admin };
+    const exported = await callRoute(exportRoute.GET, { method: 'GET', path: '', caller });
+    expect(exported.body).toContain("'+WalkA plus,2026-05-01,10.00,5000,g,'+Walk mill,EUR");
+    const again = await callRoute(importRoute.POST, { method: 'POST', path: '', caller, body: { csv: exported.body } });
+    expect(again.status, JSON.stringify(again.body)).toBe(201);
+    expect(again.body).toEqual({ imported: 0, alreadyPresent: 5 });
+    const suppliers = (await (await getEm()).fork().find(IngredientPrice, { workspace: w.workspaceId })).map((p) => p.supplier);
+    expect(suppliers.sort()).toEqual(['+Walk mill', '-Walk co-op', '=Walk farm', '@walk', null].sort());
   });
 });
 

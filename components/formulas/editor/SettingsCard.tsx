@@ -1,7 +1,7 @@
 'use client';
 
 import { PRESERVATION_LABELS, PRESERVATION_METHODS, type UnitPreference } from '@/lib/chemistry';
-import { PRODUCT_CLASS_LABELS, PRODUCT_CLASSES, RULE_SET_LABELS, RULE_SETS } from '@/lib/formulas/schema';
+import { PRODUCT_CLASS_LABELS, PRODUCT_CLASSES, RULE_DATE_MAX, RULE_DATE_MIN, RULE_SET_LABELS, RULE_SETS } from '@/lib/formulas/schema';
 import { isAmbiguousComma, unreadableNumberMessage } from '@/lib/format/numbers';
 import { altitudeScale, draftFromText, jarFillScale, temperatureScale, type DisplayScale, type MeasuredDraft, type TemperatureUnit } from '@/lib/format/quantities';
 import { Card } from '@/components/ui/Card';
@@ -64,19 +64,24 @@ export function SettingsCard({
   system,
   temperatureUnit,
   errors,
+  liveErrors = {},
   onChange,
 }: {
   settings: SettingsDraft;
   system: UnitPreference;
   temperatureUnit: TemperatureUnit;
-  /** Field errors by key (`settings.…`), from the shared schema or the server. */
+  /** Field errors by key (`settings.…`), from the shared schema at save or the server. */
   errors: Record<string, string[] | undefined>;
+  /** The shared schema's errors of the settings as typed (computeEditor), shown before any save. */
+  liveErrors?: Record<string, string[] | undefined>;
   /** A change to the settings; `errorKey` names the field whose error it clears. */
   onChange: (patch: Partial<SettingsDraft>, errorKey?: string) => void;
 }) {
   const scales: Record<SettingScale, DisplayScale> = { jarFill: jarFillScale(system), altitude: altitudeScale(system), boiling: temperatureScale(temperatureUnit) };
   const fieldErrors = (key: string, draft?: MeasuredDraft) => {
-    const list = [...(draft ? numberProblem(draft) : []), ...(errors[key] ?? [])];
+    // An unreadable number says so itself; the schema's "must be a number" would only repeat it.
+    const typed = draft ? numberProblem(draft) : [];
+    const list = [...new Set([...typed, ...(typed.length ? [] : (liveErrors[key] ?? [])), ...(errors[key] ?? [])])];
     return list.length ? list : undefined;
   };
   const updateSettings = onChange;
@@ -126,8 +131,10 @@ export function SettingsCard({
           id="setting-ruleDate"
           type="date"
           value={settings.ruleDate}
+          min={RULE_DATE_MIN}
+          max={RULE_DATE_MAX}
           onChange={(e) => updateSettings({ ruleDate: e.target.value }, 'settings.ruleDate')}
-          errors={errors['settings.ruleDate']}
+          errors={fieldErrors('settings.ruleDate')}
           hint="Selects the edition of the rules, e.g. the EU minimums that change on 14 June 2026."
         />
         {GRID_SETTINGS.map(numericField)}

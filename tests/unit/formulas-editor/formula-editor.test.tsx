@@ -123,6 +123,31 @@ describe('FormulaEditor: live results', () => {
     expect(screen.queryByTestId('result-finished-mass')).toBeNull();
   });
 
+  // The user walk: pH 9–14 and altitude 5,000–9,000 m gave live results ("Water boils at 69.7 °C")
+  // that saving then refused. The live results now apply the save schema (formulaSettingsSchema).
+  it.each([
+    ['Planned pH (optional)', '9', 'pH must be at most 8.'],
+    ['Planned pH (optional)', '14', 'pH must be at most 8.'],
+    ['Kitchen altitude (m)', '9000', 'Altitude must be at most 5000 m.'],
+    ['Rule date (production or labelling)', '1850-01-01', 'Use a year from 1900 to 2200.'],
+    ['Rule date (production or labelling)', '1950-01-01', 'Choose a rule date from 1 Jan 2000 to 31 Dec 2099.'],
+  ])('%s of %s: no live results, and the save’s message at the field', (label, value, message) => {
+    renderRevise();
+    type(label, value);
+    expect(screen.queryByTestId('result-finished-mass')).toBeNull();
+    expect(screen.queryByText(/Water boils at/)).toBeNull();
+    expect(screen.getByTestId('results-problem').textContent).toContain(message);
+    const input = screen.getByLabelText(label);
+    const described = (input.getAttribute('aria-describedby') ?? '').split(' ').filter(Boolean).map((id) => document.getElementById(id)?.textContent ?? '').join(' ');
+    expect(described).toContain(message);
+  });
+
+  it('the rule date input offers only days the save accepts', () => {
+    renderRevise();
+    const input = screen.getByLabelText('Rule date (production or labelling)');
+    expect([input.getAttribute('min'), input.getAttribute('max')]).toEqual(['2000-01-01', '2099-12-31']);
+  });
+
   it('shows the danger caution for a planned pH of 4.8', () => {
     renderRevise();
     type('Planned pH (optional)', '4.8');

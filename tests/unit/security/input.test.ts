@@ -11,6 +11,8 @@ import { describe, it, expect } from 'vitest';
 import { z } from 'zod';
 import {
   boundedNumber,
+  hasVisibleContent,
+  INVISIBLE_TEXT_MESSAGE,
   calendarDateProblem,
   email,
   INT32_MAX,
@@ -32,7 +34,10 @@ import { reviseFormulaSchema, formulaListQuerySchema } from '@/lib/formulas/sche
 import { joinSchema, createTastingSchema } from '@/lib/tastings/schema';
 import { requestResetSchema } from '@/lib/account/schema';
 import { inviteMemberSchema } from '@/lib/members/schema';
-import { ingredientListQuerySchema } from '@/lib/ingredients/schema';
+import { ingredientInputSchema, ingredientListQuerySchema } from '@/lib/ingredients/schema';
+import { costSettingsSchema, ingredientPriceSchema, packagingItemSchema, refuseBodySchema } from '@/lib/pricing/schema';
+import { createFormulaSchema, formulaLineSchema, formulaSettingsSchema } from '@/lib/formulas/schema';
+import { correctCookSchema } from '@/lib/trials/schema';
 import { findDocProblems } from '@/lib/notebook/document';
 import { parseCookCsv } from '@/lib/trials/csv';
 
@@ -96,6 +101,39 @@ describe('bidi overrides and isolates', () => {
   });
 });
 
+// Unicode Standard §5.21 and DerivedCoreProperties.txt (Default_Ignorable_Code_Point); §23.2 (Cf format characters).
+describe('text that shows nothing', () => {
+  const invisible = [
+    '\u200B', '\u200C', '\u200D', '\u200E', '\u200F', '\u2060', '\u2061', '\u2064', '\uFEFF', '\u180E', '\u00AD', '\u034F',
+    '\uFE0F', '\u{E0100}', '\u{E0041}\u{E007F}', '\u3164', '\u115F', '\u2800', '\u0301', '\uE000', ' \u200B\u00A0\u3000\u200B ',
+  ];
+  it.each(invisible)('refuses a name made only of %j, with the field’s own message', (value) => {
+    expect(hasVisibleContent(value)).toBe(false);
+    const r = name('Give it a name.').safeParse(value);
+    expect(r.error?.issues.map((i) => i.message)).toEqual(['Give it a name.']);
+  });
+  it('refuses it in optional text too, which may be left empty instead', () => {
+    const optional = text({ max: 40 });
+    expect(optional.safeParse('\u200B\u2060').error?.issues.map((i) => i.message)).toEqual([INVISIBLE_TEXT_MESSAGE]);
+    expect(optional.parse('')).toBe('');
+    expect(ok(text({ max: 40, multiline: true }), '\u200B\n\u200B')).toBe(false);
+  });
+  it('keeps invisible characters inside visible text (Persian ZWNJ, joined emoji, flags, Thai word breaks)', () => {
+    for (const value of ['می\u200Cخواهم', '👩\u200D🍳', '❤\uFE0F', '🏴\u{E0067}\u{E0062}\u{E0065}\u{E006E}\u{E0067}\u{E007F}', 'แยม\u200Bส้ม', 'A', '7', '%', '€']) {
+      expect(ok(name('Give it a name.'), value), value).toBe(true);
+    }
+  });
+  it('the feature schemas the walk found refuse a zero-width name or supplier', () => {
+    const named = (schema: z.ZodType, body: object, field: string) => schema.safeParse(body).error?.issues.find((i) => i.path[0] === field)?.message;
+    expect(named(ingredientInputSchema, { name: '\u200B', kind: 'fruit', solidsPct: 10 }, 'name')).toBe('Give the ingredient a name.');
+    expect(named(packagingItemSchema, { name: '\uFEFF\u200D', kind: 'jar' }, 'name')).toBe('Give the packaging item a name.');
+    expect(named(createFormulaSchema, { name: '\u200B' }, 'name')).toBe('Give the formula a name.');
+    const price = { ingredientId: '6f1c0b9e-8a47-4d7e-9a59-3c1f2a7b9e10', packPrice: '24.50', packSize: 25, packUnit: 'kg', validFrom: '2026-06-01' };
+    expect(named(ingredientPriceSchema, { ...price, supplier: '\u200B' }, 'supplier')).toBe(INVISIBLE_TEXT_MESSAGE);
+    expect(ok(ingredientPriceSchema, { ...price, supplier: 'Ferme du Clos' })).toBe(true);
+  });
+});
+
 describe('impossible calendar dates', () => {
   it.each(['2026-02-30', '2026-04-31', '2025-02-29', '1900-02-29', '0000-01-01', '2026-13-01', '2026-00-10', '2026-06-00', '1899-12-31', '2201-01-01', '2026-6-14', '14/06/2026', '2026-06-14T00:00:00Z'])(
     'refuses %s',
@@ -149,6 +187,42 @@ describe('tiny and huge floats', () => {
     expect(ok(batchSheetQuerySchema, { target: 'jar_count', amount: '12.5' })).toBe(false);
     expect(ok(batchSheetQuerySchema, { target: 'jar_count', amount: '12' })).toBe(true);
     expect(ok(batchSheetQuerySchema, { amount: '0x10' })).toBe(false);
+  });
+});
+
+// Each was accepted by the user walk and printed nonsense ("Jars filled — × 0.0 g", "Serving size
+// 1 container (0g)", "2.628e-320 kcal"). 1e-320 is a subnormal double (IEEE 754-2019 §3.4).
+describe('tiny non-zero amounts and −0', () => {
+  const issue = (schema: z.ZodType, value: unknown, field: string) => schema.safeParse(value).error?.issues.find((i) => i.path.includes(field))?.message;
+  const settings = { productClass: 'jam', ruleSet: 'eu', ruleDate: '2026-01-01', targetSolidsPct: 65, jarNetFillG: 340 };
+  const line = { ingredientId: '6f1c0b9e-8a47-4d7e-9a59-3c1f2a7b9e10', quantity: 500, unit: 'g' };
+  it('a jar fill is at least 1 g, as a pack format’s', () => {
+    expect(issue(formulaSettingsSchema, { ...settings, jarNetFillG: 1e-320 }, 'jarNetFillG')).toBe('Jar fill must be at least 1 g.');
+    expect(issue(formulaSettingsSchema, { ...settings, jarNetFillG: 0.5 }, 'jarNetFillG')).toBe('Jar fill must be at least 1 g.');
+    expect(ok(formulaSettingsSchema, { ...settings, jarNetFillG: 1 })).toBe(true);
+  });
+  it('a line quantity is at least 0.001', () => {
+    expect(issue(formulaLineSchema, { ...line, quantity: 1e-320 }, 'quantity')).toBe('Quantity must be at least 0.001.');
+    expect(ok(formulaLineSchema, { ...line, quantity: 0.001 })).toBe(true);
+  });
+  it('a cook’s pH below 1 (−0, 1e-320) and a batch below 1 g are refused; a lemony pH 2.1 is kept', () => {
+    const reason = 'Typed again.';
+    for (const ph of [1e-320, -0, 0, 0.5]) expect(issue(correctCookSchema, { ph, reason }, 'ph')).toBe('A preserve’s pH below 1 is not plausible: check the reading.');
+    expect(ok(correctCookSchema, { ph: 2.1, reason })).toBe(true);
+    expect(issue(correctCookSchema, { batchSizeG: 1e-320, reason }, 'batchSizeG')).toBe('Batch size must be at least 1 g.');
+    expect(issue(correctCookSchema, { yieldG: 1e-320, reason }, 'yieldG')).toBe('Yield must be 0 or at least 0.001 g.');
+    expect(ok(correctCookSchema, { yieldG: 0, reason })).toBe(true);
+  });
+  it('where 0 is meaningful it stays (water’s solids, no refuse, no overfill) and −0 becomes 0; 1e-320 is refused', () => {
+    const water = { name: 'Water', kind: 'water', solidsPct: 0 };
+    expect(issue(ingredientInputSchema, { ...water, solidsPct: 1e-320 }, 'solidsPct')).toBe('Soluble solids must be 0 or at least 0.001 %.');
+    expect(issue(ingredientInputSchema, { ...water, phMin: 1e-320 }, 'phMin')).toBe('pH must be 0 or at least 0.001.');
+    expect(Object.is(ingredientInputSchema.parse({ ...water, solidsPct: -0, phMin: -0 }).solidsPct, 0)).toBe(true);
+    expect(Object.is(ingredientInputSchema.parse({ ...water, phMin: -0 }).phMin, 0)).toBe(true);
+    expect(issue(refuseBodySchema, { refusePct: 1e-320 }, 'refusePct')).toBe('The refuse/trim share must be 0 or at least 0.001 %.');
+    expect(ok(refuseBodySchema, { refusePct: 0 })).toBe(true);
+    expect(issue(costSettingsSchema, { currency: 'GBP', overfillPct: 1e-320, costWarningPct: 5 }, 'overfillPct')).toBe('The overfill must be 0 or at least 0.001 %.');
+    expect(Object.is(costSettingsSchema.parse({ currency: 'GBP', overfillPct: -0, costWarningPct: 5 }).overfillPct, 0)).toBe(true);
   });
 });
 
