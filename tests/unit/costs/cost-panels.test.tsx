@@ -151,7 +151,7 @@ describe('a cost per jar for another jar than the formula’s', () => {
   it('the product’s versions and a batch say it too', () => {
     render(<ProductCostCard costs={{ currency: 'GBP', asOf: '2026-06-01', warningPct: 5, versions: [{ versionId: 'v1', version: 1, status: 'current', approvedAt: '2026-05-01', atApproval: null, today: { ok: true, cost: for250 }, movedPct: null, warn: false }] }} />);
     expect(screen.getByTestId('product-cost-fill').textContent).toContain('v1: The pack format fills 340 g jars, but the formula’s jar net fill is 250 g');
-    render(<BatchCostCard cost={{ currency: 'GBP', planned: { ok: true, cost: for250 }, actualPerJar: null }} goodJars={10} />);
+    render(<BatchCostCard cost={{ currency: 'GBP', planned: { ok: true, cost: for250 }, actualPerJar: null, goodJars: 10 }} writtenOff={null} />);
     expect(screen.getByTestId('batch-cost-fill').textContent).toContain('This batch: The pack format fills 340 g jars');
   });
 });
