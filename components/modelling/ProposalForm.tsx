@@ -1,5 +1,6 @@
 'use client';
 
+import { formatDate } from '@/lib/format/dates';
 import { useMemo, useState } from 'react';
 import { useRouter } from 'next/navigation';
 import { Button } from '@/components/ui/Button';
@@ -170,7 +171,7 @@ export function ProposalForm({ model, base, formulaId, formulaName, fruitMinimum
             <div className="rounded-lg bg-white p-3 ring-1 ring-pith-300">
               <NumberBox id="cost-ceiling" label={`Cost ceiling per jar${currency ? ` (${currency})` : ''}, optional`} value={draft.costCeiling} onChange={(v) => setDraft((d) => ({ ...d, costCeiling: v }))} error={!!errors.costCeiling} />
               <p className="mt-1 text-xs text-rind-500">
-                {costProblem ?? `Ingredients and packaging of ${costing.prices.packFormat?.name ?? ''} at the prices of ${costing.prices.asOf}, as the formula’s cost panel shows them.`}
+                {costProblem ?? `Ingredients and packaging of ${costing.prices.packFormat?.name ?? ''} at the prices of ${formatDate(costing.prices.asOf)}, as the formula’s cost panel shows them.`}
               </p>
               {fillMismatch ? <p className="mt-1 text-xs text-amberline-700" data-testid="proposal-cost-fill">{fillMismatchText(fillMismatch)}</p> : null}
               <ErrorText id="cost-ceiling-error" message={errors.costCeiling} />

@@ -199,7 +199,7 @@ export function blockedAnova(
 
   if (b < 2) warnings.push('Only one assessor: there is no block effect to remove.');
   const incompleteNote =
-    'Incomplete data: not every assessor scored every sample. Sums of squares are adjusted (least squares, each effect fitted after the other); means are adjusted for assessors.';
+    'Incomplete data: not every assessor scored every sample. Sums of squares are adjusted (least squares, each effect fitted after the other), and the test compares means adjusted for assessors, which can differ from the raw means.';
   if (incomplete) warnings.push(incompleteNote);
 
   let treatmentsSS: number;

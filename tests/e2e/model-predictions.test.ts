@@ -139,7 +139,7 @@ describe.each(WINDOWS)('the cost ceiling on the Propose screen (%s)', (size, vie
     const ceilingBox = page.locator('#cost-ceiling');
     expect(await page.getByText('Cost ceiling per jar (GBP), optional').count()).toBe(1);
     // The formula has a pack format and every price: the field names what the cost is of.
-    await page.getByText(/Ingredients and packaging of 340 g jar, case of 12 at the prices of \d{4}-\d{2}-\d{2}/).waitFor();
+    await page.getByText(/Ingredients and packaging of 340 g jar, case of 12 at the prices of \d{1,2} [A-Z][a-z]{2} \d{4},/).waitFor();
     await walk.stop('propose-with-ceiling-field');
 
     // First without a ceiling: the best proposal's own cost per jar.
