@@ -66,7 +66,7 @@ export default async function VariantPage({ params }: { params: Promise<{ trialI
           ) : (
             <section aria-labelledby="diff-title">
               <h3 id="diff-title" className="mb-2 text-lg font-semibold">Difference from the base (A)</h3>
-              <RevisionDiff before={asRevision(base, trialId)} after={asRevision(variant, trialId)} massUnits={actor.massUnits} temperatureUnit={actor.temperatureUnit} title={`Variant A → variant ${variant.label}`} />
+              <RevisionDiff before={asRevision(base, trialId)} after={asRevision(variant, trialId)} massUnits={actor.massUnits} temperatureUnit={actor.temperatureUnit} title={`Variant ${base.label} → variant ${variant.label}`} sideLabels={{ before: `variant ${base.label}`, after: `variant ${variant.label}` }} />
             </section>
           )}
           <section aria-labelledby="cooks-title">
