@@ -37,21 +37,21 @@ export function BatchSheetView({ sheet, paper, massUnits, temperatures, supersed
         <h2 className="mb-1 text-lg font-semibold">Ingredients</h2>
         <TableBox label="Ingredients to weigh" framed={false}>
           <table className="w-full" data-testid="sheet-ingredients">
-            <thead><tr className="border-b border-rind-500 text-left"><th className="w-8 py-1">✓</th><th className="py-1">Ingredient</th><th className="py-1 text-right">Weigh out</th><th className="py-1 pl-3 text-left">Scale step</th><th className="py-1 text-right text-rind-500">Exact</th><th className="py-1 pl-4">Weighed (actual)</th></tr></thead>
+            <thead><tr className="border-b border-rind-500 text-left"><th className="w-8 py-1">✓</th><th className="py-1">Ingredient</th><th className="whitespace-nowrap py-1 text-right">Weigh out</th><th className="py-1 pl-3 text-left">Scale step</th><th className="py-1 text-right text-rind-500">Exact</th><th className="py-1 pl-4">Weighed (actual)</th></tr></thead>
             <tbody>
               {s.lines.map((l) => (
                 <tr key={l.index} className="border-b border-pith-300">
                   <td className="py-1.5"><span className={box} aria-hidden /></td>
                   <td className="py-1.5">{l.name}</td>
-                  <td className="py-1.5 text-right font-semibold tabular-nums">{rounded(l.roundedG, stepDecimals(l.stepInResolutionUnit))}</td>
+                  <td className="whitespace-nowrap py-1.5 text-right font-semibold tabular-nums">{rounded(l.roundedG, stepDecimals(l.stepInResolutionUnit))}</td>
                   <td className={`py-1.5 pl-3 tabular-nums ${l.finerStep ? 'font-semibold' : 'text-rind-500'}`} data-testid="line-step">
                     {l.stepInResolutionUnit.toFixed(stepDecimals(l.stepInResolutionUnit))} {unit}{l.finerStep ? ', finer scale' : ''}
                   </td>
-                  <td className="py-1.5 text-right tabular-nums text-rind-500">{exact(l.exactG, stepDecimals(l.stepInResolutionUnit))}</td>
+                  <td className="whitespace-nowrap py-1.5 text-right tabular-nums text-rind-500">{exact(l.exactG, stepDecimals(l.stepInResolutionUnit))}</td>
                   <td className="py-1.5 pl-4"><span className="inline-block w-28 border-b border-rind-400">&nbsp;</span></td>
                 </tr>
               ))}
-              <tr className="font-medium"><td /><td className="py-1.5">Kettle charge</td><td className="py-1.5 text-right tabular-nums">{rounded(s.rounded.totalChargeG, Math.max(decimals, ...s.lines.map((l) => stepDecimals(l.stepInResolutionUnit))))}</td><td /><td className="py-1.5 text-right tabular-nums text-rind-500">{exact(s.exact.totalChargeG)}</td><td /></tr>
+              <tr className="font-medium"><td /><td className="py-1.5">Kettle charge</td><td className="whitespace-nowrap py-1.5 text-right tabular-nums">{rounded(s.rounded.totalChargeG, Math.max(decimals, ...s.lines.map((l) => stepDecimals(l.stepInResolutionUnit))))}</td><td /><td className="whitespace-nowrap py-1.5 text-right tabular-nums text-rind-500">{exact(s.exact.totalChargeG)}</td><td /></tr>
             </tbody>
           </table>
         </TableBox>
