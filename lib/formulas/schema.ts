@@ -2,6 +2,7 @@
 import { z } from 'zod';
 import type { BatchComputation, IngredientComposition } from '@/lib/chemistry';
 import { PRESERVATION_METHODS } from '@/lib/chemistry/guidance';
+import { toGrams } from '@/lib/chemistry/units';
 import { ingredientInputSchema } from '@/lib/ingredients/schema';
 import { calendarDateProblem, isoDate, longText, name, noTinyAmount, searchText, SMALLEST_AMOUNT, versionNumber } from '@/lib/input';
 
@@ -53,13 +54,26 @@ export const formulaSettingsSchema = z
   })
   .strict();
 
+/** The most one formula line may hold: 10 t, or ten times the fruit. */
+export const MAX_LINE_G = 10_000_000;
+export const MAX_PCT_OF_FRUIT = 1000;
+
 export const formulaLineSchema = z
   .object({
     ingredientId: z.uuid('Choose an ingredient from the library.'),
     quantity: z.number({ error: 'Quantity must be a number.' }).min(SMALLEST_AMOUNT, `Quantity must be at least ${SMALLEST_AMOUNT}.`).max(10_000_000, 'Quantity is implausibly large.'),
     unit: z.enum(LINE_UNITS, { error: 'Use g, kg, lb, oz or % of fruit.' }),
   })
-  .strict();
+  .strict()
+  .superRefine((line, ctx) => {
+    // The bound holds in grams whatever the unit (10,000,000 kg got through a bound on the number alone),
+    // and a share of the fruit stays within ten times the fruit. Generous: common practice, no published source.
+    if (line.unit === 'pct_fruit') {
+      if (line.quantity > MAX_PCT_OF_FRUIT) ctx.addIssue({ code: 'custom', path: ['quantity'], message: `More than ${MAX_PCT_OF_FRUIT} % of the fruit (ten times its mass) is not plausible for one line.` });
+    } else if (toGrams(line.quantity, line.unit) > MAX_LINE_G) {
+      ctx.addIssue({ code: 'custom', path: ['quantity'], message: 'More than 10 t in one line is not plausible for a batch.' });
+    }
+  });
 
 const linesSchema = z.array(formulaLineSchema).min(1, 'Add at least one line.').max(60, 'A formula has at most 60 lines.');
 const nameSchema = name('Give the formula a name.');
