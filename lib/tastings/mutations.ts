@@ -13,7 +13,7 @@ import { sendMail, escapeHtml } from '@/lib/mail';
 import { env } from '@/lib/env';
 import { createDefaultAttributeLibrary, HEDONIC_9_POINT, makeIntensityLine, makeJustAboutRightScale, drawBlindingCodes, servingOrderForSeat, shuffled, treatmentLetter, TRIANGLE_ORDERS } from '@/lib/sensory';
 import type { CreateAttributeInput, CreateTastingInput } from './schema';
-import type { ServedCup } from './vocabulary';
+import { titleBlindingProblem, type ServedCup } from './vocabulary';
 
 export const SEAT_TOKEN_PREFIX = 'sws_';
 /** Letters and digits that cannot be misread for each other (no 0/O, 1/I/L). */
@@ -33,6 +33,10 @@ export async function addDefaultAttributes(em: EntityManager, workspaceId: strin
 async function checkTastingInput(em: EntityManager, actor: Actor, trialId: string, input: CreateTastingInput): Promise<void> {
   const variants = await em.find(Variant, { ...inWorkspace(actor), trial: trialId, id: { $in: input.variantIds }, removedAt: null });
   if (variants.length !== input.variantIds.length) throw new ValidationFailed('Choose variants of this trial.', { variantIds: ['Choose variants of this trial.'] });
+  const trial = await em.findOneOrFail(Trial, { ...inWorkspace(actor), id: trialId }, { populate: ['baseFormula'] });
+  const labels = (await em.find(Variant, { ...inWorkspace(actor), trial: trialId }, { fields: ['label'] })).map((v) => v.label);
+  const leak = titleBlindingProblem(input.title, { variantLabels: labels, formulaName: trial.baseFormula.name });
+  if (leak) throw new ValidationFailed(leak, { title: [leak] });
   const attributeIds = [...input.attributeIds, ...(input.rankingAttributeId ? [input.rankingAttributeId] : [])];
   if (attributeIds.length) {
     const found = await em.count(SensoryAttributeDef, { ...inWorkspace(actor), id: { $in: attributeIds } });

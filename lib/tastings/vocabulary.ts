@@ -24,3 +24,16 @@ export interface ServedCup {
   code: string;
   sampleId: string;
 }
+
+/**
+ * PURE. Why a tasting's title would unblind it, or null. Tasters see the title, so it must not name a
+ * variant of the trial ("Variant J vs Q") or the recipe being tried (the base formula's name).
+ */
+export function titleBlindingProblem(title: string, trial: { variantLabels: readonly string[]; formulaName: string }): string | null {
+  const named = [...title.matchAll(/\bvariants?\s+([A-Z]{1,2})\b/gi)].map((m) => m[1].toUpperCase()).filter((l) => trial.variantLabels.includes(l));
+  if (named.length) return `Tasters see the title: leave out the variant names (“Variant ${named[0]}”) so the tasting stays blind.`;
+  const recipe = trial.formulaName.trim().toLowerCase();
+  // A short, generic name ("Jam") says nothing a taster cannot taste; a full recipe name may name the treatment.
+  if (recipe.length >= 8 && title.toLowerCase().includes(recipe)) return `Tasters see the title: leave out the recipe’s name (“${trial.formulaName.trim()}”) so the tasting stays blind.`;
+  return null;
+}
