@@ -31,10 +31,19 @@ export function readCsv(text: string): Papa.ParseResult<Record<string, string>> 
   });
 }
 
+/**
+ * A number as a spreadsheet should read it: 12 significant digits, so binary noise such as
+ * 6.199999999999999 goes out as 6.2 while every digit a measurement or a statistic carries stays.
+ */
+export function csvNumber(value: number): number {
+  return Number.isFinite(value) ? Number(value.toPrecision(12)) + 0 : value;
+}
+
 export function toCsv<T>(rows: T[], columns: Array<{ header: string; value: (row: T) => unknown }>): string {
+  const cell = (v: unknown) => (typeof v === 'number' ? csvNumber(v) : defuse(v ?? ''));
   return Papa.unparse({
     fields: columns.map((c) => c.header),
-    data: rows.map((r) => columns.map((c) => defuse(c.value(r) ?? ''))),
+    data: rows.map((r) => columns.map((c) => cell(c.value(r)))),
   });
 }
 

@@ -6,7 +6,7 @@
  */
 import { describe, expect, it } from 'vitest';
 import fc from 'fast-check';
-import { defuse, readCsv, toCsv, undefuse } from '@/lib/csv';
+import { csvNumber, defuse, readCsv, toCsv, undefuse } from '@/lib/csv';
 import { ingredientsToCsv, parseIngredientCsv } from '@/lib/ingredients/csv';
 import { parseCookCsv } from '@/lib/trials/csv';
 import { parsePriceCsv } from '@/lib/pricing/csv';
@@ -63,5 +63,17 @@ describe('price CSV rows are numbered as a spreadsheet shows them (the header is
     const good = 'sucrose,2026-08-01,31.00,25,kg,Mill\n';
     expect(parsePriceCsv(header + good + good + 'sucrose,2026-08-03,31.00,25,kg,\uD800\n', names, 'EUR').errors).toEqual([expect.objectContaining({ row: 4, column: 'supplier' })]);
     expect(parsePriceCsv('ingredient\u202E,valid_from,pack_price,pack_size,pack_unit\n' + good, names, 'EUR').errors).toEqual(expect.arrayContaining([expect.objectContaining({ row: 1 })]));
+  });
+});
+
+describe('numbers in CSV', () => {
+  // A walk found 6.199999999999999 and 1233.3333333333335 in the tasting CSVs: binary noise, not data.
+  it('go out with 12 significant digits: noise gone, measured digits kept', () => {
+    expect(csvNumber(6.199999999999999)).toBe(6.2);
+    expect(csvNumber(1233.3333333333335)).toBe(1233.33333333);
+    expect(csvNumber(101.19985457281106)).toBe(101.199854573);
+    expect(csvNumber(-0)).toBe(0);
+    expect(csvNumber(65.25)).toBe(65.25);
+    expect(toCsv([{ x: 0.1 + 0.2 }], [{ header: 'x', value: (r) => r.x }])).toBe('x\r\n0.3');
   });
 });
