@@ -17,6 +17,8 @@ import { formatDate } from '@/lib/format/dates';
 import { promotionLabelComparison } from '@/lib/label/queries';
 import { LabelChanges } from '@/components/label/LabelChanges';
 import { LabReadings } from '@/components/production/LabReadings';
+import { OVERALL_STATUS_LABELS } from '@/components/formulas/editor/ComplianceTable';
+import type { OverallComplianceStatus } from '@/lib/chemistry';
 import { sentence } from '@/lib/format/words';
 
 export const dynamic = 'force-dynamic';
@@ -69,7 +71,7 @@ export default async function PromotionRequestPage({ params }: { params: Promise
             </Card>
           ) : null}
           <Card title="Compliance and predicted chemistry">
-            <p className="text-sm"><strong>{e.compliance.edition}:</strong> {e.compliance.overall.replace('_', ' ')}</p>
+            <p className="text-sm"><strong>{e.compliance.edition}:</strong> {OVERALL_STATUS_LABELS[e.compliance.overall as OverallComplianceStatus] ?? e.compliance.overall}</p>
             {e.compliance.failing.length ? <ul className="mt-1 list-disc pl-5 text-sm text-ember-700">{e.compliance.failing.map((f) => <li key={f}>{f}</li>)}</ul> : null}
             <p className="mt-2 text-sm text-rind-600">Target {e.predicted.targetSolidsPct.toFixed(1)} % solids, planned pH {n(e.predicted.plannedPh, 2)}, predicted end point {predictedEndPointText(e.predicted, (c) => formatTemperature(c, temps))}, about {formatMass(e.predicted.finishedMassG, units)} per batch, estimated aw {e.predicted.aw.toFixed(3)}.</p>
             {e.cautions.filter((c) => c.severity !== 'info').length ? (
