@@ -7,7 +7,6 @@ import 'server-only';
 import { cache } from 'react';
 import type { NextAuthOptions } from 'next-auth';
 import Credentials from 'next-auth/providers/credentials';
-import { decode } from 'next-auth/jwt';
 import { z } from 'zod';
 import { getEm } from '@/lib/db';
 import { sql } from '@/lib/sql';
@@ -15,6 +14,7 @@ import { env } from '@/lib/env';
 import { Membership, User, ApiToken } from '@/entities';
 import { verifyPassword } from '@/lib/passwords';
 import { hashSecret } from '@/lib/secrets';
+import { decodeSessionToken } from '@/lib/session-token';
 import { clientAddress } from '@/lib/client-address';
 import { consumeSignInAttempt, signInSucceeded, RateLimited } from '@/lib/rate-limit';
 import { tooManyAttemptsCode, type SignInErrorCode } from '@/lib/sign-in-errors';
@@ -132,8 +132,8 @@ async function sessionFromCookies(cookieHeader: string | null | undefined): Prom
     const raw = readCookie(cookieHeader, name);
     if (!raw) continue;
     try {
-      const token = await decode({ token: raw, secret });
-      if (token?.sub) return { userId: token.sub, epoch: typeof token.epoch === 'number' ? token.epoch : 0 };
+      const token = await decodeSessionToken(raw, secret);
+      if (token.sub) return { userId: token.sub, epoch: typeof token.epoch === 'number' ? token.epoch : 0 };
     } catch {
       return null;
     }
