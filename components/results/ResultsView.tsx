@@ -6,8 +6,9 @@ import { SCALE_RANGES, groupByScale } from '@/lib/results/chart-data';
 import { Notice } from '@/components/ui/Notice';
 import { MeansChart, JarChart, CountChart, ProfileChart, PenaltyChart } from './Charts';
 import { DataTable, CELL, HEAD, NUM, NUM_TH, TH } from './DataTable';
+import { ANOVA_SOURCE_WORDS, PENALTY_GROUP_WORDS } from '@/lib/results/schema';
 
-const GROUP_LABELS = { tooLittle: 'Too little', justAboutRight: 'Just about right', tooMuch: 'Too much' } as const;
+const GROUP_LABELS = PENALTY_GROUP_WORDS;
 
 /** One penalty table: a row per group of one sample (or of all samples pooled). */
 function PenaltyRows({ sample, result }: { sample: string; result: PenaltyAnalysisResult }) {
@@ -43,7 +44,7 @@ function PenaltyTable({ caption, rows, testId }: { caption: string; rows: Array<
   );
 }
 
-const SOURCE_LABEL = { treatments: 'Samples', blocks: 'Assessors', error: 'Error', total: 'Total' } as const;
+const SOURCE_LABEL = ANOVA_SOURCE_WORDS;
 const n2 = (x: number | null | undefined, d = 2) => (x === null || x === undefined || !Number.isFinite(x) ? '—' : x.toFixed(d));
 
 function VerdictBox({ verdict }: { verdict: { headline: string; differs: boolean | null; cautions: string[] } }) {
@@ -93,17 +94,18 @@ export function ResultsView({ analysis, pooledPenalty }: { analysis: TastingAnal
             <div className="mt-4 grid gap-6 lg:grid-cols-2">
               <DataTable testId="summary-table">
                 <thead className={HEAD}>
-                  <tr><th scope="col" className={TH}>Sample</th><th scope="col" className={NUM_TH}>n</th><th scope="col" className={NUM_TH}>Mean</th><th scope="col" className={NUM_TH}>95 % CI</th><th scope="col" className={NUM_TH}>SD</th><th scope="col" className={TH}>Group</th></tr>
+                  <tr><th scope="col" className={TH}>Sample</th><th scope="col" className={TH}>Group</th><th scope="col" className={NUM_TH}>n</th><th scope="col" className={NUM_TH}>Mean</th><th scope="col" className={NUM_TH}>95 % CI</th><th scope="col" className={NUM_TH}>SD</th></tr>
                 </thead>
                 <tbody className="divide-y divide-pith-200">
                   {a.descriptive.map((d) => (
                     <tr key={d.label}>
                       <th scope="row" className={`${CELL} text-left`}>{d.label}</th>
+                      {/* The group letters beside the sample: on a phone the table scrolls, and they are what a reader needs first. */}
+                      <td className={`${CELL} font-mono`}>{a.comparison.letters[d.label] ?? '—'}</td>
                       <td className={NUM}>{d.n}</td>
                       <td className={NUM}>{n2(d.mean)}</td>
                       <td className={`${NUM} whitespace-nowrap`}>{d.confidenceInterval ? `${n2(d.confidenceInterval.lower)} – ${n2(d.confidenceInterval.upper)}` : '—'}</td>
                       <td className={NUM}>{n2(d.standardDeviation)}</td>
-                      <td className={`${CELL} font-mono`}>{a.comparison.letters[d.label] ?? '—'}</td>
                     </tr>
                   ))}
                 </tbody>

@@ -81,6 +81,11 @@ export function LineScaleInput({ code, attribute, value, onChange }: ScaleInputP
           // A tap on the untouched thumb fires no change event, yet it is a mark.
           if (value === undefined) onChange(snapToStep(Number(e.currentTarget.value), scale));
         }}
+        onPointerUp={(e) => {
+          // A finger's tap at the middle (where the hidden thumb sits) fires neither a change nor a
+          // click in Chromium: the lifted pointer is the mark. A scroll cancels the pointer, so it marks nothing.
+          if (value === undefined) onChange(snapToStep(Number(e.currentTarget.value), scale));
+        }}
         onKeyDown={(e) => {
           const next = lineValueAfterKey(value, e.key, scale);
           if (next === null) return;

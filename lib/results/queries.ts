@@ -1,14 +1,13 @@
 import 'server-only';
 /** Loads a session's answers for analysis and export. Staff only: this is where samples are unblinded. */
 import { getEm } from '@/lib/db';
-import { TastingSeat } from '@/entities';
 import type { Actor } from '@/lib/permissions';
 import { loadTastingRows, tastingView } from '@/lib/tastings/queries';
 import type { TastingRows, TastingView } from '@/lib/tastings/schema';
 import { toCsv } from '@/lib/csv';
 import { summaryTablesOf, type AnalysisOptions, type TastingAnalysis, type TastingData, type TastingDataAttribute } from './analysis';
 import { analyseRemembered } from './analysis-memo';
-import type { AnswerRead, AnswerRow, ResultsSetup, SummaryTable } from './schema';
+import { ANOVA_SOURCE_WORDS, PENALTY_GROUP_WORDS, type AnswerRead, type AnswerRow, type ResultsSetup, type SummaryTable } from './schema';
 
 
 /**
@@ -109,21 +108,51 @@ export function readAnswers(actor: Actor, tastingId: string): AnswerRead {
   return read;
 }
 
-/** Raw answers, one row per answer: session, seat, code, variant, attribute, value. */
+/** One answer as the raw export reads it: the triangle's chosen cup and when the answer was given besides. */
+type ExportedAnswerRow = {
+  seat_id: string; kind: AnswerRow['kind']; attribute: string; sample_id: string | null; value: number | null;
+  ranking: string[] | null; odd_code: string | null; correct: boolean | null; updated_at: Date | string;
+};
+
+const yesNo = (x: boolean | null) => (x === null ? '' : x ? 'yes' : 'no');
+
+/**
+ * Raw answers, one row per answer, in long format: the seat (submitted or partial, and when it was
+ * submitted), the blind code and its variant (for a triangle, the cup chosen as the odd one), the
+ * attribute, the value, whether a triangle choice was correct, and when the answer was last given.
+ * Words, not keys: seat_status is "submitted" or "partial"; correct is "yes"/"no"; times are ISO 8601 (UTC).
+ */
 export async function answersCsv(actor: Actor, tastingId: string): Promise<string> {
-  const { data, session } = await loadTastingData(actor, tastingId);
+  // The tasting's rows first: another workspace's or a missing tasting is a 404 here.
+  const rows = await loadTastingRows(actor, tastingId);
   const em = await getEm();
-  const seats = await em.find(TastingSeat, { session: tastingId });
-  const codeOf = new Map(seats.flatMap((x) => x.servingOrder.map((c) => [`${x.seatIndex}|${c.sampleId}`, c.code] as const)));
-  const label = new Map(data.samples.map((x) => [x.sampleId, x.label]));
-  const attrName = new Map(data.attributes.map((a) => [a.id, a.name]));
-  return toCsv(data.answers, [
-    { header: 'session', value: () => session.title },
-    { header: 'seat', value: (a) => a.seatIndex + 1 },
-    { header: 'code', value: (a) => (a.sampleId ? codeOf.get(`${a.seatIndex}|${a.sampleId}`) : '') },
-    { header: 'variant', value: (a) => (a.sampleId ? label.get(a.sampleId) : '') },
-    { header: 'attribute', value: (a) => (a.kind === 'rating' ? attrName.get(a.attribute) : a.kind) },
-    { header: 'value', value: (a) => (a.kind === 'rating' ? a.value : a.kind === 'ranking' ? (a.rankingSampleIds ?? []).map((id) => label.get(id) ?? id).join('>') : a.correct ? 'correct' : 'wrong') },
+  const answers = await em.execute<ExportedAnswerRow[]>(
+    'select seat_id, kind, attribute, sample_id, value, ranking, odd_code, correct, updated_at from panel_answers where workspace_id = ? and session_id = ? order by created_at, id',
+    [actor.workspaceId, tastingId],
+  );
+  const seats = new Map(rows.seats.map((x) => [x.id, x]));
+  const label = new Map(rows.samples.map((x) => [x.id, x.variantLabel]));
+  const attrName = new Map(rows.attrs.map((a) => [a.id, a.name]));
+  const sampleOfCode = (seatId: string, code: string) => seats.get(seatId)?.servingOrder.find((c) => c.code === code)?.sampleId;
+  const codeOfSample = (seatId: string, sampleId: string) => seats.get(seatId)?.servingOrder.find((c) => c.sampleId === sampleId)?.code;
+  const code = (a: ExportedAnswerRow) => (a.kind === 'rating' && a.sample_id ? codeOfSample(a.seat_id, a.sample_id) : a.kind === 'triangle' ? a.odd_code : null);
+  const sampleOf = (a: ExportedAnswerRow) => (a.kind === 'rating' ? a.sample_id : a.kind === 'triangle' && a.odd_code ? sampleOfCode(a.seat_id, a.odd_code) : null);
+  const attribute = (a: ExportedAnswerRow) =>
+    a.kind === 'rating' ? attrName.get(a.attribute) : a.kind === 'ranking' ? (a.attribute === '*' ? 'preference' : attrName.get(a.attribute)) : 'odd sample';
+  const value = (a: ExportedAnswerRow) =>
+    a.kind === 'rating' ? a.value : a.kind === 'ranking' ? (a.ranking ?? []).map((c) => label.get(sampleOfCode(a.seat_id, c) ?? '') ?? c).join('>') : '';
+  const ordered = [...answers].sort((x, y) => (seats.get(x.seat_id)?.seatIndex ?? -1) - (seats.get(y.seat_id)?.seatIndex ?? -1));
+  return toCsv(ordered, [
+    { header: 'session', value: () => rows.s.title },
+    { header: 'seat', value: (a) => (seats.get(a.seat_id)?.seatIndex ?? -1) + 1 },
+    { header: 'seat_status', value: (a) => (seats.get(a.seat_id)?.submittedAt ? 'submitted' : 'partial') },
+    { header: 'seat_submitted_at', value: (a) => seats.get(a.seat_id)?.submittedAt ?? '' },
+    { header: 'code', value: (a) => code(a) ?? '' },
+    { header: 'variant', value: (a) => label.get(sampleOf(a) ?? '') ?? '' },
+    { header: 'attribute', value: attribute },
+    { header: 'value', value },
+    { header: 'correct', value: (a) => (a.kind === 'triangle' ? yesNo(a.correct) : '') },
+    { header: 'answered_at', value: (a) => new Date(a.updated_at).toISOString() },
   ]);
 }
 
@@ -134,7 +163,7 @@ export async function summaryCsv(actor: Actor, tastingId: string, table: Summary
     const rows = analysis.attributes.flatMap((a) => a.anova.rows.map((r) => ({ a, r })));
     return toCsv(rows, [
       { header: 'attribute', value: (x) => x.a.attribute.name },
-      { header: 'source', value: (x) => x.r.source },
+      { header: 'source', value: (x) => ANOVA_SOURCE_WORDS[x.r.source].toLowerCase() },
       { header: 'sum_of_squares', value: (x) => x.r.sumOfSquares },
       { header: 'df', value: (x) => x.r.df },
       { header: 'mean_square', value: (x) => x.r.meanSquare ?? '' },
@@ -148,7 +177,7 @@ export async function summaryCsv(actor: Actor, tastingId: string, table: Summary
     return toCsv(rows, [
       { header: 'attribute', value: (r) => r.a.attribute.name },
       { header: 'variant', value: (r) => r.variant },
-      { header: 'group', value: (r) => r.g },
+      { header: 'group', value: (r) => PENALTY_GROUP_WORDS[r.g].toLowerCase() },
       { header: 'count', value: (r) => r.x.count },
       { header: 'share', value: (r) => r.x.share },
       { header: 'mean_liking', value: (r) => r.x.meanLiking ?? '' },

@@ -4,7 +4,7 @@
  */
 import { describe, it, expect } from 'vitest';
 import type { Page } from 'playwright-core';
-import { sharedBrowser, newContext, signIn, screenshot, openApricotTasting, watchCsp } from './browser';
+import { sharedBrowser, newContext, signIn, screenshot, openApricotTasting, watchCsp, WINDOWS, BASE_URL } from './browser';
 import { DEMO_USERS } from '@/lib/seed/demo';
 
 const browser = sharedBrowser();
@@ -92,18 +92,34 @@ describe('a preference ranking on a phone', () => {
     await phone.getByRole('heading', { name: 'Thank you!' }).waitFor();
     expect(await phone.getByText('not valid').count()).toBe(0);
     await screenshot(phone, 'phone-ranking-thanks');
+
+    // The same phone opens the join link again: it says it has submitted here, and a second seat
+    // (a shared tablet passed on) only on an explicit choice.
+    await phone.goto(`/join?code=${joinCode}`);
+    await phone.getByText('This phone has already submitted answers for this tasting').waitFor();
+    await phone.getByRole('button', { name: 'Start as a new taster on this phone' }).click();
+    await phone.getByLabel('Your name').fill('Second ranking guest');
+    await phone.getByRole('button', { name: 'Join the tasting' }).click();
+    await phone.waitForURL(/\/t\/sws_/);
+    await phone.getByRole('button', { name: 'I agree, start' }).waitFor();
     expect(csp).toEqual([]);
 
-    const desk = await newContext(browser());
-    const organiser = await desk.newPage();
-    await signIn(organiser, developer.email);
-    await organiser.goto(`/tastings/${tastingId}`);
-    await expect.poll(async () => organiser.getByTestId('seat-progress').textContent(), { timeout: 15_000 }).toMatch(/Ranking guest.*Submitted/);
-    await organiser.goto(`/tastings/${tastingId}/results`);
-    await organiser.getByRole('heading', { name: 'Ranking' }).waitFor();
-    await organiser.getByText('Only 1 ranking: a first look').waitFor();
+    // The organiser's side on a phone and on a desktop window (a walk had checked it at 390 px only).
+    for (const [size, viewport] of WINDOWS) {
+      const desk = await newContext(browser(), viewport);
+      const organiser = await desk.newPage();
+      await signIn(organiser, developer.email);
+      await organiser.goto(`/tastings/${tastingId}`);
+      await expect.poll(async () => organiser.getByTestId('seat-progress').textContent(), { timeout: 15_000 }).toMatch(/Ranking guest.*Submitted/);
+      await organiser.goto(`/tastings/${tastingId}/results`);
+      await organiser.getByRole('heading', { name: 'Ranking' }).waitFor();
+      await organiser.getByText('Only 1 ranking: a first look').waitFor();
+      // Nothing wider than the window: the tables scroll in their own boxes.
+      expect(await organiser.evaluate(() => document.documentElement.scrollWidth)).toBeLessThanOrEqual(viewport.width);
+      await screenshot(organiser, `ranking-results-organiser-${size}`);
+      await desk.close();
+    }
     await phoneCtx.close();
-    await desk.close();
   });
 });
 
@@ -196,7 +212,7 @@ describe('the results of a closed tasting', () => {
     await page.getByTestId('jar-chart').first().locator('canvas').waitFor();
     const csv = await page.request.get(page.url().replace(/\/tastings\/([^/]+)\/results$/, '/api/v1/tastings/$1/answers.csv'));
     const lines = (await csv.text()).trim().split(/\r?\n/);
-    expect(lines[0]).toBe('session,seat,code,variant,attribute,value');
+    expect(lines[0]).toBe('session,seat,seat_status,seat_submitted_at,code,variant,attribute,value,correct,answered_at');
     expect(lines.length - 1).toBe(24 * 5 * 3);
     await screenshot(page, 'panel-results');
 
@@ -212,5 +228,34 @@ describe('the results of a closed tasting', () => {
     await page.getByText('Recommended: variant E').waitFor();
     await screenshot(page, 'trial-compare');
     await ctx.close();
+  });
+});
+
+describe('the line scale under a finger', () => {
+  // A walk reported that a tap on an untouched slider exactly at its middle recorded nothing under
+  // touch emulation. A tap anywhere on the line is a mark, the middle included.
+  it('records a tap at the middle of an untouched line, and a tap elsewhere', async () => {
+    const { joinCode } = await openApricotTasting(browser(), { organiserEmail: developer.email, title: 'Phone walk: a tap on the line', attribute: ['Set firmness', 'Fruit flavour'] });
+    const phoneCtx = await browser().newContext({ baseURL: BASE_URL, viewport: { width: 390, height: 844 }, hasTouch: true, isMobile: true });
+    const phone = await phoneCtx.newPage();
+    await phone.goto(`/join?code=${joinCode}`);
+    await phone.getByLabel('Your name').fill('Tapping guest');
+    await phone.getByRole('button', { name: 'Join the tasting' }).click();
+    await phone.waitForURL(/\/t\/sws_/);
+    await phone.getByRole('button', { name: 'I agree, start' }).tap();
+    await phone.getByText('Sample 1 of 2').waitFor();
+    const [middleLine, otherLine] = await phone.getByRole('slider').all();
+    await middleLine.scrollIntoViewIfNeeded();
+    const box = (await middleLine.boundingBox())!;
+    await phone.touchscreen.tap(box.x + box.width / 2, box.y + box.height / 2);
+    await expect.poll(() => middleLine.getAttribute('aria-valuetext'), { timeout: 5_000 }).toBe('5');
+    await otherLine.scrollIntoViewIfNeeded();
+    const other = (await otherLine.boundingBox())!;
+    await phone.touchscreen.tap(other.x + other.width * 0.8, other.y + other.height / 2);
+    await expect.poll(() => otherLine.getAttribute('aria-valuetext'), { timeout: 5_000 }).not.toBe('Not marked yet');
+    // Both marks reach the server (each line's <output> is a status too: the queue's is the paragraph).
+    await expect.poll(() => phone.locator('p[role="status"]').textContent(), { timeout: 15_000 }).toBe('Sent');
+    await screenshot(phone, 'phone-line-tapped');
+    await phoneCtx.close();
   });
 });

@@ -249,8 +249,10 @@ describe('who tastes', () => {
 describe('exports', () => {
   it('raw answers in long format and each summary table as CSV; an unknown table is a 422', async () => {
     const s = await ratedSession(2);
+    let one = '';
     for (const name of ['One', 'Two', 'Three']) {
       const token = await seat(s.joinCode, name);
+      if (name === 'One') one = token;
       const v = await tasterView(token);
       for (const [i, x] of v.samples.entries()) {
         await recordAnswer(token, { idempotencyKey: randomUUID(), code: x.code, attributeId: s.liking.id, value: 5 + i + name.length % 2 });
@@ -261,15 +263,53 @@ describe('exports', () => {
       const res = await route.GET(new Request(`http://127.0.0.1/x${query}`, { headers: { cookie: a.people.developer.sessionCookie } }), { params: Promise.resolve({ tastingId: s.tastingId }) });
       return { status: res.status, lines: (await res.text()).trim().split(/\r?\n/) };
     };
+    await submitSeat(one);
     const raw = await get(rawRoute);
-    expect(raw.lines[0]).toBe('session,seat,code,variant,attribute,value');
+    expect(raw.lines[0]).toBe('session,seat,seat_status,seat_submitted_at,code,variant,attribute,value,correct,answered_at');
     expect(raw.lines).toHaveLength(1 + 3 * 2 * 2);
+    // Each row says whether its seat submitted, when, and when the answer was given (ISO 8601, UTC).
+    const iso = /^\d{4}-\d{2}-\d{2}T\d{2}:\d{2}:\d{2}\.\d{3}Z$/;
+    const rows = raw.lines.slice(1).map((l) => l.split(','));
+    expect(rows.filter((r) => r[2] === 'submitted')).toHaveLength(4);
+    expect(rows.filter((r) => r[2] === 'partial')).toHaveLength(8);
+    for (const r of rows) {
+      expect(r[3] === '' ? r[2] : iso.test(r[3]) && r[2]).toBe(r[2] === 'submitted' ? 'submitted' : 'partial');
+      expect(r[9]).toMatch(iso);
+      expect(r[8]).toBe('');
+    }
     const anova = await get(summaryRoute, '?table=anova');
     expect(anova.lines[0]).toBe('attribute,source,sum_of_squares,df,mean_square,f,p');
-    expect(anova.lines.filter((l) => l.includes(',treatments,'))).toHaveLength(2);
+    // The screen's words, not the statistics module's keys.
+    expect(anova.lines.filter((l) => l.includes(',samples,'))).toHaveLength(2);
+    expect(anova.lines.filter((l) => l.includes(',assessors,'))).toHaveLength(2);
+    expect(anova.lines.join('\n')).not.toMatch(/treatments|blocks/);
     const means = await get(summaryRoute);
     expect(means.lines[0]).toContain('tukey_letters');
     expect((await get(summaryRoute, '?table=bogus')).status).toBe(422);
+  });
+
+  it('a triangle answer names the cup chosen as odd, its variant and whether it was right', async () => {
+    const dev = actorOf(a, 'developer');
+    const t = await trialWith(2);
+    const { tastingId } = await createTasting(dev, t.trialId, { title: 'Triangle export', method: 'triangle', variantIds: t.variantIds, attributeIds: [], notice: 'Contains fruit.' });
+    const { joinCode } = await openTasting(dev, tastingId);
+    const sheet = async () => getServingSheet(dev, tastingId);
+    const right = await seat(joinCode, 'Right');
+    const wrong = await seat(joinCode, 'Wrong');
+    const seats = (await sheet()).seats;
+    // The odd cup is the one whose sample is served once (ISO 4120).
+    const cupsOf = (i: number) => seats[i].cups;
+    const oddOf = (i: number) => cupsOf(i).find((c) => cupsOf(i).filter((d) => d.variantLabel === c.variantLabel).length === 1)!;
+    const evenOf = (i: number) => cupsOf(i).find((c) => c.code !== oddOf(i).code)!;
+    await recordAnswer(right, { idempotencyKey: randomUUID(), oddCode: oddOf(0).code });
+    await recordAnswer(wrong, { idempotencyKey: randomUUID(), oddCode: evenOf(1).code });
+    const res = await rawRoute.GET(new Request('http://127.0.0.1/x', { headers: { cookie: a.people.developer.sessionCookie } }), { params: Promise.resolve({ tastingId }) });
+    const [, ...lines] = (await res.text()).trim().split(/\r?\n/);
+    const rows = lines.map((l) => l.split(','));
+    expect(rows.map((r) => [r[1], r[4], r[5], r[6], r[7], r[8]])).toEqual([
+      ['1', oddOf(0).code, oddOf(0).variantLabel, 'odd sample', '', 'yes'],
+      ['2', evenOf(1).code, evenOf(1).variantLabel, 'odd sample', '', 'no'],
+    ]);
   });
 });
 

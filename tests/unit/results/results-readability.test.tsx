@@ -48,10 +48,12 @@ describe('results that read well', () => {
     render(<ResultsView analysis={analyseTasting(data())} />);
     const summary = screen.getAllByTestId('summary-table')[0];
     expect(summary.parentElement!.className).toContain('overflow-x-auto');
-    expect(within(summary).getAllByRole('columnheader').map((h) => h.textContent)).toEqual(['Sample', 'n', 'Mean', '95 % CI', 'SD', 'Group']);
+    expect(within(summary).getAllByRole('columnheader').map((h) => h.textContent)).toEqual(['Sample', 'Group', 'n', 'Mean', '95 % CI', 'SD']);
     const rowA = within(summary).getByRole('row', { name: /^A/ });
     const cells = [...rowA.children].map((c) => c.textContent);
-    expect(cells.slice(0, 3)).toEqual(['A', '4', '8.00']); // mean of 9, 9, 9, 5
+    expect(cells[0]).toBe('A');
+    expect(cells[1]).toMatch(/^[a-z]+$/); // the group letters, beside the sample
+    expect(cells.slice(2, 4)).toEqual(['4', '8.00']); // mean of 9, 9, 9, 5
     // Each cell is one of the data table's padded kinds (defined once in app/globals.css, below).
     for (const cell of rowA.children) expect(cell.className).toMatch(/\bdata-(cell|num)\b/);
     const css = readFileSync(resolve(__dirname, '../../../app/globals.css'), 'utf8');

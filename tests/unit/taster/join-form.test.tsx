@@ -11,7 +11,8 @@ vi.mock('next/navigation', () => ({
 }));
 
 import { JoinForm } from '@/components/taster/JoinForm';
-import { LAST_SEAT_STORAGE_KEY } from '@/lib/taster';
+import { JOINED_SEATS_STORAGE_KEY, LAST_SEAT_STORAGE_KEY } from '@/lib/taster';
+import { ratedSeatPayload } from './fixtures';
 
 function json(status: number, body: unknown) {
   return new Response(JSON.stringify(body), { status, headers: { 'content-type': 'application/json' } });
@@ -83,5 +84,59 @@ describe('JoinForm', () => {
     fireEvent.click(screen.getByRole('button', { name: 'Join a different tasting' }));
     expect(screen.queryByRole('link', { name: 'Continue your tasting' })).toBeNull();
     expect(window.localStorage.getItem(LAST_SEAT_STORAGE_KEY)).toBeNull();
+  });
+
+  // A walk found the same phone could join again after submitting, silently making a second seat
+  // for the same person. A shared tablet may seat the next taster, but only when asked to.
+  describe('a phone that has already submitted for the tasting', () => {
+    const submitted = () => ({ ...ratedSeatPayload(), seat: { displayName: 'Wren', consented: true, submitted: true } });
+    const joined = (seatToken: string, joinCode = 'QX7K29') => window.localStorage.setItem(JOINED_SEATS_STORAGE_KEY, JSON.stringify([{ joinCode, seatToken }]));
+
+    it('remembers the code each seat was joined with', async () => {
+      vi.stubGlobal('fetch', vi.fn(async () => json(201, { seatToken: 'seat_tok_7Qx2mPz9' })));
+      render(<JoinForm />);
+      fill('QX7K29', 'Wren');
+      fireEvent.click(screen.getByRole('button', { name: 'Join the tasting' }));
+      await waitFor(() => expect(router.push).toHaveBeenCalled());
+      expect(JSON.parse(window.localStorage.getItem(JOINED_SEATS_STORAGE_KEY)!)).toEqual([{ joinCode: 'QX7K29', seatToken: 'seat_tok_7Qx2mPz9' }]);
+    });
+
+    it('says so on opening the join link, joins nobody on "Join", and takes a new taster only when asked', async () => {
+      joined('seat_tok_firstTaster1');
+      const fetchMock = vi.fn(async (url: string) => (url === '/api/v1/tastings/join' ? json(201, { seatToken: 'seat_tok_secondTaster' }) : json(200, submitted())));
+      vi.stubGlobal('fetch', fetchMock);
+      render(<JoinForm initialCode="qx7k29" />);
+      await screen.findByText('This phone has already submitted answers for this tasting, as Wren.');
+      expect(fetchMock.mock.calls[0][0]).toBe('/api/v1/tastings/seats/seat_tok_firstTaster1');
+
+      fireEvent.change(screen.getByLabelText('Your name'), { target: { value: 'Wren' } });
+      fireEvent.click(screen.getByRole('button', { name: 'Join the tasting' }));
+      await waitFor(() => expect(fetchMock).toHaveBeenCalledTimes(2));
+      await screen.findByText(/already submitted answers for this tasting/);
+      expect(fetchMock.mock.calls.map((c) => c[0])).not.toContain('/api/v1/tastings/join');
+      expect(router.push).not.toHaveBeenCalled();
+
+      fireEvent.click(screen.getByRole('button', { name: 'Start as a new taster on this phone' }));
+      expect(screen.queryByText(/already submitted answers/)).toBeNull();
+      expect((screen.getByLabelText('Your name') as HTMLInputElement).value).toBe('');
+      fireEvent.change(screen.getByLabelText('Your name'), { target: { value: 'Rowan' } });
+      fireEvent.click(screen.getByRole('button', { name: 'Join the tasting' }));
+      await waitFor(() => expect(router.push).toHaveBeenCalledWith('/t/seat_tok_secondTaster'));
+      const joinCall = fetchMock.mock.calls.find((c) => c[0] === '/api/v1/tastings/join') as unknown as [string, RequestInit];
+      expect(JSON.parse(String(joinCall[1].body))).toEqual({ joinCode: 'QX7K29', displayName: 'Rowan' });
+    });
+
+    it('joins at once when the seat joined here has not been submitted, or was for another tasting', async () => {
+      joined('seat_tok_firstTaster1');
+      window.localStorage.setItem(JOINED_SEATS_STORAGE_KEY, JSON.stringify([{ joinCode: 'AAAAAA', seatToken: 'seat_tok_otherTasting' }, { joinCode: 'QX7K29', seatToken: 'seat_tok_firstTaster1' }]));
+      const fetchMock = vi.fn(async (url: string) => (url === '/api/v1/tastings/join' ? json(201, { seatToken: 'seat_tok_again000001' }) : json(200, ratedSeatPayload())));
+      vi.stubGlobal('fetch', fetchMock);
+      render(<JoinForm />);
+      fill('QX7K29', 'Wren');
+      fireEvent.click(screen.getByRole('button', { name: 'Join the tasting' }));
+      await waitFor(() => expect(router.push).toHaveBeenCalledWith('/t/seat_tok_again000001'));
+      expect(fetchMock.mock.calls.map((c) => c[0])).toEqual(['/api/v1/tastings/seats/seat_tok_firstTaster1', '/api/v1/tastings/join']);
+      expect(screen.queryByText(/already submitted answers/)).toBeNull();
+    });
   });
 });
