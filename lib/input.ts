@@ -16,6 +16,64 @@
 import { z } from 'zod';
 import { isAmbiguousComma, readDecimal, unreadableNumberMessage } from '@/lib/format/numbers';
 
+/** What a JSON value is, in plain words ("text", "a number", "a list"). */
+function kindOf(value: unknown): string {
+  if (value === null) return 'null';
+  if (Array.isArray(value)) return 'a list';
+  switch (typeof value) {
+    case 'string':
+      return 'text';
+    case 'number':
+      return Number.isNaN(value) ? 'not a number' : 'a number';
+    case 'boolean':
+      return 'true or false';
+    case 'object':
+      return 'an object';
+    default:
+      return typeof value;
+  }
+}
+
+// zod's names of the types a schema expects, in plain words.
+const EXPECTED_WORDS: Readonly<Record<string, string>> = {
+  string: 'text',
+  number: 'a number',
+  int: 'a whole number',
+  bigint: 'a whole number',
+  boolean: 'true or false',
+  array: 'a list',
+  tuple: 'a list',
+  object: 'an object',
+  record: 'an object',
+  map: 'an object',
+  null: 'null',
+  date: 'a date',
+  undefined: 'left out',
+};
+
+/** A field's path as the request spells it ("lines.2.quantity"); the whole input when the path is empty. */
+export function fieldLabel(path: readonly PropertyKey[]): string {
+  return path.length ? `"${path.map(String).join('.')}"` : 'The input';
+}
+
+/**
+ * The message of a value of the wrong JSON type, naming the field, the type expected and the one
+ * sent: `"name" must be text, not a number.` Used for every type mismatch whose schema gives no
+ * words of its own (a block's own message, such as "The quantity must be a number.", is kept).
+ */
+export function invalidTypeMessage(path: readonly PropertyKey[], expected: string, input: unknown): string {
+  const want = lookup(EXPECTED_WORDS, expected) ?? expected;
+  const label = fieldLabel(path);
+  if (input === undefined) return `${label} is required: give ${want}.`;
+  return `${label} must be ${want}, not ${kindOf(input)}.`;
+}
+
+// Installed with the blocks, so every process that parses input (server, browser, scripts, tests)
+// uses it: zod asks it only when the failing schema has no message of its own.
+z.config({
+  customError: (iss) => (iss.code === 'invalid_type' ? invalidTypeMessage(iss.path ?? [], String(iss.expected), iss.input) : undefined),
+});
+
 /** Calendar dates and date-times are accepted from this year… */
 export const YEAR_MIN = 1900;
 /** …to this one, inclusive. */
@@ -87,7 +145,8 @@ export interface TextOptions {
  */
 export function text({ max, min = 0, multiline = false, required, tooLong }: TextOptions) {
   const requiredMessage = required ?? (min === 1 ? 'This field is required.' : `Use at least ${min} characters.`);
-  let s = z.string({ error: 'Enter text here.' }).trim();
+  // Missing: the form's own words; any other type: invalidTypeMessage() names the field and the type.
+  let s = z.string({ error: (iss) => (iss.input === undefined ? 'Enter text here.' : undefined) }).trim();
   if (min > 0) s = s.min(min, requiredMessage);
   return s.max(max, tooLong ?? `Use at most ${max} characters.`).superRefine((value, ctx) => {
     const why = unsafeTextReason(value, multiline);

@@ -3,7 +3,8 @@
  * browser on every keystroke, and the server runs the same code when it saves or serves.
  */
 import { computeBatch, toGrams, ChemistryInputError, type BatchComputation, type FormulaLineInput, type FormulaSettings, type IngredientComposition } from '@/lib/chemistry';
-import type { FormulaSettingsInput } from './schema';
+import { SMALLEST_AMOUNT } from '@/lib/input';
+import { formulaSettingsSchema, type FormulaSettingsInput } from './schema';
 
 export interface ComputableLine {
   ingredient: IngredientComposition;
@@ -31,7 +32,26 @@ export type ComputeOutcome =
   | { ok: true; computation: BatchComputation }
   | { ok: false; field: string; message: string };
 
+/**
+ * A value saving refuses today but an older row may still hold (a jar fill of 1e-320 g was saved
+ * before the bounds): the chemistry would divide by it and print nonsense (jar counts of Infinity),
+ * so it is named as needing correction instead. The row itself is left as it is.
+ */
+export function storedValueProblem(settings: FormulaSettingsInput, lines: ReadonlyArray<{ quantity: number }>): { field: string; rule: string } | null {
+  // Not strict: a key an older revision kept is not a wrong value.
+  const check = formulaSettingsSchema.strip().safeParse(settings);
+  if (!check.success) {
+    const issue = check.error.issues[0];
+    return { field: ['settings', ...issue.path.map(String)].join('.'), rule: issue.message };
+  }
+  const tiny = lines.findIndex((l) => !Number.isFinite(l.quantity) || (l.quantity !== 0 && Math.abs(l.quantity) < SMALLEST_AMOUNT));
+  if (tiny >= 0) return { field: `lines[${tiny}].quantity`, rule: `Quantity must be at least ${SMALLEST_AMOUNT}.` };
+  return null;
+}
+
 export function computeFormula(settings: FormulaSettingsInput, lines: ComputableLine[]): ComputeOutcome {
+  const problem = storedValueProblem(settings, lines);
+  if (problem) return { ok: false, field: problem.field, message: `Needs correcting before it can be used: ${problem.rule}` };
   try {
     return {
       ok: true,

@@ -195,8 +195,8 @@ const CORNER_THRESHOLD = 0.5;
  * Analysis of Experiments, §6.8) on pooled trials. They rarely sit exactly on a grid (pectin % of the
  * finished product moves with the solids), so the centre is the replicated point nearest the middle
  * within 0.2 coded units in every factor, and the corners are the runs at least 0.5 out in every
- * factor, taken as ±1; other runs stay out of this test. Unweighted. Null without a replicated
- * centre or without corners.
+ * factor, taken as ±1; other runs stay out of this test. Weighted with the model's weights, like the
+ * report's other ANOVA rows. Null without a replicated centre or without corners.
  */
 export function curvatureTest(surface: ResponseSurface): CurvatureTest | null {
   const y = surface.fit.fitted.map((f, i) => f + surface.fit.residuals[i]);
@@ -209,9 +209,10 @@ export function curvatureTest(surface: ResponseSurface): CurvatureTest | null {
   const centre = [...groups.values()].filter((g) => g.length >= 2).sort((a, b) => b.length - a.length)[0];
   const corners = surface.codedRuns.map((coded, i) => (coded.every((x) => Math.abs(x) >= CORNER_THRESHOLD) ? i : -1)).filter((i) => i >= 0);
   if (!centre || corners.length === 0) return null;
+  const weight = (i: number) => (surface.fit.weights ? { weight: surface.fit.weights[i] } : {});
   return centrePointCurvature([
-    ...centre.map((i) => ({ coded: surface.codedRuns[i].map(() => 0), response: y[i] })),
-    ...corners.map((i) => ({ coded: surface.codedRuns[i].map((x) => Math.sign(x)), response: y[i] })),
+    ...centre.map((i) => ({ coded: surface.codedRuns[i].map(() => 0), response: y[i], ...weight(i) })),
+    ...corners.map((i) => ({ coded: surface.codedRuns[i].map((x) => Math.sign(x)), response: y[i], ...weight(i) })),
   ]);
 }
 

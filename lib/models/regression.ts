@@ -122,6 +122,8 @@ export interface RegressionFit {
   leverageLimit: number;
   highLeverageRuns: number[];
   weighted: boolean;
+  /** The weights of the runs, null without weights (tests that regroup the runs weight them alike). */
+  weights: number[] | null;
   warnings: ModelWarning[];
   basis: PredictionBasis;
 }
@@ -318,6 +320,7 @@ export function fitRegression(input: RegressionInput): RegressionFit {
     leverageLimit,
     highLeverageRuns,
     weighted: input.weights !== undefined,
+    weights: input.weights ? [...input.weights] : null,
     warnings,
     basis: {
       coefficients,

@@ -6,7 +6,8 @@ import {
   computeMassBalance, qcSpecCautions, resolveWaterBoilingPoint, scaleFormula, STANDARD_PRESSURE_PA, waterBoilingPointAtPressureC,
   type Caution, type QcSpec, type ScaledFormula, type ScaleTarget,
 } from '@/lib/chemistry';
-import { toChemistrySettings } from '@/lib/formulas/compute';
+import { chemistryFieldPath, storedValueProblem, toChemistrySettings } from '@/lib/formulas/compute';
+import { ValidationFailed } from '@/lib/errors';
 import type { FormulaSettingsInput, RevisionLine } from '@/lib/formulas/schema';
 import type { ProductionProcess, BatchSheetQuery } from './schema';
 
@@ -33,6 +34,12 @@ export interface BatchSheet {
 }
 
 export function buildBatchSheet(source: SheetSource, query: BatchSheetQuery): BatchSheet {
+  // A version frozen before today's bounds may hold a value scaling would divide by: no sheet until corrected.
+  const problem = storedValueProblem(source.settings, source.lines);
+  if (problem) {
+    const message = `This version holds a value that needs correcting, so the sheet is not scaled: ${problem.rule}`;
+    throw new ValidationFailed(message, { [chemistryFieldPath(problem.field)]: [message] });
+  }
   const settings = toChemistrySettings(source.settings);
   const target: ScaleTarget =
     query.amount === undefined

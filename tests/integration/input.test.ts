@@ -155,3 +155,38 @@ describe('prototype-named keys', () => {
     await refused('POST /api/v1/tokens', (s) => (s.body = JSON.parse('{"label":"x","__proto__":{"isAdmin":true}}')));
   });
 });
+
+describe('values of the wrong JSON type', () => {
+  // Each answered "Enter text here." or zod's "Invalid input: expected array, received object"; now the field and the type (JSON types: RFC 8259 §3).
+  it('a number as the formula name and an object as its lines: 422 naming both, nothing stored', async () => {
+    const res = await refused('POST /api/v1/formulas', (s) => {
+      s.body.name = 12;
+      s.body.lines = { first: s.body.lines[0] };
+    });
+    expect(res.status).toBe(422);
+    expect(res.body.error.fields.name).toEqual(['"name" must be text, not a number.']);
+    expect(res.body.error.fields.lines).toEqual(['"lines" must be a list, not an object.']);
+  });
+
+  it("a list as the formula settings; text as a line quantity keeps the quantity's own words", async () => {
+    const res = await refused('POST /api/v1/formulas', (s) => {
+      s.body.settings = [];
+      s.body.lines[0].quantity = '1000';
+    });
+    expect(res.status).toBe(422);
+    expect(res.body.error.fields.settings).toEqual(['"settings" must be an object, not a list.']);
+    expect(res.body.error.fields['lines.0.quantity']).toEqual(['Quantity must be a number.']);
+  });
+
+  it('a number as an ingredient name', async () => {
+    const res = await refused('POST /api/v1/ingredients', (s) => (s.body.name = 42));
+    expect(res.status).toBe(422);
+    expect(res.body.error.fields.name).toEqual(['"name" must be text, not a number.']);
+  });
+
+  it("a number as a price's supplier", async () => {
+    const res = await refused('POST /api/v1/prices', (s) => (s.body.supplier = 7));
+    expect(res.status).toBe(422);
+    expect(res.body.error.fields.supplier).toEqual(['"supplier" must be text, not a number.']);
+  });
+});

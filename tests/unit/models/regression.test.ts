@@ -1,5 +1,6 @@
 import { describe, expect, it } from 'vitest';
-import { buildTerms, centrePointCurvature, designRow, fitRegression, predictRow } from '@/lib/models';
+import { buildTerms, centrePointCurvature, designRow, fitRegression, fitResponseSurface, predictRow } from '@/lib/models';
+import { curvatureTest } from '@/lib/modelling/fit';
 import reference from './lm-reference.json';
 import { norris, longley } from './nist-strd';
 import { fewestDigits } from './digits';
@@ -226,6 +227,45 @@ describe('curvature from centre points', () => {
     // By hand: ȳF = 77.75, ȳC = 79.94, SS = 4·5·2.19²/9 = 10.658; pure error 0.212/4 = 0.053.
     expect(test.sumOfSquares).toBeCloseTo((20 * 2.19 ** 2) / 9, 10);
     expect(test.p!).toBeLessThan(0.001);
+  });
+
+  it('weighted runs: the curvature and its pure error are weighted like the other ANOVA rows', () => {
+    // Source: weighted least squares minimises Σ wᵢ(yᵢ − ŷᵢ)² (NIST/SEMATECH e-Handbook of Statistical
+    // Methods, §4.1.4.3), so the curvature is the weighted between-groups SS of corners and centre.
+    // Worked by hand: corners y 10, 12, 11, 13 with w 1, 2, 1, 2 → WF = 6, ȳF = 71/6; centre y 8, 9, 7
+    // with w 2, 1, 1 → WC = 4, ȳC = 32/4 = 8. SS = 6·4/10 · (71/6 − 8)² = 2.4 · 529/36 = 35.2667.
+    // Check: weighted total SS about 10.3 = 44.1, minus within groups 6.8333 + 2 = 35.2667.
+    // Pure error: Σ w(y − 8)² = 0 + 1 + 1 = 2 on 2 df, MS 1; F = 35.2667 on 1 and 2 df.
+    // (Unweighted the same runs give SS 4·3/7 · 3.5² = 21 and F 21.)
+    const runs = [
+      { coded: [-1, -1], response: 10, weight: 1 }, { coded: [-1, 1], response: 12, weight: 2 },
+      { coded: [1, -1], response: 11, weight: 1 }, { coded: [1, 1], response: 13, weight: 2 },
+      { coded: [0, 0], response: 8, weight: 2 }, { coded: [0, 0], response: 9, weight: 1 }, { coded: [0, 0], response: 7, weight: 1 },
+    ];
+    const test = centrePointCurvature(runs)!;
+    expect(test.factorialMean).toBeCloseTo(71 / 6, 12);
+    expect(test.centreMean).toBeCloseTo(8, 12);
+    expect(test.sumOfSquares).toBeCloseTo((2.4 * 529) / 36, 10);
+    expect(test.pureErrorMeanSquare).toBeCloseTo(1, 12);
+    expect(test.pureErrorDf).toBe(2);
+    expect(test.f).toBeCloseTo((2.4 * 529) / 36, 10);
+    // On 1 and 2 df the F upper tail has a closed form (F = t² with t on 2 df): p = 1 − √(F/(F + 2)).
+    expect(test.p).toBeCloseTo(1 - Math.sqrt(test.f! / (test.f! + 2)), 8);
+  });
+
+  it('the model report\'s curvature uses the fitted surface\'s weights', () => {
+    // The same runs as above as a weighted main-effects surface; the report's test must match by-hand 35.2667.
+    const points = [[-1, -1], [-1, 1], [1, -1], [1, 1], [0, 0], [0, 0], [0, 0]];
+    const y = [10, 12, 11, 13, 8, 9, 7];
+    const w = [1, 2, 1, 2, 2, 1, 1];
+    const surface = fitResponseSurface({
+      factors: ['a', 'b'],
+      kind: 'main_effects',
+      runs: points.map(([a, b], i) => ({ point: { a, b }, response: y[i], weight: w[i] })),
+    });
+    const test = curvatureTest(surface)!;
+    expect(test.sumOfSquares).toBeCloseTo((2.4 * 529) / 36, 8);
+    expect(test.pureErrorMeanSquare).toBeCloseTo(1, 10);
   });
 
   it('is not applicable to runs off the corners, or without centre runs', () => {

@@ -12,6 +12,7 @@ import { z } from 'zod';
 import {
   boundedNumber,
   hasVisibleContent,
+  invalidTypeMessage,
   INVISIBLE_TEXT_MESSAGE,
   calendarDateProblem,
   email,
@@ -38,6 +39,7 @@ import { ingredientInputSchema, ingredientListQuerySchema } from '@/lib/ingredie
 import { costSettingsSchema, ingredientPriceSchema, packagingItemSchema, refuseBodySchema } from '@/lib/pricing/schema';
 import { createFormulaSchema, formulaLineSchema, formulaSettingsSchema } from '@/lib/formulas/schema';
 import { correctCookSchema } from '@/lib/trials/schema';
+import { zodFieldErrors } from '@/lib/errors';
 import { findDocProblems } from '@/lib/notebook/document';
 import { parseCookCsv } from '@/lib/trials/csv';
 
@@ -240,5 +242,53 @@ describe('prototype-named keys', () => {
     const attrs = JSON.parse(`{"${key}": {"x": 1}, "level": 2}`);
     const problems = findDocProblems({ type: 'doc', content: [{ type: 'heading', attrs, content: [{ type: 'text', text: 'Hi' }] }] });
     expect(problems.map((p) => p.message).join(' ')).toContain(`no attribute "${key}"`);
+  });
+});
+
+describe('values of the wrong JSON type', () => {
+  // A number where text belongs answered "Enter text here."; an object where a list belongs answered zod's
+  // "Invalid input: expected array, received object". Each message now names the field and the type wanted
+  // (JSON types: RFC 8259 §3), and a field's own message is kept.
+  const errorsOf = (schema: z.ZodType, value: unknown) => zodFieldErrors(schema.safeParse(value).error!);
+
+  it('names the field, the type it wants and the type sent', () => {
+    expect(invalidTypeMessage(['lines', 2, 'quantity'], 'number', 'ten')).toBe('"lines.2.quantity" must be a number, not text.');
+    expect(invalidTypeMessage(['title'], 'string', 7)).toBe('"title" must be text, not a number.');
+    expect(invalidTypeMessage(['lines'], 'array', {})).toBe('"lines" must be a list, not an object.');
+    expect(invalidTypeMessage(['settings'], 'object', [])).toBe('"settings" must be an object, not a list.');
+    expect(invalidTypeMessage(['force'], 'boolean', 'yes')).toBe('"force" must be true or false, not text.');
+    expect(invalidTypeMessage(['note'], 'string', null)).toBe('"note" must be text, not null.');
+    expect(invalidTypeMessage(['settings'], 'object', undefined)).toBe('"settings" is required: give an object.');
+    expect(invalidTypeMessage([], 'object', 'x')).toBe('The input must be an object, not text.');
+  });
+
+  it('a number as a trial title', () => {
+    expect(errorsOf(createTrialSchema, { title: 12, question: 'Why?', formulaId: '00000000-0000-4000-8000-000000000000' })).toEqual({ title: ['"title" must be text, not a number.'] });
+  });
+
+  it('an object as the formula lines, a list as its settings, text as the forced save', async () => {
+    const { reviseFormulaSchema: revise } = await import('@/lib/formulas/schema');
+    expect(errorsOf(revise, { baseRevision: 1, force: 'yes', settings: [], lines: {} })).toEqual({
+      force: ['"force" must be true or false, not text.'],
+      settings: ['"settings" must be an object, not a list.'],
+      lines: ['"lines" must be a list, not an object.'],
+    });
+  });
+
+  it('keeps a field\'s own message: a quantity sent as text', () => {
+    const line = { ingredientId: '00000000-0000-4000-8000-000000000000', quantity: '10', unit: 'g' };
+    expect(errorsOf(formulaLineSchema, line)).toEqual({ quantity: ['Quantity must be a number.'] });
+  });
+
+  it('a number as an ingredient name, text as its pH', () => {
+    expect(errorsOf(ingredientInputSchema, { name: 5, kind: 'fruit', solidsPct: 10, phMin: 'low' })).toMatchObject({ name: ['"name" must be text, not a number.'] });
+  });
+
+  it('a list where the whole body should be an object', () => {
+    expect(errorsOf(createTrialSchema, [])).toEqual({ _: ['The input must be an object, not a list.'] });
+  });
+
+  it('a missing text field keeps the form\'s words', () => {
+    expect(errorsOf(z.object({ note: text({ max: 10 }) }), {})).toEqual({ note: ['Enter text here.'] });
   });
 });

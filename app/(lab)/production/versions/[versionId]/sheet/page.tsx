@@ -2,7 +2,7 @@ import Link from 'next/link';
 import { requirePage, orNotFound, pageId } from '@/lib/page-guard';
 import { getBatchSheet, getSheetVersion } from '@/lib/production/queries';
 import { batchSheetQuerySchema } from '@/lib/production/schema';
-import { zodFieldErrors } from '@/lib/errors';
+import { ValidationFailed, zodFieldErrors } from '@/lib/errors';
 import { safeRecord } from '@/lib/input';
 import { ChemistryInputError } from '@/lib/chemistry';
 import { Notice } from '@/components/ui/Notice';
@@ -26,7 +26,7 @@ export default async function BatchSheetPage({ params, searchParams }: { params:
     try {
       sheet = await orNotFound(getBatchSheet(actor, versionId, parsed.data));
     } catch (err) {
-      if (!(err instanceof ChemistryInputError)) throw err;
+      if (!(err instanceof ChemistryInputError) && !(err instanceof ValidationFailed)) throw err;
       problem = err.message;
     }
   }
