@@ -7,6 +7,21 @@ import { PRODUCT_CLASS_NAMES, type EuFruitGroup, type FormulaSettings } from './
 export type RuleStatus = 'pass' | 'fail' | 'not_applicable' | 'not_evaluable';
 export type OverallComplianceStatus = 'compliant' | 'non_compliant' | 'incomplete' | 'not_applicable';
 
+/** The words screens and CSV exports use for each status. */
+export const RULE_STATUS_LABELS: Record<RuleStatus, string> = {
+  pass: 'Pass',
+  fail: 'Fail',
+  not_applicable: 'Not applicable',
+  not_evaluable: 'Not evaluable',
+};
+
+export const OVERALL_STATUS_LABELS: Record<OverallComplianceStatus, string> = {
+  compliant: 'Meets the rules checked',
+  non_compliant: 'Does not meet the rules',
+  incomplete: 'Incomplete: some rules could not be checked',
+  not_applicable: 'No rule applies to this product class',
+};
+
 export interface RuleCheckResult {
   ruleId: string;
   title: string;

@@ -11,6 +11,8 @@ export * from './rule-sets';
 export {
   checkCompliance,
   overallStatus,
+  OVERALL_STATUS_LABELS,
+  RULE_STATUS_LABELS,
   ruleEditionLabel,
   type ComplianceBatchInput,
   type ComplianceReport,

@@ -177,6 +177,8 @@ export interface BatchReadings {
 
 export type QcCheckKey = 'solids' | 'ph' | 'fill_temperature' | 'net_fill' | 'set';
 export type QcCheckStatus = 'pass' | 'fail' | 'not_measured';
+/** The words screens and CSV exports use for a check's status. */
+export const QC_CHECK_STATUS_LABELS: Record<QcCheckStatus, string> = { pass: 'Pass', fail: 'Fail', not_measured: 'Missing' };
 
 export interface QcCheck {
   key: QcCheckKey;

@@ -13,12 +13,12 @@ import type { PromotionRequestEntity } from '@/entities/PromotionRequest';
 import { awaitsAnotherDecider, inWorkspace, mayDecide, mayWithdraw, notFound, type Actor } from '@/lib/permissions';
 import { trialCode } from '@/lib/trials/access';
 import { toCsv } from '@/lib/csv';
-import { defaultQcSpec, estimateEndPoint, outcomeOfChecks, qcSpecCautions, type QcSpec } from '@/lib/chemistry';
+import { defaultQcSpec, estimateEndPoint, outcomeOfChecks, QC_CHECK_STATUS_LABELS, qcSpecCautions, type QcSpec } from '@/lib/chemistry';
 import { getTrialOverview } from '@/lib/trials/queries';
 import { DEFAULT_FILL_TEMP_C, type AuditView, type ProductionProcess, type PromotionEvidence, type BatchDecisionView, type BatchSheetQuery, type BatchView, type BatchWorkItem, type ProductSummary, type PromotionDraftVariant, type PromotionSummary, type PromotionTargetProduct, type PromotionView, type SheetVersion, type VersionSummary, type VersionView } from './schema';
 import { buildBatchSheet, type BatchSheet } from './sheet';
 import { fruitsOf, weighLines } from './review';
-import { promotionCode, type PromotionStatus } from './vocabulary';
+import { BATCH_OUTCOME_LABELS, BATCH_STATUS_LABELS, promotionCode, type PromotionStatus } from './vocabulary';
 import { batchStanding, goodJarsOf } from './holds';
 
 const REQUEST_POPULATE = ['trial', 'product', 'requestedBy', 'decidedBy'] as const;
@@ -337,7 +337,7 @@ export async function listPromotableProducts(actor: Actor): Promise<PromotionTar
 
 export async function batchesCsv(actor: Actor, productId: string): Promise<{ csv: string; filename: string }> {
   const { product, batches } = await getProduct(actor, productId);
-  const check = (b: BatchView, key: string) => b.checks.find((c) => c.key === key)?.status ?? '';
+  const check = (b: BatchView, key: string) => { const c = b.checks.find((x) => x.key === key); return c ? QC_CHECK_STATUS_LABELS[c.status] : ''; };
   const csv = toCsv(batches, [
     { header: 'lot_code', value: (b) => b.lotCode },
     { header: 'batch_date', value: (b) => b.batchDate },
@@ -362,9 +362,9 @@ export async function batchesCsv(actor: Actor, productId: string): Promise<{ csv
     { header: 'fill_check', value: (b) => check(b, 'fill_temperature') },
     { header: 'net_fill_check', value: (b) => check(b, 'net_fill') },
     { header: 'set_check', value: (b) => check(b, 'set') },
-    { header: 'outcome', value: (b) => b.outcome },
-    { header: 'status', value: (b) => b.status },
-    { header: 'latest_outcome', value: (b) => b.latestOutcome },
+    { header: 'outcome', value: (b) => BATCH_OUTCOME_LABELS[b.outcome] },
+    { header: 'status', value: (b) => BATCH_STATUS_LABELS[b.status] },
+    { header: 'latest_outcome', value: (b) => BATCH_OUTCOME_LABELS[b.latestOutcome] },
     { header: 'disposition', value: (b) => b.disposition },
     { header: 'disposition_comment', value: (b) => b.dispositionComment },
     { header: 'recorded_by', value: (b) => b.recordedBy },

@@ -13,6 +13,7 @@ import { cookSchema } from './schema';
 import { cookColumns } from './mutations';
 import { getTrialOverview } from './queries';
 import { FACTOR_LABELS, TRIAL_FACTORS } from './vocabulary';
+import { OVERALL_STATUS_LABELS } from '@/lib/chemistry';
 
 /** CSV column → measurement field, with the parser for the cell text. */
 export const COOK_CSV_COLUMNS = [
@@ -130,7 +131,7 @@ export async function exportTrialCsv(actor: Actor, trialId: string): Promise<{ f
     { header: 'target_solids_pct', value: (r) => r.v.settings.targetSolidsPct },
     { header: 'predicted_aw', value: (r) => r.v.computation?.waterActivity.aw ?? '' },
     { header: 'predicted_end_point_c', value: (r) => r.v.computation?.endPoint.endPointC ?? '' },
-    { header: 'compliance', value: (r) => r.v.computation?.compliance.overall ?? '' },
+    { header: 'compliance', value: (r) => (r.v.computation ? OVERALL_STATUS_LABELS[r.v.computation.compliance.overall] : '') },
     { header: 'cook_date', value: (r) => r.m?.cookDate ?? '' },
     { header: 'batch_size_g', value: (r) => r.m?.batchSizeG ?? '' },
     { header: 'predicted_finished_mass_for_batch_g', value: (r) => predicted(r, 'finished_mass') },

@@ -365,7 +365,9 @@ describe('batch records against the spec', () => {
     const lines = String(res.body).trim().split(/\r?\n/);
     expect(lines[0].split(',')).toEqual(expect.arrayContaining(['lot_code', 'brix_20c', 'solids_min', 'ph_max', 'outcome', 'disposition']));
     expect(lines).toHaveLength(3);
-    expect(lines.find((l) => l.includes(lotCodeFor(code, '2026-11-02', 2)))).toMatch(/,fail,hold,/);
+    // outcome, status, latest outcome and disposition: the screens' words, not their keys.
+    expect(lines.find((l) => l.includes(lotCodeFor(code, '2026-11-02', 2)))).toMatch(/,Fail,On hold,Fail,hold,/);
+    expect(lines.join('\n')).not.toMatch(/not_measured|,held,/);
   });
 });
 

@@ -13,6 +13,8 @@ import * as exportRoute from '@/app/api/v1/trials/[trialId]/export/route';
 import { getEm } from '@/lib/db';
 import { Cook, Variant } from '@/entities';
 import { diffRevisions } from '@/lib/formulas/diff';
+import { readCsv } from '@/lib/csv';
+import { OVERALL_STATUS_LABELS } from '@/lib/chemistry';
 
 let a: WorkspaceFixture;
 const dev = () => ({ kind: 'session' as const, person: a.people.developer });
@@ -201,6 +203,8 @@ describe('cooks and CSV', () => {
     expect(lines[0]).toContain('variant,description,sugar_ratio');
     expect(lines).toHaveLength(2);
     expect(lines[1]).toContain('2026-11-21');
+    // The compliance outcome in the words the editor shows, never its key (compliant, non_compliant, ...).
+    expect(Object.values(OVERALL_STATUS_LABELS)).toContain(readCsv(lines.join('\n')).data[0].compliance);
   });
 });
 

@@ -1,18 +1,4 @@
-import type { ComplianceReport, OverallComplianceStatus, RuleCheckResult, RuleStatus } from '@/lib/chemistry';
-
-export const RULE_STATUS_LABELS: Record<RuleStatus, string> = {
-  pass: 'Pass',
-  fail: 'Fail',
-  not_applicable: 'Not applicable',
-  not_evaluable: 'Not evaluable',
-};
-
-export const OVERALL_STATUS_LABELS: Record<OverallComplianceStatus, string> = {
-  compliant: 'Meets the rules checked',
-  non_compliant: 'Does not meet the rules',
-  incomplete: 'Incomplete: some rules could not be checked',
-  not_applicable: 'No rule applies to this product class',
-};
+import { OVERALL_STATUS_LABELS, RULE_STATUS_LABELS, type ComplianceReport, type OverallComplianceStatus, type RuleCheckResult, type RuleStatus } from '@/lib/chemistry';
 
 const STATUS_STYLE: Record<RuleStatus, string> = {
   pass: 'bg-leaf-50 text-leaf-700 ring-leaf-100',

@@ -1,7 +1,7 @@
 import Link from 'next/link';
 import { requirePage, orNotFound, pageId } from '@/lib/page-guard';
 import { getPromotionRequest } from '@/lib/production/queries';
-import { formatMass, formatTemperature, qcSpecCautions } from '@/lib/chemistry';
+import { formatMass, formatTemperature, OVERALL_STATUS_LABELS, qcSpecCautions } from '@/lib/chemistry';
 import { FACTOR_LABELS, type TrialFactor } from '@/lib/trials/vocabulary';
 import { PageHeader, Card } from '@/components/ui/Card';
 import { Notice } from '@/components/ui/Notice';
@@ -17,7 +17,6 @@ import { formatDate } from '@/lib/format/dates';
 import { promotionLabelComparison } from '@/lib/label/queries';
 import { LabelChanges } from '@/components/label/LabelChanges';
 import { LabReadings } from '@/components/production/LabReadings';
-import { OVERALL_STATUS_LABELS } from '@/components/formulas/editor/ComplianceTable';
 import type { OverallComplianceStatus } from '@/lib/chemistry';
 import { sentence } from '@/lib/format/words';
 
