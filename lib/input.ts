@@ -64,7 +64,7 @@ export function fieldLabel(path: readonly PropertyKey[]): string {
 export function invalidTypeMessage(path: readonly PropertyKey[], expected: string, input: unknown): string {
   const want = lookup(EXPECTED_WORDS, expected) ?? expected;
   const label = fieldLabel(path);
-  if (input === undefined) return `${label} is required: give ${want}.`;
+  if (input === undefined) return `${label} is missing; it must be ${want}.`;
   return `${label} must be ${want}, not ${kindOf(input)}.`;
 }
 

@@ -258,7 +258,7 @@ describe('values of the wrong JSON type', () => {
     expect(invalidTypeMessage(['settings'], 'object', [])).toBe('"settings" must be an object, not a list.');
     expect(invalidTypeMessage(['force'], 'boolean', 'yes')).toBe('"force" must be true or false, not text.');
     expect(invalidTypeMessage(['note'], 'string', null)).toBe('"note" must be text, not null.');
-    expect(invalidTypeMessage(['settings'], 'object', undefined)).toBe('"settings" is required: give an object.');
+    expect(invalidTypeMessage(['settings'], 'object', undefined)).toBe('"settings" is missing; it must be an object.');
     expect(invalidTypeMessage([], 'object', 'x')).toBe('The input must be an object, not text.');
   });
 
