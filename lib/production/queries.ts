@@ -13,10 +13,11 @@ import type { PromotionRequestEntity } from '@/entities/PromotionRequest';
 import { awaitsAnotherDecider, inWorkspace, mayDecide, mayWithdraw, notFound, type Actor } from '@/lib/permissions';
 import { trialCode } from '@/lib/trials/access';
 import { toCsv } from '@/lib/csv';
+import { ValidationFailed } from '@/lib/errors';
 import { defaultQcSpec, estimateEndPoint, outcomeOfChecks, qcSpecCautions, type QcSpec } from '@/lib/chemistry';
 import { getTrialOverview } from '@/lib/trials/queries';
 import { DEFAULT_FILL_TEMP_C, type AuditView, type ProductionProcess, type PromotionEvidence, type BatchDecisionView, type BatchSheetQuery, type BatchView, type BatchWorkItem, type ProductSummary, type PromotionDraftVariant, type PromotionSummary, type PromotionTargetProduct, type PromotionView, type SheetVersion, type VersionSummary, type VersionView } from './schema';
-import { buildBatchSheet, type BatchSheet } from './sheet';
+import { buildBatchSheet, sheetAmountProblem, type BatchSheet } from './sheet';
 import { fruitsOf, weighLines } from './review';
 import { promotionCode, type PromotionStatus } from './vocabulary';
 import { batchStanding, goodJarsOf } from './holds';
@@ -303,6 +304,8 @@ export async function getSheetVersion(actor: Actor, versionId: string): Promise<
 
 export async function getBatchSheet(actor: Actor, versionId: string, query: BatchSheetQuery): Promise<{ version: SheetVersion; sheet: BatchSheet }> {
   const version = await getSheetVersion(actor, versionId);
+  const tooSmallOrLarge = sheetAmountProblem(version, query);
+  if (tooSmallOrLarge) throw new ValidationFailed(tooSmallOrLarge, { amount: [tooSmallOrLarge] });
   const sheet = buildBatchSheet({
     productName: version.product.name, productCode: version.product.code, version: version.version,
     settings: version.settings, lines: version.lines, process: version.process, spec: version.spec,

@@ -516,6 +516,19 @@ describe('the batch sheet', () => {
     expect(res.status).toBe(422);
     expect(res.body.error.fields.amount[0]).toMatch(/more than 0/);
   });
+
+  it('refuses an amount below one jar or above the largest kettle with a 422 naming the amount', async () => {
+    const { versionId } = await createApprovedVersion(a);
+    for (const q of ['amount=0.001&unit=g', 'target=finished_mass&amount=1&unit=g', 'amount=5001&unit=kg', 'target=jar_count&amount=4000000']) {
+      const res = await callRoute(sheetRoute.GET, { method: 'GET', path: `/x?${q}`, caller: as('production'), params: { versionId } });
+      expect(res.status, q).toBe(422);
+      expect(res.body.error.fields.amount[0], q).toMatch(/too small to fill one|too large/);
+    }
+    for (const amount of ['NaN', 'Infinity', '-1', '1e400']) {
+      const res = await callRoute(sheetRoute.GET, { method: 'GET', path: `/x?amount=${amount}`, caller: as('production'), params: { versionId } });
+      expect(res.status, amount).toBe(422);
+    }
+  });
 });
 
 describe('the audit trail', () => {
