@@ -8,7 +8,11 @@ import { useEffect, useState } from 'react';
  */
 export function SavedNotice({ text }: { text: string }) {
   const [shown, setShown] = useState('');
-  useEffect(() => setShown(text), [text]);
+  useEffect(() => {
+    // A moment after the empty region is in the page, so assistive technology has registered it.
+    const t = setTimeout(() => setShown(text), 100);
+    return () => clearTimeout(t);
+  }, [text]);
   return (
     <div role="status" aria-live="polite" className={shown ? 'mb-4 rounded-lg bg-leaf-50 px-4 py-3 text-sm font-semibold text-leaf-700 ring-1 ring-inset ring-leaf-100' : ''}>
       {shown}
