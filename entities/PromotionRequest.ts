@@ -10,7 +10,8 @@ import type { QcSpec } from '../lib/chemistry/qc';
 
 /**
  * A developer's request to put a trial variant into production, with the evidence captured when it
- * was made. A request that is sent back stays as it was; the developer files a new one.
+ * was made. A request that is sent back stays as it was; the developer files a new one, which keeps
+ * the link to it (previousRequestId) so the reviewer sees what was asked for.
  */
 export const PromotionRequest = defineEntity({
   name: 'PromotionRequest',
@@ -38,6 +39,8 @@ export const PromotionRequest = defineEntity({
     decidedAt: p.datetime().nullable(),
     decisionComment: p.text().nullable(),
     productVersionId: p.uuid().nullable().fieldName('production_formula_id'),
+    /** The sent-back request of the same trial this one was filed after; null for a first request. */
+    previousRequestId: p.uuid().nullable(),
   }),
   indexes: [{ properties: ['workspace', 'status'] }],
   // Written by hand in a migration; declared here so `migration:create` knows them (and does not drop them).

@@ -31,6 +31,45 @@ export function readCsv(text: string): Papa.ParseResult<Record<string, string>> 
   });
 }
 
+/** What the reader could not read, by row, in plain words (plainCsvProblem). */
+export function csvReadProblems(parsed: Papa.ParseResult<unknown>): Array<{ row: number; message: string }> {
+  const columns = parsed.meta.fields?.length ?? 0;
+  // As a spreadsheet numbers rows (the header is row 1): the library counts a quote error's row from
+  // the header line, any other from the first data row.
+  const rowOf = (e: Papa.ParseError) => (e.row ?? 0) + (e.type === 'Quotes' ? 1 : 2);
+  const quoteRows = new Set(parsed.errors.filter((e) => e.type === 'Quotes').map(rowOf));
+  const problems = parsed.errors
+    // A guess at the separator: the header's columns show it was a comma after all.
+    .filter((e) => !(e.code === 'UndetectableDelimiter' && columns > 1))
+    // A quote left open swallows the cells after it: the cell count is its consequence, not a second problem.
+    .filter((e) => !(e.type === 'FieldMismatch' && quoteRows.has(rowOf(e))))
+    .map((e) => ({ row: rowOf(e), message: plainCsvProblem(e, columns) }));
+  return problems.filter((p, i) => problems.findIndex((q) => q.row === p.row && q.message === p.message) === i);
+}
+
+/**
+ * A reader's complaint in plain words: the CSV library's own wording ("Quoted field unterminated",
+ * "Too few fields: expected 5 fields but parsed 3") means nothing to a user.
+ */
+export function plainCsvProblem(e: Pick<Papa.ParseError, 'code' | 'message'>, columns: number): string {
+  const parsedCells = /parsed (\d+)/.exec(e.message)?.[1];
+  const cells = parsedCells ? `${parsedCells} cell${parsedCells === '1' ? '' : 's'}` : 'a different number of cells';
+  switch (e.code) {
+    case 'MissingQuotes':
+      return 'A cell opens with a double quote (") that is never closed, so the rest of the file reads as one cell. Close the quote, or remove it.';
+    case 'InvalidQuotes':
+      return 'A cell in double quotes has a stray quote inside it. Inside quotes, write a double quote as two ("").';
+    case 'TooFewFields':
+      return `This row has ${cells}, fewer than the ${columns} columns of the header row. Check for a missing comma or a line break inside a cell.`;
+    case 'TooManyFields':
+      return `This row has ${cells}, more than the ${columns} columns of the header row. A cell holding a comma must be in double quotes.`;
+    case 'UndetectableDelimiter':
+      return 'The cells are not separated by commas. Save the file as CSV with commas between cells.';
+    default:
+      return 'This row cannot be read as CSV. Save the file from the spreadsheet as CSV and try again.';
+  }
+}
+
 /**
  * A number as a spreadsheet should read it: 12 significant digits, so binary noise such as
  * 6.199999999999999 goes out as 6.2 while every digit a measurement or a statistic carries stays.

@@ -6,6 +6,7 @@ import type { EditorCostBasis } from '@/lib/costs/schema';
 import type { UnitPreference } from '@/lib/chemistry';
 import { apiFetch, ApiClientError } from '@/components/api/client';
 import { Notice } from '@/components/ui/Notice';
+import { unitPriceText } from '@/lib/pricing/display';
 import { TableBox } from '@/components/ui/TableBox';
 import { type EditorComputation, type LineDraft } from '@/components/formulas/editor-state';
 import { showMass } from '@/lib/format/quantities';
@@ -158,7 +159,7 @@ function CostDetail({ cost, currency, massUnits }: { cost: FormulaCost; currency
                   {l.refusePct > 0 ? <span className="block text-xs text-rind-500">{l.refusePct} % trimmed away</span> : null}
                 </th>
                 <td className={NUM}>{showMass(l.boughtG, massUnits)}</td>
-                <td className={NUM}>{l.price ? formatCost(l.price.perKgMinor, currency) : <Unknown />}</td>
+                <td className={NUM}>{l.price ? unitPriceText(l.price.perKgMinor, currency) : <Unknown />}</td>
                 <td className={NUM}>{l.batchMinor === null ? <Unknown /> : formatCost(l.batchMinor, currency)}</td>
                 <td className={NUM}>{(cost.perJar ? l.perJarMinor : l.perKgMinor) === null ? <Unknown /> : formatCost((cost.perJar ? l.perJarMinor : l.perKgMinor)!, currency)}</td>
                 <td className={NUM}>{pct(l.sharePct)}</td>

@@ -2,14 +2,41 @@
 
 import { CsvImportPanel } from '@/components/ui/CsvImportPanel';
 import { importIngredientsAction } from '@/lib/ingredients/actions';
+import type { IngredientImportResult } from '@/lib/ingredients/schema';
 
-/** Suppliers' values from a spreadsheet, all or nothing. */
+const cell = (v: string) => (v === '' ? 'blank' : v);
+
+/** The rows that would change ingredients already in the library, each change before → after. */
+function updatesPreview(d: IngredientImportResult) {
+  if (d.imported || !d.updates.length) return null;
+  const n = d.updates.length;
+  return {
+    title: `Nothing imported yet: ${n} row${n > 1 ? 's change ingredients' : ' changes an ingredient'} you already have.`,
+    body: (
+      <>
+        <ul className="list-disc space-y-1 pl-5" data-testid="csv-updates">
+          {d.updates.map((u) => (
+            <li key={u.ingredientId}>
+              <strong>Row {u.row} updates {u.name}:</strong>{' '}
+              {u.changes.length ? u.changes.map((c) => `${c.column} ${cell(c.before)} → ${cell(c.after)}`).join('; ') : 'no change in the file’s columns'}
+            </li>
+          ))}
+        </ul>
+        <p className="mt-2">The file also adds {d.created} and leaves {d.unchanged} unchanged. Nothing is imported unless you confirm.</p>
+      </>
+    ),
+    confirmLabel: `Import and update ${n} ingredient${n > 1 ? 's' : ''}`,
+  };
+}
+
+/** Suppliers' values from a spreadsheet, all or nothing; changes to ingredients already there are shown and confirmed first. */
 export function IngredientCsvImport() {
   return (
-    <CsvImportPanel title="Ingredients from a spreadsheet" fileLabel="CSV file of ingredients" send={importIngredientsAction}
+    <CsvImportPanel title="Ingredients from a spreadsheet" fileLabel="CSV file of ingredients" send={(csv, confirmed) => importIngredientsAction(csv, confirmed)}
+      preview={updatesPreview}
       done={(d) => `Imported: ${d.created} added, ${d.updated} changed, ${d.unchanged} unchanged.`}>
-      Use the columns of “Download CSV”. A row with an <code>id</code> (or the name of an ingredient you already have) replaces its values;
-      a blank cell means unknown, never zero. Nothing is imported unless every row is right.
+      Use the columns of “Download CSV”. A row with an <code>id</code> (or the name of an ingredient you already have) replaces its values:
+      you see each change and confirm it before anything is imported. A blank cell means unknown, never zero. Nothing is imported unless every row is right.
     </CsvImportPanel>
   );
 }

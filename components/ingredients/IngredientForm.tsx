@@ -153,7 +153,8 @@ export function IngredientForm({ initial, onSavedHref = '/ingredients' }: { init
     startTransition(async () => {
       const result = await saveIngredientAction(initial?.id ?? null, data);
       if (result.ok) {
-        router.push(onSavedHref);
+        // The list says which ingredient was saved (by id: the page reads its name, so a link cannot make it say anything else).
+        router.push(`${onSavedHref}${onSavedHref.includes('?') ? '&' : '?'}saved=${result.data.ingredientId}`);
         router.refresh();
         return;
       }

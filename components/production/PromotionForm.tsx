@@ -6,7 +6,7 @@ import { Button } from '@/components/ui/Button';
 import { Field, FieldErrorText, SelectField, inputClass } from '@/components/ui/Field';
 import { Notice } from '@/components/ui/Notice';
 import { qcSpecCautions, type QcSpec } from '@/lib/chemistry';
-import type { PromotionDraftVariant, PromotionTargetProduct } from '@/lib/production/schema';
+import type { PromotionDraftVariant, PromotionResubmission, PromotionTargetProduct } from '@/lib/production/schema';
 import { describeIdentity, identityDifferences } from '@/lib/production/review';
 import type { PromotionTarget } from '@/lib/production/vocabulary';
 import { requestPromotionAction } from '@/lib/production/actions';
@@ -68,31 +68,38 @@ function TargetComparison({ variant, mode, product, newName }: { variant: Promot
 }
 
 /** The developer's request: which variant, which product, how it is made, and the QC spec (pre-filled from the chemistry). */
-export function PromotionForm({ trialId, variants, products, recommendedVariantId, recommendationRationale, temperatureUnit }: {
+export function PromotionForm({ trialId, variants, products, recommendedVariantId, recommendationRationale, temperatureUnit, resubmission = null }: {
   trialId: string;
   variants: PromotionDraftVariant[];
   products: PromotionTargetProduct[];
   recommendedVariantId: string | null;
   recommendationRationale: string | null;
   temperatureUnit: TemperatureUnit;
+  /** The sent-back request this one is filed after: the form starts from its choices and words. */
+  resubmission?: PromotionResubmission | null;
 }) {
   const router = useRouter();
   const unit = temperatureUnit;
   const promotable = variants.filter((v) => v.defaults);
-  const initial = promotable.find((v) => v.id === recommendedVariantId) ?? promotable[0];
+  const before = resubmission && promotable.some((v) => v.id === resubmission.variantId) ? resubmission : null;
+  const initial = promotable.find((v) => v.id === (before?.variantId ?? recommendedVariantId)) ?? promotable[0];
   const [variantId, setVariantId] = useState(initial?.id ?? '');
   const variant = variants.find((v) => v.id === variantId);
-  // No default: filing a strawberry variant as the next blackcurrant version must be a choice, never a click-through.
-  const [mode, setMode] = useState<PromotionTarget | null>(null);
-  const [productId, setProductId] = useState('');
+  const beforeProduct = before?.productId && products.some((p) => p.id === before.productId) ? before.productId : null;
+  // No default: filing a strawberry variant as the next blackcurrant version must be a choice, never a click-through
+  // (a re-submission repeats the choice already made).
+  const [mode, setMode] = useState<PromotionTarget | null>(beforeProduct ? 'existing_product' : before?.newProductName ? 'new_product' : null);
+  const [productId, setProductId] = useState(beforeProduct ?? '');
   const product = products.find((p) => p.id === productId);
-  const [newName, setNewName] = useState('');
-  const [newCode, setNewCode] = useState('');
-  const [rationale, setRationale] = useState(recommendationRationale ?? '');
-  const [endPoint, setEndPoint] = useState(initial?.defaults ? toDisplayTemperature(initial.defaults.process.endPointSeaLevelC, unit) : '');
-  const [fillTemp, setFillTemp] = useState(initial?.defaults ? toDisplayTemperature(initial.defaults.process.fillTempC, unit) : '');
-  const [cookNotes, setCookNotes] = useState('');
-  const [spec, setSpec] = useState<SpecText | null>(initial?.defaults ? specText(initial.defaults.spec, unit) : null);
+  const [newName, setNewName] = useState(before?.newProductName ?? '');
+  const [newCode, setNewCode] = useState(before?.newProductCode ?? '');
+  const [rationale, setRationale] = useState(before?.rationale ?? recommendationRationale ?? '');
+  const startProcess = before?.process ?? initial?.defaults?.process;
+  const [endPoint, setEndPoint] = useState(startProcess ? toDisplayTemperature(startProcess.endPointSeaLevelC, unit) : '');
+  const [fillTemp, setFillTemp] = useState(startProcess ? toDisplayTemperature(startProcess.fillTempC, unit) : '');
+  const [cookNotes, setCookNotes] = useState(before?.process.cookNotes ?? '');
+  const startSpec = before?.spec ?? initial?.defaults?.spec;
+  const [spec, setSpec] = useState<SpecText | null>(startSpec ? specText(startSpec, unit) : null);
   const [fields, setFields] = useState<Record<string, string[]>>({});
   const [error, setError] = useState<string>();
   const [busy, setBusy] = useState(false);

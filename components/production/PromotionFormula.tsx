@@ -2,6 +2,7 @@ import { formatMass, type UnitPreference } from '@/lib/chemistry';
 import type { PromotionView } from '@/lib/production/schema';
 import type { FormulaRevisionView, FormulaSettingsInput, RevisionLine } from '@/lib/formulas/schema';
 import { RevisionDiff } from '@/components/formulas/RevisionDiff';
+import { TableBox } from '@/components/ui/TableBox';
 import { showLineMass, showSharePct } from '@/lib/format/quantities';
 
 /** The diff compares revisions; the two sides here are a production version and a variant, under one name. */
@@ -22,8 +23,10 @@ export function PromotionFormula({ formula, baseline, variantLabel, massUnits, t
   return (
     <div className="space-y-5">
       {weighed ? (
-        <div className="overflow-x-auto">
-          <table className="w-full min-w-[20rem] text-sm" data-testid="promotion-lines">
+        // No minimum width: a phone's card (318 px inside at 390 px) is narrower than any fixed one, which
+        // cut the "% of batch" column; the names wrap instead, and a table wider still scrolls in its box.
+        <TableBox label={`Variant ${variantLabel}, line by line`} framed={false}>
+          <table className="w-full text-sm" data-testid="promotion-lines">
             <caption className="pb-2 text-left text-rind-600">Variant {variantLabel}, as weighed for one batch of {formatMass(weighed.totalChargeG, massUnits)}</caption>
             <thead>
               <tr className="border-b border-pith-300 text-left text-rind-600">
@@ -42,7 +45,7 @@ export function PromotionFormula({ formula, baseline, variantLabel, massUnits, t
               ))}
             </tbody>
           </table>
-        </div>
+        </TableBox>
       ) : <p className="text-sm text-ember-700">These lines cannot be weighed out: the formula does not compute.</p>}
       {baseline ? (
         <RevisionDiff

@@ -25,8 +25,8 @@ export async function archiveIngredientAction(ingredientId: unknown, archived: u
 }
 
 /** All-or-nothing import of the library's CSV (the export's columns); every bad cell comes back as "row N, column". */
-export async function importIngredientsAction(csv: unknown) {
-  const result = await runAction('ingredients.write', importIngredientsSchema, { csv }, (actor, d) => importIngredientsCsv(actor, d.csv));
+export async function importIngredientsAction(csv: unknown, confirmUpdates?: unknown) {
+  const result = await runAction('ingredients.write', importIngredientsSchema, { csv, confirmUpdates }, (actor, d) => importIngredientsCsv(actor, d.csv, { confirmUpdates: d.confirmUpdates }));
   if (result.ok) revalidatePath('/ingredients');
   return result;
 }

@@ -3,13 +3,15 @@
  * imports back unchanged. Import is all-or-nothing: every row is checked first, errors are reported
  * by row and column, and nothing lands unless every row is good. A row replaces the values of the
  * ingredient its id names or, without an id, the one its name matches (ignoring case); any other row adds one.
+ * A file that changes ingredients already there is previewed first (each change, before → after) and
+ * lands only when the import is confirmed.
  */
 import { z } from 'zod';
-import { readCsv, toCsv } from '@/lib/csv';
+import { csvNumber, csvReadProblems, readCsv, toCsv } from '@/lib/csv';
 import { parseDecimal } from '@/lib/input';
 import { unreadableNumberMessage } from '@/lib/format/numbers';
 import { NUTRIENT_KEYS, type NutrientKey } from '@/lib/label/types';
-import { ingredientInputSchema, type IngredientInput, type IngredientView } from './schema';
+import { ingredientInputSchema, type IngredientFieldChange, type IngredientInput, type IngredientView } from './schema';
 
 /** How a nutrient is named in a CSV header. */
 const NUTRIENT_COLUMNS: Record<NutrientKey, string> = {
@@ -97,7 +99,11 @@ export function ingredientsToCsv(rows: IngredientView[]): string {
 
 /** At most as many rows as the library page lists. */
 export const MAX_INGREDIENT_IMPORT_ROWS = 1000;
-export const importIngredientsSchema = z.object({ csv: z.string({ error: 'Send the CSV text.' }).min(1, 'Send the CSV text.').max(2_000_000, 'At most 2 MB.') }).strict();
+export const importIngredientsSchema = z.object({
+  csv: z.string({ error: 'Send the CSV text.' }).min(1, 'Send the CSV text.').max(2_000_000, 'At most 2 MB.'),
+  /** Rows that change ingredients already in the library are written only with this: the first send previews them. */
+  confirmUpdates: z.boolean({ error: 'confirmUpdates is true or false.' }).optional(),
+}).strict();
 
 export interface CsvRowError {
   row: number;
@@ -118,10 +124,24 @@ function candidateOf(v: IngredientView | undefined): Candidate {
   return { ...values, labelData: { ...labelData, nutrients: { ...labelData.nutrients } }, eNumber: additive?.eNumber ?? '', additiveClass: additive?.functionalClass ?? '' };
 }
 
-/** A checked row and the library ingredient it replaces (null: a new one). */
+/** A checked row and the library ingredient it replaces (null: a new one), with what it changes there. */
 export interface IngredientCsvRow {
+  /** As a spreadsheet numbers it: the header is row 1. */
+  row: number;
   ingredientId: string | null;
   input: IngredientInput;
+  /** The file's columns whose value differs from the stored one (empty for a new ingredient). */
+  changes: IngredientFieldChange[];
+}
+
+/** The cells of the columns a file gives, before (the stored ingredient) and after (the row), as the export writes them. */
+function changesOf(target: IngredientView, input: IngredientInput, columns: Column[]): IngredientFieldChange[] {
+  const after = { ...target, ...input, labelData: { ...target.labelData, ...input.labelData } } as IngredientView;
+  const text = (c: Cell) => (c === null || c === undefined ? '' : typeof c === 'number' ? String(csvNumber(c)) : c);
+  return columns.flatMap((col) => {
+    const [b, a] = [text(col.out(target)), text(col.out(after))];
+    return b === a ? [] : [{ column: col.header, before: b, after: a }];
+  });
 }
 
 /**
@@ -136,7 +156,7 @@ export function parseIngredientCsv(text: string, library: IngredientView[] = [])
   for (const h of headers) if (!known.has(h)) errors.push({ row: 1, column: h, message: `Unknown column “${h}”. Known columns: ${[...known].join(', ')}.` });
   for (const required of ['name', 'kind', 'soluble_solids_pct']) if (!headers.includes(required)) errors.push({ row: 1, column: required, message: `The column “${required}” is required.` });
   if (new Set(headers).size !== headers.length) errors.push({ row: 1, column: '', message: 'A column appears twice.' });
-  for (const e of parsed.errors) errors.push({ row: (e.row ?? 0) + 2, column: '', message: e.message });
+  for (const e of csvReadProblems(parsed)) errors.push({ ...e, column: '' });
   if (errors.length) return { rows: [], errors };
   if (parsed.data.length === 0) return { rows: [], errors: [{ row: 2, column: '', message: 'The file has a header but no rows.' }] };
   if (parsed.data.length > MAX_INGREDIENT_IMPORT_ROWS) return { rows: [], errors: [{ row: MAX_INGREDIENT_IMPORT_ROWS + 2, column: '', message: `At most ${MAX_INGREDIENT_IMPORT_ROWS} rows per import.` }] };
@@ -186,7 +206,7 @@ export function parseIngredientCsv(text: string, library: IngredientView[] = [])
     const first = seen.get(key);
     if (first) errors.push({ row: rowNumber, column: target ? 'id' : 'name', message: `Row ${first} already gives this ingredient.` });
     else seen.set(key, rowNumber);
-    rows.push({ ingredientId: target?.id ?? null, input: result.data });
+    rows.push({ row: rowNumber, ingredientId: target?.id ?? null, input: result.data, changes: target ? changesOf(target, result.data, columns) : [] });
   });
   return { rows: errors.length ? [] : rows, errors };
 }

@@ -10,7 +10,7 @@ import { parseIngredientCsv } from './csv';
 import { listIngredients } from './queries';
 import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
 import { TYPICAL_INGREDIENTS } from '@/lib/chemistry';
-import type { IngredientInput } from './schema';
+import type { IngredientImportResult, IngredientInput } from './schema';
 import type { IngredientLabelFields } from './label-data';
 import { STARTER_LABEL_DATA } from './starter-composition';
 
@@ -91,32 +91,38 @@ function sameValues(row: IngredientEntity, input: IngredientInput): boolean {
  * replaces the values of the ingredients the rows name (by id, or by name ignoring case; archived
  * ones too, so none is duplicated) and adds the rest as the workspace's own.
  */
-export async function importIngredientsCsv(actor: Actor, text: string): Promise<{ created: number; updated: number; unchanged: number }> {
-  const { rows, errors } = parseIngredientCsv(text, await listIngredients(actor, { archived: 'include' }));
+export async function importIngredientsCsv(actor: Actor, text: string, options: { confirmUpdates?: boolean } = {}): Promise<IngredientImportResult> {
+  const library = await listIngredients(actor, { archived: 'include' });
+  const { rows, errors } = parseIngredientCsv(text, library);
   if (errors.length) {
     const fields: Record<string, string[]> = {};
     for (const e of errors) (fields[`row ${e.row}${e.column ? `, ${e.column}` : ''}`] ??= []).push(e.message);
     throw new ValidationFailed(`Nothing was imported: ${errors.length} problem${errors.length > 1 ? 's' : ''} in the file.`, fields);
   }
   const em = await getEm();
-  return em.transactional(async (tx) => {
+  const plan = async (tx: EntityManager) => {
     const ids = rows.flatMap((r) => (r.ingredientId ? [r.ingredientId] : []));
     const existing = new Map((await tx.find(Ingredient, { ...inWorkspace(actor), id: { $in: ids } })).map((r) => [r.id, r]));
-    let created = 0;
-    let updated = 0;
-    let unchanged = 0;
-    for (const { ingredientId, input } of rows) {
-      const row = ingredientId ? existing.get(ingredientId) : undefined;
-      if (row && sameValues(row, input)) unchanged++;
-      else if (row) {
-        assignRow(row, actor, input);
-        updated++;
-      } else {
-        createRow(tx, actor, input);
-        created++;
-      }
+    const steps = rows.map((r) => {
+      const stored = r.ingredientId ? existing.get(r.ingredientId) : undefined;
+      return { ...r, stored, kind: !stored ? ('create' as const) : sameValues(stored, r.input) ? ('keep' as const) : ('update' as const) };
+    });
+    const count = (k: string) => steps.filter((s) => s.kind === k).length;
+    const updates = steps.flatMap((s) => (s.kind === 'update' && s.stored ? [{ row: s.row, ingredientId: s.stored.id, name: s.stored.name, changes: s.changes }] : []));
+    return { steps, result: { imported: false, created: count('create'), updated: count('update'), unchanged: count('keep'), updates } };
+  };
+  // Changing what the library holds is never silent: the first send only previews the updates.
+  if (!options.confirmUpdates) {
+    const { result } = await plan(em.fork());
+    if (result.updates.length) return result;
+  }
+  return em.transactional(async (tx) => {
+    const { steps, result } = await plan(tx);
+    for (const s of steps) {
+      if (s.kind === 'update' && s.stored) assignRow(s.stored, actor, s.input);
+      else if (s.kind === 'create') createRow(tx, actor, s.input);
     }
-    return { created, updated, unchanged };
+    return { ...result, imported: true };
   });
 }
 

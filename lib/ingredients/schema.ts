@@ -181,6 +181,23 @@ export function editorIngredientOf(view: IngredientView): EditorIngredient {
   return { ...composition, labelData: label };
 }
 
+/** One column of an ingredient an import row would change, as the CSV writes it ('' is blank). */
+export interface IngredientFieldChange {
+  column: string;
+  before: string;
+  after: string;
+}
+
+/** What an ingredient import did, or (imported: false) would do once its updates are confirmed. */
+export interface IngredientImportResult {
+  imported: boolean;
+  created: number;
+  updated: number;
+  unchanged: number;
+  /** The rows that change an ingredient already in the library. */
+  updates: Array<{ row: number; ingredientId: string; name: string; changes: IngredientFieldChange[] }>;
+}
+
 export const ingredientListQuerySchema = z.object({
   q: searchText.optional(),
   kind: z.enum(INGREDIENT_KINDS).optional(),

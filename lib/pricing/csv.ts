@@ -7,7 +7,7 @@ import { getEm, lockForTransaction } from '@/lib/db';
 import { Ingredient, IngredientPrice } from '@/entities';
 import { inWorkspace, type Actor } from '@/lib/permissions';
 import { ValidationFailed } from '@/lib/errors';
-import { readCsv, toCsv } from '@/lib/csv';
+import { csvReadProblems, readCsv, toCsv } from '@/lib/csv';
 import { todayIso } from '@/lib/format/dates';
 import { parseDecimal, unsafeTextReason } from '@/lib/input';
 import { costSettings } from './queries';
@@ -40,7 +40,7 @@ export function parsePriceCsv(text: string, ingredientIdsByName: Map<string, str
     else if (!known.has(h)) errors.push({ row: 1, column: h, message: `Unknown column “${h}”. Known columns: ${PRICE_CSV_COLUMNS.join(', ')}.` });
   }
   for (const required of REQUIRED) if (!headers.includes(required)) errors.push({ row: 1, column: required, message: `The column “${required}” is required.` });
-  for (const e of parsed.errors) errors.push({ row: (e.row ?? 0) + 2, column: '', message: e.message });
+  for (const e of csvReadProblems(parsed)) errors.push({ ...e, column: '' });
   if (errors.length) return { rows: [], errors };
   if (parsed.data.length === 0) return { rows: [], errors: [{ row: 2, column: '', message: 'The file has a header but no rows.' }] };
   if (parsed.data.length > PRICE_LIMITS.maxCsvRows) return { rows: [], errors: [{ row: PRICE_LIMITS.maxCsvRows + 2, column: '', message: `At most ${PRICE_LIMITS.maxCsvRows} rows per import.` }] };

@@ -9,10 +9,24 @@ export function packSizeText(grams: number, massUnits: 'metric' | 'imperial'): s
   return grams >= 1000 ? `${+(grams / 1000).toFixed(3)} kg` : `${+grams.toFixed(3)} g`;
 }
 
+/** At most this many digits past the minor unit: a price per kg of mains water (GBP 2.10 per 1000 kg) needs two. */
+const MAX_EXTRA_DIGITS = 4;
+
+/**
+ * A price per unit (minor units, unrounded) for a screen: a price of 0 says "no cost"; one that the
+ * currency's minor unit would round to 0.00 keeps two significant digits ("GBP 0.0021"), never a false zero.
+ */
+export function unitPriceText(minor: number, currency: string): string {
+  if (minor === 0) return 'no cost';
+  const extra = Math.abs(minor) >= 0.5 ? 0 : Math.min(MAX_EXTRA_DIGITS, Math.ceil(-Math.log10(Math.abs(minor))) + 1);
+  return formatMoney(minor, currency, extra);
+}
+
 /** The price of 1 kg (or 1 lb) bought, from a pack's price and size. */
 export function perMassText(packPriceMinor: number, packSizeG: number, currency: string, massUnits: 'metric' | 'imperial'): string {
   const per = massUnits === 'imperial' ? GRAMS_PER_LB : 1000;
-  return `${formatMoney((packPriceMinor / packSizeG) * per, currency)} per ${massUnits === 'imperial' ? 'lb' : 'kg'}`;
+  const price = unitPriceText((packPriceMinor / packSizeG) * per, currency);
+  return packPriceMinor === 0 ? price : `${price} per ${massUnits === 'imperial' ? 'lb' : 'kg'}`;
 }
 
 export function perPieceText(packPriceMinor: number, piecesPerPack: number, currency: string): string {

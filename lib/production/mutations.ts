@@ -129,7 +129,10 @@ export async function requestPromotion(actor: Actor, input: RequestPromotionInpu
       throw new Conflict('This trial already has a promotion request awaiting review: withdraw it or wait for the decision.');
     }
     const last = await tx.findOne(PromotionRequest, inWorkspace(actor), { orderBy: { number: 'desc' } });
+    // Filed after a sent-back request of this trial: keep the link, so the reviewer sees what was asked for.
+    const previous = await tx.findOne(PromotionRequest, { ...inWorkspace(actor), trial: trial.id }, { orderBy: { number: 'desc' } });
     const request = tx.create(PromotionRequest, {
+      previousRequestId: previous?.status === 'sent_back' ? previous.id : null,
       workspace: actor.workspaceId, number: (last?.number ?? 0) + 1, trial: trial.id, variantId: variant.id, variantLabel: variant.label,
       product: input.target === 'existing_product' ? input.productId : null,
       newProductName: input.target === 'new_product' ? input.newProductName : null, newProductCode: input.target === 'new_product' ? input.newProductCode : null,

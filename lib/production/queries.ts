@@ -13,10 +13,11 @@ import type { PromotionRequestEntity } from '@/entities/PromotionRequest';
 import { awaitsAnotherDecider, inWorkspace, mayDecide, mayWithdraw, notFound, type Actor } from '@/lib/permissions';
 import { trialCode } from '@/lib/trials/access';
 import { toCsv } from '@/lib/csv';
+import { ValidationFailed } from '@/lib/errors';
 import { defaultQcSpec, estimateEndPoint, outcomeOfChecks, QC_CHECK_STATUS_LABELS, qcSpecCautions, type QcSpec } from '@/lib/chemistry';
 import { getTrialOverview } from '@/lib/trials/queries';
-import { DEFAULT_FILL_TEMP_C, type AuditView, type ProductionProcess, type PromotionEvidence, type BatchDecisionView, type BatchSheetQuery, type BatchView, type BatchWorkItem, type ProductSummary, type PromotionDraftVariant, type PromotionSummary, type PromotionTargetProduct, type PromotionView, type SheetVersion, type VersionSummary, type VersionView } from './schema';
-import { buildBatchSheet, type BatchSheet } from './sheet';
+import { DEFAULT_FILL_TEMP_C, type AuditView, type ProductionProcess, type PromotionEvidence, type BatchDecisionView, type BatchSheetQuery, type BatchView, type BatchWorkItem, type ProductSummary, type PromotionDraftVariant, type PromotionResubmission, type PromotionSummary, type PromotionTargetProduct, type PromotionView, type SheetVersion, type VersionSummary, type VersionView } from './schema';
+import { buildBatchSheet, sheetAmountProblem, type BatchSheet } from './sheet';
 import { fruitsOf, weighLines } from './review';
 import { BATCH_OUTCOME_LABELS, BATCH_STATUS_LABELS, promotionCode, type PromotionStatus } from './vocabulary';
 import { batchStanding, goodJarsOf } from './holds';
@@ -70,6 +71,7 @@ type RequestRecord = {
   new_product_name: string | null; new_product_code: string | null; rationale: string;
   process: ProductionProcess; spec: QcSpec; evidence: PromotionEvidence;
   requested_at: Date; decided_at: Date | null; decision_comment: string | null; product_version_id: string | null;
+  previous: { id: string; number: number; decisionComment: string | null } | null;
   requested_by_id: string; requested_by_name: string; decided_by_name: string | null;
   trial_id: string; trial_number: number; trial_title: string;
   product_id: string | null; product_name: string | null; product_code: string | null;
@@ -94,6 +96,8 @@ export async function getPromotionRequest(actor: Actor, requestId: string): Prom
             r.requested_by_id, rb.name as requested_by_name, db.name as decided_by_name,
             t.id as trial_id, t.number as trial_number, t.title as trial_title,
             p.id as product_id, p.name as product_name, p.code as product_code,
+            (select json_build_object('id', pr.id, 'number', pr.number, 'decisionComment', pr.decision_comment)
+               from promotion_requests pr where pr.workspace_id = r.workspace_id and pr.id = r.previous_request_id) as previous,
             coalesce((select json_agg(json_build_object(
                         'id', h.id, 'number', h.number, 'status', h.status, 'variantLabel', h.variant_label,
                         'product', case when hp.id is null then null else json_build_object('name', hp.name, 'code', hp.code) end,
@@ -140,6 +144,7 @@ export async function getPromotionRequest(actor: Actor, requestId: string): Prom
     rationale: r.rationale, process: r.process, spec: r.spec, evidence: r.evidence,
     requestedById: r.requested_by_id,
     decidedBy: r.decided_by_name, decisionComment: r.decision_comment, productVersionId: r.product_version_id,
+    previousRequest: r.previous ? { id: r.previous.id, code: promotionCode(r.previous.number), sentBackBecause: r.previous.decisionComment ?? '' } : null,
     canDecide: pending && mayDecide(actor, parties),
     awaitsAnotherDecider: pending && awaitsAnotherDecider(actor, parties),
     canWithdraw: pending && mayWithdraw(actor, parties),
@@ -303,6 +308,8 @@ export async function getSheetVersion(actor: Actor, versionId: string): Promise<
 
 export async function getBatchSheet(actor: Actor, versionId: string, query: BatchSheetQuery): Promise<{ version: SheetVersion; sheet: BatchSheet }> {
   const version = await getSheetVersion(actor, versionId);
+  const tooSmallOrLarge = sheetAmountProblem(version, query);
+  if (tooSmallOrLarge) throw new ValidationFailed(tooSmallOrLarge, { amount: [tooSmallOrLarge] });
   const sheet = buildBatchSheet({
     productName: version.product.name, productCode: version.product.code, version: version.version,
     settings: version.settings, lines: version.lines, process: version.process, spec: version.spec,
@@ -381,6 +388,7 @@ export async function getPromotionDraft(actor: Actor, trialId: string): Promise<
   recommendationRationale: string | null;
   products: PromotionTargetProduct[];
   pending: PromotionSummary | null;
+  resubmission: PromotionResubmission | null;
 }> {
   const trial = await getTrialOverview(actor, trialId);
   const em = await getEm();
@@ -407,6 +415,22 @@ export async function getPromotionDraft(actor: Actor, trialId: string): Promise<
     recommendationRationale: row?.recommendationRationale ?? null,
     products: await listPromotableProducts(actor),
     pending,
+    resubmission: pending ? null : await resubmissionOf(actor, trialId),
+  };
+}
+
+/**
+ * The trial's latest request when it was sent back: a new request is filed after it (the mutation links
+ * them), and the form starts from what it asked for.
+ */
+async function resubmissionOf(actor: Actor, trialId: string): Promise<PromotionResubmission | null> {
+  const em = await getEm();
+  const last = await em.findOne(PromotionRequest, { ...inWorkspace(actor), trial: trialId }, { orderBy: { number: 'desc' } });
+  if (!last || last.status !== 'sent_back') return null;
+  return {
+    id: last.id, code: promotionCode(last.number), sentBackBecause: last.decisionComment ?? '',
+    variantId: last.variantId, productId: last.product?.id ?? null, newProductName: last.newProductName ?? null, newProductCode: last.newProductCode ?? null,
+    rationale: last.rationale, process: last.process, spec: last.spec,
   };
 }
 

@@ -287,6 +287,8 @@ export interface PromotionView extends PromotionSummary {
   decidedBy: string | null;
   decisionComment: string | null;
   productVersionId: string | null;
+  /** The sent-back request this one was filed after, with the reason it was sent back. */
+  previousRequest: { id: string; code: string; sentBackBecause: string } | null;
   /** The permissions module decides; the page only shows what it allows. */
   canDecide: boolean;
   /** The viewer holds the deciding role but made this request: another head of product decides it. */
@@ -425,6 +427,20 @@ export interface PromotionDraftVariant {
   fruits: string[];
   /** Null when the variant's chemistry cannot be computed. */
   defaults: { spec: QcSpec; process: ProductionProcess; cautions: Caution[] } | null;
+}
+
+/** A sent-back request the next request of its trial starts from. */
+export interface PromotionResubmission {
+  id: string;
+  code: string;
+  sentBackBecause: string;
+  variantId: string;
+  productId: string | null;
+  newProductName: string | null;
+  newProductCode: string | null;
+  rationale: string;
+  process: ProductionProcess;
+  spec: QcSpec;
 }
 
 export interface BatchWorkItem {

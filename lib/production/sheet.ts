@@ -3,7 +3,7 @@
  * the scale, the end point for the kitchen's altitude, and the QC targets. Pure.
  */
 import {
-  computeMassBalance, qcSpecCautions, resolveWaterBoilingPoint, scaleFormula, STANDARD_PRESSURE_PA, waterBoilingPointAtPressureC,
+  computeMassBalance, formatMass, qcSpecCautions, toGrams, resolveWaterBoilingPoint, scaleFormula, STANDARD_PRESSURE_PA, waterBoilingPointAtPressureC,
   type Caution, type QcSpec, type ScaledFormula, type ScaleTarget,
 } from '@/lib/chemistry';
 import { chemistryFieldPath, storedValueProblem, toChemistrySettings } from '@/lib/formulas/compute';
@@ -31,6 +31,38 @@ export interface BatchSheet {
   spec: QcSpec;
   cautions: Caution[];
   steps: string[];
+}
+
+/**
+ * The largest kettle charge a batch sheet scales to: 5 t, beyond any open pan or vacuum kettle of a
+ * preserve kitchen. Common practice, no published source.
+ */
+export const SHEET_MAX_CHARGE_G = 5_000_000;
+
+/**
+ * Why a batch sheet cannot be scaled to the amount asked, in words for the amount field; null when it can.
+ * The batch must fill at least one jar of the formula's net fill, and its kettle charge stay within
+ * SHEET_MAX_CHARGE_G. Non-finite or non-positive amounts are refused by the query schema before this.
+ */
+export function sheetAmountProblem(source: Pick<SheetSource, 'settings' | 'lines'>, query: BatchSheetQuery): string | null {
+  if (query.amount === undefined) return null;
+  const settings = toChemistrySettings(source.settings);
+  const base = computeMassBalance(source.lines, settings);
+  const finishedPerCharge = base.finishedMassG / base.totalChargeG;
+  const finishedG =
+    query.target === 'jar_count' ? query.amount * settings.jarNetFillG
+      : query.target === 'finished_mass' ? toGrams(query.amount, query.unit)
+        : toGrams(query.amount, query.unit) * finishedPerCharge;
+  const chargeG = finishedG / finishedPerCharge;
+  const unit = query.unit === 'lb' || query.unit === 'oz' ? 'imperial' : 'metric';
+  if (!Number.isFinite(chargeG) || chargeG > SHEET_MAX_CHARGE_G) {
+    return `That batch is too large: a batch sheet scales to a kettle charge of at most ${formatMass(SHEET_MAX_CHARGE_G, unit)}.`;
+  }
+  if (finishedG < settings.jarNetFillG) {
+    const oneJar = query.target === 'total_charge' ? settings.jarNetFillG / finishedPerCharge : settings.jarNetFillG;
+    return `That batch is too small to fill one ${settings.jarNetFillG} g jar: scale to at least ${formatMass(Math.ceil(oneJar), unit)} ${query.target === 'total_charge' ? 'of kettle charge' : 'of finished product'}.`;
+  }
+  return null;
 }
 
 export function buildBatchSheet(source: SheetSource, query: BatchSheetQuery): BatchSheet {

@@ -6,7 +6,7 @@ import { getEm } from '@/lib/db';
 import { Cook, Trial, Variant } from '@/entities';
 import { inWorkspace, notFound, type Actor } from '@/lib/permissions';
 import { ValidationFailed } from '@/lib/errors';
-import { readCsv, toCsv } from '@/lib/csv';
+import { csvReadProblems, readCsv, toCsv } from '@/lib/csv';
 import { parseDecimal } from '@/lib/input';
 import { unreadableNumberMessage } from '@/lib/format/numbers';
 import { cookSchema } from './schema';
@@ -50,7 +50,7 @@ export function parseCookCsv(text: string, variantIdByLabel: Map<string, string>
   const known = new Set<string>(COOK_CSV_COLUMNS.map((c) => c.column));
   for (const h of headers) if (!known.has(h)) errors.push({ row: 1, column: h, message: `Unknown column “${h}”. Known columns: ${[...known].join(', ')}.` });
   for (const required of ['variant', 'cook_date']) if (!headers.includes(required)) errors.push({ row: 1, column: required, message: `The column “${required}” is required.` });
-  for (const e of parsed.errors) errors.push({ row: (e.row ?? 0) + 2, column: '', message: e.message });
+  for (const e of csvReadProblems(parsed)) errors.push({ ...e, column: '' });
   if (errors.length) return { rows: [], errors };
   if (parsed.data.length === 0) return { rows: [], errors: [{ row: 2, column: '', message: 'The file has a header but no rows.' }] };
   if (parsed.data.length > MAX_IMPORT_ROWS) return { rows: [], errors: [{ row: MAX_IMPORT_ROWS + 2, column: '', message: `At most ${MAX_IMPORT_ROWS} rows per import.` }] };

@@ -46,7 +46,12 @@ describe('ingredient label data', () => {
     await page.getByLabel('Sesame seeds', { exact: true }).focus();
     await page.keyboard.press('Space');
     await page.getByRole('button', { name: 'Add ingredient' }).click();
-    await page.waitForURL('**/ingredients');
+    await page.waitForURL(/\/ingredients\?saved=[0-9a-f-]{36}$/);
+    // The list confirms the save in a live region, so a screen reader announces it.
+    const savedNotice = page.getByRole('status').filter({ hasText: `Saved ${name}.` });
+    await savedNotice.waitFor();
+    await expect(savedNotice.getAttribute('aria-live')).resolves.toBe('polite');
+    await checkpoint(page, watch, `ingredients-label-${window}-saved-notice`);
 
     await page.goto(`/ingredients?q=${encodeURIComponent(name)}`);
     await page.getByRole('link', { name }).click();

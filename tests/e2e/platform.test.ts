@@ -1,6 +1,6 @@
 /** Sign-in per role, the navigation's pending mark, the invitation round trip through the mail fake, wrong passwords and the rate limit. */
 import { describe, it, expect } from 'vitest';
-import { sharedBrowser, newContext, signIn, mailTo, screenshot } from './browser';
+import { sharedBrowser, newContext, signIn, mailTo, screenshot, PHONE } from './browser';
 import { DEMO_USERS } from '@/lib/seed/demo';
 import { navFor } from '@/lib/navigation';
 
@@ -122,6 +122,48 @@ describe('invitations', () => {
     await page.goto('/production/audit');
     await page.getByTestId('audit-trail').getByText(`Pia Newcomb (${invitee}): Production lead → Taster`).waitFor();
     await page.getByTestId('audit-trail').getByText(`Invited ${invitee} as Production lead`).waitFor();
+    await ctx.close();
+  });
+});
+
+describe('the role-change dialog on a phone (390 px)', () => {
+  it('fits the window, and cancels or changes the role with its buttons', async () => {
+    const ctx = await newContext(browser(), PHONE);
+    const page = await ctx.newPage();
+    await signIn(page, DEMO_USERS[0].email);
+    await page.goto('/settings/members');
+    const taster = DEMO_USERS.find((u) => u.role === 'taster')!;
+    const role = page.getByLabel(`Role of ${taster.name}`);
+    await role.selectOption('production');
+    const dialog = page.getByRole('dialog');
+    await dialog.getByRole('heading', { name: `Make ${taster.name} Production lead?` }).waitFor();
+    // Whole inside the window, buttons too: nothing to scroll sideways to reach them.
+    const inside = async (box: { x: number; y: number; width: number; height: number } | null) => {
+      expect(box).not.toBeNull();
+      expect(box!.x).toBeGreaterThanOrEqual(0);
+      expect(box!.y).toBeGreaterThanOrEqual(0);
+      expect(box!.x + box!.width).toBeLessThanOrEqual(PHONE.width);
+      expect(box!.y + box!.height).toBeLessThanOrEqual(PHONE.height);
+    };
+    await inside(await dialog.boundingBox());
+    for (const name of ['Cancel', 'Change role']) {
+      const button = dialog.getByRole('button', { name });
+      await inside(await button.boundingBox());
+      // A finger-sized target (WCAG 2.2 SC 2.5.8 asks at least 24 × 24 CSS px).
+      expect((await button.boundingBox())!.height).toBeGreaterThanOrEqual(24);
+    }
+    await screenshot(page, 'members-role-dialog-phone');
+    await dialog.getByRole('button', { name: 'Cancel' }).click();
+    await dialog.waitFor({ state: 'hidden' });
+    await expect.poll(() => role.inputValue()).toBe('taster');
+    // Confirmed, then put back as it was for the other tests.
+    await role.selectOption('production');
+    await dialog.getByRole('button', { name: 'Change role' }).click();
+    await page.getByText(`${taster.name} is now Production lead.`).waitFor();
+    await role.selectOption('taster');
+    await dialog.getByRole('button', { name: 'Change role' }).click();
+    await page.getByText(`${taster.name} is now Taster.`).waitFor();
+    await expect.poll(() => role.inputValue()).toBe('taster');
     await ctx.close();
   });
 });

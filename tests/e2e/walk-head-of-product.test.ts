@@ -6,7 +6,7 @@
  * production with its trends. Every stop fails on a console error, a CSP violation, an uncaught
  * exception or a page wider than the window (tests/e2e/browser.ts).
  */
-import { describe, it } from 'vitest';
+import { describe, it, expect } from 'vitest';
 import { sharedBrowser, signIn, startWalk, WINDOWS } from './browser';
 import { DEMO_USERS } from '@/lib/seed/demo';
 
@@ -30,6 +30,9 @@ describe.each(WINDOWS)('the head of product walks the loop (%s)', (size, viewpor
       await page.getByRole('heading', { name: heading }).waitFor();
     }
     await walk.stop('review-evidence');
+    // The formula's "% of batch" column reads whole as the page opens: its right edge inside its scroll
+    // box and the window, with nothing to scroll (a walk found it cut by a few pixels at 390 px).
+    await expect(page.getByTestId('promotion-lines').evaluate(clippedColumn, '% of batch')).resolves.toBeNull();
     await page.getByRole('button', { name: 'Approve for production' }).click();
     const dialog = page.getByRole('dialog');
     await dialog.waitFor();
@@ -50,3 +53,24 @@ describe.each(WINDOWS)('the head of product walks the loop (%s)', (size, viewpor
     await walk.close();
   });
 });
+
+/**
+ * Null when a table's column (by its header) is seen whole where it stands: its cells end inside
+ * every ancestor that clips sideways (a scroll box, as scrolled now) and inside the window; else
+ * where it is cut. Runs in the page.
+ */
+function clippedColumn(table: HTMLElement, header: string): string | null {
+  const headers = [...table.querySelectorAll('thead th')];
+  const index = headers.findIndex((th) => th.textContent?.trim() === header);
+  if (index < 0) return `no column "${header}"`;
+  const clippers: HTMLElement[] = [];
+  for (let el = table.parentElement; el; el = el.parentElement) if (getComputedStyle(el).overflowX !== 'visible') clippers.push(el);
+  const cells = [...table.querySelectorAll('tr')].map((tr) => tr.children[index]).filter((c): c is Element => !!c);
+  const right = Math.max(...cells.map((c) => c.getBoundingClientRect().right));
+  const limits = [
+    { what: 'the window', right: document.documentElement.clientWidth },
+    ...clippers.map((el) => ({ what: `${el.tagName.toLowerCase()}.${[...el.classList].slice(0, 3).join('.')}`, right: el.getBoundingClientRect().left + el.clientLeft + el.clientWidth })),
+  ];
+  const cut = limits.filter((l) => right > l.right + 0.5);
+  return cut.length ? cut.map((l) => `ends at ${right.toFixed(1)} px, past ${l.what} at ${l.right.toFixed(1)} px`).join('; ') : null;
+}

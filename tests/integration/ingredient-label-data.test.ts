@@ -94,7 +94,7 @@ describe('CSV', () => {
     const res = await exportRoute.GET(new Request('http://127.0.0.1/api/v1/ingredients/export?archived=include', { headers: { cookie: a.people.developer.sessionCookie } }));
     return res.text();
   }
-  const importCsv = (csv: string) => callRoute(importRoute.POST, { method: 'POST', path: '/api/v1/ingredients/import', caller: dev(), body: { csv } });
+  const importCsv = (csv: string, confirmUpdates?: boolean) => callRoute(importRoute.POST, { method: 'POST', path: '/api/v1/ingredients/import', caller: dev(), body: { csv, ...(confirmUpdates === undefined ? {} : { confirmUpdates }) } });
 
   it('exports the label columns, and the export imports back changing nothing', async () => {
     const csv = await exportCsv();
@@ -117,9 +117,20 @@ describe('CSV', () => {
       + 'Greengage purée,fruit,16,greengages,82.5,,,,\n'
       + 'forced RHUBARB,fruit,5,rhubarb,93.6,1.1,sulphites;celery,,\n'
       + 'Agar powder,other,100,agar,10,0,,E406,gelling_agent\n';
-    const res = await importCsv(csv);
+    // A row that changes an ingredient already there: nothing lands, and the answer lists each change.
+    const before = await libraryChecksum(a.workspaceId);
+    const asked = await importCsv(csv);
+    expect(asked.status, JSON.stringify(asked.body)).toBe(409);
+    expect(asked.body.error.code).toBe('confirm_updates');
+    expect(asked.body.error.fields).toEqual({
+      'row 3, Forced rhubarb': ['name: Forced rhubarb → forced RHUBARB', 'water_g: 93.61 → 93.6', 'eu_allergens: sulphites → sulphites;celery'],
+    });
+    expect(await libraryChecksum(a.workspaceId)).toBe(before);
+    expect((await importCsv(csv, false)).status).toBe(409);
+    expect(await libraryChecksum(a.workspaceId)).toBe(before);
+    const res = await importCsv(csv, true);
     expect(res.status, JSON.stringify(res.body)).toBe(200);
-    expect(res.body).toMatchObject({ created: 2, updated: 1 });
+    expect(res.body).toMatchObject({ imported: true, created: 2, updated: 1 });
     const list = (await callRoute(ingredientsRoute.GET, { method: 'GET', path: '/api/v1/ingredients?q=agar', caller: dev() })).body.ingredients;
     expect(list[0].labelData.additive).toEqual({ eNumber: 'E406', functionalClass: 'gelling_agent' });
     const rhubarb = (await callRoute(ingredientsRoute.GET, { method: 'GET', path: '/api/v1/ingredients?q=forced', caller: dev() })).body.ingredients[0];
@@ -146,6 +157,15 @@ describe('CSV', () => {
     expect(await libraryChecksum(a.workspaceId)).toBe(before);
     const stranger = await importCsv('id,name,kind,soluble_solids_pct\n00000000-0000-4000-8000-000000000000,X,fruit,1\n');
     expect(Object.keys(stranger.body.error.fields)).toEqual(['row 2, id']);
+    // The reader's own wording ("Quoted field unterminated", "Too few fields: …") never reaches the user.
+    const unclosed = await importCsv('name,kind,soluble_solids_pct\nGood plum,fruit,14\n"Bad plum,fruit,14\n');
+    expect(unclosed.status).toBe(422);
+    expect(unclosed.body.error.fields).toEqual({ 'row 3': ['A cell opens with a double quote (") that is never closed, so the rest of the file reads as one cell. Close the quote, or remove it.'] });
+    const short = await importCsv('name,kind,soluble_solids_pct\nGood plum,fruit\n');
+    expect(short.body.error.fields).toEqual({ 'row 2': ['This row has 2 cells, fewer than the 3 columns of the header row. Check for a missing comma or a line break inside a cell.'] });
+    const long = await importCsv('name,kind,soluble_solids_pct\nGood plum,fruit,14,3\n');
+    expect(long.body.error.fields['row 2'][0]).toMatch(/^This row has 4 cells, more than the 3 columns/);
+    expect(await libraryChecksum(a.workspaceId)).toBe(before);
     const unknown = await importCsv('name,kind,soluble_solids_pct,__proto__\nX,fruit,1,2\n');
     expect(unknown.status).toBe(422);
     expect(Object.keys(unknown.body.error.fields)).toEqual(['row 1, __proto__']);

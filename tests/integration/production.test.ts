@@ -28,6 +28,7 @@ import { scaleFormula } from '@/lib/chemistry';
 import { toChemistrySettings } from '@/lib/formulas/compute';
 import { lotCodeFor } from '@/lib/production/vocabulary';
 import { diffRevisions } from '@/lib/formulas/diff';
+import { getPromotionDraft } from '@/lib/production/queries';
 
 let a: WorkspaceFixture;
 const as = (role: keyof WorkspaceFixture['people']): Caller => ({ kind: 'session', person: a.people[role] });
@@ -149,6 +150,32 @@ describe('who may decide', () => {
       await em.flush();
     }
     expect((await (await getEm()).fork().findOneOrFail(PromotionRequest, { id: requestId })).status).toBe('pending');
+  });
+
+  it('a re-submission starts from the sent-back request and is linked to it, with the reason on its review', async () => {
+    const { trialId, variantId } = await createPromotableTrial(a);
+    const code = freshProductCode();
+    const typed = { ...(await promotionInput(a, trialId, variantId, { code, name: 'Resubmitted jam' })), rationale: 'Best liking; the set held after a week.' };
+    typed.spec = { ...typed.spec, phMax: typed.spec.phMin + 0.3, storageNotes: 'Cool and dark.' };
+    const first = await callRoute(promotionsRoute.POST, { method: 'POST', path: '', caller: as('developer'), body: typed });
+    expect(first.status, JSON.stringify(first.body)).toBe(201);
+    const firstView = (await callRoute(promotionRoute.GET, { method: 'GET', path: '', caller: as('head_of_product'), params: { requestId: first.body.requestId } })).body.promotion;
+    expect(firstView.previousRequest).toBeNull();
+    expect((await getPromotionDraft(actorOf(a, 'developer'), trialId)).resubmission).toBeNull();
+    expect((await decide(as('head_of_product'), first.body.requestId, { decision: 'send_back', comment: 'Say how the set was tested.' })).status).toBe(200);
+
+    const draft = await getPromotionDraft(actorOf(a, 'developer'), trialId);
+    expect(draft.resubmission).toMatchObject({
+      id: first.body.requestId, sentBackBecause: 'Say how the set was tested.', variantId, productId: null,
+      newProductName: 'Resubmitted jam', newProductCode: code, rationale: typed.rationale, process: typed.process, spec: typed.spec,
+    });
+    const second = await callRoute(promotionsRoute.POST, { method: 'POST', path: '', caller: as('developer'), body: { ...typed, rationale: `${typed.rationale} Set tested by the tilt test.` } });
+    expect(second.status, JSON.stringify(second.body)).toBe(201);
+    expect((await (await getEm()).fork().findOneOrFail(PromotionRequest, { id: second.body.requestId })).previousRequestId).toBe(first.body.requestId);
+    const view = (await callRoute(promotionRoute.GET, { method: 'GET', path: '', caller: as('head_of_product'), params: { requestId: second.body.requestId } })).body.promotion;
+    expect(view.previousRequest).toEqual({ id: first.body.requestId, code: firstView.code, sentBackBecause: 'Say how the set was tested.' });
+    // Pending again: nothing to start from while it waits.
+    expect((await getPromotionDraft(actorOf(a, 'developer'), trialId)).resubmission).toBeNull();
   });
 
   it('sending back needs a comment, is kept in the history, and the trial can be requested again', async () => {
@@ -517,6 +544,19 @@ describe('the batch sheet', () => {
     const res = await callRoute(sheetRoute.GET, { method: 'GET', path: `/x?amount=-3`, caller: as('production'), params: { versionId } });
     expect(res.status).toBe(422);
     expect(res.body.error.fields.amount[0]).toMatch(/more than 0/);
+  });
+
+  it('refuses an amount below one jar or above the largest kettle with a 422 naming the amount', async () => {
+    const { versionId } = await createApprovedVersion(a);
+    for (const q of ['amount=0.001&unit=g', 'target=finished_mass&amount=1&unit=g', 'amount=5001&unit=kg', 'target=jar_count&amount=4000000']) {
+      const res = await callRoute(sheetRoute.GET, { method: 'GET', path: `/x?${q}`, caller: as('production'), params: { versionId } });
+      expect(res.status, q).toBe(422);
+      expect(res.body.error.fields.amount[0], q).toMatch(/too small to fill one|too large/);
+    }
+    for (const amount of ['NaN', 'Infinity', '-1', '1e400']) {
+      const res = await callRoute(sheetRoute.GET, { method: 'GET', path: `/x?amount=${amount}`, caller: as('production'), params: { versionId } });
+      expect(res.status, amount).toBe(422);
+    }
   });
 });
 

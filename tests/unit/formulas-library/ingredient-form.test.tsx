@@ -83,7 +83,7 @@ describe('IngredientForm', () => {
       notes: null,
     });
     expect(ingredientInputSchema.safeParse(data).success).toBe(true);
-    await waitFor(() => expect(router.push).toHaveBeenCalledWith('/ingredients'));
+    await waitFor(() => expect(router.push).toHaveBeenCalledWith('/ingredients?saved=x'));
     expect(router.refresh).toHaveBeenCalled();
   });
 
@@ -134,7 +134,7 @@ describe('IngredientForm', () => {
     expect((screen.getByLabelText('Soluble solids (°Brix / %)') as HTMLInputElement).value).toBe('8');
     fireEvent.click(screen.getByRole('button', { name: 'Save changes' }));
     await waitFor(() => expect(saveIngredientAction).toHaveBeenCalledWith(strawberry.id, expect.objectContaining({ kind: 'fruit', solidsPct: 8, usFruitGroup: '1' })));
-    await waitFor(() => expect(router.push).toHaveBeenCalledWith('/ingredients?q=straw'));
+    await waitFor(() => expect(router.push).toHaveBeenCalledWith('/ingredients?q=straw&saved=x'));
   });
 });
 

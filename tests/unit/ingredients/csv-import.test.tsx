@@ -21,12 +21,30 @@ function choose(text: string) {
 
 describe('ingredient CSV import', () => {
   it('sends the file’s text and says what changed', async () => {
-    importIngredientsAction.mockResolvedValue({ ok: true, data: { created: 1, updated: 2, unchanged: 17 } });
+    importIngredientsAction.mockResolvedValue({ ok: true, data: { imported: true, created: 1, updated: 2, unchanged: 17, updates: [] } });
     render(<IngredientCsvImport />);
     choose('name,kind,soluble_solids_pct\nPlum,fruit,12\n');
     fireEvent.click(screen.getByRole('button', { name: 'Import' }));
     await waitFor(() => expect(screen.getByText('Imported: 1 added, 2 changed, 17 unchanged.')).toBeTruthy());
-    expect(importIngredientsAction).toHaveBeenCalledWith('name,kind,soluble_solids_pct\nPlum,fruit,12\n');
+    expect(importIngredientsAction).toHaveBeenCalledWith('name,kind,soluble_solids_pct\nPlum,fruit,12\n', false);
+  });
+
+  it('shows which rows update an ingredient already there, before → after, and imports only once confirmed', async () => {
+    const text = 'name,kind,soluble_solids_pct,label_name\nSugar,sweetener,99.5,\nPlum,fruit,12,plums\n';
+    importIngredientsAction
+      .mockResolvedValueOnce({ ok: true, data: { imported: false, created: 1, updated: 1, unchanged: 0, updates: [{ row: 2, ingredientId: 'i1', name: 'Sugar', changes: [{ column: 'soluble_solids_pct', before: '99.8', after: '99.5' }, { column: 'label_name', before: 'sugar', after: '' }] }] } })
+      .mockResolvedValueOnce({ ok: true, data: { imported: true, created: 1, updated: 1, unchanged: 0, updates: [] } });
+    render(<IngredientCsvImport />);
+    choose(text);
+    fireEvent.click(screen.getByRole('button', { name: 'Import' }));
+    await waitFor(() => expect(screen.getByText(/Nothing imported yet: 1 row changes an ingredient you already have/)).toBeTruthy());
+    expect(screen.getByTestId('csv-updates').textContent).toBe('Row 2 updates Sugar: soluble_solids_pct 99.8 → 99.5; label_name sugar → blank');
+    expect(screen.queryByText(/^Imported:/)).toBeNull();
+    expect(importIngredientsAction).toHaveBeenCalledTimes(1);
+    expect(importIngredientsAction).toHaveBeenLastCalledWith(text, false);
+    fireEvent.click(screen.getByRole('button', { name: 'Import and update 1 ingredient' }));
+    await waitFor(() => expect(screen.getByText('Imported: 1 added, 1 changed, 0 unchanged.')).toBeTruthy());
+    expect(importIngredientsAction).toHaveBeenLastCalledWith(text, true);
   });
 
   it('lists every bad cell and imports nothing', async () => {

@@ -1,7 +1,7 @@
 /** Money entry and display: typed amounts to minor units in the currency's own decimals, never rounded silently. */
 import { describe, it, expect } from 'vitest';
 import { amountText, formatMoney, isCurrencyCode, minorDigits, parseAmount, toGrams } from '@/lib/pricing/money';
-import { packSizeText, perMassText, perPieceText } from '@/lib/pricing/display';
+import { packSizeText, perMassText, perPieceText, unitPriceText } from '@/lib/pricing/display';
 
 describe('currencies', () => {
   it('knows the minor units of ISO 4217', () => {
@@ -68,5 +68,18 @@ describe('masses and unit prices', () => {
     expect(packSizeText(25_000, 'metric')).toBe('25 kg');
     expect(packSizeText(500, 'metric')).toBe('500 g');
     expect(packSizeText(453.59237 * 2, 'imperial')).toBe('2 lb');
+  });
+
+  it('never shows a small price as 0.00, and says plainly when a price is 0', () => {
+    // The demo's mains water: GBP 2.10 per 1000 kg = 0.21 pence per kg (worked by hand).
+    expect(perMassText(210, 1_000_000, 'GBP', 'metric')).toBe('GBP 0.0021 per kg');
+    // Per lb: 0.21 × 0.45359237 = 0.0953 pence.
+    expect(perMassText(210, 1_000_000, 'GBP', 'imperial')).toBe('GBP 0.00095 per lb');
+    expect(perMassText(0, 1_000_000, 'GBP', 'metric')).toBe('no cost');
+    expect(unitPriceText(0, 'GBP')).toBe('no cost');
+    expect(unitPriceText(0.5, 'GBP')).toBe('GBP 0.01');
+    expect(unitPriceText(105, 'GBP')).toBe('GBP 1.05');
+    // Yen has no minor digits: 0.3 yen per kg keeps two significant digits.
+    expect(unitPriceText(0.3, 'JPY')).toBe('JPY 0.30');
   });
 });

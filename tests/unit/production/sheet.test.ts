@@ -1,5 +1,5 @@
 import { describe, it, expect } from 'vitest';
-import { buildBatchSheet, type SheetSource } from '@/lib/production/sheet';
+import { buildBatchSheet, sheetAmountProblem, SHEET_MAX_CHARGE_G, type SheetSource } from '@/lib/production/sheet';
 import { batchSheetQuerySchema } from '@/lib/production/schema';
 import { GRAMS_PER_POUND, defaultQcSpec, computeBatch } from '@/lib/chemistry';
 import { toChemistrySettings } from '@/lib/formulas/compute';
@@ -71,5 +71,26 @@ describe('the batch sheet', () => {
     expect(batchSheetQuerySchema.safeParse({ step: '-1' }).success).toBe(false);
     expect(batchSheetQuerySchema.safeParse({ altitudeM: '9000' }).success).toBe(false);
     expect(batchSheetQuerySchema.safeParse({ colour: 'red' }).success).toBe(false);
+  });
+});
+
+describe('the batch sheet amount bounds', () => {
+  const jar = formulaSettings.jarNetFillG;
+  it('refuses a batch that fills less than one jar, whatever it is scaled by', () => {
+    expect(sheetAmountProblem(source, query({ target: 'total_charge', amount: '0.001', unit: 'g' }))).toMatch(/too small to fill one .* jar/);
+    expect(sheetAmountProblem(source, query({ target: 'finished_mass', amount: String(jar - 1), unit: 'g' }))).toMatch(/too small/);
+    expect(sheetAmountProblem(source, query({ target: 'finished_mass', amount: String(jar), unit: 'g' }))).toBeNull();
+  });
+  it('refuses a kettle charge above the stated maximum (5 t, common practice, no published source)', () => {
+    expect(sheetAmountProblem(source, query({ target: 'total_charge', amount: String(SHEET_MAX_CHARGE_G / 1000 + 1), unit: 'kg' }))).toMatch(/too large/);
+    expect(sheetAmountProblem(source, query({ target: 'total_charge', amount: String(SHEET_MAX_CHARGE_G / 1000), unit: 'kg' }))).toBeNull();
+    expect(sheetAmountProblem(source, query({ target: 'jar_count', amount: '4000000' }))).toMatch(/too large/);
+    expect(sheetAmountProblem(source, query({ target: 'total_charge', amount: '50', unit: 'kg' }))).toBeNull();
+    expect(sheetAmountProblem(source, query({}))).toBeNull();
+  });
+  it('the query schema refuses NaN, Infinity, negatives and huge numbers before the bounds', () => {
+    for (const amount of ['NaN', 'Infinity', '-Infinity', '-3', '0', '1e400', '99999999']) {
+      expect(batchSheetQuerySchema.safeParse({ amount }).success, amount).toBe(false);
+    }
   });
 });

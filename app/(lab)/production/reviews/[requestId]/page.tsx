@@ -57,6 +57,12 @@ export default async function PromotionRequestPage({ params }: { params: Promise
         {/* min-w-0: a grid column would otherwise grow to its widest table and push the page sideways on a phone. */}
         <div className="min-w-0 space-y-6 lg:col-span-2">
           <Card title="Why">
+            {r.previousRequest ? (
+              <p className="mb-3 rounded-lg bg-pith-100 px-3 py-2 text-sm" data-testid="resubmitted-after">
+                <strong>Re-submitted after:</strong> <span className="whitespace-pre-line">{r.previousRequest.sentBackBecause || 'no reason given'}</span>{' '}
+                (<Link href={`/production/reviews/${r.previousRequest.id}`} className="text-damson-700 underline">{r.previousRequest.code}, sent back</Link>)
+              </p>
+            ) : null}
             <p className="whitespace-pre-line">{r.rationale}</p>
             <p className="mt-3 text-sm text-rind-600"><strong>Trial question:</strong> {e.trial.question}</p>
             <p className="mt-1 text-sm text-rind-600"><strong>Variant:</strong> {e.variant.description}{e.variant.factorLevels.length ? ` (${e.variant.factorLevels.map((l) => `${FACTOR_LABELS[l.factor as TrialFactor]?.name ?? l.factor} ${Number(l.value.toFixed(3))}`).join(', ')})` : ''}</p>

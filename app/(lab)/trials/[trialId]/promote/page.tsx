@@ -21,7 +21,15 @@ export default async function PromotePage({ params }: { params: Promise<{ trialI
           This trial already has an open request. <Link className="underline" href={`/production/reviews/${draft.pending.id}`}>Open it</Link> to follow it or withdraw it.
         </Notice>
       ) : (
-        <PromotionForm trialId={draft.trial.id} variants={draft.variants} products={draft.products} recommendedVariantId={draft.recommendedVariantId} recommendationRationale={draft.recommendationRationale} temperatureUnit={actor.temperatureUnit} />
+        <>
+        {draft.resubmission ? (
+          <div className="mb-6"><Notice tone="warning" title={`${draft.resubmission.code} was sent back`}>
+            <p className="whitespace-pre-line">{draft.resubmission.sentBackBecause}</p>
+            <p className="mt-1">The form starts from what <Link className="underline" href={`/production/reviews/${draft.resubmission.id}`}>{draft.resubmission.code}</Link> asked for; the new request is linked to it.</p>
+          </Notice></div>
+        ) : null}
+        <PromotionForm trialId={draft.trial.id} variants={draft.variants} products={draft.products} recommendedVariantId={draft.recommendedVariantId} recommendationRationale={draft.recommendationRationale} temperatureUnit={actor.temperatureUnit} resubmission={draft.resubmission} />
+        </>
       )}
     </>
   );

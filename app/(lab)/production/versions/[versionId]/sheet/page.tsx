@@ -2,7 +2,7 @@ import Link from 'next/link';
 import { requirePage, orNotFound, pageId } from '@/lib/page-guard';
 import { getBatchSheet, getSheetVersion } from '@/lib/production/queries';
 import { batchSheetQuerySchema } from '@/lib/production/schema';
-import { ValidationFailed, zodFieldErrors } from '@/lib/errors';
+import { ValidationFailed, zodFieldErrors, type FieldErrors } from '@/lib/errors';
 import { safeRecord } from '@/lib/input';
 import { ChemistryInputError } from '@/lib/chemistry';
 import { Notice } from '@/components/ui/Notice';
@@ -19,15 +19,17 @@ export default async function BatchSheetPage({ params, searchParams }: { params:
   const raw = safeRecord(Object.entries(await searchParams).filter((e): e is [string, string] => e[0] !== 'paper' && typeof e[1] === 'string' && e[1] !== ''));
   const paper = (await searchParams).paper === 'letter' ? 'letter' : 'a4';
   const parsed = batchSheetQuerySchema.safeParse(raw);
-  const errors = parsed.success ? {} : zodFieldErrors(parsed.error);
+  let errors: FieldErrors = parsed.success ? {} : zodFieldErrors(parsed.error);
   let sheet = null;
   let problem: string | null = null;
   if (parsed.success) {
     try {
       sheet = await orNotFound(getBatchSheet(actor, versionId, parsed.data));
     } catch (err) {
-      if (!(err instanceof ChemistryInputError) && !(err instanceof ValidationFailed)) throw err;
-      problem = err.message;
+      // A refused amount names its field; a stored value that needs correcting is said for the whole sheet.
+      if (err instanceof ValidationFailed && Object.keys(err.fields).some((f) => f in batchSheetQuerySchema.shape)) errors = err.fields;
+      else if (err instanceof ValidationFailed || err instanceof ChemistryInputError) problem = err.message;
+      else throw err;
     }
   }
   const version = sheet?.version ?? (await orNotFound(getSheetVersion(actor, versionId)));
