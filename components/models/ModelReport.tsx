@@ -1,5 +1,5 @@
 import { formatDate } from '@/lib/format/dates';
-import { formatP } from '@/lib/results/analysis';
+import { formatP } from '@/lib/results/words';
 import type { ModelPageData } from '@/lib/modelling/page-query';
 import { runsNeeded } from '@/lib/modelling/fit';
 import {

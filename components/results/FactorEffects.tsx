@@ -1,5 +1,5 @@
 import { describeAliasing, type FactorEffectsByAttribute } from '@/lib/results/comparison';
-import { formatP } from '@/lib/results/analysis';
+import { formatP } from '@/lib/results/words';
 import { FACTOR_LABELS, type TrialFactor } from '@/lib/trials/vocabulary';
 import { CountChart } from './Charts';
 

@@ -7,6 +7,7 @@ import {
   type AnovaResult, type ComparisonResult, type DiscriminationResult, type FriedmanResult, type GroupDescription, type PenaltyAnalysisResult,
 } from '@/lib/stats';
 import type { SummaryTable } from './schema';
+import { formatP } from './words';
 
 export interface TastingDataSample {
   sampleId: string;
@@ -87,11 +88,6 @@ export interface TastingAnalysis {
 export const SMALL_PANEL = 12;
 const ALPHA = 0.05;
 
-export function formatP(p: number | null): string {
-  if (p === null) return 'p not available';
-  if (p < 0.001) return 'p < 0.001';
-  return `p = ${p.toFixed(3)}`;
-}
 
 function list(labels: string[]): string {
   return labels.length <= 1 ? labels.join('') : `${labels.slice(0, -1).join(', ')} and ${labels.at(-1)}`;

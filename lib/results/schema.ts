@@ -15,12 +15,7 @@ export type AnswerRow = { seat_id: string; kind: TastingData['answers'][number][
 /** A tasting's answers being read (readAnswers), with each seat as the analysis counts it. */
 export type AnswerRead = Promise<Array<AnswerRow & { seat: { id: string } }>>;
 
-/**
- * The words of the results, on the page and in its CSVs alike (the CSVs in lower case, like every
- * other export's words): an ANOVA row's source and a penalty analysis's group, never their keys.
- */
-export const ANOVA_SOURCE_WORDS = { treatments: 'Samples', blocks: 'Assessors', error: 'Error', total: 'Total' } as const;
-export const PENALTY_GROUP_WORDS = { tooLittle: 'Too little', justAboutRight: 'Just about right', tooMuch: 'Too much' } as const;
+export { ANOVA_SOURCE_WORDS, PENALTY_GROUP_WORDS } from './words';
 
 /** The results page's summary tables, each downloadable as CSV (?table=…). */
 export const SUMMARY_TABLES = ['means', 'anova', 'penalty', 'triangle', 'ranking'] as const;

@@ -1,5 +1,6 @@
 import { describe, it, expect } from 'vitest';
-import { analyseTasting, formatP, summaryTablesOf, type TastingData, type TastingDataAttribute } from '@/lib/results/analysis';
+import { analyseTasting, summaryTablesOf, type TastingData, type TastingDataAttribute } from '@/lib/results/analysis';
+import { formatP } from '@/lib/results/words';
 
 // Source: Montgomery, Design and Analysis of Experiments, Example 4.1 (vascular graft, RCBD):
 // four treatments × six blocks; treatments F = 8.10708, p = 0.0019163. Here the treatments are

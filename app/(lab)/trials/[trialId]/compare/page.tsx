@@ -3,7 +3,7 @@ import { requirePage, orNotFound, pageId } from '@/lib/page-guard';
 import { can } from '@/lib/permissions';
 import { getTrialComparison } from '@/lib/results/trial-comparison';
 import { LAB_MEASURE_LABELS } from '@/lib/results/comparison';
-import { formatP } from '@/lib/results/analysis';
+import { formatP } from '@/lib/results/words';
 import { TrialHeader } from '@/components/trials/TrialHeader';
 import { VariantsTable } from '@/components/trials/VariantsTable';
 import { RecommendForm } from '@/components/results/RecommendForm';
