@@ -37,9 +37,13 @@ export type ComputeOutcome =
  * before the bounds): the chemistry would divide by it and print nonsense (jar counts of Infinity),
  * so it is named as needing correction instead. The row itself is left as it is.
  */
+// Built once: zod compiles a schema on its first parse, and a schema made per call (`.strip()` in
+// the function) was compiled on every formula computed, several times per page.
+const storedSettingsSchema = formulaSettingsSchema.strip();
+
 export function storedValueProblem(settings: FormulaSettingsInput, lines: ReadonlyArray<{ quantity: number }>): { field: string; rule: string } | null {
   // Not strict: a key an older revision kept is not a wrong value.
-  const check = formulaSettingsSchema.strip().safeParse(settings);
+  const check = storedSettingsSchema.safeParse(settings);
   if (!check.success) {
     const issue = check.error.issues[0];
     return { field: ['settings', ...issue.path.map(String)].join('.'), rule: issue.message };
