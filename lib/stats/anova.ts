@@ -182,8 +182,11 @@ export function blockedAnova(
   const grandMean = n > 0 ? stableMean(observations.map((o) => o.value)) : null;
   const centre = grandMean ?? 0;
   const y = observations.map((o) => o.value - centre);
-  const ti = observations.map((o) => treatmentLabels.indexOf(o.treatment));
-  const bi = observations.map((o) => blockLabels.indexOf(o.block));
+  // Positions by lookup, not indexOf: a scan per observation grew with assessors × answers.
+  const treatmentIndex = new Map(treatmentLabels.map((label, i) => [label, i]));
+  const blockIndex = new Map(blockLabels.map((label, i) => [label, i]));
+  const ti = observations.map((o) => treatmentIndex.get(o.treatment)!);
+  const bi = observations.map((o) => blockIndex.get(o.block)!);
 
   const cellCounts = Array.from({ length: t }, () => new Array<number>(b).fill(0));
   ti.forEach((i, k) => {
