@@ -10,6 +10,7 @@ import { formatP } from '@/lib/results/words';
 import type { PenaltyAnalysisResult } from '@/lib/stats';
 import { SCALE_RANGES, groupByScale } from '@/lib/results/chart-data';
 import { Notice } from '@/components/ui/Notice';
+import { Disclosure } from '@/components/ui/Disclosure';
 import { MeansChart, JarChart, CountChart, ProfileChart, PenaltyChart } from './Charts';
 import { DataTable, CELL, HEAD, NUM, NUM_TH, TH } from './DataTable';
 import { ANOVA_SOURCE_WORDS, PENALTY_GROUP_WORDS } from '@/lib/results/words';
@@ -127,8 +128,7 @@ export function ResultsView({ analysis, pooledPenalty }: { analysis: TastingAnal
               />
             </div>
             <p className="mt-2 text-xs text-rind-500">Samples sharing a letter are not shown to differ (Tukey HSD, α = 0.05). Means are raw; the ANOVA uses assessors as blocks (two-way, no interaction).</p>
-            <details className="mt-3 text-sm">
-              <summary className="cursor-pointer font-medium text-damson-800">ANOVA table</summary>
+            <Disclosure className="mt-3 text-sm" summaryClassName="cursor-pointer font-medium text-damson-800" summary="ANOVA table">
               <div className="mt-2 max-w-2xl">
                 <DataTable>
                   <thead className={HEAD}><tr><th scope="col" className={TH}>Source</th><th scope="col" className={NUM_TH}>SS</th><th scope="col" className={NUM_TH}>df</th><th scope="col" className={NUM_TH}>MS</th><th scope="col" className={NUM_TH}>F</th><th scope="col" className={NUM_TH}>p</th></tr></thead>
@@ -140,7 +140,7 @@ export function ResultsView({ analysis, pooledPenalty }: { analysis: TastingAnal
                 </DataTable>
               </div>
               {a.anova.message ? <p className="mt-1 text-xs text-rind-500">{a.anova.message}</p> : null}
-            </details>
+            </Disclosure>
             {a.penalties ? (
               <div className="mt-4 space-y-3">
                 <h3 className="font-semibold">Just about right, and what each side costs in liking</h3>

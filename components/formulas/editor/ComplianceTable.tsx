@@ -1,3 +1,4 @@
+import { Disclosure } from '@/components/ui/Disclosure';
 import { OVERALL_STATUS_LABELS, RULE_STATUS_LABELS, type ComplianceReport, type OverallComplianceStatus, type RuleCheckResult, type RuleStatus } from '@/lib/chemistry';
 
 const STATUS_STYLE: Record<RuleStatus, string> = {
@@ -26,12 +27,13 @@ export function ComplianceTable({ report }: { report: ComplianceReport }) {
       <p className="text-xs text-rind-500">Rule edition for {report.ruleDate}: {report.edition}</p>
       <RuleList results={applicable} label="Rules checked" />
       {notApplicable.length ? (
-        <details className="text-sm">
-          <summary className="min-h-10 cursor-pointer py-2 text-rind-600">
-            {notApplicable.length} rule{notApplicable.length === 1 ? '' : 's'} of this rule set that do not apply here
-          </summary>
+        <Disclosure
+          className="text-sm"
+          summaryClassName="min-h-10 cursor-pointer py-2 text-rind-600"
+          summary={`${notApplicable.length} rule${notApplicable.length === 1 ? '' : 's'} of this rule set that do not apply here`}
+        >
           <RuleList results={notApplicable} label="Rules that do not apply" />
-        </details>
+        </Disclosure>
       ) : null}
     </div>
   );
