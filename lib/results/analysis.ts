@@ -153,7 +153,8 @@ export function analyseTasting(data: TastingData, options: AnalysisOptions = {})
         .filter((a) => a.kind === 'rating' && a.attribute === attr.id && a.sampleId && a.value !== null)
         .map((a) => ({ treatment: labelOf.get(a.sampleId!)!, block: `seat-${a.seatIndex}`, value: a.value! }));
       const anova = blockedAnova(obs);
-      const comparison = compareTreatmentMeans(anova, { method: 'tukey-hsd', alpha: ALPHA });
+      // The page and its CSVs show the letters, never a pair's p: those integrals are left out.
+      const comparison = compareTreatmentMeans(anova, { method: 'tukey-hsd', alpha: ALPHA, pairwiseP: false });
       const assessors = new Set(obs.map((o) => o.block)).size;
       const descriptive = describeTreatments(obs).sort((x, y) => x.label.localeCompare(y.label));
       const analysis: AttributeAnalysis = { attribute: attr, descriptive, anova, comparison, assessors, verdict: verdictFor(attr, anova, comparison, assessors) };

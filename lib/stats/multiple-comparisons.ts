@@ -17,6 +17,17 @@ import {
 
 export type ComparisonMethod = 'tukey-hsd' | 'fisher-lsd';
 
+export interface ComparisonOptions {
+  method?: ComparisonMethod;
+  alpha?: number;
+  /**
+   * Each pair's p-value (default true). The letters, intervals and `significant` need only the
+   * critical value; a Tukey p is a studentized-range integral per pair, most of a large tasting's
+   * analysis time, so a caller that shows none leaves them out.
+   */
+  pairwiseP?: boolean;
+}
+
 export interface MeanToCompare {
   label: string;
   mean: number;
@@ -42,7 +53,7 @@ export interface PairComparison {
   standardErrorOfDifference: number | null;
   /** Studentized range q (Tukey) or t (LSD); null when not estimable. */
   statistic: number | null;
-  /** Tukey: family-wise adjusted p. LSD: unadjusted two-sided p. */
+  /** Tukey: family-wise adjusted p. LSD: unadjusted two-sided p. Null when not estimable, or not asked for (`pairwiseP: false`). */
   p: number | null;
   lower: number | null;
   upper: number | null;
@@ -68,7 +79,7 @@ export interface ComparisonResult {
 /** Compare all pairs of means. `alpha` defaults to 0.05. */
 export function compareMeans(
   input: ComparisonInput,
-  options: { method?: ComparisonMethod; alpha?: number } = {},
+  options: ComparisonOptions = {},
 ): ComparisonResult {
   const method = options.method ?? 'tukey-hsd';
   const alpha = options.alpha ?? 0.05;
@@ -131,9 +142,11 @@ export function compareMeans(
       const scale = method === 'tukey-hsd' ? se / Math.SQRT2 : se;
       const statistic = Math.abs(difference) / scale;
       const p =
-        method === 'tukey-hsd'
-          ? studentizedRangeUpperTail(statistic, k, dfError)
-          : studentTTwoSided(statistic, dfError);
+        options.pairwiseP === false
+          ? null
+          : method === 'tukey-hsd'
+            ? studentizedRangeUpperTail(statistic, k, dfError)
+            : studentTTwoSided(statistic, dfError);
       const halfWidth = criticalValue * scale;
       pairs.push({
         first: a.label,
@@ -167,7 +180,7 @@ export function compareMeans(
 /** Compare the treatments of an ANOVA result, using its MSE and error df. */
 export function compareTreatmentMeans(
   anova: AnovaResult,
-  options: { method?: ComparisonMethod; alpha?: number } = {},
+  options: ComparisonOptions = {},
 ): ComparisonResult {
   const means = anova.treatments.map((t) => ({ label: t.label, n: t.n, mean: t.adjustedMean ?? t.rawMean }));
   const result = compareMeans(

@@ -19,6 +19,17 @@ describe('Tukey HSD and Fisher LSD after a blocked ANOVA', () => {
     }
     expect(result.letters[result.orderedLabels[0]]).toContain('a');
   });
+
+  it("without the pairs' p-values, gives the same letters, intervals and decisions (Montgomery Example 4.1)", () => {
+    const full = compareTreatmentMeans(anova, { method: 'tukey-hsd' });
+    const lean = compareTreatmentMeans(anova, { method: 'tukey-hsd', pairwiseP: false });
+    expect(lean.letters).toEqual(full.letters);
+    expect(lean.criticalDifference).toBe(full.criticalDifference);
+    const withoutP = (pairs: typeof full.pairs) => pairs.map((pair) => ({ ...pair, p: undefined }));
+    expect(withoutP(lean.pairs)).toEqual(withoutP(full.pairs));
+    expect(lean.pairs.every((pair) => pair.p === null)).toBe(true);
+    expect(full.pairs.every((pair) => typeof pair.p === 'number')).toBe(true);
+  });
 });
 
 describe('Tukey HSD on warpbreaks', () => {
