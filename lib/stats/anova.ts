@@ -155,6 +155,13 @@ export interface BlockedObservation {
   value: number;
 }
 
+/** The values of each group, in their original order, in one pass (a filter per group grew with groups × values). */
+function groupedInOrder(values: readonly number[], group: readonly number[], groups: number): number[][] {
+  const out = Array.from({ length: groups }, () => [] as number[]);
+  values.forEach((v, k) => out[group[k]].push(v));
+  return out;
+}
+
 function uniqueInOrder(values: readonly string[]): string[] {
   return [...new Set(values)];
 }
@@ -196,8 +203,9 @@ export function blockedAnova(
   const incomplete = cellCounts.some((r) => r.some((c) => c === 0));
   const balanced = !incomplete && cellCounts.every((r) => r.every((c) => c === replication));
 
-  const rawMeans = treatmentLabels.map((_, i) => stableMean(y.filter((_, k) => ti[k] === i)));
-  const treatmentCounts = treatmentLabels.map((_, i) => ti.filter((v) => v === i).length);
+  const byTreatment = groupedInOrder(y, ti, t);
+  const rawMeans = byTreatment.map(stableMean);
+  const treatmentCounts = byTreatment.map((values) => values.length);
   const totalSS = centredSumOfSquares(y);
 
   if (b < 2) warnings.push('Only one assessor: there is no block effect to remove.');
@@ -218,7 +226,7 @@ export function blockedAnova(
   if (balanced && n > 0 && options.method !== 'least-squares') {
     method = 'closed-form';
     const yBar = stableMean(y);
-    const blockMeans = blockLabels.map((_, j) => stableMean(y.filter((_, k) => bi[k] === j)));
+    const blockMeans = groupedInOrder(y, bi, b).map(stableMean);
     treatmentsSS = b * replication * compensatedSum(rawMeans.map((m) => (m - yBar) ** 2));
     blocksSS = t * replication * compensatedSum(blockMeans.map((m) => (m - yBar) ** 2));
     // Residuals of the additive model, squared directly (no subtraction of SS totals).
