@@ -73,6 +73,11 @@ export interface SamplePenalty {
 export interface AnalysisOptions {
   /** Also compute the penalty analysis over all samples together. Off by default. */
   pooledPenalty?: boolean;
+  /**
+   * Also each pair's Tukey p-value (a studentized-range integral per pair, most of a large tasting's
+   * analysis time). The page and its CSVs show letters, not pairs' p: off by default; the API asks.
+   */
+  pairwiseP?: boolean;
 }
 
 export interface TastingAnalysis {
@@ -153,8 +158,7 @@ export function analyseTasting(data: TastingData, options: AnalysisOptions = {})
         .filter((a) => a.kind === 'rating' && a.attribute === attr.id && a.sampleId && a.value !== null)
         .map((a) => ({ treatment: labelOf.get(a.sampleId!)!, block: `seat-${a.seatIndex}`, value: a.value! }));
       const anova = blockedAnova(obs);
-      // The page and its CSVs show the letters, never a pair's p: those integrals are left out.
-      const comparison = compareTreatmentMeans(anova, { method: 'tukey-hsd', alpha: ALPHA, pairwiseP: false });
+      const comparison = compareTreatmentMeans(anova, { method: 'tukey-hsd', alpha: ALPHA, pairwiseP: options.pairwiseP === true });
       const assessors = new Set(obs.map((o) => o.block)).size;
       const descriptive = describeTreatments(obs).sort((x, y) => x.label.localeCompare(y.label));
       const analysis: AttributeAnalysis = { attribute: attr, descriptive, anova, comparison, assessors, verdict: verdictFor(attr, anova, comparison, assessors) };

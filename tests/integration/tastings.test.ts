@@ -16,6 +16,8 @@ import * as submitRoute from '@/app/api/v1/tastings/seats/[seatToken]/submit/rou
 import { answerRequestBody } from '@/lib/taster/answer-queue';
 import * as summaryRoute from '@/app/api/v1/tastings/[tastingId]/summary.csv/route';
 import * as rawRoute from '@/app/api/v1/tastings/[tastingId]/answers.csv/route';
+import * as resultsRoute from '@/app/api/v1/tastings/[tastingId]/results/route';
+import { analyseResults, loadResultsSetup } from '@/lib/results/queries';
 import { getEm } from '@/lib/db';
 import { TastingAnswer, Variant, Formula } from '@/entities';
 import { isAllowedBlindingCode } from '@/lib/sensory';
@@ -286,6 +288,15 @@ describe('exports', () => {
     const means = await get(summaryRoute);
     expect(means.lines[0]).toContain('tukey_letters');
     expect((await get(summaryRoute, '?table=bogus')).status).toBe(422);
+    // The API's analysis carries each pair's Tukey p; the page's (which shows letters) leaves them out.
+    const api = await resultsRoute.GET(new Request('http://127.0.0.1/x', { headers: { cookie: a.people.developer.sessionCookie } }), { params: Promise.resolve({ tastingId: s.tastingId }) });
+    const apiPairs = (await api.json()).analysis.attributes[0].comparison.pairs as Array<{ p: number | null }>;
+    expect(apiPairs.length).toBeGreaterThan(0);
+    for (const pair of apiPairs) expect(pair.p).toBeTypeOf('number');
+    const dev = actorOf(a, 'developer');
+    const page = await analyseResults(dev, await loadResultsSetup(dev, s.tastingId));
+    expect(page.attributes[0].comparison.pairs.every((pair) => pair.p === null)).toBe(true);
+    expect(page.attributes[0].comparison.letters).toEqual((await (await resultsRoute.GET(new Request('http://127.0.0.1/x', { headers: { cookie: a.people.developer.sessionCookie } }), { params: Promise.resolve({ tastingId: s.tastingId }) })).json()).analysis.attributes[0].comparison.letters);
   });
 
   it('a triangle answer names the cup chosen as odd, its variant and whether it was right', async () => {
