@@ -15,6 +15,8 @@ export function BatchSheetView({ sheet, paper, massUnits, temperatures, supersed
   const rounded = (g: number, places = decimals) => `${fromGrams(g, unit).toFixed(places)} ${unit}`;
   const exact = (g: number, places = decimals) => `${fromGrams(g, unit).toFixed(places + 1)} ${unit}`;
   const finer = s.lines.filter((l) => l.finerStep);
+  // The charge to the finest step any line uses, so its exact figure never has fewer digits than its rounded one.
+  const chargeDecimals = Math.max(decimals, ...s.lines.map((l) => stepDecimals(l.stepInResolutionUnit)));
   return (
     <article className={`batch-sheet sheet-${paper} rounded-card bg-white p-6 text-sm ring-1 ring-pith-300 print:rounded-none print:p-0 print:ring-0`} data-testid="batch-sheet">
       <header className="mb-4 flex flex-wrap items-start justify-between gap-4 border-b-2 border-rind-800 pb-3">
@@ -51,7 +53,7 @@ export function BatchSheetView({ sheet, paper, massUnits, temperatures, supersed
                   <td className="py-1.5 pl-4"><span className="inline-block w-28 border-b border-rind-400">&nbsp;</span></td>
                 </tr>
               ))}
-              <tr className="font-medium"><td /><td className="py-1.5">Kettle charge</td><td className="whitespace-nowrap py-1.5 text-right tabular-nums">{rounded(s.rounded.totalChargeG, Math.max(decimals, ...s.lines.map((l) => stepDecimals(l.stepInResolutionUnit))))}</td><td /><td className="whitespace-nowrap py-1.5 text-right tabular-nums text-rind-500">{exact(s.exact.totalChargeG)}</td><td /></tr>
+              <tr className="font-medium"><td /><td className="py-1.5">Kettle charge</td><td className="whitespace-nowrap py-1.5 text-right tabular-nums">{rounded(s.rounded.totalChargeG, chargeDecimals)}</td><td /><td className="whitespace-nowrap py-1.5 text-right tabular-nums text-rind-500">{exact(s.exact.totalChargeG, chargeDecimals)}</td><td /></tr>
             </tbody>
           </table>
         </TableBox>
@@ -107,7 +109,9 @@ function stepDecimals(step: number): number {
   return Math.min(6, Math.max(0, -Math.floor(Math.log10(step) + 1e-9)));
 }
 
+/** "+12", "−3" or "0": a change too small to show at these decimals is 0, never "-0". */
 function signed(x: number, decimals = 0): string {
   const v = x.toFixed(decimals);
+  if (Number(v) === 0) return (0).toFixed(decimals);
   return x > 0 ? `+${v}` : v;
 }

@@ -17,7 +17,7 @@ import { ValidationFailed } from '@/lib/errors';
 import { defaultQcSpec, estimateEndPoint, outcomeOfChecks, QC_CHECK_STATUS_LABELS, qcSpecCautions, type QcSpec } from '@/lib/chemistry';
 import { getTrialOverview } from '@/lib/trials/queries';
 import { DEFAULT_FILL_TEMP_C, type AuditView, type ProductionProcess, type PromotionEvidence, type BatchDecisionView, type BatchSheetQuery, type BatchView, type BatchWorkItem, type ProductSummary, type PromotionDraftVariant, type PromotionResubmission, type PromotionSummary, type PromotionTargetProduct, type PromotionView, type SheetVersion, type VersionSummary, type VersionView } from './schema';
-import { buildBatchSheet, sheetAmountProblem, type BatchSheet } from './sheet';
+import { buildBatchSheet, sheetAmountProblem, sheetStepProblem, type BatchSheet } from './sheet';
 import { fruitsOf, weighLines } from './review';
 import { BATCH_OUTCOME_LABELS, BATCH_STATUS_LABELS, promotionCode, type PromotionStatus } from './vocabulary';
 import { batchStanding, goodJarsOf } from './holds';
@@ -310,6 +310,8 @@ export async function getBatchSheet(actor: Actor, versionId: string, query: Batc
   const version = await getSheetVersion(actor, versionId);
   const tooSmallOrLarge = sheetAmountProblem(version, query);
   if (tooSmallOrLarge) throw new ValidationFailed(tooSmallOrLarge, { amount: [tooSmallOrLarge] });
+  const tooCoarse = sheetStepProblem(version, query);
+  if (tooCoarse) throw new ValidationFailed(tooCoarse, { step: [tooCoarse] });
   const sheet = buildBatchSheet({
     productName: version.product.name, productCode: version.product.code, version: version.version,
     settings: version.settings, lines: version.lines, process: version.process, spec: version.spec,

@@ -65,6 +65,30 @@ export function sheetAmountProblem(source: Pick<SheetSource, 'settings' | 'lines
   return null;
 }
 
+/**
+ * A scale step is at most a tenth of the kettle charge (common practice, no published source: a
+ * scale that reads in steps that coarse cannot weigh the batch, and every line would fall back to a
+ * finer scale anyway). The charge is the scaled one, or the formula's own when no amount is given.
+ */
+export const SHEET_STEP_SHARE_MAX = 0.1;
+
+export function sheetStepProblem(source: Pick<SheetSource, 'settings' | 'lines'>, query: BatchSheetQuery): string | null {
+  const settings = toChemistrySettings(source.settings);
+  const base = computeMassBalance(source.lines, settings);
+  const finishedPerCharge = base.finishedMassG / base.totalChargeG;
+  const chargeG =
+    query.amount === undefined ? base.totalChargeG
+      : query.target === 'jar_count' ? (query.amount * settings.jarNetFillG) / finishedPerCharge
+        : query.target === 'finished_mass' ? toGrams(query.amount, query.unit) / finishedPerCharge
+          : toGrams(query.amount, query.unit);
+  const stepG = toGrams(query.step, query.stepUnit);
+  if (!(stepG <= chargeG * SHEET_STEP_SHARE_MAX)) {
+    const unit = query.stepUnit === 'lb' || query.stepUnit === 'oz' ? 'imperial' : 'metric';
+    return `A scale step of ${query.step} ${query.stepUnit} is too coarse for a kettle charge of ${formatMass(chargeG, unit)}: use a scale that reads to ${formatMass(chargeG * SHEET_STEP_SHARE_MAX, unit)} or finer.`;
+  }
+  return null;
+}
+
 export function buildBatchSheet(source: SheetSource, query: BatchSheetQuery): BatchSheet {
   // A version frozen before today's bounds may hold a value scaling would divide by: no sheet until corrected.
   const problem = storedValueProblem(source.settings, source.lines);

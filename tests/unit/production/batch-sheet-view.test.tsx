@@ -37,6 +37,19 @@ describe('the batch sheet on screen', () => {
     expect(rows.at(-1)!.textContent).toMatch(/Kettle charge362\d\d g36200\.0 g/);
   });
 
+  it('writes the exact kettle charge to at least the decimals of the rounded one, and no change as "-0"', () => {
+    const sheet = buildBatchSheet(source, batchSheetQuerySchema.parse({ target: 'total_charge', amount: '2', unit: 'kg', step: '0.1', stepUnit: 'kg' }));
+    render(<BatchSheetView sheet={sheet} paper="a4" massUnits="metric" temperatures="metric" superseded={false} />);
+    const charge = within(screen.getByTestId('sheet-ingredients')).getAllByRole('row').at(-1)!;
+    const [rounded, exact] = within(charge).getAllByRole('cell').map((c) => c.textContent ?? '').filter((t) => / kg$/.test(t));
+    const places = (t: string) => t.replace(' kg', '').split('.')[1]?.length ?? 0;
+    expect(places(exact)).toBeGreaterThanOrEqual(places(rounded));
+    const fine = buildBatchSheet(source, batchSheetQuerySchema.parse({ target: 'total_charge', amount: '20', unit: 'kg', step: '0.001', stepUnit: 'g' }));
+    cleanup();
+    render(<BatchSheetView sheet={fine} paper="a4" massUnits="metric" temperatures="metric" superseded={false} />);
+    expect(screen.getByTestId('rounding-effect').textContent).not.toMatch(/-0(\.0+)?\b/);
+  });
+
   it('gives each line its scale step, names the small additions weighed finer, and drops none to 0 g', () => {
     // The walk's strawberry sheet: 0.8 g of citric acid and 8 g of pectin on a 5 g scale (the 2 % share is
     // common practice, no published source; the rest is arithmetic).

@@ -1,5 +1,5 @@
 import { describe, it, expect } from 'vitest';
-import { buildBatchSheet, sheetAmountProblem, SHEET_MAX_CHARGE_G, type SheetSource } from '@/lib/production/sheet';
+import { buildBatchSheet, sheetAmountProblem, sheetStepProblem, SHEET_MAX_CHARGE_G, type SheetSource } from '@/lib/production/sheet';
 import { batchSheetQuerySchema } from '@/lib/production/schema';
 import { GRAMS_PER_POUND, defaultQcSpec, computeBatch } from '@/lib/chemistry';
 import { toChemistrySettings } from '@/lib/formulas/compute';
@@ -92,5 +92,17 @@ describe('the batch sheet amount bounds', () => {
     for (const amount of ['NaN', 'Infinity', '-Infinity', '-3', '0', '1e400', '99999999']) {
       expect(batchSheetQuerySchema.safeParse({ amount }).success, amount).toBe(false);
     }
+  });
+});
+
+describe('the batch sheet scale step', () => {
+  // A tenth of the kettle charge at most (common practice, no published source).
+  it('refuses a scale step coarser than a tenth of the charge, scaled or at the developed size', () => {
+    expect(sheetStepProblem(source, query({ target: 'total_charge', amount: '0.43', unit: 'kg', step: '10000', stepUnit: 'kg' }))).toMatch(/too coarse for a kettle charge of 430 g/);
+    expect(sheetStepProblem(source, query({ target: 'total_charge', amount: '10', unit: 'kg', step: '1.01', stepUnit: 'kg' }))).toMatch(/too coarse/);
+    expect(sheetStepProblem(source, query({ target: 'total_charge', amount: '10', unit: 'kg', step: '1', stepUnit: 'kg' }))).toBeNull();
+    // The Practical Action batch: a 20.115 kg charge.
+    expect(sheetStepProblem(source, query({ step: '2.5', stepUnit: 'kg' }))).toMatch(/too coarse/);
+    expect(sheetStepProblem(source, query({ step: '5' }))).toBeNull();
   });
 });

@@ -38,10 +38,10 @@ export default async function BatchSheetPage({ params, searchParams }: { params:
       <div className="no-print mb-4 space-y-4">
         <p className="text-sm"><Link href={`/production/versions/${version.id}`} className="text-damson-700 underline">Back to {version.product.name} v{version.version}</Link></p>
         <SheetScaleForm values={{ ...raw, paper }} errors={errors} massUnits={actor.massUnits} defaultAltitudeM={version.settings.altitudeM ?? null} />
-        {Object.keys(errors).length ? <Notice tone="danger">Some values are not valid; the sheet below is not scaled until they are.</Notice> : null}
+        {Object.keys(errors).length ? <Notice tone="danger">Some values are not valid: correct them above and the sheet appears.</Notice> : null}
         {problem ? <Notice tone="danger">{problem}</Notice> : null}
         {version.status === 'superseded' ? <Notice tone="warning" title="Superseded version">This sheet is for reference only: make batches to the version in production.</Notice> : null}
-        <div className="flex items-center gap-3"><PrintButton label="Print the batch sheet" /><p className="text-sm text-rind-500">Prints on {paper === 'letter' ? 'US Letter' : 'A4'} without the navigation. Use the browser’s “Save as PDF” for a file.</p></div>
+        {sheet ? <div className="flex items-center gap-3"><PrintButton label="Print the batch sheet" /><p className="text-sm text-rind-500">Prints on {paper === 'letter' ? 'US Letter' : 'A4'} without the navigation. Use the browser’s “Save as PDF” for a file.</p></div> : null}
       </div>
       {sheet ? <BatchSheetView sheet={sheet.sheet} paper={paper} massUnits={actor.massUnits} temperatures={actor.temperatureUnit === 'C' ? 'metric' : 'imperial'} superseded={version.status === 'superseded'} /> : null}
     </>
