@@ -154,7 +154,8 @@ export function ProfileChart({ attributes, samples, means, scale, base }: {
   return (
     <div className="h-72" role="img" aria-label={`Profile, ${scale.name}: mean score of each sample on each attribute`} data-testid="profile-chart">
       <Bar
-        data={{ labels: attributes, datasets: samples.map((s, i) => ({ label: `Sample ${s}`, data: attributes.map((a) => means[a]?.[s] ?? null), backgroundColor: SERIES[i % SERIES.length], ...(base === undefined ? {} : { base }) })) }}
+        // Bars from a base: a mean exactly at it ("just right") keeps a stub of 3 px, so it does not read as missing.
+        data={{ labels: attributes, datasets: samples.map((s, i) => ({ label: `Sample ${s}`, data: attributes.map((a) => means[a]?.[s] ?? null), backgroundColor: SERIES[i % SERIES.length], ...(base === undefined ? {} : { base, minBarLength: 3 }) })) }}
         options={{ maintainAspectRatio: false, scales: { y: { min: scale.min, max: scale.max, title: { display: true, text: scale.name } } } }}
       />
     </div>

@@ -98,6 +98,9 @@ describe('results that read well', () => {
     ]);
     const axes = charts.props.filter((p) => p.data.datasets[0]?.label === 'Sample A').map((p) => [p.options.scales.y.min, p.options.scales.y.max]);
     expect(axes).toEqual([[1, 9], [1, 5], [0, 10]]);
+    // The JAR profile starts its bars at 3; a mean of exactly 3 keeps a visible stub instead of no bar.
+    const jarProfile = charts.props.filter((p) => p.data.datasets[0]?.label === 'Sample A')[1];
+    for (const d of jarProfile.data.datasets) expect([d.base, d.minBarLength]).toEqual([3, 3]);
   });
 
   it('shows just-about-right as diverging bars around the centre', () => {
