@@ -48,7 +48,7 @@ export default async function PromotionRequestPage({ params }: { params: Promise
       {r.status !== 'pending' ? (
         <div className="mb-6">
           <Notice tone={r.status === 'approved' ? 'success' : 'warning'} title={`${r.status === 'approved' ? 'Approved' : r.status === 'withdrawn' ? 'Withdrawn' : 'Sent back'} by ${r.decidedBy} on ${formatDate(r.decidedAt)}`}>
-            {r.decisionComment ?? 'No comment.'}
+            <span className="whitespace-pre-line">{r.decisionComment ?? 'No comment.'}</span>
           </Notice>
         </div>
       ) : null}
