@@ -6,6 +6,15 @@ import type { IngredientImportResult } from '@/lib/ingredients/schema';
 
 const cell = (v: string) => (v === '' ? 'blank' : v);
 
+/** "The file also adds 2 new ingredients and leaves 21 unchanged. ", leaving out a count of 0. */
+function alsoText(d: IngredientImportResult): string {
+  const parts = [
+    d.created ? `adds ${d.created} new ingredient${d.created > 1 ? 's' : ''}` : '',
+    d.unchanged ? `leaves ${d.unchanged} unchanged` : '',
+  ].filter(Boolean);
+  return parts.length ? `The file also ${parts.join(' and ')}. ` : '';
+}
+
 /** The rows that would change ingredients already in the library, each change before → after. */
 function updatesPreview(d: IngredientImportResult) {
   if (d.imported || !d.updates.length) return null;
@@ -18,11 +27,11 @@ function updatesPreview(d: IngredientImportResult) {
           {d.updates.map((u) => (
             <li key={u.ingredientId}>
               <strong>Row {u.row} updates {u.name}:</strong>{' '}
-              {u.changes.length ? u.changes.map((c) => `${c.column} ${cell(c.before)} → ${cell(c.after)}`).join('; ') : 'no change in the file’s columns'}
+              {u.changes.length ? u.changes.map((c, i) => <span key={c.column}>{i ? '; ' : ''}column <code className="font-mono text-xs">{c.column}</code> {cell(c.before)} → {cell(c.after)}</span>) : 'no change in the file’s columns'}
             </li>
           ))}
         </ul>
-        <p className="mt-2">The file also adds {d.created} and leaves {d.unchanged} unchanged. Nothing is imported unless you confirm.</p>
+        <p className="mt-2">{alsoText(d)}Nothing is imported unless you confirm.</p>
       </>
     ),
     confirmLabel: `Import and update ${n} ingredient${n > 1 ? 's' : ''}`,

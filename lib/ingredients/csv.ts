@@ -204,7 +204,8 @@ export function parseIngredientCsv(text: string, library: IngredientView[] = [])
     }
     const key = target ? target.id : result.data.name.toLowerCase();
     const first = seen.get(key);
-    if (first) errors.push({ row: rowNumber, column: target ? 'id' : 'name', message: `Row ${first} already gives this ingredient.` });
+    // The column that matched the row: its id when the file gives one, else its name.
+    if (first) errors.push({ row: rowNumber, column: id ? 'id' : 'name', message: `Row ${first} already gives this ingredient.` });
     else seen.set(key, rowNumber);
     rows.push({ row: rowNumber, ingredientId: target?.id ?? null, input: result.data, changes: target ? changesOf(target, result.data, columns) : [] });
   });

@@ -38,7 +38,9 @@ describe('ingredient CSV import', () => {
     choose(text);
     fireEvent.click(screen.getByRole('button', { name: 'Import' }));
     await waitFor(() => expect(screen.getByText(/Nothing imported yet: 1 row changes an ingredient you already have/)).toBeTruthy());
-    expect(screen.getByTestId('csv-updates').textContent).toBe('Row 2 updates Sugar: soluble_solids_pct 99.8 → 99.5; label_name sugar → blank');
+    expect(screen.getByTestId('csv-updates').textContent).toBe('Row 2 updates Sugar: column soluble_solids_pct 99.8 → 99.5; column label_name sugar → blank');
+    // Counts of 0 are left out of the sentence (not "leaves 0 unchanged").
+    expect(screen.getByText(/The file also adds 1 new ingredient\. Nothing is imported unless you confirm\./)).toBeTruthy();
     expect(screen.queryByText(/^Imported:/)).toBeNull();
     expect(importIngredientsAction).toHaveBeenCalledTimes(1);
     expect(importIngredientsAction).toHaveBeenLastCalledWith(text, false);
