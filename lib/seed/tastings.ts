@@ -63,10 +63,11 @@ export async function seedDemoTastings(developer: Actor, trials: SeededTrial[]):
     if (t < 22) await submitSeat(seatToken);
   }
   await closeTasting(developer, tastingId);
+  await placeInTime(tastingId, '2026-11-19T10:30:00Z');
 
   // Triangle on the blackcurrant trial: does less added pectin (B) taste different from A?
   const triangle = await createTasting(developer, blackcurrant.trialId, {
-    title: 'Three-cup test, 27 November', place: 'Tasting room', method: 'triangle',
+    title: 'Three-cup test, 27 November', place: 'Tasting room', startsAt: '2026-11-27T14:00:00Z', method: 'triangle',
     variantIds: [blackcurrant.variantIds.A, blackcurrant.variantIds.B], attributeIds: [], notice,
   });
   const tri = await openTasting(developer, triangle.tastingId);
@@ -84,6 +85,7 @@ export async function seedDemoTastings(developer: Actor, trials: SeededTrial[]):
     await submitSeat(seatToken);
   }
   await closeTasting(developer, triangle.tastingId);
+  await placeInTime(triangle.tastingId, '2026-11-27T14:00:00Z');
 
   // Open for newcomers: join from a phone with the code on the organiser's screen.
   const open = await createTasting(developer, apricot.trialId, {
@@ -97,6 +99,35 @@ export async function seedDemoTastings(developer: Actor, trials: SeededTrial[]):
     const user = await em.fork().findOneOrFail(User, { email });
     await em.fork().transactional((tx) => addSeat(tx, open.tastingId, { kind: 'staff', userId: user.id, displayName: user.name }));
   }
+}
+
+/**
+ * A closed demo tasting happened on its day, not when the seed ran: it was set up two days before,
+ * seats arrive two minutes apart from its start, each answer 40 s after the last, submissions about
+ * 18 minutes after a seat's arrival, and it closed 90 minutes after the start. The seed goes through
+ * the app's own writes, which stamp the time of the run; this moves those stamps, keeping their order.
+ */
+async function placeInTime(tastingId: string, startsAt: string): Promise<void> {
+  const conn = (await getEm()).getConnection();
+  await conn.execute(
+    `update panel_sessions set created_at = ?::timestamptz - interval '2 days', opened_at = ?::timestamptz - interval '10 minutes', closed_at = ?::timestamptz + interval '90 minutes' where id = ?`,
+    [startsAt, startsAt, startsAt, tastingId],
+  );
+  await conn.execute(
+    `update panel_seats set
+        created_at = ?::timestamptz + seat_index * interval '2 minutes',
+        consented_at = case when consented_at is null then null else ?::timestamptz + seat_index * interval '2 minutes' + interval '20 seconds' end,
+        submitted_at = case when submitted_at is null then null else ?::timestamptz + seat_index * interval '2 minutes' + interval '18 minutes' end,
+        last_seen_at = case when last_seen_at is null then null else ?::timestamptz + seat_index * interval '2 minutes' + interval '17 minutes' end
+      where session_id = ?`,
+    [startsAt, startsAt, startsAt, startsAt, tastingId],
+  );
+  await conn.execute(
+    `update panel_answers a set created_at = s.created_at + interval '1 minute' + x.n * interval '40 seconds', updated_at = s.created_at + interval '1 minute' + x.n * interval '40 seconds'
+       from panel_seats s, (select id, row_number() over (partition by seat_id order by created_at, id) - 1 as n from panel_answers where session_id = ?) x
+      where a.id = x.id and s.id = a.seat_id`,
+    [tastingId],
+  );
 }
 
 /** The demo taster and the developer who also tastes (see DEMO_USERS in demo.ts). */

@@ -46,4 +46,24 @@ describe('demo seed label data', () => {
     expect(sorbicMgPerKg).toBeGreaterThan(850);
     expect(sorbicMgPerKg).toBeLessThan(1000);
   });
+
+  it('places the closed demo tastings on their own day, in order, not at the time the seed ran', async () => {
+    const rows: Array<{ title: string; starts_at: Date; closed_at: Date; first: Date; last: Date; late_submissions: string; open_after_submit: string }> = await (await getEm()).getConnection().execute(
+      `select p.title, p.starts_at, p.closed_at, min(a.created_at) as first, max(a.updated_at) as last,
+              count(*) filter (where s.submitted_at < a.updated_at) as late_submissions,
+              count(*) filter (where s.submitted_at > p.closed_at) as open_after_submit
+         from panel_sessions p join panel_answers a on a.session_id = p.id join panel_seats s on s.id = a.seat_id
+        where p.workspace_id = ? and p.state = 'closed' and p.title in ('Spread tasting, 19 November', 'Three-cup test, 27 November') group by p.id, p.title, p.starts_at, p.closed_at order by p.starts_at`,
+      [report.workspaceId],
+    );
+    expect(rows.map((r) => r.title)).toEqual(['Spread tasting, 19 November', 'Three-cup test, 27 November']);
+    for (const r of rows) {
+      expect(new Date(r.first).toISOString().slice(0, 10), r.title).toBe(new Date(r.starts_at).toISOString().slice(0, 10));
+      expect(new Date(r.first).getTime()).toBeGreaterThanOrEqual(new Date(r.starts_at).getTime());
+      expect(new Date(r.last).getTime()).toBeLessThanOrEqual(new Date(r.closed_at).getTime());
+      expect(Number(r.late_submissions), r.title).toBe(0);
+      expect(Number(r.open_after_submit), r.title).toBe(0);
+    }
+  });
 });
+
