@@ -14,11 +14,17 @@ export function Card({ title, actions, children, className = '' }: { title?: str
   );
 }
 
+/** Record codes (T-006, PR-004) never break at their hyphen: on a phone "T-" / "006" reads as two things. */
+export function keepCodesWhole(text: string): ReactNode {
+  const parts = text.split(/\b([A-Z]{1,4}-\d+)\b/);
+  return parts.length === 1 ? text : parts.map((part, i) => (i % 2 ? <span key={i} className="whitespace-nowrap">{part}</span> : part));
+}
+
 export function PageHeader({ title, lead, actions }: { title: string; lead?: string; actions?: ReactNode }) {
   return (
     <div className="mb-6 flex flex-wrap items-end justify-between gap-4">
       <div>
-        <h1 className="text-3xl font-semibold tracking-tight">{title}</h1>
+        <h1 className="text-3xl font-semibold tracking-tight">{keepCodesWhole(title)}</h1>
         {lead ? <p className="mt-1 max-w-2xl text-rind-600">{lead}</p> : null}
       </div>
       {actions}
