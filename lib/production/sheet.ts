@@ -73,6 +73,8 @@ export function sheetAmountProblem(source: Pick<SheetSource, 'settings' | 'lines
 export const SHEET_STEP_SHARE_MAX = 0.1;
 
 export function sheetStepProblem(source: Pick<SheetSource, 'settings' | 'lines'>, query: BatchSheetQuery): string | null {
+  // A stored value the chemistry cannot use (a jar fill of 1e-320 g) is named by buildBatchSheet instead.
+  if (storedValueProblem(source.settings, source.lines)) return null;
   const settings = toChemistrySettings(source.settings);
   const base = computeMassBalance(source.lines, settings);
   const finishedPerCharge = base.finishedMassG / base.totalChargeG;
@@ -82,7 +84,7 @@ export function sheetStepProblem(source: Pick<SheetSource, 'settings' | 'lines'>
         : query.target === 'finished_mass' ? toGrams(query.amount, query.unit) / finishedPerCharge
           : toGrams(query.amount, query.unit);
   const stepG = toGrams(query.step, query.stepUnit);
-  if (!(stepG <= chargeG * SHEET_STEP_SHARE_MAX)) {
+  if (stepG > chargeG * SHEET_STEP_SHARE_MAX) {
     const unit = query.stepUnit === 'lb' || query.stepUnit === 'oz' ? 'imperial' : 'metric';
     return `A scale step of ${query.step} ${query.stepUnit} is too coarse for a kettle charge of ${formatMass(chargeG, unit)}: use a scale that reads to ${formatMass(chargeG * SHEET_STEP_SHARE_MAX, unit)} or finer.`;
   }
