@@ -56,7 +56,7 @@ if [[ "${S3_ENDPOINT:-}" == "$S3_FAKE_ENDPOINT" ]]; then
 fi
 npm run --silent db:seed >/dev/null
 for port in "$APP_A" "$APP_B"; do
-  APP_URL="http://127.0.0.1:$port" NEXTAUTH_URL="http://127.0.0.1:$port" SETWELL_BENCH_FLOOR=1 NODE_ENV=production NODE_OPTIONS="$(server_node_options)" \
+  APP_URL="http://127.0.0.1:$port" NEXTAUTH_URL="http://127.0.0.1:$port" SETWELL_BENCH_FLOOR=1 NODE_ENV=production \
     setsid node node_modules/next/dist/bin/next start -p "$port" -H 127.0.0.1 >"$SETWELL_LOGS/bench-app-$port.log" 2>&1 &
   PIDS+=($!)
 done

@@ -7,12 +7,6 @@ set -euo pipefail
 REPO_ROOT="$(cd "$(dirname "${BASH_SOURCE[0]}")/.." && pwd)"
 export NEXT_TELEMETRY_DISABLED=1
 
-# The app server's V8 young generation: semi-spaces of 64 MB instead of Node 20's 16 MB. With ten
-# pages rendering at once, much of a small young generation is still alive at each scavenge and is
-# copied again and again; under ten users this took about 15 % off a staff page's CPU (DEVELOPERS.md,
-# "Speed"). Every `next start` (start, test, bench, soak) runs with it, added to any NODE_OPTIONS given.
-server_node_options() { printf '%s' "--max-semi-space-size=64${NODE_OPTIONS:+ $NODE_OPTIONS}"; }
-
 log() { printf '\033[1;35m[setwell]\033[0m %s\n' "$*" >&2; }
 
 apt_updated=0

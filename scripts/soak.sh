@@ -87,7 +87,7 @@ export NEXTAUTH_SECRET="$(head -c 48 /dev/urandom | base64 | tr -d '\n')"
 app_urls=()
 app_logs=()
 for port in "$PORT" "$((PORT + 1))"; do
-  NODE_ENV=production LOG_LEVEL=info NODE_OPTIONS="$(server_node_options)" setsid node node_modules/next/dist/bin/next start -p "$port" -H 127.0.0.1 >"$SOAK_LOGS/app-$port.log" 2>&1 &
+  NODE_ENV=production LOG_LEVEL=info setsid node node_modules/next/dist/bin/next start -p "$port" -H 127.0.0.1 >"$SOAK_LOGS/app-$port.log" 2>&1 &
   SOAK_APP_PIDS+=($!)
   app_urls+=("http://127.0.0.1:$port")
   app_logs+=("$SOAK_LOGS/app-$port.log")

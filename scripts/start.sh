@@ -39,4 +39,4 @@ log "building the app"
 NODE_ENV=production node node_modules/next/dist/bin/next build >"$SETWELL_LOGS/build.log" 2>&1 || { tail -50 "$SETWELL_LOGS/build.log"; exit 1; }
 
 log "ready in $(( $(date +%s) - started ))s — open $APP_URL (demo sign-ins are in the README)"
-NODE_OPTIONS="$(server_node_options)" exec node node_modules/next/dist/bin/next start -p "$PORT" -H 0.0.0.0
+exec node node_modules/next/dist/bin/next start -p "$PORT" -H 0.0.0.0
