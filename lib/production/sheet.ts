@@ -39,6 +39,21 @@ export interface BatchSheet {
  */
 export const SHEET_MAX_CHARGE_G = 5_000_000;
 
+/** The batch a query asks for: its kettle charge and finished mass in grams (the formula's own without an amount). */
+function askedBatch(source: Pick<SheetSource, 'settings' | 'lines'>, query: BatchSheetQuery) {
+  const settings = toChemistrySettings(source.settings);
+  const base = computeMassBalance(source.lines, settings);
+  const finishedPerCharge = base.finishedMassG / base.totalChargeG;
+  const finishedG =
+    query.amount === undefined ? base.finishedMassG
+      : query.target === 'jar_count' ? query.amount * settings.jarNetFillG
+        : query.target === 'finished_mass' ? toGrams(query.amount, query.unit)
+          : toGrams(query.amount, query.unit) * finishedPerCharge;
+  return { jarNetFillG: settings.jarNetFillG, finishedPerCharge, finishedG, chargeG: finishedG / finishedPerCharge };
+}
+
+const unitSystemOf = (unit: BatchSheetQuery['unit']) => (unit === 'lb' || unit === 'oz' ? 'imperial' : 'metric');
+
 /**
  * Why a batch sheet cannot be scaled to the amount asked, in words for the amount field; null when it can.
  * The batch must fill at least one jar of the formula's net fill, and its kettle charge stay within
@@ -46,21 +61,14 @@ export const SHEET_MAX_CHARGE_G = 5_000_000;
  */
 export function sheetAmountProblem(source: Pick<SheetSource, 'settings' | 'lines'>, query: BatchSheetQuery): string | null {
   if (query.amount === undefined) return null;
-  const settings = toChemistrySettings(source.settings);
-  const base = computeMassBalance(source.lines, settings);
-  const finishedPerCharge = base.finishedMassG / base.totalChargeG;
-  const finishedG =
-    query.target === 'jar_count' ? query.amount * settings.jarNetFillG
-      : query.target === 'finished_mass' ? toGrams(query.amount, query.unit)
-        : toGrams(query.amount, query.unit) * finishedPerCharge;
-  const chargeG = finishedG / finishedPerCharge;
-  const unit = query.unit === 'lb' || query.unit === 'oz' ? 'imperial' : 'metric';
+  const { jarNetFillG, finishedPerCharge, finishedG, chargeG } = askedBatch(source, query);
+  const unit = unitSystemOf(query.unit);
   if (!Number.isFinite(chargeG) || chargeG > SHEET_MAX_CHARGE_G) {
     return `That batch is too large: a batch sheet scales to a kettle charge of at most ${formatMass(SHEET_MAX_CHARGE_G, unit)}.`;
   }
-  if (finishedG < settings.jarNetFillG) {
-    const oneJar = query.target === 'total_charge' ? settings.jarNetFillG / finishedPerCharge : settings.jarNetFillG;
-    return `That batch is too small to fill one ${settings.jarNetFillG} g jar: scale to at least ${formatMass(Math.ceil(oneJar), unit)} ${query.target === 'total_charge' ? 'of kettle charge' : 'of finished product'}.`;
+  if (finishedG < jarNetFillG) {
+    const oneJar = query.target === 'total_charge' ? jarNetFillG / finishedPerCharge : jarNetFillG;
+    return `That batch is too small to fill one ${jarNetFillG} g jar: scale to at least ${formatMass(Math.ceil(oneJar), unit)} ${query.target === 'total_charge' ? 'of kettle charge' : 'of finished product'}.`;
   }
   return null;
 }
@@ -75,17 +83,10 @@ export const SHEET_STEP_SHARE_MAX = 0.1;
 export function sheetStepProblem(source: Pick<SheetSource, 'settings' | 'lines'>, query: BatchSheetQuery): string | null {
   // A stored value the chemistry cannot use (a jar fill of 1e-320 g) is named by buildBatchSheet instead.
   if (storedValueProblem(source.settings, source.lines)) return null;
-  const settings = toChemistrySettings(source.settings);
-  const base = computeMassBalance(source.lines, settings);
-  const finishedPerCharge = base.finishedMassG / base.totalChargeG;
-  const chargeG =
-    query.amount === undefined ? base.totalChargeG
-      : query.target === 'jar_count' ? (query.amount * settings.jarNetFillG) / finishedPerCharge
-        : query.target === 'finished_mass' ? toGrams(query.amount, query.unit) / finishedPerCharge
-          : toGrams(query.amount, query.unit);
+  const { chargeG } = askedBatch(source, query);
   const stepG = toGrams(query.step, query.stepUnit);
   if (stepG > chargeG * SHEET_STEP_SHARE_MAX) {
-    const unit = query.stepUnit === 'lb' || query.stepUnit === 'oz' ? 'imperial' : 'metric';
+    const unit = unitSystemOf(query.stepUnit);
     return `A scale step of ${query.step} ${query.stepUnit} is too coarse for a kettle charge of ${formatMass(chargeG, unit)}: use a scale that reads to ${formatMass(chargeG * SHEET_STEP_SHARE_MAX, unit)} or finer.`;
   }
   return null;
